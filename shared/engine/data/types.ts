@@ -1,0 +1,105 @@
+/**
+ * Shapes of the curated component data. Every number that the engine uses
+ * carries its provenance: a `Sourced<T>` value says where it was read, or that
+ * it is from memory and unverified.
+ */
+
+/** Where a value comes from. `ref` names the published source (book, table,
+ * data file, page); `status` says whether the number was read there. */
+export interface Source {
+  ref: string;
+  status: 'confirmed' | 'unverified-memory' | 'estimated' | 'common-practice';
+  note?: string;
+}
+
+export interface Sourced<T> {
+  value: T;
+  source: Source;
+}
+
+/**
+ * Antoine constants. Two forms are carried exactly as published so that no
+ * conversion error can creep in:
+ *  - 'log10-bar-degC':  log10(P/bar) = A − B / (t/°C + C)   (Poling et al. 5th ed., App. A)
+ *  - 'log10-bar-K':     log10(P/bar) = A − B / (T/K + C)    (NIST Chemistry WebBook)
+ * Validity range in kelvin.
+ */
+export interface AntoineSet {
+  form: 'log10-bar-degC' | 'log10-bar-K';
+  A: number;
+  B: number;
+  C: number;
+  TminK: number;
+  TmaxK: number;
+  source: Source;
+}
+
+/** UNIFAC subgroup counts, keyed by the subgroup number of the original
+ * UNIFAC table (Hansen et al. 1991), e.g. ethanol = { 1: 1, 2: 1, 14: 1 }. */
+export type UnifacGroups = Record<number, number>;
+
+/** Solvent-selection guide category (CHEM21, Prat et al., Green Chem. 2016, 18, 288). */
+export type GuideCategory = 'recommended' | 'problematic' | 'hazardous' | 'highly-hazardous';
+
+export interface SolventRecord {
+  id: string; // stable slug, e.g. 'ethyl-acetate'
+  name: string;
+  synonyms?: string[];
+  smiles: string;
+  cas: string;
+  molarMassGmol: Sourced<number>;
+  /** Density in g/mL at `temperatureC`; optional linear temperature
+   * coefficient in g/mL per K where known. */
+  density: Sourced<{ gPerMl: number; temperatureC: number; dPerK?: number }>;
+  boilingPointC: Sourced<number>;
+  meltingPointC: Sourced<number>;
+  /** Closed-cup flash point; null where the liquid has none under standard test. */
+  flashPointC: Sourced<number | null>;
+  antoine: AntoineSet[]; // in order of preference; may be empty
+  /** Enthalpy of vaporisation at the normal boiling point, kJ/mol, for
+   * Clausius–Clapeyron outside the Antoine range. */
+  enthalpyVapKJmol?: Sourced<number>;
+  hansen: Sourced<{ d: number; p: number; h: number }>;
+  molarVolumeCm3mol?: Sourced<number>;
+  unifac: Sourced<UnifacGroups>;
+  /** Mutual solubility with water near 20–25 °C (wt %), where partly miscible. */
+  waterMutualSolubility?: Sourced<{
+    solventInWaterWtPct: number;
+    waterInSolventWtPct: number;
+    temperatureC: number;
+  }>;
+  /** 'miscible' | 'partial' | 'immiscible' with water at 25 °C. */
+  waterMiscibility: 'miscible' | 'partial';
+  viscosityMPas25C: Sourced<number>;
+  ich: Sourced<{ class: 1 | 2 | 3 | null; limitPpm: number | null; pdeMgDay?: number | null }>;
+  peroxideFormer: Sourced<boolean>;
+  /** Low electrical conductivity (static accumulation risk). */
+  lowConductivity: Sourced<boolean>;
+  guideCategory: Sourced<GuideCategory>;
+  /** Dielectric constant, used by some estimates; optional. */
+  dielectricConstant?: Sourced<number>;
+}
+
+/** An aqueous medium made from water and a solute at a given wt %. */
+export interface AqueousSoluteRecord {
+  id: string; // 'nacl', 'nahco3', ...
+  name: string;
+  formula: string;
+  smiles: string;
+  cas: string;
+  molarMassGmol: Sourced<number>;
+  /** What the solute does to pH: a strong acid/base, a buffer with pKa values, or neutral salt. */
+  acidBase:
+    | { kind: 'neutral' }
+    | { kind: 'strong-acid'; protons: number }
+    | { kind: 'strong-base'; hydroxides: number }
+    | { kind: 'weak-acid'; pKa: Sourced<number[]> }
+    | { kind: 'weak-base'; pKa: Sourced<number[]> } // pKa of the conjugate acid
+    | { kind: 'amphoteric-salt'; pKa: Sourced<number[]> };
+  /** Density of solutions: points (wt %, g/mL at 20 °C) for interpolation. */
+  densityPoints: Sourced<Array<[number, number]>>;
+  /** Setschenow salting-out coefficient, L/mol, for a typical neutral organic
+   * solute, where published. */
+  setschenowKs?: Sourced<number>;
+  maxWtPct: number; // saturation or usual maximum
+}
