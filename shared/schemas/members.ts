@@ -1,0 +1,58 @@
+import { z } from 'zod';
+import { emailSchema, newPasswordSchema, personNameSchema, roleSchema } from './session';
+
+const rolesSchema = z
+  .array(roleSchema)
+  .min(1, { message: 'Choose at least one role.' })
+  .refine((roles) => new Set(roles).size === roles.length, { message: 'Each role may appear once.' });
+
+export const memberSchema = z.object({
+  userId: z.string(),
+  email: z.string(),
+  name: z.string(),
+  roles: z.array(roleSchema),
+  joinedAt: z.string(),
+});
+export type Member = z.infer<typeof memberSchema>;
+export const memberListSchema = z.array(memberSchema);
+
+export const inviteSchema = z.object({
+  email: emailSchema,
+  roles: rolesSchema,
+});
+export type InviteInput = z.infer<typeof inviteSchema>;
+
+export const invitationSchema = z.object({
+  id: z.string(),
+  email: z.string(),
+  roles: z.array(roleSchema),
+  expiresAt: z.string(),
+});
+export type Invitation = z.infer<typeof invitationSchema>;
+
+export const updateRolesSchema = z.object({
+  roles: rolesSchema,
+});
+export type UpdateRolesInput = z.infer<typeof updateRolesSchema>;
+
+/** What the public invitation page shows before the invitee accepts. */
+export const invitationInfoSchema = z.object({
+  workspaceName: z.string(),
+  email: z.string(),
+  roles: z.array(roleSchema),
+  expiresAt: z.string(),
+  /** True when the e-mail already has an account: the page then asks for its password. */
+  existingUser: z.boolean(),
+});
+export type InvitationInfo = z.infer<typeof invitationInfoSchema>;
+
+/**
+ * Accepting: a new person picks a name and a password (name required then);
+ * someone who already has an account gives their current password and the
+ * name is ignored.
+ */
+export const acceptInvitationSchema = z.object({
+  name: personNameSchema.optional(),
+  password: newPasswordSchema,
+});
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
