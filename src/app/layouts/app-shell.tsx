@@ -1,0 +1,216 @@
+import type { ReactNode } from 'react';
+import { Navigate, NavLink, Outlet, useLocation, useNavigate, useParams } from 'react-router-dom';
+import type { Session } from '@shared/schemas/session';
+import { useSession } from '@/features/auth/api/get-session';
+import { useSignOut } from '@/features/auth/api/sign-out';
+import { canManageMembers, canViewOutbox } from '@/features/auth/abilities';
+import { lastWorkspace } from '@/features/auth/last-workspace';
+import { WorkspaceSwitcher } from '@/features/auth/components/workspace-switcher';
+import { Logo } from '@/components/logo';
+import { Loading } from '@/components/spinner';
+import { ErrorState } from '@/components/error-state';
+import { cn } from '@/components/cn';
+import { paths } from '@/paths';
+import { toast } from '@/stores/toasts';
+
+/** Signed-in pages: the guard, the navigation rail and the page area. */
+export function Component() {
+  const session = useSession();
+  const location = useLocation();
+
+  if (session.isPending) return <Loading label="Checking your session…" className="justify-center pt-24" />;
+  if (session.isError) {
+    return (
+      <div className="mx-auto mt-24 max-w-form px-6">
+        <ErrorState error={session.error} title="Phasewright could not reach the server" onRetry={() => session.refetch()} />
+      </div>
+    );
+  }
+  if (!session.data) {
+    return <Navigate to={paths.signIn.to(location.pathname + location.search)} replace />;
+  }
+  return <Shell session={session.data} />;
+}
+
+function Shell({ session }: { session: Session }) {
+  const { workspaceId: routeWorkspaceId } = useParams();
+  const remembered = lastWorkspace();
+  const workspaceId =
+    routeWorkspaceId ??
+    (session.workspaces.some((w) => w.id === remembered) ? remembered! : session.workspaces[0]?.id);
+
+  return (
+    <div className="flex min-h-screen">
+      <aside className="sticky top-0 flex h-screen w-rail shrink-0 flex-col border-r border-rule bg-paper-sunken">
+        <a
+          href="#main"
+          className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-control focus:bg-paper-raised focus:px-3 focus:py-2"
+        >
+          Skip to content
+        </a>
+        <div className="flex h-bar items-center gap-2 border-b border-rule px-4">
+          <Logo className="text-ink" />
+          <span className="text-lead font-semibold tracking-tight text-ink">Phasewright</span>
+        </div>
+        <div className="border-b border-rule px-3 py-3">
+          <WorkspaceSwitcher workspaces={session.workspaces} currentId={workspaceId} />
+        </div>
+        <nav aria-label="Main" className="flex-1 overflow-y-auto px-2 py-3">
+          {workspaceId ? (
+            <NavGroup label="Process">
+              <NavItem to={paths.workspace.home.to(workspaceId)} end glyph={<RouteGlyph />}>
+                Routes
+              </NavItem>
+              <NavItem to={paths.workspace.compounds.to(workspaceId)} glyph={<CompoundGlyph />} soon>
+                Compounds
+              </NavItem>
+              <NavItem to={paths.workspace.solvents.to(workspaceId)} glyph={<SolventGlyph />} soon>
+                Solvent library
+              </NavItem>
+            </NavGroup>
+          ) : null}
+          {workspaceId && canManageMembers(session, workspaceId) ? (
+            <NavGroup label="Workspace">
+              <NavItem to={paths.workspace.members.to(workspaceId)} glyph={<PeopleGlyph />}>
+                Members
+              </NavItem>
+            </NavGroup>
+          ) : null}
+          <NavGroup label="You">
+            <NavItem to={paths.account.to()} glyph={<PersonGlyph />}>
+              Account
+            </NavItem>
+            {canViewOutbox(session) ? (
+              <NavItem to={paths.outbox.to()} glyph={<MailGlyph />}>
+                Outbox
+              </NavItem>
+            ) : null}
+          </NavGroup>
+        </nav>
+        <UserPanel session={session} />
+      </aside>
+      <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-gutter py-5 focus:outline-none">
+        <div className="mx-auto max-w-page">
+          <Outlet />
+        </div>
+      </main>
+    </div>
+  );
+}
+
+function UserPanel({ session }: { session: Session }) {
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <div className="border-t border-rule px-3 py-3">
+      <p className="truncate text-body font-medium text-ink" title={session.user.name}>
+        {session.user.name}
+      </p>
+      <p className="truncate text-caption text-ink-muted" title={session.user.email}>
+        {session.user.email}
+      </p>
+      <button
+        type="button"
+        disabled={signOut.isPending}
+        onClick={() =>
+          signOut.mutate(undefined, {
+            onSuccess: () => navigate(paths.signIn.to(), { replace: true }),
+            onError: (e) => toast.error(e.message),
+          })
+        }
+        className="mt-2 rounded-control px-1 py-0.5 text-small font-medium text-accent hover:bg-accent-soft hover:text-accent-deep"
+      >
+        {signOut.isPending ? 'Signing out…' : 'Sign out'}
+      </button>
+    </div>
+  );
+}
+
+function NavGroup({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <div className="mb-4">
+      <p className="px-2 pb-1 text-caption font-medium tracking-wide text-ink-faint uppercase">{label}</p>
+      <ul className="space-y-px">{children}</ul>
+    </div>
+  );
+}
+
+function NavItem({ to, end, glyph, soon, children }: { to: string; end?: boolean; glyph: ReactNode; soon?: boolean; children: ReactNode }) {
+  return (
+    <li>
+      <NavLink
+        to={to}
+        end={end}
+        className={({ isActive }) =>
+          cn(
+            'flex h-8 items-center gap-2 rounded-control border-l-2 px-2 text-body',
+            isActive
+              ? 'border-accent bg-paper-raised font-medium text-accent-deep'
+              : 'border-transparent text-ink-muted hover:bg-paper-raised/70 hover:text-ink',
+          )
+        }
+      >
+        <span aria-hidden="true" className="text-current">
+          {glyph}
+        </span>
+        <span className="flex-1">{children}</span>
+        {soon ? <span className="rounded-control bg-paper px-1 text-caption text-ink-faint">soon</span> : null}
+      </NavLink>
+    </li>
+  );
+}
+
+const glyphProps = { width: 16, height: 16, viewBox: '0 0 16 16', fill: 'none', stroke: 'currentColor', strokeWidth: 1.4 } as const;
+
+function RouteGlyph() {
+  return (
+    <svg {...glyphProps}>
+      <rect x="1.5" y="2" width="4" height="3" rx="0.8" />
+      <rect x="10.5" y="6.5" width="4" height="3" rx="0.8" />
+      <rect x="1.5" y="11" width="4" height="3" rx="0.8" />
+      <path d="M5.5 3.5h2.5v4.5h2.5M8 8v4.5H5.5" />
+    </svg>
+  );
+}
+function CompoundGlyph() {
+  return (
+    <svg {...glyphProps}>
+      <path d="M8 1.8l5.3 3.1v6.2L8 14.2l-5.3-3.1V4.9z" />
+      <path d="M8 5.2v5.6" />
+    </svg>
+  );
+}
+function SolventGlyph() {
+  return (
+    <svg {...glyphProps}>
+      <path d="M5.5 1.8h5M6.5 1.8v3.4L3 12.6a1.2 1.2 0 0 0 1.1 1.7h7.8a1.2 1.2 0 0 0 1.1-1.7L9.5 5.2V1.8" />
+      <path d="M4.4 10h7.2" />
+    </svg>
+  );
+}
+function PeopleGlyph() {
+  return (
+    <svg {...glyphProps}>
+      <circle cx="5.5" cy="5.5" r="2.3" />
+      <path d="M1.5 13.5c.4-2.4 2-3.7 4-3.7s3.6 1.3 4 3.7" />
+      <circle cx="11.3" cy="6" r="1.8" />
+      <path d="M11 9.6c1.8 0 3 1.1 3.4 3.2" />
+    </svg>
+  );
+}
+function PersonGlyph() {
+  return (
+    <svg {...glyphProps}>
+      <circle cx="8" cy="5.3" r="2.6" />
+      <path d="M3 14c.5-2.8 2.4-4.3 5-4.3s4.5 1.5 5 4.3" />
+    </svg>
+  );
+}
+function MailGlyph() {
+  return (
+    <svg {...glyphProps}>
+      <rect x="1.8" y="3.3" width="12.4" height="9.4" rx="1.2" />
+      <path d="M2.2 4l5.8 4.6L13.8 4" />
+    </svg>
+  );
+}

@@ -1,0 +1,41 @@
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { useState, type ReactNode } from 'react';
+import type { Session } from '@shared/schemas/session';
+import { configureApiClient, isApiError } from '@/api/client';
+import { sessionQueryKey } from '@/features/auth/api/get-session';
+import { Toaster } from '@/components/toaster';
+import { AppErrorBoundary } from './error-boundary';
+
+export function createQueryClient() {
+  const queryClient = new QueryClient({
+    defaultOptions: {
+      queries: {
+        staleTime: 15_000,
+        refetchOnWindowFocus: false,
+        // Answers that will not change on a retry are shown at once.
+        retry: (count, error) => !(isApiError(error) && error.status >= 400 && error.status < 500) && count < 2,
+      },
+    },
+  });
+  configureApiClient({
+    getCsrfToken: () => queryClient.getQueryData<Session | null>(sessionQueryKey)?.csrfToken,
+    onUnauthorized: () => {
+      // The session ended (idle timeout, signed out elsewhere): forget it, and
+      // the guard sends the person to sign in.
+      queryClient.setQueryData(sessionQueryKey, null);
+    },
+  });
+  return queryClient;
+}
+
+export function AppProvider({ children }: { children: ReactNode }) {
+  const [queryClient] = useState(createQueryClient);
+  return (
+    <AppErrorBoundary>
+      <QueryClientProvider client={queryClient}>
+        {children}
+        <Toaster />
+      </QueryClientProvider>
+    </AppErrorBoundary>
+  );
+}

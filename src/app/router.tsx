@@ -1,0 +1,47 @@
+import { createBrowserRouter } from 'react-router-dom';
+import { paths } from '@/paths';
+import { Loading } from '@/components/spinner';
+import { RouteErrorPage } from './route-error';
+
+/**
+ * Every page is its own lazily loaded module, so the first page ships only
+ * the router, the query client and the page itself.
+ */
+export function createAppRouter() {
+  return createBrowserRouter([
+    {
+      errorElement: <RouteErrorPage />,
+      hydrateFallbackElement: <Loading className="justify-center" />,
+      children: [
+        {
+          lazy: () => import('./layouts/public-layout'),
+          children: [
+            { path: paths.signIn.pattern, lazy: () => import('@/routes/sign-in') },
+            { path: paths.requestReset.pattern, lazy: () => import('@/routes/request-reset') },
+            { path: paths.completeReset.pattern, lazy: () => import('@/routes/complete-reset') },
+            { path: paths.acceptInvitation.pattern, lazy: () => import('@/routes/accept-invitation') },
+          ],
+        },
+        {
+          lazy: () => import('./layouts/app-shell'),
+          children: [
+            { index: true, lazy: () => import('@/routes/start') },
+            { path: paths.account.pattern, lazy: () => import('@/routes/account') },
+            { path: paths.outbox.pattern, lazy: () => import('@/routes/outbox') },
+            {
+              path: paths.workspace.home.pattern,
+              lazy: () => import('./layouts/workspace-layout'),
+              children: [
+                { index: true, lazy: () => import('@/routes/workspace-home') },
+                { path: paths.workspace.members.pattern, lazy: () => import('@/routes/members') },
+                { path: paths.workspace.compounds.pattern, lazy: () => import('@/routes/compounds') },
+                { path: paths.workspace.solvents.pattern, lazy: () => import('@/routes/solvents') },
+              ],
+            },
+            { path: '*', lazy: () => import('@/routes/not-found') },
+          ],
+        },
+      ],
+    },
+  ]);
+}

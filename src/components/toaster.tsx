@@ -1,0 +1,34 @@
+import { useToasts } from '@/stores/toasts';
+import { cn } from './cn';
+
+const tones = {
+  success: 'border-l-phase-aqueous',
+  error: 'border-l-caution-hazard',
+  info: 'border-l-caution-info',
+} as const;
+
+export function Toaster() {
+  const toasts = useToasts((s) => s.toasts);
+  const dismiss = useToasts((s) => s.dismiss);
+  return (
+    <div aria-live="polite" className="pointer-events-none fixed right-4 bottom-4 z-50 flex w-80 flex-col gap-2">
+      {toasts.map((t) => (
+        <div
+          key={t.id}
+          role={t.tone === 'error' ? 'alert' : 'status'}
+          className={cn('pointer-events-auto flex items-start gap-3 rounded-card border border-rule border-l-4 bg-paper-raised px-3 py-2 shadow-overlay', tones[t.tone])}
+        >
+          <p className="flex-1 text-body text-ink">{t.message}</p>
+          <button
+            type="button"
+            onClick={() => dismiss(t.id)}
+            className="rounded-control px-1 text-small text-ink-muted hover:text-ink"
+            aria-label="Dismiss message"
+          >
+            ✕
+          </button>
+        </div>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,25 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { sessionSchema, type Session } from '@shared/schemas/session';
+import { apiRequest, isApiError } from '@/api/client';
+import { api } from '@/paths';
+
+export const sessionQueryKey = ['session'] as const;
+
+/** The signed-in session, or null when signed out (the API answers 401). */
+export async function getSession(signal?: AbortSignal): Promise<Session | null> {
+  try {
+    return await apiRequest(api.session, { schema: sessionSchema, signal, ignoreUnauthorized: true });
+  } catch (error) {
+    if (isApiError(error, 401)) return null;
+    throw error;
+  }
+}
+
+export const getSessionQueryOptions = () =>
+  queryOptions({
+    queryKey: sessionQueryKey,
+    queryFn: ({ signal }) => getSession(signal),
+    staleTime: 60_000,
+  });
+
+export const useSession = () => useQuery(getSessionQueryOptions());

@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { sessionSchema, type SignInInput } from '@shared/schemas/session';
+import { apiRequest } from '@/api/client';
+import { api } from '@/paths';
+import { sessionQueryKey } from './get-session';
+
+export const signIn = (input: SignInInput) =>
+  apiRequest(api.session, { method: 'POST', body: input, schema: sessionSchema, ignoreUnauthorized: true });
+
+export const useSignIn = () => {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: signIn,
+    onSuccess: (session) => {
+      // A new person may be signing in: drop whatever the last one loaded.
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] });
+      queryClient.setQueryData(sessionQueryKey, session);
+    },
+  });
+};

@@ -1,0 +1,22 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { memberSchema, type UpdateRolesInput } from '@shared/schemas/members';
+import { apiRequest } from '@/api/client';
+import { api } from '@/paths';
+import { getMembersQueryOptions } from './get-members';
+import { sessionQueryKey } from '@/features/auth/api/get-session';
+
+export const updateMemberRoles = (workspaceId: string, userId: string, input: UpdateRolesInput) =>
+  apiRequest(api.member(workspaceId, userId), { method: 'PATCH', body: input, schema: memberSchema });
+
+export const useUpdateMemberRoles = (workspaceId: string) => {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ userId, roles }: { userId: string } & UpdateRolesInput) =>
+      updateMemberRoles(workspaceId, userId, { roles }),
+    onSuccess: async () => {
+      await queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey });
+      // The admin may have changed their own roles.
+      await queryClient.invalidateQueries({ queryKey: sessionQueryKey });
+    },
+  });
+};

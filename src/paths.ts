@@ -1,0 +1,50 @@
+/**
+ * Every URL the client links to or navigates to, in one place. `pattern` is
+ * what the router matches; `to(...)` builds a concrete link.
+ */
+export const paths = {
+  root: { pattern: '/', to: () => '/' },
+  signIn: {
+    pattern: '/sign-in',
+    to: (next?: string) => (next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
+  },
+  requestReset: { pattern: '/reset-password', to: () => '/reset-password' },
+  completeReset: {
+    pattern: '/reset-password/:token',
+    to: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
+  },
+  acceptInvitation: {
+    pattern: '/invitations/:token',
+    to: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
+  account: { pattern: '/account', to: () => '/account' },
+  outbox: { pattern: '/outbox', to: () => '/outbox' },
+  workspace: {
+    home: { pattern: '/w/:workspaceId', to: (id: string) => `/w/${encodeURIComponent(id)}` },
+    members: { pattern: '/w/:workspaceId/members', to: (id: string) => `/w/${encodeURIComponent(id)}/members` },
+    compounds: { pattern: '/w/:workspaceId/compounds', to: (id: string) => `/w/${encodeURIComponent(id)}/compounds` },
+    solvents: { pattern: '/w/:workspaceId/solvents', to: (id: string) => `/w/${encodeURIComponent(id)}/solvents` },
+  },
+} as const;
+
+/** Only same-site paths are accepted as a place to return to after sign-in. */
+export function safeNext(next: string | null | undefined): string {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return paths.root.to();
+  return next;
+}
+
+export const api = {
+  session: '/api/v1/session',
+  accountPassword: '/api/v1/account/password',
+  members: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/members`,
+  member: (workspaceId: string, userId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/members/${encodeURIComponent(userId)}`,
+  invitations: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/invitations`,
+  invitation: (token: string) => `/api/v1/invitations/${encodeURIComponent(token)}`,
+  acceptInvitation: (token: string) => `/api/v1/invitations/${encodeURIComponent(token)}/accept`,
+  passwordResets: '/api/v1/password-resets',
+  passwordReset: (token: string) => `/api/v1/password-resets/${encodeURIComponent(token)}`,
+  tokens: '/api/v1/tokens',
+  token: (id: string) => `/api/v1/tokens/${encodeURIComponent(id)}`,
+  outbox: '/api/v1/outbox',
+} as const;

@@ -1,0 +1,82 @@
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { completeResetSchema } from '@shared/schemas/password-reset';
+import { useCompleteReset } from '@/features/password-reset/api/complete-reset';
+import { Button, ButtonLink } from '@/components/button';
+import { TextField } from '@/components/text-field';
+import { FormMessage } from '@/components/error-state';
+import { useForm } from '@/lib/use-form';
+import { PASSWORD_MIN_LENGTH } from '@shared/schemas/limits';
+import { paths } from '@/paths';
+
+export function Component() {
+  const { token = '' } = useParams();
+  const complete = useCompleteReset(token);
+  const form = useForm(completeResetSchema, { password: '' });
+  const [repeat, setRepeat] = useState('');
+  const [repeatError, setRepeatError] = useState<string>();
+
+  const submit = (e: React.FormEvent) => {
+    e.preventDefault();
+    const input = form.validate();
+    const mismatch = repeat !== form.values.password ? 'The two passwords differ.' : undefined;
+    setRepeatError(mismatch);
+    if (!input || mismatch) return;
+    complete.mutate(input, { onError: form.showServerError });
+  };
+
+  if (complete.isSuccess) {
+    return (
+      <>
+        <h1 className="text-heading font-semibold text-ink">Password changed</h1>
+        <div className="mt-4 space-y-4">
+          <FormMessage tone="success">Your new password is set. Sign in with it now.</FormMessage>
+          <ButtonLink to={paths.signIn.to()} variant="primary" className="w-full">
+            Sign in
+          </ButtonLink>
+        </div>
+      </>
+    );
+  }
+
+  return (
+    <>
+      <h1 className="text-heading font-semibold text-ink">Choose a new password</h1>
+      <p className="mt-1 text-body text-ink-muted">This link works once and expires after a while.</p>
+      <form noValidate onSubmit={submit} className="mt-5 space-y-4">
+        {form.formError ? (
+          <FormMessage tone="error">
+            {form.formError}{' '}
+            <Link to={paths.requestReset.to()} className="font-medium underline">
+              Ask for a new link
+            </Link>
+          </FormMessage>
+        ) : null}
+        <TextField
+          label="New password"
+          type="password"
+          autoComplete="new-password"
+          autoFocus
+          hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
+          value={form.values.password}
+          onValueChange={(v) => form.setField('password', v)}
+          error={form.errors.password}
+        />
+        <TextField
+          label="Repeat new password"
+          type="password"
+          autoComplete="new-password"
+          value={repeat}
+          onValueChange={(v) => {
+            setRepeat(v);
+            setRepeatError(undefined);
+          }}
+          error={repeatError}
+        />
+        <Button type="submit" className="w-full" busy={complete.isPending}>
+          Set new password
+        </Button>
+      </form>
+    </>
+  );
+}
