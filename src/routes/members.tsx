@@ -1,6 +1,6 @@
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { useSession } from '@/features/auth/api/get-session';
-import { canManageMembers } from '@/features/auth/abilities';
+import { canInviteMembers, canRemoveMembers, canUpdateRoles } from '@/features/auth/abilities';
 import { useMembers } from '@/features/members/api/get-members';
 import { InviteForm } from '@/features/members/components/invite-form';
 import { MemberTable } from '@/features/members/components/member-table';
@@ -13,33 +13,41 @@ import { Loading } from '@/components/spinner';
 export function Component() {
   const workspace = useWorkspace();
   const { data: session } = useSession();
-  const allowed = session ? canManageMembers(session, workspace.id) : false;
+  if (!session) return null;
+  const can = {
+    invite: canInviteMembers(session, workspace.id),
+    updateRoles: canUpdateRoles(session, workspace.id),
+    remove: canRemoveMembers(session, workspace.id),
+  };
 
   return (
     <>
       <PageHeader eyebrow={workspace.name} title="Members" description="Who works in this workspace, and in which roles. One person may hold several roles." />
-      {allowed && session ? (
+      {can.invite ? (
         <div className="grid grid-cols-[minmax(0,1fr)_20rem] items-start gap-5">
-          <MemberList workspaceId={workspace.id} currentUserId={session.user.id} />
+          <MemberList workspaceId={workspace.id} currentUserId={session.user.id} can={can} />
           <Card title="Invite a member" description="They get an e-mail with a link to join.">
             <InviteForm workspaceId={workspace.id} />
           </Card>
         </div>
       ) : (
-        <EmptyState title="Only admins manage members">
-          Ask an admin of {workspace.name} to invite colleagues or change roles.
-        </EmptyState>
+        <div className="space-y-3">
+          <p className="text-body text-ink-muted">Only admins invite colleagues or change roles. Ask an admin of {workspace.name} if something here is wrong.</p>
+          <MemberList workspaceId={workspace.id} currentUserId={session.user.id} can={can} />
+        </div>
       )}
     </>
   );
 }
 
-function MemberList({ workspaceId, currentUserId }: { workspaceId: string; currentUserId: string }) {
+type Can = { updateRoles: boolean; remove: boolean };
+
+function MemberList({ workspaceId, currentUserId, can }: { workspaceId: string; currentUserId: string; can: Can }) {
   const members = useMembers(workspaceId);
   if (members.isPending) return <Loading label="Loading members…" />;
   if (members.isError) return <ErrorState error={members.error} title="Members could not be loaded" onRetry={() => members.refetch()} />;
   if (members.data.length === 0) {
-    return <EmptyState title="No members yet">Invite your colleagues with the form beside this list.</EmptyState>;
+    return <EmptyState title="No members yet">{can.updateRoles ? 'Invite your colleagues with the form beside this list.' : 'Ask an admin to invite your colleagues.'}</EmptyState>;
   }
-  return <MemberTable workspaceId={workspaceId} members={members.data} currentUserId={currentUserId} />;
+  return <MemberTable workspaceId={workspaceId} members={members.data} currentUserId={currentUserId} canUpdateRoles={can.updateRoles} canRemove={can.remove} />;
 }

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { useSession } from '@/features/auth/api/get-session';
-import { canManageMembers } from '@/features/auth/abilities';
+import { canInviteMembers } from '@/features/auth/abilities';
 import { PageHeader } from '@/components/page-header';
 import { EmptyState } from '@/components/empty-state';
 import { Button } from '@/components/button';
@@ -12,7 +12,7 @@ import { paths } from '@/paths';
 export function Component() {
   const workspace = useWorkspace();
   const { data: session } = useSession();
-  const isAdmin = session ? canManageMembers(session, workspace.id) : false;
+  const isAdmin = session ? canInviteMembers(session, workspace.id) : false;
   return (
     <>
       <PageHeader

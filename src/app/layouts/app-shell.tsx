@@ -3,7 +3,7 @@ import { Navigate, NavLink, Outlet, useLocation, useNavigate, useParams } from '
 import type { Session } from '@shared/schemas/session';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
-import { canManageMembers, canViewOutbox } from '@/features/auth/abilities';
+import { canViewOutbox } from '@/features/auth/abilities';
 import { lastWorkspace } from '@/features/auth/last-workspace';
 import { WorkspaceSwitcher } from '@/features/auth/components/workspace-switcher';
 import { Logo } from '@/components/logo';
@@ -69,7 +69,7 @@ function Shell({ session }: { session: Session }) {
               </NavItem>
             </NavGroup>
           ) : null}
-          {workspaceId && canManageMembers(session, workspaceId) ? (
+          {workspaceId ? (
             <NavGroup label="Workspace">
               <NavItem to={paths.workspace.members.to(workspaceId)} glyph={<PeopleGlyph />}>
                 Members

@@ -11,7 +11,9 @@ import { ConfirmDialog } from '@/components/confirm-dialog';
 import { formatDate } from '@/lib/format';
 import { toast } from '@/stores/toasts';
 
-export function MemberTable({ workspaceId, members, currentUserId }: { workspaceId: string; members: Member[]; currentUserId: string }) {
+type MemberTableProps = { workspaceId: string; members: Member[]; currentUserId: string; canUpdateRoles: boolean; canRemove: boolean };
+
+export function MemberTable({ workspaceId, members, currentUserId, canUpdateRoles, canRemove }: MemberTableProps) {
   const [editing, setEditing] = useState<string | null>(null);
   const [removing, setRemoving] = useState<Member | null>(null);
   const remove = useRemoveMember(workspaceId);
@@ -46,12 +48,16 @@ export function MemberTable({ workspaceId, members, currentUserId }: { workspace
                 </Td>
                 <Td className="whitespace-nowrap text-ink-muted">{formatDate(m.joinedAt)}</Td>
                 <Td className="text-right whitespace-nowrap">
-                  <Button variant="quiet" size="sm" onClick={() => setEditing(m.userId)} aria-label={`Change roles of ${m.name}`}>
-                    Change roles
-                  </Button>
-                  <Button variant="quiet" size="sm" className="text-caution-hazard-deep" onClick={() => setRemoving(m)} aria-label={`Remove ${m.name}`}>
-                    Remove
-                  </Button>
+                  {canUpdateRoles ? (
+                    <Button variant="quiet" size="sm" onClick={() => setEditing(m.userId)} aria-label={`Change roles of ${m.name}`}>
+                      Change roles
+                    </Button>
+                  ) : null}
+                  {canRemove ? (
+                    <Button variant="quiet" size="sm" className="text-caution-hazard-deep" onClick={() => setRemoving(m)} aria-label={`Remove ${m.name}`}>
+                      Remove
+                    </Button>
+                  ) : null}
                 </Td>
               </tr>
             ),
