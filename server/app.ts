@@ -1,0 +1,135 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import connectPgSimple from 'connect-pg-simple';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import pg from 'pg';
+import type { Sequelize } from 'sequelize';
+import './http/express-augment';
+import { configurePassport } from './auth/passport';
+import type { AppConfig } from './config';
+import { database } from './db/sequelize';
+import { authenticate } from './middleware/authenticate';
+import { csrfProtection } from './middleware/csrf';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { API_PREFIX, buildOpenApiDocument } from './openapi';
+import { accountRouter } from './routes/account';
+import { healthRouter } from './routes/health';
+import { invitationsRouter } from './routes/invitations';
+import { membersRouter } from './routes/members';
+import { outboxRouter } from './routes/outbox';
+import { passwordResetsRouter } from './routes/password-resets';
+import { SESSION_COOKIE, sessionRouter } from './routes/session';
+import { tokensRouter } from './routes/tokens';
+
+export const JSON_BODY_LIMIT = '1mb';
+
+export interface AppOptions {
+  /** The database the health check probes; defaults to the process connection. */
+  sequelize?: Sequelize;
+  log?: (error: unknown) => void;
+}
+
+export interface PhasewrightApp {
+  app: Express;
+  /** Releases what the app holds itself (the session store's pool). */
+  close(): Promise<void>;
+}
+
+/**
+ * Builds the Express app: security headers, the /api/v1 routers, the built
+ * client with its SPA fallback, and JSON errors. Does not listen; expects
+ * connectDatabase() to have run.
+ */
+export function createApp(config: AppConfig, options: AppOptions = {}): PhasewrightApp {
+  const sequelize = options.sequelize ?? database();
+  const log = options.log ?? ((error: unknown) => console.error('[api]', error));
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // React Flow positions nodes with style attributes.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'", 'data:'],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          workerSrc: ["'self'", 'blob:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          // The app is often reached over plain http://127.0.0.1; upgrading would break it.
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+
+  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+  const PgStore = connectPgSimple(session);
+  const store = new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  const passport = configurePassport();
+
+  const api = express.Router();
+  api.use(express.json({ limit: JSON_BODY_LIMIT }));
+  api.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: config.sessionSecret,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      // Every request pushes expiry forward: the session ends after SESSION_IDLE_MINUTES of inactivity.
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: config.sessionIdleMinutes * 60_000 },
+    }),
+  );
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(authenticate);
+  api.use(csrfProtection((method, requestPath) => method === 'POST' && requestPath === '/session'));
+
+  api.use(healthRouter(sequelize));
+  api.use(sessionRouter(config));
+  api.use(accountRouter());
+  api.use(membersRouter(config));
+  api.use(invitationsRouter(config));
+  api.use(passwordResetsRouter(config));
+  api.use(tokensRouter());
+  api.use(outboxRouter(config));
+  api.get('/openapi.json', (_req, res) => {
+    res.json(buildOpenApiDocument());
+  });
+  api.use(apiNotFound);
+  app.use(API_PREFIX, api);
+  app.use('/api', apiNotFound);
+
+  const staticDir = path.resolve(config.staticDir);
+  const indexHtml = path.join(staticDir, 'index.html');
+  // Hashed asset names change with their content, so they may be cached for long.
+  app.use('/assets', express.static(path.join(staticDir, 'assets'), { immutable: true, maxAge: '365d', fallthrough: false }));
+  app.use(express.static(staticDir, { index: false }));
+  app.get('/{*splat}', (_req, res) => {
+    if (!existsSync(indexHtml)) {
+      res.status(503).type('text/plain').send('The client is not built yet: run `npm run build` (npm start does it).');
+      return;
+    }
+    res.set('Cache-Control', 'no-cache').sendFile(indexHtml);
+  });
+
+  app.use(errorHandler(log));
+
+  return {
+    app,
+    close: async () => {
+      store.close();
+      await sessionPool.end().catch(() => undefined);
+    },
+  };
+}

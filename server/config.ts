@@ -1,0 +1,103 @@
+import { z } from 'zod';
+
+const DEV_SESSION_SECRET = 'phasewright-development-secret-change-me';
+
+const booleanFromEnv = z
+  .enum(['1', '0', 'true', 'false', 'yes', 'no', ''])
+  .transform((value) => value === '1' || value === 'true' || value === 'yes');
+
+/** TRUST_PROXY: "false" (default), "true", a hop count, or an Express trust-proxy list such as "loopback". */
+const trustProxyFromEnv = z.string().transform((value): boolean | number | string => {
+  if (value === '' || value === 'false' || value === '0') return false;
+  if (value === 'true') return true;
+  if (/^\d+$/.test(value)) return Number(value);
+  return value;
+});
+
+const envSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    HOST: z.string().default('127.0.0.1'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    APP_URL: z.url().optional(),
+    DATABASE_URL: z.string().min(1).default('postgres://postgres@127.0.0.1:54329/phasewright'),
+    SESSION_SECRET: z.string().min(16, { message: 'SESSION_SECRET must be at least 16 characters.' }).optional(),
+    SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(60 * 24 * 30).default(120),
+    TRUST_PROXY: trustProxyFromEnv.default(false),
+    SMTP_URL: z.string().optional(),
+    SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+    MAIL_FROM: z.string().default('Phasewright <no-reply@phasewright.invalid>'),
+    PHASEWRIGHT_SEED_DEMO: booleanFromEnv.default(false),
+    STATIC_DIR: z.string().default('dist'),
+    SIGN_IN_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+    RESET_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+    JOB_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
+      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required in production.' });
+    }
+    if (env.NODE_ENV === 'production' && env.PHASEWRIGHT_SEED_DEMO) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['PHASEWRIGHT_SEED_DEMO'],
+        message: 'The demo data is never seeded in production.',
+      });
+    }
+  });
+
+export interface AppConfig {
+  env: 'development' | 'test' | 'production';
+  host: string;
+  port: number;
+  /** Public address of the app; links in e-mails point here. */
+  appUrl: string;
+  databaseUrl: string;
+  sessionSecret: string;
+  sessionIdleMinutes: number;
+  trustProxy: boolean | number | string;
+  /** Null means: start the built-in mail fake and send to it. */
+  smtpUrl: string | null;
+  smtpFakePort: number;
+  mailFrom: string;
+  seedDemo: boolean;
+  staticDir: string;
+  /** The outbox page exists only outside production. */
+  outboxEnabled: boolean;
+  rateLimits: { signInPerWindow: number; resetPerWindow: number; windowMinutes: number };
+  jobPollSeconds: number;
+}
+
+export class ConfigError extends Error {
+  constructor(readonly problems: string[]) {
+    super(`Invalid configuration:\n  ${problems.join('\n  ')}`);
+    this.name = 'ConfigError';
+  }
+}
+
+/** Reads the configuration from environment variables, with safe defaults for development. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    throw new ConfigError(parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`));
+  }
+  const e = parsed.data;
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/+$/, ''),
+    databaseUrl: e.DATABASE_URL,
+    sessionSecret: e.SESSION_SECRET ?? DEV_SESSION_SECRET,
+    sessionIdleMinutes: e.SESSION_IDLE_MINUTES,
+    trustProxy: e.TRUST_PROXY,
+    smtpUrl: e.SMTP_URL ? e.SMTP_URL : null,
+    smtpFakePort: e.SMTP_FAKE_PORT,
+    mailFrom: e.MAIL_FROM,
+    seedDemo: e.PHASEWRIGHT_SEED_DEMO,
+    staticDir: e.STATIC_DIR,
+    outboxEnabled: e.NODE_ENV !== 'production',
+    rateLimits: { signInPerWindow: e.SIGN_IN_RATE_LIMIT, resetPerWindow: e.RESET_RATE_LIMIT, windowMinutes: 15 },
+    jobPollSeconds: e.JOB_POLL_SECONDS,
+  };
+}

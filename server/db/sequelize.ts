@@ -1,0 +1,34 @@
+import { Sequelize } from 'sequelize';
+import { initModels } from '../models';
+
+let current: Sequelize | null = null;
+
+/**
+ * Opens the process-wide Sequelize connection and binds the models to it.
+ * Models bind to one instance (Model.init is static), so a process holds one
+ * connection; calling again with the same URL returns it.
+ */
+export function connectDatabase(databaseUrl: string): Sequelize {
+  if (current) return current;
+  const sequelize = new Sequelize(databaseUrl, {
+    dialect: 'postgres',
+    logging: false,
+    pool: { max: 10, idle: 10_000 },
+    define: { underscored: false },
+  });
+  initModels(sequelize);
+  current = sequelize;
+  return sequelize;
+}
+
+export function database(): Sequelize {
+  if (!current) throw new Error('connectDatabase() has not been called');
+  return current;
+}
+
+export async function closeDatabase(): Promise<void> {
+  if (!current) return;
+  const closing = current;
+  current = null;
+  await closing.close();
+}

@@ -1,0 +1,134 @@
+import type { Request, RequestHandler, Response, Router } from 'express';
+import type { Transaction } from 'sequelize';
+import { z, type ZodType } from 'zod';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import { database } from '../db/sequelize';
+import { unauthenticated, validationFailed } from '../errors';
+import type { Actor } from '../policies';
+import { API_PREFIX, registry } from '../openapi';
+import { zodIssuesToDetails } from './validation';
+
+type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+type ZodObjectAny = z.ZodObject<z.ZodRawShape>;
+
+export interface Reply {
+  status: number;
+  body?: unknown;
+}
+
+interface HandlerContext<P, Q, B, Authed extends boolean> {
+  req: Request;
+  res: Response;
+  params: P;
+  query: Q;
+  body: B;
+  actor: Authed extends true ? Actor : Actor | undefined;
+  /** Null when the route opted out of the wrapping transaction. */
+  transaction: Transaction | null;
+}
+
+export interface RouteSpec<
+  P extends ZodObjectAny | undefined,
+  Q extends ZodObjectAny | undefined,
+  B extends ZodType | undefined,
+  Authed extends boolean,
+> {
+  method: Method;
+  /** Relative to /api/v1, OpenAPI style: '/workspaces/{workspaceId}/members'. */
+  path: string;
+  summary: string;
+  tags: string[];
+  /** true: 401 unless signed in (session cookie or Bearer token). */
+  auth: Authed;
+  params?: P;
+  query?: Q;
+  body?: B;
+  responses: Record<number, { description: string; schema?: ZodType }>;
+  /** Runs before anything else, e.g. a rate limiter. */
+  before?: RequestHandler[];
+  /**
+   * Default true: the handler runs inside one database transaction, committed
+   * before the reply is sent. Opt out when a failure must still leave a trace
+   * (sign-in counts failed attempts).
+   */
+  transaction?: boolean;
+  handle: (
+    ctx: HandlerContext<
+      P extends ZodObjectAny ? z.output<P> : Record<string, never>,
+      Q extends ZodObjectAny ? z.output<Q> : Record<string, never>,
+      B extends ZodType ? z.output<B> : undefined,
+      Authed
+    >,
+  ) => Promise<Reply>;
+}
+
+const registeredOperations = new Set<string>();
+
+const errorResponse = (description: string) => ({
+  description,
+  content: { 'application/json': { schema: apiErrorSchema } },
+});
+
+/**
+ * Declares one API operation: mounts it on the resource's router with the
+ * standard chain (auth → validate → transaction → handler, which loads,
+ * authorizes, calls a service and presents), and registers it in the OpenAPI
+ * document from the same schemas.
+ */
+export function defineRoute<
+  P extends ZodObjectAny | undefined = undefined,
+  Q extends ZodObjectAny | undefined = undefined,
+  B extends ZodType | undefined = undefined,
+  Authed extends boolean = boolean,
+>(router: Router, spec: RouteSpec<P, Q, B, Authed>): void {
+  const responses: Record<string, unknown> = {};
+  for (const [status, response] of Object.entries(spec.responses)) {
+    responses[status] = response.schema
+      ? { description: response.description, content: { 'application/json': { schema: response.schema } } }
+      : { description: response.description };
+  }
+  if (spec.body || spec.params || spec.query) responses['400'] ??= errorResponse('Invalid request; details lists every field problem.');
+  if (spec.auth) responses['401'] ??= errorResponse('Not signed in.');
+  // Several apps may be built in one process (tests); describe each operation once.
+  const operationKey = `${spec.method} ${spec.path}`;
+  if (!registeredOperations.has(operationKey)) {
+    registeredOperations.add(operationKey);
+    registry.registerPath({
+    method: spec.method,
+    path: API_PREFIX + spec.path,
+    summary: spec.summary,
+    tags: spec.tags,
+    security: spec.auth ? [{ session: [] }, { bearer: [] }] : undefined,
+    request: {
+      params: spec.params,
+      query: spec.query,
+      body: spec.body ? { content: { 'application/json': { schema: spec.body } }, required: true } : undefined,
+    },
+    responses: responses as never,
+    });
+  }
+
+  const expressPath = spec.path.replace(/\{(\w+)\}/g, ':$1');
+  const handler: RequestHandler = async (req, res) => {
+    if (spec.auth && !req.actor) throw unauthenticated();
+    const params = parsePart(spec.params, req.params, 'params');
+    const query = parsePart(spec.query, req.query, 'query');
+    const body = spec.body ? parsePart(spec.body, req.body ?? {}, 'body') : undefined;
+    const run = (transaction: Transaction | null) =>
+      spec.handle({ req, res, params, query, body, actor: req.actor, transaction } as never);
+    const reply = spec.transaction === false ? await run(null) : await database().transaction((t) => run(t));
+    if (reply.body === undefined) res.status(reply.status).end();
+    else res.status(reply.status).json(reply.body);
+  };
+  router[spec.method](expressPath, ...(spec.before ?? []), handler);
+}
+
+function parsePart(schema: ZodType | undefined, value: unknown, part: 'params' | 'query' | 'body') {
+  if (!schema) return {};
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    // Body paths are reported as the client wrote them ("roles.0"); params and query get a prefix.
+    throw validationFailed(zodIssuesToDetails(result.error.issues, part === 'body' ? [] : [part]));
+  }
+  return result.data;
+}

@@ -1,0 +1,43 @@
+import type { AddressInfo } from 'node:net';
+import { createApp } from './app';
+import { ConfigError, loadConfig } from './config';
+import { startRuntime } from './runtime';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../seeders/data/demo-accounts';
+
+async function main() {
+  const config = loadConfig();
+  const runtime = await startRuntime(config);
+  const { app, close: closeApp } = createApp(config);
+  const server = app.listen(config.port, config.host);
+  await new Promise<void>((resolve, reject) => {
+    server.once('listening', resolve);
+    server.once('error', reject);
+  });
+  const { port } = server.address() as AddressInfo;
+  console.log(`Phasewright is running at http://${config.host}:${port}`);
+  if (runtime.smtpFake) console.log(`Mail goes to the built-in fake (${runtime.smtpFake.url}); read it on the Outbox page.`);
+  if (config.seedDemo) {
+    console.log(`Demo sign-ins (password ${DEMO_PASSWORD}), invented data:`);
+    for (const account of DEMO_ACCOUNTS) console.log(`  ${account.email.padEnd(24)} ${account.description}`);
+  }
+
+  let stopping = false;
+  const shutdown = async (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`${signal} received, shutting down`);
+    // Stop taking requests, let open ones finish, then release the queue and the database.
+    server.closeIdleConnections();
+    await new Promise<void>((resolve) => server.close(() => resolve()));
+    await closeApp();
+    await runtime.close();
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void shutdown('SIGINT'));
+  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+}
+
+main().catch((error: unknown) => {
+  console.error(error instanceof ConfigError ? error.message : error);
+  process.exit(1);
+});

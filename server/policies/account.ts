@@ -1,0 +1,5 @@
+import { accountRule } from './types';
+
+export const accountRules = {
+  'account.changePassword': accountRule(),
+} as const;

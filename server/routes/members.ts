@@ -1,0 +1,110 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import { invitationSchema, inviteSchema, memberListSchema, memberSchema, updateRolesSchema } from '@shared/schemas/members';
+import type { AppConfig } from '../config';
+import { defineRoute } from '../http/route';
+import { authorize } from '../policies';
+import { presentInvitation, presentMember } from '../presenters';
+import { inviteMember } from '../services/invitations';
+import { listMembers, loadMembership, loadWorkspace, removeMember, updateRoles } from '../services/members';
+
+const workspaceParams = z.object({ workspaceId: z.uuid() });
+const memberParams = z.object({ workspaceId: z.uuid(), userId: z.uuid() });
+const notFoundResponse = { description: 'No such workspace or member, or not one of yours.', schema: apiErrorSchema };
+const forbiddenResponse = { description: 'Only admins may do this.', schema: apiErrorSchema };
+
+export function membersRouter(config: AppConfig): Router {
+  const router = Router();
+
+  defineRoute(router, {
+    method: 'get',
+    path: '/workspaces/{workspaceId}/members',
+    summary: 'Members of a workspace with their roles.',
+    tags: ['members'],
+    auth: true,
+    params: workspaceParams,
+    responses: { 200: { description: 'The members.', schema: memberListSchema }, 404: notFoundResponse },
+    handle: async ({ actor, params, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'member.list', { workspaceId: workspace.id });
+      const members = await listMembers(workspace.id, transaction);
+      return { status: 200, body: members.map(presentMember) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'post',
+    path: '/workspaces/{workspaceId}/invitations',
+    summary: 'Invite someone by e-mail with the given roles (admins).',
+    tags: ['members'],
+    auth: true,
+    params: workspaceParams,
+    body: inviteSchema,
+    responses: {
+      201: { description: 'Invitation created and e-mail queued.', schema: invitationSchema },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+      409: { description: 'Already a member.', schema: apiErrorSchema },
+    },
+    handle: async ({ req, actor, params, body, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'member.invite', { workspaceId: workspace.id });
+      const invitation = await inviteMember({
+        workspace,
+        inviter: req.user!,
+        email: body.email,
+        roles: body.roles,
+        appUrl: config.appUrl,
+        transaction,
+      });
+      return { status: 201, body: presentInvitation(invitation) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'patch',
+    path: '/workspaces/{workspaceId}/members/{userId}',
+    summary: "Replace a member's roles (admins).",
+    tags: ['members'],
+    auth: true,
+    params: memberParams,
+    body: updateRolesSchema,
+    responses: {
+      200: { description: 'Updated.', schema: memberSchema },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+      409: { description: 'Would leave the workspace without an admin.', schema: apiErrorSchema },
+    },
+    handle: async ({ actor, params, body, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'member.updateRoles', { workspaceId: workspace.id });
+      const membership = await loadMembership(workspace.id, params.userId, transaction);
+      await updateRoles(membership, body.roles, actor.userId, transaction);
+      return { status: 200, body: presentMember(membership) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'delete',
+    path: '/workspaces/{workspaceId}/members/{userId}',
+    summary: 'Remove a member from the workspace (admins; never the last admin).',
+    tags: ['members'],
+    auth: true,
+    params: memberParams,
+    responses: {
+      204: { description: 'Removed.' },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+      409: { description: 'The last admin cannot be removed.', schema: apiErrorSchema },
+    },
+    handle: async ({ actor, params, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'member.remove', { workspaceId: workspace.id });
+      const membership = await loadMembership(workspace.id, params.userId, transaction);
+      await removeMember(membership, actor.userId, transaction);
+      return { status: 204 };
+    },
+  });
+  return router;
+}

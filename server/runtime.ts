@@ -1,0 +1,48 @@
+import type { Sequelize } from 'sequelize';
+import type { AppConfig } from './config';
+import { closeDatabase, connectDatabase } from './db/sequelize';
+import { runMigrations, runSeeders } from './db/migrator';
+import { startJobQueue, stopJobQueue } from './services/jobs';
+import type { MailSettings } from './services/mail';
+import { startSmtpFake, type SmtpFake } from './services/smtp-fake';
+import { startWorkers } from './services/workers';
+
+export interface Runtime {
+  sequelize: Sequelize;
+  mail: MailSettings;
+  smtpFake: SmtpFake | null;
+  seeded: string[];
+  close(): Promise<void>;
+}
+
+/**
+ * Everything the app needs besides HTTP: the database (migrated, and seeded
+ * when asked), the mail fake when no SMTP server is configured, the job queue
+ * and its workers. Shared by server start-up and the API tests.
+ */
+export async function startRuntime(config: AppConfig): Promise<Runtime> {
+  const sequelize = connectDatabase(config.databaseUrl);
+  await runMigrations(sequelize);
+  const seeded = config.seedDemo ? await runSeeders(sequelize, config.env) : [];
+  const smtpFake = config.smtpUrl ? null : await startSmtpFake(config.smtpFakePort);
+  const mail: MailSettings = {
+    smtpUrl: config.smtpUrl ?? smtpFake!.url,
+    from: config.mailFrom,
+    ignoreTLS: !config.smtpUrl,
+  };
+  await startJobQueue(config.databaseUrl);
+  const stopWorkers = await startWorkers({ mail, pollSeconds: config.jobPollSeconds });
+  return {
+    sequelize,
+    mail,
+    smtpFake,
+    seeded,
+    close: async () => {
+      // Workers first (they may be using the mail fake), the database last.
+      await stopWorkers().catch(() => undefined);
+      await stopJobQueue().catch(() => undefined);
+      await smtpFake?.close();
+      await closeDatabase();
+    },
+  };
+}

@@ -1,0 +1,10 @@
+import type { Transaction } from 'sequelize';
+import type { Role } from '@shared/schemas/session';
+import { Membership } from '../models';
+import type { Actor } from '../policies';
+
+/** Loads the roles a user holds in each workspace: what the policies decide on. */
+export async function loadActor(userId: string, transaction?: Transaction | null): Promise<Actor> {
+  const memberships = await Membership.findAll({ where: { userId }, attributes: ['workspaceId', 'roles'], transaction });
+  return { userId, memberships: new Map(memberships.map((m) => [m.workspaceId as string, m.roles as Role[]])) };
+}

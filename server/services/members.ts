@@ -1,0 +1,101 @@
+import { Op, type Transaction } from 'sequelize';
+import type { Role } from '@shared/schemas/session';
+import { conflict, notFound } from '../errors';
+import { Membership, User, Workspace } from '../models';
+import { recordAudit } from './audit';
+
+/**
+ * Loads a workspace by id. Callers authorize next; a workspace the actor does
+ * not belong to answers 404 there, exactly like one that does not exist.
+ */
+export async function loadWorkspace(id: string, transaction: Transaction | null): Promise<Workspace> {
+  const workspace = await Workspace.findByPk(id, { transaction });
+  if (!workspace) throw notFound('The workspace');
+  return workspace;
+}
+
+export async function listMembers(workspaceId: string, transaction: Transaction | null): Promise<Membership[]> {
+  return Membership.findAll({
+    where: { workspaceId },
+    include: [{ model: User, as: 'user', required: true }],
+    order: [[{ model: User, as: 'user' }, 'name', 'ASC']],
+    transaction,
+  });
+}
+
+export async function loadMembership(workspaceId: string, userId: string, transaction: Transaction | null): Promise<Membership> {
+  const membership = await Membership.findOne({
+    where: { workspaceId, userId },
+    include: [{ model: User, as: 'user', required: true }],
+    transaction,
+    // Locked so two admins changing roles at once cannot both remove the last admin.
+    lock: transaction ? transaction.LOCK.UPDATE : undefined,
+  });
+  if (!membership) throw notFound('The member');
+  return membership;
+}
+
+async function assertAnotherAdminRemains(membership: Membership, transaction: Transaction | null): Promise<void> {
+  const otherAdmins = await Membership.count({
+    where: { workspaceId: membership.workspaceId, userId: { [Op.ne]: membership.userId }, roles: { [Op.contains]: ['admin'] } },
+    transaction,
+  });
+  if (otherAdmins === 0) {
+    throw conflict('last_admin', 'A workspace needs at least one admin. Make someone else admin first.');
+  }
+}
+
+export async function updateRoles(
+  membership: Membership,
+  roles: Role[],
+  actorId: string,
+  transaction: Transaction | null,
+): Promise<Membership> {
+  const before = [...membership.roles];
+  if (before.includes('admin') && !roles.includes('admin')) await assertAnotherAdminRemains(membership, transaction);
+  await membership.update({ roles }, { transaction });
+  await recordAudit(
+    {
+      workspaceId: membership.workspaceId as string,
+      actorId,
+      action: 'member.roles_changed',
+      entityType: 'membership',
+      entityId: membership.id,
+      before: { userId: membership.userId, roles: before },
+      after: { userId: membership.userId, roles },
+    },
+    transaction,
+  );
+  return membership;
+}
+
+export async function removeMember(membership: Membership, actorId: string, transaction: Transaction | null): Promise<void> {
+  if (membership.roles.includes('admin')) await assertAnotherAdminRemains(membership, transaction);
+  await membership.destroy({ transaction });
+  await recordAudit(
+    {
+      workspaceId: membership.workspaceId as string,
+      actorId,
+      action: 'member.removed',
+      entityType: 'membership',
+      entityId: membership.id,
+      before: { userId: membership.userId, roles: membership.roles },
+    },
+    transaction,
+  );
+}
+
+/** Adds the user to the workspace, or merges roles when they are already a member. */
+export async function addMember(
+  workspaceId: string,
+  userId: string,
+  roles: Role[],
+  transaction: Transaction | null,
+): Promise<Membership> {
+  const existing = await Membership.findOne({ where: { workspaceId, userId }, transaction });
+  if (existing) {
+    const merged = [...new Set([...existing.roles, ...roles])];
+    return existing.update({ roles: merged }, { transaction });
+  }
+  return Membership.create({ workspaceId, userId, roles }, { transaction });
+}

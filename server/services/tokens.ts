@@ -1,0 +1,52 @@
+import type { Transaction } from 'sequelize';
+import { ApiToken, User } from '../models';
+import { notFound } from '../errors';
+import { recordAudit } from './audit';
+import { randomSecret, sha256 } from './secrets';
+
+const TOKEN_PREFIX = 'pwt_';
+
+/** The user a Bearer token authenticates, or null when it is unknown or revoked. */
+export async function findUserByApiToken(token: string): Promise<User | null> {
+  const record = await ApiToken.findOne({
+    where: { tokenHash: sha256(token), revokedAt: null },
+    include: [{ model: User, as: 'user', required: true }],
+  });
+  if (!record?.user) return null;
+  // Recorded so people can spot tokens nobody uses any more.
+  await ApiToken.update({ lastUsedAt: new Date() }, { where: { id: record.id } });
+  return record.user;
+}
+
+export async function listTokens(userId: string, transaction: Transaction | null): Promise<ApiToken[]> {
+  return ApiToken.findAll({ where: { userId, revokedAt: null }, order: [['createdAt', 'DESC']], transaction });
+}
+
+/** Creates a token and returns its secret — the only time it exists outside the caller's hands. */
+export async function createToken(
+  userId: string,
+  name: string,
+  transaction: Transaction | null,
+): Promise<{ record: ApiToken; token: string }> {
+  const token = randomSecret(TOKEN_PREFIX);
+  const record = await ApiToken.create({ userId, name, tokenHash: sha256(token) }, { transaction });
+  await recordAudit(
+    { workspaceId: null, actorId: userId, action: 'token.created', entityType: 'api_token', entityId: record.id, after: { name } },
+    transaction,
+  );
+  return { record, token };
+}
+
+export async function findActiveToken(id: string, transaction: Transaction | null): Promise<ApiToken> {
+  const record = await ApiToken.findOne({ where: { id, revokedAt: null }, transaction });
+  if (!record) throw notFound('The token');
+  return record;
+}
+
+export async function revokeToken(record: ApiToken, actorId: string, transaction: Transaction | null): Promise<void> {
+  await record.update({ revokedAt: new Date() }, { transaction });
+  await recordAudit(
+    { workspaceId: null, actorId, action: 'token.revoked', entityType: 'api_token', entityId: record.id, before: { name: record.name } },
+    transaction,
+  );
+}
