@@ -1,0 +1,3 @@
+export * from './antoine';
+export * from './unifac';
+export * from './vle';
