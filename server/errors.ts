@@ -32,6 +32,8 @@ export const forbidden = (message = 'You do not have permission to do this.') =>
   new AppError(403, 'forbidden', message);
 export const csrfFailed = () =>
   new AppError(403, 'csrf_failed', 'The request is missing a valid X-CSRF-Token header. Reload the page and try again.');
+// Loaders that run before authorize() must use the default text, so a hidden
+// object and a missing one give identical replies.
 export const notFound = (what = 'The requested item') => new AppError(404, 'not_found', `${what} was not found.`);
 export const conflict = (code: string, message: string) => new AppError(409, code, message);
 export const gone = (code: string, message: string) => new AppError(410, code, message);

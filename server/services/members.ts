@@ -10,7 +10,8 @@ import { recordAudit } from './audit';
  */
 export async function loadWorkspace(id: string, transaction: Transaction | null): Promise<Workspace> {
   const workspace = await Workspace.findByPk(id, { transaction });
-  if (!workspace) throw notFound('The workspace');
+  // The generic message: a workspace the actor cannot see must answer exactly like a missing one.
+  if (!workspace) throw notFound();
   return workspace;
 }
 

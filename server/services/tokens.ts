@@ -39,7 +39,7 @@ export async function createToken(
 
 export async function findActiveToken(id: string, transaction: Transaction | null): Promise<ApiToken> {
   const record = await ApiToken.findOne({ where: { id, revokedAt: null }, transaction });
-  if (!record) throw notFound('The token');
+  if (!record) throw notFound(); // generic: another user's token must look missing
   return record;
 }
 
