@@ -58,9 +58,11 @@ function AcceptForm({ token, info }: { token: string; info: InvitationInfo }) {
     const input = form.validate();
     if (!input) return;
     accept.mutate(input, {
-      // The session was refetched on success: the start page opens the new
-      // workspace, or the guard asks the person to sign in first.
-      onSuccess: () => navigate(paths.root.to(), { replace: true }),
+      // Accepting signs the person in: open the workspace they joined.
+      onSuccess: (session) => {
+        const joined = session.workspaces.find((w) => w.name === info.workspaceName) ?? session.workspaces[0];
+        navigate(joined ? paths.workspace.home.to(joined.id) : paths.root.to(), { replace: true });
+      },
       onError: form.showServerError,
     });
   };

@@ -23,11 +23,6 @@ export function Component() {
             <span>Your roles here:</span> <RoleBadges roles={workspace.roles} />
           </span>
         }
-        actions={
-          <Button disabled title="Route drawing arrives in the next release">
-            New route
-          </Button>
-        }
       />
       <EmptyState
         title="No routes yet — create your first isolation route"

@@ -103,7 +103,7 @@ function UserPanel({ session }: { session: Session }) {
   const navigate = useNavigate();
   return (
     <div className="border-t border-rule px-3 py-3">
-      <p className="truncate text-body font-medium text-ink" title={session.user.name}>
+      <p className="text-body leading-snug font-medium text-ink">
         {session.user.name}
       </p>
       <p className="truncate text-caption text-ink-muted" title={session.user.email}>

@@ -12,7 +12,7 @@ export function WorkspaceSwitcher({ workspaces, currentId }: { workspaces: Sessi
     return (
       <div className="px-1">
         <p className="text-caption text-ink-faint">Workspace</p>
-        <p className="truncate text-body font-medium text-ink" title={current.name}>
+        <p className="text-body leading-snug font-medium text-ink">
           {current.name}
         </p>
       </div>

@@ -1,17 +1,21 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AcceptInvitationInput } from '@shared/schemas/members';
+import { sessionSchema } from '@shared/schemas/session';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 import { sessionQueryKey } from '@/features/auth/api/get-session';
 
+/** Joins the workspace; the reply is the new session (the person is signed in). */
 export const acceptInvitation = (token: string, input: AcceptInvitationInput) =>
-  apiRequest(api.acceptInvitation(token), { method: 'POST', body: input, ignoreUnauthorized: true });
+  apiRequest(api.acceptInvitation(token), { method: 'POST', body: input, schema: sessionSchema, ignoreUnauthorized: true });
 
 export const useAcceptInvitation = (token: string) => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: AcceptInvitationInput) => acceptInvitation(token, input),
-    // Accepting may sign the person in or add a workspace to their session.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: sessionQueryKey }),
+    onSuccess: (session) => {
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] });
+      queryClient.setQueryData(sessionQueryKey, session);
+    },
   });
 };

@@ -23,9 +23,8 @@ export function MemberTable({ workspaceId, members, currentUserId, canUpdateRole
       <Table caption="Workspace members">
         <thead>
           <tr>
-            <Th>Name</Th>
-            <Th>E-mail</Th>
-            <Th className="w-[22rem]">Roles</Th>
+            <Th>Member</Th>
+            <Th>Roles</Th>
             <Th>Joined</Th>
             <Th className="text-right">
               <span className="sr-only">Actions</span>
@@ -38,11 +37,11 @@ export function MemberTable({ workspaceId, members, currentUserId, canUpdateRole
               <EditRow key={m.userId} workspaceId={workspaceId} member={m} onDone={() => setEditing(null)} />
             ) : (
               <tr key={m.userId}>
-                <Td className="font-medium">
-                  {m.name}
-                  {m.userId === currentUserId ? <span className="ml-1.5 text-caption font-normal text-ink-muted">(you)</span> : null}
+                <Td>
+                  <span className="font-medium">{m.name}</span>
+                  {m.userId === currentUserId ? <span className="ml-1.5 text-caption text-ink-muted">(you)</span> : null}
+                  <span className="block text-small text-ink-muted">{m.email}</span>
                 </Td>
-                <Td className="text-ink-muted">{m.email}</Td>
                 <Td>
                   <RoleBadges roles={m.roles} />
                 </Td>
@@ -109,8 +108,10 @@ function EditRow({ workspaceId, member, onDone }: { workspaceId: string; member:
   };
   return (
     <tr className="bg-accent-soft/40">
-      <Td className="font-medium">{member.name}</Td>
-      <Td className="text-ink-muted">{member.email}</Td>
+      <Td>
+        <span className="font-medium">{member.name}</span>
+        <span className="block text-small text-ink-muted">{member.email}</span>
+      </Td>
       <Td colSpan={2}>
         <RolePicker compact legend={`Roles of ${member.name}`} value={roles} onChange={(r) => { setRoles(r); setError(undefined); }} />
         {error ? <div className="mt-1"><FieldError>{error}</FieldError></div> : null}

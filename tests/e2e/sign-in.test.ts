@@ -1,0 +1,156 @@
+import type { Server } from 'node:http';
+import { randomBytes } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { useTestServer } from '../support/app';
+import { tokenFromLink, waitForMail } from '../support/mail';
+import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+
+const DEMO_PASSWORD = 'phasewright-demo';
+const DEMO_WORKSPACE = 'Demo process group (invented)';
+
+// The real server (database, mail fake, job queue) serving the built client.
+const port = await freePort();
+const base = `http://127.0.0.1:${port}`;
+const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
+
+let http: Server | undefined;
+let browser: Browser;
+
+beforeAll(async () => {
+  assertClientBuilt();
+  http = await listen(server.app, port);
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await closeServer(http);
+});
+
+async function signInAs(email: string, password = DEMO_PASSWORD) {
+  const { page } = browser;
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+async function signOut() {
+  const { page } = browser;
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
+}
+
+describe('signing in', () => {
+  it('takes the chemist to the workspace home with its empty state, and signs out', async () => {
+    const { page, shot } = browser;
+    await page.goto(base + '/');
+    // Signed out: the app shows the sign-in page.
+    await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
+    await shot('01-sign-in');
+
+    await signInAs('chemist@example.com');
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    expect(new URL(page.url()).pathname).toMatch(/^\/w\/[^/]+$/);
+    await expect(page.getByText(DEMO_WORKSPACE).first().isVisible()).resolves.toBe(true);
+    const emptyState = page.getByRole('heading', { name: 'No routes yet — create your first isolation route' });
+    await expect(emptyState.isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('button', { name: 'Create a route' }).isDisabled()).resolves.toBe(true);
+    // The chemist's role is shown; admin-only places are not offered.
+    await expect(page.locator('header').getByText('Chemist', { exact: true }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('link', { name: 'Outbox' }).count()).resolves.toBe(0);
+    await expect(page.getByRole('link', { name: 'Members' }).isVisible()).resolves.toBe(true);
+    await shot('02-workspace-home');
+
+    await signOut();
+    await shot('03-signed-out');
+    // The session really ended: a signed-in page sends the visitor back to sign in.
+    await page.goto(base + '/account');
+    await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
+    expect(new URL(page.url()).searchParams.get('next')).toBe('/account');
+    expect(browser.problems).toEqual([]);
+  });
+
+  it('returns to the page asked for after signing in', async () => {
+    const { page } = browser;
+    await page.goto(base + '/account');
+    await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
+    await signInAs('chemist@example.com');
+    await page.getByRole('heading', { level: 1, name: 'Account' }).waitFor();
+    expect(new URL(page.url()).pathname).toBe('/account');
+    await signOut();
+  });
+
+  it('shows the server’s message for a wrong password and stays on the sign-in page', async () => {
+    const { page, shot } = browser;
+    await page.goto(base + '/sign-in');
+    await signInAs('chemist@example.com', 'not-the-password');
+    const alert = page.getByRole('alert');
+    await alert.waitFor();
+    await expect(alert.textContent()).resolves.toMatch(/incorrect/i);
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    // The password field is emptied for the next try; the e-mail stays.
+    await expect(page.getByLabel('Password').inputValue()).resolves.toBe('');
+    await expect(page.getByLabel('E-mail').inputValue()).resolves.toBe('chemist@example.com');
+    await shot('04-wrong-password');
+  });
+
+  it('checks the form with the shared schema before sending', async () => {
+    const { page } = browser;
+    await page.goto(base + '/sign-in');
+    await page.getByLabel('E-mail').fill('not-an-address');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText('Enter a valid e-mail address.').waitFor();
+    await expect(page.getByText('Enter your password.').isVisible()).resolves.toBe(true);
+    await expect(page.getByLabel('E-mail').getAttribute('aria-invalid')).resolves.toBe('true');
+  });
+});
+
+describe('inviting a member', () => {
+  it('lets the admin invite a reviewer, shows the e-mail in the outbox, and the link lets them join', async () => {
+    const { page, shot } = browser;
+    const invitee = `new-reviewer-${randomBytes(3).toString('hex')}@example.com`;
+    const sentAfter = new Date();
+
+    await page.goto(base + '/sign-in');
+    await signInAs('admin@example.com');
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    await page.getByRole('link', { name: 'Members' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Members' }).waitFor();
+    await page.getByRole('table').getByText('chemist@example.com').waitFor();
+
+    const form = page.getByRole('form', { name: 'Invite a member' });
+    await form.getByLabel('E-mail address').fill(invitee);
+    await form.getByLabel('Chemist').uncheck();
+    await form.getByLabel('Reviewer').check();
+    await form.getByRole('button', { name: 'Send invitation' }).click();
+    await page.getByRole('status').filter({ hasText: `Invitation sent to ${invitee}` }).waitFor();
+    await expect(form.getByLabel('E-mail address').inputValue()).resolves.toBe('');
+    await shot('05-members-invited');
+
+    // The mail goes through the job queue; wait for the fake to hold it, then read it in the app.
+    const mail = await waitForMail(invitee, { after: sentAfter });
+    const token = tokenFromLink(mail.text, 'invitations');
+    await page.getByRole('link', { name: 'Outbox' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Outbox' }).waitFor();
+    const message = page.getByRole('list', { name: 'E-mails' }).getByRole('button').filter({ hasText: invitee });
+    await message.click();
+    const article = page.getByRole('article');
+    await article.getByText(invitee).first().waitFor();
+    const link = article.getByRole('link', { name: new RegExp(`/invitations/${token}$`) });
+    await expect(link.getAttribute('href')).resolves.toBe(`${base}/invitations/${token}`);
+    await shot('06-outbox');
+
+    await signOut();
+    await page.goto(`${base}/invitations/${token}`);
+    await page.getByRole('heading', { level: 1, name: `Join ${DEMO_WORKSPACE}` }).waitFor();
+    await expect(page.getByText(invitee).isVisible()).resolves.toBe(true);
+    await page.getByLabel('Your name').fill('Invited Reviewer (demo)');
+    await page.getByLabel('Choose a password').fill('a-long-enough-password');
+    await page.getByRole('button', { name: 'Accept and join' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    await expect(page.locator('header').getByText('Reviewer', { exact: true }).isVisible()).resolves.toBe(true);
+    await shot('07-joined');
+    await signOut();
+    expect(browser.problems).toEqual([]);
+  });
+});
