@@ -1,0 +1,115 @@
+import { describe, expect, it } from 'vitest';
+import {
+  bubblePoint, bubblePressure, createVleSystem, dewPoint, heterogeneousBubblePoint, liquidLiquidSplit,
+} from '@shared/engine/thermo/vle';
+import { vapourPressure } from '@shared/engine/thermo/antoine';
+import * as F from '../../reference/thermo/fixtures';
+
+const P = 101325;
+
+describe('bubblePoint', () => {
+  it('of a pure component is its Antoine boiling point', () => {
+    const sys = createVleSystem([F.water, F.ethanol]);
+    const r = bubblePoint(sys, [1, 0], P);
+    expect(vapourPressure(F.water.antoine, r.T_K).pressurePa).toBeCloseTo(P, 3);
+    expect(r.y).toEqual([1, 0]);
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('is consistent with bubblePressure to 1e-8 relative', () => {
+    const sys = createVleSystem([F.ethanol, F.water, F.acetone, F.ethylAcetate, F.toluene]);
+    const x = [0.3, 0.3, 0.1, 0.2, 0.1];
+    const r = bubblePoint(sys, x, P);
+    const p = bubblePressure(sys, x, r.T_K);
+    expect(Math.abs(p.P_Pa / P - 1)).toBeLessThan(1e-8);
+    expect(r.y.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
+    r.y.forEach((yi, i) => expect(yi).toBeCloseTo(p.y[i], 8));
+  });
+
+  it('converges from a poor starting temperature', () => {
+    const sys = createVleSystem([F.ethanol, F.water]);
+    const a = bubblePoint(sys, [0.5, 0.5], P);
+    const b = bubblePoint(sys, [0.5, 0.5], P, { T0_K: 250 });
+    expect(b.T_K).toBeCloseTo(a.T_K, 7);
+  });
+
+  it('gives y = 0 for a non-volatile solute, which still raises the boiling point via γ', () => {
+    const solute = { name: 'non-volatile solute', antoine: [], unifac: { 9: 5, 10: 1, 42: 1 }, nonVolatile: true };
+    const sys = createVleSystem([F.toluene, solute]);
+    const r = bubblePoint(sys, [0.9, 0.1], P);
+    expect(r.y[1]).toBe(0);
+    expect(r.K[1]).toBe(0);
+    expect(r.T_K).toBeGreaterThan(bubblePoint(sys, [1, 0], P).T_K);
+  });
+
+  it('warns when a vapour pressure is extrapolated', () => {
+    const sys = createVleSystem([F.mtbe, F.toluene]); // MTBE set ends at 326 K
+    const r = bubblePoint(sys, [0.3, 0.7], P);
+    expect(r.warnings.some((w) => w.startsWith('MTBE:') && /Clausius–Clapeyron/.test(w))).toBe(true);
+  });
+
+  it('refuses a liquid of non-volatile components only', () => {
+    const solute = { antoine: [], unifac: { 9: 6 }, nonVolatile: true };
+    const sys = createVleSystem([F.toluene, solute]);
+    expect(() => bubblePoint(sys, [0, 1], P)).toThrowError(/no volatile/);
+  });
+});
+
+describe('dewPoint', () => {
+  it('inverts the bubble point: dew point of the bubble vapour returns the liquid', () => {
+    const sys = createVleSystem([F.methanol, F.water, F.acetone]);
+    const x = [0.3, 0.5, 0.2];
+    const b = bubblePoint(sys, x, P);
+    const d = dewPoint(sys, b.y, P);
+    expect(d.T_K).toBeCloseTo(b.T_K, 6);
+    d.x.forEach((xi, i) => expect(xi).toBeCloseTo(x[i], 6));
+  });
+  it('lies above the bubble point for the same composition', () => {
+    const sys = createVleSystem([F.ethanol, F.water]);
+    expect(dewPoint(sys, [0.3, 0.7], P).T_K).toBeGreaterThan(bubblePoint(sys, [0.3, 0.7], P).T_K);
+  });
+});
+
+describe('liquidLiquidSplit', () => {
+  it('finds no split for a miscible pair (ethanol–water)', () => {
+    expect(liquidLiquidSplit(createVleSystem([F.ethanol, F.water]), [0.5, 0.5], 298.15).split).toBe(false);
+  });
+  it('splits toluene–water into nearly pure phases with equal activities', () => {
+    const sys = createVleSystem([F.toluene, F.water]);
+    const r = liquidLiquidSplit(sys, [0.5, 0.5], 298.15);
+    expect(r.split).toBe(true);
+    if (!r.split) return;
+    const [organic, aqueous] = r.phases;
+    expect(organic[0]).toBeGreaterThan(0.95);
+    expect(aqueous[1]).toBeGreaterThan(0.999);
+    const gI = sys.unifac.gammas(organic, 298.15);
+    const gII = sys.unifac.gammas(aqueous, 298.15);
+    for (let i = 0; i < 2; i++) expect((organic[i] * gI[i]) / (aqueous[i] * gII[i])).toBeCloseTo(1, 8);
+    // Material balance.
+    for (let i = 0; i < 2; i++) {
+      expect((1 - r.phaseFraction) * organic[i] + r.phaseFraction * aqueous[i]).toBeCloseTo(0.5, 8);
+    }
+  });
+  it('reports a single phase outside the miscibility gap (a trace of toluene in water)', () => {
+    const sys = createVleSystem([F.toluene, F.water]);
+    expect(liquidLiquidSplit(sys, [1e-6, 1 - 1e-6], 298.15).split).toBe(false);
+  });
+});
+
+describe('heterogeneousBubblePoint', () => {
+  it('boils toluene–water below both pure boiling points, independent of the overall composition', () => {
+    const sys = createVleSystem([F.toluene, F.water]);
+    const a = heterogeneousBubblePoint(sys, [0.3, 0.7], P);
+    const b = heterogeneousBubblePoint(sys, [0.7, 0.3], P);
+    expect(a.liquidPhases).toBe(2);
+    expect(a.T_K).toBeLessThan(370);
+    expect(a.T_K).toBeCloseTo(b.T_K, 5);
+    a.y.forEach((yi, i) => expect(yi).toBeCloseTo(b.y[i], 5));
+  });
+  it('equals the ordinary bubble point for a one-phase liquid', () => {
+    const sys = createVleSystem([F.ethanol, F.water]);
+    const h = heterogeneousBubblePoint(sys, [0.4, 0.6], P);
+    expect(h.liquidPhases).toBe(1);
+    expect(h.T_K).toBe(bubblePoint(sys, [0.4, 0.6], P).T_K);
+  });
+});
