@@ -113,7 +113,11 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   const staticDir = path.resolve(config.staticDir);
   const indexHtml = path.join(staticDir, 'index.html');
   // Hashed asset names change with their content, so they may be cached for long.
-  app.use('/assets', express.static(path.join(staticDir, 'assets'), { immutable: true, maxAge: '365d', fallthrough: false }));
+  app.use('/assets', express.static(path.join(staticDir, 'assets'), { immutable: true, maxAge: '365d' }));
+  // A missing asset must not fall back to index.html (the browser would parse HTML as a script).
+  app.use('/assets', (_req, res) => {
+    res.status(404).type('text/plain').send('Not found');
+  });
   app.use(express.static(staticDir, { index: false }));
   app.get('/{*splat}', (_req, res) => {
     if (!existsSync(indexHtml)) {
