@@ -1,0 +1,43 @@
+/**
+ * Small constructors that keep the solvent tables readable. The status of a
+ * value is in the function name: `read` (found in the named source),
+ * `recalled` (from memory, unverified), `derived` (computed here or assigned
+ * by rule), `practice` (common-practice list).
+ */
+import type { AntoineSet, Source, Sourced } from '../types';
+import type { SourceId } from '../sources';
+
+function source(ref: SourceId, status: Source['status'], note?: string): Source {
+  return note === undefined ? { ref, status } : { ref, status, note };
+}
+
+export const read = (ref: SourceId, note?: string): Source => source(ref, 'confirmed', note);
+export const recalled = (ref: SourceId, note?: string): Source => source(ref, 'unverified-memory', note);
+export const derived = (ref: SourceId, note?: string): Source => source(ref, 'estimated', note);
+export const practice = (ref: SourceId, note?: string): Source => source(ref, 'common-practice', note);
+
+export function sv<T>(value: T, src: Source): Sourced<T> {
+  return { value, source: src };
+}
+
+/** An Antoine set exactly as published; validity range in kelvin. */
+export function antoine(
+  form: AntoineSet['form'],
+  A: number,
+  B: number,
+  C: number,
+  TminK: number,
+  TmaxK: number,
+  src: Source,
+): AntoineSet {
+  return { form, A, B, C, TminK, TmaxK, source: src };
+}
+
+/** Group assignment made by applying the original UNIFAC subgroup definitions. */
+export const ASSIGNED: Source = derived(
+  'unifac-groups',
+  'assigned by applying the original UNIFAC subgroup definitions; not compared one by one with the DDBST assignment list',
+);
+
+/** All 25 °C viscosities are recalled values. */
+export const VISCOSITY: Source = recalled('crc-viscosity-liquids');

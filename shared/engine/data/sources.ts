@@ -1,0 +1,212 @@
+/**
+ * Bibliography of the curated component data. A `Source.ref` in the solvent
+ * and aqueous-media tables is one of these ids; `citation` is the full
+ * reference a chemist can look up. Where a published table was read through an
+ * open data file, `via` names the repository and path that carries it — the
+ * number was read there, and the original is cited beside it.
+ *
+ * Entries whose id ends in `-memory` are not sources that were read: they mark
+ * values recalled by the data author from the usual handbooks, to be verified.
+ */
+
+export interface SourceEntry {
+  /** Full citation of the published original. */
+  citation: string;
+  /** Open data file (repository and path) or public page through which it was read. */
+  via?: string;
+  url?: string;
+}
+
+export const SOURCES = {
+  // --- Handbooks read through open data files ---------------------------------
+  'crc-organic-constants': {
+    citation:
+      'W. M. Haynes (ed.), CRC Handbook of Chemistry and Physics, "Physical Constants of Organic Compounds" (melting point, boiling point, density; the density column carries the temperature as a superscript)',
+    via: 'CalebBell/chemicals: chemicals/Misc/Physical Constants of Organic Compounds.csv (T in K, density in kg/m³ with the CRC temperature digits appended)',
+  },
+  'crc-inorganic-constants': {
+    citation: 'CRC Handbook of Chemistry and Physics, "Physical Constants of Inorganic Compounds"',
+    via: 'CalebBell/chemicals: chemicals/Misc/Physical Constants of Inorganic Compounds.csv (as read for reference-data.md §H)',
+  },
+  'crc-enthalpy-vaporization': {
+    citation: 'CRC Handbook of Chemistry and Physics, "Enthalpy of Vaporization" (ΔvapH at the normal boiling point)',
+    via: 'CalebBell/chemicals: chemicals/Phase Change/CRC Handbook Heat of Vaporization.tsv (column HvapTb, J/mol)',
+  },
+  'poling-5e-antoine': {
+    citation:
+      "B. E. Poling, J. M. Prausnitz, J. P. O'Connell, The Properties of Gases and Liquids, 5th ed., McGraw-Hill, New York, 2001, Appendix A (Antoine constants, log10 P/bar, t/°C)",
+    via: 'CalebBell/chemicals: chemicals/Vapor Pressure/Antoine Collection Poling.tsv (stored as log10 P/Pa, T/K)',
+  },
+  'nist-webbook-antoine': {
+    citation:
+      'NIST Chemistry WebBook, NIST Standard Reference Database 69 (P. J. Linstrom, W. G. Mallard, eds.), phase-change data: Antoine equation parameters (log10 P/bar, T/K)',
+    via: 'CalebBell/chemicals: chemicals/Misc/webbook_constants.tsv (stored as ln P/Pa, T/K)',
+    url: 'https://webbook.nist.gov/chemistry/',
+  },
+  'nist-webbook-constants': {
+    citation: 'NIST Chemistry WebBook, NIST Standard Reference Database 69, phase-change data (melting point)',
+    via: 'CalebBell/chemicals: chemicals/Misc/webbook_constants.tsv (column Tm, K)',
+  },
+  'nist-webbook-dmso-page': {
+    citation: 'NIST Chemistry WebBook Antoine set for dimethyl sulfoxide, 293–323 K, as quoted on a public page',
+    url: 'https://vacuu-lan.com/vapor-pressure-estimates-antoine-equation/',
+  },
+  'landolt-iv20-antoine': {
+    citation:
+      'Landolt-Börnstein, New Series IV/20, Vapor Pressure of Chemicals (J. Dykyj, J. Svoboda, R. C. Wilhoit, M. Frenkel, K. R. Hall), Springer',
+    via: 'CalebBell/chemicals: chemicals/Vapor Pressure/Landolt_antoine_V20.tsv (stored as ln P/Pa, T/K)',
+  },
+  'iec-60079-20-1': {
+    citation:
+      'IEC 60079-20-1:2010, Explosive atmospheres – Part 20-1: Material characteristics for gas and vapour classification – Test methods and data (closed-cup flash points)',
+    via: 'CalebBell/chemicals: chemicals/Safety/IS IEC 60079-20-1 2010.tsv (flash point in K)',
+  },
+  'nfpa-497': {
+    citation:
+      'NFPA 497 (2008), Recommended Practice for the Classification of Flammable Liquids, Gases, or Vapors and of Hazardous (Classified) Locations',
+    via: 'CalebBell/chemicals: chemicals/Safety/NFPA 497 2008.tsv (flash point in K)',
+  },
+  'opennotebook-melting-points': {
+    citation: 'Open Notebook Science melting point data set (J.-C. Bradley et al.)',
+    via: 'CalebBell/chemicals: chemicals/Phase Change/OpenNotebook Melting Points.tsv (as read for reference-data.md §H)',
+  },
+  'hansen-hspipy': {
+    citation:
+      'Hansen solubility parameters after C. M. Hansen, Hansen Solubility Parameters: A User\'s Handbook, 2nd ed., CRC Press, 2007 (attribution recalled), in the HSPiPy data set (A. Gutiérrez, github.com/Gnpd/HSPiPy)',
+    via: 'CalebBell/chemicals: chemicals/Misc/hspipy_hansen_solubility_parameters.tsv (Pa^0.5)',
+  },
+  'hansen-schrier': {
+    citation: 'J. Schrier, Hansen solubility parameters, Wolfram Data Repository, 2020 (derived from Hansen\'s tables)',
+    via: 'CalebBell/chemicals: chemicals/Misc/schrier_hansen_solubility_parameters.tsv (Pa^0.5)',
+  },
+  'hansen-diaz-2022': {
+    citation:
+      'M. Díaz de los Ríos, E. Murcia Belmonte, SN Applied Sciences 2022, 4, 185 (HSPiP-derived data set)',
+    via: 'CalebBell/chemicals: chemicals/Misc/ruben_manuel_hansen_solubility_parameters.tsv (Pa^0.5)',
+  },
+  'unifac-groups': {
+    citation:
+      'Original UNIFAC subgroup list, H. K. Hansen, P. Rasmussen, Aa. Fredenslund, M. Schiller, J. Gmehling, Ind. Eng. Chem. Res. 1991, 30, 2352 (DDBST numbering, as listed in reference-data.md §A.1 and shared/engine/data/unifac.ts)',
+  },
+
+  // --- Regulatory and guide documents -----------------------------------------
+  'ich-q3c-r9': {
+    citation:
+      'ICH Harmonised Guideline Q3C(R9), Impurities: Guideline for Residual Solvents, Step 4, 24 January 2024, Tables 1–3 (Option 1 concentration limits; R9 changed only §3.4, not the limits)',
+  },
+  'jcr-2022-table1': {
+    citation:
+      'J. Cannabis Res. 2022, article s42238-022-00130-3, Table 1 "Residual solvent limits imposed by ICH and USP (ICH 2011; USP 2009)" — secondary source for ICH Q3C classes and limits, unchanged through Q3C(R9) for these solvents',
+    url: 'https://jcannabisresearch.biomedcentral.com/articles/10.1186/s42238-022-00130-3/tables/1',
+  },
+  'caslab-class3': {
+    citation: 'ALS Environmental / caslab, "USP Class 3 Residual Solvents List" (ICH Q3C Class 3) — secondary source',
+    url: 'http://www.caslab.com/Class-3-Residual-Solvents/',
+  },
+  'chem21-guide-2016': {
+    citation:
+      'D. Prat, A. Wells, J. Hayler, H. Sneddon, C. R. McElroy, S. Abou-Shehada, P. J. Dunn, "CHEM21 selection guide of classical- and less classical-solvents", Green Chem. 2016, 18, 288–296 (doi:10.1039/C5GC01008J)',
+  },
+  'peroxide-former-lists': {
+    citation:
+      'Common practice peroxide-former lists (groups A–D), e.g. R. J. Kelly, "Review of safety guidelines for peroxidizable organic chemicals", Chem. Health Saf. 1996, 3(5), 28–36 (citation and list membership recalled, not read)',
+  },
+  'iec-ts-60079-32-1': {
+    citation:
+      'IEC TS 60079-32-1:2013, Explosive atmospheres – Part 32-1: Electrostatic hazards, guidance (liquids ≤ 50 pS/m treated as low-conductivity static accumulators) — classification of each solvent recalled, not read',
+  },
+
+  // --- Solubility and property pages read for reference-data.md ---------------
+  'iupac-nist-srd106-butanol': {
+    citation:
+      'IUPAC-NIST Solubility Database, NIST SRD 106, data sheet "1-Butanol with Toluene and Water" (T. M. Letcher, P. M. Siswana, Fluid Phase Equilib. 1992, 74, 203), binary end points at 298.2 K',
+    url: 'https://srdata.nist.gov/solubility/sol_detail.aspx?goBack=Y&sysID=69_233',
+  },
+  'nas-2016-appD': {
+    citation:
+      'National Academies of Sciences, Engineering, and Medicine, Chemical Laboratory Safety and Security: A Guide to Developing Standard Operating Procedures, 2016, Appendix D "Flammable List" (solubility in water, g/100 g; flash point) (doi:10.17226/21918)',
+    url: 'https://www.nationalacademies.org/read/21918/chapter/12',
+  },
+  'encyclopedia-isopropyl-acetate': {
+    citation: 'Isopropyl acetate, encyclopedia infobox (solubility in water 2.9 wt %, water in solvent 1.8 wt %, 20 °C) — weak secondary source',
+    url: 'https://en.wikipedia.org/wiki/Isopropyl_acetate',
+  },
+  'encyclopedia-2-methyltetrahydrofuran': {
+    citation: '2-Methyltetrahydrofuran, encyclopedia infobox (mutual solubility with water vs temperature) — weak secondary source',
+    url: 'https://en.wikipedia.org/wiki/2-Methyltetrahydrofuran',
+  },
+  'encyclopedia-mibk': {
+    citation: 'Methyl isobutyl ketone, encyclopedia infobox (solubility in water 1.91 g/100 mL, 20 °C) — weak secondary source',
+    url: 'https://en.wikipedia.org/wiki/Methyl_isobutyl_ketone',
+  },
+  'mtbe-monograph-page': {
+    citation:
+      'The Merck Index monograph "Methyl tert-Butyl Ether" as reproduced on a public page (solubility 4.8 g/100 g water; dissolves 1.5 g water/100 g; d20/4 0.7404)',
+    url: 'http://www.druglead.com/cds/Methyl-tert-Butyl-Ether.html',
+  },
+  'etoac-solubility-page': {
+    citation: 'Ethyl acetate article ("dissolves up to 3 % water … solubility of 8 % in water at room temperature") — weak secondary source',
+    url: 'http://www.fact-archive.com/encyclopedia/Ethyl_acetate',
+  },
+  'dcm-solubility-page': {
+    citation: 'Dichloromethane data page (solubility in water 17.5 g/L at 25 °C, encyclopedia-derived) — weak secondary source',
+    url: 'https://sparxoversea.com/product/dichloromethane.html',
+  },
+  'toluene-solubility-page': {
+    citation: 'Toluene solubility article (526 mg/L at 25 °C) — weak secondary source',
+    url: 'https://biologyinsights.com/is-toluene-miscible-in-water',
+  },
+
+  // --- Derived values ----------------------------------------------------------
+  'iupac-atomic-weights': {
+    citation: 'IUPAC Commission on Isotopic Abundances and Atomic Weights, conventional standard atomic weights (C 12.011, H 1.008, N 14.007, O 15.999, S 32.06, Cl 35.45, Na 22.990, K 39.098)',
+  },
+  'derived-quantity': {
+    citation: 'Computed in this library from other tabulated values (the note says how)',
+  },
+
+  // --- Values recalled, not read (status 'unverified-memory') -----------------
+  'iapws-95': {
+    citation: 'IAPWS-95 formulation for water (W. Wagner, A. Pruß, J. Phys. Chem. Ref. Data 2002, 31, 387) — values recalled, not read',
+  },
+  'crc-viscosity-liquids': {
+    citation: 'CRC Handbook of Chemistry and Physics, "Viscosity of Liquids" (25 °C) — values recalled, not read',
+  },
+  'crc-dissociation-constants': {
+    citation:
+      'CRC Handbook of Chemistry and Physics, "Dissociation Constants of Inorganic Acids and Bases" and "… of Organic Acids and Bases" (25 °C) — values recalled, not read',
+  },
+  'crc-concentrative-properties': {
+    citation:
+      'CRC Handbook of Chemistry and Physics, "Concentrative Properties of Aqueous Solutions: Density, Refractive Index, Freezing Point Depression, and Viscosity" (20 °C) — values recalled, not read',
+  },
+  'crc-aqueous-solubility-inorganic': {
+    citation: 'CRC Handbook of Chemistry and Physics, "Aqueous Solubility of Inorganic Compounds at Various Temperatures" — values recalled, not read',
+  },
+  'setschenow-review-memory': {
+    citation:
+      'W.-H. Xie, W.-Y. Shiu, D. Mackay, "A review of the effect of salts on the solubility of organic compounds in seawater", Mar. Environ. Res. 1997, 44, 429–444 — typical magnitudes recalled, not read',
+  },
+  'melting-point-memory': {
+    citation: 'Melting point recalled by the data author from the usual handbooks (CRC Handbook, supplier data sheets); not read for this library — verify',
+  },
+  'boiling-point-memory': {
+    citation: 'Normal boiling point recalled by the data author from the usual handbooks; not read for this library — verify',
+  },
+  'density-memory': {
+    citation: 'Density recalled by the data author from the usual handbooks and supplier data sheets; not read for this library — verify',
+  },
+  'flash-point-memory': {
+    citation: 'Closed-cup flash point recalled by the data author from safety data sheets and handbooks; not read for this library — verify',
+  },
+  'mutual-solubility-memory': {
+    citation:
+      'Mutual solubility with water recalled by the data author from handbook compilations (CRC Handbook "Aqueous Solubility of Organic Compounds", IUPAC-NIST Solubility Data Series); not read for this library — verify',
+  },
+} as const satisfies Record<string, SourceEntry>;
+
+export type SourceId = keyof typeof SOURCES;
+
+export function isSourceId(ref: string): ref is SourceId {
+  return Object.prototype.hasOwnProperty.call(SOURCES, ref);
+}
