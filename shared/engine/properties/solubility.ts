@@ -1,0 +1,418 @@
+/**
+ * Solid–liquid solubility: ideal (Schröder–van Laar), activity-corrected with
+ * UNIFAC, fits of measured points (van 't Hoff, modified Apelblat), the
+ * Jouyban–Acree cosolvency model, and unit helpers.
+ *
+ * References:
+ *  - J. M. Prausnitz, R. N. Lichtenthaler, E. G. de Azevedo, *Molecular
+ *    Thermodynamics of Fluid-Phase Equilibria*, 3rd ed., Prentice Hall 1999,
+ *    §11.2 (solubility of solids in liquids; eq. 11-13 without the ΔCp terms).
+ *  - A. Apelblat, E. Manzurola, J. Chem. Thermodyn. 1999, 31, 85–91.
+ *    doi:10.1006/jcht.1998.0424
+ *  - A. Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32–58 (review of the
+ *    Jouyban–Acree model). doi:10.18433/J3PP4K
+ *  - S. H. Yalkowsky, T. J. Roseman, in *Techniques of Solubilization of
+ *    Drugs*, Dekker 1981 (log-linear cosolvency model).
+ */
+import { EngineError } from '../errors';
+import { R_J_PER_MOL_K } from '../units';
+import type { UnifacGroups } from '../data/types';
+import { activityCoefficients } from '../thermo/unifac';
+
+/** Temperature range in which the original UNIFAC parameters were fitted
+ * (roughly 275–425 K, Fredenslund et al. 1975); outside it results carry a warning. */
+const UNIFAC_T_MIN_K = 275;
+const UNIFAC_T_MAX_K = 425;
+
+function assertFinite(value: number, name: string, unit: string, opts: { positive?: boolean; nonNegative?: boolean } = {}): void {
+  if (!Number.isFinite(value) || (opts.positive && value <= 0) || (opts.nonNegative && value < 0)) {
+    const cond = opts.positive ? ' > 0' : opts.nonNegative ? ' ≥ 0' : '';
+    throw new EngineError('invalid-input', `${name} must be a finite number${cond} ${unit} (got ${value}).`, { name, value });
+  }
+}
+
+export interface IdealSolubilityResult {
+  /** Mole fraction of the solute in the saturated solution [-] */
+  moleFraction: number;
+  method: string;
+  warnings: string[];
+}
+
+/**
+ * Ideal solubility of a solid from its melting point and enthalpy of fusion
+ * (Schröder–van Laar; Prausnitz et al. 1999, eq. 11-13 with ΔCp = 0):
+ *
+ *   ln x = −(ΔHfus / R) · (1/T − 1/Tm)
+ *
+ * @param input.meltingPointK Tm, normal melting point of the solute [K], > 0
+ * @param input.enthalpyFusionJmol ΔHfus at Tm [J/mol], ≥ 0
+ * @param input.T_K T, temperature of the solution [K], > 0
+ * @returns mole fraction x [-] with the method and warnings
+ *
+ * Validity: a pure solid solute that does not form solid solutions or
+ * solvates; ΔCp of fusion neglected (error grows with Tm − T, typically a
+ * few per cent in x at 50 K below Tm). At T ≥ Tm the solute is a liquid:
+ * x = 1 is returned with a warning (miscibility is then a liquid–liquid
+ * question). Polymorphs: use the Tm and ΔHfus of the form that is present.
+ *
+ * Example: naphthalene, Tm = 353.35 K, ΔHfus = 18 980 J/mol, T = 298.15 K →
+ * x = exp(−18980/8.314 · (1/298.15 − 1/353.35)) = 0.302.
+ */
+export function idealSolubility(input: { meltingPointK: number; enthalpyFusionJmol: number; T_K: number }): IdealSolubilityResult {
+  const { meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: T } = input;
+  assertFinite(Tm, 'Melting point', 'K', { positive: true });
+  assertFinite(dH, 'Enthalpy of fusion', 'J/mol', { nonNegative: true });
+  assertFinite(T, 'Temperature', 'K', { positive: true });
+  const method = 'ideal solubility (Schröder–van Laar, ΔCp neglected)';
+  const warnings: string[] = [];
+  if (T >= Tm) {
+    warnings.push(`The temperature ${T.toFixed(2)} K is at or above the melting point ${Tm.toFixed(2)} K: the solute is a liquid, x = 1 returned; miscibility is then a liquid–liquid question.`);
+    return { moleFraction: 1, method, warnings };
+  }
+  if (Tm - T > 100) {
+    warnings.push(`The temperature is ${(Tm - T).toFixed(0)} K below the melting point; neglecting the heat-capacity change of fusion may bias the result.`);
+  }
+  const lnx = -(dH / R_J_PER_MOL_K) * (1 / T - 1 / Tm);
+  return { moleFraction: Math.exp(lnx), method, warnings };
+}
+
+export interface ActivityCorrectedSolubilityResult {
+  /** Mole fraction of the solute in the saturated solution [-] */
+  moleFraction: number;
+  /** Ideal mole fraction solubility at the same T [-] */
+  idealMoleFraction: number;
+  /** Activity coefficient of the solute in the saturated solution [-] */
+  gamma: number;
+  method: string;
+  warnings: string[];
+}
+
+/**
+ * Solubility of a solid corrected for non-ideality with UNIFAC: solves
+ *
+ *   x · γ(x, T) = x_ideal(T)
+ *
+ * where γ is the solute's UNIFAC activity coefficient in the saturated
+ * liquid (solute + the solvent mixture at its solute-free composition).
+ *
+ * @param input.meltingPointK Tm [K]; input.enthalpyFusionJmol ΔHfus [J/mol];
+ *   input.T_K temperature [K]
+ * @param input.soluteGroups UNIFAC subgroups of the solute
+ * @param input.solventGroups UNIFAC subgroups of each solvent
+ * @param input.solventMoleFractions solute-free mole fractions of the
+ *   solvents [-], summing to 1
+ * @returns x, x_ideal, γ at the solution, method and warnings
+ *
+ * Numerics: f(x) = ln x + ln γ(x) − ln x_ideal is negative as x → 0 and
+ * ≥ 0 at x = 1 (γ = 1 for the pure solute), so a root always exists. The
+ * function is scanned on a logarithmic grid from x = 1e−12 and the first
+ * sign change is refined by bisection (60 halvings); more than one sign
+ * change means UNIFAC predicts a liquid–liquid split (oiling out) and is
+ * reported as a warning. Deterministic; no tolerance on γ is assumed.
+ *
+ * Validity: UNIFAC's range (≈ 275–425 K, warned outside); typical error of
+ * UNIFAC solubility predictions for drug-like solids is a factor 2–3 in x.
+ * Throws UnifacParameterError (code 'unifac-missing-parameters') when a
+ * group pair has no parameter.
+ */
+export function activityCorrectedSolubility(input: {
+  meltingPointK: number;
+  enthalpyFusionJmol: number;
+  T_K: number;
+  soluteGroups: UnifacGroups;
+  solventGroups: UnifacGroups[];
+  solventMoleFractions: number[];
+}): ActivityCorrectedSolubilityResult {
+  const ideal = idealSolubility(input);
+  const warnings = [...ideal.warnings];
+  const { solventGroups, solventMoleFractions, T_K } = input;
+  if (solventGroups.length === 0 || solventGroups.length !== solventMoleFractions.length) {
+    throw new EngineError('invalid-input', 'Give one mole fraction for each solvent (at least one solvent).', { solvents: solventGroups.length, fractions: solventMoleFractions.length });
+  }
+  let sum = 0;
+  for (const z of solventMoleFractions) {
+    assertFinite(z, 'Solvent mole fraction', '', { nonNegative: true });
+    sum += z;
+  }
+  if (Math.abs(sum - 1) > 1e-6) {
+    throw new EngineError('invalid-input', `Solute-free solvent mole fractions must sum to 1 (sum = ${sum}).`, { sum });
+  }
+  if (T_K < UNIFAC_T_MIN_K || T_K > UNIFAC_T_MAX_K) {
+    warnings.push(`UNIFAC parameters were fitted at about ${UNIFAC_T_MIN_K}–${UNIFAC_T_MAX_K} K; ${T_K.toFixed(1)} K is outside.`);
+  }
+  const method = 'ideal solubility (Schröder–van Laar) corrected by UNIFAC activity coefficient (x·γ = x_ideal)';
+  const xIdeal = ideal.moleFraction;
+  if (xIdeal >= 1) {
+    return { moleFraction: 1, idealMoleFraction: 1, gamma: 1, method, warnings };
+  }
+  const components = [input.soluteGroups, ...solventGroups];
+  const lnGamma = (x: number): number => {
+    const xs = [x, ...solventMoleFractions.map((z) => (1 - x) * z)];
+    return Math.log(activityCoefficients(components, xs, T_K)[0]);
+  };
+  const lnXi = Math.log(xIdeal);
+  const f = (x: number): number => Math.log(x) + lnGamma(x) - lnXi;
+
+  // Logarithmic scan from 1e-12 up to 1 - 1e-9.
+  const grid: number[] = [];
+  for (let k = 0; k <= 48; k++) grid.push(Math.pow(10, -12 + (12 * k) / 48));
+  grid[grid.length - 1] = 1 - 1e-9;
+  let lo = NaN;
+  let hi = NaN;
+  let crossings = 0;
+  let prevX = grid[0];
+  let prevF = f(prevX);
+  if (prevF >= 0) {
+    // The solute is practically insoluble (γ∞ > x_ideal / 1e-12).
+    warnings.push('Predicted solubility is below a mole fraction of 1e-12.');
+    return { moleFraction: prevX, idealMoleFraction: xIdeal, gamma: Math.exp(lnGamma(prevX)), method, warnings };
+  }
+  for (let k = 1; k < grid.length; k++) {
+    const x = grid[k];
+    const fx = f(x);
+    if ((prevF < 0 && fx >= 0) || (prevF >= 0 && fx < 0)) {
+      crossings++;
+      if (Number.isNaN(lo)) {
+        lo = prevX;
+        hi = x;
+      }
+    }
+    prevX = x;
+    prevF = fx;
+  }
+  if (Number.isNaN(lo)) {
+    // f(1) = -ln x_ideal > 0 analytically; reaching here means f(1-1e-9) < 0 by rounding.
+    lo = grid[grid.length - 2];
+    hi = 1;
+  }
+  if (crossings > 1) {
+    warnings.push('UNIFAC predicts a liquid–liquid split of the saturated solution (the solute may oil out); the lowest-concentration root is reported.');
+  }
+  let flo = f(lo);
+  for (let i = 0; i < 60; i++) {
+    const mid = 0.5 * (lo + hi);
+    const fm = f(mid);
+    if ((fm < 0) === (flo < 0)) {
+      lo = mid;
+      flo = fm;
+    } else {
+      hi = mid;
+    }
+  }
+  const x = 0.5 * (lo + hi);
+  return { moleFraction: x, idealMoleFraction: xIdeal, gamma: Math.exp(lnGamma(x)), method, warnings };
+}
+
+type Point = { T_K: number; moleFraction: number };
+
+function checkPoints(points: Point[], min: number, model: string): void {
+  if (points.length < min) {
+    throw new EngineError('invalid-input', `The ${model} fit needs at least ${min} measured points (got ${points.length}).`, { count: points.length });
+  }
+  for (const p of points) {
+    assertFinite(p.T_K, 'Temperature', 'K', { positive: true });
+    if (!Number.isFinite(p.moleFraction) || p.moleFraction <= 0 || p.moleFraction > 1) {
+      throw new EngineError('invalid-input', `A measured mole fraction must lie in (0, 1] (got ${p.moleFraction}).`, { value: p.moleFraction });
+    }
+  }
+  const Ts = new Set(points.map((p) => p.T_K));
+  if (Ts.size < min) {
+    throw new EngineError('invalid-input', `The ${model} fit needs at least ${min} distinct temperatures.`, { distinct: Ts.size });
+  }
+}
+
+/** Solve a small dense linear system by Gaussian elimination with partial pivoting. */
+function solveLinear(A: number[][], b: number[]): number[] {
+  const n = b.length;
+  const M = A.map((row, i) => [...row, b[i]]);
+  for (let c = 0; c < n; c++) {
+    let piv = c;
+    for (let r = c + 1; r < n; r++) if (Math.abs(M[r][c]) > Math.abs(M[piv][c])) piv = r;
+    if (Math.abs(M[piv][c]) < 1e-300) throw new EngineError('invalid-input', 'The measured points do not determine the fit (singular system).', {});
+    [M[c], M[piv]] = [M[piv], M[c]];
+    for (let r = c + 1; r < n; r++) {
+      const fac = M[r][c] / M[c][c];
+      for (let k = c; k <= n; k++) M[r][k] -= fac * M[c][k];
+    }
+  }
+  const x = new Array<number>(n).fill(0);
+  for (let r = n - 1; r >= 0; r--) {
+    let s = M[r][n];
+    for (let k = r + 1; k < n; k++) s -= M[r][k] * x[k];
+    x[r] = s / M[r][r];
+  }
+  return x;
+}
+
+/** Least squares on columns (already scaled) → coefficients and RMSE. */
+function leastSquares(cols: number[][], y: number[]): { coef: number[]; rmse: number } {
+  const m = cols.length;
+  const A = Array.from({ length: m }, (_, i) => Array.from({ length: m }, (_, j) => cols[i].reduce((s, v, k) => s + v * cols[j][k], 0)));
+  const b = cols.map((c) => c.reduce((s, v, k) => s + v * y[k], 0));
+  const coef = solveLinear(A, b);
+  let ss = 0;
+  for (let k = 0; k < y.length; k++) {
+    let yhat = 0;
+    for (let i = 0; i < m; i++) yhat += coef[i] * cols[i][k];
+    ss += (y[k] - yhat) ** 2;
+  }
+  return { coef, rmse: Math.sqrt(ss / y.length) };
+}
+
+export interface FitRange {
+  /** Lowest and highest temperature of the fitted points [K] */
+  TminK: number;
+  TmaxK: number;
+  /** Notes on the fit (e.g. as many points as parameters: exact fit, no residual) */
+  warnings: string[];
+}
+
+/**
+ * Van 't Hoff fit of measured solubilities: ln x = a + b/T, least squares in
+ * ln x (common practice; b = −ΔHsol/R for an apparent enthalpy of solution).
+ *
+ * @param points measured (T [K], x [-]) pairs, at least 2 distinct temperatures
+ * @returns a [-], b [K], rmseLn (root-mean-square residual in ln x [-]),
+ *   the fitted range and predict(T_K) → x [-]
+ *
+ * Validity: interpolation within the fitted range; extrapolation beyond it
+ * is the caller's risk (the range is returned). predict() clips nothing:
+ * x > 1 can come out of a wild extrapolation.
+ * Example: points (290 K, 0.010), (310 K, 0.020) → b = −ln2/(1/310 − 1/290)·(−1) ≈ −3115 K.
+ */
+export function fitVantHoff(points: Point[]): { a: number; b: number; rmseLn: number; predict(T_K: number): number } & FitRange {
+  checkPoints(points, 2, "van 't Hoff");
+  const Tref = points.reduce((s, p) => s + p.T_K, 0) / points.length;
+  const y = points.map((p) => Math.log(p.moleFraction));
+  const cols = [points.map(() => 1), points.map((p) => Tref / p.T_K)];
+  const { coef, rmse } = leastSquares(cols, y);
+  const a = coef[0];
+  const b = coef[1] * Tref;
+  const Ts = points.map((p) => p.T_K);
+  const warnings = new Set(Ts).size === 2 ? ['Two temperatures determine the two parameters exactly; the residual says nothing about the quality of the fit.'] : [];
+  return { a, b, rmseLn: rmse, predict: (T_K: number) => Math.exp(a + b / T_K), TminK: Math.min(...Ts), TmaxK: Math.max(...Ts), warnings };
+}
+
+/**
+ * Modified Apelblat fit (Apelblat & Manzurola 1999): ln x = A + B/T + C·ln T,
+ * least squares in ln x. Solved in scaled variables (T/Tref) for
+ * conditioning, then converted back to the published form with T in K.
+ *
+ * @param points measured (T [K], x [-]) pairs, at least 3 distinct temperatures
+ * @returns A [-], B [K], C [-], rmseLn [-], the fitted range, predict(T_K) → x
+ *
+ * Validity: as for van 't Hoff — a correlation for interpolation; the three
+ * parameters are strongly correlated and individually not meaningful.
+ */
+export function fitApelblat(points: Point[]): { A: number; B: number; C: number; rmseLn: number; predict(T_K: number): number } & FitRange {
+  checkPoints(points, 3, 'Apelblat');
+  const Tref = points.reduce((s, p) => s + p.T_K, 0) / points.length;
+  const y = points.map((p) => Math.log(p.moleFraction));
+  const cols = [points.map(() => 1), points.map((p) => Tref / p.T_K), points.map((p) => Math.log(p.T_K / Tref))];
+  const { coef, rmse } = leastSquares(cols, y);
+  const C = coef[2];
+  const B = coef[1] * Tref;
+  const A = coef[0] - C * Math.log(Tref);
+  const Ts = points.map((p) => p.T_K);
+  const warnings = new Set(Ts).size === 3 ? ['Three temperatures determine the three parameters exactly; the residual says nothing about the quality of the fit.'] : [];
+  return { A, B, C, rmseLn: rmse, predict: (T_K: number) => Math.exp(A + B / T_K + C * Math.log(T_K)), TminK: Math.min(...Ts), TmaxK: Math.max(...Ts), warnings };
+}
+
+/**
+ * Solubility in a mixed solvent by the Jouyban–Acree model (Jouyban 2008):
+ *
+ *   ln x_m,T = f1 ln x1,T + f2 ln x2,T + (f1 f2 / T) Σ_{i=0..2} J_i (f1 − f2)^i
+ *
+ * Without `interaction` the model reduces to the log-linear (Yalkowsky)
+ * model, ln x_m = Σ f_i ln x_i, which is also accepted for n ≥ 2 solvents.
+ *
+ * @param input.lnSolubilities natural log of the solute's mole-fraction
+ *   solubility in each neat solvent at T [-]
+ * @param input.fractions fraction of each solvent in the solute-free blend
+ *   [-], summing to 1 (mass, volume or mole fraction — the same basis on
+ *   which the J_i were fitted; the log-linear form is usually on volume)
+ * @param input.T_K temperature [K]
+ * @param input.interaction J0, J1, J2 [K] fitted for this solute and pair
+ * @returns ln x_m [-], natural log of the mole-fraction solubility in the blend
+ *
+ * Throws EngineError('invalid-input') when lengths differ, fractions do not
+ * sum to 1 within 1e−6, or J is given for other than two solvents.
+ * Example: ln x1 = −2, ln x2 = −8, f = (0.5, 0.5), no J → −5.
+ */
+export function jouybanAcree(input: { lnSolubilities: number[]; fractions: number[]; T_K: number; interaction?: { J0: number; J1: number; J2: number } }): number {
+  const { lnSolubilities: lnx, fractions: f, T_K, interaction } = input;
+  if (lnx.length < 2 || lnx.length !== f.length) {
+    throw new EngineError('invalid-input', 'Give the solubility in, and the fraction of, each of at least two solvents.', { solubilities: lnx.length, fractions: f.length });
+  }
+  assertFinite(T_K, 'Temperature', 'K', { positive: true });
+  let sum = 0;
+  let lnMix = 0;
+  for (let i = 0; i < f.length; i++) {
+    assertFinite(f[i], 'Solvent fraction', '', { nonNegative: true });
+    assertFinite(lnx[i], 'ln solubility', '');
+    sum += f[i];
+    lnMix += f[i] * lnx[i];
+  }
+  if (Math.abs(sum - 1) > 1e-6) {
+    throw new EngineError('invalid-input', `Solvent fractions must sum to 1 (sum = ${sum}).`, { sum });
+  }
+  if (interaction) {
+    if (f.length !== 2) {
+      throw new EngineError('invalid-input', 'Jouyban–Acree interaction terms are defined for a binary solvent only.', { solvents: f.length });
+    }
+    const { J0, J1, J2 } = interaction;
+    for (const [k, v] of Object.entries({ J0, J1, J2 })) assertFinite(v, k, 'K');
+    const d = f[0] - f[1];
+    lnMix += ((f[0] * f[1]) / T_K) * (J0 + J1 * d + J2 * d * d);
+  }
+  return lnMix;
+}
+
+/**
+ * Mole fraction → grams of solute per litre of pure solvent.
+ *
+ *   c = x/(1 − x) · (1000 · ρ_solv / M_solv) · M_solute     [g/L of solvent]
+ *
+ * @param input.moleFraction x of the solute [-], 0 ≤ x < 1
+ * @param input.soluteMolarMassGmol M_solute [g/mol]
+ * @param input.solventMolarMassGmol M_solv [g/mol] (for a blend: its mean molar mass)
+ * @param input.solventDensityGmL ρ of the pure solvent [g/mL]
+ * @returns grams of solute dissolved per litre of solvent [g/L]
+ *
+ * Basis: per litre of solvent (before dissolution), exact and invertible.
+ * Per litre of solution needs the solution's density, which is not known
+ * here; for dilute solutions the two agree.
+ * Example: naphthalene x = 0.10 in toluene (92.14 g/mol, 0.8623 g/mL):
+ * 0.1/0.9 · 9.359 mol/L · 128.17 g/mol = 133.3 g/L.
+ */
+export function moleFractionToGramsPerLitre(input: { moleFraction: number; soluteMolarMassGmol: number; solventMolarMassGmol: number; solventDensityGmL: number }): number {
+  const { moleFraction: x, soluteMolarMassGmol: Ms, solventMolarMassGmol: Mv, solventDensityGmL: rho } = input;
+  if (!Number.isFinite(x) || x < 0 || x >= 1) {
+    throw new EngineError('invalid-input', `Mole fraction must lie in [0, 1) for a solution (got ${x}).`, { x });
+  }
+  assertFinite(Ms, 'Solute molar mass', 'g/mol', { positive: true });
+  assertFinite(Mv, 'Solvent molar mass', 'g/mol', { positive: true });
+  assertFinite(rho, 'Solvent density', 'g/mL', { positive: true });
+  return (x / (1 - x)) * ((1000 * rho) / Mv) * Ms;
+}
+
+/**
+ * Grams of solute per litre of pure solvent → mole fraction (inverse of
+ * moleFractionToGramsPerLitre).
+ *
+ *   r = (c / M_solute) / (1000 · ρ_solv / M_solv);   x = r / (1 + r)
+ *
+ * @param input.gramsPerLitre c [g solute / L solvent], ≥ 0
+ * @param input.soluteMolarMassGmol [g/mol]; input.solventMolarMassGmol [g/mol];
+ *   input.solventDensityGmL [g/mL]
+ * @returns x [-]
+ */
+export function gramsPerLitreToMoleFraction(input: { gramsPerLitre: number; soluteMolarMassGmol: number; solventMolarMassGmol: number; solventDensityGmL: number }): number {
+  const { gramsPerLitre: c, soluteMolarMassGmol: Ms, solventMolarMassGmol: Mv, solventDensityGmL: rho } = input;
+  assertFinite(c, 'Concentration', 'g/L', { nonNegative: true });
+  assertFinite(Ms, 'Solute molar mass', 'g/mol', { positive: true });
+  assertFinite(Mv, 'Solvent molar mass', 'g/mol', { positive: true });
+  assertFinite(rho, 'Solvent density', 'g/mL', { positive: true });
+  const r = c / Ms / ((1000 * rho) / Mv);
+  return r / (1 + r);
+}
