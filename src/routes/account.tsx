@@ -12,6 +12,7 @@ export function Component() {
     <>
       <PageHeader title="Account" description={`${session.user.name} · ${session.user.email}`} />
       <div className="space-y-5">
+        <div className="grid grid-cols-2 items-start gap-5">
         <Card title="Your workspaces" description="Roles are set by each workspace's admin.">
           <ul className="divide-y divide-rule">
             {session.workspaces.map((w) => (
@@ -28,6 +29,7 @@ export function Component() {
         <Card title="Password">
           <ChangePasswordForm />
         </Card>
+        </div>
         <Card title="API tokens" description="Personal tokens let scripts call the Phasewright API as you. They carry your roles.">
           <TokensPanel />
         </Card>

@@ -1,7 +1,9 @@
 import type { Server } from 'node:http';
 import { randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Membership, Workspace } from '../../server/models';
 import { useTestServer } from '../support/app';
+import { buildMember } from '../support/factories';
 import { tokenFromLink, waitForMail } from '../support/mail';
 import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
 
@@ -150,6 +152,87 @@ describe('inviting a member', () => {
     await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
     await expect(page.locator('header').getByText('Reviewer', { exact: true }).isVisible()).resolves.toBe(true);
     await shot('07-joined');
+    await signOut();
+    expect(browser.problems).toEqual([]);
+  });
+});
+
+describe('managing members', () => {
+  it('lets the admin change a member’s roles and remove them after confirming', async () => {
+    const { page, shot } = browser;
+    const workspace = await Workspace.findOne({ where: { name: DEMO_WORKSPACE } });
+    if (!workspace) throw new Error('the demo workspace was not seeded');
+    const member = await buildMember(workspace, ['chemist'], { name: 'Temporary Chemist (demo)' });
+
+    await page.goto(base + '/sign-in');
+    await signInAs('admin@example.com');
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    await page.getByRole('link', { name: 'Members' }).click();
+    const row = page.getByRole('row').filter({ hasText: member.email });
+    await row.waitFor();
+
+    await row.getByRole('button', { name: 'Change roles of Temporary Chemist (demo)' }).click();
+    const editor = page.getByRole('group', { name: 'Roles of Temporary Chemist (demo)' });
+    await editor.getByLabel('Scale-up engineer').check();
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByRole('status').filter({ hasText: 'Roles of Temporary Chemist (demo) saved.' }).waitFor();
+    await expect(row.getByText('Scale-up engineer', { exact: true }).isVisible()).resolves.toBe(true);
+    await member.reload();
+    const membership = await Membership.findOne({ where: { userId: member.id, workspaceId: workspace.id } });
+    expect([...(membership?.roles ?? [])].sort()).toEqual(['chemist', 'engineer']);
+
+    await row.getByRole('button', { name: 'Remove Temporary Chemist (demo)' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Remove Temporary Chemist (demo)?' });
+    await dialog.waitFor();
+    await shot('08-remove-member');
+    // Cancel first: nothing changes.
+    await dialog.getByRole('button', { name: 'Cancel' }).click();
+    await expect(row.isVisible()).resolves.toBe(true);
+    await row.getByRole('button', { name: 'Remove Temporary Chemist (demo)' }).click();
+    await dialog.getByRole('button', { name: 'Remove member' }).click();
+    await page.getByRole('status').filter({ hasText: 'Temporary Chemist (demo) was removed' }).waitFor();
+    await row.waitFor({ state: 'detached' });
+    await expect(Membership.count({ where: { userId: member.id, workspaceId: workspace.id } })).resolves.toBe(0);
+    await signOut();
+    expect(browser.problems).toEqual([]);
+  });
+});
+
+describe('API tokens', () => {
+  it('creates a token shown once with a copy button, which then authenticates until revoked', async () => {
+    const { page, context, shot } = browser;
+    await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: base });
+    await page.goto(base + '/account');
+    await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
+    await signInAs('engineer@example.com');
+    await page.getByRole('heading', { level: 1, name: 'Account' }).waitFor();
+    await page.getByRole('heading', { name: 'No API tokens' }).waitFor();
+
+    await page.getByLabel('Token name').fill('Plant export script');
+    await page.getByRole('button', { name: 'Create token' }).click();
+    const secret = page.getByLabel('New API token');
+    await secret.waitFor();
+    const token = (await secret.textContent()) ?? '';
+    expect(token.length).toBeGreaterThan(20);
+    await page.getByRole('button', { name: 'Copy', exact: true }).click();
+    await page.getByRole('button', { name: 'Copied' }).waitFor();
+    await expect(page.evaluate(() => navigator.clipboard.readText())).resolves.toBe(token);
+    await shot('09-token-created');
+
+    const row = page.getByRole('row').filter({ hasText: 'Plant export script' });
+    await row.waitFor();
+    await expect(row.getByText('Never').isVisible()).resolves.toBe(true);
+    const bearer = { headers: { Authorization: `Bearer ${token}` } };
+    expect((await fetch(`${base}/api/v1/tokens`, bearer)).status).toBe(200);
+
+    // Once dismissed, the secret is gone from the page.
+    await page.getByRole('button', { name: 'Done' }).click();
+    await expect(secret.count()).resolves.toBe(0);
+
+    await row.getByRole('button', { name: 'Revoke Plant export script' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Revoke token' }).click();
+    await page.getByRole('heading', { name: 'No API tokens' }).waitFor();
+    expect((await fetch(`${base}/api/v1/tokens`, bearer)).status).toBe(401);
     await signOut();
     expect(browser.problems).toEqual([]);
   });
