@@ -36,7 +36,8 @@ function buildUmzug(sequelize: Sequelize, folder: 'migrations' | 'seeders', tabl
       },
     },
     context: { queryInterface: sequelize.getQueryInterface(), sequelize },
-    storage: new SequelizeStorage({ sequelize, tableName }),
+    // modelName must differ per table: SequelizeStorage reuses an already defined model of the same name.
+    storage: new SequelizeStorage({ sequelize, tableName, modelName: tableName }),
     logger: undefined,
   });
 }

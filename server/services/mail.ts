@@ -1,5 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Transaction } from 'sequelize';
+import { ROLE_LABELS, type Role } from '@shared/schemas/session';
 import { enqueue, QUEUES } from './jobs';
 
 export interface MailMessage {
@@ -32,11 +33,11 @@ export function invitationMail(input: {
   to: string;
   workspaceName: string;
   inviterName: string;
-  roles: string[];
+  roles: Role[];
   url: string;
   expiresAt: Date;
 }): MailMessage {
-  const roles = input.roles.join(', ');
+  const roles = input.roles.map((role) => ROLE_LABELS[role].toLowerCase()).join(', ');
   const expiry = `The link works once and expires on ${input.expiresAt.toUTCString()}.`;
   const lines = [
     `${input.inviterName} invited you to the workspace "${input.workspaceName}" in Phasewright as ${roles}.`,
