@@ -278,7 +278,8 @@ export interface FitRange {
  * Validity: interpolation within the fitted range; extrapolation beyond it
  * is the caller's risk (the range is returned). predict() clips nothing:
  * x > 1 can come out of a wild extrapolation.
- * Example: points (290 K, 0.010), (310 K, 0.020) → b = −ln2/(1/310 − 1/290)·(−1) ≈ −3115 K.
+ * Example: points (290 K, 0.010), (310 K, 0.020) → b = ln 2 / (1/310 − 1/290) = −3116 K,
+ * a = ln 0.010 − b/290 = 6.14.
  */
 export function fitVantHoff(points: Point[]): { a: number; b: number; rmseLn: number; predict(T_K: number): number } & FitRange {
   checkPoints(points, 2, "van 't Hoff");
