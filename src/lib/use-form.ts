@@ -50,7 +50,11 @@ export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(s
       const fields = error.fieldErrors();
       const known = Object.keys(fields).filter((k) => k !== '' && k in (values as object));
       setErrors(Object.fromEntries(known.map((k) => [k, fields[k]])));
-      const unplaced = Object.entries(fields).filter(([k]) => !known.includes(k)).map(([, m]) => m);
+      // Problems with something other than a field of this form (the body, or
+      // a part of the URL such as a token) are named and shown above the form.
+      const unplaced = Object.entries(fields)
+        .filter(([k]) => !known.includes(k))
+        .map(([k, m]) => (k ? `${k}: ${m}` : m));
       setFormError([error.message, ...unplaced].join(' '));
     } else {
       setFormError(error instanceof Error ? error.message : 'Something went wrong. Try again.');

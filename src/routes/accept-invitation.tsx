@@ -19,7 +19,7 @@ export function Component() {
 
   if (invitation.isPending) return <Loading label="Opening the invitation…" />;
   if (invitation.isError) {
-    const gone = isApiError(invitation.error) && [404, 410].includes(invitation.error.status);
+    const gone = isApiError(invitation.error) && [400, 404, 410].includes(invitation.error.status);
     return (
       <>
         <h1 className="text-heading font-semibold text-ink">Invitation</h1>

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { completeResetSchema } from '@shared/schemas/password-reset';
+import { isApiError } from '@/api/client';
 import { useCompleteReset } from '@/features/password-reset/api/complete-reset';
 import { Button, ButtonLink } from '@/components/button';
 import { TextField } from '@/components/text-field';
@@ -22,7 +23,14 @@ export function Component() {
     const mismatch = repeat !== form.values.password ? 'The two passwords differ.' : undefined;
     setRepeatError(mismatch);
     if (!input || mismatch) return;
-    complete.mutate(input, { onError: form.showServerError });
+    complete.mutate(input, {
+      onError: (error) => {
+        // A mistyped, used or expired link: say so plainly instead of naming the URL part.
+        const badLink = isApiError(error) && (error.status === 404 || error.status === 410 || 'token' in error.fieldErrors());
+        if (badLink) form.setFormError('This reset link is not valid any more: it may have been used already, mistyped or expired.');
+        else form.showServerError(error);
+      },
+    });
   };
 
   if (complete.isSuccess) {

@@ -1,6 +1,6 @@
 import type { Server } from 'node:http';
 import { randomBytes } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Membership, Workspace } from '../../server/models';
 import { useTestServer } from '../support/app';
 import { buildMember } from '../support/factories';
@@ -22,6 +22,11 @@ beforeAll(async () => {
   assertClientBuilt();
   http = await listen(server.app, port);
   browser = await launchBrowser();
+});
+
+beforeEach(() => {
+  // Each flow answers for the page errors it caused.
+  browser.problems.length = 0;
 });
 
 afterAll(async () => {

@@ -14,7 +14,9 @@ export const useAcceptInvitation = (token: string) => {
   return useMutation({
     mutationFn: (input: AcceptInvitationInput) => acceptInvitation(token, input),
     onSuccess: (session) => {
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] });
+      // Forget what an earlier session loaded. The invitation itself stays: the
+      // page still shows it while navigating, and refetching a used one answers 410.
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] && q.queryKey[0] !== 'invitations' });
       queryClient.setQueryData(sessionQueryKey, session);
     },
   });
