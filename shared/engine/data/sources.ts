@@ -133,11 +133,10 @@ export const SOURCES = {
   },
   'encyclopedia-2-methyltetrahydrofuran': {
     citation: '2-Methyltetrahydrofuran, encyclopedia infobox (mutual solubility with water vs temperature) — weak secondary source',
-    url: 'https://en.wikipedia.org/wiki/2-Methyltetrahydrofuran',
+    url: 'https://en.m.wikipedia.org./wiki/Methyltetrahydrofuran',
   },
   'encyclopedia-mibk': {
-    citation: 'Methyl isobutyl ketone, encyclopedia infobox (solubility in water 1.91 g/100 mL, 20 °C) — weak secondary source',
-    url: 'https://en.wikipedia.org/wiki/Methyl_isobutyl_ketone',
+    citation: 'Methyl isobutyl ketone, encyclopedia infobox, stored copies (solubility in water 1.91 g/100 mL, 20 °C) — weak secondary source',
   },
   'mtbe-monograph-page': {
     citation:
