@@ -53,7 +53,7 @@ export const SOURCES = {
   },
   'landolt-iv20-antoine': {
     citation:
-      'Landolt-Börnstein, New Series IV/20, Vapor Pressure of Chemicals (J. Dykyj, J. Svoboda, R. C. Wilhoit, M. Frenkel, K. R. Hall), Springer',
+      'Landolt-Börnstein, New Series IV/20, Vapor Pressure of Chemicals (J. Dykyj, J. Svoboda, R. C. Wilhoit, M. Frenkel, K. R. Hall; author list recalled), Springer',
     via: 'CalebBell/chemicals: chemicals/Vapor Pressure/Landolt_antoine_V20.tsv (stored as ln P/Pa, T/K)',
   },
   'iec-60079-20-1': {
@@ -105,7 +105,7 @@ export const SOURCES = {
   },
   'chem21-guide-2016': {
     citation:
-      'D. Prat, A. Wells, J. Hayler, H. Sneddon, C. R. McElroy, S. Abou-Shehada, P. J. Dunn, "CHEM21 selection guide of classical- and less classical-solvents", Green Chem. 2016, 18, 288–296 (doi:10.1039/C5GC01008J)',
+      'D. Prat, A. Wells, J. Hayler, H. Sneddon, C. R. McElroy, S. Abou-Shehada, P. J. Dunn, "CHEM21 selection guide of classical- and less classical-solvents", Green Chem. 2016, 18, 288–296 (doi:10.1039/C5GC01008J; author list, pages and doi recalled)',
   },
   'peroxide-former-lists': {
     citation:
