@@ -42,14 +42,40 @@ function buildUmzug(sequelize: Sequelize, folder: 'migrations' | 'seeders', tabl
   });
 }
 
+// Arbitrary but fixed: identifies "schema changes of this database" among advisory locks.
+const MIGRATION_LOCK_KEY = 724_551_901;
+
+/**
+ * Holds a PostgreSQL advisory lock while `work` runs, so two server instances
+ * starting at once do not apply the same migration twice: the second waits,
+ * then finds nothing left to do.
+ */
+async function withMigrationLock<T>(sequelize: Sequelize, work: () => Promise<T>): Promise<T> {
+  const manager = sequelize.connectionManager as unknown as {
+    getConnection(): Promise<{ query(sql: string): Promise<unknown> }>;
+    releaseConnection(connection: unknown): Promise<void>;
+  };
+  const connection = await manager.getConnection();
+  try {
+    await connection.query(`SELECT pg_advisory_lock(${MIGRATION_LOCK_KEY})`);
+    try {
+      return await work();
+    } finally {
+      await connection.query(`SELECT pg_advisory_unlock(${MIGRATION_LOCK_KEY})`);
+    }
+  } finally {
+    await manager.releaseConnection(connection);
+  }
+}
+
 export async function runMigrations(sequelize: Sequelize): Promise<string[]> {
-  const applied = await buildUmzug(sequelize, 'migrations', 'SequelizeMeta').up();
+  const applied = await withMigrationLock(sequelize, () => buildUmzug(sequelize, 'migrations', 'SequelizeMeta').up());
   return applied.map((migration) => migration.name);
 }
 
 /** Seeds the invented demo data; each seeder runs once (recorded in SequelizeData). */
 export async function runSeeders(sequelize: Sequelize, env: string): Promise<string[]> {
   if (env === 'production') throw new Error('Refusing to seed demo data when NODE_ENV=production.');
-  const applied = await buildUmzug(sequelize, 'seeders', 'SequelizeData').up();
+  const applied = await withMigrationLock(sequelize, () => buildUmzug(sequelize, 'seeders', 'SequelizeData').up());
   return applied.map((seeder) => seeder.name);
 }

@@ -1,3 +1,4 @@
+import { Sequelize } from 'sequelize';
 import { describe, expect, it } from 'vitest';
 import { database } from '../../server/db/sequelize';
 import { runMigrations, runSeeders } from '../../server/db/migrator';
@@ -36,5 +37,26 @@ describe('migrations and the demo seed', () => {
     const other = await signIn(server.app, 'other@example.com', DEMO_PASSWORD);
     expect(other.session.workspaces).toEqual([expect.objectContaining({ name: 'Second site (invented)', roles: ['chemist'] })]);
     expect((await other.agent.get(`/api/v1/workspaces/${demoId}/members`)).status).toBe(404);
+  });
+});
+
+describe('concurrent start-up', () => {
+  it('two servers migrating a fresh database at once: one applies, the other waits and finds nothing to do', async () => {
+    const baseUrl = new URL(process.env.DATABASE_URL!);
+    const freshName = `${baseUrl.pathname.slice(1)}_fresh`;
+    const admin = new Sequelize(new URL('/postgres', baseUrl).href, { dialect: 'postgres', logging: false });
+    await admin.query(`CREATE DATABASE ${freshName}`);
+    const connect = () => new Sequelize(new URL(`/${freshName}`, baseUrl).href, { dialect: 'postgres', logging: false });
+    const first = connect();
+    const second = connect();
+    try {
+      const results = await Promise.all([runMigrations(first), runMigrations(second)]);
+      expect(results.map((names) => names.length).sort()).toEqual([0, 1]);
+    } finally {
+      await first.close();
+      await second.close();
+      await admin.query(`DROP DATABASE IF EXISTS ${freshName} WITH (FORCE)`);
+      await admin.close();
+    }
   });
 });

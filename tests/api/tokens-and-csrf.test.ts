@@ -17,34 +17,6 @@ beforeAll(async () => {
   asAdmin = await signIn(server.app, admin.email);
 });
 
-describe('CSRF', () => {
-  it('refuses a cookie-authenticated state change without X-CSRF-Token (403 csrf_failed)', async () => {
-    const response = await asAdmin.agent.post('/api/v1/tokens').send({ name: 'no header' });
-    expect(response.status).toBe(403);
-    expect(response.body.error.code).toBe('csrf_failed');
-    expect(await ApiToken.count({ where: { name: 'no header' } })).toBe(0);
-  });
-
-  it('refuses a wrong token, and accepts the session token', async () => {
-    const wrong = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', 'x'.repeat(43)).send({ name: 'wrong header' });
-    expect(wrong.status).toBe(403);
-    const right = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', asAdmin.csrfToken).send({ name: 'right header' });
-    expect(right.status).toBe(201);
-  });
-
-  it("one session's token does not work for another session", async () => {
-    const other = await signIn(server.app, admin.email);
-    const response = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', other.csrfToken).send({ name: 'crossed' });
-    expect(response.status).toBe(403);
-  });
-
-  it('sign-in itself needs no CSRF token', async () => {
-    const response = await asAdmin.agent.post('/api/v1/session').send({ email: admin.email, password: 'correct-horse-battery' });
-    expect(response.status).toBe(200);
-    asAdmin = { ...asAdmin, csrfToken: response.body.csrfToken };
-  });
-});
-
 describe('personal API tokens', () => {
   it('requires authentication', async () => {
     expect((await request(server.app).get('/api/v1/tokens')).status).toBe(401);
@@ -106,5 +78,33 @@ describe('personal API tokens', () => {
   it('an unknown Bearer token is a 401', async () => {
     const response = await request(server.app).get('/api/v1/session').set('Authorization', 'Bearer pwt_made-up');
     expect(response.status).toBe(401);
+  });
+});
+
+describe('CSRF', () => {
+  it('refuses a cookie-authenticated state change without X-CSRF-Token (403 csrf_failed)', async () => {
+    const response = await asAdmin.agent.post('/api/v1/tokens').send({ name: 'no header' });
+    expect(response.status).toBe(403);
+    expect(response.body.error.code).toBe('csrf_failed');
+    expect(await ApiToken.count({ where: { name: 'no header' } })).toBe(0);
+  });
+
+  it('refuses a wrong token, and accepts the session token', async () => {
+    const wrong = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', 'x'.repeat(43)).send({ name: 'wrong header' });
+    expect(wrong.status).toBe(403);
+    const right = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', asAdmin.csrfToken).send({ name: 'right header' });
+    expect(right.status).toBe(201);
+  });
+
+  it("one session's token does not work for another session", async () => {
+    const other = await signIn(server.app, admin.email);
+    const response = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', other.csrfToken).send({ name: 'crossed' });
+    expect(response.status).toBe(403);
+  });
+
+  it('sign-in itself needs no CSRF token', async () => {
+    const response = await asAdmin.agent.post('/api/v1/session').send({ email: admin.email, password: 'correct-horse-battery' });
+    expect(response.status).toBe(200);
+    asAdmin = { ...asAdmin, csrfToken: response.body.csrfToken };
   });
 });
