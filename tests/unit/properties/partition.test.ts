@@ -8,6 +8,7 @@ import {
   setschenowFactor,
 } from '@shared/engine/properties/partition';
 import { EngineError } from '@shared/engine/errors';
+import type { UnifacGroups } from '@shared/engine/data/types';
 
 describe('neutralFraction', () => {
   it('is 1 without ionisable sites', () => {
@@ -119,9 +120,10 @@ describe('distributionRatio', () => {
     expect(r.basis).toBe('molar-concentration');
   });
   it('uses UNIFAC when asked and the inputs are there, else falls back with a warning', () => {
+    const g: UnifacGroups[] = [{ 1: 1, 2: 1, 21: 1 }, { 16: 1 }];
     const phases = {
-      organic: { solventId: 'ethyl-acetate', groups: [{ 1: 1, 2: 1, 21: 1 }, { 16: 1 }], moleFractions: [0.87, 0.13], molarVolumeM3mol: 90e-6 },
-      aqueous: { groups: [{ 1: 1, 2: 1, 21: 1 }, { 16: 1 }], moleFractions: [0.017, 0.983], molarVolumeM3mol: 19e-6 },
+      organic: { solventId: 'ethyl-acetate', groups: g, moleFractions: [0.87, 0.13], molarVolumeM3mol: 90e-6 },
+      aqueous: { groups: g, moleFractions: [0.017, 0.983], molarVolumeM3mol: 19e-6 },
     };
     const act = distributionRatio({ solute: { logP: 2.13, unifac: { 9: 6 } }, ...phases, T_K: 298.15, prefer: 'activity' });
     expect(act.method).toBe('activity-coefficients (UNIFAC)');
