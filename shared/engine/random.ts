@@ -1,0 +1,70 @@
+/**
+ * Seeded pseudo-random numbers for the engine (Monte Carlo draws, property
+ * tests). The engine never calls Math.random: the same seed gives the same
+ * sequence on the client and on the server.
+ *
+ * Generator: sfc32 (Chris Doty-Humphrey's "Small Fast Counting" generator,
+ * from the PractRand suite), 32-bit state words, period ≥ 2^32, passes
+ * PractRand to large sizes. The 32-bit seed is expanded with splitmix32
+ * (after Steele, Lea & Flood, "Fast splittable pseudorandom number
+ * generators", OOPSLA 2014) so that nearby seeds give unrelated streams.
+ * Both algorithms are described here from memory of their public
+ * descriptions; the tests check determinism and the uniform moments only.
+ */
+
+/** A seeded generator. `next()` returns a float uniformly in [0, 1). */
+export interface SeededRandom {
+  next(): number;
+  /** Uniform in [lo, hi). */
+  uniform(lo: number, hi: number): number;
+  /** The internal state, to resume a stream (chunked Monte Carlo). */
+  state(): [number, number, number, number];
+}
+
+function splitmix32(seed: number): () => number {
+  let s = seed >>> 0;
+  return () => {
+    s = (s + 0x9e3779b9) >>> 0;
+    let z = s;
+    z = Math.imul(z ^ (z >>> 16), 0x85ebca6b) >>> 0;
+    z = Math.imul(z ^ (z >>> 13), 0xc2b2ae35) >>> 0;
+    return (z ^ (z >>> 16)) >>> 0;
+  };
+}
+
+/**
+ * Create a generator from an integer seed (any finite number; it is reduced
+ * to 32 bits), or from a saved state.
+ */
+export function createRandom(seed: number | [number, number, number, number]): SeededRandom {
+  let a: number, b: number, c: number, d: number;
+  if (Array.isArray(seed)) {
+    [a, b, c, d] = seed.map((v) => v >>> 0) as [number, number, number, number];
+  } else {
+    if (!Number.isFinite(seed)) throw new RangeError('seed must be a finite number');
+    const mix = splitmix32(Math.trunc(seed) >>> 0);
+    a = mix();
+    b = mix();
+    c = mix();
+    d = mix();
+    // Warm up so the first outputs are well mixed.
+    for (let i = 0; i < 12; i++) step();
+  }
+  function step(): number {
+    a >>>= 0; b >>>= 0; c >>>= 0; d >>>= 0;
+    const t = (((a + b) >>> 0) + d) >>> 0;
+    d = (d + 1) >>> 0;
+    a = b ^ (b >>> 9);
+    b = (c + (c << 3)) >>> 0;
+    c = ((c << 21) | (c >>> 11)) >>> 0;
+    c = (c + t) >>> 0;
+    return t >>> 0;
+  }
+  return {
+    next: () => step() / 4294967296,
+    uniform(lo: number, hi: number) {
+      return lo + (hi - lo) * (step() / 4294967296);
+    },
+    state: () => [a >>> 0, b >>> 0, c >>> 0, d >>> 0],
+  };
+}

@@ -1,0 +1,248 @@
+/**
+ * The evaluation context: the route's components resolved against the
+ * curated library, unit conversions at the engine's edge, the parameter
+ * reader (nominal or Monte Carlo draw), and stream helpers.
+ */
+import type { AqueousSoluteRecord, SolventRecord } from '../data/types';
+import { aqueousSoluteById, solventById } from '../data/index';
+import { componentKey, type CompoundSnapshot, type RouteDocument, type Uncertain, type Volume } from '../../schemas/route';
+import type { EngineWarning, MethodUsed, Stream } from './types';
+import type { PortPhase } from '../../schemas/route';
+import type { SeededRandom } from '../random';
+
+/** Density assumed for a compound without a stated density, g/mL (common practice for organic solids, typically 1.1–1.4). */
+export const DEFAULT_COMPOUND_DENSITY_GML = 1.2;
+
+export interface ResolvedComponent {
+  id: string;
+  name: string;
+  kind: 'solvent' | 'aqueous-solute' | 'compound';
+  role: 'solvent' | 'aqueous-solute' | 'product' | 'impurity' | 'reagent' | 'by-product';
+  /** Molar mass [kg/mol]. */
+  molarMassKgMol: number;
+  solvent?: SolventRecord;
+  aqueous?: AqueousSoluteRecord;
+  compound?: CompoundSnapshot;
+  isWater: boolean;
+  /** Liquid (solvent) or density-apparent volume contribution: specific volume [m³/kg] at T [K]. */
+  specificVolume(T_K: number): number;
+}
+
+export interface EvalContext {
+  ids: string[];
+  comps: Map<string, ResolvedComponent>;
+  waterId: string | null;
+  productId: string | null;
+  referenceKg: number;
+  referenceMol: number;
+  /** Read a possibly uncertain parameter: nominal value, or a draw in Monte Carlo. */
+  num(u: Uncertain, min: number, max: number): number;
+  rng: SeededRandom | null;
+  /** Memo for per-evaluation caches (VLE systems, fitted curves). */
+  cache: Map<string, unknown>;
+}
+
+export function waterDensityGmL(): number {
+  const w = solventById('water');
+  return w ? w.density.value.gPerMl : 0.9982;
+}
+
+/** Solvent density at T [g/mL]: ρ(T) = ρ_ref + (dρ/dT)(T − T_ref), linear; the record's reference density when no coefficient is known. */
+export function solventDensityGmL(s: SolventRecord, T_K: number): number {
+  const d = s.density.value;
+  const rho = d.gPerMl + (d.dPerK ?? 0) * (T_K - 273.15 - d.temperatureC);
+  return Math.max(rho, 0.3 * d.gPerMl);
+}
+
+/**
+ * Apparent specific volume of an aqueous solute [mL/g], from the densest
+ * published solution point (w, ρ): v = (1/ρ − (1 − w)/ρ_water)/w. Ideal
+ * mixing of water and solute at this apparent volume reproduces that
+ * solution's density exactly and is approximate elsewhere.
+ */
+export function aqueousApparentSpecificVolume(a: AqueousSoluteRecord): number {
+  const pts = a.densityPoints.value.filter(([w]) => w > 0);
+  const rw = waterDensityGmL();
+  if (pts.length === 0) return 1 / 2.0;
+  const [wPct, rho] = pts.reduce((m, p) => (p[0] > m[0] ? p : m));
+  const w = wPct / 100;
+  const v = (1 / rho - (1 - w) / rw) / w;
+  return Math.max(v, 0.05);
+}
+
+export function buildContext(doc: RouteDocument, rng: SeededRandom | null = null): { ctx: EvalContext; issues: Array<{ field: string; message: string }> } {
+  const issues: Array<{ field: string; message: string }> = [];
+  const comps = new Map<string, ResolvedComponent>();
+  doc.components.forEach((c, i) => {
+    const key = componentKey(c);
+    if (comps.has(key)) {
+      issues.push({ field: `components[${i}].id`, message: `Component id "${key}" is used twice.` });
+      return;
+    }
+    if (c.kind === 'solvent') {
+      const s = solventById(c.solventId);
+      if (!s) {
+        issues.push({ field: `components[${i}].solventId`, message: `Unknown library solvent "${c.solventId}".` });
+        return;
+      }
+      comps.set(key, {
+        id: key, name: s.name, kind: 'solvent', role: 'solvent', molarMassKgMol: s.molarMassGmol.value / 1000, solvent: s,
+        isWater: s.id === 'water',
+        specificVolume: (T) => 1 / (solventDensityGmL(s, T) * 1000),
+      });
+    } else if (c.kind === 'aqueous-solute') {
+      const a = aqueousSoluteById(c.soluteId);
+      if (!a) {
+        issues.push({ field: `components[${i}].soluteId`, message: `Unknown aqueous solute "${c.soluteId}".` });
+        return;
+      }
+      const v = aqueousApparentSpecificVolume(a) / 1000;
+      comps.set(key, { id: key, name: a.name, kind: 'aqueous-solute', role: 'aqueous-solute', molarMassKgMol: a.molarMassGmol.value / 1000, aqueous: a, isWater: false, specificVolume: () => v });
+    } else {
+      const v = 1 / ((c.densityGmL ?? DEFAULT_COMPOUND_DENSITY_GML) * 1000);
+      comps.set(key, { id: key, name: c.name, kind: 'compound', role: c.role, molarMassKgMol: c.molarMassGmol / 1000, compound: c, isWater: false, specificVolume: () => v });
+    }
+  });
+  const ids = [...comps.keys()];
+  const water = [...comps.values()].find((c) => c.isWater);
+  const products = [...comps.values()].filter((c) => c.role === 'product');
+  if (products.length > 1) issues.push({ field: 'components', message: 'Only one component may have the role "product".' });
+  const refComp = comps.get(doc.referenceInput.componentId);
+  if (!refComp) issues.push({ field: 'referenceInput.componentId', message: `Unknown component "${doc.referenceInput.componentId}".` });
+  const referenceKg = doc.referenceInput.massKg;
+  const ctx: EvalContext = {
+    ids, comps, waterId: water?.id ?? null, productId: products[0]?.id ?? null,
+    referenceKg, referenceMol: refComp ? referenceKg / refComp.molarMassKgMol : NaN,
+    rng,
+    num(u, min, max) {
+      if (typeof u === 'number') return u;
+      if (!rng || u.plusMinus === 0) return u.value;
+      const lo = Math.max(min, u.value - u.plusMinus);
+      const hi = Math.min(max, u.value + u.plusMinus);
+      return rng.uniform(lo, hi);
+    },
+    cache: new Map(),
+  };
+  return { ctx, issues };
+}
+
+// ---- units at the edge ----
+
+/** A document volume (L or vol) → m³. 1 vol = 1 L per kg of the reference input. */
+export function volumeToM3(ctx: EvalContext, v: Volume): number {
+  const x = ctx.num(v.value, 0, 1e6);
+  return v.unit === 'L' ? x / 1000 : (x * ctx.referenceKg) / 1000;
+}
+export const cToK = (c: number) => c + 273.15;
+export const kToC = (k: number) => k - 273.15;
+
+// ---- streams ----
+
+export function emptyStream(ctx: EvalContext, phase: PortPhase, T_K: number): Stream {
+  const kg: Record<string, number> = {};
+  const solidKg: Record<string, number> = {};
+  for (const id of ctx.ids) {
+    kg[id] = 0;
+    solidKg[id] = 0;
+  }
+  return { phase, temperatureK: T_K, kg, solidKg, volumeM3: 0 };
+}
+
+/** Volume by ideal mixing, V = Σ m_i v_i(T) [m³]. */
+export function streamVolume(ctx: EvalContext, kg: Record<string, number>, T_K: number): number {
+  let v = 0;
+  for (const id of ctx.ids) {
+    const m = kg[id];
+    if (m > 0) v += m * ctx.comps.get(id)!.specificVolume(T_K);
+  }
+  return v;
+}
+
+export function finishStream(ctx: EvalContext, s: Stream): Stream {
+  s.volumeM3 = streamVolume(ctx, s.kg, s.temperatureK);
+  return s;
+}
+
+export function cloneStream(s: Stream): Stream {
+  return { phase: s.phase, temperatureK: s.temperatureK, kg: { ...s.kg }, solidKg: { ...s.solidKg }, volumeM3: s.volumeM3 };
+}
+
+export function totalKg(kg: Record<string, number>): number {
+  let t = 0;
+  for (const k in kg) t += kg[k];
+  return t;
+}
+
+export function liquidKg(s: Stream, id: string): number {
+  return s.kg[id] - s.solidKg[id];
+}
+
+/** Liquid part of a stream (solids removed). */
+export function liquidPart(s: Stream): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const id in s.kg) out[id] = s.kg[id] - s.solidKg[id];
+  return out;
+}
+
+/** kg of a liquid charge of `volumeM3` of a solvent at T. */
+export function solventKgFromVolume(ctx: EvalContext, id: string, volumeM3: number, T_K: number): number {
+  const c = ctx.comps.get(id)!;
+  return volumeM3 / c.specificVolume(T_K);
+}
+
+/**
+ * kg of water and solute in `volumeM3` of an aqueous medium at `wtPct`:
+ * the medium's density from the ideal mixture of water and the solute's
+ * apparent specific volume.
+ */
+export function aqueousMediumKg(ctx: EvalContext, soluteId: string, wtPct: number, volumeM3: number, T_K: number): { waterKg: number; soluteKg: number } {
+  const w = wtPct / 100;
+  const vs = ctx.comps.get(soluteId)!.specificVolume(T_K);
+  const vw = ctx.comps.get(ctx.waterId!)!.specificVolume(T_K);
+  const specific = w * vs + (1 - w) * vw;
+  const mass = volumeM3 / specific;
+  return { waterKg: mass * (1 - w), soluteKg: mass * w };
+}
+
+// ---- warnings and cautions ----
+
+export function warn(list: EngineWarning[], severity: EngineWarning['severity'], code: string, message: string) {
+  if (!list.some((w) => w.code === code && w.message === message)) list.push({ severity, code, message });
+}
+
+export function method(list: MethodUsed[], what: string, m: string, source: string) {
+  if (!list.some((x) => x.what === what && x.method === m)) list.push({ what, method: m, source });
+}
+
+/** Flash-point margin [K]: a liquid handled within this margin of its flash point, or above it, gets a caution (common practice). */
+export const FLASH_POINT_MARGIN_K = 10;
+
+/**
+ * Cautions that hold for any vessel contents: flammable liquids at or above
+ * (flash point − margin), ICH Q3C class 1 solvents, and static-accumulating
+ * low-conductivity solvents where liquid is transferred or filtered.
+ */
+export function commonCautions(ctx: EvalContext, kg: Record<string, number>, T_K: number, warnings: EngineWarning[], opts: { transfer?: boolean } = {}) {
+  const liquidTotal = totalKg(kg);
+  const flam: string[] = [];
+  const lowCond: string[] = [];
+  for (const id of ctx.ids) {
+    const m = kg[id];
+    if (!(m > 0)) continue;
+    const c = ctx.comps.get(id)!;
+    if (!c.solvent) continue;
+    const s = c.solvent;
+    const fp = s.flashPointC.value;
+    if (fp !== null && m / liquidTotal > 0.01 && T_K - 273.15 >= fp - FLASH_POINT_MARGIN_K) flam.push(`${s.name} (flash point ${fp} °C)`);
+    if (s.ich.value.class === 1) {
+      warn(warnings, 'hazard', 'ich-class-1', `${s.name} is an ICH Q3C class 1 solvent (to be avoided); its use needs justification.`);
+    }
+    if (opts.transfer && s.lowConductivity.value && m / liquidTotal > 0.1) lowCond.push(s.name);
+  }
+  if (flam.length) {
+    warn(warnings, 'advisory', 'flammable-above-flash-point', `Process temperature ${(T_K - 273.15).toFixed(0)} °C is above or within ${FLASH_POINT_MARGIN_K} K of the flash point of ${flam.join(', ')}: flammable atmosphere; inerting and ignition-source control apply.`);
+  }
+  if (lowCond.length) {
+    warn(warnings, 'advisory', 'static-accumulation', `${lowCond.join(', ')} has low electrical conductivity: static charge accumulates in transfers and filtrations; bond and earth equipment, limit flow velocity.`);
+  }
+}

@@ -1,0 +1,278 @@
+/**
+ * Route evaluation: validate the graph, run every step model in topological
+ * order, carry the streams along the connections, check the mass balance of
+ * every component at every step, and add the route totals.
+ *
+ * Totals:
+ *  - isolated yield = product in the isolated solid (unconnected 'dry' or
+ *    'cake' outputs) / product charged (+ seeds, + formed by reaction);
+ *  - purity = product / all mass in the isolated solid [wt %];
+ *  - purge factor of each impurity = amount in / amount in the isolated solid;
+ *  - solvent use = litres of liquid charged / kg isolated product;
+ *  - PMI = total mass charged (incl. water, reagents, auxiliaries) / kg
+ *    product (ACS GCI Pharmaceutical Roundtable; Jimenez-Gonzalez et al.,
+ *    Org. Process Res. Dev. 2011, 15, 912);
+ *  - E-factor = (total mass charged − product) / product (Sheldon, Chem. Ind.
+ *    1992, 903; here with water and solvents, no recycling: the "complete"
+ *    E-factor), and the same without water;
+ *  - peak volume per step; cycle time as the sum of the steps' durations
+ *    (common-practice durations, parallel branches counted in series).
+ */
+import { routeDocumentSchema, PORTS, type RouteDocument, type RouteStep } from '../../schemas/route';
+import type { SeededRandom } from '../random';
+import { EngineError } from '../errors';
+import { buildContext, type EvalContext } from './context';
+import { RouteValidationError, StepError, type RouteIssue } from './errors';
+import { validateRoute, type GraphInfo } from './validate';
+import type { EngineWarning, StepOutput, StepResult, Stream } from './types';
+import { charge } from '../unitops/charge';
+import { washOrExtraction } from '../unitops/wash';
+import { distillation } from '../unitops/distillation';
+import { crystallisation } from '../unitops/crystallisation';
+import { filtration } from '../unitops/filtration';
+import { drying } from '../unitops/drying';
+import { carbonTreatment, merge, phAdjust, polishFiltration, quench, split } from '../unitops/simple';
+
+/** Version of the route engine; stored with every revision's results. */
+export const ENGINE_VERSION = '1.0.0';
+
+/** Relative closure required of every component balance at every step. */
+export const MASS_BALANCE_TOLERANCE = 1e-9;
+
+export const PROCESS_SAFETY_NOTE =
+  'These results are estimates from published models and the data entered. Cautions are prompts, not a hazard assessment: defer to the site\'s process-safety review, local codes and licensed practice before any operation, and confirm thermal and gas-evolution hazards by calorimetry.';
+
+/** Output ports whose unconnected stream counts as the isolated product. */
+export const ISOLATED_PORTS: ReadonlyArray<{ kind: RouteStep['kind']; port: string }> = [
+  { kind: 'drying', port: 'dry' },
+  { kind: 'filtration', port: 'cake' },
+];
+
+export interface PurgeEntry {
+  inKg: number;
+  outKg: number;
+  /** in/out; null when none reaches the isolated solid (complete purge). */
+  purgeFactor: number | null;
+}
+
+export interface RouteTotals {
+  productId: string | null;
+  productInKg: number;
+  isolatedProductKg: number;
+  isolatedSolidKg: number;
+  yieldPct: number | null;
+  purityWtPct: number | null;
+  purge: Record<string, PurgeEntry>;
+  solventUseLPerKg: number | null;
+  pmi: number | null;
+  eFactor: number | null;
+  eFactorExcludingWater: number | null;
+  totalInputKg: number;
+  peakVolumeL: Record<string, number>;
+  cycleTimeH: number;
+  cycleTimeBasis: string;
+}
+
+export interface RouteResult {
+  engineVersion: string;
+  schemaVersion: 1;
+  order: string[];
+  steps: Record<string, StepResult>;
+  /** Stream on each connection, by connection id. */
+  streams: Record<string, Stream>;
+  /** Outputs not connected to another step: product, waste, distillate. */
+  terminals: Array<{ stepId: string; port: string; isolated: boolean; stream: Stream }>;
+  totals: RouteTotals;
+  warnings: Array<EngineWarning & { stepId: string | null }>;
+  processSafetyNote: string;
+}
+
+type Model = (inputs: Record<string, Stream | undefined>, params: never, ctx: EvalContext, step: RouteStep) => StepOutput;
+
+const MODELS: Record<RouteStep['kind'], Model> = {
+  charge: charge as Model,
+  wash: washOrExtraction as Model,
+  extraction: washOrExtraction as Model,
+  distillation: distillation as Model,
+  crystallisation: crystallisation as Model,
+  filtration: filtration as Model,
+  drying: drying as Model,
+  quench: quench as Model,
+  'ph-adjust': phAdjust as Model,
+  'carbon-treatment': carbonTreatment as Model,
+  'polish-filtration': polishFiltration as Model,
+  split: split as Model,
+  merge: merge as Model,
+};
+
+/** Parse with the schema; schema errors become a RouteValidationError with field paths. */
+export function parseRoute(doc: unknown): RouteDocument {
+  const r = routeDocumentSchema.safeParse(doc);
+  if (r.success) return r.data;
+  const steps = (doc as { steps?: Array<{ id?: string }> })?.steps;
+  throw new RouteValidationError(
+    r.error.issues.map((i) => {
+      const path = i.path.map(String);
+      const stepId = path[0] === 'steps' && steps?.[Number(path[1])]?.id ? String(steps[Number(path[1])].id) : null;
+      return { stepId, field: path.join('.'), message: i.message };
+    }),
+  );
+}
+
+/** Evaluate a route document (parsed or raw). Throws RouteValidationError naming step and field. */
+export function evaluateRoute(doc: unknown, options: { rng?: SeededRandom } = {}): RouteResult {
+  const parsed = parseRoute(doc);
+  const prepared = prepareRoute(parsed);
+  return evaluatePrepared(prepared, options.rng ?? null);
+}
+
+export interface PreparedRoute {
+  doc: RouteDocument;
+  graph: GraphInfo;
+}
+
+/** Validate once (for repeated evaluation in Monte Carlo). */
+export function prepareRoute(doc: RouteDocument): PreparedRoute {
+  const { ctx, issues: ctxIssues } = buildContext(doc);
+  const { issues, graph } = validateRoute(doc, ctx, ctxIssues);
+  if (issues.length) throw new RouteValidationError(issues);
+  return { doc, graph };
+}
+
+export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | null): RouteResult {
+  const { doc, graph } = prepared;
+  const { ctx } = buildContext(doc, rng);
+  const stepById = new Map(doc.steps.map((s) => [s.id, s]));
+  const outputsOf = new Map<string, Record<string, Stream>>();
+  const results: Record<string, StepResult> = {};
+  const streams: Record<string, Stream> = {};
+  for (const id of graph.order) {
+    const step = stepById.get(id)!;
+    const inputs: Record<string, Stream | undefined> = {};
+    for (const [port, c] of graph.incoming.get(id)!) {
+      inputs[port] = outputsOf.get(c.from.stepId)![c.from.port];
+    }
+    let out: StepOutput;
+    try {
+      out = MODELS[step.kind](inputs, step.params as never, ctx, step);
+    } catch (e) {
+      throw toRouteError(e, step);
+    }
+    checkBalance(ctx, inputs, out);
+    outputsOf.set(id, out.outputs);
+    results[id] = out.result;
+    for (const [port, c] of graph.outgoing.get(id)!) streams[c.id] = out.outputs[port];
+  }
+  const terminals: RouteResult['terminals'] = [];
+  for (const id of graph.order) {
+    const step = stepById.get(id)!;
+    for (const p of PORTS[step.kind].outputs) {
+      if (graph.outgoing.get(id)!.has(p.name)) continue;
+      const isolated = ISOLATED_PORTS.some((q) => q.kind === step.kind && q.port === p.name);
+      terminals.push({ stepId: id, port: p.name, isolated, stream: outputsOf.get(id)![p.name] });
+    }
+  }
+  const totals = computeTotals(ctx, graph.order, results, terminals);
+  const warnings: RouteResult['warnings'] = [];
+  for (const id of graph.order) for (const w of results[id].warnings) warnings.push({ ...w, stepId: id });
+  if (!ctx.productId) warnings.push({ severity: 'info', code: 'no-product', message: 'No component has the role "product": yield, purity and purge are not computed.', stepId: null });
+  else if (!terminals.some((t) => t.isolated)) warnings.push({ severity: 'info', code: 'no-isolation', message: 'No unconnected cake or dry-solid output: nothing is isolated yet.', stepId: null });
+  return { engineVersion: ENGINE_VERSION, schemaVersion: 1, order: graph.order, steps: results, streams, terminals, totals, warnings, processSafetyNote: PROCESS_SAFETY_NOTE };
+}
+
+function toRouteError(e: unknown, step: RouteStep): Error {
+  if (e instanceof RouteValidationError) return e;
+  if (e instanceof StepError) return new RouteValidationError([{ stepId: step.id, field: e.field, message: e.message }]);
+  if (e instanceof EngineError) return new RouteValidationError([{ stepId: step.id, field: 'params', message: e.message }]);
+  return e as Error;
+}
+
+/** in + added + generated − consumed = out for every component, to MASS_BALANCE_TOLERANCE relative. */
+function checkBalance(ctx: EvalContext, inputs: Record<string, Stream | undefined>, out: StepOutput) {
+  const r = out.result;
+  const balance: NonNullable<StepResult['balance']> = {};
+  let scale = 0;
+  const inKg: Record<string, number> = {};
+  const outKg: Record<string, number> = {};
+  for (const id of ctx.ids) {
+    let a = (r.addedKg[id] ?? 0) + (r.generatedKg[id] ?? 0) - (r.consumedKg[id] ?? 0);
+    for (const p in inputs) a += inputs[p]?.kg[id] ?? 0;
+    let b = 0;
+    for (const p in out.outputs) b += out.outputs[p].kg[id];
+    inKg[id] = a;
+    outKg[id] = b;
+    scale = Math.max(scale, Math.abs(a), Math.abs(b));
+  }
+  for (const id of ctx.ids) {
+    const a = inKg[id];
+    const b = outKg[id];
+    const denom = Math.max(Math.abs(a), Math.abs(b), scale * 1e-12, 1e-300);
+    const rel = Math.abs(a - b) / denom;
+    balance[id] = { inKg: a, outKg: b, relativeError: rel };
+    if (!(rel <= MASS_BALANCE_TOLERANCE)) {
+      r.warnings.push({ severity: 'warning', code: 'mass-balance', message: `Mass balance of ${ctx.comps.get(id)!.name} does not close (relative error ${rel.toExponential(2)}); please report this route.` });
+    }
+  }
+  r.balance = balance;
+}
+
+function computeTotals(ctx: EvalContext, order: string[], results: Record<string, StepResult>, terminals: RouteResult['terminals']): RouteTotals {
+  const pid = ctx.productId;
+  const inputKg: Record<string, number> = {};
+  for (const id of ctx.ids) inputKg[id] = 0;
+  let aux = 0;
+  let volumeL = 0;
+  let hours = 0;
+  const peak: Record<string, number> = {};
+  for (const id of order) {
+    const r = results[id];
+    for (const c in r.addedKg) inputKg[c] += r.addedKg[c];
+    for (const c in r.generatedKg) inputKg[c] += r.generatedKg[c];
+    for (const c in r.consumedKg) inputKg[c] -= r.consumedKg[c];
+    aux += r.auxiliaryKg;
+    volumeL += r.addedVolumeM3 * 1000;
+    hours += r.duration.hours;
+    peak[id] = r.peakVolumeM3 * 1000;
+  }
+  const iso: Record<string, number> = {};
+  for (const id of ctx.ids) iso[id] = 0;
+  for (const t of terminals) if (t.isolated) for (const id of ctx.ids) iso[id] += t.stream.kg[id];
+  const isoTotal = Object.values(iso).reduce((a, b) => a + b, 0);
+  const product = pid ? iso[pid] : 0;
+  const purge: Record<string, PurgeEntry> = {};
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.kind !== 'compound' || id === pid || !(inputKg[id] > 0)) continue;
+    purge[id] = { inKg: inputKg[id], outKg: iso[id], purgeFactor: iso[id] > 0 ? inputKg[id] / iso[id] : null };
+  }
+  // Total mass charged: everything added by any step (reaction products are not inputs) plus auxiliaries.
+  let charged = aux;
+  let water = 0;
+  for (const id of order) {
+    const r = results[id];
+    for (const c in r.addedKg) {
+      charged += r.addedKg[c];
+      if (ctx.comps.get(c)!.isWater) water += r.addedKg[c];
+    }
+  }
+  const has = product > 0;
+  return {
+    productId: pid,
+    productInKg: pid ? inputKg[pid] : 0,
+    isolatedProductKg: product,
+    isolatedSolidKg: isoTotal,
+    yieldPct: pid && inputKg[pid] > 0 ? (100 * product) / inputKg[pid] : null,
+    purityWtPct: isoTotal > 0 && pid ? (100 * product) / isoTotal : null,
+    purge,
+    solventUseLPerKg: has ? volumeL / product : null,
+    pmi: has ? charged / product : null,
+    eFactor: has ? (charged - product) / product : null,
+    eFactorExcludingWater: has ? (charged - water - product) / product : null,
+    totalInputKg: charged,
+    peakVolumeL: peak,
+    cycleTimeH: hours,
+    cycleTimeBasis: 'sum of common-practice step durations (docs/methods.md); parallel branches counted in series',
+  };
+}
+
+export type { RouteIssue };

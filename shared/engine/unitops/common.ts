@@ -1,0 +1,59 @@
+/** Helpers shared by the step models. */
+import type { RouteStep } from '../../schemas/route';
+import type { StepDuration, StepResult } from '../route/types';
+
+export function newResult(step: Pick<RouteStep, 'id' | 'kind' | 'name'>, duration: StepDuration): StepResult {
+  return {
+    stepId: step.id,
+    kind: step.kind,
+    name: step.name,
+    summary: {},
+    warnings: [],
+    methods: [],
+    addedKg: {},
+    addedVolumeM3: 0,
+    auxiliaryKg: 0,
+    generatedKg: {},
+    consumedKg: {},
+    peakVolumeM3: 0,
+    duration,
+    details: {},
+  };
+}
+
+export function addTo(target: Record<string, number>, id: string, kg: number) {
+  target[id] = (target[id] ?? 0) + kg;
+}
+
+/** Round for display in summaries (the streams keep full precision). */
+export function round(x: number, digits = 4): number {
+  if (!Number.isFinite(x)) return x;
+  const f = 10 ** digits;
+  return Math.round(x * f) / f;
+}
+
+/**
+ * Typical durations of operations at pilot and plant scale, in hours
+ * (common practice, for a first cycle-time estimate only; sites replace
+ * them with their own vessel data).
+ */
+export const COMMON_PRACTICE_HOURS = {
+  charge: 0.5,
+  washStage: 1.5, // charge, stir 30 min, settle 30 min, separate 30 min
+  distillationSetup: 1.0,
+  /** Distillation rate, L of distillate per hour per L of working volume (common practice: about 1 vol/h at 10 L/kg). */
+  distillateVolumesPerHour: 0.1,
+  coolingKPerHour: 10,
+  crystallisationAge: 2,
+  antisolventAddition: 1,
+  filtrationSetup: 0.5,
+  cakeWash: 0.5,
+  drying: 12,
+  quench: 1,
+  phAdjust: 1,
+  carbonTreatment: 2,
+  polishFiltration: 1,
+  transfer: 0.25,
+} as const;
+
+export const COMMON_PRACTICE_BASIS = 'common-practice durations (docs/methods.md, cycle time)';

@@ -1,0 +1,174 @@
+/**
+ * Crystallisation: cooling, antisolvent addition, or evaporation.
+ *
+ * Model: equilibrium at the end conditions. Each compound dissolves up to its
+ * saturation capacity in the liquor's solvents at the end temperature
+ * (solubility-model.ts: measured van 't Hoff fits first, then UNIFAC or
+ * ideal solubility; blends by the log-linear Jouyban–Acree model); the
+ * excess is solid. So the product comes out to its solubility, and an
+ * impurity stays in the liquor below its own solubility, else it
+ * co-precipitates (as a separate solid; solid solutions and inclusions are
+ * not modelled). Aqueous solutes (salts) dissolve in the water present up to
+ * their saturation wt %; without water they are solid.
+ *   yield = m_solid,product / (m_product,in + m_seed)
+ * Seeding is recorded (seed mass = seedWtPct % of the product in the feed,
+ * charged as solid product). Evaporative mode distils first (distillation.ts,
+ * Rayleigh with UNIFAC) and crystallises at the final pot temperature.
+ * Units: T [K], masses [kg], volumes [m³]. Kinetics (metastable zone,
+ * growth, agglomeration) are not modelled: the result is an end-point bound.
+ */
+import type { ParamsOf, RouteStep } from '../../schemas/route';
+import { RANGES } from '../../schemas/route';
+import type { EvalContext } from '../route/context';
+import { commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import { StepError } from '../route/errors';
+import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
+import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
+import { distilLeg, INCREMENTS_PER_LEG, newDistilState, VOLUME_REFERENCE_K } from './distillation';
+import { solubilityIn } from './solubility-model';
+
+export interface Precipitation {
+  solidKg: Record<string, number>;
+  saturationKg: Record<string, number | null>;
+}
+
+/** Solid formed from a liquid of total composition kg at T (equilibrium end point). */
+export function precipitate(ctx: EvalContext, kg: Record<string, number>, T_K: number, warnings: EngineWarning[], methods: MethodUsed[]): Precipitation {
+  const solidKg: Record<string, number> = {};
+  const saturationKg: Record<string, number | null> = {};
+  const waterKg = ctx.waterId ? kg[ctx.waterId] : 0;
+  for (const id of ctx.ids) {
+    solidKg[id] = 0;
+    const c = ctx.comps.get(id)!;
+    if (!(kg[id] > 0) || c.kind === 'solvent') continue;
+    if (c.kind === 'aqueous-solute') {
+      const max = c.aqueous!.maxWtPct;
+      const cap = waterKg > 0 ? (waterKg * max) / (100 - max) : 0;
+      saturationKg[id] = cap;
+      solidKg[id] = Math.max(0, kg[id] - cap);
+      if (solidKg[id] > 0) method(methods, `solubility of ${c.name}`, 'saturation wt % in the water present; insoluble in organic solvents (assumed)', 'aqueous-media library (maxWtPct)');
+      continue;
+    }
+    const s = solubilityIn(ctx, id, kg, T_K, warnings, methods);
+    if (!s) {
+      saturationKg[id] = null;
+      continue;
+    }
+    saturationKg[id] = s.capacityKg;
+    solidKg[id] = Math.max(0, kg[id] - s.capacityKg);
+  }
+  return { solidKg, saturationKg };
+}
+
+export function crystallisation(inputs: Record<string, Stream | undefined>, params: ParamsOf<'crystallisation'>, ctx: EvalContext, step: RouteStep): StepOutput {
+  const feed = inputs.feed!;
+  const result = newResult(step, { hours: 0, basis: COMMON_PRACTICE_BASIS });
+  const W = result.warnings;
+  const M = result.methods;
+  const mix: Record<string, number> = { ...feed.kg };
+  const pid = ctx.productId;
+  const distillate = emptyStream(ctx, 'liquid', VOLUME_REFERENCE_K);
+  let T_end: number;
+  let T_start = feed.temperatureK;
+  let hours = COMMON_PRACTICE_HOURS.crystallisationAge;
+  const mode = params.mode;
+  let peak = streamVolume(ctx, mix, feed.temperatureK);
+  if (mode.kind === 'cooling') {
+    T_start = cToK(ctx.num(mode.startC, ...RANGES.temperatureC));
+    T_end = cToK(ctx.num(mode.endC, ...RANGES.temperatureC));
+    if (T_end > T_start) warn(W, 'warning', 'not-cooling', 'The end temperature is above the start temperature.');
+    hours += Math.abs(T_start - T_end) / COMMON_PRACTICE_HOURS.coolingKPerHour;
+  } else if (mode.kind === 'antisolvent') {
+    T_end = cToK(ctx.num(mode.temperatureC, ...RANGES.temperatureC));
+    T_start = T_end;
+    const c = ctx.comps.get(mode.antisolventId)!;
+    if (c.kind !== 'solvent') throw new StepError('params.mode.antisolventId', 'The antisolvent must be a solvent component.');
+    const V = volumeToM3(ctx, mode.volume);
+    const kg = solventKgFromVolume(ctx, mode.antisolventId, V, T_end);
+    mix[mode.antisolventId] += kg;
+    result.addedKg[mode.antisolventId] = kg;
+    result.addedVolumeM3 = V;
+    hours += COMMON_PRACTICE_HOURS.antisolventAddition;
+    peak = streamVolume(ctx, mix, T_end);
+  } else {
+    const P = ctx.num(mode.pressureMbar, ...RANGES.pressureMbar) * 100;
+    const st = newDistilState(ctx, feed, Math.max(feed.temperatureK, 300), null);
+    distilLeg(ctx, st, volumeToM3(ctx, mode.targetVolume), { kind: 'pressure', P_Pa: P }, INCREMENTS_PER_LEG, W, M);
+    for (const id of ctx.ids) {
+      mix[id] = st.pot[id];
+      distillate.kg[id] = st.distillate[id];
+    }
+    T_end = st.lastT_K;
+    T_start = st.maxT_K || T_end;
+    hours += COMMON_PRACTICE_HOURS.distillationSetup + (st.distillateM3 * 1000) / Math.max(1e-9, COMMON_PRACTICE_HOURS.distillateVolumesPerHour * peak * 1000);
+    result.details.profile = st.profile;
+  }
+  finishStream(ctx, distillate);
+
+  // Seeds: solid product charged with the feed.
+  let seedKg = 0;
+  if (params.seeded && pid && params.seedWtPct !== undefined) {
+    seedKg = (ctx.num(params.seedWtPct, 0, 20) / 100) * feed.kg[pid];
+    mix[pid] += seedKg;
+    result.addedKg[pid] = (result.addedKg[pid] ?? 0) + seedKg;
+  }
+
+  // Dissolved at the start?
+  if (pid && mode.kind === 'cooling' && feed.kg[pid] > 0 && !ctx.ids.some((id) => feed.solidKg[id] > 0)) {
+    const start = precipitate(ctx, feed.kg, T_start, [], []);
+    if (start.solidKg[pid] > 1e-6 * feed.kg[pid]) warn(W, 'warning', 'not-dissolved-at-start', `${ctx.comps.get(pid)!.name} is not fully dissolved at the start temperature (${(T_start - 273.15).toFixed(0)} °C): ${((100 * start.solidKg[pid]) / feed.kg[pid]).toFixed(1)} % undissolved; heat higher or add solvent for a clean crystallisation.`);
+  }
+
+  const end = precipitate(ctx, mix, T_end, W, M);
+  const slurry = emptyStream(ctx, 'slurry', T_end);
+  for (const id of ctx.ids) {
+    slurry.kg[id] = mix[id];
+    slurry.solidKg[id] = Math.min(mix[id], end.solidKg[id]);
+  }
+  finishStream(ctx, slurry);
+  peak = Math.max(peak, slurry.volumeM3);
+
+  const details: Record<string, unknown> = { ...result.details, mode: mode.kind, seeded: params.seeded, seedKg, endTemperatureC: T_end - 273.15, startTemperatureC: T_start - 273.15 };
+  const saturation: Record<string, number | null> = {};
+  for (const id of ctx.ids) if (end.saturationKg[id] !== undefined) saturation[id] = end.saturationKg[id];
+  details.saturationKg = saturation;
+  if (pid && mix[pid] > 0) {
+    const cp = ctx.comps.get(pid)!.compound!;
+    const yieldFrac = slurry.solidKg[pid] / mix[pid];
+    result.summary['yield %'] = round(100 * yieldFrac, 2);
+    details.yieldPct = 100 * yieldFrac;
+    if (cp.meltingPointC !== undefined && Math.max(T_start, T_end) - 273.15 > cp.meltingPointC - 10) {
+      W.push({ severity: 'warning', code: 'oiling-out', message: `The crystallisation runs within 10 K of the product's melting point (${cp.meltingPointC} °C): it may separate as an oil.` });
+    }
+    const sat = end.saturationKg[pid];
+    if (!params.seeded && sat && sat > 0 && mix[pid] / sat > 2) {
+      W.push({ severity: 'advisory', code: 'unseeded', message: `Unseeded, with the product ${(mix[pid] / sat).toFixed(1)}× its end-point solubility: uncontrolled nucleation or oiling out is likely (common practice: seed within the metastable zone).` });
+    }
+    if (mode.kind === 'cooling') {
+      const curve: Array<{ endC: number; yieldPct: number }> = [];
+      const t0 = T_start;
+      for (let k = 0; k <= 5; k++) {
+        const T = t0 + ((T_end - t0) * k) / 5;
+        const p = precipitate(ctx, mix, T, [], []);
+        curve.push({ endC: round(T - 273.15, 2), yieldPct: round((100 * p.solidKg[pid]) / mix[pid], 3) });
+      }
+      details.yieldVsEndTemperature = curve;
+    }
+  } else if (pid) {
+    warn(W, 'info', 'no-product', 'No product reaches this crystallisation.');
+  }
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (id !== pid && c.kind === 'compound' && end.solidKg[id] > 0) {
+      W.push({ severity: 'warning', code: 'co-precipitation', message: `${c.name} exceeds its solubility at the end point: ${((100 * end.solidKg[id]) / mix[id]).toFixed(1)} % of it comes out with the product.` });
+    }
+    if (c.kind === 'compound' && end.saturationKg[id] === null && mix[id] > 0) {
+      warn(W, 'warning', 'no-solubility-data', `${c.name}: no solubility data; assumed to stay dissolved.`);
+    }
+  }
+  result.peakVolumeM3 = peak;
+  result.duration = { hours, basis: `${COMMON_PRACTICE_BASIS}: cooling 10 K/h, 2 h age` };
+  result.details = details;
+  commonCautions(ctx, mix, Math.max(T_start, T_end), W);
+  return { outputs: { slurry, distillate }, result };
+}

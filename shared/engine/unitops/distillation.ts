@@ -1,0 +1,288 @@
+/**
+ * Distillation from a batch still: concentration to a target volume,
+ * put-and-take solvent swap, constant-volume solvent swap; at a set pressure
+ * or at a set pot temperature (the pressure follows the pot liquid).
+ *
+ * Model: Rayleigh equation (rayleigh.ts) with the vapour from modified
+ * Raoult's law and UNIFAC activity coefficients (thermo/vle.ts). While the
+ * pot liquid splits into two liquid phases (water with toluene, ethyl
+ * acetate, 2-MeTHF ...) the vapour is that of the heterogeneous bubble point,
+ * so azeotropic removal of water comes out of the equilibrium itself.
+ * Solutes (compounds and aqueous solutes) are non-volatile and are left out
+ * of the activity coefficients (dilute-solution assumption; boiling-point
+ * elevation by concentrated solutes is not modelled).
+ *
+ * Put-and-take: distil to the target volume, then `cycles` times: add the new
+ * solvent, distil back to the target. Constant volume: the new solvent is fed
+ * as fast as distillate is taken, holding the starting volume; integrated as
+ * 12 small add-and-distil increments. Volumes are at 20 °C.
+ *
+ * Units: volumes [m³] inside, reported in L; T [K] inside, reported in °C;
+ * P [Pa] inside, reported in mbar.
+ */
+import type { ParamsOf, RouteStep } from '../../schemas/route';
+import { RANGES } from '../../schemas/route';
+import { bubblePoint, bubblePressure, heterogeneousBubblePoint, liquidLiquidSplit } from '../thermo/vle';
+import type { EvalContext } from '../route/context';
+import { commonCautions, emptyStream, finishStream, method, cToK, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import { StepError } from '../route/errors';
+import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
+import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
+import { solventVle } from './equilibria';
+import { rayleighToVolume, type PotVle } from './rayleigh';
+import { solubilityIn } from './solubility-model';
+
+/** Reference temperature of reported and target volumes [K]. */
+export const VOLUME_REFERENCE_K = 293.15;
+/** Rayleigh increments per distillation leg (accuracy vs speed; see docs/performance.md). */
+export const INCREMENTS_PER_LEG = 8;
+
+export type DistillationCondition = { kind: 'pressure'; P_Pa: number } | { kind: 'pot-temperature'; T_K: number };
+
+export interface ProfilePoint {
+  distillateL: number;
+  potVolumeL: number;
+  potTemperatureC: number;
+  pressureMbar: number;
+  newSolventAddedL: number;
+  /** Original solvents as wt % of all solvents in the pot. */
+  originalSolventWtPct: number;
+}
+
+export interface DistilState {
+  pot: Record<string, number>;
+  distillate: Record<string, number>;
+  profile: ProfilePoint[];
+  newSolventAddedM3: number;
+  distillateM3: number;
+  originalSolventIds: string[];
+  lastT_K: number;
+  maxT_K: number;
+  minVolumeM3: number;
+  maxVolumeM3: number;
+}
+
+const MBAR = 100;
+
+function originalWtPct(ctx: EvalContext, st: DistilState): number {
+  let orig = 0;
+  let all = 0;
+  for (const id of ctx.ids) {
+    if (ctx.comps.get(id)!.kind !== 'solvent') continue;
+    all += st.pot[id];
+    if (st.originalSolventIds.includes(id)) orig += st.pot[id];
+  }
+  return all > 0 ? (100 * orig) / all : 0;
+}
+
+/**
+ * Distil the pot in `st` to `targetM3` (volume at 20 °C) by the Rayleigh
+ * equation with the UNIFAC VLE; updates st (pot, distillate, profile).
+ */
+export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, cond: DistillationCondition, increments: number, warnings: EngineWarning[], methods: MethodUsed[]) {
+  const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && st.pot[id] > 0);
+  if (vol.length === 0) {
+    warn(warnings, 'warning', 'nothing-to-distil', 'No volatile solvent is left in the pot.');
+    return;
+  }
+  let fixed = 0;
+  for (const id of ctx.ids) if (!vol.includes(id) && st.pot[id] > 0) fixed += st.pot[id] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K);
+  const M = vol.map((id) => ctx.comps.get(id)!.molarMassKgMol);
+  const moles = Float64Array.from(vol.map((id, i) => st.pot[id] / M[i]));
+  const mv = Float64Array.from(vol.map((id, i) => M[i] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K)));
+  let sys;
+  try {
+    sys = solventVle(ctx, vol).sys;
+  } catch (e) {
+    throw new StepError('params', `No VLE model for the pot solvents: ${(e as Error).message}`);
+  }
+  const x = new Array<number>(vol.length);
+  const norm = (m: Float64Array) => {
+    let t = 0;
+    for (let i = 0; i < m.length; i++) t += m[i];
+    for (let i = 0; i < m.length; i++) x[i] = m[i] / t;
+    return x;
+  };
+  // Two liquid phases at the start of the leg? Then the heterogeneous bubble point is used until the split disappears.
+  let hetero = vol.length > 1 && liquidLiquidSplit(sys, norm(moles), Math.min(st.lastT_K, 373.15)).split;
+  const vleWarnings = new Set<string>();
+  const potVle: PotVle = (m) => {
+    const xs = norm(m);
+    if (cond.kind === 'pressure') {
+      if (hetero) {
+        const r = heterogeneousBubblePoint(sys, xs, cond.P_Pa);
+        r.warnings.forEach((w) => vleWarnings.add(w));
+        if (r.liquidPhases === 1) hetero = false;
+        return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
+      }
+      const r = bubblePoint(sys, xs, cond.P_Pa, { T0_K: st.lastT_K });
+      r.warnings.forEach((w) => vleWarnings.add(w));
+      st.lastT_K = r.T_K;
+      return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
+    }
+    if (hetero) {
+      // Pressure at which the heterogeneous bubble point equals the set pot temperature (secant on ln P).
+      let P1 = bubblePressure(sys, xs, cond.T_K).P_Pa;
+      let r1 = heterogeneousBubblePoint(sys, xs, P1);
+      if (r1.liquidPhases === 1) {
+        hetero = false;
+      } else {
+        let P0 = P1 * 1.2;
+        let r0 = heterogeneousBubblePoint(sys, xs, P0);
+        for (let k = 0; k < 8 && Math.abs(r1.T_K - cond.T_K) > 0.01; k++) {
+          const slope = (r1.T_K - r0.T_K) / (Math.log(P1) - Math.log(P0));
+          const lnP = Math.log(P1) + (cond.T_K - r1.T_K) / (slope || 1e-9);
+          P0 = P1;
+          r0 = r1;
+          P1 = Math.exp(lnP);
+          r1 = heterogeneousBubblePoint(sys, xs, P1);
+        }
+        return { T_K: cond.T_K, P_Pa: P1, y: r1.y };
+      }
+    }
+    const r = bubblePressure(sys, xs, cond.T_K);
+    r.warnings.forEach((w) => vleWarnings.add(w));
+    return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
+  };
+  method(methods, 'distillation', 'Rayleigh equation, Heun integration, modified Raoult with UNIFAC; heterogeneous bubble point while two liquids are present', 'Rayleigh, Phil. Mag. 1902, 4, 521; UNIFAC: Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352; Antoine constants from the solvent library');
+  const r = rayleighToVolume(moles, mv, fixed, targetM3, potVle, increments);
+  for (const w of vleWarnings) warn(warnings, 'info', 'vle', w);
+  if (r.exhausted) warn(warnings, 'warning', 'target-below-solids', 'The volatile solvents ran out before the target volume: the pot is at dryness (the non-volatile contents exceed the target volume).');
+  vol.forEach((id, i) => {
+    const removed = Math.min(st.pot[id], r.distilled[i] * M[i]);
+    st.pot[id] -= removed;
+    st.distillate[id] += removed;
+  });
+  const base = st.distillateM3;
+  for (const p of r.profile.slice(1)) {
+    st.maxT_K = Math.max(st.maxT_K, p.T_K);
+    st.minVolumeM3 = Math.min(st.minVolumeM3, p.volume);
+    st.lastT_K = p.T_K;
+    st.profile.push({
+      distillateL: round((base + p.distilled) * 1000, 4),
+      potVolumeL: round(p.volume * 1000, 4),
+      potTemperatureC: round(p.T_K - 273.15, 3),
+      pressureMbar: round(p.P_Pa / MBAR, 2),
+      newSolventAddedL: round(st.newSolventAddedM3 * 1000, 4),
+      originalSolventWtPct: NaN,
+    });
+  }
+  if (r.profile.length > 0) {
+    st.lastT_K = r.profile[r.profile.length - 1].T_K;
+    st.maxT_K = Math.max(st.maxT_K, r.profile[0].T_K);
+  }
+  st.distillateM3 = base + (r.profile.length ? r.profile[r.profile.length - 1].distilled : 0);
+  const last = st.profile[st.profile.length - 1];
+  if (last) last.originalSolventWtPct = round(originalWtPct(ctx, st), 4);
+}
+
+/** Warn when a compound in the pot exceeds its solubility at the end of a leg (crash-out or oiling). */
+export function solubilityCrossingCheck(ctx: EvalContext, pot: Record<string, number>, T_K: number, potVolumeL: number, warnings: EngineWarning[], methods: MethodUsed[]) {
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.kind !== 'compound' || !(pot[id] > 0)) continue;
+    const s = solubilityIn(ctx, id, pot, T_K, warnings, methods);
+    if (s && pot[id] > s.capacityKg) {
+      warn(warnings, 'warning', 'solubility-crossed', `${c.name} exceeds its solubility (${(s.capacityKg).toPrecision(3)} kg dissolvable, ${pot[id].toPrecision(3)} kg present) at ${potVolumeL.toFixed(2)} L and ${(T_K - 273.15).toFixed(0)} °C: it may crash out or oil out on the walls during the concentration.`);
+    }
+  }
+}
+
+export function newDistilState(ctx: EvalContext, feed: Stream, T_K: number, newSolventId: string | null): DistilState {
+  const pot = { ...feed.kg };
+  const distillate: Record<string, number> = {};
+  for (const id of ctx.ids) distillate[id] = 0;
+  const v = streamVolume(ctx, pot, VOLUME_REFERENCE_K);
+  return {
+    pot, distillate, profile: [], newSolventAddedM3: 0, distillateM3: 0,
+    originalSolventIds: ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && id !== newSolventId && feed.kg[id] > 0),
+    lastT_K: T_K, maxT_K: 0, minVolumeM3: v, maxVolumeM3: v,
+  };
+}
+
+export function distillation(inputs: Record<string, Stream | undefined>, params: ParamsOf<'distillation'>, ctx: EvalContext, step: RouteStep): StepOutput {
+  const feed = inputs.feed!;
+  const result = newResult(step, { hours: 0, basis: COMMON_PRACTICE_BASIS });
+  const W = result.warnings;
+  const Ms = result.methods;
+  const cond: DistillationCondition = params.condition.kind === 'pressure'
+    ? { kind: 'pressure', P_Pa: ctx.num(params.condition.pressureMbar, ...RANGES.pressureMbar) * MBAR }
+    : { kind: 'pot-temperature', T_K: cToK(ctx.num(params.condition.potTemperatureC, ...RANGES.temperatureC)) };
+  const mode = params.mode;
+  const newId = mode.kind === 'concentrate' ? null : mode.addSolventId;
+  if (newId && ctx.comps.get(newId)!.kind !== 'solvent') throw new StepError('params.mode.addSolventId', 'The added solvent must be a solvent component.');
+  const st = newDistilState(ctx, feed, Math.max(feed.temperatureK, 300), newId);
+  const startVolume = st.maxVolumeM3;
+  const add = (m3: number) => {
+    const kg = solventKgFromVolume(ctx, newId!, m3, VOLUME_REFERENCE_K);
+    st.pot[newId!] += kg;
+    result.addedKg[newId!] = (result.addedKg[newId!] ?? 0) + kg;
+    result.addedVolumeM3 += m3;
+    st.newSolventAddedM3 += m3;
+    st.maxVolumeM3 = Math.max(st.maxVolumeM3, streamVolume(ctx, st.pot, VOLUME_REFERENCE_K));
+  };
+  if (mode.kind === 'concentrate') {
+    const target = volumeToM3(ctx, mode.targetVolume);
+    if (target >= startVolume) warn(W, 'info', 'nothing-distilled', 'The target volume is not below the feed volume: nothing is distilled.');
+    distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
+  } else if (mode.kind === 'put-and-take') {
+    const target = volumeToM3(ctx, mode.targetVolume);
+    const addV = volumeToM3(ctx, mode.addVolume);
+    distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
+    for (let c = 0; c < mode.cycles; c++) {
+      add(addV);
+      distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
+    }
+  } else {
+    const addV = volumeToM3(ctx, mode.addVolume);
+    const K = 12;
+    for (let k = 0; k < K; k++) {
+      add(addV / K);
+      distilLeg(ctx, st, startVolume, cond, 2, W, Ms);
+    }
+  }
+  const potVol = streamVolume(ctx, st.pot, VOLUME_REFERENCE_K);
+  const T_end = st.lastT_K;
+  solubilityCrossingCheck(ctx, st.pot, T_end, potVol * 1000, W, Ms);
+
+  // Peroxide formers concentrated to low volume (common practice: below a quarter of the starting volume, or dryness).
+  const solventsInPot = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent');
+  const solventTotal = solventsInPot.reduce((a, id) => a + feed.kg[id], 0);
+  for (const id of solventsInPot) {
+    const s = ctx.comps.get(id)!.solvent!;
+    if (s.peroxideFormer.value && (feed.kg[id] + (result.addedKg[id] ?? 0)) > 0.05 * solventTotal && st.minVolumeM3 < 0.25 * st.maxVolumeM3) {
+      W.push({ severity: 'hazard', code: 'peroxide-concentration', message: `${s.name} is a peroxide former and is concentrated to ${((100 * st.minVolumeM3) / st.maxVolumeM3).toFixed(0)} % of its volume: test for peroxides before distilling (common practice) and never distil to dryness.` });
+    }
+  }
+  const pot = emptyStream(ctx, 'liquid', T_end);
+  const dist = emptyStream(ctx, 'liquid', VOLUME_REFERENCE_K);
+  for (const id of ctx.ids) {
+    pot.kg[id] = st.pot[id];
+    pot.solidKg[id] = Math.min(feed.solidKg[id], st.pot[id]);
+    dist.kg[id] = st.distillate[id];
+  }
+  finishStream(ctx, pot);
+  finishStream(ctx, dist);
+  commonCautions(ctx, feed.kg, st.maxT_K || T_end, W, { transfer: false });
+  result.peakVolumeM3 = Math.max(st.maxVolumeM3, streamVolume(ctx, feed.kg, VOLUME_REFERENCE_K));
+  const rateLh = COMMON_PRACTICE_HOURS.distillateVolumesPerHour * result.peakVolumeM3 * 1000;
+  result.duration = { hours: COMMON_PRACTICE_HOURS.distillationSetup + (rateLh > 0 ? (st.distillateM3 * 1000) / rateLh : 0), basis: `${COMMON_PRACTICE_BASIS}: distillate rate 0.1 working volumes per hour` };
+  const residual = originalWtPct(ctx, st);
+  const distTot = Object.values(st.distillate).reduce((a, b) => a + b, 0);
+  result.summary = {
+    'distillate L': round(st.distillateM3 * 1000, 3),
+    'pot volume L': round(potVol * 1000, 3),
+    'final pot °C': round(T_end - 273.15, 1),
+    ...(newId ? { 'original solvent wt%': round(residual, 3), 'new solvent L': round(st.newSolventAddedM3 * 1000, 3) } : {}),
+  };
+  result.details = {
+    mode: mode.kind,
+    condition: params.condition,
+    profile: st.profile,
+    distillateComposition: Object.fromEntries(ctx.ids.filter((id) => st.distillate[id] > 0).map((id) => [id, round((100 * st.distillate[id]) / distTot, 4)])),
+    residualOriginalSolventWtPct: residual,
+    newSolventAddedL: st.newSolventAddedM3 * 1000,
+    maxPotTemperatureC: st.maxT_K - 273.15,
+  };
+  return { outputs: { pot, distillate: dist }, result };
+}

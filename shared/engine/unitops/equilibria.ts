@@ -1,0 +1,324 @@
+/**
+ * Phase equilibria the step models share: the VLE system of the volatile
+ * solvents, the split of a liquid into organic and aqueous phases (mutual
+ * solubility), the pH of an aqueous phase, and distribution ratios of solutes.
+ */
+import { createVleSystem, liquidLiquidSplit, type VleComponent, type VleSystem } from '../thermo/vle';
+import { distributionRatio, type PKa } from '../properties/partition';
+import type { EvalContext } from '../route/context';
+import { warn, method } from '../route/context';
+import type { EngineWarning, MethodUsed } from '../route/types';
+
+// ---------------------------------------------------------------- VLE ----
+
+export interface SolventVle {
+  ids: string[];
+  sys: VleSystem;
+}
+
+/** The solvent components of the route, in id order (volatile liquids). */
+export function solventIds(ctx: EvalContext): string[] {
+  return ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent');
+}
+
+const vleCache = new Map<string, VleSystem>();
+
+/**
+ * VLE system (UNIFAC + Antoine, modified Raoult) over the given solvent
+ * components. Solutes are treated as non-volatile and left out of the
+ * activity coefficients (dilute-solution assumption, stated in the methods).
+ * Systems are memoised by their solvent list (pure: same inputs, same system).
+ */
+export function solventVle(ctx: EvalContext, ids: string[]): SolventVle {
+  const key = ids.map((id) => ctx.comps.get(id)!.solvent!.id).join('|');
+  let sys = vleCache.get(key);
+  if (!sys) {
+    const comps: VleComponent[] = ids.map((id) => {
+      const s = ctx.comps.get(id)!.solvent!;
+      return {
+        name: s.name,
+        antoine: s.antoine,
+        unifac: s.unifac.value,
+        TbK: s.boilingPointC.value + 273.15,
+        dHvapJmol: s.enthalpyVapKJmol ? s.enthalpyVapKJmol.value * 1000 : undefined,
+      };
+    });
+    sys = createVleSystem(comps);
+    if (vleCache.size > 200) vleCache.clear();
+    vleCache.set(key, sys);
+  }
+  return { ids, sys };
+}
+
+// ------------------------------------------------------ phase split ----
+
+export interface LiquidSplit {
+  split: boolean;
+  /** Solvent kg in each phase (non-solvent components are not included). */
+  organicKg: Record<string, number>;
+  aqueousKg: Record<string, number>;
+  method: string;
+}
+
+/** Fraction of the organic solvents below which the minor ones follow the main solvent in the data-based split. */
+const MINOR_SOLVENT_FRACTION = 0.02;
+
+/**
+ * Split the solvents of a liquid into two phases at T.
+ *
+ * 1. Water + one partly miscible organic solvent (others < 2 % of the organic
+ *    solvents, which follow it) with published mutual solubilities: the two
+ *    phases are mutually saturated at the tabulated compositions
+ *    (solvent-in-water w_s, water-in-solvent w_w) and the lever rule
+ *      W = A(1 − w_s) + G w_w,   O = A w_s + G (1 − w_w)
+ *    gives the phase masses A (aqueous) and G (organic).
+ * 2. Otherwise: UNIFAC liquid–liquid flash (liquidLiquidSplit).
+ * No split → everything in one phase, with a warning.
+ * The mutual-solubility data are at 20–25 °C and without salt; salting-out
+ * of the organic solvent by brine is not modelled.
+ */
+export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: number, warnings: EngineWarning[], methods: MethodUsed[]): LiquidSplit {
+  const ids = solventIds(ctx).filter((id) => kg[id] > 0);
+  const organicKg: Record<string, number> = {};
+  const aqueousKg: Record<string, number> = {};
+  for (const id of ids) {
+    organicKg[id] = 0;
+    aqueousKg[id] = 0;
+  }
+  const w = ctx.waterId;
+  const single = (toAqueous: boolean, why: string): LiquidSplit => {
+    for (const id of ids) (toAqueous ? aqueousKg : organicKg)[id] = kg[id];
+    return { split: false, organicKg, aqueousKg, method: why };
+  };
+  if (ids.length === 0) return single(false, 'no solvent');
+  const organics = ids.filter((id) => id !== w);
+  if (!w || !(kg[w] > 0)) {
+    if (organics.length < 2) return single(false, 'one liquid');
+  } else if (organics.length === 0) {
+    return single(true, 'water only');
+  }
+  const orgTotal = organics.reduce((a, id) => a + kg[id], 0);
+  const main = organics.reduce((m, id) => (kg[id] > kg[m] ? id : m), organics[0]);
+  const mainRec = ctx.comps.get(main)!.solvent!;
+  const minor = orgTotal > 0 ? (orgTotal - kg[main]) / orgTotal : 0;
+
+  if (w && kg[w] > 0 && mainRec.waterMutualSolubility && minor < MINOR_SOLVENT_FRACTION) {
+    const ms = mainRec.waterMutualSolubility.value;
+    const ws = ms.solventInWaterWtPct / 100;
+    const ww = ms.waterInSolventWtPct / 100;
+    const W = kg[w];
+    const O = orgTotal;
+    const det = (1 - ws) * (1 - ww) - ws * ww;
+    const A = (W * (1 - ww) - O * ww) / det;
+    const G = (O * (1 - ws) - W * ws) / det;
+    method(methods, 'phase split', 'mutual solubility (lever rule on tabulated mutual solubilities)', `${mainRec.name}–water: ${mainRec.waterMutualSolubility.source.ref} (${mainRec.waterMutualSolubility.source.status})`);
+    if (Math.abs(T_K - 273.15 - ms.temperatureC) > 15) {
+      warn(warnings, 'info', 'mutual-solubility-temperature', `Mutual solubility of ${mainRec.name} and water is tabulated at ${ms.temperatureC} °C and used at ${(T_K - 273.15).toFixed(0)} °C.`);
+    }
+    if (A <= 0) {
+      warn(warnings, 'warning', 'no-phase-split', `All the water dissolves in ${mainRec.name}: one liquid phase, nothing separates.`);
+      return single(false, 'mutual solubility: single organic phase');
+    }
+    if (G <= 0) {
+      warn(warnings, 'warning', 'no-phase-split', `All the ${mainRec.name} dissolves in the water: one liquid phase, nothing separates.`);
+      return single(true, 'mutual solubility: single aqueous phase');
+    }
+    const solventInAq = A * ws;
+    for (const id of organics) {
+      const share = O > 0 ? kg[id] / O : 0;
+      aqueousKg[id] = Math.min(kg[id], solventInAq * share);
+      organicKg[id] = kg[id] - aqueousKg[id];
+    }
+    aqueousKg[w] = Math.min(W, A * (1 - ws));
+    organicKg[w] = W - aqueousKg[w];
+    if (minor > 0) warn(warnings, 'info', 'minor-solvents-follow-main', `Minor solvents (${(minor * 100).toFixed(1)} % of the organic solvents) are split in the same proportion as ${mainRec.name}.`);
+    return { split: true, organicKg, aqueousKg, method: 'mutual solubility' };
+  }
+
+  // UNIFAC liquid–liquid equilibrium.
+  try {
+    const vle = solventVle(ctx, ids);
+    const mol = ids.map((id) => kg[id] / ctx.comps.get(id)!.molarMassKgMol);
+    const N = mol.reduce((a, b) => a + b, 0);
+    const z = mol.map((m) => m / N);
+    const r = liquidLiquidSplit(vle.sys, z, T_K);
+    for (const m of r.warnings) warn(warnings, 'info', 'lle', m);
+    method(methods, 'phase split', 'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)', 'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352');
+    if (!r.split) {
+      warn(warnings, 'warning', 'no-phase-split', 'The liquids are miscible at this composition and temperature (UNIFAC): one liquid phase, nothing separates.');
+      const aq = w ? (kg[w] ?? 0) / totalOf(kg, ids) > 0.5 : false;
+      return single(aq, 'UNIFAC: single phase');
+    }
+    const beta = r.phaseFraction;
+    const [x0, x1] = r.phases;
+    // Phase with more water (or, without water, the more polar one = phases[1] by convention of the richer-in-first).
+    const wi = w ? ids.indexOf(w) : -1;
+    const aqIndex = wi >= 0 ? (x1[wi] > x0[wi] ? 1 : 0) : 1;
+    const xa = aqIndex === 1 ? x1 : x0;
+    const fa = aqIndex === 1 ? beta : 1 - beta;
+    ids.forEach((id, i) => {
+      const nA = Math.min(mol[i], fa * N * xa[i]);
+      aqueousKg[id] = nA * ctx.comps.get(id)!.molarMassKgMol;
+      if (aqueousKg[id] > kg[id]) aqueousKg[id] = kg[id];
+      organicKg[id] = kg[id] - aqueousKg[id];
+    });
+    warn(warnings, 'info', 'unifac-mutual-solubility', 'Mutual solubility of the liquids from UNIFAC (VLE parameters): the minor component of each phase can be off by a factor of 2–10.');
+    return { split: true, organicKg, aqueousKg, method: 'UNIFAC LLE' };
+  } catch (e) {
+    warn(warnings, 'warning', 'no-lle-model', `No liquid–liquid model for these solvents (${(e as Error).message}); the organic solvents are kept in the organic phase and the water in the aqueous phase.`);
+    for (const id of ids) (id === w ? aqueousKg : organicKg)[id] = kg[id];
+    return { split: true, organicKg, aqueousKg, method: 'assumed immiscible' };
+  }
+}
+
+function totalOf(kg: Record<string, number>, ids: string[]) {
+  return ids.reduce((a, id) => a + kg[id], 0);
+}
+
+// ---------------------------------------------------------------- pH ----
+
+/** Ion product of water at 25 °C, pKw = 14.00 (common textbook value). */
+const PKW = 14.0;
+
+function meanAcidCharge(pKas: readonly number[], pH: number): number {
+  // Polyprotic acid H_nA: fractions α_k ∝ Π_{j≤k} Ka_j / [H]^k; mean negative charge Σ k α_k.
+  const H = 10 ** -pH;
+  let term = 1;
+  let sum = 1;
+  let charge = 0;
+  for (let k = 0; k < pKas.length; k++) {
+    term *= 10 ** -pKas[k] / H;
+    sum += term;
+    charge += (k + 1) * term;
+  }
+  return charge / sum;
+}
+
+export interface PHInput {
+  /** Aqueous phase volume [m³]. */
+  volumeM3: number;
+  /** kg of each component in the aqueous phase. */
+  kg: Record<string, number>;
+  /** Include compounds with pKa values (ph-adjust), not only aqueous solutes (washes). */
+  includeCompounds: boolean;
+  /** Extra strong acid (+) or base (−) [mol], for titration. */
+  extraStrongAcidMol?: number;
+}
+
+/**
+ * pH of an aqueous phase by charge balance,
+ *   [H⁺] + Σ cations = [OH⁻] + Σ anions,
+ * with strong acids and bases fully dissociated, weak acids and the carbonate
+ * type salts by their pKa values (Henderson–Hasselbalch fractions; a salt of
+ * kind 'amphoteric-salt' carries one Na⁺, 'weak-base' one Na⁺ per pKa),
+ * activity coefficients = 1 (ideal dilute solution), pKw = 14 at 25 °C.
+ * Solved by bisection on pH in [−2, 16] to 1e−6.
+ * Returns null when there is no water.
+ */
+export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
+  const VL = input.volumeM3 * 1000;
+  if (!(VL > 1e-12)) return null;
+  const strongAcid: number[] = [];
+  const cations: number[] = [];
+  const acidSystems: Array<{ c: number; pKa: number[] }> = [];
+  const bases: Array<{ c: number; pKa: number }> = [];
+  for (const id of ctx.ids) {
+    const m = input.kg[id];
+    if (!(m > 0)) continue;
+    const comp = ctx.comps.get(id)!;
+    const c = m / comp.molarMassKgMol / VL;
+    if (comp.aqueous) {
+      const ab = comp.aqueous.acidBase;
+      switch (ab.kind) {
+        case 'strong-acid': strongAcid.push(c * ab.protons); break;
+        case 'strong-base': cations.push(c * ab.hydroxides); break;
+        case 'weak-acid': acidSystems.push({ c, pKa: ab.pKa.value }); break;
+        case 'amphoteric-salt': cations.push(c); acidSystems.push({ c, pKa: ab.pKa.value }); break;
+        case 'weak-base': cations.push(c * ab.pKa.value.length); acidSystems.push({ c, pKa: ab.pKa.value }); break;
+        case 'neutral': break;
+      }
+    } else if (input.includeCompounds && comp.compound?.pKa) {
+      for (const p of comp.compound.pKa) {
+        if (p.type === 'acid') acidSystems.push({ c, pKa: [p.value] });
+        else bases.push({ c, pKa: p.value });
+      }
+    }
+  }
+  const extra = (input.extraStrongAcidMol ?? 0) / VL;
+  const sA = strongAcid.reduce((a, b) => a + b, 0) + Math.max(extra, 0);
+  const sB = cations.reduce((a, b) => a + b, 0) + Math.max(-extra, 0);
+  const f = (pH: number) => {
+    const H = 10 ** -pH;
+    const OH = 10 ** (pH - PKW);
+    let pos = H + sB;
+    let neg = OH + sA;
+    for (const a of acidSystems) neg += a.c * meanAcidCharge(a.pKa, pH);
+    for (const b of bases) pos += b.c / (1 + 10 ** (pH - b.pKa));
+    return pos - neg;
+  };
+  let lo = -2;
+  let hi = 16;
+  for (let i = 0; i < 60; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (f(mid) > 0) lo = mid;
+    else hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
+// ---------------------------------------------------- distribution ----
+
+export interface SoluteDistribution {
+  D: number;
+  method: string;
+  source: string;
+}
+
+/**
+ * Distribution ratio D = c_org / c_aq (molar concentrations, all species) of
+ * a route compound between the organic phase (its main solvent) and an
+ * aqueous phase of the given pH and salt, via properties/partition.
+ */
+export function compoundDistribution(
+  ctx: EvalContext,
+  compoundId: string,
+  organicSolventComponentId: string,
+  pH: number | null,
+  salt: { ks_Lmol: number; molar: number } | undefined,
+  T_K: number,
+  warnings: EngineWarning[],
+): SoluteDistribution {
+  const c = ctx.comps.get(compoundId)!.compound!;
+  const solvent = ctx.comps.get(organicSolventComponentId)!.solvent!;
+  const water = ctx.waterId ? ctx.comps.get(ctx.waterId)!.solvent : undefined;
+  const groups = c.unifac ? Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v])) : undefined;
+  try {
+    const r = distributionRatio({
+      solute: {
+        logP: c.logP,
+        pKa: c.pKa as PKa[] | undefined,
+        unifac: groups,
+        measured: c.partition?.map((p) => ({ organicSolventId: p.organicSolventId, pH: p.pH, temperatureC: p.temperatureC, D: p.D, source: p.source })),
+      },
+      organic: {
+        solventId: solvent.id,
+        groups: [solvent.unifac.value],
+        moleFractions: [1],
+        molarVolumeM3mol: (solvent.molarMassGmol.value / solvent.density.value.gPerMl) * 1e-6,
+      },
+      aqueous: {
+        pH: pH ?? undefined,
+        salt,
+        groups: water ? [water.unifac.value] : undefined,
+        moleFractions: water ? [1] : undefined,
+        molarVolumeM3mol: water ? (water.molarMassGmol.value / water.density.value.gPerMl) * 1e-6 : undefined,
+      },
+      T_K,
+    });
+    for (const m of r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
+    return { D: r.D, method: r.method, source: `${r.source.ref} (${r.source.status})` };
+  } catch (e) {
+    warn(warnings, 'warning', 'no-distribution-data', `${c.name}: no measured D, logP or UNIFAC groups (${(e as Error).message}); assumed to stay in the organic phase.`);
+    return { D: Infinity, method: 'assumed (no data)', source: 'none' };
+  }
+}

@@ -1,0 +1,383 @@
+/**
+ * Wash and extraction: a feed liquid contacted with an added liquid (an
+ * aqueous medium or a solvent) in one or more stages; the two liquid phases
+ * are separated. The same model serves 'wash' (impurities are meant to leave
+ * the kept phase) and 'extraction' (the product is meant to move).
+ *
+ * Per stage the solvents split by their mutual solubility (equilibria.ts:
+ * tabulated mutual solubilities, else UNIFAC LLE); each compound distributes
+ * by its distribution ratio D = c_org/c_aq (measured, UNIFAC or Collander,
+ * with Henderson–Hasselbalch pH dependence and Setschenow salting-out);
+ * aqueous solutes (salts, acids, bases) stay in the aqueous phase.
+ *
+ * Cross-current (fresh added liquid each stage), fraction of a solute left in
+ * the feed phase after n equal stages (Harris, Quantitative Chemical
+ * Analysis, section on extraction):   q^n,  q = V_f / (V_f + K V_a)
+ * where K is the distribution ratio toward the added phase. Simulated stage
+ * by stage, so the mutual saturation and pH are recomputed every stage.
+ *
+ * Counter-current (N stages, total added liquid), Kremser equation with the
+ * extraction factor E = K V_a/V_f toward the added phase:
+ *   fraction left in the feed phase φ = (E − 1)/(E^{N+1} − 1),  φ = 1/(N+1) at E = 1
+ * (Kremser 1930; Seader, Henley & Roper, Separation Process Principles,
+ * chapter on liquid–liquid extraction). Phase volumes and pH from a single
+ * equilibrium stage of feed + all added liquid (constant-flow assumption).
+ *
+ * Units: volumes [m³], masses [kg], T [K], D [-] (molar concentration
+ * ratio). Validity: dilute solutes (phase volumes from the solvents only),
+ * 0–80 °C; organic–organic washes keep the solutes in the feed phase.
+ */
+import type { ParamsOf, RouteStep } from '../../schemas/route';
+import { RANGES } from '../../schemas/route';
+import type { EvalContext } from '../route/context';
+import { aqueousMediumKg, commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import { StepError } from '../route/errors';
+import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
+import { addTo, COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
+import { aqueousPH, compoundDistribution, splitLiquid } from './equilibria';
+import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA } from '../units';
+
+/** Density difference below which phases separate poorly, g/mL (issue 4; common practice). */
+export const MIN_DENSITY_DIFFERENCE_GML = 0.03;
+
+export interface PhaseState {
+  organic: Record<string, number>;
+  aqueous: Record<string, number>;
+  split: boolean;
+  pH: number | null;
+  volumes: { organicM3: number; aqueousM3: number };
+  D: Record<string, { D: number; method: string; source: string }>;
+}
+
+/** Main organic solvent (largest mass) of a set of solvent masses. */
+function mainOrganic(ctx: EvalContext, kg: Record<string, number>): string | null {
+  let best: string | null = null;
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.kind !== 'solvent' || c.isWater || !(kg[id] > 0)) continue;
+    if (best === null || kg[id] > kg[best]) best = id;
+  }
+  return best;
+}
+
+function solventsOnly(ctx: EvalContext, kg: Record<string, number>): Record<string, number> {
+  const o: Record<string, number> = {};
+  for (const id of ctx.ids) if (ctx.comps.get(id)!.kind === 'solvent') o[id] = kg[id];
+  return o;
+}
+
+/**
+ * One equilibrium contact of a liquid mixture: solvent split, pH of the
+ * aqueous phase, and the distribution ratio of each compound.
+ */
+export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: number, pHOverride: number | undefined, warnings: EngineWarning[], methods: MethodUsed[]): PhaseState & { toOrganic: Record<string, number> } {
+  const sp = splitLiquid(ctx, solventsOnly(ctx, mix), T_K, warnings, methods);
+  const organic: Record<string, number> = {};
+  const aqueous: Record<string, number> = {};
+  for (const id of ctx.ids) {
+    organic[id] = sp.organicKg[id] ?? 0;
+    aqueous[id] = sp.aqueousKg[id] ?? 0;
+  }
+  const Vo = streamVolume(ctx, organic, T_K);
+  const Va = streamVolume(ctx, aqueous, T_K);
+  const hasAq = Va > 0 && ctx.waterId !== null && aqueous[ctx.waterId] > 0;
+  // Aqueous solutes go to the aqueous phase (or stay with the only liquid).
+  let saltNum = 0;
+  let saltMolar = 0;
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.kind !== 'aqueous-solute') continue;
+    if (hasAq) aqueous[id] = mix[id];
+    else organic[id] = mix[id];
+    if (hasAq && c.aqueous!.setschenowKs && mix[id] > 0) {
+      const molar = mix[id] / c.molarMassKgMol / (Va * 1000);
+      saltNum += c.aqueous!.setschenowKs.value * molar;
+      saltMolar += molar;
+    }
+  }
+  const pH = hasAq ? (pHOverride ?? aqueousPH(ctx, { volumeM3: Va, kg: aqueous, includeCompounds: false })) : null;
+  if (hasAq) method(methods, 'aqueous pH', pHOverride !== undefined ? 'stated pH of the medium' : 'charge balance of the aqueous solutes (ideal solution, pKw 14)', pHOverride !== undefined ? 'route document' : 'pKa values from the aqueous-media library');
+  const salt = saltMolar > 0 ? { ks_Lmol: saltNum / saltMolar, molar: saltMolar } : undefined;
+  const main = mainOrganic(ctx, organic);
+  const D: PhaseState['D'] = {};
+  const toOrganic: Record<string, number> = {};
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.kind !== 'compound') continue;
+    if (!(mix[id] > 0)) {
+      toOrganic[id] = 1;
+      continue;
+    }
+    if (!sp.split || !hasAq || Vo <= 0 || main === null) {
+      toOrganic[id] = Vo > 0 || !hasAq ? 1 : 0;
+      if (sp.split && !hasAq) warn(warnings, 'info', 'organic-organic', 'Organic–organic phase split: solutes are kept in the feed phase (no distribution model for two organic liquids).');
+      continue;
+    }
+    const d = compoundDistribution(ctx, id, main, pH, salt, T_K, warnings);
+    D[id] = d;
+    method(methods, `distribution of ${c.name}`, d.method, d.source);
+    toOrganic[id] = d.D === Infinity ? 1 : (d.D * Vo) / (d.D * Vo + Va);
+  }
+  return { organic, aqueous, split: sp.split, pH, volumes: { organicM3: Vo, aqueousM3: Va }, D, toOrganic };
+}
+
+export function washOrExtraction(inputs: Record<string, Stream | undefined>, params: ParamsOf<'wash'>, ctx: EvalContext, step: RouteStep): StepOutput {
+  const feed = inputs.feed!;
+  const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
+  const N = params.stages;
+  const result = newResult(step, { hours: N * COMMON_PRACTICE_HOURS.washStage, basis: COMMON_PRACTICE_BASIS });
+  const W = result.warnings;
+  const M = result.methods;
+  const liq = params.addedLiquid;
+
+  // The added liquid, per stage (cross-current) or in total (counter-current).
+  const V = volumeToM3(ctx, liq.volume);
+  const added: Record<string, number> = {};
+  let pHOverride: number | undefined;
+  if (liq.kind === 'aqueous') {
+    if (!ctx.waterId) throw new StepError('params.addedLiquid', 'An aqueous medium needs the solvent "water" among the route components.');
+    const wt = ctx.num(liq.wtPct, 0, 60);
+    const { waterKg, soluteKg } = aqueousMediumKg(ctx, liq.soluteId, wt, V, T);
+    added[ctx.waterId] = waterKg;
+    added[liq.soluteId] = soluteKg;
+    pHOverride = liq.pH;
+  } else {
+    added[liq.solventId] = solventKgFromVolume(ctx, liq.solventId, V, T);
+  }
+  const perStage = params.mode === 'cross-current';
+  for (const id in added) result.addedKg[id] = perStage ? added[id] * N : added[id];
+  result.addedVolumeM3 = perStage ? V * N : V;
+
+  const feedPhaseIsOrganic = liq.kind === 'aqueous' || (liq.kind === 'solvent' && ctx.comps.get(liq.solventId)!.isWater);
+  if (liq.kind === 'solvent' && !feedPhaseIsOrganic) {
+    // An organic solvent added: the feed is aqueous unless it holds no water.
+    const fw = ctx.waterId ? feed.kg[ctx.waterId] : 0;
+    if (!(fw > 0)) W.push({ severity: 'warning', code: 'no-aqueous-feed', message: 'An organic solvent is added to a feed without water: an organic–organic split is assumed.' });
+  }
+  if (ctx.ids.some((id) => feed.solidKg[id] > 0)) warn(W, 'warning', 'solids-in-wash', 'The feed carries solids: they stay with the feed phase and may gather at the interface (rag layer).');
+
+  const organicOut = emptyStream(ctx, 'organic', T);
+  const aqueousOut = emptyStream(ctx, 'aqueous', T);
+  const perComponent: Record<string, { D: number | null; method: string; source: string; toOrganicPct: number }> = {};
+  let last: ReturnType<typeof equilibrate> | null = null;
+  let peak = 0;
+
+  // Which phase carries on: the feed phase is the one the feed's main liquid lands in.
+  const feedIsAqueous = !feedPhaseIsOrganic && !!ctx.waterId && feed.kg[ctx.waterId] > 0;
+
+  if (perStage) {
+    method(M, 'stages', 'cross-current: fresh liquid each stage, equilibrium stages simulated in turn', 'Harris, Quantitative Chemical Analysis (fraction remaining q^n)');
+    let carry: Record<string, number> = { ...feed.kg };
+    const collected: Record<string, number> = {};
+    for (const id of ctx.ids) collected[id] = 0;
+    for (let s = 0; s < N; s++) {
+      const mix: Record<string, number> = { ...carry };
+      for (const id in added) mix[id] += added[id];
+      peak = Math.max(peak, streamVolume(ctx, mix, T));
+      const eq = equilibrate(ctx, mix, T, pHOverride, W, M);
+      last = eq;
+      const next: Record<string, number> = {};
+      for (const id of ctx.ids) {
+        const c = ctx.comps.get(id)!;
+        let toFeedPhase: number;
+        if (c.kind === 'compound') {
+          const fo = eq.toOrganic[id];
+          const org = mix[id] * fo;
+          toFeedPhase = feedIsAqueous ? mix[id] - org : org;
+        } else {
+          toFeedPhase = feedIsAqueous ? eq.aqueous[id] : eq.organic[id];
+        }
+        if (toFeedPhase > mix[id]) toFeedPhase = mix[id];
+        if (!(toFeedPhase > 0)) toFeedPhase = 0;
+        next[id] = toFeedPhase;
+        collected[id] += mix[id] - toFeedPhase;
+      }
+      carry = next;
+    }
+    const feedOut = feedIsAqueous ? aqueousOut : organicOut;
+    const addOut = feedIsAqueous ? organicOut : aqueousOut;
+    for (const id of ctx.ids) {
+      feedOut.kg[id] = carry[id];
+      addOut.kg[id] = collected[id];
+    }
+  } else {
+    method(M, 'stages', 'counter-current cascade, Kremser equation φ = (E − 1)/(E^{N+1} − 1)', 'Kremser, Natl. Petrol. News 1930, 22(21), 42; Seader, Henley & Roper, Separation Process Principles, liquid–liquid extraction chapter');
+    const mix: Record<string, number> = { ...feed.kg };
+    for (const id in added) mix[id] += added[id];
+    peak = streamVolume(ctx, mix, T);
+    const eq = equilibrate(ctx, mix, T, pHOverride, W, M);
+    last = eq;
+    const Vo = eq.volumes.organicM3;
+    const Va = eq.volumes.aqueousM3;
+    for (const id of ctx.ids) {
+      const c = ctx.comps.get(id)!;
+      if (c.kind === 'compound' && eq.D[id]) {
+        const D = eq.D[id].D;
+        // Extraction factor toward the added phase.
+        const E = feedIsAqueous ? (D * Vo) / Va : Va / (D * Vo);
+        const phi = kremserFractionRemaining(E, N);
+        const inFeedPhase = mix[id] * phi;
+        (feedIsAqueous ? aqueousOut : organicOut).kg[id] = inFeedPhase;
+        (feedIsAqueous ? organicOut : aqueousOut).kg[id] = mix[id] - inFeedPhase;
+      } else if (c.kind === 'compound') {
+        const org = mix[id] * eq.toOrganic[id];
+        organicOut.kg[id] = org;
+        aqueousOut.kg[id] = mix[id] - org;
+      } else {
+        aqueousOut.kg[id] = Math.min(mix[id], eq.aqueous[id]);
+        organicOut.kg[id] = mix[id] - aqueousOut.kg[id];
+      }
+    }
+  }
+  // Solids stay with the feed phase.
+  const feedOut = feedIsAqueous ? aqueousOut : organicOut;
+  for (const id of ctx.ids) {
+    const sol = feed.solidKg[id];
+    if (sol > 0) feedOut.solidKg[id] = Math.min(sol, feedOut.kg[id]);
+  }
+  finishStream(ctx, organicOut);
+  finishStream(ctx, aqueousOut);
+
+  // Per-component recovery.
+  const totalIn: Record<string, number> = {};
+  for (const id of ctx.ids) totalIn[id] = feed.kg[id] + (result.addedKg[id] ?? 0);
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.kind !== 'compound' || !(totalIn[id] > 0)) continue;
+    const d = last?.D[id];
+    perComponent[id] = { D: d ? d.D : null, method: d?.method ?? 'not distributed (single phase or no data)', source: d?.source ?? '', toOrganicPct: round((100 * organicOut.kg[id]) / totalIn[id], 3) };
+  }
+
+  // Densities and top phase.
+  const mO = Object.values(organicOut.kg).reduce((a, b) => a + b, 0);
+  const mA = Object.values(aqueousOut.kg).reduce((a, b) => a + b, 0);
+  const rhoO = organicOut.volumeM3 > 0 ? mO / organicOut.volumeM3 / 1000 : null;
+  const rhoA = aqueousOut.volumeM3 > 0 ? mA / aqueousOut.volumeM3 / 1000 : null;
+  let top: 'organic' | 'aqueous' | null = null;
+  if (rhoO !== null && rhoA !== null) {
+    top = rhoO < rhoA ? 'organic' : 'aqueous';
+    const dRho = Math.abs(rhoO - rhoA);
+    if (dRho < MIN_DENSITY_DIFFERENCE_GML) {
+      W.push({ severity: 'warning', code: 'near-equal-densities', message: `Phase densities differ by only ${dRho.toFixed(3)} g/mL (organic ${rhoO.toFixed(3)}, aqueous ${rhoA.toFixed(3)}): slow or no separation, risk of phase inversion; consider brine or more solvent.` });
+    }
+    method(M, 'top phase', 'phase densities by ideal mixing of component volumes', 'densities from the solvent and aqueous-media library');
+  }
+
+  // Emulsion-prone conditions (common practice).
+  const pH = last?.pH ?? null;
+  if (last?.split) emulsionChecks(ctx, organicOut, pH, rhoO, rhoA, W);
+  // Gas evolution: carbonate or bicarbonate meeting acid.
+  if (liq.kind === 'aqueous') gasEvolutionCheck(ctx, feed, liq.soluteId, result.addedKg[liq.soluteId] ?? 0, T, W);
+  buffercapacityCheck(ctx, feed, result.addedKg, pH, W);
+
+  // Product loss to the discarded phase.
+  const pid = ctx.productId;
+  if (pid && totalIn[pid] > 0) {
+    const kept = params.keep === 'organic' ? organicOut.kg[pid] : aqueousOut.kg[pid];
+    const recovery = kept / totalIn[pid];
+    result.summary['product recovery %'] = round(recovery * 100, 2);
+    if (step.kind === 'wash' && recovery < 0.98) W.push({ severity: 'warning', code: 'product-loss', message: `${(100 * (1 - recovery)).toFixed(1)} % of the product leaves with the ${params.keep === 'organic' ? 'aqueous' : 'organic'} phase.` });
+    if (step.kind === 'extraction' && recovery < 0.9) W.push({ severity: 'warning', code: 'incomplete-extraction', message: `Only ${(100 * recovery).toFixed(1)} % of the product reaches the ${params.keep} phase; consider more stages or volume.` });
+  }
+  if (!last?.split) result.summary['phases'] = 'one';
+  result.summary['pH'] = pH === null ? null : round(pH, 2);
+  result.summary['top'] = top;
+  result.peakVolumeM3 = peak;
+  commonCautions(ctx, organicOut.kg, T, W, { transfer: true });
+  result.details = {
+    mode: params.mode,
+    stages: N,
+    aqueousPH: pH,
+    topPhase: top,
+    densitiesGmL: { organic: rhoO, aqueous: rhoA },
+    phaseVolumesL: { organic: organicOut.volumeM3 * 1000, aqueous: aqueousOut.volumeM3 * 1000 },
+    components: perComponent,
+  };
+  return { outputs: { organic: organicOut, aqueous: aqueousOut }, result };
+}
+
+/**
+ * Kremser equation: fraction of a solute left in the feed phase after N
+ * ideal counter-current stages with extraction factor E toward the solvent.
+ *   φ = (E − 1)/(E^{N+1} − 1),   φ = 1/(N + 1) for E = 1.
+ * E [-] ≥ 0, N [-] ≥ 1 integer. Returns φ in [0, 1].
+ */
+export function kremserFractionRemaining(E: number, N: number): number {
+  if (!(E >= 0)) return 1;
+  if (E === Infinity) return 0;
+  if (Math.abs(E - 1) < 1e-9) return 1 / (N + 1);
+  if (E > 1) {
+    // Divide through by E^{N+1} to avoid overflow.
+    const inv = 1 / E;
+    return (inv ** N - inv ** (N + 1)) / (1 - inv ** (N + 1));
+  }
+  return (1 - E) / (1 - E ** (N + 1));
+}
+
+/** Cross-current: fraction left after n stages, q^n with q = 1/(1 + E) (Harris). */
+export function crossCurrentFractionRemaining(E: number, n: number): number {
+  return (1 / (1 + E)) ** n;
+}
+
+function emulsionChecks(ctx: EvalContext, organic: Stream, pH: number | null, rhoO: number | null, rhoA: number | null, W: EngineWarning[]) {
+  const reasons: string[] = [];
+  if (rhoO !== null && rhoA !== null && Math.abs(rhoO - rhoA) < MIN_DENSITY_DIFFERENCE_GML) reasons.push('very small density difference');
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.solvent && c.solvent.id === 'dichloromethane' && organic.kg[id] > 0 && pH !== null && pH > 9) reasons.push('dichloromethane against a basic aqueous phase');
+    const cp = c.compound;
+    if (cp && pH !== null && cp.logP !== undefined && cp.logP >= 2 && cp.pKa?.some((p) => Math.abs(p.value - pH) < 1)) {
+      reasons.push(`${cp.name} is partly ionised at pH ${pH.toFixed(1)} with logP ${cp.logP} (surfactant-like)`);
+    }
+  }
+  if (reasons.length) W.push({ severity: 'advisory', code: 'emulsion-risk', message: `Emulsion-prone conditions (common practice): ${reasons.join('; ')}. Allow settling time; brine or filtration through a filter aid may help.` });
+}
+
+function gasEvolutionCheck(ctx: EvalContext, feed: Stream, soluteId: string, soluteKg: number, T_K: number, W: EngineWarning[]) {
+  const a = ctx.comps.get(soluteId)!.aqueous!;
+  if (!/CO3/.test(a.formula)) return;
+  const nCarb = soluteKg / ctx.comps.get(soluteId)!.molarMassKgMol;
+  let nAcid = 0;
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    const m = feed.kg[id];
+    if (!(m > 0)) continue;
+    const n = m / c.molarMassKgMol;
+    if (c.aqueous?.acidBase.kind === 'strong-acid') nAcid += n * c.aqueous.acidBase.protons;
+    if (c.aqueous?.acidBase.kind === 'weak-acid') nAcid += n;
+    if (c.compound?.pKa?.some((p) => p.type === 'acid' && p.value < 6.4)) nAcid += n;
+  }
+  const nCO2 = Math.min(nAcid, nCarb * (a.formula.startsWith('Na2') ? 1 : 1));
+  if (nCO2 <= 0) return;
+  const litres = ((nCO2 * R_J_PER_MOL_K * T_K) / STANDARD_ATMOSPHERE_PA) * 1000;
+  W.push({ severity: 'hazard', code: 'gas-evolution', message: `${a.name} neutralises acid in the feed: up to ${nCO2.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is released. Add slowly with venting and stirring; never in a closed vessel; watch for foaming.` });
+}
+
+function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<string, number>, pH: number | null, W: EngineWarning[]) {
+  if (pH === null) return;
+  let acidCap = 0;
+  let baseCap = 0;
+  for (const id in added) {
+    const c = ctx.comps.get(id)!;
+    if (!c.aqueous) continue;
+    const n = added[id] / c.molarMassKgMol;
+    const ab = c.aqueous.acidBase;
+    if (ab.kind === 'strong-acid') acidCap += n * ab.protons;
+    else if (ab.kind === 'weak-acid') acidCap += n * ab.pKa.value.length;
+    else if (ab.kind === 'strong-base') baseCap += n * ab.hydroxides;
+    else if (ab.kind === 'weak-base' || ab.kind === 'amphoteric-salt') baseCap += n;
+  }
+  let needAcid = 0;
+  let needBase = 0;
+  for (const id of ctx.ids) {
+    const cp = ctx.comps.get(id)!.compound;
+    if (!cp?.pKa || !(feed.kg[id] > 0)) continue;
+    const n = feed.kg[id] / (cp.molarMassGmol / 1000);
+    for (const p of cp.pKa) {
+      if (p.type === 'base' && p.value > pH) needAcid += n;
+      if (p.type === 'acid' && p.value < pH) needBase += n;
+    }
+  }
+  if (acidCap > 0 && needAcid > 0.5 * acidCap) W.push({ severity: 'warning', code: 'buffer-capacity', message: `Bases in the feed (${needAcid.toFixed(2)} mol) use more than half the acid in the wash (${acidCap.toFixed(2)} mol): the pH will rise above the estimate of the medium alone; use more acid.` });
+  if (baseCap > 0 && needBase > 0.5 * baseCap) W.push({ severity: 'warning', code: 'buffer-capacity', message: `Acids in the feed (${needBase.toFixed(2)} mol) use more than half the base in the wash (${baseCap.toFixed(2)} mol): the pH will fall below the estimate of the medium alone; use more base.` });
+}
