@@ -84,7 +84,7 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     enthalpyVapKJmol: sv(36.28, read('crc-enthalpy-vaporization')),
     hansen: sv({ d: 15.8, p: 3.7, h: 6.3 }, read('hansen-hspipy')),
     molarVolumeCm3mol: sv(131.6, derived('derived-quantity', 'molar mass / density at 20 °C')),
-    unifac: sv({ 1: 2, 2: 3, 21: 1 }, ASSIGNED),
+    unifac: sv({ 1: 1, 2: 3, 21: 1 }, ASSIGNED),
     waterMutualSolubility: sv(
       { solventInWaterWtPct: 0.7, waterInSolventWtPct: 1.2, temperatureC: 20 },
       recalled('mutual-solubility-memory'),
@@ -169,7 +169,7 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     enthalpyVapKJmol: sv(34.49, read('crc-enthalpy-vaporization')),
     hansen: sv({ d: 15.3, p: 6.1, h: 4.1 }, read('hansen-hspipy')),
     molarVolumeCm3mol: sv(125.8, derived('derived-quantity', 'molar mass / density at 25 °C')),
-    unifac: sv({ 1: 3, 2: 1, 3: 1, 18: 1 }, ASSIGNED),
+    unifac: sv({ 1: 2, 2: 1, 3: 1, 18: 1 }, ASSIGNED),
     waterMutualSolubility: sv(
       { solventInWaterWtPct: 1.9, waterInSolventWtPct: 1.9, temperatureC: 20 },
       recalled('encyclopedia-mibk', 'solvent in water 1.91 g/100 mL read on a public encyclopedia page; water in MIBK recalled'),
