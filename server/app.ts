@@ -15,12 +15,15 @@ import { csrfProtection } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { API_PREFIX, buildOpenApiDocument } from './openapi';
 import { accountRouter } from './routes/account';
+import { calcRouter } from './routes/calc';
+import { compoundsRouter } from './routes/compounds';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
 import { membersRouter } from './routes/members';
 import { outboxRouter } from './routes/outbox';
 import { passwordResetsRouter } from './routes/password-resets';
 import { SESSION_COOKIE, sessionRouter } from './routes/session';
+import { solventsRouter } from './routes/solvents';
 import { tokensRouter } from './routes/tokens';
 
 export const JSON_BODY_LIMIT = '1mb';
@@ -103,6 +106,9 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(passwordResetsRouter(config));
   api.use(tokensRouter());
   api.use(outboxRouter(config));
+  api.use(solventsRouter());
+  api.use(calcRouter());
+  api.use(compoundsRouter());
   api.get('/openapi.json', (_req, res) => {
     res.json(buildOpenApiDocument());
   });

@@ -1,18 +1,24 @@
 import type { Sequelize } from 'sequelize';
 import { ApiToken } from './api-token';
 import { AuditEvent } from './audit-event';
+import { Compound } from './compound';
 import { Invitation } from './invitation';
 import { Membership } from './membership';
 import { OutboxMessage } from './outbox-message';
 import { PasswordReset } from './password-reset';
+import { EvaluationJob } from './job';
+import { Project } from './project';
+import { Route } from './route';
+import { RouteDraft } from './route-draft';
 import { User } from './user';
 import { Workspace } from './workspace';
 
-export { ApiToken, AuditEvent, Invitation, Membership, OutboxMessage, PasswordReset, User, Workspace };
+export { ApiToken, AuditEvent, Compound, Invitation, Membership, OutboxMessage, PasswordReset, User, Workspace };
+export { EvaluationJob, Project, Route, RouteDraft };
 
 /** Binds every model to the connection and declares the associations. */
 export function initModels(sequelize: Sequelize): void {
-  for (const model of [User, Workspace, Membership, Invitation, PasswordReset, ApiToken, OutboxMessage, AuditEvent]) {
+  for (const model of [User, Workspace, Membership, Invitation, PasswordReset, ApiToken, OutboxMessage, AuditEvent, Compound, Project, Route, RouteDraft, EvaluationJob]) {
     model.initModel(sequelize);
   }
   User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
@@ -25,4 +31,15 @@ export function initModels(sequelize: Sequelize): void {
   ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   AuditEvent.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
   AuditEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+  Compound.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
+  Compound.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Project.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
+  Route.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
+  Route.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+  Project.hasMany(Route, { foreignKey: 'projectId', as: 'routes' });
+  Route.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
+  Route.hasOne(RouteDraft, { foreignKey: 'routeId', as: 'draft' });
+  RouteDraft.belongsTo(Route, { foreignKey: 'routeId', as: 'route' });
+  RouteDraft.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
+  EvaluationJob.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 }

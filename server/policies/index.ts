@@ -9,7 +9,9 @@
  */
 import { forbidden, notFound } from '../errors';
 import { accountRules } from './account';
+import { compoundRules } from './compound';
 import { outboxRules } from './outbox';
+import { routeRules } from './route';
 import { tokenRules } from './token';
 import type { Actor, Rule } from './types';
 import { workspaceRules } from './workspace';
@@ -21,6 +23,8 @@ export const rules = {
   ...tokenRules,
   ...accountRules,
   ...outboxRules,
+  ...routeRules,
+  ...compoundRules,
 } as const;
 
 type Rules = typeof rules;

@@ -6,3 +6,6 @@ export * from './password-reset';
 export * from './tokens';
 export * from './outbox';
 export * from './health';
+export * from './solvents';
+export * from './calc';
+export * from './compounds';

@@ -1,0 +1,380 @@
+/**
+ * Workspace compounds: parse the structure, assign UNIFAC groups, estimate
+ * what the chemist did not enter (logP from UNIFAC, Hansen parameters by
+ * group contributions) and mark it estimated, store, audit.
+ */
+import type { Transaction } from 'sequelize';
+import { assignUnifacGroups, estimateHansen, parseStructure, type StructureInput } from '@shared/chemistry';
+import type { Compound as CompoundPayload, CompoundCreateInput, CompoundUpdateInput, StructurePreview, UnifacGroupCounts } from '@shared/schemas/compounds';
+import { compoundSnapshotSchema, type CompoundSnapshot } from '@shared/schemas/route';
+import type { ApiErrorDetail } from '@shared/schemas/errors';
+import { solventById, type UnifacGroups } from '@shared/engine/data';
+import { UNIFAC_SUBGROUPS } from '@shared/engine/data/unifac';
+import { EngineError } from '@shared/engine/errors';
+import { estimateLogPow } from '@shared/engine/properties';
+import { notFound, validationFailed } from '../errors';
+import { Compound, User } from '../models';
+import { recordAudit } from './audit';
+import { findLibrarySolvent, subgroupRows, unprocessable } from './components';
+
+// ----- structure ------------------------------------------------------------
+
+/**
+ * Keeps only drawing elements and attributes in an SVG: no scripts, event
+ * handlers, links or foreign content. The client also shows it as an image,
+ * where scripts never run; this is the second line.
+ */
+export function sanitiseSvg(svg: string): string {
+  return svg
+    .replace(/<script[\s\S]*?<\/script\s*>/gi, '')
+    .replace(/<foreignObject[\s\S]*?<\/foreignObject\s*>/gi, '')
+    .replace(/<(iframe|object|embed|image|use|a)\b[\s\S]*?(\/>|<\/\1\s*>)/gi, '')
+    .replace(/\s(on\w+|href|xlink:href|src)\s*=\s*("[^"]*"|'[^']*'|[^\s>]+)/gi, '')
+    .replace(/javascript:/gi, '')
+    .replace(/url\s*\([^)]*\)/gi, 'none');
+}
+
+type Unifac = CompoundPayload['unifac'];
+
+interface DerivedStructure {
+  formula: string;
+  molarMassGmol: number;
+  canonicalSmiles: string;
+  svg: string;
+  librarySolventId: string | null;
+  automatic: { groups: UnifacGroupCounts; summary: Unifac['summary']; unassignedAtoms: Unifac['unassignedAtoms']; warnings: string[] };
+}
+
+const toCounts = (groups: UnifacGroups): UnifacGroupCounts => Object.fromEntries(Object.entries(groups).map(([k, v]) => [String(k), v]));
+const fromCounts = (groups: UnifacGroupCounts): UnifacGroups => Object.fromEntries(Object.entries(groups).map(([k, v]) => [Number(k), v]));
+
+function structureInput(smiles: string | null | undefined, molfile: string | null | undefined): StructureInput {
+  return smiles?.trim() ? { smiles: smiles.trim() } : { molfile: molfile ?? '' };
+}
+
+/** Parses the structure; 422 structure_unparsable with the parser's message naming the problem. */
+export function deriveStructure(input: StructureInput, path = 'smiles'): DerivedStructure {
+  const parsed = parseStructure(input);
+  if (!parsed.ok) throw unprocessable('structure_unparsable', parsed.error, [{ path, message: parsed.error }]);
+  const assignment = assignUnifacGroups(input);
+  const library = 'smiles' in input ? findLibrarySolvent(input.smiles, parsed.canonicalSmiles) : undefined;
+  return {
+    formula: parsed.formula,
+    molarMassGmol: parsed.molarMassGmol,
+    canonicalSmiles: parsed.canonicalSmiles,
+    svg: sanitiseSvg(parsed.svg),
+    librarySolventId: library?.id ?? null,
+    automatic: {
+      groups: toCounts(assignment.groups),
+      summary: assignment.summary.map((s) => ({ subgroup: s.subgroup, name: s.name, count: s.count })),
+      unassignedAtoms: assignment.unassignedAtoms,
+      warnings: assignment.warnings,
+    },
+  };
+}
+
+interface Estimates {
+  logP: { value: number; method: string; warnings: string[] } | null;
+  hansen: { d: number; p: number; h: number; method: string; warnings: string[] } | null;
+  notes: string[];
+}
+
+/** logP from UNIFAC (estimateLogPow) and Hansen parameters by Hoftyzer–Van Krevelen, where the groups allow. */
+function estimate(input: StructureInput, groups: UnifacGroupCounts, groupsComplete: boolean, want: { logP: boolean; hansen: boolean }): Estimates {
+  const out: Estimates = { logP: null, hansen: null, notes: [] };
+  if (want.logP) {
+    if (!groupsComplete) out.notes.push('logP not estimated: some atoms have no UNIFAC group. Edit the groups or enter a measured logP.');
+    else if (Object.keys(groups).length === 0) out.notes.push('logP not estimated: no UNIFAC groups.');
+    else {
+      try {
+        const r = estimateLogPow(fromCounts(groups));
+        out.logP = { value: r.logP, method: r.method, warnings: r.warnings };
+      } catch (error) {
+        if (!(error instanceof EngineError)) throw error;
+        out.notes.push(`logP not estimated: ${error.message}`);
+      }
+    }
+  }
+  if (want.hansen) {
+    const r = estimateHansen(input, { kind: 'fedors' });
+    if (r.ok) out.hansen = { ...r.params, method: `${r.method}; molar volume by ${r.molarVolumeBasis}`, warnings: r.warnings };
+    else out.notes.push(`Hansen parameters not estimated: ${r.reason}`);
+  }
+  return out;
+}
+
+/** POST /structures/preview: what the form shows while the chemist types. */
+export function previewStructure(input: StructureInput): StructurePreview {
+  const derived = deriveStructure(input, 'smiles' in input ? 'smiles' : 'molfile');
+  const complete = derived.automatic.unassignedAtoms.length === 0;
+  const estimates = estimate(input, derived.automatic.groups, complete, { logP: true, hansen: true });
+  return {
+    formula: derived.formula,
+    molarMassGmol: derived.molarMassGmol,
+    svg: derived.svg,
+    canonicalSmiles: derived.canonicalSmiles,
+    librarySolventId: derived.librarySolventId,
+    unifac: { ...derived.automatic, summary: withMainGroups(derived.automatic.groups) },
+    estimates,
+  };
+}
+
+function withMainGroups(groups: UnifacGroupCounts): Unifac['summary'] {
+  return subgroupRows(fromCounts(groups));
+}
+
+// ----- the record -----------------------------------------------------------
+
+/** Everything the chemist decides about a compound; the rest is derived from it. */
+interface CompoundState {
+  name: string;
+  role: CompoundPayload['role'];
+  smiles: string | null;
+  molfile: string | null;
+  pKa: CompoundPayload['pKa'];
+  logPMeasured: { value: number; method?: string } | null;
+  meltingPointC: number | null;
+  enthalpyFusionKJmol: number | null;
+  hansenEntered: { d: number; p: number; h: number } | null;
+  unifacEdited: UnifacGroupCounts | null;
+  solubility: CompoundPayload['solubility'];
+  partition: CompoundPayload['partition'];
+  notes: string;
+}
+
+function checkReferences(state: CompoundState): void {
+  const details: ApiErrorDetail[] = [];
+  state.solubility.forEach((p, i) => {
+    if (!solventById(p.solventId)) details.push({ path: `solubility.${i}.solventId`, message: `Unknown solvent "${p.solventId}": choose one from the solvent library.` });
+  });
+  state.partition.forEach((p, i) => {
+    const s = solventById(p.organicSolventId);
+    if (!s) details.push({ path: `partition.${i}.organicSolventId`, message: `Unknown solvent "${p.organicSolventId}": choose one from the solvent library.` });
+    else if (s.waterMiscibility === 'miscible') details.push({ path: `partition.${i}.organicSolventId`, message: `${s.name} is miscible with water: a partition needs a second phase.` });
+  });
+  for (const key of Object.keys(state.unifacEdited ?? {})) {
+    if (!UNIFAC_SUBGROUPS.has(Number(key))) details.push({ path: `unifacGroups.${key}`, message: `There is no UNIFAC subgroup ${key} in the parameter table.` });
+  }
+  if (details.length > 0) throw validationFailed(details);
+}
+
+type Attributes = Omit<CompoundPayload, 'id' | 'workspaceId' | 'createdBy' | 'createdAt' | 'updatedAt'>;
+
+function build(state: CompoundState): Attributes {
+  checkReferences(state);
+  const input = structureInput(state.smiles, state.molfile);
+  const derived = deriveStructure(input, 'smiles' in input ? 'smiles' : 'molfile');
+  const edited = state.unifacEdited && Object.keys(state.unifacEdited).length > 0 ? state.unifacEdited : null;
+  const groups = edited ?? derived.automatic.groups;
+  const complete = edited !== null || derived.automatic.unassignedAtoms.length === 0;
+  const estimates = estimate(input, groups, complete, { logP: !state.logPMeasured, hansen: !state.hansenEntered });
+  const unifacWarnings = edited ? ['Groups edited by hand; the automatic assignment is kept for comparison in the history.'] : derived.automatic.warnings;
+  return {
+    name: state.name,
+    role: state.role,
+    smiles: state.smiles?.trim() ? state.smiles.trim() : null,
+    molfile: state.smiles?.trim() ? null : state.molfile,
+    canonicalSmiles: derived.canonicalSmiles,
+    formula: derived.formula,
+    molarMassGmol: derived.molarMassGmol,
+    svg: derived.svg,
+    pKa: state.pKa,
+    logP: state.logPMeasured
+      ? { value: state.logPMeasured.value, source: 'measured', method: state.logPMeasured.method || 'measured (entered by the chemist)', warnings: [] }
+      : estimates.logP
+        ? { ...estimates.logP, source: 'estimated' }
+        : null,
+    meltingPointC: state.meltingPointC,
+    enthalpyFusionKJmol: state.enthalpyFusionKJmol,
+    hansen: state.hansenEntered
+      ? { ...state.hansenEntered, source: 'entered', method: 'entered by the chemist', warnings: [] }
+      : estimates.hansen
+        ? { ...estimates.hansen, source: 'estimated' }
+        : null,
+    unifac: {
+      groups,
+      source: edited ? 'edited' : 'assigned',
+      summary: withMainGroups(groups),
+      unassignedAtoms: edited ? [] : derived.automatic.unassignedAtoms,
+      warnings: unifacWarnings,
+    },
+    estimateNotes: estimates.notes,
+    solubility: state.solubility,
+    partition: state.partition,
+    notes: state.notes,
+  };
+}
+
+function stateFromCreate(input: CompoundCreateInput): CompoundState {
+  return {
+    name: input.name.trim(),
+    role: input.role,
+    smiles: input.smiles?.trim() || null,
+    molfile: input.molfile?.trim() ? input.molfile : null,
+    pKa: input.pKa ?? [],
+    logPMeasured: input.logP ?? null,
+    meltingPointC: input.meltingPointC ?? null,
+    enthalpyFusionKJmol: input.enthalpyFusionKJmol ?? null,
+    hansenEntered: input.hansen ?? null,
+    unifacEdited: input.unifacGroups ?? null,
+    solubility: input.solubility ?? [],
+    partition: input.partition ?? [],
+    notes: input.notes ?? '',
+  };
+}
+
+function stateFromRecord(c: Compound): CompoundState {
+  return {
+    name: c.name,
+    role: c.role,
+    smiles: c.smiles,
+    molfile: c.molfile,
+    pKa: c.pKa,
+    logPMeasured: c.logP?.source === 'measured' ? { value: c.logP.value, method: c.logP.method } : null,
+    meltingPointC: c.meltingPointC,
+    enthalpyFusionKJmol: c.enthalpyFusionKJmol,
+    hansenEntered: c.hansen?.source === 'entered' ? { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } : null,
+    unifacEdited: c.unifac.source === 'edited' ? c.unifac.groups : null,
+    solubility: c.solubility,
+    partition: c.partition,
+    notes: c.notes,
+  };
+}
+
+function applyPatch(state: CompoundState, patch: CompoundUpdateInput): CompoundState {
+  const next: CompoundState = { ...state };
+  if (patch.name !== undefined) next.name = patch.name.trim();
+  if (patch.role !== undefined) next.role = patch.role;
+  if (patch.smiles !== undefined || patch.molfile !== undefined) {
+    // A new structure replaces the old one, and a hand-edited group list made for the old one.
+    next.smiles = patch.smiles?.trim() || null;
+    next.molfile = patch.molfile?.trim() ? patch.molfile : null;
+    if (!next.smiles && !next.molfile) throw validationFailed([{ path: 'smiles', message: 'Enter a SMILES or paste a molfile.' }]);
+    if (patch.unifacGroups === undefined) next.unifacEdited = null;
+  }
+  if (patch.pKa !== undefined) next.pKa = patch.pKa;
+  if (patch.logP !== undefined) next.logPMeasured = patch.logP;
+  if (patch.meltingPointC !== undefined) next.meltingPointC = patch.meltingPointC;
+  if (patch.enthalpyFusionKJmol !== undefined) next.enthalpyFusionKJmol = patch.enthalpyFusionKJmol;
+  if (patch.hansen !== undefined) next.hansenEntered = patch.hansen;
+  if (patch.unifacGroups !== undefined) next.unifacEdited = patch.unifacGroups;
+  if (patch.solubility !== undefined) next.solubility = patch.solubility;
+  if (patch.partition !== undefined) next.partition = patch.partition;
+  if (patch.notes !== undefined) next.notes = patch.notes;
+  return next;
+}
+
+export function presentCompound(c: Compound): CompoundPayload {
+  return {
+    id: c.id,
+    workspaceId: c.workspaceId as string,
+    name: c.name,
+    role: c.role,
+    smiles: c.smiles,
+    molfile: c.molfile,
+    canonicalSmiles: c.canonicalSmiles,
+    formula: c.formula,
+    molarMassGmol: c.molarMassGmol,
+    svg: c.svg,
+    pKa: c.pKa,
+    logP: c.logP,
+    meltingPointC: c.meltingPointC,
+    enthalpyFusionKJmol: c.enthalpyFusionKJmol,
+    hansen: c.hansen,
+    unifac: c.unifac,
+    estimateNotes: c.estimateNotes,
+    solubility: c.solubility,
+    partition: c.partition,
+    notes: c.notes,
+    createdBy: c.createdBy ? { id: c.createdBy.id, name: c.createdBy.name } : null,
+    createdAt: c.createdAt.toISOString(),
+    updatedAt: c.updatedAt.toISOString(),
+  };
+}
+
+/** The audit trail keeps what the chemist and the server decided, not the drawing. */
+function auditView(c: Compound) {
+  const { svg: _svg, createdBy: _by, ...rest } = presentCompound(c);
+  return rest;
+}
+
+const includeCreator = [{ model: User, as: 'createdBy', required: false }];
+
+export async function listCompounds(workspaceId: string, transaction: Transaction | null): Promise<Compound[]> {
+  return Compound.findAll({ where: { workspaceId }, include: includeCreator, order: [['name', 'ASC']], transaction });
+}
+
+/** A compound of this workspace; another workspace's compound answers exactly like a missing one. */
+export async function loadCompound(workspaceId: string, compoundId: string, transaction: Transaction | null): Promise<Compound> {
+  const compound = await Compound.findOne({ where: { id: compoundId, workspaceId }, include: includeCreator, transaction });
+  if (!compound) throw notFound();
+  return compound;
+}
+
+export async function createCompound(
+  args: { workspaceId: string; actorId: string | null; input: CompoundCreateInput },
+  transaction: Transaction | null,
+): Promise<Compound> {
+  const attributes = build(stateFromCreate(args.input));
+  const created = await Compound.create({ ...attributes, workspaceId: args.workspaceId, createdById: args.actorId }, { transaction });
+  const compound = await loadCompound(args.workspaceId, created.id, transaction);
+  await recordAudit(
+    { workspaceId: args.workspaceId, actorId: args.actorId, action: 'compound.create', entityType: 'compound', entityId: compound.id, after: auditView(compound) },
+    transaction,
+  );
+  return compound;
+}
+
+export async function updateCompound(compound: Compound, patch: CompoundUpdateInput, actorId: string | null, transaction: Transaction | null): Promise<Compound> {
+  const before = auditView(compound);
+  const attributes = build(applyPatch(stateFromRecord(compound), patch));
+  await compound.update(attributes, { transaction });
+  const after = await loadCompound(compound.workspaceId as string, compound.id, transaction);
+  await recordAudit(
+    { workspaceId: compound.workspaceId as string, actorId, action: 'compound.update', entityType: 'compound', entityId: compound.id, before, after: auditView(after) },
+    transaction,
+  );
+  return after;
+}
+
+export async function deleteCompound(compound: Compound, actorId: string | null, transaction: Transaction | null): Promise<void> {
+  const before = auditView(compound);
+  await compound.destroy({ transaction });
+  await recordAudit(
+    { workspaceId: compound.workspaceId as string, actorId, action: 'compound.delete', entityType: 'compound', entityId: compound.id, before },
+    transaction,
+  );
+}
+
+/**
+ * The self-contained property snapshot a route document carries
+ * (compoundSnapshotSchema in shared/schemas/route.ts): the values the engine
+ * uses, measured or estimated, so a stored route evaluates the same later.
+ */
+export function toCompoundSnapshot(compound: Compound | CompoundPayload): CompoundSnapshot {
+  const c = compound instanceof Compound ? presentCompound(compound) : compound;
+  const groupsUsable = Object.keys(c.unifac.groups).length > 0 && c.unifac.unassignedAtoms.length === 0;
+  const methodNotes = [
+    c.logP ? `logP ${c.logP.source}` : null,
+    c.hansen ? `Hansen ${c.hansen.source}` : null,
+    `UNIFAC groups ${c.unifac.source}`,
+  ].filter(Boolean);
+  const snapshot: CompoundSnapshot = {
+    kind: 'compound',
+    id: c.id,
+    name: c.name.slice(0, 200),
+    role: c.role,
+    smiles: c.smiles ?? c.canonicalSmiles,
+    molarMassGmol: c.molarMassGmol,
+    ...(c.meltingPointC !== null ? { meltingPointC: c.meltingPointC } : {}),
+    ...(c.enthalpyFusionKJmol !== null ? { enthalpyFusionKJmol: c.enthalpyFusionKJmol } : {}),
+    ...(c.logP ? { logP: c.logP.value } : {}),
+    ...(c.pKa.length > 0 ? { pKa: c.pKa.map((p) => ({ value: p.value, type: p.type })) } : {}),
+    ...(groupsUsable ? { unifac: { ...c.unifac.groups } } : {}),
+    ...(c.hansen ? { hansen: { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } } : {}),
+    ...(c.solubility.length > 0 ? { solubility: c.solubility.map((p) => ({ ...p })) } : {}),
+    ...(c.partition.length > 0 ? { partition: c.partition.map((p) => ({ ...p })) } : {}),
+    note: [c.notes, methodNotes.join(', ')].filter(Boolean).join(' — ').slice(0, 500),
+  };
+  return compoundSnapshotSchema.parse(snapshot);
+}

@@ -1,0 +1,87 @@
+/**
+ * Solvent library payloads: GET /api/v1/solvents and GET /api/v1/solvents/:id.
+ * Every value comes with its source under `sources` (field → citation).
+ */
+import { z } from 'zod';
+
+export const GUIDE_CATEGORIES = ['recommended', 'problematic', 'hazardous', 'highly-hazardous'] as const;
+
+/** Where a value comes from: the bibliography id, its status, and the full citation where known. */
+export const valueSourceSchema = z.object({
+  ref: z.string(),
+  status: z.enum(['confirmed', 'unverified-memory', 'estimated', 'common-practice']),
+  note: z.string().optional(),
+  citation: z.string().optional(),
+  via: z.string().optional(),
+  url: z.string().optional(),
+});
+export type ValueSource = z.infer<typeof valueSourceSchema>;
+
+export const hansenTripleSchema = z.object({ d: z.number(), p: z.number(), h: z.number() });
+
+export const unifacGroupRowSchema = z.object({
+  subgroup: z.number().int(),
+  name: z.string(),
+  mainGroup: z.number().int().optional(),
+  mainGroupName: z.string().optional(),
+  count: z.number(),
+});
+export type UnifacGroupRow = z.infer<typeof unifacGroupRowSchema>;
+
+export const solventSummarySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  synonyms: z.array(z.string()),
+  smiles: z.string(),
+  cas: z.string(),
+  molarMassGmol: z.number(),
+  ich: z.object({ class: z.union([z.literal(1), z.literal(2), z.literal(3)]).nullable(), limitPpm: z.number().nullable() }),
+  boilingPointC: z.number(),
+  meltingPointC: z.number(),
+  densityGmL: z.number(),
+  /** Temperature at which densityGmL applies [°C]. */
+  densityTemperatureC: z.number(),
+  /** Closed-cup flash point; null where the liquid has none. */
+  flashPointC: z.number().nullable(),
+  hansen: hansenTripleSchema,
+  viscosityMPas25C: z.number(),
+  peroxideFormer: z.boolean(),
+  lowConductivity: z.boolean(),
+  guideCategory: z.enum(GUIDE_CATEGORIES),
+  waterMiscibility: z.enum(['miscible', 'partial']),
+  unifac: z.array(unifacGroupRowSchema),
+  sources: z.record(z.string(), valueSourceSchema),
+});
+export type SolventSummary = z.infer<typeof solventSummarySchema>;
+export const solventListSchema = z.array(solventSummarySchema);
+
+export const antoineSetSchema = z.object({
+  form: z.enum(['log10-bar-degC', 'log10-bar-K']),
+  A: z.number(),
+  B: z.number(),
+  C: z.number(),
+  TminK: z.number(),
+  TmaxK: z.number(),
+  source: valueSourceSchema,
+});
+
+export const solventDetailSchema = solventSummarySchema.extend({
+  antoine: z.array(antoineSetSchema),
+  enthalpyVapKJmol: z.number().nullable(),
+  molarVolumeCm3mol: z.number().nullable(),
+  densityPerK: z.number().nullable(),
+  pdeMgDay: z.number().nullable(),
+  dielectricConstant: z.number().nullable(),
+  waterMutualSolubility: z
+    .object({ solventInWaterWtPct: z.number(), waterInSolventWtPct: z.number(), temperatureC: z.number() })
+    .nullable(),
+  dataVersion: z.string(),
+});
+export type SolventDetail = z.infer<typeof solventDetailSchema>;
+
+export const GUIDE_CATEGORY_LABELS: Record<(typeof GUIDE_CATEGORIES)[number], string> = {
+  recommended: 'Recommended',
+  problematic: 'Problematic',
+  hazardous: 'Hazardous',
+  'highly-hazardous': 'Highly hazardous',
+};
