@@ -351,7 +351,7 @@ export const PHASE_ACCEPTS: Record<PortPhase, readonly PortPhase[]> = {
   liquid: ['liquid', 'organic', 'aqueous'],
   organic: ['organic', 'liquid'],
   aqueous: ['aqueous', 'liquid'],
-  slurry: ['slurry', 'liquid'],
+  slurry: ['slurry', 'liquid', 'organic', 'aqueous'],
   solid: ['solid', 'slurry'],
   vapour: ['vapour'],
 };

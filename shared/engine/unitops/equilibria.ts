@@ -212,7 +212,7 @@ export interface PHInput {
  * type salts by their pKa values (Henderson–Hasselbalch fractions; a salt of
  * kind 'amphoteric-salt' carries one Na⁺, 'weak-base' one Na⁺ per pKa),
  * activity coefficients = 1 (ideal dilute solution), pKw = 14 at 25 °C.
- * Solved by bisection on pH in [−2, 16] to 1e−6.
+ * Solved by bisection on pH in [−2, 16] to 3e−10.
  * Returns null when there is no water.
  */
 export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
@@ -258,7 +258,7 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
   };
   let lo = -2;
   let hi = 16;
-  for (let i = 0; i < 60; i++) {
+  for (let i = 0; i < 36; i++) {
     const mid = 0.5 * (lo + hi);
     if (f(mid) > 0) lo = mid;
     else hi = mid;

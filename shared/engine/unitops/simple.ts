@@ -141,7 +141,7 @@ export function phAdjust(inputs: Record<string, Stream | undefined>, params: Par
     let k = 0;
     while (!beyond(hi) && k++ < 40) hi *= 2;
     if (!beyond(hi)) W.push({ severity: 'warning', code: 'target-unreachable', message: 'The target pH cannot be reached with this reagent.' });
-    for (let i = 0; i < 60; i++) {
+    for (let i = 0; i < 40; i++) {
       const mid = 0.5 * (lo + hi);
       if (beyond(mid)) hi = mid;
       else lo = mid;
