@@ -3,8 +3,12 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { compoundListSchema, compoundSchema, structurePreviewSchema } from '@shared/schemas/compounds';
 import { compoundSnapshotSchema } from '@shared/schemas/route';
 import { apiErrorSchema } from '@shared/schemas/errors';
-import { AuditEvent, Compound, type User, type Workspace } from '../../server/models';
+import { AuditEvent, Compound, Workspace, type User } from '../../server/models';
 import { toCompoundSnapshot } from '../../server/services/compounds';
+import { up as seedDemoWorkspaces } from '../../seeders/20261201000000-demo-workspaces';
+import { DEMO_COMPOUNDS, up as seedDemoCompounds } from '../../seeders/20261202000000-demo-compounds';
+import { DEMO_WORKSPACES } from '../../seeders/data/demo-accounts';
+import { database } from '../../server/db/sequelize';
 import { useTestServer } from '../support/app';
 import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
 
@@ -211,5 +215,23 @@ describe('workspace compounds', () => {
     expect(snapshot.logP).toBeCloseTo(created.logP!.value, 10);
     expect(snapshot.unifac).toEqual(created.unifac.groups);
     expect(snapshot.note).toMatch(/logP estimated/);
+  });
+
+  it('seeds the invented demo compounds once, each marked invented', async () => {
+    const context = { sequelize: database(), queryInterface: database().getQueryInterface() };
+    await seedDemoWorkspaces({ context });
+    await seedDemoCompounds({ context });
+    await seedDemoCompounds({ context });
+    const demo = await Workspace.findOne({ where: { slug: DEMO_WORKSPACES[0].slug } });
+    const seeded = await Compound.findAll({ where: { workspaceId: demo!.id }, order: [['name', 'ASC']] });
+    expect(seeded.map((c) => c.name).sort()).toEqual(DEMO_COMPOUNDS.map((c) => c.name).sort());
+    for (const c of seeded) {
+      expect(c.name).toMatch(/\(invented\)$/);
+      expect(c.notes).toMatch(/invented/i);
+    }
+    expect(new Set(seeded.map((c) => c.role))).toEqual(new Set(['product', 'impurity', 'reagent', 'by-product']));
+    const product = seeded.find((c) => c.role === 'product')!;
+    expect(product.logP).toMatchObject({ source: 'measured', method: 'invented demo value' });
+    expect(product.unifac.unassignedAtoms).toEqual([]);
   });
 });
