@@ -17,11 +17,14 @@ import { API_PREFIX, buildOpenApiDocument } from './openapi';
 import { accountRouter } from './routes/account';
 import { calcRouter } from './routes/calc';
 import { compoundsRouter } from './routes/compounds';
+import { evaluateRouter, ROUTE_JSON_BODY_LIMIT } from './routes/evaluate';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
+import { jobsRouter } from './routes/jobs';
 import { membersRouter } from './routes/members';
 import { outboxRouter } from './routes/outbox';
 import { passwordResetsRouter } from './routes/password-resets';
+import { routesRouter } from './routes/routes';
 import { SESSION_COOKIE, sessionRouter } from './routes/session';
 import { solventsRouter } from './routes/solvents';
 import { tokensRouter } from './routes/tokens';
@@ -80,6 +83,8 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   const passport = configurePassport();
 
   const api = express.Router();
+  // Route documents (up to a few hundred steps) get a larger limit than other bodies.
+  api.use(['/evaluate', '/workspaces/:workspaceId/routes'], express.json({ limit: ROUTE_JSON_BODY_LIMIT }));
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
   api.use(
     session({
@@ -109,6 +114,9 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(solventsRouter());
   api.use(calcRouter());
   api.use(compoundsRouter());
+  api.use(evaluateRouter());
+  api.use(jobsRouter());
+  api.use(routesRouter());
   api.get('/openapi.json', (_req, res) => {
     res.json(buildOpenApiDocument());
   });

@@ -1,5 +1,6 @@
 import type { Transporter } from 'nodemailer';
 import { jobQueue, QUEUES } from './jobs';
+import { startMonteCarloWorker } from './monte-carlo-jobs';
 import { createMailTransport, deliverMail, type MailMessage, type MailSettings } from './mail';
 
 /** Starts the background workers of this process. Returns a function that stops them. */
@@ -10,7 +11,9 @@ export async function startWorkers(options: { mail: MailSettings; pollSeconds: n
     // A thrown error fails the whole batch and pg-boss retries it with backoff.
     for (const job of jobs) await deliverMail(transport, options.mail.from, job.data);
   });
+  const stopMonteCarlo = await startMonteCarloWorker(options.pollSeconds);
   return async () => {
+    await stopMonteCarlo();
     await boss.offWork(QUEUES.mailSend);
     transport.close();
   };

@@ -9,3 +9,6 @@ export * from './health';
 export * from './solvents';
 export * from './calc';
 export * from './compounds';
+export * from './evaluate';
+export * from './routes';
+export * from './jobs';

@@ -1,0 +1,231 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import {
+  createRouteSchema,
+  draftConflictSchema,
+  duplicateRouteSchema,
+  listRoutesQuerySchema,
+  projectListSchema,
+  routeDetailSchema,
+  routeListSchema,
+  saveDraftResponseSchema,
+  saveDraftSchema,
+  updateRouteSchema,
+  type DraftDocument,
+  type KeyTotals,
+  type RouteDetail,
+  type RouteSummary,
+} from '@shared/schemas/routes';
+import type { RouteTotals } from '@shared/engine/route/evaluate';
+import { defineRoute } from '../http/route';
+import type { Route, RouteDraft } from '../models';
+import { authorize, can, type Actor } from '../policies';
+import { saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
+import { loadWorkspace } from '../services/members';
+import { createRoute, duplicateRoute, listProjects, listRoutes, loadRoute, updateRoute } from '../services/routes';
+
+const workspaceParams = z.object({ workspaceId: z.uuid() });
+const routeParams = z.object({ workspaceId: z.uuid(), routeId: z.uuid() });
+const notFoundResponse = { description: 'No such workspace or route, or not one of yours.', schema: apiErrorSchema };
+const forbiddenResponse = { description: 'Only chemists and admins change routes.', schema: apiErrorSchema };
+
+function keyTotals(totals: unknown): KeyTotals | null {
+  if (!totals) return null;
+  const t = totals as RouteTotals;
+  return { yieldPct: t.yieldPct, purityPct: t.purityWtPct, pmi: t.pmi };
+}
+
+const latest = (a: Date, b: Date) => (a > b ? a : b);
+
+function presentSummary(route: Route): RouteSummary {
+  const draft = route.draft as RouteDraft;
+  return {
+    id: route.id,
+    name: route.name,
+    project: route.project ? { id: route.project.id, name: route.project.name } : null,
+    status: route.archivedAt ? 'archived' : 'draft',
+    owner: { id: route.owner!.id, name: route.owner!.name },
+    updatedAt: latest(route.updatedAt, draft.updatedAt).toISOString(),
+    draftVersion: draft.version,
+    totals: keyTotals(draft.totals),
+    stepCount: draft.stepCount,
+  };
+}
+
+function presentDetail(route: Route, actor: Actor): RouteDetail {
+  const draft = route.draft as RouteDraft;
+  const scope = { workspaceId: route.workspaceId as string };
+  const writable = !route.archivedAt;
+  return {
+    ...presentSummary(route),
+    draft: {
+      document: draft.document as DraftDocument,
+      version: draft.version,
+      updatedAt: draft.updatedAt.toISOString(),
+      updatedBy: { id: draft.updatedBy!.id, name: draft.updatedBy!.name },
+      evaluationError: (draft.evaluationError ?? null) as RouteDetail['draft']['evaluationError'],
+    },
+    abilities: {
+      read: can(actor, 'route.read', scope),
+      edit: writable && can(actor, 'route.editDraft', scope),
+      rename: can(actor, 'route.rename', scope),
+      duplicate: can(actor, 'route.duplicate', scope),
+      archive: can(actor, 'route.archive', scope),
+    },
+  };
+}
+
+export function routesRouter(): Router {
+  const router = Router();
+
+  defineRoute(router, {
+    method: 'get',
+    path: '/workspaces/{workspaceId}/routes',
+    summary: 'Routes of the workspace with project, owner, status, last change and key totals; archived=true lists the archived ones; q searches route and project names.',
+    tags: ['routes'],
+    auth: true,
+    params: workspaceParams,
+    query: listRoutesQuerySchema,
+    responses: { 200: { description: 'The routes, ordered by project, then last change.', schema: routeListSchema }, 404: notFoundResponse },
+    handle: async ({ actor, params, query, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'route.list', { workspaceId: workspace.id });
+      const routes = await listRoutes(workspace.id, query, transaction);
+      return { status: 200, body: routes.map(presentSummary) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'post',
+    path: '/workspaces/{workspaceId}/routes',
+    summary: 'Create a route (chemists and admins), optionally in a project (created when new) and from a document; otherwise it starts empty.',
+    tags: ['routes'],
+    auth: true,
+    params: workspaceParams,
+    body: createRouteSchema,
+    responses: { 201: { description: 'Created.', schema: routeDetailSchema }, 403: forbiddenResponse, 404: notFoundResponse },
+    handle: async ({ req, actor, params, body, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'route.create', { workspaceId: workspace.id });
+      // The document is stored as the editor wrote it (validated; schema defaults are applied at evaluation).
+      const document = body.document ? (req.body.document as DraftDocument) : undefined;
+      const route = await createRoute(
+        { workspaceId: workspace.id, ownerId: actor.userId, name: body.name, projectName: body.projectName, document },
+        transaction,
+      );
+      return { status: 201, body: presentDetail(route, actor) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'get',
+    path: '/workspaces/{workspaceId}/routes/{routeId}',
+    summary: 'A route with its draft document, version, who saved it last, and what the caller may do.',
+    tags: ['routes'],
+    auth: true,
+    params: routeParams,
+    responses: { 200: { description: 'The route.', schema: routeDetailSchema }, 404: notFoundResponse },
+    handle: async ({ actor, params, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'route.read', { workspaceId: workspace.id });
+      const route = await loadRoute(workspace.id, params.routeId, transaction);
+      return { status: 200, body: presentDetail(route, actor) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'patch',
+    path: '/workspaces/{workspaceId}/routes/{routeId}',
+    summary: 'Rename a route, move it to a project (projectName, or null for none), archive or unarchive it (chemists and admins).',
+    tags: ['routes'],
+    auth: true,
+    params: routeParams,
+    body: updateRouteSchema,
+    responses: { 200: { description: 'Updated.', schema: routeDetailSchema }, 403: forbiddenResponse, 404: notFoundResponse },
+    handle: async ({ actor, params, body, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const scope = { workspaceId: workspace.id };
+      authorize(actor, 'route.read', scope);
+      if (body.name !== undefined || body.projectName !== undefined) authorize(actor, 'route.rename', scope);
+      if (body.archived !== undefined) authorize(actor, 'route.archive', scope);
+      const route = await loadRoute(workspace.id, params.routeId, transaction);
+      const updated = await updateRoute(route, body, actor.userId, transaction);
+      return { status: 200, body: presentDetail(updated, actor) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'post',
+    path: '/workspaces/{workspaceId}/routes/{routeId}/duplicate',
+    summary: 'Copy a route and its current draft into a new route owned by the caller (chemists and admins).',
+    tags: ['routes'],
+    auth: true,
+    params: routeParams,
+    body: duplicateRouteSchema,
+    responses: { 201: { description: 'The copy.', schema: routeDetailSchema }, 403: forbiddenResponse, 404: notFoundResponse },
+    handle: async ({ actor, params, body, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'route.duplicate', { workspaceId: workspace.id });
+      const route = await loadRoute(workspace.id, params.routeId, transaction);
+      const copy = await duplicateRoute(route, body.name, actor.userId, transaction);
+      return { status: 201, body: presentDetail(copy, actor) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'put',
+    path: '/workspaces/{workspaceId}/routes/{routeId}/draft',
+    summary:
+      'Save the draft (autosave). baseVersion is the version the edit started from; if the draft changed since, 409 draft_conflict returns the current draft and who changed it. The document is evaluated; totals are null with the reason when it cannot be.',
+    tags: ['routes'],
+    auth: true,
+    params: routeParams,
+    body: saveDraftSchema,
+    responses: {
+      200: { description: 'Saved: the new version, the totals and the engine cautions.', schema: saveDraftResponseSchema },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+      409: { description: 'draft_conflict (changed since baseVersion; details.current) or route_archived.', schema: draftConflictSchema },
+    },
+    handle: async ({ req, actor, params, body, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'route.editDraft', { workspaceId: workspace.id });
+      const route = await loadRoute(workspace.id, params.routeId, transaction);
+      const { draft, evaluation } = await saveDraft(
+        route,
+        { document: req.body.document as DraftDocument, baseVersion: body.baseVersion },
+        actor.userId,
+        transaction,
+      );
+      return {
+        status: 200,
+        body: {
+          version: draft.version,
+          updatedAt: draft.updatedAt.toISOString(),
+          totals: keyTotals(evaluation.totals),
+          evaluationError: evaluation.evaluationError,
+          warnings: evaluation.warnings,
+          processSafetyNote: PROCESS_SAFETY_NOTE,
+        },
+      };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'get',
+    path: '/workspaces/{workspaceId}/projects',
+    summary: 'Projects of the workspace with the number of routes in each that are not archived.',
+    tags: ['routes'],
+    auth: true,
+    params: workspaceParams,
+    responses: { 200: { description: 'The projects.', schema: projectListSchema }, 404: notFoundResponse },
+    handle: async ({ actor, params, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'project.list', { workspaceId: workspace.id });
+      return { status: 200, body: await listProjects(workspace.id, transaction) };
+    },
+  });
+
+  return router;
+}

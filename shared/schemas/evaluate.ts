@@ -1,0 +1,90 @@
+/**
+ * Payloads of route evaluation: the single evaluation (nothing stored) and
+ * the Monte Carlo request that starts a background job.
+ */
+import { z } from 'zod';
+import { routeDocumentSchema, streamSchema, warningSchema } from './route';
+
+/** Highest number of Monte Carlo draws one job may ask for. */
+export const MONTE_CARLO_MAX_DRAWS = 20_000;
+
+export const evaluateRequestSchema = z.object({ document: routeDocumentSchema });
+export type EvaluateRequest = z.input<typeof evaluateRequestSchema>;
+
+/** One reason a valid document cannot be evaluated, on the step it belongs to. */
+export const routeIssueSchema = z.object({
+  /** The step, or null for the document as a whole (components, reference input). */
+  stepId: z.string().nullable(),
+  /** Field inside the step (or the document), e.g. "params.mode.targetVolume" or "inputs.feed". */
+  field: z.string(),
+  message: z.string(),
+  /** The same place as a dotted path from the request body, for forms ("document.steps.2.params.stages"). */
+  path: z.string(),
+});
+export type RouteIssuePayload = z.infer<typeof routeIssueSchema>;
+
+/** 422 reply: route_invalid (graph, references, a step's parameters) or route_unevaluable (a model cannot run). */
+export const routeEvaluationErrorSchema = z.object({
+  error: z.object({
+    code: z.enum(['route_invalid', 'route_unevaluable']),
+    message: z.string(),
+    details: z.array(routeIssueSchema),
+  }),
+});
+export type RouteEvaluationError = z.infer<typeof routeEvaluationErrorSchema>['error'];
+
+/** The engine's route totals (shared/engine/route/evaluate.ts RouteTotals). */
+export const routeTotalsSchema = z
+  .object({
+    productId: z.string().nullable(),
+    productInKg: z.number(),
+    isolatedProductKg: z.number(),
+    isolatedSolidKg: z.number(),
+    yieldPct: z.number().nullable(),
+    purityWtPct: z.number().nullable(),
+    purge: z.record(z.string(), z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() })),
+    solventUseLPerKg: z.number().nullable(),
+    pmi: z.number().nullable(),
+    eFactor: z.number().nullable(),
+    eFactorExcludingWater: z.number().nullable(),
+    totalInputKg: z.number(),
+    peakVolumeL: z.record(z.string(), z.number()),
+    cycleTimeH: z.number(),
+    cycleTimeBasis: z.string(),
+  })
+  .loose();
+
+/** A warning or caution with the step it belongs to (null for the route). */
+export const stepWarningSchema = warningSchema.extend({ stepId: z.string().nullable() });
+
+/** A route result as the engine returns it; step results are kind-specific and kept open. */
+export const routeResultSchema = z
+  .object({
+    engineVersion: z.string(),
+    schemaVersion: z.number(),
+    order: z.array(z.string()),
+    steps: z.record(z.string(), z.record(z.string(), z.unknown())),
+    streams: z.record(z.string(), streamSchema),
+    terminals: z.array(z.object({ stepId: z.string(), port: z.string(), isolated: z.boolean(), stream: streamSchema })),
+    totals: routeTotalsSchema,
+    /** Every warning and caution, on its step (null for the route). */
+    warnings: z.array(stepWarningSchema),
+    /** Cautions are prompts: defer to the site's process-safety review. */
+    processSafetyNote: z.string(),
+  })
+  .loose();
+
+export const evaluateResponseSchema = z.object({
+  engineVersion: z.string(),
+  result: routeResultSchema,
+});
+export type EvaluateResponse = z.infer<typeof evaluateResponseSchema>;
+
+export const monteCarloRequestSchema = z.object({
+  document: routeDocumentSchema,
+  draws: z.number().int().min(1).max(MONTE_CARLO_MAX_DRAWS),
+  seed: z.number().int().min(-2_147_483_648).max(4_294_967_295),
+});
+export type MonteCarloRequest = z.input<typeof monteCarloRequestSchema>;
+
+export const monteCarloStartedSchema = z.object({ jobId: z.string() });

@@ -1,0 +1,43 @@
+/** Background jobs a user started (Monte Carlo runs), polled for progress. */
+import { z } from 'zod';
+
+export const JOB_KINDS = ['monte-carlo'] as const;
+export const JOB_STATUSES = ['queued', 'running', 'done', 'failed'] as const;
+
+/** p5/p50/p95 of one quantity over the draws; null when no draw gave a number. */
+export const percentilesSchema = z.object({
+  p5: z.number().nullable(),
+  p50: z.number().nullable(),
+  p95: z.number().nullable(),
+});
+export type Percentiles = z.infer<typeof percentilesSchema>;
+
+export const monteCarloResultSchema = z
+  .object({
+    draws: z.number().int(),
+    seed: z.number().int(),
+    yieldPct: percentilesSchema,
+    purityWtPct: percentilesSchema,
+    /** Purge factor of each impurity; null where the impurity is purged completely in most draws. */
+    purgeFactor: z.record(z.string(), percentilesSchema),
+    /** Draws for which the route could not be evaluated. */
+    failedDraws: z.number().int(),
+    engineVersion: z.string(),
+    /** Cautions are prompts: defer to the site's process-safety review. */
+    processSafetyNote: z.string(),
+  })
+  .loose();
+export type MonteCarloResult = z.infer<typeof monteCarloResultSchema>;
+
+export const jobSchema = z.object({
+  id: z.string(),
+  kind: z.enum(JOB_KINDS),
+  status: z.enum(JOB_STATUSES),
+  /** 0..1: the share of draws done. */
+  progress: z.number().min(0).max(1),
+  result: monteCarloResultSchema.optional(),
+  error: z.object({ code: z.string(), message: z.string() }).optional(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Job = z.infer<typeof jobSchema>;
