@@ -1,9 +1,12 @@
+import { Sequelize } from 'sequelize';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectListSchema, routeDetailSchema, routeListSchema } from '@shared/schemas/routes';
 import type { RouteDocumentInput } from '@shared/schemas/route';
 import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
 import { AuditEvent, type User, type Workspace } from '../../server/models';
+import { runMigrations, runSeeders } from '../../server/db/migrator';
+import { DEMO_PROJECT_NAME, DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { useTestServer } from '../support/app';
 import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
 
@@ -181,5 +184,51 @@ describe('routes of a workspace', () => {
     const paths = (response.body.error.details as { path: string }[]).map((d) => d.path);
     expect(paths).toContain('name');
     expect(paths.some((p) => p.startsWith('document.steps.0.params'))).toBe(true);
+  });
+});
+
+describe('demo seed', () => {
+  it('gives the demo workspace the invented demo route, evaluated, once', async () => {
+    // A database of its own: seeding the shared test database would change what other files see.
+    const baseUrl = new URL(process.env.DATABASE_URL!);
+    const name = `${baseUrl.pathname.slice(1)}_routes_seed`;
+    const admin = new Sequelize(new URL('/postgres', baseUrl).href, { dialect: 'postgres', logging: false });
+    await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+    await admin.query(`CREATE DATABASE ${name}`);
+    const fresh = new Sequelize(new URL(`/${name}`, baseUrl).href, { dialect: 'postgres', logging: false });
+    try {
+      await runMigrations(fresh);
+      const applied = await runSeeders(fresh, 'test');
+      expect(applied).toContain('20261203000000-demo-route.ts');
+      const routesOfDemo = async () =>
+        (
+          await fresh.query(
+            `SELECT r.name, p.name AS project, u.email AS owner, d.version, d.step_count, d.totals, d.evaluation_error, d.document
+               FROM routes r JOIN workspaces w ON w.id = r.workspace_id JOIN route_drafts d ON d.route_id = r.id
+               JOIN users u ON u.id = r.owner_id LEFT JOIN projects p ON p.id = r.project_id
+              WHERE w.slug = 'demo-process-group'`,
+          )
+        )[0] as Array<{ name: string; project: string; owner: string; version: number; step_count: number; totals: { yieldPct: number; purityWtPct: number } | null; evaluation_error: unknown; document: unknown }>;
+      const rows = await routesOfDemo();
+      expect(rows).toHaveLength(1);
+      const [route] = rows;
+      expect(route).toMatchObject({ name: DEMO_ROUTE_NAME, project: DEMO_PROJECT_NAME, owner: 'chemist@example.com', version: 1, step_count: demoRoute.steps.length, evaluation_error: null });
+      expect(route.name).toMatch(/invented/);
+      expect(route.project).toMatch(/invented/);
+      expect(route.document).toEqual(demoRoute);
+      expect(route.totals!.yieldPct).toBeGreaterThan(0);
+      expect(route.totals!.yieldPct).toBeLessThanOrEqual(100);
+      const [otherSite] = (await fresh.query(`SELECT count(*)::int AS n FROM routes r JOIN workspaces w ON w.id = r.workspace_id WHERE w.slug = 'second-site'`))[0] as [{ n: number }];
+      expect(otherSite.n).toBe(0);
+
+      // Idempotent, even when the record of the seed run is lost.
+      await fresh.query(`DELETE FROM "SequelizeData" WHERE name = '20261203000000-demo-route.ts'`);
+      expect(await runSeeders(fresh, 'test')).toEqual(['20261203000000-demo-route.ts']);
+      expect(await routesOfDemo()).toHaveLength(1);
+    } finally {
+      await fresh.close();
+      await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+      await admin.close();
+    }
   });
 });

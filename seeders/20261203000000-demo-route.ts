@@ -1,0 +1,39 @@
+import type { MigrationContext } from '../server/db/migrator';
+import { Route, User, Workspace } from '../server/models';
+import { createRoute } from '../server/services/routes';
+import type { DraftDocument } from '@shared/schemas/routes';
+import demoRoute from '../tests/fixtures/routes/demo-amide-isolation.json';
+import { DEMO_WORKSPACES } from './data/demo-accounts';
+
+/** Project of the demo route; invented, like every compound in the route. */
+export const DEMO_PROJECT_NAME = 'PW-417 programme (invented)';
+/** The route's name in the list: the fixture's own name, which says it is invented. */
+export const DEMO_ROUTE_NAME = (demoRoute as { name: string }).name;
+
+/**
+ * Gives the demo workspace the complete invented isolation route (acid, base
+ * and brine washes, solvent swap, antisolvent and cooling crystallisation,
+ * filtration with cake washes, drying), owned by the demo chemist, with its
+ * draft evaluated. Leaves a route of the same name alone, so running it again
+ * changes nothing.
+ */
+export async function up({ context: { sequelize } }: { context: MigrationContext }): Promise<void> {
+  const demo = DEMO_WORKSPACES.find((w) => w.key === 'demo')!;
+  await sequelize.transaction(async (transaction) => {
+    const workspace = await Workspace.findOne({ where: { slug: demo.slug }, transaction });
+    const chemist = await User.findOne({ where: { email: 'chemist@example.com' }, transaction });
+    if (!workspace || !chemist) return;
+    const existing = await Route.findOne({ where: { workspaceId: workspace.id, name: DEMO_ROUTE_NAME }, transaction });
+    if (existing) return;
+    await createRoute(
+      {
+        workspaceId: workspace.id,
+        ownerId: chemist.id,
+        name: DEMO_ROUTE_NAME,
+        projectName: DEMO_PROJECT_NAME,
+        document: structuredClone(demoRoute) as unknown as DraftDocument,
+      },
+      transaction,
+    );
+  });
+}
