@@ -114,3 +114,28 @@ describe('POST /api/v1/evaluate', () => {
     expect(response.status).toBe(200);
   });
 });
+
+describe('OpenAPI document', () => {
+  it('lists the evaluation, job, route, draft and project operations', async () => {
+    const response = await request(server.app).get('/api/v1/openapi.json');
+    expect(response.status).toBe(200);
+    const paths = response.body.paths as Record<string, Record<string, unknown>>;
+    const operations = Object.entries(paths).flatMap(([path, ops]) => Object.keys(ops).map((method) => `${method} ${path}`));
+    expect(operations).toEqual(
+      expect.arrayContaining([
+        'post /api/v1/evaluate',
+        'post /api/v1/evaluate/monte-carlo',
+        'get /api/v1/jobs/{jobId}',
+        'get /api/v1/workspaces/{workspaceId}/routes',
+        'post /api/v1/workspaces/{workspaceId}/routes',
+        'get /api/v1/workspaces/{workspaceId}/routes/{routeId}',
+        'patch /api/v1/workspaces/{workspaceId}/routes/{routeId}',
+        'post /api/v1/workspaces/{workspaceId}/routes/{routeId}/duplicate',
+        'put /api/v1/workspaces/{workspaceId}/routes/{routeId}/draft',
+        'get /api/v1/workspaces/{workspaceId}/projects',
+      ]),
+    );
+    expect(Object.keys((paths['/api/v1/evaluate'].post as { responses: object }).responses)).toEqual(expect.arrayContaining(['200', '400', '401', '422']));
+    expect(Object.keys((paths['/api/v1/workspaces/{workspaceId}/routes/{routeId}/draft'].put as { responses: object }).responses)).toContain('409');
+  });
+});
