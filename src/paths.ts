@@ -47,4 +47,10 @@ export const api = {
   tokens: '/api/v1/tokens',
   token: (id: string) => `/api/v1/tokens/${encodeURIComponent(id)}`,
   outbox: '/api/v1/outbox',
+  solvents: '/api/v1/solvents',
+  solvent: (id: string) => `/api/v1/solvents/${encodeURIComponent(id)}`,
+  compounds: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds`,
+  compound: (workspaceId: string, compoundId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds/${encodeURIComponent(compoundId)}`,
+  structurePreview: '/api/v1/structures/preview',
 } as const;

@@ -61,10 +61,10 @@ function Shell({ session }: { session: Session }) {
               <NavItem to={paths.workspace.home.to(workspaceId)} end glyph={<RouteGlyph />}>
                 Routes
               </NavItem>
-              <NavItem to={paths.workspace.compounds.to(workspaceId)} glyph={<CompoundGlyph />} soon>
+              <NavItem to={paths.workspace.compounds.to(workspaceId)} glyph={<CompoundGlyph />}>
                 Compounds
               </NavItem>
-              <NavItem to={paths.workspace.solvents.to(workspaceId)} glyph={<SolventGlyph />} soon>
+              <NavItem to={paths.workspace.solvents.to(workspaceId)} glyph={<SolventGlyph />}>
                 Solvent library
               </NavItem>
             </NavGroup>

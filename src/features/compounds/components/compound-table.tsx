@@ -1,0 +1,124 @@
+import { useMemo, useState } from 'react';
+import { COMPOUND_ROLE_LABELS, COMPOUND_ROLES, type Compound, type CompoundRole } from '@shared/schemas/compounds';
+import { Button } from '@/components/button';
+import { Select } from '@/components/select';
+import { Table, Td } from '@/components/table';
+import { TextField } from '@/components/text-field';
+import { compareValues, SortableTh, type SortState } from './sortable-th';
+import { StructureImage } from './structure-image';
+
+type Column = 'name' | 'role' | 'formula' | 'molarMassGmol' | 'logP';
+
+const value = (c: Compound, column: Column) =>
+  column === 'logP' ? (c.logP?.value ?? null) : column === 'role' ? COMPOUND_ROLE_LABELS[c.role] : c[column];
+
+export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
+  compounds: Compound[];
+  onOpen: (compound: Compound) => void;
+  canWrite: boolean;
+  selectedId?: string | null;
+}) {
+  const [query, setQuery] = useState('');
+  const [role, setRole] = useState<CompoundRole | 'all'>('all');
+  const [sort, setSort] = useState<SortState<Column>>({ key: 'name', dir: 'asc' });
+
+  const rows = useMemo(() => {
+    const q = query.trim().toLowerCase();
+    const filtered = compounds.filter(
+      (c) => (role === 'all' || c.role === role) && (!q || c.name.toLowerCase().includes(q) || c.formula.toLowerCase().includes(q)),
+    );
+    const sign = sort.dir === 'asc' ? 1 : -1;
+    return filtered.sort((a, b) => sign * compareValues(value(a, sort.key), value(b, sort.key)));
+  }, [compounds, query, role, sort]);
+
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <TextField label="Filter by name or formula" value={query} onValueChange={setQuery} className="w-64" type="search" />
+        <Select
+          label="Role"
+          value={role}
+          onValueChange={(v) => setRole(v as CompoundRole | 'all')}
+          options={[{ value: 'all', label: 'All roles' }, ...COMPOUND_ROLES.map((r) => ({ value: r, label: COMPOUND_ROLE_LABELS[r] }))]}
+          className="w-44"
+        />
+        <p className="pb-2 text-small text-ink-muted" aria-live="polite">
+          {rows.length} of {compounds.length} compound{compounds.length === 1 ? '' : 's'}
+        </p>
+      </div>
+      <Table caption="Compounds of this workspace">
+        <thead>
+          <tr>
+            <th scope="col" className="w-24 border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted">
+              Structure
+            </th>
+            <SortableTh label="Name" column="name" sort={sort} onSort={setSort} />
+            <SortableTh label="Role" column="role" sort={sort} onSort={setSort} />
+            <SortableTh label="Formula" column="formula" sort={sort} onSort={setSort} />
+            <SortableTh label="M (g/mol)" column="molarMassGmol" sort={sort} onSort={setSort} className="text-right" />
+            <SortableTh label="logP" column="logP" sort={sort} onSort={setSort} className="text-right" />
+            <th scope="col" className="border-b border-rule bg-paper-sunken px-3 py-2">
+              <span className="sr-only">Actions</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.length === 0 ? (
+            <tr>
+              <Td colSpan={7} className="py-6 text-center text-ink-muted">
+                No compound matches the filter.
+              </Td>
+            </tr>
+          ) : (
+            rows.map((c) => (
+              <tr key={c.id} className={c.id === selectedId ? 'bg-accent-soft' : undefined}>
+                <Td className="py-1">
+                  <StructureImage svg={c.svg} alt={`Structure of ${c.name}`} className="h-14 w-20 rounded-control object-contain" />
+                </Td>
+                <Td>
+                  <span className="font-medium text-ink">{c.name}</span>
+                  <span className="block max-w-72 truncate text-caption text-ink-muted" title={c.smiles ?? c.canonicalSmiles}>
+                    {c.smiles ?? c.canonicalSmiles}
+                  </span>
+                </Td>
+                <Td>
+                  <RoleChip role={c.role} />
+                </Td>
+                <Td className="tabular-nums">{c.formula}</Td>
+                <Td className="text-right tabular-nums">{c.molarMassGmol.toFixed(2)}</Td>
+                <Td className="text-right tabular-nums">
+                  {c.logP ? (
+                    <>
+                      {c.logP.value.toFixed(2)}{' '}
+                      <span className="text-caption text-ink-muted" title={c.logP.method}>
+                        {c.logP.source === 'measured' ? 'measured' : 'estimate'}
+                      </span>
+                    </>
+                  ) : (
+                    <span className="text-ink-muted">—</span>
+                  )}
+                </Td>
+                <Td className="text-right">
+                  <Button variant="quiet" size="sm" onClick={() => onOpen(c)} aria-label={`${canWrite ? 'Edit' : 'View'} ${c.name}`}>
+                    {canWrite ? 'Edit' : 'View'}
+                  </Button>
+                </Td>
+              </tr>
+            ))
+          )}
+        </tbody>
+      </Table>
+    </div>
+  );
+}
+
+const ROLE_TONE: Record<CompoundRole, string> = {
+  product: 'bg-accent-soft text-accent-deep',
+  impurity: 'bg-caution-warning-soft text-caution-warning-deep',
+  reagent: 'bg-paper-sunken text-ink',
+  'by-product': 'bg-phase-solid-soft text-phase-solid-deep',
+};
+
+export function RoleChip({ role }: { role: CompoundRole }) {
+  return <span className={`inline-block rounded-control px-1.5 py-0.5 text-caption font-medium ${ROLE_TONE[role]}`}>{COMPOUND_ROLE_LABELS[role]}</span>;
+}
