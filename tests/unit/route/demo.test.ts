@@ -13,9 +13,17 @@ describe('demo amide isolation', () => {
   });
   it('evaluates with plausible totals', () => {
     expect(r.engineVersion).toBe(ENGINE_VERSION);
+    // A cooling + antisolvent crystallisation leaves part of the product in the
+    // mother liquor: isolated yields of 80–92 % are usual (common practice).
     expect(r.totals.yieldPct!).toBeGreaterThan(80);
-    expect(r.totals.yieldPct!).toBeLessThan(100);
-    expect(r.totals.purityWtPct!).toBeGreaterThan(98);
+    expect(r.totals.yieldPct!).toBeLessThan(92);
+    expect(r.totals.purityWtPct!).toBeGreaterThanOrEqual(99);
+    // Regression values of this engine version for the invented demo data
+    // (re-pinned deliberately when the demo data were tuned: 90.2 % yield,
+    // purity 99.50 wt %, capped by the 0.5 % loss on drying). Re-pin only on
+    // purpose, with the reason in the commit.
+    expect(r.totals.yieldPct!).toBeCloseTo(90.2, 0);
+    expect(r.totals.purityWtPct!).toBeCloseTo(99.5, 1);
     // The acid wash takes the amine, the base wash the acid.
     expect(r.totals.purge['pw417-amine'].purgeFactor!).toBeGreaterThan(1000);
     expect(r.totals.purge['pw417-acid'].purgeFactor!).toBeGreaterThan(100);
@@ -24,15 +32,35 @@ describe('demo amide isolation', () => {
   });
   it('puts the cautions on their steps', () => {
     expect(r.steps['base-wash'].warnings.some((w) => w.code === 'gas-evolution' && w.severity === 'hazard')).toBe(true);
-    expect(r.steps['swap'].warnings.some((w) => w.code === 'solubility-crossed')).toBe(true);
+    // The swap is held at 14 vol so that the product stays dissolved at the pot temperature.
+    expect(r.steps['swap'].warnings.some((w) => w.code === 'solubility-crossed')).toBe(false);
     expect(r.warnings.every((w) => w.stepId === null || r.steps[w.stepId])).toBe(true);
   });
   it('swaps the solvent: little 2-MeTHF left, profile reported', () => {
     const d = r.steps['swap'].details as { residualOriginalSolventWtPct: number; profile: Array<{ potTemperatureC: number }> };
-    expect(d.residualOriginalSolventWtPct).toBeLessThan(2);
+    // 4 × 10 vol of 2-propanol against a 14 vol pot leaves about 2 wt % 2-MeTHF
+    // (was < 2 with 3 × 5 vol to 4 vol, which crashed the product out).
+    expect(d.residualOriginalSolventWtPct).toBeLessThan(3);
+    expect(d.residualOriginalSolventWtPct).toBeGreaterThan(0.5);
     expect(d.profile.length).toBeGreaterThan(10);
-    // 2-MeTHF / 2-propanol boil near 35–50 °C at 200 mbar.
-    for (const p of d.profile) expect(p.potTemperatureC).toBeGreaterThan(20);
+    // 2-MeTHF / 2-propanol boil near 60–70 °C at 600 mbar (2-propanol about 69–70 °C).
+    for (const p of d.profile) expect(p.potTemperatureC).toBeGreaterThan(50);
+    expect(r.steps['swap'].summary['final pot °C'] as number).toBeGreaterThan(65);
+    expect(r.steps['swap'].summary['final pot °C'] as number).toBeLessThan(73);
+  });
+  it('each wash purges its target: the amine by the acid wash, the acid by the bicarbonate wash', () => {
+    const kg = (conn: string, id: string) => r.streams[conn].kg[id];
+    // c1 → acid wash → c2 → base wash → c3
+    expect(kg('c2', 'pw417-amine') / kg('c1', 'pw417-amine')).toBeLessThan(1e-4);
+    expect(kg('c2', 'pw417-acid') / kg('c1', 'pw417-acid')).toBeGreaterThan(0.95);
+    expect(kg('c3', 'pw417-acid') / kg('c2', 'pw417-acid')).toBeLessThan(0.1);
+  });
+  it('the crystallisation leaves the impurities in the liquor and loses some product to it', () => {
+    expect(r.steps['cool'].warnings.some((w) => w.code === 'co-precipitation')).toBe(false);
+    const sat = (r.steps['cool'].details as { saturationKg: Record<string, number> }).saturationKg;
+    // Mother-liquor capacity for the product at 5 °C: 5–15 % of the 1 kg charged.
+    expect(sat['pw417-amide']).toBeGreaterThan(0.05);
+    expect(sat['pw417-amide']).toBeLessThan(0.15);
   });
   it('the acid wash is acidic, the base wash basic', () => {
     expect(r.steps['acid-wash'].summary['pH'] as number).toBeLessThan(1);
