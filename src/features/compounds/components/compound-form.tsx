@@ -99,7 +99,6 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
                 hint="For example CC(=O)OCC. The preview updates as you type."
                 spellCheck={false}
                 autoComplete="off"
-                className="font-mono"
               />
             ) : (
               <TextArea label="Molfile (V2000 or V3000)" value={draft.molfile} onValueChange={(v) => set('molfile', v)} error={errors.molfile ?? errors.smiles ?? structureError} rows={6} />

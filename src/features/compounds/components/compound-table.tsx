@@ -55,7 +55,7 @@ export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
             <SortableTh label="Name" column="name" sort={sort} onSort={setSort} />
             <SortableTh label="Role" column="role" sort={sort} onSort={setSort} />
             <SortableTh label="Formula" column="formula" sort={sort} onSort={setSort} />
-            <SortableTh label="M (g/mol)" column="molarMassGmol" sort={sort} onSort={setSort} className="text-right" />
+            <SortableTh label="M" unit="g/mol" column="molarMassGmol" sort={sort} onSort={setSort} className="text-right" />
             <SortableTh label="logP" column="logP" sort={sort} onSort={setSort} className="text-right" />
             <th scope="col" className="border-b border-rule bg-paper-sunken px-3 py-2">
               <span className="sr-only">Actions</span>

@@ -3,8 +3,10 @@ import { Th } from '@/components/table';
 export type SortState<K extends string> = { key: K; dir: 'asc' | 'desc' };
 
 /** A column header that sorts the table; says its state to assistive technology. */
-export function SortableTh<K extends string>({ label, column, sort, onSort, className }: {
+export function SortableTh<K extends string>({ label, unit, column, sort, onSort, className }: {
   label: string;
+  /** Shown as written (units are case-sensitive). */
+  unit?: string;
   column: K;
   sort: SortState<K>;
   onSort: (next: SortState<K>) => void;
@@ -19,6 +21,7 @@ export function SortableTh<K extends string>({ label, column, sort, onSort, clas
         onClick={() => onSort({ key: column, dir: active && sort.dir === 'asc' ? 'desc' : 'asc' })}
       >
         {label}
+        {unit ? <span className="normal-case">({unit})</span> : null}
         <span aria-hidden="true" className={active ? 'text-accent' : 'text-ink-faint'}>
           {active ? (sort.dir === 'asc' ? '▲' : '▼') : '↕'}
         </span>

@@ -3,8 +3,6 @@ import type { StructurePreview, UnifacGroupCounts } from '@shared/schemas/compou
 import { isApiError } from '@/api/client';
 import { Button } from '@/components/button';
 import { Spinner } from '@/components/spinner';
-import { inputClass } from '@/components/text-field';
-import { cn } from '@/components/cn';
 import { StructureImage } from './structure-image';
 
 type Props = {
@@ -122,7 +120,7 @@ function GroupEditor({ preview, groups, onChange, readOnly }: { preview: Structu
                       value={count}
                       aria-label={`Count of ${names.get(key) ?? `subgroup ${key}`}`}
                       onChange={(e) => set(key, Number(e.target.value))}
-                      className={cn(inputClass, 'ml-auto h-7 w-16 border-rule-strong text-right')}
+                      className="ml-auto block h-7 w-16 rounded-control border border-rule-strong bg-paper-raised px-2 text-right text-body tabular-nums focus-visible:outline-2 focus-visible:outline-accent"
                     />
                   )}
                 </td>
@@ -140,7 +138,7 @@ function GroupEditor({ preview, groups, onChange, readOnly }: { preview: Structu
               min={1}
               value={newSubgroup}
               onChange={(e) => setNewSubgroup(e.target.value)}
-              className={cn(inputClass, 'mt-0.5 h-7 w-20 border-rule-strong')}
+              className="mt-0.5 block h-7 w-20 rounded-control border border-rule-strong bg-paper-raised px-2 text-body focus-visible:outline-2 focus-visible:outline-accent"
             />
           </label>
           <Button

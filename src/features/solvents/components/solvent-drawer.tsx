@@ -67,7 +67,7 @@ function Details({ s }: { s: SolventDetail }) {
       <dl className="divide-y divide-rule">
         {rows.map(([label, value, key]) => (
           <div key={label} className="py-2">
-            <dt className="text-caption font-medium text-ink-muted uppercase">{label}</dt>
+            <dt className="text-small font-medium text-ink-muted">{label}</dt>
             <dd className="text-body text-ink">{value}</dd>
             {key && s.sources[key] ? <SourceLine source={s.sources[key]} /> : null}
           </div>

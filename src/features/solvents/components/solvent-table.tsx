@@ -44,7 +44,7 @@ export function SolventTable({ solvents, onOpen, selectedId }: { solvents: Solve
     });
   }, [solvents, query, sort]);
 
-  const header = (label: string, key: Column, className?: string) => {
+  const header = (label: string, key: Column, className?: string, unit?: string) => {
     const active = sort.key === key;
     return (
       <Th aria-sort={active ? (sort.dir === 'asc' ? 'ascending' : 'descending') : 'none'} className={className}>
@@ -54,6 +54,7 @@ export function SolventTable({ solvents, onOpen, selectedId }: { solvents: Solve
           onClick={() => setSort({ key, dir: active && sort.dir === 'asc' ? 'desc' : 'asc' })}
         >
           {label}
+          {unit ? <span className="normal-case">({unit})</span> : null}
           <span aria-hidden="true" className={active ? 'text-accent' : 'text-ink-faint'}>
             {active ? (sort.dir === 'asc' ? '▲' : '▼') : '↕'}
           </span>
@@ -74,9 +75,9 @@ export function SolventTable({ solvents, onOpen, selectedId }: { solvents: Solve
         <thead>
           <tr>
             {header('Solvent', 'name')}
-            {header('Tb (°C)', 'boilingPointC', 'text-right')}
-            {header('Density (g/mL)', 'densityGmL', 'text-right')}
-            {header('Flash point (°C)', 'flashPointC', 'text-right')}
+            {header('Tb', 'boilingPointC', 'text-right', '°C')}
+            {header('Density', 'densityGmL', 'text-right', 'g/mL')}
+            {header('Flash point', 'flashPointC', 'text-right', '°C')}
             {header('ICH Q3C', 'ich')}
             {header('Guide', 'guideCategory')}
             <Th>Flags</Th>
