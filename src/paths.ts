@@ -24,6 +24,10 @@ export const paths = {
     members: { pattern: '/w/:workspaceId/members', to: (id: string) => `/w/${encodeURIComponent(id)}/members` },
     compounds: { pattern: '/w/:workspaceId/compounds', to: (id: string) => `/w/${encodeURIComponent(id)}/compounds` },
     solvents: { pattern: '/w/:workspaceId/solvents', to: (id: string) => `/w/${encodeURIComponent(id)}/solvents` },
+    route: {
+      pattern: '/w/:workspaceId/routes/:routeId',
+      to: (id: string, routeId: string) => `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}`,
+    },
   },
 } as const;
 

@@ -32,7 +32,8 @@ export function createAppRouter() {
               path: paths.workspace.home.pattern,
               lazy: () => import('./layouts/workspace-layout'),
               children: [
-                { index: true, lazy: () => import('@/routes/workspace-home') },
+                { index: true, lazy: () => import('@/routes/routes-list') },
+                { path: paths.workspace.route.pattern, lazy: () => import('@/routes/route-editor') },
                 { path: paths.workspace.members.pattern, lazy: () => import('@/routes/members') },
                 { path: paths.workspace.compounds.pattern, lazy: () => import('@/routes/compounds') },
                 { path: paths.workspace.solvents.pattern, lazy: () => import('@/routes/solvents') },

@@ -1,0 +1,167 @@
+import { useCallback, useMemo, type DragEvent } from 'react';
+import {
+  Background,
+  BackgroundVariant,
+  Controls,
+  MiniMap,
+  ReactFlow,
+  useReactFlow,
+  type Connection,
+  type EdgeChange,
+  type IsValidConnection,
+  type NodeChange,
+  type NodeTypes,
+  type EdgeTypes,
+} from '@xyflow/react';
+import { useShallow } from 'zustand/react/shallow';
+import { PORTS, type StepKind } from '@shared/schemas/route';
+import { useEditorStore } from '@/stores/editor-store';
+import { checkConnection, handleId, keyOf, portOfHandle, portPhase } from '../document';
+import { StepNode, type StepNodeType } from './step-node';
+import { StreamEdge, type StreamEdgeType } from './stream-edge';
+import { PHASES } from './phase';
+
+// Declared once: every step kind uses the same memoised card.
+const nodeTypes = Object.fromEntries(Object.keys(PORTS).map((k) => [k, StepNode])) as NodeTypes;
+const edgeTypes: EdgeTypes = { stream: StreamEdge };
+export const PALETTE_MIME = 'application/x-phasewright-step';
+
+export function Canvas() {
+  const { steps, connections, components, selection } = useEditorStore(
+    useShallow((s) => ({ steps: s.doc.steps, connections: s.doc.connections, components: s.doc.components, selection: s.selection })),
+  );
+  const actions = useEditorStore.getState();
+  const flow = useReactFlow();
+
+  const nodes = useMemo<StepNodeType[]>(() => {
+    const sel = new Set(selection.steps);
+    return steps.map((step, i) => ({
+      id: step.id,
+      type: step.kind,
+      position: step.position ?? { x: 80 + i * 300, y: 120 },
+      data: { step },
+      selected: sel.has(step.id),
+    })) as StepNodeType[];
+  }, [steps, selection.steps]);
+
+  const names = useMemo(() => {
+    const out: Record<string, { name: string; kind: string }> = {};
+    for (const c of components) out[keyOf(c)] = { name: c.kind === 'compound' ? c.name : c.kind === 'solvent' ? c.solventId : c.soluteId, kind: c.kind };
+    return out;
+  }, [components]);
+  const productId = useMemo(() => {
+    const p = components.find((c) => c.kind === 'compound' && c.role === 'product');
+    return p ? keyOf(p) : null;
+  }, [components]);
+
+  const edges = useMemo<StreamEdgeType[]>(() => {
+    const sel = new Set(selection.connections);
+    const kindOf = new Map(steps.map((s) => [s.id, s.kind]));
+    return connections.map((c) => ({
+      id: c.id,
+      type: 'stream',
+      source: c.from.stepId,
+      sourceHandle: handleId('out', c.from.port),
+      target: c.to.stepId,
+      targetHandle: handleId('in', c.to.port),
+      selected: sel.has(c.id),
+      ariaLabel: `Stream from ${c.from.stepId} ${c.from.port} to ${c.to.stepId} ${c.to.port}`,
+      data: { phase: portPhase(kindOf.get(c.from.stepId) ?? 'charge', 'out', c.from.port) ?? 'liquid', productId, names },
+    }));
+  }, [connections, steps, selection.connections, productId, names]);
+
+  const onNodesChange = useCallback((changes: NodeChange<StepNodeType>[]) => {
+    const positions: Record<string, { x: number; y: number }> = {};
+    let selChanged = false;
+    const sel = new Set(useEditorStore.getState().selection.steps);
+    for (const ch of changes) {
+      if (ch.type === 'position' && ch.position) positions[ch.id] = { x: Math.round(ch.position.x), y: Math.round(ch.position.y) };
+      if (ch.type === 'select') {
+        selChanged = true;
+        if (ch.selected) sel.add(ch.id);
+        else sel.delete(ch.id);
+      }
+    }
+    if (Object.keys(positions).length) useEditorStore.getState().moveSteps(positions);
+    if (selChanged) useEditorStore.getState().select({ steps: [...sel] });
+  }, []);
+
+  const onEdgesChange = useCallback((changes: EdgeChange<StreamEdgeType>[]) => {
+    const sel = new Set(useEditorStore.getState().selection.connections);
+    let changed = false;
+    for (const ch of changes) {
+      if (ch.type === 'select') {
+        changed = true;
+        if (ch.selected) sel.add(ch.id);
+        else sel.delete(ch.id);
+      }
+    }
+    if (changed) useEditorStore.getState().select({ connections: [...sel] });
+  }, []);
+
+  const isValidConnection = useCallback<IsValidConnection>((c) => {
+    const doc = useEditorStore.getState().doc;
+    const r = checkConnection(doc, { stepId: c.source, port: portOfHandle(c.sourceHandle) }, { stepId: c.target, port: portOfHandle(c.targetHandle) });
+    return r.ok;
+  }, []);
+
+  const onConnect = useCallback((c: Connection) => {
+    useEditorStore.getState().connect({ stepId: c.source, port: portOfHandle(c.sourceHandle) }, { stepId: c.target, port: portOfHandle(c.targetHandle) });
+  }, []);
+
+  const onDrop = useCallback(
+    (e: DragEvent) => {
+      const kind = e.dataTransfer.getData(PALETTE_MIME) as StepKind;
+      if (!kind || !(kind in PORTS)) return;
+      e.preventDefault();
+      const p = flow.screenToFlowPosition({ x: e.clientX, y: e.clientY });
+      useEditorStore.getState().addStep(kind, { x: Math.round(p.x - 120), y: Math.round(p.y - 30) });
+    },
+    [flow],
+  );
+
+  return (
+    <div className="relative h-full w-full" onDragOver={(e) => { if (e.dataTransfer.types.includes(PALETTE_MIME)) { e.preventDefault(); e.dataTransfer.dropEffect = 'copy'; } }} onDrop={onDrop}>
+      <ReactFlow<StepNodeType, StreamEdgeType>
+        nodes={nodes}
+        edges={edges}
+        nodeTypes={nodeTypes}
+        edgeTypes={edgeTypes}
+        onNodesChange={onNodesChange}
+        onEdgesChange={onEdgesChange}
+        onNodeDragStart={actions.beginMove}
+        onNodeDragStop={actions.endMove}
+        onConnect={onConnect}
+        isValidConnection={isValidConnection}
+        deleteKeyCode={null}
+        multiSelectionKeyCode={['Shift', 'Meta', 'Control']}
+        selectionKeyCode="Shift"
+        snapToGrid
+        snapGrid={[20, 20]}
+        fitView
+        fitViewOptions={{ maxZoom: 1, padding: 0.2 }}
+        minZoom={0.1}
+        proOptions={{ hideAttribution: true }}
+        aria-label="Route canvas"
+      >
+        <Background variant={BackgroundVariant.Dots} gap={20} size={1.2} color="#D9D5CB" />
+        <MiniMap pannable zoomable ariaLabel="Overview of the route" nodeColor="#ECEAE4" nodeStrokeColor="#858B94" maskColor="rgba(236,234,228,0.6)" />
+        <Controls showInteractive={false} aria-label="Zoom" />
+      </ReactFlow>
+      <Legend />
+    </div>
+  );
+}
+
+function Legend() {
+  return (
+    <div className="pointer-events-none absolute bottom-2 left-14 flex gap-3 rounded-control border border-rule bg-paper-raised/90 px-2 py-1 text-caption text-ink-muted" aria-label="Phase key">
+      {(Object.keys(PHASES) as Array<keyof typeof PHASES>).map((p) => (
+        <span key={p} className="inline-flex items-center gap-1">
+          <svg width="22" height="6" aria-hidden="true"><line x1="0" y1="3" x2="22" y2="3" stroke={PHASES[p].stroke} strokeWidth="2" strokeDasharray={PHASES[p].dash} /></svg>
+          {PHASES[p].label}
+        </span>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,161 @@
+import { useMemo, useState } from 'react';
+import { useReactFlow } from '@xyflow/react';
+import { PROCESS_SAFETY_NOTE } from '@shared/engine/route/evaluate';
+import { useEditorStore } from '@/stores/editor-store';
+import { useEvaluation } from '../evaluation';
+import { keyOf } from '../document';
+import { componentLabel } from './fields';
+import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
+import { Button } from '@/components/button';
+
+const n = (v: number | null | undefined, d = 1) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
+
+/** Yield, purity, PMI and solvent use of the whole route. */
+export function TotalsCard() {
+  const totals = useEvaluation((s) => s.result?.totals);
+  const status = useEvaluation((s) => s.status);
+  const ms = useEvaluation((s) => s.ms);
+  const items = [
+    { label: 'Isolated yield', value: totals ? `${n(totals.yieldPct)} %` : '—', key: 'yield' },
+    { label: 'Purity', value: totals ? `${n(totals.purityWtPct)} wt %` : '—', key: 'purity' },
+    { label: 'PMI', value: totals ? n(totals.pmi, 0) : '—', key: 'pmi' },
+    { label: 'Solvent', value: totals ? `${n(totals.solventUseLPerKg, 0)} L/kg` : '—', key: 'solvent' },
+  ];
+  return (
+    <section aria-label="Route totals" className="rounded-card border border-rule bg-paper-raised px-3 py-2 shadow-card">
+      <div className="flex items-center justify-between">
+        <h2 className="text-small font-medium">Route totals</h2>
+        <p className="text-caption text-ink-muted" role="status" aria-live="polite">
+          {status === 'running' ? 'Updating…' : status === 'invalid' ? 'Needs input — showing the last complete result' : status === 'empty' ? 'Add a step to start' : `Updated${ms !== null ? ` in ${ms.toFixed(0)} ms` : ''}`}
+        </p>
+      </div>
+      <dl className="mt-1 grid grid-cols-4 gap-2">
+        {items.map((i) => (
+          <div key={i.key}>
+            <dt className="text-caption text-ink-muted">{i.label}</dt>
+            <dd className="text-title font-medium tabular-nums" data-total={i.key}>{i.value}</dd>
+          </div>
+        ))}
+      </dl>
+      {totals ? (
+        <p className="mt-1 text-caption text-ink-muted">
+          E-factor {n(totals.eFactor, 0)} ({n(totals.eFactorExcludingWater, 0)} without water) · cycle time ≈ {n(totals.cycleTimeH)} h (common-practice step durations)
+        </p>
+      ) : null}
+    </section>
+  );
+}
+
+/** Every caution and problem, worst first; choosing one selects its step and brings it into view. */
+export function CautionList() {
+  const result = useEvaluation((s) => s.result);
+  const issues = useEvaluation((s) => (s.status === 'invalid' ? s.issues : []));
+  const steps = useEditorStore((s) => s.doc.steps);
+  const flow = useReactFlow();
+  const nameOf = useMemo(() => new Map(steps.map((s) => [s.id, s.name])), [steps]);
+  const warnings = useMemo(() => [...(result?.warnings ?? [])].sort((a, b) => SEVERITY_ORDER.indexOf(a.severity) - SEVERITY_ORDER.indexOf(b.severity)), [result]);
+  const jump = (stepId: string | null) => {
+    if (!stepId) return;
+    useEditorStore.getState().select({ steps: [stepId], connections: [] });
+    const node = flow.getNode(stepId);
+    if (node) flow.fitView({ nodes: [{ id: stepId }], maxZoom: 1.1, duration: 0 });
+  };
+  return (
+    <div className="space-y-2">
+      {issues.length ? (
+        <ul aria-label="Problems to fix" className="space-y-1">
+          {issues.map((i, k) => (
+            <li key={k}>
+              <button type="button" onClick={() => jump(i.stepId)} className="flex w-full items-start gap-2 rounded-control px-1 py-0.5 text-left text-small hover:bg-accent-soft">
+                <span className="inline-flex items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep"><span aria-hidden="true" className="inline-block size-2 rotate-45 bg-caution-hazard" />Needs input</span>
+                <span><span className="font-medium">{i.stepId ? nameOf.get(i.stepId) ?? i.stepId : 'Route'}</span>{i.field ? ` · ${i.field}` : ''}: {i.message}</span>
+              </button>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {warnings.length ? (
+        <ul aria-label="Cautions" className="space-y-1">
+          {warnings.map((w, k) => (
+            <li key={k}>
+              <button type="button" onClick={() => jump(w.stepId)} className="flex w-full items-start gap-2 rounded-control px-1 py-0.5 text-left text-small hover:bg-accent-soft">
+                <SeverityChip severity={w.severity} />
+                <span><span className="font-medium">{w.stepId ? nameOf.get(w.stepId) ?? w.stepId : 'Route'}</span>: {w.message}</span>
+              </button>
+            </li>
+          ))}
+        </ul>
+      ) : !issues.length ? (
+        <p className="text-small text-ink-muted">No cautions for this route as drawn.</p>
+      ) : null}
+      <p className="border-t border-rule pt-2 text-caption text-ink-muted">{result?.processSafetyNote ?? PROCESS_SAFETY_NOTE}</p>
+    </div>
+  );
+}
+
+/** Every connection's stream: each component's mass, the volume and composition; downloadable as CSV. */
+export function StreamTable() {
+  const result = useEvaluation((s) => s.result);
+  const doc = useEditorStore((s) => s.doc);
+  const [onlyNonZero] = useState(true);
+  const rows = useMemo(() => {
+    if (!result) return [];
+    const stepName = new Map(doc.steps.map((s) => [s.id, s.name]));
+    const out: Array<{ id: string; from: string; to: string; phase: string; T: number; L: number; total: number; kg: Record<string, number> }> = [];
+    for (const c of doc.connections) {
+      const s = result.streams[c.id];
+      if (!s) continue;
+      out.push({ id: c.id, from: `${stepName.get(c.from.stepId)} · ${c.from.port}`, to: `${stepName.get(c.to.stepId)} · ${c.to.port}`, phase: s.phase, T: s.temperatureK - 273.15, L: s.volumeM3 * 1000, total: Object.values(s.kg).reduce((a, b) => a + b, 0), kg: s.kg });
+    }
+    for (const t of result.terminals) {
+      out.push({ id: `${t.stepId}:${t.port}`, from: `${stepName.get(t.stepId)} · ${t.port}`, to: t.isolated ? 'Isolated product' : 'Leaves the route', phase: t.stream.phase, T: t.stream.temperatureK - 273.15, L: t.stream.volumeM3 * 1000, total: Object.values(t.stream.kg).reduce((a, b) => a + b, 0), kg: t.stream.kg });
+    }
+    return out;
+  }, [result, doc]);
+  const comps = doc.components.filter((c) => !onlyNonZero || rows.some((r) => (r.kg[keyOf(c)] ?? 0) > 0));
+  if (!result) return <p className="text-small text-ink-muted">Streams appear once the route can be evaluated.</p>;
+  const csv = () => {
+    const head = ['from', 'to', 'phase', 'temperature_C', 'volume_L', 'total_kg', ...comps.flatMap((c) => [`${keyOf(c)}_kg`, `${keyOf(c)}_wt_pct`])];
+    const lines = rows.map((r) => [r.from, r.to, r.phase, r.T.toFixed(2), r.L.toFixed(4), r.total.toFixed(6), ...comps.flatMap((c) => { const kg = r.kg[keyOf(c)] ?? 0; return [kg.toPrecision(6), r.total > 0 ? ((100 * kg) / r.total).toFixed(3) : '0']; })]);
+    const text = [head, ...lines].map((l) => l.map((x) => (/[",\n]/.test(String(x)) ? `"${String(x).replace(/"/g, '""')}"` : String(x))).join(',')).join('\n');
+    const url = URL.createObjectURL(new Blob([text], { type: 'text/csv' }));
+    const a = document.createElement('a');
+    a.href = url;
+    a.download = `${(doc.name ?? 'route').replace(/[^\w-]+/g, '-')}-streams.csv`;
+    a.click();
+    URL.revokeObjectURL(url);
+  };
+  return (
+    <div className="space-y-2">
+      <div className="flex justify-end"><Button size="sm" variant="secondary" onClick={csv}>Download CSV</Button></div>
+      <div className="overflow-auto rounded-card border border-rule">
+        <table className="w-full border-collapse text-left text-caption tabular-nums">
+          <caption className="sr-only">Streams of the route</caption>
+          <thead>
+            <tr className="bg-paper-sunken text-ink-muted">
+              {['From', 'To', 'Phase', '°C', 'L', 'Total kg', ...comps.map((c) => `${componentLabel(c)} kg (wt %)`)].map((h) => (
+                <th key={h} scope="col" className="border-b border-rule px-2 py-1 font-medium">{h}</th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.id} className="border-b border-rule">
+                <td className="px-2 py-1">{r.from}</td>
+                <td className="px-2 py-1">{r.to}</td>
+                <td className="px-2 py-1">{PHASES[r.phase as keyof typeof PHASES]?.label ?? r.phase}</td>
+                <td className="px-2 py-1">{r.T.toFixed(1)}</td>
+                <td className="px-2 py-1">{r.L.toPrecision(3)}</td>
+                <td className="px-2 py-1">{r.total.toPrecision(4)}</td>
+                {comps.map((c) => {
+                  const kg = r.kg[keyOf(c)] ?? 0;
+                  return <td key={keyOf(c)} className="px-2 py-1">{kg ? `${kg.toPrecision(3)} (${((100 * kg) / (r.total || 1)).toFixed(1)})` : '—'}</td>;
+                })}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,234 @@
+import '@xyflow/react/dist/style.css';
+import './editor.css';
+import { useEffect, useMemo, useState } from 'react';
+import { ReactFlowProvider, useReactFlow } from '@xyflow/react';
+import { useShallow } from 'zustand/react/shallow';
+import { Link } from 'react-router-dom';
+import { Button } from '@/components/button';
+import { formatDateTime } from '@/lib/format';
+import { paths } from '@/paths';
+import { useEditorStore } from '@/stores/editor-store';
+import type { RouteDetail } from '@/features/routes/api/schemas';
+import { useWorkspaceCompounds } from '@/features/routes/api/get-compounds';
+import { requestEvaluation, resetEvaluation, useEvaluation } from '../evaluation';
+import { initialDocument, useAutosave, type SaveState } from '../autosave';
+import { autoLayout } from '../layout';
+import { KINDS } from '../step-kinds';
+import { Canvas } from './canvas';
+import { Palette } from './palette';
+import { StepPanel } from './step-panel';
+import { CautionList, StreamTable, TotalsCard } from './results';
+import { SEVERITY_ORDER } from './phase';
+
+export default function RouteEditor({ workspaceId, route }: { workspaceId: string; route: RouteDetail }) {
+  const start = useMemo(() => initialDocument(route.id, route.draft), [route.id, route.draft]);
+  const [ready, setReady] = useState(false);
+  useEffect(() => {
+    useEditorStore.getState().load(start.doc);
+    setReady(true);
+    return () => resetEvaluation();
+  }, [start]);
+  if (!ready) return null;
+  return (
+    <ReactFlowProvider>
+      <EditorFrame workspaceId={workspaceId} route={route} restored={start.restored} staleLocal={start.staleLocal !== null} />
+    </ReactFlowProvider>
+  );
+}
+
+function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId: string; route: RouteDetail; restored: boolean; staleLocal: boolean }) {
+  const canEdit = route.abilities.edit;
+  const save = useAutosave(workspaceId, route.id, route.draft, canEdit, restored);
+  const compounds = useWorkspaceCompounds(workspaceId);
+  const [tab, setTab] = useState<'cautions' | 'streams'>('cautions');
+  const [help, setHelp] = useState(false);
+  const flow = useReactFlow();
+  const { selected, past, future, notice } = useEditorStore(
+    useShallow((s) => ({
+      selected: s.selection.steps.length === 1 ? s.doc.steps.find((x) => x.id === s.selection.steps[0]) ?? null : null,
+      past: s.past.length,
+      future: s.future.length,
+      notice: s.notice,
+    })),
+  );
+  const cautionCount = useEvaluation((s) => (s.result?.warnings.length ?? 0) + (s.status === 'invalid' ? s.issues.length : 0));
+  const worst = useEvaluation((s) => SEVERITY_ORDER.find((sev) => s.result?.warnings.some((w) => w.severity === sev)));
+
+  // Every change of the model re-evaluates in the worker.
+  useEffect(() => {
+    const st = useEditorStore.getState();
+    requestEvaluation(st.doc, st.modelRevision);
+    return useEditorStore.subscribe((s, prev) => {
+      if (s.modelRevision !== prev.modelRevision) requestEvaluation(s.doc, s.modelRevision);
+    });
+  }, []);
+
+  // Keyboard shortcuts on the editor (not while typing in a field).
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      const t = e.target as HTMLElement;
+      const typing = t.closest('input, textarea, select, [contenteditable="true"]');
+      const st = useEditorStore.getState();
+      const mod = e.ctrlKey || e.metaKey;
+      if (mod && e.key.toLowerCase() === 'z' && !typing) {
+        e.preventDefault();
+        if (e.shiftKey) st.redo();
+        else st.undo();
+      } else if (mod && e.key.toLowerCase() === 'y' && !typing) {
+        e.preventDefault();
+        st.redo();
+      } else if (typing) {
+        return;
+      } else if (mod && e.key.toLowerCase() === 'c') st.copy();
+      else if (mod && e.key.toLowerCase() === 'v') st.paste();
+      else if (mod && e.key.toLowerCase() === 'a') {
+        e.preventDefault();
+        st.selectAll();
+      } else if (e.key === 'Delete' || e.key === 'Backspace') {
+        e.preventDefault();
+        st.removeSelection();
+      } else if (e.key === '?') setHelp((h) => !h);
+      else if (e.key === 'Escape') {
+        setHelp(false);
+        st.select({ steps: [], connections: [] });
+      } else if (e.key.toLowerCase() === 'f' && !mod) flow.fitView({ maxZoom: 1, padding: 0.2 });
+      else if (e.key.toLowerCase() === 'l' && !mod) {
+        st.setPositions(autoLayout(st.doc));
+        requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 }));
+      } else if (e.key.toLowerCase() === 'a' && !mod) {
+        e.preventDefault();
+        document.querySelector<HTMLButtonElement>('#step-palette button')?.focus();
+      }
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [flow]);
+
+  // Keep the view on the new step when one is added.
+  const stepCount = useEditorStore((s) => s.doc.steps.length);
+  useEffect(() => {
+    if (stepCount) requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 }));
+  }, [stepCount, flow]);
+
+  return (
+    <div className="flex h-full flex-col">
+      <header className="flex h-bar shrink-0 items-center gap-3 border-b border-rule bg-paper-raised px-4">
+        <Link to={paths.workspace.home.to(workspaceId)} className="text-small text-accent hover:underline">Routes</Link>
+        <span aria-hidden="true" className="text-ink-faint">/</span>
+        <h1 className="truncate text-lead font-semibold">{route.name}</h1>
+        {route.project ? <span className="text-small text-ink-muted">{route.project.name}</span> : null}
+        <SaveIndicator state={save.state} canEdit={canEdit} />
+        <div className="ml-auto flex items-center gap-1">
+          <Button size="sm" variant="secondary" onClick={() => useEditorStore.getState().undo()} disabled={!past} aria-keyshortcuts="Control+Z">Undo</Button>
+          <Button size="sm" variant="secondary" onClick={() => useEditorStore.getState().redo()} disabled={!future} aria-keyshortcuts="Control+Shift+Z">Redo</Button>
+          <Button size="sm" variant="secondary" onClick={() => { const st = useEditorStore.getState(); st.setPositions(autoLayout(st.doc)); requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 })); }} aria-keyshortcuts="L">Tidy layout</Button>
+          <Button size="sm" variant="secondary" onClick={() => flow.fitView({ maxZoom: 1, padding: 0.2 })} aria-keyshortcuts="F">Fit view</Button>
+          <Button size="sm" variant="quiet" onClick={() => setHelp((h) => !h)} aria-expanded={help} aria-keyshortcuts="?">Shortcuts</Button>
+        </div>
+      </header>
+      {save.state.kind === 'conflict' ? <ConflictBanner current={save.state.current} onTheirs={save.takeTheirs} onMine={save.keepMine} /> : null}
+      {staleLocal ? (
+        <p role="status" className="border-b border-rule bg-caution-advisory-soft px-4 py-1.5 text-small text-caution-advisory-deep">
+          This computer held edits made on an older version of the draft; the saved draft is shown. Use Undo history or ask whoever changed it.
+        </p>
+      ) : null}
+      {restored ? <p role="status" className="border-b border-rule bg-phase-aqueous-soft px-4 py-1.5 text-small text-phase-aqueous-deep">Unsaved edits from this computer were restored and are being saved.</p> : null}
+      <div className="flex min-h-0 flex-1">
+        <Palette />
+        <div className="relative min-w-0 flex-1">
+          <Canvas />
+          {stepCount === 0 ? (
+            <div className="pointer-events-none absolute inset-0 flex items-center justify-center">
+              <div className="rounded-card border border-dashed border-rule-strong bg-paper/90 px-6 py-5 text-center">
+                <p className="text-title font-medium">An empty canvas — start with a Charge</p>
+                <p className="mt-1 max-w-sm text-body text-ink-muted">Pick “Charge” in the list on the left (or press A, then Enter). Each step you add next joins the selected one.</p>
+              </div>
+            </div>
+          ) : null}
+          {notice ? (
+            <p role="alert" className="absolute top-2 left-1/2 -translate-x-1/2 rounded-control border border-caution-warning/50 bg-caution-warning-soft px-3 py-1 text-small text-caution-warning-deep">
+              {notice}
+            </p>
+          ) : null}
+          {help ? <ShortcutHelp onClose={() => setHelp(false)} /> : null}
+        </div>
+        <aside aria-label="Step and results" className="flex w-96 shrink-0 flex-col border-l border-rule bg-paper-raised">
+          <div className="border-b border-rule p-3"><TotalsCard /></div>
+          <div className="min-h-0 flex-1 overflow-y-auto p-3">
+            {selected ? (
+              <>
+                <h2 className="mb-2 text-title font-medium">{KINDS[selected.kind].label}: {selected.name}</h2>
+                <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
+              </>
+            ) : (
+              <p className="text-small text-ink-muted">Select a step to see and change its settings.</p>
+            )}
+          </div>
+          <div className="flex max-h-[40%] min-h-40 flex-col border-t border-rule">
+            <div role="tablist" aria-label="Results" className="flex gap-1 border-b border-rule px-2 pt-1">
+              <button role="tab" aria-selected={tab === 'cautions'} onClick={() => setTab('cautions')} className={`rounded-t-control px-2 py-1 text-small ${tab === 'cautions' ? 'bg-paper-sunken font-medium' : 'text-ink-muted'}`}>
+                Cautions {cautionCount ? <span className="tabular-nums">({cautionCount}{worst ? ` · worst: ${worst}` : ''})</span> : null}
+              </button>
+              <button role="tab" aria-selected={tab === 'streams'} onClick={() => setTab('streams')} className={`rounded-t-control px-2 py-1 text-small ${tab === 'streams' ? 'bg-paper-sunken font-medium' : 'text-ink-muted'}`}>Streams</button>
+            </div>
+            <div role="tabpanel" className="min-h-0 flex-1 overflow-auto p-2">{tab === 'cautions' ? <CautionList /> : <StreamTable />}</div>
+          </div>
+        </aside>
+      </div>
+    </div>
+  );
+}
+
+function SaveIndicator({ state, canEdit }: { state: SaveState; canEdit: boolean }) {
+  if (!canEdit) return <span className="text-small text-ink-muted">Read only — you can look but not change this route</span>;
+  const text =
+    state.kind === 'saved' ? `Draft saved ${formatDateTime(state.at)}` : state.kind === 'pending' ? 'Unsaved changes…' : state.kind === 'saving' ? 'Saving…' : state.kind === 'offline' ? `Not saved yet — kept on this computer (${state.message})` : 'Not saved: changed elsewhere';
+  return <span role="status" aria-live="polite" className={`text-small ${state.kind === 'offline' || state.kind === 'conflict' ? 'text-caution-warning-deep' : 'text-ink-muted'}`} data-save-state={state.kind}>{text}</span>;
+}
+
+function ConflictBanner({ current, onTheirs, onMine }: { current: import('@/features/routes/api/schemas').Draft; onTheirs: (d: typeof current) => void; onMine: (d: typeof current) => void }) {
+  return (
+    <div role="alert" className="flex flex-wrap items-center gap-3 border-b border-caution-warning/50 bg-caution-warning-soft px-4 py-2 text-small text-caution-warning-deep">
+      <svg width="12" height="12" viewBox="0 0 10 10" aria-hidden="true"><path d="M5 0.5 L9.5 9.5 L0.5 9.5 Z" fill="#C4631D" /></svg>
+      <span>
+        <strong>This draft was changed elsewhere by {current.updatedBy?.name ?? 'someone'}</strong> ({formatDateTime(current.updatedAt)}). Your edits are not saved yet and nothing was overwritten.
+      </span>
+      <Button size="sm" variant="secondary" onClick={() => onTheirs(current)}>Reload their version</Button>
+      <Button size="sm" variant="secondary" onClick={() => onMine(current)}>Keep mine</Button>
+    </div>
+  );
+}
+
+const SHORTCUTS: Array<[string, string]> = [
+  ['A', 'Go to the step list; Enter adds the step'],
+  ['Delete / Backspace', 'Delete the selected steps and connections'],
+  ['Ctrl+Z', 'Undo'],
+  ['Ctrl+Shift+Z or Ctrl+Y', 'Redo'],
+  ['Ctrl+C / Ctrl+V', 'Copy and paste the selected steps'],
+  ['Ctrl+A', 'Select everything'],
+  ['Shift+click, Shift+drag', 'Select several steps'],
+  ['F', 'Fit the route in view'],
+  ['L', 'Tidy the layout'],
+  ['Esc', 'Clear the selection, close this panel'],
+  ['?', 'Show or hide these shortcuts'],
+];
+
+function ShortcutHelp({ onClose }: { onClose: () => void }) {
+  return (
+    <section aria-label="Keyboard shortcuts" className="absolute top-3 right-3 z-10 w-80 rounded-card border border-rule bg-paper-raised p-3 shadow-overlay">
+      <div className="mb-2 flex items-center justify-between">
+        <h2 className="text-title font-medium">Keyboard shortcuts</h2>
+        <Button size="sm" variant="quiet" onClick={onClose}>Close</Button>
+      </div>
+      <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-small">
+        {SHORTCUTS.map(([k, d]) => (
+          <div key={k} className="contents">
+            <dt><kbd className="rounded-control border border-rule bg-paper-sunken px-1 text-caption">{k}</kbd></dt>
+            <dd className="text-ink-muted">{d}</dd>
+          </div>
+        ))}
+      </dl>
+      <p className="mt-2 text-caption text-ink-muted">Connections: drag from an output mark (right) to an input mark (left), or choose the source under “Inputs” in a step’s settings.</p>
+    </section>
+  );
+}

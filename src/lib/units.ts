@@ -1,0 +1,202 @@
+/**
+ * Quantities typed the way chemists write them ("250 mL", "10 vol",
+ * "45 °C", "150 mbar", "1.2 equiv", "2.5 kg") converted to the units the
+ * route document stores. Physical units go through mathjs; "vol" (L per kg of
+ * the reference input) and "equiv" (mol per mol of it) are the document's own
+ * relative units and are read here directly. Errors say what was expected.
+ */
+import { create, unitDependencies } from 'mathjs';
+
+const math = create({ unitDependencies });
+
+export type QuantityKind = 'volume' | 'temperature' | 'pressure' | 'equiv' | 'mass' | 'percent' | 'fraction' | 'count' | 'number';
+
+export type Parsed<T> = { ok: true; value: T } | { ok: false; error: string };
+
+const EXAMPLES: Record<QuantityKind, string> = {
+  volume: '“250 mL”, “2 L” or “10 vol”',
+  temperature: '“45 °C”, “318 K” or “45”',
+  pressure: '“150 mbar”, “0.2 bar” or “15 kPa”',
+  equiv: '“1.2 equiv”',
+  mass: '“2.5 kg” or “250 g”',
+  percent: '“12 %” or “12”',
+  fraction: '“0.8” or “80 %”',
+  count: 'a whole number such as “3”',
+  number: 'a number',
+};
+
+/** The number, with "," as decimal mark accepted, and an optional ± range ("10 ± 1 vol" or "10 +/- 1 vol"). */
+function splitRange(text: string): { main: string; plusMinus: string | null } {
+  const m = text.split(/±|\+\/-/);
+  if (m.length === 2) {
+    const unit = m[1].trim().replace(/^[-+0-9.eE\s]+/, '');
+    return { main: `${m[0].trim()} ${unit}`.trim(), plusMinus: `${m[1].trim()}` };
+  }
+  return { main: text, plusMinus: null };
+}
+
+function normalise(text: string): string {
+  return text
+    .trim()
+    .replace(/(\d),(\d)/g, '$1.$2')
+    .replace(/°\s*C|℃/g, ' degC')
+    .replace(/°\s*F/g, ' degF')
+    .replace(/\bdeg\s*C\b/gi, ' degC')
+    .replace(/\bmin\b/g, ' minute')
+    .replace(/\s+/g, ' ')
+    .trim();
+}
+
+const plainNumber = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
+function toUnit(text: string, target: string, kind: QuantityKind): Parsed<number> {
+  const t = normalise(text);
+  if (!t) return { ok: false, error: `Enter a value, for example ${EXAMPLES[kind]}.` };
+  try {
+    const u = math.unit(t);
+    if (!u.equalBase(math.unit(target))) {
+      return { ok: false, error: `“${text.trim()}” is not a ${kind}. Write it as ${EXAMPLES[kind]}.` };
+    }
+    const v = u.toNumber(target);
+    if (!Number.isFinite(v)) return { ok: false, error: `“${text.trim()}” is not a number.` };
+    return { ok: true, value: v };
+  } catch {
+    return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES[kind]}.` };
+  }
+}
+
+export type VolumeValue = { value: number; unit: 'L' | 'vol' };
+
+/** "10 vol" → {10, vol}; "250 mL" → {0.25, L}; a bare number is taken as vol (the usual way to write charges). */
+export function parseVolume(text: string): Parsed<VolumeValue> {
+  const t = normalise(text);
+  const rel = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(vol|vols|volumes|V)$/i.exec(t);
+  if (rel) return nonNegative({ value: Number(rel[1]), unit: 'vol' as const }, (v) => v.value);
+  if (plainNumber.test(t)) return nonNegative({ value: Number(t), unit: 'vol' as const }, (v) => v.value);
+  const r = toUnit(t, 'L', 'volume');
+  if (!r.ok) return r;
+  return nonNegative({ value: round(r.value), unit: 'L' as const }, (v) => v.value);
+}
+
+function nonNegative<T>(v: T, n: (v: T) => number): Parsed<T> {
+  return n(v) < 0 ? { ok: false, error: 'Enter a value of zero or more.' } : { ok: true, value: v };
+}
+
+/** °C; a bare number is °C. */
+export function parseTemperatureC(text: string): Parsed<number> {
+  const t = normalise(text);
+  if (plainNumber.test(t)) return { ok: true, value: Number(t) };
+  return mapOk(toUnit(t, 'degC', 'temperature'), round);
+}
+
+/** mbar; a bare number is mbar. */
+export function parsePressureMbar(text: string): Parsed<number> {
+  const t = normalise(text);
+  if (plainNumber.test(t)) return { ok: true, value: Number(t) };
+  return mapOk(toUnit(t, 'mbar', 'pressure'), round);
+}
+
+/** kg; a bare number is kg. */
+export function parseMassKg(text: string): Parsed<number> {
+  const t = normalise(text);
+  if (plainNumber.test(t)) return { ok: true, value: Number(t) };
+  return mapOk(toUnit(t, 'kg', 'mass'), round);
+}
+
+/** equiv (mol per mol of the reference input). */
+export function parseEquiv(text: string): Parsed<number> {
+  const t = normalise(text);
+  const m = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(equiv|eq|equivalents?)?$/i.exec(t);
+  if (!m) return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.equiv}.` };
+  return { ok: true, value: Number(m[1]) };
+}
+
+/** Percent: "12 %" or "12". */
+export function parsePercent(text: string): Parsed<number> {
+  const t = normalise(text).replace(/\s*(%|wt%|wt ?%)$/i, '');
+  if (!plainNumber.test(t)) return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.percent}.` };
+  return { ok: true, value: Number(t) };
+}
+
+/** A fraction: "0.8" or "80 %". */
+export function parseFraction(text: string): Parsed<number> {
+  const t = normalise(text);
+  const pct = /^(.*?)\s*%$/.exec(t);
+  if (pct && plainNumber.test(pct[1])) return { ok: true, value: Number(pct[1]) / 100 };
+  if (!plainNumber.test(t)) return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.fraction}.` };
+  return { ok: true, value: Number(t) };
+}
+
+export function parseCount(text: string): Parsed<number> {
+  const t = normalise(text);
+  if (!/^\d+$/.test(t)) return { ok: false, error: `Enter ${EXAMPLES.count}.` };
+  return { ok: true, value: Number(t) };
+}
+
+export function parseNumber(text: string): Parsed<number> {
+  const t = normalise(text);
+  if (!plainNumber.test(t)) return { ok: false, error: `“${text.trim()}” is not a number.` };
+  return { ok: true, value: Number(t) };
+}
+
+export const PARSERS = {
+  temperature: parseTemperatureC,
+  pressure: parsePressureMbar,
+  mass: parseMassKg,
+  equiv: parseEquiv,
+  percent: parsePercent,
+  fraction: parseFraction,
+  count: parseCount,
+  number: parseNumber,
+} as const;
+
+/** Parse a scalar with an optional ± range: "10 ± 2 °C" → {value:10, plusMinus:2}. */
+export function parseUncertain(text: string, parse: (t: string) => Parsed<number>): Parsed<number | { value: number; plusMinus: number }> {
+  const { main, plusMinus } = splitRange(text);
+  const v = parse(main);
+  if (!v.ok || plusMinus === null) return v;
+  const pm = /^\s*([-+]?(?:\d+\.?\d*|\.\d+))/.exec(plusMinus);
+  if (!pm) return { ok: false, error: 'Write the range as “10 ± 1”.' };
+  return { ok: true, value: { value: v.value, plusMinus: Math.abs(Number(pm[1])) } };
+}
+
+/** The way a stored value is shown back in its field. */
+export function formatQuantity(kind: QuantityKind, value: unknown): string {
+  const withRange = (v: unknown, suffix: string) => {
+    if (typeof v === 'number') return `${fmt(v)}${suffix}`;
+    if (v && typeof v === 'object' && 'value' in v) {
+      const u = v as { value: number; plusMinus: number };
+      return `${fmt(u.value)} ± ${fmt(u.plusMinus)}${suffix}`;
+    }
+    return '';
+  };
+  switch (kind) {
+    case 'volume': {
+      const v = value as VolumeValue | undefined;
+      if (!v) return '';
+      return withRange(v.value, v.unit === 'vol' ? ' vol' : ' L');
+    }
+    case 'temperature':
+      return withRange(value, ' °C');
+    case 'pressure':
+      return withRange(value, ' mbar');
+    case 'equiv':
+      return withRange(value, ' equiv');
+    case 'mass':
+      return withRange(value, ' kg');
+    case 'percent':
+      return withRange(value, ' %');
+    default:
+      return withRange(value, '');
+  }
+}
+
+function fmt(v: number): string {
+  return String(round(v));
+}
+function round(v: number): number {
+  return Number(v.toPrecision(10));
+}
+function mapOk(r: Parsed<number>, f: (v: number) => number): Parsed<number> {
+  return r.ok ? { ok: true, value: f(r.value) } : r;
+}

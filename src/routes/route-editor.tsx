@@ -1,0 +1,31 @@
+import { lazy, Suspense } from 'react';
+import { useParams } from 'react-router-dom';
+import { useWorkspace } from '@/features/auth/use-workspace';
+import { Loading } from '@/components/spinner';
+import { ErrorState } from '@/components/error-state';
+import { useRoute } from '@/features/routes/api/get-route';
+
+// The canvas, React Flow and the engine worker load only when a route is opened.
+const RouteEditor = lazy(() => import('@/features/editor/components/route-editor'));
+
+/** One route's draft, open in the editor (full width beside the navigation rail). */
+export function Component() {
+  const workspace = useWorkspace();
+  const { routeId = '' } = useParams();
+  const route = useRoute(workspace.id, routeId);
+  return (
+    <div className="fixed inset-y-0 right-0 left-rail z-10 flex flex-col bg-paper">
+      {route.isPending ? (
+        <Loading label="Opening the route…" className="justify-center" />
+      ) : route.isError ? (
+        <div className="p-6">
+          <ErrorState title="The route could not be opened" error={route.error} onRetry={() => route.refetch()} />
+        </div>
+      ) : (
+        <Suspense fallback={<Loading label="Loading the editor…" className="justify-center" />}>
+          <RouteEditor key={route.data.id} workspaceId={workspace.id} route={route.data} />
+        </Suspense>
+      )}
+    </div>
+  );
+}
