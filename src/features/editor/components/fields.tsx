@@ -171,7 +171,7 @@ export function ComponentPicker({ label, value, onChange, filter = 'any', compou
     <Field label={label} htmlFor={id} error={error} hint={hint}>
       <select
         id={id}
-        value={value}
+        value={`route::${value}`}
         onChange={(e) => {
           const v = e.target.value;
           const [src, key] = v.split('::');

@@ -8,6 +8,7 @@ import { componentLabel } from './fields';
 import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
 import { Button } from '@/components/button';
 
+const NO_ISSUES: never[] = [];
 const n = (v: number | null | undefined, d = 1) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
 
 /** Yield, purity, PMI and solvent use of the whole route. */
@@ -49,7 +50,7 @@ export function TotalsCard() {
 /** Every caution and problem, worst first; choosing one selects its step and brings it into view. */
 export function CautionList() {
   const result = useEvaluation((s) => s.result);
-  const issues = useEvaluation((s) => (s.status === 'invalid' ? s.issues : []));
+  const issues = useEvaluation((s) => (s.status === 'invalid' ? s.issues : NO_ISSUES));
   const steps = useEditorStore((s) => s.doc.steps);
   const flow = useReactFlow();
   const nameOf = useMemo(() => new Map(steps.map((s) => [s.id, s.name])), [steps]);

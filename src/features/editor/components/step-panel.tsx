@@ -1,4 +1,5 @@
 import { useMemo } from 'react';
+import { useShallow } from 'zustand/react/shallow';
 import { stepSchema, PORTS, type StepKind } from '@shared/schemas/route';
 import type { Compound } from '@shared/schemas/compounds';
 import { Button } from '@/components/button';
@@ -10,11 +11,12 @@ import { ChoiceField, ComponentPicker, QuantityField, TextInputField } from './f
 import { PhaseMark } from './phase';
 
 type Path = ReadonlyArray<string | number>;
+const NONE: never[] = [];
 
 /** The selected step's parameters as a form; every field checked by the shared schema, engine problems placed on their field. */
 export function StepPanel({ step, compounds }: { step: StepInput; compounds?: Compound[] }) {
   const updateStep = useEditorStore((s) => s.updateStep);
-  const engineIssues = useEvaluation((s) => (s.status === 'invalid' ? s.issues.filter((i) => i.stepId === step.id) : []));
+  const engineIssues = useEvaluation(useShallow((s) => (s.status === 'invalid' ? s.issues.filter((i) => i.stepId === step.id) : NONE)));
   const schemaErrors = useMemo(() => {
     const r = stepSchema.safeParse(step);
     const out: Record<string, string> = {};
