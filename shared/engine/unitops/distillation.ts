@@ -14,8 +14,9 @@
  *
  * Put-and-take: distil to the target volume, then `cycles` times: add the new
  * solvent, distil back to the target. Constant volume: the new solvent is fed
- * as fast as distillate is taken, holding the starting volume; integrated as
- * 12 small add-and-distil increments. Volumes are at 20 °C.
+ * as fast as distillate is taken, holding the starting volume; the feed and
+ * the vapour are integrated together (rayleigh.ts, rayleighConstantVolume;
+ * 12 legs, about 16 Heun increments per pot volume fed). Volumes are at 20 °C.
  *
  * Units: volumes [m³] inside, reported in L; T [K] inside, reported in °C;
  * P [Pa] inside, reported in mbar.
@@ -29,7 +30,7 @@ import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 import { solventVle } from './equilibria';
-import { rayleighToVolume, type PotVle } from './rayleigh';
+import { rayleighConstantVolume, rayleighToVolume, type PotVle } from './rayleigh';
 import { solubilityIn } from './solubility-model';
 
 /** Reference temperature of reported and target volumes [K]. */
@@ -79,8 +80,17 @@ function originalWtPct(ctx: EvalContext, st: DistilState): number {
  * Distil the pot in `st` to `targetM3` (volume at 20 °C) by the Rayleigh
  * equation with the UNIFAC VLE; updates st (pot, distillate, profile).
  */
-export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, cond: DistillationCondition, increments: number, warnings: EngineWarning[], methods: MethodUsed[]) {
-  const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && st.pot[id] > 0);
+export interface LegFeed {
+  /** Solvent fed as fast as it distils (constant-volume mode). */
+  solventId: string;
+  /** Volume fed during the leg, at 20 °C [m³]. */
+  m3: number;
+  /** Adds the fed solvent to the pot and the step's bookkeeping (kg from the volume at 20 °C). */
+  add: (m3: number) => void;
+}
+
+export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, cond: DistillationCondition, increments: number, warnings: EngineWarning[], methods: MethodUsed[], feed?: LegFeed) {
+  const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && (st.pot[id] > 0 || id === feed?.solventId));
   if (vol.length === 0) {
     warn(warnings, 'warning', 'nothing-to-distil', 'No volatile solvent is left in the pot.');
     return;
@@ -145,7 +155,14 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
     return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
   };
   method(methods, 'distillation', 'Rayleigh equation, Heun integration, modified Raoult with UNIFAC; heterogeneous bubble point while two liquids are present', 'Rayleigh, Phil. Mag. 1902, 4, 521; UNIFAC: Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352; Antoine constants from the solvent library');
-  const r = rayleighToVolume(moles, mv, fixed, targetM3, potVle, increments);
+  let r;
+  if (feed) {
+    // Constant volume: the fed solvent replaces the distillate volume for volume.
+    r = rayleighConstantVolume(moles, mv, vol.indexOf(feed.solventId), feed.m3, potVle, increments, fixed);
+    feed.add(feed.m3);
+  } else {
+    r = rayleighToVolume(moles, mv, fixed, targetM3, potVle, increments);
+  }
   for (const w of vleWarnings) warn(warnings, 'info', 'vle', w);
   if (r.exhausted) warn(warnings, 'warning', 'target-below-solids', 'The volatile solvents ran out before the target volume: the pot is at dryness (the non-volatile contents exceed the target volume).');
   vol.forEach((id, i) => {
@@ -154,6 +171,7 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
     st.distillate[id] += removed;
   });
   const base = st.distillateM3;
+  const fedBase = st.newSolventAddedM3 - (feed?.m3 ?? 0);
   for (const p of r.profile.slice(1)) {
     st.maxT_K = Math.max(st.maxT_K, p.T_K);
     st.minVolumeM3 = Math.min(st.minVolumeM3, p.volume);
@@ -163,7 +181,7 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
       potVolumeL: round(p.volume * 1000, 4),
       potTemperatureC: round(p.T_K - 273.15, 3),
       pressureMbar: round(p.P_Pa / MBAR, 2),
-      newSolventAddedL: round(st.newSolventAddedM3 * 1000, 4),
+      newSolventAddedL: round((p.fed !== undefined ? fedBase + p.fed : st.newSolventAddedM3) * 1000, 4),
       originalSolventWtPct: NaN,
     });
   }
@@ -234,11 +252,14 @@ export function distillation(inputs: Record<string, Stream | undefined>, params:
       distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
     }
   } else {
+    // 12 legs (a residual reported after each), each integrated continuously
+    // (rayleighConstantVolume) with at least 2 Heun increments and about 16
+    // increments per pot volume fed in all.
     const addV = volumeToM3(ctx, mode.addVolume);
     const K = 12;
+    const perLeg = Math.max(2, Math.min(16, Math.ceil((16 * addV) / Math.max(1e-12, startVolume) / K)));
     for (let k = 0; k < K; k++) {
-      add(addV / K);
-      distilLeg(ctx, st, startVolume, cond, 2, W, Ms);
+      distilLeg(ctx, st, startVolume, cond, perLeg, W, Ms, { solventId: newId!, m3: addV / K, add });
     }
   }
   const potVol = streamVolume(ctx, st.pot, VOLUME_REFERENCE_K);
