@@ -70,11 +70,11 @@ function withComponents(doc: EditorDoc, needs: ComponentInput[]): EditorDoc {
 
 /** A free place for a new card: right of the rightmost card, or below the selection's source. */
 function nextPosition(doc: EditorDoc, after?: StepInput): { x: number; y: number } {
-  if (after?.position) return { x: after.position.x + 300, y: after.position.y };
+  if (after?.position) return { x: after.position.x + 340, y: after.position.y };
   if (!doc.steps.length) return { x: 80, y: 120 };
   const maxX = Math.max(...doc.steps.map((s) => s.position?.x ?? 0));
   const at = doc.steps.find((s) => (s.position?.x ?? 0) === maxX);
-  return { x: maxX + 300, y: at?.position?.y ?? 120 };
+  return { x: maxX + 340, y: at?.position?.y ?? 120 };
 }
 
 export const useEditorStore = create<EditorState>((set, get) => {
