@@ -186,4 +186,15 @@ describe('solvent swaps through the route model (UNIFAC VLE)', () => {
     expect(d.profile[d.profile.length - 1].newSolventAddedL).toBeCloseTo(16, 6);
     for (let i = 1; i < d.profile.length; i++) expect(d.profile[i].newSolventAddedL).toBeGreaterThanOrEqual(d.profile[i - 1].newSolventAddedL);
   });
+  it('the constant-volume swap closes the mass balance of every component to 1e-9', () => {
+    const res = evaluateRoute(base({ kind: 'constant-volume', addSolventId: 'toluene', addVolume: { value: 16, unit: 'vol' } }));
+    const feed = res.streams['c1'].kg;
+    const outs = res.terminals.filter((t) => t.stepId === 'swap');
+    expect(outs.length).toBe(2);
+    for (const id of ['ethyl-acetate', 'toluene', 'p']) {
+      const out = outs.reduce((a, t) => a + t.stream.kg[id], 0);
+      const inn = feed[id] + (res.steps['swap'].addedKg[id] ?? 0);
+      expect(Math.abs(out - inn)).toBeLessThanOrEqual(1e-9 * Math.max(1, inn));
+    }
+  });
 });
