@@ -25,14 +25,43 @@ const EXAMPLES: Record<QuantityKind, string> = {
   number: 'a number',
 };
 
-/** The number, with "," as decimal mark accepted, and an optional ± range ("10 ± 1 vol" or "10 +/- 1 vol"). */
-function splitRange(text: string): { main: string; plusMinus: string | null } {
-  const m = text.split(/±|\+\/-/);
-  if (m.length === 2) {
-    const unit = m[1].trim().replace(/^[-+0-9.eE\s]+/, '');
-    return { main: `${m[0].trim()} ${unit}`.trim(), plusMinus: `${m[1].trim()}` };
-  }
-  return { main: text, plusMinus: null };
+const NUMBER_AND_REST = /^\s*([-+]?(?:\d+(?:[.,]\d*)?|[.,]\d+)(?:[eE][-+]?\d+)?)\s*(.*)$/;
+
+type Range = { centre: number; plusMinus: number; unit: string } | { error: string };
+
+/**
+ * "10 ± 1 vol", "10 vol ± 1", "250 ± 10 mL" or "10 +/- 1 vol": the centre, the half-width and the
+ * unit (written once, on either side); null when the text has no ± at all. "," is a decimal mark.
+ */
+function splitRange(text: string): Range | null {
+  const parts = text.split(/±|\+\/-/);
+  if (parts.length === 1) return null;
+  const left = parts.length === 2 ? NUMBER_AND_REST.exec(parts[0]) : null;
+  const right = parts.length === 2 ? NUMBER_AND_REST.exec(parts[1]) : null;
+  if (!left || !right) return { error: 'Write the range as “10 ± 1 vol”.' };
+  const [lu, ru] = [left[2].trim(), right[2].trim()];
+  if (lu && ru && lu !== ru) return { error: 'Write the unit once, for example “10 ± 1 vol”.' };
+  const num = (s: string) => Number(s.replace(',', '.'));
+  return { centre: num(left[1]), plusMinus: Math.abs(num(right[1])), unit: lu || ru };
+}
+
+/**
+ * A value with an optional ± range, parsed by `parse`; the half-width is converted with the
+ * centre's unit ("250 ± 10 mL" → 0.25 ± 0.01 L; "318 ± 2 K" → 44.85 ± 2 °C).
+ */
+function withRange<T>(text: string, parse: (t: string) => Parsed<T>, number: (v: T) => number): Parsed<{ centre: T; plusMinus: number | null }> {
+  const range = splitRange(text);
+  if (range === null) return mapParsed(parse(text), (centre) => ({ centre, plusMinus: null }));
+  if ('error' in range) return { ok: false, error: range.error };
+  const centre = parse(`${range.centre} ${range.unit}`.trim());
+  if (!centre.ok) return centre;
+  const upper = parse(`${range.centre + range.plusMinus} ${range.unit}`.trim());
+  if (!upper.ok) return upper;
+  return { ok: true, value: { centre: centre.value, plusMinus: round(Math.abs(number(upper.value) - number(centre.value))) } };
+}
+
+function mapParsed<A, B>(r: Parsed<A>, f: (v: A) => B): Parsed<B> {
+  return r.ok ? { ok: true, value: f(r.value) } : r;
 }
 
 function normalise(text: string): string {
@@ -73,7 +102,7 @@ export function parseVolume(text: string): Parsed<VolumeValue> {
   const rel = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(vol|vols|volumes|V)$/i.exec(t);
   if (rel) return nonNegative({ value: Number(rel[1]), unit: 'vol' as const }, (v) => v.value);
   if (plainNumber.test(t)) return nonNegative({ value: Number(t), unit: 'vol' as const }, (v) => v.value);
-  const r = toUnit(t, 'L', 'volume');
+  const r = toUnit(text, 'L', 'volume');
   if (!r.ok) return r;
   return nonNegative({ value: round(r.value), unit: 'L' as const }, (v) => v.value);
 }
@@ -86,21 +115,21 @@ function nonNegative<T>(v: T, n: (v: T) => number): Parsed<T> {
 export function parseTemperatureC(text: string): Parsed<number> {
   const t = normalise(text);
   if (plainNumber.test(t)) return { ok: true, value: Number(t) };
-  return mapOk(toUnit(t, 'degC', 'temperature'), round);
+  return mapOk(toUnit(text, 'degC', 'temperature'), round);
 }
 
 /** mbar; a bare number is mbar. */
 export function parsePressureMbar(text: string): Parsed<number> {
   const t = normalise(text);
   if (plainNumber.test(t)) return { ok: true, value: Number(t) };
-  return mapOk(toUnit(t, 'mbar', 'pressure'), round);
+  return mapOk(toUnit(text, 'mbar', 'pressure'), round);
 }
 
 /** kg; a bare number is kg. */
 export function parseMassKg(text: string): Parsed<number> {
   const t = normalise(text);
   if (plainNumber.test(t)) return { ok: true, value: Number(t) };
-  return mapOk(toUnit(t, 'kg', 'mass'), round);
+  return mapOk(toUnit(text, 'kg', 'mass'), round);
 }
 
 /** equiv (mol per mol of the reference input). */
@@ -152,12 +181,16 @@ export const PARSERS = {
 
 /** Parse a scalar with an optional ± range: "10 ± 2 °C" → {value:10, plusMinus:2}. */
 export function parseUncertain(text: string, parse: (t: string) => Parsed<number>): Parsed<number | { value: number; plusMinus: number }> {
-  const { main, plusMinus } = splitRange(text);
-  const v = parse(main);
-  if (!v.ok || plusMinus === null) return v;
-  const pm = /^\s*([-+]?(?:\d+\.?\d*|\.\d+))/.exec(plusMinus);
-  if (!pm) return { ok: false, error: 'Write the range as “10 ± 1”.' };
-  return { ok: true, value: { value: v.value, plusMinus: Math.abs(Number(pm[1])) } };
+  return mapParsed(withRange(text, parse, (v) => v), ({ centre, plusMinus }) => (plusMinus === null ? centre : { value: centre, plusMinus }));
+}
+
+export type UncertainVolumeValue = { value: number | { value: number; plusMinus: number }; unit: 'L' | 'vol' };
+
+/** A volume with an optional ± range: "10 ± 1 vol" → {value: {10, ±1}, unit: vol}; "250 ± 10 mL" → {value: {0.25, ±0.01}, unit: L}. */
+export function parseUncertainVolume(text: string): Parsed<UncertainVolumeValue> {
+  return mapParsed(withRange(text, parseVolume, (v) => v.value), ({ centre, plusMinus }) =>
+    plusMinus === null ? centre : { unit: centre.unit, value: { value: centre.value, plusMinus } },
+  );
 }
 
 /** The way a stored value is shown back in its field. */

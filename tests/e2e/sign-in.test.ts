@@ -1,9 +1,10 @@
 import type { Server } from 'node:http';
 import { randomBytes } from 'node:crypto';
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Membership, Workspace } from '../../server/models';
 import { useTestServer } from '../support/app';
 import { buildMember } from '../support/factories';
+import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { tokenFromLink, waitForMail } from '../support/mail';
 import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
 
@@ -21,16 +22,19 @@ let browser: Browser;
 beforeAll(async () => {
   assertClientBuilt();
   http = await listen(server.app, port);
+});
+
+// Each flow gets its own browser profile (no session, cookies or storage carried over), so one
+// failing flow cannot leave the next signed in or on the wrong page.
+beforeEach(async () => {
   browser = await launchBrowser();
 });
 
-beforeEach(() => {
-  // Each flow answers for the page errors it caused.
-  browser.problems.length = 0;
+afterEach(async () => {
+  await browser?.close();
 });
 
 afterAll(async () => {
-  await browser?.close();
   await closeServer(http);
 });
 
@@ -48,7 +52,7 @@ async function signOut() {
 }
 
 describe('signing in', () => {
-  it('takes the chemist to the workspace home with its empty state, and signs out', async () => {
+  it('takes the chemist to the routes list with the demo route, and signs out', async () => {
     const { page, shot } = browser;
     await page.goto(base + '/');
     // Signed out: the app shows the sign-in page.
@@ -59,14 +63,14 @@ describe('signing in', () => {
     await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
     expect(new URL(page.url()).pathname).toMatch(/^\/w\/[^/]+$/);
     await expect(page.getByText(DEMO_WORKSPACE).first().isVisible()).resolves.toBe(true);
-    const emptyState = page.getByRole('heading', { name: 'No routes yet — create your first isolation route' });
-    await expect(emptyState.isVisible()).resolves.toBe(true);
-    await expect(page.getByRole('button', { name: 'Create a route' }).isDisabled()).resolves.toBe(true);
+    // The demo workspace holds the seeded demo route; a chemist may start a new one.
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).waitFor();
+    await expect(page.getByRole('button', { name: 'New route' }).isEnabled()).resolves.toBe(true);
     // The chemist's role is shown; admin-only places are not offered.
     await expect(page.locator('header').getByText('Chemist', { exact: true }).isVisible()).resolves.toBe(true);
     await expect(page.getByRole('link', { name: 'Outbox' }).count()).resolves.toBe(0);
     await expect(page.getByRole('link', { name: 'Members' }).isVisible()).resolves.toBe(true);
-    await shot('02-workspace-home');
+    await shot('02-routes-list');
 
     await signOut();
     await shot('03-signed-out');

@@ -3,7 +3,7 @@ import { SOLVENTS, AQUEOUS_SOLUTES } from '@shared/engine/data';
 import { compoundSnapshotSchema } from '@shared/schemas/route';
 import type { Compound } from '@shared/schemas/compounds';
 import { FieldError } from '@/components/text-field';
-import { formatQuantity, parseUncertain, parseVolume, PARSERS, type QuantityKind } from '@/lib/units';
+import { formatQuantity, parseUncertain, parseUncertainVolume, parseVolume, PARSERS, type QuantityKind } from '@/lib/units';
 import { useEditorStore } from '@/stores/editor-store';
 import { keyOf, type ComponentInput } from '../document';
 
@@ -49,10 +49,7 @@ export function QuantityField({ label, kind, value, onCommit, hint, error, commo
     if (text === shown) return;
     let r: { ok: true; value: unknown } | { ok: false; error: string };
     if (kind === 'volume') {
-      const { main, pm } = splitPm(text);
-      const v = parseVolume(main);
-      if (v.ok && pm !== null) r = { ok: true, value: { ...v.value, value: { value: v.value.value, plusMinus: pm } } };
-      else r = v;
+      r = allowRange ? parseUncertainVolume(text) : parseVolume(text);
     } else {
       const parse = PARSERS[kind as keyof typeof PARSERS];
       r = allowRange ? parseUncertain(text, parse) : parse(text);
@@ -82,14 +79,6 @@ export function QuantityField({ label, kind, value, onCommit, hint, error, commo
       />
     </Field>
   );
-}
-
-function splitPm(text: string): { main: string; pm: number | null } {
-  const parts = text.split(/±|\+\/-/);
-  if (parts.length !== 2) return { main: text, pm: null };
-  const m = /^\s*((?:\d+\.?\d*|\.\d+))\s*(.*)$/.exec(parts[1]);
-  if (!m) return { main: text, pm: null };
-  return { main: `${parts[0].trim()} ${m[2]}`.trim(), pm: Number(m[1]) };
 }
 
 export function ChoiceField({ label, value, options, onChange, hint, error }: { label: string; value: string; options: Array<{ value: string; label: string }>; onChange: (v: string) => void; hint?: ReactNode; error?: string }) {
