@@ -6,14 +6,14 @@
  * process.memoryUsage() here only (the engine itself uses no Node APIs).
  */
 import { measure, type BenchResult } from './harness';
-import { generateRoute } from '../fixtures/routes/generate';
+import { BENCH_WEIGHTS, generateRoute } from '../fixtures/routes/generate';
 import { evaluatePrepared, parseRoute, prepareRoute } from '../../shared/engine/route/evaluate';
 import { monteCarlo } from '../../shared/engine/route/monte-carlo';
 
 function route(steps: number, components: number, seed = 11) {
   // About two distillations per 30 steps (weights), the rest washes and simple steps;
   // compounds are added until the route has `components` components.
-  const make = (compounds: number) => generateRoute({ seed, steps, compounds, weights: { wash: 8, distillation: 1, charge: 1, carbon: 1, polish: 1, quench: 0, ph: 0, splitmerge: 1 } });
+  const make = (compounds: number) => generateRoute({ seed, steps, compounds, weights: BENCH_WEIGHTS });
   const base = make(1).components.length - 1;
   return make(Math.max(1, components - base));
 }
@@ -48,7 +48,7 @@ export async function run(): Promise<BenchResult[]> {
 
   // Cost against steps and components (washes only, no distillation; and with distillations).
   for (const [steps, compounds, dist] of [[10, 2, false], [30, 2, false], [100, 2, false], [30, 6, false], [30, 12, false], [30, 2, true]] as const) {
-    const d = generateRoute({ seed: 3, steps, compounds, weights: { wash: 6, distillation: dist ? 2 : 0, charge: 1, carbon: 1, polish: 1, quench: 0, ph: 0, splitmerge: 1 } });
+    const d = generateRoute({ seed: 3, steps, compounds, weights: { ...BENCH_WEIGHTS, wash: 6, extraction: 0, distillation: dist ? 2 : 0, cvswap: 0 } });
     const p = prepareRoute(parseRoute(d));
     out.push({ ...measure(`scaling: ${steps} steps × ${d.components.length} components${dist ? ', with distillations' : ''}`, () => evaluatePrepared(p, null), { samples: 30, batch: 3, warmup: 10 }), note: `${d.steps.filter((s) => s.kind === 'distillation').length} distillations` });
   }

@@ -91,7 +91,9 @@ export interface LegFeed {
 
 export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, cond: DistillationCondition, increments: number, warnings: EngineWarning[], methods: MethodUsed[], feed?: LegFeed) {
   const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && (st.pot[id] > 0 || id === feed?.solventId));
-  if (vol.length === 0) {
+  // An empty pot (no volatile solvent at all, e.g. the feed stream is empty): nothing to distil, and in
+  // constant-volume mode nothing is fed either (there is no pot volume to hold).
+  if (vol.length === 0 || vol.every((id) => !(st.pot[id] > 0))) {
     warn(warnings, 'warning', 'nothing-to-distil', 'No volatile solvent is left in the pot.');
     return;
   }

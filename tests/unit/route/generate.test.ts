@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { generateRoute } from '../../fixtures/routes/generate';
+import { BENCH_WEIGHTS, generateRoute } from '../../fixtures/routes/generate';
 
 describe('route generator (property tests and benchmarks)', () => {
   it('makes exactly the requested number of steps', () => {
@@ -11,9 +11,10 @@ describe('route generator (property tests and benchmarks)', () => {
   });
   it('the benchmark\'s 30-step, 10-component route has 30 steps', () => {
     // Built as tests/bench/route.bench.ts does (compounds added until 10 components).
-    const make = (compounds: number) => generateRoute({ seed: 11, steps: 30, compounds, weights: { wash: 8, distillation: 1, charge: 1, carbon: 1, polish: 1, quench: 0, ph: 0, splitmerge: 1 } });
+    const make = (compounds: number) => generateRoute({ seed: 11, steps: 30, compounds, weights: BENCH_WEIGHTS });
     const d = make(Math.max(1, 10 - (make(1).components.length - 1)));
     expect(d.components.length).toBe(10);
     expect(d.steps.length).toBe(30);
+    expect(d.steps.filter((s) => s.kind === 'distillation').length).toBeGreaterThanOrEqual(1);
   });
 });
