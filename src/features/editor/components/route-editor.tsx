@@ -18,6 +18,8 @@ import { Canvas } from './canvas';
 import { Palette } from './palette';
 import { StepPanel } from './step-panel';
 import { CautionList, StreamTable, TotalsCard } from './results';
+import { ProductFlow, PurgePlot, StepPlot } from './plots';
+import { UncertaintyPanel } from './uncertainty';
 import { SEVERITY_ORDER } from './phase';
 
 export default function RouteEditor({ workspaceId, route }: { workspaceId: string; route: RouteDetail }) {
@@ -40,7 +42,7 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
   const canEdit = route.abilities.edit;
   const save = useAutosave(workspaceId, route.id, route.draft, canEdit, restored);
   const compounds = useWorkspaceCompounds(workspaceId);
-  const [tab, setTab] = useState<'cautions' | 'streams'>('cautions');
+  const [tab, setTab] = useState<ResultTab>('cautions');
   const [help, setHelp] = useState(false);
   const flow = useReactFlow();
   const { selected, past, future, notice } = useEditorStore(
@@ -159,25 +161,39 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
               <>
                 <h2 className="mb-2 text-title font-medium">{KINDS[selected.kind].label}: {selected.name}</h2>
                 <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
+                <StepPlot key={`plot-${selected.id}`} step={selected} />
               </>
             ) : (
               <p className="text-small text-ink-muted">Select a step to see and change its settings.</p>
             )}
           </div>
-          <div className="flex max-h-[40%] min-h-40 flex-col border-t border-rule">
-            <div role="tablist" aria-label="Results" className="flex gap-1 border-b border-rule px-2 pt-1">
-              <button role="tab" aria-selected={tab === 'cautions'} onClick={() => setTab('cautions')} className={`rounded-t-control px-2 py-1 text-small ${tab === 'cautions' ? 'bg-paper-sunken font-medium' : 'text-ink-muted'}`}>
-                Cautions {cautionCount ? <span className="tabular-nums">({cautionCount}{worst ? ` · worst: ${worst}` : ''})</span> : null}
-              </button>
-              <button role="tab" aria-selected={tab === 'streams'} onClick={() => setTab('streams')} className={`rounded-t-control px-2 py-1 text-small ${tab === 'streams' ? 'bg-paper-sunken font-medium' : 'text-ink-muted'}`}>Streams</button>
+          <div className={`flex min-h-40 flex-col border-t border-rule ${tab === 'cautions' || tab === 'streams' ? 'max-h-[40%]' : 'h-[52%]'}`}>
+            <div role="tablist" aria-label="Results" className="flex gap-0.5 overflow-x-auto border-b border-rule px-2 pt-1">
+              {RESULT_TABS.map(([id, label]) => (
+                <button key={id} role="tab" id={`results-tab-${id}`} aria-controls="results-panel" aria-selected={tab === id} onClick={() => setTab(id)} className={`shrink-0 rounded-t-control px-2 py-1 text-small ${tab === id ? 'bg-paper-sunken font-medium text-ink' : 'text-ink-muted hover:text-ink'}`}>
+                  {label}
+                  {id === 'cautions' && cautionCount ? <span className="tabular-nums" title={worst ? `Worst: ${worst}` : undefined}> ({cautionCount})</span> : null}
+                </button>
+              ))}
             </div>
-            <div role="tabpanel" className="min-h-0 flex-1 overflow-auto p-2">{tab === 'cautions' ? <CautionList /> : <StreamTable />}</div>
+            <div role="tabpanel" id="results-panel" aria-labelledby={`results-tab-${tab}`} className="min-h-0 flex-1 overflow-auto p-2">
+              {tab === 'cautions' ? <CautionList /> : tab === 'streams' ? <StreamTable /> : tab === 'product' ? <ProductFlow /> : tab === 'purge' ? <PurgePlot /> : <UncertaintyPanel />}
+            </div>
           </div>
         </aside>
       </div>
     </div>
   );
 }
+
+type ResultTab = 'cautions' | 'streams' | 'product' | 'purge' | 'uncertainty';
+const RESULT_TABS: Array<[ResultTab, string]> = [
+  ['cautions', 'Cautions'],
+  ['streams', 'Streams'],
+  ['product', 'Product flow'],
+  ['purge', 'Purge'],
+  ['uncertainty', 'Uncertainty'],
+];
 
 function SaveIndicator({ state, canEdit }: { state: SaveState; canEdit: boolean }) {
   if (!canEdit) return <span className="text-small text-ink-muted">Read only — you can look but not change this route</span>;

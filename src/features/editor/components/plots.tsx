@@ -1,0 +1,196 @@
+import { useMemo } from 'react';
+import { useEditorStore } from '@/stores/editor-store';
+import { useEvaluation } from '../evaluation';
+import { keyOf, type StepInput } from '../document';
+import { useSweep } from '../sweep';
+import { Chart, PLOT, axisStyle, baseOption } from '../charts/chart';
+import { componentLabel } from './fields';
+
+type ProfilePoint = { distillateL: number; potTemperatureC: number; originalSolventWtPct: number; pressureMbar: number };
+
+const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : '—');
+
+function PlotFrame({ title, note, children }: { title: string; note?: string; children: React.ReactNode }) {
+  return (
+    <figure className="mt-3 rounded-card border border-rule bg-paper-raised p-2">
+      <figcaption className="text-small font-medium text-ink">{title}</figcaption>
+      {children}
+      {note ? <p className="text-caption text-ink-muted">{note}</p> : null}
+    </figure>
+  );
+}
+
+/** The plot that belongs to the selected step, if its kind has one. */
+export function StepPlot({ step }: { step: StepInput }) {
+  if (step.kind === 'distillation') return <DistillationProfile stepId={step.id} />;
+  if (step.kind === 'crystallisation' || step.kind === 'wash' || step.kind === 'extraction') return <SweepPlot step={step} />;
+  return null;
+}
+
+/** Pot temperature and residual original solvent against distillate volume. */
+function DistillationProfile({ stepId }: { stepId: string }) {
+  const profile = useEvaluation((s) => s.result?.steps[stepId]?.details.profile as ProfilePoint[] | undefined);
+  const option = useMemo(() => {
+    if (!profile?.length) return null;
+    const swap = profile.some((p) => p.originalSolventWtPct < 99.999);
+    return {
+      ...baseOption,
+      grid: { left: 40, right: swap ? 44 : 12, top: 28, bottom: 34 },
+      legend: { top: 0, right: 0, itemWidth: 18, textStyle: { fontSize: 11, color: PLOT.muted } },
+      xAxis: { type: 'value', name: 'Distillate (L)', nameLocation: 'middle', nameGap: 22, ...axisStyle, splitLine: { show: false } },
+      yAxis: [
+        { type: 'value', name: '°C', scale: true, ...axisStyle },
+        ...(swap ? [{ type: 'value', name: 'wt %', min: 0, max: 100, ...axisStyle, splitLine: { show: false } }] : []),
+      ],
+      series: [
+        { name: 'Pot temperature', type: 'line', showSymbol: false, lineStyle: { color: PLOT.accent, width: 2 }, itemStyle: { color: PLOT.accent }, data: profile.map((p) => [p.distillateL, p.potTemperatureC]) },
+        ...(swap
+          ? [{ name: 'Original solvent left', type: 'line', yAxisIndex: 1, showSymbol: false, lineStyle: { color: PLOT.organic, width: 2, type: 'dashed' }, itemStyle: { color: PLOT.organic }, data: profile.map((p) => [p.distillateL, p.originalSolventWtPct]) }]
+          : []),
+      ],
+    };
+  }, [profile]);
+  if (!option || !profile) return null;
+  const last = profile[profile.length - 1];
+  return (
+    <PlotFrame title="Distillation profile" note={`End: ${fmt(last.distillateL, 2)} L distilled, pot ${fmt(last.potTemperatureC)} °C, original solvent ${fmt(last.originalSolventWtPct)} wt % of the solvents.`}>
+      <Chart option={option} label="Pot temperature and original solvent left against distillate volume" testId="plot-distillation" />
+    </PlotFrame>
+  );
+}
+
+/** Crystallisation yield against end temperature, or product recovery against the number of stages. */
+function SweepPlot({ step }: { step: StepInput }) {
+  const { points, current, sweep } = useSweep(step);
+  const stages = sweep === 'stages';
+  const option = useMemo(() => {
+    if (!points) return null;
+    const data = points.filter((p) => p.y !== null).map((p) => [p.x, p.y]);
+    return {
+      ...baseOption,
+      grid: { left: 40, right: 12, top: 16, bottom: 34 },
+      xAxis: stages
+        ? { type: 'value', name: 'Stages', nameLocation: 'middle', nameGap: 22, minInterval: 1, ...axisStyle, splitLine: { show: false } }
+        : { type: 'value', name: 'End temperature (°C)', nameLocation: 'middle', nameGap: 22, ...axisStyle, splitLine: { show: false } },
+      yAxis: { type: 'value', name: stages ? 'Recovery %' : 'Yield %', scale: true, max: (v: { max: number }) => Math.min(100, Math.ceil(v.max + 1)), ...axisStyle },
+      series: [
+        {
+          name: stages ? 'Product recovery' : 'Crystallisation yield',
+          type: 'line',
+          symbol: stages ? 'circle' : 'emptyCircle',
+          symbolSize: 6,
+          lineStyle: { color: stages ? PLOT.aqueous : PLOT.solid, width: 2 },
+          itemStyle: { color: stages ? PLOT.aqueous : PLOT.solid },
+          data,
+          markLine: current === null ? undefined : { symbol: 'none', silent: true, label: { formatter: 'now', color: PLOT.muted, fontSize: 10 }, lineStyle: { color: PLOT.faint, type: 'dotted' }, data: [{ xAxis: current }] },
+        },
+      ],
+    };
+  }, [points, current, stages]);
+  const title = stages ? 'Product recovery against number of stages' : 'Crystallisation yield against end temperature';
+  return (
+    <PlotFrame title={title} note="Each point is the whole route evaluated again with only this setting changed.">
+      {option ? <Chart option={option} label={title} testId={stages ? 'plot-stages' : 'plot-end-temperature'} /> : <p className="py-8 text-center text-small text-ink-muted">Working out the curve…</p>}
+    </PlotFrame>
+  );
+}
+
+/** Where the product goes: a Sankey of its mass over every connection to the isolated solid and the losses. */
+export function ProductFlow() {
+  const result = useEvaluation((s) => s.result);
+  const doc = useEditorStore((s) => s.doc);
+  const option = useMemo(() => {
+    const pid = result?.totals.productId;
+    if (!result || !pid) return null;
+    const label = new Map<string, string>(doc.steps.map((s) => [s.id, s.name]));
+    const links: Array<{ source: string; target: string; value: number }> = [];
+    for (const c of doc.connections) {
+      const kg = result.streams[c.id]?.kg[pid] ?? 0;
+      if (kg > 1e-9 && label.has(c.from.stepId) && label.has(c.to.stepId)) links.push({ source: c.from.stepId, target: c.to.stepId, value: kg });
+    }
+    for (const t of result.terminals) {
+      const kg = t.stream.kg[pid] ?? 0;
+      if (kg <= 1e-9) continue;
+      const id = `${t.stepId}→${t.port}`;
+      label.set(id, t.isolated ? 'Isolated product' : `Lost: ${label.get(t.stepId) ?? t.stepId} ${t.port}`);
+      links.push({ source: t.stepId, target: id, value: kg });
+    }
+    if (!links.length) return null;
+    const used = new Set(links.flatMap((l) => [l.source, l.target]));
+    const isolated = new Set(result.terminals.filter((t) => t.isolated).map((t) => `${t.stepId}→${t.port}`));
+    const lost = new Set(result.terminals.filter((t) => !t.isolated).map((t) => `${t.stepId}→${t.port}`));
+    return {
+      ...baseOption,
+      tooltip: { trigger: 'item', formatter: (p: { dataType: string; data: { source?: string; target?: string; value?: number; name?: string } }) => (p.dataType === 'edge' ? `${label.get(p.data.source!)} → ${label.get(p.data.target!)}: ${fmt(p.data.value ?? 0, 3)} kg product` : label.get(p.data.name!) ?? '') },
+      series: [
+        {
+          type: 'sankey',
+          left: 4,
+          right: 110,
+          top: 6,
+          bottom: 6,
+          nodeWidth: 8,
+          nodeGap: 10,
+          layoutIterations: 16,
+          draggable: false,
+          emphasis: { focus: 'adjacency' },
+          label: { fontSize: 10, color: PLOT.ink, formatter: (p: { name: string }) => label.get(p.name) ?? p.name },
+          lineStyle: { color: 'source', opacity: 0.35 },
+          data: [...used].map((name) => ({ name, itemStyle: { color: isolated.has(name) ? PLOT.solid : lost.has(name) ? PLOT.hazard : PLOT.accent } })),
+          links,
+        },
+      ],
+    };
+  }, [result, doc]);
+  if (!result) return <p className="text-small text-ink-muted">The product’s path appears once the route can be evaluated.</p>;
+  if (!option) return <p className="text-small text-ink-muted">No product moves through the route yet: give a component the role “product” and charge it.</p>;
+  const lossKg = result.totals.productInKg - result.totals.isolatedProductKg;
+  return (
+    <figure>
+      <Chart option={option} label="Where the product mass goes, step by step" height={Math.max(180, 24 * doc.steps.length)} testId="plot-product-flow" />
+      <figcaption className="text-caption text-ink-muted">
+        Band width is product mass. Isolated {fmt(result.totals.isolatedProductKg, 3)} kg of {fmt(result.totals.productInKg, 3)} kg charged; {fmt(lossKg, 3)} kg leaves in liquors and washes (marked “Lost”).
+      </figcaption>
+    </figure>
+  );
+}
+
+/** Purge factor (amount in ÷ amount in the isolated solid) of each impurity, on a log scale. */
+export function PurgePlot() {
+  const result = useEvaluation((s) => s.result);
+  const components = useEditorStore((s) => s.doc.components);
+  const rows = useMemo(() => {
+    if (!result) return [];
+    const byKey = new Map(components.map((c) => [keyOf(c), c]));
+    return Object.entries(result.totals.purge).map(([id, p]) => ({ id, name: byKey.has(id) ? componentLabel(byKey.get(id)!).replace(/ \(impurity\)$/, '') : id, factor: p.purgeFactor }));
+  }, [result, components]);
+  const option = useMemo(() => {
+    if (!rows.length) return null;
+    const finite = rows.map((r) => r.factor).filter((f): f is number => f !== null);
+    const cap = Math.max(10, ...finite.map((f) => f * 10));
+    return {
+      ...baseOption,
+      tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } },
+      grid: { left: 8, right: 44, top: 8, bottom: 24, containLabel: true },
+      xAxis: { type: 'log', name: '×', min: 1, max: cap, ...axisStyle },
+      yAxis: { type: 'category', data: rows.map((r) => r.name), inverse: true, ...axisStyle, axisLabel: { ...axisStyle.axisLabel, width: 120, overflow: 'truncate' } },
+      series: [
+        {
+          name: 'Purge factor',
+          type: 'bar',
+          barMaxWidth: 14,
+          data: rows.map((r) => ({ value: r.factor ?? cap, itemStyle: r.factor === null ? { color: PLOT.aqueous, decal: { symbol: 'rect', dashArrayX: [1, 0], dashArrayY: [2, 3], rotation: -0.8 } } : { color: PLOT.accent } })),
+          label: { show: true, position: 'right', fontSize: 10, color: PLOT.ink, formatter: (p: { dataIndex: number }) => (rows[p.dataIndex].factor === null ? 'all purged' : `${fmt(rows[p.dataIndex].factor!, rows[p.dataIndex].factor! < 10 ? 1 : 0)}×`) },
+        },
+      ],
+    };
+  }, [rows]);
+  if (!result) return <p className="text-small text-ink-muted">Purge factors appear once the route can be evaluated.</p>;
+  if (!option) return <p className="text-small text-ink-muted">No impurity is charged: add one in a Charge step to see how far the route purges it.</p>;
+  return (
+    <figure>
+      <Chart option={option} label="Purge factor of each impurity, log scale" height={Math.max(120, 34 * rows.length + 40)} testId="plot-purge" />
+      <figcaption className="text-caption text-ink-muted">Purge factor = impurity charged ÷ impurity in the isolated solid. “All purged”: none reaches the solid.</figcaption>
+    </figure>
+  );
+}

@@ -1,0 +1,69 @@
+/**
+ * Sweeps for the per-step plots, run in their own worker so the live
+ * evaluation of edits never waits behind them. Only the newest request per
+ * plot is answered on screen.
+ */
+import { useEffect, useState } from 'react';
+import type { SweepKind, SweepPoint, SweepReply, SweepRequest } from '@/workers/sweep.worker';
+import { useEditorStore } from '@/stores/editor-store';
+import type { StepInput } from './document';
+
+let worker: Worker | null = null;
+let nextId = 1;
+const waiting = new Map<number, (points: SweepPoint[]) => void>();
+
+function getWorker(): Worker {
+  if (worker) return worker;
+  worker = new Worker(new URL('../../workers/sweep.worker.ts', import.meta.url), { type: 'module', name: 'route-sweeps' });
+  worker.onmessage = (event: MessageEvent<SweepReply>) => {
+    waiting.get(event.data.id)?.(event.data.points);
+    waiting.delete(event.data.id);
+  };
+  return worker;
+}
+
+const plain = (v: unknown): number | null => (typeof v === 'number' ? v : v && typeof v === 'object' && 'value' in v && typeof v.value === 'number' ? v.value : null);
+
+/** Which sweep a step has, and over what values (around its current setting, in the usual plant range). */
+export function sweepFor(step: StepInput): { sweep: SweepKind; values: number[]; current: number } | null {
+  if (step.kind === 'wash' || step.kind === 'extraction') {
+    const current = step.params.stages;
+    return { sweep: 'stages', values: [1, 2, 3, 4, 5, 6, 8], current };
+  }
+  if (step.kind === 'crystallisation') {
+    const mode = step.params.mode;
+    if (mode.kind === 'evaporative') return null;
+    const current = plain(mode.kind === 'cooling' ? mode.endC : mode.temperatureC);
+    if (current === null) return null;
+    const hi = mode.kind === 'cooling' ? (plain(mode.startC) ?? current + 40) : Math.max(current + 30, 40);
+    const lo = Math.min(current - 10, -10);
+    const values = Array.from({ length: 11 }, (_, k) => Math.round((lo + ((hi - lo) * k) / 10) * 10) / 10);
+    return { sweep: 'crystallisation-end-temperature', values, current };
+  }
+  return null;
+}
+
+/** The sweep's points for the selected step; recomputed (debounced) when the route's model changes. */
+export function useSweep(step: StepInput): { points: SweepPoint[] | null; current: number | null; sweep: SweepKind | null } {
+  const revision = useEditorStore((s) => s.modelRevision);
+  const spec = sweepFor(step);
+  const key = spec ? `${spec.sweep}:${spec.values.join(',')}` : '';
+  const [points, setPoints] = useState<SweepPoint[] | null>(null);
+  useEffect(() => {
+    if (!spec) return;
+    let live = true;
+    const timer = setTimeout(() => {
+      const doc = useEditorStore.getState().doc;
+      const id = nextId++;
+      waiting.set(id, (p) => live && setPoints(p));
+      const document = { ...doc, steps: doc.steps.map(({ position: _p, ...s }) => s) } as unknown as SweepRequest['document'];
+      getWorker().postMessage({ id, document, stepId: step.id, sweep: spec.sweep, values: spec.values } satisfies SweepRequest);
+    }, 250);
+    return () => {
+      live = false;
+      clearTimeout(timer);
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the key stands for spec
+  }, [step.id, key, revision]);
+  return { points: spec ? points : null, current: spec?.current ?? null, sweep: spec?.sweep ?? null };
+}
