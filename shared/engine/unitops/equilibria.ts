@@ -4,7 +4,9 @@
  * solubility), the pH of an aqueous phase, and distribution ratios of solutes.
  */
 import { createVleSystem, liquidLiquidSplit, type VleComponent, type VleSystem } from '../thermo/vle';
-import { distributionRatio, type PKa } from '../properties/partition';
+import { distributionRatio, neutralFraction, partitionByActivity, type PKa } from '../properties/partition';
+import { activityCoefficients } from '../thermo/unifac';
+import { solventById } from '../data/index';
 import type { EvalContext } from '../route/context';
 import { warn, method } from '../route/context';
 import type { EngineWarning, MethodUsed } from '../route/types';
@@ -151,9 +153,11 @@ export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: n
     }
     const beta = r.phaseFraction;
     const [x0, x1] = r.phases;
-    // Phase with more water (or, without water, the more polar one = phases[1] by convention of the richer-in-first).
+    // The 'aqueous' phase: the one with more water; without water (two organic liquids) the more
+    // polar one, i.e. the phase in which water would have the lower activity coefficient at
+    // infinite dilution (UNIFAC), e.g. acetonitrile against heptane.
     const wi = w ? ids.indexOf(w) : -1;
-    const aqIndex = wi >= 0 ? (x1[wi] > x0[wi] ? 1 : 0) : 1;
+    const aqIndex = wi >= 0 ? (x1[wi] > x0[wi] ? 1 : 0) : morePolarPhase(ctx, ids, x0, x1, T_K);
     const xa = aqIndex === 1 ? x1 : x0;
     const fa = aqIndex === 1 ? beta : 1 - beta;
     ids.forEach((id, i) => {
@@ -168,6 +172,62 @@ export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: n
     warn(warnings, 'warning', 'no-lle-model', `No liquid–liquid model for these solvents (${(e as Error).message}); the organic solvents are kept in the organic phase and the water in the aqueous phase.`);
     for (const id of ids) (id === w ? aqueousKg : organicKg)[id] = kg[id];
     return { split: true, organicKg, aqueousKg, method: 'assumed immiscible' };
+  }
+}
+
+/**
+ * Which of two organic liquid phases is the more polar: the one in which water at
+ * infinite dilution has the lower UNIFAC activity coefficient (γ∞ of water, a
+ * model-based polarity scale). Returns 0 or 1; 1 when water has no parameters
+ * against these solvents (the phase poorer in the first listed solvent).
+ */
+function morePolarPhase(ctx: EvalContext, ids: string[], x0: readonly number[], x1: readonly number[], T_K: number): 0 | 1 {
+  const water = solventById('water');
+  if (!water) return 1;
+  const groups = [water.unifac.value, ...ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value)];
+  const at = (x: readonly number[]) => activityCoefficients(groups, [1e-9, ...x.map((v) => v * (1 - 1e-9))], T_K)[0];
+  try {
+    return at(x0) < at(x1) ? 0 : 1;
+  } catch {
+    return 1;
+  }
+}
+
+/**
+ * Distribution ratio of a compound between two organic liquid phases from
+ * UNIFAC activity coefficients at infinite dilution in each phase
+ * (properties/partition.ts partitionByActivity):
+ *   K_x = γ∞_polar / γ∞_less-polar,   D = K_c = K_x · V̄_polar / V̄_less-polar
+ * (molar concentrations, less-polar phase over polar phase, the 'organic' and
+ * 'aqueous' ports of the wash). Phase compositions are the solvent-only
+ * compositions of the LLE split; molar volumes by ideal mixing at T.
+ * Returns null (with a warning) when the compound has no UNIFAC groups or
+ * UNIFAC lacks a parameter; the caller keeps the compound in the feed phase.
+ *
+ * @param lessPolarKg, polarKg solvent kg of each phase [kg]; T_K [K]
+ */
+export function organicOrganicDistribution(ctx: EvalContext, compoundId: string, lessPolarKg: Record<string, number>, polarKg: Record<string, number>, T_K: number, warnings: EngineWarning[]): SoluteDistribution | null {
+  const c = ctx.comps.get(compoundId)!.compound!;
+  if (!c.unifac) {
+    warn(warnings, 'warning', 'no-unifac-groups', `${c.name}: no UNIFAC groups, so no distribution between the two organic phases can be estimated; kept in the feed phase.`);
+    return null;
+  }
+  const groups = Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v]));
+  const phase = (kg: Record<string, number>) => {
+    const ids = solventIds(ctx).filter((id) => kg[id] > 0);
+    const mol = ids.map((id) => kg[id] / ctx.comps.get(id)!.molarMassKgMol);
+    const N = mol.reduce((a, b) => a + b, 0);
+    const x = mol.map((m) => m / N);
+    const v = ids.reduce((a, id, i) => a + x[i] * ctx.comps.get(id)!.molarMassKgMol * ctx.comps.get(id)!.specificVolume(T_K), 0);
+    return { groups: ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value), moleFractions: x, molarVolumeM3mol: v };
+  };
+  try {
+    const r = partitionByActivity({ soluteGroups: groups, organic: phase(lessPolarKg), aqueous: phase(polarKg), T_K });
+    for (const m of r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
+    return { D: r.Kc, method: 'activity-coefficient ratio at infinite dilution between the two organic phases (UNIFAC)', source: 'UNIFAC: Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352 (estimated)' };
+  } catch (e) {
+    warn(warnings, 'warning', 'no-unifac-parameters', `${c.name}: UNIFAC cannot estimate its distribution between the two organic phases (${(e as Error).message}); kept in the feed phase.`);
+    return null;
   }
 }
 

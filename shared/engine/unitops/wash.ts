@@ -25,7 +25,16 @@
  *
  * Units: volumes [m³], masses [kg], T [K], D [-] (molar concentration
  * ratio). Validity: dilute solutes (phase volumes from the solvents only),
- * 0–80 °C; organic–organic washes keep the solutes in the feed phase.
+ * 0–80 °C.
+ *
+ * Organic–organic washes (no water, e.g. heptane against acetonitrile): the
+ * solvents split by the UNIFAC liquid–liquid flash; the 'aqueous' port
+ * carries the more polar phase (equilibria.ts, by the γ∞ of water), the
+ * 'organic' port the less polar one; each compound distributes by the ratio
+ * of its UNIFAC activity coefficients at infinite dilution in the two phases
+ * (equilibria.organicOrganicDistribution). A compound without UNIFAC groups
+ * or parameters stays in the feed phase, with a warning; aqueous solutes
+ * stay in the feed phase.
  */
 import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
@@ -34,7 +43,7 @@ import { aqueousMediumKg, commonCautions, cToK, emptyStream, finishStream, metho
 import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { addTo, COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
-import { aqueousPH, compoundDistribution, splitLiquid } from './equilibria';
+import { aqueousPH, compoundDistribution, organicOrganicDistribution, splitLiquid } from './equilibria';
 import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA } from '../units';
 
 /** Density difference below which phases separate poorly, g/mL (issue 4; common practice). */
@@ -70,7 +79,7 @@ function solventsOnly(ctx: EvalContext, kg: Record<string, number>): Record<stri
  * One equilibrium contact of a liquid mixture: solvent split, pH of the
  * aqueous phase, and the distribution ratio of each compound.
  */
-export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: number, pHOverride: number | undefined, warnings: EngineWarning[], methods: MethodUsed[]): PhaseState & { toOrganic: Record<string, number> } {
+export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: number, pHOverride: number | undefined, warnings: EngineWarning[], methods: MethodUsed[], feedIsPolar = false): PhaseState & { toOrganic: Record<string, number> } {
   const sp = splitLiquid(ctx, solventsOnly(ctx, mix), T_K, warnings, methods);
   const organic: Record<string, number> = {};
   const aqueous: Record<string, number> = {};
@@ -88,6 +97,7 @@ export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: 
     const c = ctx.comps.get(id)!;
     if (c.kind !== 'aqueous-solute') continue;
     if (hasAq) aqueous[id] = mix[id];
+    else if (sp.split && feedIsPolar) aqueous[id] = mix[id];
     else organic[id] = mix[id];
     if (hasAq && c.aqueous!.setschenowKs && mix[id] > 0) {
       const molar = mix[id] / c.molarMassKgMol / (Va * 1000);
@@ -108,9 +118,20 @@ export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: 
       toOrganic[id] = 1;
       continue;
     }
+    if (sp.split && !hasAq && Vo > 0 && Va > 0) {
+      // Two organic liquid phases: UNIFAC activity-coefficient ratio at infinite dilution.
+      const d = organicOrganicDistribution(ctx, id, sp.organicKg, sp.aqueousKg, T_K, warnings);
+      if (d) {
+        D[id] = d;
+        method(methods, `distribution of ${c.name}`, d.method, d.source);
+        toOrganic[id] = (d.D * Vo) / (d.D * Vo + Va);
+      } else {
+        toOrganic[id] = feedIsPolar ? 0 : 1;
+      }
+      continue;
+    }
     if (!sp.split || !hasAq || Vo <= 0 || main === null) {
       toOrganic[id] = Vo > 0 || !hasAq ? 1 : 0;
-      if (sp.split && !hasAq) warn(warnings, 'info', 'organic-organic', 'Organic–organic phase split: solutes are kept in the feed phase (no distribution model for two organic liquids).');
       continue;
     }
     const d = compoundDistribution(ctx, id, main, pH, salt, T_K, warnings);
@@ -163,7 +184,17 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
   let peak = 0;
 
   // Which phase carries on: the feed phase is the one the feed's main liquid lands in.
-  const feedIsAqueous = !feedPhaseIsOrganic && !!ctx.waterId && feed.kg[ctx.waterId] > 0;
+  let feedIsAqueous = !feedPhaseIsOrganic && !!ctx.waterId && feed.kg[ctx.waterId] > 0;
+  if (liq.kind === 'solvent' && !feedPhaseIsOrganic && !feedIsAqueous) {
+    // Organic–organic: the feed phase is the one that takes most of the feed's main solvent.
+    const mainFeed = mainOrganic(ctx, feed.kg);
+    if (mainFeed) {
+      const probe = { ...feed.kg };
+      for (const id in added) probe[id] += added[id];
+      const sp = splitLiquid(ctx, solventsOnly(ctx, probe), T, [], []);
+      feedIsAqueous = sp.split && (sp.aqueousKg[mainFeed] ?? 0) > (sp.organicKg[mainFeed] ?? 0);
+    }
+  }
 
   if (perStage) {
     method(M, 'stages', 'cross-current: fresh liquid each stage, equilibrium stages simulated in turn', 'Harris, Quantitative Chemical Analysis (fraction remaining q^n)');
@@ -174,7 +205,7 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
       const mix: Record<string, number> = { ...carry };
       for (const id in added) mix[id] += added[id];
       peak = Math.max(peak, streamVolume(ctx, mix, T));
-      const eq = equilibrate(ctx, mix, T, pHOverride, W, M);
+      const eq = equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous);
       last = eq;
       const next: Record<string, number> = {};
       for (const id of ctx.ids) {
@@ -205,7 +236,7 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
     const mix: Record<string, number> = { ...feed.kg };
     for (const id in added) mix[id] += added[id];
     peak = streamVolume(ctx, mix, T);
-    const eq = equilibrate(ctx, mix, T, pHOverride, W, M);
+    const eq = equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous);
     last = eq;
     const Vo = eq.volumes.organicM3;
     const Va = eq.volumes.aqueousM3;
