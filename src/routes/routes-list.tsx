@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { useSession } from '@/features/auth/api/get-session';
-import { canInviteMembers } from '@/features/auth/abilities';
+import { canInWorkspace, canInviteMembers } from '@/features/auth/abilities';
 import { PageHeader } from '@/components/page-header';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorState } from '@/components/error-state';
@@ -19,6 +19,8 @@ export function Component() {
   const workspace = useWorkspace();
   const { data: session } = useSession();
   const isAdmin = session ? canInviteMembers(session, workspace.id) : false;
+  // Reviewers and scale-up engineers read routes; chemists and admins write them (the server decides again).
+  const canWrite = session ? canInWorkspace(session, workspace.id, 'route.create', 'chemist') : false;
   const [archived, setArchived] = useState(false);
   const [creating, setCreating] = useState(false);
   const routes = useRoutes(workspace.id, archived);
@@ -38,11 +40,11 @@ export function Component() {
             <Button variant="secondary" aria-pressed={archived} onClick={() => setArchived((a) => !a)}>
               {archived ? 'Show current routes' : 'Archived'}
             </Button>
-            {!creating ? <Button onClick={() => setCreating(true)}>New route</Button> : null}
+            {canWrite && !creating ? <Button onClick={() => setCreating(true)}>New route</Button> : null}
           </>
         }
       />
-      {creating ? (
+      {canWrite && creating ? (
         <div className="mb-4">
           <CreateRouteForm workspaceId={workspace.id} onCancel={() => setCreating(false)} />
         </div>
@@ -55,7 +57,7 @@ export function Component() {
         archived ? (
           <EmptyState title="No archived routes">Routes you archive are kept here and can be restored at any time.</EmptyState>
         ) : creating ? null : (
-          <EmptyState title="No routes yet — create your first isolation route" glyph={<RouteSketch />} action={<Button onClick={() => setCreating(true)}>Create a route</Button>}>
+          <EmptyState title="No routes yet — create your first isolation route" glyph={<RouteSketch />} action={canWrite ? <Button onClick={() => setCreating(true)}>Create a route</Button> : undefined}>
             <p>
               A route is the work-up and isolation drawn as steps: quench, washes and extractions, distillation, crystallisation, filtration and
               drying. Phasewright follows the product and every impurity through each step.
@@ -82,7 +84,7 @@ export function Component() {
           </EmptyState>
         )
       ) : (
-        <RoutesTable workspaceId={workspace.id} routes={routes.data} />
+        <RoutesTable workspaceId={workspace.id} routes={routes.data} canWrite={canWrite} />
       )}
     </>
   );

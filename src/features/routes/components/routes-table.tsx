@@ -23,7 +23,7 @@ const pct = (v: number | null | undefined) => (v === null || v === undefined ? '
 const num = (v: number | null | undefined) => (v === null || v === undefined ? '—' : v.toFixed(0));
 
 /** The workspace's routes, grouped by project; sorts by any column, searches name, project and owner. */
-export function RoutesTable({ workspaceId, routes }: { workspaceId: string; routes: RouteSummary[] }) {
+export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: string; routes: RouteSummary[]; canWrite: boolean }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'updatedAt', desc: true }]);
   const [filter, setFilter] = useState('');
   const [renaming, setRenaming] = useState<{ id: string; name: string } | null>(null);
@@ -48,7 +48,7 @@ export function RoutesTable({ workspaceId, routes }: { workspaceId: string; rout
       col.accessor((r) => r.totals?.purityPct ?? null, { id: 'purity', header: 'Purity', cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span> }),
       col.accessor((r) => r.totals?.pmi ?? null, { id: 'pmi', header: 'PMI', cell: (c) => <span className="tabular-nums">{num(c.getValue())}</span> }),
       col.accessor('updatedAt', { header: 'Last change', cell: (c) => <span className="tabular-nums">{formatDateTime(c.getValue())}</span> }),
-      col.display({
+      ...(!canWrite ? [] : [col.display({
         id: 'actions',
         header: () => <span className="sr-only">Actions</span>,
         cell: (c) => {
@@ -82,9 +82,9 @@ export function RoutesTable({ workspaceId, routes }: { workspaceId: string; rout
             </div>
           );
         },
-      }),
+      })]),
     ],
-    [workspaceId, duplicate, update],
+    [workspaceId, duplicate, update, canWrite],
   );
 
   const table = useReactTable({

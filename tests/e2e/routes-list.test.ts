@@ -1,0 +1,124 @@
+import type { Server } from 'node:http';
+import { randomBytes } from 'node:crypto';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { DEMO_PROJECT_NAME, DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
+import { useTestServer } from '../support/app';
+import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+
+const DEMO_PASSWORD = 'phasewright-demo';
+
+const port = await freePort();
+const base = `http://127.0.0.1:${port}`;
+const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
+
+let http: Server | undefined;
+let browser: Browser;
+
+beforeAll(async () => {
+  assertClientBuilt();
+  http = await listen(server.app, port);
+});
+
+// A fresh browser profile per flow: nothing signed in or cached carries over.
+beforeEach(async () => {
+  browser = await launchBrowser();
+});
+
+afterEach(async () => {
+  await browser?.shot('routes-list-last');
+  await browser?.close();
+});
+
+afterAll(async () => {
+  await closeServer(http);
+});
+
+async function signInAs(email: string) {
+  const { page } = browser;
+  await page.goto(base + '/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+}
+
+const percent = (text: string | null) => Number(/([\d.]+)\s*%/.exec(text ?? '')?.[1] ?? NaN);
+
+describe('routes list', () => {
+  it('lists the demo route with its totals, and lets the chemist create, rename, duplicate and archive routes', async () => {
+    const { page, shot } = browser;
+    const suffix = randomBytes(3).toString('hex');
+    const name = `Ester isolation ${suffix}`;
+    const renamed = `Ester isolation, reworked ${suffix}`;
+    await signInAs('chemist@example.com');
+
+    // The seeded demo route, in its project, with yield, purity and PMI worked out.
+    const demo = page.getByRole('row').filter({ has: page.getByRole('link', { name: DEMO_ROUTE_NAME }) });
+    await demo.waitFor();
+    await expect(page.getByRole('rowheader', { name: new RegExp(DEMO_PROJECT_NAME.replace(/[()]/g, '\\$&')) }).isVisible()).resolves.toBe(true);
+    const cells = demo.getByRole('cell');
+    const texts = await cells.allTextContents();
+    const yieldPct = percent(texts.find((t) => /%/.test(t)) ?? null);
+    expect(yieldPct).toBeGreaterThan(30);
+    expect(yieldPct).toBeLessThanOrEqual(100);
+    const purity = percent(texts.filter((t) => /%/.test(t))[1] ?? null);
+    expect(purity).toBeGreaterThan(80);
+    expect(purity).toBeLessThanOrEqual(100);
+    expect(texts).toContain('Draft');
+    await shot('routes-01-list');
+
+    // Create: the editor opens on the new, empty route; back to the list, it is there.
+    await page.getByRole('button', { name: 'New route' }).click();
+    await page.getByLabel('Route name').fill(name);
+    await page.getByRole('button', { name: 'Create and open' }).click();
+    await page.getByRole('heading', { level: 1, name }).waitFor();
+    await page.getByRole('link', { name: 'Routes', exact: true }).first().click();
+    await page.getByRole('link', { name, exact: true }).waitFor();
+
+    // Rename.
+    await page.getByRole('button', { name: `Rename ${name}`, exact: true }).click();
+    const form = page.getByRole('form', { name: 'Rename route' });
+    await form.getByLabel('New name').fill(renamed);
+    await shot('routes-02-rename');
+    await form.getByRole('button', { name: 'Save name' }).click();
+    await page.getByRole('link', { name: renamed, exact: true }).waitFor();
+    await expect(page.getByRole('link', { name, exact: true }).count()).resolves.toBe(0);
+
+    // Duplicate: a second route appears beside the first.
+    await page.getByRole('button', { name: `Duplicate ${renamed}`, exact: true }).click();
+    await page.getByRole('status').filter({ hasText: 'Duplicated as' }).waitFor();
+    await expect.poll(() => page.getByRole('link', { name: new RegExp(renamed) }).count()).toBe(2);
+
+    // Search narrows the table to the matching routes.
+    await page.getByLabel('Search routes').fill(suffix);
+    await expect.poll(() => page.getByRole('link', { name: DEMO_ROUTE_NAME }).count()).toBe(0);
+    await page.getByLabel('Search routes').fill('');
+
+    // Archive: gone from the current routes, found under "Archived", where it can be restored.
+    await page.getByRole('button', { name: `Archive ${renamed}`, exact: true }).click();
+    await page.getByRole('status').filter({ hasText: 'archived' }).waitFor();
+    await expect.poll(() => page.getByRole('link', { name: renamed, exact: true }).count()).toBe(0);
+    await page.getByRole('button', { name: 'Archived' }).click();
+    const archivedRow = page.getByRole('row').filter({ has: page.getByRole('link', { name: renamed, exact: true }) });
+    await archivedRow.waitFor();
+    await expect(archivedRow.getByRole('cell', { name: 'Archived', exact: true }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('link', { name: DEMO_ROUTE_NAME }).count()).resolves.toBe(0);
+    await shot('routes-03-archived');
+    expect(browser.problems).toEqual([]);
+  });
+
+  it('shows the reviewer the routes read-only', async () => {
+    const { page, shot } = browser;
+    await signInAs('reviewer@example.com');
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).waitFor();
+    await expect(page.getByRole('button', { name: 'New route' }).count()).resolves.toBe(0);
+    await expect(page.getByRole('button', { name: /^(Rename|Duplicate|Archive) / }).count()).resolves.toBe(0);
+    await shot('routes-04-reviewer');
+
+    // The editor opens the route read-only, too.
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).click();
+    await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+    await page.getByText('Read only — you can look but not change this route').waitFor();
+    expect(browser.problems).toEqual([]);
+  });
+});
