@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useReactFlow } from '@xyflow/react';
 import { PROCESS_SAFETY_NOTE } from '@shared/engine/route/evaluate';
 import { useEditorStore } from '@/stores/editor-store';
@@ -11,16 +11,40 @@ import { Button } from '@/components/button';
 const NO_ISSUES: never[] = [];
 const n = (v: number | null | undefined, d = 1) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
 
-/** Yield, purity, PMI and solvent use of the whole route. */
+type Totals = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['totals'];
+
+/** A change since the previous result, with enough digits to see it ("▲ 1.6", "▼ 0.0021"). */
+function Delta({ now, before, name, unit }: { now: number | null | undefined; before: number | null | undefined; name: string; unit: string }) {
+  if (now === null || now === undefined || before === null || before === undefined) return null;
+  const d = now - before;
+  if (!Number.isFinite(d) || Math.abs(d) < 1e-9 * Math.max(1, Math.abs(now))) return null;
+  const size = Math.abs(d);
+  const text = size >= 0.1 ? size.toFixed(1) : size.toPrecision(2);
+  return (
+    <span className="ml-1 text-caption font-normal text-ink-muted" data-delta={name} title={`Changed by ${d > 0 ? '+' : '−'}${text}${unit} with the last edit`}>
+      <span aria-hidden="true">{d > 0 ? '▲' : '▼'}</span>
+      <span className="sr-only">{d > 0 ? 'up' : 'down'}</span> {text}
+    </span>
+  );
+}
+
+/** Yield, purity, PMI and solvent use of the whole route, each with its change since the previous result. */
 export function TotalsCard() {
   const totals = useEvaluation((s) => s.result?.totals);
   const status = useEvaluation((s) => s.status);
   const ms = useEvaluation((s) => s.ms);
+  const last = useRef<Totals | null>(null);
+  const [before, setBefore] = useState<Totals | null>(null);
+  useEffect(() => {
+    if (!totals) return;
+    if (last.current && last.current !== totals) setBefore(last.current);
+    last.current = totals;
+  }, [totals]);
   const items = [
-    { label: 'Isolated yield', value: totals ? `${n(totals.yieldPct)} %` : '—', key: 'yield' },
-    { label: 'Purity', value: totals ? `${n(totals.purityWtPct)} wt %` : '—', key: 'purity' },
-    { label: 'PMI', value: totals ? n(totals.pmi, 0) : '—', key: 'pmi' },
-    { label: 'Solvent', value: totals ? `${n(totals.solventUseLPerKg, 0)} L/kg` : '—', key: 'solvent' },
+    { label: 'Isolated yield', value: totals ? n(totals.yieldPct) : '—', shownUnit: '%', raw: totals?.yieldPct, prev: before?.yieldPct, unit: ' %', key: 'yield' },
+    { label: 'Purity', value: totals ? n(totals.purityWtPct, 2) : '—', shownUnit: 'wt %', raw: totals?.purityWtPct, prev: before?.purityWtPct, unit: ' wt %', key: 'purity' },
+    { label: 'PMI', value: totals ? n(totals.pmi, 0) : '—', shownUnit: '', raw: totals?.pmi, prev: before?.pmi, unit: '', key: 'pmi' },
+    { label: 'Solvent', value: totals ? n(totals.solventUseLPerKg, 0) : '—', shownUnit: 'L/kg', raw: totals?.solventUseLPerKg, prev: before?.solventUseLPerKg, unit: ' L/kg', key: 'solvent' },
   ];
   return (
     <section aria-label="Route totals" className="rounded-card border border-rule bg-paper-raised px-3 py-2 shadow-card">
@@ -34,7 +58,11 @@ export function TotalsCard() {
         {items.map((i) => (
           <div key={i.key}>
             <dt className="text-caption text-ink-muted">{i.label}</dt>
-            <dd className="text-title font-medium tabular-nums" data-total={i.key}>{i.value}</dd>
+            <dd className="text-title font-medium tabular-nums whitespace-nowrap" data-total={i.key} data-value={i.raw ?? ''}>
+              {i.value}
+              {totals && i.shownUnit ? <span className="ml-0.5 text-caption font-normal text-ink-muted">{i.shownUnit}</span> : null}
+            </dd>
+            <dd className="h-4 leading-4"><Delta now={i.raw} before={i.prev} name={i.key} unit={i.unit} /></dd>
           </div>
         ))}
       </dl>

@@ -1,0 +1,148 @@
+import type { Server } from 'node:http';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
+import { useTestServer } from '../support/app';
+import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+
+const DEMO_PASSWORD = 'phasewright-demo';
+
+const port = await freePort();
+const base = `http://127.0.0.1:${port}`;
+const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
+
+let http: Server | undefined;
+let browser: Browser;
+
+beforeAll(async () => {
+  assertClientBuilt();
+  http = await listen(server.app, port);
+});
+
+beforeEach(async () => {
+  browser = await launchBrowser();
+});
+
+afterEach(async () => {
+  await browser?.shot('demo-route-last');
+  await browser?.close();
+});
+
+afterAll(async () => {
+  await closeServer(http);
+});
+
+const number = (text: string | null) => Number(/-?[\d.]+/.exec(text ?? '')?.[0] ?? NaN);
+
+async function openDemoRoute() {
+  const { page } = browser;
+  await page.goto(base + '/sign-in');
+  await page.getByLabel('E-mail').fill('chemist@example.com');
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('link', { name: DEMO_ROUTE_NAME }).click();
+  await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+  await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
+}
+
+describe('the demo route', () => {
+  it('opens for the demo chemist; the antisolvent volume moves yield and purity; a wash is added; a reload keeps everything', async () => {
+    const { page, shot } = browser;
+    await openDemoRoute();
+    const yieldTotal = page.locator('[data-total="yield"]');
+    const purityTotal = page.locator('[data-total="purity"]');
+    const yieldBefore = number(await yieldTotal.textContent());
+    const purityBefore = number(await purityTotal.textContent());
+    const purityValue = () => purityTotal.getAttribute('data-value').then(Number);
+    const purityExactBefore = await purityValue();
+    expect(yieldBefore).toBeGreaterThan(30);
+    expect(yieldBefore).toBeLessThanOrEqual(100);
+    expect(purityBefore).toBeGreaterThan(80);
+    expect(purityBefore).toBeLessThanOrEqual(100);
+    const cards = await page.getByRole('article').count();
+    await shot('demo-01-opened');
+
+    // The antisolvent crystallisation: its settings, and the yield-against-end-temperature curve.
+    await page.getByRole('article', { name: /^Crystallisation: Heptane antisolvent/ }).click();
+    const settings = page.getByRole('form', { name: /Settings of Heptane antisolvent/ });
+    const volume = settings.getByLabel('Antisolvent volume', { exact: true });
+    await expect(volume.inputValue()).resolves.toMatch(/vol/);
+    await page.getByRole('img', { name: 'Crystallisation yield against end temperature' }).locator('svg').waitFor();
+    await shot('demo-02-crystallisation');
+
+    // Half the heptane: the yield and the purity both move, and the totals show by how much.
+    await volume.fill('3 ± 0.5 vol');
+    await volume.press('Enter');
+    await expect.poll(async () => number(await yieldTotal.textContent())).not.toBe(yieldBefore);
+    await expect.poll(purityValue).not.toBe(purityExactBefore);
+    await page.locator('[data-delta="yield"]').filter({ hasText: /▼|▲/ }).waitFor();
+    await page.locator('[data-delta="purity"]').filter({ hasText: /▼|▲/ }).waitFor();
+    const yieldAfter = number(await yieldTotal.textContent());
+    expect(yieldAfter).toBeGreaterThan(0);
+    expect(yieldAfter).toBeLessThanOrEqual(100);
+    await shot('demo-03-less-antisolvent');
+
+    // A wash after the acid wash, fed by its aqueous layer (a back-extraction).
+    await page.getByRole('article', { name: /^Wash: 1 M HCl wash/ }).click();
+    await page.getByRole('button', { name: 'Add Wash' }).click();
+    await expect.poll(() => page.getByRole('article').count()).toBe(cards + 1);
+    const added = page.getByRole('article', { name: /^Wash: Wash \d/ });
+    await added.waitFor();
+    const addedName = (await added.getAttribute('aria-label')) ?? '';
+    await page.getByRole('form', { name: /Settings of Wash/ }).waitFor();
+    // The wash's own plot: recovery against the number of stages.
+    await page.getByRole('img', { name: 'Product recovery against number of stages' }).locator('svg').waitFor();
+    await shot('demo-04-wash-added');
+
+    // The draft saves by itself; a reload brings back both changes.
+    await page.locator('[data-save-state="saved"]').waitFor();
+    await page.reload();
+    await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+    await expect.poll(() => page.getByRole('article').count()).toBe(cards + 1);
+    await page.getByRole('article', { name: addedName }).waitFor();
+    await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
+    await expect.poll(async () => number(await yieldTotal.textContent())).toBe(yieldAfter);
+    await page.getByRole('article', { name: /^Crystallisation: Heptane antisolvent/ }).click();
+    await expect(page.getByRole('form', { name: /Settings of Heptane antisolvent/ }).getByLabel('Antisolvent volume', { exact: true }).inputValue()).resolves.toBe('3 ± 0.5 vol');
+    await shot('demo-05-after-reload');
+    expect(browser.problems).toEqual([]);
+  });
+
+  it('shows where the product goes and the purge per impurity, and runs a small uncertainty estimate to the end', async () => {
+    const { page, shot } = browser;
+    await openDemoRoute();
+
+    await page.getByRole('tab', { name: 'Product flow' }).click();
+    await page.getByRole('img', { name: 'Where the product mass goes, step by step' }).locator('svg').waitFor();
+    await page.getByText(/Isolated [\d.]+ kg of [\d.]+ kg charged/).waitFor();
+    await shot('demo-06-product-flow');
+
+    await page.getByRole('tab', { name: 'Purge' }).click();
+    await page.getByRole('img', { name: 'Purge factor of each impurity, log scale' }).locator('svg').waitFor();
+    await shot('demo-07-purge');
+
+    // A distillation shows its profile.
+    await page.getByRole('article', { name: /^Distillation:/ }).first().click();
+    await page.getByRole('img', { name: 'Pot temperature and original solvent left against distillate volume' }).locator('svg').waitFor();
+
+    await page.getByRole('tab', { name: 'Uncertainty' }).click();
+    const run = page.getByRole('form', { name: 'Uncertainty run' });
+    await run.getByLabel('Draws').fill('40');
+    await run.getByLabel('Seed').fill('7');
+    await run.getByRole('button', { name: 'Run uncertainty' }).click();
+    const progress = page.getByRole('progressbar', { name: 'Uncertainty run progress' });
+    await progress.waitFor();
+    await page.locator('[role="progressbar"][data-status="done"]').waitFor({ timeout: 60_000 });
+    await expect(progress.getAttribute('aria-valuenow')).resolves.toBe('100');
+    const bands = page.getByRole('table', { name: 'Uncertainty bands' });
+    const yieldRow = bands.getByRole('row', { name: /^Yield %/ });
+    await yieldRow.waitFor();
+    const [p5, p50, p95] = (await yieldRow.getByRole('cell').allTextContents()).slice(0, 3).map(number);
+    expect(p5).toBeLessThanOrEqual(p50);
+    expect(p50).toBeLessThanOrEqual(p95);
+    expect(p95).toBeLessThanOrEqual(100);
+    await expect(bands.getByRole('row', { name: /^Purity wt %/ }).isVisible()).resolves.toBe(true);
+    await expect(bands.getByRole('row', { name: /^Purge of / }).count()).resolves.toBeGreaterThan(0);
+    await shot('demo-08-uncertainty');
+    expect(browser.problems).toEqual([]);
+  });
+});
