@@ -34,7 +34,7 @@ import { drying } from '../unitops/drying';
 import { carbonTreatment, merge, phAdjust, polishFiltration, quench, split } from '../unitops/simple';
 
 /** Version of the route engine; stored with every revision's results. */
-export const ENGINE_VERSION = '1.0.1';
+export const ENGINE_VERSION = '1.0.2';
 
 /** Relative closure required of every component balance at every step. */
 export const MASS_BALANCE_TOLERANCE = 1e-9;

@@ -263,6 +263,14 @@ export interface PHInput {
   includeCompounds: boolean;
   /** Extra strong acid (+) or base (−) [mol], for titration. */
   extraStrongAcidMol?: number;
+  /**
+   * Ionisable compounds carried by a feed into a two-phase contact (washes):
+   * total amount [mol], pKa sites, and the partition coefficient of the
+   * neutral species K = c_org/c_aq [-] into an organic phase of volume
+   * organicVolumeM3 [m³] (K = 0: all in the aqueous phase). Only the charged
+   * species stay in water; see aqueousPH.
+   */
+  carried?: { organicVolumeM3: number; compounds: Array<{ mol: number; pKa: readonly PKa[]; K: number }> };
 }
 
 /**
@@ -273,6 +281,15 @@ export interface PHInput {
  * kind 'amphoteric-salt' carries one Na⁺, 'weak-base' one Na⁺ per pKa),
  * activity coefficients = 1 (ideal dilute solution), pKw = 14 at 25 °C.
  * Solved by bisection on pH in [−2, 16] to 3e−10.
+ *
+ * Compounds carried into a wash (`carried`): each pKa site ionises
+ * independently (Henderson–Hasselbalch), only the neutral species partitions
+ * into the organic phase, so with f_n(pH) the neutral fraction and K the
+ * neutral partition coefficient the total aqueous concentration is
+ *   c_aq = n / (V_aq + K f_n V_org)
+ * and the compound adds c_aq Σ_acid sites 1/(1 + 10^(pKa − pH)) anions and
+ * c_aq Σ_base sites 1/(1 + 10^(pH − pKa)) cations to the balance. This is how
+ * a bicarbonate wash facing more acid than base ends near the acid's pKa.
  * Returns null when there is no water.
  */
 export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
@@ -304,6 +321,8 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
       }
     }
   }
+  const carried = input.carried && input.carried.compounds.length > 0 ? input.carried : null;
+  const VoL = carried ? carried.organicVolumeM3 * 1000 : 0;
   const extra = (input.extraStrongAcidMol ?? 0) / VL;
   const sA = strongAcid.reduce((a, b) => a + b, 0) + Math.max(extra, 0);
   const sB = cations.reduce((a, b) => a + b, 0) + Math.max(-extra, 0);
@@ -314,6 +333,27 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
     let neg = OH + sA;
     for (const a of acidSystems) neg += a.c * meanAcidCharge(a.pKa, pH);
     for (const b of bases) pos += b.c / (1 + 10 ** (pH - b.pKa));
+    if (carried) {
+      for (const cc of carried.compounds) {
+        let fn = 1;
+        let anions = 0;
+        let cations = 0;
+        for (const p of cc.pKa) {
+          if (p.type === 'acid') {
+            const dep = 1 / (1 + 10 ** (p.value - pH));
+            anions += dep;
+            fn *= 1 - dep;
+          } else {
+            const prot = 1 / (1 + 10 ** (pH - p.value));
+            cations += prot;
+            fn *= 1 - prot;
+          }
+        }
+        const cAq = cc.mol / (VL + cc.K * fn * VoL);
+        neg += cAq * anions;
+        pos += cAq * cations;
+      }
+    }
     return pos - neg;
   };
   let lo = -2;
@@ -339,6 +379,31 @@ export interface SoluteDistribution {
  * a route compound between the organic phase (its main solvent) and an
  * aqueous phase of the given pH and salt, via properties/partition.
  */
+/**
+ * Partition coefficient of the neutral species, K = D(pH)/f_n(pH) [-], of an
+ * ionisable compound between an organic solvent and the aqueous phase, for
+ * the charge balance of a wash (aqueousPH `carried`). D is evaluated by
+ * compoundDistribution at whichever of pH 2, 4.5, 7, 9.5, 12 gives the largest
+ * neutral fraction (to avoid dividing by a vanishing f_n); for every method
+ * D = K f_n(pH) (× the salt factor), so K does not depend on that choice.
+ * Returns Infinity when the compound is assumed to stay in the organic phase.
+ */
+export function neutralPartitionCoefficient(ctx: EvalContext, compoundId: string, organicSolventComponentId: string, salt: { ks_Lmol: number; molar: number } | undefined, T_K: number): number {
+  const pKa = (ctx.comps.get(compoundId)!.compound!.pKa ?? []) as PKa[];
+  let best = 7;
+  let bestF = -1;
+  for (const p of [2, 4.5, 7, 9.5, 12]) {
+    const f = neutralFraction(pKa, p);
+    if (f > bestF) {
+      bestF = f;
+      best = p;
+    }
+  }
+  const d = compoundDistribution(ctx, compoundId, organicSolventComponentId, best, salt, T_K, []);
+  if (!Number.isFinite(d.D) || !(bestF > 0)) return Infinity;
+  return d.D / bestF;
+}
+
 export function compoundDistribution(
   ctx: EvalContext,
   compoundId: string,

@@ -39,11 +39,12 @@
 import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
 import type { EvalContext } from '../route/context';
+import type { PKa } from '../properties/partition';
 import { aqueousMediumKg, commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
 import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { addTo, COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
-import { aqueousPH, compoundDistribution, organicOrganicDistribution, splitLiquid } from './equilibria';
+import { aqueousPH, compoundDistribution, neutralPartitionCoefficient, organicOrganicDistribution, splitLiquid } from './equilibria';
 import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA } from '../units';
 
 /** Density difference below which phases separate poorly, g/mL (issue 4; common practice). */
@@ -105,10 +106,28 @@ export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: 
       saltMolar += molar;
     }
   }
-  const pH = hasAq ? (pHOverride ?? aqueousPH(ctx, { volumeM3: Va, kg: aqueous, includeCompounds: false })) : null;
-  if (hasAq) method(methods, 'aqueous pH', pHOverride !== undefined ? 'stated pH of the medium' : 'charge balance of the aqueous solutes (ideal solution, pKw 14)', pHOverride !== undefined ? 'route document' : 'pKa values from the aqueous-media library');
   const salt = saltMolar > 0 ? { ks_Lmol: saltNum / saltMolar, molar: saltMolar } : undefined;
   const main = mainOrganic(ctx, organic);
+  let pH: number | null = null;
+  if (hasAq && pHOverride !== undefined) {
+    pH = pHOverride;
+    method(methods, 'aqueous pH', 'stated pH of the medium', 'route document');
+  } else if (hasAq) {
+    // Acids and bases carried by the feed (compounds with pKa) take part in the charge balance;
+    // their neutral forms partition into the organic phase.
+    const carried: Array<{ mol: number; pKa: readonly PKa[]; K: number }> = [];
+    for (const id of ctx.ids) {
+      const cp = ctx.comps.get(id)!.compound;
+      if (!cp?.pKa?.length || !(mix[id] > 0)) continue;
+      const K = sp.split && Vo > 0 && main !== null ? neutralPartitionCoefficient(ctx, id, main, salt, T_K) : 0;
+      if (!Number.isFinite(K)) continue;
+      carried.push({ mol: mix[id] / (cp.molarMassGmol / 1000), pKa: cp.pKa, K });
+    }
+    pH = aqueousPH(ctx, { volumeM3: Va, kg: aqueous, includeCompounds: false, carried: { organicVolumeM3: Vo, compounds: carried } });
+    method(methods, 'aqueous pH', carried.length
+      ? 'charge balance of the aqueous solutes and of the acids and bases carried by the feed (their neutral forms partitioning into the organic phase; ideal solution, pKw 14)'
+      : 'charge balance of the aqueous solutes (ideal solution, pKw 14)', 'pKa values from the aqueous-media library and the route compounds');
+  }
   const D: PhaseState['D'] = {};
   const toOrganic: Record<string, number> = {};
   for (const id of ctx.ids) {
@@ -299,7 +318,7 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
   if (last?.split) emulsionChecks(ctx, organicOut, pH, rhoO, rhoA, W);
   // Gas evolution: carbonate or bicarbonate meeting acid.
   if (liq.kind === 'aqueous') gasEvolutionCheck(ctx, feed, liq.soluteId, result.addedKg[liq.soluteId] ?? 0, T, W);
-  buffercapacityCheck(ctx, feed, result.addedKg, pH, W);
+  buffercapacityCheck(ctx, feed, result.addedKg, pH, T, W);
 
   // Product loss to the discarded phase.
   const pid = ctx.productId;
@@ -384,12 +403,26 @@ function gasEvolutionCheck(ctx: EvalContext, feed: Stream, soluteId: string, sol
   W.push({ severity: 'hazard', code: 'gas-evolution', message: `${a.name} neutralises acid in the feed: up to ${nCO2.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is released. Add slowly with venting and stirring; never in a closed vessel; watch for foaming.` });
 }
 
-function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<string, number>, pH: number | null, W: EngineWarning[]) {
+/**
+ * Acid–base capacity of the wash against the acids and bases the feed carries.
+ * Acids counted: strong and weak acids among the feed's aqueous solutes, and
+ * compound acid sites with pKa below the pH of the medium alone (those the
+ * medium would neutralise); bases likewise (conjugate-acid pKa above it).
+ * Capacity of the wash: mol H⁺ (strong acid protons, weak acid sites) or mol
+ * base (hydroxide, carbonate or bicarbonate as one equivalent each, common
+ * practice for a wash that should not be driven to CO₂ by carbonate's second
+ * equivalent). Below 1 equiv: a warning with the equivalents and the pH the
+ * charge balance gives; 1–2 equiv: an advisory (little margin).
+ */
+function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<string, number>, pH: number | null, T_K: number, W: EngineWarning[]) {
   if (pH === null) return;
   let acidCap = 0;
   let baseCap = 0;
+  const medium: Record<string, number> = {};
+  for (const id of ctx.ids) medium[id] = 0;
   for (const id in added) {
     const c = ctx.comps.get(id)!;
+    medium[id] = added[id];
     if (!c.aqueous) continue;
     const n = added[id] / c.molarMassKgMol;
     const ab = c.aqueous.acidBase;
@@ -398,17 +431,33 @@ function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<strin
     else if (ab.kind === 'strong-base') baseCap += n * ab.hydroxides;
     else if (ab.kind === 'weak-base' || ab.kind === 'amphoteric-salt') baseCap += n;
   }
+  if (!(acidCap > 0) && !(baseCap > 0)) return;
+  const mediumPH = aqueousPH(ctx, { volumeM3: streamVolume(ctx, medium, T_K), kg: medium, includeCompounds: false }) ?? pH;
   let needAcid = 0;
   let needBase = 0;
   for (const id of ctx.ids) {
-    const cp = ctx.comps.get(id)!.compound;
-    if (!cp?.pKa || !(feed.kg[id] > 0)) continue;
-    const n = feed.kg[id] / (cp.molarMassGmol / 1000);
-    for (const p of cp.pKa) {
-      if (p.type === 'base' && p.value > pH) needAcid += n;
-      if (p.type === 'acid' && p.value < pH) needBase += n;
+    const c = ctx.comps.get(id)!;
+    if (!(feed.kg[id] > 0)) continue;
+    const n = feed.kg[id] / c.molarMassKgMol;
+    const ab = c.aqueous?.acidBase;
+    if (ab?.kind === 'strong-acid') needBase += n * ab.protons;
+    else if (ab?.kind === 'weak-acid') needBase += n * ab.pKa.value.filter((k) => k < mediumPH).length;
+    else if (ab?.kind === 'strong-base') needAcid += n * ab.hydroxides;
+    else if (ab?.kind === 'weak-base' || ab?.kind === 'amphoteric-salt') needAcid += n;
+    for (const p of c.compound?.pKa ?? []) {
+      if (p.type === 'base' && p.value > mediumPH) needAcid += n;
+      if (p.type === 'acid' && p.value < mediumPH) needBase += n;
     }
   }
-  if (acidCap > 0 && needAcid > 0.5 * acidCap) W.push({ severity: 'warning', code: 'buffer-capacity', message: `Bases in the feed (${needAcid.toFixed(2)} mol) use more than half the acid in the wash (${acidCap.toFixed(2)} mol): the pH will rise above the estimate of the medium alone; use more acid.` });
-  if (baseCap > 0 && needBase > 0.5 * baseCap) W.push({ severity: 'warning', code: 'buffer-capacity', message: `Acids in the feed (${needBase.toFixed(2)} mol) use more than half the base in the wash (${baseCap.toFixed(2)} mol): the pH will fall below the estimate of the medium alone; use more base.` });
+  const check = (cap: number, need: number, what: 'acid' | 'base', carried: 'bases' | 'acids') => {
+    if (!(cap > 0) || !(need > 0)) return;
+    const equiv = cap / need;
+    if (equiv < 1) {
+      W.push({ severity: 'warning', code: `${what}-insufficient`, message: `The wash carries ${cap.toPrecision(3)} mol ${what} for ${need.toPrecision(3)} mol ${carried} in the feed (${equiv.toFixed(2)} equiv): the aqueous pH ends at ${pH.toFixed(2)} instead of ${mediumPH.toFixed(2)} for the medium alone, and the ${carried} are purged less. Use more than 1 equiv of ${what}.` });
+    } else if (equiv < 2) {
+      W.push({ severity: 'advisory', code: 'buffer-capacity', message: `The wash carries ${equiv.toFixed(2)} equiv of ${what} for the ${carried} in the feed (${cap.toPrecision(3)} vs ${need.toPrecision(3)} mol): the pH (${pH.toFixed(2)}, medium alone ${mediumPH.toFixed(2)}) has little margin.` });
+    }
+  };
+  check(baseCap, needBase, 'base', 'acids');
+  check(acidCap, needAcid, 'acid', 'bases');
 }

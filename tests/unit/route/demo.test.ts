@@ -53,7 +53,12 @@ describe('demo amide isolation', () => {
     // c1 → acid wash → c2 → base wash → c3
     expect(kg('c2', 'pw417-amine') / kg('c1', 'pw417-amine')).toBeLessThan(1e-4);
     expect(kg('c2', 'pw417-acid') / kg('c1', 'pw417-acid')).toBeGreaterThan(0.95);
-    expect(kg('c3', 'pw417-acid') / kg('c2', 'pw417-acid')).toBeLessThan(0.1);
+    // Re-pinned with engine 1.0.2: the acid the feed carries now takes part in the wash's charge
+    // balance; its neutralisation turns bicarbonate into carbonic acid, which stays dissolved (closed
+    // system), so the pH is 7.6–7.8 rather than the 8.3 of the medium alone and about 17 % of the acid
+    // stays in the organic phase (was under 10 %). The later steps still purge it more than 1000-fold.
+    expect(kg('c3', 'pw417-acid') / kg('c2', 'pw417-acid')).toBeLessThan(0.25);
+    expect(kg('c3', 'pw417-acid') / kg('c2', 'pw417-acid')).toBeGreaterThan(0.05);
   });
   it('the crystallisation leaves the impurities in the liquor and loses some product to it', () => {
     expect(r.steps['cool'].warnings.some((w) => w.code === 'co-precipitation')).toBe(false);
