@@ -61,6 +61,10 @@ describe('the demo route', () => {
     const cards = await page.getByRole('article').count();
     await shot('demo-01-opened');
 
+    // The route opens at a readable zoom on its start; Fit view shows all of it.
+    await expect(page.getByRole('article', { name: /^Charge:/ }).isVisible()).resolves.toBe(true);
+    await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
+
     // The antisolvent crystallisation: its settings, and the yield-against-end-temperature curve.
     await page.getByRole('article', { name: /^Crystallisation: Heptane antisolvent/ }).click();
     const settings = page.getByRole('form', { name: /Settings of Heptane antisolvent/ });
@@ -82,6 +86,7 @@ describe('the demo route', () => {
     await shot('demo-03-less-antisolvent');
 
     // A wash after the acid wash, fed by its aqueous layer (a back-extraction).
+    await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
     await page.getByRole('article', { name: /^Wash: 1 M HCl wash/ }).click();
     await page.getByRole('button', { name: 'Add Wash' }).click();
     await expect.poll(() => page.getByRole('article').count()).toBe(cards + 1);
@@ -101,6 +106,7 @@ describe('the demo route', () => {
     await page.getByRole('article', { name: addedName }).waitFor();
     await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
     await expect.poll(async () => number(await yieldTotal.textContent())).toBe(yieldAfter);
+    await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
     await page.getByRole('article', { name: /^Crystallisation: Heptane antisolvent/ }).click();
     await expect(page.getByRole('form', { name: /Settings of Heptane antisolvent/ }).getByLabel('Antisolvent volume', { exact: true }).inputValue()).resolves.toBe('3 ± 0.5 vol');
     await shot('demo-05-after-reload');
@@ -121,6 +127,7 @@ describe('the demo route', () => {
     await shot('demo-07-purge');
 
     // A distillation shows its profile.
+    await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
     await page.getByRole('article', { name: /^Distillation:/ }).first().click();
     await page.getByRole('img', { name: 'Pot temperature and original solvent left against distillate volume' }).locator('svg').waitFor();
 

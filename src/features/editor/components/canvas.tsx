@@ -139,19 +139,26 @@ export function Canvas() {
         snapToGrid
         snapGrid={[20, 20]}
         fitView
-        fitViewOptions={{ maxZoom: 1, padding: 0.2 }}
+        fitViewOptions={READABLE_FIT}
         minZoom={0.1}
         proOptions={{ hideAttribution: true }}
         aria-label="Route canvas"
       >
         <Background variant={BackgroundVariant.Dots} gap={20} size={1.2} color="#D9D5CB" />
-        <MiniMap pannable zoomable ariaLabel="Overview of the route" nodeColor="#ECEAE4" nodeStrokeColor="#858B94" maskColor="rgba(236,234,228,0.6)" />
+        <MiniMap pannable zoomable ariaLabel="Overview of the route" bgColor="#FFFFFF" nodeColor={miniMapFill} nodeStrokeColor={miniMapStroke} nodeStrokeWidth={4} nodeBorderRadius={6} maskColor="rgba(236,234,228,0.55)" maskStrokeColor="#3B4C86" maskStrokeWidth={2} />
         <Controls showInteractive={false} aria-label="Zoom" />
       </ReactFlow>
       <Legend />
     </div>
   );
 }
+
+/** The first view: the whole route when it fits at a readable size, else its start at that size (pan or use the mini-map for the rest). */
+const READABLE_FIT = { maxZoom: 1, minZoom: 0.6, padding: 0.15 } as const;
+
+// Mini-map cards: the card colours of the canvas (ink-faint outline, accent when selected), so the overview reads like the route.
+const miniMapFill = (node: StepNodeType) => (node.selected ? '#E6E9F4' : '#ECEAE4');
+const miniMapStroke = (node: StepNodeType) => (node.selected ? '#3B4C86' : '#585E67');
 
 function Legend() {
   return (

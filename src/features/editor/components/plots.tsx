@@ -135,8 +135,9 @@ export function ProductFlow() {
           draggable: false,
           emphasis: { focus: 'adjacency' },
           label: { fontSize: 10, color: PLOT.ink, formatter: (p: { name: string }) => label.get(p.name) ?? p.name },
+          // Steps sit close together in a narrow panel: only where the product ends is labelled; steps are named on hover.
           lineStyle: { color: 'source', opacity: 0.35 },
-          data: [...used].map((name) => ({ name, itemStyle: { color: isolated.has(name) ? PLOT.solid : lost.has(name) ? PLOT.hazard : PLOT.accent } })),
+          data: [...used].map((name) => ({ name, label: { show: isolated.has(name) || lost.has(name) }, itemStyle: { color: isolated.has(name) ? PLOT.solid : lost.has(name) ? PLOT.hazard : PLOT.accent } })),
           links,
         },
       ],
@@ -145,12 +146,34 @@ export function ProductFlow() {
   if (!result) return <p className="text-small text-ink-muted">The product’s path appears once the route can be evaluated.</p>;
   if (!option) return <p className="text-small text-ink-muted">No product moves through the route yet: give a component the role “product” and charge it.</p>;
   const lossKg = result.totals.productInKg - result.totals.isolatedProductKg;
+  const pid = result.totals.productId;
+  const names = new Map(doc.steps.map((s) => [s.id, s.name]));
+  const exits = pid
+    ? result.terminals
+        .map((t) => ({ key: `${t.stepId}:${t.port}`, where: t.isolated ? `Isolated (${names.get(t.stepId) ?? t.stepId})` : `${names.get(t.stepId) ?? t.stepId} · ${t.port}`, isolated: t.isolated, kg: t.stream.kg[pid] ?? 0 }))
+        .filter((e) => e.kg > 1e-9)
+        .sort((a, b) => b.kg - a.kg)
+    : [];
   return (
     <figure>
-      <Chart option={option} label="Where the product mass goes, step by step" height={Math.max(180, 24 * doc.steps.length)} testId="plot-product-flow" />
+      <Chart option={option} label="Where the product mass goes, step by step" height={180} testId="plot-product-flow" />
       <figcaption className="text-caption text-ink-muted">
-        Band width is product mass. Isolated {fmt(result.totals.isolatedProductKg, 3)} kg of {fmt(result.totals.productInKg, 3)} kg charged; {fmt(lossKg, 3)} kg leaves in liquors and washes (marked “Lost”).
+        Band width is product mass (hover a band for its step). Isolated {fmt(result.totals.isolatedProductKg, 3)} kg of {fmt(result.totals.productInKg, 3)} kg charged; {fmt(lossKg, 3)} kg leaves in liquors and washes (marked “Lost”).
       </figcaption>
+      <table className="mt-1 w-full text-caption tabular-nums" aria-label="Where the product leaves the route">
+        <tbody>
+          {exits.map((e) => (
+            <tr key={e.key} className="border-b border-rule">
+              <th scope="row" className="py-0.5 pr-2 text-left font-normal">
+                <span aria-hidden="true" className={`mr-1 inline-block size-2 ${e.isolated ? 'bg-phase-solid' : 'rotate-45 bg-caution-hazard'}`} />
+                {e.where}
+              </th>
+              <td className="py-0.5 text-right">{fmt(e.kg, 3)} kg</td>
+              <td className="w-14 py-0.5 text-right">{fmt((100 * e.kg) / (result.totals.productInKg || 1), 1)} %</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
     </figure>
   );
 }

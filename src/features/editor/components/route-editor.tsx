@@ -1,7 +1,7 @@
 import '@xyflow/react/dist/style.css';
 import './editor.css';
-import { useEffect, useMemo, useState } from 'react';
-import { ReactFlowProvider, useReactFlow } from '@xyflow/react';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { ReactFlowProvider, useReactFlow, type ReactFlowInstance } from '@xyflow/react';
 import { useShallow } from 'zustand/react/shallow';
 import { Link } from 'react-router-dom';
 import { Button } from '@/components/button';
@@ -106,10 +106,16 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
     return () => window.removeEventListener('keydown', onKey);
   }, [flow]);
 
-  // Keep the view on the new step when one is added.
+  // On opening, a readable view of the route (its start when it is long); keep the view on a new step when one is added.
   const stepCount = useEditorStore((s) => s.doc.steps.length);
+  const seenCount = useRef(0);
   useEffect(() => {
-    if (stepCount) requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 }));
+    const opening = seenCount.current === 0;
+    const grew = stepCount > seenCount.current;
+    seenCount.current = stepCount;
+    if (!stepCount || !grew) return;
+    const steps = useEditorStore.getState().doc.steps;
+    requestAnimationFrame(() => fitReadable(flow, opening ? undefined : steps[steps.length - 1]?.id));
   }, [stepCount, flow]);
 
   return (
@@ -184,6 +190,34 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
       </div>
     </div>
   );
+}
+
+const READABLE_ZOOM = 0.6;
+
+/**
+ * The whole route when it fits at a readable zoom; otherwise that zoom, on the
+ * step just added or on the start of the route (the mini-map shows the rest).
+ */
+function fitReadable(flow: ReactFlowInstance, focusId?: string) {
+  const nodes = flow.getNodes();
+  if (!nodes.length) return;
+  const pane = document.querySelector('.react-flow');
+  const w = pane?.clientWidth ?? 800;
+  const h = pane?.clientHeight ?? 600;
+  const width = (n: (typeof nodes)[number]) => n.measured?.width ?? 240;
+  const height = (n: (typeof nodes)[number]) => n.measured?.height ?? 150;
+  const minX = Math.min(...nodes.map((n) => n.position.x));
+  const maxX = Math.max(...nodes.map((n) => n.position.x + width(n)));
+  const minY = Math.min(...nodes.map((n) => n.position.y));
+  const maxY = Math.max(...nodes.map((n) => n.position.y + height(n)));
+  const zoomAll = Math.min(w / ((maxX - minX) * 1.3), h / ((maxY - minY) * 1.3));
+  if (zoomAll >= READABLE_ZOOM) {
+    flow.fitView({ maxZoom: 1, padding: 0.15 });
+    return;
+  }
+  const focus = focusId ? nodes.find((n) => n.id === focusId) : undefined;
+  if (focus) flow.setCenter(focus.position.x + width(focus) / 2, focus.position.y + height(focus) / 2, { zoom: Math.max(flow.getZoom(), READABLE_ZOOM) });
+  else flow.setViewport({ x: 24 - minX * READABLE_ZOOM, y: h / 2 - ((minY + maxY) / 2) * READABLE_ZOOM, zoom: READABLE_ZOOM });
 }
 
 type ResultTab = 'cautions' | 'streams' | 'product' | 'purge' | 'uncertainty';
