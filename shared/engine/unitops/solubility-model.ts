@@ -15,6 +15,7 @@
  * blend by volume are left out (fractions renormalised).
  */
 import { activityCorrectedSolubility, fitVantHoff, gramsPerLitreToMoleFraction, idealSolubility, jouybanAcree } from '../properties/solubility';
+import { createUnifac, type UnifacModel } from '../thermo/unifac';
 import type { EvalContext } from '../route/context';
 import { method, solventDensityGmL, warn } from '../route/context';
 import type { EngineWarning, MethodUsed } from '../route/types';
@@ -38,6 +39,54 @@ function pointToMoleFraction(c: CompoundSnapshot, s: SolventRecord, p: NonNullab
       return w / Ms / (w / Ms + (1 - w) / Mv);
     }
   }
+}
+
+/**
+ * x with x γ(x) = x_ideal in a neat solvent (solute index 0 of a two-component
+ * UNIFAC model), by the scan-and-bisect of activityCorrectedSolubility
+ * (properties/solubility.ts, which documents the method and its source).
+ * @param xIdeal ideal solubility [-]; @param T_K [K]; returns x [-].
+ */
+function activitySolubility(model: UnifacModel, xIdeal: number, T_K: number): number {
+  if (xIdeal >= 1) return 1;
+  const buf = new Float64Array(2);
+  const lnGamma = (x: number) => Math.log(model.gammas([x, 1 - x], T_K, buf)[0]);
+  const lnXi = Math.log(xIdeal);
+  const f = (x: number) => Math.log(x) + lnGamma(x) - lnXi;
+  const grid: number[] = [];
+  for (let k = 0; k <= 48; k++) grid.push(Math.pow(10, -12 + (12 * k) / 48));
+  grid[grid.length - 1] = 1 - 1e-9;
+  let lo = NaN;
+  let hi = NaN;
+  let prevX = grid[0];
+  let prevF = f(prevX);
+  if (prevF >= 0) return prevX;
+  for (let k = 1; k < grid.length && Number.isNaN(lo); k++) {
+    const x = grid[k];
+    const fx = f(x);
+    if ((prevF < 0 && fx >= 0) || (prevF >= 0 && fx < 0)) {
+      lo = prevX;
+      hi = x;
+    }
+    prevX = x;
+    prevF = fx;
+  }
+  if (Number.isNaN(lo)) {
+    lo = grid[grid.length - 2];
+    hi = 1;
+  }
+  let flo = f(lo);
+  for (let i = 0; i < 60; i++) {
+    const mid = 0.5 * (lo + hi);
+    const fm = f(mid);
+    if ((fm < 0) === (flo < 0)) {
+      lo = mid;
+      flo = fm;
+    } else {
+      hi = mid;
+    }
+  }
+  return 0.5 * (lo + hi);
 }
 
 /** Solubility curve of a compound in one neat solvent, by the best evidence available. */
@@ -67,8 +116,22 @@ export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventCo
       try {
         // Probe once so that missing parameters fall through to the ideal model.
         activityCorrectedSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: 298.15, soluteGroups: groups, solventGroups: [s.unifac.value], solventMoleFractions: [1] });
+        // Same algorithm as properties/solubility activityCorrectedSolubility (log scan from 1e-12, first
+        // sign change, 60 bisections; same numbers), with the UNIFAC model built once per curve instead
+        // of once per γ evaluation, and memoised by temperature.
+        const model = createUnifac([groups, s.unifac.value]);
+        const memo = new Map<number, number>();
         curve = {
-          lnX: (T) => Math.log(activityCorrectedSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Math.min(T, Tm), soluteGroups: groups, solventGroups: [s.unifac.value], solventMoleFractions: [1] }).moleFraction),
+          lnX: (T) => {
+            const Tc = Math.min(T, Tm);
+            let v = memo.get(Tc);
+            if (v === undefined) {
+              v = Math.log(activitySolubility(model, idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Tc }).moleFraction, Tc));
+              if (memo.size > 64) memo.clear();
+              memo.set(Tc, v);
+            }
+            return v;
+          },
           method: 'UNIFAC activity-corrected solubility',
           source: 'Fredenslund et al. 1975 / Hansen et al. 1991 UNIFAC; melting data from the compound record',
         };
