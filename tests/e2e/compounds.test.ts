@@ -35,7 +35,7 @@ describe('compounds', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Compounds' }).click();
     await page.getByRole('heading', { level: 1, name: 'Compounds' }).waitFor();
     // The seeded, invented demo compounds are listed.
-    await page.getByText('Velmorane amide (invented)', { exact: true }).waitFor();
+    await page.getByText('PW-417 amide (invented)', { exact: true }).waitFor();
     await shot('compounds-01-table');
 
     await page.getByRole('button', { name: 'Add a compound' }).first().click();
@@ -75,7 +75,7 @@ describe('compounds', () => {
     await row.waitFor();
     await expect(row.innerText()).resolves.toMatch(/C10H12O3/);
     await expect(row.innerText()).resolves.toMatch(/estimate/);
-    await expect(page.getByRole('row').filter({ hasText: 'Velmorane' }).count()).resolves.toBe(0);
+    await expect(page.getByRole('row').filter({ hasText: 'PW-417 amide' }).count()).resolves.toBe(0);
     await shot('compounds-04-saved');
 
     const stored = await Compound.findOne({ where: { name: 'Propanoic acid impurity (test)' } });

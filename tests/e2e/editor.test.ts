@@ -42,7 +42,7 @@ describe('route editor', () => {
     // Create a route: the editor opens on an empty canvas.
     await page.getByRole('button', { name: 'New route' }).click();
     await page.getByLabel('Route name').fill(name);
-    await page.getByLabel('Project (optional)').fill('Velmorane programme');
+    await page.getByLabel('Project (optional)').fill('PW-418 programme (invented)');
     await page.getByRole('button', { name: 'Create and open' }).click();
     await page.getByRole('heading', { level: 1, name }).waitFor();
     await page.getByText('An empty canvas — start with a Charge').waitFor();
@@ -53,7 +53,7 @@ describe('route editor', () => {
     const panel = page.getByRole('form', { name: /Settings of Charge/ });
     await panel.waitFor();
     await panel.getByRole('button', { name: 'Add an item' }).click();
-    await panel.getByLabel('Item 2', { exact: true }).selectOption({ label: 'Velmorane amide (invented) (product)' });
+    await panel.getByLabel('Item 2', { exact: true }).selectOption({ label: 'PW-417 amide (invented) (product)' });
     await panel.getByLabel('Amount of item 2 (kg)', { exact: true }).fill('1');
     await panel.getByLabel('Amount of item 2 (kg)', { exact: true }).press('Enter');
 
