@@ -41,6 +41,9 @@ export function Canvas() {
       position: step.position ?? { x: 80 + i * 300, y: 120 },
       data: { step },
       selected: sel.has(step.id),
+      // The card's usual size until it is measured, so the mini-map can draw it.
+      initialWidth: 240,
+      initialHeight: 140,
     })) as StepNodeType[];
   }, [steps, selection.steps]);
 

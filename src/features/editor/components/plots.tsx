@@ -151,7 +151,7 @@ export function ProductFlow() {
   const exits = pid
     ? result.terminals
         .map((t) => ({ key: `${t.stepId}:${t.port}`, where: t.isolated ? `Isolated (${names.get(t.stepId) ?? t.stepId})` : `${names.get(t.stepId) ?? t.stepId} · ${t.port}`, isolated: t.isolated, kg: t.stream.kg[pid] ?? 0 }))
-        .filter((e) => e.kg > 1e-9)
+        .filter((e) => e.kg >= 1e-4 * result.totals.productInKg)
         .sort((a, b) => b.kg - a.kg)
     : [];
   return (
@@ -168,7 +168,7 @@ export function ProductFlow() {
                 <span aria-hidden="true" className={`mr-1 inline-block size-2 ${e.isolated ? 'bg-phase-solid' : 'rotate-45 bg-caution-hazard'}`} />
                 {e.where}
               </th>
-              <td className="py-0.5 text-right">{fmt(e.kg, 3)} kg</td>
+              <td className="whitespace-nowrap py-0.5 text-right">{e.kg.toPrecision(3)} kg</td>
               <td className="w-14 py-0.5 text-right">{fmt((100 * e.kg) / (result.totals.productInKg || 1), 1)} %</td>
             </tr>
           ))}
