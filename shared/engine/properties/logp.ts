@@ -21,7 +21,7 @@
  */
 import { EngineError } from '../errors';
 import type { UnifacGroups } from '../data/types';
-import { activityCoefficients } from '../thermo/unifac';
+import { activityCoefficients, type UnifacModelCache } from '../thermo/unifac';
 
 /** UNIFAC subgroups of 1-octanol: CH3 + 7 CH2 + OH. */
 export const OCTANOL_GROUPS: UnifacGroups = { 1: 1, 2: 7, 14: 1 };
@@ -48,9 +48,10 @@ export const INFINITE_DILUTION_X = 1e-9;
  * @param groups UNIFAC subgroups of each solvent of the phase
  * @param moleFractions solute-free mole fractions of the solvents [-], sum 1
  * @param T_K temperature [K]
+ * @param models optional cache of UNIFAC models (same numbers; the model is built once per mixture)
  * @returns γ∞ [-]
  */
-export function gammaInfiniteDilution(soluteGroups: UnifacGroups, groups: UnifacGroups[], moleFractions: number[], T_K: number): number {
+export function gammaInfiniteDilution(soluteGroups: UnifacGroups, groups: UnifacGroups[], moleFractions: number[], T_K: number, models?: UnifacModelCache): number {
   if (groups.length === 0 || groups.length !== moleFractions.length) {
     throw new EngineError('invalid-input', 'Give one mole fraction for each solvent of a phase (at least one).', { groups: groups.length, fractions: moleFractions.length });
   }
@@ -60,6 +61,7 @@ export function gammaInfiniteDilution(soluteGroups: UnifacGroups, groups: Unifac
   }
   const x = INFINITE_DILUTION_X;
   const xs = [x, ...moleFractions.map((z) => (1 - x) * z)];
+  if (models) return models.model([soluteGroups, ...groups]).gammas(xs, T_K)[0];
   return activityCoefficients([soluteGroups, ...groups], xs, T_K)[0];
 }
 

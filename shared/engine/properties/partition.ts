@@ -18,6 +18,7 @@ import { EngineError } from '../errors';
 import type { Source, UnifacGroups } from '../data/types';
 import { COLLANDER } from '../data/collander';
 import { gammaInfiniteDilution } from './logp';
+import type { UnifacModelCache } from '../thermo/unifac';
 
 export { estimateLogPow } from './logp';
 
@@ -167,6 +168,7 @@ export interface PhaseSpec {
  * @param input.organic, input.aqueous compositions (mutually saturated, as
  *   the caller knows them) and molar volumes of the phases [m³/mol]
  * @param input.T_K temperature [K]
+ * @param input.models optional cache of UNIFAC models (same numbers, fewer model builds)
  * @returns K_x (mole-fraction basis) [-], K_c (molar concentrations,
  *   organic/aqueous) [-], the two γ∞ and warnings
  *
@@ -174,7 +176,7 @@ export interface PhaseSpec {
  * coefficients from it are typically within a factor 3 (0.5 log) for
  * simple solutes, worse for multifunctional ones. 275–425 K.
  */
-export function partitionByActivity(input: { soluteGroups: UnifacGroups; organic: PhaseSpec; aqueous: PhaseSpec; T_K: number }): { Kx: number; Kc: number; gammaOrganic: number; gammaAqueous: number; warnings: string[] } {
+export function partitionByActivity(input: { soluteGroups: UnifacGroups; organic: PhaseSpec; aqueous: PhaseSpec; T_K: number; models?: UnifacModelCache }): { Kx: number; Kc: number; gammaOrganic: number; gammaAqueous: number; warnings: string[] } {
   const { soluteGroups, organic, aqueous, T_K } = input;
   if (!Number.isFinite(T_K) || T_K <= 0) throw new EngineError('invalid-input', `Temperature must be a positive number of kelvin (got ${T_K}).`, { T_K });
   for (const [name, ph] of [['organic', organic], ['aqueous', aqueous]] as const) {
@@ -184,8 +186,8 @@ export function partitionByActivity(input: { soluteGroups: UnifacGroups; organic
   }
   const warnings: string[] = ['Estimate from UNIFAC (VLE parameters) at infinite dilution; typical error about 0.5 log unit for simple solutes.'];
   if (T_K < 275 || T_K > 425) warnings.push(`UNIFAC parameters were fitted at about 275–425 K; ${T_K.toFixed(1)} K is outside.`);
-  const gammaOrganic = gammaInfiniteDilution(soluteGroups, organic.groups, organic.moleFractions, T_K);
-  const gammaAqueous = gammaInfiniteDilution(soluteGroups, aqueous.groups, aqueous.moleFractions, T_K);
+  const gammaOrganic = gammaInfiniteDilution(soluteGroups, organic.groups, organic.moleFractions, T_K, input.models);
+  const gammaAqueous = gammaInfiniteDilution(soluteGroups, aqueous.groups, aqueous.moleFractions, T_K, input.models);
   const Kx = gammaAqueous / gammaOrganic;
   const Kc = (Kx * aqueous.molarVolumeM3mol) / organic.molarVolumeM3mol;
   return { Kx, Kc, gammaOrganic, gammaAqueous, warnings };
@@ -202,6 +204,8 @@ export type DistributionInput = {
   aqueous: { pH?: number; salt?: { ks_Lmol: number; molar: number }; groups?: UnifacGroups[]; moleFractions?: number[]; molarVolumeM3mol?: number };
   T_K: number;
   prefer?: 'activity' | 'collander';
+  /** Optional cache of UNIFAC models for the activity estimate (same numbers, fewer model builds). */
+  models?: UnifacModelCache;
 };
 
 export interface DistributionResult {
@@ -318,6 +322,7 @@ export function distributionRatio(input: DistributionInput): DistributionResult 
       organic: { groups: organic.groups as UnifacGroups[], moleFractions: organic.moleFractions as number[], molarVolumeM3mol: organic.molarVolumeM3mol as number },
       aqueous: { groups: aqueous.groups as UnifacGroups[], moleFractions: aqueous.moleFractions as number[], molarVolumeM3mol: aqueous.molarVolumeM3mol as number },
       T_K,
+      models: input.models,
     });
     K = r.Kc;
     method = 'activity-coefficients (UNIFAC)';

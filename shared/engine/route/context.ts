@@ -9,6 +9,7 @@ import { componentKey, type CompoundSnapshot, type RouteDocument, type Uncertain
 import type { EngineWarning, MethodUsed, Stream } from './types';
 import type { PortPhase } from '../../schemas/route';
 import type { SeededRandom } from '../random';
+import { createUnifacModelCache, type UnifacModelCache } from '../thermo/unifac';
 
 /** Density assumed for a compound without a stated density, g/mL (common practice for organic solids, typically 1.1–1.4). */
 export const DEFAULT_COMPOUND_DENSITY_GML = 1.2;
@@ -38,8 +39,28 @@ export interface EvalContext {
   /** Read a possibly uncertain parameter: nominal value, or a draw in Monte Carlo. */
   num(u: Uncertain, min: number, max: number): number;
   rng: SeededRandom | null;
-  /** Memo for per-evaluation caches (VLE systems, fitted curves). */
+  /**
+   * Memo of things that depend on the document only, never on a drawn
+   * parameter (fitted solubility curves, keyed by compound and solvent
+   * component). Shared by the evaluations of one prepared route.
+   */
   cache: Map<string, unknown>;
+  /** UNIFAC models by mixture (same numbers as building each one afresh); shared like `cache`. */
+  unifac: UnifacModelCache;
+}
+
+/**
+ * Caches that the evaluations of one prepared route share (Monte Carlo draws
+ * change parameters only). Keyed by document content, so bounded by the
+ * document's components; they make nothing differ from a fresh evaluation.
+ */
+export interface EvaluationCaches {
+  memo: Map<string, unknown>;
+  unifac: UnifacModelCache;
+}
+
+export function createEvaluationCaches(): EvaluationCaches {
+  return { memo: new Map(), unifac: createUnifacModelCache() };
 }
 
 export function waterDensityGmL(): number {
@@ -70,7 +91,7 @@ export function aqueousApparentSpecificVolume(a: AqueousSoluteRecord): number {
   return Math.max(v, 0.05);
 }
 
-export function buildContext(doc: RouteDocument, rng: SeededRandom | null = null): { ctx: EvalContext; issues: Array<{ field: string; message: string }> } {
+export function buildContext(doc: RouteDocument, rng: SeededRandom | null = null, caches: EvaluationCaches = createEvaluationCaches()): { ctx: EvalContext; issues: Array<{ field: string; message: string }> } {
   const issues: Array<{ field: string; message: string }> = [];
   const comps = new Map<string, ResolvedComponent>();
   doc.components.forEach((c, i) => {
@@ -121,7 +142,8 @@ export function buildContext(doc: RouteDocument, rng: SeededRandom | null = null
       const hi = Math.min(max, u.value + u.plusMinus);
       return rng.uniform(lo, hi);
     },
-    cache: new Map(),
+    cache: caches.memo,
+    unifac: caches.unifac,
   };
   return { ctx, issues };
 }

@@ -21,7 +21,7 @@
 import { routeDocumentSchema, PORTS, type RouteDocument, type RouteStep } from '../../schemas/route';
 import type { SeededRandom } from '../random';
 import { EngineError } from '../errors';
-import { buildContext, type EvalContext } from './context';
+import { buildContext, createEvaluationCaches, type EvalContext, type EvaluationCaches } from './context';
 import { RouteValidationError, StepError, type RouteIssue } from './errors';
 import { validateRoute, type GraphInfo } from './validate';
 import type { EngineWarning, StepOutput, StepResult, Stream } from './types';
@@ -129,6 +129,8 @@ export function evaluateRoute(doc: unknown, options: { rng?: SeededRandom } = {}
 export interface PreparedRoute {
   doc: RouteDocument;
   graph: GraphInfo;
+  /** Document-keyed caches shared by the evaluations of this route (solubility curves, UNIFAC models). */
+  caches?: EvaluationCaches;
 }
 
 /** Validate once (for repeated evaluation in Monte Carlo). */
@@ -136,12 +138,12 @@ export function prepareRoute(doc: RouteDocument): PreparedRoute {
   const { ctx, issues: ctxIssues } = buildContext(doc);
   const { issues, graph } = validateRoute(doc, ctx, ctxIssues);
   if (issues.length) throw new RouteValidationError(issues);
-  return { doc, graph };
+  return { doc, graph, caches: createEvaluationCaches() };
 }
 
 export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | null): RouteResult {
   const { doc, graph } = prepared;
-  const { ctx } = buildContext(doc, rng);
+  const { ctx } = buildContext(doc, rng, prepared.caches ?? createEvaluationCaches());
   const stepById = new Map(doc.steps.map((s) => [s.id, s]));
   const outputsOf = new Map<string, Record<string, Stream>>();
   const results: Record<string, StepResult> = {};

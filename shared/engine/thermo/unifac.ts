@@ -271,6 +271,53 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
 }
 
 /**
+ * Reusable UNIFAC models, keyed by the components' subgroup counts (in
+ * component order), for callers that evaluate the same mixture many times
+ * (one route evaluation, or the draws of a Monte Carlo run). A cached model
+ * gives exactly the numbers of a freshly built one: createUnifac is
+ * deterministic and its only state is the Ψ(T) of the last temperature.
+ * Bounded: the cache is emptied when it holds more than `maxModels` models.
+ * Models that fail to build (missing parameters) are not cached; the error
+ * is thrown again on each request.
+ */
+export interface UnifacModelCache {
+  /** The model for these components (subgroup number → count [–] each), built on first use. */
+  model(components: readonly UnifacGroups[]): UnifacModel;
+}
+
+function groupsKey(components: readonly UnifacGroups[]): string {
+  let key = '';
+  for (const g of components) {
+    const ks = Object.keys(g).sort((a, b) => Number(a) - Number(b));
+    for (const k of ks) key += `${k}:${g[Number(k)]},`;
+    key += '|';
+  }
+  return key;
+}
+
+/**
+ * @param maxModels  bound on the number of models held [–], default 256
+ * @returns a cache whose model(components) equals createUnifac(components)
+ *
+ * Example: const c = createUnifacModelCache(); c.model([{16: 1}, {1: 2, 2: 1}]).gammas([0.5, 0.5], 298.15)
+ */
+export function createUnifacModelCache(maxModels = 256): UnifacModelCache {
+  const models = new Map<string, UnifacModel>();
+  return {
+    model(components) {
+      const key = groupsKey(components);
+      let m = models.get(key);
+      if (!m) {
+        m = createUnifac(components);
+        if (models.size >= maxModels) models.clear();
+        models.set(key, m);
+      }
+      return m;
+    },
+  };
+}
+
+/**
  * Activity coefficients in one call (builds the model each time; for repeated
  * use call createUnifac once).
  *

@@ -5,7 +5,6 @@
  */
 import { createVleSystem, liquidLiquidSplit, type VleComponent, type VleSystem } from '../thermo/vle';
 import { distributionRatio, neutralFraction, partitionByActivity, type PKa } from '../properties/partition';
-import { activityCoefficients } from '../thermo/unifac';
 import { solventById } from '../data/index';
 import type { EvalContext } from '../route/context';
 import { warn, method } from '../route/context';
@@ -185,7 +184,7 @@ function morePolarPhase(ctx: EvalContext, ids: string[], x0: readonly number[], 
   const water = solventById('water');
   if (!water) return 1;
   const groups = [water.unifac.value, ...ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value)];
-  const at = (x: readonly number[]) => activityCoefficients(groups, [1e-9, ...x.map((v) => v * (1 - 1e-9))], T_K)[0];
+  const at = (x: readonly number[]) => ctx.unifac.model(groups).gammas([1e-9, ...x.map((v) => v * (1 - 1e-9))], T_K)[0];
   try {
     return at(x0) < at(x1) ? 0 : 1;
   } catch {
@@ -222,7 +221,7 @@ export function organicOrganicDistribution(ctx: EvalContext, compoundId: string,
     return { groups: ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value), moleFractions: x, molarVolumeM3mol: v };
   };
   try {
-    const r = partitionByActivity({ soluteGroups: groups, organic: phase(lessPolarKg), aqueous: phase(polarKg), T_K });
+    const r = partitionByActivity({ soluteGroups: groups, organic: phase(lessPolarKg), aqueous: phase(polarKg), T_K, models: ctx.unifac });
     for (const m of r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
     return { D: r.Kc, method: 'activity-coefficient ratio at infinite dilution between the two organic phases (UNIFAC)', source: 'UNIFAC: Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352 (estimated)' };
   } catch (e) {
@@ -439,6 +438,7 @@ export function compoundDistribution(
         molarVolumeM3mol: water ? (water.molarMassGmol.value / water.density.value.gPerMl) * 1e-6 : undefined,
       },
       T_K,
+      models: ctx.unifac,
     });
     for (const m of r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
     return { D: r.D, method: r.method, source: `${r.source.ref} (${r.source.status})` };

@@ -14,8 +14,8 @@
  * Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32. Solvents below 1 % of the
  * blend by volume are left out (fractions renormalised).
  */
-import { activityCorrectedSolubility, fitVantHoff, gramsPerLitreToMoleFraction, idealSolubility, jouybanAcree } from '../properties/solubility';
-import { createUnifac, type UnifacModel } from '../thermo/unifac';
+import { fitVantHoff, gramsPerLitreToMoleFraction, idealSolubility, jouybanAcree } from '../properties/solubility';
+import type { UnifacModel } from '../thermo/unifac';
 import type { EvalContext } from '../route/context';
 import { method, solventDensityGmL, warn } from '../route/context';
 import type { EngineWarning, MethodUsed } from '../route/types';
@@ -114,12 +114,13 @@ export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventCo
     if (c.unifac) {
       const groups = Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v]));
       try {
-        // Probe once so that missing parameters fall through to the ideal model.
-        activityCorrectedSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: 298.15, soluteGroups: groups, solventGroups: [s.unifac.value], solventMoleFractions: [1] });
+        // Invalid melting data or missing UNIFAC parameters fall through to the ideal model (building the
+        // model is what throws for missing parameters; the melting data are checked as the ideal model does).
+        idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: 298.15 });
         // Same algorithm as properties/solubility activityCorrectedSolubility (log scan from 1e-12, first
-        // sign change, 60 bisections; same numbers), with the UNIFAC model built once per curve instead
-        // of once per γ evaluation, and memoised by temperature.
-        const model = createUnifac([groups, s.unifac.value]);
+        // sign change, 60 bisections; same numbers), with the UNIFAC model built once per route
+        // (ctx.unifac) instead of once per γ evaluation, and memoised by temperature.
+        const model = ctx.unifac.model([groups, s.unifac.value]);
         const memo = new Map<number, number>();
         curve = {
           lnX: (T) => {
