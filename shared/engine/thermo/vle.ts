@@ -655,8 +655,11 @@ export function liquidLiquidSplit(sys: VleSystem, z: readonly number[], T_K: num
  * Method: if the liquid is stable at its homogeneous bubble point, that is
  * the answer (liquidPhases 1). Otherwise find T where the bubble pressure of
  * one of the coexisting liquids, Σ_i x_i^I γ_i^I P_i^sat, equals P (both
- * liquids have equal activities, hence equal partial pressures), by bracket
- * and bisection on ln P_calc(T) − ln P to 1e-9.
+ * liquids have equal activities, hence equal partial pressures): bracket
+ * from the homogeneous bubble point (2 K, then secant-guided steps of
+ * 0.5–20 K, at most 200 K), then a secant on 1/T safeguarded by the bracket
+ * (bisection when a step leaves it or it stops halving), on
+ * ln P_calc(T) − ln P to 1e-12, or the bracket to 1e-9 K.
  *
  * @param sys   system from createVleSystem
  * @param z     overall liquid mole fractions [–], summing to 1
@@ -684,48 +687,73 @@ export function heterogeneousBubblePoint(
     const b = bubblePressure(sys, liquid, T);
     return { f: Math.log(b.P_Pa / P_Pa), y: b.y, phases: s.split ? 2 : 1 };
   };
+  // Secant on 1/T (ln P_calc is nearly linear in 1/T, Clausius–Clapeyron), safeguarded by a bracket.
   let T = homogeneous.T_K;
   let current = evaluate(T);
-  // Bracket.
+  const inv = (T1: number, f1: number, T2: number, f2: number) => 1 / (1 / T1 - (f1 * (1 / T2 - 1 / T1)) / (f2 - f1));
+  // Bracket: step from the homogeneous bubble point towards the root, 2 K first, then to 0.2 K beyond
+  // the secant estimate of the root (0.5–20 K a step, at most 200 K in all).
   let lo = T;
   let hi = T;
   let fLo = current.f;
   let fHi = current.f;
   const stepK = 2;
-  for (let k = 0; k < 100 && fLo > 0; k++) {
+  let moved = 0;
+  for (let k = 0; k < 100 && fLo > 0 && moved < 200; k++) {
+    let next = lo - stepK;
+    if (k > 0 && fHi > fLo) {
+      const guess = inv(lo, fLo, hi, fHi);
+      if (Number.isFinite(guess)) next = Math.min(lo - 0.5, Math.max(lo - 20, guess - 0.2));
+    }
+    moved += lo - next;
     hi = lo;
     fHi = fLo;
-    lo -= stepK;
+    lo = next;
     fLo = evaluate(lo).f;
   }
-  for (let k = 0; k < 100 && fHi < 0; k++) {
+  for (let k = 0; k < 100 && fHi < 0 && moved < 200; k++) {
+    let next = hi + stepK;
+    if (k > 0 && fHi > fLo) {
+      const guess = inv(lo, fLo, hi, fHi);
+      if (Number.isFinite(guess)) next = Math.max(hi + 0.5, Math.min(hi + 20, guess + 0.2));
+    }
+    moved += next - hi;
     lo = hi;
     fLo = fHi;
-    hi += stepK;
+    hi = next;
     fHi = evaluate(hi).f;
   }
   if (!(fLo <= 0 && fHi >= 0)) {
     throw new EngineError('no-convergence', 'Could not bracket the boiling point of the two-phase liquid.', { P_Pa });
   }
+  // Refine: secant through the last two points when it falls inside the bracket, else bisection;
+  // bisection also when the bracket has not halved in three steps.
+  let last: { T: number; value: { f: number; y: number[]; phases: number } } | null = null;
+  let pA = lo;
+  let fA = fLo;
+  let pB = hi;
+  let fB = fHi;
+  let width = hi - lo;
   for (let iter = 0; iter < 100 && hi - lo > 1e-9; iter++) {
-    // Regula falsi with bisection fallback.
-    let mid = lo - (fLo * (hi - lo)) / (fHi - fLo);
-    if (!(mid > lo && mid < hi) || iter % 3 === 2) mid = 0.5 * (lo + hi);
+    let mid = fB !== fA ? inv(pA, fA, pB, fB) : NaN;
+    const stalled = iter % 3 === 2 && hi - lo > 0.5 * width;
+    if (iter % 3 === 2) width = hi - lo;
+    if (!(mid > lo && mid < hi) || stalled) mid = 0.5 * (lo + hi);
     current = evaluate(mid);
-    if (Math.abs(current.f) < 1e-10) {
+    last = { T: mid, value: current };
+    pA = pB;
+    fA = fB;
+    pB = mid;
+    fB = current.f;
+    if (Math.abs(current.f) < 1e-12) {
       lo = hi = mid;
       break;
     }
-    if (current.f < 0) {
-      lo = mid;
-      fLo = current.f;
-    } else {
-      hi = mid;
-      fHi = current.f;
-    }
+    if (current.f < 0) lo = mid;
+    else hi = mid;
   }
-  T = 0.5 * (lo + hi);
-  current = evaluate(T);
+  T = lo === hi ? lo : 0.5 * (lo + hi);
+  current = last && last.T === T ? last.value : evaluate(T);
   const warnings = saturationWarnings(sys, T, zs);
   if (current.phases === 2) warnings.push('Two liquid phases boil together (heterogeneous boiling).');
   return { T_K: T, y: current.y, liquidPhases: current.phases, warnings };

@@ -69,7 +69,7 @@ export function crystallisation(inputs: Record<string, Stream | undefined>, para
   const pid = ctx.productId;
   const distillate = emptyStream(ctx, 'liquid', VOLUME_REFERENCE_K);
   let T_end: number;
-  let T_start = feed.temperatureK;
+  let T_start: number;
   let hours = COMMON_PRACTICE_HOURS.crystallisationAge;
   const mode = params.mode;
   let peak = streamVolume(ctx, mix, feed.temperatureK);

@@ -43,7 +43,7 @@ import type { PKa } from '../properties/partition';
 import { aqueousMediumKg, commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
 import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
-import { addTo, COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
+import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 import { aqueousPH, compoundDistribution, neutralPartitionCoefficient, organicOrganicDistribution, splitLiquid } from './equilibria';
 import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA } from '../units';
 
