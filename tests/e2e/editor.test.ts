@@ -85,41 +85,49 @@ describe('route editor', () => {
     await page.getByRole('article', { name: /Filtration:/ }).waitFor();
     await expect(page.locator('.react-flow__edge').count()).resolves.toBe(3);
 
-    // The route evaluates: the wash card shows the product recovery, the totals a yield.
-    const recovery = wash.locator('[data-result="product recovery %"]');
-    await recovery.waitFor();
-    await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
-    const before = (await recovery.textContent()) ?? '';
+    // The route evaluates: the wash card shows the product recovery, the crystallisation its yield, the totals a yield.
+    await wash.locator('[data-result="product recovery %"]').filter({ hasText: /\d/ }).waitFor();
+    const crystYield = cryst.locator('[data-result="yield %"]');
+    await crystYield.filter({ hasText: /\d/ }).waitFor();
+    const totalYield = page.locator('[data-total="yield"]');
+    await totalYield.filter({ hasText: /\d/ }).waitFor();
+    const before = (await crystYield.textContent()) ?? '';
+    const totalBefore = (await totalYield.getAttribute('data-value')) ?? '';
     await shot('editor-02-four-steps');
 
-    // Change the wash volume in its settings: the recovery moves.
-    await wash.click();
-    const volume = page.getByRole('form', { name: /Settings of Wash/ }).getByLabel('Volume', { exact: true });
-    await volume.fill('60 vol');
-    await volume.press('Enter');
-    await expect.poll(() => recovery.textContent()).not.toBe(before);
-    const changed = await recovery.textContent();
-    await shot('editor-03-wash-changed');
+    // Crystallise to a warmer end temperature: more product stays in the liquor, so the yield falls.
+    await page.keyboard.press('f');
+    await cryst.locator('header').click();
+    const endT = page.getByRole('form', { name: /Settings of Crystallisation/ }).getByLabel('End temperature', { exact: true });
+    await endT.fill('40 °C');
+    await endT.press('Enter');
+    await expect.poll(() => crystYield.textContent()).not.toBe(before);
+    const changed = (await crystYield.textContent()) ?? '';
+    expect(Number(changed)).toBeLessThan(Number(before));
+    await expect.poll(() => totalYield.getAttribute('data-value')).not.toBe(totalBefore);
+    expect(Number(await totalYield.getAttribute('data-value'))).toBeLessThan(Number(totalBefore));
+    await shot('editor-03-end-temperature-changed');
 
     // A wrong unit is refused inline and changes nothing.
-    await volume.fill('2 kg');
-    await volume.press('Enter');
-    await page.getByText('“2 kg” is not a volume').waitFor();
-    await expect(volume.getAttribute('aria-invalid')).resolves.toBe('true');
+    await endT.fill('2 kg');
+    await endT.press('Enter');
+    await page.getByText('“2 kg” is not a temperature').waitFor();
+    await expect(endT.getAttribute('aria-invalid')).resolves.toBe('true');
     await shot('editor-04-unit-error');
-    await volume.press('Escape');
+    await endT.press('Escape');
+    await expect(crystYield.textContent()).resolves.toBe(changed);
 
-    // Undo brings the first recovery back.
+    // Undo brings the first yield back, on the card and in the totals.
     await page.getByRole('button', { name: 'Undo' }).click();
-    await expect.poll(() => recovery.textContent()).toBe(before);
-    expect(changed).not.toBe(before);
+    await expect.poll(() => crystYield.textContent()).toBe(before);
+    await expect.poll(() => totalYield.getAttribute('data-value')).toBe(totalBefore);
 
     // The draft saves by itself; after a reload it is all there.
     await page.locator('[data-save-state="saved"]').waitFor();
     await page.goto(routeUrl);
     await page.getByRole('heading', { level: 1, name }).waitFor();
     await expect.poll(() => page.getByRole('article').count()).toBe(4);
-    await page.getByRole('article', { name: /Wash:/ }).locator('[data-result="product recovery %"]').filter({ hasText: before }).waitFor();
+    await page.getByRole('article', { name: /Crystallisation:/ }).locator('[data-result="yield %"]').filter({ hasText: before }).waitFor();
     await page.getByRole('button', { name: 'Shortcuts' }).click();
     await page.getByRole('region', { name: 'Keyboard shortcuts' }).waitFor();
     await shot('editor-05-after-reload');
