@@ -47,6 +47,8 @@ export interface EvalContext {
   cache: Map<string, unknown>;
   /** UNIFAC models by mixture (same numbers as building each one afresh); shared like `cache`. */
   unifac: UnifacModelCache;
+  /** Memo for this evaluation only (results that depend on drawn parameters, e.g. distribution ratios). */
+  scratch: Map<string, unknown>;
 }
 
 /**
@@ -144,6 +146,7 @@ export function buildContext(doc: RouteDocument, rng: SeededRandom | null = null
     },
     cache: caches.memo,
     unifac: caches.unifac,
+    scratch: new Map(),
   };
   return { ctx, issues };
 }

@@ -303,15 +303,32 @@ function groupsKey(components: readonly UnifacGroups[]): string {
  */
 export function createUnifacModelCache(maxModels = 256): UnifacModelCache {
   const models = new Map<string, UnifacModel>();
+  // Fast path by object identity of the group records (weakly held), then by content.
+  type Node = { model?: UnifacModel; next?: WeakMap<object, Node> };
+  let root: Node = {};
   return {
     model(components) {
+      let node = root;
+      for (const g of components) {
+        let next = node.next?.get(g);
+        if (!next) {
+          next = {};
+          (node.next ??= new WeakMap()).set(g, next);
+        }
+        node = next;
+      }
+      if (node.model) return node.model;
       const key = groupsKey(components);
       let m = models.get(key);
       if (!m) {
         m = createUnifac(components);
-        if (models.size >= maxModels) models.clear();
+        if (models.size >= maxModels) {
+          models.clear();
+          root = {};
+        }
         models.set(key, m);
       }
+      node.model = m;
       return m;
     },
   };

@@ -415,7 +415,20 @@ export function compoundDistribution(
   const c = ctx.comps.get(compoundId)!.compound!;
   const solvent = ctx.comps.get(organicSolventComponentId)!.solvent!;
   const water = ctx.waterId ? ctx.comps.get(ctx.waterId)!.solvent : undefined;
-  const groups = c.unifac ? Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v])) : undefined;
+  const groupsKey = `unifac-groups:${compoundId}`;
+  if (c.unifac && !ctx.cache.has(groupsKey)) ctx.cache.set(groupsKey, Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v])));
+  const groups = c.unifac ? (ctx.cache.get(groupsKey) as Record<number, number>) : undefined;
+  // The same inputs give the same ratio: memoised for this evaluation (washes ask stage after stage).
+  const memoKey = `${compoundId}|${organicSolventComponentId}|${pH}|${salt ? `${salt.ks_Lmol}|${salt.molar}` : '-'}|${T_K}`;
+  const memo = ctx.scratch.get(memoKey) as { r: ReturnType<typeof distributionRatio> } | { error: string } | undefined;
+  if (memo) {
+    if ('error' in memo) {
+      warn(warnings, 'warning', 'no-distribution-data', memo.error);
+      return { D: Infinity, method: 'assumed (no data)', source: 'none' };
+    }
+    for (const m of memo.r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
+    return { D: memo.r.D, method: memo.r.method, source: `${memo.r.source.ref} (${memo.r.source.status})` };
+  }
   try {
     const r = distributionRatio({
       solute: {
@@ -440,10 +453,13 @@ export function compoundDistribution(
       T_K,
       models: ctx.unifac,
     });
+    ctx.scratch.set(memoKey, { r });
     for (const m of r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
     return { D: r.D, method: r.method, source: `${r.source.ref} (${r.source.status})` };
   } catch (e) {
-    warn(warnings, 'warning', 'no-distribution-data', `${c.name}: no measured D, logP or UNIFAC groups (${(e as Error).message}); assumed to stay in the organic phase.`);
+    const message = `${c.name}: no measured D, logP or UNIFAC groups (${(e as Error).message}); assumed to stay in the organic phase.`;
+    ctx.scratch.set(memoKey, { error: message });
+    warn(warnings, 'warning', 'no-distribution-data', message);
     return { D: Infinity, method: 'assumed (no data)', source: 'none' };
   }
 }

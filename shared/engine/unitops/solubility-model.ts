@@ -43,51 +43,85 @@ function pointToMoleFraction(c: CompoundSnapshot, s: SolventRecord, p: NonNullab
 
 /**
  * x with x γ(x) = x_ideal in a neat solvent (solute index 0 of a two-component
- * UNIFAC model), by the scan-and-bisect of activityCorrectedSolubility
- * (properties/solubility.ts, which documents the method and its source).
+ * UNIFAC model). Root bracketed as in activityCorrectedSolubility
+ * (properties/solubility.ts, which documents the method and its source): a
+ * logarithmic scan from 1e-12 to the first sign change of
+ * f(x) = ln x + ln γ(x) − ln x_ideal. The bracket is then refined by the
+ * Illinois variant of regula falsi on ln x (f is nearly linear in ln x), to
+ * |f| < 1e-13 or a bracket of 1e-14 in ln x — the same root as 60 bisections
+ * to within about 1e-13 relative, in about a tenth of the γ evaluations.
  * @param xIdeal ideal solubility [-]; @param T_K [K]; returns x [-].
  */
 function activitySolubility(model: UnifacModel, xIdeal: number, T_K: number): number {
   if (xIdeal >= 1) return 1;
   const buf = new Float64Array(2);
-  const lnGamma = (x: number) => Math.log(model.gammas([x, 1 - x], T_K, buf)[0]);
+  const pair = new Float64Array(2);
   const lnXi = Math.log(xIdeal);
-  const f = (x: number) => Math.log(x) + lnGamma(x) - lnXi;
-  const grid: number[] = [];
-  for (let k = 0; k <= 48; k++) grid.push(Math.pow(10, -12 + (12 * k) / 48));
-  grid[grid.length - 1] = 1 - 1e-9;
+  const f = (x: number) => {
+    pair[0] = x;
+    pair[1] = 1 - x;
+    return Math.log(x) + Math.log(model.gammas(pair, T_K, buf)[0]) - lnXi;
+  };
   let lo = NaN;
   let hi = NaN;
-  let prevX = grid[0];
+  let fHi = NaN;
+  let prevX = SCAN_GRID[0];
   let prevF = f(prevX);
   if (prevF >= 0) return prevX;
-  for (let k = 1; k < grid.length && Number.isNaN(lo); k++) {
-    const x = grid[k];
+  let flo = NaN;
+  for (let k = 1; k < SCAN_GRID.length && Number.isNaN(lo); k++) {
+    const x = SCAN_GRID[k];
     const fx = f(x);
     if ((prevF < 0 && fx >= 0) || (prevF >= 0 && fx < 0)) {
       lo = prevX;
+      flo = prevF;
       hi = x;
+      fHi = fx;
     }
     prevX = x;
     prevF = fx;
   }
   if (Number.isNaN(lo)) {
-    lo = grid[grid.length - 2];
+    lo = SCAN_GRID[SCAN_GRID.length - 2];
     hi = 1;
+    flo = f(lo);
+    fHi = f(hi);
   }
-  let flo = f(lo);
-  for (let i = 0; i < 60; i++) {
-    const mid = 0.5 * (lo + hi);
-    const fm = f(mid);
-    if ((fm < 0) === (flo < 0)) {
-      lo = mid;
-      flo = fm;
+  // Illinois regula falsi on u = ln x, keeping f(a) < 0 ≤ f(b).
+  let a = Math.log(lo);
+  let b = Math.log(hi);
+  let fa = flo;
+  let fb = fHi;
+  let side = 0;
+  let x = 0.5 * (lo + hi);
+  for (let i = 0; i < 100; i++) {
+    let c = b - (fb * (b - a)) / (fb - fa);
+    if (!(c > a && c < b)) c = 0.5 * (a + b);
+    x = Math.exp(c);
+    const fc = f(x);
+    if (Math.abs(fc) < 1e-13 || b - a < 1e-14) break;
+    if (fc < 0) {
+      a = c;
+      fa = fc;
+      if (side === -1) fb *= 0.5;
+      side = -1;
     } else {
-      hi = mid;
+      b = c;
+      fb = fc;
+      if (side === 1) fa *= 0.5;
+      side = 1;
     }
   }
-  return 0.5 * (lo + hi);
+  return x;
 }
+
+/** Logarithmic scan grid of activitySolubility: 10^(−12 … 0) in 48 steps, the last point 1 − 1e-9. */
+const SCAN_GRID: readonly number[] = (() => {
+  const grid: number[] = [];
+  for (let k = 0; k <= 48; k++) grid.push(Math.pow(10, -12 + (12 * k) / 48));
+  grid[grid.length - 1] = 1 - 1e-9;
+  return grid;
+})();
 
 /** Solubility curve of a compound in one neat solvent, by the best evidence available. */
 export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventComponentId: string): Curve {
@@ -117,9 +151,10 @@ export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventCo
         // Invalid melting data or missing UNIFAC parameters fall through to the ideal model (building the
         // model is what throws for missing parameters; the melting data are checked as the ideal model does).
         idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: 298.15 });
-        // Same algorithm as properties/solubility activityCorrectedSolubility (log scan from 1e-12, first
-        // sign change, 60 bisections; same numbers), with the UNIFAC model built once per route
-        // (ctx.unifac) instead of once per γ evaluation, and memoised by temperature.
+        // Same root as properties/solubility activityCorrectedSolubility (log scan from 1e-12, first
+        // sign change; refined by regula falsi instead of bisection, see activitySolubility), with the
+        // UNIFAC model built once per route (ctx.unifac) instead of once per γ evaluation, and memoised
+        // by temperature.
         const model = ctx.unifac.model([groups, s.unifac.value]);
         const memo = new Map<number, number>();
         curve = {
