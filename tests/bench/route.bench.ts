@@ -24,6 +24,9 @@ export async function run(): Promise<BenchResult[]> {
   const p30 = prepareRoute(parseRoute(d30));
   const nDist = d30.steps.filter((s) => s.kind === 'distillation').length;
   out.push({ ...measure('30-step route, 10 components', () => evaluatePrepared(p30, null), { samples: 60, batch: 5, warmup: 30, targetUs: 5000 }), note: `${nDist} distillations, ${d30.steps.length} steps, ${d30.components.length} components` });
+  // The same route with nothing carried over from an earlier evaluation (as for one API request):
+  // fresh document caches (UNIFAC models, solubility curves) each call.
+  out.push({ ...measure('30-step route, 10 components, cold caches', () => evaluatePrepared({ doc: p30.doc, graph: p30.graph }, null), { samples: 60, batch: 5, warmup: 30, targetUs: 5000 }), note: 'no caches shared between calls' });
 
   const d200 = route(200, 10, 5);
   const p200 = prepareRoute(parseRoute(d200));
