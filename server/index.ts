@@ -37,7 +37,17 @@ async function main() {
   process.on('SIGTERM', () => void shutdown('SIGTERM'));
 }
 
+function describeStartFailure(error: unknown): unknown {
+  if (error instanceof ConfigError) return error.message;
+  const code = (error as NodeJS.ErrnoException | null)?.code;
+  if (code === 'EADDRINUSE') {
+    const { address, port } = error as NodeJS.ErrnoException & { address?: string; port?: number };
+    return `Port ${port} on ${address} is already in use: stop the program that holds it, or start with another port (PORT=${(port ?? 3000) + 1} npm start).`;
+  }
+  return error;
+}
+
 main().catch((error: unknown) => {
-  console.error(error instanceof ConfigError ? error.message : error);
+  console.error(describeStartFailure(error));
   process.exit(1);
 });
