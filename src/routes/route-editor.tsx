@@ -8,13 +8,13 @@ import { useRoute } from '@/features/routes/api/get-route';
 // The canvas, React Flow and the engine worker load only when a route is opened.
 const RouteEditor = lazy(() => import('@/features/editor/components/route-editor'));
 
-/** One route's draft, open in the editor (full width beside the navigation rail). */
+/** One route's draft, open in the editor (full width beside the navigation rail, which keeps only its marks here). */
 export function Component() {
   const workspace = useWorkspace();
   const { routeId = '' } = useParams();
   const route = useRoute(workspace.id, routeId);
   return (
-    <div className="fixed inset-y-0 right-0 left-rail z-10 flex flex-col bg-paper">
+    <div className="fixed inset-y-0 right-0 left-14 z-10 flex flex-col bg-paper">
       {route.isPending ? (
         <Loading label="Opening the route…" className="justify-center" />
       ) : route.isError ? (

@@ -114,6 +114,21 @@ describe('route editor', () => {
     await page.getByText('“2 kg” is not a temperature').waitFor();
     await expect(endT.getAttribute('aria-invalid')).resolves.toBe('true');
     await shot('editor-04-unit-error');
+
+    // The cautions sit behind their own tab with their count and worst severity; identical ones are one entry listing its steps.
+    const cautionsTab = page.getByRole('tab', { name: /Cautions/ });
+    await expect(cautionsTab.locator('[data-caution-count]').getAttribute('data-worst')).resolves.toMatch(/hazard|warning|advisory|info/);
+    await cautionsTab.click();
+    const cautions = page.getByRole('list', { name: 'Cautions' });
+    await cautions.waitFor();
+    const shared = cautions.locator('li[data-steps]:not([data-steps="1"])').first();
+    await shared.waitFor();
+    await page.locator('[data-process-safety-note]').filter({ hasText: 'process-safety review' }).waitFor();
+    await shot('editor-04b-cautions');
+    await shared.getByRole('button', { name: 'Wash', exact: true }).click();
+    await expect.poll(() => wash.evaluate((el) => el.closest('.react-flow__node')?.classList.contains('selected') ?? false)).toBe(true);
+    await cryst.locator('header').click();
+    await page.getByRole('form', { name: /Settings of Crystallisation/ }).waitFor();
     await endT.press('Escape');
     await expect(crystYield.textContent()).resolves.toBe(changed);
 

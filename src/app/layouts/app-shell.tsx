@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
-import { Navigate, NavLink, Outlet, useLocation, useNavigate, useParams } from 'react-router-dom';
+import { createContext, useContext } from 'react';
+import { Navigate, NavLink, Outlet, useLocation, useMatch, useNavigate, useParams } from 'react-router-dom';
 import type { Session } from '@shared/schemas/session';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
@@ -39,23 +40,29 @@ function Shell({ session }: { session: Session }) {
     routeWorkspaceId ??
     (session.workspaces.some((w) => w.id === remembered) ? remembered! : session.workspaces[0]?.id);
 
+  // The route editor needs the width for its canvas: there the rail keeps only its marks (names as tooltips and accessible names).
+  const compact = useMatch(paths.workspace.route.pattern) !== null;
+
   return (
+    <CompactRail.Provider value={compact}>
     <div className="flex min-h-screen">
-      <aside className="sticky top-0 flex h-screen w-rail shrink-0 flex-col border-r border-rule bg-paper-sunken">
+      <aside className={cn('sticky top-0 flex h-screen shrink-0 flex-col border-r border-rule bg-paper-sunken', compact ? 'w-14' : 'w-rail')} data-rail={compact ? 'compact' : 'full'}>
         <a
           href="#main"
           className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-control focus:bg-paper-raised focus:px-3 focus:py-2"
         >
           Skip to content
         </a>
-        <div className="flex h-bar items-center gap-2 border-b border-rule px-4">
+        <div className={cn('flex h-bar items-center gap-2 border-b border-rule', compact ? 'justify-center' : 'px-4')}>
           <Logo className="text-ink" />
-          <span className="text-lead font-semibold tracking-tight text-ink">Phasewright</span>
+          <span className={compact ? 'sr-only' : 'text-lead font-semibold tracking-tight text-ink'}>Phasewright</span>
         </div>
-        <div className="border-b border-rule px-3 py-3">
-          <WorkspaceSwitcher workspaces={session.workspaces} currentId={workspaceId} />
-        </div>
-        <nav aria-label="Main" className="flex-1 overflow-y-auto px-2 py-3">
+        {compact ? null : (
+          <div className="border-b border-rule px-3 py-3">
+            <WorkspaceSwitcher workspaces={session.workspaces} currentId={workspaceId} />
+          </div>
+        )}
+        <nav aria-label="Main" className={cn('flex-1 overflow-y-auto py-3', compact ? 'px-1.5' : 'px-2')}>
           {workspaceId ? (
             <NavGroup label="Process">
               <NavItem to={paths.workspace.home.to(workspaceId)} end glyph={<RouteGlyph />}>
@@ -95,12 +102,36 @@ function Shell({ session }: { session: Session }) {
         </div>
       </main>
     </div>
+    </CompactRail.Provider>
   );
 }
+
+/** Whether the rail shows only its marks (on the route editor). */
+const CompactRail = createContext(false);
 
 function UserPanel({ session }: { session: Session }) {
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const compact = useContext(CompactRail);
+  const onSignOut = () =>
+    signOut.mutate(undefined, {
+      onSuccess: () => navigate(paths.signIn.to(), { replace: true }),
+      onError: (e) => toast.error(e.message),
+    });
+  if (compact) {
+    const initials = session.user.name.split(/\s+/).filter(Boolean).slice(0, 2).map((w) => w[0]!.toUpperCase()).join('');
+    return (
+      <div className="flex flex-col items-center gap-1 border-t border-rule py-2">
+        <span title={`${session.user.name} (${session.user.email})`} className="flex size-8 items-center justify-center rounded-full border border-rule-strong bg-paper-raised text-caption font-medium text-ink">
+          <span aria-hidden="true">{initials}</span>
+          <span className="sr-only">Signed in as {session.user.name}</span>
+        </span>
+        <button type="button" disabled={signOut.isPending} onClick={onSignOut} aria-label="Sign out" title="Sign out" className="flex size-8 items-center justify-center rounded-control text-accent hover:bg-accent-soft hover:text-accent-deep">
+          <SignOutGlyph />
+        </button>
+      </div>
+    );
+  }
   return (
     <div className="border-t border-rule px-3 py-3">
       <p className="text-body leading-snug font-medium text-ink">
@@ -112,12 +143,7 @@ function UserPanel({ session }: { session: Session }) {
       <button
         type="button"
         disabled={signOut.isPending}
-        onClick={() =>
-          signOut.mutate(undefined, {
-            onSuccess: () => navigate(paths.signIn.to(), { replace: true }),
-            onError: (e) => toast.error(e.message),
-          })
-        }
+        onClick={onSignOut}
         className="mt-2 rounded-control px-1 py-0.5 text-small font-medium text-accent hover:bg-accent-soft hover:text-accent-deep"
       >
         {signOut.isPending ? 'Signing out…' : 'Sign out'}
@@ -127,23 +153,27 @@ function UserPanel({ session }: { session: Session }) {
 }
 
 function NavGroup({ label, children }: { label: string; children: ReactNode }) {
+  const compact = useContext(CompactRail);
   return (
-    <div className="mb-4">
-      <p className="px-2 pb-1 text-caption font-medium tracking-wide text-ink-faint uppercase">{label}</p>
+    <div className={compact ? 'mb-3 border-b border-rule pb-3 last:border-0' : 'mb-4'}>
+      <p className={compact ? 'sr-only' : 'px-2 pb-1 text-caption font-medium tracking-wide text-ink-faint uppercase'}>{label}</p>
       <ul className="space-y-px">{children}</ul>
     </div>
   );
 }
 
 function NavItem({ to, end, glyph, soon, children }: { to: string; end?: boolean; glyph: ReactNode; soon?: boolean; children: ReactNode }) {
+  const compact = useContext(CompactRail);
   return (
     <li>
       <NavLink
         to={to}
         end={end}
+        title={compact && typeof children === 'string' ? children : undefined}
         className={({ isActive }) =>
           cn(
-            'flex h-8 items-center gap-2 rounded-control border-l-2 px-2 text-body',
+            'flex h-8 items-center gap-2 rounded-control border-l-2 text-body',
+            compact ? 'justify-center px-0' : 'px-2',
             isActive
               ? 'border-accent bg-paper-raised font-medium text-accent-deep'
               : 'border-transparent text-ink-muted hover:bg-paper-raised/70 hover:text-ink',
@@ -153,8 +183,8 @@ function NavItem({ to, end, glyph, soon, children }: { to: string; end?: boolean
         <span aria-hidden="true" className="text-current">
           {glyph}
         </span>
-        <span className="flex-1">{children}</span>
-        {soon ? <span className="rounded-control bg-paper px-1 text-caption text-ink-faint">soon</span> : null}
+        <span className={compact ? 'sr-only' : 'flex-1'}>{children}</span>
+        {soon && !compact ? <span className="rounded-control bg-paper px-1 text-caption text-ink-faint">soon</span> : null}
       </NavLink>
     </li>
   );
@@ -203,6 +233,14 @@ function PersonGlyph() {
     <svg {...glyphProps}>
       <circle cx="8" cy="5.3" r="2.6" />
       <path d="M3 14c.5-2.8 2.4-4.3 5-4.3s4.5 1.5 5 4.3" />
+    </svg>
+  );
+}
+function SignOutGlyph() {
+  return (
+    <svg {...glyphProps} aria-hidden="true">
+      <path d="M6.5 2.5h-3a1 1 0 0 0-1 1v9a1 1 0 0 0 1 1h3" />
+      <path d="M10 5l3 3-3 3M6.5 8H13" />
     </svg>
   );
 }

@@ -148,7 +148,7 @@ export function Canvas() {
         aria-label="Route canvas"
       >
         <Background variant={BackgroundVariant.Dots} gap={20} size={1.2} color="#D9D5CB" />
-        <MiniMap pannable zoomable ariaLabel="Overview of the route" bgColor="#FFFFFF" nodeColor={miniMapFill} nodeStrokeColor={miniMapStroke} nodeStrokeWidth={4} nodeBorderRadius={6} maskColor="rgba(236,234,228,0.55)" maskStrokeColor="#3B4C86" maskStrokeWidth={2} />
+        <MiniMap pannable zoomable ariaLabel="Overview of the route" style={{ width: 150, height: 100 }} bgColor="#FFFFFF" nodeColor={miniMapFill} nodeStrokeColor={miniMapStroke} nodeStrokeWidth={4} nodeBorderRadius={6} maskColor="rgba(236,234,228,0.55)" maskStrokeColor="#3B4C86" maskStrokeWidth={2} />
         <Controls showInteractive={false} aria-label="Zoom" />
       </ReactFlow>
       <Legend />

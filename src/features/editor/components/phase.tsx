@@ -35,6 +35,7 @@ const SEVERITY = {
 } as const;
 export type Severity = keyof typeof SEVERITY;
 export const SEVERITY_ORDER: Severity[] = ['hazard', 'warning', 'advisory', 'info'];
+export const SEVERITY_LABEL: Record<Severity, string> = { hazard: 'Hazard', warning: 'Warning', advisory: 'Advisory', info: 'Info' };
 
 /** Severity word with its shape: circle (info), square (advisory), triangle (warning), diamond (hazard). */
 export function SeverityMark({ severity }: { severity: Severity }) {

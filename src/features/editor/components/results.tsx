@@ -75,20 +75,61 @@ export function TotalsCard() {
   );
 }
 
-/** Every caution and problem, worst first; choosing one selects its step and brings it into view. */
+type RouteWarning = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['warnings'][number];
+
+/** One entry of the caution list: a caution and every step it was raised on. */
+export interface CautionGroup {
+  key: string;
+  severity: RouteWarning['severity'];
+  code: string;
+  message: string;
+  /** Step ids in route order; null for a caution about the whole route. */
+  steps: Array<string | null>;
+}
+
+/**
+ * Identical cautions (same severity, code and message; only the step differs)
+ * as one entry listing their steps; worst severity first, then the most widespread.
+ */
+export function groupCautions(warnings: readonly RouteWarning[]): CautionGroup[] {
+  const groups = new Map<string, CautionGroup>();
+  for (const w of warnings) {
+    const key = `${w.severity}\u0000${w.code}\u0000${w.message}`;
+    let g = groups.get(key);
+    if (!g) groups.set(key, (g = { key, severity: w.severity, code: w.code, message: w.message, steps: [] }));
+    const stepId = w.stepId ?? null;
+    if (!g.steps.includes(stepId)) g.steps.push(stepId);
+  }
+  return [...groups.values()].sort((a, b) => SEVERITY_ORDER.indexOf(a.severity) - SEVERITY_ORDER.indexOf(b.severity) || b.steps.length - a.steps.length);
+}
+
+/** Set while the caution list selects a step, so the panel stays on the list. */
+export const cautionJump = { current: false };
+
+/** Selects a step and brings it into view. */
+function useJumpToStep() {
+  const flow = useReactFlow();
+  return (stepId: string | null) => {
+    if (!stepId) return;
+    const sel = useEditorStore.getState().selection.steps;
+    if (!(sel.length === 1 && sel[0] === stepId)) cautionJump.current = true;
+    useEditorStore.getState().select({ steps: [stepId], connections: [] });
+    if (flow.getNode(stepId)) flow.fitView({ nodes: [{ id: stepId }], maxZoom: 1.1, duration: 0 });
+  };
+}
+
+const STEPS_SHOWN = 6;
+
+/** Every caution and problem, worst first, identical ones grouped; each step name jumps to its step. */
 export function CautionList() {
   const result = useEvaluation((s) => s.result);
   const issues = useEvaluation((s) => (s.status === 'invalid' ? s.issues : NO_ISSUES));
   const steps = useEditorStore((s) => s.doc.steps);
-  const flow = useReactFlow();
+  const jump = useJumpToStep();
   const nameOf = useMemo(() => new Map(steps.map((s) => [s.id, s.name])), [steps]);
-  const warnings = useMemo(() => [...(result?.warnings ?? [])].sort((a, b) => SEVERITY_ORDER.indexOf(a.severity) - SEVERITY_ORDER.indexOf(b.severity)), [result]);
-  const jump = (stepId: string | null) => {
-    if (!stepId) return;
-    useEditorStore.getState().select({ steps: [stepId], connections: [] });
-    const node = flow.getNode(stepId);
-    if (node) flow.fitView({ nodes: [{ id: stepId }], maxZoom: 1.1, duration: 0 });
-  };
+  const groups = useMemo(() => groupCautions(result?.warnings ?? []), [result]);
+  const [open, setOpen] = useState<Record<string, boolean>>({});
+  const total = result?.warnings.length ?? 0;
   return (
     <div className="space-y-2">
       {issues.length ? (
@@ -96,28 +137,54 @@ export function CautionList() {
           {issues.map((i, k) => (
             <li key={k}>
               <button type="button" onClick={() => jump(i.stepId)} className="flex w-full items-start gap-2 rounded-control px-1 py-0.5 text-left text-small hover:bg-accent-soft">
-                <span className="inline-flex items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep"><span aria-hidden="true" className="inline-block size-2 rotate-45 bg-caution-hazard" />Needs input</span>
+                <span className="inline-flex shrink-0 items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep"><span aria-hidden="true" className="inline-block size-2 rotate-45 bg-caution-hazard" />Needs input</span>
                 <span><span className="font-medium">{i.stepId ? nameOf.get(i.stepId) ?? i.stepId : 'Route'}</span>{i.field ? ` · ${i.field}` : ''}: {i.message}</span>
               </button>
             </li>
           ))}
         </ul>
       ) : null}
-      {warnings.length ? (
-        <ul aria-label="Cautions" className="space-y-1">
-          {warnings.map((w, k) => (
-            <li key={k}>
-              <button type="button" onClick={() => jump(w.stepId)} className="flex w-full items-start gap-2 rounded-control px-1 py-0.5 text-left text-small hover:bg-accent-soft">
-                <SeverityChip severity={w.severity} />
-                <span><span className="font-medium">{w.stepId ? nameOf.get(w.stepId) ?? w.stepId : 'Route'}</span>: {w.message}</span>
-              </button>
-            </li>
-          ))}
-        </ul>
+      {groups.length ? (
+        <>
+          <p className="text-caption text-ink-muted">
+            {total} caution{total === 1 ? '' : 's'}{groups.length < total ? `, ${groups.length} different` : ''} — worst first. Choose a step name to go to it.
+          </p>
+          <ul aria-label="Cautions" className="divide-y divide-rule">
+            {groups.map((g) => {
+              const many = g.steps.length > STEPS_SHOWN && !open[g.key];
+              const shown = many ? g.steps.slice(0, STEPS_SHOWN) : g.steps;
+              return (
+                <li key={g.key} className="py-1.5 text-small" data-caution={g.code} data-steps={g.steps.length}>
+                  <div className="flex items-start gap-2">
+                    <SeverityChip severity={g.severity} />
+                    <p className="min-w-0 flex-1">{g.message}</p>
+                  </div>
+                  <p className="mt-1 flex flex-wrap items-center gap-1 pl-1 text-caption text-ink-muted">
+                    <span>{g.steps.length > 1 ? `On ${g.steps.length} steps:` : 'On'}</span>
+                    {shown.map((id) =>
+                      id ? (
+                        <button key={id} type="button" onClick={() => jump(id)} className="rounded-control border border-rule bg-paper px-1.5 py-px text-caption text-accent hover:bg-accent-soft hover:text-accent-deep" data-jump={id}>
+                          {nameOf.get(id) ?? id}
+                        </button>
+                      ) : (
+                        <span key="route" className="px-1">the whole route</span>
+                      ),
+                    )}
+                    {many ? (
+                      <button type="button" onClick={() => setOpen((o) => ({ ...o, [g.key]: true }))} className="px-1 text-caption text-accent underline-offset-2 hover:underline">
+                        {g.steps.length - STEPS_SHOWN} more
+                      </button>
+                    ) : null}
+                  </p>
+                </li>
+              );
+            })}
+          </ul>
+        </>
       ) : !issues.length ? (
         <p className="text-small text-ink-muted">No cautions for this route as drawn.</p>
       ) : null}
-      <p className="border-t border-rule pt-2 text-caption text-ink-muted">{result?.processSafetyNote ?? PROCESS_SAFETY_NOTE}</p>
+      <p className="border-t border-rule pt-2 text-caption text-ink-muted" data-process-safety-note>{result?.processSafetyNote ?? PROCESS_SAFETY_NOTE}</p>
     </div>
   );
 }

@@ -20,7 +20,8 @@ import { StepPanel } from './step-panel';
 import { CautionList, StreamTable, TotalsCard } from './results';
 import { ProductFlow, PurgePlot, StepPlot } from './plots';
 import { UncertaintyPanel } from './uncertainty';
-import { SEVERITY_ORDER } from './phase';
+import { SEVERITY_LABEL, SEVERITY_ORDER, SeverityChip, SeverityMark } from './phase';
+import { cautionJump } from './results';
 
 export default function RouteEditor({ workspaceId, route }: { workspaceId: string; route: RouteDetail }) {
   const start = useMemo(() => initialDocument(route.id, route.draft), [route.id, route.draft]);
@@ -43,6 +44,13 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
   const save = useAutosave(workspaceId, route.id, route.draft, canEdit, restored);
   const compounds = useWorkspaceCompounds(workspaceId);
   const [tab, setTab] = useState<ResultTab>('cautions');
+  const selectedId = useEditorStore((s) => (s.selection.steps.length === 1 ? s.selection.steps[0] : null));
+  // Choosing a step shows its settings (a jump from the caution list keeps the list).
+  useEffect(() => {
+    if (selectedId && !cautionJump.current) setTab('step');
+    cautionJump.current = false;
+  }, [selectedId]);
+  const selectedCautions = useEvaluation((s) => (selectedId ? (s.result?.warnings ?? []).filter((w) => w.stepId === selectedId).length : 0));
   const [help, setHelp] = useState(false);
   const flow = useReactFlow();
   const { selected, past, future, notice } = useEditorStore(
@@ -99,7 +107,7 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
         requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 }));
       } else if (e.key.toLowerCase() === 'a' && !mod) {
         e.preventDefault();
-        document.querySelector<HTMLButtonElement>('#step-palette button')?.focus();
+        document.querySelector<HTMLButtonElement>('#step-palette button[data-kind]')?.focus();
       }
     };
     window.addEventListener('keydown', onKey);
@@ -162,30 +170,48 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
         </div>
         <aside aria-label="Step and results" className="flex w-96 shrink-0 flex-col border-l border-rule bg-paper-raised">
           <div className="border-b border-rule p-3"><TotalsCard /></div>
-          <div className="min-h-0 flex-1 overflow-y-auto p-3">
-            {selected ? (
-              <>
-                <h2 className="mb-2 text-title font-medium">{KINDS[selected.kind].label}: {selected.name}</h2>
-                <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
-                <StepPlot key={`plot-${selected.id}`} step={selected} />
-              </>
-            ) : (
-              <p className="text-small text-ink-muted">Select a step to see and change its settings.</p>
-            )}
+          <div role="tablist" aria-label="Side panel" className="flex flex-wrap gap-x-0.5 gap-y-1 border-b border-rule bg-paper px-2 pt-1.5">
+            {RESULT_TABS.map(([id, label]) => (
+              <button
+                key={id}
+                type="button"
+                role="tab"
+                id={`results-tab-${id}`}
+                aria-controls="results-panel"
+                aria-selected={tab === id}
+                onClick={() => setTab(id)}
+                className={`-mb-px flex shrink-0 items-center gap-1 rounded-t-control border px-2 py-1 text-small ${tab === id ? 'border-rule border-b-paper-raised bg-paper-raised font-medium text-ink' : 'border-transparent text-ink-muted hover:text-ink'}`}
+              >
+                {label}
+                {id === 'cautions' && cautionCount ? (
+                  <span className="inline-flex items-center gap-1 tabular-nums" data-caution-count={cautionCount} data-worst={worst ?? ''}>
+                    {worst ? <SeverityMark severity={worst} /> : null}
+                    <span>{cautionCount}</span>
+                    {worst ? <span className="sr-only">, worst: {SEVERITY_LABEL[worst]}</span> : null}
+                  </span>
+                ) : null}
+              </button>
+            ))}
           </div>
-          <div className={`flex min-h-40 flex-col border-t border-rule ${tab === 'cautions' || tab === 'streams' ? 'max-h-[40%]' : 'h-[52%]'}`}>
-            <div role="tablist" aria-label="Results" className="flex gap-0.5 overflow-x-auto border-b border-rule px-2 pt-1">
-              {RESULT_TABS.map(([id, label]) => (
-                <button key={id} role="tab" id={`results-tab-${id}`} aria-controls="results-panel" aria-selected={tab === id} onClick={() => setTab(id)} className={`shrink-0 rounded-t-control px-2 py-1 text-small ${tab === id ? 'bg-paper-sunken font-medium text-ink' : 'text-ink-muted hover:text-ink'}`}>
-                  {label}
-                  {id === 'cautions' && cautionCount ? <span className="tabular-nums" title={worst ? `Worst: ${worst}` : undefined}> ({cautionCount})</span> : null}
-                </button>
-              ))}
-            </div>
-            <div role="tabpanel" id="results-panel" aria-labelledby={`results-tab-${tab}`} className="min-h-0 flex-1 overflow-auto p-2">
-              {tab === 'cautions' ? <CautionList /> : tab === 'streams' ? <StreamTable /> : tab === 'product' ? <ProductFlow /> : tab === 'purge' ? <PurgePlot /> : <UncertaintyPanel />}
-            </div>
+          <div role="tabpanel" id="results-panel" aria-labelledby={`results-tab-${tab}`} className="min-h-0 flex-1 overflow-y-auto p-3">
+            {tab === 'step' ? (
+              selected ? (
+                <>
+                  <h2 className="mb-2 text-title font-medium">{KINDS[selected.kind].label}: {selected.name}</h2>
+                  <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
+                  <StepPlot key={`plot-${selected.id}`} step={selected} />
+                </>
+              ) : (
+                <p className="text-small text-ink-muted">Select a step on the canvas to see and change its settings.</p>
+              )
+            ) : tab === 'cautions' ? <CautionList /> : tab === 'streams' ? <StreamTable /> : tab === 'product' ? <ProductFlow /> : tab === 'purge' ? <PurgePlot /> : <UncertaintyPanel />}
           </div>
+          {tab === 'step' && worst && cautionCount ? (
+            <button type="button" onClick={() => setTab('cautions')} className="flex items-center gap-2 border-t border-rule bg-paper px-3 py-1.5 text-left text-caption text-ink-muted hover:bg-accent-soft" data-caution-summary>
+              <SeverityChip severity={worst} />
+              <span>{cautionCount} caution{cautionCount === 1 ? '' : 's'} on the route{selectedCautions ? `, ${selectedCautions} on this step` : ''} — show the list</span>
+            </button>
+          ) : null}
         </aside>
       </div>
     </div>
@@ -220,8 +246,9 @@ function fitReadable(flow: ReactFlowInstance, focusId?: string) {
   else flow.setViewport({ x: 24 - minX * READABLE_ZOOM, y: h / 2 - ((minY + maxY) / 2) * READABLE_ZOOM, zoom: READABLE_ZOOM });
 }
 
-type ResultTab = 'cautions' | 'streams' | 'product' | 'purge' | 'uncertainty';
+type ResultTab = 'step' | 'cautions' | 'streams' | 'product' | 'purge' | 'uncertainty';
 const RESULT_TABS: Array<[ResultTab, string]> = [
+  ['step', 'Step'],
   ['cautions', 'Cautions'],
   ['streams', 'Streams'],
   ['product', 'Product flow'],
