@@ -39,8 +39,8 @@ export const ENGINE_VERSION = '1.0.2';
 /** Relative closure required of every component balance at every step. */
 export const MASS_BALANCE_TOLERANCE = 1e-9;
 
-export const PROCESS_SAFETY_NOTE =
-  'These results are estimates from published models and the data entered. Cautions are prompts, not a hazard assessment: defer to the site\'s process-safety review, local codes and licensed practice before any operation, and confirm thermal and gas-evolution hazards by calorimetry.';
+import { PROCESS_SAFETY_NOTE } from './safety-note';
+export { PROCESS_SAFETY_NOTE };
 
 /** Output ports whose unconnected stream counts as the isolated product. */
 export const ISOLATED_PORTS: ReadonlyArray<{ kind: RouteStep['kind']; port: string }> = [

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useReactFlow } from '@xyflow/react';
-import { PROCESS_SAFETY_NOTE } from '@shared/engine/route/evaluate';
+import { PROCESS_SAFETY_NOTE } from '@shared/engine/route/safety-note';
 import { useEditorStore } from '@/stores/editor-store';
 import { useEvaluation } from '../evaluation';
 import { keyOf } from '../document';
