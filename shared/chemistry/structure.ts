@@ -39,16 +39,51 @@ function cleanMessage(e: unknown): string {
   return raw.replace(/^Class\$\S+:\s*/, '').replace(/^SmilesParser:\s*/, 'SMILES: ').trim();
 }
 
+/**
+ * Branch parentheses and atom brackets must pair up. openchemlib reads an
+ * unclosed branch such as "C1CC1(" without complaint, which would turn a
+ * typing slip into a different molecule, so the pairing is checked first.
+ *
+ * @returns a plain message naming the position (1-based), or null when balanced
+ */
+export function smilesBracketProblem(smiles: string): string | null {
+  const openBranches: number[] = [];
+  let atomBracketAt = -1;
+  for (let i = 0; i < smiles.length; i++) {
+    const ch = smiles[i];
+    if (atomBracketAt >= 0) {
+      if (ch === ']') atomBracketAt = -1;
+      else if (ch === '[') return `an atom bracket opened at position ${atomBracketAt + 1} is not closed before another opens at position ${i + 1}.`;
+      continue;
+    }
+    if (ch === '[') atomBracketAt = i;
+    else if (ch === ']') return `an atom bracket closes at position ${i + 1} without being opened.`;
+    else if (ch === '(') openBranches.push(i);
+    else if (ch === ')') {
+      if (openBranches.length === 0) return `a branch closes at position ${i + 1} without being opened.`;
+      openBranches.pop();
+    }
+  }
+  if (atomBracketAt >= 0) return `the atom bracket opened at position ${atomBracketAt + 1} is never closed.`;
+  if (openBranches.length > 0) return `the branch opened at position ${openBranches[openBranches.length - 1] + 1} is never closed.`;
+  return null;
+}
+
 function load(input: StructureInput): { ok: true; mol: Molecule } | { ok: false; error: string } {
   if ('smiles' in input) {
     const s = input.smiles?.trim() ?? '';
     if (s.length === 0) return { ok: false, error: 'The SMILES is empty.' };
     if (s.length > 2000) return { ok: false, error: 'The SMILES is longer than 2000 characters.' };
+    let mol: Molecule;
     try {
-      return { ok: true, mol: Molecule.fromSmiles(s) };
+      mol = Molecule.fromSmiles(s);
     } catch (e) {
       return { ok: false, error: `Cannot read the SMILES "${s}": ${cleanMessage(e)}` };
     }
+    // What openchemlib tolerates but a chemist did not mean.
+    const bracketProblem = smilesBracketProblem(s);
+    if (bracketProblem) return { ok: false, error: `Cannot read the SMILES "${s}": ${bracketProblem}` };
+    return { ok: true, mol };
   }
   const m = input.molfile ?? '';
   if (m.trim().length === 0) return { ok: false, error: 'The molfile is empty.' };

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { parseStructure } from '@shared/chemistry';
+import { smilesBracketProblem } from '@shared/chemistry/structure';
 
 describe('parseStructure', () => {
   it('reads a SMILES into formula, molar mass, canonical SMILES, drawing and heavy-atom count', () => {
@@ -26,6 +27,25 @@ describe('parseStructure', () => {
     expect(r.error).toMatch(/position/);
     expect(r.error).not.toMatch(/Class\$/);
   });
+  it('refuses unpaired branch parentheses and atom brackets, naming the position, instead of reading another molecule', () => {
+    const cases: Array<[string, RegExp]> = [
+      // openchemlib reads this one as cyclopropane; our own check refuses it.
+      ['C1CC1(', /branch opened at position 6 is never closed/],
+      // These openchemlib refuses itself, with its own wording and position.
+      ['CC)O', /\)[\s\S]*position/i],
+      ['C[NH4+', /bracket[\s\S]*position/i],
+      ['CC]', /bracket[\s\S]*position/i],
+    ];
+    for (const [smiles, message] of cases) {
+      const r = parseStructure({ smiles });
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.error).toMatch(message);
+    }
+    // Branches and charged atoms that do pair up still read.
+    expect(parseStructure({ smiles: 'CC(C)(C)O' }).ok).toBe(true);
+    expect(parseStructure({ smiles: '[Na+].[Cl-]' }).ok).toBe(true);
+  });
+
   it('refuses an empty SMILES and an empty molfile plainly', () => {
     expect(parseStructure({ smiles: '  ' })).toEqual({ ok: false, error: 'The SMILES is empty.' });
     expect(parseStructure({ molfile: '' })).toEqual({ ok: false, error: 'The molfile is empty.' });
@@ -43,5 +63,17 @@ describe('parseStructure', () => {
     ].join('\n');
     const r = parseStructure({ molfile });
     expect(r.ok && r.formula).toBe('CH4O');
+  });
+});
+
+describe('smilesBracketProblem', () => {
+  it('pairs branch parentheses and atom brackets and names the first problem with its 1-based position', () => {
+    expect(smilesBracketProblem('CC(C)(C)O')).toBeNull();
+    expect(smilesBracketProblem('[Na+].[Cl-]')).toBeNull();
+    expect(smilesBracketProblem('C(C')).toBe('the branch opened at position 2 is never closed.');
+    expect(smilesBracketProblem('CC)O')).toBe('a branch closes at position 3 without being opened.');
+    expect(smilesBracketProblem('C[NH4+')).toBe('the atom bracket opened at position 2 is never closed.');
+    expect(smilesBracketProblem('CC]')).toBe('an atom bracket closes at position 3 without being opened.');
+    expect(smilesBracketProblem('[N[H]')).toBe('an atom bracket opened at position 1 is not closed before another opens at position 3.');
   });
 });
