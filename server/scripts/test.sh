@@ -20,6 +20,9 @@ trap 'exit 130' INT TERM
 log "type-check"
 npm run --silent typecheck || exit 1
 
+log "lint"
+npm run --silent lint || exit 1
+
 log "building the client for the browser tests"
 node node_modules/vite/bin/vite.js build --logLevel warn || exit 1
 
