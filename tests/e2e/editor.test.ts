@@ -143,6 +143,18 @@ describe('route editor', () => {
     await page.getByRole('heading', { level: 1, name }).waitFor();
     await expect.poll(() => page.getByRole('article').count()).toBe(4);
     await page.getByRole('article', { name: /Crystallisation:/ }).locator('[data-result="yield %"]').filter({ hasText: before }).waitFor();
+    // Arrow keys move the selected card a grid step, Shift five; Undo puts it back.
+    const filtration = page.getByRole('article', { name: /Filtration:/ });
+    await filtration.locator('header').click();
+    const position = () => filtration.evaluate((el) => { const m = new DOMMatrixReadOnly(getComputedStyle(el.closest('.react-flow__node')!).transform); return [m.m41, m.m42]; });
+    const [x0, y0] = await position();
+    await page.keyboard.press('ArrowRight');
+    await expect.poll(position).toEqual([x0 + 20, y0]);
+    await page.keyboard.press('Shift+ArrowDown');
+    await expect.poll(position).toEqual([x0 + 20, y0 + 100]);
+    await page.keyboard.press('Control+z');
+    await page.keyboard.press('Control+z');
+    await expect.poll(position).toEqual([x0, y0]);
     await page.getByRole('button', { name: 'Shortcuts' }).click();
     await page.getByRole('region', { name: 'Keyboard shortcuts' }).waitFor();
     await shot('editor-05-after-reload');

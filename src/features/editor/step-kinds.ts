@@ -89,6 +89,8 @@ export function defaultParams(kind: StepKind, doc: EditorDoc): { params: StepInp
   }
 }
 
+const removed = (n: number) => (n ? `removes ${n} component${n === 1 ? '' : 's'}` : 'removes nothing yet');
+
 /** Short lines of the step's main settings for its card. */
 export function keyParams(step: StepInput): string[] {
   const v = (x: unknown) => (typeof x === 'number' ? x : x && typeof x === 'object' && 'value' in x ? (x as { value: number }).value : '?');
@@ -125,7 +127,9 @@ export function keyParams(step: StepInput): string[] {
     case 'ph-adjust':
       return [`to pH ${v(step.params.targetPH)} with ${v(step.params.wtPct)} % ${step.params.reagentSoluteId}`];
     case 'carbon-treatment':
-      return [`${v(step.params.carbonWtPct)} wt % carbon`];
+      return [`${v(step.params.carbonWtPct)} wt % carbon`, removed(step.params.removals.length)];
+    case 'polish-filtration':
+      return [removed(step.params.removals.length)];
     case 'split':
       return [`${Math.round(100 * Number(v(p.fractionToA)))} % to a`];
     default:

@@ -110,8 +110,34 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
         document.querySelector<HTMLButtonElement>('#step-palette button[data-kind]')?.focus();
       }
     };
+    // Arrow keys move the selected cards by a grid step (Shift: five); one undo step per press.
+    // Listened for before the canvas, which would otherwise nudge a focused card without history.
+    const onArrow = (e: KeyboardEvent) => {
+      const delta = ARROWS[e.key];
+      if (!delta || e.ctrlKey || e.metaKey || e.altKey) return;
+      if ((e.target as HTMLElement).closest('input, textarea, select, [contenteditable="true"]')) return;
+      const st = useEditorStore.getState();
+      const ids = st.selection.steps;
+      if (!ids.length) return;
+      e.preventDefault();
+      e.stopPropagation();
+      const step = e.shiftKey ? GRID * 5 : GRID;
+      const positions: Record<string, { x: number; y: number }> = {};
+      for (const id of ids) {
+        const node = flow.getNode(id);
+        const at = node?.position ?? st.doc.steps.find((x) => x.id === id)?.position ?? { x: 0, y: 0 };
+        positions[id] = { x: Math.round(at.x + delta[0] * step), y: Math.round(at.y + delta[1] * step) };
+      }
+      st.beginMove();
+      st.moveSteps(positions);
+      st.endMove();
+    };
+    window.addEventListener('keydown', onArrow, true);
     window.addEventListener('keydown', onKey);
-    return () => window.removeEventListener('keydown', onKey);
+    return () => {
+      window.removeEventListener('keydown', onArrow, true);
+      window.removeEventListener('keydown', onKey);
+    };
   }, [flow]);
 
   // On opening, a readable view of the route (its start when it is long); keep the view on a new step when one is added.
@@ -219,6 +245,9 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
 }
 
 const READABLE_ZOOM = 0.6;
+/** The canvas grid the cards snap to [px]. */
+const GRID = 20;
+const ARROWS: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
 
 /**
  * The whole route when it fits at a readable zoom; otherwise that zoom, on the
@@ -284,6 +313,7 @@ const SHORTCUTS: Array<[string, string]> = [
   ['Ctrl+C / Ctrl+V', 'Copy and paste the selected steps'],
   ['Ctrl+A', 'Select everything'],
   ['Shift+click, Shift+drag', 'Select several steps'],
+  ['Arrow keys', 'Move the selected steps (Shift: five grid steps)'],
   ['F', 'Fit the route in view'],
   ['L', 'Tidy the layout'],
   ['Esc', 'Clear the selection, close this panel'],

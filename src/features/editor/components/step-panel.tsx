@@ -75,10 +75,22 @@ function KindForm({ kind, set, err, val, compounds }: Ctx) {
                   </div>
                 </div>
               ) : (
-                <p key={i} className="text-caption text-ink-muted">Aqueous {String(c.soluteId)} medium</p>
+                <div key={i} className="grid grid-cols-2 gap-2 border-b border-rule pb-2 last:border-0" data-aqueous-entry={i}>
+                  <div className="col-span-2">
+                    <ComponentPicker label={`Item ${i + 1}: aqueous solution of`} filter="solute" value={String(c.soluteId ?? '')} onChange={(v) => { set(['params', 'contents', i, 'soluteId'], v); ensureWater(); }} error={err(['params', 'contents', i, 'soluteId'])} />
+                  </div>
+                  {q(`Strength of item ${i + 1}`, 'percent', ['params', 'contents', i, 'wtPct'], { hint: 'wt % of the solution.' })}
+                  {q(`Volume of item ${i + 1}`, 'volume', ['params', 'contents', i, 'volume'])}
+                  <div className="col-span-2 flex justify-end">
+                    <Button size="sm" variant="quiet" onClick={() => set(['params', 'contents', i], undefined)} aria-label={`Remove item ${i + 1}`}>Remove</Button>
+                  </div>
+                </div>
               ),
             )}
-            <Button size="sm" variant="secondary" onClick={() => set(['params', 'contents', contents.length], { kind: 'component', componentId: '', amount: 1, unit: 'kg' })}>Add an item</Button>
+            <div className="flex flex-wrap gap-2">
+              <Button size="sm" variant="secondary" onClick={() => set(['params', 'contents', contents.length], { kind: 'component', componentId: '', amount: 1, unit: 'kg' })}>Add an item</Button>
+              <Button size="sm" variant="secondary" onClick={() => { set(['params', 'contents', contents.length], { kind: 'aqueous', soluteId: 'nacl', wtPct: 10, volume: { value: 2, unit: 'vol' } }); ensureAqueous('nacl'); }}>Add an aqueous solution</Button>
+            </div>
           </fieldset>
         </>
       );
@@ -178,12 +190,48 @@ function KindForm({ kind, set, err, val, compounds }: Ctx) {
         </>
       );
     case 'carbon-treatment':
-      return (<>{q('Carbon charge (wt % of dissolved solids)', 'percent', ['params', 'carbonWtPct'])}{q('Temperature', 'temperature', ['params', 'temperatureC'])}</>);
+      return (<>{q('Carbon charge (wt % of dissolved solids)', 'percent', ['params', 'carbonWtPct'])}{q('Temperature', 'temperature', ['params', 'temperatureC'])}<Removals set={set} err={err} val={val} compounds={compounds} /></>);
+    case 'polish-filtration':
+      return (<><Removals set={set} err={err} val={val} compounds={compounds} />{q('Temperature (optional)', 'temperature', ['params', 'temperatureC'])}</>);
     case 'split':
       return q('Fraction to output a', 'fraction', ['params', 'fractionToA']);
     default:
       return null;
   }
+}
+
+/** Water in the route, for an aqueous medium. */
+function ensureWater() {
+  const st = useEditorStore.getState();
+  if (!st.doc.components.some((c) => c.kind === 'solvent' && c.solventId === 'water')) st.addComponent({ kind: 'solvent', id: 'water', solventId: 'water' });
+}
+
+/** An aqueous solute (and water) in the route. */
+function ensureAqueous(soluteId: string) {
+  const st = useEditorStore.getState();
+  if (!st.doc.components.some((c) => c.kind === 'aqueous-solute' && c.soluteId === soluteId)) st.addComponent({ kind: 'aqueous-solute', id: soluteId, soluteId });
+  ensureWater();
+}
+
+/** What a treatment takes out: a component and the fraction of it removed, one row each. */
+function Removals({ set, err, val, compounds }: Omit<Ctx, 'kind'>) {
+  const removals = (val(['params', 'removals']) as Array<{ componentId: string; fractionRemoved: unknown }> | undefined) ?? [];
+  return (
+    <fieldset className="space-y-2 rounded-control border border-rule p-2" aria-label="Removed by this step">
+      <legend className="px-1 text-small font-medium">Removed by this step</legend>
+      {removals.length ? null : <p className="text-caption text-ink-muted">Nothing removed yet. Add the components this step takes out, with the fraction of each (from a use test or a supplier’s data).</p>}
+      {removals.map((r, i) => (
+        <div key={i} className="grid grid-cols-[1fr_6.5rem] gap-2 border-b border-rule pb-2 last:border-0">
+          <ComponentPicker label={`Removed component ${i + 1}`} compounds={compounds} value={String(r.componentId ?? '')} onChange={(v) => set(['params', 'removals', i, 'componentId'], v)} error={err(['params', 'removals', i, 'componentId'])} />
+          <QuantityField label={`Fraction removed ${i + 1}`} kind="fraction" value={r.fractionRemoved} onCommit={(v) => set(['params', 'removals', i, 'fractionRemoved'], v)} error={err(['params', 'removals', i, 'fractionRemoved'])} />
+          <div className="col-span-2 flex justify-end">
+            <Button size="sm" variant="quiet" onClick={() => set(['params', 'removals', i], undefined)} aria-label={`Remove removal ${i + 1}`}>Remove</Button>
+          </div>
+        </div>
+      ))}
+      <Button size="sm" variant="secondary" onClick={() => set(['params', 'removals', removals.length], { componentId: '', fractionRemoved: 0.5 })}>Add a removed component</Button>
+    </fieldset>
+  );
 }
 
 /** Where each input comes from, so connections can be made from the keyboard too. */

@@ -1,5 +1,5 @@
-import { memo } from 'react';
-import { BaseEdge, EdgeLabelRenderer, getBezierPath, type Edge, type EdgeProps } from '@xyflow/react';
+import { memo, useState } from 'react';
+import { BaseEdge, EdgeLabelRenderer, getBezierPath, useStore, type Edge, type EdgeProps } from '@xyflow/react';
 import type { PortPhase } from '@shared/schemas/route';
 import { useEvaluation } from '../evaluation';
 import { PHASES } from './phase';
@@ -7,12 +7,25 @@ import { PHASES } from './phase';
 export type StreamEdgeData = { phase: PortPhase; productId: string | null; names: Record<string, { name: string; kind: string }> };
 export type StreamEdgeType = Edge<StreamEdgeData, 'stream'>;
 
-/** A connection drawn in its phase's colour and dash, labelled with the stream it carries. */
+/** Below this zoom the labels would cover the cards: they show only for a hovered or selected connection. */
+export const LABEL_ZOOM = 0.85;
+const zoomedIn = (s: { transform: [number, number, number] }) => s.transform[2] >= LABEL_ZOOM;
+
+/**
+ * A connection drawn in its phase's colour and dash, labelled at its midpoint
+ * with the stream it carries: volume and product mass (stacked, to fit between cards) when zoomed in, the main
+ * solvent too when hovered or selected.
+ */
 function StreamEdgeImpl({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, selected }: EdgeProps<StreamEdgeType>) {
   const [path, labelX, labelY] = getBezierPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition });
   const stream = useEvaluation((s) => s.result?.streams[id]);
   const phase = PHASES[data?.phase ?? 'liquid'];
+  const readable = useStore(zoomedIn);
+  const [hover, setHover] = useState(false);
+  const full = hover || !!selected;
   let label: string | null = null;
+  let detail: string | null = null;
+  let product: string | null = null;
   if (stream) {
     const L = stream.volumeM3 * 1000;
     const pid = data?.productId;
@@ -20,24 +33,31 @@ function StreamEdgeImpl({ id, sourceX, sourceY, targetX, targetY, sourcePosition
     let main = '';
     let best = 0;
     for (const [k, v] of Object.entries(stream.kg)) if (k !== pid && v > best && data?.names[k]?.kind !== 'compound') { best = v; main = k; }
-    label = [`${L >= 10 ? L.toFixed(0) : L.toPrecision(2)} L`, productKg !== null ? `${productKg.toPrecision(3)} kg product` : null, main ? data?.names[main]?.name ?? main : null].filter(Boolean).join(' · ');
+    label = `${L >= 10 ? L.toFixed(0) : L.toPrecision(2)} L`;
+    product = productKg !== null ? `${productKg.toPrecision(3)} kg product` : null;
+    detail = main ? data?.names[main]?.name ?? main : null;
   }
   return (
-    <>
+    <g onMouseEnter={() => setHover(true)} onMouseLeave={() => setHover(false)}>
       <BaseEdge id={id} path={path} style={{ stroke: phase.stroke, strokeWidth: selected ? 3 : 2, strokeDasharray: phase.dash }} />
-      {label ? (
+      {label && (readable || full) ? (
         <EdgeLabelRenderer>
           <div
-            className="nodrag nopan pointer-events-auto absolute rounded-control border border-rule bg-paper-raised/95 px-1.5 py-0.5 text-caption text-ink-muted tabular-nums"
+            className={`nodrag nopan pointer-events-auto absolute rounded-control text-center border px-1.5 py-0.5 text-caption leading-4 tabular-nums ${full ? 'z-10 border-accent/50 bg-paper-raised text-ink shadow-card' : 'border-rule bg-paper-raised/95 text-ink-muted'}`}
             style={{ transform: `translate(-50%, -50%) translate(${labelX}px, ${labelY}px)` }}
             data-stream-label={id}
+            onMouseEnter={() => setHover(true)}
+            onMouseLeave={() => setHover(false)}
+            title={[phase.label, label, product, detail].filter(Boolean).join(' · ')}
           >
             <span className={`mr-1 font-medium ${phase.text}`}>{phase.label}</span>
             {label}
+            {product ? <span className="block whitespace-nowrap">{product}</span> : null}
+            {full && detail ? <span className="block max-w-40 truncate">{detail}</span> : null}
           </div>
         </EdgeLabelRenderer>
       ) : null}
-    </>
+    </g>
   );
 }
 
