@@ -64,6 +64,14 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
   const cautionCount = useEvaluation((s) => (s.result?.warnings.length ?? 0) + (s.status === 'invalid' ? s.issues.length : 0));
   const worst = useEvaluation((s) => SEVERITY_ORDER.find((sev) => s.result?.warnings.some((w) => w.severity === sev)));
 
+  // Stale results dim on every card through one attribute here, not a re-render of each card.
+  const canvasBox = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const mark = (status: string) => { if (canvasBox.current) canvasBox.current.dataset.resultsStale = String(status === 'invalid' || status === 'running'); };
+    mark(useEvaluation.getState().status);
+    return useEvaluation.subscribe((s, prev) => { if (s.status !== prev.status) mark(s.status); });
+  }, []);
+
   // Every change of the model re-evaluates in the worker.
   useEffect(() => {
     const st = useEditorStore.getState();
@@ -177,7 +185,7 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
       {restored ? <p role="status" className="border-b border-rule bg-phase-aqueous-soft px-4 py-1.5 text-small text-phase-aqueous-deep">Unsaved edits from this computer were restored and are being saved.</p> : null}
       <div className="flex min-h-0 flex-1">
         <Palette />
-        <div className="relative min-w-0 flex-1">
+        <div className="relative min-w-0 flex-1" ref={canvasBox}>
           <Canvas />
           {stepCount === 0 ? (
             <div className="pointer-events-none absolute inset-0 flex items-center justify-center">

@@ -12,13 +12,14 @@ import { KindGlyph } from './kind-glyph';
 export type StepNodeData = { step: StepInput };
 export type StepNodeType = { [K in StepKind]: Node<StepNodeData, K> }[StepKind];
 
+const NO_SUMMARY: Record<string, number | string | null> = {};
 const fmt = (v: number | string | null) => (v === null ? '—' : typeof v === 'number' ? (Math.abs(v) >= 100 ? v.toFixed(0) : Number(v.toPrecision(3)).toString()) : v);
 
 function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
   const step = data.step;
   const ports = PORTS[step.kind];
-  const summary = useEvaluation((s) => s.result?.steps[id]?.summary);
-  const stale = useEvaluation((s) => s.status === 'invalid' || s.status === 'running');
+  // Shallow: a new result re-renders only the cards whose numbers changed.
+  const summary = useEvaluation(useShallow((s) => s.result?.steps[id]?.summary ?? NO_SUMMARY));
   const counts = useEvaluation(
     useShallow((s) => {
       const c: Record<Severity, number> = { hazard: 0, warning: 0, advisory: 0, info: 0 };
@@ -65,7 +66,7 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
         ))}
       </div>
       {summary && Object.keys(summary).length ? (
-        <dl className={`grid grid-cols-[1fr_auto] gap-x-2 border-t border-rule px-2.5 py-1.5 text-caption ${stale ? 'opacity-60' : ''}`} aria-label="Results">
+        <dl className={`grid grid-cols-[1fr_auto] gap-x-2 border-t border-rule px-2.5 py-1.5 text-caption pw-results`} aria-label="Results">
           {Object.entries(summary).slice(0, 4).map(([k, v]) => (
             <div key={k} className="contents">
               <dt className="truncate text-ink-muted">{k}</dt>

@@ -18,25 +18,13 @@ const zoomedIn = (s: { transform: [number, number, number] }) => s.transform[2] 
  */
 function StreamEdgeImpl({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, selected }: EdgeProps<StreamEdgeType>) {
   const [path, labelX, labelY] = getBezierPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition });
-  const stream = useEvaluation((s) => s.result?.streams[id]);
+  // The label's words, not the stream object: a new result re-renders only the connections whose label changed.
+  const text = useEvaluation((s) => streamLabel(s.result?.streams[id], data));
+  const [label = null, product = null, detail = null] = text ? text.split('\u0000').map((x) => x || null) : [];
   const phase = PHASES[data?.phase ?? 'liquid'];
   const readable = useStore(zoomedIn);
   const [hover, setHover] = useState(false);
   const full = hover || !!selected;
-  let label: string | null = null;
-  let detail: string | null = null;
-  let product: string | null = null;
-  if (stream) {
-    const L = stream.volumeM3 * 1000;
-    const pid = data?.productId;
-    const productKg = pid ? stream.kg[pid] ?? 0 : null;
-    let main = '';
-    let best = 0;
-    for (const [k, v] of Object.entries(stream.kg)) if (k !== pid && v > best && data?.names[k]?.kind !== 'compound') { best = v; main = k; }
-    label = `${L >= 10 ? L.toFixed(0) : L.toPrecision(2)} L`;
-    product = productKg !== null ? `${productKg.toPrecision(3)} kg product` : null;
-    detail = main ? data?.names[main]?.name ?? main : null;
-  }
   return (
     <g onMouseEnter={() => setHover(true)} onMouseLeave={() => setHover(false)}>
       <BaseEdge id={id} path={path} style={{ stroke: phase.stroke, strokeWidth: selected ? 3 : 2, strokeDasharray: phase.dash }} />
@@ -59,6 +47,20 @@ function StreamEdgeImpl({ id, sourceX, sourceY, targetX, targetY, sourcePosition
       ) : null}
     </g>
   );
+}
+
+type StreamOf = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['streams'][string];
+
+/** Volume, product mass and main solvent of a stream, joined by NUL (a string, so selectors compare by value). */
+function streamLabel(stream: StreamOf | undefined, data: StreamEdgeData | undefined): string | null {
+  if (!stream) return null;
+  const L = stream.volumeM3 * 1000;
+  const pid = data?.productId;
+  const productKg = pid ? stream.kg[pid] ?? 0 : null;
+  let main = '';
+  let best = 0;
+  for (const [k, v] of Object.entries(stream.kg)) if (k !== pid && v > best && data?.names[k]?.kind !== 'compound') { best = v; main = k; }
+  return [`${L >= 10 ? L.toFixed(0) : L.toPrecision(2)} L`, productKg !== null ? `${productKg.toPrecision(3)} kg product` : '', main ? data?.names[main]?.name ?? main : ''].join('\u0000');
 }
 
 export const StreamEdge = memo(StreamEdgeImpl);
