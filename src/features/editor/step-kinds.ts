@@ -6,6 +6,7 @@
 import type { StepKind } from '@shared/schemas/route';
 import type { ComponentInput, EditorDoc, StepInput } from './document';
 import { keyOf } from './document';
+import { aqueousSoluteById, solventById } from '@shared/engine/data';
 
 export interface KindInfo {
   label: string;
@@ -102,24 +103,28 @@ export function keyParams(step: StepInput): string[] {
     case 'wash':
     case 'extraction': {
       const l = step.params.addedLiquid;
-      const what = l.kind === 'solvent' ? l.solventId : `${v(l.wtPct)} % ${l.soluteId}`;
+      const what =
+        l.kind === 'solvent'
+          ? (solventById(l.solventId)?.name ?? l.solventId)
+          : `${v(l.wtPct)} % ${aqueousSoluteById(l.soluteId)?.formula ?? l.soluteId}`;
       return [`${vol(l.volume)} ${what}`, `${step.params.stages ?? 1} × ${step.params.mode ?? 'cross-current'}`];
     }
     case 'distillation': {
       const m = step.params.mode;
       const cond = step.params.condition.kind === 'pressure' ? `${v(step.params.condition.pressureMbar)} mbar` : `pot ${v(step.params.condition.potTemperatureC)} °C`;
       if (m.kind === 'concentrate') return [`to ${vol(m.targetVolume)}`, cond];
-      if (m.kind === 'put-and-take') return [`${m.cycles} × to ${vol(m.targetVolume)}, + ${vol(m.addVolume)} ${m.addSolventId}`, cond];
-      return [`swap to ${m.addSolventId}, ${vol(m.addVolume)}`, cond];
+      const added = solventById(m.kind === 'put-and-take' || m.kind === 'constant-volume' ? m.addSolventId : '')?.name;
+      if (m.kind === 'put-and-take') return [`${m.cycles} × to ${vol(m.targetVolume)}, + ${vol(m.addVolume)} ${added ?? m.addSolventId}`, cond];
+      return [`swap to ${added ?? m.addSolventId}, ${vol(m.addVolume)}`, cond];
     }
     case 'crystallisation': {
       const m = step.params.mode;
       if (m.kind === 'cooling') return [`cool ${v(m.startC)} → ${v(m.endC)} °C`, step.params.seeded ? 'seeded' : 'unseeded'];
-      if (m.kind === 'antisolvent') return [`${vol(m.volume)} ${m.antisolventId} at ${v(m.temperatureC)} °C`, step.params.seeded ? 'seeded' : 'unseeded'];
+      if (m.kind === 'antisolvent') return [`${vol(m.volume)} ${solventById(m.antisolventId)?.name ?? m.antisolventId} at ${v(m.temperatureC)} °C`, step.params.seeded ? 'seeded' : 'unseeded'];
       return [`evaporate to ${vol(m.targetVolume)}`];
     }
     case 'filtration':
-      return [step.params.cakeWash ? `${step.params.cakeWash.washes} × ${vol(step.params.cakeWash.volume)} ${step.params.cakeWash.solventId} wash` : 'no cake wash'];
+      return [step.params.cakeWash ? `${step.params.cakeWash.washes} × ${vol(step.params.cakeWash.volume)} ${solventById(step.params.cakeWash.solventId)?.name ?? step.params.cakeWash.solventId} wash` : 'no cake wash'];
     case 'drying':
       return [step.params.target.kind === 'lod' ? `to LOD ${v(step.params.target.lodWtPct)} %` : `to ${v(step.params.target.residualPpm)} ppm`, `${v(step.params.temperatureC)} °C, ${v(step.params.pressureMbar)} mbar`];
     case 'quench':
