@@ -4,6 +4,8 @@ import net from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, afterEach, beforeAll, beforeEach } from 'vitest';
+import { useTestServer, type TestServer } from '../support/app';
 
 export const SCREENSHOT_DIR = path.resolve('test-output/screenshots');
 
@@ -78,6 +80,60 @@ export async function launchBrowser(): Promise<Browser> {
     close: async () => {
       await context.close();
       rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+export interface BrowserFlows {
+  /** Base URL of the app under test, also its APP_URL (the links in e-mails). */
+  readonly base: string;
+  /** The real server: database, mail fake and job queue, with the demo seed. */
+  readonly server: TestServer;
+  /** The browser of the running flow. */
+  readonly browser: Browser;
+}
+
+/**
+ * Registers the hooks every browser test file needs: the real server with the
+ * demo seed serving the built client on a free port, and chromium. With
+ * `profile: 'per-flow'` each test gets a fresh browser profile (nothing signed
+ * in or cached carries over, so one failing flow cannot leave the next on the
+ * wrong page); with 'per-file' the flows of a file share one, in order.
+ * `lastShot` names a screenshot of each flow's last screen, kept for looking at
+ * when something fails.
+ */
+export async function useBrowserFlows(options: { profile: 'per-flow' | 'per-file'; lastShot?: string }): Promise<BrowserFlows> {
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
+  let http: Server | undefined;
+  let browser: Browser | undefined;
+
+  beforeAll(async () => {
+    assertClientBuilt();
+    http = await listen(server.app, port);
+    if (options.profile === 'per-file') browser = await launchBrowser();
+  });
+  if (options.profile === 'per-flow') {
+    beforeEach(async () => {
+      browser = await launchBrowser();
+    });
+  }
+  afterEach(async () => {
+    if (options.lastShot) await browser?.shot(options.lastShot);
+    if (options.profile === 'per-flow') await browser?.close();
+  });
+  afterAll(async () => {
+    if (options.profile === 'per-file') await browser?.close();
+    await closeServer(http);
+  });
+
+  return {
+    base,
+    server,
+    get browser() {
+      if (!browser) throw new Error('The browser starts in the test hooks; use it inside a test.');
+      return browser;
     },
   };
 }

@@ -1,33 +1,14 @@
-import type { Server } from 'node:http';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Compound } from '../../server/models';
-import { useTestServer } from '../support/app';
-import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
+import { useBrowserFlows } from './browser';
 
-const DEMO_PASSWORD = 'phasewright-demo';
-
-// The real server with the demo seed (which includes the invented demo compounds), serving the built client.
-const port = await freePort();
-const base = `http://127.0.0.1:${port}`;
-const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
-
-let http: Server | undefined;
-let browser: Browser;
-
-beforeAll(async () => {
-  assertClientBuilt();
-  http = await listen(server.app, port);
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await closeServer(http);
-});
+const flows = await useBrowserFlows({ profile: 'per-file' });
+const { base } = flows;
 
 describe('compounds', () => {
   it('the demo chemist adds a compound from a SMILES, sees its structure, groups and estimates, saves it and finds it in the table', async () => {
-    const { page, shot, problems } = browser;
+    const { page, shot, problems } = flows.browser;
     await page.goto(base + '/');
     await page.getByLabel('E-mail').fill('chemist@example.com');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
@@ -82,12 +63,12 @@ describe('compounds', () => {
     expect(stored!.formula).toBe('C10H12O3');
     expect(stored!.pKa).toEqual([{ value: 4.6, type: 'acid' }]);
     expect(stored!.logP!.source).toBe('estimated');
-    // The unparsable SMILES answered 422 on purpose; the browser logs that fetch.
+    // The unparsable SMILES answered 422 on purpose; the flows.browser logs that fetch.
     expect(problems.filter((p) => !/status of 422/.test(p))).toEqual([]);
   });
 
   it('the solvent library sorts, searches and shows every value of a solvent with its source', async () => {
-    const { page, shot, problems } = browser;
+    const { page, shot, problems } = flows.browser;
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Solvent library' }).click();
     await page.getByRole('heading', { level: 1, name: 'Solvent library' }).waitFor();
     await page.getByRole('button', { name: /Tb/ }).click();
@@ -103,7 +84,7 @@ describe('compounds', () => {
     await shot('solvents-01-drawer');
     await page.keyboard.press('Escape');
     await expect(drawer.count()).resolves.toBe(0);
-    // The unparsable SMILES answered 422 on purpose; the browser logs that fetch.
+    // The unparsable SMILES answered 422 on purpose; the flows.browser logs that fetch.
     expect(problems.filter((p) => !/status of 422/.test(p))).toEqual([]);
   });
 });

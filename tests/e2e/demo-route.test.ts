@@ -1,40 +1,15 @@
-import type { Server } from 'node:http';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
-import { useTestServer } from '../support/app';
-import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
+import { useBrowserFlows } from './browser';
 
-const DEMO_PASSWORD = 'phasewright-demo';
-
-const port = await freePort();
-const base = `http://127.0.0.1:${port}`;
-const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
-
-let http: Server | undefined;
-let browser: Browser;
-
-beforeAll(async () => {
-  assertClientBuilt();
-  http = await listen(server.app, port);
-});
-
-beforeEach(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  await browser?.shot('demo-route-last');
-  await browser?.close();
-});
-
-afterAll(async () => {
-  await closeServer(http);
-});
+const flows = await useBrowserFlows({ profile: 'per-flow', lastShot: 'demo-route-last' });
+const { base } = flows;
 
 const number = (text: string | null) => Number(/-?[\d.]+/.exec(text ?? '')?.[0] ?? NaN);
 
 async function openDemoRoute() {
-  const { page } = browser;
+  const { page } = flows.browser;
   await page.goto(base + '/sign-in');
   await page.getByLabel('E-mail').fill('chemist@example.com');
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
@@ -46,7 +21,7 @@ async function openDemoRoute() {
 
 describe('the demo route', () => {
   it('opens for the demo chemist; the antisolvent volume moves yield and purity; a wash is added; a reload keeps everything', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     await openDemoRoute();
     const yieldTotal = page.locator('[data-total="yield"]');
     const purityTotal = page.locator('[data-total="purity"]');
@@ -110,11 +85,11 @@ describe('the demo route', () => {
     await page.getByRole('article', { name: /^Crystallisation: Heptane antisolvent/ }).click();
     await expect(page.getByRole('form', { name: /Settings of Heptane antisolvent/ }).getByLabel('Antisolvent volume', { exact: true }).inputValue()).resolves.toBe('3 ± 0.5 vol');
     await shot('demo-05-after-reload');
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 
   it('shows where the product goes and the purge per impurity, and runs a small uncertainty estimate to the end', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     await openDemoRoute();
 
     await page.getByRole('tab', { name: 'Product flow' }).click();
@@ -150,6 +125,6 @@ describe('the demo route', () => {
     await expect(bands.getByRole('row', { name: /^Purity wt %/ }).isVisible()).resolves.toBe(true);
     await expect(bands.getByRole('row', { name: /^Purge of / }).count()).resolves.toBeGreaterThan(0);
     await shot('demo-08-uncertainty');
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 });

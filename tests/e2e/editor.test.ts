@@ -1,36 +1,13 @@
-import type { Server } from 'node:http';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { useTestServer } from '../support/app';
-import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+import { describe, expect, it } from 'vitest';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
+import { useBrowserFlows } from './browser';
 
-const DEMO_PASSWORD = 'phasewright-demo';
-
-const port = await freePort();
-const base = `http://127.0.0.1:${port}`;
-const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
-
-let http: Server | undefined;
-let browser: Browser;
-
-beforeAll(async () => {
-  assertClientBuilt();
-  http = await listen(server.app, port);
-  browser = await launchBrowser();
-});
-
-// The last screen of each flow, kept for looking at when something fails.
-afterEach(async () => {
-  await browser?.shot('editor-last');
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await closeServer(http);
-});
+const flows = await useBrowserFlows({ profile: 'per-file', lastShot: 'editor-last' });
+const { base } = flows;
 
 describe('route editor', () => {
   it('builds a 4-step route on an empty canvas with mouse and keyboard, shows results live, undoes, and keeps the draft over a reload', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     const name = `Amide isolation ${Date.now().toString(36)}`;
     await page.goto(base + '/sign-in');
     await page.getByLabel('E-mail').fill('chemist@example.com');
@@ -158,6 +135,6 @@ describe('route editor', () => {
     await page.getByRole('button', { name: 'Shortcuts' }).click();
     await page.getByRole('region', { name: 'Keyboard shortcuts' }).waitFor();
     await shot('editor-05-after-reload');
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 });

@@ -1,40 +1,14 @@
-import type { Server } from 'node:http';
 import { randomBytes } from 'node:crypto';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { DEMO_PROJECT_NAME, DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
-import { useTestServer } from '../support/app';
-import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
+import { useBrowserFlows } from './browser';
 
-const DEMO_PASSWORD = 'phasewright-demo';
-
-const port = await freePort();
-const base = `http://127.0.0.1:${port}`;
-const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
-
-let http: Server | undefined;
-let browser: Browser;
-
-beforeAll(async () => {
-  assertClientBuilt();
-  http = await listen(server.app, port);
-});
-
-// A fresh browser profile per flow: nothing signed in or cached carries over.
-beforeEach(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  await browser?.shot('routes-list-last');
-  await browser?.close();
-});
-
-afterAll(async () => {
-  await closeServer(http);
-});
+const flows = await useBrowserFlows({ profile: 'per-flow', lastShot: 'routes-list-last' });
+const { base } = flows;
 
 async function signInAs(email: string) {
-  const { page } = browser;
+  const { page } = flows.browser;
   await page.goto(base + '/sign-in');
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
@@ -46,7 +20,7 @@ const percent = (text: string | null) => Number(/([\d.]+)\s*%/.exec(text ?? '')?
 
 describe('routes list', () => {
   it('lists the demo route with its totals, and lets the chemist create, rename, duplicate and archive routes', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     const suffix = randomBytes(3).toString('hex');
     const name = `Ester isolation ${suffix}`;
     const renamed = `Ester isolation, reworked ${suffix}`;
@@ -104,11 +78,11 @@ describe('routes list', () => {
     await expect(archivedRow.getByRole('cell', { name: 'Archived', exact: true }).isVisible()).resolves.toBe(true);
     await expect(page.getByRole('link', { name: DEMO_ROUTE_NAME }).count()).resolves.toBe(0);
     await shot('routes-03-archived');
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 
   it('shows the reviewer the routes read-only', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     await signInAs('reviewer@example.com');
     await page.getByRole('link', { name: DEMO_ROUTE_NAME }).waitFor();
     await expect(page.getByRole('button', { name: 'New route' }).count()).resolves.toBe(0);
@@ -119,6 +93,6 @@ describe('routes list', () => {
     await page.getByRole('link', { name: DEMO_ROUTE_NAME }).click();
     await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
     await page.getByText('Read only — you can look but not change this route').waitFor();
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 });

@@ -1,59 +1,32 @@
-import type { Server } from 'node:http';
 import { randomBytes } from 'node:crypto';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Membership, Workspace } from '../../server/models';
-import { useTestServer } from '../support/app';
 import { buildMember } from '../support/factories';
 import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { tokenFromLink, waitForMail } from '../support/mail';
-import { assertClientBuilt, closeServer, freePort, launchBrowser, listen, type Browser } from './browser';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
+import { useBrowserFlows } from './browser';
 
-const DEMO_PASSWORD = 'phasewright-demo';
 const DEMO_WORKSPACE = 'Demo process group (invented)';
-
-// The real server (database, mail fake, job queue) serving the built client.
-const port = await freePort();
-const base = `http://127.0.0.1:${port}`;
-const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });
-
-let http: Server | undefined;
-let browser: Browser;
-
-beforeAll(async () => {
-  assertClientBuilt();
-  http = await listen(server.app, port);
-});
-
-// Each flow gets its own browser profile (no session, cookies or storage carried over), so one
-// failing flow cannot leave the next signed in or on the wrong page.
-beforeEach(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  await browser?.close();
-});
-
-afterAll(async () => {
-  await closeServer(http);
-});
+const flows = await useBrowserFlows({ profile: 'per-flow' });
+const { base } = flows;
 
 async function signInAs(email: string, password = DEMO_PASSWORD) {
-  const { page } = browser;
+  const { page } = flows.browser;
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
 }
 
 async function signOut() {
-  const { page } = browser;
+  const { page } = flows.browser;
   await page.getByRole('button', { name: 'Sign out' }).click();
   await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
 }
 
 describe('signing in', () => {
   it('takes the chemist to the routes list with the demo route, and signs out', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     await page.goto(base + '/');
     // Signed out: the app shows the sign-in page.
     await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
@@ -78,11 +51,11 @@ describe('signing in', () => {
     await page.goto(base + '/account');
     await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
     expect(new URL(page.url()).searchParams.get('next')).toBe('/account');
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 
   it('returns to the page asked for after signing in', async () => {
-    const { page } = browser;
+    const { page } = flows.browser;
     await page.goto(base + '/account');
     await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
     await signInAs('chemist@example.com');
@@ -92,7 +65,7 @@ describe('signing in', () => {
   });
 
   it('shows the server’s message for a wrong password and stays on the sign-in page', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     await page.goto(base + '/sign-in');
     await signInAs('chemist@example.com', 'not-the-password');
     const alert = page.getByRole('alert');
@@ -106,7 +79,7 @@ describe('signing in', () => {
   });
 
   it('checks the form with the shared schema before sending', async () => {
-    const { page } = browser;
+    const { page } = flows.browser;
     await page.goto(base + '/sign-in');
     await page.getByLabel('E-mail').fill('not-an-address');
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -118,7 +91,7 @@ describe('signing in', () => {
 
 describe('inviting a member', () => {
   it('lets the admin invite a reviewer, shows the e-mail in the outbox, and the link lets them join', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     const invitee = `new-reviewer-${randomBytes(3).toString('hex')}@example.com`;
     const sentAfter = new Date();
 
@@ -162,13 +135,13 @@ describe('inviting a member', () => {
     await expect(page.locator('header').getByText('Reviewer', { exact: true }).isVisible()).resolves.toBe(true);
     await shot('07-joined');
     await signOut();
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 });
 
 describe('managing members', () => {
   it('lets the admin change a member’s roles and remove them after confirming', async () => {
-    const { page, shot } = browser;
+    const { page, shot } = flows.browser;
     const workspace = await Workspace.findOne({ where: { name: DEMO_WORKSPACE } });
     if (!workspace) throw new Error('the demo workspace was not seeded');
     const member = await buildMember(workspace, ['chemist'], { name: 'Temporary Chemist (demo)' });
@@ -203,13 +176,13 @@ describe('managing members', () => {
     await row.waitFor({ state: 'detached' });
     await expect(Membership.count({ where: { userId: member.id, workspaceId: workspace.id } })).resolves.toBe(0);
     await signOut();
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 });
 
 describe('API tokens', () => {
   it('creates a token shown once with a copy button, which then authenticates until revoked', async () => {
-    const { page, context, shot } = browser;
+    const { page, context, shot } = flows.browser;
     await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: base });
     await page.goto(base + '/account');
     await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
@@ -243,6 +216,6 @@ describe('API tokens', () => {
     await page.getByRole('heading', { name: 'No API tokens' }).waitFor();
     expect((await fetch(`${base}/api/v1/tokens`, bearer)).status).toBe(401);
     await signOut();
-    expect(browser.problems).toEqual([]);
+    expect(flows.browser.problems).toEqual([]);
   });
 });
