@@ -1,4 +1,4 @@
-import { useCallback, useMemo, type DragEvent } from 'react';
+import { useCallback, useMemo, useRef, type DragEvent } from 'react';
 import {
   Background,
   BackgroundVariant,
@@ -14,11 +14,11 @@ import {
   type EdgeTypes,
 } from '@xyflow/react';
 import { useShallow } from 'zustand/react/shallow';
-import { PORTS, type StepKind } from '@shared/schemas/route';
+import { PORTS, type PortPhase, type StepKind } from '@shared/schemas/route';
 import { useEditorStore } from '@/stores/editor-store';
-import { checkConnection, handleId, keyOf, portOfHandle, portPhase } from '../document';
+import { checkConnection, handleId, keyOf, portOfHandle, portPhase, type ConnectionInput, type StepInput } from '../document';
 import { StepNode, type StepNodeType } from './step-node';
-import { StreamEdge, type StreamEdgeType } from './stream-edge';
+import { StreamEdge, type StreamEdgeData, type StreamEdgeType } from './stream-edge';
 import { PHASES } from './phase';
 
 // Declared once: every step kind uses the same memoised card.
@@ -33,18 +33,35 @@ export function Canvas() {
   const actions = useEditorStore.getState();
   const flow = useReactFlow();
 
+  // A setting's edit changes one step: the other cards keep their node objects, so the canvas
+  // library re-measures and re-renders only the changed card.
+  const nodeCache = useRef(new Map<string, { step: StepInput; selected: boolean; i: number; node: StepNodeType }>());
   const nodes = useMemo<StepNodeType[]>(() => {
     const sel = new Set(selection.steps);
-    return steps.map((step, i) => ({
-      id: step.id,
-      type: step.kind,
-      position: step.position ?? { x: 80 + i * 300, y: 120 },
-      data: { step },
-      selected: sel.has(step.id),
-      // The card's usual size until it is measured, so the mini-map can draw it.
-      initialWidth: 240,
-      initialHeight: 140,
-    })) as StepNodeType[];
+    const cache = nodeCache.current;
+    const next = new Map<string, { step: StepInput; selected: boolean; i: number; node: StepNodeType }>();
+    const out = steps.map((step, i) => {
+      const selected = sel.has(step.id);
+      const hit = cache.get(step.id);
+      if (hit && hit.step === step && hit.selected === selected && (step.position || hit.i === i)) {
+        next.set(step.id, hit);
+        return hit.node;
+      }
+      const node = {
+        id: step.id,
+        type: step.kind,
+        position: step.position ?? { x: 80 + i * 300, y: 120 },
+        data: { step },
+        selected,
+        // The card's usual size until it is measured, so the mini-map can draw it.
+        initialWidth: 240,
+        initialHeight: 140,
+      } as StepNodeType;
+      next.set(step.id, { step, selected, i, node });
+      return node;
+    });
+    nodeCache.current = next;
+    return out;
   }, [steps, selection.steps]);
 
   const names = useMemo(() => {
@@ -57,20 +74,37 @@ export function Canvas() {
     return p ? keyOf(p) : null;
   }, [components]);
 
+  const edgeCache = useRef(new Map<string, { c: ConnectionInput; selected: boolean; phase: PortPhase; data: StreamEdgeData; edge: StreamEdgeType }>());
   const edges = useMemo<StreamEdgeType[]>(() => {
     const sel = new Set(selection.connections);
     const kindOf = new Map(steps.map((s) => [s.id, s.kind]));
-    return connections.map((c) => ({
-      id: c.id,
-      type: 'stream',
-      source: c.from.stepId,
-      sourceHandle: handleId('out', c.from.port),
-      target: c.to.stepId,
-      targetHandle: handleId('in', c.to.port),
-      selected: sel.has(c.id),
-      ariaLabel: `Stream from ${c.from.stepId} ${c.from.port} to ${c.to.stepId} ${c.to.port}`,
-      data: { phase: portPhase(kindOf.get(c.from.stepId) ?? 'charge', 'out', c.from.port) ?? 'liquid', productId, names },
-    }));
+    const cache = edgeCache.current;
+    const next = new Map<string, { c: ConnectionInput; selected: boolean; phase: PortPhase; data: StreamEdgeData; edge: StreamEdgeType }>();
+    const out = connections.map((c) => {
+      const selected = sel.has(c.id);
+      const phase = portPhase(kindOf.get(c.from.stepId) ?? 'charge', 'out', c.from.port) ?? 'liquid';
+      const hit = cache.get(c.id);
+      if (hit && hit.c === c && hit.selected === selected && hit.phase === phase && hit.data.productId === productId && hit.data.names === names) {
+        next.set(c.id, hit);
+        return hit.edge;
+      }
+      const data: StreamEdgeData = { phase, productId, names };
+      const edge: StreamEdgeType = {
+        id: c.id,
+        type: 'stream',
+        source: c.from.stepId,
+        sourceHandle: handleId('out', c.from.port),
+        target: c.to.stepId,
+        targetHandle: handleId('in', c.to.port),
+        selected,
+        ariaLabel: `Stream from ${c.from.stepId} ${c.from.port} to ${c.to.stepId} ${c.to.port}`,
+        data,
+      };
+      next.set(c.id, { c, selected, phase, data, edge });
+      return edge;
+    });
+    edgeCache.current = next;
+    return out;
   }, [connections, steps, selection.connections, productId, names]);
 
   const onNodesChange = useCallback((changes: NodeChange<StepNodeType>[]) => {
