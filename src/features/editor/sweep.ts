@@ -1,16 +1,22 @@
 /**
  * Sweeps for the per-step plots, run in their own worker so the live
  * evaluation of edits never waits behind them. Only the newest request per
- * plot is answered on screen.
+ * plot is answered on screen. A sweep starts well after an edit's own result
+ * has landed (it evaluates the route once per swept value, and would compete
+ * for the processor), and a newer edit cancels the sweep still running.
  */
 import { useEffect, useState } from 'react';
-import type { SweepKind, SweepPoint, SweepReply, SweepRequest } from '@/workers/sweep.worker';
+import type { SweepCancel, SweepKind, SweepPoint, SweepReply, SweepRequest } from '@/workers/sweep.worker';
+import { useEvaluation } from './evaluation';
 import { useEditorStore } from '@/stores/editor-store';
 import type { StepInput } from './document';
 
 let worker: Worker | null = null;
 let nextId = 1;
 const waiting = new Map<number, (points: SweepPoint[]) => void>();
+/** Quiet time after the last change before a sweep starts, and the re-check while the edit's own evaluation runs. */
+const SWEEP_DELAY_MS = 400;
+const RECHECK_MS = 100;
 
 function getWorker(): Worker {
   if (worker) return worker;
@@ -52,16 +58,28 @@ export function useSweep(step: StepInput): { points: SweepPoint[] | null; curren
   useEffect(() => {
     if (!spec) return;
     let live = true;
-    const timer = setTimeout(() => {
+    let sent = 0;
+    const start = () => {
+      // The edit's own result first: the sweep waits while the live evaluation runs.
+      if (useEvaluation.getState().status === 'running') {
+        timer = setTimeout(start, RECHECK_MS);
+        return;
+      }
       const doc = useEditorStore.getState().doc;
       const id = nextId++;
+      sent = id;
       waiting.set(id, (p) => live && setPoints(p));
       const document = { ...doc, steps: doc.steps.map(({ position: _p, ...s }) => s) } as unknown as SweepRequest['document'];
       getWorker().postMessage({ id, document, stepId: step.id, sweep: spec.sweep, values: spec.values } satisfies SweepRequest);
-    }, 250);
+    };
+    let timer = setTimeout(start, SWEEP_DELAY_MS);
     return () => {
       live = false;
       clearTimeout(timer);
+      if (sent && waiting.has(sent)) {
+        waiting.delete(sent);
+        getWorker().postMessage({ cancel: sent } satisfies SweepCancel);
+      }
     };
     // eslint-disable-next-line react-hooks/exhaustive-deps -- the key stands for spec
   }, [step.id, key, revision]);
