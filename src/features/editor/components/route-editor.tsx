@@ -23,6 +23,9 @@ import { UncertaintyPanel } from './uncertainty';
 import { SEVERITY_LABEL, SEVERITY_ORDER, SeverityChip, SeverityMark } from './phase';
 import { cautionJump } from './results';
 
+/** An edit's result later than this dims the cards' numbers as stale. */
+const STALE_AFTER_MS = 150;
+
 export default function RouteEditor({ workspaceId, route }: { workspaceId: string; route: RouteDetail }) {
   const start = useMemo(() => initialDocument(route.id, route.draft), [route.id, route.draft]);
   const [ready, setReady] = useState(false);
@@ -65,11 +68,20 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
   const worst = useEvaluation((s) => SEVERITY_ORDER.find((sev) => s.result?.warnings.some((w) => w.severity === sev)));
 
   // Stale results dim on every card through one attribute here, not a re-render of each card.
+  // While an edit is evaluated they dim only if its result is late: a quick result would
+  // otherwise cost two repaints of every card (and a flicker) on the way to the new numbers.
   const canvasBox = useRef<HTMLDivElement>(null);
   useEffect(() => {
-    const mark = (status: string) => { if (canvasBox.current) canvasBox.current.dataset.resultsStale = String(status === 'invalid' || status === 'running'); };
+    let late: ReturnType<typeof setTimeout> | undefined;
+    const set = (stale: boolean) => { if (canvasBox.current) canvasBox.current.dataset.resultsStale = String(stale); };
+    const mark = (status: string) => {
+      clearTimeout(late);
+      if (status === 'running') late = setTimeout(() => set(useEvaluation.getState().status === 'running'), STALE_AFTER_MS);
+      else set(status === 'invalid');
+    };
     mark(useEvaluation.getState().status);
-    return useEvaluation.subscribe((s, prev) => { if (s.status !== prev.status) mark(s.status); });
+    const unsub = useEvaluation.subscribe((s, prev) => { if (s.status !== prev.status) mark(s.status); });
+    return () => { clearTimeout(late); unsub(); };
   }, []);
 
   // Every change of the model re-evaluates in the worker.
