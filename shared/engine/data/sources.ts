@@ -28,6 +28,21 @@ export const SOURCES = {
     citation: 'CRC Handbook of Chemistry and Physics, "Physical Constants of Inorganic Compounds"',
     via: 'CalebBell/chemicals: chemicals/Misc/Physical Constants of Inorganic Compounds.csv (as read for reference-data.md §H)',
   },
+  'vn-dutt-prasad-viscosity': {
+    citation:
+      'D. S. Viswanath, G. Natarajan, Data Book on the Viscosity of Liquids, Hemisphere (Taylor & Francis), New York, 1989 — Dutt–Prasad three-constant equation log10(μ/mPa·s) = A + B/(C − T/K), with its fitted range (publisher recalled)',
+    via: 'CalebBell/chemicals: chemicals/Viscosity/Dutt Prasad 3 term.tsv (columns A, B, C, Tmin, Tmax in K; μ in mPa·s)',
+  },
+  'vn-3term-viscosity': {
+    citation:
+      'D. S. Viswanath, G. Natarajan, Data Book on the Viscosity of Liquids, Hemisphere (Taylor & Francis), New York, 1989 — three-term equation log10(μ/mPa·s) = A + B/(C − T/K), with its fitted range (publisher recalled)',
+    via: 'CalebBell/chemicals: chemicals/Viscosity/Viswanath Natarajan Dynamic 3 term.tsv (columns A, B, C, Tmin, Tmax in K; μ in mPa·s)',
+  },
+  'perry-8e-2-313-viscosity': {
+    citation:
+      'D. W. Green, R. H. Perry (eds.), Perry\'s Chemical Engineers\' Handbook, 8th ed., McGraw-Hill, 2007, Table 2-313 "Viscosity of Inorganic and Organic Liquids" (DIPPR equation 101: μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K)',
+    via: 'CalebBell/chemicals: chemicals/Viscosity/Table 2-313 Viscosity of Inorganic and Organic Liquids.tsv (columns C1–C5, Tmin, Tmax in K)',
+  },
   'crc-enthalpy-vaporization': {
     citation: 'CRC Handbook of Chemistry and Physics, "Enthalpy of Vaporization" (ΔvapH at the normal boiling point)',
     via: 'CalebBell/chemicals: chemicals/Phase Change/CRC Handbook Heat of Vaporization.tsv (column HvapTb, J/mol)',

@@ -39,5 +39,5 @@ export const ASSIGNED: Source = derived(
   'assigned by applying the original UNIFAC subgroup definitions; not compared one by one with the DDBST assignment list',
 );
 
-/** All 25 °C viscosities are recalled values. */
+/** A recalled 25 °C viscosity (no table read for it, or the tables read disagree). */
 export const VISCOSITY: Source = recalled('crc-viscosity-liquids');

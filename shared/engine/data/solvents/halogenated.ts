@@ -5,7 +5,7 @@
  * form (see AntoineSet in ../types.ts).
  */
 import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv, VISCOSITY } from './common';
+import { antoine, ASSIGNED, derived, practice, read, recalled, sv } from './common';
 
 export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
   {
@@ -32,7 +32,7 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
       recalled('dcm-solubility-page', 'DCM in water 17.5 g/L at 25 °C read on a public page (weak source); water in DCM recalled'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.413, VISCOSITY),
+    viscosityMPas25C: sv(0.414, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.4815, B = -302.66, C = 22.64 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–310 K), 3 significant figures; Perry 2-313 gives 0.413; stored value was 0.413 (recalled)')),
     ich: sv({ class: 2, limitPpm: 600, pdeMgDay: 6 }, read('jcr-2022-table1')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -61,7 +61,7 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
       recalled('nas-2016-appD', 'solvent in water read as 0.8 g/100 g water (NAS 2016 App. D); water in chloroform recalled'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.537, VISCOSITY),
+    viscosityMPas25C: sv(0.532, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.3917, B = -288.76, C = 39.69 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–333 K), 3 significant figures; Perry 2-313 gives 0.539; V&N 3-term set 0.537; stored value was 0.537 (recalled)')),
     ich: sv({ class: 2, limitPpm: 60, pdeMgDay: 0.6 }, recalled('ich-q3c-r9', 'recalled')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -90,7 +90,7 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
       recalled('nas-2016-appD', 'solvent in water read as 0.05 g/100 g water (NAS 2016 App. D); water in chlorobenzene recalled'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.753, VISCOSITY),
+    viscosityMPas25C: sv(0.755, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.5481, B = -390.95, C = 24.03 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–393 K), 3 significant figures; Perry 2-313 gives 0.755; stored value was 0.753 (recalled)')),
     ich: sv({ class: 2, limitPpm: 360, pdeMgDay: 3.6 }, read('jcr-2022-table1')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1', 'not classified here; verify')),

@@ -5,7 +5,7 @@
  * form (see AntoineSet in ../types.ts).
  */
 import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv, VISCOSITY } from './common';
+import { antoine, ASSIGNED, derived, practice, read, recalled, sv } from './common';
 
 export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
   {
@@ -32,7 +32,7 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
       recalled('mutual-solubility-memory'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.387, VISCOSITY),
+    viscosityMPas25C: sv(0.388, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.5365, B = -277.33, C = 51.64 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 183–373 K), 3 significant figures; Perry 2-313 gives 0.388; stored value was 0.387 (recalled)')),
     ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('caslab-class3')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
@@ -62,7 +62,7 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
       recalled('mutual-solubility-memory'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.3, VISCOSITY),
+    viscosityMPas25C: sv(0.298, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.804, B = -401.73, C = -16.29 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 213–343 K), 3 significant figures; Perry 2-313 gives 0.293; stored value was 0.3 (recalled)')),
     ich: sv({ class: 2, limitPpm: 290, pdeMgDay: 2.9 }, recalled('ich-q3c-r9', 'recalled')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
@@ -90,7 +90,7 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
       recalled('mutual-solubility-memory'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.894, VISCOSITY),
+    viscosityMPas25C: sv(0.896, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.969, B = -501.37, C = 37.2 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 278–353 K), 3 significant figures; Perry 2-313 gives 0.893; stored value was 0.894 (recalled)')),
     ich: sv({ class: 2, limitPpm: 3880, pdeMgDay: 38.8 }, read('jcr-2022-table1')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
@@ -119,7 +119,7 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
       recalled('mutual-solubility-memory'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.679, VISCOSITY),
+    viscosityMPas25C: sv(0.679, read('vn-3term-viscosity', 'computed at 298.15 K from A = -1.5348, B = -319.07, C = 64.712 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.683')),
     ich: sv({ class: 2, limitPpm: 1180, pdeMgDay: 11.8 }, read('jcr-2022-table1')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
@@ -149,7 +149,7 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
       recalled('toluene-solubility-page', 'toluene in water 526 mg/L read on a public page (weak source); water in toluene recalled'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.56, VISCOSITY),
+    viscosityMPas25C: sv(0.555, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.7712, B = -433.71, C = 12.03 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 253–383 K), 3 significant figures; Perry 2-313 gives 0.554; stored value was 0.56 (recalled)')),
     ich: sv({ class: 2, limitPpm: 890, pdeMgDay: 8.9 }, read('jcr-2022-table1')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'aromatic hydrocarbon')),
@@ -178,7 +178,7 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
       recalled('mutual-solubility-memory'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(0.76, VISCOSITY),
+    viscosityMPas25C: sv(0.761, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -1.735, B = -445.93, C = 22.25 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–413 K), 3 significant figures; Perry 2-313 gives 0.758; stored value was 0.76 (recalled)')),
     ich: sv({ class: 2, limitPpm: 2170, pdeMgDay: 21.7 }, read('jcr-2022-table1', 'Q3C lists xylene as the sum of o-, m-, p-xylene and ethylbenzene')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'aromatic hydrocarbon')),

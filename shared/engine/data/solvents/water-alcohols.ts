@@ -5,7 +5,7 @@
  * form (see AntoineSet in ../types.ts).
  */
 import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv, VISCOSITY } from './common';
+import { antoine, ASSIGNED, derived, practice, read, recalled, sv } from './common';
 
 export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
   {
@@ -27,7 +27,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     molarVolumeCm3mol: sv(18, derived('derived-quantity', 'molar mass / density at 20 °C')),
     unifac: sv({ 16: 1 }, read('unifac-groups', 'whole-molecule subgroup of the original table')),
     waterMiscibility: 'miscible',
-    viscosityMPas25C: sv(0.89, VISCOSITY),
+    viscosityMPas25C: sv(0.893, read('vn-3term-viscosity', 'computed at 298.15 K from A = -1.5318, B = -220.57, C = 149.39 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.913; stored value was 0.89 (recalled)')),
     ich: sv({ class: null, limitPpm: null, pdeMgDay: null }, recalled('ich-q3c-r9', 'water is not a residual solvent in Q3C')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -53,7 +53,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     molarVolumeCm3mol: sv(40.5, derived('derived-quantity', 'molar mass / density at 20 °C')),
     unifac: sv({ 15: 1 }, read('unifac-groups', 'whole-molecule subgroup of the original table')),
     waterMiscibility: 'miscible',
-    viscosityMPas25C: sv(0.544, VISCOSITY),
+    viscosityMPas25C: sv(0.546, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -2.2968, B = -675.41, C = -33.89 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–333 K), 3 significant figures; Perry 2-313 gives 0.538; V&N 3-term set 0.544; stored value was 0.544 (recalled)')),
     ich: sv({ class: 2, limitPpm: 3000, pdeMgDay: 30 }, read('jcr-2022-table1', 'PDE 30 mg/day = limit × 10 g/day')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -79,7 +79,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     molarVolumeCm3mol: sv(58.4, derived('derived-quantity', 'molar mass / density at 20 °C')),
     unifac: sv({ 1: 1, 2: 1, 14: 1 }, ASSIGNED),
     waterMiscibility: 'miscible',
-    viscosityMPas25C: sv(1.074, VISCOSITY),
+    viscosityMPas25C: sv(1.07, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -2.8857, B = -1032.53, C = -55.95 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–348 K), 3 significant figures; Perry 2-313 gives 1.08; stored value was 1.074 (recalled)')),
     ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1', 'also on the ALS/caslab Class 3 list')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -104,7 +104,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     molarVolumeCm3mol: sv(75.1, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 1: 1, 2: 2, 14: 1 }, ASSIGNED),
     waterMiscibility: 'miscible',
-    viscosityMPas25C: sv(1.945, VISCOSITY),
+    viscosityMPas25C: sv(1.94, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -2.73, B = -854.52, C = 14.96 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–348 K), 3 significant figures; Perry 2-313 gives 1.95; stored value was 1.945 (recalled)')),
     ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, recalled('ich-q3c-r9', 'Class 3 membership recalled; not read')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -130,7 +130,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     molarVolumeCm3mol: sv(77, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 1: 2, 3: 1, 14: 1 }, ASSIGNED),
     waterMiscibility: 'miscible',
-    viscosityMPas25C: sv(2.038, VISCOSITY),
+    viscosityMPas25C: sv(2.07, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -3.9124, B = -1399.28, C = -32.76 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–348 K), 3 significant figures; Perry 2-313 gives 2.05; V&N 3-term set 2.04; stored value was 2.038 (recalled)')),
     ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
     peroxideFormer: sv(true, practice('peroxide-former-lists', 'secondary alcohol; peroxide hazard on concentration (group B of the usual lists)')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -160,7 +160,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
       read('iupac-nist-srd106-butanol', 'binary end points at 298.2 K (Letcher & Siswana 1992)'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(2.544, VISCOSITY),
+    viscosityMPas25C: sv(2.53, read('vn-dutt-prasad-viscosity', 'computed at 298.15 K from A = -2.9918, B = -1026.78, C = -4.25 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–393 K), 3 significant figures; Perry 2-313 gives 2.55; stored value was 2.544 (recalled)')),
     ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('caslab-class3')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -189,7 +189,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
       recalled('nas-2016-appD', 'solvent in water read as 18.1 g/100 g water (NAS 2016 App. D) = 15.3 wt%; water in 2-butanol recalled'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(3, VISCOSITY),
+    viscosityMPas25C: sv(3.1, read('vn-3term-viscosity', 'computed at 298.15 K from A = -2.2749, B = -452.89, C = 134.4 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 280–370 K), 3 significant figures; Perry 2-313 gives 3.07; stored value was 3 (recalled)')),
     ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
     peroxideFormer: sv(true, practice('peroxide-former-lists', 'secondary alcohol; group B of the usual lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -218,7 +218,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
       recalled('mutual-solubility-memory'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(3.33, VISCOSITY),
+    viscosityMPas25C: sv(3.34, read('vn-3term-viscosity', 'computed at 298.15 K from A = -3.1025, B = -946.92, C = 37.007 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; no second table read; stored value was 3.33 (recalled)')),
     ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, recalled('ich-q3c-r9', 'Class 3 membership recalled')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -243,7 +243,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     molarVolumeCm3mol: sv(94, derived('derived-quantity', 'molar mass / density at 20 °C')),
     unifac: sv({ 1: 3, 4: 1, 14: 1 }, ASSIGNED),
     waterMiscibility: 'miscible',
-    viscosityMPas25C: sv(4.3, VISCOSITY),
+    viscosityMPas25C: sv(4.3, recalled('crc-viscosity-liquids', 'Perry 2-313 gives 4.61 and the V&N 3-term set 4.31 (fitted 300–360 K, 25 °C just below); kept as recalled')),
     ich: sv({ class: 2, limitPpm: 3500, pdeMgDay: 35 }, recalled('ich-q3c-r9', 'moved to Class 2 by Q3C(R8) (2021); value recalled')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
@@ -271,7 +271,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
       recalled('mutual-solubility-memory', 'water-saturated octanol is x(water) ≈ 0.27 (recalled)'),
     ),
     waterMiscibility: 'partial',
-    viscosityMPas25C: sv(7.288, VISCOSITY),
+    viscosityMPas25C: sv(7.28, read('perry-8e-2-313-viscosity', 'computed at 298.15 K from C1…C5 = -19.907, 2791.7, 0.94296, 2.3041e24, -10.09 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 280–468.35 K), 3 significant figures; no V&N set in the files read; stored value was 7.288 (recalled)')),
     ich: sv({ class: null, limitPpm: null, pdeMgDay: null }, recalled('ich-q3c-r9', 'not listed in Q3C (recalled)')),
     peroxideFormer: sv(false, practice('peroxide-former-lists')),
     lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
