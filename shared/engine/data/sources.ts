@@ -28,6 +28,11 @@ export const SOURCES = {
     citation: 'CRC Handbook of Chemistry and Physics, "Physical Constants of Inorganic Compounds"',
     via: 'CalebBell/chemicals: chemicals/Misc/Physical Constants of Inorganic Compounds.csv (as read for reference-data.md §H)',
   },
+  'perry-8e-2-150-hvap': {
+    citation:
+      'D. W. Green, R. H. Perry (eds.), Perry\'s Chemical Engineers\' Handbook, 8th ed., McGraw-Hill, 2007, Table 2-150 "Heats of Vaporization of Inorganic and Organic Liquids" (DIPPR equation 106: ΔH = C1 (1 − Tr)^(C2 + C3 Tr + C4 Tr²), Tr = T/Tc)',
+    via: 'CalebBell/chemicals: chemicals/Phase Change/Table 2-150 Heats of Vaporization of Inorganic and Organic Liquids.tsv (Tc in K, C1 in J/mol, C2–C4, Tmin, Tmax in K)',
+  },
   'vn-dutt-prasad-viscosity': {
     citation:
       'D. S. Viswanath, G. Natarajan, Data Book on the Viscosity of Liquids, Hemisphere (Taylor & Francis), New York, 1989 — Dutt–Prasad three-constant equation log10(μ/mPa·s) = A + B/(C − T/K), with its fitted range (publisher recalled)',

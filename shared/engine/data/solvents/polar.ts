@@ -47,6 +47,7 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     antoine: [
       antoine('log10-bar-K', 3.93068, 1337.716, -82.648, 303, 363, read('nist-webbook-antoine', 'as converted in reference-data.md §C from the data file (ln P/Pa, T/K); valid 30–90 °C; extrapolates Tb to 150.3 °C')),
     ],
+    enthalpyVapKJmol: sv(39.5, read('perry-8e-2-150-hvap', 'computed at Tb = 425.95 K from Tc = 649.6 K, C1 = 59217 J/mol, C2 = 0.37996 (ΔH = C1 (1 − Tr)^(C2 + C3 Tr + C4 Tr²)), 3 significant figures; the CRC table read gives only the 25 °C value')),
     hansen: sv({ d: 17.4, p: 13.7, h: 11.3 }, read('hansen-hspipy')),
     molarVolumeCm3mol: sv(77.4, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 72: 1 }, read('unifac-groups', 'whole-molecule subgroup of the original table')),

@@ -263,6 +263,7 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     antoine: [
       antoine('log10-bar-degC', 3.90225, 1274.8, 131.99, 368.8, 495.15, read('poling-5e-antoine', 'data file stores log10(P/Pa) with T/K; converted A − 5, C + 273.15')),
     ],
+    enthalpyVapKJmol: sv(47.8, read('perry-8e-2-150-hvap', 'computed at Tb = 467.85 K from Tc = 652.3 K, C1 = 72468 J/mol, C2 = −1.2464, C3 = 3.6797, C4 = −2.0665 (ΔH = C1 (1 − Tr)^(C2 + C3 Tr + C4 Tr²)), 3 significant figures; the CRC table read gives only the 25 °C value')),
     hansen: sv({ d: 16, p: 5, h: 11.9 }, read('hansen-hspipy', 'newer HSPiP revision: δH 11.2')),
     molarVolumeCm3mol: sv(157.6, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 1: 1, 2: 7, 14: 1 }, ASSIGNED),
