@@ -15,7 +15,7 @@ export { SOURCES, isSourceId } from './sources';
 export type { SourceEntry, SourceId } from './sources';
 
 /** Bumped whenever a number, a source or a record changes. */
-export const SOLVENT_DATA_VERSION = '1.0.0';
+export const SOLVENT_DATA_VERSION = '1.1.0';
 
 /**
  * Other common writings of the library solvents' SMILES (no cheminformatics:
