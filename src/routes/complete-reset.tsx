@@ -26,7 +26,8 @@ export function Component() {
     complete.mutate(input, {
       onError: (error) => {
         // A mistyped, used or expired link: say so plainly instead of naming the URL part.
-        const badLink = isApiError(error) && (error.status === 404 || error.status === 410 || 'token' in error.fieldErrors());
+        // A malformed token is refused as a URL part, reported under `params.token`.
+        const badLink = isApiError(error) && (error.status === 404 || error.status === 410 || 'params.token' in error.fieldErrors());
         if (badLink) form.setFormError('This reset link is not valid any more: it may have been used already, mistyped or expired.');
         else form.showServerError(error);
       },
