@@ -3,6 +3,7 @@ import { useState, type ReactNode } from 'react';
 import type { Session } from '@shared/schemas/session';
 import { configureApiClient, isApiError } from '@/api/client';
 import { sessionQueryKey } from '@/features/auth/api/get-session';
+import { markSessionEnded } from '@/features/auth/session-end';
 import { Toaster } from '@/components/toaster';
 import { AppErrorBoundary } from './error-boundary';
 
@@ -21,7 +22,8 @@ export function createQueryClient() {
     getCsrfToken: () => queryClient.getQueryData<Session | null>(sessionQueryKey)?.csrfToken,
     onUnauthorized: () => {
       // The session ended (idle timeout, signed out elsewhere): forget it, and
-      // the guard sends the person to sign in.
+      // the guard sends the person to sign in, where they are told why.
+      if (queryClient.getQueryData<Session | null>(sessionQueryKey)) markSessionEnded();
       queryClient.setQueryData(sessionQueryKey, null);
     },
   });

@@ -2,6 +2,7 @@ import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { signInSchema } from '@shared/schemas/session';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignIn } from '@/features/auth/api/sign-in';
+import { clearSessionEnd, useSessionEnd } from '@/features/auth/session-end';
 import { Button } from '@/components/button';
 import { TextField } from '@/components/text-field';
 import { FormMessage } from '@/components/error-state';
@@ -16,6 +17,7 @@ export function Component() {
   const signIn = useSignIn();
   const navigate = useNavigate();
   const form = useForm(signInSchema, { email: '', password: '' });
+  const sessionEnded = useSessionEnd((s) => s.reason === 'ended');
 
   if (session.isPending) return <Loading />;
   if (session.data && !signIn.isPending) return <Navigate to={next} replace />;
@@ -25,7 +27,10 @@ export function Component() {
     const input = form.validate();
     if (!input) return;
     signIn.mutate(input, {
-      onSuccess: () => navigate(next, { replace: true }),
+      onSuccess: () => {
+        clearSessionEnd();
+        navigate(next, { replace: true });
+      },
       onError: (error) => {
         form.showServerError(error);
         form.setField('password', '');
@@ -37,6 +42,11 @@ export function Component() {
     <>
       <h1 className="text-heading font-semibold text-ink">Sign in</h1>
       <p className="mt-1 text-body text-ink-muted">Use the e-mail address your workspace admin invited.</p>
+      {sessionEnded ? (
+        <p role="status" className="mt-4 rounded-control border border-rule-strong bg-paper-sunken px-3 py-2 text-body text-ink">
+          Your session has ended. Sign in again to go back to where you were.
+        </p>
+      ) : null}
       <form noValidate onSubmit={submit} className="mt-5 space-y-4">
         {form.formError ? <FormMessage tone="error">{form.formError}</FormMessage> : null}
         <TextField

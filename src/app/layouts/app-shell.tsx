@@ -6,6 +6,7 @@ import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { canViewOutbox } from '@/features/auth/abilities';
 import { lastWorkspace } from '@/features/auth/last-workspace';
+import { useSessionEnd } from '@/features/auth/session-end';
 import { WorkspaceSwitcher } from '@/features/auth/components/workspace-switcher';
 import { Logo } from '@/components/logo';
 import { Loading } from '@/components/spinner';
@@ -18,6 +19,7 @@ import { toast } from '@/stores/toasts';
 export function Component() {
   const session = useSession();
   const location = useLocation();
+  const signedOut = useSessionEnd((s) => s.reason === 'signed-out');
 
   if (session.isPending) return <Loading label="Checking your session…" className="justify-center pt-24" />;
   if (session.isError) {
@@ -28,7 +30,8 @@ export function Component() {
     );
   }
   if (!session.data) {
-    return <Navigate to={paths.signIn.to(location.pathname + location.search)} replace />;
+    // Someone who signed out starts afresh; anyone else comes back here after signing in.
+    return <Navigate to={paths.signIn.to(signedOut ? undefined : location.pathname + location.search)} replace />;
   }
   return <Shell session={session.data} />;
 }

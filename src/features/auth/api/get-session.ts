@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { sessionSchema, type Session } from '@shared/schemas/session';
 import { apiRequest, isApiError } from '@/api/client';
 import { api } from '@/paths';
+import { markSessionEnded } from '../session-end';
 
 export const sessionQueryKey = ['session'] as const;
 
@@ -18,7 +19,12 @@ export async function getSession(signal?: AbortSignal): Promise<Session | null> 
 export const getSessionQueryOptions = () =>
   queryOptions({
     queryKey: sessionQueryKey,
-    queryFn: ({ signal }) => getSession(signal),
+    queryFn: async ({ signal, client }) => {
+      const session = await getSession(signal);
+      // Signed in a moment ago, signed out now: the session ended on the server.
+      if (!session && client.getQueryData<Session | null>(sessionQueryKey)) markSessionEnded();
+      return session;
+    },
     staleTime: 60_000,
   });
 

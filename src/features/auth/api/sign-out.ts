@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 import { sessionQueryKey } from './get-session';
+import { markSignedOut } from '../session-end';
 
 export const signOut = () => apiRequest(api.session, { method: 'DELETE', ignoreUnauthorized: true });
 
@@ -10,6 +11,7 @@ export const useSignOut = () => {
   return useMutation({
     mutationFn: signOut,
     onSettled: () => {
+      markSignedOut();
       queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] });
       queryClient.setQueryData(sessionQueryKey, null);
     },

@@ -4,6 +4,7 @@ import { sessionSchema } from '@shared/schemas/session';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 import { sessionQueryKey } from '@/features/auth/api/get-session';
+import { clearSessionEnd } from '@/features/auth/session-end';
 
 /** Joins the workspace; the reply is the new session (the person is signed in). */
 export const acceptInvitation = (token: string, input: AcceptInvitationInput) =>
@@ -17,6 +18,7 @@ export const useAcceptInvitation = (token: string) => {
       // Forget what an earlier session loaded. The invitation itself stays: the
       // page still shows it while navigating, and refetching a used one answers 410.
       queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] && q.queryKey[0] !== 'invitations' });
+      clearSessionEnd();
       queryClient.setQueryData(sessionQueryKey, session);
     },
   });
