@@ -55,7 +55,9 @@ export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(s
       const unplaced = Object.entries(fields)
         .filter(([k]) => !known.includes(k))
         .map(([k, m]) => (k ? `${k}: ${m}` : m));
-      setFormError([error.message, ...unplaced].join(' '));
+      // When every problem sits on its field, the fields say it all; a generic
+      // "Some fields are not valid." above them would only repeat it vaguely.
+      setFormError(known.length > 0 && unplaced.length === 0 ? undefined : [error.message, ...unplaced].join(' '));
     } else {
       setFormError(error instanceof Error ? error.message : 'Something went wrong. Try again.');
     }

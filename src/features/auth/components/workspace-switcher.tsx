@@ -22,6 +22,8 @@ export function WorkspaceSwitcher({ workspaces, currentId }: { workspaces: Sessi
     <Select
       label="Workspace"
       value={current.id}
+      // A long name is cut off in the narrow rail; the tooltip shows all of it.
+      title={current.name}
       options={workspaces.map((w) => ({ value: w.id, label: w.name }))}
       onValueChange={(id) => {
         const prefix = `/w/${encodeURIComponent(current.id)}`;
