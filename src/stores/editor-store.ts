@@ -27,7 +27,9 @@ export interface EditorState {
   clipboard: Clip | null;
   /** A short note for the last refused action (e.g. a connection that does not fit). */
   notice: string | null;
-  load: (doc: EditorDoc) => void;
+  /** Set for people who may look at the route but not change it: every edit is refused. */
+  readOnly: boolean;
+  load: (doc: EditorDoc, options?: { readOnly?: boolean }) => void;
   replaceDocument: (doc: EditorDoc) => void;
   addStep: (kind: StepKind, position?: { x: number; y: number }) => string;
   updateStep: (stepId: string, path: ReadonlyArray<string | number>, value: unknown) => void;
@@ -49,6 +51,8 @@ export interface EditorState {
   redo: () => void;
   setNotice: (notice: string | null) => void;
 }
+
+export const READ_ONLY_NOTICE = 'You can look at this route but not change it.';
 
 let moveSnapshot: EditorDoc | null = null;
 let idCounter = 0;
@@ -79,7 +83,12 @@ function nextPosition(doc: EditorDoc, after?: StepInput): { x: number; y: number
 
 export const useEditorStore = create<EditorState>((set, get) => {
   /** Apply a change that belongs in the history. */
-  const commit = (next: EditorDoc, extra: Partial<EditorState> = {}, model = true) =>
+  const commit = (next: EditorDoc, extra: Partial<EditorState> = {}, model = true) => {
+    // The one place every edit passes, so no shortcut, paste or drag can slip past it.
+    if (get().readOnly) {
+      set({ notice: READ_ONLY_NOTICE });
+      return;
+    }
     set((s) => ({
       doc: next,
       past: [...s.past.slice(-HISTORY_LIMIT + 1), s.doc],
@@ -89,6 +98,7 @@ export const useEditorStore = create<EditorState>((set, get) => {
       notice: null,
       ...extra,
     }));
+  };
 
   return {
     doc: emptyDoc,
@@ -99,8 +109,19 @@ export const useEditorStore = create<EditorState>((set, get) => {
     selection: { steps: [], connections: [] },
     clipboard: null,
     notice: null,
+    readOnly: false,
 
-    load: (doc) => set((s) => ({ doc, past: [], future: [], selection: { steps: [], connections: [] }, modelRevision: s.modelRevision + 1, docRevision: 0, notice: null })),
+    load: (doc, options) =>
+      set((s) => ({
+        doc,
+        past: [],
+        future: [],
+        selection: { steps: [], connections: [] },
+        modelRevision: s.modelRevision + 1,
+        docRevision: 0,
+        notice: null,
+        readOnly: options?.readOnly ?? false,
+      })),
     replaceDocument: (doc) => commit(doc),
 
     addStep: (kind, position) => {
@@ -194,7 +215,9 @@ export const useEditorStore = create<EditorState>((set, get) => {
       moveSnapshot = get().doc;
     },
     moveSteps: (positions) =>
-      set((s) => ({ doc: { ...s.doc, steps: s.doc.steps.map((st) => (positions[st.id] ? { ...st, position: positions[st.id] } : st)) } })),
+      get().readOnly
+        ? undefined
+        : set((s) => ({ doc: { ...s.doc, steps: s.doc.steps.map((st) => (positions[st.id] ? { ...st, position: positions[st.id] } : st)) } })),
     endMove: () => {
       const before = moveSnapshot;
       moveSnapshot = null;

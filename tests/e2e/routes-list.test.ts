@@ -93,6 +93,16 @@ describe('routes list', () => {
     await page.getByRole('link', { name: DEMO_ROUTE_NAME }).click();
     await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
     await page.getByText('Read only — you can look but not change this route').waitFor();
+    // Nothing offers a change: no step list to add from, a greyed-out settings form, no tidy-up.
+    await expect(page.getByRole('navigation', { name: 'Add a step' }).count()).resolves.toBe(0);
+    await expect(page.getByRole('button', { name: 'Tidy layout' }).isDisabled()).resolves.toBe(true);
+    await page.locator('.react-flow__node').first().click();
+    await expect(page.getByLabel('Step name').isEditable()).resolves.toBe(false);
+    // A keyboard edit is refused with a plain note, and the route keeps its steps.
+    const steps = await page.locator('.react-flow__node').count();
+    await page.keyboard.press('Delete');
+    await expect(page.locator('.react-flow__node').count()).resolves.toBe(steps);
+    await shot('routes-05-reviewer-editor');
     expect(flows.browser.problems).toEqual([]);
   });
 });

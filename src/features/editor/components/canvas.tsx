@@ -31,6 +31,7 @@ export function Canvas() {
     useShallow((s) => ({ steps: s.doc.steps, connections: s.doc.connections, components: s.doc.components, selection: s.selection })),
   );
   const actions = useEditorStore.getState();
+  const readOnly = useEditorStore((s) => s.readOnly);
   const flow = useReactFlow();
 
   // A setting's edit changes one step: the other cards keep their node objects, so the canvas
@@ -171,6 +172,8 @@ export function Canvas() {
         onConnect={onConnect}
         isValidConnection={isValidConnection}
         deleteKeyCode={null}
+        nodesDraggable={!readOnly}
+        nodesConnectable={!readOnly}
         multiSelectionKeyCode={['Shift', 'Meta', 'Control']}
         selectionKeyCode="Shift"
         snapToGrid

@@ -30,10 +30,10 @@ export default function RouteEditor({ workspaceId, route }: { workspaceId: strin
   const start = useMemo(() => initialDocument(route.id, route.draft), [route.id, route.draft]);
   const [ready, setReady] = useState(false);
   useEffect(() => {
-    useEditorStore.getState().load(start.doc);
+    useEditorStore.getState().load(start.doc, { readOnly: !route.abilities.edit });
     setReady(true);
     return () => resetEvaluation();
-  }, [start]);
+  }, [start, route.abilities.edit]);
   if (!ready) return null;
   return (
     <ReactFlowProvider>
@@ -183,7 +183,7 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
         <div className="ml-auto flex items-center gap-1">
           <Button size="sm" variant="secondary" onClick={() => useEditorStore.getState().undo()} disabled={!past} aria-keyshortcuts="Control+Z">Undo</Button>
           <Button size="sm" variant="secondary" onClick={() => useEditorStore.getState().redo()} disabled={!future} aria-keyshortcuts="Control+Shift+Z">Redo</Button>
-          <Button size="sm" variant="secondary" onClick={() => { const st = useEditorStore.getState(); st.setPositions(autoLayout(st.doc)); requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 })); }} aria-keyshortcuts="L">Tidy layout</Button>
+          <Button size="sm" variant="secondary" disabled={!canEdit} onClick={() => { const st = useEditorStore.getState(); st.setPositions(autoLayout(st.doc)); requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 })); }} aria-keyshortcuts="L">Tidy layout</Button>
           <Button size="sm" variant="secondary" onClick={() => flow.fitView({ maxZoom: 1, padding: 0.2 })} aria-keyshortcuts="F">Fit view</Button>
           <Button size="sm" variant="quiet" onClick={() => setHelp((h) => !h)} aria-expanded={help} aria-keyshortcuts="?">Shortcuts</Button>
         </div>
@@ -196,7 +196,7 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
       ) : null}
       {restored ? <p role="status" className="border-b border-rule bg-phase-aqueous-soft px-4 py-1.5 text-small text-phase-aqueous-deep">Unsaved edits from this computer were restored and are being saved.</p> : null}
       <div className="flex min-h-0 flex-1">
-        <Palette />
+        {canEdit ? <Palette /> : null}
         <div className="relative min-w-0 flex-1" ref={canvasBox}>
           <Canvas />
           {stepCount === 0 ? (
@@ -244,7 +244,10 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
               selected ? (
                 <>
                   <h2 className="mb-2 text-title font-medium">{KINDS[selected.kind].label}: {selected.name}</h2>
-                  <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
+                  {/* A disabled fieldset greys out every field for people who may only look. */}
+                  <fieldset disabled={!canEdit} className="min-w-0">
+                    <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
+                  </fieldset>
                   <StepPlot key={`plot-${selected.id}`} step={selected} />
                 </>
               ) : (
