@@ -1,28 +1,24 @@
-import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { completeResetSchema } from '@shared/schemas/password-reset';
 import { isApiError } from '@/api/client';
 import { useCompleteReset } from '@/features/password-reset/api/complete-reset';
 import { Button, ButtonLink } from '@/components/button';
-import { TextField } from '@/components/text-field';
+import { NewPasswordFields, useRepeatedPassword } from '@/features/auth/components/new-password-fields';
 import { FormMessage } from '@/components/error-state';
 import { useForm } from '@/lib/use-form';
-import { PASSWORD_MIN_LENGTH } from '@shared/schemas/limits';
 import { paths } from '@/paths';
 
 export function Component() {
   const { token = '' } = useParams();
   const complete = useCompleteReset(token);
   const form = useForm(completeResetSchema, { password: '' });
-  const [repeat, setRepeat] = useState('');
-  const [repeatError, setRepeatError] = useState<string>();
+  const repeat = useRepeatedPassword();
 
   const submit = (e: React.FormEvent) => {
     e.preventDefault();
     const input = form.validate();
-    const mismatch = repeat !== form.values.password ? 'The two passwords differ.' : undefined;
-    setRepeatError(mismatch);
-    if (!input || mismatch) return;
+    const repeated = repeat.matches(form.values.password);
+    if (!input || !repeated) return;
     complete.mutate(input, {
       onError: (error) => {
         // A mistyped, used or expired link: say so plainly instead of naming the URL part.
@@ -61,26 +57,12 @@ export function Component() {
             </Link>
           </FormMessage>
         ) : null}
-        <TextField
-          label="New password"
-          type="password"
-          autoComplete="new-password"
+        <NewPasswordFields
           autoFocus
-          hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-          value={form.values.password}
-          onValueChange={(v) => form.setField('password', v)}
-          error={form.errors.password}
-        />
-        <TextField
-          label="Repeat new password"
-          type="password"
-          autoComplete="new-password"
-          value={repeat}
-          onValueChange={(v) => {
-            setRepeat(v);
-            setRepeatError(undefined);
-          }}
-          error={repeatError}
+          password={form.values.password}
+          onPasswordChange={(v) => form.setField('password', v)}
+          passwordError={form.errors.password}
+          repeat={repeat}
         />
         <Button type="submit" className="w-full" busy={complete.isPending}>
           Set new password

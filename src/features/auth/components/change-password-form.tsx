@@ -1,30 +1,28 @@
 import { useState } from 'react';
 import { changePasswordSchema } from '@shared/schemas/session';
-import { PASSWORD_MIN_LENGTH } from '@shared/schemas/limits';
 import { useChangePassword } from '../api/change-password';
 import { Button } from '@/components/button';
 import { TextField } from '@/components/text-field';
 import { FormMessage } from '@/components/error-state';
+import { NewPasswordFields, useRepeatedPassword } from './new-password-fields';
 import { useForm } from '@/lib/use-form';
 
 export function ChangePasswordForm() {
   const change = useChangePassword();
   const form = useForm(changePasswordSchema, { currentPassword: '', newPassword: '' });
-  const [repeat, setRepeat] = useState('');
-  const [repeatError, setRepeatError] = useState<string>();
+  const repeat = useRepeatedPassword();
   const [done, setDone] = useState(false);
 
   const submit = (e: React.FormEvent) => {
     e.preventDefault();
     setDone(false);
     const input = form.validate();
-    const mismatch = repeat !== form.values.newPassword ? 'The two new passwords differ.' : undefined;
-    setRepeatError(mismatch);
-    if (!input || mismatch) return;
+    const repeated = repeat.matches(form.values.newPassword);
+    if (!input || !repeated) return;
     change.mutate(input, {
       onSuccess: () => {
         form.reset();
-        setRepeat('');
+        repeat.clear();
         setDone(true);
       },
       onError: form.showServerError,
@@ -43,25 +41,11 @@ export function ChangePasswordForm() {
         onValueChange={(v) => form.setField('currentPassword', v)}
         error={form.errors.currentPassword}
       />
-      <TextField
-        label="New password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-        value={form.values.newPassword}
-        onValueChange={(v) => form.setField('newPassword', v)}
-        error={form.errors.newPassword}
-      />
-      <TextField
-        label="Repeat new password"
-        type="password"
-        autoComplete="new-password"
-        value={repeat}
-        onValueChange={(v) => {
-          setRepeat(v);
-          setRepeatError(undefined);
-        }}
-        error={repeatError}
+      <NewPasswordFields
+        password={form.values.newPassword}
+        onPasswordChange={(v) => form.setField('newPassword', v)}
+        passwordError={form.errors.newPassword}
+        repeat={repeat}
       />
       <Button type="submit" busy={change.isPending}>
         Change password
