@@ -101,7 +101,7 @@ export const SOURCES = {
   },
   'hansen-diaz-2022': {
     citation:
-      'M. Díaz de los Ríos, E. Murcia Belmonte, SN Applied Sciences 2022, 4, 185 (HSPiP-derived data set)',
+      'M. Díaz de los Ríos, E. Murcia Belmonte, SN Applied Sciences 2022, 4, 185 (data set derived from the published Hansen parameter tables)',
     via: 'CalebBell/chemicals: chemicals/Misc/ruben_manuel_hansen_solubility_parameters.tsv (Pa^0.5)',
   },
   'unifac-groups': {
