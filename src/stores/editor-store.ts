@@ -72,13 +72,23 @@ function withComponents(doc: EditorDoc, needs: ComponentInput[]): EditorDoc {
   return add.length ? { ...doc, components: [...doc.components, ...add] } : doc;
 }
 
-/** A free place for a new card: right of the rightmost card, or below the selection's source. */
+/** Room a card takes on the canvas, with a margin [px]; used to keep new cards off existing ones. */
+const CARD_FOOTPRINT = { width: 300, height: 200 };
+
+/** A free place for a new card: right of the step it follows (or of the rightmost card), moved down until no card is there. */
 function nextPosition(doc: EditorDoc, after?: StepInput): { x: number; y: number } {
-  if (after?.position) return { x: after.position.x + 340, y: after.position.y };
-  if (!doc.steps.length) return { x: 80, y: 120 };
-  const maxX = Math.max(...doc.steps.map((s) => s.position?.x ?? 0));
-  const at = doc.steps.find((s) => (s.position?.x ?? 0) === maxX);
-  return { x: maxX + 340, y: at?.position?.y ?? 120 };
+  let candidate: { x: number; y: number };
+  if (after?.position) candidate = { x: after.position.x + 340, y: after.position.y };
+  else if (!doc.steps.length) return { x: 80, y: 120 };
+  else {
+    const maxX = Math.max(...doc.steps.map((s) => s.position?.x ?? 0));
+    const at = doc.steps.find((s) => (s.position?.x ?? 0) === maxX);
+    candidate = { x: maxX + 340, y: at?.position?.y ?? 120 };
+  }
+  const taken = (p: { x: number; y: number }) =>
+    doc.steps.some((s) => s.position && Math.abs(s.position.x - p.x) < CARD_FOOTPRINT.width && Math.abs(s.position.y - p.y) < CARD_FOOTPRINT.height);
+  for (let tries = 0; tries < 50 && taken(candidate); tries++) candidate = { x: candidate.x, y: candidate.y + CARD_FOOTPRINT.height + 20 };
+  return candidate;
 }
 
 export const useEditorStore = create<EditorState>((set, get) => {

@@ -34,3 +34,19 @@ describe('editor store', () => {
     expect(useEditorStore.getState().doc.steps).toHaveLength(1);
   });
 });
+
+describe('placing a new step', () => {
+  it('puts it right of the selected step, or below when a card already stands there', () => {
+    const store = useEditorStore.getState();
+    store.load(emptyRoute);
+    const first = store.addStep('charge');
+    const second = useEditorStore.getState().addStep('wash');
+    const at = (id: string) => useEditorStore.getState().doc.steps.find((s) => s.id === id)!.position!;
+    expect(at(second).x).toBeGreaterThan(at(first).x);
+    // Add another step after the first one: the place right of it is taken by the second.
+    useEditorStore.getState().select({ steps: [first] });
+    const third = useEditorStore.getState().addStep('wash');
+    expect(at(third).x).toBe(at(second).x);
+    expect(at(third).y).toBeGreaterThan(at(second).y);
+  });
+});

@@ -5,6 +5,7 @@ import { keyOf, type StepInput } from '../document';
 import { useSweep } from '../sweep';
 import { Chart, PLOT, axisStyle, baseOption } from '../charts/chart';
 import { componentLabel } from './fields';
+import { formatFactor } from '@/lib/format';
 
 type ProfilePoint = { distillateL: number; potTemperatureC: number; originalSolventWtPct: number; pressureMbar: number };
 
@@ -203,7 +204,7 @@ export function PurgePlot() {
           type: 'bar',
           barMaxWidth: 14,
           data: rows.map((r) => ({ value: r.factor ?? cap, itemStyle: r.factor === null ? { color: PLOT.aqueous, decal: { symbol: 'rect', dashArrayX: [1, 0], dashArrayY: [2, 3], rotation: -0.8 } } : { color: PLOT.accent } })),
-          label: { show: true, position: 'right', fontSize: 10, color: PLOT.ink, formatter: (p: { dataIndex: number }) => (rows[p.dataIndex].factor === null ? 'all purged' : `${fmt(rows[p.dataIndex].factor!, rows[p.dataIndex].factor! < 10 ? 1 : 0)}×`) },
+          label: { show: true, position: 'right', fontSize: 10, color: PLOT.ink, formatter: (p: { dataIndex: number }) => (rows[p.dataIndex].factor === null ? 'all purged' : `${formatFactor(rows[p.dataIndex].factor)}×`) },
         },
       ],
     };

@@ -6,6 +6,7 @@ import { useEditorStore } from '@/stores/editor-store';
 import { keyOf } from '../document';
 import { useJob, useStartMonteCarlo } from '../api/monte-carlo';
 import { componentLabel } from './fields';
+import { formatFactor } from '@/lib/format';
 
 const inputCls = 'w-full rounded-control border border-rule-strong bg-paper-raised px-2 py-1 text-body tabular-nums focus:outline-2 focus:outline-accent';
 
@@ -84,6 +85,7 @@ export function UncertaintyPanel() {
       {result ? (
         <>
           {run && run.revision !== revision ? <p className="text-caption text-caution-advisory-deep">The route has changed since this run; run it again to see the bands for the route as it is now.</p> : null}
+          <div className="overflow-x-auto">
           <table className="w-full border-collapse text-left text-caption tabular-nums" aria-label="Uncertainty bands">
             <thead>
               <tr className="bg-paper-sunken text-ink-muted">
@@ -96,6 +98,7 @@ export function UncertaintyPanel() {
               {Object.entries(result.purgeFactor).map(([id, p]) => <BandRow key={id} label={`Purge of ${names.get(id) ?? id}`} p={p} scale="log" suffix="×" />)}
             </tbody>
           </table>
+          </div>
           <p className="text-caption text-ink-muted">
             {result.draws} draws, seed {result.seed}{result.failedDraws ? `; ${result.failedDraws} draws could not be evaluated` : ''}. A blank purge means that impurity is purged completely in most draws. {result.processSafetyNote}
           </p>
@@ -107,7 +110,7 @@ export function UncertaintyPanel() {
 
 /** One quantity's p5/p50/p95 with a band: the p5–p95 range as a bar, the median as a tick. */
 function BandRow({ label, p, scale, suffix = '' }: { label: string; p: Percentiles; scale: 'linear' | 'log'; suffix?: string }) {
-  const f = (v: number | null) => (v === null ? '—' : `${v >= 100 ? v.toFixed(0) : v.toFixed(1)}${suffix}`);
+  const f = (v: number | null) => (v === null ? '—' : scale === 'log' ? `${formatFactor(v)}${suffix}` : `${v >= 100 ? v.toFixed(0) : v.toFixed(1)}${suffix}`);
   const pos = (v: number) => (scale === 'linear' ? Math.min(100, Math.max(0, v)) : Math.min(100, Math.max(0, (100 * Math.log10(Math.max(1, v))) / 4)));
   const band = p.p5 !== null && p.p95 !== null && p.p50 !== null;
   return (
