@@ -95,7 +95,12 @@ export function UncertaintyPanel() {
             <tbody>
               <BandRow label="Yield %" p={result.yieldPct} scale="linear" />
               <BandRow label="Purity wt %" p={result.purityWtPct} scale="linear" />
-              {Object.entries(result.purgeFactor).map(([id, p]) => <BandRow key={id} label={`Purge of ${names.get(id) ?? id}`} p={p} scale="log" suffix="×" />)}
+              {Object.keys(result.purgeFactor).length ? (
+                <tr>
+                  <th scope="rowgroup" colSpan={5} className="border-b border-rule px-2 pb-0.5 pt-2 text-left font-medium text-ink-muted">Purge factor of</th>
+                </tr>
+              ) : null}
+              {Object.entries(result.purgeFactor).map(([id, p]) => <BandRow key={id} label={names.get(id) ?? id} p={p} scale="log" suffix="×" />)}
             </tbody>
           </table>
           </div>
@@ -115,10 +120,10 @@ function BandRow({ label, p, scale, suffix = '' }: { label: string; p: Percentil
   const band = p.p5 !== null && p.p95 !== null && p.p50 !== null;
   return (
     <tr className="border-b border-rule">
-      <th scope="row" className="max-w-32 truncate px-2 py-1 font-normal" title={label}>{label}</th>
-      <td className="px-2 py-1">{f(p.p5)}</td>
-      <td className="px-2 py-1 font-medium">{f(p.p50)}</td>
-      <td className="px-2 py-1">{f(p.p95)}</td>
+      <th scope="row" className="max-w-36 px-2 py-1 font-normal" title={label}>{label}</th>
+      <td className="whitespace-nowrap px-2 py-1">{f(p.p5)}</td>
+      <td className="whitespace-nowrap px-2 py-1 font-medium">{f(p.p50)}</td>
+      <td className="whitespace-nowrap px-2 py-1">{f(p.p95)}</td>
       <td className="w-24 px-2 py-1">
         {band ? (
           <span className="relative block h-2 rounded-full bg-paper-sunken" aria-hidden="true">
