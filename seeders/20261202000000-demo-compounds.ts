@@ -5,7 +5,7 @@ import type { CompoundCreateInput } from '@shared/schemas/compounds';
 import { DEMO_WORKSPACES } from './data/demo-accounts';
 
 import type { CompoundSnapshot } from '@shared/schemas/route';
-import { demoAmideIsolation } from '../tests/fixtures/routes/demo-amide-isolation';
+import { demoAmideIsolation } from './data/demo-route';
 
 const INVENTED = 'Invented demo compound: the structure is used for illustration and every entered value is invented, not measured.';
 

@@ -2,7 +2,7 @@ import type { MigrationContext } from '../server/db/migrator';
 import { Route, User, Workspace } from '../server/models';
 import { createRoute } from '../server/services/routes';
 import type { DraftDocument } from '@shared/schemas/routes';
-import demoRoute from '../tests/fixtures/routes/demo-amide-isolation.json';
+import { demoAmideIsolation as demoRoute } from './data/demo-route';
 import { DEMO_WORKSPACES } from './data/demo-accounts';
 
 /** Project of the demo route; invented, like every compound in the route. */
