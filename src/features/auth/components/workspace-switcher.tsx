@@ -1,6 +1,7 @@
 import { useLocation, useNavigate } from 'react-router-dom';
 import type { SessionWorkspace } from '@shared/schemas/session';
 import { Select } from '@/components/select';
+import { rememberWorkspace } from '../last-workspace';
 
 /** Picks the workspace; keeps the same section (members, compounds ...) when switching. */
 export function WorkspaceSwitcher({ workspaces, currentId }: { workspaces: SessionWorkspace[]; currentId: string | undefined }) {
@@ -28,6 +29,9 @@ export function WorkspaceSwitcher({ workspaces, currentId }: { workspaces: Sessi
       onValueChange={(id) => {
         const prefix = `/w/${encodeURIComponent(current.id)}`;
         const rest = location.pathname.startsWith(prefix) ? location.pathname.slice(prefix.length) : '';
+        // Remembered now, not in the next page's effect: "/" opened right after
+        // the switch must already find the new choice.
+        rememberWorkspace(id);
         navigate(`/w/${encodeURIComponent(id)}${rest}`);
       }}
       className="[&_label]:text-caption [&_label]:font-normal [&_label]:text-ink-faint"
