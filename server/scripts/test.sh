@@ -20,6 +20,9 @@ trap 'exit 130' INT TERM
 log "type-check"
 npm run --silent typecheck || exit 1
 
+log "format check (prettier)"
+npm run --silent format:check || { log "run 'npm run format' to fix the files listed above"; exit 1; }
+
 log "lint"
 npm run --silent lint || exit 1
 
