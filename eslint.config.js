@@ -16,14 +16,20 @@ export default tseslint.config(
   },
   {
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
     },
   },
   {
     // The engine stays pure: no I/O, no database, no DOM.
     files: ['shared/engine/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: ['node:*', 'fs', 'path', 'sequelize', 'pg', 'express', 'react'] }],
+      'no-restricted-imports': [
+        'error',
+        { patterns: ['node:*', 'fs', 'path', 'sequelize', 'pg', 'express', 'react'] },
+      ],
       'no-restricted-globals': ['error', 'window', 'document', 'fetch', 'localStorage'],
     },
   },

@@ -30,7 +30,11 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
-          include: ['tests/unit/**/*.test.ts', 'tests/reference/**/*.test.ts', 'shared/**/*.test.ts'],
+          include: [
+            'tests/unit/**/*.test.ts',
+            'tests/reference/**/*.test.ts',
+            'shared/**/*.test.ts',
+          ],
           environment: 'node',
         },
       },

@@ -128,7 +128,11 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
   });
 }
 
-export async function down({ context: { sequelize } }: { context: MigrationContext }): Promise<void> {
+export async function down({
+  context: { sequelize },
+}: {
+  context: MigrationContext;
+}): Promise<void> {
   await sequelize.query(`
     DROP TABLE IF EXISTS session, audit_events, outbox_messages, api_tokens, password_resets, invitations,
       memberships, workspaces, users CASCADE;

@@ -39,6 +39,10 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
   });
 }
 
-export async function down({ context: { sequelize } }: { context: MigrationContext }): Promise<void> {
+export async function down({
+  context: { sequelize },
+}: {
+  context: MigrationContext;
+}): Promise<void> {
   await sequelize.query('DROP TABLE IF EXISTS compounds;');
 }

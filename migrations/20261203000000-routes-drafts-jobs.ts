@@ -63,6 +63,12 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
   });
 }
 
-export async function down({ context: { sequelize } }: { context: MigrationContext }): Promise<void> {
-  await sequelize.query('DROP TABLE IF EXISTS evaluation_jobs, route_drafts, routes, projects CASCADE;');
+export async function down({
+  context: { sequelize },
+}: {
+  context: MigrationContext;
+}): Promise<void> {
+  await sequelize.query(
+    'DROP TABLE IF EXISTS evaluation_jobs, route_drafts, routes, projects CASCADE;',
+  );
 }

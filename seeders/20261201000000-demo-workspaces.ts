@@ -14,7 +14,11 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
   await sequelize.transaction(async (transaction) => {
     const workspaceIds = new Map<string, string>();
     for (const ws of DEMO_WORKSPACES) {
-      const [workspace] = await Workspace.findOrCreate({ where: { slug: ws.slug }, defaults: { name: ws.name, slug: ws.slug }, transaction });
+      const [workspace] = await Workspace.findOrCreate({
+        where: { slug: ws.slug },
+        defaults: { name: ws.name, slug: ws.slug },
+        transaction,
+      });
       workspaceIds.set(ws.key, workspace.id);
     }
     for (const account of DEMO_ACCOUNTS) {
@@ -25,7 +29,11 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       });
       await Membership.findOrCreate({
         where: { userId: user.id, workspaceId: workspaceIds.get(account.workspace)! },
-        defaults: { userId: user.id, workspaceId: workspaceIds.get(account.workspace)!, roles: account.roles },
+        defaults: {
+          userId: user.id,
+          workspaceId: workspaceIds.get(account.workspace)!,
+          roles: account.roles,
+        },
         transaction,
       });
     }

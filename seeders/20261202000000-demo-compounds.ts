@@ -7,7 +7,8 @@ import { DEMO_WORKSPACES } from './data/demo-accounts';
 import type { CompoundSnapshot } from '@shared/schemas/route';
 import { demoAmideIsolation } from './data/demo-route';
 
-const INVENTED = 'Invented demo compound: the structure is used for illustration and every entered value is invented, not measured.';
+const INVENTED =
+  'Invented demo compound: the structure is used for illustration and every entered value is invented, not measured.';
 
 function toCreateInput(c: CompoundSnapshot): CompoundCreateInput {
   return {
@@ -41,9 +42,15 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
     if (!workspace) return;
     const chemist = await User.findOne({ where: { email: 'chemist@example.com' }, transaction });
     for (const input of DEMO_COMPOUNDS) {
-      const existing = await Compound.findOne({ where: { workspaceId: workspace.id, name: input.name }, transaction });
+      const existing = await Compound.findOne({
+        where: { workspaceId: workspace.id, name: input.name },
+        transaction,
+      });
       if (existing) continue;
-      await createCompound({ workspaceId: workspace.id, actorId: chemist?.id ?? null, input }, transaction);
+      await createCompound(
+        { workspaceId: workspace.id, actorId: chemist?.id ?? null, input },
+        transaction,
+      );
     }
   });
 }

@@ -23,7 +23,10 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
     const workspace = await Workspace.findOne({ where: { slug: demo.slug }, transaction });
     const chemist = await User.findOne({ where: { email: 'chemist@example.com' }, transaction });
     if (!workspace || !chemist) return;
-    const existing = await Route.findOne({ where: { workspaceId: workspace.id, name: DEMO_ROUTE_NAME }, transaction });
+    const existing = await Route.findOne({
+      where: { workspaceId: workspace.id, name: DEMO_ROUTE_NAME },
+      transaction,
+    });
     if (existing) return;
     await createRoute(
       {

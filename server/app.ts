@@ -79,12 +79,20 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
 
   const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  const store = new PgStore({
+    pool: sessionPool,
+    tableName: 'session',
+    createTableIfMissing: false,
+    pruneSessionInterval: 15 * 60,
+  });
   const passport = configurePassport();
 
   const api = express.Router();
   // Route documents (up to a few hundred steps) get a larger limit than other bodies.
-  api.use(['/evaluate', '/workspaces/:workspaceId/routes'], express.json({ limit: ROUTE_JSON_BODY_LIMIT }));
+  api.use(
+    ['/evaluate', '/workspaces/:workspaceId/routes'],
+    express.json({ limit: ROUTE_JSON_BODY_LIMIT }),
+  );
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
   api.use(
     session({
@@ -95,7 +103,12 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
       saveUninitialized: false,
       // Every request pushes expiry forward: the session ends after SESSION_IDLE_MINUTES of inactivity.
       rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: config.sessionIdleMinutes * 60_000 },
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: 'auto',
+        maxAge: config.sessionIdleMinutes * 60_000,
+      },
     }),
   );
   api.use(passport.initialize());
@@ -127,7 +140,10 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   const staticDir = path.resolve(config.staticDir);
   const indexHtml = path.join(staticDir, 'index.html');
   // Hashed asset names change with their content, so they may be cached for long.
-  app.use('/assets', express.static(path.join(staticDir, 'assets'), { immutable: true, maxAge: '365d' }));
+  app.use(
+    '/assets',
+    express.static(path.join(staticDir, 'assets'), { immutable: true, maxAge: '365d' }),
+  );
   // A missing asset must not fall back to index.html (the browser would parse HTML as a script).
   app.use('/assets', (_req, res) => {
     res.status(404).type('text/plain').send('Not found');
@@ -135,7 +151,10 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   app.use(express.static(staticDir, { index: false }));
   app.get('/{*splat}', (_req, res) => {
     if (!existsSync(indexHtml)) {
-      res.status(503).type('text/plain').send('The client is not built yet: run `npm run build` (npm start does it).');
+      res
+        .status(503)
+        .type('text/plain')
+        .send('The client is not built yet: run `npm run build` (npm start does it).');
       return;
     }
     res.set('Cache-Control', 'no-cache').sendFile(indexHtml);

@@ -32,12 +32,20 @@ describe('loadConfig', () => {
       'SESSION_SECRET: SESSION_SECRET is required in production.',
       'PHASEWRIGHT_SEED_DEMO: The demo data is never seeded in production.',
     ]);
-    const production = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'a-long-enough-production-secret' });
+    const production = loadConfig({
+      NODE_ENV: 'production',
+      SESSION_SECRET: 'a-long-enough-production-secret',
+    });
     expect(production.outboxEnabled).toBe(false);
   });
 
   it('reads numbers, trust proxy and the public URL from the environment', () => {
-    const config = loadConfig({ PORT: '3999', TRUST_PROXY: '2', APP_URL: 'https://phasewright.example.com/', SESSION_IDLE_MINUTES: '30' });
+    const config = loadConfig({
+      PORT: '3999',
+      TRUST_PROXY: '2',
+      APP_URL: 'https://phasewright.example.com/',
+      SESSION_IDLE_MINUTES: '30',
+    });
     expect(config.port).toBe(3999);
     expect(config.trustProxy).toBe(2);
     expect(config.appUrl).toBe('https://phasewright.example.com');

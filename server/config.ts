@@ -21,8 +21,16 @@ const envSchema = z
     PORT: z.coerce.number().int().min(0).max(65535).default(3000),
     APP_URL: z.url().optional(),
     DATABASE_URL: z.string().min(1).default('postgres://postgres@127.0.0.1:54329/phasewright'),
-    SESSION_SECRET: z.string().min(16, { message: 'SESSION_SECRET must be at least 16 characters.' }).optional(),
-    SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(60 * 24 * 30).default(120),
+    SESSION_SECRET: z
+      .string()
+      .min(16, { message: 'SESSION_SECRET must be at least 16 characters.' })
+      .optional(),
+    SESSION_IDLE_MINUTES: z.coerce
+      .number()
+      .int()
+      .min(1)
+      .max(60 * 24 * 30)
+      .default(120),
     TRUST_PROXY: trustProxyFromEnv.default(false),
     SMTP_URL: z.string().optional(),
     SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
@@ -35,7 +43,11 @@ const envSchema = z
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
-      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required in production.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['SESSION_SECRET'],
+        message: 'SESSION_SECRET is required in production.',
+      });
     }
     if (env.NODE_ENV === 'production' && env.PHASEWRIGHT_SEED_DEMO) {
       ctx.addIssue({
@@ -79,7 +91,9 @@ export class ConfigError extends Error {
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
   const parsed = envSchema.safeParse(env);
   if (!parsed.success) {
-    throw new ConfigError(parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`));
+    throw new ConfigError(
+      parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`),
+    );
   }
   const e = parsed.data;
   return {
@@ -97,7 +111,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     seedDemo: e.PHASEWRIGHT_SEED_DEMO,
     staticDir: e.STATIC_DIR,
     outboxEnabled: e.NODE_ENV !== 'production',
-    rateLimits: { signInPerWindow: e.SIGN_IN_RATE_LIMIT, resetPerWindow: e.RESET_RATE_LIMIT, windowMinutes: 15 },
+    rateLimits: {
+      signInPerWindow: e.SIGN_IN_RATE_LIMIT,
+      resetPerWindow: e.RESET_RATE_LIMIT,
+      windowMinutes: 15,
+    },
     jobPollSeconds: e.JOB_POLL_SECONDS,
   };
 }

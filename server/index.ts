@@ -15,10 +15,14 @@ async function main() {
   });
   const { port } = server.address() as AddressInfo;
   console.log(`Phasewright is running at http://${config.host}:${port}`);
-  if (runtime.smtpFake) console.log(`Mail goes to the built-in fake (${runtime.smtpFake.url}); read it on the Outbox page.`);
+  if (runtime.smtpFake)
+    console.log(
+      `Mail goes to the built-in fake (${runtime.smtpFake.url}); read it on the Outbox page.`,
+    );
   if (config.seedDemo) {
     console.log(`Demo sign-ins (password ${DEMO_PASSWORD}), invented data:`);
-    for (const account of DEMO_ACCOUNTS) console.log(`  ${account.email.padEnd(24)} ${account.description}`);
+    for (const account of DEMO_ACCOUNTS)
+      console.log(`  ${account.email.padEnd(24)} ${account.description}`);
   }
 
   let stopping = false;

@@ -7,7 +7,11 @@
  * schemas that validate requests, so the document cannot drift from the code.
  * To describe a reusable component, call `registry.register('Name', schema)`.
  */
-import { extendZodWithOpenApi, OpenAPIRegistry, OpenApiGeneratorV3 } from '@asteasolutions/zod-to-openapi';
+import {
+  extendZodWithOpenApi,
+  OpenAPIRegistry,
+  OpenApiGeneratorV3,
+} from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
 
 extendZodWithOpenApi(z);
@@ -20,7 +24,8 @@ registry.registerComponent('securitySchemes', 'session', {
   type: 'apiKey',
   in: 'cookie',
   name: 'phasewright.sid',
-  description: 'Session cookie from POST /api/v1/session. State-changing requests also send X-CSRF-Token.',
+  description:
+    'Session cookie from POST /api/v1/session. State-changing requests also send X-CSRF-Token.',
 });
 registry.registerComponent('securitySchemes', 'bearer', {
   type: 'http',

@@ -1,5 +1,9 @@
 // Shapes models into the shared API payloads. Only these fields ever leave the server.
-import type { Member, Invitation as InvitationPayload, InvitationInfo } from '@shared/schemas/members';
+import type {
+  Member,
+  Invitation as InvitationPayload,
+  InvitationInfo,
+} from '@shared/schemas/members';
 import type { OutboxMessage as OutboxPayload } from '@shared/schemas/outbox';
 import type { Role, Session } from '@shared/schemas/session';
 import type { ApiToken as ApiTokenPayload } from '@shared/schemas/tokens';
@@ -7,11 +11,23 @@ import type { ApiToken, Invitation, Membership, OutboxMessage, User } from './mo
 import { Workspace } from './models';
 import { abilitiesFor, type Actor } from './policies';
 
-export async function presentSession(user: User, actor: Actor, csrfToken: string): Promise<Session> {
-  const workspaces = await Workspace.findAll({ where: { id: [...actor.memberships.keys()] }, order: [['name', 'ASC']] });
+export async function presentSession(
+  user: User,
+  actor: Actor,
+  csrfToken: string,
+): Promise<Session> {
+  const workspaces = await Workspace.findAll({
+    where: { id: [...actor.memberships.keys()] },
+    order: [['name', 'ASC']],
+  });
   return {
     user: { id: user.id, email: user.email, name: user.name },
-    workspaces: workspaces.map((w) => ({ id: w.id, name: w.name, slug: w.slug, roles: [...(actor.memberships.get(w.id) ?? [])] })),
+    workspaces: workspaces.map((w) => ({
+      id: w.id,
+      name: w.name,
+      slug: w.slug,
+      roles: [...(actor.memberships.get(w.id) ?? [])],
+    })),
     csrfToken,
     abilities: abilitiesFor(actor),
   };
@@ -32,7 +48,10 @@ export const presentInvitation = (invitation: Invitation): InvitationPayload => 
   expiresAt: invitation.expiresAt.toISOString(),
 });
 
-export const presentInvitationInfo = (invitation: Invitation, existingUser: boolean): InvitationInfo => ({
+export const presentInvitationInfo = (
+  invitation: Invitation,
+  existingUser: boolean,
+): InvitationInfo => ({
   workspaceName: invitation.workspace!.name,
   email: invitation.email,
   roles: invitation.roles,

@@ -6,7 +6,8 @@ export const paths = {
   root: { pattern: '/', to: () => '/' },
   signIn: {
     pattern: '/sign-in',
-    to: (next?: string) => (next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
+    to: (next?: string) =>
+      next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in',
   },
   requestReset: { pattern: '/reset-password', to: () => '/reset-password' },
   completeReset: {
@@ -21,19 +22,30 @@ export const paths = {
   outbox: { pattern: '/outbox', to: () => '/outbox' },
   workspace: {
     home: { pattern: '/w/:workspaceId', to: (id: string) => `/w/${encodeURIComponent(id)}` },
-    members: { pattern: '/w/:workspaceId/members', to: (id: string) => `/w/${encodeURIComponent(id)}/members` },
-    compounds: { pattern: '/w/:workspaceId/compounds', to: (id: string) => `/w/${encodeURIComponent(id)}/compounds` },
-    solvents: { pattern: '/w/:workspaceId/solvents', to: (id: string) => `/w/${encodeURIComponent(id)}/solvents` },
+    members: {
+      pattern: '/w/:workspaceId/members',
+      to: (id: string) => `/w/${encodeURIComponent(id)}/members`,
+    },
+    compounds: {
+      pattern: '/w/:workspaceId/compounds',
+      to: (id: string) => `/w/${encodeURIComponent(id)}/compounds`,
+    },
+    solvents: {
+      pattern: '/w/:workspaceId/solvents',
+      to: (id: string) => `/w/${encodeURIComponent(id)}/solvents`,
+    },
     route: {
       pattern: '/w/:workspaceId/routes/:routeId',
-      to: (id: string, routeId: string) => `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}`,
+      to: (id: string, routeId: string) =>
+        `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}`,
     },
   },
 } as const;
 
 /** Only same-site paths are accepted as a place to return to after sign-in. */
 export function safeNext(next: string | null | undefined): string {
-  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return paths.root.to();
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\'))
+    return paths.root.to();
   return next;
 }
 
@@ -43,7 +55,8 @@ export const api = {
   members: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/members`,
   member: (workspaceId: string, userId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/members/${encodeURIComponent(userId)}`,
-  invitations: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/invitations`,
+  invitations: (workspaceId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/invitations`,
   invitation: (token: string) => `/api/v1/invitations/${encodeURIComponent(token)}`,
   acceptInvitation: (token: string) => `/api/v1/invitations/${encodeURIComponent(token)}/accept`,
   passwordResets: '/api/v1/password-resets',
@@ -53,7 +66,8 @@ export const api = {
   outbox: '/api/v1/outbox',
   solvents: '/api/v1/solvents',
   solvent: (id: string) => `/api/v1/solvents/${encodeURIComponent(id)}`,
-  compounds: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds`,
+  compounds: (workspaceId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds`,
   compound: (workspaceId: string, compoundId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds/${encodeURIComponent(compoundId)}`,
   structurePreview: '/api/v1/structures/preview',

@@ -15,9 +15,39 @@ export const DEMO_ACCOUNTS: {
   roles: Role[];
   description: string;
 }[] = [
-  { email: 'chemist@example.com', name: 'Mira Okafor (demo chemist)', workspace: 'demo', roles: ['chemist'], description: 'Chemist, demo workspace' },
-  { email: 'reviewer@example.com', name: 'Tomas Lindqvist (demo reviewer)', workspace: 'demo', roles: ['reviewer'], description: 'Reviewer, demo workspace' },
-  { email: 'engineer@example.com', name: 'Ana Ribeiro (demo engineer)', workspace: 'demo', roles: ['engineer'], description: 'Scale-up engineer, demo workspace' },
-  { email: 'admin@example.com', name: 'Priya Nair (demo admin)', workspace: 'demo', roles: ['admin'], description: 'Admin, demo workspace' },
-  { email: 'other@example.com', name: 'Jonas Weber (demo chemist)', workspace: 'second', roles: ['chemist'], description: 'Chemist, second workspace' },
+  {
+    email: 'chemist@example.com',
+    name: 'Mira Okafor (demo chemist)',
+    workspace: 'demo',
+    roles: ['chemist'],
+    description: 'Chemist, demo workspace',
+  },
+  {
+    email: 'reviewer@example.com',
+    name: 'Tomas Lindqvist (demo reviewer)',
+    workspace: 'demo',
+    roles: ['reviewer'],
+    description: 'Reviewer, demo workspace',
+  },
+  {
+    email: 'engineer@example.com',
+    name: 'Ana Ribeiro (demo engineer)',
+    workspace: 'demo',
+    roles: ['engineer'],
+    description: 'Scale-up engineer, demo workspace',
+  },
+  {
+    email: 'admin@example.com',
+    name: 'Priya Nair (demo admin)',
+    workspace: 'demo',
+    roles: ['admin'],
+    description: 'Admin, demo workspace',
+  },
+  {
+    email: 'other@example.com',
+    name: 'Jonas Weber (demo chemist)',
+    workspace: 'second',
+    roles: ['chemist'],
+    description: 'Chemist, second workspace',
+  },
 ];

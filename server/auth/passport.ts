@@ -12,12 +12,15 @@ export function configurePassport(): typeof passport {
   if (configured) return passport;
   configured = true;
   passport.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: false }, (email, password, done) => {
-      verifyCredentials(email, password).then(
-        (user) => done(null, user ?? false),
-        (error: unknown) => done(error),
-      );
-    }),
+    new LocalStrategy(
+      { usernameField: 'email', passwordField: 'password', session: false },
+      (email, password, done) => {
+        verifyCredentials(email, password).then(
+          (user) => done(null, user ?? false),
+          (error: unknown) => done(error),
+        );
+      },
+    ),
   );
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser((id: string, done) => {
@@ -43,7 +46,9 @@ export function authenticatePassword(req: Request, res: Response): Promise<User>
 
 /** Starts a fresh session for the user (passport regenerates the session id, which defeats fixation). */
 export function logIn(req: Request, user: User): Promise<void> {
-  return new Promise((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())));
+  return new Promise((resolve, reject) =>
+    req.login(user, (error) => (error ? reject(error) : resolve())),
+  );
 }
 
 export function logOut(req: Request): Promise<void> {

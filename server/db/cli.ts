@@ -13,7 +13,9 @@ try {
   } else if (command === 'seed') {
     await runMigrations(sequelize);
     const applied = await runSeeders(sequelize, config.env);
-    console.log(applied.length ? `Seeded: ${applied.join(', ')}` : 'The demo data is already seeded.');
+    console.log(
+      applied.length ? `Seeded: ${applied.join(', ')}` : 'The demo data is already seeded.',
+    );
   } else {
     console.error('Usage: node --import tsx server/db/cli.ts migrate|seed');
     process.exitCode = 2;

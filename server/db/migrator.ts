@@ -69,13 +69,17 @@ async function withMigrationLock<T>(sequelize: Sequelize, work: () => Promise<T>
 }
 
 export async function runMigrations(sequelize: Sequelize): Promise<string[]> {
-  const applied = await withMigrationLock(sequelize, () => buildUmzug(sequelize, 'migrations', 'SequelizeMeta').up());
+  const applied = await withMigrationLock(sequelize, () =>
+    buildUmzug(sequelize, 'migrations', 'SequelizeMeta').up(),
+  );
   return applied.map((migration) => migration.name);
 }
 
 /** Seeds the invented demo data; each seeder runs once (recorded in SequelizeData). */
 export async function runSeeders(sequelize: Sequelize, env: string): Promise<string[]> {
   if (env === 'production') throw new Error('Refusing to seed demo data when NODE_ENV=production.');
-  const applied = await withMigrationLock(sequelize, () => buildUmzug(sequelize, 'seeders', 'SequelizeData').up());
+  const applied = await withMigrationLock(sequelize, () =>
+    buildUmzug(sequelize, 'seeders', 'SequelizeData').up(),
+  );
   return applied.map((seeder) => seeder.name);
 }

@@ -84,27 +84,33 @@ export function defineRoute<
   const responses: Record<string, unknown> = {};
   for (const [status, response] of Object.entries(spec.responses)) {
     responses[status] = response.schema
-      ? { description: response.description, content: { 'application/json': { schema: response.schema } } }
+      ? {
+          description: response.description,
+          content: { 'application/json': { schema: response.schema } },
+        }
       : { description: response.description };
   }
-  if (spec.body || spec.params || spec.query) responses['400'] ??= errorResponse('Invalid request; details lists every field problem.');
+  if (spec.body || spec.params || spec.query)
+    responses['400'] ??= errorResponse('Invalid request; details lists every field problem.');
   if (spec.auth) responses['401'] ??= errorResponse('Not signed in.');
   // Several apps may be built in one process (tests); describe each operation once.
   const operationKey = `${spec.method} ${spec.path}`;
   if (!registeredOperations.has(operationKey)) {
     registeredOperations.add(operationKey);
     registry.registerPath({
-    method: spec.method,
-    path: API_PREFIX + spec.path,
-    summary: spec.summary,
-    tags: spec.tags,
-    security: spec.auth ? [{ session: [] }, { bearer: [] }] : undefined,
-    request: {
-      params: spec.params,
-      query: spec.query,
-      body: spec.body ? { content: { 'application/json': { schema: spec.body } }, required: true } : undefined,
-    },
-    responses: responses as never,
+      method: spec.method,
+      path: API_PREFIX + spec.path,
+      summary: spec.summary,
+      tags: spec.tags,
+      security: spec.auth ? [{ session: [] }, { bearer: [] }] : undefined,
+      request: {
+        params: spec.params,
+        query: spec.query,
+        body: spec.body
+          ? { content: { 'application/json': { schema: spec.body } }, required: true }
+          : undefined,
+      },
+      responses: responses as never,
     });
   }
 
@@ -116,7 +122,8 @@ export function defineRoute<
     const body = spec.body ? parsePart(spec.body, req.body ?? {}, 'body') : undefined;
     const run = (transaction: Transaction | null) =>
       spec.handle({ req, res, params, query, body, actor: req.actor, transaction } as never);
-    const reply = spec.transaction === false ? await run(null) : await database().transaction((t) => run(t));
+    const reply =
+      spec.transaction === false ? await run(null) : await database().transaction((t) => run(t));
     if (reply.body === undefined) res.status(reply.status).end();
     else res.status(reply.status).json(reply.body);
   };

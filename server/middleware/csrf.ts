@@ -22,7 +22,12 @@ function sameToken(expected: string, given: string): boolean {
  */
 export function csrfProtection(exempt: (method: string, path: string) => boolean): RequestHandler {
   return (req, _res, next) => {
-    if (SAFE_METHODS.has(req.method) || req.authMethod !== 'session' || exempt(req.method, req.path)) return next();
+    if (
+      SAFE_METHODS.has(req.method) ||
+      req.authMethod !== 'session' ||
+      exempt(req.method, req.path)
+    )
+      return next();
     const expected = req.session.csrfToken;
     const given = req.get('x-csrf-token');
     if (!expected || !given || !sameToken(expected, given)) throw csrfFailed();

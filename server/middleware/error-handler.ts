@@ -6,7 +6,15 @@ import {
   ValidationError as SequelizeValidationError,
 } from 'sequelize';
 import { ZodError } from 'zod';
-import { AppError, conflict, internalError, malformedJson, payloadTooLarge, serviceUnavailable, validationFailed } from '../errors';
+import {
+  AppError,
+  conflict,
+  internalError,
+  malformedJson,
+  payloadTooLarge,
+  serviceUnavailable,
+  validationFailed,
+} from '../errors';
 import { zodIssuesToDetails } from '../http/validation';
 
 export const apiNotFound: RequestHandler = () => {
@@ -18,18 +26,24 @@ function bodyParserError(error: unknown): AppError | null {
   const type = (error as { type?: unknown })?.type;
   if (type === 'entity.too.large') return payloadTooLarge();
   if (type === 'entity.parse.failed') return malformedJson();
-  if (typeof type === 'string' && type.startsWith('encoding.')) return new AppError(415, 'unsupported_encoding', 'The request encoding is not supported.');
+  if (typeof type === 'string' && type.startsWith('encoding.'))
+    return new AppError(415, 'unsupported_encoding', 'The request encoding is not supported.');
   return null;
 }
 
 /** Database errors mapped by their class. */
 function databaseError(error: unknown): AppError | null {
-  if (error instanceof UniqueConstraintError) return conflict('already_exists', 'This already exists.');
-  if (error instanceof ForeignKeyConstraintError) return conflict('reference_conflict', 'This refers to, or is referred to by, another record.');
+  if (error instanceof UniqueConstraintError)
+    return conflict('already_exists', 'This already exists.');
+  if (error instanceof ForeignKeyConstraintError)
+    return conflict('reference_conflict', 'This refers to, or is referred to by, another record.');
   if (error instanceof SequelizeValidationError) {
-    return validationFailed(error.errors.map((item) => ({ path: item.path ?? '', message: item.message })));
+    return validationFailed(
+      error.errors.map((item) => ({ path: item.path ?? '', message: item.message })),
+    );
   }
-  if (error instanceof ConnectionError) return serviceUnavailable('The database cannot be reached.');
+  if (error instanceof ConnectionError)
+    return serviceUnavailable('The database cannot be reached.');
   return null;
 }
 
@@ -37,14 +51,19 @@ export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler
   return (error, _req, res, _next) => {
     let appError: AppError;
     if (error instanceof AppError) appError = error;
-    else if (error instanceof ZodError) appError = validationFailed(zodIssuesToDetails(error.issues));
+    else if (error instanceof ZodError)
+      appError = validationFailed(zodIssuesToDetails(error.issues));
     else appError = bodyParserError(error) ?? databaseError(error) ?? internalError();
     if (appError.status >= 500) log(error);
     if (res.headersSent) return;
     if (appError.headers) res.set(appError.headers);
     // Stack traces and internal messages never leave the server.
     res.status(appError.status).json({
-      error: { code: appError.code, message: appError.message, ...(appError.details ? { details: appError.details } : {}) },
+      error: {
+        code: appError.code,
+        message: appError.message,
+        ...(appError.details ? { details: appError.details } : {}),
+      },
     });
   };
 }

@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { User } from './user';
 import type { Workspace } from './workspace';
 
@@ -6,7 +14,10 @@ import type { Workspace } from './workspace';
  * One entry of the audit trail. Append-only: a database trigger refuses
  * UPDATE and DELETE, so not even a bug in the server can rewrite history.
  */
-export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {
+export class AuditEvent extends Model<
+  InferAttributes<AuditEvent>,
+  InferCreationAttributes<AuditEvent>
+> {
   declare id: CreationOptional<string>;
   declare workspaceId: ForeignKey<Workspace['id']> | null;
   declare actorId: ForeignKey<User['id']> | null;

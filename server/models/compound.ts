@@ -1,4 +1,13 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { Compound as CompoundPayload } from '@shared/schemas/compounds';
 import type { User } from './user';
 import type { Workspace } from './workspace';
@@ -45,7 +54,11 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
         pKa: { type: DataTypes.JSONB, allowNull: false, defaultValue: [], field: 'pka' },
         logP: { type: DataTypes.JSONB, allowNull: true, field: 'log_p' },
         meltingPointC: { type: DataTypes.DOUBLE, allowNull: true, field: 'melting_point_c' },
-        enthalpyFusionKJmol: { type: DataTypes.DOUBLE, allowNull: true, field: 'enthalpy_fusion_kjmol' },
+        enthalpyFusionKJmol: {
+          type: DataTypes.DOUBLE,
+          allowNull: true,
+          field: 'enthalpy_fusion_kjmol',
+        },
         hansen: { type: DataTypes.JSONB, allowNull: true },
         unifac: { type: DataTypes.JSONB, allowNull: false },
         estimateNotes: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },

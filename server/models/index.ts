@@ -13,12 +13,36 @@ import { RouteDraft } from './route-draft';
 import { User } from './user';
 import { Workspace } from './workspace';
 
-export { ApiToken, AuditEvent, Compound, Invitation, Membership, OutboxMessage, PasswordReset, User, Workspace };
+export {
+  ApiToken,
+  AuditEvent,
+  Compound,
+  Invitation,
+  Membership,
+  OutboxMessage,
+  PasswordReset,
+  User,
+  Workspace,
+};
 export { EvaluationJob, Project, Route, RouteDraft };
 
 /** Binds every model to the connection and declares the associations. */
 export function initModels(sequelize: Sequelize): void {
-  for (const model of [User, Workspace, Membership, Invitation, PasswordReset, ApiToken, OutboxMessage, AuditEvent, Compound, Project, Route, RouteDraft, EvaluationJob]) {
+  for (const model of [
+    User,
+    Workspace,
+    Membership,
+    Invitation,
+    PasswordReset,
+    ApiToken,
+    OutboxMessage,
+    AuditEvent,
+    Compound,
+    Project,
+    Route,
+    RouteDraft,
+    EvaluationJob,
+  ]) {
     model.initModel(sequelize);
   }
   User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });

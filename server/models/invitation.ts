@@ -1,9 +1,21 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { Role } from '@shared/schemas/session';
 import type { User } from './user';
 import type { Workspace } from './workspace';
 
-export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
+export class Invitation extends Model<
+  InferAttributes<Invitation>,
+  InferCreationAttributes<Invitation>
+> {
   declare id: CreationOptional<string>;
   declare workspaceId: ForeignKey<Workspace['id']>;
   declare invitedById: ForeignKey<User['id']>;

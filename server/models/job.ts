@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { User } from './user';
 
 /**
@@ -6,7 +14,10 @@ import type { User } from './user';
  * (pg-boss) carries only the id; this row holds the input, the progress the
  * client polls, and the result or the error.
  */
-export class EvaluationJob extends Model<InferAttributes<EvaluationJob>, InferCreationAttributes<EvaluationJob>> {
+export class EvaluationJob extends Model<
+  InferAttributes<EvaluationJob>,
+  InferCreationAttributes<EvaluationJob>
+> {
   declare id: CreationOptional<string>;
   declare userId: ForeignKey<User['id']>;
   declare kind: 'monte-carlo';

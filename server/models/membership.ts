@@ -1,9 +1,21 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { Role } from '@shared/schemas/session';
 import type { User } from './user';
 import type { Workspace } from './workspace';
 
-export class Membership extends Model<InferAttributes<Membership>, InferCreationAttributes<Membership>> {
+export class Membership extends Model<
+  InferAttributes<Membership>,
+  InferCreationAttributes<Membership>
+> {
   declare id: CreationOptional<string>;
   declare userId: ForeignKey<User['id']>;
   declare workspaceId: ForeignKey<Workspace['id']>;

@@ -1,7 +1,17 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 /** A message the built-in SMTP fake received (development and demo only). */
-export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCreationAttributes<OutboxMessage>> {
+export class OutboxMessage extends Model<
+  InferAttributes<OutboxMessage>,
+  InferCreationAttributes<OutboxMessage>
+> {
   declare id: CreationOptional<string>;
   declare to: string;
   declare subject: string;

@@ -1,7 +1,19 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { User } from './user';
 
-export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
+export class PasswordReset extends Model<
+  InferAttributes<PasswordReset>,
+  InferCreationAttributes<PasswordReset>
+> {
   declare id: CreationOptional<string>;
   declare userId: ForeignKey<User['id']>;
   declare tokenHash: string;

@@ -1,4 +1,13 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { Route } from './route';
 import type { User } from './user';
 
@@ -8,7 +17,10 @@ import type { User } from './user';
  * edit is detected instead of overwritten. Totals and the evaluation error
  * are what the engine said about this document when it was saved.
  */
-export class RouteDraft extends Model<InferAttributes<RouteDraft>, InferCreationAttributes<RouteDraft>> {
+export class RouteDraft extends Model<
+  InferAttributes<RouteDraft>,
+  InferCreationAttributes<RouteDraft>
+> {
   declare routeId: ForeignKey<Route['id']>;
   declare document: unknown;
   declare version: number;

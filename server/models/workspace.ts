@@ -1,7 +1,17 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 /** A company's process group: routes, compounds and members belong to one. */
-export class Workspace extends Model<InferAttributes<Workspace>, InferCreationAttributes<Workspace>> {
+export class Workspace extends Model<
+  InferAttributes<Workspace>,
+  InferCreationAttributes<Workspace>
+> {
   declare id: CreationOptional<string>;
   declare name: string;
   declare slug: string;

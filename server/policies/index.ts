@@ -45,13 +45,21 @@ export function can<A extends Action>(actor: Actor, action: A, resource: Resourc
  * outside what the actor can see (so its existence does not leak), 403 when
  * they can see it but their roles do not allow the action.
  */
-export function authorize<A extends Action>(actor: Actor, action: A, resource: ResourceOf<A>): void {
+export function authorize<A extends Action>(
+  actor: Actor,
+  action: A,
+  resource: ResourceOf<A>,
+): void {
   const decision = decide(actor, rules[action] as Rule<unknown>, resource);
   if (decision === 'hidden') throw notFound();
   if (decision === 'forbidden') throw forbidden();
 }
 
-function decide(actor: Actor, rule: Rule<unknown>, resource: unknown): 'allow' | 'forbidden' | 'hidden' {
+function decide(
+  actor: Actor,
+  rule: Rule<unknown>,
+  resource: unknown,
+): 'allow' | 'forbidden' | 'hidden' {
   switch (rule.scope) {
     case 'workspace': {
       const roles = actor.memberships.get((resource as { workspaceId: string }).workspaceId);
@@ -83,7 +91,8 @@ export function abilitiesFor(actor: Actor): {
   for (const workspaceId of actor.memberships.keys()) {
     const abilities: Record<string, boolean> = {};
     for (const [action, rule] of Object.entries(rules) as [string, Rule<unknown>][]) {
-      if (rule.scope === 'workspace') abilities[action] = decide(actor, rule, { workspaceId }) === 'allow';
+      if (rule.scope === 'workspace')
+        abilities[action] = decide(actor, rule, { workspaceId }) === 'allow';
     }
     workspaces[workspaceId] = abilities;
   }

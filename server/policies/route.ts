@@ -1,4 +1,11 @@
-import { accountRule, hasRole, ownerRule, workspaceRule, type UserOwned, type WorkspaceScoped } from './types';
+import {
+  accountRule,
+  hasRole,
+  ownerRule,
+  workspaceRule,
+  type UserOwned,
+  type WorkspaceScoped,
+} from './types';
 
 /**
  * Routes, their drafts and projects. Every member reads them (reviewers and

@@ -33,11 +33,17 @@ export const workspaceRule = <R extends WorkspaceScoped>(
   allow: (roles: readonly Role[], actor: Actor, resource: R) => boolean,
 ): Rule<R> => ({ scope: 'workspace', allow });
 
-export const ownerRule = <R extends UserOwned>(allow: (actor: Actor, resource: R) => boolean = () => true): Rule<R> => ({
+export const ownerRule = <R extends UserOwned>(
+  allow: (actor: Actor, resource: R) => boolean = () => true,
+): Rule<R> => ({
   scope: 'owner',
   allow,
 });
 
-export const accountRule = (allow: (actor: Actor) => boolean = () => true): Rule<null> => ({ scope: 'account', allow });
+export const accountRule = (allow: (actor: Actor) => boolean = () => true): Rule<null> => ({
+  scope: 'account',
+  allow,
+});
 
-export const hasRole = (roles: readonly Role[], ...wanted: Role[]) => wanted.some((role) => roles.includes(role));
+export const hasRole = (roles: readonly Role[], ...wanted: Role[]) =>
+  wanted.some((role) => roles.includes(role));

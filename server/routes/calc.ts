@@ -58,7 +58,13 @@ export function calcRouter(): Router {
       auth: true,
       transaction: false,
       body: spec.body,
-      responses: { 200: { description: 'The result with its method, sources and warnings.', schema: spec.reply }, 422: unprocessableResponse },
+      responses: {
+        200: {
+          description: 'The result with its method, sources and warnings.',
+          schema: spec.reply,
+        },
+        422: unprocessableResponse,
+      },
       handle: async ({ actor, body }) => {
         authorize(actor, 'calc.run', null);
         return { status: 200, body: spec.run(body as never) };
@@ -67,21 +73,24 @@ export function calcRouter(): Router {
 
   calc({
     path: 'vapour-pressure',
-    summary: 'Vapour pressure of a library solvent (Antoine; Clausius–Clapeyron outside the fitted range, with a warning).',
+    summary:
+      'Vapour pressure of a library solvent (Antoine; Clausius–Clapeyron outside the fitted range, with a warning).',
     body: vapourPressureRequestSchema,
     reply: vapourPressureReplySchema,
     run: calcVapourPressure,
   });
   calc({
     path: 'activity-coefficients',
-    summary: 'UNIFAC activity coefficients of a liquid mixture; components by SMILES (library solvent, or groups assigned from the structure).',
+    summary:
+      'UNIFAC activity coefficients of a liquid mixture; components by SMILES (library solvent, or groups assigned from the structure).',
     body: activityCoefficientsRequestSchema,
     reply: activityCoefficientsReplySchema,
     run: calcActivityCoefficients,
   });
   calc({
     path: 'bubble-point',
-    summary: "Bubble-point temperature and vapour composition at a pressure (modified Raoult's law).",
+    summary:
+      "Bubble-point temperature and vapour composition at a pressure (modified Raoult's law).",
     body: bubblePointRequestSchema,
     reply: bubblePointReplySchema,
     run: calcBubblePoint,
@@ -95,14 +104,16 @@ export function calcRouter(): Router {
   });
   calc({
     path: 'partition',
-    summary: 'Distribution ratio D (organic/aqueous, molar concentrations) of a solute: Collander from logP, or UNIFAC; pH by Henderson–Hasselbalch, salt by Setschenow.',
+    summary:
+      'Distribution ratio D (organic/aqueous, molar concentrations) of a solute: Collander from logP, or UNIFAC; pH by Henderson–Hasselbalch, salt by Setschenow.',
     body: partitionRequestSchema,
     reply: partitionReplySchema,
     run: calcPartition,
   });
   calc({
     path: 'solubility',
-    summary: 'Ideal solubility from melting point and enthalpy of fusion, and the UNIFAC-corrected solubility in a solvent.',
+    summary:
+      'Ideal solubility from melting point and enthalpy of fusion, and the UNIFAC-corrected solubility in a solvent.',
     body: solubilityRequestSchema,
     reply: solubilityReplySchema,
     run: calcSolubility,
@@ -117,4 +128,3 @@ export function calcRouter(): Router {
 
   return router;
 }
-

@@ -11,15 +11,30 @@ import {
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
-import { createCompound, deleteCompound, listCompounds, loadCompound, presentCompound, previewStructure, updateCompound } from '../services/compounds';
+import {
+  createCompound,
+  deleteCompound,
+  listCompounds,
+  loadCompound,
+  presentCompound,
+  previewStructure,
+  updateCompound,
+} from '../services/compounds';
 import { loadWorkspace } from '../services/members';
 
 const workspaceParams = z.object({ workspaceId: z.uuid() });
 const compoundParams = z.object({ workspaceId: z.uuid(), compoundId: z.uuid() });
-const notFoundResponse = { description: 'No such workspace or compound, or not one of yours.', schema: apiErrorSchema };
-const forbiddenResponse = { description: 'Only chemists and admins enter or change compounds.', schema: apiErrorSchema };
+const notFoundResponse = {
+  description: 'No such workspace or compound, or not one of yours.',
+  schema: apiErrorSchema,
+};
+const forbiddenResponse = {
+  description: 'Only chemists and admins enter or change compounds.',
+  schema: apiErrorSchema,
+};
 const unparsableResponse = {
-  description: 'structure_unparsable: the SMILES or molfile cannot be read; the message names the problem and details the field.',
+  description:
+    'structure_unparsable: the SMILES or molfile cannot be read; the message names the problem and details the field.',
   schema: apiErrorSchema,
 };
 
@@ -29,12 +44,16 @@ export function compoundsRouter(): Router {
   defineRoute(router, {
     method: 'post',
     path: '/structures/preview',
-    summary: 'Parse a SMILES or molfile: formula, molar mass, drawing, UNIFAC groups and the logP/Hansen estimates.',
+    summary:
+      'Parse a SMILES or molfile: formula, molar mass, drawing, UNIFAC groups and the logP/Hansen estimates.',
     tags: ['compounds'],
     auth: true,
     transaction: false,
     body: structurePreviewRequestSchema,
-    responses: { 200: { description: 'What the structure is.', schema: structurePreviewSchema }, 422: unparsableResponse },
+    responses: {
+      200: { description: 'What the structure is.', schema: structurePreviewSchema },
+      422: unparsableResponse,
+    },
     handle: async ({ actor, body }) => {
       authorize(actor, 'structure.preview', null);
       return { status: 200, body: previewStructure(body) };
@@ -48,7 +67,10 @@ export function compoundsRouter(): Router {
     tags: ['compounds'],
     auth: true,
     params: workspaceParams,
-    responses: { 200: { description: 'The compounds.', schema: compoundListSchema }, 404: notFoundResponse },
+    responses: {
+      200: { description: 'The compounds.', schema: compoundListSchema },
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'compound.list', { workspaceId: workspace.id });
@@ -60,7 +82,8 @@ export function compoundsRouter(): Router {
   defineRoute(router, {
     method: 'post',
     path: '/workspaces/{workspaceId}/compounds',
-    summary: 'Add a compound from a SMILES or molfile (chemists and admins); what is not entered is estimated and marked so.',
+    summary:
+      'Add a compound from a SMILES or molfile (chemists and admins); what is not entered is estimated and marked so.',
     tags: ['compounds'],
     auth: true,
     params: workspaceParams,
@@ -74,7 +97,10 @@ export function compoundsRouter(): Router {
     handle: async ({ actor, params, body, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'compound.create', { workspaceId: workspace.id });
-      const compound = await createCompound({ workspaceId: workspace.id, actorId: actor.userId, input: body }, transaction);
+      const compound = await createCompound(
+        { workspaceId: workspace.id, actorId: actor.userId, input: body },
+        transaction,
+      );
       return { status: 201, body: presentCompound(compound) };
     },
   });
@@ -86,7 +112,10 @@ export function compoundsRouter(): Router {
     tags: ['compounds'],
     auth: true,
     params: compoundParams,
-    responses: { 200: { description: 'The compound.', schema: compoundSchema }, 404: notFoundResponse },
+    responses: {
+      200: { description: 'The compound.', schema: compoundSchema },
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'compound.read', { workspaceId: workspace.id });
@@ -98,7 +127,8 @@ export function compoundsRouter(): Router {
   defineRoute(router, {
     method: 'patch',
     path: '/workspaces/{workspaceId}/compounds/{compoundId}',
-    summary: 'Change a compound (chemists and admins). null clears a value: an entered logP or Hansen set goes back to the estimate, edited groups to the automatic ones.',
+    summary:
+      'Change a compound (chemists and admins). null clears a value: an entered logP or Hansen set goes back to the estimate, edited groups to the automatic ones.',
     tags: ['compounds'],
     auth: true,
     params: compoundParams,

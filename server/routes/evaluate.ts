@@ -16,7 +16,8 @@ import { startMonteCarlo } from '../services/monte-carlo-jobs';
 export const ROUTE_JSON_BODY_LIMIT = '2mb';
 
 const unevaluable = {
-  description: 'The document is valid but cannot be evaluated (cycle, unconnected required port, unknown component, a step that cannot run); details name the step and field.',
+  description:
+    'The document is valid but cannot be evaluated (cycle, unconnected required port, unknown component, a step that cannot run); details name the step and field.',
   schema: routeEvaluationErrorSchema,
 };
 
@@ -26,13 +27,18 @@ export function evaluateRouter(): Router {
   defineRoute(router, {
     method: 'post',
     path: '/evaluate',
-    summary: 'Evaluate a route document and return per-step results, streams, totals and cautions; nothing is stored.',
+    summary:
+      'Evaluate a route document and return per-step results, streams, totals and cautions; nothing is stored.',
     tags: ['evaluation'],
     auth: true,
     body: evaluateRequestSchema,
     transaction: false,
     responses: {
-      200: { description: 'The result, with the engine version and the advice to defer to the site process-safety review.', schema: evaluateResponseSchema },
+      200: {
+        description:
+          'The result, with the engine version and the advice to defer to the site process-safety review.',
+        schema: evaluateResponseSchema,
+      },
       413: { description: 'The document is larger than the body limit.', schema: apiErrorSchema },
       422: unevaluable,
     },
@@ -45,7 +51,8 @@ export function evaluateRouter(): Router {
   defineRoute(router, {
     method: 'post',
     path: '/evaluate/monte-carlo',
-    summary: 'Start a seeded Monte Carlo evaluation over the ± ranges of the document; poll GET /jobs/{jobId} for progress and p5/p50/p95.',
+    summary:
+      'Start a seeded Monte Carlo evaluation over the ± ranges of the document; poll GET /jobs/{jobId} for progress and p5/p50/p95.',
     tags: ['evaluation'],
     auth: true,
     body: monteCarloRequestSchema,
@@ -55,7 +62,10 @@ export function evaluateRouter(): Router {
     },
     handle: async ({ actor, body, transaction }) => {
       authorize(actor, 'job.create', null);
-      const job = await startMonteCarlo({ userId: actor.userId, document: body.document, draws: body.draws, seed: body.seed }, transaction);
+      const job = await startMonteCarlo(
+        { userId: actor.userId, document: body.document, draws: body.draws, seed: body.seed },
+        transaction,
+      );
       return { status: 202, body: { jobId: job.id } };
     },
   });

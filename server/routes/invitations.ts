@@ -21,7 +21,10 @@ const unusable = {
 export function invitationsRouter(config: AppConfig): Router {
   const router = Router();
   // Accepting checks a password for existing accounts, so it is limited like sign-in.
-  const acceptLimiter = limitRequests({ windowMinutes: config.rateLimits.windowMinutes, limit: config.rateLimits.signInPerWindow });
+  const acceptLimiter = limitRequests({
+    windowMinutes: config.rateLimits.windowMinutes,
+    limit: config.rateLimits.signInPerWindow,
+  });
 
   defineRoute(router, {
     method: 'get',
@@ -30,17 +33,24 @@ export function invitationsRouter(config: AppConfig): Router {
     tags: ['invitations'],
     auth: false,
     params: tokenParams,
-    responses: { 200: { description: 'The invitation.', schema: invitationInfoSchema }, ...unusable },
+    responses: {
+      200: { description: 'The invitation.', schema: invitationInfoSchema },
+      ...unusable,
+    },
     handle: async ({ params, transaction }) => {
       const invitation = await loadOpenInvitation(params.token, transaction);
-      return { status: 200, body: presentInvitationInfo(invitation, await userExists(invitation.email, transaction)) };
+      return {
+        status: 200,
+        body: presentInvitationInfo(invitation, await userExists(invitation.email, transaction)),
+      };
     },
   });
 
   defineRoute(router, {
     method: 'post',
     path: '/invitations/{token}/accept',
-    summary: 'Accept an invitation: creates the account if new (name + password) or checks the existing password; signs in.',
+    summary:
+      'Accept an invitation: creates the account if new (name + password) or checks the existing password; signs in.',
     tags: ['invitations'],
     auth: false,
     params: tokenParams,
@@ -53,7 +63,12 @@ export function invitationsRouter(config: AppConfig): Router {
     },
     handle: async ({ req, params, body, transaction }) => {
       const invitation = await loadOpenInvitation(params.token, transaction);
-      const user = await acceptInvitation({ invitation, name: body.name, password: body.password, transaction });
+      const user = await acceptInvitation({
+        invitation,
+        name: body.name,
+        password: body.password,
+        transaction,
+      });
       await logIn(req, user);
       req.session.csrfToken = newCsrfToken();
       const actor = await loadActor(user.id, transaction);

@@ -1,17 +1,32 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/errors';
-import { invitationSchema, inviteSchema, memberListSchema, memberSchema, updateRolesSchema } from '@shared/schemas/members';
+import {
+  invitationSchema,
+  inviteSchema,
+  memberListSchema,
+  memberSchema,
+  updateRolesSchema,
+} from '@shared/schemas/members';
 import type { AppConfig } from '../config';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
 import { presentInvitation, presentMember } from '../presenters';
 import { inviteMember } from '../services/invitations';
-import { listMembers, loadMembership, loadWorkspace, removeMember, updateRoles } from '../services/members';
+import {
+  listMembers,
+  loadMembership,
+  loadWorkspace,
+  removeMember,
+  updateRoles,
+} from '../services/members';
 
 const workspaceParams = z.object({ workspaceId: z.uuid() });
 const memberParams = z.object({ workspaceId: z.uuid(), userId: z.uuid() });
-const notFoundResponse = { description: 'No such workspace or member, or not one of yours.', schema: apiErrorSchema };
+const notFoundResponse = {
+  description: 'No such workspace or member, or not one of yours.',
+  schema: apiErrorSchema,
+};
 const forbiddenResponse = { description: 'Only admins may do this.', schema: apiErrorSchema };
 
 export function membersRouter(config: AppConfig): Router {
@@ -24,7 +39,10 @@ export function membersRouter(config: AppConfig): Router {
     tags: ['members'],
     auth: true,
     params: workspaceParams,
-    responses: { 200: { description: 'The members.', schema: memberListSchema }, 404: notFoundResponse },
+    responses: {
+      200: { description: 'The members.', schema: memberListSchema },
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'member.list', { workspaceId: workspace.id });

@@ -13,7 +13,8 @@ export function outboxRouter(config: AppConfig): Router {
   defineRoute(router, {
     method: 'get',
     path: '/outbox',
-    summary: 'Mail caught by the built-in mail fake, newest first (development and demo only; admins).',
+    summary:
+      'Mail caught by the built-in mail fake, newest first (development and demo only; admins).',
     tags: ['outbox'],
     auth: true,
     responses: {

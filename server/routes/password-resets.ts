@@ -9,12 +9,16 @@ import { completePasswordReset, requestPasswordReset } from '../services/credent
 
 export function passwordResetsRouter(config: AppConfig): Router {
   const router = Router();
-  const resetLimiter = limitRequests({ windowMinutes: config.rateLimits.windowMinutes, limit: config.rateLimits.resetPerWindow });
+  const resetLimiter = limitRequests({
+    windowMinutes: config.rateLimits.windowMinutes,
+    limit: config.rateLimits.resetPerWindow,
+  });
 
   defineRoute(router, {
     method: 'post',
     path: '/password-resets',
-    summary: 'Ask for a reset link by e-mail. Always 202, whether or not the address has an account.',
+    summary:
+      'Ask for a reset link by e-mail. Always 202, whether or not the address has an account.',
     tags: ['password resets'],
     auth: false,
     body: requestResetSchema,
@@ -29,7 +33,8 @@ export function passwordResetsRouter(config: AppConfig): Router {
   defineRoute(router, {
     method: 'post',
     path: '/password-resets/{token}',
-    summary: 'Set a new password with the link from the e-mail (single use, 1 hour). Ends all sessions.',
+    summary:
+      'Set a new password with the link from the e-mail (single use, 1 hour). Ends all sessions.',
     tags: ['password resets'],
     auth: false,
     params: z.object({ token: z.string().min(20).max(200) }),

@@ -23,12 +23,25 @@ import type { Route, RouteDraft } from '../models';
 import { authorize, can, type Actor } from '../policies';
 import { saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
 import { loadWorkspace } from '../services/members';
-import { createRoute, duplicateRoute, listProjects, listRoutes, loadRoute, updateRoute } from '../services/routes';
+import {
+  createRoute,
+  duplicateRoute,
+  listProjects,
+  listRoutes,
+  loadRoute,
+  updateRoute,
+} from '../services/routes';
 
 const workspaceParams = z.object({ workspaceId: z.uuid() });
 const routeParams = z.object({ workspaceId: z.uuid(), routeId: z.uuid() });
-const notFoundResponse = { description: 'No such workspace or route, or not one of yours.', schema: apiErrorSchema };
-const forbiddenResponse = { description: 'Only chemists and admins change routes.', schema: apiErrorSchema };
+const notFoundResponse = {
+  description: 'No such workspace or route, or not one of yours.',
+  schema: apiErrorSchema,
+};
+const forbiddenResponse = {
+  description: 'Only chemists and admins change routes.',
+  schema: apiErrorSchema,
+};
 
 function keyTotals(totals: unknown): KeyTotals | null {
   if (!totals) return null;
@@ -82,12 +95,19 @@ export function routesRouter(): Router {
   defineRoute(router, {
     method: 'get',
     path: '/workspaces/{workspaceId}/routes',
-    summary: 'Routes of the workspace with project, owner, status, last change and key totals; archived=true lists the archived ones; q searches route and project names.',
+    summary:
+      'Routes of the workspace with project, owner, status, last change and key totals; archived=true lists the archived ones; q searches route and project names.',
     tags: ['routes'],
     auth: true,
     params: workspaceParams,
     query: listRoutesQuerySchema,
-    responses: { 200: { description: 'The routes, ordered by project, then last change.', schema: routeListSchema }, 404: notFoundResponse },
+    responses: {
+      200: {
+        description: 'The routes, ordered by project, then last change.',
+        schema: routeListSchema,
+      },
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, query, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.list', { workspaceId: workspace.id });
@@ -99,19 +119,30 @@ export function routesRouter(): Router {
   defineRoute(router, {
     method: 'post',
     path: '/workspaces/{workspaceId}/routes',
-    summary: 'Create a route (chemists and admins), optionally in a project (created when new) and from a document; otherwise it starts empty.',
+    summary:
+      'Create a route (chemists and admins), optionally in a project (created when new) and from a document; otherwise it starts empty.',
     tags: ['routes'],
     auth: true,
     params: workspaceParams,
     body: createRouteSchema,
-    responses: { 201: { description: 'Created.', schema: routeDetailSchema }, 403: forbiddenResponse, 404: notFoundResponse },
+    responses: {
+      201: { description: 'Created.', schema: routeDetailSchema },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+    },
     handle: async ({ req, actor, params, body, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.create', { workspaceId: workspace.id });
       // The document is stored as the editor wrote it (validated; schema defaults are applied at evaluation).
       const document = body.document ? (req.body.document as DraftDocument) : undefined;
       const route = await createRoute(
-        { workspaceId: workspace.id, ownerId: actor.userId, name: body.name, projectName: body.projectName, document },
+        {
+          workspaceId: workspace.id,
+          ownerId: actor.userId,
+          name: body.name,
+          projectName: body.projectName,
+          document,
+        },
         transaction,
       );
       return { status: 201, body: presentDetail(route, actor) };
@@ -121,11 +152,15 @@ export function routesRouter(): Router {
   defineRoute(router, {
     method: 'get',
     path: '/workspaces/{workspaceId}/routes/{routeId}',
-    summary: 'A route with its draft document, version, who saved it last, and what the caller may do.',
+    summary:
+      'A route with its draft document, version, who saved it last, and what the caller may do.',
     tags: ['routes'],
     auth: true,
     params: routeParams,
-    responses: { 200: { description: 'The route.', schema: routeDetailSchema }, 404: notFoundResponse },
+    responses: {
+      200: { description: 'The route.', schema: routeDetailSchema },
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.read', { workspaceId: workspace.id });
@@ -137,17 +172,23 @@ export function routesRouter(): Router {
   defineRoute(router, {
     method: 'patch',
     path: '/workspaces/{workspaceId}/routes/{routeId}',
-    summary: 'Rename a route, move it to a project (projectName, or null for none), archive or unarchive it (chemists and admins).',
+    summary:
+      'Rename a route, move it to a project (projectName, or null for none), archive or unarchive it (chemists and admins).',
     tags: ['routes'],
     auth: true,
     params: routeParams,
     body: updateRouteSchema,
-    responses: { 200: { description: 'Updated.', schema: routeDetailSchema }, 403: forbiddenResponse, 404: notFoundResponse },
+    responses: {
+      200: { description: 'Updated.', schema: routeDetailSchema },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, body, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       const scope = { workspaceId: workspace.id };
       authorize(actor, 'route.read', scope);
-      if (body.name !== undefined || body.projectName !== undefined) authorize(actor, 'route.rename', scope);
+      if (body.name !== undefined || body.projectName !== undefined)
+        authorize(actor, 'route.rename', scope);
       if (body.archived !== undefined) authorize(actor, 'route.archive', scope);
       const route = await loadRoute(workspace.id, params.routeId, transaction);
       const updated = await updateRoute(route, body, actor.userId, transaction);
@@ -158,12 +199,17 @@ export function routesRouter(): Router {
   defineRoute(router, {
     method: 'post',
     path: '/workspaces/{workspaceId}/routes/{routeId}/duplicate',
-    summary: 'Copy a route and its current draft into a new route owned by the caller (chemists and admins).',
+    summary:
+      'Copy a route and its current draft into a new route owned by the caller (chemists and admins).',
     tags: ['routes'],
     auth: true,
     params: routeParams,
     body: duplicateRouteSchema,
-    responses: { 201: { description: 'The copy.', schema: routeDetailSchema }, 403: forbiddenResponse, 404: notFoundResponse },
+    responses: {
+      201: { description: 'The copy.', schema: routeDetailSchema },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, body, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.duplicate', { workspaceId: workspace.id });
@@ -183,10 +229,17 @@ export function routesRouter(): Router {
     params: routeParams,
     body: saveDraftSchema,
     responses: {
-      200: { description: 'Saved: the new version, the totals and the engine cautions.', schema: saveDraftResponseSchema },
+      200: {
+        description: 'Saved: the new version, the totals and the engine cautions.',
+        schema: saveDraftResponseSchema,
+      },
       403: forbiddenResponse,
       404: notFoundResponse,
-      409: { description: 'draft_conflict (changed since baseVersion; details.current) or route_archived.', schema: draftConflictSchema },
+      409: {
+        description:
+          'draft_conflict (changed since baseVersion; details.current) or route_archived.',
+        schema: draftConflictSchema,
+      },
     },
     handle: async ({ req, actor, params, body, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
@@ -219,7 +272,10 @@ export function routesRouter(): Router {
     tags: ['routes'],
     auth: true,
     params: workspaceParams,
-    responses: { 200: { description: 'The projects.', schema: projectListSchema }, 404: notFoundResponse },
+    responses: {
+      200: { description: 'The projects.', schema: projectListSchema },
+      404: notFoundResponse,
+    },
     handle: async ({ actor, params, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'project.list', { workspaceId: workspace.id });

@@ -11,7 +11,10 @@ import { loadActor } from '../services/actors';
 
 export function sessionRouter(config: AppConfig): Router {
   const router = Router();
-  const signInLimiter = limitRequests({ windowMinutes: config.rateLimits.windowMinutes, limit: config.rateLimits.signInPerWindow });
+  const signInLimiter = limitRequests({
+    windowMinutes: config.rateLimits.windowMinutes,
+    limit: config.rateLimits.signInPerWindow,
+  });
 
   defineRoute(router, {
     method: 'post',
@@ -26,7 +29,10 @@ export function sessionRouter(config: AppConfig): Router {
     responses: {
       200: { description: 'Signed in.', schema: sessionSchema },
       401: { description: 'E-mail or password is incorrect.', schema: apiErrorSchema },
-      423: { description: 'Locked for 15 minutes after 5 failed sign-ins.', schema: apiErrorSchema },
+      423: {
+        description: 'Locked for 15 minutes after 5 failed sign-ins.',
+        schema: apiErrorSchema,
+      },
       429: { description: 'Too many attempts from this address.', schema: apiErrorSchema },
     },
     handle: async ({ req, res, body }) => {
@@ -34,7 +40,10 @@ export function sessionRouter(config: AppConfig): Router {
       const user = await authenticatePassword(req, res);
       await logIn(req, user);
       req.session.csrfToken = newCsrfToken();
-      return { status: 200, body: await presentSession(user, await loadActor(user.id), req.session.csrfToken) };
+      return {
+        status: 200,
+        body: await presentSession(user, await loadActor(user.id), req.session.csrfToken),
+      };
     },
   });
 

@@ -12,11 +12,14 @@ export function solventsRouter(): Router {
   defineRoute(router, {
     method: 'get',
     path: '/solvents',
-    summary: 'The solvent library: identity, boiling point, density, flash point, ICH class, Hansen parameters, flags; every value with its source.',
+    summary:
+      'The solvent library: identity, boiling point, density, flash point, ICH class, Hansen parameters, flags; every value with its source.',
     tags: ['solvents'],
     auth: true,
     transaction: false,
-    responses: { 200: { description: 'Every library solvent, by name.', schema: solventListSchema } },
+    responses: {
+      200: { description: 'Every library solvent, by name.', schema: solventListSchema },
+    },
     handle: async ({ actor }) => {
       authorize(actor, 'solvent.read', null);
       return { status: 200, body: listSolvents() };

@@ -45,7 +45,10 @@ export function tokensRouter(): Router {
     tags: ['tokens'],
     auth: true,
     params: z.object({ id: z.uuid() }),
-    responses: { 204: { description: 'Revoked.' }, 404: { description: 'No such token of yours.', schema: apiErrorSchema } },
+    responses: {
+      204: { description: 'Revoked.' },
+      404: { description: 'No such token of yours.', schema: apiErrorSchema },
+    },
     handle: async ({ actor, params, transaction }) => {
       const record = await findActiveToken(params.id, transaction);
       authorize(actor, 'token.revoke', { userId: record.userId as string });

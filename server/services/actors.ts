@@ -5,6 +5,13 @@ import type { Actor } from '../policies';
 
 /** Loads the roles a user holds in each workspace: what the policies decide on. */
 export async function loadActor(userId: string, transaction?: Transaction | null): Promise<Actor> {
-  const memberships = await Membership.findAll({ where: { userId }, attributes: ['workspaceId', 'roles'], transaction });
-  return { userId, memberships: new Map(memberships.map((m) => [m.workspaceId as string, m.roles as Role[]])) };
+  const memberships = await Membership.findAll({
+    where: { userId },
+    attributes: ['workspaceId', 'roles'],
+    transaction,
+  });
+  return {
+    userId,
+    memberships: new Map(memberships.map((m) => [m.workspaceId as string, m.roles as Role[]])),
+  };
 }

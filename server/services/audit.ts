@@ -12,7 +12,10 @@ export interface AuditEntry {
 }
 
 /** Appends to the audit trail in the caller's transaction, so the record and the change commit together. */
-export async function recordAudit(entry: AuditEntry, transaction: Transaction | null): Promise<void> {
+export async function recordAudit(
+  entry: AuditEntry,
+  transaction: Transaction | null,
+): Promise<void> {
   await AuditEvent.create(
     {
       workspaceId: entry.workspaceId,

@@ -7,14 +7,22 @@ import { assignUnifacGroups, parseStructure, type UnifacAssignment } from '@shar
 import type { ResolvedComponent } from '@shared/schemas/calc';
 import type { ApiErrorDetail } from '@shared/schemas/errors';
 import type { ValueSource } from '@shared/schemas/solvents';
-import { citationFor, SOLVENTS, solventBySmiles, type Source, type SolventRecord, type UnifacGroups } from '@shared/engine/data';
+import {
+  citationFor,
+  SOLVENTS,
+  solventBySmiles,
+  type Source,
+  type SolventRecord,
+  type UnifacGroups,
+} from '@shared/engine/data';
 import { UNIFAC_PARAMETER_SOURCE } from '@shared/engine/data/unifac';
 import { EngineError, UnifacParameterError } from '@shared/engine/errors';
 import { unifacGroupsSummary } from '@shared/engine/thermo';
 import { AppError } from '../errors';
 
 /** 422: the request is well formed but cannot be computed. Codes: structure_unparsable, unifac_missing_parameters, no_data, not_computable. */
-export const unprocessable = (code: string, message: string, details?: ApiErrorDetail[]) => new AppError(422, code, message, details);
+export const unprocessable = (code: string, message: string, details?: ApiErrorDetail[]) =>
+  new AppError(422, code, message, details);
 
 export type ResolvedSmiles =
   | { basis: 'library'; smiles: string; solvent: SolventRecord; groups: UnifacGroups }
@@ -28,14 +36,18 @@ function librarySolventByCanonical(canonical: string): SolventRecord | undefined
     canonicalIndex = new Map();
     for (const solvent of SOLVENTS) {
       const parsed = parseStructure({ smiles: solvent.smiles });
-      if (parsed.ok && !canonicalIndex.has(parsed.canonicalSmiles)) canonicalIndex.set(parsed.canonicalSmiles, solvent);
+      if (parsed.ok && !canonicalIndex.has(parsed.canonicalSmiles))
+        canonicalIndex.set(parsed.canonicalSmiles, solvent);
     }
   }
   return canonicalIndex.get(canonical);
 }
 
 /** The library solvent a structure is, by string match then by canonical SMILES. */
-export function findLibrarySolvent(smiles: string, canonicalSmiles?: string): SolventRecord | undefined {
+export function findLibrarySolvent(
+  smiles: string,
+  canonicalSmiles?: string,
+): SolventRecord | undefined {
   const direct = solventBySmiles(smiles);
   if (direct) return direct;
   if (canonicalSmiles) return librarySolventByCanonical(canonicalSmiles);
@@ -52,10 +64,16 @@ export function resolveSmiles(smiles: string, label: string): ResolvedSmiles {
   const direct = solventBySmiles(smiles);
   if (direct) return { basis: 'library', smiles, solvent: direct, groups: direct.unifac.value };
   const parsed = parseStructure({ smiles });
-  if (!parsed.ok) throw unprocessable('structure_unparsable', `${capitalise(label)}: ${parsed.error}`);
+  if (!parsed.ok)
+    throw unprocessable('structure_unparsable', `${capitalise(label)}: ${parsed.error}`);
   const solvent = librarySolventByCanonical(parsed.canonicalSmiles);
   if (solvent) return { basis: 'library', smiles, solvent, groups: solvent.unifac.value };
-  return { basis: 'structure', smiles, canonicalSmiles: parsed.canonicalSmiles, assignment: assignUnifacGroups({ smiles }) };
+  return {
+    basis: 'structure',
+    smiles,
+    canonicalSmiles: parsed.canonicalSmiles,
+    assignment: assignUnifacGroups({ smiles }),
+  };
 }
 
 /**
@@ -66,18 +84,31 @@ export function groupsOf(component: ResolvedSmiles, label: string): UnifacGroups
   if (component.basis === 'library') return component.groups;
   const { assignment } = component;
   if (assignment.unassignedAtoms.length > 0) {
-    const atoms = assignment.unassignedAtoms.map((a) => `${a.element}${a.index + 1} (${a.reason})`).join('; ');
-    throw unprocessable('unifac_missing_parameters', `${capitalise(label)} (${component.smiles}): no UNIFAC group covers ${assignment.unassignedAtoms.length} atom(s): ${atoms}.`);
+    const atoms = assignment.unassignedAtoms
+      .map((a) => `${a.element}${a.index + 1} (${a.reason})`)
+      .join('; ');
+    throw unprocessable(
+      'unifac_missing_parameters',
+      `${capitalise(label)} (${component.smiles}): no UNIFAC group covers ${assignment.unassignedAtoms.length} atom(s): ${atoms}.`,
+    );
   }
   if (Object.keys(assignment.groups).length === 0) {
-    throw unprocessable('unifac_missing_parameters', `${capitalise(label)} (${component.smiles}): no UNIFAC groups could be assigned.`);
+    throw unprocessable(
+      'unifac_missing_parameters',
+      `${capitalise(label)} (${component.smiles}): no UNIFAC groups could be assigned.`,
+    );
   }
   return assignment.groups;
 }
 
 export function describeResolved(component: ResolvedSmiles): ResolvedComponent {
   return component.basis === 'library'
-    ? { smiles: component.smiles, basis: 'library', solventId: component.solvent.id, name: component.solvent.name }
+    ? {
+        smiles: component.smiles,
+        basis: 'library',
+        solventId: component.solvent.id,
+        name: component.solvent.name,
+      }
     : { smiles: component.smiles, basis: 'structure', solventId: null, name: null };
 }
 
@@ -93,11 +124,20 @@ export function presentSource(source: Source): ValueSource {
     ref: source.ref,
     status: source.status,
     ...(source.note ? { note: source.note } : {}),
-    ...(entry ? { citation: entry.citation, ...(entry.via ? { via: entry.via } : {}), ...(entry.url ? { url: entry.url } : {}) } : {}),
+    ...(entry
+      ? {
+          citation: entry.citation,
+          ...(entry.via ? { via: entry.via } : {}),
+          ...(entry.url ? { url: entry.url } : {}),
+        }
+      : {}),
   };
 }
 
-export const unifacSource = (): ValueSource => ({ ref: UNIFAC_PARAMETER_SOURCE.ref, status: UNIFAC_PARAMETER_SOURCE.status });
+export const unifacSource = (): ValueSource => ({
+  ref: UNIFAC_PARAMETER_SOURCE.ref,
+  status: UNIFAC_PARAMETER_SOURCE.status,
+});
 
 /** Source of structure-derived UNIFAC groups. */
 export const assignedGroupsSource = (): ValueSource => ({
@@ -118,12 +158,19 @@ export function mapEngineErrors<T>(run: () => T): T {
     if (error instanceof UnifacParameterError) {
       const pairs = error.gap.missingPairs.map((p) => `${p.names[0]}–${p.names[1]}`).join(', ');
       const unknown = error.gap.unknownSubgroups.join(', ');
-      const parts = [pairs ? `no interaction parameters for the main-group pair(s) ${pairs}` : '', unknown ? `unknown subgroup(s) ${unknown}` : ''].filter(Boolean);
-      throw unprocessable('unifac_missing_parameters', `UNIFAC cannot be evaluated: ${parts.join('; ') || error.message}.`);
+      const parts = [
+        pairs ? `no interaction parameters for the main-group pair(s) ${pairs}` : '',
+        unknown ? `unknown subgroup(s) ${unknown}` : '',
+      ].filter(Boolean);
+      throw unprocessable(
+        'unifac_missing_parameters',
+        `UNIFAC cannot be evaluated: ${parts.join('; ') || error.message}.`,
+      );
     }
     if (error instanceof EngineError) {
       if (error.code === 'no-vapour-pressure-data') throw unprocessable('no_data', error.message);
-      if (error.code === 'unifac-missing-parameters') throw unprocessable('unifac_missing_parameters', error.message);
+      if (error.code === 'unifac-missing-parameters')
+        throw unprocessable('unifac_missing_parameters', error.message);
       throw unprocessable('not_computable', error.message);
     }
     throw error;

@@ -4,8 +4,19 @@
  * group contributions) and mark it estimated, store, audit.
  */
 import type { Transaction } from 'sequelize';
-import { assignUnifacGroups, estimateHansen, parseStructure, type StructureInput } from '@shared/chemistry';
-import type { Compound as CompoundPayload, CompoundCreateInput, CompoundUpdateInput, StructurePreview, UnifacGroupCounts } from '@shared/schemas/compounds';
+import {
+  assignUnifacGroups,
+  estimateHansen,
+  parseStructure,
+  type StructureInput,
+} from '@shared/chemistry';
+import type {
+  Compound as CompoundPayload,
+  CompoundCreateInput,
+  CompoundUpdateInput,
+  StructurePreview,
+  UnifacGroupCounts,
+} from '@shared/schemas/compounds';
 import { compoundSnapshotSchema, type CompoundSnapshot } from '@shared/schemas/route';
 import type { ApiErrorDetail } from '@shared/schemas/errors';
 import { solventById, type UnifacGroups } from '@shared/engine/data';
@@ -42,22 +53,34 @@ interface DerivedStructure {
   canonicalSmiles: string;
   svg: string;
   librarySolventId: string | null;
-  automatic: { groups: UnifacGroupCounts; summary: Unifac['summary']; unassignedAtoms: Unifac['unassignedAtoms']; warnings: string[] };
+  automatic: {
+    groups: UnifacGroupCounts;
+    summary: Unifac['summary'];
+    unassignedAtoms: Unifac['unassignedAtoms'];
+    warnings: string[];
+  };
 }
 
-const toCounts = (groups: UnifacGroups): UnifacGroupCounts => Object.fromEntries(Object.entries(groups).map(([k, v]) => [String(k), v]));
-const fromCounts = (groups: UnifacGroupCounts): UnifacGroups => Object.fromEntries(Object.entries(groups).map(([k, v]) => [Number(k), v]));
+const toCounts = (groups: UnifacGroups): UnifacGroupCounts =>
+  Object.fromEntries(Object.entries(groups).map(([k, v]) => [String(k), v]));
+const fromCounts = (groups: UnifacGroupCounts): UnifacGroups =>
+  Object.fromEntries(Object.entries(groups).map(([k, v]) => [Number(k), v]));
 
-function structureInput(smiles: string | null | undefined, molfile: string | null | undefined): StructureInput {
+function structureInput(
+  smiles: string | null | undefined,
+  molfile: string | null | undefined,
+): StructureInput {
   return smiles?.trim() ? { smiles: smiles.trim() } : { molfile: molfile ?? '' };
 }
 
 /** Parses the structure; 422 structure_unparsable with the parser's message naming the problem. */
 export function deriveStructure(input: StructureInput, path = 'smiles'): DerivedStructure {
   const parsed = parseStructure(input);
-  if (!parsed.ok) throw unprocessable('structure_unparsable', parsed.error, [{ path, message: parsed.error }]);
+  if (!parsed.ok)
+    throw unprocessable('structure_unparsable', parsed.error, [{ path, message: parsed.error }]);
   const assignment = assignUnifacGroups(input);
-  const library = 'smiles' in input ? findLibrarySolvent(input.smiles, parsed.canonicalSmiles) : undefined;
+  const library =
+    'smiles' in input ? findLibrarySolvent(input.smiles, parsed.canonicalSmiles) : undefined;
   return {
     formula: parsed.formula,
     molarMassGmol: parsed.molarMassGmol,
@@ -66,7 +89,11 @@ export function deriveStructure(input: StructureInput, path = 'smiles'): Derived
     librarySolventId: library?.id ?? null,
     automatic: {
       groups: toCounts(assignment.groups),
-      summary: assignment.summary.map((s) => ({ subgroup: s.subgroup, name: s.name, count: s.count })),
+      summary: assignment.summary.map((s) => ({
+        subgroup: s.subgroup,
+        name: s.name,
+        count: s.count,
+      })),
       unassignedAtoms: assignment.unassignedAtoms,
       warnings: assignment.warnings,
     },
@@ -80,11 +107,20 @@ interface Estimates {
 }
 
 /** logP from UNIFAC (estimateLogPow) and Hansen parameters by Hoftyzer–Van Krevelen, where the groups allow. */
-function estimate(input: StructureInput, groups: UnifacGroupCounts, groupsComplete: boolean, want: { logP: boolean; hansen: boolean }): Estimates {
+function estimate(
+  input: StructureInput,
+  groups: UnifacGroupCounts,
+  groupsComplete: boolean,
+  want: { logP: boolean; hansen: boolean },
+): Estimates {
   const out: Estimates = { logP: null, hansen: null, notes: [] };
   if (want.logP) {
-    if (!groupsComplete) out.notes.push('logP not estimated: some atoms have no UNIFAC group. Edit the groups or enter a measured logP.');
-    else if (Object.keys(groups).length === 0) out.notes.push('logP not estimated: no UNIFAC groups.');
+    if (!groupsComplete)
+      out.notes.push(
+        'logP not estimated: some atoms have no UNIFAC group. Edit the groups or enter a measured logP.',
+      );
+    else if (Object.keys(groups).length === 0)
+      out.notes.push('logP not estimated: no UNIFAC groups.');
     else {
       try {
         const r = estimateLogPow(fromCounts(groups));
@@ -97,7 +133,12 @@ function estimate(input: StructureInput, groups: UnifacGroupCounts, groupsComple
   }
   if (want.hansen) {
     const r = estimateHansen(input, { kind: 'fedors' });
-    if (r.ok) out.hansen = { ...r.params, method: `${r.method}; molar volume by ${r.molarVolumeBasis}`, warnings: r.warnings };
+    if (r.ok)
+      out.hansen = {
+        ...r.params,
+        method: `${r.method}; molar volume by ${r.molarVolumeBasis}`,
+        warnings: r.warnings,
+      };
     else out.notes.push(`Hansen parameters not estimated: ${r.reason}`);
   }
   return out;
@@ -107,7 +148,10 @@ function estimate(input: StructureInput, groups: UnifacGroupCounts, groupsComple
 export function previewStructure(input: StructureInput): StructurePreview {
   const derived = deriveStructure(input, 'smiles' in input ? 'smiles' : 'molfile');
   const complete = derived.automatic.unassignedAtoms.length === 0;
-  const estimates = estimate(input, derived.automatic.groups, complete, { logP: true, hansen: true });
+  const estimates = estimate(input, derived.automatic.groups, complete, {
+    logP: true,
+    hansen: true,
+  });
   return {
     formula: derived.formula,
     molarMassGmol: derived.molarMassGmol,
@@ -145,30 +189,55 @@ interface CompoundState {
 function checkReferences(state: CompoundState): void {
   const details: ApiErrorDetail[] = [];
   state.solubility.forEach((p, i) => {
-    if (!solventById(p.solventId)) details.push({ path: `solubility.${i}.solventId`, message: `Unknown solvent "${p.solventId}": choose one from the solvent library.` });
+    if (!solventById(p.solventId))
+      details.push({
+        path: `solubility.${i}.solventId`,
+        message: `Unknown solvent "${p.solventId}": choose one from the solvent library.`,
+      });
   });
   state.partition.forEach((p, i) => {
     const s = solventById(p.organicSolventId);
-    if (!s) details.push({ path: `partition.${i}.organicSolventId`, message: `Unknown solvent "${p.organicSolventId}": choose one from the solvent library.` });
-    else if (s.waterMiscibility === 'miscible') details.push({ path: `partition.${i}.organicSolventId`, message: `${s.name} is miscible with water: a partition needs a second phase.` });
+    if (!s)
+      details.push({
+        path: `partition.${i}.organicSolventId`,
+        message: `Unknown solvent "${p.organicSolventId}": choose one from the solvent library.`,
+      });
+    else if (s.waterMiscibility === 'miscible')
+      details.push({
+        path: `partition.${i}.organicSolventId`,
+        message: `${s.name} is miscible with water: a partition needs a second phase.`,
+      });
   });
   for (const key of Object.keys(state.unifacEdited ?? {})) {
-    if (!UNIFAC_SUBGROUPS.has(Number(key))) details.push({ path: `unifacGroups.${key}`, message: `There is no UNIFAC subgroup ${key} in the parameter table.` });
+    if (!UNIFAC_SUBGROUPS.has(Number(key)))
+      details.push({
+        path: `unifacGroups.${key}`,
+        message: `There is no UNIFAC subgroup ${key} in the parameter table.`,
+      });
   }
   if (details.length > 0) throw validationFailed(details);
 }
 
-type Attributes = Omit<CompoundPayload, 'id' | 'workspaceId' | 'createdBy' | 'createdAt' | 'updatedAt'>;
+type Attributes = Omit<
+  CompoundPayload,
+  'id' | 'workspaceId' | 'createdBy' | 'createdAt' | 'updatedAt'
+>;
 
 function build(state: CompoundState): Attributes {
   checkReferences(state);
   const input = structureInput(state.smiles, state.molfile);
   const derived = deriveStructure(input, 'smiles' in input ? 'smiles' : 'molfile');
-  const edited = state.unifacEdited && Object.keys(state.unifacEdited).length > 0 ? state.unifacEdited : null;
+  const edited =
+    state.unifacEdited && Object.keys(state.unifacEdited).length > 0 ? state.unifacEdited : null;
   const groups = edited ?? derived.automatic.groups;
   const complete = edited !== null || derived.automatic.unassignedAtoms.length === 0;
-  const estimates = estimate(input, groups, complete, { logP: !state.logPMeasured, hansen: !state.hansenEntered });
-  const unifacWarnings = edited ? ['Groups edited by hand; the automatic assignment is kept for comparison in the history.'] : derived.automatic.warnings;
+  const estimates = estimate(input, groups, complete, {
+    logP: !state.logPMeasured,
+    hansen: !state.hansenEntered,
+  });
+  const unifacWarnings = edited
+    ? ['Groups edited by hand; the automatic assignment is kept for comparison in the history.']
+    : derived.automatic.warnings;
   return {
     name: state.name,
     role: state.role,
@@ -180,14 +249,24 @@ function build(state: CompoundState): Attributes {
     svg: derived.svg,
     pKa: state.pKa,
     logP: state.logPMeasured
-      ? { value: state.logPMeasured.value, source: 'measured', method: state.logPMeasured.method || 'measured (entered by the chemist)', warnings: [] }
+      ? {
+          value: state.logPMeasured.value,
+          source: 'measured',
+          method: state.logPMeasured.method || 'measured (entered by the chemist)',
+          warnings: [],
+        }
       : estimates.logP
         ? { ...estimates.logP, source: 'estimated' }
         : null,
     meltingPointC: state.meltingPointC,
     enthalpyFusionKJmol: state.enthalpyFusionKJmol,
     hansen: state.hansenEntered
-      ? { ...state.hansenEntered, source: 'entered', method: 'entered by the chemist', warnings: [] }
+      ? {
+          ...state.hansenEntered,
+          source: 'entered',
+          method: 'entered by the chemist',
+          warnings: [],
+        }
       : estimates.hansen
         ? { ...estimates.hansen, source: 'estimated' }
         : null,
@@ -230,10 +309,12 @@ function stateFromRecord(c: Compound): CompoundState {
     smiles: c.smiles,
     molfile: c.molfile,
     pKa: c.pKa,
-    logPMeasured: c.logP?.source === 'measured' ? { value: c.logP.value, method: c.logP.method } : null,
+    logPMeasured:
+      c.logP?.source === 'measured' ? { value: c.logP.value, method: c.logP.method } : null,
     meltingPointC: c.meltingPointC,
     enthalpyFusionKJmol: c.enthalpyFusionKJmol,
-    hansenEntered: c.hansen?.source === 'entered' ? { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } : null,
+    hansenEntered:
+      c.hansen?.source === 'entered' ? { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } : null,
     unifacEdited: c.unifac.source === 'edited' ? c.unifac.groups : null,
     solubility: c.solubility,
     partition: c.partition,
@@ -249,7 +330,8 @@ function applyPatch(state: CompoundState, patch: CompoundUpdateInput): CompoundS
     // A new structure replaces the old one, and a hand-edited group list made for the old one.
     next.smiles = patch.smiles?.trim() || null;
     next.molfile = patch.molfile?.trim() ? patch.molfile : null;
-    if (!next.smiles && !next.molfile) throw validationFailed([{ path: 'smiles', message: 'Enter a SMILES or paste a molfile.' }]);
+    if (!next.smiles && !next.molfile)
+      throw validationFailed([{ path: 'smiles', message: 'Enter a SMILES or paste a molfile.' }]);
     if (patch.unifacGroups === undefined) next.unifacEdited = null;
   }
   if (patch.pKa !== undefined) next.pKa = patch.pKa;
@@ -300,13 +382,29 @@ function auditView(c: Compound) {
 
 const includeCreator = [{ model: User, as: 'createdBy', required: false }];
 
-export async function listCompounds(workspaceId: string, transaction: Transaction | null): Promise<Compound[]> {
-  return Compound.findAll({ where: { workspaceId }, include: includeCreator, order: [['name', 'ASC']], transaction });
+export async function listCompounds(
+  workspaceId: string,
+  transaction: Transaction | null,
+): Promise<Compound[]> {
+  return Compound.findAll({
+    where: { workspaceId },
+    include: includeCreator,
+    order: [['name', 'ASC']],
+    transaction,
+  });
 }
 
 /** A compound of this workspace; another workspace's compound answers exactly like a missing one. */
-export async function loadCompound(workspaceId: string, compoundId: string, transaction: Transaction | null): Promise<Compound> {
-  const compound = await Compound.findOne({ where: { id: compoundId, workspaceId }, include: includeCreator, transaction });
+export async function loadCompound(
+  workspaceId: string,
+  compoundId: string,
+  transaction: Transaction | null,
+): Promise<Compound> {
+  const compound = await Compound.findOne({
+    where: { id: compoundId, workspaceId },
+    include: includeCreator,
+    transaction,
+  });
   if (!compound) throw notFound();
   return compound;
 }
@@ -316,32 +414,66 @@ export async function createCompound(
   transaction: Transaction | null,
 ): Promise<Compound> {
   const attributes = build(stateFromCreate(args.input));
-  const created = await Compound.create({ ...attributes, workspaceId: args.workspaceId, createdById: args.actorId }, { transaction });
+  const created = await Compound.create(
+    { ...attributes, workspaceId: args.workspaceId, createdById: args.actorId },
+    { transaction },
+  );
   const compound = await loadCompound(args.workspaceId, created.id, transaction);
   await recordAudit(
-    { workspaceId: args.workspaceId, actorId: args.actorId, action: 'compound.create', entityType: 'compound', entityId: compound.id, after: auditView(compound) },
+    {
+      workspaceId: args.workspaceId,
+      actorId: args.actorId,
+      action: 'compound.create',
+      entityType: 'compound',
+      entityId: compound.id,
+      after: auditView(compound),
+    },
     transaction,
   );
   return compound;
 }
 
-export async function updateCompound(compound: Compound, patch: CompoundUpdateInput, actorId: string | null, transaction: Transaction | null): Promise<Compound> {
+export async function updateCompound(
+  compound: Compound,
+  patch: CompoundUpdateInput,
+  actorId: string | null,
+  transaction: Transaction | null,
+): Promise<Compound> {
   const before = auditView(compound);
   const attributes = build(applyPatch(stateFromRecord(compound), patch));
   await compound.update(attributes, { transaction });
   const after = await loadCompound(compound.workspaceId as string, compound.id, transaction);
   await recordAudit(
-    { workspaceId: compound.workspaceId as string, actorId, action: 'compound.update', entityType: 'compound', entityId: compound.id, before, after: auditView(after) },
+    {
+      workspaceId: compound.workspaceId as string,
+      actorId,
+      action: 'compound.update',
+      entityType: 'compound',
+      entityId: compound.id,
+      before,
+      after: auditView(after),
+    },
     transaction,
   );
   return after;
 }
 
-export async function deleteCompound(compound: Compound, actorId: string | null, transaction: Transaction | null): Promise<void> {
+export async function deleteCompound(
+  compound: Compound,
+  actorId: string | null,
+  transaction: Transaction | null,
+): Promise<void> {
   const before = auditView(compound);
   await compound.destroy({ transaction });
   await recordAudit(
-    { workspaceId: compound.workspaceId as string, actorId, action: 'compound.delete', entityType: 'compound', entityId: compound.id, before },
+    {
+      workspaceId: compound.workspaceId as string,
+      actorId,
+      action: 'compound.delete',
+      entityType: 'compound',
+      entityId: compound.id,
+      before,
+    },
     transaction,
   );
 }
@@ -353,7 +485,8 @@ export async function deleteCompound(compound: Compound, actorId: string | null,
  */
 export function toCompoundSnapshot(compound: Compound | CompoundPayload): CompoundSnapshot {
   const c = compound instanceof Compound ? presentCompound(compound) : compound;
-  const groupsUsable = Object.keys(c.unifac.groups).length > 0 && c.unifac.unassignedAtoms.length === 0;
+  const groupsUsable =
+    Object.keys(c.unifac.groups).length > 0 && c.unifac.unassignedAtoms.length === 0;
   const methodNotes = [
     c.logP ? `logP ${c.logP.source}` : null,
     c.hansen ? `Hansen ${c.hansen.source}` : null,

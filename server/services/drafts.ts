@@ -30,7 +30,11 @@ export function evaluateDraft(document: DraftDocument): DraftEvaluation {
   if (document.steps.length === 0 || document.components.length === 0) {
     return {
       totals: null,
-      evaluationError: { code: 'route_incomplete', message: 'Add the components and at least one step to evaluate the route.', details: [] },
+      evaluationError: {
+        code: 'route_incomplete',
+        message: 'Add the components and at least one step to evaluate the route.',
+        details: [],
+      },
       warnings: [],
       stepCount,
     };
@@ -45,7 +49,12 @@ export function evaluateDraft(document: DraftDocument): DraftEvaluation {
   }
 }
 
-export async function createDraft(routeId: string, document: DraftDocument, userId: string, transaction: Transaction | null): Promise<RouteDraft> {
+export async function createDraft(
+  routeId: string,
+  document: DraftDocument,
+  userId: string,
+  transaction: Transaction | null,
+): Promise<RouteDraft> {
   const evaluation = evaluateDraft(document);
   return RouteDraft.create(
     {
@@ -97,7 +106,8 @@ export async function saveDraft(
   actorId: string,
   transaction: Transaction | null,
 ): Promise<{ draft: RouteDraft; evaluation: DraftEvaluation }> {
-  if (route.archivedAt) throw conflict('route_archived', 'This route is archived; unarchive it to edit its draft.');
+  if (route.archivedAt)
+    throw conflict('route_archived', 'This route is archived; unarchive it to edit its draft.');
   const draft = await lockDraft(route.id, transaction);
   if (draft.version !== input.baseVersion) throw draftConflict(draft);
   const evaluation = evaluateDraft(input.document);
@@ -124,7 +134,11 @@ export async function saveDraft(
       entityType: 'route',
       entityId: route.id,
       before,
-      after: { version: draft.version, stepCount: draft.stepCount, evaluated: evaluation.evaluationError === null },
+      after: {
+        version: draft.version,
+        stepCount: draft.stepCount,
+        evaluated: evaluation.evaluationError === null,
+      },
     },
     transaction,
   );

@@ -8,7 +8,12 @@ import type { KeyTotals } from '@shared/schemas/routes';
 import type { RouteDocument } from '@shared/schemas/route';
 import { EngineError } from '@shared/engine/errors';
 import { RouteValidationError, type RouteIssue } from '@shared/engine/route/errors';
-import { ENGINE_VERSION, evaluateRoute, PROCESS_SAFETY_NOTE, type RouteResult } from '@shared/engine/route/evaluate';
+import {
+  ENGINE_VERSION,
+  evaluateRoute,
+  PROCESS_SAFETY_NOTE,
+  type RouteResult,
+} from '@shared/engine/route/evaluate';
 import { AppError } from '../errors';
 
 export { ENGINE_VERSION, PROCESS_SAFETY_NOTE };
@@ -27,28 +32,46 @@ export class RouteEvaluationFailed extends AppError {
  */
 function issuePath(issue: RouteIssue, doc: RouteDocument, prefix: string): string {
   const field = issue.field.replace(/\[(\d+)\]/g, '.$1');
-  const index = issue.stepId === null ? -1 : doc.steps.findIndex((step) => step.id === issue.stepId);
+  const index =
+    issue.stepId === null ? -1 : doc.steps.findIndex((step) => step.id === issue.stepId);
   const inDocument = index < 0 || /^(steps|connections|components|referenceInput)\b/.test(field);
   const relative = inDocument ? field : `steps.${index}.${field}`;
   return [prefix, relative].filter(Boolean).join('.');
 }
 
 /** Describes why the document cannot be evaluated, with every issue on its step. */
-export function describeFailure(error: unknown, doc: RouteDocument, prefix = 'document'): RouteEvaluationError | null {
+export function describeFailure(
+  error: unknown,
+  doc: RouteDocument,
+  prefix = 'document',
+): RouteEvaluationError | null {
   if (error instanceof RouteValidationError) {
-    const details: RouteIssuePayload[] = error.issues.map((issue) => ({ ...issue, path: issuePath(issue, doc, prefix) }));
+    const details: RouteIssuePayload[] = error.issues.map((issue) => ({
+      ...issue,
+      path: issuePath(issue, doc, prefix),
+    }));
     const first = details[0];
-    const where = first ? (first.stepId ? `step "${first.stepId}", ${first.field}` : first.field) : '';
+    const where = first
+      ? first.stepId
+        ? `step "${first.stepId}", ${first.field}`
+        : first.field
+      : '';
     const more = details.length > 1 ? ` (and ${details.length - 1} more)` : '';
     return {
       code: 'route_invalid',
-      message: first ? `The route cannot be evaluated: ${where}: ${first.message}${more}` : 'The route cannot be evaluated.',
+      message: first
+        ? `The route cannot be evaluated: ${where}: ${first.message}${more}`
+        : 'The route cannot be evaluated.',
       details,
     };
   }
   if (error instanceof EngineError) {
     const stepId = (error.details as { stepId?: unknown } | undefined)?.stepId;
-    const issue: RouteIssue = { stepId: typeof stepId === 'string' ? stepId : null, field: 'params', message: error.message };
+    const issue: RouteIssue = {
+      stepId: typeof stepId === 'string' ? stepId : null,
+      field: 'params',
+      message: error.message,
+    };
     return {
       code: 'route_unevaluable',
       message: `The route cannot be evaluated: ${error.message}`,
@@ -59,7 +82,10 @@ export function describeFailure(error: unknown, doc: RouteDocument, prefix = 'do
 }
 
 /** Evaluates a schema-valid document; throws RouteEvaluationFailed (422) when the engine cannot. */
-export function evaluateDocument(doc: RouteDocument): { engineVersion: string; result: RouteResult } {
+export function evaluateDocument(doc: RouteDocument): {
+  engineVersion: string;
+  result: RouteResult;
+} {
   try {
     return { engineVersion: ENGINE_VERSION, result: evaluateRoute(doc) };
   } catch (error) {
@@ -71,7 +97,8 @@ export function evaluateDocument(doc: RouteDocument): { engineVersion: string; r
 
 /** The figures a routes list shows. */
 export function keyTotals(result: RouteResult): KeyTotals {
-  const finiteOrNull = (value: number | null) => (value === null || !Number.isFinite(value) ? null : value);
+  const finiteOrNull = (value: number | null) =>
+    value === null || !Number.isFinite(value) ? null : value;
   return {
     yieldPct: finiteOrNull(result.totals.yieldPct),
     purityPct: finiteOrNull(result.totals.purityWtPct),

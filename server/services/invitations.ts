@@ -25,17 +25,33 @@ export async function inviteMember(input: {
     include: [{ model: User, as: 'user', where: { email }, required: true }],
     transaction,
   });
-  if (alreadyMember) throw conflict('already_member', `${email} is already a member of this workspace.`);
+  if (alreadyMember)
+    throw conflict('already_member', `${email} is already a member of this workspace.`);
 
   const token = randomSecret();
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 24 * 3600_000);
   // A new invitation replaces any still-open one for the same address.
   await Invitation.update(
     { expiresAt: new Date() },
-    { where: { workspaceId: workspace.id, email, acceptedAt: null, expiresAt: { [Op.gt]: new Date() } }, transaction },
+    {
+      where: {
+        workspaceId: workspace.id,
+        email,
+        acceptedAt: null,
+        expiresAt: { [Op.gt]: new Date() },
+      },
+      transaction,
+    },
   );
   const invitation = await Invitation.create(
-    { workspaceId: workspace.id, invitedById: inviter.id, email, roles, tokenHash: sha256(token), expiresAt },
+    {
+      workspaceId: workspace.id,
+      invitedById: inviter.id,
+      email,
+      roles,
+      tokenHash: sha256(token),
+      expiresAt,
+    },
     { transaction },
   );
   await queueMail(
@@ -64,7 +80,10 @@ export async function inviteMember(input: {
 }
 
 /** Finds an open invitation by its token: 404 when unknown, 410 when used or expired. */
-export async function loadOpenInvitation(token: string, transaction: Transaction | null): Promise<Invitation> {
+export async function loadOpenInvitation(
+  token: string,
+  transaction: Transaction | null,
+): Promise<Invitation> {
   const invitation = await Invitation.findOne({
     where: { tokenHash: sha256(token) },
     include: [{ model: Workspace, as: 'workspace', required: true }],
@@ -72,8 +91,10 @@ export async function loadOpenInvitation(token: string, transaction: Transaction
     lock: transaction ? { level: transaction.LOCK.UPDATE, of: Invitation } : undefined,
   });
   if (!invitation) throw notFound('The invitation');
-  if (invitation.acceptedAt) throw gone('invitation_used', 'This invitation has already been used.');
-  if (invitation.expiresAt.getTime() <= Date.now()) throw gone('invitation_expired', 'This invitation has expired. Ask an admin for a new one.');
+  if (invitation.acceptedAt)
+    throw gone('invitation_used', 'This invitation has already been used.');
+  if (invitation.expiresAt.getTime() <= Date.now())
+    throw gone('invitation_expired', 'This invitation has expired. Ask an admin for a new one.');
   return invitation;
 }
 
@@ -99,11 +120,20 @@ export async function acceptInvitation(input: {
   } else {
     if (!input.name) throw validationFailed([{ path: 'name', message: 'Enter a name.' }]);
     user = await User.create(
-      { email: invitation.email, name: input.name, passwordHash: await hashPassword(input.password) },
+      {
+        email: invitation.email,
+        name: input.name,
+        passwordHash: await hashPassword(input.password),
+      },
       { transaction },
     );
   }
-  const membership = await addMember(invitation.workspaceId as string, user.id, invitation.roles, transaction);
+  const membership = await addMember(
+    invitation.workspaceId as string,
+    user.id,
+    invitation.roles,
+    transaction,
+  );
   await invitation.update({ acceptedAt: new Date() }, { transaction });
   await recordAudit(
     {

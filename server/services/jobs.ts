@@ -13,7 +13,11 @@ let boss: PgBoss | null = null;
 
 export async function startJobQueue(databaseUrl: string): Promise<PgBoss> {
   if (boss) return boss;
-  const instance = new PgBoss({ connectionString: databaseUrl, max: 4, application_name: 'phasewright-jobs' });
+  const instance = new PgBoss({
+    connectionString: databaseUrl,
+    max: 4,
+    application_name: 'phasewright-jobs',
+  });
   instance.on('error', (error) => console.error('[jobs]', error));
   await instance.start();
   for (const name of Object.values(QUEUES)) await instance.createQueue(name);

@@ -19,9 +19,17 @@ export interface MailSettings {
 }
 
 const escapeHtml = (value: string) =>
-  value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+  value.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  );
 
-function layout(title: string, paragraphs: string[], action: { label: string; url: string }, footer: string): string {
+function layout(
+  title: string,
+  paragraphs: string[],
+  action: { label: string; url: string },
+  footer: string,
+): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 12px">${escapeHtml(p)}</p>`).join('');
   return `<!doctype html><html><body style="font-family:sans-serif;color:#1f2a30;max-width:560px">
 <h1 style="font-size:18px">${escapeHtml(title)}</h1>${body}
@@ -47,18 +55,32 @@ export function invitationMail(input: {
     to: input.to,
     subject: `You are invited to ${input.workspaceName} on Phasewright`,
     text: `${lines.join('\n\n')}\n\n${input.url}\n\n${expiry}\nIf you did not expect this, ignore the message.\n`,
-    html: layout('Join a Phasewright workspace', lines, { label: 'Accept the invitation', url: input.url }, expiry),
+    html: layout(
+      'Join a Phasewright workspace',
+      lines,
+      { label: 'Accept the invitation', url: input.url },
+      expiry,
+    ),
   };
 }
 
 export function passwordResetMail(input: { to: string; name: string; url: string }): MailMessage {
-  const lines = [`Hello ${input.name},`, 'Someone asked to reset the password of your Phasewright account. Open the link to choose a new one.'];
-  const footer = 'The link works once and expires in 1 hour. If you did not ask for it, ignore this message; your password stays as it is.';
+  const lines = [
+    `Hello ${input.name},`,
+    'Someone asked to reset the password of your Phasewright account. Open the link to choose a new one.',
+  ];
+  const footer =
+    'The link works once and expires in 1 hour. If you did not ask for it, ignore this message; your password stays as it is.';
   return {
     to: input.to,
     subject: 'Reset your Phasewright password',
     text: `${lines.join('\n\n')}\n\n${input.url}\n\n${footer}\n`,
-    html: layout('Reset your password', lines, { label: 'Choose a new password', url: input.url }, footer),
+    html: layout(
+      'Reset your password',
+      lines,
+      { label: 'Choose a new password', url: input.url },
+      footer,
+    ),
   };
 }
 
@@ -66,8 +88,16 @@ export function passwordResetMail(input: { to: string; name: string; url: string
  * Queues a message for delivery. Mail is only ever sent by the worker, so a
  * mail server that is down delays messages instead of losing them.
  */
-export async function queueMail(message: MailMessage, transaction: Transaction | null): Promise<void> {
-  await enqueue(QUEUES.mailSend, message, { retryLimit: 8, retryDelay: 15, retryBackoff: true, expireInMinutes: 5 }, transaction);
+export async function queueMail(
+  message: MailMessage,
+  transaction: Transaction | null,
+): Promise<void> {
+  await enqueue(
+    QUEUES.mailSend,
+    message,
+    { retryLimit: 8, retryDelay: 15, retryBackoff: true, expireInMinutes: 5 },
+    transaction,
+  );
 }
 
 export function createMailTransport(settings: MailSettings): Transporter {
@@ -75,6 +105,16 @@ export function createMailTransport(settings: MailSettings): Transporter {
 }
 
 /** Delivers one message now; used by the mail.send worker. Throws so the job is retried. */
-export async function deliverMail(transport: Transporter, from: string, message: MailMessage): Promise<void> {
-  await transport.sendMail({ from, to: message.to, subject: message.subject, text: message.text, html: message.html });
+export async function deliverMail(
+  transport: Transporter,
+  from: string,
+  message: MailMessage,
+): Promise<void> {
+  await transport.sendMail({
+    from,
+    to: message.to,
+    subject: message.subject,
+    text: message.text,
+    html: message.html,
+  });
 }

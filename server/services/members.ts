@@ -8,14 +8,20 @@ import { recordAudit } from './audit';
  * Loads a workspace by id. Callers authorize next; a workspace the actor does
  * not belong to answers 404 there, exactly like one that does not exist.
  */
-export async function loadWorkspace(id: string, transaction: Transaction | null): Promise<Workspace> {
+export async function loadWorkspace(
+  id: string,
+  transaction: Transaction | null,
+): Promise<Workspace> {
   const workspace = await Workspace.findByPk(id, { transaction });
   // The generic message: a workspace the actor cannot see must answer exactly like a missing one.
   if (!workspace) throw notFound();
   return workspace;
 }
 
-export async function listMembers(workspaceId: string, transaction: Transaction | null): Promise<Membership[]> {
+export async function listMembers(
+  workspaceId: string,
+  transaction: Transaction | null,
+): Promise<Membership[]> {
   return Membership.findAll({
     where: { workspaceId },
     include: [{ model: User, as: 'user', required: true }],
@@ -24,7 +30,11 @@ export async function listMembers(workspaceId: string, transaction: Transaction 
   });
 }
 
-export async function loadMembership(workspaceId: string, userId: string, transaction: Transaction | null): Promise<Membership> {
+export async function loadMembership(
+  workspaceId: string,
+  userId: string,
+  transaction: Transaction | null,
+): Promise<Membership> {
   const membership = await Membership.findOne({
     where: { workspaceId, userId },
     include: [{ model: User, as: 'user', required: true }],
@@ -36,13 +46,23 @@ export async function loadMembership(workspaceId: string, userId: string, transa
   return membership;
 }
 
-async function assertAnotherAdminRemains(membership: Membership, transaction: Transaction | null): Promise<void> {
+async function assertAnotherAdminRemains(
+  membership: Membership,
+  transaction: Transaction | null,
+): Promise<void> {
   const otherAdmins = await Membership.count({
-    where: { workspaceId: membership.workspaceId, userId: { [Op.ne]: membership.userId }, roles: { [Op.contains]: ['admin'] } },
+    where: {
+      workspaceId: membership.workspaceId,
+      userId: { [Op.ne]: membership.userId },
+      roles: { [Op.contains]: ['admin'] },
+    },
     transaction,
   });
   if (otherAdmins === 0) {
-    throw conflict('last_admin', 'A workspace needs at least one admin. Make someone else admin first.');
+    throw conflict(
+      'last_admin',
+      'A workspace needs at least one admin. Make someone else admin first.',
+    );
   }
 }
 
@@ -53,7 +73,8 @@ export async function updateRoles(
   transaction: Transaction | null,
 ): Promise<Membership> {
   const before = [...membership.roles];
-  if (before.includes('admin') && !roles.includes('admin')) await assertAnotherAdminRemains(membership, transaction);
+  if (before.includes('admin') && !roles.includes('admin'))
+    await assertAnotherAdminRemains(membership, transaction);
   await membership.update({ roles }, { transaction });
   await recordAudit(
     {
@@ -70,7 +91,11 @@ export async function updateRoles(
   return membership;
 }
 
-export async function removeMember(membership: Membership, actorId: string, transaction: Transaction | null): Promise<void> {
+export async function removeMember(
+  membership: Membership,
+  actorId: string,
+  transaction: Transaction | null,
+): Promise<void> {
   if (membership.roles.includes('admin')) await assertAnotherAdminRemains(membership, transaction);
   await membership.destroy({ transaction });
   await recordAudit(

@@ -11,10 +11,19 @@ import type { Transaction } from 'sequelize';
 import type { RouteDocument } from '@shared/schemas/route';
 import type { Job, MonteCarloResult } from '@shared/schemas/jobs';
 import { parseRoute, prepareRoute, type PreparedRoute } from '@shared/engine/route/evaluate';
-import { runMonteCarloChunk, startMonteCarlo as startRun, summariseMonteCarlo } from '@shared/engine/route/monte-carlo';
+import {
+  runMonteCarloChunk,
+  startMonteCarlo as startRun,
+  summariseMonteCarlo,
+} from '@shared/engine/route/monte-carlo';
 import { notFound } from '../errors';
 import { EvaluationJob } from '../models';
-import { describeFailure, ENGINE_VERSION, PROCESS_SAFETY_NOTE, RouteEvaluationFailed } from './evaluation';
+import {
+  describeFailure,
+  ENGINE_VERSION,
+  PROCESS_SAFETY_NOTE,
+  RouteEvaluationFailed,
+} from './evaluation';
 import { enqueue, jobQueue } from './jobs';
 
 export const MONTE_CARLO_QUEUE = 'evaluation.monte-carlo';
@@ -33,7 +42,11 @@ let queueReady: Promise<void> | null = null;
 /** Creates the queue once per process (idempotent in pg-boss). */
 export function ensureMonteCarloQueue(): Promise<void> {
   queueReady ??= jobQueue()
-    .createQueue(MONTE_CARLO_QUEUE, { name: MONTE_CARLO_QUEUE, retryLimit: 1, expireInSeconds: 30 * 60 })
+    .createQueue(MONTE_CARLO_QUEUE, {
+      name: MONTE_CARLO_QUEUE,
+      retryLimit: 1,
+      expireInSeconds: 30 * 60,
+    })
     .catch((error: unknown) => {
       queueReady = null;
       throw error;
@@ -58,10 +71,26 @@ export async function startMonteCarlo(
 ): Promise<EvaluationJob> {
   const prepared = prepare(input.document);
   const { userId, ...stored } = input;
-  const job = await EvaluationJob.create({ userId, kind: 'monte-carlo', input: stored }, { transaction });
+  const job = await EvaluationJob.create(
+    { userId, kind: 'monte-carlo', input: stored },
+    { transaction },
+  );
   if (input.draws <= INLINE_MAX_DRAWS) {
-    const state = runMonteCarloChunk(prepared, startRun({ draws: input.draws, seed: input.seed }), input.draws);
-    await job.update({ status: 'done', progress: 1, result: summary(state), startedAt: new Date(), finishedAt: new Date() }, { transaction });
+    const state = runMonteCarloChunk(
+      prepared,
+      startRun({ draws: input.draws, seed: input.seed }),
+      input.draws,
+    );
+    await job.update(
+      {
+        status: 'done',
+        progress: 1,
+        result: summary(state),
+        startedAt: new Date(),
+        finishedAt: new Date(),
+      },
+      { transaction },
+    );
     return job;
   }
   await ensureMonteCarloQueue();
@@ -70,7 +99,11 @@ export async function startMonteCarlo(
 }
 
 function summary(state: ReturnType<typeof startRun>): MonteCarloResult {
-  return { ...summariseMonteCarlo(state), engineVersion: ENGINE_VERSION, processSafetyNote: PROCESS_SAFETY_NOTE };
+  return {
+    ...summariseMonteCarlo(state),
+    engineVersion: ENGINE_VERSION,
+    processSafetyNote: PROCESS_SAFETY_NOTE,
+  };
 }
 
 /** Runs one queued job to the end, writing progress as it goes. Safe to call again for a finished job. */
@@ -93,12 +126,19 @@ export async function runMonteCarloJob(jobId: string): Promise<void> {
       }
       await nextTurn();
     }
-    await job.update({ status: 'done', progress: 1, result: summary(state), finishedAt: new Date() });
+    await job.update({
+      status: 'done',
+      progress: 1,
+      result: summary(state),
+      finishedAt: new Date(),
+    });
   } catch (error) {
     const failure = describeFailure(error, input.document);
     await job.update({
       status: 'failed',
-      error: failure ? { code: failure.code, message: failure.message } : { code: 'internal_error', message: 'The run stopped on a server error.' },
+      error: failure
+        ? { code: failure.code, message: failure.message }
+        : { code: 'internal_error', message: 'The run stopped on a server error.' },
       finishedAt: new Date(),
     });
     if (!failure) console.error('[monte-carlo]', error);
@@ -109,9 +149,13 @@ export async function runMonteCarloJob(jobId: string): Promise<void> {
 export async function startMonteCarloWorker(pollSeconds: number): Promise<() => Promise<void>> {
   await ensureMonteCarloQueue();
   const boss = jobQueue();
-  await boss.work<{ jobId: string }>(MONTE_CARLO_QUEUE, { pollingIntervalSeconds: pollSeconds, batchSize: 1 }, async (jobs) => {
-    for (const job of jobs) await runMonteCarloJob(job.data.jobId);
-  });
+  await boss.work<{ jobId: string }>(
+    MONTE_CARLO_QUEUE,
+    { pollingIntervalSeconds: pollSeconds, batchSize: 1 },
+    async (jobs) => {
+      for (const job of jobs) await runMonteCarloJob(job.data.jobId);
+    },
+  );
   return async () => {
     await boss.offWork(MONTE_CARLO_QUEUE);
   };

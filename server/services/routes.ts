@@ -3,7 +3,15 @@
  * rename, move between projects, archive, duplicate. Callers load the
  * workspace and authorize first; a route of another workspace is not found.
  */
-import { Op, col, fn, literal, where as sqlWhere, type Transaction, type WhereOptions } from 'sequelize';
+import {
+  Op,
+  col,
+  fn,
+  literal,
+  where as sqlWhere,
+  type Transaction,
+  type WhereOptions,
+} from 'sequelize';
 import { emptyRouteDocument, type DraftDocument } from '@shared/schemas/routes';
 import { notFound } from '../errors';
 import { Project, Route, RouteDraft, User } from '../models';
@@ -29,10 +37,15 @@ export async function listRoutes(
   filter: { archived: boolean; q?: string },
   transaction: Transaction | null,
 ): Promise<Route[]> {
-  const conditions: WhereOptions[] = [{ workspaceId }, { archivedAt: filter.archived ? { [Op.ne]: null } : null }];
+  const conditions: WhereOptions[] = [
+    { workspaceId },
+    { archivedAt: filter.archived ? { [Op.ne]: null } : null },
+  ];
   if (filter.q) {
     const pattern = likePattern(filter.q);
-    conditions.push({ [Op.or]: [{ name: { [Op.iLike]: pattern } }, { '$project.name$': { [Op.iLike]: pattern } }] });
+    conditions.push({
+      [Op.or]: [{ name: { [Op.iLike]: pattern } }, { '$project.name$': { [Op.iLike]: pattern } }],
+    });
   }
   return Route.findAll({
     where: { [Op.and]: conditions },
@@ -50,26 +63,54 @@ export async function listRoutes(
 }
 
 /** A route of this workspace with its project, owner and draft; 404 otherwise. */
-export async function loadRoute(workspaceId: string, routeId: string, transaction: Transaction | null): Promise<Route> {
-  const route = await Route.findOne({ where: { id: routeId, workspaceId }, include: summaryIncludes(true), transaction });
+export async function loadRoute(
+  workspaceId: string,
+  routeId: string,
+  transaction: Transaction | null,
+): Promise<Route> {
+  const route = await Route.findOne({
+    where: { id: routeId, workspaceId },
+    include: summaryIncludes(true),
+    transaction,
+  });
   if (!route) throw notFound();
   return route;
 }
 
 /** The project of this name in the workspace (ignoring case), created when new. */
-async function projectNamed(workspaceId: string, name: string, transaction: Transaction | null): Promise<Project> {
-  const existing = await Project.findOne({ where: { workspaceId, [Op.and]: [sqlWhere(fn('lower', col('name')), name.toLowerCase())] }, transaction });
+async function projectNamed(
+  workspaceId: string,
+  name: string,
+  transaction: Transaction | null,
+): Promise<Project> {
+  const existing = await Project.findOne({
+    where: { workspaceId, [Op.and]: [sqlWhere(fn('lower', col('name')), name.toLowerCase())] },
+    transaction,
+  });
   if (existing) return existing;
   return Project.create({ workspaceId, name }, { transaction });
 }
 
 export async function createRoute(
-  input: { workspaceId: string; ownerId: string; name: string; projectName?: string; document?: DraftDocument },
+  input: {
+    workspaceId: string;
+    ownerId: string;
+    name: string;
+    projectName?: string;
+    document?: DraftDocument;
+  },
   transaction: Transaction | null,
 ): Promise<Route> {
-  const project = input.projectName ? await projectNamed(input.workspaceId, input.projectName, transaction) : null;
+  const project = input.projectName
+    ? await projectNamed(input.workspaceId, input.projectName, transaction)
+    : null;
   const route = await Route.create(
-    { workspaceId: input.workspaceId, projectId: project?.id ?? null, ownerId: input.ownerId, name: input.name },
+    {
+      workspaceId: input.workspaceId,
+      projectId: project?.id ?? null,
+      ownerId: input.ownerId,
+      name: input.name,
+    },
     { transaction },
   );
   const document = input.document ?? (emptyRouteDocument(input.name) as DraftDocument);
@@ -96,31 +137,53 @@ export async function updateRoute(
 ): Promise<Route> {
   const workspaceId = route.workspaceId as string;
   const audit = (action: string, before: unknown, after: unknown) =>
-    recordAudit({ workspaceId, actorId, action, entityType: 'route', entityId: route.id, before, after }, transaction);
+    recordAudit(
+      { workspaceId, actorId, action, entityType: 'route', entityId: route.id, before, after },
+      transaction,
+    );
 
   if (changes.name !== undefined && changes.name !== route.name) {
     await audit('route.rename', { name: route.name }, { name: changes.name });
     route.name = changes.name;
   }
   if (changes.projectName !== undefined) {
-    const project = changes.projectName === null ? null : await projectNamed(workspaceId, changes.projectName, transaction);
+    const project =
+      changes.projectName === null
+        ? null
+        : await projectNamed(workspaceId, changes.projectName, transaction);
     if ((project?.id ?? null) !== (route.projectId ?? null)) {
-      await audit('route.move', { project: route.project?.name ?? null }, { project: project?.name ?? null });
+      await audit(
+        'route.move',
+        { project: route.project?.name ?? null },
+        { project: project?.name ?? null },
+      );
       route.projectId = project?.id ?? null;
     }
   }
   if (changes.archived !== undefined && changes.archived !== (route.archivedAt !== null)) {
-    await audit(changes.archived ? 'route.archive' : 'route.unarchive', { archived: !changes.archived }, { archived: changes.archived });
+    await audit(
+      changes.archived ? 'route.archive' : 'route.unarchive',
+      { archived: !changes.archived },
+      { archived: changes.archived },
+    );
     route.archivedAt = changes.archived ? new Date() : null;
   }
   if (route.changed()) await route.save({ transaction });
   return loadRoute(workspaceId, route.id, transaction);
 }
 
-export async function duplicateRoute(route: Route, name: string | undefined, actorId: string, transaction: Transaction | null): Promise<Route> {
+export async function duplicateRoute(
+  route: Route,
+  name: string | undefined,
+  actorId: string,
+  transaction: Transaction | null,
+): Promise<Route> {
   const workspaceId = route.workspaceId as string;
   const copyName = name ?? `${route.name} (copy)`.slice(0, 200);
-  const copy = await Route.create({ workspaceId, projectId: route.projectId ?? null, ownerId: actorId, name: copyName }, { transaction });
+  const copy = await Route.create(
+    { workspaceId, projectId: route.projectId ?? null, ownerId: actorId, name: copyName },
+    { transaction },
+  );
   await createDraft(copy.id, route.draft!.document as DraftDocument, actorId, transaction);
   await recordAudit(
     {
@@ -136,8 +199,15 @@ export async function duplicateRoute(route: Route, name: string | undefined, act
   return loadRoute(workspaceId, copy.id, transaction);
 }
 
-export async function listProjects(workspaceId: string, transaction: Transaction | null): Promise<Array<{ id: string; name: string; routeCount: number }>> {
-  const projects = await Project.findAll({ where: { workspaceId }, order: [[fn('lower', col('name')), 'ASC']], transaction });
+export async function listProjects(
+  workspaceId: string,
+  transaction: Transaction | null,
+): Promise<Array<{ id: string; name: string; routeCount: number }>> {
+  const projects = await Project.findAll({
+    where: { workspaceId },
+    order: [[fn('lower', col('name')), 'ASC']],
+    transaction,
+  });
   const counts = (await Route.findAll({
     attributes: ['projectId', [fn('count', col('id')), 'count']],
     where: { workspaceId, archivedAt: null, projectId: { [Op.ne]: null } },
@@ -146,5 +216,9 @@ export async function listProjects(workspaceId: string, transaction: Transaction
     transaction,
   })) as unknown as Array<{ projectId: string; count: string }>;
   const byProject = new Map(counts.map((row) => [row.projectId, Number(row.count)]));
-  return projects.map((project) => ({ id: project.id, name: project.name, routeCount: byProject.get(project.id) ?? 0 }));
+  return projects.map((project) => ({
+    id: project.id,
+    name: project.name,
+    routeCount: byProject.get(project.id) ?? 0,
+  }));
 }

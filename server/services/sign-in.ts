@@ -40,6 +40,9 @@ async function recordFailure(userId: string): Promise<void> {
        failed_sign_ins = CASE WHEN failed_sign_ins + 1 >= :max THEN 0 ELSE failed_sign_ins + 1 END,
        updated_at = now()
      WHERE id = :userId`,
-    { replacements: { max: MAX_FAILED_SIGN_INS, minutes: LOCKOUT_MINUTES, userId }, type: QueryTypes.UPDATE },
+    {
+      replacements: { max: MAX_FAILED_SIGN_INS, minutes: LOCKOUT_MINUTES, userId },
+      type: QueryTypes.UPDATE,
+    },
   );
 }

@@ -1,6 +1,11 @@
 /** The solvent library as the API presents it: every value with its source. */
 import type { SolventDetail, SolventSummary, ValueSource } from '@shared/schemas/solvents';
-import { SOLVENT_DATA_VERSION, SOLVENTS, solventById, type SolventRecord } from '@shared/engine/data';
+import {
+  SOLVENT_DATA_VERSION,
+  SOLVENTS,
+  solventById,
+  type SolventRecord,
+} from '@shared/engine/data';
 import { notFound } from '../errors';
 import { presentSource, subgroupRows } from './components';
 
@@ -31,7 +36,8 @@ function sources(s: SolventRecord): Record<string, ValueSource> {
   };
   if (s.enthalpyVapKJmol) out.enthalpyVapKJmol = presentSource(s.enthalpyVapKJmol.source);
   if (s.molarVolumeCm3mol) out.molarVolumeCm3mol = presentSource(s.molarVolumeCm3mol.source);
-  if (s.waterMutualSolubility) out.waterMutualSolubility = presentSource(s.waterMutualSolubility.source);
+  if (s.waterMutualSolubility)
+    out.waterMutualSolubility = presentSource(s.waterMutualSolubility.source);
   if (s.dielectricConstant) out.dielectricConstant = presentSource(s.dielectricConstant.source);
   return out;
 }
@@ -64,7 +70,15 @@ export function presentSolventSummary(s: SolventRecord): SolventSummary {
 export function presentSolventDetail(s: SolventRecord): SolventDetail {
   return {
     ...presentSolventSummary(s),
-    antoine: s.antoine.map((set) => ({ form: set.form, A: set.A, B: set.B, C: set.C, TminK: set.TminK, TmaxK: set.TmaxK, source: presentSource(set.source) })),
+    antoine: s.antoine.map((set) => ({
+      form: set.form,
+      A: set.A,
+      B: set.B,
+      C: set.C,
+      TminK: set.TminK,
+      TmaxK: set.TmaxK,
+      source: presentSource(set.source),
+    })),
     enthalpyVapKJmol: s.enthalpyVapKJmol?.value ?? null,
     molarVolumeCm3mol: s.molarVolumeCm3mol?.value ?? null,
     densityPerK: s.density.value.dPerK ?? null,

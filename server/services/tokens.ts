@@ -18,8 +18,15 @@ export async function findUserByApiToken(token: string): Promise<User | null> {
   return record.user;
 }
 
-export async function listTokens(userId: string, transaction: Transaction | null): Promise<ApiToken[]> {
-  return ApiToken.findAll({ where: { userId, revokedAt: null }, order: [['createdAt', 'DESC']], transaction });
+export async function listTokens(
+  userId: string,
+  transaction: Transaction | null,
+): Promise<ApiToken[]> {
+  return ApiToken.findAll({
+    where: { userId, revokedAt: null },
+    order: [['createdAt', 'DESC']],
+    transaction,
+  });
 }
 
 /** Creates a token and returns its secret — the only time it exists outside the caller's hands. */
@@ -31,22 +38,43 @@ export async function createToken(
   const token = randomSecret(TOKEN_PREFIX);
   const record = await ApiToken.create({ userId, name, tokenHash: sha256(token) }, { transaction });
   await recordAudit(
-    { workspaceId: null, actorId: userId, action: 'token.created', entityType: 'api_token', entityId: record.id, after: { name } },
+    {
+      workspaceId: null,
+      actorId: userId,
+      action: 'token.created',
+      entityType: 'api_token',
+      entityId: record.id,
+      after: { name },
+    },
     transaction,
   );
   return { record, token };
 }
 
-export async function findActiveToken(id: string, transaction: Transaction | null): Promise<ApiToken> {
+export async function findActiveToken(
+  id: string,
+  transaction: Transaction | null,
+): Promise<ApiToken> {
   const record = await ApiToken.findOne({ where: { id, revokedAt: null }, transaction });
   if (!record) throw notFound(); // generic: another user's token must look missing
   return record;
 }
 
-export async function revokeToken(record: ApiToken, actorId: string, transaction: Transaction | null): Promise<void> {
+export async function revokeToken(
+  record: ApiToken,
+  actorId: string,
+  transaction: Transaction | null,
+): Promise<void> {
   await record.update({ revokedAt: new Date() }, { transaction });
   await recordAudit(
-    { workspaceId: null, actorId, action: 'token.revoked', entityType: 'api_token', entityId: record.id, before: { name: record.name } },
+    {
+      workspaceId: null,
+      actorId,
+      action: 'token.revoked',
+      entityType: 'api_token',
+      entityId: record.id,
+      before: { name: record.name },
+    },
     transaction,
   );
 }

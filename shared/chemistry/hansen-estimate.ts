@@ -86,7 +86,12 @@ function match(g: AtomGraph): { hits: Array<{ group: string; atoms: number[] }>;
   };
   // Benzene rings: mono-substituted → phenyl, di-substituted → phenylene.
   for (const ring of g.rings) {
-    if (!ring.aromatic || ring.atoms.length !== 6 || !ring.atoms.every((a) => el(a) === 'C' && !claimed.has(a))) continue;
+    if (
+      !ring.aromatic ||
+      ring.atoms.length !== 6 ||
+      !ring.atoms.every((a) => el(a) === 'C' && !claimed.has(a))
+    )
+      continue;
     const fused = ring.atoms.some((a) => g.rings.filter((r) => r.atoms.includes(a)).length > 1);
     if (fused) continue;
     const subst = ring.atoms.filter((a) => H(a) === 0).length;
@@ -98,7 +103,8 @@ function match(g: AtomGraph): { hits: Array<{ group: string; atoms: number[] }>;
     if (!ring.aromatic && ring.atoms.length >= 5) hits.push({ group: 'ring', atoms: [] });
   }
   for (const a of g.atoms) {
-    if (claimed.has(a) || (g.charge.get(a) ?? 0) !== 0 && el(a) !== 'N' && el(a) !== 'O') continue;
+    if (claimed.has(a) || ((g.charge.get(a) ?? 0) !== 0 && el(a) !== 'N' && el(a) !== 'O'))
+      continue;
     const e = el(a);
     if (e === 'C' && !g.aromatic.get(a)) {
       const dO = nb(a).find((x) => x.order === 2 && el(x.atom) === 'O' && nb(x.atom).length === 1);
@@ -106,7 +112,8 @@ function match(g: AtomGraph): { hits: Array<{ group: string; atoms: number[] }>;
         if (nb(a).some((x) => el(x.atom) === 'N')) continue; // amides: no increment here
         const sO = nb(a).find((x) => x.order === 1 && el(x.atom) === 'O' && !claimed.has(x.atom));
         if (sO && H(sO.atom) === 1) take('COOH', [a, dO.atom, sO.atom]);
-        else if (sO && H(sO.atom) === 0 && nb(sO.atom).length === 2) take('COO', [a, dO.atom, sO.atom]);
+        else if (sO && H(sO.atom) === 0 && nb(sO.atom).length === 2)
+          take('COO', [a, dO.atom, sO.atom]);
         else if (nb(a).filter((x) => el(x.atom) === 'C').length === 2) take('CO', [a, dO.atom]);
         else if (H(a) === 1 && nb(a).length === 2) take('CHO', [a, dO.atom]);
         continue;
@@ -167,7 +174,10 @@ function match(g: AtomGraph): { hits: Array<{ group: string; atoms: number[] }>;
  * Example: ethanol, V = 58.5 cm³/mol → δD = (420+270+210)/58.5 = 15.4,
  * δP = 500/58.5 = 8.5, δH = √(20000/58.5) = 18.5 MPa^0.5.
  */
-export function estimateHansen(structure: StructureInput, molarVolume: MolarVolumeInput): HansenEstimate {
+export function estimateHansen(
+  structure: StructureInput,
+  molarVolume: MolarVolumeInput,
+): HansenEstimate {
   const r = loadGraph(structure);
   if (!r.ok) return { ok: false, reason: r.error, groups: [], unassignedAtoms: [] };
   const { hits, left } = match(r.graph);
@@ -178,7 +188,12 @@ export function estimateHansen(structure: StructureInput, molarVolume: MolarVolu
     e.atoms.push(...h.atoms);
     counts.set(h.group, e);
   }
-  const groups = [...counts.entries()].map(([group, v]) => ({ group, name: HVK_GROUPS[group].name, count: v.count, atoms: v.atoms.sort((a, b) => a - b) }));
+  const groups = [...counts.entries()].map(([group, v]) => ({
+    group,
+    name: HVK_GROUPS[group].name,
+    count: v.count,
+    atoms: v.atoms.sort((a, b) => a - b),
+  }));
   if (left.length > 0) {
     return {
       ok: false,
@@ -187,7 +202,9 @@ export function estimateHansen(structure: StructureInput, molarVolume: MolarVolu
       unassignedAtoms: left.map((a) => ({
         index: a,
         element: r.graph.element.get(a) as string,
-        reason: r.graph.aromatic.get(a) ? 'aromatic atom outside a mono- or di-substituted benzene ring' : 'no group increment for this atom environment',
+        reason: r.graph.aromatic.get(a)
+          ? 'aromatic atom outside a mono- or di-substituted benzene ring'
+          : 'no group increment for this atom environment',
       })),
     };
   }
@@ -210,15 +227,28 @@ export function estimateHansen(structure: StructureInput, molarVolume: MolarVolu
   let basis: 'measured' | 'Fedors group increments';
   if (molarVolume.kind === 'measured') {
     if (!Number.isFinite(molarVolume.cm3mol) || molarVolume.cm3mol <= 0) {
-      return { ok: false, reason: `Molar volume must be a positive number of cm³/mol (got ${molarVolume.cm3mol}).`, groups, unassignedAtoms: [] };
+      return {
+        ok: false,
+        reason: `Molar volume must be a positive number of cm³/mol (got ${molarVolume.cm3mol}).`,
+        groups,
+        unassignedAtoms: [],
+      };
     }
     V = molarVolume.cm3mol;
     basis = 'measured';
   } else {
     V = Vf;
     basis = 'Fedors group increments';
-    warnings.push('Molar volume from Fedors increments (UNVERIFIED (memory)); a measured M/ρ is better.');
-    if (!(V > 0)) return { ok: false, reason: 'The Fedors molar volume came out non-positive; give a measured molar volume.', groups, unassignedAtoms: [] };
+    warnings.push(
+      'Molar volume from Fedors increments (UNVERIFIED (memory)); a measured M/ρ is better.',
+    );
+    if (!(V > 0))
+      return {
+        ok: false,
+        reason: 'The Fedors molar volume came out non-positive; give a measured molar volume.',
+        groups,
+        unassignedAtoms: [],
+      };
   }
   const params: HansenParams = { d: Fd / V, p: Math.sqrt(Fp2) / V, h: Math.sqrt(Eh / V) };
   return {
@@ -227,7 +257,8 @@ export function estimateHansen(structure: StructureInput, molarVolume: MolarVolu
     molarVolumeCm3mol: V,
     molarVolumeBasis: basis,
     groups,
-    method: 'Hoftyzer–Van Krevelen group contributions (Van Krevelen & te Nijenhuis, Properties of Polymers, 4th ed., 2009, ch. 7)',
+    method:
+      'Hoftyzer–Van Krevelen group contributions (Van Krevelen & te Nijenhuis, Properties of Polymers, 4th ed., 2009, ch. 7)',
     warnings,
   };
 }

@@ -12,7 +12,14 @@ import { Molecule } from 'openchemlib';
 export type StructureInput = { smiles: string } | { molfile: string };
 
 export type ParsedStructure =
-  | { ok: true; formula: string; molarMassGmol: number; canonicalSmiles: string; svg: string; atomCount: number }
+  | {
+      ok: true;
+      formula: string;
+      molarMassGmol: number;
+      canonicalSmiles: string;
+      svg: string;
+      atomCount: number;
+    }
   | { ok: false; error: string };
 
 /** Heavy-atom graph with implicit hydrogens, as the matchers use it. */
@@ -36,7 +43,10 @@ export interface AtomGraph {
 /** Strip openchemlib's internal class prefix ("Class$S19: SmilesParser: ...") from a message. */
 function cleanMessage(e: unknown): string {
   const raw = e instanceof Error ? e.message : String(e);
-  return raw.replace(/^Class\$\S+:\s*/, '').replace(/^SmilesParser:\s*/, 'SMILES: ').trim();
+  return raw
+    .replace(/^Class\$\S+:\s*/, '')
+    .replace(/^SmilesParser:\s*/, 'SMILES: ')
+    .trim();
 }
 
 /**
@@ -53,19 +63,23 @@ export function smilesBracketProblem(smiles: string): string | null {
     const ch = smiles[i];
     if (atomBracketAt >= 0) {
       if (ch === ']') atomBracketAt = -1;
-      else if (ch === '[') return `an atom bracket opened at position ${atomBracketAt + 1} is not closed before another opens at position ${i + 1}.`;
+      else if (ch === '[')
+        return `an atom bracket opened at position ${atomBracketAt + 1} is not closed before another opens at position ${i + 1}.`;
       continue;
     }
     if (ch === '[') atomBracketAt = i;
     else if (ch === ']') return `an atom bracket closes at position ${i + 1} without being opened.`;
     else if (ch === '(') openBranches.push(i);
     else if (ch === ')') {
-      if (openBranches.length === 0) return `a branch closes at position ${i + 1} without being opened.`;
+      if (openBranches.length === 0)
+        return `a branch closes at position ${i + 1} without being opened.`;
       openBranches.pop();
     }
   }
-  if (atomBracketAt >= 0) return `the atom bracket opened at position ${atomBracketAt + 1} is never closed.`;
-  if (openBranches.length > 0) return `the branch opened at position ${openBranches[openBranches.length - 1] + 1} is never closed.`;
+  if (atomBracketAt >= 0)
+    return `the atom bracket opened at position ${atomBracketAt + 1} is never closed.`;
+  if (openBranches.length > 0)
+    return `the branch opened at position ${openBranches[openBranches.length - 1] + 1} is never closed.`;
   return null;
 }
 
@@ -82,12 +96,14 @@ function load(input: StructureInput): { ok: true; mol: Molecule } | { ok: false;
     }
     // What openchemlib tolerates but a chemist did not mean.
     const bracketProblem = smilesBracketProblem(s);
-    if (bracketProblem) return { ok: false, error: `Cannot read the SMILES "${s}": ${bracketProblem}` };
+    if (bracketProblem)
+      return { ok: false, error: `Cannot read the SMILES "${s}": ${bracketProblem}` };
     return { ok: true, mol };
   }
   const m = input.molfile ?? '';
   if (m.trim().length === 0) return { ok: false, error: 'The molfile is empty.' };
-  if (m.length > 500_000) return { ok: false, error: 'The molfile is larger than 500 000 characters.' };
+  if (m.length > 500_000)
+    return { ok: false, error: 'The molfile is larger than 500 000 characters.' };
   try {
     const mol = Molecule.fromMolfile(m);
     if (mol.getAllAtoms() === 0) return { ok: false, error: 'The molfile contains no atoms.' };
@@ -125,7 +141,10 @@ export function parseStructure(input: StructureInput): ParsedStructure {
       atomCount: heavy,
     };
   } catch (e) {
-    return { ok: false, error: `The structure was read but could not be processed: ${cleanMessage(e)}` };
+    return {
+      ok: false,
+      error: `The structure was read but could not be processed: ${cleanMessage(e)}`,
+    };
   }
 }
 
@@ -134,7 +153,9 @@ export function parseStructure(input: StructureInput): ParsedStructure {
  *
  * @returns the graph, or the parse error
  */
-export function loadGraph(input: StructureInput): { ok: true; graph: AtomGraph } | { ok: false; error: string } {
+export function loadGraph(
+  input: StructureInput,
+): { ok: true; graph: AtomGraph } | { ok: false; error: string } {
   const r = load(input);
   if (!r.ok) return r;
   const mol = r.mol;
@@ -165,7 +186,8 @@ export function loadGraph(input: StructureInput): { ok: true; graph: AtomGraph }
   }
   const rs = mol.getRingSet();
   const rings: Array<{ atoms: number[]; aromatic: boolean }> = [];
-  for (let k = 0; k < rs.getSize(); k++) rings.push({ atoms: [...rs.getRingAtoms(k)], aromatic: rs.isAromatic(k) });
+  for (let k = 0; k < rs.getSize(); k++)
+    rings.push({ atoms: [...rs.getRingAtoms(k)], aromatic: rs.isAromatic(k) });
   // Fragments by a walk over heavy atoms.
   const seen = new Set<number>();
   let fragments = 0;
@@ -184,5 +206,8 @@ export function loadGraph(input: StructureInput): { ok: true; graph: AtomGraph }
       }
     }
   }
-  return { ok: true, graph: { atoms, element, hydrogens, charge, aromatic, ringSize, neighbours, rings, fragments } };
+  return {
+    ok: true,
+    graph: { atoms, element, hydrogens, charge, aromatic, ringSize, neighbours, rings, fragments },
+  };
 }

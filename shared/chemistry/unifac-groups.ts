@@ -68,7 +68,12 @@ function plainAlkyl(c: Ctx, a: number): boolean {
 }
 
 /** Pick a neighbour carbon for a group that includes it: CH3, then CH2, then CH (by `allowed`). */
-function pickAlkyl(c: Ctx, center: number, hs: number[], exclude: number[] = []): number | undefined {
+function pickAlkyl(
+  c: Ctx,
+  center: number,
+  hs: number[],
+  exclude: number[] = [],
+): number | undefined {
   for (const h of hs) {
     for (const n of nbrs(c, center)) {
       if (exclude.includes(n.atom)) continue;
@@ -79,7 +84,10 @@ function pickAlkyl(c: Ctx, center: number, hs: number[], exclude: number[] = [])
 }
 
 function doubleO(c: Ctx, a: number): number | undefined {
-  const n = nbrs(c, a).find((x) => x.order === 2 && el(c, x.atom) === 'O' && nbrs(c, x.atom).length === 1 && free(c, x.atom));
+  const n = nbrs(c, a).find(
+    (x) =>
+      x.order === 2 && el(c, x.atom) === 'O' && nbrs(c, x.atom).length === 1 && free(c, x.atom),
+  );
   return n?.atom;
 }
 
@@ -89,13 +97,16 @@ function wholeMolecule(c: Ctx): boolean {
   const count = (e: string) => g.atoms.filter((a) => el(c, a) === e).length;
   const totalH = g.atoms.reduce((s, a) => s + H(c, a), 0);
   const sig = (formula: Record<string, number>, h: number) =>
-    totalH === h && Object.entries(formula).every(([e, k]) => count(e) === k) && Object.values(formula).reduce((s, k) => s + k, 0) === n;
+    totalH === h &&
+    Object.entries(formula).every(([e, k]) => count(e) === k) &&
+    Object.values(formula).reduce((s, k) => s + k, 0) === n;
   if (g.atoms.some((a) => (g.charge.get(a) ?? 0) !== 0)) return false;
   const all = [...g.atoms];
   if (sig({ O: 1 }, 2)) return (claim(c, 16, all), true); // water
   if (sig({ C: 1, O: 1 }, 4)) return (claim(c, 15, all), true); // methanol
   if (sig({ C: 1, S: 2 }, 0)) return (claim(c, 58, all), true); // CS2
-  if (sig({ C: 1, O: 2 }, 2) && all.some((a) => el(c, a) === 'C' && doubleO(c, a) !== undefined)) return (claim(c, 43, all), true); // formic acid
+  if (sig({ C: 1, O: 2 }, 2) && all.some((a) => el(c, a) === 'C' && doubleO(c, a) !== undefined))
+    return (claim(c, 43, all), true); // formic acid
   if (sig({ C: 2, S: 1, O: 1 }, 6)) {
     const s = all.find((a) => el(c, a) === 'S') as number;
     if (nbrs(c, s).length === 3) return (claim(c, 67, all), true); // DMSO
@@ -103,12 +114,18 @@ function wholeMolecule(c: Ctx): boolean {
   if (sig({ C: 3, N: 1, O: 1 }, 7)) {
     const nAt = all.find((a) => el(c, a) === 'N') as number;
     const carbonyl = all.find((a) => el(c, a) === 'C' && doubleO(c, a) !== undefined);
-    if (carbonyl !== undefined && H(c, carbonyl) === 1 && nbrs(c, nAt).length === 3) return (claim(c, 72, all), true); // DMF
+    if (carbonyl !== undefined && H(c, carbonyl) === 1 && nbrs(c, nAt).length === 3)
+      return (claim(c, 72, all), true); // DMF
   }
   if (sig({ C: 5, N: 1, O: 1 }, 9)) {
     const nAt = all.find((a) => el(c, a) === 'N') as number;
     const carbonyl = all.find((a) => el(c, a) === 'C' && doubleO(c, a) !== undefined);
-    if (carbonyl !== undefined && c.g.ringSize.get(nAt) === 5 && nbrs(c, nAt).some((x) => H(c, x.atom) === 3)) return (claim(c, 85, all), true); // NMP
+    if (
+      carbonyl !== undefined &&
+      c.g.ringSize.get(nAt) === 5 &&
+      nbrs(c, nAt).some((x) => H(c, x.atom) === 3)
+    )
+      return (claim(c, 85, all), true); // NMP
   }
   if (sig({ C: 2, O: 2 }, 6)) {
     const os = all.filter((a) => el(c, a) === 'O');
@@ -137,7 +154,13 @@ function acids(c: Ctx): void {
     if (el(c, C) !== 'C' || arom(c, C) || !free(c, C)) continue;
     const o2 = doubleO(c, C);
     if (o2 === undefined) continue;
-    const oh = nbrs(c, C).find((x) => x.order === 1 && el(c, x.atom) === 'O' && H(c, x.atom) === 1 && nbrs(c, x.atom).length === 1);
+    const oh = nbrs(c, C).find(
+      (x) =>
+        x.order === 1 &&
+        el(c, x.atom) === 'O' &&
+        H(c, x.atom) === 1 &&
+        nbrs(c, x.atom).length === 1,
+    );
     if (!oh) continue;
     const carbonNbrs = nbrs(c, C).filter((x) => el(c, x.atom) === 'C');
     if (carbonNbrs.length === 1 && nbrs(c, C).length === 3) claim(c, 42, [C, o2, oh.atom]);
@@ -150,7 +173,13 @@ function esters(c: Ctx): void {
     const o2 = doubleO(c, C);
     if (o2 === undefined) continue;
     const oe = nbrs(c, C).find(
-      (x) => x.order === 1 && el(c, x.atom) === 'O' && free(c, x.atom) && H(c, x.atom) === 0 && nbrs(c, x.atom).length === 2 && nbrs(c, x.atom).every((y) => el(c, y.atom) === 'C'),
+      (x) =>
+        x.order === 1 &&
+        el(c, x.atom) === 'O' &&
+        free(c, x.atom) &&
+        H(c, x.atom) === 0 &&
+        nbrs(c, x.atom).length === 2 &&
+        nbrs(c, x.atom).every((y) => el(c, y.atom) === 'C'),
     );
     if (!oe) continue;
     const acyl = nbrs(c, C).filter((x) => x.atom !== o2 && x.atom !== oe.atom);
@@ -171,14 +200,21 @@ function amides(c: Ctx): void {
     if (el(c, C) !== 'C' || arom(c, C) || !free(c, C)) continue;
     const o2 = doubleO(c, C);
     if (o2 === undefined) continue;
-    const nn = nbrs(c, C).find((x) => x.order === 1 && el(c, x.atom) === 'N' && free(c, x.atom) && !arom(c, x.atom));
+    const nn = nbrs(c, C).find(
+      (x) => x.order === 1 && el(c, x.atom) === 'N' && free(c, x.atom) && !arom(c, x.atom),
+    );
     if (!nn) continue;
     const N = nn.atom;
     const others = nbrs(c, N).filter((x) => x.atom !== C);
     if (others.some((x) => x.order !== 1 || el(c, x.atom) !== 'C')) continue;
     const hN = H(c, N);
     const core = [C, o2, N];
-    if (H(c, C) === 1 && hN === 0 && others.length === 2 && others.every((x) => plainAlkyl(c, x.atom) && H(c, x.atom) === 2)) {
+    if (
+      H(c, C) === 1 &&
+      hN === 0 &&
+      others.length === 2 &&
+      others.every((x) => plainAlkyl(c, x.atom) && H(c, x.atom) === 2)
+    ) {
       claim(c, 73, core); // HCON(CH2)2
       continue;
     }
@@ -213,7 +249,11 @@ function carbonyls(c: Ctx): void {
     } else if (cn.length === 2) {
       const R = pickAlkyl(c, C, [3, 2]);
       if (R !== undefined) claim(c, H(c, R) === 3 ? 18 : 19, [R, C, o2]);
-      else c.reasons.set(C, 'ketone carbonyl with no CH3 or CH2 neighbour: no original UNIFAC subgroup');
+      else
+        c.reasons.set(
+          C,
+          'ketone carbonyl with no CH3 or CH2 neighbour: no original UNIFAC subgroup',
+        );
     }
   }
 }
@@ -227,8 +267,14 @@ function nitriles(c: Ctx): void {
     const R = pickAlkyl(c, C, [3, 2], [N]);
     if (R !== undefined) claim(c, H(c, R) === 3 ? 40 : 41, [R, C, N]);
     else {
-      c.reasons.set(C, 'nitrile on an aromatic, vinylic or branched carbon: no original UNIFAC subgroup assigned');
-      c.reasons.set(N, 'nitrile on an aromatic, vinylic or branched carbon: no original UNIFAC subgroup assigned');
+      c.reasons.set(
+        C,
+        'nitrile on an aromatic, vinylic or branched carbon: no original UNIFAC subgroup assigned',
+      );
+      c.reasons.set(
+        N,
+        'nitrile on an aromatic, vinylic or branched carbon: no original UNIFAC subgroup assigned',
+      );
     }
   }
 }
@@ -240,7 +286,12 @@ function heteroaromaticRings(c: Ctx): void {
     const hetero = ring.atoms.filter((a) => el(c, a) !== 'C');
     const carbons = ring.atoms.filter((a) => el(c, a) === 'C');
     const hC = carbons.reduce((s, a) => s + H(c, a), 0);
-    if (ring.atoms.length === 6 && hetero.length === 1 && el(c, hetero[0]) === 'N' && H(c, hetero[0]) === 0) {
+    if (
+      ring.atoms.length === 6 &&
+      hetero.length === 1 &&
+      el(c, hetero[0]) === 'N' &&
+      H(c, hetero[0]) === 0
+    ) {
       const sg = hC === 5 ? 37 : hC === 4 ? 38 : hC === 3 ? 39 : undefined;
       if (sg) claim(c, sg, [...ring.atoms]);
     } else if (ring.atoms.length === 5 && hetero.length === 1 && el(c, hetero[0]) === 'S') {
@@ -255,24 +306,46 @@ function amines(c: Ctx): void {
     if (el(c, N) !== 'N' || !free(c, N) || arom(c, N) || (c.g.charge.get(N) ?? 0) !== 0) continue;
     const nb = nbrs(c, N);
     if (!nb.every((x) => x.order === 1 && el(c, x.atom) === 'C')) continue;
-    if (nb.some((x) => doubleO(c, x.atom) !== undefined || !free(c, x.atom) && c.claimed.get(x.atom) !== undefined && nbrs(c, x.atom).some((y) => y.order === 2))) {
-      c.reasons.set(N, 'amide nitrogen with substituents that original UNIFAC amide groups do not cover (e.g. anilide, branched N-alkyl)');
-      for (const x of nb) if (doubleO(c, x.atom) !== undefined && free(c, x.atom)) c.reasons.set(x.atom, 'amide carbonyl with substituents that original UNIFAC amide groups do not cover');
+    if (
+      nb.some(
+        (x) =>
+          doubleO(c, x.atom) !== undefined ||
+          (!free(c, x.atom) &&
+            c.claimed.get(x.atom) !== undefined &&
+            nbrs(c, x.atom).some((y) => y.order === 2)),
+      )
+    ) {
+      c.reasons.set(
+        N,
+        'amide nitrogen with substituents that original UNIFAC amide groups do not cover (e.g. anilide, branched N-alkyl)',
+      );
+      for (const x of nb)
+        if (doubleO(c, x.atom) !== undefined && free(c, x.atom))
+          c.reasons.set(
+            x.atom,
+            'amide carbonyl with substituents that original UNIFAC amide groups do not cover',
+          );
       continue;
     }
     const h = H(c, N);
     if (h === 2 && nb.length === 1) {
       const C = nb[0].atom;
       if (arom(c, C) && free(c, C)) claim(c, 36, [C, N]);
-      else if (plainAlkyl(c, C) && H(c, C) >= 1 && H(c, C) <= 3) claim(c, ({ 3: 28, 2: 29, 1: 30 } as Record<number, number>)[H(c, C)], [C, N]);
+      else if (plainAlkyl(c, C) && H(c, C) >= 1 && H(c, C) <= 3)
+        claim(c, ({ 3: 28, 2: 29, 1: 30 } as Record<number, number>)[H(c, C)], [C, N]);
     } else if (h === 1 && nb.length === 2) {
       const C = pickAlkyl(c, N, [3, 2, 1]);
-      if (C !== undefined) claim(c, ({ 3: 31, 2: 32, 1: 33 } as Record<number, number>)[H(c, C)], [C, N]);
+      if (C !== undefined)
+        claim(c, ({ 3: 31, 2: 32, 1: 33 } as Record<number, number>)[H(c, C)], [C, N]);
     } else if (h === 0 && nb.length === 3) {
       const C = pickAlkyl(c, N, [3, 2]);
       if (C !== undefined) claim(c, H(c, C) === 3 ? 34 : 35, [C, N]);
     }
-    if (free(c, N)) c.reasons.set(N, 'amine nitrogen without a CH3/CH2/CH neighbour that original UNIFAC groups cover');
+    if (free(c, N))
+      c.reasons.set(
+        N,
+        'amine nitrogen without a CH3/CH2/CH neighbour that original UNIFAC groups cover',
+      );
   }
 }
 
@@ -283,15 +356,22 @@ function ethers(c: Ctx): void {
     if (nb.length !== 2 || !nb.every((x) => x.order === 1 && el(c, x.atom) === 'C')) continue;
     const inFiveRing = c.g.ringSize.get(O) === 5;
     if (inFiveRing) {
-      const C = nb.find((x) => plainAlkyl(c, x.atom) && H(c, x.atom) === 2 && (c.g.ringSize.get(x.atom) ?? 0) === 5);
+      const C = nb.find(
+        (x) => plainAlkyl(c, x.atom) && H(c, x.atom) === 2 && (c.g.ringSize.get(x.atom) ?? 0) === 5,
+      );
       if (C) {
         claim(c, 27, [C.atom, O]);
         continue;
       }
     }
     const C = pickAlkyl(c, O, [3, 2, 1]);
-    if (C !== undefined) claim(c, ({ 3: 24, 2: 25, 1: 26 } as Record<number, number>)[H(c, C)], [C, O]);
-    else c.reasons.set(O, 'ether oxygen between aromatic or quaternary carbons: no original UNIFAC subgroup');
+    if (C !== undefined)
+      claim(c, ({ 3: 24, 2: 25, 1: 26 } as Record<number, number>)[H(c, C)], [C, O]);
+    else
+      c.reasons.set(
+        O,
+        'ether oxygen between aromatic or quaternary carbons: no original UNIFAC subgroup',
+      );
   }
 }
 
@@ -305,7 +385,8 @@ function sulfur(c: Ctx): void {
       if (C !== undefined) claim(c, H(c, C) === 3 ? 59 : 60, [C, S]);
     } else if (H(c, S) === 0 && nb.length === 2) {
       const C = pickAlkyl(c, S, [3, 2, 1]);
-      if (C !== undefined) claim(c, ({ 3: 102, 2: 103, 1: 104 } as Record<number, number>)[H(c, C)], [C, S]);
+      if (C !== undefined)
+        claim(c, ({ 3: 102, 2: 103, 1: 104 } as Record<number, number>)[H(c, C)], [C, S]);
     }
   }
 }
@@ -321,7 +402,10 @@ function hydroxyls(c: Ctx): void {
     } else if (nbrs(c, C).every((x) => x.order === 1)) {
       claim(c, 14, [O]);
     } else {
-      c.reasons.set(O, 'enol or hemi-functional OH on an unsaturated carbon: no original UNIFAC subgroup');
+      c.reasons.set(
+        O,
+        'enol or hemi-functional OH on an unsaturated carbon: no original UNIFAC subgroup',
+      );
     }
   }
 }
@@ -351,8 +435,16 @@ function halogens(c: Ctx): void {
       continue;
     }
     if (!free(c, C) || cOrders.some((o) => o !== 1)) continue;
-    const same = nbrs(c, C).filter((x) => el(c, x.atom) === e).map((x) => x.atom);
-    const otherHal = nbrs(c, C).some((x) => HALOGENS.has(el(c, x.atom)) && el(c, x.atom) !== e && el(c, x.atom) !== 'Br' && el(c, x.atom) !== 'I');
+    const same = nbrs(c, C)
+      .filter((x) => el(c, x.atom) === e)
+      .map((x) => x.atom);
+    const otherHal = nbrs(c, C).some(
+      (x) =>
+        HALOGENS.has(el(c, x.atom)) &&
+        el(c, x.atom) !== e &&
+        el(c, x.atom) !== 'Br' &&
+        el(c, x.atom) !== 'I',
+    );
     if (otherHal || !same.every((a) => free(c, a))) continue;
     const h = H(c, C);
     const k = same.length;
@@ -405,7 +497,8 @@ function aromaticCarbons(c: Ctx): void {
       continue;
     }
     const R = pickAlkyl(c, a, [3, 2, 1]);
-    if (R !== undefined) claim(c, ({ 3: 11, 2: 12, 1: 13 } as Record<number, number>)[H(c, R)], [a, R]);
+    if (R !== undefined)
+      claim(c, ({ 3: 11, 2: 12, 1: 13 } as Record<number, number>)[H(c, R)], [a, R]);
     else claim(c, 10, [a]);
   }
 }
@@ -422,8 +515,10 @@ function alkyls(c: Ctx): void {
 
 function defaultReason(c: Ctx, a: number): string {
   const e = el(c, a);
-  if ((c.g.charge.get(a) ?? 0) !== 0) return 'charged atom (salt or zwitterion form): draw the neutral form to assign groups';
-  if (arom(c, a)) return `aromatic ${e} in a ring that original UNIFAC groups do not cover (e.g. furan, pyrrole, fused or substituted heteroaromatics)`;
+  if ((c.g.charge.get(a) ?? 0) !== 0)
+    return 'charged atom (salt or zwitterion form): draw the neutral form to assign groups';
+  if (arom(c, a))
+    return `aromatic ${e} in a ring that original UNIFAC groups do not cover (e.g. furan, pyrrole, fused or substituted heteroaromatics)`;
   switch (e) {
     case 'C':
       return 'carbon in a functional group that the original UNIFAC groups assigned here do not cover';
@@ -462,10 +557,16 @@ export function assignUnifacGroups(structure: StructureInput): UnifacAssignment 
   if (!r.ok) return { groups: {}, summary: [], unassignedAtoms: [], warnings: [r.error] };
   const c: Ctx = { g: r.graph, claimed: new Map(), hits: [], reasons: new Map() };
   const warnings: string[] = [];
-  if (r.graph.fragments > 1) warnings.push(`The structure has ${r.graph.fragments} disconnected parts (a salt or a mixture?); groups are summed over all parts.`);
+  if (r.graph.fragments > 1)
+    warnings.push(
+      `The structure has ${r.graph.fragments} disconnected parts (a salt or a mixture?); groups are summed over all parts.`,
+    );
   if (r.graph.atoms.some((a) => (r.graph.charge.get(a) ?? 0) !== 0)) {
-    const nitroLike = r.graph.atoms.every((a) => (r.graph.charge.get(a) ?? 0) === 0 || el(c, a) === 'N' || el(c, a) === 'O');
-    if (!nitroLike) warnings.push('The structure carries charges; UNIFAC describes neutral molecules.');
+    const nitroLike = r.graph.atoms.every(
+      (a) => (r.graph.charge.get(a) ?? 0) === 0 || el(c, a) === 'N' || el(c, a) === 'O',
+    );
+    if (!nitroLike)
+      warnings.push('The structure carries charges; UNIFAC describes neutral molecules.');
   }
   if (!wholeMolecule(c)) {
     nitro(c);
@@ -500,13 +601,16 @@ export function assignUnifacGroups(structure: StructureInput): UnifacAssignment 
       atoms: [...atoms].sort((x, y) => x - y),
     }));
   for (const s of summary) {
-    if (!UNIFAC_SUBGROUPS.has(s.subgroup)) warnings.push(`Subgroup ${s.subgroup} is not in the parameter table.`);
+    if (!UNIFAC_SUBGROUPS.has(s.subgroup))
+      warnings.push(`Subgroup ${s.subgroup} is not in the parameter table.`);
   }
   const unassignedAtoms = r.graph.atoms
     .filter((a) => !c.claimed.has(a))
     .map((a) => ({ index: a, element: el(c, a), reason: c.reasons.get(a) ?? defaultReason(c, a) }));
   if (unassignedAtoms.length > 0) {
-    warnings.push(`${unassignedAtoms.length} of ${r.graph.atoms.length} heavy atoms have no UNIFAC group; activity coefficients cannot be computed until they are assigned by hand.`);
+    warnings.push(
+      `${unassignedAtoms.length} of ${r.graph.atoms.length} heavy atoms have no UNIFAC group; activity coefficients cannot be computed until they are assigned by hand.`,
+    );
   }
   return { groups, summary, unassignedAtoms, warnings };
 }

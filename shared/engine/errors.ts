@@ -38,7 +38,10 @@ export interface UnifacParameterGap {
  * number is not known. Code 'unifac-missing-parameters'.
  */
 export class UnifacParameterError extends EngineError {
-  constructor(message: string, public gap: UnifacParameterGap) {
+  constructor(
+    message: string,
+    public gap: UnifacParameterGap,
+  ) {
     super('unifac-missing-parameters', message, gap);
     this.name = 'UnifacParameterError';
   }

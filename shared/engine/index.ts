@@ -1,7 +1,23 @@
 /** Public exports of the engine. Each area adds its own lines. */
-export { evaluateRoute, parseRoute, prepareRoute, evaluatePrepared, ENGINE_VERSION, PROCESS_SAFETY_NOTE, MASS_BALANCE_TOLERANCE } from './route/evaluate';
+export {
+  evaluateRoute,
+  parseRoute,
+  prepareRoute,
+  evaluatePrepared,
+  ENGINE_VERSION,
+  PROCESS_SAFETY_NOTE,
+  MASS_BALANCE_TOLERANCE,
+} from './route/evaluate';
 export type { RouteResult, RouteTotals, PurgeEntry, PreparedRoute } from './route/evaluate';
 export { RouteValidationError, type RouteIssue } from './route/errors';
 export type { Stream, StepResult } from './route/types';
-export { monteCarlo, monteCarloChunks, startMonteCarlo, runMonteCarloChunk, summariseMonteCarlo, type MonteCarloResult, type MonteCarloState } from './route/monte-carlo';
+export {
+  monteCarlo,
+  monteCarloChunks,
+  startMonteCarlo,
+  runMonteCarloChunk,
+  summariseMonteCarlo,
+  type MonteCarloResult,
+  type MonteCarloState,
+} from './route/monte-carlo';
 export { createRandom, type SeededRandom } from './random';

@@ -51,7 +51,10 @@ export function createRandom(seed: number | [number, number, number, number]): S
     for (let i = 0; i < 12; i++) step();
   }
   function step(): number {
-    a >>>= 0; b >>>= 0; c >>>= 0; d >>>= 0;
+    a >>>= 0;
+    b >>>= 0;
+    c >>>= 0;
+    d >>>= 0;
     const t = (((a + b) >>> 0) + d) >>> 0;
     d = (d + 1) >>> 0;
     a = b ^ (b >>> 9);

@@ -20,12 +20,20 @@ export const CALC_LIMITS = {
 const finite = () => z.number({ error: 'Enter a finite number.' });
 
 export const temperatureCSchema = finite()
-  .min(CALC_LIMITS.temperatureC[0], { message: `Temperature must be at least ${CALC_LIMITS.temperatureC[0]} °C.` })
-  .max(CALC_LIMITS.temperatureC[1], { message: `Temperature must be at most ${CALC_LIMITS.temperatureC[1]} °C.` });
+  .min(CALC_LIMITS.temperatureC[0], {
+    message: `Temperature must be at least ${CALC_LIMITS.temperatureC[0]} °C.`,
+  })
+  .max(CALC_LIMITS.temperatureC[1], {
+    message: `Temperature must be at most ${CALC_LIMITS.temperatureC[1]} °C.`,
+  });
 
 export const pressureKPaSchema = finite()
-  .min(CALC_LIMITS.pressureKPa[0], { message: `Pressure must be at least ${CALC_LIMITS.pressureKPa[0]} kPa.` })
-  .max(CALC_LIMITS.pressureKPa[1], { message: `Pressure must be at most ${CALC_LIMITS.pressureKPa[1]} kPa.` });
+  .min(CALC_LIMITS.pressureKPa[0], {
+    message: `Pressure must be at least ${CALC_LIMITS.pressureKPa[0]} kPa.`,
+  })
+  .max(CALC_LIMITS.pressureKPa[1], {
+    message: `Pressure must be at most ${CALC_LIMITS.pressureKPa[1]} kPa.`,
+  });
 
 export const smilesSchema = z
   .string({ error: 'Give the structure as a SMILES string.' })
@@ -42,12 +50,21 @@ const componentsSchema = z
   .max(CALC_LIMITS.maxComponents, { message: `At most ${CALC_LIMITS.maxComponents} components.` });
 
 const moleFractionsSchema = z
-  .array(finite().min(0, { message: 'A mole fraction cannot be negative.' }).max(1, { message: 'A mole fraction cannot exceed 1.' }))
+  .array(
+    finite()
+      .min(0, { message: 'A mole fraction cannot be negative.' })
+      .max(1, { message: 'A mole fraction cannot exceed 1.' }),
+  )
   .min(1, { message: 'Give at least one mole fraction.' })
-  .max(CALC_LIMITS.maxComponents, { message: `At most ${CALC_LIMITS.maxComponents} mole fractions.` });
+  .max(CALC_LIMITS.maxComponents, {
+    message: `At most ${CALC_LIMITS.maxComponents} mole fractions.`,
+  });
 
 /** One mole fraction per component, summing to 1 within 1e-6. */
-function checkComposition(value: { components: unknown[]; moleFractions: number[] }, ctx: z.RefinementCtx) {
+function checkComposition(
+  value: { components: unknown[]; moleFractions: number[] },
+  ctx: z.RefinementCtx,
+) {
   if (value.moleFractions.length !== value.components.length) {
     ctx.addIssue({
       code: 'custom',
@@ -58,7 +75,11 @@ function checkComposition(value: { components: unknown[]; moleFractions: number[
   }
   const sum = value.moleFractions.reduce((s, x) => s + x, 0);
   if (Math.abs(sum - 1) > CALC_LIMITS.fractionSumTolerance) {
-    ctx.addIssue({ code: 'custom', path: ['moleFractions'], message: `Mole fractions must sum to 1 (they sum to ${sum}).` });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['moleFractions'],
+      message: `Mole fractions must sum to 1 (they sum to ${sum}).`,
+    });
   }
 }
 
@@ -75,7 +96,9 @@ export type ResolvedComponent = z.infer<typeof resolvedComponentSchema>;
 
 // ----- vapour pressure ------------------------------------------------------
 
-export const vapourPressureRequestSchema = z.object({ component: componentRefSchema, temperatureC: temperatureCSchema }).strict();
+export const vapourPressureRequestSchema = z
+  .object({ component: componentRefSchema, temperatureC: temperatureCSchema })
+  .strict();
 export type VapourPressureRequest = z.infer<typeof vapourPressureRequestSchema>;
 export const vapourPressureReplySchema = z.object({
   pressureKPa: z.number(),
@@ -89,13 +112,22 @@ export type VapourPressureReply = z.infer<typeof vapourPressureReplySchema>;
 // ----- activity coefficients ----------------------------------------------
 
 export const activityCoefficientsRequestSchema = z
-  .object({ components: componentsSchema, moleFractions: moleFractionsSchema, temperatureC: temperatureCSchema })
+  .object({
+    components: componentsSchema,
+    moleFractions: moleFractionsSchema,
+    temperatureC: temperatureCSchema,
+  })
   .strict()
   .superRefine(checkComposition);
 export type ActivityCoefficientsRequest = z.infer<typeof activityCoefficientsRequestSchema>;
 export const activityCoefficientsReplySchema = z.object({
   activityCoefficients: z.array(z.number()),
-  groups: z.array(resolvedComponentSchema.extend({ subgroups: z.array(unifacGroupRowSchema), source: valueSourceSchema })),
+  groups: z.array(
+    resolvedComponentSchema.extend({
+      subgroups: z.array(unifacGroupRowSchema),
+      source: valueSourceSchema,
+    }),
+  ),
   method: z.string(),
   source: valueSourceSchema,
   warnings: warningsSchema,
@@ -105,7 +137,11 @@ export type ActivityCoefficientsReply = z.infer<typeof activityCoefficientsReply
 // ----- bubble point ---------------------------------------------------------
 
 export const bubblePointRequestSchema = z
-  .object({ components: componentsSchema, moleFractions: moleFractionsSchema, pressureKPa: pressureKPaSchema })
+  .object({
+    components: componentsSchema,
+    moleFractions: moleFractionsSchema,
+    pressureKPa: pressureKPaSchema,
+  })
   .strict()
   .superRefine(checkComposition);
 export type BubblePointRequest = z.infer<typeof bubblePointRequestSchema>;
@@ -124,7 +160,9 @@ export type BubblePointReply = z.infer<typeof bubblePointReplySchema>;
 
 export const azeotropeRequestSchema = z
   .object({
-    components: z.array(componentRefSchema).length(2, { message: 'The azeotrope search takes exactly two components.' }),
+    components: z
+      .array(componentRefSchema)
+      .length(2, { message: 'The azeotrope search takes exactly two components.' }),
     pressureKPa: pressureKPaSchema,
   })
   .strict();
@@ -145,27 +183,42 @@ export type AzeotropeReply = z.infer<typeof azeotropeReplySchema>;
 
 export const pKaEntrySchema = z
   .object({
-    value: finite().min(-10, { message: 'pKa must be at least −10.' }).max(30, { message: 'pKa must be at most 30.' }),
-    type: z.enum(['acid', 'base'], { error: "Type is 'acid' or 'base' (for a base, the pKa of its conjugate acid)." }),
+    value: finite()
+      .min(-10, { message: 'pKa must be at least −10.' })
+      .max(30, { message: 'pKa must be at most 30.' }),
+    type: z.enum(['acid', 'base'], {
+      error: "Type is 'acid' or 'base' (for a base, the pKa of its conjugate acid).",
+    }),
   })
   .strict();
 export type PKaEntry = z.infer<typeof pKaEntrySchema>;
 
-export const logPSchema = finite().min(-10, { message: 'log P must be at least −10.' }).max(15, { message: 'log P must be at most 15.' });
+export const logPSchema = finite()
+  .min(-10, { message: 'log P must be at least −10.' })
+  .max(15, { message: 'log P must be at most 15.' });
 
 export const partitionRequestSchema = z
   .object({
     solute: z
-      .object({ smiles: smilesSchema, pKa: z.array(pKaEntrySchema).max(6, { message: 'At most 6 pKa values.' }).optional(), logP: logPSchema.optional() })
+      .object({
+        smiles: smilesSchema,
+        pKa: z.array(pKaEntrySchema).max(6, { message: 'At most 6 pKa values.' }).optional(),
+        logP: logPSchema.optional(),
+      })
       .strict(),
     organic: componentRefSchema,
     aqueous: z
       .object({
-        pH: finite().min(-2, { message: 'pH must be at least −2.' }).max(16, { message: 'pH must be at most 16.' }).optional(),
+        pH: finite()
+          .min(-2, { message: 'pH must be at least −2.' })
+          .max(16, { message: 'pH must be at most 16.' })
+          .optional(),
         salt: z
           .object({
             name: z.string().trim().min(1, { message: 'Name the salt (e.g. nacl).' }).max(80),
-            molar: finite().min(0, { message: 'Salt concentration cannot be negative.' }).max(10, { message: 'Salt concentration must be at most 10 mol/L.' }),
+            molar: finite()
+              .min(0, { message: 'Salt concentration cannot be negative.' })
+              .max(10, { message: 'Salt concentration must be at most 10 mol/L.' }),
           })
           .strict()
           .optional(),
@@ -194,8 +247,12 @@ export const solubilityRequestSchema = z
     solute: z
       .object({
         smiles: smilesSchema.optional(),
-        meltingPointC: finite().min(-150, { message: 'Melting point must be at least −150 °C.' }).max(600, { message: 'Melting point must be at most 600 °C.' }),
-        enthalpyFusionKJmol: finite().positive({ message: 'Enthalpy of fusion must be positive.' }).max(500, { message: 'Enthalpy of fusion must be at most 500 kJ/mol.' }),
+        meltingPointC: finite()
+          .min(-150, { message: 'Melting point must be at least −150 °C.' })
+          .max(600, { message: 'Melting point must be at most 600 °C.' }),
+        enthalpyFusionKJmol: finite()
+          .positive({ message: 'Enthalpy of fusion must be positive.' })
+          .max(500, { message: 'Enthalpy of fusion must be at most 500 kJ/mol.' }),
       })
       .strict(),
     solvent: componentRefSchema.optional(),
@@ -216,13 +273,19 @@ export type SolubilityReply = z.infer<typeof solubilityReplySchema>;
 // ----- Hansen distance ------------------------------------------------------
 
 const hansenValue = (label: string, max: number) =>
-  finite().min(0, { message: `${label} cannot be negative.` }).max(max, { message: `${label} must be at most ${max} MPa^0.5.` });
+  finite()
+    .min(0, { message: `${label} cannot be negative.` })
+    .max(max, { message: `${label} must be at most ${max} MPa^0.5.` });
 
 export const hansenOperandSchema = z.union([
   componentRefSchema,
-  z.object({ d: hansenValue('δD', 40), p: hansenValue('δP', 40), h: hansenValue('δH', 50) }).strict(),
+  z
+    .object({ d: hansenValue('δD', 40), p: hansenValue('δP', 40), h: hansenValue('δH', 50) })
+    .strict(),
 ]);
-export const hansenDistanceRequestSchema = z.object({ a: hansenOperandSchema, b: hansenOperandSchema }).strict();
+export const hansenDistanceRequestSchema = z
+  .object({ a: hansenOperandSchema, b: hansenOperandSchema })
+  .strict();
 export type HansenDistanceRequest = z.infer<typeof hansenDistanceRequestSchema>;
 
 const hansenResolvedSchema = hansenTripleSchema.extend({

@@ -12,7 +12,9 @@ import { logPSchema, pKaEntrySchema } from './calc';
 import { unifacGroupRowSchema } from './solvents';
 
 export const COMPOUND_ROLES = ['product', 'impurity', 'reagent', 'by-product'] as const;
-export const compoundRoleSchema = z.enum(COMPOUND_ROLES, { error: 'Choose a role: product, impurity, reagent or by-product.' });
+export const compoundRoleSchema = z.enum(COMPOUND_ROLES, {
+  error: 'Choose a role: product, impurity, reagent or by-product.',
+});
 export type CompoundRole = z.infer<typeof compoundRoleSchema>;
 export const COMPOUND_ROLE_LABELS: Record<CompoundRole, string> = {
   product: 'Product',
@@ -21,7 +23,14 @@ export const COMPOUND_ROLE_LABELS: Record<CompoundRole, string> = {
   'by-product': 'By-product',
 };
 
-export const COMPOUND_LIMITS = { nameMax: 200, smilesMax: 2000, molfileMax: 500_000, notesMax: 2000, pointsMax: 200, pKaMax: 6 } as const;
+export const COMPOUND_LIMITS = {
+  nameMax: 200,
+  smilesMax: 2000,
+  molfileMax: 500_000,
+  notesMax: 2000,
+  pointsMax: 200,
+  pKaMax: 6,
+} as const;
 
 export const SOLUBILITY_UNITS = ['g/L', 'mg/mL', 'mole-fraction', 'wt%'] as const;
 
@@ -32,7 +41,9 @@ const solventIdSchema = z.string().trim().min(1, { message: 'Choose a solvent.' 
 export const compoundSolubilityPointSchema = z
   .object({
     solventId: solventIdSchema,
-    temperatureC: finite().min(-100, { message: 'At least −100 °C.' }).max(300, { message: 'At most 300 °C.' }),
+    temperatureC: finite()
+      .min(-100, { message: 'At least −100 °C.' })
+      .max(300, { message: 'At most 300 °C.' }),
     value: finite().positive({ message: 'Enter a positive value.' }),
     unit: z.enum(SOLUBILITY_UNITS, { error: 'Unit is g/L, mg/mL, mole-fraction or wt%.' }),
     source: z.string().trim().max(300).optional(),
@@ -44,8 +55,14 @@ export type CompoundSolubilityPoint = z.infer<typeof compoundSolubilityPointSche
 export const compoundPartitionPointSchema = z
   .object({
     organicSolventId: solventIdSchema,
-    pH: finite().min(-2, { message: 'pH at least −2.' }).max(16, { message: 'pH at most 16.' }).optional(),
-    temperatureC: finite().min(-100, { message: 'At least −100 °C.' }).max(300, { message: 'At most 300 °C.' }).optional(),
+    pH: finite()
+      .min(-2, { message: 'pH at least −2.' })
+      .max(16, { message: 'pH at most 16.' })
+      .optional(),
+    temperatureC: finite()
+      .min(-100, { message: 'At least −100 °C.' })
+      .max(300, { message: 'At most 300 °C.' })
+      .optional(),
     D: finite().positive({ message: 'D must be positive.' }),
     source: z.string().trim().max(300).optional(),
   })
@@ -55,15 +72,25 @@ export type CompoundPartitionPoint = z.infer<typeof compoundPartitionPointSchema
 /** UNIFAC subgroup counts keyed by subgroup number (Hansen et al. 1991 table). */
 export const unifacGroupCountsSchema = z.record(
   z.string().regex(/^\d+$/, { message: 'UNIFAC subgroup keys are subgroup numbers.' }),
-  z.number().int({ message: 'A group count is a whole number.' }).min(1, { message: 'A group count is at least 1.' }).max(100),
+  z
+    .number()
+    .int({ message: 'A group count is a whole number.' })
+    .min(1, { message: 'A group count is at least 1.' })
+    .max(100),
 );
 export type UnifacGroupCounts = z.infer<typeof unifacGroupCountsSchema>;
 
 const hansenEntrySchema = z
   .object({
-    d: finite().min(0, { message: 'δD cannot be negative.' }).max(40, { message: 'δD at most 40 MPa^0.5.' }),
-    p: finite().min(0, { message: 'δP cannot be negative.' }).max(40, { message: 'δP at most 40 MPa^0.5.' }),
-    h: finite().min(0, { message: 'δH cannot be negative.' }).max(50, { message: 'δH at most 50 MPa^0.5.' }),
+    d: finite()
+      .min(0, { message: 'δD cannot be negative.' })
+      .max(40, { message: 'δD at most 40 MPa^0.5.' }),
+    p: finite()
+      .min(0, { message: 'δP cannot be negative.' })
+      .max(40, { message: 'δP at most 40 MPa^0.5.' }),
+    h: finite()
+      .min(0, { message: 'δH cannot be negative.' })
+      .max(50, { message: 'δH at most 50 MPa^0.5.' }),
   })
   .strict();
 
@@ -72,15 +99,37 @@ const optionalNumber = <T extends z.ZodType>(schema: T) => schema.nullable().opt
 const compoundFields = {
   name: z.string().trim().min(1, { message: 'Enter a name.' }).max(COMPOUND_LIMITS.nameMax),
   /** SMILES; leave empty when a molfile is given. */
-  smiles: z.string().trim().max(COMPOUND_LIMITS.smilesMax, { message: 'The SMILES is longer than 2000 characters.' }).nullable().optional(),
+  smiles: z
+    .string()
+    .trim()
+    .max(COMPOUND_LIMITS.smilesMax, { message: 'The SMILES is longer than 2000 characters.' })
+    .nullable()
+    .optional(),
   /** MDL molfile (V2000 or V3000); used when no SMILES is given. */
-  molfile: z.string().max(COMPOUND_LIMITS.molfileMax, { message: 'The molfile is too large.' }).nullable().optional(),
+  molfile: z
+    .string()
+    .max(COMPOUND_LIMITS.molfileMax, { message: 'The molfile is too large.' })
+    .nullable()
+    .optional(),
   role: compoundRoleSchema,
-  pKa: z.array(pKaEntrySchema).max(COMPOUND_LIMITS.pKaMax, { message: 'At most 6 pKa values.' }).optional(),
+  pKa: z
+    .array(pKaEntrySchema)
+    .max(COMPOUND_LIMITS.pKaMax, { message: 'At most 6 pKa values.' })
+    .optional(),
   /** A measured logP; leave out (or null) to have it estimated. */
-  logP: z.object({ value: logPSchema, method: z.string().trim().max(200).optional() }).strict().nullable().optional(),
-  meltingPointC: optionalNumber(finite().min(-150, { message: 'At least −150 °C.' }).max(600, { message: 'At most 600 °C.' })),
-  enthalpyFusionKJmol: optionalNumber(finite().positive({ message: 'Must be positive.' }).max(500, { message: 'At most 500 kJ/mol.' })),
+  logP: z
+    .object({ value: logPSchema, method: z.string().trim().max(200).optional() })
+    .strict()
+    .nullable()
+    .optional(),
+  meltingPointC: optionalNumber(
+    finite().min(-150, { message: 'At least −150 °C.' }).max(600, { message: 'At most 600 °C.' }),
+  ),
+  enthalpyFusionKJmol: optionalNumber(
+    finite()
+      .positive({ message: 'Must be positive.' })
+      .max(500, { message: 'At most 500 kJ/mol.' }),
+  ),
   /** Entered Hansen parameters; leave out (or null) to have them estimated. */
   hansen: hansenEntrySchema.nullable().optional(),
   /** Edited UNIFAC groups; leave out (or null) to use the automatic assignment. */
@@ -90,7 +139,8 @@ const compoundFields = {
   notes: z.string().max(COMPOUND_LIMITS.notesMax).optional(),
 };
 
-const hasStructure = (v: { smiles?: string | null; molfile?: string | null }) => Boolean(v.smiles?.trim()) || Boolean(v.molfile?.trim());
+const hasStructure = (v: { smiles?: string | null; molfile?: string | null }) =>
+  Boolean(v.smiles?.trim()) || Boolean(v.molfile?.trim());
 
 export const compoundCreateSchema = z
   .object(compoundFields)
@@ -108,7 +158,11 @@ export const compoundUpdateSchema = z
   });
 export type CompoundUpdateInput = z.input<typeof compoundUpdateSchema>;
 
-export const unassignedAtomSchema = z.object({ index: z.number().int(), element: z.string(), reason: z.string() });
+export const unassignedAtomSchema = z.object({
+  index: z.number().int(),
+  element: z.string(),
+  reason: z.string(),
+});
 
 export const compoundSchema = z.object({
   id: z.string(),
@@ -124,12 +178,24 @@ export const compoundSchema = z.object({
   svg: z.string(),
   pKa: z.array(pKaEntrySchema),
   logP: z
-    .object({ value: z.number(), source: z.enum(['measured', 'estimated']), method: z.string(), warnings: z.array(z.string()) })
+    .object({
+      value: z.number(),
+      source: z.enum(['measured', 'estimated']),
+      method: z.string(),
+      warnings: z.array(z.string()),
+    })
     .nullable(),
   meltingPointC: z.number().nullable(),
   enthalpyFusionKJmol: z.number().nullable(),
   hansen: z
-    .object({ d: z.number(), p: z.number(), h: z.number(), source: z.enum(['entered', 'estimated']), method: z.string(), warnings: z.array(z.string()) })
+    .object({
+      d: z.number(),
+      p: z.number(),
+      h: z.number(),
+      source: z.enum(['entered', 'estimated']),
+      method: z.string(),
+      warnings: z.array(z.string()),
+    })
     .nullable(),
   unifac: z.object({
     groups: unifacGroupCountsSchema,
@@ -153,8 +219,23 @@ export const compoundListSchema = z.array(compoundSchema);
 // ----- structure preview ----------------------------------------------------
 
 export const structurePreviewRequestSchema = z.union([
-  z.object({ smiles: z.string().trim().min(1, { message: 'The SMILES is empty.' }).max(COMPOUND_LIMITS.smilesMax) }).strict(),
-  z.object({ molfile: z.string().min(1, { message: 'The molfile is empty.' }).max(COMPOUND_LIMITS.molfileMax) }).strict(),
+  z
+    .object({
+      smiles: z
+        .string()
+        .trim()
+        .min(1, { message: 'The SMILES is empty.' })
+        .max(COMPOUND_LIMITS.smilesMax),
+    })
+    .strict(),
+  z
+    .object({
+      molfile: z
+        .string()
+        .min(1, { message: 'The molfile is empty.' })
+        .max(COMPOUND_LIMITS.molfileMax),
+    })
+    .strict(),
 ]);
 export type StructurePreviewRequest = z.infer<typeof structurePreviewRequestSchema>;
 
@@ -172,8 +253,18 @@ export const structurePreviewSchema = z.object({
     warnings: z.array(z.string()),
   }),
   estimates: z.object({
-    logP: z.object({ value: z.number(), method: z.string(), warnings: z.array(z.string()) }).nullable(),
-    hansen: z.object({ d: z.number(), p: z.number(), h: z.number(), method: z.string(), warnings: z.array(z.string()) }).nullable(),
+    logP: z
+      .object({ value: z.number(), method: z.string(), warnings: z.array(z.string()) })
+      .nullable(),
+    hansen: z
+      .object({
+        d: z.number(),
+        p: z.number(),
+        h: z.number(),
+        method: z.string(),
+        warnings: z.array(z.string()),
+      })
+      .nullable(),
     /** Why an estimate is missing. */
     notes: z.array(z.string()),
   }),

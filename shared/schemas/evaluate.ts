@@ -42,7 +42,10 @@ export const routeTotalsSchema = z
     isolatedSolidKg: z.number(),
     yieldPct: z.number().nullable(),
     purityWtPct: z.number().nullable(),
-    purge: z.record(z.string(), z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() })),
+    purge: z.record(
+      z.string(),
+      z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),
+    ),
     solventUseLPerKg: z.number().nullable(),
     pmi: z.number().nullable(),
     eFactor: z.number().nullable(),
@@ -65,7 +68,14 @@ export const routeResultSchema = z
     order: z.array(z.string()),
     steps: z.record(z.string(), z.record(z.string(), z.unknown())),
     streams: z.record(z.string(), streamSchema),
-    terminals: z.array(z.object({ stepId: z.string(), port: z.string(), isolated: z.boolean(), stream: streamSchema })),
+    terminals: z.array(
+      z.object({
+        stepId: z.string(),
+        port: z.string(),
+        isolated: z.boolean(),
+        stream: streamSchema,
+      }),
+    ),
     totals: routeTotalsSchema,
     /** Every warning and caution, on its step (null for the route). */
     warnings: z.array(stepWarningSchema),

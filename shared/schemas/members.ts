@@ -4,7 +4,9 @@ import { emailSchema, newPasswordSchema, personNameSchema, roleSchema } from './
 const rolesSchema = z
   .array(roleSchema)
   .min(1, { message: 'Choose at least one role.' })
-  .refine((roles) => new Set(roles).size === roles.length, { message: 'Each role may appear once.' });
+  .refine((roles) => new Set(roles).size === roles.length, {
+    message: 'Each role may appear once.',
+  });
 
 export const memberSchema = z.object({
   userId: z.string(),

@@ -22,10 +22,7 @@ const finite = () => z.number().finite();
 /** A number with an optional ± range, bounded to [min, max]. */
 export function uncertain(min: number, max: number) {
   const plain = finite().min(min).max(max);
-  return z.union([
-    plain,
-    z.object({ value: plain, plusMinus: finite().nonnegative() }).strict(),
-  ]);
+  return z.union([plain, z.object({ value: plain, plusMinus: finite().nonnegative() }).strict()]);
 }
 export type Uncertain = number | { value: number; plusMinus: number };
 
@@ -53,7 +50,9 @@ export type Volume = z.infer<typeof volumeSchema>;
 
 // ----- components ---------------------------------------------------------
 
-export const pKaSchema = z.object({ value: finite().min(-10).max(30), type: z.enum(['acid', 'base']) }).strict();
+export const pKaSchema = z
+  .object({ value: finite().min(-10).max(30), type: z.enum(['acid', 'base']) })
+  .strict();
 
 /** UNIFAC subgroup counts keyed by subgroup number (Hansen et al. 1991 table). */
 export const unifacGroupsSchema = z.record(
@@ -101,7 +100,14 @@ export const compoundSnapshotSchema = z
     logP: finite().min(-10).max(15).optional(),
     pKa: z.array(pKaSchema).max(6).optional(),
     unifac: unifacGroupsSchema.optional(),
-    hansen: z.object({ d: finite().min(0).max(40), p: finite().min(0).max(40), h: finite().min(0).max(50) }).strict().optional(),
+    hansen: z
+      .object({
+        d: finite().min(0).max(40),
+        p: finite().min(0).max(40),
+        h: finite().min(0).max(50),
+      })
+      .strict()
+      .optional(),
     solubility: z.array(solubilityPointSchema).max(200).optional(),
     partition: z.array(partitionPointSchema).max(200).optional(),
     /** Free-text note, e.g. "invented demo compound". */
@@ -110,7 +116,9 @@ export const compoundSnapshotSchema = z
   .strict();
 export type CompoundSnapshot = z.infer<typeof compoundSnapshotSchema>;
 
-export const solventComponentSchema = z.object({ kind: z.literal('solvent'), id, solventId: id }).strict();
+export const solventComponentSchema = z
+  .object({ kind: z.literal('solvent'), id, solventId: id })
+  .strict();
 export const aqueousSoluteComponentSchema = z
   .object({ kind: z.literal('aqueous-solute'), id: id.optional(), soluteId: id })
   .strict();
@@ -159,7 +167,12 @@ const chargeEntrySchema = z.discriminatedUnion('kind', [
     })
     .strict(),
   z
-    .object({ kind: z.literal('aqueous'), soluteId: id, wtPct: uncertain(0, 60), volume: volumeSchema })
+    .object({
+      kind: z.literal('aqueous'),
+      soluteId: id,
+      wtPct: uncertain(0, 60),
+      volume: volumeSchema,
+    })
     .strict(),
 ]);
 
@@ -187,7 +200,9 @@ export const washParamsSchema = z
 export const extractionParamsSchema = washParamsSchema;
 
 const distillationCondition = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('pressure'), pressureMbar: uncertain(...RANGES.pressureMbar) }).strict(),
+  z
+    .object({ kind: z.literal('pressure'), pressureMbar: uncertain(...RANGES.pressureMbar) })
+    .strict(),
   z.object({ kind: z.literal('pot-temperature'), potTemperatureC: temperatureC }).strict(),
 ]);
 
@@ -204,7 +219,9 @@ export const distillationParamsSchema = z
           addVolume: volumeSchema,
         })
         .strict(),
-      z.object({ kind: z.literal('constant-volume'), addSolventId: id, addVolume: volumeSchema }).strict(),
+      z
+        .object({ kind: z.literal('constant-volume'), addSolventId: id, addVolume: volumeSchema })
+        .strict(),
     ]),
     condition: distillationCondition,
   })
@@ -215,10 +232,19 @@ export const crystallisationParamsSchema = z
     mode: z.discriminatedUnion('kind', [
       z.object({ kind: z.literal('cooling'), startC: temperatureC, endC: temperatureC }).strict(),
       z
-        .object({ kind: z.literal('antisolvent'), antisolventId: id, volume: volumeSchema, temperatureC })
+        .object({
+          kind: z.literal('antisolvent'),
+          antisolventId: id,
+          volume: volumeSchema,
+          temperatureC,
+        })
         .strict(),
       z
-        .object({ kind: z.literal('evaporative'), targetVolume: volumeSchema, pressureMbar: uncertain(...RANGES.pressureMbar) })
+        .object({
+          kind: z.literal('evaporative'),
+          targetVolume: volumeSchema,
+          pressureMbar: uncertain(...RANGES.pressureMbar),
+        })
         .strict(),
     ]),
     seeded: z.boolean(),
@@ -275,8 +301,14 @@ export const quenchParamsSchema = z
     /** The component the reagent reacts with. */
     reactsWith: id,
     /** Stoichiometric coefficients: reagent + substrate → products. */
-    stoichiometry: z.object({ reagent: finite().positive(), substrate: finite().positive() }).strict().default({ reagent: 1, substrate: 1 }),
-    products: z.array(z.object({ componentId: id, molPerMolSubstrate: finite().positive() }).strict()).max(10).default([]),
+    stoichiometry: z
+      .object({ reagent: finite().positive(), substrate: finite().positive() })
+      .strict()
+      .default({ reagent: 1, substrate: 1 }),
+    products: z
+      .array(z.object({ componentId: id, molPerMolSubstrate: finite().positive() }).strict())
+      .max(10)
+      .default([]),
     temperatureC,
     /** Reaction enthalpy, kJ per mol of substrate (negative = exothermic), if known. */
     reactionEnthalpyKJmol: finite().min(-2000).max(2000).optional(),
@@ -325,23 +357,51 @@ export interface KindPorts {
   outputs: readonly PortSpec[];
 }
 
-const p = (name: string, phase: PortPhase, required = true): PortSpec => ({ name, phase, required });
+const p = (name: string, phase: PortPhase, required = true): PortSpec => ({
+  name,
+  phase,
+  required,
+});
 
 /** The ports of every step kind, for the editor and the graph validation. */
 export const PORTS = {
   charge: { inputs: [p('feed', 'liquid', false)], outputs: [p('out', 'liquid')] },
-  wash: { inputs: [p('feed', 'liquid')], outputs: [p('organic', 'organic'), p('aqueous', 'aqueous')] },
-  extraction: { inputs: [p('feed', 'liquid')], outputs: [p('organic', 'organic'), p('aqueous', 'aqueous')] },
-  distillation: { inputs: [p('feed', 'liquid')], outputs: [p('pot', 'liquid'), p('distillate', 'liquid')] },
-  crystallisation: { inputs: [p('feed', 'slurry')], outputs: [p('slurry', 'slurry'), p('distillate', 'liquid')] },
-  filtration: { inputs: [p('slurry', 'slurry')], outputs: [p('cake', 'solid'), p('filtrate', 'liquid')] },
+  wash: {
+    inputs: [p('feed', 'liquid')],
+    outputs: [p('organic', 'organic'), p('aqueous', 'aqueous')],
+  },
+  extraction: {
+    inputs: [p('feed', 'liquid')],
+    outputs: [p('organic', 'organic'), p('aqueous', 'aqueous')],
+  },
+  distillation: {
+    inputs: [p('feed', 'liquid')],
+    outputs: [p('pot', 'liquid'), p('distillate', 'liquid')],
+  },
+  crystallisation: {
+    inputs: [p('feed', 'slurry')],
+    outputs: [p('slurry', 'slurry'), p('distillate', 'liquid')],
+  },
+  filtration: {
+    inputs: [p('slurry', 'slurry')],
+    outputs: [p('cake', 'solid'), p('filtrate', 'liquid')],
+  },
   drying: { inputs: [p('wet', 'solid')], outputs: [p('dry', 'solid'), p('vapour', 'vapour')] },
   quench: { inputs: [p('feed', 'liquid')], outputs: [p('out', 'liquid')] },
   'ph-adjust': { inputs: [p('feed', 'liquid')], outputs: [p('out', 'liquid')] },
-  'carbon-treatment': { inputs: [p('feed', 'liquid')], outputs: [p('out', 'liquid'), p('spent', 'solid')] },
-  'polish-filtration': { inputs: [p('feed', 'liquid')], outputs: [p('out', 'liquid'), p('retained', 'solid')] },
+  'carbon-treatment': {
+    inputs: [p('feed', 'liquid')],
+    outputs: [p('out', 'liquid'), p('spent', 'solid')],
+  },
+  'polish-filtration': {
+    inputs: [p('feed', 'liquid')],
+    outputs: [p('out', 'liquid'), p('retained', 'solid')],
+  },
   split: { inputs: [p('feed', 'liquid')], outputs: [p('a', 'liquid'), p('b', 'liquid')] },
-  merge: { inputs: [p('a', 'liquid'), p('b', 'liquid'), p('c', 'liquid', false)], outputs: [p('out', 'liquid')] },
+  merge: {
+    inputs: [p('a', 'liquid'), p('b', 'liquid'), p('c', 'liquid', false)],
+    outputs: [p('out', 'liquid')],
+  },
 } as const satisfies Record<string, KindPorts>;
 
 export type StepKind = keyof typeof PORTS;
@@ -363,14 +423,34 @@ export const stepSchema = z.discriminatedUnion('kind', [
   z.object({ ...stepBase, kind: z.literal('charge'), params: chargeParamsSchema }).strict(),
   z.object({ ...stepBase, kind: z.literal('wash'), params: washParamsSchema }).strict(),
   z.object({ ...stepBase, kind: z.literal('extraction'), params: extractionParamsSchema }).strict(),
-  z.object({ ...stepBase, kind: z.literal('distillation'), params: distillationParamsSchema }).strict(),
-  z.object({ ...stepBase, kind: z.literal('crystallisation'), params: crystallisationParamsSchema }).strict(),
+  z
+    .object({ ...stepBase, kind: z.literal('distillation'), params: distillationParamsSchema })
+    .strict(),
+  z
+    .object({
+      ...stepBase,
+      kind: z.literal('crystallisation'),
+      params: crystallisationParamsSchema,
+    })
+    .strict(),
   z.object({ ...stepBase, kind: z.literal('filtration'), params: filtrationParamsSchema }).strict(),
   z.object({ ...stepBase, kind: z.literal('drying'), params: dryingParamsSchema }).strict(),
   z.object({ ...stepBase, kind: z.literal('quench'), params: quenchParamsSchema }).strict(),
   z.object({ ...stepBase, kind: z.literal('ph-adjust'), params: phAdjustParamsSchema }).strict(),
-  z.object({ ...stepBase, kind: z.literal('carbon-treatment'), params: carbonTreatmentParamsSchema }).strict(),
-  z.object({ ...stepBase, kind: z.literal('polish-filtration'), params: polishFiltrationParamsSchema }).strict(),
+  z
+    .object({
+      ...stepBase,
+      kind: z.literal('carbon-treatment'),
+      params: carbonTreatmentParamsSchema,
+    })
+    .strict(),
+  z
+    .object({
+      ...stepBase,
+      kind: z.literal('polish-filtration'),
+      params: polishFiltrationParamsSchema,
+    })
+    .strict(),
   z.object({ ...stepBase, kind: z.literal('split'), params: splitParamsSchema }).strict(),
   z.object({ ...stepBase, kind: z.literal('merge'), params: mergeParamsSchema }).strict(),
 ]);

@@ -6,7 +6,13 @@
  * evaluation.
  */
 import { z } from 'zod';
-import { componentSchema, ROUTE_SCHEMA_VERSION, routeDocumentSchema, stepSchema, type RouteDocumentInput } from './route';
+import {
+  componentSchema,
+  ROUTE_SCHEMA_VERSION,
+  routeDocumentSchema,
+  stepSchema,
+  type RouteDocumentInput,
+} from './route';
 import { routeIssueSchema, stepWarningSchema } from './evaluate';
 
 export const ROUTE_NAME_MAX_LENGTH = 200;
@@ -34,8 +40,16 @@ export function emptyRouteDocument(name?: string): RouteDocumentInput {
   } as unknown as RouteDocumentInput;
 }
 
-export const routeNameSchema = z.string().trim().min(1, { message: 'Enter a name.' }).max(ROUTE_NAME_MAX_LENGTH);
-export const projectNameSchema = z.string().trim().min(1, { message: 'Enter a project name.' }).max(PROJECT_NAME_MAX_LENGTH);
+export const routeNameSchema = z
+  .string()
+  .trim()
+  .min(1, { message: 'Enter a name.' })
+  .max(ROUTE_NAME_MAX_LENGTH);
+export const projectNameSchema = z
+  .string()
+  .trim()
+  .min(1, { message: 'Enter a project name.' })
+  .max(PROJECT_NAME_MAX_LENGTH);
 
 export const personRefSchema = z.object({ id: z.string(), name: z.string() });
 export const projectRefSchema = z.object({ id: z.string(), name: z.string() });
@@ -114,9 +128,13 @@ export const updateRouteSchema = z
     projectName: projectNameSchema.nullable().optional(),
     archived: z.boolean().optional(),
   })
-  .refine((body) => body.name !== undefined || body.projectName !== undefined || body.archived !== undefined, {
-    message: 'Send at least one of name, projectName, archived.',
-  });
+  .refine(
+    (body) =>
+      body.name !== undefined || body.projectName !== undefined || body.archived !== undefined,
+    {
+      message: 'Send at least one of name, projectName, archived.',
+    },
+  );
 export type UpdateRouteInput = z.input<typeof updateRouteSchema>;
 
 export const duplicateRouteSchema = z.object({ name: routeNameSchema.optional() });

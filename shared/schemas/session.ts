@@ -1,5 +1,10 @@
 import { z } from 'zod';
-import { EMAIL_MAX_LENGTH, NAME_MAX_LENGTH, PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from './limits';
+import {
+  EMAIL_MAX_LENGTH,
+  NAME_MAX_LENGTH,
+  PASSWORD_MAX_LENGTH,
+  PASSWORD_MIN_LENGTH,
+} from './limits';
 
 export const ROLES = ['admin', 'chemist', 'reviewer', 'engineer'] as const;
 /** admin: manages members; chemist: authors routes; reviewer: reviews; engineer: scale-up engineer. */
@@ -76,7 +81,10 @@ export const sessionSchema = z.object({
 export type Session = z.infer<typeof sessionSchema>;
 
 export const changePasswordSchema = z.object({
-  currentPassword: z.string().min(1, { message: 'Enter your current password.' }).max(PASSWORD_MAX_LENGTH),
+  currentPassword: z
+    .string()
+    .min(1, { message: 'Enter your current password.' })
+    .max(PASSWORD_MAX_LENGTH),
   newPassword: newPasswordSchema,
 });
 export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;

@@ -4,7 +4,12 @@
  */
 import { z } from 'zod';
 
-export const GUIDE_CATEGORIES = ['recommended', 'problematic', 'hazardous', 'highly-hazardous'] as const;
+export const GUIDE_CATEGORIES = [
+  'recommended',
+  'problematic',
+  'hazardous',
+  'highly-hazardous',
+] as const;
 
 /** Where a value comes from: the bibliography id, its status, and the full citation where known. */
 export const valueSourceSchema = z.object({
@@ -35,7 +40,10 @@ export const solventSummarySchema = z.object({
   smiles: z.string(),
   cas: z.string(),
   molarMassGmol: z.number(),
-  ich: z.object({ class: z.union([z.literal(1), z.literal(2), z.literal(3)]).nullable(), limitPpm: z.number().nullable() }),
+  ich: z.object({
+    class: z.union([z.literal(1), z.literal(2), z.literal(3)]).nullable(),
+    limitPpm: z.number().nullable(),
+  }),
   boilingPointC: z.number(),
   meltingPointC: z.number(),
   densityGmL: z.number(),
@@ -73,7 +81,11 @@ export const solventDetailSchema = solventSummarySchema.extend({
   pdeMgDay: z.number().nullable(),
   dielectricConstant: z.number().nullable(),
   waterMutualSolubility: z
-    .object({ solventInWaterWtPct: z.number(), waterInSolventWtPct: z.number(), temperatureC: z.number() })
+    .object({
+      solventInWaterWtPct: z.number(),
+      waterInSolventWtPct: z.number(),
+      temperatureC: z.number(),
+    })
     .nullable(),
   dataVersion: z.string(),
 });

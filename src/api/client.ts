@@ -80,7 +80,11 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
     });
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
-    throw new ApiError(0, 'network_error', 'The server could not be reached. Check your connection and try again.');
+    throw new ApiError(
+      0,
+      'network_error',
+      'The server could not be reached. Check your connection and try again.',
+    );
   }
 
   const text = await response.text();
@@ -100,13 +104,21 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
       const { code, message, details } = parsed.data.error;
       throw new ApiError(response.status, code, message, details ?? []);
     }
-    throw new ApiError(response.status, 'unexpected_reply', `The server answered ${response.status} ${response.statusText}.`.trim());
+    throw new ApiError(
+      response.status,
+      'unexpected_reply',
+      `The server answered ${response.status} ${response.statusText}.`.trim(),
+    );
   }
 
   if (!options.schema) return undefined as Result<S>;
   const parsed = options.schema.safeParse(payload);
   if (!parsed.success) {
-    throw new ApiError(response.status, 'invalid_reply', 'The server sent a reply this page does not understand. Reload and try again.');
+    throw new ApiError(
+      response.status,
+      'invalid_reply',
+      'The server sent a reply this page does not understand. Reload and try again.',
+    );
   }
   return parsed.data as Result<S>;
 }

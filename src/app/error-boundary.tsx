@@ -25,9 +25,14 @@ export function CrashPage({ message }: { message?: string }) {
     <main className="mx-auto mt-24 max-w-form px-6">
       <h1 className="text-heading font-semibold text-ink">Something went wrong</h1>
       <p className="mt-2 text-body text-ink-muted">
-        The page stopped on an unexpected error. Your saved work is on the server; reloading usually helps.
+        The page stopped on an unexpected error. Your saved work is on the server; reloading usually
+        helps.
       </p>
-      {message ? <pre className="mt-3 overflow-x-auto rounded-control bg-paper-sunken p-3 text-small text-ink">{message}</pre> : null}
+      {message ? (
+        <pre className="mt-3 overflow-x-auto rounded-control bg-paper-sunken p-3 text-small text-ink">
+          {message}
+        </pre>
+      ) : null}
       <button
         type="button"
         onClick={() => window.location.reload()}

@@ -14,7 +14,8 @@ export function createQueryClient() {
         staleTime: 15_000,
         refetchOnWindowFocus: false,
         // Answers that will not change on a retry are shown at once.
-        retry: (count, error) => !(isApiError(error) && error.status >= 400 && error.status < 500) && count < 2,
+        retry: (count, error) =>
+          !(isApiError(error) && error.status >= 400 && error.status < 500) && count < 2,
       },
     },
   });

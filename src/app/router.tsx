@@ -19,7 +19,10 @@ export function createAppRouter() {
             { path: paths.signIn.pattern, lazy: () => import('@/routes/sign-in') },
             { path: paths.requestReset.pattern, lazy: () => import('@/routes/request-reset') },
             { path: paths.completeReset.pattern, lazy: () => import('@/routes/complete-reset') },
-            { path: paths.acceptInvitation.pattern, lazy: () => import('@/routes/accept-invitation') },
+            {
+              path: paths.acceptInvitation.pattern,
+              lazy: () => import('@/routes/accept-invitation'),
+            },
           ],
         },
         {
@@ -33,9 +36,15 @@ export function createAppRouter() {
               lazy: () => import('./layouts/workspace-layout'),
               children: [
                 { index: true, lazy: () => import('@/routes/routes-list') },
-                { path: paths.workspace.route.pattern, lazy: () => import('@/routes/route-editor') },
+                {
+                  path: paths.workspace.route.pattern,
+                  lazy: () => import('@/routes/route-editor'),
+                },
                 { path: paths.workspace.members.pattern, lazy: () => import('@/routes/members') },
-                { path: paths.workspace.compounds.pattern, lazy: () => import('@/routes/compounds') },
+                {
+                  path: paths.workspace.compounds.pattern,
+                  lazy: () => import('@/routes/compounds'),
+                },
                 { path: paths.workspace.solvents.pattern, lazy: () => import('@/routes/solvents') },
               ],
             },

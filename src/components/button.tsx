@@ -15,7 +15,8 @@ const variants: Record<Variant, string> = {
   primary: 'bg-accent text-ink-inverse hover:bg-accent-deep border border-accent-deep/40',
   secondary: 'bg-paper-raised text-ink border border-rule-strong hover:bg-paper-sunken',
   quiet: 'bg-transparent text-accent hover:bg-accent-soft border border-transparent',
-  danger: 'bg-caution-hazard text-ink-inverse hover:bg-caution-hazard-deep border border-caution-hazard-deep/40',
+  danger:
+    'bg-caution-hazard text-ink-inverse hover:bg-caution-hazard-deep border border-caution-hazard-deep/40',
 };
 
 const sizes: Record<Size, string> = {
@@ -35,7 +36,17 @@ type ButtonProps = ButtonHTMLAttributes<HTMLButtonElement> & {
   icon?: ReactNode;
 };
 
-export function Button({ variant = 'primary', size = 'md', busy, icon, className, children, disabled, type, ...rest }: ButtonProps) {
+export function Button({
+  variant = 'primary',
+  size = 'md',
+  busy,
+  icon,
+  className,
+  children,
+  disabled,
+  type,
+  ...rest
+}: ButtonProps) {
   return (
     <button
       type={type ?? 'button'}
@@ -50,6 +61,11 @@ export function Button({ variant = 'primary', size = 'md', busy, icon, className
   );
 }
 
-export function ButtonLink({ variant = 'secondary', size = 'md', className, ...rest }: LinkProps & { variant?: Variant; size?: Size }) {
+export function ButtonLink({
+  variant = 'secondary',
+  size = 'md',
+  className,
+  ...rest
+}: LinkProps & { variant?: Variant; size?: Size }) {
   return <Link className={buttonClass(variant, size, className)} {...rest} />;
 }

@@ -1,7 +1,13 @@
 import type { ReactNode } from 'react';
 import { cn } from './cn';
 
-type CardProps = { title?: string; description?: ReactNode; actions?: ReactNode; children: ReactNode; className?: string };
+type CardProps = {
+  title?: string;
+  description?: ReactNode;
+  actions?: ReactNode;
+  children: ReactNode;
+  className?: string;
+};
 
 export function Card({ title, description, actions, children, className }: CardProps) {
   return (

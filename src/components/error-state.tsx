@@ -4,7 +4,13 @@ import { Button } from './button';
 import { cn } from './cn';
 
 /** A failed load: says what went wrong in plain words and offers a retry. */
-export function ErrorState({ error, title = 'This could not be loaded', onRetry, children, className }: {
+export function ErrorState({
+  error,
+  title = 'This could not be loaded',
+  onRetry,
+  children,
+  className,
+}: {
   error?: unknown;
   title?: string;
   onRetry?: () => void;
@@ -13,11 +19,19 @@ export function ErrorState({ error, title = 'This could not be loaded', onRetry,
 }) {
   const message = error instanceof Error ? error.message : undefined;
   return (
-    <div role="alert" className={cn('rounded-card border border-caution-hazard/40 bg-caution-hazard-soft px-4 py-3', className)}>
+    <div
+      role="alert"
+      className={cn(
+        'rounded-card border border-caution-hazard/40 bg-caution-hazard-soft px-4 py-3',
+        className,
+      )}
+    >
       <p className="font-medium text-caution-hazard-deep">{title}</p>
       {message ? <p className="mt-0.5 text-body text-ink">{message}</p> : null}
       {isApiError(error) && error.status >= 500 ? (
-        <p className="mt-0.5 text-small text-ink-muted">If this keeps happening, tell your workspace admin.</p>
+        <p className="mt-0.5 text-small text-ink-muted">
+          If this keeps happening, tell your workspace admin.
+        </p>
       ) : null}
       {children}
       {onRetry ? (
@@ -30,7 +44,13 @@ export function ErrorState({ error, title = 'This could not be loaded', onRetry,
 }
 
 /** An inline message above a form: the server's answer to a submit. */
-export function FormMessage({ tone, children }: { tone: 'error' | 'success'; children: ReactNode }) {
+export function FormMessage({
+  tone,
+  children,
+}: {
+  tone: 'error' | 'success';
+  children: ReactNode;
+}) {
   return (
     <div
       role={tone === 'error' ? 'alert' : 'status'}

@@ -1,6 +1,11 @@
 import type { ReactNode } from 'react';
 
-export function PageHeader({ title, eyebrow, description, actions }: {
+export function PageHeader({
+  title,
+  eyebrow,
+  description,
+  actions,
+}: {
   title: string;
   eyebrow?: ReactNode;
   description?: ReactNode;
@@ -11,7 +16,9 @@ export function PageHeader({ title, eyebrow, description, actions }: {
       <div>
         {eyebrow ? <p className="text-small font-medium text-ink-muted">{eyebrow}</p> : null}
         <h1 className="text-heading font-semibold text-ink">{title}</h1>
-        {description ? <div className="mt-1 max-w-prose text-body text-ink-muted">{description}</div> : null}
+        {description ? (
+          <div className="mt-1 max-w-prose text-body text-ink-muted">{description}</div>
+        ) : null}
       </div>
       {actions ? <div className="flex gap-2">{actions}</div> : null}
     </header>

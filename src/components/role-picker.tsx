@@ -23,10 +23,14 @@ type RolePickerProps = {
 export function RolePicker({ legend, value, onChange, error, compact }: RolePickerProps) {
   const id = useId();
   const toggle = (role: Role, on: boolean) =>
-    onChange(on ? ROLES.filter((r) => r === role || value.includes(r)) : value.filter((r) => r !== role));
+    onChange(
+      on ? ROLES.filter((r) => r === role || value.includes(r)) : value.filter((r) => r !== role),
+    );
   return (
     <fieldset aria-describedby={error ? `${id}-error` : undefined} className="space-y-1.5">
-      <legend className={cn('text-small font-medium text-ink', compact && 'sr-only')}>{legend}</legend>
+      <legend className={cn('text-small font-medium text-ink', compact && 'sr-only')}>
+        {legend}
+      </legend>
       <div className={cn(compact ? 'flex flex-wrap gap-x-4 gap-y-1' : 'grid gap-1.5')}>
         {ROLES.map((role) => (
           <label key={role} className="flex cursor-pointer items-start gap-2 text-body">
@@ -38,7 +42,9 @@ export function RolePicker({ legend, value, onChange, error, compact }: RolePick
             />
             <span>
               <span className="font-medium">{ROLE_LABELS[role]}</span>
-              {compact ? null : <span className="block text-caption text-ink-muted">{ROLE_HINTS[role]}</span>}
+              {compact ? null : (
+                <span className="block text-caption text-ink-muted">{ROLE_HINTS[role]}</span>
+              )}
             </span>
           </label>
         ))}
@@ -52,7 +58,10 @@ export function RoleBadges({ roles }: { roles: Role[] }) {
   return (
     <span className="inline-flex flex-wrap gap-1">
       {roles.map((role) => (
-        <span key={role} className="rounded-control border border-rule bg-paper-sunken px-1.5 py-px text-caption font-medium text-ink-muted">
+        <span
+          key={role}
+          className="rounded-control border border-rule bg-paper-sunken px-1.5 py-px text-caption font-medium text-ink-muted"
+        >
           {ROLE_LABELS[role]}
         </span>
       ))}

@@ -8,12 +8,23 @@ type SelectProps = Omit<SelectHTMLAttributes<HTMLSelectElement>, 'onChange'> & {
   onValueChange: (value: string) => void;
 };
 
-export function Select({ label, hideLabel, options, onValueChange, className, id, ...rest }: SelectProps) {
+export function Select({
+  label,
+  hideLabel,
+  options,
+  onValueChange,
+  className,
+  id,
+  ...rest
+}: SelectProps) {
   const autoId = useId();
   const selectId = id ?? autoId;
   return (
     <div className={cn(hideLabel ? '' : 'space-y-1', className)}>
-      <label htmlFor={selectId} className={hideLabel ? 'sr-only' : 'block text-small font-medium text-ink'}>
+      <label
+        htmlFor={selectId}
+        className={hideLabel ? 'sr-only' : 'block text-small font-medium text-ink'}
+      >
         {label}
       </label>
       <select

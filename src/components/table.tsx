@@ -16,12 +16,20 @@ export function Th({ className, ...rest }: ThHTMLAttributes<HTMLTableCellElement
   return (
     <th
       scope="col"
-      className={cn('border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted', className)}
+      className={cn(
+        'border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted',
+        className,
+      )}
       {...rest}
     />
   );
 }
 
 export function Td({ className, ...rest }: TdHTMLAttributes<HTMLTableCellElement>) {
-  return <td className={cn('border-b border-rule px-3 py-2 align-top last:border-r-0', className)} {...rest} />;
+  return (
+    <td
+      className={cn('border-b border-rule px-3 py-2 align-top last:border-r-0', className)}
+      {...rest}
+    />
+  );
 }

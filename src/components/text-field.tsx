@@ -13,7 +13,16 @@ type TextFieldProps = Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' | '
   hint?: ReactNode;
 };
 
-export function TextField({ label, value, onValueChange, error, hint, className, id, ...rest }: TextFieldProps) {
+export function TextField({
+  label,
+  value,
+  onValueChange,
+  error,
+  hint,
+  className,
+  id,
+  ...rest
+}: TextFieldProps) {
   const autoId = useId();
   const inputId = id ?? autoId;
   const hintId = hint ? `${inputId}-hint` : undefined;
@@ -45,7 +54,10 @@ export function TextField({ label, value, onValueChange, error, hint, className,
 export function FieldError({ id, children }: { id?: string; children: ReactNode }) {
   return (
     <p id={id} className="flex items-start gap-1 text-caption font-medium text-caution-hazard-deep">
-      <span aria-hidden="true" className="mt-[3px] inline-block size-2 shrink-0 rotate-45 bg-caution-hazard" />
+      <span
+        aria-hidden="true"
+        className="mt-[3px] inline-block size-2 shrink-0 rotate-45 bg-caution-hazard"
+      />
       <span>{children}</span>
     </p>
   );

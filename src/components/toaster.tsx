@@ -11,12 +11,18 @@ export function Toaster() {
   const toasts = useToasts((s) => s.toasts);
   const dismiss = useToasts((s) => s.dismiss);
   return (
-    <div aria-live="polite" className="pointer-events-none fixed right-4 bottom-4 z-50 flex w-80 flex-col gap-2">
+    <div
+      aria-live="polite"
+      className="pointer-events-none fixed right-4 bottom-4 z-50 flex w-80 flex-col gap-2"
+    >
       {toasts.map((t) => (
         <div
           key={t.id}
           role={t.tone === 'error' ? 'alert' : 'status'}
-          className={cn('pointer-events-auto flex items-start gap-3 rounded-card border border-rule border-l-4 bg-paper-raised px-3 py-2 shadow-overlay', tones[t.tone])}
+          className={cn(
+            'pointer-events-auto flex items-start gap-3 rounded-card border border-rule border-l-4 bg-paper-raised px-3 py-2 shadow-overlay',
+            tones[t.tone],
+          )}
         >
           <p className="flex-1 text-body text-ink">{t.message}</p>
           <button

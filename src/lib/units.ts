@@ -9,7 +9,16 @@ import { create, unitDependencies } from 'mathjs';
 
 const math = create({ unitDependencies });
 
-export type QuantityKind = 'volume' | 'temperature' | 'pressure' | 'equiv' | 'mass' | 'percent' | 'fraction' | 'count' | 'number';
+export type QuantityKind =
+  | 'volume'
+  | 'temperature'
+  | 'pressure'
+  | 'equiv'
+  | 'mass'
+  | 'percent'
+  | 'fraction'
+  | 'count'
+  | 'number';
 
 export type Parsed<T> = { ok: true; value: T } | { ok: false; error: string };
 
@@ -49,7 +58,11 @@ function splitRange(text: string): Range | null {
  * A value with an optional ± range, parsed by `parse`; the half-width is converted with the
  * centre's unit ("250 ± 10 mL" → 0.25 ± 0.01 L; "318 ± 2 K" → 44.85 ± 2 °C).
  */
-function withRange<T>(text: string, parse: (t: string) => Parsed<T>, number: (v: T) => number): Parsed<{ centre: T; plusMinus: number | null }> {
+function withRange<T>(
+  text: string,
+  parse: (t: string) => Parsed<T>,
+  number: (v: T) => number,
+): Parsed<{ centre: T; plusMinus: number | null }> {
   const range = splitRange(text);
   if (range === null) return mapParsed(parse(text), (centre) => ({ centre, plusMinus: null }));
   if ('error' in range) return { ok: false, error: range.error };
@@ -57,7 +70,13 @@ function withRange<T>(text: string, parse: (t: string) => Parsed<T>, number: (v:
   if (!centre.ok) return centre;
   const upper = parse(`${range.centre + range.plusMinus} ${range.unit}`.trim());
   if (!upper.ok) return upper;
-  return { ok: true, value: { centre: centre.value, plusMinus: round(Math.abs(number(upper.value) - number(centre.value))) } };
+  return {
+    ok: true,
+    value: {
+      centre: centre.value,
+      plusMinus: round(Math.abs(number(upper.value) - number(centre.value))),
+    },
+  };
 }
 
 function mapParsed<A, B>(r: Parsed<A>, f: (v: A) => B): Parsed<B> {
@@ -84,13 +103,19 @@ function toUnit(text: string, target: string, kind: QuantityKind): Parsed<number
   try {
     const u = math.unit(t);
     if (!u.equalBase(math.unit(target))) {
-      return { ok: false, error: `“${text.trim()}” is not a ${kind}. Write it as ${EXAMPLES[kind]}.` };
+      return {
+        ok: false,
+        error: `“${text.trim()}” is not a ${kind}. Write it as ${EXAMPLES[kind]}.`,
+      };
     }
     const v = u.toNumber(target);
     if (!Number.isFinite(v)) return { ok: false, error: `“${text.trim()}” is not a number.` };
     return { ok: true, value: v };
   } catch {
-    return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES[kind]}.` };
+    return {
+      ok: false,
+      error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES[kind]}.`,
+    };
   }
 }
 
@@ -101,7 +126,8 @@ export function parseVolume(text: string): Parsed<VolumeValue> {
   const t = normalise(text);
   const rel = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(vol|vols|volumes|V)$/i.exec(t);
   if (rel) return nonNegative({ value: Number(rel[1]), unit: 'vol' as const }, (v) => v.value);
-  if (plainNumber.test(t)) return nonNegative({ value: Number(t), unit: 'vol' as const }, (v) => v.value);
+  if (plainNumber.test(t))
+    return nonNegative({ value: Number(t), unit: 'vol' as const }, (v) => v.value);
   const r = toUnit(text, 'L', 'volume');
   if (!r.ok) return r;
   return nonNegative({ value: round(r.value), unit: 'L' as const }, (v) => v.value);
@@ -136,14 +162,22 @@ export function parseMassKg(text: string): Parsed<number> {
 export function parseEquiv(text: string): Parsed<number> {
   const t = normalise(text);
   const m = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(equiv|eq|equivalents?)?$/i.exec(t);
-  if (!m) return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.equiv}.` };
+  if (!m)
+    return {
+      ok: false,
+      error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.equiv}.`,
+    };
   return { ok: true, value: Number(m[1]) };
 }
 
 /** Percent: "12 %" or "12". */
 export function parsePercent(text: string): Parsed<number> {
   const t = normalise(text).replace(/\s*(%|wt%|wt ?%)$/i, '');
-  if (!plainNumber.test(t)) return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.percent}.` };
+  if (!plainNumber.test(t))
+    return {
+      ok: false,
+      error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.percent}.`,
+    };
   return { ok: true, value: Number(t) };
 }
 
@@ -152,7 +186,11 @@ export function parseFraction(text: string): Parsed<number> {
   const t = normalise(text);
   const pct = /^(.*?)\s*%$/.exec(t);
   if (pct && plainNumber.test(pct[1])) return { ok: true, value: Number(pct[1]) / 100 };
-  if (!plainNumber.test(t)) return { ok: false, error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.fraction}.` };
+  if (!plainNumber.test(t))
+    return {
+      ok: false,
+      error: `“${text.trim()}” could not be read. Write it as ${EXAMPLES.fraction}.`,
+    };
   return { ok: true, value: Number(t) };
 }
 
@@ -180,16 +218,29 @@ export const PARSERS = {
 } as const;
 
 /** Parse a scalar with an optional ± range: "10 ± 2 °C" → {value:10, plusMinus:2}. */
-export function parseUncertain(text: string, parse: (t: string) => Parsed<number>): Parsed<number | { value: number; plusMinus: number }> {
-  return mapParsed(withRange(text, parse, (v) => v), ({ centre, plusMinus }) => (plusMinus === null ? centre : { value: centre, plusMinus }));
+export function parseUncertain(
+  text: string,
+  parse: (t: string) => Parsed<number>,
+): Parsed<number | { value: number; plusMinus: number }> {
+  return mapParsed(
+    withRange(text, parse, (v) => v),
+    ({ centre, plusMinus }) => (plusMinus === null ? centre : { value: centre, plusMinus }),
+  );
 }
 
-export type UncertainVolumeValue = { value: number | { value: number; plusMinus: number }; unit: 'L' | 'vol' };
+export type UncertainVolumeValue = {
+  value: number | { value: number; plusMinus: number };
+  unit: 'L' | 'vol';
+};
 
 /** A volume with an optional ± range: "10 ± 1 vol" → {value: {10, ±1}, unit: vol}; "250 ± 10 mL" → {value: {0.25, ±0.01}, unit: L}. */
 export function parseUncertainVolume(text: string): Parsed<UncertainVolumeValue> {
-  return mapParsed(withRange(text, parseVolume, (v) => v.value), ({ centre, plusMinus }) =>
-    plusMinus === null ? centre : { unit: centre.unit, value: { value: centre.value, plusMinus } },
+  return mapParsed(
+    withRange(text, parseVolume, (v) => v.value),
+    ({ centre, plusMinus }) =>
+      plusMinus === null
+        ? centre
+        : { unit: centre.unit, value: { value: centre.value, plusMinus } },
   );
 }
 

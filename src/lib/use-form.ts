@@ -18,7 +18,10 @@ export function issuesToErrors(issues: z.core.$ZodIssue[]): FieldErrors {
  * A controlled form checked by a shared zod schema before it is sent, with the
  * server's field errors mapped back onto the same fields afterwards.
  */
-export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(schema: S, initial: z.input<S>) {
+export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(
+  schema: S,
+  initial: z.input<S>,
+) {
   const [values, setValues] = useState<z.input<S>>(initial);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | undefined>();
@@ -26,7 +29,7 @@ export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(s
   const setField = <K extends keyof z.input<S>>(key: K, value: z.input<S>[K]) => {
     setValues((v) => ({ ...v, [key]: value }));
     setErrors((e) => {
-      if (!(key as string in e)) return e;
+      if (!((key as string) in e)) return e;
       const { [key as string]: _dropped, ...rest } = e;
       return rest;
     });
@@ -57,7 +60,11 @@ export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(s
         .map(([k, m]) => (k ? `${k}: ${m}` : m));
       // When every problem sits on its field, the fields say it all; a generic
       // "Some fields are not valid." above them would only repeat it vaguely.
-      setFormError(known.length > 0 && unplaced.length === 0 ? undefined : [error.message, ...unplaced].join(' '));
+      setFormError(
+        known.length > 0 && unplaced.length === 0
+          ? undefined
+          : [error.message, ...unplaced].join(' '),
+      );
     } else {
       setFormError(error instanceof Error ? error.message : 'Something went wrong. Try again.');
     }
@@ -69,5 +76,15 @@ export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(s
     setFormError(undefined);
   };
 
-  return { values, setField, errors, setErrors, formError, setFormError, validate, showServerError, reset };
+  return {
+    values,
+    setField,
+    errors,
+    setErrors,
+    formError,
+    setFormError,
+    validate,
+    showServerError,
+    reset,
+  };
 }

@@ -47,7 +47,10 @@ export function Component() {
 function AcceptForm({ token, info }: { token: string; info: InvitationInfo }) {
   const accept = useAcceptInvitation(token);
   const navigate = useNavigate();
-  const form = useForm(acceptInvitationSchema, info.existingUser ? { password: '' } : { name: '', password: '' });
+  const form = useForm(
+    acceptInvitationSchema,
+    info.existingUser ? { password: '' } : { name: '', password: '' },
+  );
 
   const submit = (e: React.FormEvent) => {
     e.preventDefault();
@@ -60,7 +63,8 @@ function AcceptForm({ token, info }: { token: string; info: InvitationInfo }) {
     accept.mutate(input, {
       // Accepting signs the person in: open the workspace they joined.
       onSuccess: (session) => {
-        const joined = session.workspaces.find((w) => w.name === info.workspaceName) ?? session.workspaces[0];
+        const joined =
+          session.workspaces.find((w) => w.name === info.workspaceName) ?? session.workspaces[0];
         navigate(joined ? paths.workspace.home.to(joined.id) : paths.root.to(), { replace: true });
       },
       onError: form.showServerError,
@@ -81,7 +85,9 @@ function AcceptForm({ token, info }: { token: string; info: InvitationInfo }) {
       <form noValidate onSubmit={submit} className="mt-5 space-y-4">
         {form.formError ? <FormMessage tone="error">{form.formError}</FormMessage> : null}
         {info.existingUser ? (
-          <p className="text-body text-ink-muted">You already have a Phasewright account. Confirm with its password to join.</p>
+          <p className="text-body text-ink-muted">
+            You already have a Phasewright account. Confirm with its password to join.
+          </p>
         ) : (
           <TextField
             label="Your name"

@@ -13,7 +13,10 @@ export function ComingLater({ title, what }: { title: string; what: string }) {
       <EmptyState title={`${title} open in a coming release`}>
         <p>{what}</p>
         <p className="mt-2">
-          <Link to={paths.workspace.home.to(workspace.id)} className="font-medium text-accent hover:underline">
+          <Link
+            to={paths.workspace.home.to(workspace.id)}
+            className="font-medium text-accent hover:underline"
+          >
             Back to routes
           </Link>
         </p>

@@ -3,7 +3,10 @@ import { completeResetSchema } from '@shared/schemas/password-reset';
 import { isApiError } from '@/api/client';
 import { useCompleteReset } from '@/features/password-reset/api/complete-reset';
 import { Button, ButtonLink } from '@/components/button';
-import { NewPasswordFields, useRepeatedPassword } from '@/features/auth/components/new-password-fields';
+import {
+  NewPasswordFields,
+  useRepeatedPassword,
+} from '@/features/auth/components/new-password-fields';
 import { FormMessage } from '@/components/error-state';
 import { useForm } from '@/lib/use-form';
 import { paths } from '@/paths';
@@ -23,8 +26,13 @@ export function Component() {
       onError: (error) => {
         // A mistyped, used or expired link: say so plainly instead of naming the URL part.
         // A malformed token is refused as a URL part, reported under `params.token`.
-        const badLink = isApiError(error) && (error.status === 404 || error.status === 410 || 'params.token' in error.fieldErrors());
-        if (badLink) form.setFormError('This reset link is not valid any more: it may have been used already, mistyped or expired.');
+        const badLink =
+          isApiError(error) &&
+          (error.status === 404 || error.status === 410 || 'params.token' in error.fieldErrors());
+        if (badLink)
+          form.setFormError(
+            'This reset link is not valid any more: it may have been used already, mistyped or expired.',
+          );
         else form.showServerError(error);
       },
     });
@@ -47,7 +55,9 @@ export function Component() {
   return (
     <>
       <h1 className="text-heading font-semibold text-ink">Choose a new password</h1>
-      <p className="mt-1 text-body text-ink-muted">This link works once and expires after a while.</p>
+      <p className="mt-1 text-body text-ink-muted">
+        This link works once and expires after a while.
+      </p>
       <form noValidate onSubmit={submit} className="mt-5 space-y-4">
         {form.formError ? (
           <FormMessage tone="error">

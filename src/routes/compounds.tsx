@@ -52,8 +52,18 @@ export function Component() {
       />
       {editing ? (
         <Card
-          title={editing.mode === 'new' ? 'Add a compound' : canWrite ? `Edit ${editing.compound.name}` : editing.compound.name}
-          description={editing.mode === 'new' ? 'Start with the structure: the drawing, formula and groups appear as you type.' : undefined}
+          title={
+            editing.mode === 'new'
+              ? 'Add a compound'
+              : canWrite
+                ? `Edit ${editing.compound.name}`
+                : editing.compound.name
+          }
+          description={
+            editing.mode === 'new'
+              ? 'Start with the structure: the drawing, formula and groups appear as you type.'
+              : undefined
+          }
           className="mb-6"
         >
           <CompoundForm
@@ -80,17 +90,29 @@ export function Component() {
       {compounds.isPending ? (
         <Loading label="Loading compounds…" />
       ) : compounds.isError ? (
-        <ErrorState error={compounds.error} title="Compounds could not be loaded" onRetry={() => compounds.refetch()} />
+        <ErrorState
+          error={compounds.error}
+          title="Compounds could not be loaded"
+          onRetry={() => compounds.refetch()}
+        />
       ) : compounds.data.length === 0 ? (
         editing ? null : (
-          <EmptyState title="No compounds yet — add your product and its impurities from a SMILES" action={addButton}>
+          <EmptyState
+            title="No compounds yet — add your product and its impurities from a SMILES"
+            action={addButton}
+          >
             {canWrite
               ? 'Each compound gets its formula, molar mass, UNIFAC groups and logP and Hansen estimates from the structure; add your own measured solubility and partition data when you have them.'
               : 'Chemists and admins enter compounds; you will see them here.'}
           </EmptyState>
         )
       ) : (
-        <CompoundTable compounds={compounds.data} canWrite={canWrite} selectedId={current?.id} onOpen={(c) => setEditing({ mode: 'edit', compound: c })} />
+        <CompoundTable
+          compounds={compounds.data}
+          canWrite={canWrite}
+          selectedId={current?.id}
+          onOpen={(c) => setEditing({ mode: 'edit', compound: c })}
+        />
       )}
       <ConfirmDialog
         open={confirmDelete && current !== null}
@@ -113,7 +135,8 @@ export function Component() {
           });
         }}
       >
-        Routes that already use it keep their own copy of its data. The deletion is recorded in the audit trail.
+        Routes that already use it keep their own copy of its data. The deletion is recorded in the
+        audit trail.
       </ConfirmDialog>
     </>
   );

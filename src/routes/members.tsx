@@ -22,7 +22,11 @@ export function Component() {
 
   return (
     <>
-      <PageHeader eyebrow={workspace.name} title="Members" description="Who works in this workspace, and in which roles. One person may hold several roles." />
+      <PageHeader
+        eyebrow={workspace.name}
+        title="Members"
+        description="Who works in this workspace, and in which roles. One person may hold several roles."
+      />
       {can.invite ? (
         <div className="grid grid-cols-[minmax(0,1fr)_20rem] items-start gap-5">
           <MemberList workspaceId={workspace.id} currentUserId={session.user.id} can={can} />
@@ -32,7 +36,10 @@ export function Component() {
         </div>
       ) : (
         <div className="space-y-3">
-          <p className="text-body text-ink-muted">Only admins invite colleagues or change roles. Ask an admin of {workspace.name} if something here is wrong.</p>
+          <p className="text-body text-ink-muted">
+            Only admins invite colleagues or change roles. Ask an admin of {workspace.name} if
+            something here is wrong.
+          </p>
           <MemberList workspaceId={workspace.id} currentUserId={session.user.id} can={can} />
         </div>
       )}
@@ -42,12 +49,41 @@ export function Component() {
 
 type Can = { updateRoles: boolean; remove: boolean };
 
-function MemberList({ workspaceId, currentUserId, can }: { workspaceId: string; currentUserId: string; can: Can }) {
+function MemberList({
+  workspaceId,
+  currentUserId,
+  can,
+}: {
+  workspaceId: string;
+  currentUserId: string;
+  can: Can;
+}) {
   const members = useMembers(workspaceId);
   if (members.isPending) return <Loading label="Loading members…" />;
-  if (members.isError) return <ErrorState error={members.error} title="Members could not be loaded" onRetry={() => members.refetch()} />;
+  if (members.isError)
+    return (
+      <ErrorState
+        error={members.error}
+        title="Members could not be loaded"
+        onRetry={() => members.refetch()}
+      />
+    );
   if (members.data.length === 0) {
-    return <EmptyState title="No members yet">{can.updateRoles ? 'Invite your colleagues with the form beside this list.' : 'Ask an admin to invite your colleagues.'}</EmptyState>;
+    return (
+      <EmptyState title="No members yet">
+        {can.updateRoles
+          ? 'Invite your colleagues with the form beside this list.'
+          : 'Ask an admin to invite your colleagues.'}
+      </EmptyState>
+    );
   }
-  return <MemberTable workspaceId={workspaceId} members={members.data} currentUserId={currentUserId} canUpdateRoles={can.updateRoles} canRemove={can.remove} />;
+  return (
+    <MemberTable
+      workspaceId={workspaceId}
+      members={members.data}
+      currentUserId={currentUserId}
+      canUpdateRoles={can.updateRoles}
+      canRemove={can.remove}
+    />
+  );
 }

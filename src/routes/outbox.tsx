@@ -20,14 +20,24 @@ export function Component() {
       title="Outbox"
       description="E-mails Phasewright sent, caught by the built-in mail server of the demo and of development. Production sends real mail instead."
       actions={
-        <Button variant="secondary" onClick={() => outbox.refetch()} busy={outbox.isFetching && !outbox.isPending}>
+        <Button
+          variant="secondary"
+          onClick={() => outbox.refetch()}
+          busy={outbox.isFetching && !outbox.isPending}
+        >
           Refresh
         </Button>
       }
     />
   );
 
-  if (outbox.isPending) return <>{header}<Loading label="Loading e-mails…" /></>;
+  if (outbox.isPending)
+    return (
+      <>
+        {header}
+        <Loading label="Loading e-mails…" />
+      </>
+    );
   if (outbox.isError) {
     const off = isApiError(outbox.error) && outbox.error.status === 404;
     const denied = isApiError(outbox.error) && outbox.error.status === 403;
@@ -35,11 +45,19 @@ export function Component() {
       <>
         {header}
         {off ? (
-          <EmptyState title="The outbox is off here">This server sends real e-mail; look in the recipients' mailboxes instead.</EmptyState>
+          <EmptyState title="The outbox is off here">
+            This server sends real e-mail; look in the recipients' mailboxes instead.
+          </EmptyState>
         ) : denied ? (
-          <EmptyState title="Only admins read the outbox">Ask an admin of your workspace if you are waiting for an e-mail.</EmptyState>
+          <EmptyState title="Only admins read the outbox">
+            Ask an admin of your workspace if you are waiting for an e-mail.
+          </EmptyState>
         ) : (
-          <ErrorState error={outbox.error} title="The outbox could not be loaded" onRetry={() => outbox.refetch()} />
+          <ErrorState
+            error={outbox.error}
+            title="The outbox could not be loaded"
+            onRetry={() => outbox.refetch()}
+          />
         )}
       </>
     );
@@ -53,11 +71,15 @@ export function Component() {
       {header}
       {messages.length === 0 || !selected ? (
         <EmptyState title="No e-mails yet">
-          Invite a member or ask for a password reset; the e-mail appears here a moment later. Press Refresh to check.
+          Invite a member or ask for a password reset; the e-mail appears here a moment later. Press
+          Refresh to check.
         </EmptyState>
       ) : (
         <div className="grid grid-cols-[22rem_minmax(0,1fr)] items-start gap-4">
-          <ul aria-label="E-mails" className="overflow-hidden rounded-card border border-rule bg-paper-raised">
+          <ul
+            aria-label="E-mails"
+            className="overflow-hidden rounded-card border border-rule bg-paper-raised"
+          >
             {messages.map((m) => (
               <li key={m.id} className="border-b border-rule last:border-b-0">
                 <button
@@ -66,7 +88,9 @@ export function Component() {
                   onClick={() => setOpenId(m.id)}
                   className={cn(
                     'block w-full border-l-2 px-3 py-2 text-left',
-                    m.id === selected.id ? 'border-accent bg-accent-soft' : 'border-transparent hover:bg-paper-sunken',
+                    m.id === selected.id
+                      ? 'border-accent bg-accent-soft'
+                      : 'border-transparent hover:bg-paper-sunken',
                   )}
                 >
                   <span className="block truncate font-medium text-ink">{m.subject}</span>
@@ -78,7 +102,10 @@ export function Component() {
               </li>
             ))}
           </ul>
-          <article aria-label={selected.subject} className="rounded-card border border-rule bg-paper-raised">
+          <article
+            aria-label={selected.subject}
+            className="rounded-card border border-rule bg-paper-raised"
+          >
             <header className="border-b border-rule px-4 py-3">
               <h2 className="text-title font-medium">{selected.subject}</h2>
               <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-small">

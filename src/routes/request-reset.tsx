@@ -24,13 +24,18 @@ export function Component() {
       {request.isSuccess ? (
         <div className="mt-4 space-y-4">
           <FormMessage tone="success">
-            If an account exists for {form.values.email.trim()}, an e-mail with a reset link is on its way. The link works once and expires.
+            If an account exists for {form.values.email.trim()}, an e-mail with a reset link is on
+            its way. The link works once and expires.
           </FormMessage>
-          <p className="text-body text-ink-muted">No e-mail after a few minutes? Check the spam folder, or ask your workspace admin.</p>
+          <p className="text-body text-ink-muted">
+            No e-mail after a few minutes? Check the spam folder, or ask your workspace admin.
+          </p>
         </div>
       ) : (
         <>
-          <p className="mt-1 text-body text-ink-muted">Enter your e-mail address and we will send you a link to choose a new password.</p>
+          <p className="mt-1 text-body text-ink-muted">
+            Enter your e-mail address and we will send you a link to choose a new password.
+          </p>
           <form noValidate onSubmit={submit} className="mt-5 space-y-4">
             {form.formError ? <FormMessage tone="error">{form.formError}</FormMessage> : null}
             <TextField
@@ -49,7 +54,10 @@ export function Component() {
         </>
       )}
       <p className="mt-4 text-small">
-        <Link to={paths.signIn.to()} className="font-medium text-accent underline-offset-2 hover:underline">
+        <Link
+          to={paths.signIn.to()}
+          className="font-medium text-accent underline-offset-2 hover:underline"
+        >
           Back to sign-in
         </Link>
       </p>

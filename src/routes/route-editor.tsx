@@ -19,7 +19,11 @@ export function Component() {
         <Loading label="Opening the route…" className="justify-center" />
       ) : route.isError ? (
         <div className="p-6">
-          <ErrorState title="The route could not be opened" error={route.error} onRetry={() => route.refetch()} />
+          <ErrorState
+            title="The route could not be opened"
+            error={route.error}
+            onRetry={() => route.refetch()}
+          />
         </div>
       ) : (
         <Suspense fallback={<Loading label="Loading the editor…" className="justify-center" />}>

@@ -20,7 +20,9 @@ export function Component() {
   const { data: session } = useSession();
   const isAdmin = session ? canInviteMembers(session, workspace.id) : false;
   // Reviewers and scale-up engineers read routes; chemists and admins write them (the server decides again).
-  const canWrite = session ? canInWorkspace(session, workspace.id, 'route.create', 'chemist') : false;
+  const canWrite = session
+    ? canInWorkspace(session, workspace.id, 'route.create', 'chemist')
+    : false;
   const [archived, setArchived] = useState(false);
   const [creating, setCreating] = useState(false);
   const routes = useRoutes(workspace.id, archived);
@@ -37,10 +39,16 @@ export function Component() {
         }
         actions={
           <>
-            <Button variant="secondary" aria-pressed={archived} onClick={() => setArchived((a) => !a)}>
+            <Button
+              variant="secondary"
+              aria-pressed={archived}
+              onClick={() => setArchived((a) => !a)}
+            >
               {archived ? 'Show current routes' : 'Archived'}
             </Button>
-            {canWrite && !creating ? <Button onClick={() => setCreating(true)}>New route</Button> : null}
+            {canWrite && !creating ? (
+              <Button onClick={() => setCreating(true)}>New route</Button>
+            ) : null}
           </>
         }
       />
@@ -52,29 +60,53 @@ export function Component() {
       {routes.isPending ? (
         <Loading label="Loading routes…" />
       ) : routes.isError ? (
-        <ErrorState title="The routes could not be loaded" error={routes.error} onRetry={() => routes.refetch()} />
+        <ErrorState
+          title="The routes could not be loaded"
+          error={routes.error}
+          onRetry={() => routes.refetch()}
+        />
       ) : routes.data.length === 0 ? (
         archived ? (
-          <EmptyState title="No archived routes">Routes you archive are kept here and can be restored at any time.</EmptyState>
+          <EmptyState title="No archived routes">
+            Routes you archive are kept here and can be restored at any time.
+          </EmptyState>
         ) : creating ? null : (
-          <EmptyState title="No routes yet — create your first isolation route" glyph={<RouteSketch />} action={canWrite ? <Button onClick={() => setCreating(true)}>Create a route</Button> : undefined}>
+          <EmptyState
+            title="No routes yet — create your first isolation route"
+            glyph={<RouteSketch />}
+            action={
+              canWrite ? (
+                <Button onClick={() => setCreating(true)}>Create a route</Button>
+              ) : undefined
+            }
+          >
             <p>
-              A route is the work-up and isolation drawn as steps: quench, washes and extractions, distillation, crystallisation, filtration and
-              drying. Phasewright follows the product and every impurity through each step.
+              A route is the work-up and isolation drawn as steps: quench, washes and extractions,
+              distillation, crystallisation, filtration and drying. Phasewright follows the product
+              and every impurity through each step.
             </p>
             <p className="mt-2 text-small">
               It helps to{' '}
-              <Link to={paths.workspace.compounds.to(workspace.id)} className="font-medium text-accent hover:underline">
+              <Link
+                to={paths.workspace.compounds.to(workspace.id)}
+                className="font-medium text-accent hover:underline"
+              >
                 enter your compounds
               </Link>{' '}
               first and check the{' '}
-              <Link to={paths.workspace.solvents.to(workspace.id)} className="font-medium text-accent hover:underline">
+              <Link
+                to={paths.workspace.solvents.to(workspace.id)}
+                className="font-medium text-accent hover:underline"
+              >
                 solvent library
               </Link>
               {isAdmin ? (
                 <>
                   , or{' '}
-                  <Link to={paths.workspace.members.to(workspace.id)} className="font-medium text-accent hover:underline">
+                  <Link
+                    to={paths.workspace.members.to(workspace.id)}
+                    className="font-medium text-accent hover:underline"
+                  >
                     invite your colleagues
                   </Link>
                 </>
@@ -94,9 +126,33 @@ export function Component() {
 function RouteSketch() {
   return (
     <svg width="120" height="40" viewBox="0 0 120 40" fill="none" strokeWidth="1.5">
-      <rect x="2" y="10" width="26" height="20" rx="4" className="stroke-ink-faint" strokeDasharray="3 2.5" />
-      <rect x="47" y="10" width="26" height="20" rx="4" className="stroke-ink-faint" strokeDasharray="3 2.5" />
-      <rect x="92" y="10" width="26" height="20" rx="4" className="stroke-ink-faint" strokeDasharray="3 2.5" />
+      <rect
+        x="2"
+        y="10"
+        width="26"
+        height="20"
+        rx="4"
+        className="stroke-ink-faint"
+        strokeDasharray="3 2.5"
+      />
+      <rect
+        x="47"
+        y="10"
+        width="26"
+        height="20"
+        rx="4"
+        className="stroke-ink-faint"
+        strokeDasharray="3 2.5"
+      />
+      <rect
+        x="92"
+        y="10"
+        width="26"
+        height="20"
+        rx="4"
+        className="stroke-ink-faint"
+        strokeDasharray="3 2.5"
+      />
       <path d="M28 16h19" className="stroke-phase-organic" />
       <path d="M28 24h19" className="stroke-phase-aqueous" />
       <path d="M73 20h19" className="stroke-phase-solid" />

@@ -41,9 +41,14 @@ export function Component() {
   return (
     <>
       <h1 className="text-heading font-semibold text-ink">Sign in</h1>
-      <p className="mt-1 text-body text-ink-muted">Use the e-mail address your workspace admin invited.</p>
+      <p className="mt-1 text-body text-ink-muted">
+        Use the e-mail address your workspace admin invited.
+      </p>
       {sessionEnded ? (
-        <p role="status" className="mt-4 rounded-control border border-rule-strong bg-paper-sunken px-3 py-2 text-body text-ink">
+        <p
+          role="status"
+          className="mt-4 rounded-control border border-rule-strong bg-paper-sunken px-3 py-2 text-body text-ink"
+        >
           Your session has ended. Sign in again to go back to where you were.
         </p>
       ) : null}
@@ -71,7 +76,10 @@ export function Component() {
         </Button>
       </form>
       <p className="mt-4 text-small text-ink-muted">
-        <Link to={paths.requestReset.to()} className="font-medium text-accent underline-offset-2 hover:underline">
+        <Link
+          to={paths.requestReset.to()}
+          className="font-medium text-accent underline-offset-2 hover:underline"
+        >
           Forgot your password?
         </Link>
       </p>

@@ -23,9 +23,15 @@ export function Component() {
       {solvents.isPending ? (
         <Loading label="Loading the solvent library…" />
       ) : solvents.isError ? (
-        <ErrorState error={solvents.error} title="The solvent library could not be loaded" onRetry={() => solvents.refetch()} />
+        <ErrorState
+          error={solvents.error}
+          title="The solvent library could not be loaded"
+          onRetry={() => solvents.refetch()}
+        />
       ) : solvents.data.length === 0 ? (
-        <EmptyState title="The solvent library is empty">Ask your administrator to check the installation.</EmptyState>
+        <EmptyState title="The solvent library is empty">
+          Ask your administrator to check the installation.
+        </EmptyState>
       ) : (
         <SolventTable solvents={solvents.data} onOpen={setOpenId} selectedId={openId} />
       )}

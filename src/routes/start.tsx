@@ -20,8 +20,8 @@ export function Component() {
         title="You are not in a workspace yet"
         action={<ButtonLink to={paths.account.to()}>Open your account</ButtonLink>}
       >
-        Routes, compounds and reviews live in a workspace. Ask your group's Phasewright admin to invite {session.user.email}; the
-        invitation arrives by e-mail.
+        Routes, compounds and reviews live in a workspace. Ask your group's Phasewright admin to
+        invite {session.user.email}; the invitation arrives by e-mail.
       </EmptyState>
     </>
   );

@@ -6,7 +6,15 @@
  */
 import { create } from 'zustand';
 import type { StepKind } from '@shared/schemas/route';
-import { checkConnection, keyOf, setIn, type ComponentInput, type ConnectionInput, type EditorDoc, type StepInput } from '@/features/editor/document';
+import {
+  checkConnection,
+  keyOf,
+  setIn,
+  type ComponentInput,
+  type ConnectionInput,
+  type EditorDoc,
+  type StepInput,
+} from '@/features/editor/document';
 import { defaultParams, KINDS } from '@/features/editor/step-kinds';
 import { PORTS } from '@shared/schemas/route';
 
@@ -35,7 +43,10 @@ export interface EditorState {
   updateStep: (stepId: string, path: ReadonlyArray<string | number>, value: unknown) => void;
   renameStep: (stepId: string, name: string) => void;
   addComponent: (c: ComponentInput) => void;
-  connect: (from: { stepId: string; port: string }, to: { stepId: string; port: string }) => boolean;
+  connect: (
+    from: { stepId: string; port: string },
+    to: { stepId: string; port: string },
+  ) => boolean;
   disconnect: (connectionId: string) => void;
   removeSelection: () => void;
   /** While dragging: move without history; `beginMove` keeps the state to return to. */
@@ -64,7 +75,13 @@ function newId(prefix: string, taken: Set<string>): string {
   return id;
 }
 
-const emptyDoc: EditorDoc = { schemaVersion: 1, referenceInput: { componentId: 'product', massKg: 1 }, components: [], steps: [], connections: [] };
+const emptyDoc: EditorDoc = {
+  schemaVersion: 1,
+  referenceInput: { componentId: 'product', massKg: 1 },
+  components: [],
+  steps: [],
+  connections: [],
+};
 
 function withComponents(doc: EditorDoc, needs: ComponentInput[]): EditorDoc {
   const have = new Set(doc.components.map(keyOf));
@@ -86,8 +103,14 @@ function nextPosition(doc: EditorDoc, after?: StepInput): { x: number; y: number
     candidate = { x: maxX + 340, y: at?.position?.y ?? 120 };
   }
   const taken = (p: { x: number; y: number }) =>
-    doc.steps.some((s) => s.position && Math.abs(s.position.x - p.x) < CARD_FOOTPRINT.width && Math.abs(s.position.y - p.y) < CARD_FOOTPRINT.height);
-  for (let tries = 0; tries < 50 && taken(candidate); tries++) candidate = { x: candidate.x, y: candidate.y + CARD_FOOTPRINT.height + 20 };
+    doc.steps.some(
+      (s) =>
+        s.position &&
+        Math.abs(s.position.x - p.x) < CARD_FOOTPRINT.width &&
+        Math.abs(s.position.y - p.y) < CARD_FOOTPRINT.height,
+    );
+  for (let tries = 0; tries < 50 && taken(candidate); tries++)
+    candidate = { x: candidate.x, y: candidate.y + CARD_FOOTPRINT.height + 20 };
   return candidate;
 }
 
@@ -139,9 +162,18 @@ export const useEditorStore = create<EditorState>((set, get) => {
       const taken = new Set(doc.steps.map((s) => s.id));
       const id = newId(kind.replace(/[^a-z]/g, '').slice(0, 6), taken);
       const { params, needs } = defaultParams(kind, doc);
-      const source = selection.steps.length === 1 ? doc.steps.find((s) => s.id === selection.steps[0]) : undefined;
+      const source =
+        selection.steps.length === 1
+          ? doc.steps.find((s) => s.id === selection.steps[0])
+          : undefined;
       const count = doc.steps.filter((s) => s.kind === kind).length;
-      const step = { id, kind, name: `${KINDS[kind].label}${count ? ` ${count + 1}` : ''}`, position: position ?? nextPosition(doc, source), params } as StepInput;
+      const step = {
+        id,
+        kind,
+        name: `${KINDS[kind].label}${count ? ` ${count + 1}` : ''}`,
+        position: position ?? nextPosition(doc, source),
+        params,
+      } as StepInput;
       let next = withComponents({ ...doc, steps: [...doc.steps, step] }, needs);
       // Added from the palette with one step selected: the new step takes that step's first free, fitting output.
       if (source && !position && PORTS[kind].inputs.length) {
@@ -150,7 +182,13 @@ export const useEditorStore = create<EditorState>((set, get) => {
           const from = { stepId: source.id, port: out.name };
           const to = { stepId: id, port: input };
           if (checkConnection(next, from, to).ok) {
-            next = { ...next, connections: [...next.connections, { id: newId('c', new Set(next.connections.map((c) => c.id))), from, to }] };
+            next = {
+              ...next,
+              connections: [
+                ...next.connections,
+                { id: newId('c', new Set(next.connections.map((c) => c.id))), from, to },
+              ],
+            };
             break;
           }
         }
@@ -168,7 +206,11 @@ export const useEditorStore = create<EditorState>((set, get) => {
       // A solvent or solute named in a step must be a route component.
       if (typeof value === 'string') {
         const last = String(path[path.length - 1]);
-        if (/solventId$|SolventId$|antisolventId$/.test(last) && !next.components.some((c) => keyOf(c) === value)) next = withComponents(next, [{ kind: 'solvent', id: value, solventId: value }]);
+        if (
+          /solventId$|SolventId$|antisolventId$/.test(last) &&
+          !next.components.some((c) => keyOf(c) === value)
+        )
+          next = withComponents(next, [{ kind: 'solvent', id: value, solventId: value }]);
       }
       commit(next);
     },
@@ -183,7 +225,11 @@ export const useEditorStore = create<EditorState>((set, get) => {
       if (doc.components.some((x) => keyOf(x) === keyOf(c))) return;
       let next = { ...doc, components: [...doc.components, c] };
       // The first product becomes what "vol" and "equiv" refer to.
-      if (c.kind === 'compound' && c.role === 'product' && !doc.components.some((x) => x.kind === 'compound' && x.role === 'product')) {
+      if (
+        c.kind === 'compound' &&
+        c.role === 'product' &&
+        !doc.components.some((x) => x.kind === 'compound' && x.role === 'product')
+      ) {
         next = { ...next, referenceInput: { ...next.referenceInput, componentId: keyOf(c) } };
       }
       commit(next);
@@ -215,7 +261,9 @@ export const useEditorStore = create<EditorState>((set, get) => {
         {
           ...doc,
           steps: doc.steps.filter((s) => !steps.has(s.id)),
-          connections: doc.connections.filter((c) => !conns.has(c.id) && !steps.has(c.from.stepId) && !steps.has(c.to.stepId)),
+          connections: doc.connections.filter(
+            (c) => !conns.has(c.id) && !steps.has(c.from.stepId) && !steps.has(c.to.stepId),
+          ),
         },
         { selection: { steps: [], connections: [] } },
       );
@@ -227,20 +275,52 @@ export const useEditorStore = create<EditorState>((set, get) => {
     moveSteps: (positions) =>
       get().readOnly
         ? undefined
-        : set((s) => ({ doc: { ...s.doc, steps: s.doc.steps.map((st) => (positions[st.id] ? { ...st, position: positions[st.id] } : st)) } })),
+        : set((s) => ({
+            doc: {
+              ...s.doc,
+              steps: s.doc.steps.map((st) =>
+                positions[st.id] ? { ...st, position: positions[st.id] } : st,
+              ),
+            },
+          })),
     endMove: () => {
       const before = moveSnapshot;
       moveSnapshot = null;
       if (!before || before === get().doc) return;
-      set((s) => ({ past: [...s.past.slice(-HISTORY_LIMIT + 1), before], future: [], docRevision: s.docRevision + 1 }));
+      set((s) => ({
+        past: [...s.past.slice(-HISTORY_LIMIT + 1), before],
+        future: [],
+        docRevision: s.docRevision + 1,
+      }));
     },
     setPositions: (positions) => {
       const { doc } = get();
-      commit({ ...doc, steps: doc.steps.map((st) => (positions[st.id] ? { ...st, position: positions[st.id] } : st)) }, {}, false);
+      commit(
+        {
+          ...doc,
+          steps: doc.steps.map((st) =>
+            positions[st.id] ? { ...st, position: positions[st.id] } : st,
+          ),
+        },
+        {},
+        false,
+      );
     },
 
-    select: (sel) => set((s) => ({ selection: { steps: sel.steps ?? s.selection.steps, connections: sel.connections ?? s.selection.connections } })),
-    selectAll: () => set((s) => ({ selection: { steps: s.doc.steps.map((x) => x.id), connections: s.doc.connections.map((c) => c.id) } })),
+    select: (sel) =>
+      set((s) => ({
+        selection: {
+          steps: sel.steps ?? s.selection.steps,
+          connections: sel.connections ?? s.selection.connections,
+        },
+      })),
+    selectAll: () =>
+      set((s) => ({
+        selection: {
+          steps: s.doc.steps.map((x) => x.id),
+          connections: s.doc.connections.map((c) => c.id),
+        },
+      })),
 
     copy: () => {
       const { doc, selection } = get();
@@ -249,7 +329,9 @@ export const useEditorStore = create<EditorState>((set, get) => {
       set({
         clipboard: {
           steps: doc.steps.filter((s) => ids.has(s.id)),
-          connections: doc.connections.filter((c) => ids.has(c.from.stepId) && ids.has(c.to.stepId)),
+          connections: doc.connections.filter(
+            (c) => ids.has(c.from.stepId) && ids.has(c.to.stepId),
+          ),
         },
       });
     },
@@ -262,28 +344,58 @@ export const useEditorStore = create<EditorState>((set, get) => {
         const id = newId(s.kind.replace(/[^a-z]/g, '').slice(0, 6), taken);
         taken.add(id);
         map.set(s.id, id);
-        return { ...s, id, name: `${s.name} (copy)`, position: { x: (s.position?.x ?? 0) + 40, y: (s.position?.y ?? 0) + 60 } } as StepInput;
+        return {
+          ...s,
+          id,
+          name: `${s.name} (copy)`,
+          position: { x: (s.position?.x ?? 0) + 40, y: (s.position?.y ?? 0) + 60 },
+        } as StepInput;
       });
       const cTaken = new Set(doc.connections.map((c) => c.id));
       const connections = clipboard.connections.map((c) => {
         const id = newId('c', cTaken);
         cTaken.add(id);
-        return { id, from: { ...c.from, stepId: map.get(c.from.stepId)! }, to: { ...c.to, stepId: map.get(c.to.stepId)! } };
+        return {
+          id,
+          from: { ...c.from, stepId: map.get(c.from.stepId)! },
+          to: { ...c.to, stepId: map.get(c.to.stepId)! },
+        };
       });
-      commit({ ...doc, steps: [...doc.steps, ...steps], connections: [...doc.connections, ...connections] }, { selection: { steps: steps.map((s) => s.id), connections: [] } });
+      commit(
+        {
+          ...doc,
+          steps: [...doc.steps, ...steps],
+          connections: [...doc.connections, ...connections],
+        },
+        { selection: { steps: steps.map((s) => s.id), connections: [] } },
+      );
     },
 
     undo: () =>
       set((s) => {
         if (!s.past.length) return s;
         const prev = s.past[s.past.length - 1];
-        return { doc: prev, past: s.past.slice(0, -1), future: [s.doc, ...s.future], modelRevision: s.modelRevision + 1, docRevision: s.docRevision + 1, notice: null };
+        return {
+          doc: prev,
+          past: s.past.slice(0, -1),
+          future: [s.doc, ...s.future],
+          modelRevision: s.modelRevision + 1,
+          docRevision: s.docRevision + 1,
+          notice: null,
+        };
       }),
     redo: () =>
       set((s) => {
         if (!s.future.length) return s;
         const [next, ...rest] = s.future;
-        return { doc: next, past: [...s.past, s.doc], future: rest, modelRevision: s.modelRevision + 1, docRevision: s.docRevision + 1, notice: null };
+        return {
+          doc: next,
+          past: [...s.past, s.doc],
+          future: rest,
+          modelRevision: s.modelRevision + 1,
+          docRevision: s.docRevision + 1,
+          notice: null,
+        };
       }),
     setNotice: (notice) => set({ notice }),
   };

@@ -13,7 +13,8 @@ let nextId = 1;
 /** Short confirmations ("Invitation sent"). Dismissed by the reader, never on a timer. */
 export const useToasts = create<ToastState>((set) => ({
   toasts: [],
-  push: (tone, message) => set((s) => ({ toasts: [...s.toasts.slice(-3), { id: nextId++, tone, message }] })),
+  push: (tone, message) =>
+    set((s) => ({ toasts: [...s.toasts.slice(-3), { id: nextId++, tone, message }] })),
   dismiss: (id) => set((s) => ({ toasts: s.toasts.filter((t) => t.id !== id) })),
 }));
 

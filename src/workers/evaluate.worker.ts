@@ -9,14 +9,24 @@
  * of a step's setting does not rebuild them. They depend on the components
  * only and make no number differ from a fresh evaluation.
  */
-import { evaluatePrepared, parseRoute, prepareRoute, type RouteResult } from '@shared/engine/route/evaluate';
+import {
+  evaluatePrepared,
+  parseRoute,
+  prepareRoute,
+  type RouteResult,
+} from '@shared/engine/route/evaluate';
 import { createEvaluationCaches, type EvaluationCaches } from '@shared/engine/route/context';
 import { RouteValidationError } from '@shared/engine/route/errors';
 
 export type EvaluateRequest = { revision: number; document: unknown };
 export type EvaluateReply =
   | { revision: number; ok: true; result: RouteResult; ms: number }
-  | { revision: number; ok: false; issues: Array<{ stepId: string | null; field: string; message: string }>; ms: number };
+  | {
+      revision: number;
+      ok: false;
+      issues: Array<{ stepId: string | null; field: string; message: string }>;
+      ms: number;
+    };
 
 /** Component sets whose caches are kept (most recently used last); a few cover undo, redo and switching routes. */
 const KEPT = 4;
@@ -46,7 +56,13 @@ self.onmessage = (event: MessageEvent<EvaluateRequest>) => {
     const issues =
       error instanceof RouteValidationError
         ? error.issues
-        : [{ stepId: null, field: '', message: error instanceof Error ? error.message : 'The route could not be evaluated.' }];
+        : [
+            {
+              stepId: null,
+              field: '',
+              message: error instanceof Error ? error.message : 'The route could not be evaluated.',
+            },
+          ];
     reply = { revision, ok: false, issues, ms: performance.now() - t0 };
   }
   (self as unknown as DedicatedWorkerGlobalScope).postMessage(reply);

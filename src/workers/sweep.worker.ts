@@ -9,18 +9,34 @@
  * arrives meanwhile stops an older sweep instead of waiting behind it. The
  * variants share the components, hence the engine's document caches.
  */
-import { evaluatePrepared, parseRoute, prepareRoute, type RouteResult } from '@shared/engine/route/evaluate';
+import {
+  evaluatePrepared,
+  parseRoute,
+  prepareRoute,
+  type RouteResult,
+} from '@shared/engine/route/evaluate';
 import { createEvaluationCaches, type EvaluationCaches } from '@shared/engine/route/context';
 
 export type SweepKind = 'crystallisation-end-temperature' | 'stages';
-export type SweepRequest = { id: number; document: { steps: Array<{ id: string; kind: string; params: Record<string, unknown> }> }; stepId: string; sweep: SweepKind; values: number[] };
+export type SweepRequest = {
+  id: number;
+  document: { steps: Array<{ id: string; kind: string; params: Record<string, unknown> }> };
+  stepId: string;
+  sweep: SweepKind;
+  values: number[];
+};
 /** Stop every sweep requested before (and including) this id. */
 export type SweepCancel = { cancel: number };
 export type SweepPoint = { x: number; y: number | null };
 export type SweepReply = { id: number; points: SweepPoint[] };
 
 /** The document with the step's swept parameter set to `x`. */
-export function variant(doc: SweepRequest['document'], stepId: string, sweep: SweepKind, x: number): SweepRequest['document'] {
+export function variant(
+  doc: SweepRequest['document'],
+  stepId: string,
+  sweep: SweepKind,
+  x: number,
+): SweepRequest['document'] {
   return {
     ...doc,
     steps: doc.steps.map((s) => {
@@ -67,13 +83,21 @@ function step(req: SweepRequest, points: SweepPoint[]) {
   const x = req.values[points.length];
   let y: number | null;
   try {
-    y = measure(evaluateVariant(variant(req.document, req.stepId, req.sweep, x)), req.stepId, req.sweep);
+    y = measure(
+      evaluateVariant(variant(req.document, req.stepId, req.sweep, x)),
+      req.stepId,
+      req.sweep,
+    );
   } catch {
     y = null;
   }
   points.push({ x, y });
   if (points.length < req.values.length) setTimeout(() => step(req, points), 0);
-  else (self as unknown as DedicatedWorkerGlobalScope).postMessage({ id: req.id, points } satisfies SweepReply);
+  else
+    (self as unknown as DedicatedWorkerGlobalScope).postMessage({
+      id: req.id,
+      points,
+    } satisfies SweepReply);
 }
 
 self.onmessage = (event: MessageEvent<SweepRequest | SweepCancel>) => {
@@ -83,6 +107,10 @@ self.onmessage = (event: MessageEvent<SweepRequest | SweepCancel>) => {
     return;
   }
   newest = Math.max(newest, msg.id);
-  if (!msg.values.length) (self as unknown as DedicatedWorkerGlobalScope).postMessage({ id: msg.id, points: [] } satisfies SweepReply);
+  if (!msg.values.length)
+    (self as unknown as DedicatedWorkerGlobalScope).postMessage({
+      id: msg.id,
+      points: [],
+    } satisfies SweepReply);
   else step(msg, []);
 };

@@ -17,17 +17,34 @@ const server = useTestServer();
 
 describe('calculation API', () => {
   let token: string;
-  const bearer = (path: string, body: unknown) => request(server.app).post(`/api/v1/calc/${path}`).set('Authorization', `Bearer ${token}`).send(body as object);
+  const bearer = (path: string, body: unknown) =>
+    request(server.app)
+      .post(`/api/v1/calc/${path}`)
+      .set('Authorization', `Bearer ${token}`)
+      .send(body as object);
 
   beforeAll(async () => {
     const workspace = await buildWorkspace();
     const engineer = await buildMember(workspace, ['engineer']);
     const asEngineer = await signIn(server.app, engineer.email);
-    token = (await asEngineer.agent.post('/api/v1/tokens').set('X-CSRF-Token', asEngineer.csrfToken).send({ name: 'calc script' })).body.token;
+    token = (
+      await asEngineer.agent
+        .post('/api/v1/tokens')
+        .set('X-CSRF-Token', asEngineer.csrfToken)
+        .send({ name: 'calc script' })
+    ).body.token;
   });
 
   it('requires authentication', async () => {
-    for (const path of ['vapour-pressure', 'activity-coefficients', 'bubble-point', 'azeotrope', 'partition', 'solubility', 'hansen-distance']) {
+    for (const path of [
+      'vapour-pressure',
+      'activity-coefficients',
+      'bubble-point',
+      'azeotrope',
+      'partition',
+      'solubility',
+      'hansen-distance',
+    ]) {
       const response = await request(server.app).post(`/api/v1/calc/${path}`).send({});
       expect(response.status, path).toBe(401);
       expect(response.body.error.code).toBe('unauthenticated');
@@ -56,7 +73,10 @@ describe('calculation API', () => {
   });
 
   it('vapour pressure of water at 100 °C is one atmosphere (Poling 5th ed. App. A Antoine set)', async () => {
-    const response = await bearer('vapour-pressure', { component: { smiles: 'O' }, temperatureC: 100 });
+    const response = await bearer('vapour-pressure', {
+      component: { smiles: 'O' },
+      temperatureC: 100,
+    });
     expect(response.status).toBe(200);
     const reply = vapourPressureReplySchema.parse(response.body);
     // Regression against this implementation, then the printed value (101.325 kPa at the normal boiling point, 99.97 °C).
@@ -70,7 +90,10 @@ describe('calculation API', () => {
 
   it('resolves another writing of a library SMILES through the canonical form', async () => {
     // Toluene written from the methyl end is not one of the listed strings.
-    const response = await bearer('vapour-pressure', { component: { smiles: 'C(c1ccccc1)' }, temperatureC: 110.6 });
+    const response = await bearer('vapour-pressure', {
+      component: { smiles: 'C(c1ccccc1)' },
+      temperatureC: 110.6,
+    });
     expect(response.status).toBe(200);
     const reply = vapourPressureReplySchema.parse(response.body);
     expect(reply.component.solventId).toBe('toluene');
@@ -79,19 +102,28 @@ describe('calculation API', () => {
   });
 
   it('outside the Antoine range says it extrapolated (Clausius–Clapeyron) in a warning', async () => {
-    const reply = vapourPressureReplySchema.parse((await bearer('vapour-pressure', { component: { smiles: 'O' }, temperatureC: 250 })).body);
+    const reply = vapourPressureReplySchema.parse(
+      (await bearer('vapour-pressure', { component: { smiles: 'O' }, temperatureC: 250 })).body,
+    );
     expect(reply.method).toBe('clausius-clapeyron');
     expect(reply.warnings.join(' ')).toMatch(/outside the Antoine range/);
   });
 
   it('a vapour pressure of a compound not in the library is a 422 no_data', async () => {
-    const response = await bearer('vapour-pressure', { component: { smiles: 'CCCCCCCCCCCCO' }, temperatureC: 100 });
+    const response = await bearer('vapour-pressure', {
+      component: { smiles: 'CCCCCCCCCCCCO' },
+      temperatureC: 100,
+    });
     expect(response.status).toBe(422);
     expect(apiErrorSchema.parse(response.body).error.code).toBe('no_data');
   });
 
   it('UNIFAC activity coefficients of ethanol–water, with the groups used', async () => {
-    const response = await bearer('activity-coefficients', { components: [{ smiles: 'CCO' }, { smiles: 'O' }], moleFractions: [0.5, 0.5], temperatureC: 25 });
+    const response = await bearer('activity-coefficients', {
+      components: [{ smiles: 'CCO' }, { smiles: 'O' }],
+      moleFractions: [0.5, 0.5],
+      temperatureC: 25,
+    });
     expect(response.status).toBe(200);
     const reply = activityCoefficientsReplySchema.parse(response.body);
     expect(reply.activityCoefficients[0]).toBeCloseTo(1.2037, 3);
@@ -99,21 +131,35 @@ describe('calculation API', () => {
     // Both positive deviations from Raoult's law, as measured for this system.
     expect(reply.activityCoefficients.every((g) => g > 1)).toBe(true);
     expect(reply.groups[0].subgroups.map((g) => g.name)).toEqual(['CH3', 'CH2', 'OH']);
-    expect(reply.groups[1].subgroups).toEqual([{ subgroup: 16, name: 'H2O', mainGroup: 7, mainGroupName: 'H2O', count: 1 }]);
+    expect(reply.groups[1].subgroups).toEqual([
+      { subgroup: 16, name: 'H2O', mainGroup: 7, mainGroupName: 'H2O', count: 1 },
+    ]);
     expect(reply.source.ref).toMatch(/Hansen et al\., Ind\. Eng\. Chem\. Res\. 1991/);
   });
 
   it('takes a compound outside the library by its structure-derived groups', async () => {
     const reply = activityCoefficientsReplySchema.parse(
-      (await bearer('activity-coefficients', { components: [{ smiles: 'OC(=O)CCc1ccccc1' }, { smiles: 'Cc1ccccc1' }], moleFractions: [0.1, 0.9], temperatureC: 40 })).body,
+      (
+        await bearer('activity-coefficients', {
+          components: [{ smiles: 'OC(=O)CCc1ccccc1' }, { smiles: 'Cc1ccccc1' }],
+          moleFractions: [0.1, 0.9],
+          temperatureC: 40,
+        })
+      ).body,
     );
     expect(reply.groups[0].basis).toBe('structure');
-    expect(reply.groups[0].subgroups.map((g) => g.name).sort()).toEqual(['ACCH2', 'ACH', 'CH2', 'COOH'].sort());
+    expect(reply.groups[0].subgroups.map((g) => g.name).sort()).toEqual(
+      ['ACCH2', 'ACH', 'CH2', 'COOH'].sort(),
+    );
     expect(reply.warnings.join(' ')).toMatch(/assigned automatically/);
   });
 
   it('bubble point of ethanol–water 50/50 at 1 atm is near 80 °C, the vapour richer in ethanol', async () => {
-    const response = await bearer('bubble-point', { components: [{ smiles: 'CCO' }, { smiles: 'O' }], moleFractions: [0.5, 0.5], pressureKPa: 101.325 });
+    const response = await bearer('bubble-point', {
+      components: [{ smiles: 'CCO' }, { smiles: 'O' }],
+      moleFractions: [0.5, 0.5],
+      pressureKPa: 101.325,
+    });
     expect(response.status).toBe(200);
     const reply = bubblePointReplySchema.parse(response.body);
     expect(reply.temperatureC).toBeCloseTo(79.835, 2);
@@ -124,7 +170,10 @@ describe('calculation API', () => {
   });
 
   it('finds the ethanol–water azeotrope near 78 °C (handbook: 78.2 °C, 89.4 mol % ethanol)', async () => {
-    const response = await bearer('azeotrope', { components: [{ smiles: 'CCO' }, { smiles: 'O' }], pressureKPa: 101.325 });
+    const response = await bearer('azeotrope', {
+      components: [{ smiles: 'CCO' }, { smiles: 'O' }],
+      pressureKPa: 101.325,
+    });
     expect(response.status).toBe(200);
     const reply = azeotropeReplySchema.parse(response.body);
     expect(reply.found).toBe(true);
@@ -135,7 +184,14 @@ describe('calculation API', () => {
   });
 
   it('reports no azeotrope for methanol–water', async () => {
-    const reply = azeotropeReplySchema.parse((await bearer('azeotrope', { components: [{ smiles: 'CO' }, { smiles: 'O' }], pressureKPa: 101.325 })).body);
+    const reply = azeotropeReplySchema.parse(
+      (
+        await bearer('azeotrope', {
+          components: [{ smiles: 'CO' }, { smiles: 'O' }],
+          pressureKPa: 101.325,
+        })
+      ).body,
+    );
     // Methanol–water has no azeotrope (handbook tables list none).
     expect(reply.found).toBe(false);
     expect(reply.temperatureC).toBeNull();
@@ -143,7 +199,11 @@ describe('calculation API', () => {
   });
 
   it('partition of benzoic acid: Collander from logP, and Henderson–Hasselbalch lowers D at pH 7 by the neutral fraction', async () => {
-    const body = (pH: number) => ({ solute: { smiles: 'OC(=O)c1ccccc1', pKa: [{ value: 4.2, type: 'acid' }], logP: 1.87 }, organic: { smiles: 'CCOC(C)=O' }, aqueous: { pH } });
+    const body = (pH: number) => ({
+      solute: { smiles: 'OC(=O)c1ccccc1', pKa: [{ value: 4.2, type: 'acid' }], logP: 1.87 },
+      organic: { smiles: 'CCOC(C)=O' },
+      aqueous: { pH },
+    });
     const acidic = partitionReplySchema.parse((await bearer('partition', body(1))).body);
     const neutral = partitionReplySchema.parse((await bearer('partition', body(7))).body);
     expect(acidic.basis).toBe('molar-concentration');
@@ -154,9 +214,24 @@ describe('calculation API', () => {
   });
 
   it('partition by UNIFAC when no logP is given, with salting-out by Setschenow', async () => {
-    const plain = partitionReplySchema.parse((await bearer('partition', { solute: { smiles: 'c1ccccc1' }, organic: { smiles: 'Cc1ccccc1' }, temperatureC: 25 })).body);
+    const plain = partitionReplySchema.parse(
+      (
+        await bearer('partition', {
+          solute: { smiles: 'c1ccccc1' },
+          organic: { smiles: 'Cc1ccccc1' },
+          temperatureC: 25,
+        })
+      ).body,
+    );
     const salted = partitionReplySchema.parse(
-      (await bearer('partition', { solute: { smiles: 'c1ccccc1' }, organic: { smiles: 'Cc1ccccc1' }, aqueous: { salt: { name: 'nacl', molar: 1 } }, temperatureC: 25 })).body,
+      (
+        await bearer('partition', {
+          solute: { smiles: 'c1ccccc1' },
+          organic: { smiles: 'Cc1ccccc1' },
+          aqueous: { salt: { name: 'nacl', molar: 1 } },
+          temperatureC: 25,
+        })
+      ).body,
     );
     expect(plain.method).toBe('activity-coefficients (UNIFAC)');
     expect(salted.D).toBeGreaterThan(plain.D);
@@ -165,27 +240,49 @@ describe('calculation API', () => {
   });
 
   it('partition into a water-miscible solvent is refused with a reason', async () => {
-    const response = await bearer('partition', { solute: { smiles: 'c1ccccc1', logP: 2.13 }, organic: { smiles: 'CC(C)=O' } });
+    const response = await bearer('partition', {
+      solute: { smiles: 'c1ccccc1', logP: 2.13 },
+      organic: { smiles: 'CC(C)=O' },
+    });
     expect(response.status).toBe(422);
     expect(response.body.error.message).toMatch(/miscible with water/);
   });
 
   it('ideal solubility of naphthalene at 25 °C is 0.302 (Prausnitz et al. 1999, eq. 11-13; Tm 80.2 °C, ΔHfus 18.98 kJ/mol)', async () => {
-    const ideal = solubilityReplySchema.parse((await bearer('solubility', { solute: { meltingPointC: 80.2, enthalpyFusionKJmol: 18.98 }, temperatureC: 25 })).body);
+    const ideal = solubilityReplySchema.parse(
+      (
+        await bearer('solubility', {
+          solute: { meltingPointC: 80.2, enthalpyFusionKJmol: 18.98 },
+          temperatureC: 25,
+        })
+      ).body,
+    );
     expect(ideal.idealMoleFraction).toBeCloseTo(0.30238, 4);
     expect(Math.abs(ideal.idealMoleFraction - 0.302)).toBeLessThan(0.005);
     expect(ideal.moleFraction).toBe(ideal.idealMoleFraction);
     expect(ideal.method).toMatch(/ideal solubility/);
     const inToluene = solubilityReplySchema.parse(
-      (await bearer('solubility', { solute: { smiles: 'c1ccc2ccccc2c1', meltingPointC: 80.2, enthalpyFusionKJmol: 18.98 }, solvent: { smiles: 'Cc1ccccc1' }, temperatureC: 25 })).body,
+      (
+        await bearer('solubility', {
+          solute: { smiles: 'c1ccc2ccccc2c1', meltingPointC: 80.2, enthalpyFusionKJmol: 18.98 },
+          solvent: { smiles: 'Cc1ccccc1' },
+          temperatureC: 25,
+        })
+      ).body,
     );
     expect(inToluene.method).toMatch(/UNIFAC/);
     expect(inToluene.activityCoefficient!).toBeGreaterThan(0.9);
-    expect(inToluene.moleFraction).toBeCloseTo(inToluene.idealMoleFraction / inToluene.activityCoefficient!, 3);
+    expect(inToluene.moleFraction).toBeCloseTo(
+      inToluene.idealMoleFraction / inToluene.activityCoefficient!,
+      3,
+    );
   });
 
   it('Hansen distance toluene–ethanol is 19.41 (Hansen 2007, eq. 1.9, worked with handbook parameters)', async () => {
-    const response = await bearer('hansen-distance', { a: { smiles: 'Cc1ccccc1' }, b: { d: 15.8, p: 8.8, h: 19.4 } });
+    const response = await bearer('hansen-distance', {
+      a: { smiles: 'Cc1ccccc1' },
+      b: { d: 15.8, p: 8.8, h: 19.4 },
+    });
     expect(response.status).toBe(200);
     const reply = hansenDistanceReplySchema.parse(response.body);
     expect(reply.ra).toBeCloseTo(19.413, 3);
@@ -195,7 +292,9 @@ describe('calculation API', () => {
   });
 
   it('estimates Hansen parameters of a structure outside the library and says so', async () => {
-    const reply = hansenDistanceReplySchema.parse((await bearer('hansen-distance', { a: { smiles: 'CCCCCCCCCCO' }, b: { smiles: 'O' } })).body);
+    const reply = hansenDistanceReplySchema.parse(
+      (await bearer('hansen-distance', { a: { smiles: 'CCCCCCCCCCO' }, b: { smiles: 'O' } })).body,
+    );
     expect(reply.a.basis).toBe('estimated');
     expect(reply.a.method).toMatch(/Hoftyzer–Van Krevelen/);
     expect(reply.warnings.join(' ')).toMatch(/estimated/);
@@ -207,18 +306,63 @@ describe('calculation API', () => {
       expect(response.status, JSON.stringify(body)).toBe(400);
       const error = apiErrorSchema.parse(response.body).error;
       expect(error.code).toBe('validation_failed');
-      for (const p of paths) expect(error.details!.map((d) => d.path), JSON.stringify(error.details)).toContain(p);
+      for (const p of paths)
+        expect(
+          error.details!.map((d) => d.path),
+          JSON.stringify(error.details),
+        ).toContain(p);
     };
-    await expectPaths('activity-coefficients', { components: [], moleFractions: [], temperatureC: 25 }, ['components', 'moleFractions']);
-    await expectPaths('activity-coefficients', { components: [{ smiles: 'CCO' }, { smiles: 'O' }], moleFractions: [1], temperatureC: 25 }, ['moleFractions']);
-    await expectPaths('activity-coefficients', { components: [{ smiles: 'CCO' }, { smiles: 'O' }], moleFractions: [0.5, 0.6], temperatureC: 25 }, ['moleFractions']);
-    await expectPaths('activity-coefficients', { components: [{ smiles: 'CCO' }, { smiles: 'O' }], moleFractions: [0.5, 'NaN'], temperatureC: 25 }, ['moleFractions.1']);
+    await expectPaths(
+      'activity-coefficients',
+      { components: [], moleFractions: [], temperatureC: 25 },
+      ['components', 'moleFractions'],
+    );
+    await expectPaths(
+      'activity-coefficients',
+      { components: [{ smiles: 'CCO' }, { smiles: 'O' }], moleFractions: [1], temperatureC: 25 },
+      ['moleFractions'],
+    );
+    await expectPaths(
+      'activity-coefficients',
+      {
+        components: [{ smiles: 'CCO' }, { smiles: 'O' }],
+        moleFractions: [0.5, 0.6],
+        temperatureC: 25,
+      },
+      ['moleFractions'],
+    );
+    await expectPaths(
+      'activity-coefficients',
+      {
+        components: [{ smiles: 'CCO' }, { smiles: 'O' }],
+        moleFractions: [0.5, 'NaN'],
+        temperatureC: 25,
+      },
+      ['moleFractions.1'],
+    );
     const many = Array.from({ length: 21 }, () => ({ smiles: 'O' }));
-    await expectPaths('bubble-point', { components: many, moleFractions: many.map(() => 1 / 21), pressureKPa: 101.325 }, ['components', 'moleFractions']);
-    await expectPaths('vapour-pressure', { component: { smiles: '' }, temperatureC: 500 }, ['component.smiles', 'temperatureC']);
-    await expectPaths('azeotrope', { components: [{ smiles: 'CCO' }], pressureKPa: -1 }, ['components', 'pressureKPa']);
+    await expectPaths(
+      'bubble-point',
+      { components: many, moleFractions: many.map(() => 1 / 21), pressureKPa: 101.325 },
+      ['components', 'moleFractions'],
+    );
+    await expectPaths('vapour-pressure', { component: { smiles: '' }, temperatureC: 500 }, [
+      'component.smiles',
+      'temperatureC',
+    ]);
+    await expectPaths('azeotrope', { components: [{ smiles: 'CCO' }], pressureKPa: -1 }, [
+      'components',
+      'pressureKPa',
+    ]);
     await expectPaths('hansen-distance', { a: { d: -1, p: 1, h: 1 }, b: { smiles: 'O' } }, ['a.d']);
-    await expectPaths('partition', { solute: { smiles: 'CCO', pKa: [{ value: 4, type: 'neutral' }] }, organic: { smiles: 'Cc1ccccc1' } }, ['solute.pKa.0.type']);
+    await expectPaths(
+      'partition',
+      {
+        solute: { smiles: 'CCO', pKa: [{ value: 4, type: 'neutral' }] },
+        organic: { smiles: 'Cc1ccccc1' },
+      },
+      ['solute.pKa.0.type'],
+    );
   });
 
   it('JSON that overflows to Infinity or is not JSON at all is a 400, and the server keeps answering', async () => {
@@ -228,7 +372,9 @@ describe('calculation API', () => {
       .set('Content-Type', 'application/json')
       .send('{"component":{"smiles":"O"},"temperatureC":1e999}');
     expect(overflow.status).toBe(400);
-    expect(overflow.body.error.details.map((d: { path: string }) => d.path)).toContain('temperatureC');
+    expect(overflow.body.error.details.map((d: { path: string }) => d.path)).toContain(
+      'temperatureC',
+    );
     const notJson = await request(server.app)
       .post('/api/v1/calc/vapour-pressure')
       .set('Authorization', `Bearer ${token}`)
@@ -236,11 +382,17 @@ describe('calculation API', () => {
       .send('{"component":{"smiles":"O"},"temperatureC":NaN}');
     expect(notJson.status).toBe(400);
     expect(notJson.body.error.code).toBe('malformed_json');
-    expect((await bearer('vapour-pressure', { component: { smiles: 'O' }, temperatureC: 100 })).status).toBe(200);
+    expect(
+      (await bearer('vapour-pressure', { component: { smiles: 'O' }, temperatureC: 100 })).status,
+    ).toBe(200);
   });
 
   it('an unparsable SMILES is a 422 whose message names the problem', async () => {
-    const response = await bearer('activity-coefficients', { components: [{ smiles: 'CCO' }, { smiles: 'C1CC' }], moleFractions: [0.5, 0.5], temperatureC: 25 });
+    const response = await bearer('activity-coefficients', {
+      components: [{ smiles: 'CCO' }, { smiles: 'C1CC' }],
+      moleFractions: [0.5, 0.5],
+      temperatureC: 25,
+    });
     expect(response.status).toBe(422);
     const error = apiErrorSchema.parse(response.body).error;
     expect(error.code).toBe('structure_unparsable');
@@ -249,7 +401,11 @@ describe('calculation API', () => {
   });
 
   it('a group pair without UNIFAC parameters is a 422 naming the pair (water – CH3SH main groups)', async () => {
-    const response = await bearer('activity-coefficients', { components: [{ smiles: 'CCS' }, { smiles: 'O' }], moleFractions: [0.5, 0.5], temperatureC: 25 });
+    const response = await bearer('activity-coefficients', {
+      components: [{ smiles: 'CCS' }, { smiles: 'O' }],
+      moleFractions: [0.5, 0.5],
+      temperatureC: 25,
+    });
     expect(response.status).toBe(422);
     const error = apiErrorSchema.parse(response.body).error;
     expect(error.code).toBe('unifac_missing_parameters');
@@ -257,7 +413,11 @@ describe('calculation API', () => {
   });
 
   it('atoms no UNIFAC group covers are a 422 that lists them', async () => {
-    const response = await bearer('activity-coefficients', { components: [{ smiles: 'CC(=O)Nc1ccccc1' }, { smiles: 'O' }], moleFractions: [0.5, 0.5], temperatureC: 25 });
+    const response = await bearer('activity-coefficients', {
+      components: [{ smiles: 'CC(=O)Nc1ccccc1' }, { smiles: 'O' }],
+      moleFractions: [0.5, 0.5],
+      temperatureC: 25,
+    });
     expect(response.status).toBe(422);
     expect(response.body.error.code).toBe('unifac_missing_parameters');
     expect(response.body.error.message).toMatch(/no UNIFAC group covers 3 atom/);
@@ -265,7 +425,15 @@ describe('calculation API', () => {
 
   it('lists every calculation path in the OpenAPI document', async () => {
     const doc = (await request(server.app).get('/api/v1/openapi.json')).body;
-    for (const path of ['vapour-pressure', 'activity-coefficients', 'bubble-point', 'azeotrope', 'partition', 'solubility', 'hansen-distance']) {
+    for (const path of [
+      'vapour-pressure',
+      'activity-coefficients',
+      'bubble-point',
+      'azeotrope',
+      'partition',
+      'solubility',
+      'hansen-distance',
+    ]) {
       expect(Object.keys(doc.paths)).toContain(`/api/v1/calc/${path}`);
     }
     expect(Object.keys(doc.paths)).toContain('/api/v1/solvents');

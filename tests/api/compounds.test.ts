@@ -1,12 +1,19 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { compoundListSchema, compoundSchema, structurePreviewSchema } from '@shared/schemas/compounds';
+import {
+  compoundListSchema,
+  compoundSchema,
+  structurePreviewSchema,
+} from '@shared/schemas/compounds';
 import { compoundSnapshotSchema } from '@shared/schemas/route';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { AuditEvent, Compound, Workspace, type User } from '../../server/models';
 import { toCompoundSnapshot } from '../../server/services/compounds';
 import { up as seedDemoWorkspaces } from '../../seeders/20261201000000-demo-workspaces';
-import { DEMO_COMPOUNDS, up as seedDemoCompounds } from '../../seeders/20261202000000-demo-compounds';
+import {
+  DEMO_COMPOUNDS,
+  up as seedDemoCompounds,
+} from '../../seeders/20261202000000-demo-compounds';
 import { DEMO_WORKSPACES } from '../../seeders/data/demo-accounts';
 import { database } from '../../server/db/sequelize';
 import { useTestServer } from '../support/app';
@@ -37,17 +44,36 @@ describe('workspace compounds', () => {
   });
 
   const listPath = () => `/api/v1/workspaces/${workspace.id}/compounds`;
-  const post = (who: SignedIn, body: unknown) => who.agent.post(listPath()).set('X-CSRF-Token', who.csrfToken).send(body as object);
-  const patch = (who: SignedIn, id: string, body: unknown) => who.agent.patch(`${listPath()}/${id}`).set('X-CSRF-Token', who.csrfToken).send(body as object);
+  const post = (who: SignedIn, body: unknown) =>
+    who.agent
+      .post(listPath())
+      .set('X-CSRF-Token', who.csrfToken)
+      .send(body as object);
+  const patch = (who: SignedIn, id: string, body: unknown) =>
+    who.agent
+      .patch(`${listPath()}/${id}`)
+      .set('X-CSRF-Token', who.csrfToken)
+      .send(body as object);
 
   it('requires authentication', async () => {
     expect((await request(server.app).get(listPath())).status).toBe(401);
-    expect((await request(server.app).post(listPath()).send({ name: 'x', smiles: 'CCO', role: 'product' })).status).toBe(401);
-    expect((await request(server.app).post('/api/v1/structures/preview').send({ smiles: 'CCO' })).status).toBe(401);
+    expect(
+      (
+        await request(server.app)
+          .post(listPath())
+          .send({ name: 'x', smiles: 'CCO', role: 'product' })
+      ).status,
+    ).toBe(401);
+    expect(
+      (await request(server.app).post('/api/v1/structures/preview').send({ smiles: 'CCO' })).status,
+    ).toBe(401);
   });
 
   it('previews a structure: formula, molar mass, drawing, UNIFAC groups and estimates marked with their method', async () => {
-    const response = await asChemist.agent.post('/api/v1/structures/preview').set('X-CSRF-Token', asChemist.csrfToken).send({ smiles: ACID });
+    const response = await asChemist.agent
+      .post('/api/v1/structures/preview')
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ smiles: ACID });
     expect(response.status).toBe(200);
     const preview = structurePreviewSchema.parse(response.body);
     expect(preview.formula).toBe('C9H10O3');
@@ -56,7 +82,13 @@ describe('workspace compounds', () => {
     expect(preview.svg).toMatch(/^<svg/);
     expect(preview.svg).not.toMatch(/<script|on\w+=/i);
     expect(preview.unifac.groups).toEqual({ '9': 4, '10': 1, '12': 1, '24': 1, '42': 1 });
-    expect(preview.unifac.summary.map((g) => g.name)).toEqual(['ACH', 'AC', 'ACCH2', 'CH3O', 'COOH']);
+    expect(preview.unifac.summary.map((g) => g.name)).toEqual([
+      'ACH',
+      'AC',
+      'ACCH2',
+      'CH3O',
+      'COOH',
+    ]);
     expect(preview.unifac.unassignedAtoms).toEqual([]);
     expect(preview.estimates.logP!.method).toMatch(/UNIFAC/);
     expect(preview.estimates.logP!.value).toBeCloseTo(2.123, 2);
@@ -64,10 +96,22 @@ describe('workspace compounds', () => {
   });
 
   it('previews a library solvent as that solvent, and lists atoms no group covers', async () => {
-    const ethanol = structurePreviewSchema.parse((await asReviewer.agent.post('/api/v1/structures/preview').set('X-CSRF-Token', asReviewer.csrfToken).send({ smiles: 'OCC' })).body);
+    const ethanol = structurePreviewSchema.parse(
+      (
+        await asReviewer.agent
+          .post('/api/v1/structures/preview')
+          .set('X-CSRF-Token', asReviewer.csrfToken)
+          .send({ smiles: 'OCC' })
+      ).body,
+    );
     expect(ethanol.librarySolventId).toBe('ethanol');
     const anilide = structurePreviewSchema.parse(
-      (await asReviewer.agent.post('/api/v1/structures/preview').set('X-CSRF-Token', asReviewer.csrfToken).send({ smiles: 'CC(=O)Nc1ccccc1' })).body,
+      (
+        await asReviewer.agent
+          .post('/api/v1/structures/preview')
+          .set('X-CSRF-Token', asReviewer.csrfToken)
+          .send({ smiles: 'CC(=O)Nc1ccccc1' })
+      ).body,
     );
     expect(anilide.unifac.unassignedAtoms.map((a) => a.element).sort()).toEqual(['C', 'N', 'O']);
     expect(anilide.estimates.logP).toBeNull();
@@ -75,12 +119,18 @@ describe('workspace compounds', () => {
   });
 
   it('answers an unparsable structure with 422 naming the problem', async () => {
-    const response = await asChemist.agent.post('/api/v1/structures/preview').set('X-CSRF-Token', asChemist.csrfToken).send({ smiles: 'c1ccccc' });
+    const response = await asChemist.agent
+      .post('/api/v1/structures/preview')
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ smiles: 'c1ccccc' });
     expect(response.status).toBe(422);
     const error = apiErrorSchema.parse(response.body).error;
     expect(error.code).toBe('structure_unparsable');
     expect(error.message).toMatch(/c1ccccc/);
-    const molfile = await asChemist.agent.post('/api/v1/structures/preview').set('X-CSRF-Token', asChemist.csrfToken).send({ molfile: 'not a molfile' });
+    const molfile = await asChemist.agent
+      .post('/api/v1/structures/preview')
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ molfile: 'not a molfile' });
     expect(molfile.status).toBe(422);
     expect(molfile.body.error.message).toMatch(/molfile/i);
   });
@@ -98,25 +148,47 @@ describe('workspace compounds', () => {
     });
     expect(response.status).toBe(201);
     const compound = compoundSchema.parse(response.body);
-    expect(compound).toMatchObject({ formula: 'C9H10O3', role: 'impurity', workspaceId: workspace.id, createdBy: { id: chemist.id } });
+    expect(compound).toMatchObject({
+      formula: 'C9H10O3',
+      role: 'impurity',
+      workspaceId: workspace.id,
+      createdBy: { id: chemist.id },
+    });
     expect(compound.logP).toMatchObject({ source: 'estimated' });
     expect(compound.logP!.method).toMatch(/UNIFAC/);
     expect(compound.hansen?.source ?? 'none').not.toBe('entered');
     expect(compound.unifac.source).toBe('assigned');
     const stored = await Compound.findByPk(compound.id);
     expect(stored!.canonicalSmiles).toBe(compound.canonicalSmiles);
-    const audit = await AuditEvent.findOne({ where: { entityType: 'compound', entityId: compound.id, action: 'compound.create' } });
+    const audit = await AuditEvent.findOne({
+      where: { entityType: 'compound', entityId: compound.id, action: 'compound.create' },
+    });
     expect(audit!.actorId).toBe(chemist.id);
     expect((audit!.after as { formula: string }).formula).toBe('C9H10O3');
   });
 
   it('a measured logP and entered Hansen parameters win over the estimates; clearing them brings the estimate back', async () => {
     const created = compoundSchema.parse(
-      (await post(asAdmin, { name: 'Measured one', smiles: 'CCCCCCO', role: 'reagent', logP: { value: 2.03, method: 'shake flask' }, hansen: { d: 15.9, p: 5.8, h: 12.5 } })).body,
+      (
+        await post(asAdmin, {
+          name: 'Measured one',
+          smiles: 'CCCCCCO',
+          role: 'reagent',
+          logP: { value: 2.03, method: 'shake flask' },
+          hansen: { d: 15.9, p: 5.8, h: 12.5 },
+        })
+      ).body,
     );
-    expect(created.logP).toEqual({ value: 2.03, source: 'measured', method: 'shake flask', warnings: [] });
+    expect(created.logP).toEqual({
+      value: 2.03,
+      source: 'measured',
+      method: 'shake flask',
+      warnings: [],
+    });
     expect(created.hansen).toMatchObject({ d: 15.9, p: 5.8, h: 12.5, source: 'entered' });
-    const cleared = compoundSchema.parse((await patch(asChemist, created.id, { logP: null, hansen: null })).body);
+    const cleared = compoundSchema.parse(
+      (await patch(asChemist, created.id, { logP: null, hansen: null })).body,
+    );
     expect(cleared.logP!.source).toBe('estimated');
     expect(cleared.logP!.value).not.toBe(2.03);
     expect(cleared.hansen!.source).toBe('estimated');
@@ -124,15 +196,28 @@ describe('workspace compounds', () => {
   });
 
   it('edited UNIFAC groups override the assignment; a new structure goes back to the automatic groups', async () => {
-    const created = compoundSchema.parse((await post(asChemist, { name: 'Anilide (test)', smiles: 'CC(=O)Nc1ccccc1', role: 'by-product' })).body);
+    const created = compoundSchema.parse(
+      (
+        await post(asChemist, {
+          name: 'Anilide (test)',
+          smiles: 'CC(=O)Nc1ccccc1',
+          role: 'by-product',
+        })
+      ).body,
+    );
     expect(created.unifac.unassignedAtoms).toHaveLength(3);
     expect(created.logP).toBeNull();
     expect(created.estimateNotes.join(' ')).toMatch(/logP not estimated/);
-    const edited = compoundSchema.parse((await patch(asChemist, created.id, { unifacGroups: { '1': 1, '9': 5, '10': 1, '94': 1 } })).body);
+    const edited = compoundSchema.parse(
+      (await patch(asChemist, created.id, { unifacGroups: { '1': 1, '9': 5, '10': 1, '94': 1 } }))
+        .body,
+    );
     expect(edited.unifac.source).toBe('edited');
     expect(edited.unifac.groups).toEqual({ '1': 1, '9': 5, '10': 1, '94': 1 });
     expect(edited.unifac.unassignedAtoms).toEqual([]);
-    const restructured = compoundSchema.parse((await patch(asChemist, created.id, { smiles: 'CCOC(=O)CC' })).body);
+    const restructured = compoundSchema.parse(
+      (await patch(asChemist, created.id, { smiles: 'CCOC(=O)CC' })).body,
+    );
     expect(restructured.unifac.source).toBe('assigned');
     expect(restructured.formula).toBe('C5H10O2');
     const unknown = await patch(asChemist, created.id, { unifacGroups: { '9999': 1 } });
@@ -150,11 +235,17 @@ describe('workspace compounds', () => {
     });
     expect(response.status).toBe(400);
     const paths = response.body.error.details.map((d: { path: string }) => d.path);
-    for (const p of ['name', 'role', 'meltingPointC', 'pKa.0.value', 'solubility.0.value']) expect(paths).toContain(p);
+    for (const p of ['name', 'role', 'meltingPointC', 'pKa.0.value', 'solubility.0.value'])
+      expect(paths).toContain(p);
     const noStructure = await post(asChemist, { name: 'No structure', role: 'product' });
     expect(noStructure.status).toBe(400);
     expect(noStructure.body.error.details.map((d: { path: string }) => d.path)).toContain('smiles');
-    const unknownSolvent = await post(asChemist, { name: 'x', smiles: 'CCO', role: 'product', solubility: [{ solventId: 'no-such', temperatureC: 20, value: 1, unit: 'g/L' }] });
+    const unknownSolvent = await post(asChemist, {
+      name: 'x',
+      smiles: 'CCO',
+      role: 'product',
+      solubility: [{ solventId: 'no-such', temperatureC: 20, value: 1, unit: 'g/L' }],
+    });
     expect(unknownSolvent.status).toBe(400);
     expect(unknownSolvent.body.error.details[0].path).toBe('solubility.0.solventId');
   });
@@ -176,42 +267,79 @@ describe('workspace compounds', () => {
     for (const who of [asReviewer, asEngineer]) {
       expect((await post(who, { name: 'x', smiles: 'CCO', role: 'product' })).status).toBe(403);
       expect((await patch(who, list[0].id, { name: 'renamed' })).status).toBe(403);
-      expect((await who.agent.delete(`${listPath()}/${list[0].id}`).set('X-CSRF-Token', who.csrfToken)).status).toBe(403);
+      expect(
+        (await who.agent.delete(`${listPath()}/${list[0].id}`).set('X-CSRF-Token', who.csrfToken))
+          .status,
+      ).toBe(403);
     }
   });
 
   it("another workspace's compounds answer 404, exactly like missing ones", async () => {
     const list = compoundListSchema.parse((await asChemist.agent.get(listPath())).body);
     const foreign = await asOutsider.agent.get(`${listPath()}/${list[0].id}`);
-    const missing = await asOutsider.agent.get(`${listPath()}/00000000-0000-4000-8000-000000000000`);
+    const missing = await asOutsider.agent.get(
+      `${listPath()}/00000000-0000-4000-8000-000000000000`,
+    );
     expect(foreign.status).toBe(404);
     expect(foreign.body).toEqual(missing.body);
     expect((await asOutsider.agent.get(listPath())).status).toBe(404);
     expect((await patch(asOutsider, list[0].id, { name: 'taken' })).status).toBe(404);
     // The outsider's own workspace id with this workspace's compound id is also a 404.
     const ownWorkspace = asOutsider.session.workspaces[0].id;
-    expect((await asOutsider.agent.get(`/api/v1/workspaces/${ownWorkspace}/compounds/${list[0].id}`)).status).toBe(404);
+    expect(
+      (await asOutsider.agent.get(`/api/v1/workspaces/${ownWorkspace}/compounds/${list[0].id}`))
+        .status,
+    ).toBe(404);
   });
 
   it('renames and deletes, auditing both', async () => {
-    const created = compoundSchema.parse((await post(asChemist, { name: 'Short-lived', smiles: 'CCCO', role: 'reagent' })).body);
-    const renamed = compoundSchema.parse((await patch(asChemist, created.id, { name: 'Short-lived (renamed)' })).body);
+    const created = compoundSchema.parse(
+      (await post(asChemist, { name: 'Short-lived', smiles: 'CCCO', role: 'reagent' })).body,
+    );
+    const renamed = compoundSchema.parse(
+      (await patch(asChemist, created.id, { name: 'Short-lived (renamed)' })).body,
+    );
     expect(renamed.name).toBe('Short-lived (renamed)');
-    const update = await AuditEvent.findOne({ where: { entityId: created.id, action: 'compound.update' } });
+    const update = await AuditEvent.findOne({
+      where: { entityId: created.id, action: 'compound.update' },
+    });
     expect((update!.before as { name: string }).name).toBe('Short-lived');
     expect((update!.after as { name: string }).name).toBe('Short-lived (renamed)');
-    expect((await asChemist.agent.delete(`${listPath()}/${created.id}`).set('X-CSRF-Token', asChemist.csrfToken)).status).toBe(204);
+    expect(
+      (
+        await asChemist.agent
+          .delete(`${listPath()}/${created.id}`)
+          .set('X-CSRF-Token', asChemist.csrfToken)
+      ).status,
+    ).toBe(204);
     expect((await asChemist.agent.get(`${listPath()}/${created.id}`)).status).toBe(404);
-    expect(await AuditEvent.count({ where: { entityId: created.id, action: 'compound.delete' } })).toBe(1);
+    expect(
+      await AuditEvent.count({ where: { entityId: created.id, action: 'compound.delete' } }),
+    ).toBe(1);
   });
 
   it('produces the self-contained snapshot a route document carries', async () => {
     const created = compoundSchema.parse(
-      (await post(asChemist, { name: 'Snapshot acid', smiles: ACID, role: 'impurity', pKa: [{ value: 4.4, type: 'acid' }], meltingPointC: 86, enthalpyFusionKJmol: 25 })).body,
+      (
+        await post(asChemist, {
+          name: 'Snapshot acid',
+          smiles: ACID,
+          role: 'impurity',
+          pKa: [{ value: 4.4, type: 'acid' }],
+          meltingPointC: 86,
+          enthalpyFusionKJmol: 25,
+        })
+      ).body,
     );
     const snapshot = toCompoundSnapshot(created);
     expect(compoundSnapshotSchema.safeParse(snapshot).success).toBe(true);
-    expect(snapshot).toMatchObject({ kind: 'compound', id: created.id, role: 'impurity', meltingPointC: 86, pKa: [{ value: 4.4, type: 'acid' }] });
+    expect(snapshot).toMatchObject({
+      kind: 'compound',
+      id: created.id,
+      role: 'impurity',
+      meltingPointC: 86,
+      pKa: [{ value: 4.4, type: 'acid' }],
+    });
     expect(snapshot.logP).toBeCloseTo(created.logP!.value, 10);
     expect(snapshot.unifac).toEqual(created.unifac.groups);
     expect(snapshot.note).toMatch(/logP estimated/);
@@ -223,13 +351,18 @@ describe('workspace compounds', () => {
     await seedDemoCompounds({ context });
     await seedDemoCompounds({ context });
     const demo = await Workspace.findOne({ where: { slug: DEMO_WORKSPACES[0].slug } });
-    const seeded = await Compound.findAll({ where: { workspaceId: demo!.id }, order: [['name', 'ASC']] });
+    const seeded = await Compound.findAll({
+      where: { workspaceId: demo!.id },
+      order: [['name', 'ASC']],
+    });
     expect(seeded.map((c) => c.name).sort()).toEqual(DEMO_COMPOUNDS.map((c) => c.name).sort());
     for (const c of seeded) {
       expect(c.name).toMatch(/\(invented\)$/);
       expect(c.notes).toMatch(/invented/i);
     }
-    expect(new Set(seeded.map((c) => c.role))).toEqual(new Set(['product', 'impurity', 'reagent', 'by-product']));
+    expect(new Set(seeded.map((c) => c.role))).toEqual(
+      new Set(['product', 'impurity', 'reagent', 'by-product']),
+    );
     const product = seeded.find((c) => c.role === 'product')!;
     expect(product.logP).toMatchObject({ source: 'measured', method: 'invented demo value' });
     expect(product.unifac.unassignedAtoms).toEqual([]);

@@ -9,7 +9,9 @@ import { signIn } from '../support/factories';
 
 const server = useTestServer();
 const filesIn = (folder: string) =>
-  readdirSync(new URL(`../../${folder}/`, import.meta.url)).filter((name) => name.endsWith('.ts')).sort();
+  readdirSync(new URL(`../../${folder}/`, import.meta.url))
+    .filter((name) => name.endsWith('.ts'))
+    .sort();
 
 describe('migrations and the demo seed', () => {
   it('migrations are recorded and do not run twice', async () => {
@@ -29,7 +31,10 @@ describe('migrations and the demo seed', () => {
       expect.objectContaining({ name: 'Demo process group (invented)', roles: ['chemist'] }),
     ]);
     const demoId = chemist.session.workspaces[0].id;
-    const members = (await chemist.agent.get(`/api/v1/workspaces/${demoId}/members`)).body as { email: string; roles: string[] }[];
+    const members = (await chemist.agent.get(`/api/v1/workspaces/${demoId}/members`)).body as {
+      email: string;
+      roles: string[];
+    }[];
     expect(Object.fromEntries(members.map((m) => [m.email, m.roles]))).toEqual({
       'admin@example.com': ['admin'],
       'chemist@example.com': ['chemist'],
@@ -38,7 +43,9 @@ describe('migrations and the demo seed', () => {
     });
 
     const other = await signIn(server.app, 'other@example.com', DEMO_PASSWORD);
-    expect(other.session.workspaces).toEqual([expect.objectContaining({ name: 'Second site (invented)', roles: ['chemist'] })]);
+    expect(other.session.workspaces).toEqual([
+      expect.objectContaining({ name: 'Second site (invented)', roles: ['chemist'] }),
+    ]);
     expect((await other.agent.get(`/api/v1/workspaces/${demoId}/members`)).status).toBe(404);
   });
 });
@@ -47,14 +54,24 @@ describe('concurrent start-up', () => {
   it('two servers migrating a fresh database at once: one applies, the other waits and finds nothing to do', async () => {
     const baseUrl = new URL(process.env.DATABASE_URL!);
     const freshName = `${baseUrl.pathname.slice(1)}_fresh`;
-    const admin = new Sequelize(new URL('/postgres', baseUrl).href, { dialect: 'postgres', logging: false });
+    const admin = new Sequelize(new URL('/postgres', baseUrl).href, {
+      dialect: 'postgres',
+      logging: false,
+    });
     await admin.query(`CREATE DATABASE ${freshName}`);
-    const connect = () => new Sequelize(new URL(`/${freshName}`, baseUrl).href, { dialect: 'postgres', logging: false });
+    const connect = () =>
+      new Sequelize(new URL(`/${freshName}`, baseUrl).href, {
+        dialect: 'postgres',
+        logging: false,
+      });
     const first = connect();
     const second = connect();
     try {
       const results = await Promise.all([runMigrations(first), runMigrations(second)]);
-      expect(results.map((names) => names.length).sort((a, b) => a - b)).toEqual([0, filesIn('migrations').length]);
+      expect(results.map((names) => names.length).sort((a, b) => a - b)).toEqual([
+        0,
+        filesIn('migrations').length,
+      ]);
     } finally {
       await first.close();
       await second.close();

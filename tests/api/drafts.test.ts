@@ -1,6 +1,10 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { draftConflictSchema, routeDetailSchema, saveDraftResponseSchema } from '@shared/schemas/routes';
+import {
+  draftConflictSchema,
+  routeDetailSchema,
+  saveDraftResponseSchema,
+} from '@shared/schemas/routes';
 import type { RouteDocumentInput } from '@shared/schemas/route';
 import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
 import { AuditEvent, type Workspace } from '../../server/models';
@@ -9,7 +13,10 @@ import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/f
 
 const server = useTestServer();
 const demo = (): RouteDocumentInput => structuredClone(demoRoute) as RouteDocumentInput;
-type Doc = { steps: { id: string; params: Record<string, unknown> }[]; connections: { id: string }[] };
+type Doc = {
+  steps: { id: string; params: Record<string, unknown> }[];
+  connections: { id: string }[];
+};
 
 describe('route drafts (autosave)', () => {
   let workspace: Workspace;
@@ -33,13 +40,23 @@ describe('route drafts (autosave)', () => {
       .send({ name: 'Draft test', ...(document ? { document } : {}) });
     return routeDetailSchema.parse(response.body);
   };
-  const draftPath = (routeId: string) => `/api/v1/workspaces/${workspace.id}/routes/${routeId}/draft`;
+  const draftPath = (routeId: string) =>
+    `/api/v1/workspaces/${workspace.id}/routes/${routeId}/draft`;
   const save = (who: SignedIn, routeId: string, document: unknown, baseVersion: number) =>
-    who.agent.put(draftPath(routeId)).set('X-CSRF-Token', who.csrfToken).send({ document, baseVersion });
+    who.agent
+      .put(draftPath(routeId))
+      .set('X-CSRF-Token', who.csrfToken)
+      .send({ document, baseVersion });
 
   it('requires authentication', async () => {
     const route = await newRoute();
-    expect((await request(server.app).put(draftPath(route.id)).send({ document: demo(), baseVersion: 1 })).status).toBe(401);
+    expect(
+      (
+        await request(server.app)
+          .put(draftPath(route.id))
+          .send({ document: demo(), baseVersion: 1 })
+      ).status,
+    ).toBe(401);
   });
 
   it('each save with the current baseVersion increments the version and stores the totals', async () => {
@@ -55,19 +72,27 @@ describe('route drafts (autosave)', () => {
 
     // A change the engine sees: less antisolvent leaves more product in the liquor.
     const lessHeptane = demo() as unknown as Doc;
-    const mode = lessHeptane.steps.find((s) => s.id === 'antisolvent')!.params.mode as { volume: { value: unknown } };
+    const mode = lessHeptane.steps.find((s) => s.id === 'antisolvent')!.params.mode as {
+      volume: { value: unknown };
+    };
     mode.volume.value = 1;
-    const second = saveDraftResponseSchema.parse((await save(asChemist, route.id, lessHeptane, 2)).body);
+    const second = saveDraftResponseSchema.parse(
+      (await save(asChemist, route.id, lessHeptane, 2)).body,
+    );
     expect(second.version).toBe(3);
     expect(second.totals!.yieldPct).not.toEqual(saved.totals!.yieldPct);
 
-    const detail = routeDetailSchema.parse((await asColleague.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)).body);
+    const detail = routeDetailSchema.parse(
+      (await asColleague.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)).body,
+    );
     expect(detail.draftVersion).toBe(3);
     expect(detail.draft.version).toBe(3);
     expect(detail.draft.document).toEqual(lessHeptane);
     expect(detail.totals).toEqual(second.totals);
     expect(detail.stepCount).toBe(demoRoute.steps.length);
-    expect(await AuditEvent.count({ where: { action: 'route.draft.save', entityId: route.id } })).toBe(2);
+    expect(
+      await AuditEvent.count({ where: { action: 'route.draft.save', entityId: route.id } }),
+    ).toBe(2);
   });
 
   it('a save from a stale baseVersion answers 409 with the current draft and who changed it, and changes nothing', async () => {
@@ -85,11 +110,16 @@ describe('route drafts (autosave)', () => {
     expect(error.code).toBe('draft_conflict');
     expect(error.message).toContain(colleagueName);
     expect(error.details.current.version).toBe(2);
-    expect(error.details.current.updatedBy).toEqual({ id: asColleague.session.user.id, name: colleagueName });
+    expect(error.details.current.updatedBy).toEqual({
+      id: asColleague.session.user.id,
+      name: colleagueName,
+    });
     expect(error.message).toContain(error.details.current.updatedAt);
     expect(error.details.current.document).toEqual(theirs);
 
-    const detail = routeDetailSchema.parse((await asChemist.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)).body);
+    const detail = routeDetailSchema.parse(
+      (await asChemist.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)).body,
+    );
     expect(detail.draft.version).toBe(2);
     expect((detail.draft.document as unknown as Doc).steps[0].params.temperatureC).toBe(25);
 
@@ -99,7 +129,10 @@ describe('route drafts (autosave)', () => {
 
   it('of two saves racing from the same version exactly one wins', async () => {
     const route = await newRoute();
-    const results = await Promise.all([save(asChemist, route.id, demo(), 1), save(asColleague, route.id, demo(), 1)]);
+    const results = await Promise.all([
+      save(asChemist, route.id, demo(), 1),
+      save(asColleague, route.id, demo(), 1),
+    ]);
     expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
   });
 
@@ -109,11 +142,20 @@ describe('route drafts (autosave)', () => {
     bad.steps[1].params.stages = 0;
     const response = await save(asChemist, route.id, bad, 1);
     expect(response.status).toBe(400);
-    expect((response.body.error.details as { path: string }[]).map((d) => d.path)).toContain('document.steps.1.params.stages');
-    const missingBase = await asChemist.agent.put(draftPath(route.id)).set('X-CSRF-Token', asChemist.csrfToken).send({ document: demo() });
+    expect((response.body.error.details as { path: string }[]).map((d) => d.path)).toContain(
+      'document.steps.1.params.stages',
+    );
+    const missingBase = await asChemist.agent
+      .put(draftPath(route.id))
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ document: demo() });
     expect(missingBase.status).toBe(400);
-    expect(missingBase.body.error.details.map((d: { path: string }) => d.path)).toContain('baseVersion');
-    const detail = (await asChemist.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)).body;
+    expect(missingBase.body.error.details.map((d: { path: string }) => d.path)).toContain(
+      'baseVersion',
+    );
+    const detail = (
+      await asChemist.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)
+    ).body;
     expect(detail.draft.version).toBe(1);
   });
 
@@ -127,8 +169,12 @@ describe('route drafts (autosave)', () => {
     expect(saved.version).toBe(2);
     expect(saved.totals).toBeNull();
     expect(saved.evaluationError!.code).toBe('route_invalid');
-    expect(saved.evaluationError!.details).toContainEqual(expect.objectContaining({ stepId: 'dry', field: 'inputs.wet' }));
-    const detail = routeDetailSchema.parse((await asChemist.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)).body);
+    expect(saved.evaluationError!.details).toContainEqual(
+      expect.objectContaining({ stepId: 'dry', field: 'inputs.wet' }),
+    );
+    const detail = routeDetailSchema.parse(
+      (await asChemist.agent.get(`/api/v1/workspaces/${workspace.id}/routes/${route.id}`)).body,
+    );
     expect(detail.totals).toBeNull();
     expect(detail.draft.evaluationError!.details[0].stepId).toBe('dry');
   });
@@ -136,11 +182,17 @@ describe('route drafts (autosave)', () => {
   it('an archived route refuses draft saves until it is unarchived', async () => {
     const route = await newRoute();
     const routePath = `/api/v1/workspaces/${workspace.id}/routes/${route.id}`;
-    await asChemist.agent.patch(routePath).set('X-CSRF-Token', asChemist.csrfToken).send({ archived: true });
+    await asChemist.agent
+      .patch(routePath)
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ archived: true });
     const refused = await save(asChemist, route.id, demo(), 1);
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('route_archived');
-    await asChemist.agent.patch(routePath).set('X-CSRF-Token', asChemist.csrfToken).send({ archived: false });
+    await asChemist.agent
+      .patch(routePath)
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ archived: false });
     expect((await save(asChemist, route.id, demo(), 1)).status).toBe(200);
   });
 });

@@ -19,9 +19,14 @@ describe('error replies', () => {
   });
 
   it('malformed JSON is a 400 in the error shape, without a stack trace', async () => {
-    const response = await request(server.app).post('/api/v1/session').set('Content-Type', 'application/json').send('{"email": ');
+    const response = await request(server.app)
+      .post('/api/v1/session')
+      .set('Content-Type', 'application/json')
+      .send('{"email": ');
     expect(response.status).toBe(400);
-    expect(response.body).toEqual({ error: { code: 'malformed_json', message: 'The request body is not valid JSON.' } });
+    expect(response.body).toEqual({
+      error: { code: 'malformed_json', message: 'The request body is not valid JSON.' },
+    });
     expect(response.text).not.toMatch(/at .*\.(ts|js):\d+/);
   });
 
@@ -35,7 +40,9 @@ describe('error replies', () => {
   });
 
   it('validation lists every zod issue with its dotted path', async () => {
-    const response = await request(server.app).post('/api/v1/password-resets/a-token-that-is-long-enough').send({ password: 12 });
+    const response = await request(server.app)
+      .post('/api/v1/password-resets/a-token-that-is-long-enough')
+      .send({ password: 12 });
     expect(response.status).toBe(400);
     expect(apiErrorSchema.parse(response.body).error).toMatchObject({
       code: 'validation_failed',
@@ -59,7 +66,10 @@ describe('error replies', () => {
   it('serves the built client for non-API paths (SPA fallback) and keeps /api answers JSON', async () => {
     const staticDir = mkdtempSync(path.join(tmpdir(), 'phasewright-static-'));
     try {
-      writeFileSync(path.join(staticDir, 'index.html'), '<!doctype html><title>Phasewright client</title>');
+      writeFileSync(
+        path.join(staticDir, 'index.html'),
+        '<!doctype html><title>Phasewright client</title>',
+      );
       mkdirSync(path.join(staticDir, 'assets'));
       writeFileSync(path.join(staticDir, 'assets', 'app-1234.js'), 'console.log(1)');
       const app = server.anotherApp({ ...server.config, staticDir });
@@ -102,13 +112,20 @@ describe('GET /api/v1/openapi.json', () => {
     ]) {
       expect(paths).toContain(path);
     }
-    expect(Object.keys(response.body.paths['/api/v1/session'])).toEqual(expect.arrayContaining(['get', 'post', 'delete']));
+    expect(Object.keys(response.body.paths['/api/v1/session'])).toEqual(
+      expect.arrayContaining(['get', 'post', 'delete']),
+    );
     // The sign-in body comes from the shared schema.
-    const signIn = response.body.paths['/api/v1/session'].post.requestBody.content['application/json'].schema;
+    const signIn =
+      response.body.paths['/api/v1/session'].post.requestBody.content['application/json'].schema;
     expect(signIn.properties).toHaveProperty('email');
     expect(signIn.required).toEqual(expect.arrayContaining(['email', 'password']));
     const invite = response.body.paths['/api/v1/workspaces/{workspaceId}/invitations'].post;
-    expect(invite.parameters).toEqual([expect.objectContaining({ name: 'workspaceId', in: 'path' })]);
-    expect(invite.requestBody.content['application/json'].schema.properties.roles.items.enum).toEqual(['admin', 'chemist', 'reviewer', 'engineer']);
+    expect(invite.parameters).toEqual([
+      expect.objectContaining({ name: 'workspaceId', in: 'path' }),
+    ]);
+    expect(
+      invite.requestBody.content['application/json'].schema.properties.roles.items.enum,
+    ).toEqual(['admin', 'chemist', 'reviewer', 'engineer']);
   });
 });

@@ -22,7 +22,10 @@ describe('POST /api/v1/evaluate', () => {
   });
 
   const evaluate = (document: unknown) =>
-    asReviewer.agent.post('/api/v1/evaluate').set('X-CSRF-Token', asReviewer.csrfToken).send({ document });
+    asReviewer.agent
+      .post('/api/v1/evaluate')
+      .set('X-CSRF-Token', asReviewer.csrfToken)
+      .send({ document });
 
   it('requires authentication', async () => {
     const response = await request(server.app).post('/api/v1/evaluate').send({ document: demo() });
@@ -46,7 +49,9 @@ describe('POST /api/v1/evaluate', () => {
     expect(totals.pmi).toBeGreaterThan(1);
     // Every impurity charged gets a purge entry, and a stream for every connection.
     expect(Object.keys(totals.purge).length).toBeGreaterThan(0);
-    expect(Object.keys(body.result.streams).sort()).toEqual((demoRoute.connections as { id: string }[]).map((c) => c.id).sort());
+    expect(Object.keys(body.result.streams).sort()).toEqual(
+      (demoRoute.connections as { id: string }[]).map((c) => c.id).sort(),
+    );
     expect(body.result.processSafetyNote).toMatch(/process-safety review/);
   });
 
@@ -71,13 +76,19 @@ describe('POST /api/v1/evaluate', () => {
     const doc = demo();
     // Feed the distillate of the swap back into the acid wash: acid-wash → … → swap → acid-wash.
     doc.connections = doc.connections.filter((c) => c.id !== 'c1');
-    doc.connections.push({ id: 'loop', from: { stepId: 'swap', port: 'distillate' }, to: { stepId: 'acid-wash', port: 'feed' } });
+    doc.connections.push({
+      id: 'loop',
+      from: { stepId: 'swap', port: 'distillate' },
+      to: { stepId: 'acid-wash', port: 'feed' },
+    });
     const response = await evaluate(doc);
     expect(response.status).toBe(422);
     const { error } = routeEvaluationErrorSchema.parse(response.body);
     expect(error.code).toBe('route_invalid');
     const cycleSteps = error.details.filter((d) => /cycle/.test(d.message)).map((d) => d.stepId);
-    expect(cycleSteps).toEqual(expect.arrayContaining(['acid-wash', 'base-wash', 'brine-wash', 'swap']));
+    expect(cycleSteps).toEqual(
+      expect.arrayContaining(['acid-wash', 'base-wash', 'brine-wash', 'swap']),
+    );
     expect(cycleSteps).not.toContain('crude');
   });
 
@@ -88,7 +99,9 @@ describe('POST /api/v1/evaluate', () => {
     expect(response.status).toBe(422);
     const { error } = routeEvaluationErrorSchema.parse(response.body);
     expect(error.code).toBe('route_invalid');
-    expect(error.details).toContainEqual(expect.objectContaining({ stepId: 'filter', field: 'inputs.slurry' }));
+    expect(error.details).toContainEqual(
+      expect.objectContaining({ stepId: 'filter', field: 'inputs.slurry' }),
+    );
     expect(error.message).toMatch(/filter/);
   });
 
@@ -98,7 +111,11 @@ describe('POST /api/v1/evaluate', () => {
     const response = await evaluate(doc);
     expect(response.status).toBe(422);
     expect(response.body.error.details).toContainEqual(
-      expect.objectContaining({ stepId: 'filter', field: 'params.cakeWash.solventId', path: 'document.steps.7.params.cakeWash.solventId' }),
+      expect.objectContaining({
+        stepId: 'filter',
+        field: 'params.cakeWash.solventId',
+        path: 'document.steps.7.params.cakeWash.solventId',
+      }),
     );
   });
 
@@ -120,7 +137,9 @@ describe('OpenAPI document', () => {
     const response = await request(server.app).get('/api/v1/openapi.json');
     expect(response.status).toBe(200);
     const paths = response.body.paths as Record<string, Record<string, unknown>>;
-    const operations = Object.entries(paths).flatMap(([path, ops]) => Object.keys(ops).map((method) => `${method} ${path}`));
+    const operations = Object.entries(paths).flatMap(([path, ops]) =>
+      Object.keys(ops).map((method) => `${method} ${path}`),
+    );
     expect(operations).toEqual(
       expect.arrayContaining([
         'post /api/v1/evaluate',
@@ -135,7 +154,17 @@ describe('OpenAPI document', () => {
         'get /api/v1/workspaces/{workspaceId}/projects',
       ]),
     );
-    expect(Object.keys((paths['/api/v1/evaluate'].post as { responses: object }).responses)).toEqual(expect.arrayContaining(['200', '400', '401', '422']));
-    expect(Object.keys((paths['/api/v1/workspaces/{workspaceId}/routes/{routeId}/draft'].put as { responses: object }).responses)).toContain('409');
+    expect(
+      Object.keys((paths['/api/v1/evaluate'].post as { responses: object }).responses),
+    ).toEqual(expect.arrayContaining(['200', '400', '401', '422']));
+    expect(
+      Object.keys(
+        (
+          paths['/api/v1/workspaces/{workspaceId}/routes/{routeId}/draft'].put as {
+            responses: object;
+          }
+        ).responses,
+      ),
+    ).toContain('409');
   });
 });

@@ -4,7 +4,13 @@ import { invitationInfoSchema } from '@shared/schemas/members';
 import { sessionSchema } from '@shared/schemas/session';
 import { Invitation, User, Workspace } from '../../server/models';
 import { useTestServer } from '../support/app';
-import { buildMember, buildWorkspace, DEFAULT_PASSWORD, signIn, type SignedIn } from '../support/factories';
+import {
+  buildMember,
+  buildWorkspace,
+  DEFAULT_PASSWORD,
+  signIn,
+  type SignedIn,
+} from '../support/factories';
 import { tokenFromLink, waitForMail } from '../support/mail';
 
 const server = useTestServer();
@@ -21,10 +27,15 @@ describe('invitations', () => {
   });
 
   const invite = (body: object, as: SignedIn = asAdmin) =>
-    as.agent.post(`/api/v1/workspaces/${workspace.id}/invitations`).set('X-CSRF-Token', as.csrfToken).send(body);
+    as.agent
+      .post(`/api/v1/workspaces/${workspace.id}/invitations`)
+      .set('X-CSRF-Token', as.csrfToken)
+      .send(body);
 
   it('requires authentication', async () => {
-    const response = await request(server.app).post(`/api/v1/workspaces/${workspace.id}/invitations`).send({ email: 'a@example.com', roles: ['chemist'] });
+    const response = await request(server.app)
+      .post(`/api/v1/workspaces/${workspace.id}/invitations`)
+      .send({ email: 'a@example.com', roles: ['chemist'] });
     expect(response.status).toBe(401);
   });
 
@@ -37,9 +48,15 @@ describe('invitations', () => {
 
   it('end to end: invite, read the e-mail from the SMTP fake, open the link, accept, and be signed in', async () => {
     const before = new Date();
-    const response = await invite({ email: 'New.Chemist@Example.com', roles: ['chemist', 'reviewer'] });
+    const response = await invite({
+      email: 'New.Chemist@Example.com',
+      roles: ['chemist', 'reviewer'],
+    });
     expect(response.status).toBe(201);
-    expect(response.body).toMatchObject({ email: 'new.chemist@example.com', roles: ['chemist', 'reviewer'] });
+    expect(response.body).toMatchObject({
+      email: 'new.chemist@example.com',
+      roles: ['chemist', 'reviewer'],
+    });
 
     const mail = await waitForMail('new.chemist@example.com', { after: before });
     expect(mail.subject).toBe('You are invited to Pilot plant group (invented) on Phasewright');
@@ -58,18 +75,24 @@ describe('invitations', () => {
     });
 
     const agent = request.agent(server.app);
-    const accepted = await agent.post(`/api/v1/invitations/${token}/accept`).send({ name: 'New Chemist', password: 'a-long-new-password' });
+    const accepted = await agent
+      .post(`/api/v1/invitations/${token}/accept`)
+      .send({ name: 'New Chemist', password: 'a-long-new-password' });
     expect(accepted.status).toBe(200);
     const session = sessionSchema.parse(accepted.body);
     expect(session.user).toMatchObject({ email: 'new.chemist@example.com', name: 'New Chemist' });
-    expect(session.workspaces).toEqual([expect.objectContaining({ id: workspace.id, roles: ['chemist', 'reviewer'] })]);
+    expect(session.workspaces).toEqual([
+      expect.objectContaining({ id: workspace.id, roles: ['chemist', 'reviewer'] }),
+    ]);
     expect((await agent.get(`/api/v1/workspaces/${workspace.id}/members`)).status).toBe(200);
 
     // Single use.
     const reused = await request(server.app).get(`/api/v1/invitations/${token}`);
     expect(reused.status).toBe(410);
     expect(reused.body.error.code).toBe('invitation_used');
-    const reaccept = await request(server.app).post(`/api/v1/invitations/${token}/accept`).send({ name: 'Again', password: 'a-long-new-password' });
+    const reaccept = await request(server.app)
+      .post(`/api/v1/invitations/${token}/accept`)
+      .send({ name: 'Again', password: 'a-long-new-password' });
     expect(reaccept.status).toBe(410);
 
     // The new password works for a normal sign-in.
@@ -81,22 +104,36 @@ describe('invitations', () => {
     const existing = await buildMember(elsewhere, ['chemist']);
     const before = new Date();
     expect((await invite({ email: existing.email, roles: ['engineer'] })).status).toBe(201);
-    const token = tokenFromLink((await waitForMail(existing.email, { after: before })).text, 'invitations');
+    const token = tokenFromLink(
+      (await waitForMail(existing.email, { after: before })).text,
+      'invitations',
+    );
     const info = await request(server.app).get(`/api/v1/invitations/${token}`);
     expect(info.body.existingUser).toBe(true);
 
-    const wrong = await request(server.app).post(`/api/v1/invitations/${token}/accept`).send({ password: 'not-my-password' });
+    const wrong = await request(server.app)
+      .post(`/api/v1/invitations/${token}/accept`)
+      .send({ password: 'not-my-password' });
     expect(wrong.status).toBe(401);
-    const accepted = await request(server.app).post(`/api/v1/invitations/${token}/accept`).send({ password: DEFAULT_PASSWORD });
+    const accepted = await request(server.app)
+      .post(`/api/v1/invitations/${token}/accept`)
+      .send({ password: DEFAULT_PASSWORD });
     expect(accepted.status).toBe(200);
-    expect(accepted.body.workspaces.map((w: { id: string }) => w.id).sort()).toEqual([workspace.id, elsewhere.id].sort());
+    expect(accepted.body.workspaces.map((w: { id: string }) => w.id).sort()).toEqual(
+      [workspace.id, elsewhere.id].sort(),
+    );
   });
 
   it('a new person must give a name', async () => {
     const before = new Date();
     await invite({ email: 'nameless@example.com', roles: ['chemist'] });
-    const token = tokenFromLink((await waitForMail('nameless@example.com', { after: before })).text, 'invitations');
-    const response = await request(server.app).post(`/api/v1/invitations/${token}/accept`).send({ password: 'a-long-new-password' });
+    const token = tokenFromLink(
+      (await waitForMail('nameless@example.com', { after: before })).text,
+      'invitations',
+    );
+    const response = await request(server.app)
+      .post(`/api/v1/invitations/${token}/accept`)
+      .send({ password: 'a-long-new-password' });
     expect(response.status).toBe(400);
     expect(response.body.error.details).toEqual([{ path: 'name', message: 'Enter a name.' }]);
   });
@@ -104,12 +141,20 @@ describe('invitations', () => {
   it('an expired invitation answers 410 and an unknown one 404', async () => {
     const before = new Date();
     await invite({ email: 'late@example.com', roles: ['chemist'] });
-    const token = tokenFromLink((await waitForMail('late@example.com', { after: before })).text, 'invitations');
-    await Invitation.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { email: 'late@example.com' } });
+    const token = tokenFromLink(
+      (await waitForMail('late@example.com', { after: before })).text,
+      'invitations',
+    );
+    await Invitation.update(
+      { expiresAt: new Date(Date.now() - 1000) },
+      { where: { email: 'late@example.com' } },
+    );
     const expired = await request(server.app).get(`/api/v1/invitations/${token}`);
     expect(expired.status).toBe(410);
     expect(expired.body.error.code).toBe('invitation_expired');
-    const unknown = await request(server.app).get('/api/v1/invitations/this-token-does-not-exist-anywhere');
+    const unknown = await request(server.app).get(
+      '/api/v1/invitations/this-token-does-not-exist-anywhere',
+    );
     expect(unknown.status).toBe(404);
   });
 
@@ -122,6 +167,9 @@ describe('invitations', () => {
   it('validates the invitation payload with every field path', async () => {
     const response = await invite({ email: 'nope', roles: [] });
     expect(response.status).toBe(400);
-    expect(response.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['email', 'roles']);
+    expect(response.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual([
+      'email',
+      'roles',
+    ]);
   });
 });

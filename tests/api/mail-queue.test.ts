@@ -8,10 +8,20 @@ import { waitForMail } from '../support/mail';
 
 const server = useTestServer();
 
-const message = (to: string) => ({ to, subject: 'Queue check', text: 'Plain text body', html: '<p>HTML body</p>' });
+const message = (to: string) => ({
+  to,
+  subject: 'Queue check',
+  text: 'Plain text body',
+  html: '<p>HTML body</p>',
+});
 
 async function jobsFor(to: string) {
-  return database().query<{ id: string; state: string; retry_limit: number; retry_backoff: boolean }>(
+  return database().query<{
+    id: string;
+    state: string;
+    retry_limit: number;
+    retry_backoff: boolean;
+  }>(
     `SELECT id, state, retry_limit, retry_backoff FROM pgboss.job WHERE name = 'mail.send' AND data->>'to' = :to`,
     { replacements: { to }, type: QueryTypes.SELECT },
   );
@@ -27,7 +37,9 @@ describe('mail queue', () => {
       .catch(() => undefined);
     expect(await jobsFor('rolled-back@example.com')).toEqual([]);
 
-    await database().transaction((transaction) => queueMail(message('committed@example.com'), transaction));
+    await database().transaction((transaction) =>
+      queueMail(message('committed@example.com'), transaction),
+    );
     const [job] = await jobsFor('committed@example.com');
     expect(job.retry_limit).toBeGreaterThan(3);
     expect(job.retry_backoff).toBe(true);
@@ -56,7 +68,9 @@ describe('mail queue', () => {
       server.runtime.smtpFake!.close = revived.close;
     }
     // Skip the backoff wait rather than sleeping through it.
-    await database().query(`UPDATE pgboss.job SET start_after = now() WHERE name = 'mail.send' AND data->>'to' = 'patient@example.com'`);
+    await database().query(
+      `UPDATE pgboss.job SET start_after = now() WHERE name = 'mail.send' AND data->>'to' = 'patient@example.com'`,
+    );
     const mail = await waitForMail('patient@example.com');
     expect(mail.subject).toBe('Queue check');
   });

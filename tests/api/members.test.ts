@@ -34,9 +34,21 @@ describe('workspace members', () => {
 
   it('requires authentication', async () => {
     expect((await request(server.app).get(membersPath())).status).toBe(401);
-    expect((await request(server.app).patch(`${membersPath()}/${chemist.id}`).send({ roles: ['admin'] })).status).toBe(401);
+    expect(
+      (
+        await request(server.app)
+          .patch(`${membersPath()}/${chemist.id}`)
+          .send({ roles: ['admin'] })
+      ).status,
+    ).toBe(401);
     expect((await request(server.app).delete(`${membersPath()}/${chemist.id}`)).status).toBe(401);
-    expect((await request(server.app).post(`/api/v1/workspaces/${workspace.id}/invitations`).send({ email: 'x@example.com', roles: ['chemist'] })).status).toBe(401);
+    expect(
+      (
+        await request(server.app)
+          .post(`/api/v1/workspaces/${workspace.id}/invitations`)
+          .send({ email: 'x@example.com', roles: ['chemist'] })
+      ).status,
+    ).toBe(401);
   });
 
   it('lists members with their roles for any member', async () => {
@@ -50,7 +62,9 @@ describe('workspace members', () => {
   it("answers 404 for another workspace's members, the same as for a workspace that does not exist", async () => {
     const foreign = await asOutsider.agent.get(membersPath());
     expect(foreign.status).toBe(404);
-    const missing = await asOutsider.agent.get('/api/v1/workspaces/00000000-0000-4000-8000-000000000000/members');
+    const missing = await asOutsider.agent.get(
+      '/api/v1/workspaces/00000000-0000-4000-8000-000000000000/members',
+    );
     expect(missing.status).toBe(404);
     expect(foreign.body).toEqual(missing.body);
   });
@@ -62,7 +76,9 @@ describe('workspace members', () => {
       .send({ roles: ['chemist'] });
     expect(patch.status).toBe(403);
     expect(patch.body.error.code).toBe('forbidden');
-    const remove = await asChemist.agent.delete(`${membersPath()}/${reviewer.id}`).set('X-CSRF-Token', asChemist.csrfToken);
+    const remove = await asChemist.agent
+      .delete(`${membersPath()}/${reviewer.id}`)
+      .set('X-CSRF-Token', asChemist.csrfToken);
     expect(remove.status).toBe(403);
   });
 
@@ -81,7 +97,9 @@ describe('workspace members', () => {
       .send({ roles: ['reviewer'] });
     expect(response.status).toBe(200);
     expect(response.body.roles).toEqual(['reviewer']);
-    const event = await AuditEvent.findOne({ where: { action: 'member.roles_changed', actorId: admin.id } });
+    const event = await AuditEvent.findOne({
+      where: { action: 'member.roles_changed', actorId: admin.id },
+    });
     expect(event?.before).toEqual({ userId: reviewer.id, roles: ['reviewer', 'engineer'] });
     expect(event?.after).toEqual({ userId: reviewer.id, roles: ['reviewer'] });
   });
@@ -93,7 +111,10 @@ describe('workspace members', () => {
       .send({ roles: ['chemist', 'wizard'] });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.details).toEqual([expect.objectContaining({ path: 'roles.1' })]);
-    const empty = await asAdmin.agent.patch(`${membersPath()}/${reviewer.id}`).set('X-CSRF-Token', asAdmin.csrfToken).send({ roles: [] });
+    const empty = await asAdmin.agent
+      .patch(`${membersPath()}/${reviewer.id}`)
+      .set('X-CSRF-Token', asAdmin.csrfToken)
+      .send({ roles: [] });
     expect(empty.status).toBe(400);
     expect(empty.body.error.details[0].path).toBe('roles');
   });
@@ -105,17 +126,24 @@ describe('workspace members', () => {
   });
 
   it('refuses to demote or remove the last admin (409)', async () => {
-    const demote = await asAdmin.agent.patch(`${membersPath()}/${admin.id}`).set('X-CSRF-Token', asAdmin.csrfToken).send({ roles: ['chemist'] });
+    const demote = await asAdmin.agent
+      .patch(`${membersPath()}/${admin.id}`)
+      .set('X-CSRF-Token', asAdmin.csrfToken)
+      .send({ roles: ['chemist'] });
     expect(demote.status).toBe(409);
     expect(demote.body.error.code).toBe('last_admin');
-    const remove = await asAdmin.agent.delete(`${membersPath()}/${admin.id}`).set('X-CSRF-Token', asAdmin.csrfToken);
+    const remove = await asAdmin.agent
+      .delete(`${membersPath()}/${admin.id}`)
+      .set('X-CSRF-Token', asAdmin.csrfToken);
     expect(remove.status).toBe(409);
   });
 
   it('lets an admin remove a member, who then no longer sees the workspace', async () => {
     const leaving = await buildMember(workspace, ['chemist']);
     const asLeaving = await signIn(server.app, leaving.email);
-    const remove = await asAdmin.agent.delete(`${membersPath()}/${leaving.id}`).set('X-CSRF-Token', asAdmin.csrfToken);
+    const remove = await asAdmin.agent
+      .delete(`${membersPath()}/${leaving.id}`)
+      .set('X-CSRF-Token', asAdmin.csrfToken);
     expect(remove.status).toBe(204);
     expect(await Membership.count({ where: { userId: leaving.id } })).toBe(0);
     expect((await asLeaving.agent.get(membersPath())).status).toBe(404);
@@ -124,7 +152,9 @@ describe('workspace members', () => {
   it('the audit trail cannot be edited or deleted', async () => {
     const event = await AuditEvent.findOne({ where: { actorId: admin.id } });
     expect(event).not.toBeNull();
-    await expect(AuditEvent.update({ action: 'tampered' }, { where: { id: event!.id } })).rejects.toThrow(/append-only/);
+    await expect(
+      AuditEvent.update({ action: 'tampered' }, { where: { id: event!.id } }),
+    ).rejects.toThrow(/append-only/);
     await expect(AuditEvent.destroy({ where: { id: event!.id } })).rejects.toThrow(/append-only/);
   });
 });

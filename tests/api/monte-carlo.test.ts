@@ -42,8 +42,16 @@ describe('Monte Carlo jobs', () => {
   }
 
   it('requires authentication', async () => {
-    expect((await request(server.app).post('/api/v1/evaluate/monte-carlo').send({ document: demo(), draws: 50, seed: 1 })).status).toBe(401);
-    expect((await request(server.app).get('/api/v1/jobs/00000000-0000-4000-8000-000000000000')).status).toBe(401);
+    expect(
+      (
+        await request(server.app)
+          .post('/api/v1/evaluate/monte-carlo')
+          .send({ document: demo(), draws: 50, seed: 1 })
+      ).status,
+    ).toBe(401);
+    expect(
+      (await request(server.app).get('/api/v1/jobs/00000000-0000-4000-8000-000000000000')).status,
+    ).toBe(401);
   });
 
   it('a background run reaches done with progress 1 and p5 ≤ p50 ≤ p95, progress never going back', async () => {
@@ -83,7 +91,11 @@ describe('Monte Carlo jobs', () => {
 
   it('is reproducible: the same seed gives the same percentiles, inline or in the background', async () => {
     const small = async () => {
-      const response = await start(asChemist, { document: demo(), draws: INLINE_MAX_DRAWS, seed: 9 });
+      const response = await start(asChemist, {
+        document: demo(),
+        draws: INLINE_MAX_DRAWS,
+        seed: 9,
+      });
       expect(response.status).toBe(202);
       return (await untilFinished(response.body.jobId)).at(-1)!;
     };
@@ -116,7 +128,9 @@ describe('Monte Carlo jobs', () => {
     doc.connections = doc.connections.filter((c) => c.id !== 'c7');
     const unconnected = await start(asChemist, { document: doc, draws: 100, seed: 1 });
     expect(unconnected.status).toBe(422);
-    expect(unconnected.body.error.details).toContainEqual(expect.objectContaining({ stepId: 'filter' }));
+    expect(unconnected.body.error.details).toContainEqual(
+      expect.objectContaining({ stepId: 'filter' }),
+    );
     expect(await EvaluationJob.count()).toBe(before);
   });
 });

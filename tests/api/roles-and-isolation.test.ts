@@ -29,17 +29,27 @@ describe('status codes across roles and workspaces', () => {
   });
 
   const operations = [
-    { name: 'list members', call: (s: SignedIn) => s.agent.get(`/api/v1/workspaces/${home.id}/members`), adminOnly: false },
+    {
+      name: 'list members',
+      call: (s: SignedIn) => s.agent.get(`/api/v1/workspaces/${home.id}/members`),
+      adminOnly: false,
+    },
     {
       name: 'invite',
       call: (s: SignedIn) =>
-        s.agent.post(`/api/v1/workspaces/${home.id}/invitations`).set('X-CSRF-Token', s.csrfToken).send({ email: `inv-${Math.random()}@example.com`, roles: ['reviewer'] }),
+        s.agent
+          .post(`/api/v1/workspaces/${home.id}/invitations`)
+          .set('X-CSRF-Token', s.csrfToken)
+          .send({ email: `inv-${Math.random()}@example.com`, roles: ['reviewer'] }),
       adminOnly: true,
     },
     {
       name: 'change roles',
       call: (s: SignedIn) =>
-        s.agent.patch(`/api/v1/workspaces/${home.id}/members/${target.id}`).set('X-CSRF-Token', s.csrfToken).send({ roles: ['chemist'] }),
+        s.agent
+          .patch(`/api/v1/workspaces/${home.id}/members/${target.id}`)
+          .set('X-CSRF-Token', s.csrfToken)
+          .send({ roles: ['chemist'] }),
       adminOnly: true,
     },
   ];
@@ -50,7 +60,14 @@ describe('status codes across roles and workspaces', () => {
       expect((await operation.call(anonymous)).status).toBe(401);
     });
     for (const who of [...roles, 'outsider']) {
-      const expected = who === 'outsider' ? 404 : operation.adminOnly && who !== 'admin' ? 403 : operation.name === 'invite' ? 201 : 200;
+      const expected =
+        who === 'outsider'
+          ? 404
+          : operation.adminOnly && who !== 'admin'
+            ? 403
+            : operation.name === 'invite'
+              ? 201
+              : 200;
       it(`${operation.name}: ${expected} for ${who}`, async () => {
         const response = await operation.call(sessions.get(who)!);
         expect(response.status).toBe(expected);
@@ -60,11 +77,18 @@ describe('status codes across roles and workspaces', () => {
 
   it('the session abilities match what the API allows', async () => {
     const chemist = (await sessions.get('chemist')!.agent.get('/api/v1/session')).body;
-    expect(chemist.abilities.workspaces[home.id]).toMatchObject({ 'member.list': true, 'member.invite': false, 'member.updateRoles': false });
+    expect(chemist.abilities.workspaces[home.id]).toMatchObject({
+      'member.list': true,
+      'member.invite': false,
+      'member.updateRoles': false,
+    });
     expect(chemist.abilities.workspaces[away.id]).toBeUndefined();
     expect(chemist.abilities.global['outbox.read']).toBe(false);
     const admin = (await sessions.get('admin')!.agent.get('/api/v1/session')).body;
-    expect(admin.abilities.workspaces[home.id]).toMatchObject({ 'member.invite': true, 'member.remove': true });
+    expect(admin.abilities.workspaces[home.id]).toMatchObject({
+      'member.invite': true,
+      'member.remove': true,
+    });
     expect(admin.abilities.global['outbox.read']).toBe(true);
   });
 });

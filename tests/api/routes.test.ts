@@ -36,31 +36,62 @@ describe('routes of a workspace', () => {
   });
 
   const routesPath = () => `/api/v1/workspaces/${workspace.id}/routes`;
-  const post = (who: SignedIn, path: string, body: object) => who.agent.post(path).set('X-CSRF-Token', who.csrfToken).send(body);
-  const patch = (who: SignedIn, path: string, body: object) => who.agent.patch(path).set('X-CSRF-Token', who.csrfToken).send(body);
+  const post = (who: SignedIn, path: string, body: object) =>
+    who.agent.post(path).set('X-CSRF-Token', who.csrfToken).send(body);
+  const patch = (who: SignedIn, path: string, body: object) =>
+    who.agent.patch(path).set('X-CSRF-Token', who.csrfToken).send(body);
 
   it('requires authentication', async () => {
     expect((await request(server.app).get(routesPath())).status).toBe(401);
     expect((await request(server.app).post(routesPath()).send({ name: 'x' })).status).toBe(401);
-    expect((await request(server.app).get(`/api/v1/workspaces/${workspace.id}/projects`)).status).toBe(401);
+    expect(
+      (await request(server.app).get(`/api/v1/workspaces/${workspace.id}/projects`)).status,
+    ).toBe(401);
   });
 
   it('a chemist creates an empty route: draft version 1, no totals yet, and the reason', async () => {
-    const response = await post(asChemist, routesPath(), { name: 'Empty start', projectName: 'Programme A (invented)' });
+    const response = await post(asChemist, routesPath(), {
+      name: 'Empty start',
+      projectName: 'Programme A (invented)',
+    });
     expect(response.status).toBe(201);
     const route = routeDetailSchema.parse(response.body);
-    expect(route).toMatchObject({ name: 'Empty start', status: 'draft', draftVersion: 1, totals: null, stepCount: 0, project: { name: 'Programme A (invented)' } });
+    expect(route).toMatchObject({
+      name: 'Empty start',
+      status: 'draft',
+      draftVersion: 1,
+      totals: null,
+      stepCount: 0,
+      project: { name: 'Programme A (invented)' },
+    });
     expect(route.owner).toEqual({ id: chemist.id, name: 'Ada Chemist' });
-    expect(route.draft.document).toMatchObject({ schemaVersion: 1, steps: [], connections: [], components: [] });
+    expect(route.draft.document).toMatchObject({
+      schemaVersion: 1,
+      steps: [],
+      connections: [],
+      components: [],
+    });
     expect(route.draft.evaluationError?.code).toBe('route_incomplete');
     expect(route.draft.updatedBy.id).toBe(chemist.id);
-    expect(route.abilities).toMatchObject({ read: true, edit: true, rename: true, duplicate: true, archive: true });
-    const audit = await AuditEvent.findOne({ where: { action: 'route.create', entityId: route.id } });
+    expect(route.abilities).toMatchObject({
+      read: true,
+      edit: true,
+      rename: true,
+      duplicate: true,
+      archive: true,
+    });
+    const audit = await AuditEvent.findOne({
+      where: { action: 'route.create', entityId: route.id },
+    });
     expect(audit?.actorId).toBe(chemist.id);
   });
 
   it('creates a route from a document and stores its key totals', async () => {
-    const response = await post(asChemist, routesPath(), { name: 'From the demo', projectName: 'programme a (INVENTED)', document: demo() });
+    const response = await post(asChemist, routesPath(), {
+      name: 'From the demo',
+      projectName: 'programme a (INVENTED)',
+      document: demo(),
+    });
     expect(response.status).toBe(201);
     const route = routeDetailSchema.parse(response.body);
     expect(route.stepCount).toBe(demoRoute.steps.length);
@@ -70,32 +101,54 @@ describe('routes of a workspace', () => {
     expect(route.totals!.pmi).toBeGreaterThan(1);
     expect(route.draft.evaluationError).toBeNull();
     // The project name matched the existing one, ignoring case.
-    const projects = projectListSchema.parse((await asReviewer.agent.get(`/api/v1/workspaces/${workspace.id}/projects`)).body);
-    expect(projects.filter((p) => p.name.toLowerCase() === 'programme a (invented)')).toHaveLength(1);
-    expect(projects.find((p) => p.name === 'Programme A (invented)')!.routeCount).toBeGreaterThanOrEqual(2);
+    const projects = projectListSchema.parse(
+      (await asReviewer.agent.get(`/api/v1/workspaces/${workspace.id}/projects`)).body,
+    );
+    expect(projects.filter((p) => p.name.toLowerCase() === 'programme a (invented)')).toHaveLength(
+      1,
+    );
+    expect(
+      projects.find((p) => p.name === 'Programme A (invented)')!.routeCount,
+    ).toBeGreaterThanOrEqual(2);
   });
 
   it('renames, moves to a project, archives and unarchives, with audit entries', async () => {
-    const created = routeDetailSchema.parse((await post(asChemist, routesPath(), { name: 'Old name' })).body);
+    const created = routeDetailSchema.parse(
+      (await post(asChemist, routesPath(), { name: 'Old name' })).body,
+    );
     const path = `${routesPath()}/${created.id}`;
-    const renamed = await patch(asChemist, path, { name: 'New name', projectName: 'Programme B (invented)' });
+    const renamed = await patch(asChemist, path, {
+      name: 'New name',
+      projectName: 'Programme B (invented)',
+    });
     expect(renamed.status).toBe(200);
-    expect(renamed.body).toMatchObject({ name: 'New name', project: { name: 'Programme B (invented)' } });
-    const rename = await AuditEvent.findOne({ where: { action: 'route.rename', entityId: created.id } });
+    expect(renamed.body).toMatchObject({
+      name: 'New name',
+      project: { name: 'Programme B (invented)' },
+    });
+    const rename = await AuditEvent.findOne({
+      where: { action: 'route.rename', entityId: created.id },
+    });
     expect(rename).toMatchObject({ before: { name: 'Old name' }, after: { name: 'New name' } });
 
     const archived = await patch(asAdmin, path, { archived: true });
     expect(archived.status).toBe(200);
     expect(archived.body).toMatchObject({ status: 'archived', abilities: { edit: false } });
-    expect(await AuditEvent.count({ where: { action: 'route.archive', entityId: created.id } })).toBe(1);
+    expect(
+      await AuditEvent.count({ where: { action: 'route.archive', entityId: created.id } }),
+    ).toBe(1);
 
     const out = await patch(asChemist, path, { projectName: null, archived: false });
     expect(out.body).toMatchObject({ status: 'draft', project: null });
-    expect(await AuditEvent.count({ where: { action: 'route.unarchive', entityId: created.id } })).toBe(1);
+    expect(
+      await AuditEvent.count({ where: { action: 'route.unarchive', entityId: created.id } }),
+    ).toBe(1);
   });
 
   it('duplicates a route with its draft, owned by whoever duplicated it', async () => {
-    const source = routeDetailSchema.parse((await post(asChemist, routesPath(), { name: 'Original', document: demo() })).body);
+    const source = routeDetailSchema.parse(
+      (await post(asChemist, routesPath(), { name: 'Original', document: demo() })).body,
+    );
     const response = await post(asAdmin, `${routesPath()}/${source.id}/duplicate`, {});
     expect(response.status).toBe(201);
     const copy = routeDetailSchema.parse(response.body);
@@ -105,46 +158,74 @@ describe('routes of a workspace', () => {
     expect(copy.draftVersion).toBe(1);
     expect(copy.draft.document).toEqual(source.draft.document);
     expect(copy.totals).toEqual(source.totals);
-    const named = await post(asChemist, `${routesPath()}/${source.id}/duplicate`, { name: 'Variant with more heptane' });
+    const named = await post(asChemist, `${routesPath()}/${source.id}/duplicate`, {
+      name: 'Variant with more heptane',
+    });
     expect(named.body.name).toBe('Variant with more heptane');
-    expect(await AuditEvent.findOne({ where: { action: 'route.duplicate', entityId: copy.id } })).toMatchObject({ after: { sourceRouteId: source.id } });
+    expect(
+      await AuditEvent.findOne({ where: { action: 'route.duplicate', entityId: copy.id } }),
+    ).toMatchObject({ after: { sourceRouteId: source.id } });
   });
 
   it('reviewers and scale-up engineers read routes but get 403 on every write', async () => {
-    const route = routeDetailSchema.parse((await post(asChemist, routesPath(), { name: 'Read only for some' })).body);
+    const route = routeDetailSchema.parse(
+      (await post(asChemist, routesPath(), { name: 'Read only for some' })).body,
+    );
     const path = `${routesPath()}/${route.id}`;
     for (const reader of [asReviewer, asEngineer]) {
       expect((await reader.agent.get(routesPath())).status).toBe(200);
       const detail = await reader.agent.get(path);
       expect(detail.status).toBe(200);
-      expect(detail.body.abilities).toMatchObject({ read: true, edit: false, rename: false, duplicate: false, archive: false });
+      expect(detail.body.abilities).toMatchObject({
+        read: true,
+        edit: false,
+        rename: false,
+        duplicate: false,
+        archive: false,
+      });
       expect((await post(reader, routesPath(), { name: 'Nope' })).status).toBe(403);
       expect((await patch(reader, path, { name: 'Nope' })).status).toBe(403);
       expect((await patch(reader, path, { archived: true })).status).toBe(403);
       expect((await post(reader, `${path}/duplicate`, {})).status).toBe(403);
-      const save = await reader.agent.put(`${path}/draft`).set('X-CSRF-Token', reader.csrfToken).send({ document: demo(), baseVersion: 1 });
+      const save = await reader.agent
+        .put(`${path}/draft`)
+        .set('X-CSRF-Token', reader.csrfToken)
+        .send({ document: demo(), baseVersion: 1 });
       expect(save.status).toBe(403);
     }
     expect((await asReviewer.agent.get(path)).body.name).toBe('Read only for some');
   });
 
   it("another workspace's routes answer 404, the same as missing ones", async () => {
-    const route = routeDetailSchema.parse((await post(asChemist, routesPath(), { name: 'Hidden' })).body);
+    const route = routeDetailSchema.parse(
+      (await post(asChemist, routesPath(), { name: 'Hidden' })).body,
+    );
     const foreign = await asOutsider.agent.get(`${routesPath()}/${route.id}`);
-    const missing = await asOutsider.agent.get(`${routesPath()}/00000000-0000-4000-8000-000000000000`);
+    const missing = await asOutsider.agent.get(
+      `${routesPath()}/00000000-0000-4000-8000-000000000000`,
+    );
     expect(foreign.status).toBe(404);
     expect(foreign.body).toEqual(missing.body);
     expect((await asOutsider.agent.get(routesPath())).status).toBe(404);
-    expect((await patch(asOutsider, `${routesPath()}/${route.id}`, { name: 'Taken' })).status).toBe(404);
+    expect((await patch(asOutsider, `${routesPath()}/${route.id}`, { name: 'Taken' })).status).toBe(
+      404,
+    );
     expect((await post(asOutsider, `${routesPath()}/${route.id}/duplicate`, {})).status).toBe(404);
     // A route id of one workspace under another workspace the caller belongs to is not found either.
-    const own = await post(asOutsider, `/api/v1/workspaces/${asOutsider.session.workspaces[0].id}/routes`, { name: 'Mine' });
+    const own = await post(
+      asOutsider,
+      `/api/v1/workspaces/${asOutsider.session.workspaces[0].id}/routes`,
+      { name: 'Mine' },
+    );
     expect((await asChemist.agent.get(`${routesPath()}/${own.body.id}`)).status).toBe(404);
   });
 
   it('lists active routes by default, archived ones on request, and searches route and project names', async () => {
     const make = async (name: string, projectName?: string) =>
-      routeDetailSchema.parse((await post(asChemist, routesPath(), { name, ...(projectName ? { projectName } : {}) })).body);
+      routeDetailSchema.parse(
+        (await post(asChemist, routesPath(), { name, ...(projectName ? { projectName } : {}) }))
+          .body,
+      );
     const kept = await make('Zeta crystallisation screen', 'Project Quokka (invented)');
     const gone = await make('Zeta old attempt');
     await patch(asChemist, `${routesPath()}/${gone.id}`, { archived: true });
@@ -154,18 +235,30 @@ describe('routes of a workspace', () => {
     expect(active.map((r) => r.id)).not.toContain(gone.id);
     expect(active.every((r) => r.status === 'draft')).toBe(true);
 
-    const archived = routeListSchema.parse((await asChemist.agent.get(`${routesPath()}?archived=true`)).body);
+    const archived = routeListSchema.parse(
+      (await asChemist.agent.get(`${routesPath()}?archived=true`)).body,
+    );
     expect(archived.map((r) => r.id)).toContain(gone.id);
     expect(archived.every((r) => r.status === 'archived')).toBe(true);
 
-    const byName = routeListSchema.parse((await asChemist.agent.get(`${routesPath()}?q=zeta`)).body);
+    const byName = routeListSchema.parse(
+      (await asChemist.agent.get(`${routesPath()}?q=zeta`)).body,
+    );
     expect(byName.map((r) => r.id)).toEqual([kept.id]);
-    const byProject = routeListSchema.parse((await asChemist.agent.get(`${routesPath()}?q=quokka`)).body);
+    const byProject = routeListSchema.parse(
+      (await asChemist.agent.get(`${routesPath()}?q=quokka`)).body,
+    );
     expect(byProject.map((r) => r.id)).toEqual([kept.id]);
     // LIKE wildcards in the search are taken literally.
     expect((await asChemist.agent.get(`${routesPath()}?q=%25`)).body).toEqual([]);
     const row = byName[0];
-    expect(row).toMatchObject({ owner: { id: chemist.id, name: 'Ada Chemist' }, project: { name: 'Project Quokka (invented)' }, draftVersion: 1, stepCount: 0, totals: null });
+    expect(row).toMatchObject({
+      owner: { id: chemist.id, name: 'Ada Chemist' },
+      project: { name: 'Project Quokka (invented)' },
+      draftVersion: 1,
+      stepCount: 0,
+      totals: null,
+    });
 
     const bad = await asChemist.agent.get(`${routesPath()}?archived=maybe`);
     expect(bad.status).toBe(400);
@@ -179,7 +272,10 @@ describe('routes of a workspace', () => {
   });
 
   it('answers 400 with the path of a bad name or document', async () => {
-    const response = await post(asChemist, routesPath(), { name: '  ', document: { ...demo(), steps: [{ id: 'x', kind: 'wash', name: 'w', params: {} }] } });
+    const response = await post(asChemist, routesPath(), {
+      name: '  ',
+      document: { ...demo(), steps: [{ id: 'x', kind: 'wash', name: 'w', params: {} }] },
+    });
     expect(response.status).toBe(400);
     const paths = (response.body.error.details as { path: string }[]).map((d) => d.path);
     expect(paths).toContain('name');
@@ -192,10 +288,16 @@ describe('demo seed', () => {
     // A database of its own: seeding the shared test database would change what other files see.
     const baseUrl = new URL(process.env.DATABASE_URL!);
     const name = `${baseUrl.pathname.slice(1)}_routes_seed`;
-    const admin = new Sequelize(new URL('/postgres', baseUrl).href, { dialect: 'postgres', logging: false });
+    const admin = new Sequelize(new URL('/postgres', baseUrl).href, {
+      dialect: 'postgres',
+      logging: false,
+    });
     await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
     await admin.query(`CREATE DATABASE ${name}`);
-    const fresh = new Sequelize(new URL(`/${name}`, baseUrl).href, { dialect: 'postgres', logging: false });
+    const fresh = new Sequelize(new URL(`/${name}`, baseUrl).href, {
+      dialect: 'postgres',
+      logging: false,
+    });
     try {
       await runMigrations(fresh);
       const applied = await runSeeders(fresh, 'test');
@@ -208,17 +310,37 @@ describe('demo seed', () => {
                JOIN users u ON u.id = r.owner_id LEFT JOIN projects p ON p.id = r.project_id
               WHERE w.slug = 'demo-process-group'`,
           )
-        )[0] as Array<{ name: string; project: string; owner: string; version: number; step_count: number; totals: { yieldPct: number; purityWtPct: number } | null; evaluation_error: unknown; document: unknown }>;
+        )[0] as Array<{
+          name: string;
+          project: string;
+          owner: string;
+          version: number;
+          step_count: number;
+          totals: { yieldPct: number; purityWtPct: number } | null;
+          evaluation_error: unknown;
+          document: unknown;
+        }>;
       const rows = await routesOfDemo();
       expect(rows).toHaveLength(1);
       const [route] = rows;
-      expect(route).toMatchObject({ name: DEMO_ROUTE_NAME, project: DEMO_PROJECT_NAME, owner: 'chemist@example.com', version: 1, step_count: demoRoute.steps.length, evaluation_error: null });
+      expect(route).toMatchObject({
+        name: DEMO_ROUTE_NAME,
+        project: DEMO_PROJECT_NAME,
+        owner: 'chemist@example.com',
+        version: 1,
+        step_count: demoRoute.steps.length,
+        evaluation_error: null,
+      });
       expect(route.name).toMatch(/invented/);
       expect(route.project).toMatch(/invented/);
       expect(route.document).toEqual(demoRoute);
       expect(route.totals!.yieldPct).toBeGreaterThan(0);
       expect(route.totals!.yieldPct).toBeLessThanOrEqual(100);
-      const [otherSite] = (await fresh.query(`SELECT count(*)::int AS n FROM routes r JOIN workspaces w ON w.id = r.workspace_id WHERE w.slug = 'second-site'`))[0] as [{ n: number }];
+      const [otherSite] = (
+        await fresh.query(
+          `SELECT count(*)::int AS n FROM routes r JOIN workspaces w ON w.id = r.workspace_id WHERE w.slug = 'second-site'`,
+        )
+      )[0] as [{ n: number }];
       expect(otherSite.n).toBe(0);
 
       // Idempotent, even when the record of the seed run is lost.

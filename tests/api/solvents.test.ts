@@ -33,7 +33,14 @@ describe('solvent library API', () => {
     expect(toluene.cas).toBe('108-88-3');
     expect(toluene.boilingPointC).toBeCloseTo(110.6, 0);
     expect(toluene.hansen).toEqual({ d: 18, p: 1.4, h: 2 });
-    for (const field of ['boilingPointC', 'densityGmL', 'flashPointC', 'ich', 'hansen', 'guideCategory']) {
+    for (const field of [
+      'boilingPointC',
+      'densityGmL',
+      'flashPointC',
+      'ich',
+      'hansen',
+      'guideCategory',
+    ]) {
       expect(toluene.sources[field]?.ref, field).toBeTruthy();
     }
     expect(toluene.sources.ich.citation).toMatch(/Q3C/);
@@ -42,9 +49,16 @@ describe('solvent library API', () => {
   });
 
   it('gives one solvent with its Antoine sets, and 404 for an unknown id', async () => {
-    const detail = solventDetailSchema.parse((await asReviewer.agent.get('/api/v1/solvents/ethanol')).body);
+    const detail = solventDetailSchema.parse(
+      (await asReviewer.agent.get('/api/v1/solvents/ethanol')).body,
+    );
     expect(detail.antoine.length).toBeGreaterThan(0);
-    expect(detail.antoine[0]).toMatchObject({ form: 'log10-bar-degC', A: 5.33675, B: 1648.22, C: 230.918 });
+    expect(detail.antoine[0]).toMatchObject({
+      form: 'log10-bar-degC',
+      A: 5.33675,
+      B: 1648.22,
+      C: 230.918,
+    });
     expect(detail.antoine[0].source.ref).toBe('poling-5e-antoine');
     expect(detail.unifac.map((g) => g.name)).toEqual(['CH3', 'CH2', 'OH']);
     const missing = await asReviewer.agent.get('/api/v1/solvents/no-such-solvent');

@@ -21,11 +21,17 @@ describe('personal API tokens', () => {
   it('requires authentication', async () => {
     expect((await request(server.app).get('/api/v1/tokens')).status).toBe(401);
     expect((await request(server.app).post('/api/v1/tokens').send({ name: 'x' })).status).toBe(401);
-    expect((await request(server.app).delete('/api/v1/tokens/00000000-0000-4000-8000-000000000000')).status).toBe(401);
+    expect(
+      (await request(server.app).delete('/api/v1/tokens/00000000-0000-4000-8000-000000000000'))
+        .status,
+    ).toBe(401);
   });
 
   it('creates a token shown once, authenticates Bearer requests without CSRF, and stops working after revoke', async () => {
-    const created = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', asAdmin.csrfToken).send({ name: 'lab script' });
+    const created = await asAdmin.agent
+      .post('/api/v1/tokens')
+      .set('X-CSRF-Token', asAdmin.csrfToken)
+      .send({ name: 'lab script' });
     expect(created.status).toBe(201);
     const { id, token } = createdTokenSchema.parse(created.body);
     const stored = await ApiToken.findByPk(id);
@@ -44,11 +50,15 @@ describe('personal API tokens', () => {
     expect(who.body.workspaces[0].roles).toEqual(['admin']);
 
     // A state change with the token and no CSRF header is fine.
-    const change = await bearer(request(server.app).post(`/api/v1/workspaces/${workspace.id}/invitations`)).send({ email: 'via-token@example.com', roles: ['chemist'] });
+    const change = await bearer(
+      request(server.app).post(`/api/v1/workspaces/${workspace.id}/invitations`),
+    ).send({ email: 'via-token@example.com', roles: ['chemist'] });
     expect(change.status).toBe(201);
     expect((await ApiToken.findByPk(id))!.lastUsedAt).not.toBeNull();
 
-    const revoked = await asAdmin.agent.delete(`/api/v1/tokens/${id}`).set('X-CSRF-Token', asAdmin.csrfToken);
+    const revoked = await asAdmin.agent
+      .delete(`/api/v1/tokens/${id}`)
+      .set('X-CSRF-Token', asAdmin.csrfToken);
     expect(revoked.status).toBe(204);
     const after = await bearer(request(server.app).get('/api/v1/session'));
     expect(after.status).toBe(401);
@@ -58,7 +68,12 @@ describe('personal API tokens', () => {
   it("a token authenticates with that user's roles only", async () => {
     const chemist = await buildMember(workspace, ['chemist']);
     const asChemist = await signIn(server.app, chemist.email);
-    const { token } = (await asChemist.agent.post('/api/v1/tokens').set('X-CSRF-Token', asChemist.csrfToken).send({ name: 'chemist script' })).body;
+    const { token } = (
+      await asChemist.agent
+        .post('/api/v1/tokens')
+        .set('X-CSRF-Token', asChemist.csrfToken)
+        .send({ name: 'chemist script' })
+    ).body;
     const response = await request(server.app)
       .post(`/api/v1/workspaces/${workspace.id}/invitations`)
       .set('Authorization', `Bearer ${token}`)
@@ -69,14 +84,26 @@ describe('personal API tokens', () => {
   it("another user's token answers 404 on revoke and keeps working", async () => {
     const other = await buildMember(workspace, ['reviewer']);
     const asOther = await signIn(server.app, other.email);
-    const { id, token } = (await asOther.agent.post('/api/v1/tokens').set('X-CSRF-Token', asOther.csrfToken).send({ name: 'theirs' })).body;
-    const response = await asAdmin.agent.delete(`/api/v1/tokens/${id}`).set('X-CSRF-Token', asAdmin.csrfToken);
+    const { id, token } = (
+      await asOther.agent
+        .post('/api/v1/tokens')
+        .set('X-CSRF-Token', asOther.csrfToken)
+        .send({ name: 'theirs' })
+    ).body;
+    const response = await asAdmin.agent
+      .delete(`/api/v1/tokens/${id}`)
+      .set('X-CSRF-Token', asAdmin.csrfToken);
     expect(response.status).toBe(404);
-    expect((await request(server.app).get('/api/v1/session').set('Authorization', `Bearer ${token}`)).status).toBe(200);
+    expect(
+      (await request(server.app).get('/api/v1/session').set('Authorization', `Bearer ${token}`))
+        .status,
+    ).toBe(200);
   });
 
   it('an unknown Bearer token is a 401', async () => {
-    const response = await request(server.app).get('/api/v1/session').set('Authorization', 'Bearer pwt_made-up');
+    const response = await request(server.app)
+      .get('/api/v1/session')
+      .set('Authorization', 'Bearer pwt_made-up');
     expect(response.status).toBe(401);
   });
 });
@@ -90,20 +117,31 @@ describe('CSRF', () => {
   });
 
   it('refuses a wrong token, and accepts the session token', async () => {
-    const wrong = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', 'x'.repeat(43)).send({ name: 'wrong header' });
+    const wrong = await asAdmin.agent
+      .post('/api/v1/tokens')
+      .set('X-CSRF-Token', 'x'.repeat(43))
+      .send({ name: 'wrong header' });
     expect(wrong.status).toBe(403);
-    const right = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', asAdmin.csrfToken).send({ name: 'right header' });
+    const right = await asAdmin.agent
+      .post('/api/v1/tokens')
+      .set('X-CSRF-Token', asAdmin.csrfToken)
+      .send({ name: 'right header' });
     expect(right.status).toBe(201);
   });
 
   it("one session's token does not work for another session", async () => {
     const other = await signIn(server.app, admin.email);
-    const response = await asAdmin.agent.post('/api/v1/tokens').set('X-CSRF-Token', other.csrfToken).send({ name: 'crossed' });
+    const response = await asAdmin.agent
+      .post('/api/v1/tokens')
+      .set('X-CSRF-Token', other.csrfToken)
+      .send({ name: 'crossed' });
     expect(response.status).toBe(403);
   });
 
   it('sign-in itself needs no CSRF token', async () => {
-    const response = await asAdmin.agent.post('/api/v1/session').send({ email: admin.email, password: 'correct-horse-battery' });
+    const response = await asAdmin.agent
+      .post('/api/v1/session')
+      .send({ email: admin.email, password: 'correct-horse-battery' });
     expect(response.status).toBe(200);
     asAdmin = { ...asAdmin, csrfToken: response.body.csrfToken };
   });

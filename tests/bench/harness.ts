@@ -24,7 +24,13 @@ export interface BenchResult {
 export function measure(
   name: string,
   fn: () => unknown,
-  opts: { samples?: number; batch?: number; warmup?: number; targetUs?: number; note?: string } = {},
+  opts: {
+    samples?: number;
+    batch?: number;
+    warmup?: number;
+    targetUs?: number;
+    note?: string;
+  } = {},
 ): BenchResult {
   const samples = opts.samples ?? 200;
   const batch = opts.batch ?? 20;

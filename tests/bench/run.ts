@@ -34,7 +34,9 @@ function table(results: BenchResult[]): string {
   ];
   for (const r of results) {
     const met = r.meetsTarget === undefined ? '' : r.meetsTarget ? 'yes' : 'NO';
-    lines.push(`| ${r.name} | ${format(r.medianUs)} | ${format(r.p95Us)} | ${r.iterations} | ${r.target ?? ''} | ${met} | ${r.note ?? ''} |`);
+    lines.push(
+      `| ${r.name} | ${format(r.medianUs)} | ${format(r.p95Us)} | ${r.iterations} | ${r.target ?? ''} | ${met} | ${r.note ?? ''} |`,
+    );
   }
   return lines.join('\n');
 }
@@ -62,7 +64,9 @@ async function main(): Promise<void> {
     .sort();
   let failures = 0;
   for (const name of modules) {
-    const mod = (await import(pathToFileURL(join(here, `${name}.bench.ts`)).href)) as { run?: () => Promise<BenchResult[]> };
+    const mod = (await import(pathToFileURL(join(here, `${name}.bench.ts`)).href)) as {
+      run?: () => Promise<BenchResult[]>;
+    };
     if (typeof mod.run !== 'function') {
       console.warn(`${name}.bench.ts exports no run(); skipped.`);
       continue;

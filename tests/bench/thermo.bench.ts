@@ -13,7 +13,16 @@ import { vapourPressure } from '../../shared/engine/thermo/antoine';
 import * as F from '../reference/thermo/fixtures';
 
 const tenComponents: VleComponent[] = [
-  F.ethanol, F.water, F.toluene, F.acetone, F.ethylAcetate, F.heptane, F.thf, F.dichloromethane, F.acetonitrile, F.isopropanol,
+  F.ethanol,
+  F.water,
+  F.toluene,
+  F.acetone,
+  F.ethylAcetate,
+  F.heptane,
+  F.thf,
+  F.dichloromethane,
+  F.acetonitrile,
+  F.isopropanol,
 ];
 const tenX = [0.05, 0.2, 0.1, 0.1, 0.15, 0.05, 0.1, 0.05, 0.1, 0.1];
 const fiveComponents: VleComponent[] = [F.ethanol, F.water, F.acetone, F.ethylAcetate, F.toluene];
@@ -25,7 +34,10 @@ function straightforwardBubblePoint(components: VleComponent[], x: number[], P_P
   const groups = components.map((c) => c.unifac);
   const f = (T: number) => {
     const lnG = referenceLnGammas(groups, x, T);
-    const sum = components.reduce((acc, c, i) => acc + x[i] * Math.exp(lnG[i]) * vapourPressure(c.antoine, T).pressurePa, 0);
+    const sum = components.reduce(
+      (acc, c, i) => acc + x[i] * Math.exp(lnG[i]) * vapourPressure(c.antoine, T).pressurePa,
+      0,
+    );
     return Math.log(sum / P_Pa);
   };
   let T = 350;
@@ -45,24 +57,41 @@ export async function run(): Promise<BenchResult[]> {
   let T = 300;
   // Varying T defeats the Ψ(T) cache: the worst case for the optimised model.
   results.push(
-    measure('UNIFAC γ, 10 components, new T each call (optimised)', () => {
-      T = T === 300 ? 300.5 : 300;
-      return model.gammas(tenX, T, out)[0];
-    }, { targetUs: 20, samples: 300, batch: 50 }),
+    measure(
+      'UNIFAC γ, 10 components, new T each call (optimised)',
+      () => {
+        T = T === 300 ? 300.5 : 300;
+        return model.gammas(tenX, T, out)[0];
+      },
+      { targetUs: 20, samples: 300, batch: 50 },
+    ),
   );
   results.push(
-    measure('UNIFAC γ, 10 components, repeated T (optimised, Ψ cached)', () => model.gammas(tenX, 300, out)[0], {
-      targetUs: 20,
-      samples: 300,
-      batch: 50,
-    }),
+    measure(
+      'UNIFAC γ, 10 components, repeated T (optimised, Ψ cached)',
+      () => model.gammas(tenX, 300, out)[0],
+      {
+        targetUs: 20,
+        samples: 300,
+        batch: 50,
+      },
+    ),
   );
   results.push(
-    measure('UNIFAC γ, 10 components (straightforward reference)', () => referenceLnGammas(tenComponents.map((c) => c.unifac), tenX, 300)[0], {
-      samples: 100,
-      batch: 10,
-      warmup: 50,
-    }),
+    measure(
+      'UNIFAC γ, 10 components (straightforward reference)',
+      () =>
+        referenceLnGammas(
+          tenComponents.map((c) => c.unifac),
+          tenX,
+          300,
+        )[0],
+      {
+        samples: 100,
+        batch: 10,
+        warmup: 50,
+      },
+    ),
   );
   const sys = createVleSystem(fiveComponents);
   results.push(
@@ -74,11 +103,15 @@ export async function run(): Promise<BenchResult[]> {
     }),
   );
   results.push(
-    measure('Bubble point, 5 components, 1 atm (straightforward)', () => straightforwardBubblePoint(fiveComponents, fiveX, P), {
-      samples: 50,
-      batch: 5,
-      warmup: 10,
-    }),
+    measure(
+      'Bubble point, 5 components, 1 atm (straightforward)',
+      () => straightforwardBubblePoint(fiveComponents, fiveX, P),
+      {
+        samples: 50,
+        batch: 5,
+        warmup: 10,
+      },
+    ),
   );
   const a = bubblePoint(sys, fiveX, P).T_K;
   const b = straightforwardBubblePoint(fiveComponents, fiveX, P);

@@ -62,7 +62,9 @@ async function endSessionsOnServer(userId: string) {
 describe('password reset', () => {
   it('sends a link by e-mail that sets a new password once; the old one stops working', async () => {
     const { page, shot } = flows.browser;
-    const member = await buildMember(await demoWorkspace(), ['chemist'], { name: 'Forgetful Chemist (demo)' });
+    const member = await buildMember(await demoWorkspace(), ['chemist'], {
+      name: 'Forgetful Chemist (demo)',
+    });
     const newPassword = 'a-brand-new-passphrase';
 
     await page.goto(base + '/sign-in');
@@ -71,7 +73,10 @@ describe('password reset', () => {
     const sentAfter = new Date();
     await page.getByLabel('E-mail').fill(member.email);
     await page.getByRole('button', { name: 'Send reset link' }).click();
-    await page.getByRole('status').filter({ hasText: `If an account exists for ${member.email}` }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: `If an account exists for ${member.email}` })
+      .waitFor();
     await shot('account-01-reset-requested');
 
     const mail = await waitForMail(member.email, { after: sentAfter, subject: /password/i });
@@ -121,7 +126,9 @@ describe('password reset', () => {
     const refused = page.getByRole('alert');
     await refused.waitFor();
     await expect(refused.textContent()).resolves.toMatch(/This reset link is not valid any more/);
-    await expect(refused.getByRole('link', { name: 'Ask for a new link' }).isVisible()).resolves.toBe(true);
+    await expect(
+      refused.getByRole('link', { name: 'Ask for a new link' }).isVisible(),
+    ).resolves.toBe(true);
     await shot('account-04-reset-link-used');
     // The refused second use changed nothing.
     await page.goto(base + '/sign-in');
@@ -152,7 +159,9 @@ describe('password reset', () => {
 describe('changing the password on the Account page', () => {
   it('keeps the typed new password after a wrong current one, then changes it', async () => {
     const { page, shot } = flows.browser;
-    const member = await buildMember(await demoWorkspace(), ['reviewer'], { name: 'Careful Reviewer (demo)' });
+    const member = await buildMember(await demoWorkspace(), ['reviewer'], {
+      name: 'Careful Reviewer (demo)',
+    });
     const newPassword = 'reviewer-new-passphrase';
 
     await page.goto(base + '/account');
@@ -231,7 +240,9 @@ describe('joining a second workspace', () => {
     expect(new URL(page.url()).pathname).toBe(`/w/${demo.id}`);
     const header = page.locator('header');
     await expect(header.getByText('Reviewer', { exact: true }).isVisible()).resolves.toBe(true);
-    const membership = await Membership.findOne({ where: { userId: person.id, workspaceId: demo.id } });
+    const membership = await Membership.findOne({
+      where: { userId: person.id, workspaceId: demo.id },
+    });
     expect(membership?.roles).toEqual(['reviewer']);
 
     // The switcher offers both workspaces, the current one selected.
@@ -272,7 +283,9 @@ describe('joining a second workspace', () => {
 describe('a session ended on the server', () => {
   it('sends the next action to sign-in with a plain message, then back to the page', async () => {
     const { page, shot } = flows.browser;
-    const member = await buildMember(await demoWorkspace(), ['chemist'], { name: 'Interrupted Chemist (demo)' });
+    const member = await buildMember(await demoWorkspace(), ['chemist'], {
+      name: 'Interrupted Chemist (demo)',
+    });
 
     await page.goto(base + '/account');
     await signInAs(member.email, DEFAULT_PASSWORD);

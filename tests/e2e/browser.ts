@@ -37,7 +37,9 @@ export function closeServer(server: Server | undefined): Promise<void> {
 
 export function assertClientBuilt() {
   if (!existsSync(path.resolve('dist/index.html'))) {
-    throw new Error('dist/index.html is missing: build the client first (node node_modules/vite/bin/vite.js build).');
+    throw new Error(
+      'dist/index.html is missing: build the client first (node node_modules/vite/bin/vite.js build).',
+    );
   }
 }
 
@@ -58,7 +60,15 @@ export async function launchBrowser(): Promise<Browser> {
     executablePath: '/usr/bin/chromium',
     headless: true,
     viewport: { width: 1280, height: 800 },
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   context.setDefaultTimeout(20_000);
   const page = context.pages()[0] ?? (await context.newPage());
@@ -102,7 +112,10 @@ export interface BrowserFlows {
  * `lastShot` names a screenshot of each flow's last screen, kept for looking at
  * when something fails.
  */
-export async function useBrowserFlows(options: { profile: 'per-flow' | 'per-file'; lastShot?: string }): Promise<BrowserFlows> {
+export async function useBrowserFlows(options: {
+  profile: 'per-flow' | 'per-file';
+  lastShot?: string;
+}): Promise<BrowserFlows> {
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;
   const server = useTestServer({ APP_URL: base, PHASEWRIGHT_SEED_DEMO: '1' });

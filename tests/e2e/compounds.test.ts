@@ -13,7 +13,10 @@ describe('compounds', () => {
     await page.getByLabel('E-mail').fill('chemist@example.com');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Compounds' }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Compounds' })
+      .click();
     await page.getByRole('heading', { level: 1, name: 'Compounds' }).waitFor();
     // The seeded, invented demo compounds are listed.
     await page.getByText('PW-417 amide (invented)', { exact: true }).waitFor();
@@ -27,17 +30,27 @@ describe('compounds', () => {
     // A broken SMILES gets a clear message naming the problem.
     await form.getByRole('textbox', { name: 'SMILES' }).fill('COc1ccc(CCC(=O)O)cc');
     await page.getByText('This structure cannot be read').waitFor();
-    await expect(page.getByRole('alert').filter({ hasText: 'cannot be read' }).innerText()).resolves.toMatch(/SMILES/);
+    await expect(
+      page.getByRole('alert').filter({ hasText: 'cannot be read' }).innerText(),
+    ).resolves.toMatch(/SMILES/);
     await shot('compounds-02-unparsable');
 
     await form.getByRole('textbox', { name: 'SMILES' }).fill('COc1ccc(CCC(=O)O)cc1');
     await page.getByTestId('preview-formula').filter({ hasText: 'C10H12O3' }).waitFor();
     const preview = page.getByRole('region', { name: 'Structure preview' });
-    await expect(preview.getByRole('img', { name: /Structure drawing/ }).isVisible()).resolves.toBe(true);
+    await expect(preview.getByRole('img', { name: /Structure drawing/ }).isVisible()).resolves.toBe(
+      true,
+    );
     const groups = preview.getByRole('table', { name: 'UNIFAC groups' });
-    await expect(groups.getByRole('cell', { name: 'COOH', exact: true }).isVisible()).resolves.toBe(true);
-    await expect(groups.getByRole('cell', { name: 'CH3O', exact: true }).isVisible()).resolves.toBe(true);
-    await expect(preview.getByText('estimate', { exact: true }).first().isVisible()).resolves.toBe(true);
+    await expect(groups.getByRole('cell', { name: 'COOH', exact: true }).isVisible()).resolves.toBe(
+      true,
+    );
+    await expect(groups.getByRole('cell', { name: 'CH3O', exact: true }).isVisible()).resolves.toBe(
+      true,
+    );
+    await expect(preview.getByText('estimate', { exact: true }).first().isVisible()).resolves.toBe(
+      true,
+    );
     await form.getByLabel('Melting point (°C)').fill('101');
     await form.getByRole('button', { name: 'Add a pKa' }).click();
     await form.getByLabel('pKa 1', { exact: true }).fill('4.6');
@@ -49,14 +62,19 @@ describe('compounds', () => {
     await form.getByText('Must be positive.').waitFor();
     await form.getByLabel('ΔHfus (kJ/mol)').fill('27');
     await form.getByRole('button', { name: 'Save compound' }).click();
-    await page.getByRole('status').filter({ hasText: 'Propanoic acid impurity (test) added.' }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: 'Propanoic acid impurity (test) added.' })
+      .waitFor();
 
     await page.getByLabel('Filter by name or formula').fill('propanoic');
     const row = page.getByRole('row').filter({ hasText: 'Propanoic acid impurity (test)' });
     await row.waitFor();
     await expect(row.innerText()).resolves.toMatch(/C10H12O3/);
     await expect(row.innerText()).resolves.toMatch(/estimate/);
-    await expect(page.getByRole('row').filter({ hasText: 'PW-417 amide' }).count()).resolves.toBe(0);
+    await expect(page.getByRole('row').filter({ hasText: 'PW-417 amide' }).count()).resolves.toBe(
+      0,
+    );
     await shot('compounds-04-saved');
 
     const stored = await Compound.findOne({ where: { name: 'Propanoic acid impurity (test)' } });
@@ -69,7 +87,10 @@ describe('compounds', () => {
 
   it('the solvent library sorts, searches and shows every value of a solvent with its source', async () => {
     const { page, shot, problems } = flows.browser;
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Solvent library' }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Solvent library' })
+      .click();
     await page.getByRole('heading', { level: 1, name: 'Solvent library' }).waitFor();
     await page.getByRole('button', { name: /Tb/ }).click();
     const firstRow = page.getByRole('row').nth(1);

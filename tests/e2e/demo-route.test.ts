@@ -45,7 +45,10 @@ describe('the demo route', () => {
     const settings = page.getByRole('form', { name: /Settings of Heptane antisolvent/ });
     const volume = settings.getByLabel('Antisolvent volume', { exact: true });
     await expect(volume.inputValue()).resolves.toMatch(/vol/);
-    await page.getByRole('img', { name: 'Crystallisation yield against end temperature' }).locator('svg').waitFor();
+    await page
+      .getByRole('img', { name: 'Crystallisation yield against end temperature' })
+      .locator('svg')
+      .waitFor();
     await shot('demo-02-crystallisation');
 
     // Half the heptane: the yield and the purity both move, and the totals show by how much.
@@ -70,7 +73,10 @@ describe('the demo route', () => {
     const addedName = (await added.getAttribute('aria-label')) ?? '';
     await page.getByRole('form', { name: /Settings of Wash/ }).waitFor();
     // The wash's own plot: recovery against the number of stages.
-    await page.getByRole('img', { name: 'Product recovery against number of stages' }).locator('svg').waitFor();
+    await page
+      .getByRole('img', { name: 'Product recovery against number of stages' })
+      .locator('svg')
+      .waitFor();
     await shot('demo-04-wash-added');
 
     // The draft saves by itself; a reload brings back both changes.
@@ -83,7 +89,12 @@ describe('the demo route', () => {
     await expect.poll(async () => number(await yieldTotal.textContent())).toBe(yieldAfter);
     await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
     await page.getByRole('article', { name: /^Crystallisation: Heptane antisolvent/ }).click();
-    await expect(page.getByRole('form', { name: /Settings of Heptane antisolvent/ }).getByLabel('Antisolvent volume', { exact: true }).inputValue()).resolves.toBe('3 ± 0.5 vol');
+    await expect(
+      page
+        .getByRole('form', { name: /Settings of Heptane antisolvent/ })
+        .getByLabel('Antisolvent volume', { exact: true })
+        .inputValue(),
+    ).resolves.toBe('3 ± 0.5 vol');
     await shot('demo-05-after-reload');
     expect(flows.browser.problems).toEqual([]);
   });
@@ -93,18 +104,32 @@ describe('the demo route', () => {
     await openDemoRoute();
 
     await page.getByRole('tab', { name: 'Product flow' }).click();
-    await page.getByRole('img', { name: 'Where the product mass goes, step by step' }).locator('svg').waitFor();
+    await page
+      .getByRole('img', { name: 'Where the product mass goes, step by step' })
+      .locator('svg')
+      .waitFor();
     await page.getByText(/Isolated [\d.]+ kg of [\d.]+ kg charged/).waitFor();
     await shot('demo-06-product-flow');
 
     await page.getByRole('tab', { name: 'Purge' }).click();
-    await page.getByRole('img', { name: 'Purge factor of each impurity, log scale' }).locator('svg').waitFor();
+    await page
+      .getByRole('img', { name: 'Purge factor of each impurity, log scale' })
+      .locator('svg')
+      .waitFor();
     await shot('demo-07-purge');
 
     // A distillation shows its profile.
     await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
-    await page.getByRole('article', { name: /^Distillation:/ }).first().click();
-    await page.getByRole('img', { name: 'Pot temperature and original solvent left against distillate volume' }).locator('svg').waitFor();
+    await page
+      .getByRole('article', { name: /^Distillation:/ })
+      .first()
+      .click();
+    await page
+      .getByRole('img', {
+        name: 'Pot temperature and original solvent left against distillate volume',
+      })
+      .locator('svg')
+      .waitFor();
 
     await page.getByRole('tab', { name: 'Uncertainty' }).click();
     const run = page.getByRole('form', { name: 'Uncertainty run' });
@@ -118,14 +143,20 @@ describe('the demo route', () => {
     const bands = page.getByRole('table', { name: 'Uncertainty bands' });
     const yieldRow = bands.getByRole('row', { name: /^Yield %/ });
     await yieldRow.waitFor();
-    const [p5, p50, p95] = (await yieldRow.getByRole('cell').allTextContents()).slice(0, 3).map(number);
+    const [p5, p50, p95] = (await yieldRow.getByRole('cell').allTextContents())
+      .slice(0, 3)
+      .map(number);
     expect(p5).toBeLessThanOrEqual(p50);
     expect(p50).toBeLessThanOrEqual(p95);
     expect(p95).toBeLessThanOrEqual(100);
     await expect(bands.getByRole('row', { name: /^Purity wt %/ }).isVisible()).resolves.toBe(true);
     // One purge row per impurity, under the "Purge factor of" heading, each named after its compound.
-    await expect(bands.getByRole('rowheader', { name: 'Purge factor of' }).count()).resolves.toBe(1);
-    await expect(bands.getByRole('row', { name: /^Des-chloro amide \(invented\)/ }).count()).resolves.toBe(1);
+    await expect(bands.getByRole('rowheader', { name: 'Purge factor of' }).count()).resolves.toBe(
+      1,
+    );
+    await expect(
+      bands.getByRole('row', { name: /^Des-chloro amide \(invented\)/ }).count(),
+    ).resolves.toBe(1);
     await shot('demo-08-uncertainty');
     expect(flows.browser.problems).toEqual([]);
   });

@@ -30,15 +30,22 @@ describe('route editor', () => {
     const panel = page.getByRole('form', { name: /Settings of Charge/ });
     await panel.waitFor();
     await panel.getByRole('button', { name: 'Add an item' }).click();
-    await panel.getByLabel('Item 2', { exact: true }).selectOption({ label: 'PW-417 amide (invented) (product)' });
+    await panel
+      .getByLabel('Item 2', { exact: true })
+      .selectOption({ label: 'PW-417 amide (invented) (product)' });
     await panel.getByLabel('Amount of item 2 (kg)', { exact: true }).fill('1');
     await panel.getByLabel('Amount of item 2 (kg)', { exact: true }).press('Enter');
 
     // 2. Wash, from the keyboard: A goes to the step list, Enter adds; it joins the selected Charge.
-    await page.locator('body').click({ position: { x: 5, y: 5 } }).catch(() => {});
+    await page
+      .locator('body')
+      .click({ position: { x: 5, y: 5 } })
+      .catch(() => {});
     await page.getByRole('button', { name: 'Add Charge' }).focus();
     await page.keyboard.press('Tab');
-    await expect(page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).resolves.toBe('Add Wash');
+    await expect(
+      page.evaluate(() => document.activeElement?.getAttribute('aria-label')),
+    ).resolves.toBe('Add Wash');
     await page.getByRole('article', { name: /Charge:/ }).click();
     await page.keyboard.press('a');
     await page.keyboard.press('Tab');
@@ -47,17 +54,24 @@ describe('route editor', () => {
     await wash.waitFor();
 
     // 3. Crystallisation, dragged onto the canvas, then connected with the mouse from the wash's organic output.
-    await page.getByRole('button', { name: 'Add Crystallisation' }).dragTo(page.locator('.react-flow').first(), { targetPosition: { x: 350, y: 560 } });
+    await page
+      .getByRole('button', { name: 'Add Crystallisation' })
+      .dragTo(page.locator('.react-flow').first(), { targetPosition: { x: 350, y: 560 } });
     const cryst = page.getByRole('article', { name: /Crystallisation:/ });
     await cryst.waitFor();
-    await page.locator('.react-flow__handle[data-handleid="out:organic"]').first().dragTo(cryst.locator('.react-flow__handle[data-handleid="in:feed"]'));
+    await page
+      .locator('.react-flow__handle[data-handleid="out:organic"]')
+      .first()
+      .dragTo(cryst.locator('.react-flow__handle[data-handleid="in:feed"]'));
     await page.locator('.react-flow__edge').nth(1).waitFor();
 
     // 4. Filtration, keyboard again, joined to the selected crystallisation.
     await cryst.click();
     await page.keyboard.press('a');
     for (let i = 0; i < 5; i++) await page.keyboard.press('Tab');
-    await expect(page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).resolves.toBe('Add Filtration');
+    await expect(
+      page.evaluate(() => document.activeElement?.getAttribute('aria-label')),
+    ).resolves.toBe('Add Filtration');
     await page.keyboard.press('Enter');
     await page.getByRole('article', { name: /Filtration:/ }).waitFor();
     await expect(page.locator('.react-flow__edge').count()).resolves.toBe(3);
@@ -75,7 +89,9 @@ describe('route editor', () => {
     // Crystallise to a warmer end temperature: more product stays in the liquor, so the yield falls.
     await page.keyboard.press('f');
     await cryst.locator('header').click();
-    const endT = page.getByRole('form', { name: /Settings of Crystallisation/ }).getByLabel('End temperature', { exact: true });
+    const endT = page
+      .getByRole('form', { name: /Settings of Crystallisation/ })
+      .getByLabel('End temperature', { exact: true });
     await endT.fill('40 °C');
     await endT.press('Enter');
     await expect.poll(() => crystYield.textContent()).not.toBe(before);
@@ -94,16 +110,27 @@ describe('route editor', () => {
 
     // The cautions sit behind their own tab with their count and worst severity; identical ones are one entry listing its steps.
     const cautionsTab = page.getByRole('tab', { name: /Cautions/ });
-    await expect(cautionsTab.locator('[data-caution-count]').getAttribute('data-worst')).resolves.toMatch(/hazard|warning|advisory|info/);
+    await expect(
+      cautionsTab.locator('[data-caution-count]').getAttribute('data-worst'),
+    ).resolves.toMatch(/hazard|warning|advisory|info/);
     await cautionsTab.click();
     const cautions = page.getByRole('list', { name: 'Cautions' });
     await cautions.waitFor();
     const shared = cautions.locator('li[data-steps]:not([data-steps="1"])').first();
     await shared.waitFor();
-    await page.locator('[data-process-safety-note]').filter({ hasText: 'process-safety review' }).waitFor();
+    await page
+      .locator('[data-process-safety-note]')
+      .filter({ hasText: 'process-safety review' })
+      .waitFor();
     await shot('editor-04b-cautions');
     await shared.getByRole('button', { name: 'Wash', exact: true }).click();
-    await expect.poll(() => wash.evaluate((el) => el.closest('.react-flow__node')?.classList.contains('selected') ?? false)).toBe(true);
+    await expect
+      .poll(() =>
+        wash.evaluate(
+          (el) => el.closest('.react-flow__node')?.classList.contains('selected') ?? false,
+        ),
+      )
+      .toBe(true);
     await cryst.locator('header').click();
     await page.getByRole('form', { name: /Settings of Crystallisation/ }).waitFor();
     await endT.press('Escape');
@@ -119,11 +146,21 @@ describe('route editor', () => {
     await page.goto(routeUrl);
     await page.getByRole('heading', { level: 1, name }).waitFor();
     await expect.poll(() => page.getByRole('article').count()).toBe(4);
-    await page.getByRole('article', { name: /Crystallisation:/ }).locator('[data-result="yield %"]').filter({ hasText: before }).waitFor();
+    await page
+      .getByRole('article', { name: /Crystallisation:/ })
+      .locator('[data-result="yield %"]')
+      .filter({ hasText: before })
+      .waitFor();
     // Arrow keys move the selected card a grid step, Shift five; Undo puts it back.
     const filtration = page.getByRole('article', { name: /Filtration:/ });
     await filtration.locator('header').click();
-    const position = () => filtration.evaluate((el) => { const m = new DOMMatrixReadOnly(getComputedStyle(el.closest('.react-flow__node')!).transform); return [m.m41, m.m42]; });
+    const position = () =>
+      filtration.evaluate((el) => {
+        const m = new DOMMatrixReadOnly(
+          getComputedStyle(el.closest('.react-flow__node')!).transform,
+        );
+        return [m.m41, m.m42];
+      });
     const [x0, y0] = await position();
     await page.keyboard.press('ArrowRight');
     await expect.poll(position).toEqual([x0 + 20, y0]);

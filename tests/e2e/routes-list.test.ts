@@ -27,9 +27,15 @@ describe('routes list', () => {
     await signInAs('chemist@example.com');
 
     // The seeded demo route, in its project, with yield, purity and PMI worked out.
-    const demo = page.getByRole('row').filter({ has: page.getByRole('link', { name: DEMO_ROUTE_NAME }) });
+    const demo = page
+      .getByRole('row')
+      .filter({ has: page.getByRole('link', { name: DEMO_ROUTE_NAME }) });
     await demo.waitFor();
-    await expect(page.getByRole('rowheader', { name: new RegExp(DEMO_PROJECT_NAME.replace(/[()]/g, '\\$&')) }).isVisible()).resolves.toBe(true);
+    await expect(
+      page
+        .getByRole('rowheader', { name: new RegExp(DEMO_PROJECT_NAME.replace(/[()]/g, '\\$&')) })
+        .isVisible(),
+    ).resolves.toBe(true);
     const cells = demo.getByRole('cell');
     const texts = await cells.allTextContents();
     const yieldPct = percent(texts.find((t) => /%/.test(t)) ?? null);
@@ -73,9 +79,13 @@ describe('routes list', () => {
     await page.getByRole('status').filter({ hasText: 'archived' }).waitFor();
     await expect.poll(() => page.getByRole('link', { name: renamed, exact: true }).count()).toBe(0);
     await page.getByRole('button', { name: 'Archived' }).click();
-    const archivedRow = page.getByRole('row').filter({ has: page.getByRole('link', { name: renamed, exact: true }) });
+    const archivedRow = page
+      .getByRole('row')
+      .filter({ has: page.getByRole('link', { name: renamed, exact: true }) });
     await archivedRow.waitFor();
-    await expect(archivedRow.getByRole('cell', { name: 'Archived', exact: true }).isVisible()).resolves.toBe(true);
+    await expect(
+      archivedRow.getByRole('cell', { name: 'Archived', exact: true }).isVisible(),
+    ).resolves.toBe(true);
     await expect(page.getByRole('link', { name: DEMO_ROUTE_NAME }).count()).resolves.toBe(0);
     await shot('routes-03-archived');
     expect(flows.browser.problems).toEqual([]);
@@ -86,7 +96,9 @@ describe('routes list', () => {
     await signInAs('reviewer@example.com');
     await page.getByRole('link', { name: DEMO_ROUTE_NAME }).waitFor();
     await expect(page.getByRole('button', { name: 'New route' }).count()).resolves.toBe(0);
-    await expect(page.getByRole('button', { name: /^(Rename|Duplicate|Archive) / }).count()).resolves.toBe(0);
+    await expect(
+      page.getByRole('button', { name: /^(Rename|Duplicate|Archive) / }).count(),
+    ).resolves.toBe(0);
     await shot('routes-04-reviewer');
 
     // The editor opens the route read-only, too.
@@ -95,7 +107,9 @@ describe('routes list', () => {
     await page.getByText('Read only — you can look but not change this route').waitFor();
     // Nothing offers a change: no step list to add from, a greyed-out settings form, no tidy-up.
     await expect(page.getByRole('navigation', { name: 'Add a step' }).count()).resolves.toBe(0);
-    await expect(page.getByRole('button', { name: 'Tidy layout' }).isDisabled()).resolves.toBe(true);
+    await expect(page.getByRole('button', { name: 'Tidy layout' }).isDisabled()).resolves.toBe(
+      true,
+    );
     await page.locator('.react-flow__node').first().click();
     await expect(page.getByLabel('Step name').isEditable()).resolves.toBe(false);
     // A keyboard edit is refused with a plain note, and the route keeps its steps.

@@ -40,7 +40,9 @@ describe('signing in', () => {
     await page.getByRole('link', { name: DEMO_ROUTE_NAME }).waitFor();
     await expect(page.getByRole('button', { name: 'New route' }).isEnabled()).resolves.toBe(true);
     // The chemist's role is shown; admin-only places are not offered.
-    await expect(page.locator('header').getByText('Chemist', { exact: true }).isVisible()).resolves.toBe(true);
+    await expect(
+      page.locator('header').getByText('Chemist', { exact: true }).isVisible(),
+    ).resolves.toBe(true);
     await expect(page.getByRole('link', { name: 'Outbox' }).count()).resolves.toBe(0);
     await expect(page.getByRole('link', { name: 'Members' }).isVisible()).resolves.toBe(true);
     await shot('02-routes-list');
@@ -107,7 +109,10 @@ describe('inviting a member', () => {
     await form.getByLabel('Chemist').uncheck();
     await form.getByLabel('Reviewer').check();
     await form.getByRole('button', { name: 'Send invitation' }).click();
-    await page.getByRole('status').filter({ hasText: `Invitation sent to ${invitee}` }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: `Invitation sent to ${invitee}` })
+      .waitFor();
     await expect(form.getByLabel('E-mail address').inputValue()).resolves.toBe('');
     await shot('05-members-invited');
 
@@ -116,7 +121,10 @@ describe('inviting a member', () => {
     const token = tokenFromLink(mail.text, 'invitations');
     await page.getByRole('link', { name: 'Outbox' }).click();
     await page.getByRole('heading', { level: 1, name: 'Outbox' }).waitFor();
-    const message = page.getByRole('list', { name: 'E-mails' }).getByRole('button').filter({ hasText: invitee });
+    const message = page
+      .getByRole('list', { name: 'E-mails' })
+      .getByRole('button')
+      .filter({ hasText: invitee });
     await message.click();
     const article = page.getByRole('article');
     await article.getByText(invitee).first().waitFor();
@@ -132,7 +140,9 @@ describe('inviting a member', () => {
     await page.getByLabel('Choose a password').fill('a-long-enough-password');
     await page.getByRole('button', { name: 'Accept and join' }).click();
     await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
-    await expect(page.locator('header').getByText('Reviewer', { exact: true }).isVisible()).resolves.toBe(true);
+    await expect(
+      page.locator('header').getByText('Reviewer', { exact: true }).isVisible(),
+    ).resolves.toBe(true);
     await shot('07-joined');
     await signOut();
     expect(flows.browser.problems).toEqual([]);
@@ -157,10 +167,17 @@ describe('managing members', () => {
     const editor = page.getByRole('group', { name: 'Roles of Temporary Chemist (demo)' });
     await editor.getByLabel('Scale-up engineer').check();
     await page.getByRole('button', { name: 'Save' }).click();
-    await page.getByRole('status').filter({ hasText: 'Roles of Temporary Chemist (demo) saved.' }).waitFor();
-    await expect(row.getByText('Scale-up engineer', { exact: true }).isVisible()).resolves.toBe(true);
+    await page
+      .getByRole('status')
+      .filter({ hasText: 'Roles of Temporary Chemist (demo) saved.' })
+      .waitFor();
+    await expect(row.getByText('Scale-up engineer', { exact: true }).isVisible()).resolves.toBe(
+      true,
+    );
     await member.reload();
-    const membership = await Membership.findOne({ where: { userId: member.id, workspaceId: workspace.id } });
+    const membership = await Membership.findOne({
+      where: { userId: member.id, workspaceId: workspace.id },
+    });
     expect([...(membership?.roles ?? [])].sort()).toEqual(['chemist', 'engineer']);
 
     await row.getByRole('button', { name: 'Remove Temporary Chemist (demo)' }).click();
@@ -172,9 +189,14 @@ describe('managing members', () => {
     await expect(row.isVisible()).resolves.toBe(true);
     await row.getByRole('button', { name: 'Remove Temporary Chemist (demo)' }).click();
     await dialog.getByRole('button', { name: 'Remove member' }).click();
-    await page.getByRole('status').filter({ hasText: 'Temporary Chemist (demo) was removed' }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: 'Temporary Chemist (demo) was removed' })
+      .waitFor();
     await row.waitFor({ state: 'detached' });
-    await expect(Membership.count({ where: { userId: member.id, workspaceId: workspace.id } })).resolves.toBe(0);
+    await expect(
+      Membership.count({ where: { userId: member.id, workspaceId: workspace.id } }),
+    ).resolves.toBe(0);
     await signOut();
     expect(flows.browser.problems).toEqual([]);
   });

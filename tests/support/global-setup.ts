@@ -20,8 +20,14 @@ function answers(host: string, tcpPort: number): Promise<boolean> {
   return new Promise((resolve) => {
     const socket = net.connect({ host, port: tcpPort });
     socket.setTimeout(1_000);
-    socket.once('connect', () => { socket.destroy(); resolve(true); });
-    socket.once('timeout', () => { socket.destroy(); resolve(false); });
+    socket.once('connect', () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once('timeout', () => {
+      socket.destroy();
+      resolve(false);
+    });
     socket.once('error', () => resolve(false));
   });
 }
@@ -51,7 +57,9 @@ async function adminQuery(sql: string): Promise<void> {
 export default async function setup(project: TestProject) {
   let startedCluster = false;
   if (!(await answers('127.0.0.1', port))) {
-    clusterScript(`pg_up pg-test ${port} "-c fsync=off -c synchronous_commit=off -c max_connections=200"`);
+    clusterScript(
+      `pg_up pg-test ${port} "-c fsync=off -c synchronous_commit=off -c max_connections=200"`,
+    );
     startedCluster = true;
   }
   const databaseName = `phasewright_test_${process.pid}_${randomBytes(4).toString('hex')}`;

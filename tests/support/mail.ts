@@ -13,7 +13,10 @@ export async function waitForMail(
   const deadline = Date.now() + (options.timeoutMs ?? 20_000);
   for (;;) {
     const messages = await OutboxMessage.findAll({
-      where: { to: { [Op.iLike]: `%${to}%` }, ...(options.after ? { receivedAt: { [Op.gte]: options.after } } : {}) },
+      where: {
+        to: { [Op.iLike]: `%${to}%` },
+        ...(options.after ? { receivedAt: { [Op.gte]: options.after } } : {}),
+      },
       order: [['receivedAt', 'DESC']],
     });
     const match = messages.find((m) => !options.subject || options.subject.test(m.subject));

@@ -12,9 +12,19 @@
 import type { AqueousSoluteRecord } from './types';
 import { derived, recalled, sv } from './solvents/common';
 
-const FORMULA = (f: string) => derived('iupac-atomic-weights', `computed from ${f} with conventional standard atomic weights`);
-const DENSITY = recalled('crc-concentrative-properties', 'points at 20 °C; the 0 wt % point is water (0.9982 g/mL, IAPWS-95, recalled)');
-const CARBONIC = sv([6.35, 10.33], recalled('crc-dissociation-constants', 'carbonic acid pKa1 (H2CO3*/HCO3−) and pKa2 (HCO3−/CO3 2−), 25 °C'));
+const FORMULA = (f: string) =>
+  derived('iupac-atomic-weights', `computed from ${f} with conventional standard atomic weights`);
+const DENSITY = recalled(
+  'crc-concentrative-properties',
+  'points at 20 °C; the 0 wt % point is water (0.9982 g/mL, IAPWS-95, recalled)',
+);
+const CARBONIC = sv(
+  [6.35, 10.33],
+  recalled(
+    'crc-dissociation-constants',
+    'carbonic acid pKa1 (H2CO3*/HCO3−) and pKa2 (HCO3−/CO3 2−), 25 °C',
+  ),
+);
 
 export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
   {
@@ -27,15 +37,30 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     acidBase: { kind: 'neutral' },
     densityPoints: sv<Array<[number, number]>>(
       [
-        [0, 0.9982], [1, 1.0053], [2, 1.0125], [4, 1.0268], [6, 1.0413], [8, 1.0559], [10, 1.0707],
-        [12, 1.0857], [14, 1.1009], [16, 1.1162], [18, 1.1319], [20, 1.1478], [22, 1.164], [24, 1.1804],
+        [0, 0.9982],
+        [1, 1.0053],
+        [2, 1.0125],
+        [4, 1.0268],
+        [6, 1.0413],
+        [8, 1.0559],
+        [10, 1.0707],
+        [12, 1.0857],
+        [14, 1.1009],
+        [16, 1.1162],
+        [18, 1.1319],
+        [20, 1.1478],
+        [22, 1.164],
+        [24, 1.1804],
         [26, 1.1972],
       ],
       DENSITY,
     ),
     setschenowKs: sv(
       0.2,
-      recalled('setschenow-review-memory', 'typical magnitude for small neutral organic solutes in NaCl (about 0.15–0.3 L/mol); measured values should override'),
+      recalled(
+        'setschenow-review-memory',
+        'typical magnitude for small neutral organic solutes in NaCl (about 0.15–0.3 L/mol); measured values should override',
+      ),
     ),
     maxWtPct: 26.4, // saturated at 20 °C (35.9 g/100 g water; recalled, CRC aqueous solubility table)
   },
@@ -48,7 +73,14 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     molarMassGmol: sv(84.006, FORMULA('NaHCO3')),
     acidBase: { kind: 'amphoteric-salt', pKa: CARBONIC },
     densityPoints: sv<Array<[number, number]>>(
-      [[0, 0.9982], [1, 1.0054], [2, 1.0127], [4, 1.0274], [6, 1.0422], [8, 1.0571]],
+      [
+        [0, 0.9982],
+        [1, 1.0054],
+        [2, 1.0127],
+        [4, 1.0274],
+        [6, 1.0422],
+        [8, 1.0571],
+      ],
       DENSITY,
     ),
     maxWtPct: 8.7, // saturated at 20 °C (9.6 g/100 g water; recalled)
@@ -63,8 +95,16 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     acidBase: { kind: 'weak-base', pKa: CARBONIC },
     densityPoints: sv<Array<[number, number]>>(
       [
-        [0, 0.9982], [1, 1.0086], [2, 1.019], [4, 1.0398], [6, 1.0606], [8, 1.0816], [10, 1.1029],
-        [12, 1.1244], [14, 1.1463], [16, 1.1682],
+        [0, 0.9982],
+        [1, 1.0086],
+        [2, 1.019],
+        [4, 1.0398],
+        [6, 1.0606],
+        [8, 1.0816],
+        [10, 1.1029],
+        [12, 1.1244],
+        [14, 1.1463],
+        [16, 1.1682],
       ],
       DENSITY,
     ),
@@ -79,7 +119,18 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     molarMassGmol: sv(138.204, FORMULA('K2CO3')),
     acidBase: { kind: 'weak-base', pKa: CARBONIC },
     densityPoints: sv<Array<[number, number]>>(
-      [[0, 0.9982], [2, 1.0164], [4, 1.0348], [6, 1.0534], [8, 1.0722], [10, 1.0904], [20, 1.1898], [30, 1.2979], [40, 1.4141], [50, 1.5404]],
+      [
+        [0, 0.9982],
+        [2, 1.0164],
+        [4, 1.0348],
+        [6, 1.0534],
+        [8, 1.0722],
+        [10, 1.0904],
+        [20, 1.1898],
+        [30, 1.2979],
+        [40, 1.4141],
+        [50, 1.5404],
+      ],
       DENSITY,
     ),
     maxWtPct: 52.5, // saturated at 20 °C (111 g/100 g water; recalled)
@@ -94,8 +145,20 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     acidBase: { kind: 'strong-base', hydroxides: 1 },
     densityPoints: sv<Array<[number, number]>>(
       [
-        [0, 0.9982], [1, 1.0095], [2, 1.0207], [4, 1.0428], [6, 1.0648], [8, 1.0869], [10, 1.1089],
-        [12, 1.1309], [14, 1.153], [16, 1.1751], [20, 1.2191], [24, 1.2629], [30, 1.3279], [40, 1.43],
+        [0, 0.9982],
+        [1, 1.0095],
+        [2, 1.0207],
+        [4, 1.0428],
+        [6, 1.0648],
+        [8, 1.0869],
+        [10, 1.1089],
+        [12, 1.1309],
+        [14, 1.153],
+        [16, 1.1751],
+        [20, 1.2191],
+        [24, 1.2629],
+        [30, 1.3279],
+        [40, 1.43],
         [50, 1.5253],
       ],
       DENSITY,
@@ -112,8 +175,20 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     acidBase: { kind: 'strong-acid', protons: 1 },
     densityPoints: sv<Array<[number, number]>>(
       [
-        [0, 0.9982], [1, 1.0032], [2, 1.0082], [4, 1.0181], [6, 1.0279], [8, 1.0376], [10, 1.0474],
-        [12, 1.0574], [14, 1.0675], [16, 1.0776], [20, 1.098], [24, 1.1187], [30, 1.1493], [36, 1.1789],
+        [0, 0.9982],
+        [1, 1.0032],
+        [2, 1.0082],
+        [4, 1.0181],
+        [6, 1.0279],
+        [8, 1.0376],
+        [10, 1.0474],
+        [12, 1.0574],
+        [14, 1.0675],
+        [16, 1.0776],
+        [20, 1.098],
+        [24, 1.1187],
+        [30, 1.1493],
+        [36, 1.1789],
       ],
       DENSITY,
     ),
@@ -131,7 +206,18 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
       pKa: sv([3.13, 4.76, 6.4], recalled('crc-dissociation-constants', 'pKa1–pKa3 at 25 °C')),
     },
     densityPoints: sv<Array<[number, number]>>(
-      [[0, 0.9982], [2, 1.0057], [4, 1.0132], [6, 1.0209], [8, 1.0287], [10, 1.0367], [20, 1.0793], [30, 1.1257], [40, 1.176], [50, 1.2306]],
+      [
+        [0, 0.9982],
+        [2, 1.0057],
+        [4, 1.0132],
+        [6, 1.0209],
+        [8, 1.0287],
+        [10, 1.0367],
+        [20, 1.0793],
+        [30, 1.1257],
+        [40, 1.176],
+        [50, 1.2306],
+      ],
       DENSITY,
     ),
     maxWtPct: 59, // saturated at 20 °C (about 147 g/100 g water; recalled)
@@ -143,9 +229,24 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     smiles: '[NH4+].[Cl-]',
     cas: '12125-02-9',
     molarMassGmol: sv(53.489, FORMULA('NH4Cl')),
-    acidBase: { kind: 'weak-acid', pKa: sv([9.25], recalled('crc-dissociation-constants', 'NH4+ at 25 °C')) },
+    acidBase: {
+      kind: 'weak-acid',
+      pKa: sv([9.25], recalled('crc-dissociation-constants', 'NH4+ at 25 °C')),
+    },
     densityPoints: sv<Array<[number, number]>>(
-      [[0, 0.9982], [1, 1.0013], [2, 1.0045], [4, 1.0107], [6, 1.0168], [8, 1.0227], [10, 1.0286], [12, 1.0344], [16, 1.0457], [20, 1.0567], [24, 1.0674]],
+      [
+        [0, 0.9982],
+        [1, 1.0013],
+        [2, 1.0045],
+        [4, 1.0107],
+        [6, 1.0168],
+        [8, 1.0227],
+        [10, 1.0286],
+        [12, 1.0344],
+        [16, 1.0457],
+        [20, 1.0567],
+        [24, 1.0674],
+      ],
       DENSITY,
     ),
     maxWtPct: 27.1, // saturated at 20 °C (37.2 g/100 g water; recalled)

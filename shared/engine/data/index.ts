@@ -105,7 +105,10 @@ for (const s of SOLVENTS) {
 const aqueousById = new Map<string, AqueousSoluteRecord>(AQUEOUS_SOLUTES.map((a) => [a.id, a]));
 
 function normaliseName(name: string): string {
-  return name.trim().toLowerCase().replace(/[\s_]+/g, ' ');
+  return name
+    .trim()
+    .toLowerCase()
+    .replace(/[\s_]+/g, ' ');
 }
 
 /** Normalise a SMILES string for the string match: trims and drops whitespace. */

@@ -49,7 +49,8 @@ export const SOURCES = {
     via: 'CalebBell/chemicals: chemicals/Viscosity/Table 2-313 Viscosity of Inorganic and Organic Liquids.tsv (columns C1–C5, Tmin, Tmax in K)',
   },
   'crc-enthalpy-vaporization': {
-    citation: 'CRC Handbook of Chemistry and Physics, "Enthalpy of Vaporization" (ΔvapH at the normal boiling point)',
+    citation:
+      'CRC Handbook of Chemistry and Physics, "Enthalpy of Vaporization" (ΔvapH at the normal boiling point)',
     via: 'CalebBell/chemicals: chemicals/Phase Change/CRC Handbook Heat of Vaporization.tsv (column HvapTb, J/mol)',
   },
   'poling-5e-antoine': {
@@ -64,11 +65,13 @@ export const SOURCES = {
     url: 'https://webbook.nist.gov/chemistry/',
   },
   'nist-webbook-constants': {
-    citation: 'NIST Chemistry WebBook, NIST Standard Reference Database 69, phase-change data (melting point)',
+    citation:
+      'NIST Chemistry WebBook, NIST Standard Reference Database 69, phase-change data (melting point)',
     via: 'CalebBell/chemicals: chemicals/Misc/webbook_constants.tsv (column Tm, K)',
   },
   'nist-webbook-dmso-page': {
-    citation: 'NIST Chemistry WebBook Antoine set for dimethyl sulfoxide, 293–323 K, as quoted on a public page',
+    citation:
+      'NIST Chemistry WebBook Antoine set for dimethyl sulfoxide, 293–323 K, as quoted on a public page',
     url: 'https://vacuu-lan.com/vapor-pressure-estimates-antoine-equation/',
   },
   'landolt-iv20-antoine': {
@@ -92,11 +95,12 @@ export const SOURCES = {
   },
   'hansen-hspipy': {
     citation:
-      'Hansen solubility parameters after C. M. Hansen, Hansen Solubility Parameters: A User\'s Handbook, 2nd ed., CRC Press, 2007 (attribution recalled), in the HSPiPy data set (A. Gutiérrez, github.com/Gnpd/HSPiPy)',
+      "Hansen solubility parameters after C. M. Hansen, Hansen Solubility Parameters: A User's Handbook, 2nd ed., CRC Press, 2007 (attribution recalled), in the HSPiPy data set (A. Gutiérrez, github.com/Gnpd/HSPiPy)",
     via: 'CalebBell/chemicals: chemicals/Misc/hspipy_hansen_solubility_parameters.tsv (Pa^0.5)',
   },
   'hansen-schrier': {
-    citation: 'J. Schrier, Hansen solubility parameters, Wolfram Data Repository, 2020 (derived from Hansen\'s tables)',
+    citation:
+      "J. Schrier, Hansen solubility parameters, Wolfram Data Repository, 2020 (derived from Hansen's tables)",
     via: 'CalebBell/chemicals: chemicals/Misc/schrier_hansen_solubility_parameters.tsv (Pa^0.5)',
   },
   'hansen-diaz-2022': {
@@ -120,7 +124,8 @@ export const SOURCES = {
     url: 'https://jcannabisresearch.biomedcentral.com/articles/10.1186/s42238-022-00130-3/tables/1',
   },
   'caslab-class3': {
-    citation: 'ALS Environmental / caslab, "USP Class 3 Residual Solvents List" (ICH Q3C Class 3) — secondary source',
+    citation:
+      'ALS Environmental / caslab, "USP Class 3 Residual Solvents List" (ICH Q3C Class 3) — secondary source',
     url: 'http://www.caslab.com/Class-3-Residual-Solvents/',
   },
   'chem21-guide-2016': {
@@ -148,15 +153,18 @@ export const SOURCES = {
     url: 'https://www.nationalacademies.org/read/21918/chapter/12',
   },
   'encyclopedia-isopropyl-acetate': {
-    citation: 'Isopropyl acetate, encyclopedia infobox (solubility in water 2.9 wt %, water in solvent 1.8 wt %, 20 °C) — weak secondary source',
+    citation:
+      'Isopropyl acetate, encyclopedia infobox (solubility in water 2.9 wt %, water in solvent 1.8 wt %, 20 °C) — weak secondary source',
     url: 'https://en.wikipedia.org/wiki/Isopropyl_acetate',
   },
   'encyclopedia-2-methyltetrahydrofuran': {
-    citation: '2-Methyltetrahydrofuran, encyclopedia infobox (mutual solubility with water vs temperature) — weak secondary source',
+    citation:
+      '2-Methyltetrahydrofuran, encyclopedia infobox (mutual solubility with water vs temperature) — weak secondary source',
     url: 'https://en.m.wikipedia.org./wiki/Methyltetrahydrofuran',
   },
   'encyclopedia-mibk': {
-    citation: 'Methyl isobutyl ketone, encyclopedia infobox, stored copies (solubility in water 1.91 g/100 mL, 20 °C) — weak secondary source',
+    citation:
+      'Methyl isobutyl ketone, encyclopedia infobox, stored copies (solubility in water 1.91 g/100 mL, 20 °C) — weak secondary source',
   },
   'mtbe-monograph-page': {
     citation:
@@ -164,11 +172,13 @@ export const SOURCES = {
     url: 'http://www.druglead.com/cds/Methyl-tert-Butyl-Ether.html',
   },
   'etoac-solubility-page': {
-    citation: 'Ethyl acetate article ("dissolves up to 3 % water … solubility of 8 % in water at room temperature") — weak secondary source',
+    citation:
+      'Ethyl acetate article ("dissolves up to 3 % water … solubility of 8 % in water at room temperature") — weak secondary source',
     url: 'http://www.fact-archive.com/encyclopedia/Ethyl_acetate',
   },
   'dcm-solubility-page': {
-    citation: 'Dichloromethane data page (solubility in water 17.5 g/L at 25 °C, encyclopedia-derived) — weak secondary source',
+    citation:
+      'Dichloromethane data page (solubility in water 17.5 g/L at 25 °C, encyclopedia-derived) — weak secondary source',
     url: 'https://sparxoversea.com/product/dichloromethane.html',
   },
   'toluene-solubility-page': {
@@ -178,7 +188,8 @@ export const SOURCES = {
 
   // --- Derived values ----------------------------------------------------------
   'iupac-atomic-weights': {
-    citation: 'IUPAC Commission on Isotopic Abundances and Atomic Weights, conventional standard atomic weights (C 12.011, H 1.008, N 14.007, O 15.999, S 32.06, Cl 35.45, Na 22.990, K 39.098)',
+    citation:
+      'IUPAC Commission on Isotopic Abundances and Atomic Weights, conventional standard atomic weights (C 12.011, H 1.008, N 14.007, O 15.999, S 32.06, Cl 35.45, Na 22.990, K 39.098)',
   },
   'derived-quantity': {
     citation: 'Computed in this library from other tabulated values (the note says how)',
@@ -186,10 +197,12 @@ export const SOURCES = {
 
   // --- Values recalled, not read (status 'unverified-memory') -----------------
   'iapws-95': {
-    citation: 'IAPWS-95 formulation for water (W. Wagner, A. Pruß, J. Phys. Chem. Ref. Data 2002, 31, 387) — values recalled, not read',
+    citation:
+      'IAPWS-95 formulation for water (W. Wagner, A. Pruß, J. Phys. Chem. Ref. Data 2002, 31, 387) — values recalled, not read',
   },
   'crc-viscosity-liquids': {
-    citation: 'CRC Handbook of Chemistry and Physics, "Viscosity of Liquids" (25 °C) — values recalled, not read',
+    citation:
+      'CRC Handbook of Chemistry and Physics, "Viscosity of Liquids" (25 °C) — values recalled, not read',
   },
   'crc-dissociation-constants': {
     citation:
@@ -200,23 +213,28 @@ export const SOURCES = {
       'CRC Handbook of Chemistry and Physics, "Concentrative Properties of Aqueous Solutions: Density, Refractive Index, Freezing Point Depression, and Viscosity" (20 °C) — values recalled, not read',
   },
   'crc-aqueous-solubility-inorganic': {
-    citation: 'CRC Handbook of Chemistry and Physics, "Aqueous Solubility of Inorganic Compounds at Various Temperatures" — values recalled, not read',
+    citation:
+      'CRC Handbook of Chemistry and Physics, "Aqueous Solubility of Inorganic Compounds at Various Temperatures" — values recalled, not read',
   },
   'setschenow-review-memory': {
     citation:
       'W.-H. Xie, W.-Y. Shiu, D. Mackay, "A review of the effect of salts on the solubility of organic compounds in seawater", Mar. Environ. Res. 1997, 44, 429–444 — typical magnitudes recalled, not read',
   },
   'melting-point-memory': {
-    citation: 'Melting point recalled by the data author from the usual handbooks (CRC Handbook, supplier data sheets); not read for this library — verify',
+    citation:
+      'Melting point recalled by the data author from the usual handbooks (CRC Handbook, supplier data sheets); not read for this library — verify',
   },
   'boiling-point-memory': {
-    citation: 'Normal boiling point recalled by the data author from the usual handbooks; not read for this library — verify',
+    citation:
+      'Normal boiling point recalled by the data author from the usual handbooks; not read for this library — verify',
   },
   'density-memory': {
-    citation: 'Density recalled by the data author from the usual handbooks and supplier data sheets; not read for this library — verify',
+    citation:
+      'Density recalled by the data author from the usual handbooks and supplier data sheets; not read for this library — verify',
   },
   'flash-point-memory': {
-    citation: 'Closed-cup flash point recalled by the data author from safety data sheets and handbooks; not read for this library — verify',
+    citation:
+      'Closed-cup flash point recalled by the data author from safety data sheets and handbooks; not read for this library — verify',
   },
   'mutual-solubility-memory': {
     citation:

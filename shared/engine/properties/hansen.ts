@@ -25,7 +25,11 @@ function assertParams(x: HansenParams, label: string): void {
   for (const k of ['d', 'p', 'h'] as const) {
     const v = x[k];
     if (!Number.isFinite(v) || v < 0) {
-      throw new EngineError('invalid-input', `Hansen parameter δ${k.toUpperCase()} of ${label} must be a finite number ≥ 0 MPa^0.5 (got ${v}).`, { label, component: k, value: v });
+      throw new EngineError(
+        'invalid-input',
+        `Hansen parameter δ${k.toUpperCase()} of ${label} must be a finite number ≥ 0 MPa^0.5 (got ${v}).`,
+        { label, component: k, value: v },
+      );
     }
   }
 }
@@ -70,7 +74,11 @@ export function hansenDistance(a: HansenParams, b: HansenParams): number {
  */
 export function relativeEnergyDifference(a: HansenParams, b: HansenParams, R0: number): number {
   if (!Number.isFinite(R0) || R0 <= 0) {
-    throw new EngineError('invalid-input', `The interaction radius R0 must be a positive number of MPa^0.5 (got ${R0}).`, { R0 });
+    throw new EngineError(
+      'invalid-input',
+      `The interaction radius R0 must be a positive number of MPa^0.5 (got ${R0}).`,
+      { R0 },
+    );
   }
   return hansenDistance(a, b) / R0;
 }
@@ -93,7 +101,9 @@ export function relativeEnergyDifference(a: HansenParams, b: HansenParams, R0: n
  * Example: 50/50 by volume of toluene (18.0, 1.4, 2.0) and ethanol
  * (15.8, 8.8, 19.4) → (16.9, 5.1, 10.7).
  */
-export function mixtureHansen(parts: Array<{ params: HansenParams; volumeFraction: number }>): HansenParams {
+export function mixtureHansen(
+  parts: Array<{ params: HansenParams; volumeFraction: number }>,
+): HansenParams {
   if (parts.length === 0) {
     throw new EngineError('invalid-input', 'A blend needs at least one part.', {});
   }
@@ -105,7 +115,11 @@ export function mixtureHansen(parts: Array<{ params: HansenParams; volumeFractio
     assertParams(part.params, `part ${i + 1}`);
     const phi = part.volumeFraction;
     if (!Number.isFinite(phi) || phi < 0) {
-      throw new EngineError('invalid-input', `Volume fraction of part ${i + 1} must be a finite number ≥ 0 (got ${phi}).`, { index: i, value: phi });
+      throw new EngineError(
+        'invalid-input',
+        `Volume fraction of part ${i + 1} must be a finite number ≥ 0 (got ${phi}).`,
+        { index: i, value: phi },
+      );
     }
     sum += phi;
     d += phi * part.params.d;

@@ -2,4 +2,12 @@
 export * from './hansen';
 export * from './solubility';
 export * from './partition';
-export { gammaInfiniteDilution, OCTANOL_GROUPS, WATER_GROUPS, X_OCTANOL_IN_AQUEOUS, X_OCTANOL_IN_ORGANIC, V_OCTANOL_M3MOL, V_WATER_M3MOL } from './logp';
+export {
+  gammaInfiniteDilution,
+  OCTANOL_GROUPS,
+  WATER_GROUPS,
+  X_OCTANOL_IN_AQUEOUS,
+  X_OCTANOL_IN_ORGANIC,
+  V_OCTANOL_M3MOL,
+  V_WATER_M3MOL,
+} from './logp';

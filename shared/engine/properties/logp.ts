@@ -34,9 +34,9 @@ export const X_OCTANOL_IN_ORGANIC = 0.742;
 export const X_OCTANOL_IN_AQUEOUS = 7.5e-5;
 
 /** Molar volume of water at 25 °C [m³/mol] (18.015 g/mol, 0.99705 g/mL; density from memory). */
-export const V_WATER_M3MOL = 18.015 / 0.99705 * 1e-6;
+export const V_WATER_M3MOL = (18.015 / 0.99705) * 1e-6;
 /** Molar volume of 1-octanol at 20 °C [m³/mol] (130.23 g/mol, 0.8262 g/mL; density from memory). */
-export const V_OCTANOL_M3MOL = 130.23 / 0.8262 * 1e-6;
+export const V_OCTANOL_M3MOL = (130.23 / 0.8262) * 1e-6;
 
 /** Solute mole fraction used for "infinite dilution" [-]; its effect on γ is below 1e−6 relative. */
 export const INFINITE_DILUTION_X = 1e-9;
@@ -51,13 +51,27 @@ export const INFINITE_DILUTION_X = 1e-9;
  * @param models optional cache of UNIFAC models (same numbers; the model is built once per mixture)
  * @returns γ∞ [-]
  */
-export function gammaInfiniteDilution(soluteGroups: UnifacGroups, groups: UnifacGroups[], moleFractions: number[], T_K: number, models?: UnifacModelCache): number {
+export function gammaInfiniteDilution(
+  soluteGroups: UnifacGroups,
+  groups: UnifacGroups[],
+  moleFractions: number[],
+  T_K: number,
+  models?: UnifacModelCache,
+): number {
   if (groups.length === 0 || groups.length !== moleFractions.length) {
-    throw new EngineError('invalid-input', 'Give one mole fraction for each solvent of a phase (at least one).', { groups: groups.length, fractions: moleFractions.length });
+    throw new EngineError(
+      'invalid-input',
+      'Give one mole fraction for each solvent of a phase (at least one).',
+      { groups: groups.length, fractions: moleFractions.length },
+    );
   }
   const s = moleFractions.reduce((a, b) => a + b, 0);
   if (!moleFractions.every((z) => Number.isFinite(z) && z >= 0) || Math.abs(s - 1) > 1e-6) {
-    throw new EngineError('invalid-input', `Phase mole fractions must be ≥ 0 and sum to 1 (sum = ${s}).`, { sum: s });
+    throw new EngineError(
+      'invalid-input',
+      `Phase mole fractions must be ≥ 0 and sum to 1 (sum = ${s}).`,
+      { sum: s },
+    );
   }
   const x = INFINITE_DILUTION_X;
   const xs = [x, ...moleFractions.map((z) => (1 - x) * z)];
@@ -83,25 +97,49 @@ export function gammaInfiniteDilution(soluteGroups: UnifacGroups, groups: Unifac
  *
  * Example: benzene {9: 6} → logP ≈ 2.1–2.3 (measured 2.13).
  */
-export function estimateLogPow(soluteGroups: UnifacGroups, T_K = 298.15): { logP: number; method: string; warnings: string[] } {
+export function estimateLogPow(
+  soluteGroups: UnifacGroups,
+  T_K = 298.15,
+): { logP: number; method: string; warnings: string[] } {
   if (!Number.isFinite(T_K) || T_K <= 0) {
-    throw new EngineError('invalid-input', `Temperature must be a positive number of kelvin (got ${T_K}).`, { T_K });
+    throw new EngineError(
+      'invalid-input',
+      `Temperature must be a positive number of kelvin (got ${T_K}).`,
+      { T_K },
+    );
   }
-  const warnings: string[] = ['Estimate from UNIFAC (VLE parameters) γ∞ in mutually saturated octanol/water; typical error 0.3–1 log unit, larger for multifunctional solutes.'];
+  const warnings: string[] = [
+    'Estimate from UNIFAC (VLE parameters) γ∞ in mutually saturated octanol/water; typical error 0.3–1 log unit, larger for multifunctional solutes.',
+  ];
   if (Math.abs(T_K - 298.15) > 10) {
-    warnings.push(`Octanol/water phase compositions are those at 298 K; ${T_K.toFixed(1)} K is far from it.`);
+    warnings.push(
+      `Octanol/water phase compositions are those at 298 K; ${T_K.toFixed(1)} K is far from it.`,
+    );
   }
   if (T_K < 275 || T_K > 425) {
-    warnings.push(`UNIFAC parameters were fitted at about 275–425 K; ${T_K.toFixed(1)} K is outside.`);
+    warnings.push(
+      `UNIFAC parameters were fitted at about 275–425 K; ${T_K.toFixed(1)} K is outside.`,
+    );
   }
-  const gOrg = gammaInfiniteDilution(soluteGroups, [OCTANOL_GROUPS, WATER_GROUPS], [X_OCTANOL_IN_ORGANIC, 1 - X_OCTANOL_IN_ORGANIC], T_K);
-  const gAq = gammaInfiniteDilution(soluteGroups, [OCTANOL_GROUPS, WATER_GROUPS], [X_OCTANOL_IN_AQUEOUS, 1 - X_OCTANOL_IN_AQUEOUS], T_K);
+  const gOrg = gammaInfiniteDilution(
+    soluteGroups,
+    [OCTANOL_GROUPS, WATER_GROUPS],
+    [X_OCTANOL_IN_ORGANIC, 1 - X_OCTANOL_IN_ORGANIC],
+    T_K,
+  );
+  const gAq = gammaInfiniteDilution(
+    soluteGroups,
+    [OCTANOL_GROUPS, WATER_GROUPS],
+    [X_OCTANOL_IN_AQUEOUS, 1 - X_OCTANOL_IN_AQUEOUS],
+    T_K,
+  );
   const vOrg = X_OCTANOL_IN_ORGANIC * V_OCTANOL_M3MOL + (1 - X_OCTANOL_IN_ORGANIC) * V_WATER_M3MOL;
   const vAq = X_OCTANOL_IN_AQUEOUS * V_OCTANOL_M3MOL + (1 - X_OCTANOL_IN_AQUEOUS) * V_WATER_M3MOL;
   const logP = Math.log10(gAq / gOrg) + Math.log10(vAq / vOrg);
   return {
     logP,
-    method: 'UNIFAC γ∞ in water-saturated 1-octanol vs octanol-saturated water (IUPAC–NIST phase compositions, 298 K), converted to molar concentrations',
+    method:
+      'UNIFAC γ∞ in water-saturated 1-octanol vs octanol-saturated water (IUPAC–NIST phase compositions, 298 K), converted to molar concentrations',
     warnings,
   };
 }

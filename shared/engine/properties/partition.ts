@@ -27,11 +27,17 @@ export type PKa = { value: number; type: 'acid' | 'base' };
 
 function checkPKa(pKa: readonly PKa[], pH: number): void {
   if (!Number.isFinite(pH) || pH < -2 || pH > 16) {
-    throw new EngineError('invalid-input', `pH must be a number between −2 and 16 (got ${pH}).`, { pH });
+    throw new EngineError('invalid-input', `pH must be a number between −2 and 16 (got ${pH}).`, {
+      pH,
+    });
   }
   for (const s of pKa) {
     if (!Number.isFinite(s.value) || (s.type !== 'acid' && s.type !== 'base')) {
-      throw new EngineError('invalid-input', `A pKa needs a finite value and type 'acid' or 'base' (got ${JSON.stringify(s)}).`, { site: s });
+      throw new EngineError(
+        'invalid-input',
+        `A pKa needs a finite value and type 'acid' or 'base' (got ${JSON.stringify(s)}).`,
+        { site: s },
+      );
     }
   }
 }
@@ -59,7 +65,10 @@ export function neutralFraction(pKa: readonly PKa[], pH: number): number {
   checkPKa(pKa, pH);
   let f = 1;
   for (const s of pKa) {
-    f *= s.type === 'acid' ? 1 / (1 + Math.pow(10, pH - s.value)) : 1 / (1 + Math.pow(10, s.value - pH));
+    f *=
+      s.type === 'acid'
+        ? 1 / (1 + Math.pow(10, pH - s.value))
+        : 1 / (1 + Math.pow(10, s.value - pH));
   }
   return f;
 }
@@ -78,7 +87,10 @@ export function neutralFraction(pKa: readonly PKa[], pH: number): number {
  * Example: benzoic acid log P 1.88, pH 7 → 1.88 − 2.80 = −0.92.
  */
 export function logDFromLogP(logP: number, pKa: readonly PKa[], pH: number): number {
-  if (!Number.isFinite(logP)) throw new EngineError('invalid-input', `log P must be a finite number (got ${logP}).`, { logP });
+  if (!Number.isFinite(logP))
+    throw new EngineError('invalid-input', `log P must be a finite number (got ${logP}).`, {
+      logP,
+    });
   return logP + Math.log10(neutralFraction(pKa, pH));
 }
 
@@ -103,12 +115,20 @@ const COLLANDER_FALLBACK = { a: 1, b: 0 };
  *
  * Example: diethyl ether, log P 1.88 → 1.13·1.88 − 0.17 = 1.95.
  */
-export function collanderLogK(logPow: number, organicSolventId: string): { logK: number; a: number; b: number; source: Source; warnings: string[] } {
-  if (!Number.isFinite(logPow)) throw new EngineError('invalid-input', `log P must be a finite number (got ${logPow}).`, { logPow });
+export function collanderLogK(
+  logPow: number,
+  organicSolventId: string,
+): { logK: number; a: number; b: number; source: Source; warnings: string[] } {
+  if (!Number.isFinite(logPow))
+    throw new EngineError('invalid-input', `log P must be a finite number (got ${logPow}).`, {
+      logPow,
+    });
   const warnings: string[] = [];
   const entry = COLLANDER[organicSolventId];
   if (!entry) {
-    warnings.push(`No published Collander coefficients for '${organicSolventId}': log K taken equal to octanol/water log P (a = 1, b = 0), a rough guess.`);
+    warnings.push(
+      `No published Collander coefficients for '${organicSolventId}': log K taken equal to octanol/water log P (a = 1, b = 0), a rough guess.`,
+    );
     return {
       logK: COLLANDER_FALLBACK.a * logPow + COLLANDER_FALLBACK.b,
       ...COLLANDER_FALLBACK,
@@ -117,15 +137,27 @@ export function collanderLogK(logPow: number, organicSolventId: string): { logK:
     };
   }
   if (entry.source.status === 'unverified-memory') {
-    warnings.push(`Collander coefficients for '${organicSolventId}' are from memory (${entry.source.ref}); verify.`);
+    warnings.push(
+      `Collander coefficients for '${organicSolventId}' are from memory (${entry.source.ref}); verify.`,
+    );
   }
   if (entry.soluteClass === 'h-bond-donors') {
-    warnings.push(`The '${organicSolventId}' equation was fitted on H-bond-donor solutes; acceptors deviate.`);
+    warnings.push(
+      `The '${organicSolventId}' equation was fitted on H-bond-donor solutes; acceptors deviate.`,
+    );
   }
   if (logPow < -1 || logPow > 5) {
-    warnings.push(`log P ${logPow.toFixed(2)} is outside the usual range of the regressions (−1 … 5).`);
+    warnings.push(
+      `log P ${logPow.toFixed(2)} is outside the usual range of the regressions (−1 … 5).`,
+    );
   }
-  return { logK: entry.a * logPow + entry.b, a: entry.a, b: entry.b, source: entry.source, warnings };
+  return {
+    logK: entry.a * logPow + entry.b,
+    a: entry.a,
+    b: entry.b,
+    source: entry.source,
+    warnings,
+  };
 }
 
 /**
@@ -145,8 +177,18 @@ export function collanderLogK(logPow: number, organicSolventId: string): { logK:
  * Example: benzene in NaCl, ks ≈ 0.195 L/mol, 1 M → 10^0.195 = 1.567.
  */
 export function setschenowFactor(ks_Lmol: number, saltMolar: number): number {
-  if (!Number.isFinite(ks_Lmol)) throw new EngineError('invalid-input', `ks must be a finite number of L/mol (got ${ks_Lmol}).`, { ks_Lmol });
-  if (!Number.isFinite(saltMolar) || saltMolar < 0) throw new EngineError('invalid-input', `Salt concentration must be ≥ 0 mol/L (got ${saltMolar}).`, { saltMolar });
+  if (!Number.isFinite(ks_Lmol))
+    throw new EngineError(
+      'invalid-input',
+      `ks must be a finite number of L/mol (got ${ks_Lmol}).`,
+      { ks_Lmol },
+    );
+  if (!Number.isFinite(saltMolar) || saltMolar < 0)
+    throw new EngineError(
+      'invalid-input',
+      `Salt concentration must be ≥ 0 mol/L (got ${saltMolar}).`,
+      { saltMolar },
+    );
   return Math.pow(10, ks_Lmol * saltMolar);
 }
 
@@ -176,18 +218,53 @@ export interface PhaseSpec {
  * coefficients from it are typically within a factor 3 (0.5 log) for
  * simple solutes, worse for multifunctional ones. 275–425 K.
  */
-export function partitionByActivity(input: { soluteGroups: UnifacGroups; organic: PhaseSpec; aqueous: PhaseSpec; T_K: number; models?: UnifacModelCache }): { Kx: number; Kc: number; gammaOrganic: number; gammaAqueous: number; warnings: string[] } {
+export function partitionByActivity(input: {
+  soluteGroups: UnifacGroups;
+  organic: PhaseSpec;
+  aqueous: PhaseSpec;
+  T_K: number;
+  models?: UnifacModelCache;
+}): { Kx: number; Kc: number; gammaOrganic: number; gammaAqueous: number; warnings: string[] } {
   const { soluteGroups, organic, aqueous, T_K } = input;
-  if (!Number.isFinite(T_K) || T_K <= 0) throw new EngineError('invalid-input', `Temperature must be a positive number of kelvin (got ${T_K}).`, { T_K });
-  for (const [name, ph] of [['organic', organic], ['aqueous', aqueous]] as const) {
+  if (!Number.isFinite(T_K) || T_K <= 0)
+    throw new EngineError(
+      'invalid-input',
+      `Temperature must be a positive number of kelvin (got ${T_K}).`,
+      { T_K },
+    );
+  for (const [name, ph] of [
+    ['organic', organic],
+    ['aqueous', aqueous],
+  ] as const) {
     if (!Number.isFinite(ph.molarVolumeM3mol) || ph.molarVolumeM3mol <= 0) {
-      throw new EngineError('invalid-input', `Molar volume of the ${name} phase must be a positive number of m³/mol (got ${ph.molarVolumeM3mol}).`, { phase: name });
+      throw new EngineError(
+        'invalid-input',
+        `Molar volume of the ${name} phase must be a positive number of m³/mol (got ${ph.molarVolumeM3mol}).`,
+        { phase: name },
+      );
     }
   }
-  const warnings: string[] = ['Estimate from UNIFAC (VLE parameters) at infinite dilution; typical error about 0.5 log unit for simple solutes.'];
-  if (T_K < 275 || T_K > 425) warnings.push(`UNIFAC parameters were fitted at about 275–425 K; ${T_K.toFixed(1)} K is outside.`);
-  const gammaOrganic = gammaInfiniteDilution(soluteGroups, organic.groups, organic.moleFractions, T_K, input.models);
-  const gammaAqueous = gammaInfiniteDilution(soluteGroups, aqueous.groups, aqueous.moleFractions, T_K, input.models);
+  const warnings: string[] = [
+    'Estimate from UNIFAC (VLE parameters) at infinite dilution; typical error about 0.5 log unit for simple solutes.',
+  ];
+  if (T_K < 275 || T_K > 425)
+    warnings.push(
+      `UNIFAC parameters were fitted at about 275–425 K; ${T_K.toFixed(1)} K is outside.`,
+    );
+  const gammaOrganic = gammaInfiniteDilution(
+    soluteGroups,
+    organic.groups,
+    organic.moleFractions,
+    T_K,
+    input.models,
+  );
+  const gammaAqueous = gammaInfiniteDilution(
+    soluteGroups,
+    aqueous.groups,
+    aqueous.moleFractions,
+    T_K,
+    input.models,
+  );
   const Kx = gammaAqueous / gammaOrganic;
   const Kc = (Kx * aqueous.molarVolumeM3mol) / organic.molarVolumeM3mol;
   return { Kx, Kc, gammaOrganic, gammaAqueous, warnings };
@@ -198,10 +275,27 @@ export type DistributionInput = {
     logP?: number;
     pKa?: readonly PKa[];
     unifac?: UnifacGroups;
-    measured?: Array<{ organicSolventId: string; pH?: number; temperatureC?: number; D: number; source?: string }>;
+    measured?: Array<{
+      organicSolventId: string;
+      pH?: number;
+      temperatureC?: number;
+      D: number;
+      source?: string;
+    }>;
   };
-  organic: { solventId: string; groups?: UnifacGroups[]; moleFractions?: number[]; molarVolumeM3mol?: number };
-  aqueous: { pH?: number; salt?: { ks_Lmol: number; molar: number }; groups?: UnifacGroups[]; moleFractions?: number[]; molarVolumeM3mol?: number };
+  organic: {
+    solventId: string;
+    groups?: UnifacGroups[];
+    moleFractions?: number[];
+    molarVolumeM3mol?: number;
+  };
+  aqueous: {
+    pH?: number;
+    salt?: { ks_Lmol: number; molar: number };
+    groups?: UnifacGroups[];
+    moleFractions?: number[];
+    molarVolumeM3mol?: number;
+  };
   T_K: number;
   prefer?: 'activity' | 'collander';
   /** Optional cache of UNIFAC models for the activity estimate (same numbers, fewer model builds). */
@@ -220,7 +314,15 @@ export interface DistributionResult {
 
 function activityReady(input: DistributionInput): boolean {
   const { solute, organic, aqueous } = input;
-  return !!(solute.unifac && organic.groups && organic.moleFractions && organic.molarVolumeM3mol && aqueous.groups && aqueous.moleFractions && aqueous.molarVolumeM3mol);
+  return !!(
+    solute.unifac &&
+    organic.groups &&
+    organic.moleFractions &&
+    organic.molarVolumeM3mol &&
+    aqueous.groups &&
+    aqueous.moleFractions &&
+    aqueous.molarVolumeM3mol
+  );
 }
 
 /**
@@ -247,14 +349,22 @@ function activityReady(input: DistributionInput): boolean {
  */
 export function distributionRatio(input: DistributionInput): DistributionResult {
   const { solute, organic, aqueous, T_K } = input;
-  if (!Number.isFinite(T_K) || T_K <= 0) throw new EngineError('invalid-input', `Temperature must be a positive number of kelvin (got ${T_K}).`, { T_K });
+  if (!Number.isFinite(T_K) || T_K <= 0)
+    throw new EngineError(
+      'invalid-input',
+      `Temperature must be a positive number of kelvin (got ${T_K}).`,
+      { T_K },
+    );
   const warnings: string[] = [];
   const pKa = solute.pKa ?? [];
   const pH = aqueous.pH;
   if (pKa.length > 0 && pH === undefined) {
-    warnings.push('The solute is ionisable but no pH was given: the neutral form is assumed throughout.');
+    warnings.push(
+      'The solute is ionisable but no pH was given: the neutral form is assumed throughout.',
+    );
   }
-  const fn = (p: number | undefined): number => (p === undefined || pKa.length === 0 ? 1 : neutralFraction(pKa, p));
+  const fn = (p: number | undefined): number =>
+    p === undefined || pKa.length === 0 ? 1 : neutralFraction(pKa, p);
 
   const measured = (solute.measured ?? []).filter((m) => m.organicSolventId === organic.solventId);
   if (measured.length > 0) {
@@ -268,26 +378,49 @@ export function distributionRatio(input: DistributionInput): DistributionResult 
       return dt1 - dt2;
     });
     const m = ranked[0];
-    if (!Number.isFinite(m.D) || m.D <= 0) throw new EngineError('invalid-input', `A measured D must be a positive number (got ${m.D}).`, { D: m.D });
+    if (!Number.isFinite(m.D) || m.D <= 0)
+      throw new EngineError(
+        'invalid-input',
+        `A measured D must be a positive number (got ${m.D}).`,
+        { D: m.D },
+      );
     let D = m.D;
     const desc = `measured D = ${m.D} in ${m.organicSolventId}${m.pH !== undefined ? ` at pH ${m.pH}` : ''}${m.temperatureC !== undefined ? `, ${m.temperatureC} °C` : ''}`;
-    if (measured.length > 1) warnings.push(`Of ${measured.length} measurements the nearest in pH, then temperature, was used (${desc}).`);
+    if (measured.length > 1)
+      warnings.push(
+        `Of ${measured.length} measurements the nearest in pH, then temperature, was used (${desc}).`,
+      );
     if (m.pH !== undefined && pH !== undefined && m.pH !== pH) {
       if (pKa.length > 0) {
         D = D * (fn(pH) / fn(m.pH));
-        warnings.push(`Measured at pH ${m.pH}; shifted to pH ${pH} by Henderson–Hasselbalch with the given pKa.`);
+        warnings.push(
+          `Measured at pH ${m.pH}; shifted to pH ${pH} by Henderson–Hasselbalch with the given pKa.`,
+        );
       } else {
-        warnings.push(`Measured at pH ${m.pH}, requested pH ${pH}; no pKa given, so no pH correction.`);
+        warnings.push(
+          `Measured at pH ${m.pH}, requested pH ${pH}; no pKa given, so no pH correction.`,
+        );
       }
     }
     if (m.temperatureC !== undefined && Math.abs(m.temperatureC - tC) > 5) {
-      warnings.push(`Measured at ${m.temperatureC} °C, requested ${tC.toFixed(1)} °C; no temperature correction applied.`);
+      warnings.push(
+        `Measured at ${m.temperatureC} °C, requested ${tC.toFixed(1)} °C; no temperature correction applied.`,
+      );
     }
     if (aqueous.salt) {
       D *= setschenowFactor(aqueous.salt.ks_Lmol, aqueous.salt.molar);
-      warnings.push('Setschenow salting-out factor applied on top of the measured value (the measurement is taken as salt-free).');
+      warnings.push(
+        'Setschenow salting-out factor applied on top of the measured value (the measurement is taken as salt-free).',
+      );
     }
-    return { D, logD: Math.log10(D), basis: 'molar-concentration', method: 'measured', source: { ref: m.source ?? desc, status: 'confirmed', note: desc }, warnings };
+    return {
+      D,
+      logD: Math.log10(D),
+      basis: 'molar-concentration',
+      method: 'measured',
+      source: { ref: m.source ?? desc, status: 'confirmed', note: desc },
+      warnings,
+    };
   }
 
   const canActivity = activityReady(input);
@@ -295,15 +428,23 @@ export function distributionRatio(input: DistributionInput): DistributionResult 
   let useCollander: boolean;
   if (input.prefer === 'activity') {
     useCollander = !canActivity && canCollander;
-    if (useCollander) warnings.push('Activity-coefficient estimate preferred but UNIFAC groups, compositions or molar volumes are missing: Collander used.');
+    if (useCollander)
+      warnings.push(
+        'Activity-coefficient estimate preferred but UNIFAC groups, compositions or molar volumes are missing: Collander used.',
+      );
   } else if (input.prefer === 'collander') {
     useCollander = canCollander;
-    if (!useCollander && canActivity) warnings.push('Collander preferred but no log P given: UNIFAC activity coefficients used.');
+    if (!useCollander && canActivity)
+      warnings.push('Collander preferred but no log P given: UNIFAC activity coefficients used.');
   } else {
     useCollander = canCollander && (COLLANDER[organic.solventId] !== undefined || !canActivity);
   }
   if (!useCollander && !canActivity) {
-    throw new EngineError('invalid-input', 'Cannot estimate the partition: give a measured D, a log P, or UNIFAC groups with both phase compositions and molar volumes.', {});
+    throw new EngineError(
+      'invalid-input',
+      'Cannot estimate the partition: give a measured D, a log P, or UNIFAC groups with both phase compositions and molar volumes.',
+      {},
+    );
   }
 
   let K: number;
@@ -315,18 +456,32 @@ export function distributionRatio(input: DistributionInput): DistributionResult 
     method = 'Collander from logP';
     source = c.source;
     warnings.push(...c.warnings);
-    if (Math.abs(T_K - 298.15) > 10) warnings.push('Collander coefficients and log P refer to about 25 °C; no temperature correction applied.');
+    if (Math.abs(T_K - 298.15) > 10)
+      warnings.push(
+        'Collander coefficients and log P refer to about 25 °C; no temperature correction applied.',
+      );
   } else {
     const r = partitionByActivity({
       soluteGroups: solute.unifac as UnifacGroups,
-      organic: { groups: organic.groups as UnifacGroups[], moleFractions: organic.moleFractions as number[], molarVolumeM3mol: organic.molarVolumeM3mol as number },
-      aqueous: { groups: aqueous.groups as UnifacGroups[], moleFractions: aqueous.moleFractions as number[], molarVolumeM3mol: aqueous.molarVolumeM3mol as number },
+      organic: {
+        groups: organic.groups as UnifacGroups[],
+        moleFractions: organic.moleFractions as number[],
+        molarVolumeM3mol: organic.molarVolumeM3mol as number,
+      },
+      aqueous: {
+        groups: aqueous.groups as UnifacGroups[],
+        moleFractions: aqueous.moleFractions as number[],
+        molarVolumeM3mol: aqueous.molarVolumeM3mol as number,
+      },
       T_K,
       models: input.models,
     });
     K = r.Kc;
     method = 'activity-coefficients (UNIFAC)';
-    source = { ref: 'UNIFAC (Fredenslund et al. 1975; parameters Hansen et al. 1991)', status: 'estimated' };
+    source = {
+      ref: 'UNIFAC (Fredenslund et al. 1975; parameters Hansen et al. 1991)',
+      status: 'estimated',
+    };
     warnings.push(...r.warnings);
   }
   let D = K * fn(pH);

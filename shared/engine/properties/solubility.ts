@@ -24,10 +24,19 @@ import { activityCoefficients } from '../thermo/unifac';
 const UNIFAC_T_MIN_K = 275;
 const UNIFAC_T_MAX_K = 425;
 
-function assertFinite(value: number, name: string, unit: string, opts: { positive?: boolean; nonNegative?: boolean } = {}): void {
+function assertFinite(
+  value: number,
+  name: string,
+  unit: string,
+  opts: { positive?: boolean; nonNegative?: boolean } = {},
+): void {
   if (!Number.isFinite(value) || (opts.positive && value <= 0) || (opts.nonNegative && value < 0)) {
     const cond = opts.positive ? ' > 0' : opts.nonNegative ? ' ≥ 0' : '';
-    throw new EngineError('invalid-input', `${name} must be a finite number${cond} ${unit} (got ${value}).`, { name, value });
+    throw new EngineError(
+      'invalid-input',
+      `${name} must be a finite number${cond} ${unit} (got ${value}).`,
+      { name, value },
+    );
   }
 }
 
@@ -58,7 +67,11 @@ export interface IdealSolubilityResult {
  * Example: naphthalene, Tm = 353.35 K, ΔHfus = 18 980 J/mol, T = 298.15 K →
  * x = exp(−18980/8.314 · (1/298.15 − 1/353.35)) = 0.302.
  */
-export function idealSolubility(input: { meltingPointK: number; enthalpyFusionJmol: number; T_K: number }): IdealSolubilityResult {
+export function idealSolubility(input: {
+  meltingPointK: number;
+  enthalpyFusionJmol: number;
+  T_K: number;
+}): IdealSolubilityResult {
   const { meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: T } = input;
   assertFinite(Tm, 'Melting point', 'K', { positive: true });
   assertFinite(dH, 'Enthalpy of fusion', 'J/mol', { nonNegative: true });
@@ -66,11 +79,15 @@ export function idealSolubility(input: { meltingPointK: number; enthalpyFusionJm
   const method = 'ideal solubility (Schröder–van Laar, ΔCp neglected)';
   const warnings: string[] = [];
   if (T >= Tm) {
-    warnings.push(`The temperature ${T.toFixed(2)} K is at or above the melting point ${Tm.toFixed(2)} K: the solute is a liquid, x = 1 returned; miscibility is then a liquid–liquid question.`);
+    warnings.push(
+      `The temperature ${T.toFixed(2)} K is at or above the melting point ${Tm.toFixed(2)} K: the solute is a liquid, x = 1 returned; miscibility is then a liquid–liquid question.`,
+    );
     return { moleFraction: 1, method, warnings };
   }
   if (Tm - T > 100) {
-    warnings.push(`The temperature is ${(Tm - T).toFixed(0)} K below the melting point; neglecting the heat-capacity change of fusion may bias the result.`);
+    warnings.push(
+      `The temperature is ${(Tm - T).toFixed(0)} K below the melting point; neglecting the heat-capacity change of fusion may bias the result.`,
+    );
   }
   const lnx = -(dH / R_J_PER_MOL_K) * (1 / T - 1 / Tm);
   return { moleFraction: Math.exp(lnx), method, warnings };
@@ -127,7 +144,11 @@ export function activityCorrectedSolubility(input: {
   const warnings = [...ideal.warnings];
   const { solventGroups, solventMoleFractions, T_K } = input;
   if (solventGroups.length === 0 || solventGroups.length !== solventMoleFractions.length) {
-    throw new EngineError('invalid-input', 'Give one mole fraction for each solvent (at least one solvent).', { solvents: solventGroups.length, fractions: solventMoleFractions.length });
+    throw new EngineError(
+      'invalid-input',
+      'Give one mole fraction for each solvent (at least one solvent).',
+      { solvents: solventGroups.length, fractions: solventMoleFractions.length },
+    );
   }
   let sum = 0;
   for (const z of solventMoleFractions) {
@@ -135,12 +156,19 @@ export function activityCorrectedSolubility(input: {
     sum += z;
   }
   if (Math.abs(sum - 1) > 1e-6) {
-    throw new EngineError('invalid-input', `Solute-free solvent mole fractions must sum to 1 (sum = ${sum}).`, { sum });
+    throw new EngineError(
+      'invalid-input',
+      `Solute-free solvent mole fractions must sum to 1 (sum = ${sum}).`,
+      { sum },
+    );
   }
   if (T_K < UNIFAC_T_MIN_K || T_K > UNIFAC_T_MAX_K) {
-    warnings.push(`UNIFAC parameters were fitted at about ${UNIFAC_T_MIN_K}–${UNIFAC_T_MAX_K} K; ${T_K.toFixed(1)} K is outside.`);
+    warnings.push(
+      `UNIFAC parameters were fitted at about ${UNIFAC_T_MIN_K}–${UNIFAC_T_MAX_K} K; ${T_K.toFixed(1)} K is outside.`,
+    );
   }
-  const method = 'ideal solubility (Schröder–van Laar) corrected by UNIFAC activity coefficient (x·γ = x_ideal)';
+  const method =
+    'ideal solubility (Schröder–van Laar) corrected by UNIFAC activity coefficient (x·γ = x_ideal)';
   const xIdeal = ideal.moleFraction;
   if (xIdeal >= 1) {
     return { moleFraction: 1, idealMoleFraction: 1, gamma: 1, method, warnings };
@@ -165,7 +193,13 @@ export function activityCorrectedSolubility(input: {
   if (prevF >= 0) {
     // The solute is practically insoluble (γ∞ > x_ideal / 1e-12).
     warnings.push('Predicted solubility is below a mole fraction of 1e-12.');
-    return { moleFraction: prevX, idealMoleFraction: xIdeal, gamma: Math.exp(lnGamma(prevX)), method, warnings };
+    return {
+      moleFraction: prevX,
+      idealMoleFraction: xIdeal,
+      gamma: Math.exp(lnGamma(prevX)),
+      method,
+      warnings,
+    };
   }
   for (let k = 1; k < grid.length; k++) {
     const x = grid[k];
@@ -186,13 +220,15 @@ export function activityCorrectedSolubility(input: {
     hi = 1;
   }
   if (crossings > 1) {
-    warnings.push('UNIFAC predicts a liquid–liquid split of the saturated solution (the solute may oil out); the lowest-concentration root is reported.');
+    warnings.push(
+      'UNIFAC predicts a liquid–liquid split of the saturated solution (the solute may oil out); the lowest-concentration root is reported.',
+    );
   }
   let flo = f(lo);
   for (let i = 0; i < 60; i++) {
     const mid = 0.5 * (lo + hi);
     const fm = f(mid);
-    if ((fm < 0) === (flo < 0)) {
+    if (fm < 0 === flo < 0) {
       lo = mid;
       flo = fm;
     } else {
@@ -200,24 +236,42 @@ export function activityCorrectedSolubility(input: {
     }
   }
   const x = 0.5 * (lo + hi);
-  return { moleFraction: x, idealMoleFraction: xIdeal, gamma: Math.exp(lnGamma(x)), method, warnings };
+  return {
+    moleFraction: x,
+    idealMoleFraction: xIdeal,
+    gamma: Math.exp(lnGamma(x)),
+    method,
+    warnings,
+  };
 }
 
 type Point = { T_K: number; moleFraction: number };
 
 function checkPoints(points: Point[], min: number, model: string): void {
   if (points.length < min) {
-    throw new EngineError('invalid-input', `The ${model} fit needs at least ${min} measured points (got ${points.length}).`, { count: points.length });
+    throw new EngineError(
+      'invalid-input',
+      `The ${model} fit needs at least ${min} measured points (got ${points.length}).`,
+      { count: points.length },
+    );
   }
   for (const p of points) {
     assertFinite(p.T_K, 'Temperature', 'K', { positive: true });
     if (!Number.isFinite(p.moleFraction) || p.moleFraction <= 0 || p.moleFraction > 1) {
-      throw new EngineError('invalid-input', `A measured mole fraction must lie in (0, 1] (got ${p.moleFraction}).`, { value: p.moleFraction });
+      throw new EngineError(
+        'invalid-input',
+        `A measured mole fraction must lie in (0, 1] (got ${p.moleFraction}).`,
+        { value: p.moleFraction },
+      );
     }
   }
   const Ts = new Set(points.map((p) => p.T_K));
   if (Ts.size < min) {
-    throw new EngineError('invalid-input', `The ${model} fit needs at least ${min} distinct temperatures.`, { distinct: Ts.size });
+    throw new EngineError(
+      'invalid-input',
+      `The ${model} fit needs at least ${min} distinct temperatures.`,
+      { distinct: Ts.size },
+    );
   }
 }
 
@@ -228,7 +282,12 @@ function solveLinear(A: number[][], b: number[]): number[] {
   for (let c = 0; c < n; c++) {
     let piv = c;
     for (let r = c + 1; r < n; r++) if (Math.abs(M[r][c]) > Math.abs(M[piv][c])) piv = r;
-    if (Math.abs(M[piv][c]) < 1e-300) throw new EngineError('invalid-input', 'The measured points do not determine the fit (singular system).', {});
+    if (Math.abs(M[piv][c]) < 1e-300)
+      throw new EngineError(
+        'invalid-input',
+        'The measured points do not determine the fit (singular system).',
+        {},
+      );
     [M[c], M[piv]] = [M[piv], M[c]];
     for (let r = c + 1; r < n; r++) {
       const fac = M[r][c] / M[c][c];
@@ -247,7 +306,9 @@ function solveLinear(A: number[][], b: number[]): number[] {
 /** Least squares on columns (already scaled) → coefficients and RMSE. */
 function leastSquares(cols: number[][], y: number[]): { coef: number[]; rmse: number } {
   const m = cols.length;
-  const A = Array.from({ length: m }, (_, i) => Array.from({ length: m }, (_, j) => cols[i].reduce((s, v, k) => s + v * cols[j][k], 0)));
+  const A = Array.from({ length: m }, (_, i) =>
+    Array.from({ length: m }, (_, j) => cols[i].reduce((s, v, k) => s + v * cols[j][k], 0)),
+  );
   const b = cols.map((c) => c.reduce((s, v, k) => s + v * y[k], 0));
   const coef = solveLinear(A, b);
   let ss = 0;
@@ -281,7 +342,9 @@ export interface FitRange {
  * Example: points (290 K, 0.010), (310 K, 0.020) → b = ln 2 / (1/310 − 1/290) = −3116 K,
  * a = ln 0.010 − b/290 = 6.14.
  */
-export function fitVantHoff(points: Point[]): { a: number; b: number; rmseLn: number; predict(T_K: number): number } & FitRange {
+export function fitVantHoff(
+  points: Point[],
+): { a: number; b: number; rmseLn: number; predict(T_K: number): number } & FitRange {
   checkPoints(points, 2, "van 't Hoff");
   const Tref = points.reduce((s, p) => s + p.T_K, 0) / points.length;
   const y = points.map((p) => Math.log(p.moleFraction));
@@ -290,8 +353,21 @@ export function fitVantHoff(points: Point[]): { a: number; b: number; rmseLn: nu
   const a = coef[0];
   const b = coef[1] * Tref;
   const Ts = points.map((p) => p.T_K);
-  const warnings = new Set(Ts).size === 2 ? ['Two temperatures determine the two parameters exactly; the residual says nothing about the quality of the fit.'] : [];
-  return { a, b, rmseLn: rmse, predict: (T_K: number) => Math.exp(a + b / T_K), TminK: Math.min(...Ts), TmaxK: Math.max(...Ts), warnings };
+  const warnings =
+    new Set(Ts).size === 2
+      ? [
+          'Two temperatures determine the two parameters exactly; the residual says nothing about the quality of the fit.',
+        ]
+      : [];
+  return {
+    a,
+    b,
+    rmseLn: rmse,
+    predict: (T_K: number) => Math.exp(a + b / T_K),
+    TminK: Math.min(...Ts),
+    TmaxK: Math.max(...Ts),
+    warnings,
+  };
 }
 
 /**
@@ -305,18 +381,38 @@ export function fitVantHoff(points: Point[]): { a: number; b: number; rmseLn: nu
  * Validity: as for van 't Hoff — a correlation for interpolation; the three
  * parameters are strongly correlated and individually not meaningful.
  */
-export function fitApelblat(points: Point[]): { A: number; B: number; C: number; rmseLn: number; predict(T_K: number): number } & FitRange {
+export function fitApelblat(
+  points: Point[],
+): { A: number; B: number; C: number; rmseLn: number; predict(T_K: number): number } & FitRange {
   checkPoints(points, 3, 'Apelblat');
   const Tref = points.reduce((s, p) => s + p.T_K, 0) / points.length;
   const y = points.map((p) => Math.log(p.moleFraction));
-  const cols = [points.map(() => 1), points.map((p) => Tref / p.T_K), points.map((p) => Math.log(p.T_K / Tref))];
+  const cols = [
+    points.map(() => 1),
+    points.map((p) => Tref / p.T_K),
+    points.map((p) => Math.log(p.T_K / Tref)),
+  ];
   const { coef, rmse } = leastSquares(cols, y);
   const C = coef[2];
   const B = coef[1] * Tref;
   const A = coef[0] - C * Math.log(Tref);
   const Ts = points.map((p) => p.T_K);
-  const warnings = new Set(Ts).size === 3 ? ['Three temperatures determine the three parameters exactly; the residual says nothing about the quality of the fit.'] : [];
-  return { A, B, C, rmseLn: rmse, predict: (T_K: number) => Math.exp(A + B / T_K + C * Math.log(T_K)), TminK: Math.min(...Ts), TmaxK: Math.max(...Ts), warnings };
+  const warnings =
+    new Set(Ts).size === 3
+      ? [
+          'Three temperatures determine the three parameters exactly; the residual says nothing about the quality of the fit.',
+        ]
+      : [];
+  return {
+    A,
+    B,
+    C,
+    rmseLn: rmse,
+    predict: (T_K: number) => Math.exp(A + B / T_K + C * Math.log(T_K)),
+    TminK: Math.min(...Ts),
+    TmaxK: Math.max(...Ts),
+    warnings,
+  };
 }
 
 /**
@@ -340,10 +436,19 @@ export function fitApelblat(points: Point[]): { A: number; B: number; C: number;
  * sum to 1 within 1e−6, or J is given for other than two solvents.
  * Example: ln x1 = −2, ln x2 = −8, f = (0.5, 0.5), no J → −5.
  */
-export function jouybanAcree(input: { lnSolubilities: number[]; fractions: number[]; T_K: number; interaction?: { J0: number; J1: number; J2: number } }): number {
+export function jouybanAcree(input: {
+  lnSolubilities: number[];
+  fractions: number[];
+  T_K: number;
+  interaction?: { J0: number; J1: number; J2: number };
+}): number {
   const { lnSolubilities: lnx, fractions: f, T_K, interaction } = input;
   if (lnx.length < 2 || lnx.length !== f.length) {
-    throw new EngineError('invalid-input', 'Give the solubility in, and the fraction of, each of at least two solvents.', { solubilities: lnx.length, fractions: f.length });
+    throw new EngineError(
+      'invalid-input',
+      'Give the solubility in, and the fraction of, each of at least two solvents.',
+      { solubilities: lnx.length, fractions: f.length },
+    );
   }
   assertFinite(T_K, 'Temperature', 'K', { positive: true });
   let sum = 0;
@@ -355,11 +460,17 @@ export function jouybanAcree(input: { lnSolubilities: number[]; fractions: numbe
     lnMix += f[i] * lnx[i];
   }
   if (Math.abs(sum - 1) > 1e-6) {
-    throw new EngineError('invalid-input', `Solvent fractions must sum to 1 (sum = ${sum}).`, { sum });
+    throw new EngineError('invalid-input', `Solvent fractions must sum to 1 (sum = ${sum}).`, {
+      sum,
+    });
   }
   if (interaction) {
     if (f.length !== 2) {
-      throw new EngineError('invalid-input', 'Jouyban–Acree interaction terms are defined for a binary solvent only.', { solvents: f.length });
+      throw new EngineError(
+        'invalid-input',
+        'Jouyban–Acree interaction terms are defined for a binary solvent only.',
+        { solvents: f.length },
+      );
     }
     const { J0, J1, J2 } = interaction;
     for (const [k, v] of Object.entries({ J0, J1, J2 })) assertFinite(v, k, 'K');
@@ -386,10 +497,24 @@ export function jouybanAcree(input: { lnSolubilities: number[]; fractions: numbe
  * Example: naphthalene x = 0.10 in toluene (92.14 g/mol, 0.8623 g/mL):
  * 0.1/0.9 · 9.359 mol/L · 128.17 g/mol = 133.3 g/L.
  */
-export function moleFractionToGramsPerLitre(input: { moleFraction: number; soluteMolarMassGmol: number; solventMolarMassGmol: number; solventDensityGmL: number }): number {
-  const { moleFraction: x, soluteMolarMassGmol: Ms, solventMolarMassGmol: Mv, solventDensityGmL: rho } = input;
+export function moleFractionToGramsPerLitre(input: {
+  moleFraction: number;
+  soluteMolarMassGmol: number;
+  solventMolarMassGmol: number;
+  solventDensityGmL: number;
+}): number {
+  const {
+    moleFraction: x,
+    soluteMolarMassGmol: Ms,
+    solventMolarMassGmol: Mv,
+    solventDensityGmL: rho,
+  } = input;
   if (!Number.isFinite(x) || x < 0 || x >= 1) {
-    throw new EngineError('invalid-input', `Mole fraction must lie in [0, 1) for a solution (got ${x}).`, { x });
+    throw new EngineError(
+      'invalid-input',
+      `Mole fraction must lie in [0, 1) for a solution (got ${x}).`,
+      { x },
+    );
   }
   assertFinite(Ms, 'Solute molar mass', 'g/mol', { positive: true });
   assertFinite(Mv, 'Solvent molar mass', 'g/mol', { positive: true });
@@ -408,8 +533,18 @@ export function moleFractionToGramsPerLitre(input: { moleFraction: number; solut
  *   input.solventDensityGmL [g/mL]
  * @returns x [-]
  */
-export function gramsPerLitreToMoleFraction(input: { gramsPerLitre: number; soluteMolarMassGmol: number; solventMolarMassGmol: number; solventDensityGmL: number }): number {
-  const { gramsPerLitre: c, soluteMolarMassGmol: Ms, solventMolarMassGmol: Mv, solventDensityGmL: rho } = input;
+export function gramsPerLitreToMoleFraction(input: {
+  gramsPerLitre: number;
+  soluteMolarMassGmol: number;
+  solventMolarMassGmol: number;
+  solventDensityGmL: number;
+}): number {
+  const {
+    gramsPerLitre: c,
+    soluteMolarMassGmol: Ms,
+    solventMolarMassGmol: Mv,
+    solventDensityGmL: rho,
+  } = input;
   assertFinite(c, 'Concentration', 'g/L', { nonNegative: true });
   assertFinite(Ms, 'Solute molar mass', 'g/mol', { positive: true });
   assertFinite(Mv, 'Solvent molar mass', 'g/mol', { positive: true });

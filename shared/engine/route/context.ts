@@ -5,7 +5,13 @@
  */
 import type { AqueousSoluteRecord, SolventRecord } from '../data/types';
 import { aqueousSoluteById, solventById } from '../data/index';
-import { componentKey, type CompoundSnapshot, type RouteDocument, type Uncertain, type Volume } from '../../schemas/route';
+import {
+  componentKey,
+  type CompoundSnapshot,
+  type RouteDocument,
+  type Uncertain,
+  type Volume,
+} from '../../schemas/route';
 import type { EngineWarning, MethodUsed, Stream } from './types';
 import type { PortPhase } from '../../schemas/route';
 import type { SeededRandom } from '../random';
@@ -93,49 +99,97 @@ export function aqueousApparentSpecificVolume(a: AqueousSoluteRecord): number {
   return Math.max(v, 0.05);
 }
 
-export function buildContext(doc: RouteDocument, rng: SeededRandom | null = null, caches: EvaluationCaches = createEvaluationCaches()): { ctx: EvalContext; issues: Array<{ field: string; message: string }> } {
+export function buildContext(
+  doc: RouteDocument,
+  rng: SeededRandom | null = null,
+  caches: EvaluationCaches = createEvaluationCaches(),
+): { ctx: EvalContext; issues: Array<{ field: string; message: string }> } {
   const issues: Array<{ field: string; message: string }> = [];
   const comps = new Map<string, ResolvedComponent>();
   doc.components.forEach((c, i) => {
     const key = componentKey(c);
     if (comps.has(key)) {
-      issues.push({ field: `components[${i}].id`, message: `Component id "${key}" is used twice.` });
+      issues.push({
+        field: `components[${i}].id`,
+        message: `Component id "${key}" is used twice.`,
+      });
       return;
     }
     if (c.kind === 'solvent') {
       const s = solventById(c.solventId);
       if (!s) {
-        issues.push({ field: `components[${i}].solventId`, message: `Unknown library solvent "${c.solventId}".` });
+        issues.push({
+          field: `components[${i}].solventId`,
+          message: `Unknown library solvent "${c.solventId}".`,
+        });
         return;
       }
       comps.set(key, {
-        id: key, name: s.name, kind: 'solvent', role: 'solvent', molarMassKgMol: s.molarMassGmol.value / 1000, solvent: s,
+        id: key,
+        name: s.name,
+        kind: 'solvent',
+        role: 'solvent',
+        molarMassKgMol: s.molarMassGmol.value / 1000,
+        solvent: s,
         isWater: s.id === 'water',
         specificVolume: (T) => 1 / (solventDensityGmL(s, T) * 1000),
       });
     } else if (c.kind === 'aqueous-solute') {
       const a = aqueousSoluteById(c.soluteId);
       if (!a) {
-        issues.push({ field: `components[${i}].soluteId`, message: `Unknown aqueous solute "${c.soluteId}".` });
+        issues.push({
+          field: `components[${i}].soluteId`,
+          message: `Unknown aqueous solute "${c.soluteId}".`,
+        });
         return;
       }
       const v = aqueousApparentSpecificVolume(a) / 1000;
-      comps.set(key, { id: key, name: a.name, kind: 'aqueous-solute', role: 'aqueous-solute', molarMassKgMol: a.molarMassGmol.value / 1000, aqueous: a, isWater: false, specificVolume: () => v });
+      comps.set(key, {
+        id: key,
+        name: a.name,
+        kind: 'aqueous-solute',
+        role: 'aqueous-solute',
+        molarMassKgMol: a.molarMassGmol.value / 1000,
+        aqueous: a,
+        isWater: false,
+        specificVolume: () => v,
+      });
     } else {
       const v = 1 / ((c.densityGmL ?? DEFAULT_COMPOUND_DENSITY_GML) * 1000);
-      comps.set(key, { id: key, name: c.name, kind: 'compound', role: c.role, molarMassKgMol: c.molarMassGmol / 1000, compound: c, isWater: false, specificVolume: () => v });
+      comps.set(key, {
+        id: key,
+        name: c.name,
+        kind: 'compound',
+        role: c.role,
+        molarMassKgMol: c.molarMassGmol / 1000,
+        compound: c,
+        isWater: false,
+        specificVolume: () => v,
+      });
     }
   });
   const ids = [...comps.keys()];
   const water = [...comps.values()].find((c) => c.isWater);
   const products = [...comps.values()].filter((c) => c.role === 'product');
-  if (products.length > 1) issues.push({ field: 'components', message: 'Only one component may have the role "product".' });
+  if (products.length > 1)
+    issues.push({
+      field: 'components',
+      message: 'Only one component may have the role "product".',
+    });
   const refComp = comps.get(doc.referenceInput.componentId);
-  if (!refComp) issues.push({ field: 'referenceInput.componentId', message: `Unknown component "${doc.referenceInput.componentId}".` });
+  if (!refComp)
+    issues.push({
+      field: 'referenceInput.componentId',
+      message: `Unknown component "${doc.referenceInput.componentId}".`,
+    });
   const referenceKg = doc.referenceInput.massKg;
   const ctx: EvalContext = {
-    ids, comps, waterId: water?.id ?? null, productId: products[0]?.id ?? null,
-    referenceKg, referenceMol: refComp ? referenceKg / refComp.molarMassKgMol : NaN,
+    ids,
+    comps,
+    waterId: water?.id ?? null,
+    productId: products[0]?.id ?? null,
+    referenceKg,
+    referenceMol: refComp ? referenceKg / refComp.molarMassKgMol : NaN,
     rng,
     num(u, min, max) {
       if (typeof u === 'number') return u;
@@ -189,7 +243,13 @@ export function finishStream(ctx: EvalContext, s: Stream): Stream {
 }
 
 export function cloneStream(s: Stream): Stream {
-  return { phase: s.phase, temperatureK: s.temperatureK, kg: { ...s.kg }, solidKg: { ...s.solidKg }, volumeM3: s.volumeM3 };
+  return {
+    phase: s.phase,
+    temperatureK: s.temperatureK,
+    kg: { ...s.kg },
+    solidKg: { ...s.solidKg },
+    volumeM3: s.volumeM3,
+  };
 }
 
 export function totalKg(kg: Record<string, number>): number {
@@ -210,7 +270,12 @@ export function liquidPart(s: Stream): Record<string, number> {
 }
 
 /** kg of a liquid charge of `volumeM3` of a solvent at T. */
-export function solventKgFromVolume(ctx: EvalContext, id: string, volumeM3: number, T_K: number): number {
+export function solventKgFromVolume(
+  ctx: EvalContext,
+  id: string,
+  volumeM3: number,
+  T_K: number,
+): number {
   const c = ctx.comps.get(id)!;
   return volumeM3 / c.specificVolume(T_K);
 }
@@ -220,7 +285,13 @@ export function solventKgFromVolume(ctx: EvalContext, id: string, volumeM3: numb
  * the medium's density from the ideal mixture of water and the solute's
  * apparent specific volume.
  */
-export function aqueousMediumKg(ctx: EvalContext, soluteId: string, wtPct: number, volumeM3: number, T_K: number): { waterKg: number; soluteKg: number } {
+export function aqueousMediumKg(
+  ctx: EvalContext,
+  soluteId: string,
+  wtPct: number,
+  volumeM3: number,
+  T_K: number,
+): { waterKg: number; soluteKg: number } {
   const w = wtPct / 100;
   const vs = ctx.comps.get(soluteId)!.specificVolume(T_K);
   const vw = ctx.comps.get(ctx.waterId!)!.specificVolume(T_K);
@@ -231,8 +302,14 @@ export function aqueousMediumKg(ctx: EvalContext, soluteId: string, wtPct: numbe
 
 // ---- warnings and cautions ----
 
-export function warn(list: EngineWarning[], severity: EngineWarning['severity'], code: string, message: string) {
-  if (!list.some((w) => w.code === code && w.message === message)) list.push({ severity, code, message });
+export function warn(
+  list: EngineWarning[],
+  severity: EngineWarning['severity'],
+  code: string,
+  message: string,
+) {
+  if (!list.some((w) => w.code === code && w.message === message))
+    list.push({ severity, code, message });
 }
 
 export function method(list: MethodUsed[], what: string, m: string, source: string) {
@@ -247,7 +324,13 @@ export const FLASH_POINT_MARGIN_K = 10;
  * (flash point − margin), ICH Q3C class 1 solvents, and static-accumulating
  * low-conductivity solvents where liquid is transferred or filtered.
  */
-export function commonCautions(ctx: EvalContext, kg: Record<string, number>, T_K: number, warnings: EngineWarning[], opts: { transfer?: boolean } = {}) {
+export function commonCautions(
+  ctx: EvalContext,
+  kg: Record<string, number>,
+  T_K: number,
+  warnings: EngineWarning[],
+  opts: { transfer?: boolean } = {},
+) {
   const liquidTotal = totalKg(kg);
   const flam: string[] = [];
   const lowCond: string[] = [];
@@ -258,16 +341,32 @@ export function commonCautions(ctx: EvalContext, kg: Record<string, number>, T_K
     if (!c.solvent) continue;
     const s = c.solvent;
     const fp = s.flashPointC.value;
-    if (fp !== null && m / liquidTotal > 0.01 && T_K - 273.15 >= fp - FLASH_POINT_MARGIN_K) flam.push(`${s.name} (flash point ${fp} °C)`);
+    if (fp !== null && m / liquidTotal > 0.01 && T_K - 273.15 >= fp - FLASH_POINT_MARGIN_K)
+      flam.push(`${s.name} (flash point ${fp} °C)`);
     if (s.ich.value.class === 1) {
-      warn(warnings, 'hazard', 'ich-class-1', `${s.name} is an ICH Q3C class 1 solvent (to be avoided); its use needs justification.`);
+      warn(
+        warnings,
+        'hazard',
+        'ich-class-1',
+        `${s.name} is an ICH Q3C class 1 solvent (to be avoided); its use needs justification.`,
+      );
     }
     if (opts.transfer && s.lowConductivity.value && m / liquidTotal > 0.1) lowCond.push(s.name);
   }
   if (flam.length) {
-    warn(warnings, 'advisory', 'flammable-above-flash-point', `Process temperature ${(T_K - 273.15).toFixed(0)} °C is above or within ${FLASH_POINT_MARGIN_K} K of the flash point of ${flam.join(', ')}: flammable atmosphere; inerting and ignition-source control apply.`);
+    warn(
+      warnings,
+      'advisory',
+      'flammable-above-flash-point',
+      `Process temperature ${(T_K - 273.15).toFixed(0)} °C is above or within ${FLASH_POINT_MARGIN_K} K of the flash point of ${flam.join(', ')}: flammable atmosphere; inerting and ignition-source control apply.`,
+    );
   }
   if (lowCond.length) {
-    warn(warnings, 'advisory', 'static-accumulation', `${lowCond.join(', ')} has low electrical conductivity: static charge accumulates in transfers and filtrations; bond and earth equipment, limit flow velocity.`);
+    warn(
+      warnings,
+      'advisory',
+      'static-accumulation',
+      `${lowCond.join(', ')} has low electrical conductivity: static charge accumulates in transfers and filtrations; bond and earth equipment, limit flow velocity.`,
+    );
   }
 }

@@ -16,14 +16,21 @@ export interface RouteIssue {
 /** A document that is valid against the schema but cannot be evaluated. Code 'route-invalid'. */
 export class RouteValidationError extends EngineError {
   constructor(public issues: RouteIssue[]) {
-    super('route-invalid', `The route cannot be evaluated: ${issues.map((i) => (i.stepId ? `step ${i.stepId}: ` : '') + `${i.field}: ${i.message}`).join('; ')}`, issues);
+    super(
+      'route-invalid',
+      `The route cannot be evaluated: ${issues.map((i) => (i.stepId ? `step ${i.stepId}: ` : '') + `${i.field}: ${i.message}`).join('; ')}`,
+      issues,
+    );
     this.name = 'RouteValidationError';
   }
 }
 
 /** Thrown by a step model when its parameters cannot be applied to its input (e.g. wt% without a crude mass). */
 export class StepError extends Error {
-  constructor(public field: string, message: string) {
+  constructor(
+    public field: string,
+    message: string,
+  ) {
     super(message);
     this.name = 'StepError';
   }

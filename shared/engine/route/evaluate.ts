@@ -18,10 +18,20 @@
  *  - peak volume per step; cycle time as the sum of the steps' durations
  *    (common-practice durations, parallel branches counted in series).
  */
-import { routeDocumentSchema, PORTS, type RouteDocument, type RouteStep } from '../../schemas/route';
+import {
+  routeDocumentSchema,
+  PORTS,
+  type RouteDocument,
+  type RouteStep,
+} from '../../schemas/route';
 import type { SeededRandom } from '../random';
 import { EngineError } from '../errors';
-import { buildContext, createEvaluationCaches, type EvalContext, type EvaluationCaches } from './context';
+import {
+  buildContext,
+  createEvaluationCaches,
+  type EvalContext,
+  type EvaluationCaches,
+} from './context';
 import { RouteValidationError, StepError, type RouteIssue } from './errors';
 import { validateRoute, type GraphInfo } from './validate';
 import type { EngineWarning, StepOutput, StepResult, Stream } from './types';
@@ -31,7 +41,14 @@ import { distillation } from '../unitops/distillation';
 import { crystallisation } from '../unitops/crystallisation';
 import { filtration } from '../unitops/filtration';
 import { drying } from '../unitops/drying';
-import { carbonTreatment, merge, phAdjust, polishFiltration, quench, split } from '../unitops/simple';
+import {
+  carbonTreatment,
+  merge,
+  phAdjust,
+  polishFiltration,
+  quench,
+  split,
+} from '../unitops/simple';
 
 /** Version of the route engine; stored with every revision's results. */
 export const ENGINE_VERSION = '1.0.2';
@@ -87,7 +104,12 @@ export interface RouteResult {
   processSafetyNote: string;
 }
 
-type Model = (inputs: Record<string, Stream | undefined>, params: never, ctx: EvalContext, step: RouteStep) => StepOutput;
+type Model = (
+  inputs: Record<string, Stream | undefined>,
+  params: never,
+  ctx: EvalContext,
+  step: RouteStep,
+) => StepOutput;
 
 const MODELS: Record<RouteStep['kind'], Model> = {
   charge: charge as Model,
@@ -113,7 +135,10 @@ export function parseRoute(doc: unknown): RouteDocument {
   throw new RouteValidationError(
     r.error.issues.map((i) => {
       const path = i.path.map(String);
-      const stepId = path[0] === 'steps' && steps?.[Number(path[1])]?.id ? String(steps[Number(path[1])].id) : null;
+      const stepId =
+        path[0] === 'steps' && steps?.[Number(path[1])]?.id
+          ? String(steps[Number(path[1])].id)
+          : null;
       return { stepId, field: path.join('.'), message: i.message };
     }),
   );
@@ -176,21 +201,50 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
   }
   const totals = computeTotals(ctx, graph.order, results, terminals);
   const warnings: RouteResult['warnings'] = [];
-  for (const id of graph.order) for (const w of results[id].warnings) warnings.push({ ...w, stepId: id });
-  if (!ctx.productId) warnings.push({ severity: 'info', code: 'no-product', message: 'No component has the role "product": yield, purity and purge are not computed.', stepId: null });
-  else if (!terminals.some((t) => t.isolated)) warnings.push({ severity: 'info', code: 'no-isolation', message: 'No unconnected cake or dry-solid output: nothing is isolated yet.', stepId: null });
-  return { engineVersion: ENGINE_VERSION, schemaVersion: 1, order: graph.order, steps: results, streams, terminals, totals, warnings, processSafetyNote: PROCESS_SAFETY_NOTE };
+  for (const id of graph.order)
+    for (const w of results[id].warnings) warnings.push({ ...w, stepId: id });
+  if (!ctx.productId)
+    warnings.push({
+      severity: 'info',
+      code: 'no-product',
+      message: 'No component has the role "product": yield, purity and purge are not computed.',
+      stepId: null,
+    });
+  else if (!terminals.some((t) => t.isolated))
+    warnings.push({
+      severity: 'info',
+      code: 'no-isolation',
+      message: 'No unconnected cake or dry-solid output: nothing is isolated yet.',
+      stepId: null,
+    });
+  return {
+    engineVersion: ENGINE_VERSION,
+    schemaVersion: 1,
+    order: graph.order,
+    steps: results,
+    streams,
+    terminals,
+    totals,
+    warnings,
+    processSafetyNote: PROCESS_SAFETY_NOTE,
+  };
 }
 
 function toRouteError(e: unknown, step: RouteStep): Error {
   if (e instanceof RouteValidationError) return e;
-  if (e instanceof StepError) return new RouteValidationError([{ stepId: step.id, field: e.field, message: e.message }]);
-  if (e instanceof EngineError) return new RouteValidationError([{ stepId: step.id, field: 'params', message: e.message }]);
+  if (e instanceof StepError)
+    return new RouteValidationError([{ stepId: step.id, field: e.field, message: e.message }]);
+  if (e instanceof EngineError)
+    return new RouteValidationError([{ stepId: step.id, field: 'params', message: e.message }]);
   return e as Error;
 }
 
 /** in + added + generated − consumed = out for every component, to MASS_BALANCE_TOLERANCE relative. */
-function checkBalance(ctx: EvalContext, inputs: Record<string, Stream | undefined>, out: StepOutput) {
+function checkBalance(
+  ctx: EvalContext,
+  inputs: Record<string, Stream | undefined>,
+  out: StepOutput,
+) {
   const r = out.result;
   const balance: NonNullable<StepResult['balance']> = {};
   let scale = 0;
@@ -212,13 +266,22 @@ function checkBalance(ctx: EvalContext, inputs: Record<string, Stream | undefine
     const rel = Math.abs(a - b) / denom;
     balance[id] = { inKg: a, outKg: b, relativeError: rel };
     if (!(rel <= MASS_BALANCE_TOLERANCE)) {
-      r.warnings.push({ severity: 'warning', code: 'mass-balance', message: `Mass balance of ${ctx.comps.get(id)!.name} does not close (relative error ${rel.toExponential(2)}); please report this route.` });
+      r.warnings.push({
+        severity: 'warning',
+        code: 'mass-balance',
+        message: `Mass balance of ${ctx.comps.get(id)!.name} does not close (relative error ${rel.toExponential(2)}); please report this route.`,
+      });
     }
   }
   r.balance = balance;
 }
 
-function computeTotals(ctx: EvalContext, order: string[], results: Record<string, StepResult>, terminals: RouteResult['terminals']): RouteTotals {
+function computeTotals(
+  ctx: EvalContext,
+  order: string[],
+  results: Record<string, StepResult>,
+  terminals: RouteResult['terminals'],
+): RouteTotals {
   const pid = ctx.productId;
   const inputKg: Record<string, number> = {};
   for (const id of ctx.ids) inputKg[id] = 0;
@@ -245,7 +308,11 @@ function computeTotals(ctx: EvalContext, order: string[], results: Record<string
   for (const id of ctx.ids) {
     const c = ctx.comps.get(id)!;
     if (c.kind !== 'compound' || id === pid || !(inputKg[id] > 0)) continue;
-    purge[id] = { inKg: inputKg[id], outKg: iso[id], purgeFactor: iso[id] > 0 ? inputKg[id] / iso[id] : null };
+    purge[id] = {
+      inKg: inputKg[id],
+      outKg: iso[id],
+      purgeFactor: iso[id] > 0 ? inputKg[id] / iso[id] : null,
+    };
   }
   // Total mass charged: everything added by any step (reaction products are not inputs) plus auxiliaries.
   let charged = aux;
@@ -273,7 +340,8 @@ function computeTotals(ctx: EvalContext, order: string[], results: Record<string
     totalInputKg: charged,
     peakVolumeL: peak,
     cycleTimeH: hours,
-    cycleTimeBasis: 'sum of common-practice step durations (docs/methods.md); parallel branches counted in series',
+    cycleTimeBasis:
+      'sum of common-practice step durations (docs/methods.md); parallel branches counted in series',
   };
 }
 

@@ -47,17 +47,33 @@ export interface MonteCarloState {
 export const MAX_DRAWS = 100_000;
 
 export function startMonteCarlo(opts: { draws: number; seed: number }): MonteCarloState {
-  if (!Number.isInteger(opts.draws) || opts.draws < 1 || opts.draws > MAX_DRAWS) throw new RangeError(`draws must be an integer in 1..${MAX_DRAWS}`);
+  if (!Number.isInteger(opts.draws) || opts.draws < 1 || opts.draws > MAX_DRAWS)
+    throw new RangeError(`draws must be an integer in 1..${MAX_DRAWS}`);
   if (!Number.isInteger(opts.seed)) throw new RangeError('seed must be an integer');
-  return { seed: opts.seed, draws: opts.draws, done: 0, rngState: createRandom(opts.seed).state(), failedDraws: 0, samples: { yieldPct: [], purityWtPct: [], purge: {} } };
+  return {
+    seed: opts.seed,
+    draws: opts.draws,
+    done: 0,
+    rngState: createRandom(opts.seed).state(),
+    failedDraws: 0,
+    samples: { yieldPct: [], purityWtPct: [], purge: {} },
+  };
 }
 
 /** Run up to `chunk` further draws; returns the new state (the input is not modified). */
-export function runMonteCarloChunk(route: PreparedRoute, state: MonteCarloState, chunk: number): MonteCarloState {
+export function runMonteCarloChunk(
+  route: PreparedRoute,
+  state: MonteCarloState,
+  chunk: number,
+): MonteCarloState {
   const rng = createRandom(state.rngState);
   const s: MonteCarloState = {
     ...state,
-    samples: { yieldPct: [...state.samples.yieldPct], purityWtPct: [...state.samples.purityWtPct], purge: Object.fromEntries(Object.entries(state.samples.purge).map(([k, v]) => [k, [...v]])) },
+    samples: {
+      yieldPct: [...state.samples.yieldPct],
+      purityWtPct: [...state.samples.purityWtPct],
+      purge: Object.fromEntries(Object.entries(state.samples.purge).map(([k, v]) => [k, [...v]])),
+    },
   };
   const end = Math.min(s.draws, s.done + Math.max(1, Math.floor(chunk)));
   for (; s.done < end; s.done++) {
@@ -65,7 +81,8 @@ export function runMonteCarloChunk(route: PreparedRoute, state: MonteCarloState,
       const r = evaluatePrepared(route, rng);
       s.samples.yieldPct.push(r.totals.yieldPct ?? NaN);
       s.samples.purityWtPct.push(r.totals.purityWtPct ?? NaN);
-      for (const [id, p] of Object.entries(r.totals.purge)) (s.samples.purge[id] ??= []).push(p.purgeFactor ?? Infinity);
+      for (const [id, p] of Object.entries(r.totals.purge))
+        (s.samples.purge[id] ??= []).push(p.purgeFactor ?? Infinity);
     } catch {
       s.failedDraws++;
     }
@@ -98,7 +115,9 @@ export function summariseMonteCarlo(state: MonteCarloState): MonteCarloResult {
     failedDraws: state.failedDraws,
     yieldPct: summarise(state.samples.yieldPct),
     purityWtPct: summarise(state.samples.purityWtPct),
-    purgeFactor: Object.fromEntries(Object.entries(state.samples.purge).map(([k, v]) => [k, summarise(v)])),
+    purgeFactor: Object.fromEntries(
+      Object.entries(state.samples.purge).map(([k, v]) => [k, summarise(v)]),
+    ),
   };
 }
 
@@ -106,7 +125,10 @@ export function summariseMonteCarlo(state: MonteCarloState): MonteCarloResult {
  * Chunked iterator for background jobs: yields progress after each chunk and
  * returns the summary. `for (const p of it) report(p.done / p.total)`.
  */
-export function* monteCarloChunks(doc: unknown, opts: { draws: number; seed: number; chunkSize?: number }): Generator<{ done: number; total: number; state: MonteCarloState }, MonteCarloResult> {
+export function* monteCarloChunks(
+  doc: unknown,
+  opts: { draws: number; seed: number; chunkSize?: number },
+): Generator<{ done: number; total: number; state: MonteCarloState }, MonteCarloResult> {
   const prepared = prepareRoute(parseRoute(doc));
   let state = startMonteCarlo(opts);
   const chunk = opts.chunkSize ?? 50;
@@ -118,8 +140,15 @@ export function* monteCarloChunks(doc: unknown, opts: { draws: number; seed: num
 }
 
 /** Run all draws at once, with an optional progress callback (fraction done). */
-export function monteCarlo(doc: unknown | RouteDocument, opts: { draws: number; seed: number }, onProgress?: (fraction: number) => void): MonteCarloResult {
-  const it = monteCarloChunks(doc, { ...opts, chunkSize: Math.max(10, Math.ceil(opts.draws / 20)) });
+export function monteCarlo(
+  doc: unknown | RouteDocument,
+  opts: { draws: number; seed: number },
+  onProgress?: (fraction: number) => void,
+): MonteCarloResult {
+  const it = monteCarloChunks(doc, {
+    ...opts,
+    chunkSize: Math.max(10, Math.ceil(opts.draws / 20)),
+  });
   for (;;) {
     const n = it.next();
     if (n.done) return n.value;

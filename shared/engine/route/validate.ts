@@ -10,19 +10,33 @@ import { PHASE_ACCEPTS, PORTS, type RouteDocument, type RouteStep } from '../../
 import type { EvalContext } from './context';
 import type { RouteIssue } from './errors';
 
-type Ref = { field: string; id: string; want: 'any' | 'solvent' | 'aqueous-solute' | 'compound-or-aqueous' };
+type Ref = {
+  field: string;
+  id: string;
+  want: 'any' | 'solvent' | 'aqueous-solute' | 'compound-or-aqueous';
+};
 
 function references(step: RouteStep): Ref[] {
   const r: Ref[] = [];
-  const liquid = (field: string, l: { kind: 'solvent'; solventId: string } | { kind: 'aqueous'; soluteId: string }) => {
-    if (l.kind === 'solvent') r.push({ field: `${field}.solventId`, id: l.solventId, want: 'solvent' });
+  const liquid = (
+    field: string,
+    l: { kind: 'solvent'; solventId: string } | { kind: 'aqueous'; soluteId: string },
+  ) => {
+    if (l.kind === 'solvent')
+      r.push({ field: `${field}.solventId`, id: l.solventId, want: 'solvent' });
     else r.push({ field: `${field}.soluteId`, id: l.soluteId, want: 'aqueous-solute' });
   };
   switch (step.kind) {
     case 'charge':
       step.params.contents.forEach((c, i) => {
-        if (c.kind === 'component') r.push({ field: `params.contents[${i}].componentId`, id: c.componentId, want: 'any' });
-        else r.push({ field: `params.contents[${i}].soluteId`, id: c.soluteId, want: 'aqueous-solute' });
+        if (c.kind === 'component')
+          r.push({ field: `params.contents[${i}].componentId`, id: c.componentId, want: 'any' });
+        else
+          r.push({
+            field: `params.contents[${i}].soluteId`,
+            id: c.soluteId,
+            want: 'aqueous-solute',
+          });
       });
       break;
     case 'wash':
@@ -30,26 +44,62 @@ function references(step: RouteStep): Ref[] {
       liquid('params.addedLiquid', step.params.addedLiquid);
       break;
     case 'distillation':
-      if (step.params.mode.kind !== 'concentrate') r.push({ field: 'params.mode.addSolventId', id: step.params.mode.addSolventId, want: 'solvent' });
+      if (step.params.mode.kind !== 'concentrate')
+        r.push({
+          field: 'params.mode.addSolventId',
+          id: step.params.mode.addSolventId,
+          want: 'solvent',
+        });
       break;
     case 'crystallisation':
-      if (step.params.mode.kind === 'antisolvent') r.push({ field: 'params.mode.antisolventId', id: step.params.mode.antisolventId, want: 'solvent' });
+      if (step.params.mode.kind === 'antisolvent')
+        r.push({
+          field: 'params.mode.antisolventId',
+          id: step.params.mode.antisolventId,
+          want: 'solvent',
+        });
       break;
     case 'filtration':
-      if (step.params.cakeWash) r.push({ field: 'params.cakeWash.solventId', id: step.params.cakeWash.solventId, want: 'solvent' });
+      if (step.params.cakeWash)
+        r.push({
+          field: 'params.cakeWash.solventId',
+          id: step.params.cakeWash.solventId,
+          want: 'solvent',
+        });
       break;
     case 'quench':
       r.push({ field: 'params.reagentId', id: step.params.reagentId, want: 'compound-or-aqueous' });
-      r.push({ field: 'params.reactsWith', id: step.params.reactsWith, want: 'compound-or-aqueous' });
-      step.params.products.forEach((p, i) => r.push({ field: `params.products[${i}].componentId`, id: p.componentId, want: 'compound-or-aqueous' }));
-      if (step.params.carrier) r.push({ field: 'params.carrier.solventId', id: step.params.carrier.solventId, want: 'solvent' });
+      r.push({
+        field: 'params.reactsWith',
+        id: step.params.reactsWith,
+        want: 'compound-or-aqueous',
+      });
+      step.params.products.forEach((p, i) =>
+        r.push({
+          field: `params.products[${i}].componentId`,
+          id: p.componentId,
+          want: 'compound-or-aqueous',
+        }),
+      );
+      if (step.params.carrier)
+        r.push({
+          field: 'params.carrier.solventId',
+          id: step.params.carrier.solventId,
+          want: 'solvent',
+        });
       break;
     case 'ph-adjust':
-      r.push({ field: 'params.reagentSoluteId', id: step.params.reagentSoluteId, want: 'aqueous-solute' });
+      r.push({
+        field: 'params.reagentSoluteId',
+        id: step.params.reagentSoluteId,
+        want: 'aqueous-solute',
+      });
       break;
     case 'carbon-treatment':
     case 'polish-filtration':
-      step.params.removals.forEach((x, i) => r.push({ field: `params.removals[${i}].componentId`, id: x.componentId, want: 'any' }));
+      step.params.removals.forEach((x, i) =>
+        r.push({ field: `params.removals[${i}].componentId`, id: x.componentId, want: 'any' }),
+      );
       break;
     default:
       break;
@@ -57,10 +107,34 @@ function references(step: RouteStep): Ref[] {
   return r;
 }
 
-function usesAqueousMedium(step: RouteStep): Array<{ field: string; soluteId: string; wtPct: number | { value: number; plusMinus: number } }> {
-  if (step.kind === 'charge') return step.params.contents.flatMap((c, i) => (c.kind === 'aqueous' ? [{ field: `params.contents[${i}].wtPct`, soluteId: c.soluteId, wtPct: c.wtPct }] : []));
-  if ((step.kind === 'wash' || step.kind === 'extraction') && step.params.addedLiquid.kind === 'aqueous') return [{ field: 'params.addedLiquid.wtPct', soluteId: step.params.addedLiquid.soluteId, wtPct: step.params.addedLiquid.wtPct }];
-  if (step.kind === 'ph-adjust') return [{ field: 'params.wtPct', soluteId: step.params.reagentSoluteId, wtPct: step.params.wtPct }];
+function usesAqueousMedium(
+  step: RouteStep,
+): Array<{
+  field: string;
+  soluteId: string;
+  wtPct: number | { value: number; plusMinus: number };
+}> {
+  if (step.kind === 'charge')
+    return step.params.contents.flatMap((c, i) =>
+      c.kind === 'aqueous'
+        ? [{ field: `params.contents[${i}].wtPct`, soluteId: c.soluteId, wtPct: c.wtPct }]
+        : [],
+    );
+  if (
+    (step.kind === 'wash' || step.kind === 'extraction') &&
+    step.params.addedLiquid.kind === 'aqueous'
+  )
+    return [
+      {
+        field: 'params.addedLiquid.wtPct',
+        soluteId: step.params.addedLiquid.soluteId,
+        wtPct: step.params.addedLiquid.wtPct,
+      },
+    ];
+  if (step.kind === 'ph-adjust')
+    return [
+      { field: 'params.wtPct', soluteId: step.params.reagentSoluteId, wtPct: step.params.wtPct },
+    ];
   return [];
 }
 
@@ -71,11 +145,20 @@ export interface GraphInfo {
   outgoing: Map<string, Map<string, RouteDocument['connections'][number]>>;
 }
 
-export function validateRoute(doc: RouteDocument, ctx: EvalContext, contextIssues: Array<{ field: string; message: string }>): { issues: RouteIssue[]; graph: GraphInfo } {
+export function validateRoute(
+  doc: RouteDocument,
+  ctx: EvalContext,
+  contextIssues: Array<{ field: string; message: string }>,
+): { issues: RouteIssue[]; graph: GraphInfo } {
   const issues: RouteIssue[] = contextIssues.map((i) => ({ stepId: null, ...i }));
   const steps = new Map<string, RouteStep>();
   doc.steps.forEach((s, i) => {
-    if (steps.has(s.id)) issues.push({ stepId: s.id, field: `steps[${i}].id`, message: `Step id "${s.id}" is used twice.` });
+    if (steps.has(s.id))
+      issues.push({
+        stepId: s.id,
+        field: `steps[${i}].id`,
+        message: `Step id "${s.id}" is used twice.`,
+      });
     else steps.set(s.id, s);
   });
   const incoming = new Map<string, Map<string, RouteDocument['connections'][number]>>();
@@ -87,28 +170,74 @@ export function validateRoute(doc: RouteDocument, ctx: EvalContext, contextIssue
   const connIds = new Set<string>();
   doc.connections.forEach((c, i) => {
     const f = `connections[${i}]`;
-    if (connIds.has(c.id)) issues.push({ stepId: null, field: `${f}.id`, message: `Connection id "${c.id}" is used twice.` });
+    if (connIds.has(c.id))
+      issues.push({
+        stepId: null,
+        field: `${f}.id`,
+        message: `Connection id "${c.id}" is used twice.`,
+      });
     connIds.add(c.id);
     const from = steps.get(c.from.stepId);
     const to = steps.get(c.to.stepId);
-    if (!from) issues.push({ stepId: null, field: `${f}.from.stepId`, message: `Unknown step "${c.from.stepId}".` });
-    if (!to) issues.push({ stepId: null, field: `${f}.to.stepId`, message: `Unknown step "${c.to.stepId}".` });
+    if (!from)
+      issues.push({
+        stepId: null,
+        field: `${f}.from.stepId`,
+        message: `Unknown step "${c.from.stepId}".`,
+      });
+    if (!to)
+      issues.push({
+        stepId: null,
+        field: `${f}.to.stepId`,
+        message: `Unknown step "${c.to.stepId}".`,
+      });
     if (!from || !to) return;
     const outPort = PORTS[from.kind].outputs.find((p) => p.name === c.from.port);
     const inPort = PORTS[to.kind].inputs.find((p) => p.name === c.to.port);
-    if (!outPort) issues.push({ stepId: from.id, field: `${f}.from.port`, message: `A ${from.kind} step has no output port "${c.from.port}" (it has ${PORTS[from.kind].outputs.map((p) => p.name).join(', ')}).` });
-    if (!inPort) issues.push({ stepId: to.id, field: `${f}.to.port`, message: `A ${to.kind} step has no input port "${c.to.port}" (it has ${PORTS[to.kind].inputs.map((p) => p.name).join(', ') || 'none'}).` });
+    if (!outPort)
+      issues.push({
+        stepId: from.id,
+        field: `${f}.from.port`,
+        message: `A ${from.kind} step has no output port "${c.from.port}" (it has ${PORTS[from.kind].outputs.map((p) => p.name).join(', ')}).`,
+      });
+    if (!inPort)
+      issues.push({
+        stepId: to.id,
+        field: `${f}.to.port`,
+        message: `A ${to.kind} step has no input port "${c.to.port}" (it has ${PORTS[to.kind].inputs.map((p) => p.name).join(', ') || 'none'}).`,
+      });
     if (!outPort || !inPort) return;
-    if (!PHASE_ACCEPTS[inPort.phase].includes(outPort.phase)) issues.push({ stepId: to.id, field: `${f}`, message: `Port "${c.to.port}" takes ${inPort.phase}, not the ${outPort.phase} from ${from.id}.${c.from.port}.` });
-    if (from.id === to.id) issues.push({ stepId: to.id, field: f, message: 'A step cannot feed itself.' });
-    if (outgoing.get(from.id)!.has(c.from.port)) issues.push({ stepId: from.id, field: `${f}.from.port`, message: `Output port "${c.from.port}" is used twice (use a split step to divide a stream).` });
+    if (!PHASE_ACCEPTS[inPort.phase].includes(outPort.phase))
+      issues.push({
+        stepId: to.id,
+        field: `${f}`,
+        message: `Port "${c.to.port}" takes ${inPort.phase}, not the ${outPort.phase} from ${from.id}.${c.from.port}.`,
+      });
+    if (from.id === to.id)
+      issues.push({ stepId: to.id, field: f, message: 'A step cannot feed itself.' });
+    if (outgoing.get(from.id)!.has(c.from.port))
+      issues.push({
+        stepId: from.id,
+        field: `${f}.from.port`,
+        message: `Output port "${c.from.port}" is used twice (use a split step to divide a stream).`,
+      });
     else outgoing.get(from.id)!.set(c.from.port, c);
-    if (incoming.get(to.id)!.has(c.to.port)) issues.push({ stepId: to.id, field: `${f}.to.port`, message: `Input port "${c.to.port}" is used twice (use a merge step to combine streams).` });
+    if (incoming.get(to.id)!.has(c.to.port))
+      issues.push({
+        stepId: to.id,
+        field: `${f}.to.port`,
+        message: `Input port "${c.to.port}" is used twice (use a merge step to combine streams).`,
+      });
     else incoming.get(to.id)!.set(c.to.port, c);
   });
   doc.steps.forEach((s) => {
     for (const p of PORTS[s.kind].inputs) {
-      if (p.required && !incoming.get(s.id)?.has(p.name)) issues.push({ stepId: s.id, field: `inputs.${p.name}`, message: `Required input "${p.name}" is not connected.` });
+      if (p.required && !incoming.get(s.id)?.has(p.name))
+        issues.push({
+          stepId: s.id,
+          field: `inputs.${p.name}`,
+          message: `Required input "${p.name}" is not connected.`,
+        });
     }
     for (const ref of references(s)) {
       const c = ctx.comps.get(ref.id);
@@ -116,23 +245,64 @@ export function validateRoute(doc: RouteDocument, ctx: EvalContext, contextIssue
         issues.push({ stepId: s.id, field: ref.field, message: `Unknown component "${ref.id}".` });
         continue;
       }
-      if (ref.want === 'solvent' && c.kind !== 'solvent') issues.push({ stepId: s.id, field: ref.field, message: `"${ref.id}" is not a solvent component.` });
-      if (ref.want === 'aqueous-solute' && c.kind !== 'aqueous-solute') issues.push({ stepId: s.id, field: ref.field, message: `"${ref.id}" is not an aqueous-solute component.` });
-      if (ref.want === 'compound-or-aqueous' && c.kind === 'solvent') issues.push({ stepId: s.id, field: ref.field, message: `"${ref.id}" must be a compound or an aqueous solute.` });
+      if (ref.want === 'solvent' && c.kind !== 'solvent')
+        issues.push({
+          stepId: s.id,
+          field: ref.field,
+          message: `"${ref.id}" is not a solvent component.`,
+        });
+      if (ref.want === 'aqueous-solute' && c.kind !== 'aqueous-solute')
+        issues.push({
+          stepId: s.id,
+          field: ref.field,
+          message: `"${ref.id}" is not an aqueous-solute component.`,
+        });
+      if (ref.want === 'compound-or-aqueous' && c.kind === 'solvent')
+        issues.push({
+          stepId: s.id,
+          field: ref.field,
+          message: `"${ref.id}" must be a compound or an aqueous solute.`,
+        });
     }
     for (const m of usesAqueousMedium(s)) {
-      if (!ctx.waterId) issues.push({ stepId: s.id, field: m.field, message: 'An aqueous medium needs the solvent "water" among the route components.' });
+      if (!ctx.waterId)
+        issues.push({
+          stepId: s.id,
+          field: m.field,
+          message: 'An aqueous medium needs the solvent "water" among the route components.',
+        });
       const a = ctx.comps.get(m.soluteId)?.aqueous;
       const w = typeof m.wtPct === 'number' ? m.wtPct : m.wtPct.value + m.wtPct.plusMinus;
-      if (a && w > a.maxWtPct) issues.push({ stepId: s.id, field: m.field, message: `${a.name} at ${w} wt% is above its saturation or usual maximum of ${a.maxWtPct} wt%.` });
+      if (a && w > a.maxWtPct)
+        issues.push({
+          stepId: s.id,
+          field: m.field,
+          message: `${a.name} at ${w} wt% is above its saturation or usual maximum of ${a.maxWtPct} wt%.`,
+        });
     }
-    if (s.kind === 'charge' && s.params.contents.some((c) => c.kind === 'component' && c.unit === 'wt%') && s.params.crudeMassKg === undefined) {
-      issues.push({ stepId: s.id, field: 'params.crudeMassKg', message: 'Entries in wt% need the crude mass they refer to.' });
+    if (
+      s.kind === 'charge' &&
+      s.params.contents.some((c) => c.kind === 'component' && c.unit === 'wt%') &&
+      s.params.crudeMassKg === undefined
+    ) {
+      issues.push({
+        stepId: s.id,
+        field: 'params.crudeMassKg',
+        message: 'Entries in wt% need the crude mass they refer to.',
+      });
     }
     if (s.kind === 'charge') {
       s.params.contents.forEach((c, i) => {
-        if (c.kind === 'component' && (c.unit === 'L' || c.unit === 'vol') && ctx.comps.get(c.componentId)?.kind === 'aqueous-solute') {
-          issues.push({ stepId: s.id, field: `params.contents[${i}].unit`, message: 'An aqueous solute is charged by mass or as an aqueous medium, not by volume.' });
+        if (
+          c.kind === 'component' &&
+          (c.unit === 'L' || c.unit === 'vol') &&
+          ctx.comps.get(c.componentId)?.kind === 'aqueous-solute'
+        ) {
+          issues.push({
+            stepId: s.id,
+            field: `params.contents[${i}].unit`,
+            message: 'An aqueous solute is charged by mass or as an aqueous medium, not by volume.',
+          });
         }
       });
     }
@@ -144,7 +314,8 @@ export function validateRoute(doc: RouteDocument, ctx: EvalContext, contextIssue
     index.set(s.id, i);
     indeg.set(s.id, 0);
   });
-  for (const [to, ports] of incoming) for (const _ of ports) indeg.set(to, (indeg.get(to) ?? 0) + 1);
+  for (const [to, ports] of incoming)
+    for (const _ of ports) indeg.set(to, (indeg.get(to) ?? 0) + 1);
   const ready = doc.steps.filter((s) => indeg.get(s.id) === 0).map((s) => s.id);
   const order: string[] = [];
   while (ready.length) {
@@ -159,7 +330,12 @@ export function validateRoute(doc: RouteDocument, ctx: EvalContext, contextIssue
   }
   if (order.length < steps.size) {
     const inCycle = [...steps.keys()].filter((id) => !order.includes(id));
-    for (const id of inCycle) issues.push({ stepId: id, field: 'connections', message: `The step is part of a cycle (${inCycle.join(' → ')}); a route must be acyclic.` });
+    for (const id of inCycle)
+      issues.push({
+        stepId: id,
+        field: 'connections',
+        message: `The step is part of a cycle (${inCycle.join(' → ')}); a route must be acyclic.`,
+      });
   }
   return { issues, graph: { order, incoming, outgoing } };
 }

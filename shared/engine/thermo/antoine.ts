@@ -55,7 +55,11 @@ export function antoineLnPressure(set: AntoineSet, T_K: number): { lnP: number; 
 
 function checkTemperature(T_K: number): void {
   if (!Number.isFinite(T_K) || T_K <= 0) {
-    throw new EngineError('invalid-input', `Temperature must be a finite number of kelvin above 0; got ${T_K}.`, { T_K });
+    throw new EngineError(
+      'invalid-input',
+      `Temperature must be a finite number of kelvin above 0; got ${T_K}.`,
+      { T_K },
+    );
   }
 }
 
@@ -72,7 +76,13 @@ export function vapourPressureWithSlope(
   for (const set of sets) {
     if (T_K >= set.TminK && T_K <= set.TmaxK) {
       const { lnP, dlnPdT } = antoineLnPressure(set, T_K);
-      return { pressurePa: Math.exp(lnP), dlnPdT, method: 'antoine', source: set.source, warnings: [] };
+      return {
+        pressurePa: Math.exp(lnP),
+        dlnPdT,
+        method: 'antoine',
+        source: set.source,
+        warnings: [],
+      };
     }
   }
   if (sets.length > 0) {
@@ -107,7 +117,8 @@ export function vapourPressureWithSlope(
   }
   if (fallback && fallback.TbK > 0 && fallback.dHvapJmol > 0) {
     const lnP =
-      Math.log(STANDARD_ATMOSPHERE_PA) - (fallback.dHvapJmol / R_J_PER_MOL_K) * (1 / T_K - 1 / fallback.TbK);
+      Math.log(STANDARD_ATMOSPHERE_PA) -
+      (fallback.dHvapJmol / R_J_PER_MOL_K) * (1 / T_K - 1 / fallback.TbK);
     return {
       pressurePa: Math.exp(lnP),
       dlnPdT: fallback.dHvapJmol / (R_J_PER_MOL_K * T_K * T_K),
@@ -178,7 +189,11 @@ export function vapourPressure(
  */
 export function antoineTemperature(set: AntoineSet, P_Pa: number): number {
   if (!Number.isFinite(P_Pa) || P_Pa <= 0) {
-    throw new EngineError('invalid-input', `Pressure must be a finite number of pascal above 0; got ${P_Pa}.`, { P_Pa });
+    throw new EngineError(
+      'invalid-input',
+      `Pressure must be a finite number of pascal above 0; got ${P_Pa}.`,
+      { P_Pa },
+    );
   }
   const theta = set.B / (set.A - Math.log10(P_Pa / PA_PER_BAR)) - set.C;
   return set.form === 'log10-bar-degC' ? theta + T0_K : theta;

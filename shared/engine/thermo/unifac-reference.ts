@@ -16,7 +16,11 @@ import { indexUnifacGroups } from './unifac';
  * @param x           mole fractions [–], summing to 1
  * @param T_K         temperature [K]
  */
-export function referenceLnGammas(components: readonly UnifacGroups[], x: readonly number[], T_K: number): number[] {
+export function referenceLnGammas(
+  components: readonly UnifacGroups[],
+  x: readonly number[],
+  T_K: number,
+): number[] {
   const { subgroups } = indexUnifacGroups(components);
   const R = subgroups.map((s) => UNIFAC_SUBGROUPS.get(s)!.R);
   const Q = subgroups.map((s) => UNIFAC_SUBGROUPS.get(s)!.Q);

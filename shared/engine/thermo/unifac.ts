@@ -63,12 +63,18 @@ export function indexUnifacGroups(components: readonly UnifacGroups[]): UnifacGr
   components.forEach((groups, i) => {
     const entries = Object.entries(groups);
     if (entries.length === 0) {
-      throw new EngineError('invalid-input', `Component ${i + 1} has no UNIFAC groups.`, { component: i });
+      throw new EngineError('invalid-input', `Component ${i + 1} has no UNIFAC groups.`, {
+        component: i,
+      });
     }
     for (const [key, count] of entries) {
       const id = Number(key);
       if (!Number.isFinite(count) || count < 0) {
-        throw new EngineError('invalid-input', `Component ${i + 1}: subgroup ${key} has count ${count}.`, { component: i });
+        throw new EngineError(
+          'invalid-input',
+          `Component ${i + 1}: subgroup ${key} has count ${count}.`,
+          { component: i },
+        );
       }
       if (count === 0) continue;
       if (!UNIFAC_SUBGROUPS.has(id)) {
@@ -95,14 +101,20 @@ export function indexUnifacGroups(components: readonly UnifacGroups[]): UnifacGr
   }
   if (unknownSubgroups.length > 0 || missingPairs.length > 0) {
     const parts: string[] = [];
-    if (unknownSubgroups.length > 0) parts.push(`unknown UNIFAC subgroup(s) ${unknownSubgroups.join(', ')}`);
+    if (unknownSubgroups.length > 0)
+      parts.push(`unknown UNIFAC subgroup(s) ${unknownSubgroups.join(', ')}`);
     if (missingPairs.length > 0) {
       parts.push(
         'no published interaction parameters for main-group pair(s) ' +
-          missingPairs.map((p) => `${p.names[0]} (${p.mainGroupA}) – ${p.names[1]} (${p.mainGroupB})`).join(', '),
+          missingPairs
+            .map((p) => `${p.names[0]} (${p.mainGroupA}) – ${p.names[1]} (${p.mainGroupB})`)
+            .join(', '),
       );
     }
-    throw new UnifacParameterError(`UNIFAC cannot be evaluated: ${parts.join('; ')}.`, { missingPairs, unknownSubgroups });
+    throw new UnifacParameterError(`UNIFAC cannot be evaluated: ${parts.join('; ')}.`, {
+      missingPairs,
+      unknownSubgroups,
+    });
   }
   return { subgroups, mainGroups };
 }
@@ -110,25 +122,39 @@ export function indexUnifacGroups(components: readonly UnifacGroups[]): UnifacGr
 /** Checks a composition and returns 1/Σx (the normalising factor). */
 export function checkComposition(x: ArrayLike<number>, n: number): number {
   if (x.length !== n) {
-    throw new EngineError('invalid-input', `Composition has ${x.length} entries; the mixture has ${n} components.`, { length: x.length, n });
+    throw new EngineError(
+      'invalid-input',
+      `Composition has ${x.length} entries; the mixture has ${n} components.`,
+      { length: x.length, n },
+    );
   }
   let sum = 0;
   for (let i = 0; i < n; i++) {
     const xi = x[i];
     if (!Number.isFinite(xi) || xi < 0) {
-      throw new EngineError('invalid-input', `Mole fraction ${i + 1} is ${xi}; it must be finite and ≥ 0.`, { index: i });
+      throw new EngineError(
+        'invalid-input',
+        `Mole fraction ${i + 1} is ${xi}; it must be finite and ≥ 0.`,
+        { index: i },
+      );
     }
     sum += xi;
   }
   if (Math.abs(sum - 1) > 1e-6) {
-    throw new EngineError('invalid-input', `Mole fractions sum to ${sum}; they must sum to 1.`, { sum });
+    throw new EngineError('invalid-input', `Mole fractions sum to ${sum}; they must sum to 1.`, {
+      sum,
+    });
   }
   return 1 / sum;
 }
 
 function checkTemperature(T_K: number): void {
   if (!Number.isFinite(T_K) || T_K <= 0) {
-    throw new EngineError('invalid-input', `Temperature must be a finite number of kelvin above 0; got ${T_K}.`, { T_K });
+    throw new EngineError(
+      'invalid-input',
+      `Temperature must be a finite number of kelvin above 0; got ${T_K}.`,
+      { T_K },
+    );
   }
 }
 
@@ -152,14 +178,16 @@ function checkTemperature(T_K: number): void {
  */
 export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
   const n = components.length;
-  if (n === 0) throw new EngineError('invalid-input', 'A UNIFAC model needs at least one component.');
+  if (n === 0)
+    throw new EngineError('invalid-input', 'A UNIFAC model needs at least one component.');
   const { subgroups, mainGroups } = indexUnifacGroups(components);
   const K = subgroups.length;
   const Qk = new Float64Array(K);
   const aMatrix = new Float64Array(K * K);
   for (let k = 0; k < K; k++) {
     Qk[k] = UNIFAC_SUBGROUPS.get(subgroups[k])!.Q;
-    for (let m = 0; m < K; m++) aMatrix[k * K + m] = mainGroupInteraction(mainGroups[k], mainGroups[m])!;
+    for (let m = 0; m < K; m++)
+      aMatrix[k * K + m] = mainGroupInteraction(mainGroups[k], mainGroups[m])!;
   }
   // ν_ki stored component-major: nu[i*K + k].
   const nu = new Float64Array(n * K);
@@ -345,7 +373,11 @@ export function createUnifacModelCache(maxModels = 256): UnifacModelCache {
  *
  * Example: activityCoefficients([{1:2, 2:5}, {1:1, 3:1, 18:1}], ...) — see createUnifac.
  */
-export function activityCoefficients(components: readonly UnifacGroups[], x: readonly number[], T_K: number): number[] {
+export function activityCoefficients(
+  components: readonly UnifacGroups[],
+  x: readonly number[],
+  T_K: number,
+): number[] {
   return Array.from(createUnifac(components).gammas(x, T_K));
 }
 
@@ -358,8 +390,20 @@ export function activityCoefficients(components: readonly UnifacGroups[], x: rea
  */
 export function unifacGroupsSummary(
   groups: UnifacGroups,
-): Array<{ subgroup: number; name: string; mainGroup: number; mainGroupName: string; count: number }> {
-  const rows: Array<{ subgroup: number; name: string; mainGroup: number; mainGroupName: string; count: number }> = [];
+): Array<{
+  subgroup: number;
+  name: string;
+  mainGroup: number;
+  mainGroupName: string;
+  count: number;
+}> {
+  const rows: Array<{
+    subgroup: number;
+    name: string;
+    mainGroup: number;
+    mainGroupName: string;
+    count: number;
+  }> = [];
   const unknown: number[] = [];
   for (const [key, count] of Object.entries(groups)) {
     const id = Number(key);
@@ -368,10 +412,19 @@ export function unifacGroupsSummary(
       unknown.push(id);
       continue;
     }
-    rows.push({ subgroup: id, name: sg.name, mainGroup: sg.mainGroup, mainGroupName: UNIFAC_MAIN_GROUPS[sg.mainGroup], count });
+    rows.push({
+      subgroup: id,
+      name: sg.name,
+      mainGroup: sg.mainGroup,
+      mainGroupName: UNIFAC_MAIN_GROUPS[sg.mainGroup],
+      count,
+    });
   }
   if (unknown.length > 0) {
-    throw new UnifacParameterError(`Unknown UNIFAC subgroup(s) ${unknown.join(', ')}.`, { missingPairs: [], unknownSubgroups: unknown });
+    throw new UnifacParameterError(`Unknown UNIFAC subgroup(s) ${unknown.join(', ')}.`, {
+      missingPairs: [],
+      unknownSubgroups: unknown,
+    });
   }
   return rows.sort((a, b) => a.subgroup - b.subgroup);
 }

@@ -53,7 +53,8 @@ export interface VleSystem {
  * @returns the system; throws UnifacParameterError when a group pair has no parameters
  */
 export function createVleSystem(components: readonly VleComponent[]): VleSystem {
-  if (components.length === 0) throw new EngineError('invalid-input', 'A VLE system needs at least one component.');
+  if (components.length === 0)
+    throw new EngineError('invalid-input', 'A VLE system needs at least one component.');
   return { components, unifac: createUnifac(components.map((c) => c.unifac)) };
 }
 
@@ -62,7 +63,9 @@ function componentLabel(sys: VleSystem, i: number): string {
 }
 
 function fallbackOf(c: VleComponent): { TbK: number; dHvapJmol: number } | undefined {
-  return c.TbK !== undefined && c.dHvapJmol !== undefined ? { TbK: c.TbK, dHvapJmol: c.dHvapJmol } : undefined;
+  return c.TbK !== undefined && c.dHvapJmol !== undefined
+    ? { TbK: c.TbK, dHvapJmol: c.dHvapJmol }
+    : undefined;
 }
 
 /**
@@ -71,7 +74,12 @@ function fallbackOf(c: VleComponent): { TbK: number; dHvapJmol: number } | undef
  * Inline Antoine inside a range; the general routine (with its
  * extrapolation) otherwise.
  */
-function saturationPressures(sys: VleSystem, T_K: number, lnP: Float64Array, slope: Float64Array): void {
+function saturationPressures(
+  sys: VleSystem,
+  T_K: number,
+  lnP: Float64Array,
+  slope: Float64Array,
+): void {
   const comps = sys.components;
   for (let i = 0; i < comps.length; i++) {
     const c = comps[i];
@@ -116,20 +124,30 @@ function saturationTemperature(c: VleComponent, P_Pa: number): number {
     if (Number.isFinite(T) && T > 0) return T;
   }
   if (c.TbK && c.dHvapJmol) {
-    return 1 / (1 / c.TbK - (R_J_PER_MOL_K * Math.log(P_Pa / STANDARD_ATMOSPHERE_PA)) / c.dHvapJmol);
+    return (
+      1 / (1 / c.TbK - (R_J_PER_MOL_K * Math.log(P_Pa / STANDARD_ATMOSPHERE_PA)) / c.dHvapJmol)
+    );
   }
   return 350;
 }
 
 function checkPressure(P_Pa: number): void {
   if (!Number.isFinite(P_Pa) || P_Pa <= 0) {
-    throw new EngineError('invalid-input', `Pressure must be a finite number of pascal above 0; got ${P_Pa}.`, { P_Pa });
+    throw new EngineError(
+      'invalid-input',
+      `Pressure must be a finite number of pascal above 0; got ${P_Pa}.`,
+      { P_Pa },
+    );
   }
 }
 
 function checkTemperature(T_K: number): void {
   if (!Number.isFinite(T_K) || T_K <= 0) {
-    throw new EngineError('invalid-input', `Temperature must be a finite number of kelvin above 0; got ${T_K}.`, { T_K });
+    throw new EngineError(
+      'invalid-input',
+      `Temperature must be a finite number of kelvin above 0; got ${T_K}.`,
+      { T_K },
+    );
   }
 }
 
@@ -141,7 +159,8 @@ function normalised(x: readonly number[], n: number): Float64Array {
 }
 
 function requireVolatile(sys: VleSystem, x: ArrayLike<number>, what: string): void {
-  for (let i = 0; i < sys.components.length; i++) if (!sys.components[i].nonVolatile && x[i] > 0) return;
+  for (let i = 0; i < sys.components.length; i++)
+    if (!sys.components[i].nonVolatile && x[i] > 0) return;
   throw new EngineError('invalid-input', `The ${what} contains no volatile component.`);
 }
 
@@ -246,7 +265,9 @@ export function bubblePoint(
     T = next;
   }
   if (!converged) {
-    warnings.push(`Bubble-point iteration did not converge (residual ln P = ${f.toExponential(2)}); result approximate.`);
+    warnings.push(
+      `Bubble-point iteration did not converge (residual ln P = ${f.toExponential(2)}); result approximate.`,
+    );
   }
   saturationPressures(sys, T, lnP, slope);
   const gammas = Array.from(sys.unifac.gammas(xs, T));
@@ -290,7 +311,12 @@ export function bubblePressure(
   const gammas = Array.from(sys.unifac.gammas(xs, T_K));
   const partial = gammas.map((g, i) => (lnP[i] === -Infinity ? 0 : xs[i] * g * Math.exp(lnP[i])));
   const P = partial.reduce((a, b) => a + b, 0);
-  return { P_Pa: P, y: partial.map((p) => p / P), gammas, warnings: saturationWarnings(sys, T_K, xs) };
+  return {
+    P_Pa: P,
+    y: partial.map((p) => p / P),
+    gammas,
+    warnings: saturationWarnings(sys, T_K, xs),
+  };
 }
 
 /**
@@ -313,13 +339,21 @@ export function bubblePressure(
  *
  * Example: ethanol–water y = [0.5, 0.5] at 101 325 Pa → T ≈ 360 K.
  */
-export function dewPoint(sys: VleSystem, y: readonly number[], P_Pa: number): { T_K: number; x: number[]; warnings: string[] } {
+export function dewPoint(
+  sys: VleSystem,
+  y: readonly number[],
+  P_Pa: number,
+): { T_K: number; x: number[]; warnings: string[] } {
   const n = sys.components.length;
   const ys = normalised(y, n);
   checkPressure(P_Pa);
   for (let i = 0; i < n; i++) {
     if (sys.components[i].nonVolatile && ys[i] > 0) {
-      throw new EngineError('invalid-input', `${componentLabel(sys, i)} is non-volatile and cannot be in the vapour.`, { index: i });
+      throw new EngineError(
+        'invalid-input',
+        `${componentLabel(sys, i)} is non-volatile and cannot be in the vapour.`,
+        { index: i },
+      );
     }
   }
   requireVolatile(sys, ys, 'vapour');
@@ -328,7 +362,8 @@ export function dewPoint(sys: VleSystem, y: readonly number[], P_Pa: number): { 
   const lnGamma = new Float64Array(n);
   const xs = new Float64Array(n);
   let T = 0;
-  for (let i = 0; i < n; i++) if (ys[i] > 0) T += ys[i] * saturationTemperature(sys.components[i], P_Pa);
+  for (let i = 0; i < n; i++)
+    if (ys[i] > 0) T += ys[i] * saturationTemperature(sys.components[i], P_Pa);
   // Starting liquid: ideal (γ = 1) at the starting T.
   const liquidAt = (temperature: number): number => {
     saturationPressures(sys, temperature, lnP, slope);
@@ -375,11 +410,15 @@ export function dewPoint(sys: VleSystem, y: readonly number[], P_Pa: number): { 
     for (let i = 0; i < n; i++) if (xs[i] > 0) d -= xs[i] * slope[i];
     let next = T - g / d;
     if (Math.abs(next - T) > 40) next = T + Math.sign(next - T) * 40;
-    if (!Number.isFinite(next) || next <= lo || next >= hi) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : T + 20;
+    if (!Number.isFinite(next) || next <= lo || next >= hi)
+      next = Number.isFinite(hi) ? 0.5 * (lo + hi) : T + 20;
     T = next;
   }
   const warnings = saturationWarnings(sys, T, ys);
-  if (!converged) warnings.push(`Dew-point iteration did not converge (residual ${g.toExponential(2)}); result approximate.`);
+  if (!converged)
+    warnings.push(
+      `Dew-point iteration did not converge (residual ${g.toExponential(2)}); result approximate.`,
+    );
   return { T_K: T, x: Array.from(xs), warnings };
 }
 
@@ -422,7 +461,10 @@ export interface AzeotropeResult {
  */
 export function findBinaryAzeotrope(sys: VleSystem, P_Pa: number): AzeotropeResult {
   if (sys.components.length !== 2) {
-    throw new EngineError('invalid-input', `The azeotrope search needs exactly two components; got ${sys.components.length}.`);
+    throw new EngineError(
+      'invalid-input',
+      `The azeotrope search needs exactly two components; got ${sys.components.length}.`,
+    );
   }
   if (sys.components.some((c) => c.nonVolatile)) {
     throw new EngineError('invalid-input', 'Both components of an azeotrope must be volatile.');
@@ -447,7 +489,8 @@ export function findBinaryAzeotrope(sys: VleSystem, P_Pa: number): AzeotropeResu
   }
   const warnings: string[] = [];
   if (roots.length === 0) return { found: false, warnings };
-  if (roots.length > 1) warnings.push(`${roots.length} azeotropes found; the one at lowest x1 is reported.`);
+  if (roots.length > 1)
+    warnings.push(`${roots.length} azeotropes found; the one at lowest x1 is reported.`);
   let [lo, hi] = roots[0];
   let fLo = lnAlpha(lo).value;
   while (hi - lo > 1e-10) {
@@ -475,7 +518,13 @@ export function findBinaryAzeotrope(sys: VleSystem, P_Pa: number): AzeotropeResu
       'The liquid splits into two phases at the azeotrope: heterogeneous azeotrope; temperature and composition from the three-phase boiling point (the composition given is that of the vapour, equal to the overall liquid).',
       ...het.warnings,
     );
-    return { found: true, T_K: het.T_K, x: [het.y[0], het.y[1]], kind: 'minimum-boiling', warnings };
+    return {
+      found: true,
+      T_K: het.T_K,
+      x: [het.y[0], het.y[1]],
+      kind: 'minimum-boiling',
+      warnings,
+    };
   }
   const kind = bubble.T_K < Math.min(T1, T2) ? 'minimum-boiling' : 'maximum-boiling';
   return { found: true, T_K: bubble.T_K, x: [x1, 1 - x1], kind, warnings };
@@ -551,7 +600,11 @@ export type LiquidLiquidResult =
  * Example: toluene–water z = [0.5, 0.5] at 298.15 K → split, water phase with
  * x_toluene of order 1e-4, toluene phase with x_water of order 1e-2.
  */
-export function liquidLiquidSplit(sys: VleSystem, z: readonly number[], T_K: number): LiquidLiquidResult {
+export function liquidLiquidSplit(
+  sys: VleSystem,
+  z: readonly number[],
+  T_K: number,
+): LiquidLiquidResult {
   const n = sys.components.length;
   const zs = normalised(z, n);
   checkTemperature(T_K);
@@ -638,10 +691,12 @@ export function liquidLiquidSplit(sys: VleSystem, z: readonly number[], T_K: num
   let distance = 0;
   for (let i = 0; i < n; i++) distance = Math.max(distance, Math.abs(xI[i] - xII[i]));
   if (distance < 1e-6) return { split: false, warnings };
-  if (!converged) warnings.push('Liquid–liquid flash did not fully converge; phase compositions approximate.');
+  if (!converged)
+    warnings.push('Liquid–liquid flash did not fully converge; phase compositions approximate.');
   const phaseI = Array.from(xI);
   const phaseII = Array.from(xII);
-  if (phaseI[0] >= phaseII[0]) return { split: true, phases: [phaseI, phaseII], phaseFraction: beta, warnings };
+  if (phaseI[0] >= phaseII[0])
+    return { split: true, phases: [phaseI, phaseII], phaseFraction: beta, warnings };
   return { split: true, phases: [phaseII, phaseI], phaseFraction: 1 - beta, warnings };
 }
 
@@ -679,7 +734,12 @@ export function heterogeneousBubblePoint(
   const homogeneous = bubblePoint(sys, zs, P_Pa);
   const atHomogeneous = liquidLiquidSplit(sys, zs, homogeneous.T_K);
   if (!atHomogeneous.split) {
-    return { T_K: homogeneous.T_K, y: homogeneous.y, liquidPhases: 1, warnings: homogeneous.warnings };
+    return {
+      T_K: homogeneous.T_K,
+      y: homogeneous.y,
+      liquidPhases: 1,
+      warnings: homogeneous.warnings,
+    };
   }
   const evaluate = (T: number): { f: number; y: number[]; phases: number } => {
     const s = liquidLiquidSplit(sys, zs, T);
@@ -690,7 +750,8 @@ export function heterogeneousBubblePoint(
   // Secant on 1/T (ln P_calc is nearly linear in 1/T, Clausius–Clapeyron), safeguarded by a bracket.
   let T = homogeneous.T_K;
   let current = evaluate(T);
-  const inv = (T1: number, f1: number, T2: number, f2: number) => 1 / (1 / T1 - (f1 * (1 / T2 - 1 / T1)) / (f2 - f1));
+  const inv = (T1: number, f1: number, T2: number, f2: number) =>
+    1 / (1 / T1 - (f1 * (1 / T2 - 1 / T1)) / (f2 - f1));
   // Bracket: step from the homogeneous bubble point towards the root, 2 K first, then to 0.2 K beyond
   // the secant estimate of the root (0.5–20 K a step, at most 200 K in all).
   let lo = T;
@@ -724,7 +785,11 @@ export function heterogeneousBubblePoint(
     fHi = evaluate(hi).f;
   }
   if (!(fLo <= 0 && fHi >= 0)) {
-    throw new EngineError('no-convergence', 'Could not bracket the boiling point of the two-phase liquid.', { P_Pa });
+    throw new EngineError(
+      'no-convergence',
+      'Could not bracket the boiling point of the two-phase liquid.',
+      { P_Pa },
+    );
   }
   // Refine: secant through the last two points when it falls inside the bracket, else bisection;
   // bisection also when the bracket has not halved in three steps.
@@ -755,6 +820,7 @@ export function heterogeneousBubblePoint(
   T = lo === hi ? lo : 0.5 * (lo + hi);
   current = last && last.T === T ? last.value : evaluate(T);
   const warnings = saturationWarnings(sys, T, zs);
-  if (current.phases === 2) warnings.push('Two liquid phases boil together (heterogeneous boiling).');
+  if (current.phases === 2)
+    warnings.push('Two liquid phases boil together (heterogeneous boiling).');
   return { T_K: T, y: current.y, liquidPhases: current.phases, warnings };
 }

@@ -14,21 +14,43 @@
 import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
 import type { EvalContext } from '../route/context';
-import { aqueousMediumKg, cloneStream, commonCautions, cToK, emptyStream, finishStream, method, volumeToM3 } from '../route/context';
+import {
+  aqueousMediumKg,
+  cloneStream,
+  commonCautions,
+  cToK,
+  emptyStream,
+  finishStream,
+  method,
+  volumeToM3,
+} from '../route/context';
 import { StepError } from '../route/errors';
 import type { StepOutput, Stream } from '../route/types';
 import { addTo, COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 
-export function charge(inputs: Record<string, Stream | undefined>, params: ParamsOf<'charge'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function charge(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'charge'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.charge, basis: COMMON_PRACTICE_BASIS });
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.charge,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   const out = inputs.feed ? cloneStream(inputs.feed) : emptyStream(ctx, 'liquid', T);
   out.temperatureK = T;
-  const crudeKg = params.crudeMassKg !== undefined ? ctx.num(params.crudeMassKg, ...RANGES.massKg) : undefined;
+  const crudeKg =
+    params.crudeMassKg !== undefined ? ctx.num(params.crudeMassKg, ...RANGES.massKg) : undefined;
   let addedVolume = 0;
   params.contents.forEach((e, i) => {
     if (e.kind === 'aqueous') {
-      if (!ctx.waterId) throw new StepError(`params.contents[${i}]`, 'An aqueous medium needs the solvent "water" among the route components.');
+      if (!ctx.waterId)
+        throw new StepError(
+          `params.contents[${i}]`,
+          'An aqueous medium needs the solvent "water" among the route components.',
+        );
       const V = volumeToM3(ctx, e.volume);
       const { waterKg, soluteKg } = aqueousMediumKg(ctx, e.soluteId, ctx.num(e.wtPct, 0, 60), V, T);
       addTo(result.addedKg, ctx.waterId, waterKg);
@@ -44,7 +66,8 @@ export function charge(inputs: Record<string, Stream | undefined>, params: Param
         kg = amount;
         break;
       case 'wt%':
-        if (crudeKg === undefined) throw new StepError(`params.contents[${i}].unit`, 'wt% needs the charge\'s crudeMassKg.');
+        if (crudeKg === undefined)
+          throw new StepError(`params.contents[${i}].unit`, "wt% needs the charge's crudeMassKg.");
         kg = (amount / 100) * crudeKg;
         break;
       case 'L':
@@ -67,8 +90,16 @@ export function charge(inputs: Record<string, Stream | undefined>, params: Param
   result.addedVolumeM3 = addedVolume;
   result.peakVolumeM3 = out.volumeM3;
   commonCautions(ctx, out.kg, T, result.warnings, { transfer: true });
-  method(result.methods, 'volumes', 'ideal mixing of component volumes', 'densities from the solvent library; compounds at their stated density or 1.2 g/mL (common practice)');
-  result.summary = { 'charged kg': round(Object.values(result.addedKg).reduce((a, b) => a + b, 0)), 'volume L': round(out.volumeM3 * 1000, 3) };
+  method(
+    result.methods,
+    'volumes',
+    'ideal mixing of component volumes',
+    'densities from the solvent library; compounds at their stated density or 1.2 g/mL (common practice)',
+  );
+  result.summary = {
+    'charged kg': round(Object.values(result.addedKg).reduce((a, b) => a + b, 0)),
+    'volume L': round(out.volumeM3 * 1000, 3),
+  };
   result.details = { chargedKg: { ...result.addedKg } };
   return { outputs: { out }, result };
 }

@@ -2,7 +2,10 @@
 import type { RouteStep } from '../../schemas/route';
 import type { StepDuration, StepResult } from '../route/types';
 
-export function newResult(step: Pick<RouteStep, 'id' | 'kind' | 'name'>, duration: StepDuration): StepResult {
+export function newResult(
+  step: Pick<RouteStep, 'id' | 'kind' | 'name'>,
+  duration: StepDuration,
+): StepResult {
   return {
     stepId: step.id,
     kind: step.kind,

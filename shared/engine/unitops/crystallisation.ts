@@ -20,7 +20,17 @@
 import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
 import type { EvalContext } from '../route/context';
-import { commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import {
+  commonCautions,
+  cToK,
+  emptyStream,
+  finishStream,
+  method,
+  solventKgFromVolume,
+  streamVolume,
+  volumeToM3,
+  warn,
+} from '../route/context';
 import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
@@ -33,7 +43,13 @@ export interface Precipitation {
 }
 
 /** Solid formed from a liquid of total composition kg at T (equilibrium end point). */
-export function precipitate(ctx: EvalContext, kg: Record<string, number>, T_K: number, warnings: EngineWarning[], methods: MethodUsed[]): Precipitation {
+export function precipitate(
+  ctx: EvalContext,
+  kg: Record<string, number>,
+  T_K: number,
+  warnings: EngineWarning[],
+  methods: MethodUsed[],
+): Precipitation {
   const solidKg: Record<string, number> = {};
   const saturationKg: Record<string, number | null> = {};
   const waterKg = ctx.waterId ? kg[ctx.waterId] : 0;
@@ -46,7 +62,13 @@ export function precipitate(ctx: EvalContext, kg: Record<string, number>, T_K: n
       const cap = waterKg > 0 ? (waterKg * max) / (100 - max) : 0;
       saturationKg[id] = cap;
       solidKg[id] = Math.max(0, kg[id] - cap);
-      if (solidKg[id] > 0) method(methods, `solubility of ${c.name}`, 'saturation wt % in the water present; insoluble in organic solvents (assumed)', 'aqueous-media library (maxWtPct)');
+      if (solidKg[id] > 0)
+        method(
+          methods,
+          `solubility of ${c.name}`,
+          'saturation wt % in the water present; insoluble in organic solvents (assumed)',
+          'aqueous-media library (maxWtPct)',
+        );
       continue;
     }
     const s = solubilityIn(ctx, id, kg, T_K, warnings, methods);
@@ -60,7 +82,12 @@ export function precipitate(ctx: EvalContext, kg: Record<string, number>, T_K: n
   return { solidKg, saturationKg };
 }
 
-export function crystallisation(inputs: Record<string, Stream | undefined>, params: ParamsOf<'crystallisation'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function crystallisation(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'crystallisation'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
   const result = newResult(step, { hours: 0, basis: COMMON_PRACTICE_BASIS });
   const W = result.warnings;
@@ -76,13 +103,18 @@ export function crystallisation(inputs: Record<string, Stream | undefined>, para
   if (mode.kind === 'cooling') {
     T_start = cToK(ctx.num(mode.startC, ...RANGES.temperatureC));
     T_end = cToK(ctx.num(mode.endC, ...RANGES.temperatureC));
-    if (T_end > T_start) warn(W, 'warning', 'not-cooling', 'The end temperature is above the start temperature.');
+    if (T_end > T_start)
+      warn(W, 'warning', 'not-cooling', 'The end temperature is above the start temperature.');
     hours += Math.abs(T_start - T_end) / COMMON_PRACTICE_HOURS.coolingKPerHour;
   } else if (mode.kind === 'antisolvent') {
     T_end = cToK(ctx.num(mode.temperatureC, ...RANGES.temperatureC));
     T_start = T_end;
     const c = ctx.comps.get(mode.antisolventId)!;
-    if (c.kind !== 'solvent') throw new StepError('params.mode.antisolventId', 'The antisolvent must be a solvent component.');
+    if (c.kind !== 'solvent')
+      throw new StepError(
+        'params.mode.antisolventId',
+        'The antisolvent must be a solvent component.',
+      );
     const V = volumeToM3(ctx, mode.volume);
     const kg = solventKgFromVolume(ctx, mode.antisolventId, V, T_end);
     mix[mode.antisolventId] += kg;
@@ -93,14 +125,25 @@ export function crystallisation(inputs: Record<string, Stream | undefined>, para
   } else {
     const P = ctx.num(mode.pressureMbar, ...RANGES.pressureMbar) * 100;
     const st = newDistilState(ctx, feed, Math.max(feed.temperatureK, 300), null);
-    distilLeg(ctx, st, volumeToM3(ctx, mode.targetVolume), { kind: 'pressure', P_Pa: P }, INCREMENTS_PER_LEG, W, M);
+    distilLeg(
+      ctx,
+      st,
+      volumeToM3(ctx, mode.targetVolume),
+      { kind: 'pressure', P_Pa: P },
+      INCREMENTS_PER_LEG,
+      W,
+      M,
+    );
     for (const id of ctx.ids) {
       mix[id] = st.pot[id];
       distillate.kg[id] = st.distillate[id];
     }
     T_end = st.lastT_K;
     T_start = st.maxT_K || T_end;
-    hours += COMMON_PRACTICE_HOURS.distillationSetup + (st.distillateM3 * 1000) / Math.max(1e-9, COMMON_PRACTICE_HOURS.distillateVolumesPerHour * peak * 1000);
+    hours +=
+      COMMON_PRACTICE_HOURS.distillationSetup +
+      (st.distillateM3 * 1000) /
+        Math.max(1e-9, COMMON_PRACTICE_HOURS.distillateVolumesPerHour * peak * 1000);
     result.details.profile = st.profile;
   }
   finishStream(ctx, distillate);
@@ -114,9 +157,20 @@ export function crystallisation(inputs: Record<string, Stream | undefined>, para
   }
 
   // Dissolved at the start?
-  if (pid && mode.kind === 'cooling' && feed.kg[pid] > 0 && !ctx.ids.some((id) => feed.solidKg[id] > 0)) {
+  if (
+    pid &&
+    mode.kind === 'cooling' &&
+    feed.kg[pid] > 0 &&
+    !ctx.ids.some((id) => feed.solidKg[id] > 0)
+  ) {
     const start = precipitate(ctx, feed.kg, T_start, [], []);
-    if (start.solidKg[pid] > 1e-6 * feed.kg[pid]) warn(W, 'warning', 'not-dissolved-at-start', `${ctx.comps.get(pid)!.name} is not fully dissolved at the start temperature (${(T_start - 273.15).toFixed(0)} °C): ${((100 * start.solidKg[pid]) / feed.kg[pid]).toFixed(1)} % undissolved; heat higher or add solvent for a clean crystallisation.`);
+    if (start.solidKg[pid] > 1e-6 * feed.kg[pid])
+      warn(
+        W,
+        'warning',
+        'not-dissolved-at-start',
+        `${ctx.comps.get(pid)!.name} is not fully dissolved at the start temperature (${(T_start - 273.15).toFixed(0)} °C): ${((100 * start.solidKg[pid]) / feed.kg[pid]).toFixed(1)} % undissolved; heat higher or add solvent for a clean crystallisation.`,
+      );
   }
 
   const end = precipitate(ctx, mix, T_end, W, M);
@@ -128,21 +182,40 @@ export function crystallisation(inputs: Record<string, Stream | undefined>, para
   finishStream(ctx, slurry);
   peak = Math.max(peak, slurry.volumeM3);
 
-  const details: Record<string, unknown> = { ...result.details, mode: mode.kind, seeded: params.seeded, seedKg, endTemperatureC: T_end - 273.15, startTemperatureC: T_start - 273.15 };
+  const details: Record<string, unknown> = {
+    ...result.details,
+    mode: mode.kind,
+    seeded: params.seeded,
+    seedKg,
+    endTemperatureC: T_end - 273.15,
+    startTemperatureC: T_start - 273.15,
+  };
   const saturation: Record<string, number | null> = {};
-  for (const id of ctx.ids) if (end.saturationKg[id] !== undefined) saturation[id] = end.saturationKg[id];
+  for (const id of ctx.ids)
+    if (end.saturationKg[id] !== undefined) saturation[id] = end.saturationKg[id];
   details.saturationKg = saturation;
   if (pid && mix[pid] > 0) {
     const cp = ctx.comps.get(pid)!.compound!;
     const yieldFrac = slurry.solidKg[pid] / mix[pid];
     result.summary['yield %'] = round(100 * yieldFrac, 2);
     details.yieldPct = 100 * yieldFrac;
-    if (cp.meltingPointC !== undefined && Math.max(T_start, T_end) - 273.15 > cp.meltingPointC - 10) {
-      W.push({ severity: 'warning', code: 'oiling-out', message: `The crystallisation runs within 10 K of the product's melting point (${cp.meltingPointC} °C): it may separate as an oil.` });
+    if (
+      cp.meltingPointC !== undefined &&
+      Math.max(T_start, T_end) - 273.15 > cp.meltingPointC - 10
+    ) {
+      W.push({
+        severity: 'warning',
+        code: 'oiling-out',
+        message: `The crystallisation runs within 10 K of the product's melting point (${cp.meltingPointC} °C): it may separate as an oil.`,
+      });
     }
     const sat = end.saturationKg[pid];
     if (!params.seeded && sat && sat > 0 && mix[pid] / sat > 2) {
-      W.push({ severity: 'advisory', code: 'unseeded', message: `Unseeded, with the product ${(mix[pid] / sat).toFixed(1)}× its end-point solubility: uncontrolled nucleation or oiling out is likely (common practice: seed within the metastable zone).` });
+      W.push({
+        severity: 'advisory',
+        code: 'unseeded',
+        message: `Unseeded, with the product ${(mix[pid] / sat).toFixed(1)}× its end-point solubility: uncontrolled nucleation or oiling out is likely (common practice: seed within the metastable zone).`,
+      });
     }
     if (mode.kind === 'cooling') {
       const curve: Array<{ endC: number; yieldPct: number }> = [];
@@ -150,7 +223,10 @@ export function crystallisation(inputs: Record<string, Stream | undefined>, para
       for (let k = 0; k <= 5; k++) {
         const T = t0 + ((T_end - t0) * k) / 5;
         const p = precipitate(ctx, mix, T, [], []);
-        curve.push({ endC: round(T - 273.15, 2), yieldPct: round((100 * p.solidKg[pid]) / mix[pid], 3) });
+        curve.push({
+          endC: round(T - 273.15, 2),
+          yieldPct: round((100 * p.solidKg[pid]) / mix[pid], 3),
+        });
       }
       details.yieldVsEndTemperature = curve;
     }
@@ -160,10 +236,19 @@ export function crystallisation(inputs: Record<string, Stream | undefined>, para
   for (const id of ctx.ids) {
     const c = ctx.comps.get(id)!;
     if (id !== pid && c.kind === 'compound' && end.solidKg[id] > 0) {
-      W.push({ severity: 'warning', code: 'co-precipitation', message: `${c.name} exceeds its solubility at the end point: ${((100 * end.solidKg[id]) / mix[id]).toFixed(1)} % of it comes out with the product.` });
+      W.push({
+        severity: 'warning',
+        code: 'co-precipitation',
+        message: `${c.name} exceeds its solubility at the end point: ${((100 * end.solidKg[id]) / mix[id]).toFixed(1)} % of it comes out with the product.`,
+      });
     }
     if (c.kind === 'compound' && end.saturationKg[id] === null && mix[id] > 0) {
-      warn(W, 'warning', 'no-solubility-data', `${c.name}: no solubility data; assumed to stay dissolved.`);
+      warn(
+        W,
+        'warning',
+        'no-solubility-data',
+        `${c.name}: no solubility data; assumed to stay dissolved.`,
+      );
     }
   }
   result.peakVolumeM3 = peak;

@@ -23,9 +23,24 @@
  */
 import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
-import { bubblePoint, bubblePressure, heterogeneousBubblePoint, liquidLiquidSplit } from '../thermo/vle';
+import {
+  bubblePoint,
+  bubblePressure,
+  heterogeneousBubblePoint,
+  liquidLiquidSplit,
+} from '../thermo/vle';
 import type { EvalContext } from '../route/context';
-import { commonCautions, emptyStream, finishStream, method, cToK, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import {
+  commonCautions,
+  emptyStream,
+  finishStream,
+  method,
+  cToK,
+  solventKgFromVolume,
+  streamVolume,
+  volumeToM3,
+  warn,
+} from '../route/context';
 import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
@@ -38,7 +53,8 @@ export const VOLUME_REFERENCE_K = 293.15;
 /** Rayleigh increments per distillation leg (accuracy vs speed; see docs/performance.md). */
 export const INCREMENTS_PER_LEG = 8;
 
-export type DistillationCondition = { kind: 'pressure'; P_Pa: number } | { kind: 'pot-temperature'; T_K: number };
+export type DistillationCondition =
+  { kind: 'pressure'; P_Pa: number } | { kind: 'pot-temperature'; T_K: number };
 
 export interface ProfilePoint {
   distillateL: number;
@@ -89,8 +105,19 @@ export interface LegFeed {
   add: (m3: number) => void;
 }
 
-export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, cond: DistillationCondition, increments: number, warnings: EngineWarning[], methods: MethodUsed[], feed?: LegFeed) {
-  const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && (st.pot[id] > 0 || id === feed?.solventId));
+export function distilLeg(
+  ctx: EvalContext,
+  st: DistilState,
+  targetM3: number,
+  cond: DistillationCondition,
+  increments: number,
+  warnings: EngineWarning[],
+  methods: MethodUsed[],
+  feed?: LegFeed,
+) {
+  const vol = ctx.ids.filter(
+    (id) => ctx.comps.get(id)!.kind === 'solvent' && (st.pot[id] > 0 || id === feed?.solventId),
+  );
   // An empty pot (no volatile solvent at all, e.g. the feed stream is empty): nothing to distil, and in
   // constant-volume mode nothing is fed either (there is no pot volume to hold).
   if (vol.length === 0 || vol.every((id) => !(st.pot[id] > 0))) {
@@ -98,10 +125,14 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
     return;
   }
   let fixed = 0;
-  for (const id of ctx.ids) if (!vol.includes(id) && st.pot[id] > 0) fixed += st.pot[id] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K);
+  for (const id of ctx.ids)
+    if (!vol.includes(id) && st.pot[id] > 0)
+      fixed += st.pot[id] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K);
   const M = vol.map((id) => ctx.comps.get(id)!.molarMassKgMol);
   const moles = Float64Array.from(vol.map((id, i) => st.pot[id] / M[i]));
-  const mv = Float64Array.from(vol.map((id, i) => M[i] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K)));
+  const mv = Float64Array.from(
+    vol.map((id, i) => M[i] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K)),
+  );
   let sys;
   try {
     sys = solventVle(ctx, vol).sys;
@@ -116,7 +147,8 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
     return x;
   };
   // Two liquid phases at the start of the leg? Then the heterogeneous bubble point is used until the split disappears.
-  let hetero = vol.length > 1 && liquidLiquidSplit(sys, norm(moles), Math.min(st.lastT_K, 373.15)).split;
+  let hetero =
+    vol.length > 1 && liquidLiquidSplit(sys, norm(moles), Math.min(st.lastT_K, 373.15)).split;
   const vleWarnings = new Set<string>();
   const potVle: PotVle = (m) => {
     const xs = norm(m);
@@ -156,17 +188,36 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
     r.warnings.forEach((w) => vleWarnings.add(w));
     return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
   };
-  method(methods, 'distillation', 'Rayleigh equation, Heun integration, modified Raoult with UNIFAC; heterogeneous bubble point while two liquids are present', 'Rayleigh, Phil. Mag. 1902, 4, 521; UNIFAC: Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352; Antoine constants from the solvent library');
+  method(
+    methods,
+    'distillation',
+    'Rayleigh equation, Heun integration, modified Raoult with UNIFAC; heterogeneous bubble point while two liquids are present',
+    'Rayleigh, Phil. Mag. 1902, 4, 521; UNIFAC: Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352; Antoine constants from the solvent library',
+  );
   let r;
   if (feed) {
     // Constant volume: the fed solvent replaces the distillate volume for volume.
-    r = rayleighConstantVolume(moles, mv, vol.indexOf(feed.solventId), feed.m3, potVle, increments, fixed);
+    r = rayleighConstantVolume(
+      moles,
+      mv,
+      vol.indexOf(feed.solventId),
+      feed.m3,
+      potVle,
+      increments,
+      fixed,
+    );
     feed.add(feed.m3);
   } else {
     r = rayleighToVolume(moles, mv, fixed, targetM3, potVle, increments);
   }
   for (const w of vleWarnings) warn(warnings, 'info', 'vle', w);
-  if (r.exhausted) warn(warnings, 'warning', 'target-below-solids', 'The volatile solvents ran out before the target volume: the pot is at dryness (the non-volatile contents exceed the target volume).');
+  if (r.exhausted)
+    warn(
+      warnings,
+      'warning',
+      'target-below-solids',
+      'The volatile solvents ran out before the target volume: the pot is at dryness (the non-volatile contents exceed the target volume).',
+    );
   vol.forEach((id, i) => {
     const removed = Math.min(st.pot[id], r.distilled[i] * M[i]);
     st.pot[id] -= removed;
@@ -183,7 +234,10 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
       potVolumeL: round(p.volume * 1000, 4),
       potTemperatureC: round(p.T_K - 273.15, 3),
       pressureMbar: round(p.P_Pa / MBAR, 2),
-      newSolventAddedL: round((p.fed !== undefined ? fedBase + p.fed : st.newSolventAddedM3) * 1000, 4),
+      newSolventAddedL: round(
+        (p.fed !== undefined ? fedBase + p.fed : st.newSolventAddedM3) * 1000,
+        4,
+      ),
       originalSolventWtPct: NaN,
     });
   }
@@ -197,40 +251,82 @@ export function distilLeg(ctx: EvalContext, st: DistilState, targetM3: number, c
 }
 
 /** Warn when a compound in the pot exceeds its solubility at the end of a leg (crash-out or oiling). */
-export function solubilityCrossingCheck(ctx: EvalContext, pot: Record<string, number>, T_K: number, potVolumeL: number, warnings: EngineWarning[], methods: MethodUsed[]) {
+export function solubilityCrossingCheck(
+  ctx: EvalContext,
+  pot: Record<string, number>,
+  T_K: number,
+  potVolumeL: number,
+  warnings: EngineWarning[],
+  methods: MethodUsed[],
+) {
   for (const id of ctx.ids) {
     const c = ctx.comps.get(id)!;
     if (c.kind !== 'compound' || !(pot[id] > 0)) continue;
     const s = solubilityIn(ctx, id, pot, T_K, warnings, methods);
     if (s && pot[id] > s.capacityKg) {
-      warn(warnings, 'warning', 'solubility-crossed', `${c.name} exceeds its solubility (${(s.capacityKg).toPrecision(3)} kg dissolvable, ${pot[id].toPrecision(3)} kg present) at ${potVolumeL.toFixed(2)} L and ${(T_K - 273.15).toFixed(0)} °C: it may crash out or oil out on the walls during the concentration.`);
+      warn(
+        warnings,
+        'warning',
+        'solubility-crossed',
+        `${c.name} exceeds its solubility (${s.capacityKg.toPrecision(3)} kg dissolvable, ${pot[id].toPrecision(3)} kg present) at ${potVolumeL.toFixed(2)} L and ${(T_K - 273.15).toFixed(0)} °C: it may crash out or oil out on the walls during the concentration.`,
+      );
     }
   }
 }
 
-export function newDistilState(ctx: EvalContext, feed: Stream, T_K: number, newSolventId: string | null): DistilState {
+export function newDistilState(
+  ctx: EvalContext,
+  feed: Stream,
+  T_K: number,
+  newSolventId: string | null,
+): DistilState {
   const pot = { ...feed.kg };
   const distillate: Record<string, number> = {};
   for (const id of ctx.ids) distillate[id] = 0;
   const v = streamVolume(ctx, pot, VOLUME_REFERENCE_K);
   return {
-    pot, distillate, profile: [], newSolventAddedM3: 0, distillateM3: 0,
-    originalSolventIds: ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && id !== newSolventId && feed.kg[id] > 0),
-    lastT_K: T_K, maxT_K: 0, minVolumeM3: v, maxVolumeM3: v,
+    pot,
+    distillate,
+    profile: [],
+    newSolventAddedM3: 0,
+    distillateM3: 0,
+    originalSolventIds: ctx.ids.filter(
+      (id) => ctx.comps.get(id)!.kind === 'solvent' && id !== newSolventId && feed.kg[id] > 0,
+    ),
+    lastT_K: T_K,
+    maxT_K: 0,
+    minVolumeM3: v,
+    maxVolumeM3: v,
   };
 }
 
-export function distillation(inputs: Record<string, Stream | undefined>, params: ParamsOf<'distillation'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function distillation(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'distillation'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
   const result = newResult(step, { hours: 0, basis: COMMON_PRACTICE_BASIS });
   const W = result.warnings;
   const Ms = result.methods;
-  const cond: DistillationCondition = params.condition.kind === 'pressure'
-    ? { kind: 'pressure', P_Pa: ctx.num(params.condition.pressureMbar, ...RANGES.pressureMbar) * MBAR }
-    : { kind: 'pot-temperature', T_K: cToK(ctx.num(params.condition.potTemperatureC, ...RANGES.temperatureC)) };
+  const cond: DistillationCondition =
+    params.condition.kind === 'pressure'
+      ? {
+          kind: 'pressure',
+          P_Pa: ctx.num(params.condition.pressureMbar, ...RANGES.pressureMbar) * MBAR,
+        }
+      : {
+          kind: 'pot-temperature',
+          T_K: cToK(ctx.num(params.condition.potTemperatureC, ...RANGES.temperatureC)),
+        };
   const mode = params.mode;
   const newId = mode.kind === 'concentrate' ? null : mode.addSolventId;
-  if (newId && ctx.comps.get(newId)!.kind !== 'solvent') throw new StepError('params.mode.addSolventId', 'The added solvent must be a solvent component.');
+  if (newId && ctx.comps.get(newId)!.kind !== 'solvent')
+    throw new StepError(
+      'params.mode.addSolventId',
+      'The added solvent must be a solvent component.',
+    );
   const st = newDistilState(ctx, feed, Math.max(feed.temperatureK, 300), newId);
   const startVolume = st.maxVolumeM3;
   const add = (m3: number) => {
@@ -243,7 +339,13 @@ export function distillation(inputs: Record<string, Stream | undefined>, params:
   };
   if (mode.kind === 'concentrate') {
     const target = volumeToM3(ctx, mode.targetVolume);
-    if (target >= startVolume) warn(W, 'info', 'nothing-distilled', 'The target volume is not below the feed volume: nothing is distilled.');
+    if (target >= startVolume)
+      warn(
+        W,
+        'info',
+        'nothing-distilled',
+        'The target volume is not below the feed volume: nothing is distilled.',
+      );
     distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
   } else if (mode.kind === 'put-and-take') {
     const target = volumeToM3(ctx, mode.targetVolume);
@@ -259,9 +361,16 @@ export function distillation(inputs: Record<string, Stream | undefined>, params:
     // increments per pot volume fed in all.
     const addV = volumeToM3(ctx, mode.addVolume);
     const K = 12;
-    const perLeg = Math.max(2, Math.min(16, Math.ceil((16 * addV) / Math.max(1e-12, startVolume) / K)));
+    const perLeg = Math.max(
+      2,
+      Math.min(16, Math.ceil((16 * addV) / Math.max(1e-12, startVolume) / K)),
+    );
     for (let k = 0; k < K; k++) {
-      distilLeg(ctx, st, startVolume, cond, perLeg, W, Ms, { solventId: newId!, m3: addV / K, add });
+      distilLeg(ctx, st, startVolume, cond, perLeg, W, Ms, {
+        solventId: newId!,
+        m3: addV / K,
+        add,
+      });
     }
   }
   const potVol = streamVolume(ctx, st.pot, VOLUME_REFERENCE_K);
@@ -273,8 +382,16 @@ export function distillation(inputs: Record<string, Stream | undefined>, params:
   const solventTotal = solventsInPot.reduce((a, id) => a + feed.kg[id], 0);
   for (const id of solventsInPot) {
     const s = ctx.comps.get(id)!.solvent!;
-    if (s.peroxideFormer.value && (feed.kg[id] + (result.addedKg[id] ?? 0)) > 0.05 * solventTotal && st.minVolumeM3 < 0.25 * st.maxVolumeM3) {
-      W.push({ severity: 'hazard', code: 'peroxide-concentration', message: `${s.name} is a peroxide former and is concentrated to ${((100 * st.minVolumeM3) / st.maxVolumeM3).toFixed(0)} % of its volume: test for peroxides before distilling (common practice) and never distil to dryness.` });
+    if (
+      s.peroxideFormer.value &&
+      feed.kg[id] + (result.addedKg[id] ?? 0) > 0.05 * solventTotal &&
+      st.minVolumeM3 < 0.25 * st.maxVolumeM3
+    ) {
+      W.push({
+        severity: 'hazard',
+        code: 'peroxide-concentration',
+        message: `${s.name} is a peroxide former and is concentrated to ${((100 * st.minVolumeM3) / st.maxVolumeM3).toFixed(0)} % of its volume: test for peroxides before distilling (common practice) and never distil to dryness.`,
+      });
     }
   }
   const pot = emptyStream(ctx, 'liquid', T_end);
@@ -289,20 +406,34 @@ export function distillation(inputs: Record<string, Stream | undefined>, params:
   commonCautions(ctx, feed.kg, st.maxT_K || T_end, W, { transfer: false });
   result.peakVolumeM3 = Math.max(st.maxVolumeM3, streamVolume(ctx, feed.kg, VOLUME_REFERENCE_K));
   const rateLh = COMMON_PRACTICE_HOURS.distillateVolumesPerHour * result.peakVolumeM3 * 1000;
-  result.duration = { hours: COMMON_PRACTICE_HOURS.distillationSetup + (rateLh > 0 ? (st.distillateM3 * 1000) / rateLh : 0), basis: `${COMMON_PRACTICE_BASIS}: distillate rate 0.1 working volumes per hour` };
+  result.duration = {
+    hours:
+      COMMON_PRACTICE_HOURS.distillationSetup +
+      (rateLh > 0 ? (st.distillateM3 * 1000) / rateLh : 0),
+    basis: `${COMMON_PRACTICE_BASIS}: distillate rate 0.1 working volumes per hour`,
+  };
   const residual = originalWtPct(ctx, st);
   const distTot = Object.values(st.distillate).reduce((a, b) => a + b, 0);
   result.summary = {
     'distillate L': round(st.distillateM3 * 1000, 3),
     'pot volume L': round(potVol * 1000, 3),
     'final pot °C': round(T_end - 273.15, 1),
-    ...(newId ? { 'original solvent wt%': round(residual, 3), 'new solvent L': round(st.newSolventAddedM3 * 1000, 3) } : {}),
+    ...(newId
+      ? {
+          'original solvent wt%': round(residual, 3),
+          'new solvent L': round(st.newSolventAddedM3 * 1000, 3),
+        }
+      : {}),
   };
   result.details = {
     mode: mode.kind,
     condition: params.condition,
     profile: st.profile,
-    distillateComposition: Object.fromEntries(ctx.ids.filter((id) => st.distillate[id] > 0).map((id) => [id, round((100 * st.distillate[id]) / distTot, 4)])),
+    distillateComposition: Object.fromEntries(
+      ctx.ids
+        .filter((id) => st.distillate[id] > 0)
+        .map((id) => [id, round((100 * st.distillate[id]) / distTot, 4)]),
+    ),
     residualOriginalSolventWtPct: residual,
     newSolventAddedL: st.newSolventAddedM3 * 1000,
     maxPotTemperatureC: st.maxT_K - 273.15,

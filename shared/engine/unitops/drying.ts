@@ -38,7 +38,11 @@ export interface IchFlag {
  * `kg`: component masses of the dried solid [kg]. Returns one flag per
  * solvent present and adds a warning (class 1: hazard) per exceedance.
  */
-export function ichResidualSolventFlags(ctx: EvalContext, kg: Record<string, number>, warnings: EngineWarning[]): IchFlag[] {
+export function ichResidualSolventFlags(
+  ctx: EvalContext,
+  kg: Record<string, number>,
+  warnings: EngineWarning[],
+): IchFlag[] {
   let total = 0;
   for (const id of ctx.ids) total += kg[id];
   const flags: IchFlag[] = [];
@@ -49,33 +53,69 @@ export function ichResidualSolventFlags(ctx: EvalContext, kg: Record<string, num
     const ppm = (kg[id] / total) * 1e6;
     const ich = c.solvent!.ich.value;
     const exceeds = ich.limitPpm !== null && ppm > ich.limitPpm;
-    flags.push({ componentId: id, name: c.name, ppm, ichClass: ich.class, limitPpm: ich.limitPpm, exceeds });
+    flags.push({
+      componentId: id,
+      name: c.name,
+      ppm,
+      ichClass: ich.class,
+      limitPpm: ich.limitPpm,
+      exceeds,
+    });
     if (exceeds) {
-      warnings.push({ severity: ich.class === 1 ? 'hazard' : 'warning', code: 'ich-limit-exceeded', message: `Residual ${c.name} ${ppm.toFixed(0)} ppm exceeds its ICH Q3C class ${ich.class} limit of ${ich.limitPpm} ppm.` });
+      warnings.push({
+        severity: ich.class === 1 ? 'hazard' : 'warning',
+        code: 'ich-limit-exceeded',
+        message: `Residual ${c.name} ${ppm.toFixed(0)} ppm exceeds its ICH Q3C class ${ich.class} limit of ${ich.limitPpm} ppm.`,
+      });
     }
-    if (ich.class === 1) warn(warnings, 'hazard', 'ich-class-1', `${c.name} is an ICH Q3C class 1 solvent.`);
+    if (ich.class === 1)
+      warn(warnings, 'hazard', 'ich-class-1', `${c.name} is an ICH Q3C class 1 solvent.`);
   }
   return flags;
 }
 
-export function drying(inputs: Record<string, Stream | undefined>, params: ParamsOf<'drying'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function drying(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'drying'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const wet = inputs.wet!;
   const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
   const P = ctx.num(params.pressureMbar, ...RANGES.pressureMbar) * 100;
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.drying, basis: `${COMMON_PRACTICE_BASIS}: 12 h in the dryer` });
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.drying,
+    basis: `${COMMON_PRACTICE_BASIS}: 12 h in the dryer`,
+  });
   const W = result.warnings;
   const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && wet.kg[id] > 0);
   const psat: number[] = vol.map((id) => {
     const s = ctx.comps.get(id)!.solvent!;
-    const r = vapourPressure(s.antoine, T, s.enthalpyVapKJmol ? { TbK: s.boilingPointC.value + 273.15, dHvapJmol: s.enthalpyVapKJmol.value * 1000 } : undefined);
+    const r = vapourPressure(
+      s.antoine,
+      T,
+      s.enthalpyVapKJmol
+        ? { TbK: s.boilingPointC.value + 273.15, dHvapJmol: s.enthalpyVapKJmol.value * 1000 }
+        : undefined,
+    );
     for (const w of r.warnings) warn(W, 'info', 'vapour-pressure', `${s.name}: ${w}`);
     return r.pressurePa;
   });
-  method(result.methods, 'drying end point', 'ideal evaporation, n_i = n_i0 exp(−P_i^sat θ), θ by bisection to the target', 'Antoine constants from the solvent library');
+  method(
+    result.methods,
+    'drying end point',
+    'ideal evaporation, n_i = n_i0 exp(−P_i^sat θ), θ by bisection to the target',
+    'Antoine constants from the solvent library',
+  );
   let fixed = 0;
   for (const id of ctx.ids) if (!vol.includes(id)) fixed += wet.kg[id];
-  const counted = vol.map((id) => (params.target.kind === 'lod' ? true : !ctx.comps.get(id)!.isWater));
-  const target = params.target.kind === 'lod' ? ctx.num(params.target.lodWtPct, 0, 50) / 100 : ctx.num(params.target.residualPpm, 0, 1e6) / 1e6;
+  const counted = vol.map((id) =>
+    params.target.kind === 'lod' ? true : !ctx.comps.get(id)!.isWater,
+  );
+  const target =
+    params.target.kind === 'lod'
+      ? ctx.num(params.target.lodWtPct, 0, 50) / 100
+      : ctx.num(params.target.residualPpm, 0, 1e6) / 1e6;
   const pmax = Math.max(1, ...psat);
   const scaled = psat.map((p) => p / pmax);
   const left = (theta: number) => vol.map((id, i) => wet.kg[id] * Math.exp(-scaled[i] * theta));
@@ -119,14 +159,28 @@ export function drying(inputs: Record<string, Stream | undefined>, params: Param
   const pid = ctx.productId;
   if (pid) {
     const mp = ctx.comps.get(pid)!.compound!.meltingPointC;
-    if (mp !== undefined && T - 273.15 > mp - 20) W.push({ severity: 'warning', code: 'dryer-near-melting', message: `Dryer temperature is within 20 K of the product's melting point (${mp} °C): sintering or melting (common practice margin).` });
+    if (mp !== undefined && T - 273.15 > mp - 20)
+      W.push({
+        severity: 'warning',
+        code: 'dryer-near-melting',
+        message: `Dryer temperature is within 20 K of the product's melting point (${mp} °C): sintering or melting (common practice margin).`,
+      });
   }
   const total = Object.values(dry.kg).reduce((a, b) => a + b, 0);
   const liquid = vol.reduce((a, id) => a + dry.kg[id], 0);
   const lod = total > 0 ? (100 * liquid) / total : 0;
-  result.summary = { 'LOD %': round(lod, 3), 'dry kg': round(total, 4), 'ICH exceedances': flags.filter((f) => f.exceeds).length };
+  result.summary = {
+    'LOD %': round(lod, 3),
+    'dry kg': round(total, 4),
+    'ICH exceedances': flags.filter((f) => f.exceeds).length,
+  };
   result.peakVolumeM3 = wet.volumeM3;
   commonCautions(ctx, wet.kg, T, W);
-  result.details = { lodWtPct: lod, residualSolventsPpm: flags, pressureMbar: P / 100, temperatureC: T - 273.15 };
+  result.details = {
+    lodWtPct: lod,
+    residualSolventsPpm: flags,
+    pressureMbar: P / 100,
+    temperatureC: T - 273.15,
+  };
   return { outputs: { dry, vapour }, result };
 }

@@ -3,8 +3,18 @@
  * solvents, the split of a liquid into organic and aqueous phases (mutual
  * solubility), the pH of an aqueous phase, and distribution ratios of solutes.
  */
-import { createVleSystem, liquidLiquidSplit, type VleComponent, type VleSystem } from '../thermo/vle';
-import { distributionRatio, neutralFraction, partitionByActivity, type PKa } from '../properties/partition';
+import {
+  createVleSystem,
+  liquidLiquidSplit,
+  type VleComponent,
+  type VleSystem,
+} from '../thermo/vle';
+import {
+  distributionRatio,
+  neutralFraction,
+  partitionByActivity,
+  type PKa,
+} from '../properties/partition';
 import { solventById } from '../data/index';
 import type { EvalContext } from '../route/context';
 import { warn, method } from '../route/context';
@@ -78,7 +88,13 @@ const MINOR_SOLVENT_FRACTION = 0.02;
  * The mutual-solubility data are at 20–25 °C and without salt; salting-out
  * of the organic solvent by brine is not modelled.
  */
-export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: number, warnings: EngineWarning[], methods: MethodUsed[]): LiquidSplit {
+export function splitLiquid(
+  ctx: EvalContext,
+  kg: Record<string, number>,
+  T_K: number,
+  warnings: EngineWarning[],
+  methods: MethodUsed[],
+): LiquidSplit {
   const ids = solventIds(ctx).filter((id) => kg[id] > 0);
   const organicKg: Record<string, number> = {};
   const aqueousKg: Record<string, number> = {};
@@ -112,16 +128,36 @@ export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: n
     const det = (1 - ws) * (1 - ww) - ws * ww;
     const A = (W * (1 - ww) - O * ww) / det;
     const G = (O * (1 - ws) - W * ws) / det;
-    method(methods, 'phase split', 'mutual solubility (lever rule on tabulated mutual solubilities)', `${mainRec.name}–water: ${mainRec.waterMutualSolubility.source.ref} (${mainRec.waterMutualSolubility.source.status})`);
+    method(
+      methods,
+      'phase split',
+      'mutual solubility (lever rule on tabulated mutual solubilities)',
+      `${mainRec.name}–water: ${mainRec.waterMutualSolubility.source.ref} (${mainRec.waterMutualSolubility.source.status})`,
+    );
     if (Math.abs(T_K - 273.15 - ms.temperatureC) > 15) {
-      warn(warnings, 'info', 'mutual-solubility-temperature', `Mutual solubility of ${mainRec.name} and water is tabulated at ${ms.temperatureC} °C and used at ${(T_K - 273.15).toFixed(0)} °C.`);
+      warn(
+        warnings,
+        'info',
+        'mutual-solubility-temperature',
+        `Mutual solubility of ${mainRec.name} and water is tabulated at ${ms.temperatureC} °C and used at ${(T_K - 273.15).toFixed(0)} °C.`,
+      );
     }
     if (A <= 0) {
-      warn(warnings, 'warning', 'no-phase-split', `All the water dissolves in ${mainRec.name}: one liquid phase, nothing separates.`);
+      warn(
+        warnings,
+        'warning',
+        'no-phase-split',
+        `All the water dissolves in ${mainRec.name}: one liquid phase, nothing separates.`,
+      );
       return single(false, 'mutual solubility: single organic phase');
     }
     if (G <= 0) {
-      warn(warnings, 'warning', 'no-phase-split', `All the ${mainRec.name} dissolves in the water: one liquid phase, nothing separates.`);
+      warn(
+        warnings,
+        'warning',
+        'no-phase-split',
+        `All the ${mainRec.name} dissolves in the water: one liquid phase, nothing separates.`,
+      );
       return single(true, 'mutual solubility: single aqueous phase');
     }
     const solventInAq = A * ws;
@@ -132,7 +168,13 @@ export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: n
     }
     aqueousKg[w] = Math.min(W, A * (1 - ws));
     organicKg[w] = W - aqueousKg[w];
-    if (minor > 0) warn(warnings, 'info', 'minor-solvents-follow-main', `Minor solvents (${(minor * 100).toFixed(1)} % of the organic solvents) are split in the same proportion as ${mainRec.name}.`);
+    if (minor > 0)
+      warn(
+        warnings,
+        'info',
+        'minor-solvents-follow-main',
+        `Minor solvents (${(minor * 100).toFixed(1)} % of the organic solvents) are split in the same proportion as ${mainRec.name}.`,
+      );
     return { split: true, organicKg, aqueousKg, method: 'mutual solubility' };
   }
 
@@ -144,9 +186,19 @@ export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: n
     const z = mol.map((m) => m / N);
     const r = liquidLiquidSplit(vle.sys, z, T_K);
     for (const m of r.warnings) warn(warnings, 'info', 'lle', m);
-    method(methods, 'phase split', 'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)', 'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352');
+    method(
+      methods,
+      'phase split',
+      'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)',
+      'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352',
+    );
     if (!r.split) {
-      warn(warnings, 'warning', 'no-phase-split', 'The liquids are miscible at this composition and temperature (UNIFAC): one liquid phase, nothing separates.');
+      warn(
+        warnings,
+        'warning',
+        'no-phase-split',
+        'The liquids are miscible at this composition and temperature (UNIFAC): one liquid phase, nothing separates.',
+      );
       const aq = w ? (kg[w] ?? 0) / totalOf(kg, ids) > 0.5 : false;
       return single(aq, 'UNIFAC: single phase');
     }
@@ -165,10 +217,20 @@ export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: n
       if (aqueousKg[id] > kg[id]) aqueousKg[id] = kg[id];
       organicKg[id] = kg[id] - aqueousKg[id];
     });
-    warn(warnings, 'info', 'unifac-mutual-solubility', 'Mutual solubility of the liquids from UNIFAC (VLE parameters): the minor component of each phase can be off by a factor of 2–10.');
+    warn(
+      warnings,
+      'info',
+      'unifac-mutual-solubility',
+      'Mutual solubility of the liquids from UNIFAC (VLE parameters): the minor component of each phase can be off by a factor of 2–10.',
+    );
     return { split: true, organicKg, aqueousKg, method: 'UNIFAC LLE' };
   } catch (e) {
-    warn(warnings, 'warning', 'no-lle-model', `No liquid–liquid model for these solvents (${(e as Error).message}); the organic solvents are kept in the organic phase and the water in the aqueous phase.`);
+    warn(
+      warnings,
+      'warning',
+      'no-lle-model',
+      `No liquid–liquid model for these solvents (${(e as Error).message}); the organic solvents are kept in the organic phase and the water in the aqueous phase.`,
+    );
     for (const id of ids) (id === w ? aqueousKg : organicKg)[id] = kg[id];
     return { split: true, organicKg, aqueousKg, method: 'assumed immiscible' };
   }
@@ -180,11 +242,18 @@ export function splitLiquid(ctx: EvalContext, kg: Record<string, number>, T_K: n
  * model-based polarity scale). Returns 0 or 1; 1 when water has no parameters
  * against these solvents (the phase poorer in the first listed solvent).
  */
-function morePolarPhase(ctx: EvalContext, ids: string[], x0: readonly number[], x1: readonly number[], T_K: number): 0 | 1 {
+function morePolarPhase(
+  ctx: EvalContext,
+  ids: string[],
+  x0: readonly number[],
+  x1: readonly number[],
+  T_K: number,
+): 0 | 1 {
   const water = solventById('water');
   if (!water) return 1;
   const groups = [water.unifac.value, ...ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value)];
-  const at = (x: readonly number[]) => ctx.unifac.model(groups).gammas([1e-9, ...x.map((v) => v * (1 - 1e-9))], T_K)[0];
+  const at = (x: readonly number[]) =>
+    ctx.unifac.model(groups).gammas([1e-9, ...x.map((v) => v * (1 - 1e-9))], T_K)[0];
   try {
     return at(x0) < at(x1) ? 0 : 1;
   } catch {
@@ -205,10 +274,22 @@ function morePolarPhase(ctx: EvalContext, ids: string[], x0: readonly number[], 
  *
  * @param lessPolarKg, polarKg solvent kg of each phase [kg]; T_K [K]
  */
-export function organicOrganicDistribution(ctx: EvalContext, compoundId: string, lessPolarKg: Record<string, number>, polarKg: Record<string, number>, T_K: number, warnings: EngineWarning[]): SoluteDistribution | null {
+export function organicOrganicDistribution(
+  ctx: EvalContext,
+  compoundId: string,
+  lessPolarKg: Record<string, number>,
+  polarKg: Record<string, number>,
+  T_K: number,
+  warnings: EngineWarning[],
+): SoluteDistribution | null {
   const c = ctx.comps.get(compoundId)!.compound!;
   if (!c.unifac) {
-    warn(warnings, 'warning', 'no-unifac-groups', `${c.name}: no UNIFAC groups, so no distribution between the two organic phases can be estimated; kept in the feed phase.`);
+    warn(
+      warnings,
+      'warning',
+      'no-unifac-groups',
+      `${c.name}: no UNIFAC groups, so no distribution between the two organic phases can be estimated; kept in the feed phase.`,
+    );
     return null;
   }
   const groups = Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v]));
@@ -217,15 +298,40 @@ export function organicOrganicDistribution(ctx: EvalContext, compoundId: string,
     const mol = ids.map((id) => kg[id] / ctx.comps.get(id)!.molarMassKgMol);
     const N = mol.reduce((a, b) => a + b, 0);
     const x = mol.map((m) => m / N);
-    const v = ids.reduce((a, id, i) => a + x[i] * ctx.comps.get(id)!.molarMassKgMol * ctx.comps.get(id)!.specificVolume(T_K), 0);
-    return { groups: ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value), moleFractions: x, molarVolumeM3mol: v };
+    const v = ids.reduce(
+      (a, id, i) =>
+        a + x[i] * ctx.comps.get(id)!.molarMassKgMol * ctx.comps.get(id)!.specificVolume(T_K),
+      0,
+    );
+    return {
+      groups: ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value),
+      moleFractions: x,
+      molarVolumeM3mol: v,
+    };
   };
   try {
-    const r = partitionByActivity({ soluteGroups: groups, organic: phase(lessPolarKg), aqueous: phase(polarKg), T_K, models: ctx.unifac });
+    const r = partitionByActivity({
+      soluteGroups: groups,
+      organic: phase(lessPolarKg),
+      aqueous: phase(polarKg),
+      T_K,
+      models: ctx.unifac,
+    });
     for (const m of r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
-    return { D: r.Kc, method: 'activity-coefficient ratio at infinite dilution between the two organic phases (UNIFAC)', source: 'UNIFAC: Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352 (estimated)' };
+    return {
+      D: r.Kc,
+      method:
+        'activity-coefficient ratio at infinite dilution between the two organic phases (UNIFAC)',
+      source:
+        'UNIFAC: Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352 (estimated)',
+    };
   } catch (e) {
-    warn(warnings, 'warning', 'no-unifac-parameters', `${c.name}: UNIFAC cannot estimate its distribution between the two organic phases (${(e as Error).message}); kept in the feed phase.`);
+    warn(
+      warnings,
+      'warning',
+      'no-unifac-parameters',
+      `${c.name}: UNIFAC cannot estimate its distribution between the two organic phases (${(e as Error).message}); kept in the feed phase.`,
+    );
     return null;
   }
 }
@@ -269,7 +375,10 @@ export interface PHInput {
    * organicVolumeM3 [m³] (K = 0: all in the aqueous phase). Only the charged
    * species stay in water; see aqueousPH.
    */
-  carried?: { organicVolumeM3: number; compounds: Array<{ mol: number; pKa: readonly PKa[]; K: number }> };
+  carried?: {
+    organicVolumeM3: number;
+    compounds: Array<{ mol: number; pKa: readonly PKa[]; K: number }>;
+  };
 }
 
 /**
@@ -306,12 +415,25 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
     if (comp.aqueous) {
       const ab = comp.aqueous.acidBase;
       switch (ab.kind) {
-        case 'strong-acid': strongAcid.push(c * ab.protons); break;
-        case 'strong-base': cations.push(c * ab.hydroxides); break;
-        case 'weak-acid': acidSystems.push({ c, pKa: ab.pKa.value }); break;
-        case 'amphoteric-salt': cations.push(c); acidSystems.push({ c, pKa: ab.pKa.value }); break;
-        case 'weak-base': cations.push(c * ab.pKa.value.length); acidSystems.push({ c, pKa: ab.pKa.value }); break;
-        case 'neutral': break;
+        case 'strong-acid':
+          strongAcid.push(c * ab.protons);
+          break;
+        case 'strong-base':
+          cations.push(c * ab.hydroxides);
+          break;
+        case 'weak-acid':
+          acidSystems.push({ c, pKa: ab.pKa.value });
+          break;
+        case 'amphoteric-salt':
+          cations.push(c);
+          acidSystems.push({ c, pKa: ab.pKa.value });
+          break;
+        case 'weak-base':
+          cations.push(c * ab.pKa.value.length);
+          acidSystems.push({ c, pKa: ab.pKa.value });
+          break;
+        case 'neutral':
+          break;
       }
     } else if (input.includeCompounds && comp.compound?.pKa) {
       for (const p of comp.compound.pKa) {
@@ -387,7 +509,13 @@ export interface SoluteDistribution {
  * D = K f_n(pH) (× the salt factor), so K does not depend on that choice.
  * Returns Infinity when the compound is assumed to stay in the organic phase.
  */
-export function neutralPartitionCoefficient(ctx: EvalContext, compoundId: string, organicSolventComponentId: string, salt: { ks_Lmol: number; molar: number } | undefined, T_K: number): number {
+export function neutralPartitionCoefficient(
+  ctx: EvalContext,
+  compoundId: string,
+  organicSolventComponentId: string,
+  salt: { ks_Lmol: number; molar: number } | undefined,
+  T_K: number,
+): number {
   const pKa = (ctx.comps.get(compoundId)!.compound!.pKa ?? []) as PKa[];
   let best = 7;
   let bestF = -1;
@@ -416,18 +544,27 @@ export function compoundDistribution(
   const solvent = ctx.comps.get(organicSolventComponentId)!.solvent!;
   const water = ctx.waterId ? ctx.comps.get(ctx.waterId)!.solvent : undefined;
   const groupsKey = `unifac-groups:${compoundId}`;
-  if (c.unifac && !ctx.cache.has(groupsKey)) ctx.cache.set(groupsKey, Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v])));
+  if (c.unifac && !ctx.cache.has(groupsKey))
+    ctx.cache.set(
+      groupsKey,
+      Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v])),
+    );
   const groups = c.unifac ? (ctx.cache.get(groupsKey) as Record<number, number>) : undefined;
   // The same inputs give the same ratio: memoised for this evaluation (washes ask stage after stage).
   const memoKey = `${compoundId}|${organicSolventComponentId}|${pH}|${salt ? `${salt.ks_Lmol}|${salt.molar}` : '-'}|${T_K}`;
-  const memo = ctx.scratch.get(memoKey) as { r: ReturnType<typeof distributionRatio> } | { error: string } | undefined;
+  const memo = ctx.scratch.get(memoKey) as
+    { r: ReturnType<typeof distributionRatio> } | { error: string } | undefined;
   if (memo) {
     if ('error' in memo) {
       warn(warnings, 'warning', 'no-distribution-data', memo.error);
       return { D: Infinity, method: 'assumed (no data)', source: 'none' };
     }
     for (const m of memo.r.warnings) warn(warnings, 'info', 'distribution', `${c.name}: ${m}`);
-    return { D: memo.r.D, method: memo.r.method, source: `${memo.r.source.ref} (${memo.r.source.status})` };
+    return {
+      D: memo.r.D,
+      method: memo.r.method,
+      source: `${memo.r.source.ref} (${memo.r.source.status})`,
+    };
   }
   try {
     const r = distributionRatio({
@@ -435,7 +572,13 @@ export function compoundDistribution(
         logP: c.logP,
         pKa: c.pKa as PKa[] | undefined,
         unifac: groups,
-        measured: c.partition?.map((p) => ({ organicSolventId: p.organicSolventId, pH: p.pH, temperatureC: p.temperatureC, D: p.D, source: p.source })),
+        measured: c.partition?.map((p) => ({
+          organicSolventId: p.organicSolventId,
+          pH: p.pH,
+          temperatureC: p.temperatureC,
+          D: p.D,
+          source: p.source,
+        })),
       },
       organic: {
         solventId: solvent.id,
@@ -448,7 +591,9 @@ export function compoundDistribution(
         salt,
         groups: water ? [water.unifac.value] : undefined,
         moleFractions: water ? [1] : undefined,
-        molarVolumeM3mol: water ? (water.molarMassGmol.value / water.density.value.gPerMl) * 1e-6 : undefined,
+        molarVolumeM3mol: water
+          ? (water.molarMassGmol.value / water.density.value.gPerMl) * 1e-6
+          : undefined,
       },
       T_K,
       models: ctx.unifac,

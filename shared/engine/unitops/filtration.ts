@@ -28,7 +28,17 @@
 import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
 import type { EvalContext } from '../route/context';
-import { commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import {
+  commonCautions,
+  cToK,
+  emptyStream,
+  finishStream,
+  method,
+  solventKgFromVolume,
+  streamVolume,
+  volumeToM3,
+  warn,
+} from '../route/context';
 import { StepError } from '../route/errors';
 import type { StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
@@ -38,7 +48,11 @@ import { solubilityIn } from './solubility-model';
  * Viscosity of the liquid part of a stream [Pa s] at T [K]: Arrhenius mixing
  * of the solvents' 25 °C viscosities (mole fractions), Lewis–Squires for T.
  */
-export function liquorViscosityPaS(ctx: EvalContext, kg: Record<string, number>, T_K: number): number | null {
+export function liquorViscosityPaS(
+  ctx: EvalContext,
+  kg: Record<string, number>,
+  T_K: number,
+): number | null {
   let lnMu = 0;
   let n = 0;
   for (const id of ctx.ids) {
@@ -59,12 +73,25 @@ export function lewisSquires(mu25: number, T_K: number): number {
 }
 
 /** Cake-filtration time t [s] for filtrate volume V [m³] (Ruth equation, constant ΔP). */
-export function cakeFiltrationTime(i: { muPaS: number; alphaMPerKg: number; cKgM3: number; areaM2: number; dPPa: number; RmPerM: number; VM3: number }): number {
+export function cakeFiltrationTime(i: {
+  muPaS: number;
+  alphaMPerKg: number;
+  cKgM3: number;
+  areaM2: number;
+  dPPa: number;
+  RmPerM: number;
+  VM3: number;
+}): number {
   const { muPaS: mu, alphaMPerKg: a, cKgM3: c, areaM2: A, dPPa: dP, RmPerM: Rm, VM3: V } = i;
   return ((mu * a * c) / (2 * A * A * dP)) * V * V + ((mu * Rm) / (A * dP)) * V;
 }
 
-export function filtration(inputs: Record<string, Stream | undefined>, params: ParamsOf<'filtration'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function filtration(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'filtration'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const slurry = inputs.slurry!;
   const T = slurry.temperatureK;
   const result = newResult(step, { hours: 0, basis: COMMON_PRACTICE_BASIS });
@@ -75,7 +102,12 @@ export function filtration(inputs: Record<string, Stream | undefined>, params: P
   const Rm = ctx.num(params.mediumResistancePerM, 0, 1e14);
   const A = ctx.num(params.filterAreaM2, 1e-4, 100);
   const dP = ctx.num(params.pressureDropBar, 0.01, 20) * 1e5;
-  method(M, 'retained liquor', `${(r * 1000).toFixed(2)} L per kg solid`, params.retainedLiquorLPerKg === 0.5 ? 'default, common practice' : 'route document');
+  method(
+    M,
+    'retained liquor',
+    `${(r * 1000).toFixed(2)} L per kg solid`,
+    params.retainedLiquorLPerKg === 0.5 ? 'default, common practice' : 'route document',
+  );
   const solid: Record<string, number> = {};
   const liquor: Record<string, number> = {};
   let Ms = 0;
@@ -84,11 +116,17 @@ export function filtration(inputs: Record<string, Stream | undefined>, params: P
     liquor[id] = slurry.kg[id] - slurry.solidKg[id];
     Ms += solid[id];
   }
-  if (Ms <= 0) warn(W, 'warning', 'no-solid', 'The slurry holds no solid: everything passes to the filtrate.');
+  if (Ms <= 0)
+    warn(W, 'warning', 'no-solid', 'The slurry holds no solid: everything passes to the filtrate.');
   const VL = streamVolume(ctx, liquor, T);
   let Vr = r * Ms;
   if (Vr > VL) {
-    warn(W, 'warning', 'wet-cake', 'The cake would retain more liquor than the slurry has: all the liquor stays in the cake (a paste, not a filterable slurry).');
+    warn(
+      W,
+      'warning',
+      'wet-cake',
+      'The cake would retain more liquor than the slurry has: all the liquor stays in the cake (a paste, not a filterable slurry).',
+    );
     Vr = VL;
   }
   const f = VL > 0 ? Vr / VL : 0;
@@ -103,22 +141,55 @@ export function filtration(inputs: Record<string, Stream | undefined>, params: P
   const c = Vf > 0 ? Ms / Vf : 0;
   let tFilt = 0;
   if (mu !== null && Vf > 0) {
-    tFilt = cakeFiltrationTime({ muPaS: mu, alphaMPerKg: alpha, cKgM3: c, areaM2: A, dPPa: dP, RmPerM: Rm, VM3: Vf });
-    method(M, 'filtration time', 'cake-filtration equation t = (μαc/2A²ΔP)V² + (μR_m/AΔP)V', 'Ruth 1935; McCabe, Smith & Harriott, Unit Operations of Chemical Engineering, filtration chapter');
-    method(M, 'liquor viscosity', 'Arrhenius mixing rule; Lewis–Squires temperature correction', 'library 25 °C viscosities; Reid, Prausnitz & Poling 4th ed. (from memory)');
+    tFilt = cakeFiltrationTime({
+      muPaS: mu,
+      alphaMPerKg: alpha,
+      cKgM3: c,
+      areaM2: A,
+      dPPa: dP,
+      RmPerM: Rm,
+      VM3: Vf,
+    });
+    method(
+      M,
+      'filtration time',
+      'cake-filtration equation t = (μαc/2A²ΔP)V² + (μR_m/AΔP)V',
+      'Ruth 1935; McCabe, Smith & Harriott, Unit Operations of Chemical Engineering, filtration chapter',
+    );
+    method(
+      M,
+      'liquor viscosity',
+      'Arrhenius mixing rule; Lewis–Squires temperature correction',
+      'library 25 °C viscosities; Reid, Prausnitz & Poling 4th ed. (from memory)',
+    );
   }
-  const washRecords: Array<{ wash: number; displacedPct: number; dissolvedKg: Record<string, number>; timeH: number }> = [];
+  const washRecords: Array<{
+    wash: number;
+    displacedPct: number;
+    dissolvedKg: Record<string, number>;
+    timeH: number;
+  }> = [];
   let tWash = 0;
   if (params.cakeWash) {
     const cw = params.cakeWash;
     const ws = ctx.comps.get(cw.solventId)!;
-    if (ws.kind !== 'solvent') throw new StepError('params.cakeWash.solventId', 'The cake-wash liquid must be a solvent component.');
-    const Tw = cw.temperatureC !== undefined ? cToK(ctx.num(cw.temperatureC, ...RANGES.temperatureC)) : T;
+    if (ws.kind !== 'solvent')
+      throw new StepError(
+        'params.cakeWash.solventId',
+        'The cake-wash liquid must be a solvent component.',
+      );
+    const Tw =
+      cw.temperatureC !== undefined ? cToK(ctx.num(cw.temperatureC, ...RANGES.temperatureC)) : T;
     const Vw = volumeToM3(ctx, cw.volume);
     const eps = ctx.num(cw.displacementEfficiency, 0, 1);
     const wKg = solventKgFromVolume(ctx, cw.solventId, Vw, Tw);
     const muW = liquorViscosityPaS(ctx, { [cw.solventId]: 1 }, Tw) ?? 0.001;
-    method(M, 'cake wash', `displacement, efficiency ${eps} per retained volume; wash leaves saturated (upper bound on losses)`, cw.displacementEfficiency === 0.8 ? 'default efficiency, common practice' : 'route document');
+    method(
+      M,
+      'cake wash',
+      `displacement, efficiency ${eps} per retained volume; wash leaves saturated (upper bound on losses)`,
+      cw.displacementEfficiency === 0.8 ? 'default efficiency, common practice' : 'route document',
+    );
     for (let k = 0; k < cw.washes; k++) {
       result.addedKg[cw.solventId] = (result.addedKg[cw.solventId] ?? 0) + wKg;
       result.addedVolumeM3 += Vw;
@@ -148,7 +219,12 @@ export function filtration(inputs: Record<string, Stream | undefined>, params: P
       }
       const tw = mu !== null && A > 0 ? (Vw * muW * ((alpha * c * Vf) / A + Rm)) / (A * dP) : 0;
       tWash += tw;
-      washRecords.push({ wash: k + 1, displacedPct: round(100 * d, 2), dissolvedKg: dissolved, timeH: round(tw / 3600, 4) });
+      washRecords.push({
+        wash: k + 1,
+        displacedPct: round(100 * d, 2),
+        dissolvedKg: dissolved,
+        timeH: round(tw / 3600, 4),
+      });
     }
   }
   const cake = emptyStream(ctx, 'solid', T);
@@ -157,7 +233,8 @@ export function filtration(inputs: Record<string, Stream | undefined>, params: P
     cake.solidKg[id] = solid[id];
   }
   // Mass balance by difference keeps the closure exact.
-  for (const id of ctx.ids) filtrate.kg[id] = slurry.kg[id] + (result.addedKg[id] ?? 0) - cake.kg[id];
+  for (const id of ctx.ids)
+    filtrate.kg[id] = slurry.kg[id] + (result.addedKg[id] ?? 0) - cake.kg[id];
   finishStream(ctx, cake);
   finishStream(ctx, filtrate);
   const cakeTotal = Object.values(cake.kg).reduce((a, b) => a + b, 0);
@@ -170,7 +247,13 @@ export function filtration(inputs: Record<string, Stream | undefined>, params: P
   result.summary['filtration h'] = round(tFilt / 3600, 3);
   result.summary['wet-cake LOD %'] = round(lod, 2);
   result.peakVolumeM3 = slurry.volumeM3;
-  result.duration = { hours: COMMON_PRACTICE_HOURS.filtrationSetup + (tFilt + tWash) / 3600 + (params.cakeWash ? params.cakeWash.washes * COMMON_PRACTICE_HOURS.cakeWash : 0), basis: `${COMMON_PRACTICE_BASIS} plus the cake-filtration equation` };
+  result.duration = {
+    hours:
+      COMMON_PRACTICE_HOURS.filtrationSetup +
+      (tFilt + tWash) / 3600 +
+      (params.cakeWash ? params.cakeWash.washes * COMMON_PRACTICE_HOURS.cakeWash : 0),
+    basis: `${COMMON_PRACTICE_BASIS} plus the cake-filtration equation`,
+  };
   result.details = {
     retainedLiquorL: Vr * 1000,
     filtrateVolumeL: Vf * 1000,
@@ -180,7 +263,12 @@ export function filtration(inputs: Record<string, Stream | undefined>, params: P
     washTimeH: tWash / 3600,
     washes: washRecords,
     wetCakeLodWtPct: lod,
-    parameters: { specificCakeResistanceMPerKg: alpha, mediumResistancePerM: Rm, filterAreaM2: A, pressureDropBar: dP / 1e5 },
+    parameters: {
+      specificCakeResistanceMPerKg: alpha,
+      mediumResistancePerM: Rm,
+      filterAreaM2: A,
+      pressureDropBar: dP / 1e5,
+    },
   };
   commonCautions(ctx, liquor, T, W, { transfer: true });
   return { outputs: { cake, filtrate }, result };

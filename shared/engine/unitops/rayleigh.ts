@@ -65,7 +65,14 @@ export interface RayleighResult {
  * @param vle          vapour composition at the current pot liquid
  * @param increments   number of increments (≥ 1); 8–16 give < 0.1 % error for smooth VLE
  */
-export function rayleighToVolume(moles: Float64Array, molarVolume: Float64Array, fixedVolume: number, targetVolume: number, vle: PotVle, increments: number): RayleighResult {
+export function rayleighToVolume(
+  moles: Float64Array,
+  molarVolume: Float64Array,
+  fixedVolume: number,
+  targetVolume: number,
+  vle: PotVle,
+  increments: number,
+): RayleighResult {
   const n = moles.length;
   const pot = Float64Array.from(moles);
   const distilled = new Float64Array(n);
@@ -138,8 +145,13 @@ export function rayleighToVolume(moles: Float64Array, molarVolume: Float64Array,
  * x_F, x_W: mole fraction of the more volatile component in the charge and
  * in the final pot [-]; returns W/F [-].
  */
-export function rayleighConstantAlphaResidueFraction(alpha: number, xF: number, xW: number): number {
-  const lnWF = (1 / (alpha - 1)) * Math.log((xW * (1 - xF)) / (xF * (1 - xW))) + Math.log((1 - xF) / (1 - xW));
+export function rayleighConstantAlphaResidueFraction(
+  alpha: number,
+  xF: number,
+  xW: number,
+): number {
+  const lnWF =
+    (1 / (alpha - 1)) * Math.log((xW * (1 - xF)) / (xF * (1 - xW))) + Math.log((1 - xF) / (1 - xW));
   return Math.exp(lnWF);
 }
 
@@ -169,7 +181,15 @@ export interface ConstantVolumeResult extends RayleighResult {
  * @param increments  number of equal feed increments (≥ 1)
  * @param fixedVolume volume of the non-volatile contents, reported in the profile only [volume]
  */
-export function rayleighConstantVolume(moles: Float64Array, molarVolume: Float64Array, feedIndex: number, feedVolume: number, vle: PotVle, increments: number, fixedVolume = 0): ConstantVolumeResult {
+export function rayleighConstantVolume(
+  moles: Float64Array,
+  molarVolume: Float64Array,
+  feedIndex: number,
+  feedVolume: number,
+  vle: PotVle,
+  increments: number,
+  fixedVolume = 0,
+): ConstantVolumeResult {
   const n = moles.length;
   const pot = Float64Array.from(moles);
   const distilled = new Float64Array(n);
@@ -191,7 +211,8 @@ export function rayleighConstantVolume(moles: Float64Array, molarVolume: Float64
     let vPerMol = 0;
     for (let i = 0; i < n; i++) vPerMol += y0[i] * molarVolume[i];
     let dn = h / vPerMol;
-    for (let i = 0; i < n; i++) trial[i] = Math.max(0, pot[i] + (i === feedIndex ? dFeed : 0) - dn * y0[i]);
+    for (let i = 0; i < n; i++)
+      trial[i] = Math.max(0, pot[i] + (i === feedIndex ? dFeed : 0) - dn * y0[i]);
     const end = vle(trial);
     vPerMol = 0;
     for (let i = 0; i < n; i++) {
@@ -210,7 +231,13 @@ export function rayleighConstantVolume(moles: Float64Array, molarVolume: Float64
       distilledVolume += r * molarVolume[i];
     }
     first = vle(pot);
-    profile.push({ T_K: first.T_K, P_Pa: first.P_Pa, volume: V, distilled: distilledVolume, fed: (k + 1) * h });
+    profile.push({
+      T_K: first.T_K,
+      P_Pa: first.P_Pa,
+      volume: V,
+      distilled: distilledVolume,
+      fed: (k + 1) * h,
+    });
   }
   return { moles: pot, distilled, profile, exhausted: false, fedMoles };
 }

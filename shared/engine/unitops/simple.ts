@@ -5,7 +5,19 @@
 import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
 import type { EvalContext } from '../route/context';
-import { aqueousMediumKg, cloneStream, commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import {
+  aqueousMediumKg,
+  cloneStream,
+  commonCautions,
+  cToK,
+  emptyStream,
+  finishStream,
+  method,
+  solventKgFromVolume,
+  streamVolume,
+  volumeToM3,
+  warn,
+} from '../route/context';
 import { StepError } from '../route/errors';
 import type { EngineWarning, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
@@ -22,7 +34,11 @@ function isCarbonate(ctx: EvalContext, id: string): boolean {
 
 function co2Hazard(W: EngineWarning[], mol: number, T_K: number, what: string) {
   const litres = ((mol * R_J_PER_MOL_K * T_K) / STANDARD_ATMOSPHERE_PA) * 1000;
-  W.push({ severity: 'hazard', code: 'gas-evolution', message: `${what}: ${mol.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is released. Dose slowly with venting; never in a closed vessel; watch for foaming.` });
+  W.push({
+    severity: 'hazard',
+    code: 'gas-evolution',
+    message: `${what}: ${mol.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is released. Dose slowly with venting; never in a closed vessel; watch for foaming.`,
+  });
 }
 
 /**
@@ -34,10 +50,18 @@ function co2Hazard(W: EngineWarning[], mol: number, T_K: number, what: string) {
  * and a heat capacity c_p [kJ/(kg K)] the adiabatic rise is
  *   ΔT_ad = −ΔH_r ξ / (m c_p).
  */
-export function quench(inputs: Record<string, Stream | undefined>, params: ParamsOf<'quench'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function quench(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'quench'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
   const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.quench, basis: COMMON_PRACTICE_BASIS });
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.quench,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   const W = result.warnings;
   const out = cloneStream(feed);
   out.temperatureK = T;
@@ -59,10 +83,18 @@ export function quench(inputs: Record<string, Stream | undefined>, params: Param
   const nS = out.kg[params.reactsWith] / sub.molarMassKgMol;
   const xi = Math.min(nR / nuR, nS / nuS);
   const consumed: Record<string, number> = {};
-  consumed[params.reagentId] = Math.min(out.kg[params.reagentId], nuR * xi * reagent.molarMassKgMol);
-  consumed[params.reactsWith] = (consumed[params.reactsWith] ?? 0) + Math.min(out.kg[params.reactsWith], nuS * xi * sub.molarMassKgMol);
+  consumed[params.reagentId] = Math.min(
+    out.kg[params.reagentId],
+    nuR * xi * reagent.molarMassKgMol,
+  );
+  consumed[params.reactsWith] =
+    (consumed[params.reactsWith] ?? 0) +
+    Math.min(out.kg[params.reactsWith], nuS * xi * sub.molarMassKgMol);
   const generated: Record<string, number> = {};
-  for (const p of params.products) generated[p.componentId] = (generated[p.componentId] ?? 0) + p.molPerMolSubstrate * nuS * xi * ctx.comps.get(p.componentId)!.molarMassKgMol;
+  for (const p of params.products)
+    generated[p.componentId] =
+      (generated[p.componentId] ?? 0) +
+      p.molPerMolSubstrate * nuS * xi * ctx.comps.get(p.componentId)!.molarMassKgMol;
   for (const id in consumed) out.kg[id] -= consumed[id];
   for (const id in generated) out.kg[id] += generated[id];
   for (const id of ctx.ids) {
@@ -74,26 +106,65 @@ export function quench(inputs: Record<string, Stream | undefined>, params: Param
   const mc = Object.values(consumed).reduce((a, b) => a + b, 0);
   const mg = Object.values(generated).reduce((a, b) => a + b, 0);
   if (Math.abs(mc - mg) > 1e-6 * Math.max(mc, 1e-12)) {
-    W.push({ severity: 'info', code: 'reaction-mass-imbalance', message: `The declared products (${mg.toPrecision(4)} kg) do not match the reactants consumed (${mc.toPrecision(4)} kg): a product (water, CO₂, a salt) is not declared; the totals count only declared components.` });
+    W.push({
+      severity: 'info',
+      code: 'reaction-mass-imbalance',
+      message: `The declared products (${mg.toPrecision(4)} kg) do not match the reactants consumed (${mc.toPrecision(4)} kg): a product (water, CO₂, a salt) is not declared; the totals count only declared components.`,
+    });
   }
-  method(result.methods, 'reaction', 'stoichiometry, complete reaction of the limiting reagent', 'route document');
-  if (nR / nuR < nS / nuS) warn(W, 'warning', 'substrate-left', `${reagent.name} is limiting: ${(100 * (1 - (nuS * xi) / nS)).toFixed(1)} % of ${sub.name} remains.`);
+  method(
+    result.methods,
+    'reaction',
+    'stoichiometry, complete reaction of the limiting reagent',
+    'route document',
+  );
+  if (nR / nuR < nS / nuS)
+    warn(
+      W,
+      'warning',
+      'substrate-left',
+      `${reagent.name} is limiting: ${(100 * (1 - (nuS * xi) / nS)).toFixed(1)} % of ${sub.name} remains.`,
+    );
   finishStream(ctx, out);
   const m = Object.values(out.kg).reduce((a, b) => a + b, 0);
   let dTad: number | null = null;
-  if (params.reactionEnthalpyKJmol !== undefined && params.heatCapacityKJkgK !== undefined && m > 0) {
+  if (
+    params.reactionEnthalpyKJmol !== undefined &&
+    params.heatCapacityKJkgK !== undefined &&
+    m > 0
+  ) {
     dTad = (-params.reactionEnthalpyKJmol * nuS * xi) / (m * params.heatCapacityKJkgK);
-    method(result.methods, 'adiabatic temperature rise', 'ΔT_ad = −ΔH_r ξ / (m c_p)', 'reaction enthalpy and heat capacity from the route document');
-    if (dTad > ADIABATIC_RISE_FLAG_K) W.push({ severity: 'hazard', code: 'exotherm', message: `Adiabatic temperature rise ${dTad.toFixed(0)} K: dose-controlled addition with cooling capacity is required; confirm by calorimetry.` });
+    method(
+      result.methods,
+      'adiabatic temperature rise',
+      'ΔT_ad = −ΔH_r ξ / (m c_p)',
+      'reaction enthalpy and heat capacity from the route document',
+    );
+    if (dTad > ADIABATIC_RISE_FLAG_K)
+      W.push({
+        severity: 'hazard',
+        code: 'exotherm',
+        message: `Adiabatic temperature rise ${dTad.toFixed(0)} K: dose-controlled addition with cooling capacity is required; confirm by calorimetry.`,
+      });
   }
-  W.push({ severity: 'advisory', code: 'quench-exotherm', message: 'Quenches and neutralisations release heat: add under temperature control, dose-limited, and confirm the heat of reaction by calorimetry.' });
+  W.push({
+    severity: 'advisory',
+    code: 'quench-exotherm',
+    message:
+      'Quenches and neutralisations release heat: add under temperature control, dose-limited, and confirm the heat of reaction by calorimetry.',
+  });
   if (isCarbonate(ctx, params.reagentId) || isCarbonate(ctx, params.reactsWith)) {
     const carb = isCarbonate(ctx, params.reagentId) ? nuR * xi : nuS * xi;
     co2Hazard(W, carb, T, 'Carbonate neutralisation');
   }
   result.peakVolumeM3 = out.volumeM3;
   result.summary = { 'extent mol': round(xi, 6), 'ΔT_ad K': dTad === null ? null : round(dTad, 1) };
-  result.details = { extentMol: xi, adiabaticRiseK: dTad, consumedKg: consumed, generatedKg: generated };
+  result.details = {
+    extentMol: xi,
+    adiabaticRiseK: dTad,
+    consumedKg: consumed,
+    generatedKg: generated,
+  };
   commonCautions(ctx, out.kg, T, W);
   return { outputs: { out }, result };
 }
@@ -104,12 +175,21 @@ export function quench(inputs: Record<string, Stream | undefined>, params: Param
  * (equilibria.aqueousPH, including the compounds' own pKa values) and
  * bisection on the charged mass.
  */
-export function phAdjust(inputs: Record<string, Stream | undefined>, params: ParamsOf<'ph-adjust'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function phAdjust(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'ph-adjust'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
   const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.phAdjust, basis: COMMON_PRACTICE_BASIS });
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.phAdjust,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   const W = result.warnings;
-  if (!ctx.waterId || !(feed.kg[ctx.waterId] > 0)) throw new StepError('params', 'pH adjustment needs water in the feed.');
+  if (!ctx.waterId || !(feed.kg[ctx.waterId] > 0))
+    throw new StepError('params', 'pH adjustment needs water in the feed.');
   const target = ctx.num(params.targetPH, -1, 15);
   const wt = ctx.num(params.wtPct, 0.1, 60);
   const aqOnly = (kg: Record<string, number>) => {
@@ -126,21 +206,31 @@ export function phAdjust(inputs: Record<string, Stream | undefined>, params: Par
     kg[params.reagentSoluteId] += (mediumKg * wt) / 100;
     const aq = aqOnly(kg);
     const all = { ...kg };
-    for (const id of ctx.ids) if (ctx.comps.get(id)!.kind === 'solvent' && !ctx.comps.get(id)!.isWater) all[id] = 0;
+    for (const id of ctx.ids)
+      if (ctx.comps.get(id)!.kind === 'solvent' && !ctx.comps.get(id)!.isWater) all[id] = 0;
     return aqueousPH(ctx, { volumeM3: streamVolume(ctx, aq, T), kg: all, includeCompounds: true })!;
   };
   const pH0 = pHWith(0);
   const up = pHWith(feed.kg[ctx.waterId] * 0.01) > pH0;
   let medium = 0;
   if ((up && target < pH0) || (!up && target > pH0)) {
-    W.push({ severity: 'warning', code: 'wrong-direction', message: `The reagent moves the pH away from the target (now ${pH0.toFixed(2)}, target ${target}); nothing is added.` });
+    W.push({
+      severity: 'warning',
+      code: 'wrong-direction',
+      message: `The reagent moves the pH away from the target (now ${pH0.toFixed(2)}, target ${target}); nothing is added.`,
+    });
   } else {
     let lo = 0;
     let hi = Math.max(1e-6, feed.kg[ctx.waterId] * 1e-3);
     const beyond = (m: number) => (up ? pHWith(m) >= target : pHWith(m) <= target);
     let k = 0;
     while (!beyond(hi) && k++ < 40) hi *= 2;
-    if (!beyond(hi)) W.push({ severity: 'warning', code: 'target-unreachable', message: 'The target pH cannot be reached with this reagent.' });
+    if (!beyond(hi))
+      W.push({
+        severity: 'warning',
+        code: 'target-unreachable',
+        message: 'The target pH cannot be reached with this reagent.',
+      });
     for (let i = 0; i < 40; i++) {
       const mid = 0.5 * (lo + hi);
       if (beyond(mid)) hi = mid;
@@ -156,17 +246,48 @@ export function phAdjust(inputs: Record<string, Stream | undefined>, params: Par
   out.temperatureK = T;
   for (const id in result.addedKg) out.kg[id] += result.addedKg[id];
   finishStream(ctx, out);
-  method(result.methods, 'pH', 'charge balance with the pKa values of the aqueous solutes and compounds (ideal solution, pKw 14); bisection on the charged mass', 'aqueous-media library; compound records');
-  W.push({ severity: 'advisory', code: 'neutralisation-exotherm', message: 'Neutralisation releases heat: dose under temperature control.' });
-  if (isCarbonate(ctx, params.reagentSoluteId) && pH0 < 6.4) co2Hazard(W, result.addedKg[params.reagentSoluteId] / ctx.comps.get(params.reagentSoluteId)!.molarMassKgMol, T, 'Carbonate added to an acidic aqueous phase');
+  method(
+    result.methods,
+    'pH',
+    'charge balance with the pKa values of the aqueous solutes and compounds (ideal solution, pKw 14); bisection on the charged mass',
+    'aqueous-media library; compound records',
+  );
+  W.push({
+    severity: 'advisory',
+    code: 'neutralisation-exotherm',
+    message: 'Neutralisation releases heat: dose under temperature control.',
+  });
+  if (isCarbonate(ctx, params.reagentSoluteId) && pH0 < 6.4)
+    co2Hazard(
+      W,
+      result.addedKg[params.reagentSoluteId] /
+        ctx.comps.get(params.reagentSoluteId)!.molarMassKgMol,
+      T,
+      'Carbonate added to an acidic aqueous phase',
+    );
   result.peakVolumeM3 = out.volumeM3;
-  result.summary = { 'start pH': round(pH0, 2), 'reagent kg': round(medium, 5), 'final pH': round(pHWith(medium), 2) };
-  result.details = { startPH: pH0, targetPH: target, finalPH: pHWith(medium), reagentMediumKg: medium };
+  result.summary = {
+    'start pH': round(pH0, 2),
+    'reagent kg': round(medium, 5),
+    'final pH': round(pHWith(medium), 2),
+  };
+  result.details = {
+    startPH: pH0,
+    targetPH: target,
+    finalPH: pHWith(medium),
+    reagentMediumKg: medium,
+  };
   commonCautions(ctx, out.kg, T, W);
   return { outputs: { out }, result };
 }
 
-function removeFractions(ctx: EvalContext, feed: Stream, removals: ParamsOf<'carbon-treatment'>['removals'], T: number, removedPhase: 'solid') {
+function removeFractions(
+  ctx: EvalContext,
+  feed: Stream,
+  removals: ParamsOf<'carbon-treatment'>['removals'],
+  T: number,
+  removedPhase: 'solid',
+) {
   const out = cloneStream(feed);
   out.temperatureK = T;
   const removed = emptyStream(ctx, removedPhase, T);
@@ -189,30 +310,60 @@ function removeFractions(ctx: EvalContext, feed: Stream, removals: ParamsOf<'car
  * Carbon charge = carbonWtPct % of the dissolved compounds, counted in PMI
  * as an auxiliary material. Liquor held up on the carbon is not modelled.
  */
-export function carbonTreatment(inputs: Record<string, Stream | undefined>, params: ParamsOf<'carbon-treatment'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function carbonTreatment(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'carbon-treatment'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
   const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.carbonTreatment, basis: COMMON_PRACTICE_BASIS });
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.carbonTreatment,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   const { out, removed } = removeFractions(ctx, feed, params.removals, T, 'solid');
   let solutes = 0;
   for (const id of ctx.ids) if (ctx.comps.get(id)!.kind === 'compound') solutes += feed.kg[id];
   result.auxiliaryKg = (ctx.num(params.carbonWtPct, 0, 100) / 100) * solutes;
-  method(result.methods, 'adsorption', 'fraction removed per component (user data)', 'route document');
+  method(
+    result.methods,
+    'adsorption',
+    'fraction removed per component (user data)',
+    'route document',
+  );
   const pid = ctx.productId;
-  if (pid && feed.kg[pid] > 0) result.summary['product loss %'] = round((100 * removed.kg[pid]) / feed.kg[pid], 3);
+  if (pid && feed.kg[pid] > 0)
+    result.summary['product loss %'] = round((100 * removed.kg[pid]) / feed.kg[pid], 3);
   result.summary['carbon kg'] = round(result.auxiliaryKg, 4);
   result.peakVolumeM3 = feed.volumeM3;
   result.details = { carbonKg: result.auxiliaryKg, removedKg: removed.kg };
   commonCautions(ctx, out.kg, T, result.warnings, { transfer: true });
-  result.warnings.push({ severity: 'advisory', code: 'carbon-handling', message: 'Dry activated carbon is a dust and can self-heat with solvents: charge it wetted, and filter under inert gas (common practice).' });
+  result.warnings.push({
+    severity: 'advisory',
+    code: 'carbon-handling',
+    message:
+      'Dry activated carbon is a dust and can self-heat with solvents: charge it wetted, and filter under inert gas (common practice).',
+  });
   return { outputs: { out, spent: removed }, result };
 }
 
 /** Polish filtration: the stated fraction of each chosen component (particulates, insolubles) is retained on the filter. */
-export function polishFiltration(inputs: Record<string, Stream | undefined>, params: ParamsOf<'polish-filtration'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function polishFiltration(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'polish-filtration'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
-  const T = params.temperatureC !== undefined ? cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC)) : feed.temperatureK;
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.polishFiltration, basis: COMMON_PRACTICE_BASIS });
+  const T =
+    params.temperatureC !== undefined
+      ? cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC))
+      : feed.temperatureK;
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.polishFiltration,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   const { out, removed } = removeFractions(ctx, feed, params.removals, T, 'solid');
   // Solids not listed pass a polish filter only if dissolved: undissolved solids are retained.
   for (const id of ctx.ids) {
@@ -226,7 +377,12 @@ export function polishFiltration(inputs: Record<string, Stream | undefined>, par
   }
   finishStream(ctx, out);
   finishStream(ctx, removed);
-  method(result.methods, 'retention', 'fraction removed per component (user data); undissolved solids retained', 'route document');
+  method(
+    result.methods,
+    'retention',
+    'fraction removed per component (user data); undissolved solids retained',
+    'route document',
+  );
   result.peakVolumeM3 = feed.volumeM3;
   result.details = { retainedKg: removed.kg };
   commonCautions(ctx, out.kg, T, result.warnings, { transfer: true });
@@ -234,10 +390,18 @@ export function polishFiltration(inputs: Record<string, Stream | undefined>, par
 }
 
 /** Split a stream in two by a fraction (same composition). */
-export function split(inputs: Record<string, Stream | undefined>, params: ParamsOf<'split'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function split(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'split'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
   const f = ctx.num(params.fractionToA, 0, 1);
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.transfer, basis: COMMON_PRACTICE_BASIS });
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.transfer,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   const a = cloneStream(feed);
   const b = cloneStream(feed);
   for (const id of ctx.ids) {
@@ -254,9 +418,17 @@ export function split(inputs: Record<string, Stream | undefined>, params: Params
 }
 
 /** Merge streams; temperature is the mass-weighted mean (equal heat capacities, no heat of mixing). */
-export function merge(inputs: Record<string, Stream | undefined>, _params: ParamsOf<'merge'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function merge(
+  inputs: Record<string, Stream | undefined>,
+  _params: ParamsOf<'merge'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const ins = (['a', 'b', 'c'] as const).map((p) => inputs[p]).filter((s): s is Stream => !!s);
-  const result = newResult(step, { hours: COMMON_PRACTICE_HOURS.transfer, basis: COMMON_PRACTICE_BASIS });
+  const result = newResult(step, {
+    hours: COMMON_PRACTICE_HOURS.transfer,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   let mT = 0;
   let m = 0;
   const out = emptyStream(ctx, 'liquid', 298.15);

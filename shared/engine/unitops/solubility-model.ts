@@ -14,7 +14,12 @@
  * Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32. Solvents below 1 % of the
  * blend by volume are left out (fractions renormalised).
  */
-import { fitVantHoff, gramsPerLitreToMoleFraction, idealSolubility, jouybanAcree } from '../properties/solubility';
+import {
+  fitVantHoff,
+  gramsPerLitreToMoleFraction,
+  idealSolubility,
+  jouybanAcree,
+} from '../properties/solubility';
 import type { UnifacModel } from '../thermo/unifac';
 import type { EvalContext } from '../route/context';
 import { method, solventDensityGmL, warn } from '../route/context';
@@ -23,9 +28,18 @@ import { R_J_PER_MOL_K } from '../units';
 import type { CompoundSnapshot } from '../../schemas/route';
 import type { SolventRecord } from '../data/types';
 
-type Curve = { lnX(T_K: number): number; method: string; source: string; range?: [number, number] } | null;
+type Curve = {
+  lnX(T_K: number): number;
+  method: string;
+  source: string;
+  range?: [number, number];
+} | null;
 
-function pointToMoleFraction(c: CompoundSnapshot, s: SolventRecord, p: NonNullable<CompoundSnapshot['solubility']>[number]): number {
+function pointToMoleFraction(
+  c: CompoundSnapshot,
+  s: SolventRecord,
+  p: NonNullable<CompoundSnapshot['solubility']>[number],
+): number {
   const Ms = c.molarMassGmol;
   const Mv = s.molarMassGmol.value;
   switch (p.unit) {
@@ -33,7 +47,12 @@ function pointToMoleFraction(c: CompoundSnapshot, s: SolventRecord, p: NonNullab
       return p.value;
     case 'g/L':
     case 'mg/mL':
-      return gramsPerLitreToMoleFraction({ gramsPerLitre: p.value, soluteMolarMassGmol: Ms, solventMolarMassGmol: Mv, solventDensityGmL: solventDensityGmL(s, p.temperatureC + 273.15) });
+      return gramsPerLitreToMoleFraction({
+        gramsPerLitre: p.value,
+        soluteMolarMassGmol: Ms,
+        solventMolarMassGmol: Mv,
+        solventDensityGmL: solventDensityGmL(s, p.temperatureC + 273.15),
+      });
     case 'wt%': {
       const w = p.value / 100;
       return w / Ms / (w / Ms + (1 - w) / Mv);
@@ -124,7 +143,11 @@ const SCAN_GRID: readonly number[] = (() => {
 })();
 
 /** Solubility curve of a compound in one neat solvent, by the best evidence available. */
-export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventComponentId: string): Curve {
+export function neatSolventCurve(
+  ctx: EvalContext,
+  compoundId: string,
+  solventComponentId: string,
+): Curve {
   const key = `sol:${compoundId}:${solventComponentId}`;
   if (ctx.cache.has(key)) return ctx.cache.get(key) as Curve;
   const c = ctx.comps.get(compoundId)!.compound!;
@@ -133,17 +156,43 @@ export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventCo
   const pts = (c.solubility ?? []).filter((p) => p.solventId === s.id);
   const Tm = c.meltingPointC !== undefined ? c.meltingPointC + 273.15 : undefined;
   const dH = c.enthalpyFusionKJmol !== undefined ? c.enthalpyFusionKJmol * 1000 : undefined;
-  const src = pts.map((p) => p.source).filter(Boolean).join('; ') || 'user measured data';
+  const src =
+    pts
+      .map((p) => p.source)
+      .filter(Boolean)
+      .join('; ') || 'user measured data';
   const temps = new Set(pts.map((p) => p.temperatureC));
   if (temps.size >= 2) {
-    const fit = fitVantHoff(pts.map((p) => ({ T_K: p.temperatureC + 273.15, moleFraction: pointToMoleFraction(c, s, p) })));
-    curve = { lnX: (T) => fit.a + fit.b / T, method: "measured points, van 't Hoff fit", source: src, range: [fit.TminK, fit.TmaxK] };
+    const fit = fitVantHoff(
+      pts.map((p) => ({
+        T_K: p.temperatureC + 273.15,
+        moleFraction: pointToMoleFraction(c, s, p),
+      })),
+    );
+    curve = {
+      lnX: (T) => fit.a + fit.b / T,
+      method: "measured points, van 't Hoff fit",
+      source: src,
+      range: [fit.TminK, fit.TmaxK],
+    };
   } else if (pts.length >= 1) {
     const p = pts[0];
     const T0 = p.temperatureC + 273.15;
     const ln0 = Math.log(pointToMoleFraction(c, s, p));
-    if (dH !== undefined) curve = { lnX: (T) => ln0 - (dH / R_J_PER_MOL_K) * (1 / T - 1 / T0), method: 'one measured point with the ideal van \'t Hoff slope (ΔHfus)', source: src, range: [T0, T0] };
-    else curve = { lnX: () => ln0, method: 'one measured point, no temperature dependence', source: src, range: [T0, T0] };
+    if (dH !== undefined)
+      curve = {
+        lnX: (T) => ln0 - (dH / R_J_PER_MOL_K) * (1 / T - 1 / T0),
+        method: "one measured point with the ideal van 't Hoff slope (ΔHfus)",
+        source: src,
+        range: [T0, T0],
+      };
+    else
+      curve = {
+        lnX: () => ln0,
+        method: 'one measured point, no temperature dependence',
+        source: src,
+        range: [T0, T0],
+      };
   } else if (Tm !== undefined && dH !== undefined) {
     if (c.unifac) {
       const groups = Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v]));
@@ -162,14 +211,22 @@ export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventCo
             const Tc = Math.min(T, Tm);
             let v = memo.get(Tc);
             if (v === undefined) {
-              v = Math.log(activitySolubility(model, idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Tc }).moleFraction, Tc));
+              v = Math.log(
+                activitySolubility(
+                  model,
+                  idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Tc })
+                    .moleFraction,
+                  Tc,
+                ),
+              );
               if (memo.size > 64) memo.clear();
               memo.set(Tc, v);
             }
             return v;
           },
           method: 'UNIFAC activity-corrected solubility',
-          source: 'Fredenslund et al. 1975 / Hansen et al. 1991 UNIFAC; melting data from the compound record',
+          source:
+            'Fredenslund et al. 1975 / Hansen et al. 1991 UNIFAC; melting data from the compound record',
         };
       } catch {
         curve = null;
@@ -177,7 +234,11 @@ export function neatSolventCurve(ctx: EvalContext, compoundId: string, solventCo
     }
     if (!curve) {
       curve = {
-        lnX: (T) => Math.log(idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Math.min(T, Tm) }).moleFraction),
+        lnX: (T) =>
+          Math.log(
+            idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Math.min(T, Tm) })
+              .moleFraction,
+          ),
         method: 'ideal solubility (Schröder–van Laar)',
         source: 'melting point and ΔHfus from the compound record',
       };
@@ -226,13 +287,28 @@ export function solubilityIn(
   for (const id of used) {
     const curve = neatSolventCurve(ctx, compoundId, id);
     if (!curve) {
-      warn(warnings, 'warning', 'no-solubility-data', `${comp.name}: no solubility data in ${ctx.comps.get(id)!.name} and no melting data; treated as fully soluble.`);
+      warn(
+        warnings,
+        'warning',
+        'no-solubility-data',
+        `${comp.name}: no solubility data in ${ctx.comps.get(id)!.name} and no melting data; treated as fully soluble.`,
+      );
       return null;
     }
     if (curve.range && (T_K < curve.range[0] - 10 || T_K > curve.range[1] + 10)) {
-      warn(warnings, 'info', 'solubility-extrapolated', `${comp.name} in ${ctx.comps.get(id)!.name}: solubility extrapolated to ${(T_K - 273.15).toFixed(0)} °C, outside the measured ${(curve.range[0] - 273.15).toFixed(0)}–${(curve.range[1] - 273.15).toFixed(0)} °C.`);
+      warn(
+        warnings,
+        'info',
+        'solubility-extrapolated',
+        `${comp.name} in ${ctx.comps.get(id)!.name}: solubility extrapolated to ${(T_K - 273.15).toFixed(0)} °C, outside the measured ${(curve.range[0] - 273.15).toFixed(0)}–${(curve.range[1] - 273.15).toFixed(0)} °C.`,
+      );
     }
-    method(methods, `solubility of ${comp.name} in ${ctx.comps.get(id)!.name}`, curve.method, curve.source);
+    method(
+      methods,
+      `solubility of ${comp.name} in ${ctx.comps.get(id)!.name}`,
+      curve.method,
+      curve.source,
+    );
     lnXs.push(Math.min(0, curve.lnX(T_K)));
     labels.push(curve.method);
   }
@@ -240,7 +316,12 @@ export function solubilityIn(
   if (used.length === 1) lnX = lnXs[0];
   else {
     lnX = jouybanAcree({ lnSolubilities: lnXs, fractions: usedVol.map((v) => v / usedTot), T_K });
-    method(methods, `solubility of ${comp.name} in the solvent blend`, 'Jouyban–Acree log-linear model on solute-free volume fractions (no interaction terms)', 'Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32');
+    method(
+      methods,
+      `solubility of ${comp.name} in the solvent blend`,
+      'Jouyban–Acree log-linear model on solute-free volume fractions (no interaction terms)',
+      'Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32',
+    );
   }
   const x = Math.min(Math.exp(lnX), 0.999);
   let nSolv = 0;

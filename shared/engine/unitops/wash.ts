@@ -40,11 +40,28 @@ import type { ParamsOf, RouteStep } from '../../schemas/route';
 import { RANGES } from '../../schemas/route';
 import type { EvalContext } from '../route/context';
 import type { PKa } from '../properties/partition';
-import { aqueousMediumKg, commonCautions, cToK, emptyStream, finishStream, method, solventKgFromVolume, streamVolume, volumeToM3, warn } from '../route/context';
+import {
+  aqueousMediumKg,
+  commonCautions,
+  cToK,
+  emptyStream,
+  finishStream,
+  method,
+  solventKgFromVolume,
+  streamVolume,
+  volumeToM3,
+  warn,
+} from '../route/context';
 import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
-import { aqueousPH, compoundDistribution, neutralPartitionCoefficient, organicOrganicDistribution, splitLiquid } from './equilibria';
+import {
+  aqueousPH,
+  compoundDistribution,
+  neutralPartitionCoefficient,
+  organicOrganicDistribution,
+  splitLiquid,
+} from './equilibria';
 import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA } from '../units';
 
 /** Density difference below which phases separate poorly, g/mL (issue 4; common practice). */
@@ -80,7 +97,15 @@ function solventsOnly(ctx: EvalContext, kg: Record<string, number>): Record<stri
  * One equilibrium contact of a liquid mixture: solvent split, pH of the
  * aqueous phase, and the distribution ratio of each compound.
  */
-export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: number, pHOverride: number | undefined, warnings: EngineWarning[], methods: MethodUsed[], feedIsPolar = false): PhaseState & { toOrganic: Record<string, number> } {
+export function equilibrate(
+  ctx: EvalContext,
+  mix: Record<string, number>,
+  T_K: number,
+  pHOverride: number | undefined,
+  warnings: EngineWarning[],
+  methods: MethodUsed[],
+  feedIsPolar = false,
+): PhaseState & { toOrganic: Record<string, number> } {
   const sp = splitLiquid(ctx, solventsOnly(ctx, mix), T_K, warnings, methods);
   const organic: Record<string, number> = {};
   const aqueous: Record<string, number> = {};
@@ -119,14 +144,27 @@ export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: 
     for (const id of ctx.ids) {
       const cp = ctx.comps.get(id)!.compound;
       if (!cp?.pKa?.length || !(mix[id] > 0)) continue;
-      const K = sp.split && Vo > 0 && main !== null ? neutralPartitionCoefficient(ctx, id, main, salt, T_K) : 0;
+      const K =
+        sp.split && Vo > 0 && main !== null
+          ? neutralPartitionCoefficient(ctx, id, main, salt, T_K)
+          : 0;
       if (!Number.isFinite(K)) continue;
       carried.push({ mol: mix[id] / (cp.molarMassGmol / 1000), pKa: cp.pKa, K });
     }
-    pH = aqueousPH(ctx, { volumeM3: Va, kg: aqueous, includeCompounds: false, carried: { organicVolumeM3: Vo, compounds: carried } });
-    method(methods, 'aqueous pH', carried.length
-      ? 'charge balance of the aqueous solutes and of the acids and bases carried by the feed (their neutral forms partitioning into the organic phase; ideal solution, pKw 14)'
-      : 'charge balance of the aqueous solutes (ideal solution, pKw 14)', 'pKa values from the aqueous-media library and the route compounds');
+    pH = aqueousPH(ctx, {
+      volumeM3: Va,
+      kg: aqueous,
+      includeCompounds: false,
+      carried: { organicVolumeM3: Vo, compounds: carried },
+    });
+    method(
+      methods,
+      'aqueous pH',
+      carried.length
+        ? 'charge balance of the aqueous solutes and of the acids and bases carried by the feed (their neutral forms partitioning into the organic phase; ideal solution, pKw 14)'
+        : 'charge balance of the aqueous solutes (ideal solution, pKw 14)',
+      'pKa values from the aqueous-media library and the route compounds',
+    );
   }
   const D: PhaseState['D'] = {};
   const toOrganic: Record<string, number> = {};
@@ -158,14 +196,30 @@ export function equilibrate(ctx: EvalContext, mix: Record<string, number>, T_K: 
     method(methods, `distribution of ${c.name}`, d.method, d.source);
     toOrganic[id] = d.D === Infinity ? 1 : (d.D * Vo) / (d.D * Vo + Va);
   }
-  return { organic, aqueous, split: sp.split, pH, volumes: { organicM3: Vo, aqueousM3: Va }, D, toOrganic };
+  return {
+    organic,
+    aqueous,
+    split: sp.split,
+    pH,
+    volumes: { organicM3: Vo, aqueousM3: Va },
+    D,
+    toOrganic,
+  };
 }
 
-export function washOrExtraction(inputs: Record<string, Stream | undefined>, params: ParamsOf<'wash'>, ctx: EvalContext, step: RouteStep): StepOutput {
+export function washOrExtraction(
+  inputs: Record<string, Stream | undefined>,
+  params: ParamsOf<'wash'>,
+  ctx: EvalContext,
+  step: RouteStep,
+): StepOutput {
   const feed = inputs.feed!;
   const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
   const N = params.stages;
-  const result = newResult(step, { hours: N * COMMON_PRACTICE_HOURS.washStage, basis: COMMON_PRACTICE_BASIS });
+  const result = newResult(step, {
+    hours: N * COMMON_PRACTICE_HOURS.washStage,
+    basis: COMMON_PRACTICE_BASIS,
+  });
   const W = result.warnings;
   const M = result.methods;
   const liq = params.addedLiquid;
@@ -175,7 +229,11 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
   const added: Record<string, number> = {};
   let pHOverride: number | undefined;
   if (liq.kind === 'aqueous') {
-    if (!ctx.waterId) throw new StepError('params.addedLiquid', 'An aqueous medium needs the solvent "water" among the route components.');
+    if (!ctx.waterId)
+      throw new StepError(
+        'params.addedLiquid',
+        'An aqueous medium needs the solvent "water" among the route components.',
+      );
     const wt = ctx.num(liq.wtPct, 0, 60);
     const { waterKg, soluteKg } = aqueousMediumKg(ctx, liq.soluteId, wt, V, T);
     added[ctx.waterId] = waterKg;
@@ -188,17 +246,33 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
   for (const id in added) result.addedKg[id] = perStage ? added[id] * N : added[id];
   result.addedVolumeM3 = perStage ? V * N : V;
 
-  const feedPhaseIsOrganic = liq.kind === 'aqueous' || (liq.kind === 'solvent' && ctx.comps.get(liq.solventId)!.isWater);
+  const feedPhaseIsOrganic =
+    liq.kind === 'aqueous' || (liq.kind === 'solvent' && ctx.comps.get(liq.solventId)!.isWater);
   if (liq.kind === 'solvent' && !feedPhaseIsOrganic) {
     // An organic solvent added: the feed is aqueous unless it holds no water.
     const fw = ctx.waterId ? feed.kg[ctx.waterId] : 0;
-    if (!(fw > 0)) W.push({ severity: 'warning', code: 'no-aqueous-feed', message: 'An organic solvent is added to a feed without water: an organic–organic split is assumed.' });
+    if (!(fw > 0))
+      W.push({
+        severity: 'warning',
+        code: 'no-aqueous-feed',
+        message:
+          'An organic solvent is added to a feed without water: an organic–organic split is assumed.',
+      });
   }
-  if (ctx.ids.some((id) => feed.solidKg[id] > 0)) warn(W, 'warning', 'solids-in-wash', 'The feed carries solids: they stay with the feed phase and may gather at the interface (rag layer).');
+  if (ctx.ids.some((id) => feed.solidKg[id] > 0))
+    warn(
+      W,
+      'warning',
+      'solids-in-wash',
+      'The feed carries solids: they stay with the feed phase and may gather at the interface (rag layer).',
+    );
 
   const organicOut = emptyStream(ctx, 'organic', T);
   const aqueousOut = emptyStream(ctx, 'aqueous', T);
-  const perComponent: Record<string, { D: number | null; method: string; source: string; toOrganicPct: number }> = {};
+  const perComponent: Record<
+    string,
+    { D: number | null; method: string; source: string; toOrganicPct: number }
+  > = {};
   let last: ReturnType<typeof equilibrate> | null = null;
   let peak = 0;
 
@@ -216,7 +290,12 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
   }
 
   if (perStage) {
-    method(M, 'stages', 'cross-current: fresh liquid each stage, equilibrium stages simulated in turn', 'Harris, Quantitative Chemical Analysis (fraction remaining q^n)');
+    method(
+      M,
+      'stages',
+      'cross-current: fresh liquid each stage, equilibrium stages simulated in turn',
+      'Harris, Quantitative Chemical Analysis (fraction remaining q^n)',
+    );
     let carry: Record<string, number> = { ...feed.kg };
     const collected: Record<string, number> = {};
     for (const id of ctx.ids) collected[id] = 0;
@@ -251,7 +330,12 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
       addOut.kg[id] = collected[id];
     }
   } else {
-    method(M, 'stages', 'counter-current cascade, Kremser equation φ = (E − 1)/(E^{N+1} − 1)', 'Kremser, Natl. Petrol. News 1930, 22(21), 42; Seader, Henley & Roper, Separation Process Principles, liquid–liquid extraction chapter');
+    method(
+      M,
+      'stages',
+      'counter-current cascade, Kremser equation φ = (E − 1)/(E^{N+1} − 1)',
+      'Kremser, Natl. Petrol. News 1930, 22(21), 42; Seader, Henley & Roper, Separation Process Principles, liquid–liquid extraction chapter',
+    );
     const mix: Record<string, number> = { ...feed.kg };
     for (const id in added) mix[id] += added[id];
     peak = streamVolume(ctx, mix, T);
@@ -295,7 +379,12 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
     const c = ctx.comps.get(id)!;
     if (c.kind !== 'compound' || !(totalIn[id] > 0)) continue;
     const d = last?.D[id];
-    perComponent[id] = { D: d ? d.D : null, method: d?.method ?? 'not distributed (single phase or no data)', source: d?.source ?? '', toOrganicPct: round((100 * organicOut.kg[id]) / totalIn[id], 3) };
+    perComponent[id] = {
+      D: d ? d.D : null,
+      method: d?.method ?? 'not distributed (single phase or no data)',
+      source: d?.source ?? '',
+      toOrganicPct: round((100 * organicOut.kg[id]) / totalIn[id], 3),
+    };
   }
 
   // Densities and top phase.
@@ -308,16 +397,26 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
     top = rhoO < rhoA ? 'organic' : 'aqueous';
     const dRho = Math.abs(rhoO - rhoA);
     if (dRho < MIN_DENSITY_DIFFERENCE_GML) {
-      W.push({ severity: 'warning', code: 'near-equal-densities', message: `Phase densities differ by only ${dRho.toFixed(3)} g/mL (organic ${rhoO.toFixed(3)}, aqueous ${rhoA.toFixed(3)}): slow or no separation, risk of phase inversion; consider brine or more solvent.` });
+      W.push({
+        severity: 'warning',
+        code: 'near-equal-densities',
+        message: `Phase densities differ by only ${dRho.toFixed(3)} g/mL (organic ${rhoO.toFixed(3)}, aqueous ${rhoA.toFixed(3)}): slow or no separation, risk of phase inversion; consider brine or more solvent.`,
+      });
     }
-    method(M, 'top phase', 'phase densities by ideal mixing of component volumes', 'densities from the solvent and aqueous-media library');
+    method(
+      M,
+      'top phase',
+      'phase densities by ideal mixing of component volumes',
+      'densities from the solvent and aqueous-media library',
+    );
   }
 
   // Emulsion-prone conditions (common practice).
   const pH = last?.pH ?? null;
   if (last?.split) emulsionChecks(ctx, organicOut, pH, rhoO, rhoA, W);
   // Gas evolution: carbonate or bicarbonate meeting acid.
-  if (liq.kind === 'aqueous') gasEvolutionCheck(ctx, feed, liq.soluteId, result.addedKg[liq.soluteId] ?? 0, T, W);
+  if (liq.kind === 'aqueous')
+    gasEvolutionCheck(ctx, feed, liq.soluteId, result.addedKg[liq.soluteId] ?? 0, T, W);
   buffercapacityCheck(ctx, feed, result.addedKg, pH, T, W);
 
   // Product loss to the discarded phase.
@@ -326,8 +425,18 @@ export function washOrExtraction(inputs: Record<string, Stream | undefined>, par
     const kept = params.keep === 'organic' ? organicOut.kg[pid] : aqueousOut.kg[pid];
     const recovery = kept / totalIn[pid];
     result.summary['product recovery %'] = round(recovery * 100, 2);
-    if (step.kind === 'wash' && recovery < 0.98) W.push({ severity: 'warning', code: 'product-loss', message: `${(100 * (1 - recovery)).toFixed(1)} % of the product leaves with the ${params.keep === 'organic' ? 'aqueous' : 'organic'} phase.` });
-    if (step.kind === 'extraction' && recovery < 0.9) W.push({ severity: 'warning', code: 'incomplete-extraction', message: `Only ${(100 * recovery).toFixed(1)} % of the product reaches the ${params.keep} phase; consider more stages or volume.` });
+    if (step.kind === 'wash' && recovery < 0.98)
+      W.push({
+        severity: 'warning',
+        code: 'product-loss',
+        message: `${(100 * (1 - recovery)).toFixed(1)} % of the product leaves with the ${params.keep === 'organic' ? 'aqueous' : 'organic'} phase.`,
+      });
+    if (step.kind === 'extraction' && recovery < 0.9)
+      W.push({
+        severity: 'warning',
+        code: 'incomplete-extraction',
+        message: `Only ${(100 * recovery).toFixed(1)} % of the product reaches the ${params.keep} phase; consider more stages or volume.`,
+      });
   }
   if (!last?.split) result.summary['phases'] = 'one';
   result.summary['pH'] = pH === null ? null : round(pH, 2);
@@ -369,21 +478,56 @@ export function crossCurrentFractionRemaining(E: number, n: number): number {
   return (1 / (1 + E)) ** n;
 }
 
-function emulsionChecks(ctx: EvalContext, organic: Stream, pH: number | null, rhoO: number | null, rhoA: number | null, W: EngineWarning[]) {
+function emulsionChecks(
+  ctx: EvalContext,
+  organic: Stream,
+  pH: number | null,
+  rhoO: number | null,
+  rhoA: number | null,
+  W: EngineWarning[],
+) {
   const reasons: string[] = [];
-  if (rhoO !== null && rhoA !== null && Math.abs(rhoO - rhoA) < MIN_DENSITY_DIFFERENCE_GML) reasons.push('very small density difference');
+  if (rhoO !== null && rhoA !== null && Math.abs(rhoO - rhoA) < MIN_DENSITY_DIFFERENCE_GML)
+    reasons.push('very small density difference');
   for (const id of ctx.ids) {
     const c = ctx.comps.get(id)!;
-    if (c.solvent && c.solvent.id === 'dichloromethane' && organic.kg[id] > 0 && pH !== null && pH > 9) reasons.push('dichloromethane against a basic aqueous phase');
+    if (
+      c.solvent &&
+      c.solvent.id === 'dichloromethane' &&
+      organic.kg[id] > 0 &&
+      pH !== null &&
+      pH > 9
+    )
+      reasons.push('dichloromethane against a basic aqueous phase');
     const cp = c.compound;
-    if (cp && pH !== null && cp.logP !== undefined && cp.logP >= 2 && cp.pKa?.some((p) => Math.abs(p.value - pH) < 1)) {
-      reasons.push(`${cp.name} is partly ionised at pH ${pH.toFixed(1)} with logP ${cp.logP} (surfactant-like)`);
+    if (
+      cp &&
+      pH !== null &&
+      cp.logP !== undefined &&
+      cp.logP >= 2 &&
+      cp.pKa?.some((p) => Math.abs(p.value - pH) < 1)
+    ) {
+      reasons.push(
+        `${cp.name} is partly ionised at pH ${pH.toFixed(1)} with logP ${cp.logP} (surfactant-like)`,
+      );
     }
   }
-  if (reasons.length) W.push({ severity: 'advisory', code: 'emulsion-risk', message: `Emulsion-prone conditions (common practice): ${reasons.join('; ')}. Allow settling time; brine or filtration through a filter aid may help.` });
+  if (reasons.length)
+    W.push({
+      severity: 'advisory',
+      code: 'emulsion-risk',
+      message: `Emulsion-prone conditions (common practice): ${reasons.join('; ')}. Allow settling time; brine or filtration through a filter aid may help.`,
+    });
 }
 
-function gasEvolutionCheck(ctx: EvalContext, feed: Stream, soluteId: string, soluteKg: number, T_K: number, W: EngineWarning[]) {
+function gasEvolutionCheck(
+  ctx: EvalContext,
+  feed: Stream,
+  soluteId: string,
+  soluteKg: number,
+  T_K: number,
+  W: EngineWarning[],
+) {
   const a = ctx.comps.get(soluteId)!.aqueous!;
   if (!/CO3/.test(a.formula)) return;
   const nCarb = soluteKg / ctx.comps.get(soluteId)!.molarMassKgMol;
@@ -400,7 +544,11 @@ function gasEvolutionCheck(ctx: EvalContext, feed: Stream, soluteId: string, sol
   const nCO2 = Math.min(nAcid, nCarb * (a.formula.startsWith('Na2') ? 1 : 1));
   if (nCO2 <= 0) return;
   const litres = ((nCO2 * R_J_PER_MOL_K * T_K) / STANDARD_ATMOSPHERE_PA) * 1000;
-  W.push({ severity: 'hazard', code: 'gas-evolution', message: `${a.name} neutralises acid in the feed: up to ${nCO2.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is released. Add slowly with venting and stirring; never in a closed vessel; watch for foaming.` });
+  W.push({
+    severity: 'hazard',
+    code: 'gas-evolution',
+    message: `${a.name} neutralises acid in the feed: up to ${nCO2.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is released. Add slowly with venting and stirring; never in a closed vessel; watch for foaming.`,
+  });
 }
 
 /**
@@ -414,7 +562,14 @@ function gasEvolutionCheck(ctx: EvalContext, feed: Stream, soluteId: string, sol
  * equivalent). Below 1 equiv: a warning with the equivalents and the pH the
  * charge balance gives; 1–2 equiv: an advisory (little margin).
  */
-function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<string, number>, pH: number | null, T_K: number, W: EngineWarning[]) {
+function buffercapacityCheck(
+  ctx: EvalContext,
+  feed: Stream,
+  added: Record<string, number>,
+  pH: number | null,
+  T_K: number,
+  W: EngineWarning[],
+) {
   if (pH === null) return;
   let acidCap = 0;
   let baseCap = 0;
@@ -432,7 +587,12 @@ function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<strin
     else if (ab.kind === 'weak-base' || ab.kind === 'amphoteric-salt') baseCap += n;
   }
   if (!(acidCap > 0) && !(baseCap > 0)) return;
-  const mediumPH = aqueousPH(ctx, { volumeM3: streamVolume(ctx, medium, T_K), kg: medium, includeCompounds: false }) ?? pH;
+  const mediumPH =
+    aqueousPH(ctx, {
+      volumeM3: streamVolume(ctx, medium, T_K),
+      kg: medium,
+      includeCompounds: false,
+    }) ?? pH;
   let needAcid = 0;
   let needBase = 0;
   for (const id of ctx.ids) {
@@ -441,7 +601,8 @@ function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<strin
     const n = feed.kg[id] / c.molarMassKgMol;
     const ab = c.aqueous?.acidBase;
     if (ab?.kind === 'strong-acid') needBase += n * ab.protons;
-    else if (ab?.kind === 'weak-acid') needBase += n * ab.pKa.value.filter((k) => k < mediumPH).length;
+    else if (ab?.kind === 'weak-acid')
+      needBase += n * ab.pKa.value.filter((k) => k < mediumPH).length;
     else if (ab?.kind === 'strong-base') needAcid += n * ab.hydroxides;
     else if (ab?.kind === 'weak-base' || ab?.kind === 'amphoteric-salt') needAcid += n;
     for (const p of c.compound?.pKa ?? []) {
@@ -453,9 +614,17 @@ function buffercapacityCheck(ctx: EvalContext, feed: Stream, added: Record<strin
     if (!(cap > 0) || !(need > 0)) return;
     const equiv = cap / need;
     if (equiv < 1) {
-      W.push({ severity: 'warning', code: `${what}-insufficient`, message: `The wash carries ${cap.toPrecision(3)} mol ${what} for ${need.toPrecision(3)} mol ${carried} in the feed (${equiv.toFixed(2)} equiv): the aqueous pH ends at ${pH.toFixed(2)} instead of ${mediumPH.toFixed(2)} for the medium alone, and the ${carried} are purged less. Use more than 1 equiv of ${what}.` });
+      W.push({
+        severity: 'warning',
+        code: `${what}-insufficient`,
+        message: `The wash carries ${cap.toPrecision(3)} mol ${what} for ${need.toPrecision(3)} mol ${carried} in the feed (${equiv.toFixed(2)} equiv): the aqueous pH ends at ${pH.toFixed(2)} instead of ${mediumPH.toFixed(2)} for the medium alone, and the ${carried} are purged less. Use more than 1 equiv of ${what}.`,
+      });
     } else if (equiv < 2) {
-      W.push({ severity: 'advisory', code: 'buffer-capacity', message: `The wash carries ${equiv.toFixed(2)} equiv of ${what} for the ${carried} in the feed (${cap.toPrecision(3)} vs ${need.toPrecision(3)} mol): the pH (${pH.toFixed(2)}, medium alone ${mediumPH.toFixed(2)}) has little margin.` });
+      W.push({
+        severity: 'advisory',
+        code: 'buffer-capacity',
+        message: `The wash carries ${equiv.toFixed(2)} equiv of ${what} for the ${carried} in the feed (${cap.toPrecision(3)} vs ${need.toPrecision(3)} mol): the pH (${pH.toFixed(2)}, medium alone ${mediumPH.toFixed(2)}) has little margin.`,
+      });
     }
   };
   check(baseCap, needBase, 'base', 'acids');

@@ -1,6 +1,14 @@
 import type { ReactNode } from 'react';
 import { createContext, useContext } from 'react';
-import { Navigate, NavLink, Outlet, useLocation, useMatch, useNavigate, useParams } from 'react-router-dom';
+import {
+  Navigate,
+  NavLink,
+  Outlet,
+  useLocation,
+  useMatch,
+  useNavigate,
+  useParams,
+} from 'react-router-dom';
 import type { Session } from '@shared/schemas/session';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
@@ -21,17 +29,27 @@ export function Component() {
   const location = useLocation();
   const signedOut = useSessionEnd((s) => s.reason === 'signed-out');
 
-  if (session.isPending) return <Loading label="Checking your session…" className="justify-center pt-24" />;
+  if (session.isPending)
+    return <Loading label="Checking your session…" className="justify-center pt-24" />;
   if (session.isError) {
     return (
       <div className="mx-auto mt-24 max-w-form px-6">
-        <ErrorState error={session.error} title="Phasewright could not reach the server" onRetry={() => session.refetch()} />
+        <ErrorState
+          error={session.error}
+          title="Phasewright could not reach the server"
+          onRetry={() => session.refetch()}
+        />
       </div>
     );
   }
   if (!session.data) {
     // Someone who signed out starts afresh; anyone else comes back here after signing in.
-    return <Navigate to={paths.signIn.to(signedOut ? undefined : location.pathname + location.search)} replace />;
+    return (
+      <Navigate
+        to={paths.signIn.to(signedOut ? undefined : location.pathname + location.search)}
+        replace
+      />
+    );
   }
   return <Shell session={session.data} />;
 }
@@ -48,63 +66,81 @@ function Shell({ session }: { session: Session }) {
 
   return (
     <CompactRail.Provider value={compact}>
-    <div className="flex min-h-screen">
-      <aside className={cn('sticky top-0 flex h-screen shrink-0 flex-col border-r border-rule bg-paper-sunken', compact ? 'w-14' : 'w-rail')} data-rail={compact ? 'compact' : 'full'}>
-        <a
-          href="#main"
-          className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-control focus:bg-paper-raised focus:px-3 focus:py-2"
+      <div className="flex min-h-screen">
+        <aside
+          className={cn(
+            'sticky top-0 flex h-screen shrink-0 flex-col border-r border-rule bg-paper-sunken',
+            compact ? 'w-14' : 'w-rail',
+          )}
+          data-rail={compact ? 'compact' : 'full'}
         >
-          Skip to content
-        </a>
-        <div className={cn('flex h-bar items-center gap-2 border-b border-rule', compact ? 'justify-center' : 'px-4')}>
-          <Logo className="text-ink" />
-          <span className={compact ? 'sr-only' : 'text-lead font-semibold tracking-tight text-ink'}>Phasewright</span>
-        </div>
-        {compact ? null : (
-          <div className="border-b border-rule px-3 py-3">
-            <WorkspaceSwitcher workspaces={session.workspaces} currentId={workspaceId} />
+          <a
+            href="#main"
+            className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-control focus:bg-paper-raised focus:px-3 focus:py-2"
+          >
+            Skip to content
+          </a>
+          <div
+            className={cn(
+              'flex h-bar items-center gap-2 border-b border-rule',
+              compact ? 'justify-center' : 'px-4',
+            )}
+          >
+            <Logo className="text-ink" />
+            <span
+              className={compact ? 'sr-only' : 'text-lead font-semibold tracking-tight text-ink'}
+            >
+              Phasewright
+            </span>
           </div>
-        )}
-        <nav aria-label="Main" className={cn('flex-1 overflow-y-auto py-3', compact ? 'px-1.5' : 'px-2')}>
-          {workspaceId ? (
-            <NavGroup label="Process">
-              <NavItem to={paths.workspace.home.to(workspaceId)} end glyph={<RouteGlyph />}>
-                Routes
-              </NavItem>
-              <NavItem to={paths.workspace.compounds.to(workspaceId)} glyph={<CompoundGlyph />}>
-                Compounds
-              </NavItem>
-              <NavItem to={paths.workspace.solvents.to(workspaceId)} glyph={<SolventGlyph />}>
-                Solvent library
-              </NavItem>
-            </NavGroup>
-          ) : null}
-          {workspaceId ? (
-            <NavGroup label="Workspace">
-              <NavItem to={paths.workspace.members.to(workspaceId)} glyph={<PeopleGlyph />}>
-                Members
-              </NavItem>
-            </NavGroup>
-          ) : null}
-          <NavGroup label="You">
-            <NavItem to={paths.account.to()} glyph={<PersonGlyph />}>
-              Account
-            </NavItem>
-            {canViewOutbox(session) ? (
-              <NavItem to={paths.outbox.to()} glyph={<MailGlyph />}>
-                Outbox
-              </NavItem>
+          {compact ? null : (
+            <div className="border-b border-rule px-3 py-3">
+              <WorkspaceSwitcher workspaces={session.workspaces} currentId={workspaceId} />
+            </div>
+          )}
+          <nav
+            aria-label="Main"
+            className={cn('flex-1 overflow-y-auto py-3', compact ? 'px-1.5' : 'px-2')}
+          >
+            {workspaceId ? (
+              <NavGroup label="Process">
+                <NavItem to={paths.workspace.home.to(workspaceId)} end glyph={<RouteGlyph />}>
+                  Routes
+                </NavItem>
+                <NavItem to={paths.workspace.compounds.to(workspaceId)} glyph={<CompoundGlyph />}>
+                  Compounds
+                </NavItem>
+                <NavItem to={paths.workspace.solvents.to(workspaceId)} glyph={<SolventGlyph />}>
+                  Solvent library
+                </NavItem>
+              </NavGroup>
             ) : null}
-          </NavGroup>
-        </nav>
-        <UserPanel session={session} />
-      </aside>
-      <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-gutter py-5 focus:outline-none">
-        <div className="mx-auto max-w-page">
-          <Outlet />
-        </div>
-      </main>
-    </div>
+            {workspaceId ? (
+              <NavGroup label="Workspace">
+                <NavItem to={paths.workspace.members.to(workspaceId)} glyph={<PeopleGlyph />}>
+                  Members
+                </NavItem>
+              </NavGroup>
+            ) : null}
+            <NavGroup label="You">
+              <NavItem to={paths.account.to()} glyph={<PersonGlyph />}>
+                Account
+              </NavItem>
+              {canViewOutbox(session) ? (
+                <NavItem to={paths.outbox.to()} glyph={<MailGlyph />}>
+                  Outbox
+                </NavItem>
+              ) : null}
+            </NavGroup>
+          </nav>
+          <UserPanel session={session} />
+        </aside>
+        <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-gutter py-5 focus:outline-none">
+          <div className="mx-auto max-w-page">
+            <Outlet />
+          </div>
+        </main>
+      </div>
     </CompactRail.Provider>
   );
 }
@@ -122,14 +158,29 @@ function UserPanel({ session }: { session: Session }) {
       onError: (e) => toast.error(e.message),
     });
   if (compact) {
-    const initials = session.user.name.split(/\s+/).filter(Boolean).slice(0, 2).map((w) => w[0]!.toUpperCase()).join('');
+    const initials = session.user.name
+      .split(/\s+/)
+      .filter(Boolean)
+      .slice(0, 2)
+      .map((w) => w[0]!.toUpperCase())
+      .join('');
     return (
       <div className="flex flex-col items-center gap-1 border-t border-rule py-2">
-        <span title={`${session.user.name} (${session.user.email})`} className="flex size-8 items-center justify-center rounded-full border border-rule-strong bg-paper-raised text-caption font-medium text-ink">
+        <span
+          title={`${session.user.name} (${session.user.email})`}
+          className="flex size-8 items-center justify-center rounded-full border border-rule-strong bg-paper-raised text-caption font-medium text-ink"
+        >
           <span aria-hidden="true">{initials}</span>
           <span className="sr-only">Signed in as {session.user.name}</span>
         </span>
-        <button type="button" disabled={signOut.isPending} onClick={onSignOut} aria-label="Sign out" title="Sign out" className="flex size-8 items-center justify-center rounded-control text-accent hover:bg-accent-soft hover:text-accent-deep">
+        <button
+          type="button"
+          disabled={signOut.isPending}
+          onClick={onSignOut}
+          aria-label="Sign out"
+          title="Sign out"
+          className="flex size-8 items-center justify-center rounded-control text-accent hover:bg-accent-soft hover:text-accent-deep"
+        >
           <SignOutGlyph />
         </button>
       </div>
@@ -137,9 +188,7 @@ function UserPanel({ session }: { session: Session }) {
   }
   return (
     <div className="border-t border-rule px-3 py-3">
-      <p className="text-body leading-snug font-medium text-ink">
-        {session.user.name}
-      </p>
+      <p className="text-body leading-snug font-medium text-ink">{session.user.name}</p>
       <p className="truncate text-caption text-ink-muted" title={session.user.email}>
         {session.user.email}
       </p>
@@ -159,13 +208,33 @@ function NavGroup({ label, children }: { label: string; children: ReactNode }) {
   const compact = useContext(CompactRail);
   return (
     <div className={compact ? 'mb-3 border-b border-rule pb-3 last:border-0' : 'mb-4'}>
-      <p className={compact ? 'sr-only' : 'px-2 pb-1 text-caption font-medium tracking-wide text-ink-faint uppercase'}>{label}</p>
+      <p
+        className={
+          compact
+            ? 'sr-only'
+            : 'px-2 pb-1 text-caption font-medium tracking-wide text-ink-faint uppercase'
+        }
+      >
+        {label}
+      </p>
       <ul className="space-y-px">{children}</ul>
     </div>
   );
 }
 
-function NavItem({ to, end, glyph, soon, children }: { to: string; end?: boolean; glyph: ReactNode; soon?: boolean; children: ReactNode }) {
+function NavItem({
+  to,
+  end,
+  glyph,
+  soon,
+  children,
+}: {
+  to: string;
+  end?: boolean;
+  glyph: ReactNode;
+  soon?: boolean;
+  children: ReactNode;
+}) {
   const compact = useContext(CompactRail);
   return (
     <li>
@@ -187,13 +256,22 @@ function NavItem({ to, end, glyph, soon, children }: { to: string; end?: boolean
           {glyph}
         </span>
         <span className={compact ? 'sr-only' : 'flex-1'}>{children}</span>
-        {soon && !compact ? <span className="rounded-control bg-paper px-1 text-caption text-ink-faint">soon</span> : null}
+        {soon && !compact ? (
+          <span className="rounded-control bg-paper px-1 text-caption text-ink-faint">soon</span>
+        ) : null}
       </NavLink>
     </li>
   );
 }
 
-const glyphProps = { width: 16, height: 16, viewBox: '0 0 16 16', fill: 'none', stroke: 'currentColor', strokeWidth: 1.4 } as const;
+const glyphProps = {
+  width: 16,
+  height: 16,
+  viewBox: '0 0 16 16',
+  fill: 'none',
+  stroke: 'currentColor',
+  strokeWidth: 1.4,
+} as const;
 
 function RouteGlyph() {
   return (

@@ -18,8 +18,12 @@ export function Component() {
 
   if (!workspace) {
     return (
-      <EmptyState title="Workspace not found" action={<ButtonLink to={paths.root.to()}>Go to your workspace</ButtonLink>}>
-        This workspace does not exist, or you are not one of its members. Ask its admin for an invitation if you need it.
+      <EmptyState
+        title="Workspace not found"
+        action={<ButtonLink to={paths.root.to()}>Go to your workspace</ButtonLink>}
+      >
+        This workspace does not exist, or you are not one of its members. Ask its admin for an
+        invitation if you need it.
       </EmptyState>
     );
   }

@@ -40,14 +40,25 @@ export type SaveState =
   | { kind: 'conflict'; current: Draft };
 
 /** Choose the starting document: the server's draft, or this computer's unsaved edits made on the same version. */
-export function initialDocument(routeId: string, draft: Draft): { doc: EditorDoc; restored: boolean; staleLocal: LocalCopy | null } {
+export function initialDocument(
+  routeId: string,
+  draft: Draft,
+): { doc: EditorDoc; restored: boolean; staleLocal: LocalCopy | null } {
   const local = readLocalCopy(routeId);
-  if (local?.dirty && local.baseVersion === draft.version) return { doc: local.document, restored: true, staleLocal: null };
-  if (local?.dirty && local.baseVersion !== draft.version) return { doc: normaliseDocument(draft.document), restored: false, staleLocal: local };
+  if (local?.dirty && local.baseVersion === draft.version)
+    return { doc: local.document, restored: true, staleLocal: null };
+  if (local?.dirty && local.baseVersion !== draft.version)
+    return { doc: normaliseDocument(draft.document), restored: false, staleLocal: local };
   return { doc: normaliseDocument(draft.document), restored: false, staleLocal: null };
 }
 
-export function useAutosave(workspaceId: string, routeId: string, draft: Draft, canEdit: boolean, startDirty: boolean) {
+export function useAutosave(
+  workspaceId: string,
+  routeId: string,
+  draft: Draft,
+  canEdit: boolean,
+  startDirty: boolean,
+) {
   const base = useRef(draft.version);
   const [state, setState] = useState<SaveState>({ kind: 'saved', at: draft.updatedAt });
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
@@ -69,7 +80,12 @@ export function useAutosave(workspaceId: string, routeId: string, draft: Draft, 
       if (outcome.kind === 'saved') {
         base.current = outcome.reply.version;
         const stillSame = useEditorStore.getState().doc === doc;
-        writeLocalCopy(routeId, { document: useEditorStore.getState().doc, baseVersion: base.current, savedAt: new Date().toISOString(), dirty: !stillSame });
+        writeLocalCopy(routeId, {
+          document: useEditorStore.getState().doc,
+          baseVersion: base.current,
+          savedAt: new Date().toISOString(),
+          dirty: !stillSame,
+        });
         setState(stillSame ? { kind: 'saved', at: outcome.reply.updatedAt } : { kind: 'pending' });
         if (!stillSame) again.current = true;
       } else {
@@ -77,7 +93,10 @@ export function useAutosave(workspaceId: string, routeId: string, draft: Draft, 
         setState({ kind: 'conflict', current: outcome.conflict.current });
       }
     } catch (error) {
-      setState({ kind: 'offline', message: error instanceof Error ? error.message : 'The draft could not be saved.' });
+      setState({
+        kind: 'offline',
+        message: error instanceof Error ? error.message : 'The draft could not be saved.',
+      });
     } finally {
       saving.current = false;
       if (again.current && !blocked.current) {
@@ -91,7 +110,12 @@ export function useAutosave(workspaceId: string, routeId: string, draft: Draft, 
     if (startDirty && canEdit) void flush();
     const unsub = useEditorStore.subscribe((s, prev) => {
       if (s.doc === prev.doc || s.docRevision === prev.docRevision) return;
-      writeLocalCopy(routeId, { document: s.doc, baseVersion: base.current, savedAt: new Date().toISOString(), dirty: true });
+      writeLocalCopy(routeId, {
+        document: s.doc,
+        baseVersion: base.current,
+        savedAt: new Date().toISOString(),
+        dirty: true,
+      });
       if (!canEdit || blocked.current) return;
       setState({ kind: 'pending' });
       if (timer.current) clearTimeout(timer.current);
@@ -107,20 +131,40 @@ export function useAutosave(workspaceId: string, routeId: string, draft: Draft, 
   }, [flush, routeId, canEdit, startDirty]);
 
   /** Take the other version: their document replaces mine (mine stays undoable). */
-  const takeTheirs = useCallback((current: Draft) => {
-    base.current = current.version;
-    blocked.current = false;
-    useEditorStore.getState().load(normaliseDocument(current.document));
-    writeLocalCopy(routeId, { document: useEditorStore.getState().doc, baseVersion: current.version, savedAt: new Date().toISOString(), dirty: false });
-    setState({ kind: 'saved', at: current.updatedAt });
-  }, [routeId]);
+  const takeTheirs = useCallback(
+    (current: Draft) => {
+      base.current = current.version;
+      blocked.current = false;
+      useEditorStore.getState().load(normaliseDocument(current.document));
+      writeLocalCopy(routeId, {
+        document: useEditorStore.getState().doc,
+        baseVersion: current.version,
+        savedAt: new Date().toISOString(),
+        dirty: false,
+      });
+      setState({ kind: 'saved', at: current.updatedAt });
+    },
+    [routeId],
+  );
 
   /** Keep mine: save it on top of their version, knowingly. */
-  const keepMine = useCallback((current: Draft) => {
-    base.current = current.version;
-    blocked.current = false;
-    void flush();
-  }, [flush]);
+  const keepMine = useCallback(
+    (current: Draft) => {
+      base.current = current.version;
+      blocked.current = false;
+      void flush();
+    },
+    [flush],
+  );
 
-  return { state, takeTheirs, keepMine, flush, conflictFrom: (d: Draft) => setState({ kind: 'conflict', current: d }), block: () => { blocked.current = true; } };
+  return {
+    state,
+    takeTheirs,
+    keepMine,
+    flush,
+    conflictFrom: (d: Draft) => setState({ kind: 'conflict', current: d }),
+    block: () => {
+      blocked.current = true;
+    },
+  };
 }

@@ -3,7 +3,17 @@
  * except that an unfinished draft may have no steps or components yet.
  */
 import type { z } from 'zod';
-import { PORTS, PHASE_ACCEPTS, ROUTE_SCHEMA_VERSION, componentKey, type componentSchema, type stepSchema, type connectionSchema, type PortPhase, type StepKind } from '@shared/schemas/route';
+import {
+  PORTS,
+  PHASE_ACCEPTS,
+  ROUTE_SCHEMA_VERSION,
+  componentKey,
+  type componentSchema,
+  type stepSchema,
+  type connectionSchema,
+  type PortPhase,
+  type StepKind,
+} from '@shared/schemas/route';
 
 export type StepInput = z.input<typeof stepSchema>;
 export type ComponentInput = z.input<typeof componentSchema>;
@@ -26,7 +36,14 @@ export function normaliseDocument(raw: unknown): EditorDoc {
   return {
     schemaVersion: ROUTE_SCHEMA_VERSION,
     ...(d.name ? { name: d.name } : {}),
-    referenceInput: d.referenceInput ?? { componentId: product ? componentKey(product as never) : (components[0] ? componentKey(components[0] as never) : 'product'), massKg: 1 },
+    referenceInput: d.referenceInput ?? {
+      componentId: product
+        ? componentKey(product as never)
+        : components[0]
+          ? componentKey(components[0] as never)
+          : 'product',
+      massKg: 1,
+    },
     components,
     steps: Array.isArray(d.steps) ? d.steps : [],
     connections: Array.isArray(d.connections) ? d.connections : [],
@@ -42,25 +59,35 @@ export function portPhase(kind: StepKind, side: 'in' | 'out', port: string): Por
 
 /** Handle ids on the canvas: "in:feed", "out:organic". */
 export const handleId = (side: 'in' | 'out', port: string) => `${side}:${port}`;
-export const portOfHandle = (h: string | null | undefined) => (h ? h.replace(/^(in|out):/, '') : '');
+export const portOfHandle = (h: string | null | undefined) =>
+  h ? h.replace(/^(in|out):/, '') : '';
 
 export type ConnectCheck = { ok: true } | { ok: false; reason: string };
 
 /** Whether a connection may be drawn: output to input, phases that fit, each input used once, no loops. */
-export function checkConnection(doc: EditorDoc, from: { stepId: string; port: string }, to: { stepId: string; port: string }): ConnectCheck {
+export function checkConnection(
+  doc: EditorDoc,
+  from: { stepId: string; port: string },
+  to: { stepId: string; port: string },
+): ConnectCheck {
   if (from.stepId === to.stepId) return { ok: false, reason: 'A step cannot feed itself.' };
   const a = doc.steps.find((s) => s.id === from.stepId);
   const b = doc.steps.find((s) => s.id === to.stepId);
   if (!a || !b) return { ok: false, reason: 'Unknown step.' };
   const out = portPhase(a.kind, 'out', from.port);
   const inn = portPhase(b.kind, 'in', to.port);
-  if (!out || !inn) return { ok: false, reason: 'Connect an output (right side) to an input (left side).' };
-  if (!PHASE_ACCEPTS[inn].includes(out)) return { ok: false, reason: `The ${to.port} input takes ${inn}, not ${out}.` };
-  if (doc.connections.some((c) => c.to.stepId === to.stepId && c.to.port === to.port)) return { ok: false, reason: `${b.name || b.kind} already has a ${to.port} stream.` };
-  if (doc.connections.some((c) => c.from.stepId === from.stepId && c.from.port === from.port)) return { ok: false, reason: `The ${from.port} output already goes somewhere.` };
+  if (!out || !inn)
+    return { ok: false, reason: 'Connect an output (right side) to an input (left side).' };
+  if (!PHASE_ACCEPTS[inn].includes(out))
+    return { ok: false, reason: `The ${to.port} input takes ${inn}, not ${out}.` };
+  if (doc.connections.some((c) => c.to.stepId === to.stepId && c.to.port === to.port))
+    return { ok: false, reason: `${b.name || b.kind} already has a ${to.port} stream.` };
+  if (doc.connections.some((c) => c.from.stepId === from.stepId && c.from.port === from.port))
+    return { ok: false, reason: `The ${from.port} output already goes somewhere.` };
   // A loop would make the route impossible to evaluate in order.
   const next = new Map<string, string[]>();
-  for (const c of doc.connections) next.set(c.from.stepId, [...(next.get(c.from.stepId) ?? []), c.to.stepId]);
+  for (const c of doc.connections)
+    next.set(c.from.stepId, [...(next.get(c.from.stepId) ?? []), c.to.stepId]);
   const stack = [to.stepId];
   const seen = new Set<string>();
   while (stack.length) {

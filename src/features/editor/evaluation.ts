@@ -19,7 +19,13 @@ interface EvaluationState {
   ms: number | null;
 }
 
-export const useEvaluation = create<EvaluationState>(() => ({ status: 'empty', result: null, issues: [], revision: -1, ms: null }));
+export const useEvaluation = create<EvaluationState>(() => ({
+  status: 'empty',
+  result: null,
+  issues: [],
+  revision: -1,
+  ms: null,
+}));
 
 let worker: Worker | null = null;
 let inFlight = false;
@@ -35,13 +41,29 @@ export function onEvaluated(fn: (reply: EvaluateReply) => void) {
 
 function getWorker(): Worker {
   if (worker) return worker;
-  worker = new Worker(new URL('../../workers/evaluate.worker.ts', import.meta.url), { type: 'module', name: 'route-engine' });
+  worker = new Worker(new URL('../../workers/evaluate.worker.ts', import.meta.url), {
+    type: 'module',
+    name: 'route-engine',
+  });
   worker.onmessage = (event: MessageEvent<EvaluateReply>) => {
     inFlight = false;
     const reply = event.data;
     if (reply.revision === latest) {
-      if (reply.ok) useEvaluation.setState({ status: 'done', result: reply.result, issues: [], revision: reply.revision, ms: reply.ms });
-      else useEvaluation.setState({ status: 'invalid', issues: reply.issues, revision: reply.revision, ms: reply.ms });
+      if (reply.ok)
+        useEvaluation.setState({
+          status: 'done',
+          result: reply.result,
+          issues: [],
+          revision: reply.revision,
+          ms: reply.ms,
+        });
+      else
+        useEvaluation.setState({
+          status: 'invalid',
+          issues: reply.issues,
+          revision: reply.revision,
+          ms: reply.ms,
+        });
     }
     for (const l of listeners) l(reply);
     if (queued) {
@@ -67,7 +89,10 @@ export function requestEvaluation(doc: EditorDoc, revision: number) {
   }
   useEvaluation.setState({ status: 'running' });
   // Positions do not change results; strip them so the worker receives less.
-  const req: EvaluateRequest = { revision, document: { ...doc, steps: doc.steps.map(({ position: _p, ...s }) => s) } };
+  const req: EvaluateRequest = {
+    revision,
+    document: { ...doc, steps: doc.steps.map(({ position: _p, ...s }) => s) },
+  };
   if (inFlight) queued = req;
   else send(req);
 }

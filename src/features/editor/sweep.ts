@@ -6,7 +6,13 @@
  * for the processor), and a newer edit cancels the sweep still running.
  */
 import { useEffect, useState } from 'react';
-import type { SweepCancel, SweepKind, SweepPoint, SweepReply, SweepRequest } from '@/workers/sweep.worker';
+import type {
+  SweepCancel,
+  SweepKind,
+  SweepPoint,
+  SweepReply,
+  SweepRequest,
+} from '@/workers/sweep.worker';
 import { useEvaluation } from './evaluation';
 import { useEditorStore } from '@/stores/editor-store';
 import type { StepInput } from './document';
@@ -20,7 +26,10 @@ const RECHECK_MS = 100;
 
 function getWorker(): Worker {
   if (worker) return worker;
-  worker = new Worker(new URL('../../workers/sweep.worker.ts', import.meta.url), { type: 'module', name: 'route-sweeps' });
+  worker = new Worker(new URL('../../workers/sweep.worker.ts', import.meta.url), {
+    type: 'module',
+    name: 'route-sweeps',
+  });
   worker.onmessage = (event: MessageEvent<SweepReply>) => {
     waiting.get(event.data.id)?.(event.data.points);
     waiting.delete(event.data.id);
@@ -28,10 +37,17 @@ function getWorker(): Worker {
   return worker;
 }
 
-const plain = (v: unknown): number | null => (typeof v === 'number' ? v : v && typeof v === 'object' && 'value' in v && typeof v.value === 'number' ? v.value : null);
+const plain = (v: unknown): number | null =>
+  typeof v === 'number'
+    ? v
+    : v && typeof v === 'object' && 'value' in v && typeof v.value === 'number'
+      ? v.value
+      : null;
 
 /** Which sweep a step has, and over what values (around its current setting, in the usual plant range). */
-export function sweepFor(step: StepInput): { sweep: SweepKind; values: number[]; current: number } | null {
+export function sweepFor(
+  step: StepInput,
+): { sweep: SweepKind; values: number[]; current: number } | null {
   if (step.kind === 'wash' || step.kind === 'extraction') {
     const current = step.params.stages;
     return { sweep: 'stages', values: [1, 2, 3, 4, 5, 6, 8], current };
@@ -41,16 +57,24 @@ export function sweepFor(step: StepInput): { sweep: SweepKind; values: number[];
     if (mode.kind === 'evaporative') return null;
     const current = plain(mode.kind === 'cooling' ? mode.endC : mode.temperatureC);
     if (current === null) return null;
-    const hi = mode.kind === 'cooling' ? (plain(mode.startC) ?? current + 40) : Math.max(current + 30, 40);
+    const hi =
+      mode.kind === 'cooling' ? (plain(mode.startC) ?? current + 40) : Math.max(current + 30, 40);
     const lo = Math.min(current - 10, -10);
-    const values = Array.from({ length: 11 }, (_, k) => Math.round((lo + ((hi - lo) * k) / 10) * 10) / 10);
+    const values = Array.from(
+      { length: 11 },
+      (_, k) => Math.round((lo + ((hi - lo) * k) / 10) * 10) / 10,
+    );
     return { sweep: 'crystallisation-end-temperature', values, current };
   }
   return null;
 }
 
 /** The sweep's points for the selected step; recomputed (debounced) when the route's model changes. */
-export function useSweep(step: StepInput): { points: SweepPoint[] | null; current: number | null; sweep: SweepKind | null } {
+export function useSweep(step: StepInput): {
+  points: SweepPoint[] | null;
+  current: number | null;
+  sweep: SweepKind | null;
+} {
   const revision = useEditorStore((s) => s.modelRevision);
   const spec = sweepFor(step);
   const key = spec ? `${spec.sweep}:${spec.values.join(',')}` : '';
@@ -69,8 +93,17 @@ export function useSweep(step: StepInput): { points: SweepPoint[] | null; curren
       const id = nextId++;
       sent = id;
       waiting.set(id, (p) => live && setPoints(p));
-      const document = { ...doc, steps: doc.steps.map(({ position: _p, ...s }) => s) } as unknown as SweepRequest['document'];
-      getWorker().postMessage({ id, document, stepId: step.id, sweep: spec.sweep, values: spec.values } satisfies SweepRequest);
+      const document = {
+        ...doc,
+        steps: doc.steps.map(({ position: _p, ...s }) => s),
+      } as unknown as SweepRequest['document'];
+      getWorker().postMessage({
+        id,
+        document,
+        stepId: step.id,
+        sweep: spec.sweep,
+        values: spec.values,
+      } satisfies SweepRequest);
     };
     let timer = setTimeout(start, SWEEP_DELAY_MS);
     return () => {
@@ -83,5 +116,9 @@ export function useSweep(step: StepInput): { points: SweepPoint[] | null; curren
     };
     // eslint-disable-next-line react-hooks/exhaustive-deps -- the key stands for spec
   }, [step.id, key, revision]);
-  return { points: spec ? points : null, current: spec?.current ?? null, sweep: spec?.sweep ?? null };
+  return {
+    points: spec ? points : null,
+    current: spec?.current ?? null,
+    sweep: spec?.sweep ?? null,
+  };
 }

@@ -68,12 +68,14 @@ describe('normal boiling points against the CRC Handbook', () => {
     expect(Math.abs(yawsC + 273.15 - crcK)).toBeLessThanOrEqual(1.5);
   });
 
-  it.each(CRC_TB.filter(([id]) => {
-    const s = solventById(id)!;
-    const a = s.antoine[0];
-    const tb = s.boilingPointC.value + 273.15;
-    return a !== undefined && tb >= a.TminK - 10 && tb <= a.TmaxK + 10;
-  }))('%s: preferred Antoine set gives the CRC Tb within 1.0 K', (id, crcK) => {
+  it.each(
+    CRC_TB.filter(([id]) => {
+      const s = solventById(id)!;
+      const a = s.antoine[0];
+      const tb = s.boilingPointC.value + 273.15;
+      return a !== undefined && tb >= a.TminK - 10 && tb <= a.TmaxK + 10;
+    }),
+  )('%s: preferred Antoine set gives the CRC Tb within 1.0 K', (id, crcK) => {
     const set = solventById(id)!.antoine[0];
     expect(Math.abs(boilingPointK(set) - crcK)).toBeLessThanOrEqual(1.0);
   });

@@ -108,17 +108,28 @@ describe('viscosity at 25 °C against Perry 8e Table 2-313', () => {
     expect(Math.abs(v.value - dippr101(C1, C2, C3, C4, C5)) / v.value).toBeLessThan(0.005);
   });
 
-  it.each(Object.entries(PERRY_CROSS))('%s: the V&N value agrees with Perry 2-313 within 3 %', (id, c) => {
-    const v = stored(id);
-    expect(Math.abs(v.value - dippr101(...c)) / v.value).toBeLessThan(0.03);
-  });
+  it.each(Object.entries(PERRY_CROSS))(
+    '%s: the V&N value agrees with Perry 2-313 within 3 %',
+    (id, c) => {
+      const v = stored(id);
+      expect(Math.abs(v.value - dippr101(...c)) / v.value).toBeLessThan(0.03);
+    },
+  );
 });
 
 describe('viscosities without an agreeing table stay recalled', () => {
-  it.each(['thf', 'pyridine', 'tert-butanol', 'acetonitrile', 'dmac', 'isopropyl-acetate', '2-methyltetrahydrofuran', 'cpme', 'dme', 'nmp'])(
-    '%s',
-    (id) => {
-      expect(stored(id).source.status).toBe('unverified-memory');
-    },
-  );
+  it.each([
+    'thf',
+    'pyridine',
+    'tert-butanol',
+    'acetonitrile',
+    'dmac',
+    'isopropyl-acetate',
+    '2-methyltetrahydrofuran',
+    'cpme',
+    'dme',
+    'nmp',
+  ])('%s', (id) => {
+    expect(stored(id).source.status).toBe('unverified-memory');
+  });
 });

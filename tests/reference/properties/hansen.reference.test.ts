@@ -72,13 +72,19 @@ describe('Hansen distance Ra, computed by hand from the handbook parameters', ()
 
 describe('blend parameters by volume fraction (Hansen 2007, ch. 1)', () => {
   it('50:50 v/v toluene–ethanol: (16.9, 5.1, 10.7)', () => {
-    const m = mixtureHansen([{ params: hsp('toluene'), volumeFraction: 0.5 }, { params: hsp('ethanol'), volumeFraction: 0.5 }]);
+    const m = mixtureHansen([
+      { params: hsp('toluene'), volumeFraction: 0.5 },
+      { params: hsp('ethanol'), volumeFraction: 0.5 },
+    ]);
     expect(m.d).toBeCloseTo(16.9, 10);
     expect(m.p).toBeCloseTo(5.1, 10);
     expect(m.h).toBeCloseTo(10.7, 10);
   });
   it('1:3 v/v water–acetone: (15.5, 11.8, 15.825)', () => {
-    const m = mixtureHansen([{ params: hsp('water'), volumeFraction: 1 }, { params: hsp('acetone'), volumeFraction: 3 }]);
+    const m = mixtureHansen([
+      { params: hsp('water'), volumeFraction: 1 },
+      { params: hsp('acetone'), volumeFraction: 3 },
+    ]);
     expect([m.d, m.p, m.h].map((v) => +v.toFixed(4))).toEqual([15.5, 11.8, 15.825]);
   });
 });

@@ -42,13 +42,26 @@ describe('UNIFAC-corrected solubility of naphthalene at 20 °C vs measured (Prau
   ];
   for (const [name, smiles, own, printed] of cases) {
     it(`${name}: own ${own}, measured ${printed}`, () => {
-      const r = activityCorrectedSolubility({ ...NAPHTHALENE, T_K: 293.15, soluteGroups: solute, solventGroups: [assignUnifacGroups({ smiles }).groups], solventMoleFractions: [1] });
+      const r = activityCorrectedSolubility({
+        ...NAPHTHALENE,
+        T_K: 293.15,
+        soluteGroups: solute,
+        solventGroups: [assignUnifacGroups({ smiles }).groups],
+        solventMoleFractions: [1],
+      });
       expect(r.moleFraction).toBeCloseTo(own, 3);
       expect(Math.abs(Math.log(r.moleFraction / printed))).toBeLessThan(Math.log(1.5));
     });
   }
   it('orders the solvents as measured: aromatic > CCl4 > hexane', () => {
-    const x = (smiles: string) => activityCorrectedSolubility({ ...NAPHTHALENE, T_K: 293.15, soluteGroups: solute, solventGroups: [assignUnifacGroups({ smiles }).groups], solventMoleFractions: [1] }).moleFraction;
+    const x = (smiles: string) =>
+      activityCorrectedSolubility({
+        ...NAPHTHALENE,
+        T_K: 293.15,
+        soluteGroups: solute,
+        solventGroups: [assignUnifacGroups({ smiles }).groups],
+        solventMoleFractions: [1],
+      }).moleFraction;
     expect(x('Cc1ccccc1')).toBeGreaterThan(x('ClC(Cl)(Cl)Cl'));
     expect(x('ClC(Cl)(Cl)Cl')).toBeGreaterThan(x('CCCCCC'));
   });

@@ -2,7 +2,10 @@
  * Multiple-batch extraction and the Kremser equation.
  */
 import { describe, expect, it } from 'vitest';
-import { crossCurrentFractionRemaining, kremserFractionRemaining } from '../../../shared/engine/unitops/wash';
+import {
+  crossCurrentFractionRemaining,
+  kremserFractionRemaining,
+} from '../../../shared/engine/unitops/wash';
 import { evaluateRoute } from '../../../shared/engine/route/evaluate';
 import type { RouteDocumentInput } from '../../../shared/schemas/route';
 
@@ -38,13 +41,48 @@ describe('cross-current extraction, fraction remaining q^n (Harris-style worked 
       components: [
         { kind: 'solvent', id: 'water', solventId: 'water' },
         { kind: 'solvent', id: 'toluene', solventId: 'toluene' },
-        { kind: 'compound', id: 'solute', name: 'test solute', role: 'product', molarMassGmol: 150, partition: [{ organicSolventId: 'toluene', D: 3 }] },
+        {
+          kind: 'compound',
+          id: 'solute',
+          name: 'test solute',
+          role: 'product',
+          molarMassGmol: 150,
+          partition: [{ organicSolventId: 'toluene', D: 3 }],
+        },
       ],
       steps: [
-        { id: 'feed', kind: 'charge', name: 'feed', params: { temperatureC: 25, contents: [{ kind: 'component', componentId: 'water', amount: 0.1, unit: 'L' }, { kind: 'component', componentId: 'solute', amount: 0.001, unit: 'kg' }] } },
-        { id: 'x', kind: 'extraction', name: 'extract', params: { addedLiquid: { kind: 'solvent', solventId: 'toluene', volume: { value: 0.1, unit: 'L' } }, stages: 5, mode: 'cross-current', temperatureC: 25, keep: 'organic' } },
+        {
+          id: 'feed',
+          kind: 'charge',
+          name: 'feed',
+          params: {
+            temperatureC: 25,
+            contents: [
+              { kind: 'component', componentId: 'water', amount: 0.1, unit: 'L' },
+              { kind: 'component', componentId: 'solute', amount: 0.001, unit: 'kg' },
+            ],
+          },
+        },
+        {
+          id: 'x',
+          kind: 'extraction',
+          name: 'extract',
+          params: {
+            addedLiquid: {
+              kind: 'solvent',
+              solventId: 'toluene',
+              volume: { value: 0.1, unit: 'L' },
+            },
+            stages: 5,
+            mode: 'cross-current',
+            temperatureC: 25,
+            keep: 'organic',
+          },
+        },
       ],
-      connections: [{ id: 'c', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'x', port: 'feed' } }],
+      connections: [
+        { id: 'c', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'x', port: 'feed' } },
+      ],
     };
     const r = evaluateRoute(doc);
     const aq = r.terminals.find((t) => t.port === 'aqueous')!.stream.kg.solute / 0.001;

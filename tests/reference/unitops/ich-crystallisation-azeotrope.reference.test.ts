@@ -17,7 +17,17 @@ describe('ICH Q3C residual-solvent flags', () => {
       { kind: 'solvent', id: 'ethanol', solventId: 'ethanol' },
       { kind: 'compound', id: 'api', name: 'api', role: 'product', molarMassGmol: 300 },
     ],
-    steps: [{ id: 'c', kind: 'charge', name: 'c', params: { temperatureC: 20, contents: [{ kind: 'component', componentId: 'api', amount: 1, unit: 'kg' }] } }],
+    steps: [
+      {
+        id: 'c',
+        kind: 'charge',
+        name: 'c',
+        params: {
+          temperatureC: 20,
+          contents: [{ kind: 'component', componentId: 'api', amount: 1, unit: 'kg' }],
+        },
+      },
+    ],
     connections: [],
   });
   const { ctx } = buildContext(doc);
@@ -53,7 +63,12 @@ describe('cooling crystallisation yield from a published solubility curve', () =
       components: [
         { kind: 'solvent', id: 'water', solventId: 'water' },
         {
-          kind: 'compound', id: 'kno3', name: 'potassium nitrate', role: 'product', molarMassGmol: 101.1, densityGmL: 2.11,
+          kind: 'compound',
+          id: 'kno3',
+          name: 'potassium nitrate',
+          role: 'product',
+          molarMassGmol: 101.1,
+          densityGmL: 2.11,
           solubility: [
             { solventId: 'water', temperatureC: 60, value: (110 / 210) * 100, unit: 'wt%' },
             { solventId: 'water', temperatureC: 20, value: (31.6 / 131.6) * 100, unit: 'wt%' },
@@ -61,10 +76,28 @@ describe('cooling crystallisation yield from a published solubility curve', () =
         },
       ],
       steps: [
-        { id: 'c', kind: 'charge', name: 'c', params: { temperatureC: 60, contents: [{ kind: 'component', componentId: 'water', amount: 0.1, unit: 'kg' }, { kind: 'component', componentId: 'kno3', amount: 0.11, unit: 'kg' }] } },
-        { id: 'x', kind: 'crystallisation', name: 'cool', params: { mode: { kind: 'cooling', startC: 60, endC: 20 }, seeded: false } },
+        {
+          id: 'c',
+          kind: 'charge',
+          name: 'c',
+          params: {
+            temperatureC: 60,
+            contents: [
+              { kind: 'component', componentId: 'water', amount: 0.1, unit: 'kg' },
+              { kind: 'component', componentId: 'kno3', amount: 0.11, unit: 'kg' },
+            ],
+          },
+        },
+        {
+          id: 'x',
+          kind: 'crystallisation',
+          name: 'cool',
+          params: { mode: { kind: 'cooling', startC: 60, endC: 20 }, seeded: false },
+        },
       ],
-      connections: [{ id: 'a', from: { stepId: 'c', port: 'out' }, to: { stepId: 'x', port: 'feed' } }],
+      connections: [
+        { id: 'a', from: { stepId: 'c', port: 'out' }, to: { stepId: 'x', port: 'feed' } },
+      ],
     };
     const r = evaluateRoute(doc);
     expect(r.steps.x.summary['yield %'] as number).toBeCloseTo((78.4 / 110) * 100, 1);
@@ -86,10 +119,32 @@ describe('water/toluene heteroazeotrope: drying toluene by distillation', () => 
       { kind: 'compound', id: 'api', name: 'api', role: 'product', molarMassGmol: 300 },
     ],
     steps: [
-      { id: 'c', kind: 'charge', name: 'wet toluene', params: { temperatureC: 20, contents: [{ kind: 'component', componentId: 'toluene', amount: 10, unit: 'L' }, { kind: 'component', componentId: 'water', amount: 0.2, unit: 'kg' }, { kind: 'component', componentId: 'api', amount: 1, unit: 'kg' }] } },
-      { id: 'd', kind: 'distillation', name: 'azeotropic drying', params: { mode: { kind: 'concentrate', targetVolume: { value: 7, unit: 'L' } }, condition: { kind: 'pressure', pressureMbar: 1013.25 } } },
+      {
+        id: 'c',
+        kind: 'charge',
+        name: 'wet toluene',
+        params: {
+          temperatureC: 20,
+          contents: [
+            { kind: 'component', componentId: 'toluene', amount: 10, unit: 'L' },
+            { kind: 'component', componentId: 'water', amount: 0.2, unit: 'kg' },
+            { kind: 'component', componentId: 'api', amount: 1, unit: 'kg' },
+          ],
+        },
+      },
+      {
+        id: 'd',
+        kind: 'distillation',
+        name: 'azeotropic drying',
+        params: {
+          mode: { kind: 'concentrate', targetVolume: { value: 7, unit: 'L' } },
+          condition: { kind: 'pressure', pressureMbar: 1013.25 },
+        },
+      },
     ],
-    connections: [{ id: 'a', from: { stepId: 'c', port: 'out' }, to: { stepId: 'd', port: 'feed' } }],
+    connections: [
+      { id: 'a', from: { stepId: 'c', port: 'out' }, to: { stepId: 'd', port: 'feed' } },
+    ],
   };
   const r = evaluateRoute(doc);
   const prof = r.steps.d.details.profile as Array<{ potTemperatureC: number }>;

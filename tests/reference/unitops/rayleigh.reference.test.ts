@@ -11,7 +11,10 @@
  * checked below.
  */
 import { describe, expect, it } from 'vitest';
-import { rayleighConstantAlphaResidueFraction, rayleighToVolume } from '../../../shared/engine/unitops/rayleigh';
+import {
+  rayleighConstantAlphaResidueFraction,
+  rayleighToVolume,
+} from '../../../shared/engine/unitops/rayleigh';
 
 function constantAlpha(alpha: number) {
   return (m: Float64Array) => {
@@ -27,7 +30,14 @@ describe('Rayleigh batch distillation, constant α', () => {
   const F = 100;
   const W = 60;
   function simulate(increments: number) {
-    const r = rayleighToVolume(Float64Array.from([50, 50]), Float64Array.from([1, 1]), 0, W, constantAlpha(alpha), increments);
+    const r = rayleighToVolume(
+      Float64Array.from([50, 50]),
+      Float64Array.from([1, 1]),
+      0,
+      W,
+      constantAlpha(alpha),
+      increments,
+    );
     return r.moles[0] / (r.moles[0] + r.moles[1]);
   }
   it('the closed form is the integral of dN/N = dx/(y − x)', () => {
@@ -59,26 +69,49 @@ describe('Rayleigh batch distillation, constant α', () => {
   // chapter — edition and example number UNVERIFIED (memory).
   it('crude pentane example: 0.455 mol left, 3.3 mol % butane (printed)', () => {
     const a = 3.5;
-    const r = rayleighToVolume(Float64Array.from([0.15, 0.85]), Float64Array.from([1, 1]), 0, 0.455, constantAlpha(a), 64);
+    const r = rayleighToVolume(
+      Float64Array.from([0.15, 0.85]),
+      Float64Array.from([1, 1]),
+      0,
+      0.455,
+      constantAlpha(a),
+      64,
+    );
     const nA = r.moles[0];
     const n = r.moles[0] + r.moles[1];
     // Validity: the printed values within half a unit of their last digit.
     expect(Math.abs(nA / 0.15 - 0.1)).toBeLessThan(0.005); // 90 % of the butane removed
     expect(Math.abs(nA / n - 0.033)).toBeLessThanOrEqual(0.0005);
     // Closed form at the printed end point: W/F from x_W = 0.033 rounds to 0.455 ± 0.005.
-    expect(Math.abs(rayleighConstantAlphaResidueFraction(a, 0.15, 0.033) - 0.455)).toBeLessThan(0.005);
+    expect(Math.abs(rayleighConstantAlphaResidueFraction(a, 0.15, 0.033) - 0.455)).toBeLessThan(
+      0.005,
+    );
     // Regression (tight): the exact constant-α solution for 90 % butane removal,
     // n_B = 0.85 · 0.1^(1/α), n = n_B + 0.015 = 0.45526.
     const nExact = 0.85 * 0.1 ** (1 / a) + 0.015;
     expect(nExact).toBeCloseTo(0.45526, 5);
-    const r2 = rayleighToVolume(Float64Array.from([0.15, 0.85]), Float64Array.from([1, 1]), 0, nExact, constantAlpha(a), 64);
+    const r2 = rayleighToVolume(
+      Float64Array.from([0.15, 0.85]),
+      Float64Array.from([1, 1]),
+      0,
+      nExact,
+      constantAlpha(a),
+      64,
+    );
     // Integrator (64 Heun increments) against the exact 0.015 mol: within 0.1 %;
     // regression of this implementation's own value to 1e-7.
     expect(Math.abs(r2.moles[0] / 0.015 - 1)).toBeLessThan(1e-3);
     expect(r2.moles[0]).toBeCloseTo(0.0150081, 7);
   });
   it('conserves moles exactly', () => {
-    const r = rayleighToVolume(Float64Array.from([50, 50]), Float64Array.from([1, 1]), 0, W, constantAlpha(alpha), 8);
+    const r = rayleighToVolume(
+      Float64Array.from([50, 50]),
+      Float64Array.from([1, 1]),
+      0,
+      W,
+      constantAlpha(alpha),
+      8,
+    );
     expect(r.moles[0] + r.distilled[0]).toBeCloseTo(50, 12);
     expect(r.moles[1] + r.distilled[1]).toBeCloseTo(50, 12);
   });

@@ -71,9 +71,17 @@ describe('smilesBracketProblem', () => {
     expect(smilesBracketProblem('CC(C)(C)O')).toBeNull();
     expect(smilesBracketProblem('[Na+].[Cl-]')).toBeNull();
     expect(smilesBracketProblem('C(C')).toBe('the branch opened at position 2 is never closed.');
-    expect(smilesBracketProblem('CC)O')).toBe('a branch closes at position 3 without being opened.');
-    expect(smilesBracketProblem('C[NH4+')).toBe('the atom bracket opened at position 2 is never closed.');
-    expect(smilesBracketProblem('CC]')).toBe('an atom bracket closes at position 3 without being opened.');
-    expect(smilesBracketProblem('[N[H]')).toBe('an atom bracket opened at position 1 is not closed before another opens at position 3.');
+    expect(smilesBracketProblem('CC)O')).toBe(
+      'a branch closes at position 3 without being opened.',
+    );
+    expect(smilesBracketProblem('C[NH4+')).toBe(
+      'the atom bracket opened at position 2 is never closed.',
+    );
+    expect(smilesBracketProblem('CC]')).toBe(
+      'an atom bracket closes at position 3 without being opened.',
+    );
+    expect(smilesBracketProblem('[N[H]')).toBe(
+      'an atom bracket opened at position 1 is not closed before another opens at position 3.',
+    );
   });
 });

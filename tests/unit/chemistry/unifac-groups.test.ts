@@ -7,14 +7,37 @@ import { activityCoefficients } from '@shared/engine/thermo/unifac';
 // original UNIFAC table (Hansen et al. 1991). Used to check that an assignment
 // conserves the molecular formula.
 const ATOMS: Record<number, Partial<Record<'C' | 'H' | 'O' | 'N' | 'Cl' | 'S', number>>> = {
-  1: { C: 1, H: 3 }, 2: { C: 1, H: 2 }, 3: { C: 1, H: 1 }, 4: { C: 1 },
-  9: { C: 1, H: 1 }, 10: { C: 1 }, 11: { C: 2, H: 3 }, 12: { C: 2, H: 2 }, 13: { C: 2, H: 1 },
-  14: { O: 1, H: 1 }, 15: { C: 1, H: 4, O: 1 }, 16: { H: 2, O: 1 }, 17: { C: 1, O: 1, H: 1 },
-  18: { C: 2, H: 3, O: 1 }, 19: { C: 2, H: 2, O: 1 }, 21: { C: 2, H: 3, O: 2 }, 22: { C: 2, H: 2, O: 2 },
-  24: { C: 1, H: 3, O: 1 }, 25: { C: 1, H: 2, O: 1 }, 26: { C: 1, H: 1, O: 1 }, 27: { C: 1, H: 2, O: 1 },
-  37: { C: 5, H: 5, N: 1 }, 40: { C: 2, H: 3, N: 1 }, 42: { C: 1, O: 2, H: 1 }, 47: { C: 1, H: 2, Cl: 2 },
-  50: { C: 1, H: 1, Cl: 3 }, 53: { C: 1, Cl: 1 }, 67: { C: 2, H: 6, S: 1, O: 1 }, 72: { C: 3, H: 7, N: 1, O: 1 },
-  85: { C: 5, H: 9, N: 1, O: 1 }, 97: { C: 3, H: 6, N: 1, O: 1 },
+  1: { C: 1, H: 3 },
+  2: { C: 1, H: 2 },
+  3: { C: 1, H: 1 },
+  4: { C: 1 },
+  9: { C: 1, H: 1 },
+  10: { C: 1 },
+  11: { C: 2, H: 3 },
+  12: { C: 2, H: 2 },
+  13: { C: 2, H: 1 },
+  14: { O: 1, H: 1 },
+  15: { C: 1, H: 4, O: 1 },
+  16: { H: 2, O: 1 },
+  17: { C: 1, O: 1, H: 1 },
+  18: { C: 2, H: 3, O: 1 },
+  19: { C: 2, H: 2, O: 1 },
+  21: { C: 2, H: 3, O: 2 },
+  22: { C: 2, H: 2, O: 2 },
+  24: { C: 1, H: 3, O: 1 },
+  25: { C: 1, H: 2, O: 1 },
+  26: { C: 1, H: 1, O: 1 },
+  27: { C: 1, H: 2, O: 1 },
+  37: { C: 5, H: 5, N: 1 },
+  40: { C: 2, H: 3, N: 1 },
+  42: { C: 1, O: 2, H: 1 },
+  47: { C: 1, H: 2, Cl: 2 },
+  50: { C: 1, H: 1, Cl: 3 },
+  53: { C: 1, Cl: 1 },
+  67: { C: 2, H: 6, S: 1, O: 1 },
+  72: { C: 3, H: 7, N: 1, O: 1 },
+  85: { C: 5, H: 9, N: 1, O: 1 },
+  97: { C: 3, H: 6, N: 1, O: 1 },
 };
 function formulaOf(groups: Record<number, number>): string {
   const tot: Record<string, number> = {};
@@ -24,8 +47,17 @@ function formulaOf(groups: Record<number, number>): string {
     for (const [e, k] of Object.entries(a)) tot[e] = (tot[e] ?? 0) + k * n;
   }
   // Hill order: C, H, then alphabetical
-  const order = ['C', 'H', ...Object.keys(tot).filter((e) => e !== 'C' && e !== 'H').sort()];
-  return order.filter((e) => tot[e]).map((e) => `${e}${tot[e] === 1 ? '' : tot[e]}`).join('');
+  const order = [
+    'C',
+    'H',
+    ...Object.keys(tot)
+      .filter((e) => e !== 'C' && e !== 'H')
+      .sort(),
+  ];
+  return order
+    .filter((e) => tot[e])
+    .map((e) => `${e}${tot[e] === 1 ? '' : tot[e]}`)
+    .join('');
 }
 
 // Two library records carry one CH3 too many (their groups do not add up to
@@ -93,7 +125,10 @@ describe('assignUnifacGroups on drug-like molecules (invented or common)', () =>
     expect(bad.warnings[0]).toMatch(/ring closure/);
   });
   it('produces groups the UNIFAC model accepts (ethanol–water)', () => {
-    const g = [assignUnifacGroups({ smiles: 'CCO' }).groups, assignUnifacGroups({ smiles: 'O' }).groups];
+    const g = [
+      assignUnifacGroups({ smiles: 'CCO' }).groups,
+      assignUnifacGroups({ smiles: 'O' }).groups,
+    ];
     const gam = activityCoefficients(g, [0.5, 0.5], 298.15);
     expect(gam.every((x) => x > 1)).toBe(true);
   });

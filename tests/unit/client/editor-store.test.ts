@@ -2,7 +2,13 @@ import { beforeEach, describe, expect, it } from 'vitest';
 import { READ_ONLY_NOTICE, useEditorStore } from '@/stores/editor-store';
 import type { EditorDoc } from '@/features/editor/document';
 
-const emptyRoute: EditorDoc = { schemaVersion: 1, referenceInput: { componentId: 'product', massKg: 1 }, components: [], steps: [], connections: [] };
+const emptyRoute: EditorDoc = {
+  schemaVersion: 1,
+  referenceInput: { componentId: 'product', massKg: 1 },
+  components: [],
+  steps: [],
+  connections: [],
+};
 
 describe('editor store', () => {
   beforeEach(() => useEditorStore.getState().load(emptyRoute));
@@ -41,7 +47,8 @@ describe('placing a new step', () => {
     store.load(emptyRoute);
     const first = store.addStep('charge');
     const second = useEditorStore.getState().addStep('wash');
-    const at = (id: string) => useEditorStore.getState().doc.steps.find((s) => s.id === id)!.position!;
+    const at = (id: string) =>
+      useEditorStore.getState().doc.steps.find((s) => s.id === id)!.position!;
     expect(at(second).x).toBeGreaterThan(at(first).x);
     // Add another step after the first one: the place right of it is taken by the second.
     useEditorStore.getState().select({ steps: [first] });

@@ -4,7 +4,12 @@ import { SOURCES } from '@shared/engine/data/sources';
 import { UNIFAC_SUBGROUPS } from '@shared/engine/data/unifac';
 import type { AntoineSet, Source, SolventRecord } from '@shared/engine/data/types';
 
-const STATUSES: ReadonlyArray<Source['status']> = ['confirmed', 'unverified-memory', 'estimated', 'common-practice'];
+const STATUSES: ReadonlyArray<Source['status']> = [
+  'confirmed',
+  'unverified-memory',
+  'estimated',
+  'common-practice',
+];
 
 /** CAS Registry Number check digit (CAS, "CAS Registry Number and Check Digit"):
  * the digits before the check digit, read right to left, are weighted 1, 2, 3, …;
@@ -36,7 +41,11 @@ function antoineBoilingPointK(set: AntoineSet): number {
 }
 
 /** Every Source object inside a record, with the path that leads to it. */
-function sourcesIn(value: unknown, path: string, out: Array<{ path: string; source: unknown }>): void {
+function sourcesIn(
+  value: unknown,
+  path: string,
+  out: Array<{ path: string; source: unknown }>,
+): void {
   if (Array.isArray(value)) {
     value.forEach((v, i) => sourcesIn(v, `${path}[${i}]`, out));
     return;
@@ -48,12 +57,45 @@ function sourcesIn(value: unknown, path: string, out: Array<{ path: string; sour
 }
 
 const REQUIRED_IDS = [
-  'water', 'methanol', 'ethanol', '1-propanol', '2-propanol', '1-butanol', '2-butanol', 'tert-butanol',
-  'ethyl-acetate', 'isopropyl-acetate', 'n-butyl-acetate', 'acetone', '2-butanone', 'mibk',
-  'thf', '2-methyltetrahydrofuran', 'mtbe', 'cpme', 'diethyl-ether', '1-4-dioxane', 'dme', 'anisole',
-  'n-heptane', 'n-hexane', 'cyclohexane', 'methylcyclohexane', 'toluene', 'o-xylene',
-  'dichloromethane', 'chloroform', 'chlorobenzene', 'acetonitrile', 'dmf', 'dmac', 'nmp', 'dmso',
-  'acetic-acid', '1-octanol', 'pyridine',
+  'water',
+  'methanol',
+  'ethanol',
+  '1-propanol',
+  '2-propanol',
+  '1-butanol',
+  '2-butanol',
+  'tert-butanol',
+  'ethyl-acetate',
+  'isopropyl-acetate',
+  'n-butyl-acetate',
+  'acetone',
+  '2-butanone',
+  'mibk',
+  'thf',
+  '2-methyltetrahydrofuran',
+  'mtbe',
+  'cpme',
+  'diethyl-ether',
+  '1-4-dioxane',
+  'dme',
+  'anisole',
+  'n-heptane',
+  'n-hexane',
+  'cyclohexane',
+  'methylcyclohexane',
+  'toluene',
+  'o-xylene',
+  'dichloromethane',
+  'chloroform',
+  'chlorobenzene',
+  'acetonitrile',
+  'dmf',
+  'dmac',
+  'nmp',
+  'dmso',
+  'acetic-acid',
+  '1-octanol',
+  'pyridine',
 ];
 
 describe('solvent library fingerprint', () => {
@@ -93,7 +135,12 @@ describe('provenance', () => {
     // 13 sourced fields on every record, the optional ones present, and one per Antoine set.
     const expected = SOLVENTS.reduce(
       (n, s) =>
-        n + 13 + s.antoine.length + (s.enthalpyVapKJmol ? 1 : 0) + (s.waterMutualSolubility ? 1 : 0) + (s.dielectricConstant ? 1 : 0),
+        n +
+        13 +
+        s.antoine.length +
+        (s.enthalpyVapKJmol ? 1 : 0) +
+        (s.waterMutualSolubility ? 1 : 0) +
+        (s.dielectricConstant ? 1 : 0),
       0,
     );
     expect(all.length).toBe(expected);
@@ -118,7 +165,17 @@ describe('provenance', () => {
   });
 
   it('keeps the reference-data.md UNVERIFIED ICH rows unverified', () => {
-    for (const id of ['n-hexane', 'dmf', 'mibk', 'cpme', 'chloroform', 'pyridine', 'nmp', 'tert-butanol', '2-methyltetrahydrofuran']) {
+    for (const id of [
+      'n-hexane',
+      'dmf',
+      'mibk',
+      'cpme',
+      'chloroform',
+      'pyridine',
+      'nmp',
+      'tert-butanol',
+      '2-methyltetrahydrofuran',
+    ]) {
       expect(SOLVENTS.find((s) => s.id === id)!.ich.source.status, id).toBe('unverified-memory');
     }
   });
@@ -132,10 +189,14 @@ describe('physical properties are in plausible ranges', () => {
     expect(s.meltingPointC.value).toBeLessThan(s.boilingPointC.value);
     expect(s.boilingPointC.value).toBeGreaterThan(30);
     expect(s.boilingPointC.value).toBeLessThan(210);
-    if (s.flashPointC.value !== null) expect(s.flashPointC.value).toBeLessThan(s.boilingPointC.value);
+    if (s.flashPointC.value !== null)
+      expect(s.flashPointC.value).toBeLessThan(s.boilingPointC.value);
     expect(s.molarMassGmol.value).toBeGreaterThan(18);
     expect(s.molarMassGmol.value).toBeLessThan(160);
-    expect(s.molarVolumeCm3mol!.value).toBeCloseTo(s.molarMassGmol.value / s.density.value.gPerMl, 0);
+    expect(s.molarVolumeCm3mol!.value).toBeCloseTo(
+      s.molarMassGmol.value / s.density.value.gPerMl,
+      0,
+    );
     expect(s.hansen.value.d).toBeGreaterThanOrEqual(12);
     expect(s.hansen.value.d).toBeLessThanOrEqual(22);
     expect(s.hansen.value.p).toBeGreaterThanOrEqual(0);
@@ -187,7 +248,11 @@ describe('Antoine sets', () => {
   });
 
   it('leaves only CPME and NMP without an Antoine set', () => {
-    expect(SOLVENTS.filter((s) => s.antoine.length === 0).map((s) => s.id).sort()).toEqual(['cpme', 'nmp']);
+    expect(
+      SOLVENTS.filter((s) => s.antoine.length === 0)
+        .map((s) => s.id)
+        .sort(),
+    ).toEqual(['cpme', 'nmp']);
   });
 });
 
@@ -202,7 +267,8 @@ describe('ICH Q3C class and limit are consistent', () => {
     if (cls === 3) expect(limitPpm).toBe(5000);
     if (cls === 2) expect(limitPpm!).toBeLessThan(5000);
     // Option 1: concentration (ppm) = 1000 × PDE (mg/day) / 10 g/day.
-    if (pdeMgDay !== undefined && pdeMgDay !== null) expect(pdeMgDay).toBeCloseTo((limitPpm! * 10) / 1000, 6);
+    if (pdeMgDay !== undefined && pdeMgDay !== null)
+      expect(pdeMgDay).toBeCloseTo((limitPpm! * 10) / 1000, 6);
   });
 
   it('has no Class 1 solvent in the library', () => {
@@ -211,14 +277,17 @@ describe('ICH Q3C class and limit are consistent', () => {
 });
 
 describe('UNIFAC groups', () => {
-  it.each(SOLVENTS.map((s) => [s.id, s] as const))('%s uses known subgroups with positive integer counts', (_id, s) => {
-    const groups = Object.entries(s.unifac.value);
-    expect(groups.length).toBeGreaterThan(0);
-    for (const [k, n] of groups) {
-      expect(UNIFAC_SUBGROUPS.has(Number(k)), `subgroup ${k}`).toBe(true);
-      expect(Number.isInteger(n) && n > 0).toBe(true);
-    }
-  });
+  it.each(SOLVENTS.map((s) => [s.id, s] as const))(
+    '%s uses known subgroups with positive integer counts',
+    (_id, s) => {
+      const groups = Object.entries(s.unifac.value);
+      expect(groups.length).toBeGreaterThan(0);
+      for (const [k, n] of groups) {
+        expect(UNIFAC_SUBGROUPS.has(Number(k)), `subgroup ${k}`).toBe(true);
+        expect(Number.isInteger(n) && n > 0).toBe(true);
+      }
+    },
+  );
 
   it('assigns the examples given in the issue', () => {
     const g = (id: string) => SOLVENTS.find((s) => s.id === id)!.unifac.value;
@@ -239,7 +308,10 @@ describe('UNIFAC groups', () => {
   it('gives n-alkanes and 1-alkanols carbon counts that match their formulas', () => {
     const carbons: Record<number, number> = { 1: 1, 2: 1, 3: 1, 4: 1 };
     const count = (id: string) =>
-      Object.entries(SOLVENTS.find((s) => s.id === id)!.unifac.value).reduce((acc, [k, n]) => acc + (carbons[Number(k)] ?? 0) * n, 0);
+      Object.entries(SOLVENTS.find((s) => s.id === id)!.unifac.value).reduce(
+        (acc, [k, n]) => acc + (carbons[Number(k)] ?? 0) * n,
+        0,
+      );
     expect(count('n-hexane')).toBe(6);
     expect(count('n-heptane')).toBe(7);
     expect(count('1-butanol')).toBe(4);
@@ -249,35 +321,57 @@ describe('UNIFAC groups', () => {
 });
 
 describe('water miscibility', () => {
-  it.each(SOLVENTS.map((s) => [s.id, s] as const))('%s carries mutual solubility exactly when partly miscible', (_id, s) => {
-    if (s.waterMiscibility === 'partial') {
-      const m = s.waterMutualSolubility!.value;
-      expect(m.solventInWaterWtPct).toBeGreaterThan(0);
-      expect(m.solventInWaterWtPct).toBeLessThan(50);
-      expect(m.waterInSolventWtPct).toBeGreaterThan(0);
-      expect(m.waterInSolventWtPct).toBeLessThan(50);
-      expect(m.temperatureC).toBeGreaterThanOrEqual(15);
-      expect(m.temperatureC).toBeLessThanOrEqual(30);
-    } else {
-      expect(s.waterMutualSolubility).toBeUndefined();
-    }
-  });
+  it.each(SOLVENTS.map((s) => [s.id, s] as const))(
+    '%s carries mutual solubility exactly when partly miscible',
+    (_id, s) => {
+      if (s.waterMiscibility === 'partial') {
+        const m = s.waterMutualSolubility!.value;
+        expect(m.solventInWaterWtPct).toBeGreaterThan(0);
+        expect(m.solventInWaterWtPct).toBeLessThan(50);
+        expect(m.waterInSolventWtPct).toBeGreaterThan(0);
+        expect(m.waterInSolventWtPct).toBeLessThan(50);
+        expect(m.temperatureC).toBeGreaterThanOrEqual(15);
+        expect(m.temperatureC).toBeLessThanOrEqual(30);
+      } else {
+        expect(s.waterMutualSolubility).toBeUndefined();
+      }
+    },
+  );
 });
 
 describe('safety flags', () => {
   it('flags the classic ethers as peroxide formers and the hydrocarbons as low-conductivity', () => {
     const f = (id: string) => SOLVENTS.find((s) => s.id === id)!;
-    for (const id of ['thf', '2-methyltetrahydrofuran', 'diethyl-ether', '1-4-dioxane', 'dme', 'diisopropyl-ether']) {
+    for (const id of [
+      'thf',
+      '2-methyltetrahydrofuran',
+      'diethyl-ether',
+      '1-4-dioxane',
+      'dme',
+      'diisopropyl-ether',
+    ]) {
       expect(f(id).peroxideFormer.value, id).toBe(true);
     }
-    for (const id of ['n-heptane', 'n-hexane', 'cyclohexane', 'methylcyclohexane', 'toluene', 'o-xylene']) {
+    for (const id of [
+      'n-heptane',
+      'n-hexane',
+      'cyclohexane',
+      'methylcyclohexane',
+      'toluene',
+      'o-xylene',
+    ]) {
       expect(f(id).lowConductivity.value, id).toBe(true);
       expect(f(id).peroxideFormer.value, id).toBe(false);
     }
-    for (const id of ['water', 'methanol', 'acetonitrile', 'dmso']) expect(f(id).lowConductivity.value, id).toBe(false);
+    for (const id of ['water', 'methanol', 'acetonitrile', 'dmso'])
+      expect(f(id).lowConductivity.value, id).toBe(false);
   });
 
   it('records no flash point for water, dichloromethane and chloroform only', () => {
-    expect(SOLVENTS.filter((s) => s.flashPointC.value === null).map((s) => s.id).sort()).toEqual(['chloroform', 'dichloromethane', 'water']);
+    expect(
+      SOLVENTS.filter((s) => s.flashPointC.value === null)
+        .map((s) => s.id)
+        .sort(),
+    ).toEqual(['chloroform', 'dichloromethane', 'water']);
   });
 });

@@ -28,18 +28,23 @@ describe('workspace policies', () => {
   for (const role of ['chemist', 'reviewer', 'engineer'] as const) {
     it(`a ${role} may read the workspace and its members but not manage them (403)`, () => {
       const member = actor({ [HOME]: [role] });
-      for (const action of anyMember) expect(statusOf(() => authorize(member, action, { workspaceId: HOME }))).toBe('allowed');
-      for (const action of adminOnly) expect(statusOf(() => authorize(member, action, { workspaceId: HOME }))).toBe(403);
+      for (const action of anyMember)
+        expect(statusOf(() => authorize(member, action, { workspaceId: HOME }))).toBe('allowed');
+      for (const action of adminOnly)
+        expect(statusOf(() => authorize(member, action, { workspaceId: HOME }))).toBe(403);
     });
   }
 
   it('an admin may manage members', () => {
     const admin = actor({ [HOME]: ['admin'] });
-    for (const action of [...anyMember, ...adminOnly]) expect(can(admin, action, { workspaceId: HOME })).toBe(true);
+    for (const action of [...anyMember, ...adminOnly])
+      expect(can(admin, action, { workspaceId: HOME })).toBe(true);
   });
 
   it('roles add up: chemist + admin may invite', () => {
-    expect(can(actor({ [HOME]: ['chemist', 'admin'] }), 'member.invite', { workspaceId: HOME })).toBe(true);
+    expect(
+      can(actor({ [HOME]: ['chemist', 'admin'] }), 'member.invite', { workspaceId: HOME }),
+    ).toBe(true);
   });
 
   it("another workspace's objects are hidden (404), even from an admin there", () => {
@@ -64,12 +69,17 @@ describe('token and account policies', () => {
 
   it('every signed-in user may manage tokens and their password, even without a workspace', () => {
     const loner = actor({});
-    for (const action of ['token.list', 'token.create', 'account.changePassword'] as const) expect(can(loner, action, null)).toBe(true);
+    for (const action of ['token.list', 'token.create', 'account.changePassword'] as const)
+      expect(can(loner, action, null)).toBe(true);
   });
 
   it('only admins of some workspace may read the outbox', () => {
     expect(can(actor({ [AWAY]: ['admin'] }), 'outbox.read', null)).toBe(true);
-    expect(statusOf(() => authorize(actor({ [HOME]: ['chemist', 'reviewer', 'engineer'] }), 'outbox.read', null))).toBe(403);
+    expect(
+      statusOf(() =>
+        authorize(actor({ [HOME]: ['chemist', 'reviewer', 'engineer'] }), 'outbox.read', null),
+      ),
+    ).toBe(403);
   });
 });
 
@@ -85,9 +95,15 @@ describe('abilities map', () => {
       'member.remove': false,
     });
     // Every value in the map is a decision, never a missing rule.
-    for (const allowed of Object.values(abilities.workspaces[HOME])) expect(typeof allowed).toBe('boolean');
+    for (const allowed of Object.values(abilities.workspaces[HOME]))
+      expect(typeof allowed).toBe('boolean');
     expect(abilities.workspaces[AWAY]['member.invite']).toBe(true);
-    expect(abilities.global).toMatchObject({ 'token.list': true, 'token.create': true, 'account.changePassword': true, 'outbox.read': true });
+    expect(abilities.global).toMatchObject({
+      'token.list': true,
+      'token.create': true,
+      'account.changePassword': true,
+      'outbox.read': true,
+    });
   });
 
   it('agrees with can() for every workspace action', () => {

@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { hansenDistance, mixtureHansen, relativeEnergyDifference } from '@shared/engine/properties/hansen';
+import {
+  hansenDistance,
+  mixtureHansen,
+  relativeEnergyDifference,
+} from '@shared/engine/properties/hansen';
 import { EngineError } from '@shared/engine/errors';
 
 const toluene = { d: 18.0, p: 1.4, h: 2.0 };
@@ -23,7 +27,10 @@ describe('hansenDistance', () => {
 
 describe('relativeEnergyDifference', () => {
   it('is Ra / R0', () => {
-    expect(relativeEnergyDifference(toluene, ethanol, 8)).toBeCloseTo(hansenDistance(toluene, ethanol) / 8, 12);
+    expect(relativeEnergyDifference(toluene, ethanol, 8)).toBeCloseTo(
+      hansenDistance(toluene, ethanol) / 8,
+      12,
+    );
   });
   it('refuses R0 ≤ 0', () => {
     expect(() => relativeEnergyDifference(toluene, ethanol, 0)).toThrow(/R0/);
@@ -35,8 +42,14 @@ describe('mixtureHansen', () => {
     expect(mixtureHansen([{ params: toluene, volumeFraction: 1 }])).toEqual(toluene);
   });
   it('normalises fractions given as volumes', () => {
-    const a = mixtureHansen([{ params: toluene, volumeFraction: 30 }, { params: ethanol, volumeFraction: 10 }]);
-    const b = mixtureHansen([{ params: toluene, volumeFraction: 0.75 }, { params: ethanol, volumeFraction: 0.25 }]);
+    const a = mixtureHansen([
+      { params: toluene, volumeFraction: 30 },
+      { params: ethanol, volumeFraction: 10 },
+    ]);
+    const b = mixtureHansen([
+      { params: toluene, volumeFraction: 0.75 },
+      { params: ethanol, volumeFraction: 0.25 },
+    ]);
     expect(a.d).toBeCloseTo(b.d, 12);
     expect(a.h).toBeCloseTo(0.75 * 2 + 0.25 * 19.4, 12);
   });

@@ -19,11 +19,21 @@ describe('neutralFraction', () => {
     expect(neutralFraction([{ value: 9.3, type: 'base' }], 9.3)).toBeCloseTo(0.5, 12);
   });
   it('moves in opposite directions with pH for acids and bases', () => {
-    expect(neutralFraction([{ value: 4.2, type: 'acid' }], 6)).toBeLessThan(neutralFraction([{ value: 4.2, type: 'acid' }], 3));
-    expect(neutralFraction([{ value: 9.3, type: 'base' }], 6)).toBeLessThan(neutralFraction([{ value: 9.3, type: 'base' }], 11));
+    expect(neutralFraction([{ value: 4.2, type: 'acid' }], 6)).toBeLessThan(
+      neutralFraction([{ value: 4.2, type: 'acid' }], 3),
+    );
+    expect(neutralFraction([{ value: 9.3, type: 'base' }], 6)).toBeLessThan(
+      neutralFraction([{ value: 9.3, type: 'base' }], 11),
+    );
   });
   it('multiplies independent sites (diprotic acid)', () => {
-    const f = neutralFraction([{ value: 3, type: 'acid' }, { value: 5, type: 'acid' }], 4);
+    const f = neutralFraction(
+      [
+        { value: 3, type: 'acid' },
+        { value: 5, type: 'acid' },
+      ],
+      4,
+    );
     expect(f).toBeCloseTo((1 / (1 + 10)) * (1 / (1 + 0.1)), 12);
   });
   it('refuses a pH outside −2 … 16 and a malformed site', () => {
@@ -70,7 +80,12 @@ describe('partitionByActivity', () => {
   const water = { 16: 1 };
   it('gives Kx = 1 and Kc = V_aq/V_org for identical phases', () => {
     const phase = { groups: [ester, water], moleFractions: [0.5, 0.5], molarVolumeM3mol: 50e-6 };
-    const r = partitionByActivity({ soluteGroups: { 9: 6 }, organic: phase, aqueous: { ...phase, molarVolumeM3mol: 25e-6 }, T_K: 298.15 });
+    const r = partitionByActivity({
+      soluteGroups: { 9: 6 },
+      organic: phase,
+      aqueous: { ...phase, molarVolumeM3mol: 25e-6 },
+      T_K: 298.15,
+    });
     expect(r.Kx).toBeCloseTo(1, 10);
     expect(r.Kc).toBeCloseTo(0.5, 10);
   });
@@ -86,7 +101,9 @@ describe('partitionByActivity', () => {
   });
   it('refuses a non-positive molar volume', () => {
     const phase = { groups: [water], moleFractions: [1], molarVolumeM3mol: 0 };
-    expect(() => partitionByActivity({ soluteGroups: { 9: 6 }, organic: phase, aqueous: phase, T_K: 298.15 })).toThrow(/Molar volume/);
+    expect(() =>
+      partitionByActivity({ soluteGroups: { 9: 6 }, organic: phase, aqueous: phase, T_K: 298.15 }),
+    ).toThrow(/Molar volume/);
   });
 });
 
@@ -94,11 +111,15 @@ describe('distributionRatio', () => {
   const acid = [{ value: 4.2, type: 'acid' as const }];
   it('uses the measurement nearest in pH, and says so', () => {
     const r = distributionRatio({
-      solute: { logP: 1.9, pKa: acid, measured: [
-        { organicSolventId: 'ethyl-acetate', pH: 7, D: 0.02 },
-        { organicSolventId: 'ethyl-acetate', pH: 2, D: 60, source: 'lab notebook 12' },
-        { organicSolventId: 'toluene', pH: 2, D: 5 },
-      ] },
+      solute: {
+        logP: 1.9,
+        pKa: acid,
+        measured: [
+          { organicSolventId: 'ethyl-acetate', pH: 7, D: 0.02 },
+          { organicSolventId: 'ethyl-acetate', pH: 2, D: 60, source: 'lab notebook 12' },
+          { organicSolventId: 'toluene', pH: 2, D: 5 },
+        ],
+      },
       organic: { solventId: 'ethyl-acetate' },
       aqueous: { pH: 2 },
       T_K: 298.15,
@@ -109,12 +130,22 @@ describe('distributionRatio', () => {
     expect(r.warnings.join(' ')).toMatch(/nearest in pH/);
   });
   it('shifts a measurement to another pH with the pKa', () => {
-    const r = distributionRatio({ solute: { pKa: acid, measured: [{ organicSolventId: 'mtbe', pH: 2, D: 50 }] }, organic: { solventId: 'mtbe' }, aqueous: { pH: 4.2 }, T_K: 298.15 });
+    const r = distributionRatio({
+      solute: { pKa: acid, measured: [{ organicSolventId: 'mtbe', pH: 2, D: 50 }] },
+      organic: { solventId: 'mtbe' },
+      aqueous: { pH: 4.2 },
+      T_K: 298.15,
+    });
     expect(r.D).toBeCloseTo(50 * (0.5 / (1 / (1 + 10 ** (2 - 4.2)))), 10);
     expect(r.warnings.join(' ')).toMatch(/shifted/);
   });
   it('estimates by Collander when logP is given and corrects for pH and salt', () => {
-    const r = distributionRatio({ solute: { logP: 1.88, pKa: acid }, organic: { solventId: 'diethyl-ether' }, aqueous: { pH: 4.2, salt: { ks_Lmol: 0.2, molar: 1 } }, T_K: 298.15 });
+    const r = distributionRatio({
+      solute: { logP: 1.88, pKa: acid },
+      organic: { solventId: 'diethyl-ether' },
+      aqueous: { pH: 4.2, salt: { ks_Lmol: 0.2, molar: 1 } },
+      T_K: 298.15,
+    });
     expect(r.method).toBe('Collander from logP');
     expect(r.logD).toBeCloseTo(1.13 * 1.88 - 0.17 + Math.log10(0.5) + 0.2, 10);
     expect(r.basis).toBe('molar-concentration');
@@ -122,22 +153,50 @@ describe('distributionRatio', () => {
   it('uses UNIFAC when asked and the inputs are there, else falls back with a warning', () => {
     const g: UnifacGroups[] = [{ 1: 1, 2: 1, 21: 1 }, { 16: 1 }];
     const phases = {
-      organic: { solventId: 'ethyl-acetate', groups: g, moleFractions: [0.87, 0.13], molarVolumeM3mol: 90e-6 },
+      organic: {
+        solventId: 'ethyl-acetate',
+        groups: g,
+        moleFractions: [0.87, 0.13],
+        molarVolumeM3mol: 90e-6,
+      },
       aqueous: { groups: g, moleFractions: [0.017, 0.983], molarVolumeM3mol: 19e-6 },
     };
-    const act = distributionRatio({ solute: { logP: 2.13, unifac: { 9: 6 } }, ...phases, T_K: 298.15, prefer: 'activity' });
+    const act = distributionRatio({
+      solute: { logP: 2.13, unifac: { 9: 6 } },
+      ...phases,
+      T_K: 298.15,
+      prefer: 'activity',
+    });
     expect(act.method).toBe('activity-coefficients (UNIFAC)');
     expect(act.source.status).toBe('estimated');
-    const col = distributionRatio({ solute: { logP: 2.13 }, organic: { solventId: 'ethyl-acetate' }, aqueous: {}, T_K: 298.15, prefer: 'activity' });
+    const col = distributionRatio({
+      solute: { logP: 2.13 },
+      organic: { solventId: 'ethyl-acetate' },
+      aqueous: {},
+      T_K: 298.15,
+      prefer: 'activity',
+    });
     expect(col.method).toBe('Collander from logP');
     expect(col.warnings.join(' ')).toMatch(/Collander used/);
   });
   it('warns when an ionisable solute comes without a pH', () => {
-    const r = distributionRatio({ solute: { logP: 1, pKa: acid }, organic: { solventId: '1-octanol' }, aqueous: {}, T_K: 298.15 });
+    const r = distributionRatio({
+      solute: { logP: 1, pKa: acid },
+      organic: { solventId: '1-octanol' },
+      aqueous: {},
+      T_K: 298.15,
+    });
     expect(r.logD).toBeCloseTo(1, 12);
     expect(r.warnings.join(' ')).toMatch(/no pH/);
   });
   it('refuses when there is nothing to estimate from', () => {
-    expect(() => distributionRatio({ solute: {}, organic: { solventId: 'toluene' }, aqueous: {}, T_K: 298.15 })).toThrow(/Cannot estimate/);
+    expect(() =>
+      distributionRatio({
+        solute: {},
+        organic: { solventId: 'toluene' },
+        aqueous: {},
+        T_K: 298.15,
+      }),
+    ).toThrow(/Cannot estimate/);
   });
 });

@@ -1,10 +1,19 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { evaluateRoute, ENGINE_VERSION, PROCESS_SAFETY_NOTE } from '../../../shared/engine/route/evaluate';
+import {
+  evaluateRoute,
+  ENGINE_VERSION,
+  PROCESS_SAFETY_NOTE,
+} from '../../../shared/engine/route/evaluate';
 import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
 
-const json = JSON.parse(readFileSync(fileURLToPath(new URL('../../fixtures/routes/demo-amide-isolation.json', import.meta.url)), 'utf8'));
+const json = JSON.parse(
+  readFileSync(
+    fileURLToPath(new URL('../../fixtures/routes/demo-amide-isolation.json', import.meta.url)),
+    'utf8',
+  ),
+);
 
 describe('demo amide isolation', () => {
   const r = evaluateRoute(json);
@@ -31,13 +40,20 @@ describe('demo amide isolation', () => {
     expect(r.processSafetyNote).toBe(PROCESS_SAFETY_NOTE);
   });
   it('puts the cautions on their steps', () => {
-    expect(r.steps['base-wash'].warnings.some((w) => w.code === 'gas-evolution' && w.severity === 'hazard')).toBe(true);
+    expect(
+      r.steps['base-wash'].warnings.some(
+        (w) => w.code === 'gas-evolution' && w.severity === 'hazard',
+      ),
+    ).toBe(true);
     // The swap is held at 14 vol so that the product stays dissolved at the pot temperature.
     expect(r.steps['swap'].warnings.some((w) => w.code === 'solubility-crossed')).toBe(false);
     expect(r.warnings.every((w) => w.stepId === null || r.steps[w.stepId])).toBe(true);
   });
   it('swaps the solvent: little 2-MeTHF left, profile reported', () => {
-    const d = r.steps['swap'].details as { residualOriginalSolventWtPct: number; profile: Array<{ potTemperatureC: number }> };
+    const d = r.steps['swap'].details as {
+      residualOriginalSolventWtPct: number;
+      profile: Array<{ potTemperatureC: number }>;
+    };
     // 4 × 10 vol of 2-propanol against a 14 vol pot leaves about 2 wt % 2-MeTHF
     // (was < 2 with 3 × 5 vol to 4 vol, which crashed the product out).
     expect(d.residualOriginalSolventWtPct).toBeLessThan(3);

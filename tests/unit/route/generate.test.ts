@@ -9,9 +9,10 @@ describe('route generator (property tests and benchmarks)', () => {
       }
     }
   });
-  it('the benchmark\'s 30-step, 10-component route has 30 steps', () => {
+  it("the benchmark's 30-step, 10-component route has 30 steps", () => {
     // Built as tests/bench/route.bench.ts does (compounds added until 10 components).
-    const make = (compounds: number) => generateRoute({ seed: 11, steps: 30, compounds, weights: BENCH_WEIGHTS });
+    const make = (compounds: number) =>
+      generateRoute({ seed: 11, steps: 30, compounds, weights: BENCH_WEIGHTS });
     const d = make(Math.max(1, 10 - (make(1).components.length - 1)));
     expect(d.components.length).toBe(10);
     expect(d.steps.length).toBe(30);

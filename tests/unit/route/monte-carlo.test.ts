@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { monteCarlo, monteCarloChunks, percentile, runMonteCarloChunk, startMonteCarlo, summariseMonteCarlo } from '../../../shared/engine/route/monte-carlo';
+import {
+  monteCarlo,
+  monteCarloChunks,
+  percentile,
+  runMonteCarloChunk,
+  startMonteCarlo,
+  summariseMonteCarlo,
+} from '../../../shared/engine/route/monte-carlo';
 import { parseRoute, prepareRoute } from '../../../shared/engine/route/evaluate';
 import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
 import { createRandom } from '../../../shared/engine/random';
@@ -11,7 +18,8 @@ describe('Monte Carlo', () => {
     expect(b).toEqual(a);
     const prepared = prepareRoute(parseRoute(demoAmideIsolation));
     let s = startMonteCarlo({ draws: 24, seed: 42 });
-    for (const n of [5, 1, 11, 7]) s = runMonteCarloChunk(prepared, JSON.parse(JSON.stringify(s)), n);
+    for (const n of [5, 1, 11, 7])
+      s = runMonteCarloChunk(prepared, JSON.parse(JSON.stringify(s)), n);
     expect(summariseMonteCarlo(s)).toEqual(a);
   });
   it('spreads the results and orders the percentiles', () => {

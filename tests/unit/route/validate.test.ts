@@ -23,36 +23,65 @@ describe('route validation', () => {
     const d = demo();
     d.steps.push({ id: 'back', kind: 'merge', name: 'back', params: {} });
     d.connections = d.connections.filter((c) => c.id !== 'c2');
-    d.connections.push({ id: 'x1', from: { stepId: 'acid-wash', port: 'organic' }, to: { stepId: 'back', port: 'a' } });
-    d.connections.push({ id: 'x2', from: { stepId: 'base-wash', port: 'aqueous' }, to: { stepId: 'back', port: 'b' } });
-    d.connections.push({ id: 'x3', from: { stepId: 'back', port: 'out' }, to: { stepId: 'base-wash', port: 'feed' } });
+    d.connections.push({
+      id: 'x1',
+      from: { stepId: 'acid-wash', port: 'organic' },
+      to: { stepId: 'back', port: 'a' },
+    });
+    d.connections.push({
+      id: 'x2',
+      from: { stepId: 'base-wash', port: 'aqueous' },
+      to: { stepId: 'back', port: 'b' },
+    });
+    d.connections.push({
+      id: 'x3',
+      from: { stepId: 'back', port: 'out' },
+      to: { stepId: 'base-wash', port: 'feed' },
+    });
     const issues = issuesOf(d);
     expect(issues.some((i) => i.stepId === 'back' && /cycle/.test(i.message))).toBe(true);
   });
   it('reports a required input left unconnected', () => {
     const d = demo();
     d.connections = d.connections.filter((c) => c.id !== 'c5');
-    expect(issuesOf(d)).toContainEqual(expect.objectContaining({ stepId: 'antisolvent', field: 'inputs.feed' }));
+    expect(issuesOf(d)).toContainEqual(
+      expect.objectContaining({ stepId: 'antisolvent', field: 'inputs.feed' }),
+    );
   });
   it('reports a port used twice', () => {
     const d = demo();
-    d.connections.push({ id: 'dup', from: { stepId: 'acid-wash', port: 'organic' }, to: { stepId: 'swap', port: 'feed' } });
+    d.connections.push({
+      id: 'dup',
+      from: { stepId: 'acid-wash', port: 'organic' },
+      to: { stepId: 'swap', port: 'feed' },
+    });
     const issues = issuesOf(d);
     expect(issues.some((i) => i.stepId === 'acid-wash' && /used twice/.test(i.message))).toBe(true);
     expect(issues.some((i) => i.stepId === 'swap' && /used twice/.test(i.message))).toBe(true);
   });
   it('reports an unknown port and an incompatible phase', () => {
     const d = demo();
-    d.connections[0] = { id: 'c1', from: { stepId: 'crude', port: 'nope' }, to: { stepId: 'acid-wash', port: 'feed' } };
-    d.connections.push({ id: 'p', from: { stepId: 'dry', port: 'vapour' }, to: { stepId: 'filter', port: 'slurry' } });
+    d.connections[0] = {
+      id: 'c1',
+      from: { stepId: 'crude', port: 'nope' },
+      to: { stepId: 'acid-wash', port: 'feed' },
+    };
+    d.connections.push({
+      id: 'p',
+      from: { stepId: 'dry', port: 'vapour' },
+      to: { stepId: 'filter', port: 'slurry' },
+    });
     const issues = issuesOf(d);
     expect(issues.some((i) => i.field === 'connections[0].from.port')).toBe(true);
   });
   it('reports unknown components with the field path', () => {
     const d = demo();
     const s = d.steps.find((x) => x.id === 'swap')!;
-    if (s.kind === 'distillation' && s.params.mode.kind === 'put-and-take') s.params.mode.addSolventId = 'unobtainium';
-    expect(issuesOf(d)).toContainEqual(expect.objectContaining({ stepId: 'swap', field: 'params.mode.addSolventId' }));
+    if (s.kind === 'distillation' && s.params.mode.kind === 'put-and-take')
+      s.params.mode.addSolventId = 'unobtainium';
+    expect(issuesOf(d)).toContainEqual(
+      expect.objectContaining({ stepId: 'swap', field: 'params.mode.addSolventId' }),
+    );
   });
   it('reports out-of-range parameters from the schema with their path and step', () => {
     const d = demo();
@@ -65,7 +94,10 @@ describe('route validation', () => {
   it('reports a medium above its saturation wt%', () => {
     const d = demo();
     const s = d.steps.find((x) => x.id === 'base-wash')!;
-    if (s.kind === 'wash' && s.params.addedLiquid.kind === 'aqueous') s.params.addedLiquid.wtPct = 30;
-    expect(issuesOf(d)).toContainEqual(expect.objectContaining({ stepId: 'base-wash', field: 'params.addedLiquid.wtPct' }));
+    if (s.kind === 'wash' && s.params.addedLiquid.kind === 'aqueous')
+      s.params.addedLiquid.wtPct = 30;
+    expect(issuesOf(d)).toContainEqual(
+      expect.objectContaining({ stepId: 'base-wash', field: 'params.addedLiquid.wtPct' }),
+    );
   });
 });

@@ -1,9 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { activityCoefficients, createUnifac, unifacGroupsSummary } from '@shared/engine/thermo/unifac';
+import {
+  activityCoefficients,
+  createUnifac,
+  unifacGroupsSummary,
+} from '@shared/engine/thermo/unifac';
 import { referenceLnGammas } from '@shared/engine/thermo/unifac-reference';
 import { UnifacParameterError } from '@shared/engine/errors';
-import { UNIFAC_INTERACTION_COUNT, UNIFAC_SUBGROUPS, mainGroupInteraction } from '@shared/engine/data/unifac';
+import {
+  UNIFAC_INTERACTION_COUNT,
+  UNIFAC_SUBGROUPS,
+  mainGroupInteraction,
+} from '@shared/engine/data/unifac';
 
 const ethanol = { 1: 1, 2: 1, 14: 1 };
 const water = { 16: 1 };
@@ -15,7 +23,18 @@ const thf = { 2: 3, 27: 1 };
 const dcm = { 47: 1 };
 const acetonitrile = { 40: 1 };
 const isopropanol = { 1: 2, 3: 1, 14: 1 };
-const ten = [ethanol, water, toluene, acetone, ethylAcetate, heptane, thf, dcm, acetonitrile, isopropanol];
+const ten = [
+  ethanol,
+  water,
+  toluene,
+  acetone,
+  ethylAcetate,
+  heptane,
+  thf,
+  dcm,
+  acetonitrile,
+  isopropanol,
+];
 
 describe('UNIFAC parameter table', () => {
   it('holds all 1270 entries of the data file with spot values (fingerprint)', () => {
@@ -99,13 +118,17 @@ describe('createUnifac', () => {
       expect(e).toBeInstanceOf(UnifacParameterError);
       const err = e as UnifacParameterError;
       expect(err.code).toBe('unifac-missing-parameters');
-      expect(err.gap.missingPairs).toEqual([{ mainGroupA: 7, mainGroupB: 38, names: ['H2O', 'ACF'] }]);
+      expect(err.gap.missingPairs).toEqual([
+        { mainGroupA: 7, mainGroupB: 38, names: ['H2O', 'ACF'] },
+      ]);
       expect(err.message).toMatch(/H2O \(7\) – ACF \(38\)/);
     }
   });
 
   it('refuses an unknown subgroup', () => {
-    expect(() => createUnifac([{ 999: 1 }, water])).toThrowError(/unknown UNIFAC subgroup\(s\) 999/);
+    expect(() => createUnifac([{ 999: 1 }, water])).toThrowError(
+      /unknown UNIFAC subgroup\(s\) 999/,
+    );
   });
 
   it('refuses compositions that do not sum to 1, negative or NaN entries, wrong length', () => {

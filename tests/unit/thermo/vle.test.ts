@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import {
-  bubblePoint, bubblePressure, createVleSystem, dewPoint, heterogeneousBubblePoint, liquidLiquidSplit,
+  bubblePoint,
+  bubblePressure,
+  createVleSystem,
+  dewPoint,
+  heterogeneousBubblePoint,
+  liquidLiquidSplit,
 } from '@shared/engine/thermo/vle';
 import { vapourPressure } from '@shared/engine/thermo/antoine';
 import * as F from '../../reference/thermo/fixtures';
@@ -34,7 +39,12 @@ describe('bubblePoint', () => {
   });
 
   it('gives y = 0 for a non-volatile solute, which still raises the boiling point via γ', () => {
-    const solute = { name: 'non-volatile solute', antoine: [], unifac: { 9: 5, 10: 1, 42: 1 }, nonVolatile: true };
+    const solute = {
+      name: 'non-volatile solute',
+      antoine: [],
+      unifac: { 9: 5, 10: 1, 42: 1 },
+      nonVolatile: true,
+    };
     const sys = createVleSystem([F.toluene, solute]);
     const r = bubblePoint(sys, [0.9, 0.1], P);
     expect(r.y[1]).toBe(0);
@@ -45,7 +55,9 @@ describe('bubblePoint', () => {
   it('warns when a vapour pressure is extrapolated', () => {
     const sys = createVleSystem([F.mtbe, F.toluene]); // MTBE set ends at 326 K
     const r = bubblePoint(sys, [0.3, 0.7], P);
-    expect(r.warnings.some((w) => w.startsWith('MTBE:') && /Clausius–Clapeyron/.test(w))).toBe(true);
+    expect(r.warnings.some((w) => w.startsWith('MTBE:') && /Clausius–Clapeyron/.test(w))).toBe(
+      true,
+    );
   });
 
   it('refuses a liquid of non-volatile components only', () => {
@@ -72,7 +84,9 @@ describe('dewPoint', () => {
 
 describe('liquidLiquidSplit', () => {
   it('finds no split for a miscible pair (ethanol–water)', () => {
-    expect(liquidLiquidSplit(createVleSystem([F.ethanol, F.water]), [0.5, 0.5], 298.15).split).toBe(false);
+    expect(liquidLiquidSplit(createVleSystem([F.ethanol, F.water]), [0.5, 0.5], 298.15).split).toBe(
+      false,
+    );
   });
   it('splits toluene–water into nearly pure phases with equal activities', () => {
     const sys = createVleSystem([F.toluene, F.water]);
@@ -84,7 +98,8 @@ describe('liquidLiquidSplit', () => {
     expect(aqueous[1]).toBeGreaterThan(0.999);
     const gI = sys.unifac.gammas(organic, 298.15);
     const gII = sys.unifac.gammas(aqueous, 298.15);
-    for (let i = 0; i < 2; i++) expect((organic[i] * gI[i]) / (aqueous[i] * gII[i])).toBeCloseTo(1, 8);
+    for (let i = 0; i < 2; i++)
+      expect((organic[i] * gI[i]) / (aqueous[i] * gII[i])).toBeCloseTo(1, 8);
     // Material balance.
     for (let i = 0; i < 2; i++) {
       expect((1 - r.phaseFraction) * organic[i] + r.phaseFraction * aqueous[i]).toBeCloseTo(0.5, 8);

@@ -4,18 +4,30 @@ import { parseRoute } from '../../../shared/engine/route/evaluate';
 import { aqueousPH } from '../../../shared/engine/unitops/equilibria';
 import { cakeFiltrationTime, lewisSquires } from '../../../shared/engine/unitops/filtration';
 
-const { ctx } = buildContext(parseRoute({
-  schemaVersion: 1,
-  referenceInput: { componentId: 'p', massKg: 1 },
-  components: [
-    { kind: 'solvent', id: 'water', solventId: 'water' },
-    { kind: 'aqueous-solute', soluteId: 'hcl' },
-    { kind: 'aqueous-solute', soluteId: 'nahco3' },
-    { kind: 'compound', id: 'p', name: 'p', role: 'product', molarMassGmol: 100 },
-  ],
-  steps: [{ id: 'c', kind: 'charge', name: 'c', params: { temperatureC: 20, contents: [{ kind: 'component', componentId: 'p', amount: 1, unit: 'kg' }] } }],
-  connections: [],
-}));
+const { ctx } = buildContext(
+  parseRoute({
+    schemaVersion: 1,
+    referenceInput: { componentId: 'p', massKg: 1 },
+    components: [
+      { kind: 'solvent', id: 'water', solventId: 'water' },
+      { kind: 'aqueous-solute', soluteId: 'hcl' },
+      { kind: 'aqueous-solute', soluteId: 'nahco3' },
+      { kind: 'compound', id: 'p', name: 'p', role: 'product', molarMassGmol: 100 },
+    ],
+    steps: [
+      {
+        id: 'c',
+        kind: 'charge',
+        name: 'c',
+        params: {
+          temperatureC: 20,
+          contents: [{ kind: 'component', componentId: 'p', amount: 1, unit: 'kg' }],
+        },
+      },
+    ],
+    connections: [],
+  }),
+);
 
 describe('aqueous pH by charge balance', () => {
   it('0.1 M HCl is pH 1', () => {
@@ -29,7 +41,13 @@ describe('aqueous pH by charge balance', () => {
     expect(pH).toBeLessThan(8.5);
   });
   it('pure water is pH 7', () => {
-    expect(aqueousPH(ctx, { volumeM3: 0.001, kg: { water: 1, hcl: 0, nahco3: 0, p: 0 }, includeCompounds: false })!).toBeCloseTo(7, 4);
+    expect(
+      aqueousPH(ctx, {
+        volumeM3: 0.001,
+        kg: { water: 1, hcl: 0, nahco3: 0, p: 0 },
+        includeCompounds: false,
+      })!,
+    ).toBeCloseTo(7, 4);
   });
 });
 

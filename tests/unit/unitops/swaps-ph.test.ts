@@ -4,7 +4,12 @@
  */
 import { describe, expect, it } from 'vitest';
 import { evaluateRoute } from '../../../shared/engine/route/evaluate';
-import { rayleighConstantAlphaResidueFraction, rayleighConstantVolume, rayleighConstantVolumeFeedRatio, rayleighToVolume } from '../../../shared/engine/unitops/rayleigh';
+import {
+  rayleighConstantAlphaResidueFraction,
+  rayleighConstantVolume,
+  rayleighConstantVolumeFeedRatio,
+  rayleighToVolume,
+} from '../../../shared/engine/unitops/rayleigh';
 import type { RouteDocumentInput } from '../../../shared/schemas/route';
 
 function constantAlpha(alpha: number) {
@@ -31,17 +36,38 @@ describe('pH adjustment by charge balance', () => {
       { kind: 'solvent', id: 'water', solventId: 'water' },
       { kind: 'aqueous-solute', soluteId: 'citric-acid' },
       { kind: 'aqueous-solute', soluteId: 'naoh' },
-      { kind: 'compound', id: 'p', name: 'neutral test solute (invented)', role: 'product', molarMassGmol: 200 },
+      {
+        kind: 'compound',
+        id: 'p',
+        name: 'neutral test solute (invented)',
+        role: 'product',
+        molarMassGmol: 200,
+      },
     ],
     steps: [
-      { id: 'feed', kind: 'charge', name: 'citric acid in water', params: { temperatureC: 25, contents: [
-        { kind: 'component', componentId: 'water', amount: 1, unit: 'L' },
-        { kind: 'component', componentId: 'citric-acid', amount: 0.1 * 0.192123, unit: 'kg' },
-        { kind: 'component', componentId: 'p', amount: 0.001, unit: 'kg' },
-      ] } },
-      { id: 'ph', kind: 'ph-adjust', name: 'NaOH to pH 4.76', params: { reagentSoluteId: 'naoh', wtPct: 10, targetPH: 4.76, temperatureC: 25 } },
+      {
+        id: 'feed',
+        kind: 'charge',
+        name: 'citric acid in water',
+        params: {
+          temperatureC: 25,
+          contents: [
+            { kind: 'component', componentId: 'water', amount: 1, unit: 'L' },
+            { kind: 'component', componentId: 'citric-acid', amount: 0.1 * 0.192123, unit: 'kg' },
+            { kind: 'component', componentId: 'p', amount: 0.001, unit: 'kg' },
+          ],
+        },
+      },
+      {
+        id: 'ph',
+        kind: 'ph-adjust',
+        name: 'NaOH to pH 4.76',
+        params: { reagentSoluteId: 'naoh', wtPct: 10, targetPH: 4.76, temperatureC: 25 },
+      },
     ],
-    connections: [{ id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'ph', port: 'feed' } }],
+    connections: [
+      { id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'ph', port: 'feed' } },
+    ],
   };
   const r = evaluateRoute(doc);
   const res = r.steps['ph'];
@@ -55,7 +81,9 @@ describe('pH adjustment by charge balance', () => {
   it('needs 1.5 equiv of NaOH (Henderson–Hasselbalch) — 1.4996 with all three pKa values', () => {
     const H = 10 ** -4.76;
     const [K1, K2, K3] = [10 ** -3.13, 10 ** -4.76, 10 ** -6.4];
-    const z = (K1 * H * H + 2 * K1 * K2 * H + 3 * K1 * K2 * K3) / (H ** 3 + K1 * H * H + K1 * K2 * H + K1 * K2 * K3);
+    const z =
+      (K1 * H * H + 2 * K1 * K2 * H + 3 * K1 * K2 * K3) /
+      (H ** 3 + K1 * H * H + K1 * K2 * H + K1 * K2 * K3);
     expect(z).toBeCloseTo(1.4996, 4);
     const V = r.terminals[0].stream.volumeM3 * 1000; // L, the final aqueous volume
     const expected = 0.1 * z - (H - 1e-14 / H) * V;
@@ -78,13 +106,31 @@ describe('constant-volume swap: closed form for constant α', () => {
   //   F/N = [ln(x₀/x) + (α − 1)(x₀ − x)] / α,
   // so x falls nearly as x₀·exp(−αF/N) once x is small. (Derived here; no printed source.)
   it('α = 1 (no enrichment): x = x₀ exp(−F/N), to 0.3 % with 48 Heun increments', () => {
-    const r = rayleighConstantVolume(Float64Array.from([100, 0]), Float64Array.from([1, 1]), 1, 300, constantAlpha(1), 48);
+    const r = rayleighConstantVolume(
+      Float64Array.from([100, 0]),
+      Float64Array.from([1, 1]),
+      1,
+      300,
+      constantAlpha(1),
+      48,
+    );
     expect(Math.abs(r.moles[0] / (r.moles[0] + r.moles[1]) / Math.exp(-3) - 1)).toBeLessThan(3e-3);
     expect(r.moles[0] + r.moles[1]).toBeCloseTo(100, 9);
   });
-  it.each([[2.5, 1, 3], [4, 0.8, 2], [1.6, 0.9, 4]])('α = %f, x₀ = %f, F/N = %f: the integrated x satisfies the closed form', (alpha, x0, FN) => {
+  it.each([
+    [2.5, 1, 3],
+    [4, 0.8, 2],
+    [1.6, 0.9, 4],
+  ])('α = %f, x₀ = %f, F/N = %f: the integrated x satisfies the closed form', (alpha, x0, FN) => {
     const N = 100;
-    const r = rayleighConstantVolume(Float64Array.from([N * x0, N * (1 - x0)]), Float64Array.from([1, 1]), 1, FN * N, constantAlpha(alpha), 64);
+    const r = rayleighConstantVolume(
+      Float64Array.from([N * x0, N * (1 - x0)]),
+      Float64Array.from([1, 1]),
+      1,
+      FN * N,
+      constantAlpha(alpha),
+      64,
+    );
     const x = r.moles[0] / (r.moles[0] + r.moles[1]);
     expect(rayleighConstantVolumeFeedRatio(alpha, x0, x) / FN).toBeCloseTo(1, 2);
     // Mass: A distilled + left = A charged; B left + distilled = B charged + fed.
@@ -94,7 +140,14 @@ describe('constant-volume swap: closed form for constant α', () => {
   it('the residual falls roughly exponentially with the volume fed (slope near −α per pot volume)', () => {
     const alpha = 2.5;
     const xs = [1, 2, 3, 4].map((FN) => {
-      const r = rayleighConstantVolume(Float64Array.from([50, 50]), Float64Array.from([1, 1]), 1, FN * 100, constantAlpha(alpha), 64);
+      const r = rayleighConstantVolume(
+        Float64Array.from([50, 50]),
+        Float64Array.from([1, 1]),
+        1,
+        FN * 100,
+        constantAlpha(alpha),
+        64,
+      );
       return r.moles[0] / 100;
     });
     for (let i = 1; i < xs.length; i++) {
@@ -140,8 +193,8 @@ describe('put-and-take swap: residual against cycles, constant α', () => {
     // Better than plain dilution (α > 1): every cycle removes more than Nadd/(Nt + Nadd) of A.
     for (let i = 1; i < xs.length; i++) expect(xs[i] / xs[i - 1]).toBeLessThan(Nt / (Nt + Nadd));
     // Nearly geometric once dilute: successive factors within 30 % of each other.
-    expect((xs[3] / xs[2]) / (xs[2] / xs[1])).toBeGreaterThan(0.7);
-    expect((xs[3] / xs[2]) / (xs[2] / xs[1])).toBeLessThan(1.3);
+    expect(xs[3] / xs[2] / (xs[2] / xs[1])).toBeGreaterThan(0.7);
+    expect(xs[3] / xs[2] / (xs[2] / xs[1])).toBeLessThan(1.3);
   });
 });
 
@@ -152,18 +205,79 @@ describe('solvent swaps through the route model (UNIFAC VLE)', () => {
     components: [
       { kind: 'solvent', id: 'ethyl-acetate', solventId: 'ethyl-acetate' },
       { kind: 'solvent', id: 'toluene', solventId: 'toluene' },
-      { kind: 'compound', id: 'p', name: 'test solute (invented)', role: 'product', molarMassGmol: 250,
-        solubility: [{ solventId: 'toluene', temperatureC: 20, value: 500, unit: 'g/L', source: 'invented test value' }, { solventId: 'toluene', temperatureC: 80, value: 900, unit: 'g/L', source: 'invented test value' }, { solventId: 'ethyl-acetate', temperatureC: 20, value: 500, unit: 'g/L', source: 'invented test value' }, { solventId: 'ethyl-acetate', temperatureC: 80, value: 900, unit: 'g/L', source: 'invented test value' }] },
+      {
+        kind: 'compound',
+        id: 'p',
+        name: 'test solute (invented)',
+        role: 'product',
+        molarMassGmol: 250,
+        solubility: [
+          {
+            solventId: 'toluene',
+            temperatureC: 20,
+            value: 500,
+            unit: 'g/L',
+            source: 'invented test value',
+          },
+          {
+            solventId: 'toluene',
+            temperatureC: 80,
+            value: 900,
+            unit: 'g/L',
+            source: 'invented test value',
+          },
+          {
+            solventId: 'ethyl-acetate',
+            temperatureC: 20,
+            value: 500,
+            unit: 'g/L',
+            source: 'invented test value',
+          },
+          {
+            solventId: 'ethyl-acetate',
+            temperatureC: 80,
+            value: 900,
+            unit: 'g/L',
+            source: 'invented test value',
+          },
+        ],
+      },
     ],
     steps: [
-      { id: 'feed', kind: 'charge', name: 'feed', params: { temperatureC: 20, contents: [{ kind: 'component', componentId: 'ethyl-acetate', amount: 8, unit: 'vol' }, { kind: 'component', componentId: 'p', amount: 1, unit: 'kg' }] } },
-      { id: 'swap', kind: 'distillation', name: 'swap', params: { mode, condition: { kind: 'pressure', pressureMbar: 400 } } } as RouteDocumentInput['steps'][number],
+      {
+        id: 'feed',
+        kind: 'charge',
+        name: 'feed',
+        params: {
+          temperatureC: 20,
+          contents: [
+            { kind: 'component', componentId: 'ethyl-acetate', amount: 8, unit: 'vol' },
+            { kind: 'component', componentId: 'p', amount: 1, unit: 'kg' },
+          ],
+        },
+      },
+      {
+        id: 'swap',
+        kind: 'distillation',
+        name: 'swap',
+        params: { mode, condition: { kind: 'pressure', pressureMbar: 400 } },
+      } as RouteDocumentInput['steps'][number],
     ],
-    connections: [{ id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'swap', port: 'feed' } }],
+    connections: [
+      { id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'swap', port: 'feed' } },
+    ],
   });
-  const residual = (mode: unknown) => (evaluateRoute(base(mode)).steps['swap'].details as { residualOriginalSolventWtPct: number }).residualOriginalSolventWtPct;
+  const residual = (mode: unknown) =>
+    (evaluateRoute(base(mode)).steps['swap'].details as { residualOriginalSolventWtPct: number })
+      .residualOriginalSolventWtPct;
   it('constant volume: ethyl acetate left falls roughly exponentially with the toluene fed', () => {
-    const rs = [8, 16, 24].map((v) => residual({ kind: 'constant-volume', addSolventId: 'toluene', addVolume: { value: v, unit: 'vol' } }));
+    const rs = [8, 16, 24].map((v) =>
+      residual({
+        kind: 'constant-volume',
+        addSolventId: 'toluene',
+        addVolume: { value: v, unit: 'vol' },
+      }),
+    );
     expect(rs[0]).toBeLessThan(50);
     expect(rs[1]).toBeLessThan(rs[0]);
     expect(rs[2]).toBeLessThan(rs[1]);
@@ -174,20 +288,46 @@ describe('solvent swaps through the route model (UNIFAC VLE)', () => {
     expect(f2 / f1).toBeLessThan(1.5);
   });
   it('put-and-take: the residual falls with every cycle, each better than plain dilution', () => {
-    const rs = [1, 2, 3].map((cycles) => residual({ kind: 'put-and-take', cycles, targetVolume: { value: 3, unit: 'vol' }, addSolventId: 'toluene', addVolume: { value: 5, unit: 'vol' } }));
+    const rs = [1, 2, 3].map((cycles) =>
+      residual({
+        kind: 'put-and-take',
+        cycles,
+        targetVolume: { value: 3, unit: 'vol' },
+        addSolventId: 'toluene',
+        addVolume: { value: 5, unit: 'vol' },
+      }),
+    );
     // Plain dilution would keep 3/(3 + 5) of the ethyl acetate per cycle.
     for (let i = 1; i < rs.length; i++) expect(rs[i] / rs[i - 1]).toBeLessThan(3 / 8);
   });
   it('the constant-volume profile keeps the pot volume and reports the new solvent fed', () => {
-    const r = evaluateRoute(base({ kind: 'constant-volume', addSolventId: 'toluene', addVolume: { value: 16, unit: 'vol' } })).steps['swap'];
-    const d = r.details as { profile: Array<{ potVolumeL: number; newSolventAddedL: number }>; newSolventAddedL: number };
+    const r = evaluateRoute(
+      base({
+        kind: 'constant-volume',
+        addSolventId: 'toluene',
+        addVolume: { value: 16, unit: 'vol' },
+      }),
+    ).steps['swap'];
+    const d = r.details as {
+      profile: Array<{ potVolumeL: number; newSolventAddedL: number }>;
+      newSolventAddedL: number;
+    };
     const v0 = d.profile[0].potVolumeL;
     for (const p of d.profile) expect(Math.abs(p.potVolumeL / v0 - 1)).toBeLessThan(0.02);
     expect(d.profile[d.profile.length - 1].newSolventAddedL).toBeCloseTo(16, 6);
-    for (let i = 1; i < d.profile.length; i++) expect(d.profile[i].newSolventAddedL).toBeGreaterThanOrEqual(d.profile[i - 1].newSolventAddedL);
+    for (let i = 1; i < d.profile.length; i++)
+      expect(d.profile[i].newSolventAddedL).toBeGreaterThanOrEqual(
+        d.profile[i - 1].newSolventAddedL,
+      );
   });
   it('the constant-volume swap closes the mass balance of every component to 1e-9', () => {
-    const res = evaluateRoute(base({ kind: 'constant-volume', addSolventId: 'toluene', addVolume: { value: 16, unit: 'vol' } }));
+    const res = evaluateRoute(
+      base({
+        kind: 'constant-volume',
+        addSolventId: 'toluene',
+        addVolume: { value: 16, unit: 'vol' },
+      }),
+    );
     const feed = res.streams['c1'].kg;
     const outs = res.terminals.filter((t) => t.stepId === 'swap');
     expect(outs.length).toBe(2);

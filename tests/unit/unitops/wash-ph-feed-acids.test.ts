@@ -17,28 +17,78 @@ function doc(washL: number): RouteDocumentInput {
       { kind: 'solvent', id: 'water', solventId: 'water' },
       { kind: 'solvent', id: 'toluene', solventId: 'toluene' },
       { kind: 'aqueous-solute', soluteId: 'nahco3' },
-      { kind: 'compound', id: 'p', name: 'neutral product (invented)', role: 'product', molarMassGmol: 300, logP: 3 },
+      {
+        kind: 'compound',
+        id: 'p',
+        name: 'neutral product (invented)',
+        role: 'product',
+        molarMassGmol: 300,
+        logP: 3,
+      },
       // Invented carboxylic acid: pKa 4.20, measured D(toluene/water) = 2 at pH 1 (invented value), so K = 2/f_n(1).
-      { kind: 'compound', id: 'ha', name: 'carboxylic acid impurity (invented)', role: 'impurity', molarMassGmol: 150, pKa: [{ value: 4.2, type: 'acid' }], partition: [{ organicSolventId: 'toluene', pH: 1, D: 2, source: 'invented test value' }] },
+      {
+        kind: 'compound',
+        id: 'ha',
+        name: 'carboxylic acid impurity (invented)',
+        role: 'impurity',
+        molarMassGmol: 150,
+        pKa: [{ value: 4.2, type: 'acid' }],
+        partition: [{ organicSolventId: 'toluene', pH: 1, D: 2, source: 'invented test value' }],
+      },
     ],
     steps: [
-      { id: 'feed', kind: 'charge', name: 'feed', params: { temperatureC: 20, contents: [
-        { kind: 'component', componentId: 'toluene', amount: 0.2, unit: 'L' },
-        { kind: 'component', componentId: 'p', amount: 0.01, unit: 'kg' },
-        { kind: 'component', componentId: 'ha', amount: 0.2 * M_ACID, unit: 'kg' },
-      ] } },
-      { id: 'w', kind: 'wash', name: '8 % NaHCO3', params: { addedLiquid: { kind: 'aqueous', soluteId: 'nahco3', wtPct: 8, volume: { value: washL, unit: 'L' } }, stages: 1, mode: 'cross-current', temperatureC: 20, keep: 'organic' } },
+      {
+        id: 'feed',
+        kind: 'charge',
+        name: 'feed',
+        params: {
+          temperatureC: 20,
+          contents: [
+            { kind: 'component', componentId: 'toluene', amount: 0.2, unit: 'L' },
+            { kind: 'component', componentId: 'p', amount: 0.01, unit: 'kg' },
+            { kind: 'component', componentId: 'ha', amount: 0.2 * M_ACID, unit: 'kg' },
+          ],
+        },
+      },
+      {
+        id: 'w',
+        kind: 'wash',
+        name: '8 % NaHCO3',
+        params: {
+          addedLiquid: {
+            kind: 'aqueous',
+            soluteId: 'nahco3',
+            wtPct: 8,
+            volume: { value: washL, unit: 'L' },
+          },
+          stages: 1,
+          mode: 'cross-current',
+          temperatureC: 20,
+          keep: 'organic',
+        },
+      },
     ],
-    connections: [{ id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'w', port: 'feed' } }],
+    connections: [
+      { id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'w', port: 'feed' } },
+    ],
   };
 }
 
-type Details = { aqueousPH: number; phaseVolumesL: { organic: number; aqueous: number }; components: Record<string, { D: number | null }> };
+type Details = {
+  aqueousPH: number;
+  phaseVolumesL: { organic: number; aqueous: number };
+  components: Record<string, { D: number | null }>;
+};
 const run = (washL: number) => {
   const r = evaluateRoute(doc(washL));
   const s = r.steps['w'];
   const org = r.terminals.find((t) => t.port === 'organic')!.stream;
-  return { s, d: s.details as Details, nBase: (s.addedKg['nahco3'] ?? 0) / M_NAHCO3, acidLeft: org.kg['ha'] / (0.2 * M_ACID) };
+  return {
+    s,
+    d: s.details as Details,
+    nBase: (s.addedKg['nahco3'] ?? 0) / M_NAHCO3,
+    acidLeft: org.kg['ha'] / (0.2 * M_ACID),
+  };
 };
 
 describe('bicarbonate wash with too little base for the acid in the feed', () => {
@@ -73,7 +123,10 @@ describe('bicarbonate wash with too little base for the acid in the feed', () =>
     expect(ample.acidLeft).toBeLessThan(0.01);
     expect(short.acidLeft).toBeGreaterThan(20 * ample.acidLeft);
     // The distribution ratio of the acid follows the lower pH (D = K f_n).
-    expect(short.d.components['ha'].D!).toBeCloseTo(2 * (1 + 10 ** (1 - 4.2)) / (1 + 10 ** (short.d.aqueousPH - 4.2)), 9);
+    expect(short.d.components['ha'].D!).toBeCloseTo(
+      (2 * (1 + 10 ** (1 - 4.2))) / (1 + 10 ** (short.d.aqueousPH - 4.2)),
+      9,
+    );
   });
 
   it('warns that the base is insufficient, with the equivalents', () => {

@@ -12,9 +12,11 @@ function source(ref: SourceId, status: Source['status'], note?: string): Source 
 }
 
 export const read = (ref: SourceId, note?: string): Source => source(ref, 'confirmed', note);
-export const recalled = (ref: SourceId, note?: string): Source => source(ref, 'unverified-memory', note);
+export const recalled = (ref: SourceId, note?: string): Source =>
+  source(ref, 'unverified-memory', note);
 export const derived = (ref: SourceId, note?: string): Source => source(ref, 'estimated', note);
-export const practice = (ref: SourceId, note?: string): Source => source(ref, 'common-practice', note);
+export const practice = (ref: SourceId, note?: string): Source =>
+  source(ref, 'common-practice', note);
 
 export function sv<T>(value: T, src: Source): Sourced<T> {
   return { value, source: src };

@@ -9,7 +9,11 @@ export const sessionQueryKey = ['session'] as const;
 /** The signed-in session, or null when signed out (the API answers 401). */
 export async function getSession(signal?: AbortSignal): Promise<Session | null> {
   try {
-    return await apiRequest(api.session, { schema: sessionSchema, signal, ignoreUnauthorized: true });
+    return await apiRequest(api.session, {
+      schema: sessionSchema,
+      signal,
+      ignoreUnauthorized: true,
+    });
   } catch (error) {
     if (isApiError(error, 401)) return null;
     throw error;

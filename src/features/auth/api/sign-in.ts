@@ -5,7 +5,12 @@ import { api } from '@/paths';
 import { sessionQueryKey } from './get-session';
 
 export const signIn = (input: SignInInput) =>
-  apiRequest(api.session, { method: 'POST', body: input, schema: sessionSchema, ignoreUnauthorized: true });
+  apiRequest(api.session, {
+    method: 'POST',
+    body: input,
+    schema: sessionSchema,
+    ignoreUnauthorized: true,
+  });
 
 export const useSignIn = () => {
   const queryClient = useQueryClient();

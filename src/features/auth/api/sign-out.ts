@@ -4,7 +4,8 @@ import { api } from '@/paths';
 import { sessionQueryKey } from './get-session';
 import { markSignedOut } from '../session-end';
 
-export const signOut = () => apiRequest(api.session, { method: 'DELETE', ignoreUnauthorized: true });
+export const signOut = () =>
+  apiRequest(api.session, { method: 'DELETE', ignoreUnauthorized: true });
 
 export const useSignOut = () => {
   const queryClient = useQueryClient();

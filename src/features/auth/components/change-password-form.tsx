@@ -30,7 +30,12 @@ export function ChangePasswordForm() {
   };
 
   return (
-    <form noValidate onSubmit={submit} className="max-w-form space-y-4" aria-label="Change password">
+    <form
+      noValidate
+      onSubmit={submit}
+      className="max-w-form space-y-4"
+      aria-label="Change password"
+    >
       {form.formError ? <FormMessage tone="error">{form.formError}</FormMessage> : null}
       {done ? <FormMessage tone="success">Your password was changed.</FormMessage> : null}
       <TextField

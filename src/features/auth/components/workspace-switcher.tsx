@@ -4,7 +4,13 @@ import { Select } from '@/components/select';
 import { rememberWorkspace } from '../last-workspace';
 
 /** Picks the workspace; keeps the same section (members, compounds ...) when switching. */
-export function WorkspaceSwitcher({ workspaces, currentId }: { workspaces: SessionWorkspace[]; currentId: string | undefined }) {
+export function WorkspaceSwitcher({
+  workspaces,
+  currentId,
+}: {
+  workspaces: SessionWorkspace[];
+  currentId: string | undefined;
+}) {
   const navigate = useNavigate();
   const location = useLocation();
   const current = workspaces.find((w) => w.id === currentId) ?? workspaces[0];
@@ -13,9 +19,7 @@ export function WorkspaceSwitcher({ workspaces, currentId }: { workspaces: Sessi
     return (
       <div className="px-1">
         <p className="text-caption text-ink-faint">Workspace</p>
-        <p className="text-body leading-snug font-medium text-ink">
-          {current.name}
-        </p>
+        <p className="text-body leading-snug font-medium text-ink">{current.name}</p>
       </div>
     );
   }
@@ -28,7 +32,9 @@ export function WorkspaceSwitcher({ workspaces, currentId }: { workspaces: Sessi
       options={workspaces.map((w) => ({ value: w.id, label: w.name }))}
       onValueChange={(id) => {
         const prefix = `/w/${encodeURIComponent(current.id)}`;
-        const rest = location.pathname.startsWith(prefix) ? location.pathname.slice(prefix.length) : '';
+        const rest = location.pathname.startsWith(prefix)
+          ? location.pathname.slice(prefix.length)
+          : '';
         // Remembered now, not in the next page's effect: "/" opened right after
         // the switch must already find the new choice.
         rememberWorkspace(id);

@@ -11,6 +11,7 @@ export const useCreateCompound = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: CompoundCreateInput) => createCompound(workspaceId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
   });
 };

@@ -10,6 +10,7 @@ export const useDeleteCompound = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (compoundId: string) => deleteCompound(workspaceId, compoundId),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
   });
 };

@@ -7,6 +7,10 @@ export const getCompounds = (workspaceId: string, signal?: AbortSignal) =>
   apiRequest(api.compounds(workspaceId), { schema: compoundListSchema, signal });
 
 export const getCompoundsQueryOptions = (workspaceId: string) =>
-  queryOptions({ queryKey: ['workspaces', workspaceId, 'compounds'], queryFn: ({ signal }) => getCompounds(workspaceId, signal) });
+  queryOptions({
+    queryKey: ['workspaces', workspaceId, 'compounds'],
+    queryFn: ({ signal }) => getCompounds(workspaceId, signal),
+  });
 
-export const useCompounds = (workspaceId: string) => useQuery(getCompoundsQueryOptions(workspaceId));
+export const useCompounds = (workspaceId: string) =>
+  useQuery(getCompoundsQueryOptions(workspaceId));

@@ -4,7 +4,12 @@ import { apiRequest, isApiError } from '@/api/client';
 import { api } from '@/paths';
 
 export const previewStructure = (input: StructurePreviewRequest, signal?: AbortSignal) =>
-  apiRequest(api.structurePreview, { method: 'POST', body: input, schema: structurePreviewSchema, signal });
+  apiRequest(api.structurePreview, {
+    method: 'POST',
+    body: input,
+    schema: structurePreviewSchema,
+    signal,
+  });
 
 export const previewStructureQueryOptions = (input: StructurePreviewRequest | null) =>
   queryOptions({
@@ -18,4 +23,5 @@ export const previewStructureQueryOptions = (input: StructurePreviewRequest | nu
   });
 
 /** The preview of what is typed; pass the debounced structure, or null when there is none. */
-export const useStructurePreview = (input: StructurePreviewRequest | null) => useQuery(previewStructureQueryOptions(input));
+export const useStructurePreview = (input: StructurePreviewRequest | null) =>
+  useQuery(previewStructureQueryOptions(input));

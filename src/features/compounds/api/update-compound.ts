@@ -4,13 +4,23 @@ import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 import { getCompoundsQueryOptions } from './get-compounds';
 
-export const updateCompound = (workspaceId: string, compoundId: string, input: CompoundUpdateInput) =>
-  apiRequest(api.compound(workspaceId, compoundId), { method: 'PATCH', body: input, schema: compoundSchema });
+export const updateCompound = (
+  workspaceId: string,
+  compoundId: string,
+  input: CompoundUpdateInput,
+) =>
+  apiRequest(api.compound(workspaceId, compoundId), {
+    method: 'PATCH',
+    body: input,
+    schema: compoundSchema,
+  });
 
 export const useUpdateCompound = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ compoundId, input }: { compoundId: string; input: CompoundUpdateInput }) => updateCompound(workspaceId, compoundId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
+    mutationFn: ({ compoundId, input }: { compoundId: string; input: CompoundUpdateInput }) =>
+      updateCompound(workspaceId, compoundId, input),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
   });
 };

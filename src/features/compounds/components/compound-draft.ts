@@ -22,7 +22,12 @@ export interface CompoundDraft {
   hansen: { d: string; p: string; h: string };
   /** Hand-edited groups; null = use the automatic assignment. */
   unifacGroups: UnifacGroupCounts | null;
-  solubility: Array<{ solventId: string; temperatureC: string; value: string; unit: 'g/L' | 'mg/mL' | 'mole-fraction' | 'wt%' }>;
+  solubility: Array<{
+    solventId: string;
+    temperatureC: string;
+    value: string;
+    unit: 'g/L' | 'mg/mL' | 'mole-fraction' | 'wt%';
+  }>;
   partition: Array<{ organicSolventId: string; pH: string; temperatureC: string; D: string }>;
   notes: string;
 }
@@ -59,16 +64,30 @@ export function draftFromCompound(c: Compound): CompoundDraft {
     logPMethod: c.logP?.source === 'measured' ? c.logP.method : '',
     meltingPointC: str(c.meltingPointC),
     enthalpyFusionKJmol: str(c.enthalpyFusionKJmol),
-    hansen: c.hansen?.source === 'entered' ? { d: String(c.hansen.d), p: String(c.hansen.p), h: String(c.hansen.h) } : { d: '', p: '', h: '' },
+    hansen:
+      c.hansen?.source === 'entered'
+        ? { d: String(c.hansen.d), p: String(c.hansen.p), h: String(c.hansen.h) }
+        : { d: '', p: '', h: '' },
     unifacGroups: c.unifac.source === 'edited' ? { ...c.unifac.groups } : null,
-    solubility: c.solubility.map((s) => ({ solventId: s.solventId, temperatureC: String(s.temperatureC), value: String(s.value), unit: s.unit })),
-    partition: c.partition.map((p) => ({ organicSolventId: p.organicSolventId, pH: str(p.pH), temperatureC: str(p.temperatureC), D: String(p.D) })),
+    solubility: c.solubility.map((s) => ({
+      solventId: s.solventId,
+      temperatureC: String(s.temperatureC),
+      value: String(s.value),
+      unit: s.unit,
+    })),
+    partition: c.partition.map((p) => ({
+      organicSolventId: p.organicSolventId,
+      pH: str(p.pH),
+      temperatureC: str(p.temperatureC),
+      D: String(p.D),
+    })),
     notes: c.notes,
   };
 }
 
 /** '' → null (not given); anything else → a number (NaN for text, which the schema refuses with a message). */
-const num = (s: string): number | null => (s.trim() === '' ? null : Number(s.trim().replace(',', '.')));
+const num = (s: string): number | null =>
+  s.trim() === '' ? null : Number(s.trim().replace(',', '.'));
 const optional = (s: string): number | undefined => num(s) ?? undefined;
 
 export function draftToInput(d: CompoundDraft): CompoundCreateInput {
@@ -80,12 +99,22 @@ export function draftToInput(d: CompoundDraft): CompoundCreateInput {
     molfile: d.structureKind === 'molfile' ? d.molfile : null,
     role: d.role,
     pKa: d.pKa.map((p) => ({ value: num(p.value) as number, type: p.type })),
-    logP: logP === null ? null : { value: logP, ...(d.logPMethod.trim() ? { method: d.logPMethod.trim() } : {}) },
+    logP:
+      logP === null
+        ? null
+        : { value: logP, ...(d.logPMethod.trim() ? { method: d.logPMethod.trim() } : {}) },
     meltingPointC: num(d.meltingPointC),
     enthalpyFusionKJmol: num(d.enthalpyFusionKJmol),
-    hansen: hansenGiven ? { d: num(d.hansen.d) as number, p: num(d.hansen.p) as number, h: num(d.hansen.h) as number } : null,
+    hansen: hansenGiven
+      ? { d: num(d.hansen.d) as number, p: num(d.hansen.p) as number, h: num(d.hansen.h) as number }
+      : null,
     unifacGroups: d.unifacGroups,
-    solubility: d.solubility.map((s) => ({ solventId: s.solventId, temperatureC: num(s.temperatureC) as number, value: num(s.value) as number, unit: s.unit })),
+    solubility: d.solubility.map((s) => ({
+      solventId: s.solventId,
+      temperatureC: num(s.temperatureC) as number,
+      value: num(s.value) as number,
+      unit: s.unit,
+    })),
     partition: d.partition.map((p) => ({
       organicSolventId: p.organicSolventId,
       pH: optional(p.pH),
@@ -97,7 +126,9 @@ export function draftToInput(d: CompoundDraft): CompoundCreateInput {
 }
 
 /** Checks the draft with the shared schema: the input to send, or the field errors by path. */
-export function checkDraft(d: CompoundDraft): { ok: true; input: CompoundCreateInput } | { ok: false; errors: FieldErrors } {
+export function checkDraft(
+  d: CompoundDraft,
+): { ok: true; input: CompoundCreateInput } | { ok: false; errors: FieldErrors } {
   const input = draftToInput(d);
   const result = compoundCreateSchema.safeParse(input);
   if (result.success) return { ok: true, input };

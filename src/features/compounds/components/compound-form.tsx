@@ -1,5 +1,11 @@
 import { useEffect, useId, useState } from 'react';
-import { COMPOUND_ROLE_LABELS, COMPOUND_ROLES, SOLUBILITY_UNITS, type Compound, type CompoundRole } from '@shared/schemas/compounds';
+import {
+  COMPOUND_ROLE_LABELS,
+  COMPOUND_ROLES,
+  SOLUBILITY_UNITS,
+  type Compound,
+  type CompoundRole,
+} from '@shared/schemas/compounds';
 import type { SolventSummary } from '@shared/schemas/solvents';
 import { isApiError } from '@/api/client';
 import { Button } from '@/components/button';
@@ -32,14 +38,36 @@ type Props = {
 };
 
 /** Add or edit a compound: structure with a live preview, then the chemist's own data in small tables. */
-export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onCancel, onDelete }: Props) {
-  const [draft, setDraft] = useState<CompoundDraft>(() => (compound ? draftFromCompound(compound) : emptyDraft()));
+export function CompoundForm({
+  compound,
+  solvents,
+  readOnly,
+  busy,
+  onSubmit,
+  onCancel,
+  onDelete,
+}: Props) {
+  const [draft, setDraft] = useState<CompoundDraft>(() =>
+    compound ? draftFromCompound(compound) : emptyDraft(),
+  );
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string>();
-  const set = <K extends keyof CompoundDraft>(key: K, value: CompoundDraft[K]) => setDraft((d) => ({ ...d, [key]: value }));
+  const set = <K extends keyof CompoundDraft>(key: K, value: CompoundDraft[K]) =>
+    setDraft((d) => ({ ...d, [key]: value }));
 
-  const structureText = (draft.structureKind === 'smiles' ? draft.smiles : draft.molfile).trim() ? (draft.structureKind === 'smiles' ? draft.smiles.trim() : draft.molfile) : '';
-  const debounced = useDebounced(structureText ? (draft.structureKind === 'smiles' ? { smiles: structureText } : { molfile: structureText }) : null, 400);
+  const structureText = (draft.structureKind === 'smiles' ? draft.smiles : draft.molfile).trim()
+    ? draft.structureKind === 'smiles'
+      ? draft.smiles.trim()
+      : draft.molfile
+    : '';
+  const debounced = useDebounced(
+    structureText
+      ? draft.structureKind === 'smiles'
+        ? { smiles: structureText }
+        : { molfile: structureText }
+      : null,
+    400,
+  );
   const preview = useStructurePreview(debounced);
   const structureError = isApiError(preview.error, 422) ? preview.error.message : undefined;
 
@@ -60,20 +88,40 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
         const fields = error.fieldErrors();
         setErrors(fields);
         setFormError(error.message);
-      } else setFormError(error instanceof Error ? error.message : 'Something went wrong. Try again.');
+      } else
+        setFormError(error instanceof Error ? error.message : 'Something went wrong. Try again.');
     }
   };
 
-  const solventOptions = [{ value: '', label: 'Choose a solvent…' }, ...solvents.map((s) => ({ value: s.id, label: s.name }))];
-  const partitionSolvents = [{ value: '', label: 'Choose a solvent…' }, ...solvents.filter((s) => s.waterMiscibility === 'partial' && s.id !== 'water').map((s) => ({ value: s.id, label: s.name }))];
+  const solventOptions = [
+    { value: '', label: 'Choose a solvent…' },
+    ...solvents.map((s) => ({ value: s.id, label: s.name })),
+  ];
+  const partitionSolvents = [
+    { value: '', label: 'Choose a solvent…' },
+    ...solvents
+      .filter((s) => s.waterMiscibility === 'partial' && s.id !== 'water')
+      .map((s) => ({ value: s.id, label: s.name })),
+  ];
 
   return (
-    <form noValidate onSubmit={submit} aria-label={compound ? `Compound ${compound.name}` : 'Add a compound'} className="space-y-5">
+    <form
+      noValidate
+      onSubmit={submit}
+      aria-label={compound ? `Compound ${compound.name}` : 'Add a compound'}
+      className="space-y-5"
+    >
       {formError ? <FormMessage tone="error">{formError}</FormMessage> : null}
       <fieldset disabled={readOnly} className="grid grid-cols-[minmax(0,1fr)_20rem] gap-6">
         <div className="space-y-4">
           <div className="grid grid-cols-[minmax(0,1fr)_11rem] gap-3">
-            <TextField label="Name" value={draft.name} onValueChange={(v) => set('name', v)} error={errors.name} autoComplete="off" />
+            <TextField
+              label="Name"
+              value={draft.name}
+              onValueChange={(v) => set('name', v)}
+              error={errors.name}
+              autoComplete="off"
+            />
             <Select
               label="Role"
               value={draft.role}
@@ -82,10 +130,20 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
             />
           </div>
           <div className="space-y-1.5">
-            <div role="radiogroup" aria-label="Structure given as" className="flex gap-4 text-small">
+            <div
+              role="radiogroup"
+              aria-label="Structure given as"
+              className="flex gap-4 text-small"
+            >
               {(['smiles', 'molfile'] as const).map((kind) => (
                 <label key={kind} className="flex items-center gap-1.5">
-                  <input type="radio" name="structure-kind" checked={draft.structureKind === kind} onChange={() => set('structureKind', kind)} className="accent-accent" />
+                  <input
+                    type="radio"
+                    name="structure-kind"
+                    checked={draft.structureKind === kind}
+                    onChange={() => set('structureKind', kind)}
+                    className="accent-accent"
+                  />
                   {kind === 'smiles' ? 'SMILES' : 'Paste a molfile'}
                 </label>
               ))}
@@ -101,13 +159,31 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
                 autoComplete="off"
               />
             ) : (
-              <TextArea label="Molfile (V2000 or V3000)" value={draft.molfile} onValueChange={(v) => set('molfile', v)} error={errors.molfile ?? errors.smiles ?? structureError} rows={6} />
+              <TextArea
+                label="Molfile (V2000 or V3000)"
+                value={draft.molfile}
+                onValueChange={(v) => set('molfile', v)}
+                error={errors.molfile ?? errors.smiles ?? structureError}
+                rows={6}
+              />
             )}
           </div>
 
           <div className="grid grid-cols-3 gap-3">
-            <TextField label="Melting point (°C)" inputMode="decimal" value={draft.meltingPointC} onValueChange={(v) => set('meltingPointC', v)} error={errors.meltingPointC} />
-            <TextField label="ΔHfus (kJ/mol)" inputMode="decimal" value={draft.enthalpyFusionKJmol} onValueChange={(v) => set('enthalpyFusionKJmol', v)} error={errors.enthalpyFusionKJmol} />
+            <TextField
+              label="Melting point (°C)"
+              inputMode="decimal"
+              value={draft.meltingPointC}
+              onValueChange={(v) => set('meltingPointC', v)}
+              error={errors.meltingPointC}
+            />
+            <TextField
+              label="ΔHfus (kJ/mol)"
+              inputMode="decimal"
+              value={draft.enthalpyFusionKJmol}
+              onValueChange={(v) => set('enthalpyFusionKJmol', v)}
+              error={errors.enthalpyFusionKJmol}
+            />
             <TextField
               label="Measured logP"
               inputMode="decimal"
@@ -137,17 +213,41 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
             addLabel="Add a pKa"
             rows={draft.pKa}
             onAdd={() => set('pKa', [...draft.pKa, { value: '', type: 'acid' }])}
-            onRemove={(i) => set('pKa', draft.pKa.filter((_, j) => j !== i))}
+            onRemove={(i) =>
+              set(
+                'pKa',
+                draft.pKa.filter((_, j) => j !== i),
+              )
+            }
             headers={['pKa', 'Type']}
             error={errors.pKa}
             renderRow={(row, i) => [
-              <CellInput key="v" label={`pKa ${i + 1}`} value={row.value} error={errors[`pKa.${i}.value`]} onChange={(v) => set('pKa', draft.pKa.map((p, j) => (j === i ? { ...p, value: v } : p)))} />,
+              <CellInput
+                key="v"
+                label={`pKa ${i + 1}`}
+                value={row.value}
+                error={errors[`pKa.${i}.value`]}
+                onChange={(v) =>
+                  set(
+                    'pKa',
+                    draft.pKa.map((p, j) => (j === i ? { ...p, value: v } : p)),
+                  )
+                }
+              />,
               <CellSelect
                 key="t"
                 label={`Type of pKa ${i + 1}`}
                 value={row.type}
-                options={[{ value: 'acid', label: 'Acid' }, { value: 'base', label: 'Base' }]}
-                onChange={(v) => set('pKa', draft.pKa.map((p, j) => (j === i ? { ...p, type: v as 'acid' | 'base' } : p)))}
+                options={[
+                  { value: 'acid', label: 'Acid' },
+                  { value: 'base', label: 'Base' },
+                ]}
+                onChange={(v) =>
+                  set(
+                    'pKa',
+                    draft.pKa.map((p, j) => (j === i ? { ...p, type: v as 'acid' | 'base' } : p)),
+                  )
+                }
               />,
             ]}
           />
@@ -156,16 +256,55 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
             title="Measured solubility"
             addLabel="Add a solubility point"
             rows={draft.solubility}
-            onAdd={() => set('solubility', [...draft.solubility, { solventId: '', temperatureC: '20', value: '', unit: 'g/L' }])}
-            onRemove={(i) => set('solubility', draft.solubility.filter((_, j) => j !== i))}
+            onAdd={() =>
+              set('solubility', [
+                ...draft.solubility,
+                { solventId: '', temperatureC: '20', value: '', unit: 'g/L' },
+              ])
+            }
+            onRemove={(i) =>
+              set(
+                'solubility',
+                draft.solubility.filter((_, j) => j !== i),
+              )
+            }
             headers={['Solvent', 'T (°C)', 'Value', 'Unit']}
             renderRow={(row, i) => {
-              const put = (patch: Partial<typeof row>) => set('solubility', draft.solubility.map((p, j) => (j === i ? { ...p, ...patch } : p)));
+              const put = (patch: Partial<typeof row>) =>
+                set(
+                  'solubility',
+                  draft.solubility.map((p, j) => (j === i ? { ...p, ...patch } : p)),
+                );
               return [
-                <CellSelect key="s" label={`Solvent of point ${i + 1}`} value={row.solventId} options={solventOptions} error={errors[`solubility.${i}.solventId`]} onChange={(v) => put({ solventId: v })} />,
-                <CellInput key="t" label={`Temperature of point ${i + 1}`} value={row.temperatureC} error={errors[`solubility.${i}.temperatureC`]} onChange={(v) => put({ temperatureC: v })} />,
-                <CellInput key="v" label={`Solubility of point ${i + 1}`} value={row.value} error={errors[`solubility.${i}.value`]} onChange={(v) => put({ value: v })} />,
-                <CellSelect key="u" label={`Unit of point ${i + 1}`} value={row.unit} options={SOLUBILITY_UNITS.map((u) => ({ value: u, label: u }))} onChange={(v) => put({ unit: v as typeof row.unit })} />,
+                <CellSelect
+                  key="s"
+                  label={`Solvent of point ${i + 1}`}
+                  value={row.solventId}
+                  options={solventOptions}
+                  error={errors[`solubility.${i}.solventId`]}
+                  onChange={(v) => put({ solventId: v })}
+                />,
+                <CellInput
+                  key="t"
+                  label={`Temperature of point ${i + 1}`}
+                  value={row.temperatureC}
+                  error={errors[`solubility.${i}.temperatureC`]}
+                  onChange={(v) => put({ temperatureC: v })}
+                />,
+                <CellInput
+                  key="v"
+                  label={`Solubility of point ${i + 1}`}
+                  value={row.value}
+                  error={errors[`solubility.${i}.value`]}
+                  onChange={(v) => put({ value: v })}
+                />,
+                <CellSelect
+                  key="u"
+                  label={`Unit of point ${i + 1}`}
+                  value={row.unit}
+                  options={SOLUBILITY_UNITS.map((u) => ({ value: u, label: u }))}
+                  onChange={(v) => put({ unit: v as typeof row.unit })}
+                />,
               ];
             }}
           />
@@ -174,20 +313,65 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
             title="Measured partition (D = c organic / c aqueous)"
             addLabel="Add a partition point"
             rows={draft.partition}
-            onAdd={() => set('partition', [...draft.partition, { organicSolventId: '', pH: '', temperatureC: '20', D: '' }])}
-            onRemove={(i) => set('partition', draft.partition.filter((_, j) => j !== i))}
+            onAdd={() =>
+              set('partition', [
+                ...draft.partition,
+                { organicSolventId: '', pH: '', temperatureC: '20', D: '' },
+              ])
+            }
+            onRemove={(i) =>
+              set(
+                'partition',
+                draft.partition.filter((_, j) => j !== i),
+              )
+            }
             headers={['Organic solvent', 'pH', 'T (°C)', 'D']}
             renderRow={(row, i) => {
-              const put = (patch: Partial<typeof row>) => set('partition', draft.partition.map((p, j) => (j === i ? { ...p, ...patch } : p)));
+              const put = (patch: Partial<typeof row>) =>
+                set(
+                  'partition',
+                  draft.partition.map((p, j) => (j === i ? { ...p, ...patch } : p)),
+                );
               return [
-                <CellSelect key="s" label={`Organic solvent of partition ${i + 1}`} value={row.organicSolventId} options={partitionSolvents} error={errors[`partition.${i}.organicSolventId`]} onChange={(v) => put({ organicSolventId: v })} />,
-                <CellInput key="p" label={`pH of partition ${i + 1}`} value={row.pH} error={errors[`partition.${i}.pH`]} onChange={(v) => put({ pH: v })} />,
-                <CellInput key="t" label={`Temperature of partition ${i + 1}`} value={row.temperatureC} error={errors[`partition.${i}.temperatureC`]} onChange={(v) => put({ temperatureC: v })} />,
-                <CellInput key="d" label={`D of partition ${i + 1}`} value={row.D} error={errors[`partition.${i}.D`]} onChange={(v) => put({ D: v })} />,
+                <CellSelect
+                  key="s"
+                  label={`Organic solvent of partition ${i + 1}`}
+                  value={row.organicSolventId}
+                  options={partitionSolvents}
+                  error={errors[`partition.${i}.organicSolventId`]}
+                  onChange={(v) => put({ organicSolventId: v })}
+                />,
+                <CellInput
+                  key="p"
+                  label={`pH of partition ${i + 1}`}
+                  value={row.pH}
+                  error={errors[`partition.${i}.pH`]}
+                  onChange={(v) => put({ pH: v })}
+                />,
+                <CellInput
+                  key="t"
+                  label={`Temperature of partition ${i + 1}`}
+                  value={row.temperatureC}
+                  error={errors[`partition.${i}.temperatureC`]}
+                  onChange={(v) => put({ temperatureC: v })}
+                />,
+                <CellInput
+                  key="d"
+                  label={`D of partition ${i + 1}`}
+                  value={row.D}
+                  error={errors[`partition.${i}.D`]}
+                  onChange={(v) => put({ D: v })}
+                />,
               ];
             }}
           />
-          <TextArea label="Notes" value={draft.notes} onValueChange={(v) => set('notes', v)} error={errors.notes} rows={2} />
+          <TextArea
+            label="Notes"
+            value={draft.notes}
+            onValueChange={(v) => set('notes', v)}
+            error={errors.notes}
+            rows={2}
+          />
         </div>
         <StructurePanel
           hasInput={structureText !== ''}
@@ -219,7 +403,19 @@ export function CompoundForm({ compound, solvents, readOnly, busy, onSubmit, onC
   );
 }
 
-function TextArea({ label, value, onValueChange, error, rows }: { label: string; value: string; onValueChange: (v: string) => void; error?: string; rows: number }) {
+function TextArea({
+  label,
+  value,
+  onValueChange,
+  error,
+  rows,
+}: {
+  label: string;
+  value: string;
+  onValueChange: (v: string) => void;
+  error?: string;
+  rows: number;
+}) {
   const id = useId();
   return (
     <div className="space-y-1">
@@ -234,14 +430,28 @@ function TextArea({ label, value, onValueChange, error, rows }: { label: string;
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : undefined}
         spellCheck={false}
-        className={cn(inputClass, 'h-auto py-1.5 font-mono text-small', error ? 'border-caution-hazard' : 'border-rule-strong')}
+        className={cn(
+          inputClass,
+          'h-auto py-1.5 font-mono text-small',
+          error ? 'border-caution-hazard' : 'border-rule-strong',
+        )}
       />
       {error ? <FieldError id={`${id}-error`}>{error}</FieldError> : null}
     </div>
   );
 }
 
-function RowTable<R>({ title, hint, addLabel, rows, onAdd, onRemove, headers, renderRow, error }: {
+function RowTable<R>({
+  title,
+  hint,
+  addLabel,
+  rows,
+  onAdd,
+  onRemove,
+  headers,
+  renderRow,
+  error,
+}: {
   title: string;
   hint?: string;
   addLabel: string;
@@ -261,7 +471,11 @@ function RowTable<R>({ title, hint, addLabel, rows, onAdd, onRemove, headers, re
           <thead>
             <tr>
               {headers.map((h) => (
-                <th key={h} scope="col" className="pb-1 text-left text-caption font-medium text-ink-muted uppercase">
+                <th
+                  key={h}
+                  scope="col"
+                  className="pb-1 text-left text-caption font-medium text-ink-muted uppercase"
+                >
                   {h}
                 </th>
               ))}
@@ -279,7 +493,12 @@ function RowTable<R>({ title, hint, addLabel, rows, onAdd, onRemove, headers, re
                   </td>
                 ))}
                 <td className="pb-1.5 text-right">
-                  <Button variant="quiet" size="sm" onClick={() => onRemove(i)} aria-label={`Remove row ${i + 1} of ${title}`}>
+                  <Button
+                    variant="quiet"
+                    size="sm"
+                    onClick={() => onRemove(i)}
+                    aria-label={`Remove row ${i + 1} of ${title}`}
+                  >
                     Remove
                   </Button>
                 </td>
@@ -296,7 +515,17 @@ function RowTable<R>({ title, hint, addLabel, rows, onAdd, onRemove, headers, re
   );
 }
 
-function CellInput({ label, value, onChange, error }: { label: string; value: string; onChange: (v: string) => void; error?: string }) {
+function CellInput({
+  label,
+  value,
+  onChange,
+  error,
+}: {
+  label: string;
+  value: string;
+  onChange: (v: string) => void;
+  error?: string;
+}) {
   return (
     <div>
       <input
@@ -312,7 +541,19 @@ function CellInput({ label, value, onChange, error }: { label: string; value: st
   );
 }
 
-function CellSelect({ label, value, options, onChange, error }: { label: string; value: string; options: Array<{ value: string; label: string }>; onChange: (v: string) => void; error?: string }) {
+function CellSelect({
+  label,
+  value,
+  options,
+  onChange,
+  error,
+}: {
+  label: string;
+  value: string;
+  options: Array<{ value: string; label: string }>;
+  onChange: (v: string) => void;
+  error?: string;
+}) {
   return (
     <div>
       <Select label={label} hideLabel value={value} options={options} onValueChange={onChange} />

@@ -1,5 +1,10 @@
 import { useMemo, useState } from 'react';
-import { COMPOUND_ROLE_LABELS, COMPOUND_ROLES, type Compound, type CompoundRole } from '@shared/schemas/compounds';
+import {
+  COMPOUND_ROLE_LABELS,
+  COMPOUND_ROLES,
+  type Compound,
+  type CompoundRole,
+} from '@shared/schemas/compounds';
 import { Button } from '@/components/button';
 import { Select } from '@/components/select';
 import { Table, Td } from '@/components/table';
@@ -10,9 +15,18 @@ import { StructureImage } from './structure-image';
 type Column = 'name' | 'role' | 'formula' | 'molarMassGmol' | 'logP';
 
 const value = (c: Compound, column: Column) =>
-  column === 'logP' ? (c.logP?.value ?? null) : column === 'role' ? COMPOUND_ROLE_LABELS[c.role] : c[column];
+  column === 'logP'
+    ? (c.logP?.value ?? null)
+    : column === 'role'
+      ? COMPOUND_ROLE_LABELS[c.role]
+      : c[column];
 
-export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
+export function CompoundTable({
+  compounds,
+  onOpen,
+  canWrite,
+  selectedId,
+}: {
   compounds: Compound[];
   onOpen: (compound: Compound) => void;
   canWrite: boolean;
@@ -25,7 +39,9 @@ export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
   const rows = useMemo(() => {
     const q = query.trim().toLowerCase();
     const filtered = compounds.filter(
-      (c) => (role === 'all' || c.role === role) && (!q || c.name.toLowerCase().includes(q) || c.formula.toLowerCase().includes(q)),
+      (c) =>
+        (role === 'all' || c.role === role) &&
+        (!q || c.name.toLowerCase().includes(q) || c.formula.toLowerCase().includes(q)),
     );
     const sign = sort.dir === 'asc' ? 1 : -1;
     return filtered.sort((a, b) => sign * compareValues(value(a, sort.key), value(b, sort.key)));
@@ -34,12 +50,21 @@ export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
-        <TextField label="Filter by name or formula" value={query} onValueChange={setQuery} className="w-64" type="search" />
+        <TextField
+          label="Filter by name or formula"
+          value={query}
+          onValueChange={setQuery}
+          className="w-64"
+          type="search"
+        />
         <Select
           label="Role"
           value={role}
           onValueChange={(v) => setRole(v as CompoundRole | 'all')}
-          options={[{ value: 'all', label: 'All roles' }, ...COMPOUND_ROLES.map((r) => ({ value: r, label: COMPOUND_ROLE_LABELS[r] }))]}
+          options={[
+            { value: 'all', label: 'All roles' },
+            ...COMPOUND_ROLES.map((r) => ({ value: r, label: COMPOUND_ROLE_LABELS[r] })),
+          ]}
           className="w-44"
         />
         <p className="pb-2 text-small text-ink-muted" aria-live="polite">
@@ -49,14 +74,30 @@ export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
       <Table caption="Compounds of this workspace">
         <thead>
           <tr>
-            <th scope="col" className="w-24 border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted">
+            <th
+              scope="col"
+              className="w-24 border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted"
+            >
               Structure
             </th>
             <SortableTh label="Name" column="name" sort={sort} onSort={setSort} />
             <SortableTh label="Role" column="role" sort={sort} onSort={setSort} />
             <SortableTh label="Formula" column="formula" sort={sort} onSort={setSort} />
-            <SortableTh label="M" unit="g/mol" column="molarMassGmol" sort={sort} onSort={setSort} className="text-right" />
-            <SortableTh label="logP" column="logP" sort={sort} onSort={setSort} className="text-right" />
+            <SortableTh
+              label="M"
+              unit="g/mol"
+              column="molarMassGmol"
+              sort={sort}
+              onSort={setSort}
+              className="text-right"
+            />
+            <SortableTh
+              label="logP"
+              column="logP"
+              sort={sort}
+              onSort={setSort}
+              className="text-right"
+            />
             <th scope="col" className="border-b border-rule bg-paper-sunken px-3 py-2">
               <span className="sr-only">Actions</span>
             </th>
@@ -73,11 +114,18 @@ export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
             rows.map((c) => (
               <tr key={c.id} className={c.id === selectedId ? 'bg-accent-soft' : undefined}>
                 <Td className="py-1">
-                  <StructureImage svg={c.svg} alt={`Structure of ${c.name}`} className="h-14 w-20 rounded-control object-contain" />
+                  <StructureImage
+                    svg={c.svg}
+                    alt={`Structure of ${c.name}`}
+                    className="h-14 w-20 rounded-control object-contain"
+                  />
                 </Td>
                 <Td>
                   <span className="font-medium text-ink">{c.name}</span>
-                  <span className="block max-w-72 truncate text-caption text-ink-muted" title={c.smiles ?? c.canonicalSmiles}>
+                  <span
+                    className="block max-w-72 truncate text-caption text-ink-muted"
+                    title={c.smiles ?? c.canonicalSmiles}
+                  >
                     {c.smiles ?? c.canonicalSmiles}
                   </span>
                 </Td>
@@ -99,7 +147,12 @@ export function CompoundTable({ compounds, onOpen, canWrite, selectedId }: {
                   )}
                 </Td>
                 <Td className="text-right">
-                  <Button variant="quiet" size="sm" onClick={() => onOpen(c)} aria-label={`${canWrite ? 'Edit' : 'View'} ${c.name}`}>
+                  <Button
+                    variant="quiet"
+                    size="sm"
+                    onClick={() => onOpen(c)}
+                    aria-label={`${canWrite ? 'Edit' : 'View'} ${c.name}`}
+                  >
                     {canWrite ? 'Edit' : 'View'}
                   </Button>
                 </Td>
@@ -120,5 +173,11 @@ const ROLE_TONE: Record<CompoundRole, string> = {
 };
 
 export function RoleChip({ role }: { role: CompoundRole }) {
-  return <span className={`inline-block rounded-control px-1.5 py-0.5 text-caption font-medium ${ROLE_TONE[role]}`}>{COMPOUND_ROLE_LABELS[role]}</span>;
+  return (
+    <span
+      className={`inline-block rounded-control px-1.5 py-0.5 text-caption font-medium ${ROLE_TONE[role]}`}
+    >
+      {COMPOUND_ROLE_LABELS[role]}
+    </span>
+  );
 }

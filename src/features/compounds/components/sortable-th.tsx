@@ -3,7 +3,14 @@ import { Th } from '@/components/table';
 export type SortState<K extends string> = { key: K; dir: 'asc' | 'desc' };
 
 /** A column header that sorts the table; says its state to assistive technology. */
-export function SortableTh<K extends string>({ label, unit, column, sort, onSort, className }: {
+export function SortableTh<K extends string>({
+  label,
+  unit,
+  column,
+  sort,
+  onSort,
+  className,
+}: {
   label: string;
   /** Shown as written (units are case-sensitive). */
   unit?: string;
@@ -14,7 +21,10 @@ export function SortableTh<K extends string>({ label, unit, column, sort, onSort
 }) {
   const active = sort.key === column;
   return (
-    <Th aria-sort={active ? (sort.dir === 'asc' ? 'ascending' : 'descending') : 'none'} className={className}>
+    <Th
+      aria-sort={active ? (sort.dir === 'asc' ? 'ascending' : 'descending') : 'none'}
+      className={className}
+    >
       <button
         type="button"
         className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink focus-visible:outline-2 focus-visible:outline-accent"

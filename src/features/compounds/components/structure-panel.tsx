@@ -20,11 +20,21 @@ type Props = {
 };
 
 /** The structure as the server reads it: drawing, formula, groups and estimates, updated as the chemist types. */
-export function StructurePanel({ hasInput, preview, error, loading, groups, onGroupsChange, readOnly, measured }: Props) {
+export function StructurePanel({
+  hasInput,
+  preview,
+  error,
+  loading,
+  groups,
+  onGroupsChange,
+  readOnly,
+  measured,
+}: Props) {
   if (!hasInput) {
     return (
       <div className="flex h-full min-h-48 items-center justify-center rounded-card border border-dashed border-rule-strong px-4 text-center text-body text-ink-muted">
-        Type a SMILES (or paste a molfile) and the structure, its formula and its UNIFAC groups appear here.
+        Type a SMILES (or paste a molfile) and the structure, its formula and its UNIFAC groups
+        appear here.
       </div>
     );
   }
@@ -32,24 +42,36 @@ export function StructurePanel({ hasInput, preview, error, loading, groups, onGr
   return (
     <section aria-label="Structure preview" aria-busy={loading || undefined} className="space-y-3">
       {unreadable ? (
-        <div role="alert" className="rounded-card border border-caution-hazard/40 bg-caution-hazard-soft px-3 py-2">
+        <div
+          role="alert"
+          className="rounded-card border border-caution-hazard/40 bg-caution-hazard-soft px-3 py-2"
+        >
           <p className="font-medium text-caution-hazard-deep">This structure cannot be read</p>
           <p className="mt-0.5 text-body text-ink">{(error as Error).message}</p>
         </div>
       ) : error ? (
-        <div role="alert" className="rounded-card border border-caution-hazard/40 bg-caution-hazard-soft px-3 py-2 text-body">
+        <div
+          role="alert"
+          className="rounded-card border border-caution-hazard/40 bg-caution-hazard-soft px-3 py-2 text-body"
+        >
           The preview could not be loaded: {(error as Error).message}
         </div>
       ) : null}
       {preview && !unreadable ? (
         <>
           <div className="relative rounded-card border border-rule bg-paper-raised">
-            <StructureImage svg={preview.svg} alt={`Structure drawing, ${preview.formula}`} className="mx-auto h-44 w-60 object-contain" />
+            <StructureImage
+              svg={preview.svg}
+              alt={`Structure drawing, ${preview.formula}`}
+              className="mx-auto h-44 w-60 object-contain"
+            />
             {loading ? <Spinner size="sm" className="absolute top-2 right-2 text-accent" /> : null}
           </div>
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-body">
             <dt className="text-ink-muted">Formula</dt>
-            <dd data-testid="preview-formula" className="font-medium">{preview.formula}</dd>
+            <dd data-testid="preview-formula" className="font-medium">
+              {preview.formula}
+            </dd>
             <dt className="text-ink-muted">Molar mass</dt>
             <dd className="tabular-nums">{preview.molarMassGmol.toFixed(2)} g/mol</dd>
             <dt className="text-ink-muted">Canonical SMILES</dt>
@@ -60,7 +82,12 @@ export function StructurePanel({ hasInput, preview, error, loading, groups, onGr
               This is a library solvent ({preview.librarySolventId}); routes use its curated data.
             </p>
           ) : null}
-          <GroupEditor preview={preview} groups={groups} onChange={onGroupsChange} readOnly={readOnly} />
+          <GroupEditor
+            preview={preview}
+            groups={groups}
+            onChange={onGroupsChange}
+            readOnly={readOnly}
+          />
           <Estimates preview={preview} measured={measured} />
         </>
       ) : !unreadable && loading ? (
@@ -72,7 +99,17 @@ export function StructurePanel({ hasInput, preview, error, loading, groups, onGr
   );
 }
 
-function GroupEditor({ preview, groups, onChange, readOnly }: { preview: StructurePreview; groups: UnifacGroupCounts | null; onChange: (g: UnifacGroupCounts | null) => void; readOnly?: boolean }) {
+function GroupEditor({
+  preview,
+  groups,
+  onChange,
+  readOnly,
+}: {
+  preview: StructurePreview;
+  groups: UnifacGroupCounts | null;
+  onChange: (g: UnifacGroupCounts | null) => void;
+  readOnly?: boolean;
+}) {
   const [newSubgroup, setNewSubgroup] = useState('');
   const shown = groups ?? preview.unifac.groups;
   const names = new Map(preview.unifac.summary.map((s) => [String(s.subgroup), s.name]));
@@ -86,7 +123,16 @@ function GroupEditor({ preview, groups, onChange, readOnly }: { preview: Structu
   return (
     <div className="space-y-2">
       <div className="flex items-baseline justify-between">
-        <h3 className="text-small font-medium text-ink">UNIFAC groups {groups ? <span className="text-caption font-normal text-caution-advisory-deep">(edited)</span> : <span className="text-caption font-normal text-ink-muted">(assigned from the structure)</span>}</h3>
+        <h3 className="text-small font-medium text-ink">
+          UNIFAC groups{' '}
+          {groups ? (
+            <span className="text-caption font-normal text-caution-advisory-deep">(edited)</span>
+          ) : (
+            <span className="text-caption font-normal text-ink-muted">
+              (assigned from the structure)
+            </span>
+          )}
+        </h3>
         {groups && !readOnly ? (
           <Button variant="quiet" size="sm" onClick={() => onChange(null)}>
             Use the automatic groups
@@ -99,9 +145,15 @@ function GroupEditor({ preview, groups, onChange, readOnly }: { preview: Structu
         <table className="w-full text-body" aria-label="UNIFAC groups">
           <thead>
             <tr className="text-caption text-ink-muted uppercase">
-              <th scope="col" className="py-1 text-left font-medium">Subgroup</th>
-              <th scope="col" className="py-1 text-left font-medium">No.</th>
-              <th scope="col" className="py-1 text-right font-medium">Count</th>
+              <th scope="col" className="py-1 text-left font-medium">
+                Subgroup
+              </th>
+              <th scope="col" className="py-1 text-left font-medium">
+                No.
+              </th>
+              <th scope="col" className="py-1 text-right font-medium">
+                Count
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -164,14 +216,22 @@ function GroupEditor({ preview, groups, onChange, readOnly }: { preview: Structu
               </li>
             ))}
           </ul>
-          <p className="mt-1">Activity coefficients need every atom in a group: edit the counts above.</p>
+          <p className="mt-1">
+            Activity coefficients need every atom in a group: edit the counts above.
+          </p>
         </div>
       ) : null}
     </div>
   );
 }
 
-function Estimates({ preview, measured }: { preview: StructurePreview; measured: { logP: boolean; hansen: boolean } }) {
+function Estimates({
+  preview,
+  measured,
+}: {
+  preview: StructurePreview;
+  measured: { logP: boolean; hansen: boolean };
+}) {
   const { logP, hansen, notes } = preview.estimates;
   return (
     <div className="space-y-1.5">
@@ -184,7 +244,12 @@ function Estimates({ preview, measured }: { preview: StructurePreview; measured:
               <>
                 <span className="font-medium tabular-nums">{logP.value.toFixed(2)}</span>{' '}
                 <EstimateBadge />
-                {measured.logP ? <span className="text-caption text-ink-muted"> — your measured value is used instead</span> : null}
+                {measured.logP ? (
+                  <span className="text-caption text-ink-muted">
+                    {' '}
+                    — your measured value is used instead
+                  </span>
+                ) : null}
                 <p className="text-caption text-ink-muted">{logP.method}</p>
               </>
             ) : (
@@ -201,7 +266,12 @@ function Estimates({ preview, measured }: { preview: StructurePreview; measured:
                   {hansen.d.toFixed(1)} / {hansen.p.toFixed(1)} / {hansen.h.toFixed(1)}
                 </span>{' '}
                 MPa½ <EstimateBadge />
-                {measured.hansen ? <span className="text-caption text-ink-muted"> — your entered values are used instead</span> : null}
+                {measured.hansen ? (
+                  <span className="text-caption text-ink-muted">
+                    {' '}
+                    — your entered values are used instead
+                  </span>
+                ) : null}
                 <p className="text-caption text-ink-muted">{hansen.method}</p>
               </>
             ) : (
@@ -222,5 +292,9 @@ function Estimates({ preview, measured }: { preview: StructurePreview; measured:
 }
 
 export function EstimateBadge() {
-  return <span className="rounded-control bg-caution-advisory-soft px-1 py-px text-caption font-medium text-caution-advisory-deep">estimate</span>;
+  return (
+    <span className="rounded-control bg-caution-advisory-soft px-1 py-px text-caption font-medium text-caution-advisory-deep">
+      estimate
+    </span>
+  );
 }

@@ -7,7 +7,11 @@ import type { EditorDoc } from '../document';
 /** Start a seeded Monte Carlo run of the document over its ± ranges: 202 with the job to poll. */
 export function startMonteCarlo(input: { doc: EditorDoc; draws: number; seed: number }) {
   const document = { ...input.doc, steps: input.doc.steps.map(({ position: _p, ...s }) => s) };
-  return apiRequest(routesApi.monteCarlo, { method: 'POST', body: { document, draws: input.draws, seed: input.seed }, schema: jobAcceptedSchema });
+  return apiRequest(routesApi.monteCarlo, {
+    method: 'POST',
+    body: { document, draws: input.draws, seed: input.seed },
+    schema: jobAcceptedSchema,
+  });
 }
 
 export const useStartMonteCarlo = () => useMutation({ mutationFn: startMonteCarlo });

@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import type { EChartsCoreOption } from 'echarts/core';
 
-type Echarts = typeof import('./echarts')['echarts'];
+type Echarts = (typeof import('./echarts'))['echarts'];
 let loading: Promise<Echarts> | null = null;
 const loadEcharts = () => (loading ??= import('./echarts').then((m) => m.echarts));
 
@@ -32,7 +32,11 @@ export const axisStyle = {
 export const baseOption = {
   animation: false,
   textStyle: { fontFamily: PLOT.font, color: PLOT.ink },
-  tooltip: { trigger: 'axis' as const, textStyle: { fontSize: 12, fontFamily: PLOT.font }, borderColor: PLOT.rule },
+  tooltip: {
+    trigger: 'axis' as const,
+    textStyle: { fontSize: 12, fontFamily: PLOT.font },
+    borderColor: PLOT.rule,
+  },
 };
 
 /**
@@ -40,7 +44,17 @@ export const baseOption = {
  * follows the element's size. `label` names the plot for screen readers; the
  * numbers it shows are also in a table or the stream table.
  */
-export function Chart({ option, label, height = 200, testId }: { option: EChartsCoreOption; label: string; height?: number; testId?: string }) {
+export function Chart({
+  option,
+  label,
+  height = 200,
+  testId,
+}: {
+  option: EChartsCoreOption;
+  label: string;
+  height?: number;
+  testId?: string;
+}) {
   const el = useRef<HTMLDivElement>(null);
   const chart = useRef<ReturnType<Echarts['init']> | null>(null);
   const [failed, setFailed] = useState(false);
@@ -71,6 +85,20 @@ export function Chart({ option, label, height = 200, testId }: { option: ECharts
     chart.current?.setOption(option, { notMerge: true });
   }, [option]);
 
-  if (failed) return <p className="text-small text-caution-hazard-deep">The plot could not be loaded; reload the page to try again.</p>;
-  return <div ref={el} role="img" aria-label={label} data-testid={testId} style={{ height }} className="w-full" />;
+  if (failed)
+    return (
+      <p className="text-small text-caution-hazard-deep">
+        The plot could not be loaded; reload the page to try again.
+      </p>
+    );
+  return (
+    <div
+      ref={el}
+      role="img"
+      aria-label={label}
+      data-testid={testId}
+      style={{ height }}
+      className="w-full"
+    />
+  );
 }

@@ -5,9 +5,23 @@
  */
 import * as echarts from 'echarts/core';
 import { BarChart, LineChart, SankeyChart } from 'echarts/charts';
-import { GridComponent, LegendComponent, MarkLineComponent, TooltipComponent } from 'echarts/components';
+import {
+  GridComponent,
+  LegendComponent,
+  MarkLineComponent,
+  TooltipComponent,
+} from 'echarts/components';
 import { SVGRenderer } from 'echarts/renderers';
 
-echarts.use([LineChart, BarChart, SankeyChart, GridComponent, LegendComponent, TooltipComponent, MarkLineComponent, SVGRenderer]);
+echarts.use([
+  LineChart,
+  BarChart,
+  SankeyChart,
+  GridComponent,
+  LegendComponent,
+  TooltipComponent,
+  MarkLineComponent,
+  SVGRenderer,
+]);
 
 export { echarts };

@@ -16,7 +16,15 @@ import {
 import { useShallow } from 'zustand/react/shallow';
 import { PORTS, type PortPhase, type StepKind } from '@shared/schemas/route';
 import { useEditorStore } from '@/stores/editor-store';
-import { checkConnection, handleId, keyOf, portOfHandle, portPhase, type ConnectionInput, type StepInput } from '../document';
+import {
+  checkConnection,
+  handleId,
+  keyOf,
+  portOfHandle,
+  portPhase,
+  type ConnectionInput,
+  type StepInput,
+} from '../document';
 import { StepNode, type StepNodeType } from './step-node';
 import { StreamEdge, type StreamEdgeData, type StreamEdgeType } from './stream-edge';
 import { PHASES } from './phase';
@@ -28,7 +36,12 @@ export const PALETTE_MIME = 'application/x-phasewright-step';
 
 export function Canvas() {
   const { steps, connections, components, selection } = useEditorStore(
-    useShallow((s) => ({ steps: s.doc.steps, connections: s.doc.connections, components: s.doc.components, selection: s.selection })),
+    useShallow((s) => ({
+      steps: s.doc.steps,
+      connections: s.doc.connections,
+      components: s.doc.components,
+      selection: s.selection,
+    })),
   );
   const actions = useEditorStore.getState();
   const readOnly = useEditorStore((s) => s.readOnly);
@@ -36,11 +49,16 @@ export function Canvas() {
 
   // A setting's edit changes one step: the other cards keep their node objects, so the canvas
   // library re-measures and re-renders only the changed card.
-  const nodeCache = useRef(new Map<string, { step: StepInput; selected: boolean; i: number; node: StepNodeType }>());
+  const nodeCache = useRef(
+    new Map<string, { step: StepInput; selected: boolean; i: number; node: StepNodeType }>(),
+  );
   const nodes = useMemo<StepNodeType[]>(() => {
     const sel = new Set(selection.steps);
     const cache = nodeCache.current;
-    const next = new Map<string, { step: StepInput; selected: boolean; i: number; node: StepNodeType }>();
+    const next = new Map<
+      string,
+      { step: StepInput; selected: boolean; i: number; node: StepNodeType }
+    >();
     const out = steps.map((step, i) => {
       const selected = sel.has(step.id);
       const hit = cache.get(step.id);
@@ -67,7 +85,11 @@ export function Canvas() {
 
   const names = useMemo(() => {
     const out: Record<string, { name: string; kind: string }> = {};
-    for (const c of components) out[keyOf(c)] = { name: c.kind === 'compound' ? c.name : c.kind === 'solvent' ? c.solventId : c.soluteId, kind: c.kind };
+    for (const c of components)
+      out[keyOf(c)] = {
+        name: c.kind === 'compound' ? c.name : c.kind === 'solvent' ? c.solventId : c.soluteId,
+        kind: c.kind,
+      };
     return out;
   }, [components]);
   const productId = useMemo(() => {
@@ -75,17 +97,45 @@ export function Canvas() {
     return p ? keyOf(p) : null;
   }, [components]);
 
-  const edgeCache = useRef(new Map<string, { c: ConnectionInput; selected: boolean; phase: PortPhase; data: StreamEdgeData; edge: StreamEdgeType }>());
+  const edgeCache = useRef(
+    new Map<
+      string,
+      {
+        c: ConnectionInput;
+        selected: boolean;
+        phase: PortPhase;
+        data: StreamEdgeData;
+        edge: StreamEdgeType;
+      }
+    >(),
+  );
   const edges = useMemo<StreamEdgeType[]>(() => {
     const sel = new Set(selection.connections);
     const kindOf = new Map(steps.map((s) => [s.id, s.kind]));
     const cache = edgeCache.current;
-    const next = new Map<string, { c: ConnectionInput; selected: boolean; phase: PortPhase; data: StreamEdgeData; edge: StreamEdgeType }>();
+    const next = new Map<
+      string,
+      {
+        c: ConnectionInput;
+        selected: boolean;
+        phase: PortPhase;
+        data: StreamEdgeData;
+        edge: StreamEdgeType;
+      }
+    >();
     const out = connections.map((c) => {
       const selected = sel.has(c.id);
-      const phase = portPhase(kindOf.get(c.from.stepId) ?? 'charge', 'out', c.from.port) ?? 'liquid';
+      const phase =
+        portPhase(kindOf.get(c.from.stepId) ?? 'charge', 'out', c.from.port) ?? 'liquid';
       const hit = cache.get(c.id);
-      if (hit && hit.c === c && hit.selected === selected && hit.phase === phase && hit.data.productId === productId && hit.data.names === names) {
+      if (
+        hit &&
+        hit.c === c &&
+        hit.selected === selected &&
+        hit.phase === phase &&
+        hit.data.productId === productId &&
+        hit.data.names === names
+      ) {
         next.set(c.id, hit);
         return hit.edge;
       }
@@ -113,7 +163,8 @@ export function Canvas() {
     let selChanged = false;
     const sel = new Set(useEditorStore.getState().selection.steps);
     for (const ch of changes) {
-      if (ch.type === 'position' && ch.position) positions[ch.id] = { x: Math.round(ch.position.x), y: Math.round(ch.position.y) };
+      if (ch.type === 'position' && ch.position)
+        positions[ch.id] = { x: Math.round(ch.position.x), y: Math.round(ch.position.y) };
       if (ch.type === 'select') {
         selChanged = true;
         if (ch.selected) sel.add(ch.id);
@@ -139,12 +190,21 @@ export function Canvas() {
 
   const isValidConnection = useCallback<IsValidConnection>((c) => {
     const doc = useEditorStore.getState().doc;
-    const r = checkConnection(doc, { stepId: c.source, port: portOfHandle(c.sourceHandle) }, { stepId: c.target, port: portOfHandle(c.targetHandle) });
+    const r = checkConnection(
+      doc,
+      { stepId: c.source, port: portOfHandle(c.sourceHandle) },
+      { stepId: c.target, port: portOfHandle(c.targetHandle) },
+    );
     return r.ok;
   }, []);
 
   const onConnect = useCallback((c: Connection) => {
-    useEditorStore.getState().connect({ stepId: c.source, port: portOfHandle(c.sourceHandle) }, { stepId: c.target, port: portOfHandle(c.targetHandle) });
+    useEditorStore
+      .getState()
+      .connect(
+        { stepId: c.source, port: portOfHandle(c.sourceHandle) },
+        { stepId: c.target, port: portOfHandle(c.targetHandle) },
+      );
   }, []);
 
   const onDrop = useCallback(
@@ -153,13 +213,24 @@ export function Canvas() {
       if (!kind || !(kind in PORTS)) return;
       e.preventDefault();
       const p = flow.screenToFlowPosition({ x: e.clientX, y: e.clientY });
-      useEditorStore.getState().addStep(kind, { x: Math.round(p.x - 120), y: Math.round(p.y - 30) });
+      useEditorStore
+        .getState()
+        .addStep(kind, { x: Math.round(p.x - 120), y: Math.round(p.y - 30) });
     },
     [flow],
   );
 
   return (
-    <div className="relative h-full w-full" onDragOver={(e) => { if (e.dataTransfer.types.includes(PALETTE_MIME)) { e.preventDefault(); e.dataTransfer.dropEffect = 'copy'; } }} onDrop={onDrop}>
+    <div
+      className="relative h-full w-full"
+      onDragOver={(e) => {
+        if (e.dataTransfer.types.includes(PALETTE_MIME)) {
+          e.preventDefault();
+          e.dataTransfer.dropEffect = 'copy';
+        }
+      }}
+      onDrop={onDrop}
+    >
       <ReactFlow<StepNodeType, StreamEdgeType>
         nodes={nodes}
         edges={edges}
@@ -185,7 +256,20 @@ export function Canvas() {
         aria-label="Route canvas"
       >
         <Background variant={BackgroundVariant.Dots} gap={20} size={1.2} color="#D9D5CB" />
-        <MiniMap pannable zoomable ariaLabel="Overview of the route" style={{ width: 150, height: 100 }} bgColor="#FFFFFF" nodeColor={miniMapFill} nodeStrokeColor={miniMapStroke} nodeStrokeWidth={4} nodeBorderRadius={6} maskColor="rgba(236,234,228,0.55)" maskStrokeColor="#3B4C86" maskStrokeWidth={2} />
+        <MiniMap
+          pannable
+          zoomable
+          ariaLabel="Overview of the route"
+          style={{ width: 150, height: 100 }}
+          bgColor="#FFFFFF"
+          nodeColor={miniMapFill}
+          nodeStrokeColor={miniMapStroke}
+          nodeStrokeWidth={4}
+          nodeBorderRadius={6}
+          maskColor="rgba(236,234,228,0.55)"
+          maskStrokeColor="#3B4C86"
+          maskStrokeWidth={2}
+        />
         <Controls showInteractive={false} aria-label="Zoom" />
       </ReactFlow>
       <Legend />
@@ -202,10 +286,23 @@ const miniMapStroke = (node: StepNodeType) => (node.selected ? '#3B4C86' : '#585
 
 function Legend() {
   return (
-    <div className="pointer-events-none absolute bottom-2 left-14 flex gap-3 rounded-control border border-rule bg-paper-raised/90 px-2 py-1 text-caption text-ink-muted" aria-label="Phase key">
+    <div
+      className="pointer-events-none absolute bottom-2 left-14 flex gap-3 rounded-control border border-rule bg-paper-raised/90 px-2 py-1 text-caption text-ink-muted"
+      aria-label="Phase key"
+    >
       {(Object.keys(PHASES) as Array<keyof typeof PHASES>).map((p) => (
         <span key={p} className="inline-flex items-center gap-1">
-          <svg width="22" height="6" aria-hidden="true"><line x1="0" y1="3" x2="22" y2="3" stroke={PHASES[p].stroke} strokeWidth="2" strokeDasharray={PHASES[p].dash} /></svg>
+          <svg width="22" height="6" aria-hidden="true">
+            <line
+              x1="0"
+              y1="3"
+              x2="22"
+              y2="3"
+              stroke={PHASES[p].stroke}
+              strokeWidth="2"
+              strokeDasharray={PHASES[p].dash}
+            />
+          </svg>
           {PHASES[p].label}
         </span>
       ))}

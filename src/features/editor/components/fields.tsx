@@ -3,22 +3,55 @@ import { SOLVENTS, AQUEOUS_SOLUTES } from '@shared/engine/data';
 import { compoundSnapshotSchema } from '@shared/schemas/route';
 import type { Compound } from '@shared/schemas/compounds';
 import { FieldError } from '@/components/text-field';
-import { formatQuantity, parseUncertain, parseUncertainVolume, parseVolume, PARSERS, type QuantityKind } from '@/lib/units';
+import {
+  formatQuantity,
+  parseUncertain,
+  parseUncertainVolume,
+  parseVolume,
+  PARSERS,
+  type QuantityKind,
+} from '@/lib/units';
 import { useEditorStore } from '@/stores/editor-store';
 import { keyOf, type ComponentInput } from '../document';
 
-const inputCls = 'nodrag nokey block h-8 w-full rounded-control border bg-paper-raised px-2 text-body text-ink focus-visible:outline-2 focus-visible:outline-accent';
+const inputCls =
+  'nodrag nokey block h-8 w-full rounded-control border bg-paper-raised px-2 text-body text-ink focus-visible:outline-2 focus-visible:outline-accent';
 
 /** A labelled row of the side panel; `common` marks a value taken from common practice. */
-export function Field({ label, htmlFor, hint, error, common, children }: { label: string; htmlFor: string; hint?: ReactNode; error?: string; common?: boolean; children: ReactNode }) {
+export function Field({
+  label,
+  htmlFor,
+  hint,
+  error,
+  common,
+  children,
+}: {
+  label: string;
+  htmlFor: string;
+  hint?: ReactNode;
+  error?: string;
+  common?: boolean;
+  children: ReactNode;
+}) {
   return (
     <div className="space-y-1">
-      <label htmlFor={htmlFor} className="flex items-baseline justify-between gap-2 text-small font-medium text-ink">
+      <label
+        htmlFor={htmlFor}
+        className="flex items-baseline justify-between gap-2 text-small font-medium text-ink"
+      >
         <span>{label}</span>
-        {common ? <span className="rounded-control bg-caution-info-soft px-1 text-caption font-normal text-caution-info-deep">default from common practice</span> : null}
+        {common ? (
+          <span className="rounded-control bg-caution-info-soft px-1 text-caption font-normal text-caution-info-deep">
+            default from common practice
+          </span>
+        ) : null}
       </label>
       {children}
-      {error ? <FieldError id={`${htmlFor}-error`}>{error}</FieldError> : hint ? <p className="text-caption text-ink-muted">{hint}</p> : null}
+      {error ? (
+        <FieldError id={`${htmlFor}-error`}>{error}</FieldError>
+      ) : hint ? (
+        <p className="text-caption text-ink-muted">{hint}</p>
+      ) : null}
     </div>
   );
 }
@@ -27,7 +60,16 @@ export function Field({ label, htmlFor, hint, error, common, children }: { label
  * A quantity typed naturally ("250 mL", "45 °C", "10 ± 1 vol"), converted on
  * Enter or leaving the field; a reading error stays inline and nothing changes.
  */
-export function QuantityField({ label, kind, value, onCommit, hint, error, common, allowRange = true }: {
+export function QuantityField({
+  label,
+  kind,
+  value,
+  onCommit,
+  hint,
+  error,
+  common,
+  allowRange = true,
+}: {
   label: string;
   kind: QuantityKind;
   value: unknown;
@@ -71,7 +113,10 @@ export function QuantityField({ label, kind, value, onCommit, hint, error, commo
         onBlur={commit}
         onKeyDown={(e) => {
           if (e.key === 'Enter') commit();
-          if (e.key === 'Escape') { setText(shown); setParseError(null); }
+          if (e.key === 'Escape') {
+            setText(shown);
+            setParseError(null);
+          }
         }}
         aria-invalid={err ? true : undefined}
         aria-describedby={err ? `${id}-error` : undefined}
@@ -81,26 +126,62 @@ export function QuantityField({ label, kind, value, onCommit, hint, error, commo
   );
 }
 
-export function ChoiceField({ label, value, options, onChange, hint, error }: { label: string; value: string; options: Array<{ value: string; label: string }>; onChange: (v: string) => void; hint?: ReactNode; error?: string }) {
+export function ChoiceField({
+  label,
+  value,
+  options,
+  onChange,
+  hint,
+  error,
+}: {
+  label: string;
+  value: string;
+  options: Array<{ value: string; label: string }>;
+  onChange: (v: string) => void;
+  hint?: ReactNode;
+  error?: string;
+}) {
   const id = useId();
   return (
     <Field label={label} htmlFor={id} hint={hint} error={error}>
-      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className={`${inputCls} ${error ? 'border-caution-hazard' : 'border-rule-strong'}`}>
+      <select
+        id={id}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        className={`${inputCls} ${error ? 'border-caution-hazard' : 'border-rule-strong'}`}
+      >
         {options.map((o) => (
-          <option key={o.value} value={o.value}>{o.label}</option>
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
         ))}
       </select>
     </Field>
   );
 }
 
-export function TextInputField({ label, value, onCommit }: { label: string; value: string; onCommit: (v: string) => void }) {
+export function TextInputField({
+  label,
+  value,
+  onCommit,
+}: {
+  label: string;
+  value: string;
+  onCommit: (v: string) => void;
+}) {
   const id = useId();
   const [text, setText] = useState(value);
   useEffect(() => setText(value), [value]);
   return (
     <Field label={label} htmlFor={id}>
-      <input id={id} value={text} onChange={(e) => setText(e.target.value)} onBlur={() => text !== value && onCommit(text)} onKeyDown={(e) => e.key === 'Enter' && text !== value && onCommit(text)} className={`${inputCls} border-rule-strong`} />
+      <input
+        id={id}
+        value={text}
+        onChange={(e) => setText(e.target.value)}
+        onBlur={() => text !== value && onCommit(text)}
+        onKeyDown={(e) => e.key === 'Enter' && text !== value && onCommit(text)}
+        className={`${inputCls} border-rule-strong`}
+      />
     </Field>
   );
 }
@@ -125,7 +206,14 @@ export function snapshotOf(c: Compound): ComponentInput | null {
     ...(c.meltingPointC !== null ? { meltingPointC: c.meltingPointC } : {}),
     ...(c.enthalpyFusionKJmol !== null ? { enthalpyFusionKJmol: c.enthalpyFusionKJmol } : {}),
     ...(c.logP ? { logP: c.logP.value } : {}),
-    ...(c.pKa?.length ? { pKa: c.pKa.map((p) => ({ value: (p as { value: number }).value, type: (p as { type: 'acid' | 'base' }).type })) } : {}),
+    ...(c.pKa?.length
+      ? {
+          pKa: c.pKa.map((p) => ({
+            value: (p as { value: number }).value,
+            type: (p as { type: 'acid' | 'base' }).type,
+          })),
+        }
+      : {}),
     ...(Object.keys(c.unifac?.groups ?? {}).length ? { unifac: c.unifac.groups } : {}),
     ...(c.hansen ? { hansen: { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } } : {}),
     ...(c.solubility?.length ? { solubility: c.solubility } : {}),
@@ -140,7 +228,15 @@ export function snapshotOf(c: Compound): ComponentInput | null {
  * solutes or the workspace's compounds. Picking one from a library adds it
  * to the route's components.
  */
-export function ComponentPicker({ label, value, onChange, filter = 'any', compounds, error, hint }: {
+export function ComponentPicker({
+  label,
+  value,
+  onChange,
+  filter = 'any',
+  compounds,
+  error,
+  hint,
+}: {
   label: string;
   value: string;
   onChange: (componentId: string) => void;
@@ -151,11 +247,24 @@ export function ComponentPicker({ label, value, onChange, filter = 'any', compou
 }) {
   const id = useId();
   const components = useEditorStore((s) => s.doc.components);
-  const inRoute = components.filter((c) => (filter === 'any' ? true : filter === 'solvent' ? c.kind === 'solvent' : filter === 'solute' ? c.kind === 'aqueous-solute' : c.kind === 'compound'));
+  const inRoute = components.filter((c) =>
+    filter === 'any'
+      ? true
+      : filter === 'solvent'
+        ? c.kind === 'solvent'
+        : filter === 'solute'
+          ? c.kind === 'aqueous-solute'
+          : c.kind === 'compound',
+  );
   const have = new Set(components.map(keyOf));
-  const lib = filter === 'solvent' || filter === 'any' ? SOLVENTS.filter((s) => !have.has(s.id)) : [];
-  const solutes = filter === 'solute' || filter === 'any' ? AQUEOUS_SOLUTES.filter((s) => !have.has(s.id)) : [];
-  const ws = filter === 'compound' || filter === 'any' ? (compounds ?? []).filter((c) => !have.has(c.id)) : [];
+  const lib =
+    filter === 'solvent' || filter === 'any' ? SOLVENTS.filter((s) => !have.has(s.id)) : [];
+  const solutes =
+    filter === 'solute' || filter === 'any' ? AQUEOUS_SOLUTES.filter((s) => !have.has(s.id)) : [];
+  const ws =
+    filter === 'compound' || filter === 'any'
+      ? (compounds ?? []).filter((c) => !have.has(c.id))
+      : [];
   return (
     <Field label={label} htmlFor={id} error={error} hint={hint}>
       <select
@@ -177,32 +286,44 @@ export function ComponentPicker({ label, value, onChange, filter = 'any', compou
         }}
         className={`${inputCls} ${error ? 'border-caution-hazard' : 'border-rule-strong'}`}
       >
-        {!have.has(value) ? <option value={`route::${value}`}>{value ? `${value} (not in the route)` : 'Choose…'}</option> : null}
+        {!have.has(value) ? (
+          <option value={`route::${value}`}>
+            {value ? `${value} (not in the route)` : 'Choose…'}
+          </option>
+        ) : null}
         {inRoute.length ? (
           <optgroup label="In this route">
             {inRoute.map((c) => (
-              <option key={keyOf(c)} value={`route::${keyOf(c)}`}>{componentLabel(c)}</option>
+              <option key={keyOf(c)} value={`route::${keyOf(c)}`}>
+                {componentLabel(c)}
+              </option>
             ))}
           </optgroup>
         ) : null}
         {ws.length ? (
           <optgroup label="Workspace compounds">
             {ws.map((c) => (
-              <option key={c.id} value={`ws::${c.id}`}>{c.name} ({c.role})</option>
+              <option key={c.id} value={`ws::${c.id}`}>
+                {c.name} ({c.role})
+              </option>
             ))}
           </optgroup>
         ) : null}
         {lib.length ? (
           <optgroup label="Solvent library">
             {lib.map((s) => (
-              <option key={s.id} value={`lib::${s.id}`}>{s.name}</option>
+              <option key={s.id} value={`lib::${s.id}`}>
+                {s.name}
+              </option>
             ))}
           </optgroup>
         ) : null}
         {solutes.length ? (
           <optgroup label="Aqueous solutes">
             {solutes.map((s) => (
-              <option key={s.id} value={`sol::${s.id}`}>{s.name}</option>
+              <option key={s.id} value={`sol::${s.id}`}>
+                {s.name}
+              </option>
             ))}
           </optgroup>
         ) : null}

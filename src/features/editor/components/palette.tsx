@@ -33,7 +33,12 @@ export function Palette() {
   };
   const groups = [...new Set(KIND_ORDER.map((k) => KINDS[k].group))];
   return (
-    <nav aria-label="Add a step" className={`flex h-full shrink-0 flex-col overflow-y-auto border-r border-rule bg-paper-sunken py-2 ${collapsed ? 'w-12 px-1' : 'w-44 px-2'}`} id="step-palette" data-collapsed={collapsed ? 'true' : 'false'}>
+    <nav
+      aria-label="Add a step"
+      className={`flex h-full shrink-0 flex-col overflow-y-auto border-r border-rule bg-paper-sunken py-2 ${collapsed ? 'w-12 px-1' : 'w-44 px-2'}`}
+      id="step-palette"
+      data-collapsed={collapsed ? 'true' : 'false'}
+    >
       <button
         type="button"
         onClick={toggle}
@@ -43,16 +48,39 @@ export function Palette() {
         className={`mb-1 flex items-center gap-1.5 rounded-control px-1.5 py-1 text-caption text-ink-muted hover:bg-paper-raised hover:text-ink focus-visible:outline-2 focus-visible:outline-accent ${collapsed ? 'justify-center' : ''}`}
         data-palette-toggle
       >
-        <svg width="12" height="12" viewBox="0 0 12 12" aria-hidden="true" className={collapsed ? 'rotate-180' : ''}>
+        <svg
+          width="12"
+          height="12"
+          viewBox="0 0 12 12"
+          aria-hidden="true"
+          className={collapsed ? 'rotate-180' : ''}
+        >
           <path d="M7.5 2.5 4 6l3.5 3.5" fill="none" stroke="currentColor" strokeWidth="1.5" />
         </svg>
-        <span className={collapsed ? 'sr-only' : ''}>{collapsed ? 'Show step names' : 'Fold step list'}</span>
+        <span className={collapsed ? 'sr-only' : ''}>
+          {collapsed ? 'Show step names' : 'Fold step list'}
+        </span>
       </button>
       <div id="step-palette-list">
-        {collapsed ? null : <p className="px-1 pb-1 text-caption text-ink-muted">Click, Enter or drag onto the canvas; a new step joins the selected one.</p>}
+        {collapsed ? null : (
+          <p className="px-1 pb-1 text-caption text-ink-muted">
+            Click, Enter or drag onto the canvas; a new step joins the selected one.
+          </p>
+        )}
         {groups.map((g) => (
-          <div key={g} className={collapsed ? 'mt-1 border-t border-rule pt-1 first:border-0' : 'mt-2'}>
-            <p className={collapsed ? 'sr-only' : 'px-1 text-caption font-medium uppercase tracking-wide text-ink-faint'}>{g}</p>
+          <div
+            key={g}
+            className={collapsed ? 'mt-1 border-t border-rule pt-1 first:border-0' : 'mt-2'}
+          >
+            <p
+              className={
+                collapsed
+                  ? 'sr-only'
+                  : 'px-1 text-caption font-medium uppercase tracking-wide text-ink-faint'
+              }
+            >
+              {g}
+            </p>
             <ul>
               {KIND_ORDER.filter((k) => KINDS[k].group === g).map((k) => (
                 <li key={k}>

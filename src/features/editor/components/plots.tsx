@@ -7,11 +7,24 @@ import { Chart, PLOT, axisStyle, baseOption } from '../charts/chart';
 import { componentLabel } from './fields';
 import { formatFactor } from '@/lib/format';
 
-type ProfilePoint = { distillateL: number; potTemperatureC: number; originalSolventWtPct: number; pressureMbar: number };
+type ProfilePoint = {
+  distillateL: number;
+  potTemperatureC: number;
+  originalSolventWtPct: number;
+  pressureMbar: number;
+};
 
 const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : '—');
 
-function PlotFrame({ title, note, children }: { title: string; note?: string; children: React.ReactNode }) {
+function PlotFrame({
+  title,
+  note,
+  children,
+}: {
+  title: string;
+  note?: string;
+  children: React.ReactNode;
+}) {
   return (
     <figure className="mt-3 rounded-card border border-rule bg-paper-raised p-2">
       <figcaption className="text-small font-medium text-ink">{title}</figcaption>
@@ -24,13 +37,16 @@ function PlotFrame({ title, note, children }: { title: string; note?: string; ch
 /** The plot that belongs to the selected step, if its kind has one. */
 export function StepPlot({ step }: { step: StepInput }) {
   if (step.kind === 'distillation') return <DistillationProfile stepId={step.id} />;
-  if (step.kind === 'crystallisation' || step.kind === 'wash' || step.kind === 'extraction') return <SweepPlot step={step} />;
+  if (step.kind === 'crystallisation' || step.kind === 'wash' || step.kind === 'extraction')
+    return <SweepPlot step={step} />;
   return null;
 }
 
 /** Pot temperature and residual original solvent against distillate volume. */
 function DistillationProfile({ stepId }: { stepId: string }) {
-  const profile = useEvaluation((s) => s.result?.steps[stepId]?.details.profile as ProfilePoint[] | undefined);
+  const profile = useEvaluation(
+    (s) => s.result?.steps[stepId]?.details.profile as ProfilePoint[] | undefined,
+  );
   const option = useMemo(() => {
     if (!profile?.length) return null;
     const swap = profile.some((p) => p.originalSolventWtPct < 99.999);
@@ -38,15 +54,50 @@ function DistillationProfile({ stepId }: { stepId: string }) {
       ...baseOption,
       grid: { left: 40, right: swap ? 44 : 12, top: 28, bottom: 34 },
       legend: { top: 0, right: 0, itemWidth: 18, textStyle: { fontSize: 11, color: PLOT.muted } },
-      xAxis: { type: 'value', name: 'Distillate (L)', nameLocation: 'middle', nameGap: 22, ...axisStyle, splitLine: { show: false } },
+      xAxis: {
+        type: 'value',
+        name: 'Distillate (L)',
+        nameLocation: 'middle',
+        nameGap: 22,
+        ...axisStyle,
+        splitLine: { show: false },
+      },
       yAxis: [
         { type: 'value', name: '°C', scale: true, ...axisStyle },
-        ...(swap ? [{ type: 'value', name: 'wt %', min: 0, max: 100, ...axisStyle, splitLine: { show: false } }] : []),
+        ...(swap
+          ? [
+              {
+                type: 'value',
+                name: 'wt %',
+                min: 0,
+                max: 100,
+                ...axisStyle,
+                splitLine: { show: false },
+              },
+            ]
+          : []),
       ],
       series: [
-        { name: 'Pot temperature', type: 'line', showSymbol: false, lineStyle: { color: PLOT.accent, width: 2 }, itemStyle: { color: PLOT.accent }, data: profile.map((p) => [p.distillateL, p.potTemperatureC]) },
+        {
+          name: 'Pot temperature',
+          type: 'line',
+          showSymbol: false,
+          lineStyle: { color: PLOT.accent, width: 2 },
+          itemStyle: { color: PLOT.accent },
+          data: profile.map((p) => [p.distillateL, p.potTemperatureC]),
+        },
         ...(swap
-          ? [{ name: 'Original solvent left', type: 'line', yAxisIndex: 1, showSymbol: false, lineStyle: { color: PLOT.organic, width: 2, type: 'dashed' }, itemStyle: { color: PLOT.organic }, data: profile.map((p) => [p.distillateL, p.originalSolventWtPct]) }]
+          ? [
+              {
+                name: 'Original solvent left',
+                type: 'line',
+                yAxisIndex: 1,
+                showSymbol: false,
+                lineStyle: { color: PLOT.organic, width: 2, type: 'dashed' },
+                itemStyle: { color: PLOT.organic },
+                data: profile.map((p) => [p.distillateL, p.originalSolventWtPct]),
+              },
+            ]
           : []),
       ],
     };
@@ -54,8 +105,15 @@ function DistillationProfile({ stepId }: { stepId: string }) {
   if (!option || !profile) return null;
   const last = profile[profile.length - 1];
   return (
-    <PlotFrame title="Distillation profile" note={`End: ${fmt(last.distillateL, 2)} L distilled, pot ${fmt(last.potTemperatureC)} °C, original solvent ${fmt(last.originalSolventWtPct)} wt % of the solvents.`}>
-      <Chart option={option} label="Pot temperature and original solvent left against distillate volume" testId="plot-distillation" />
+    <PlotFrame
+      title="Distillation profile"
+      note={`End: ${fmt(last.distillateL, 2)} L distilled, pot ${fmt(last.potTemperatureC)} °C, original solvent ${fmt(last.originalSolventWtPct)} wt % of the solvents.`}
+    >
+      <Chart
+        option={option}
+        label="Pot temperature and original solvent left against distillate volume"
+        testId="plot-distillation"
+      />
     </PlotFrame>
   );
 }
@@ -71,9 +129,30 @@ function SweepPlot({ step }: { step: StepInput }) {
       ...baseOption,
       grid: { left: 40, right: 12, top: 16, bottom: 34 },
       xAxis: stages
-        ? { type: 'value', name: 'Stages', nameLocation: 'middle', nameGap: 22, minInterval: 1, ...axisStyle, splitLine: { show: false } }
-        : { type: 'value', name: 'End temperature (°C)', nameLocation: 'middle', nameGap: 22, ...axisStyle, splitLine: { show: false } },
-      yAxis: { type: 'value', name: stages ? 'Recovery %' : 'Yield %', scale: true, max: (v: { max: number }) => Math.min(100, Math.ceil(v.max + 1)), ...axisStyle },
+        ? {
+            type: 'value',
+            name: 'Stages',
+            nameLocation: 'middle',
+            nameGap: 22,
+            minInterval: 1,
+            ...axisStyle,
+            splitLine: { show: false },
+          }
+        : {
+            type: 'value',
+            name: 'End temperature (°C)',
+            nameLocation: 'middle',
+            nameGap: 22,
+            ...axisStyle,
+            splitLine: { show: false },
+          },
+      yAxis: {
+        type: 'value',
+        name: stages ? 'Recovery %' : 'Yield %',
+        scale: true,
+        max: (v: { max: number }) => Math.min(100, Math.ceil(v.max + 1)),
+        ...axisStyle,
+      },
       series: [
         {
           name: stages ? 'Product recovery' : 'Crystallisation yield',
@@ -83,15 +162,37 @@ function SweepPlot({ step }: { step: StepInput }) {
           lineStyle: { color: stages ? PLOT.aqueous : PLOT.solid, width: 2 },
           itemStyle: { color: stages ? PLOT.aqueous : PLOT.solid },
           data,
-          markLine: current === null ? undefined : { symbol: 'none', silent: true, label: { formatter: 'now', color: PLOT.muted, fontSize: 10 }, lineStyle: { color: PLOT.faint, type: 'dotted' }, data: [{ xAxis: current }] },
+          markLine:
+            current === null
+              ? undefined
+              : {
+                  symbol: 'none',
+                  silent: true,
+                  label: { formatter: 'now', color: PLOT.muted, fontSize: 10 },
+                  lineStyle: { color: PLOT.faint, type: 'dotted' },
+                  data: [{ xAxis: current }],
+                },
         },
       ],
     };
   }, [points, current, stages]);
-  const title = stages ? 'Product recovery against number of stages' : 'Crystallisation yield against end temperature';
+  const title = stages
+    ? 'Product recovery against number of stages'
+    : 'Crystallisation yield against end temperature';
   return (
-    <PlotFrame title={title} note="Each point is the whole route evaluated again with only this setting changed.">
-      {option ? <Chart option={option} label={title} testId={stages ? 'plot-stages' : 'plot-end-temperature'} /> : <p className="py-8 text-center text-small text-ink-muted">Working out the curve…</p>}
+    <PlotFrame
+      title={title}
+      note="Each point is the whole route evaluated again with only this setting changed."
+    >
+      {option ? (
+        <Chart
+          option={option}
+          label={title}
+          testId={stages ? 'plot-stages' : 'plot-end-temperature'}
+        />
+      ) : (
+        <p className="py-8 text-center text-small text-ink-muted">Working out the curve…</p>
+      )}
     </PlotFrame>
   );
 }
@@ -107,22 +208,39 @@ export function ProductFlow() {
     const links: Array<{ source: string; target: string; value: number }> = [];
     for (const c of doc.connections) {
       const kg = result.streams[c.id]?.kg[pid] ?? 0;
-      if (kg > 1e-9 && label.has(c.from.stepId) && label.has(c.to.stepId)) links.push({ source: c.from.stepId, target: c.to.stepId, value: kg });
+      if (kg > 1e-9 && label.has(c.from.stepId) && label.has(c.to.stepId))
+        links.push({ source: c.from.stepId, target: c.to.stepId, value: kg });
     }
     for (const t of result.terminals) {
       const kg = t.stream.kg[pid] ?? 0;
       if (kg <= 1e-9) continue;
       const id = `${t.stepId}→${t.port}`;
-      label.set(id, t.isolated ? 'Isolated product' : `Lost: ${label.get(t.stepId) ?? t.stepId} ${t.port}`);
+      label.set(
+        id,
+        t.isolated ? 'Isolated product' : `Lost: ${label.get(t.stepId) ?? t.stepId} ${t.port}`,
+      );
       links.push({ source: t.stepId, target: id, value: kg });
     }
     if (!links.length) return null;
     const used = new Set(links.flatMap((l) => [l.source, l.target]));
-    const isolated = new Set(result.terminals.filter((t) => t.isolated).map((t) => `${t.stepId}→${t.port}`));
-    const lost = new Set(result.terminals.filter((t) => !t.isolated).map((t) => `${t.stepId}→${t.port}`));
+    const isolated = new Set(
+      result.terminals.filter((t) => t.isolated).map((t) => `${t.stepId}→${t.port}`),
+    );
+    const lost = new Set(
+      result.terminals.filter((t) => !t.isolated).map((t) => `${t.stepId}→${t.port}`),
+    );
     return {
       ...baseOption,
-      tooltip: { trigger: 'item', formatter: (p: { dataType: string; data: { source?: string; target?: string; value?: number; name?: string } }) => (p.dataType === 'edge' ? `${label.get(p.data.source!)} → ${label.get(p.data.target!)}: ${fmt(p.data.value ?? 0, 3)} kg product` : label.get(p.data.name!) ?? '') },
+      tooltip: {
+        trigger: 'item',
+        formatter: (p: {
+          dataType: string;
+          data: { source?: string; target?: string; value?: number; name?: string };
+        }) =>
+          p.dataType === 'edge'
+            ? `${label.get(p.data.source!)} → ${label.get(p.data.target!)}: ${fmt(p.data.value ?? 0, 3)} kg product`
+            : (label.get(p.data.name!) ?? ''),
+      },
       series: [
         {
           type: 'sankey',
@@ -135,42 +253,84 @@ export function ProductFlow() {
           layoutIterations: 16,
           draggable: false,
           emphasis: { focus: 'adjacency' },
-          label: { fontSize: 10, color: PLOT.ink, formatter: (p: { name: string }) => label.get(p.name) ?? p.name },
+          label: {
+            fontSize: 10,
+            color: PLOT.ink,
+            formatter: (p: { name: string }) => label.get(p.name) ?? p.name,
+          },
           // Steps sit close together in a narrow panel: only where the product ends is labelled; steps are named on hover.
           lineStyle: { color: 'source', opacity: 0.35 },
-          data: [...used].map((name) => ({ name, label: { show: isolated.has(name) || lost.has(name) }, itemStyle: { color: isolated.has(name) ? PLOT.solid : lost.has(name) ? PLOT.hazard : PLOT.accent } })),
+          data: [...used].map((name) => ({
+            name,
+            label: { show: isolated.has(name) || lost.has(name) },
+            itemStyle: {
+              color: isolated.has(name) ? PLOT.solid : lost.has(name) ? PLOT.hazard : PLOT.accent,
+            },
+          })),
           links,
         },
       ],
     };
   }, [result, doc]);
-  if (!result) return <p className="text-small text-ink-muted">The product’s path appears once the route can be evaluated.</p>;
-  if (!option) return <p className="text-small text-ink-muted">No product moves through the route yet: give a component the role “product” and charge it.</p>;
+  if (!result)
+    return (
+      <p className="text-small text-ink-muted">
+        The product’s path appears once the route can be evaluated.
+      </p>
+    );
+  if (!option)
+    return (
+      <p className="text-small text-ink-muted">
+        No product moves through the route yet: give a component the role “product” and charge it.
+      </p>
+    );
   const lossKg = result.totals.productInKg - result.totals.isolatedProductKg;
   const pid = result.totals.productId;
   const names = new Map(doc.steps.map((s) => [s.id, s.name]));
   const exits = pid
     ? result.terminals
-        .map((t) => ({ key: `${t.stepId}:${t.port}`, where: t.isolated ? `Isolated (${names.get(t.stepId) ?? t.stepId})` : `${names.get(t.stepId) ?? t.stepId} · ${t.port}`, isolated: t.isolated, kg: t.stream.kg[pid] ?? 0 }))
+        .map((t) => ({
+          key: `${t.stepId}:${t.port}`,
+          where: t.isolated
+            ? `Isolated (${names.get(t.stepId) ?? t.stepId})`
+            : `${names.get(t.stepId) ?? t.stepId} · ${t.port}`,
+          isolated: t.isolated,
+          kg: t.stream.kg[pid] ?? 0,
+        }))
         .filter((e) => e.kg >= 1e-4 * result.totals.productInKg)
         .sort((a, b) => b.kg - a.kg)
     : [];
   return (
     <figure>
-      <Chart option={option} label="Where the product mass goes, step by step" height={180} testId="plot-product-flow" />
+      <Chart
+        option={option}
+        label="Where the product mass goes, step by step"
+        height={180}
+        testId="plot-product-flow"
+      />
       <figcaption className="text-caption text-ink-muted">
-        Band width is product mass (hover a band for its step). Isolated {fmt(result.totals.isolatedProductKg, 3)} kg of {fmt(result.totals.productInKg, 3)} kg charged; {fmt(lossKg, 3)} kg leaves in liquors and washes (marked “Lost”).
+        Band width is product mass (hover a band for its step). Isolated{' '}
+        {fmt(result.totals.isolatedProductKg, 3)} kg of {fmt(result.totals.productInKg, 3)} kg
+        charged; {fmt(lossKg, 3)} kg leaves in liquors and washes (marked “Lost”).
       </figcaption>
-      <table className="mt-1 w-full text-caption tabular-nums" aria-label="Where the product leaves the route">
+      <table
+        className="mt-1 w-full text-caption tabular-nums"
+        aria-label="Where the product leaves the route"
+      >
         <tbody>
           {exits.map((e) => (
             <tr key={e.key} className="border-b border-rule">
               <th scope="row" className="py-0.5 pr-2 text-left font-normal">
-                <span aria-hidden="true" className={`mr-1 inline-block size-2 ${e.isolated ? 'bg-phase-solid' : 'rotate-45 bg-caution-hazard'}`} />
+                <span
+                  aria-hidden="true"
+                  className={`mr-1 inline-block size-2 ${e.isolated ? 'bg-phase-solid' : 'rotate-45 bg-caution-hazard'}`}
+                />
                 {e.where}
               </th>
               <td className="whitespace-nowrap py-0.5 text-right">{e.kg.toPrecision(3)} kg</td>
-              <td className="w-14 py-0.5 text-right">{fmt((100 * e.kg) / (result.totals.productInKg || 1), 1)} %</td>
+              <td className="w-14 py-0.5 text-right">
+                {fmt((100 * e.kg) / (result.totals.productInKg || 1), 1)} %
+              </td>
             </tr>
           ))}
         </tbody>
@@ -186,7 +346,11 @@ export function PurgePlot() {
   const rows = useMemo(() => {
     if (!result) return [];
     const byKey = new Map(components.map((c) => [keyOf(c), c]));
-    return Object.entries(result.totals.purge).map(([id, p]) => ({ id, name: byKey.has(id) ? componentLabel(byKey.get(id)!).replace(/ \(impurity\)$/, '') : id, factor: p.purgeFactor }));
+    return Object.entries(result.totals.purge).map(([id, p]) => ({
+      id,
+      name: byKey.has(id) ? componentLabel(byKey.get(id)!).replace(/ \(impurity\)$/, '') : id,
+      factor: p.purgeFactor,
+    }));
   }, [result, components]);
   const option = useMemo(() => {
     if (!rows.length) return null;
@@ -197,24 +361,71 @@ export function PurgePlot() {
       tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } },
       grid: { left: 8, right: 44, top: 8, bottom: 24, containLabel: true },
       xAxis: { type: 'log', name: '×', min: 1, max: cap, ...axisStyle },
-      yAxis: { type: 'category', data: rows.map((r) => r.name), inverse: true, ...axisStyle, axisLabel: { ...axisStyle.axisLabel, width: 120, overflow: 'truncate' } },
+      yAxis: {
+        type: 'category',
+        data: rows.map((r) => r.name),
+        inverse: true,
+        ...axisStyle,
+        axisLabel: { ...axisStyle.axisLabel, width: 120, overflow: 'truncate' },
+      },
       series: [
         {
           name: 'Purge factor',
           type: 'bar',
           barMaxWidth: 14,
-          data: rows.map((r) => ({ value: r.factor ?? cap, itemStyle: r.factor === null ? { color: PLOT.aqueous, decal: { symbol: 'rect', dashArrayX: [1, 0], dashArrayY: [2, 3], rotation: -0.8 } } : { color: PLOT.accent } })),
-          label: { show: true, position: 'right', fontSize: 10, color: PLOT.ink, formatter: (p: { dataIndex: number }) => (rows[p.dataIndex].factor === null ? 'all purged' : `${formatFactor(rows[p.dataIndex].factor)}×`) },
+          data: rows.map((r) => ({
+            value: r.factor ?? cap,
+            itemStyle:
+              r.factor === null
+                ? {
+                    color: PLOT.aqueous,
+                    decal: {
+                      symbol: 'rect',
+                      dashArrayX: [1, 0],
+                      dashArrayY: [2, 3],
+                      rotation: -0.8,
+                    },
+                  }
+                : { color: PLOT.accent },
+          })),
+          label: {
+            show: true,
+            position: 'right',
+            fontSize: 10,
+            color: PLOT.ink,
+            formatter: (p: { dataIndex: number }) =>
+              rows[p.dataIndex].factor === null
+                ? 'all purged'
+                : `${formatFactor(rows[p.dataIndex].factor)}×`,
+          },
         },
       ],
     };
   }, [rows]);
-  if (!result) return <p className="text-small text-ink-muted">Purge factors appear once the route can be evaluated.</p>;
-  if (!option) return <p className="text-small text-ink-muted">No impurity is charged: add one in a Charge step to see how far the route purges it.</p>;
+  if (!result)
+    return (
+      <p className="text-small text-ink-muted">
+        Purge factors appear once the route can be evaluated.
+      </p>
+    );
+  if (!option)
+    return (
+      <p className="text-small text-ink-muted">
+        No impurity is charged: add one in a Charge step to see how far the route purges it.
+      </p>
+    );
   return (
     <figure>
-      <Chart option={option} label="Purge factor of each impurity, log scale" height={Math.max(120, 34 * rows.length + 40)} testId="plot-purge" />
-      <figcaption className="text-caption text-ink-muted">Purge factor = impurity charged ÷ impurity in the isolated solid. “All purged”: none reaches the solid.</figcaption>
+      <Chart
+        option={option}
+        label="Purge factor of each impurity, log scale"
+        height={Math.max(120, 34 * rows.length + 40)}
+        testId="plot-purge"
+      />
+      <figcaption className="text-caption text-ink-muted">
+        Purge factor = impurity charged ÷ impurity in the isolated solid. “All purged”: none reaches
+        the solid.
+      </figcaption>
     </figure>
   );
 }

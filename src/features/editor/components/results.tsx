@@ -9,19 +9,34 @@ import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
 import { Button } from '@/components/button';
 
 const NO_ISSUES: never[] = [];
-const n = (v: number | null | undefined, d = 1) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
+const n = (v: number | null | undefined, d = 1) =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d);
 
 type Totals = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['totals'];
 
 /** A change since the previous result, with enough digits to see it ("▲ 1.6", "▼ 0.0021"). */
-function Delta({ now, before, name, unit }: { now: number | null | undefined; before: number | null | undefined; name: string; unit: string }) {
+function Delta({
+  now,
+  before,
+  name,
+  unit,
+}: {
+  now: number | null | undefined;
+  before: number | null | undefined;
+  name: string;
+  unit: string;
+}) {
   if (now === null || now === undefined || before === null || before === undefined) return null;
   const d = now - before;
   if (!Number.isFinite(d) || Math.abs(d) < 1e-9 * Math.max(1, Math.abs(now))) return null;
   const size = Math.abs(d);
   const text = size >= 0.1 ? size.toFixed(1) : size.toPrecision(2);
   return (
-    <span className="ml-1 text-caption font-normal text-ink-muted" data-delta={name} title={`Changed by ${d > 0 ? '+' : '−'}${text}${unit} with the last edit`}>
+    <span
+      className="ml-1 text-caption font-normal text-ink-muted"
+      data-delta={name}
+      title={`Changed by ${d > 0 ? '+' : '−'}${text}${unit} with the last edit`}
+    >
       <span aria-hidden="true">{d > 0 ? '▲' : '▼'}</span>
       <span className="sr-only">{d > 0 ? 'up' : 'down'}</span> {text}
     </span>
@@ -41,41 +56,95 @@ export function TotalsCard() {
     last.current = totals;
   }, [totals]);
   const items = [
-    { label: 'Isolated yield', value: totals ? n(totals.yieldPct) : '—', shownUnit: '%', raw: totals?.yieldPct, prev: before?.yieldPct, unit: ' %', key: 'yield' },
-    { label: 'Purity', value: totals ? n(totals.purityWtPct, 2) : '—', shownUnit: 'wt %', raw: totals?.purityWtPct, prev: before?.purityWtPct, unit: ' wt %', key: 'purity' },
-    { label: 'PMI', value: totals ? n(totals.pmi, 0) : '—', shownUnit: '', raw: totals?.pmi, prev: before?.pmi, unit: '', key: 'pmi' },
-    { label: 'Solvent', value: totals ? n(totals.solventUseLPerKg, 0) : '—', shownUnit: 'L/kg', raw: totals?.solventUseLPerKg, prev: before?.solventUseLPerKg, unit: ' L/kg', key: 'solvent' },
+    {
+      label: 'Isolated yield',
+      value: totals ? n(totals.yieldPct) : '—',
+      shownUnit: '%',
+      raw: totals?.yieldPct,
+      prev: before?.yieldPct,
+      unit: ' %',
+      key: 'yield',
+    },
+    {
+      label: 'Purity',
+      value: totals ? n(totals.purityWtPct, 2) : '—',
+      shownUnit: 'wt %',
+      raw: totals?.purityWtPct,
+      prev: before?.purityWtPct,
+      unit: ' wt %',
+      key: 'purity',
+    },
+    {
+      label: 'PMI',
+      value: totals ? n(totals.pmi, 0) : '—',
+      shownUnit: '',
+      raw: totals?.pmi,
+      prev: before?.pmi,
+      unit: '',
+      key: 'pmi',
+    },
+    {
+      label: 'Solvent',
+      value: totals ? n(totals.solventUseLPerKg, 0) : '—',
+      shownUnit: 'L/kg',
+      raw: totals?.solventUseLPerKg,
+      prev: before?.solventUseLPerKg,
+      unit: ' L/kg',
+      key: 'solvent',
+    },
   ];
   return (
-    <section aria-label="Route totals" className="rounded-card border border-rule bg-paper-raised px-3 py-2 shadow-card">
+    <section
+      aria-label="Route totals"
+      className="rounded-card border border-rule bg-paper-raised px-3 py-2 shadow-card"
+    >
       <div className="flex items-center justify-between">
         <h2 className="text-small font-medium">Route totals</h2>
         <p className="text-caption text-ink-muted" role="status" aria-live="polite">
-          {status === 'running' ? 'Updating…' : status === 'invalid' ? 'Needs input — showing the last complete result' : status === 'empty' ? 'Add a step to start' : `Updated${ms !== null ? ` in ${ms.toFixed(0)} ms` : ''}`}
+          {status === 'running'
+            ? 'Updating…'
+            : status === 'invalid'
+              ? 'Needs input — showing the last complete result'
+              : status === 'empty'
+                ? 'Add a step to start'
+                : `Updated${ms !== null ? ` in ${ms.toFixed(0)} ms` : ''}`}
         </p>
       </div>
       <dl className="mt-1 grid grid-cols-4 gap-2">
         {items.map((i) => (
           <div key={i.key}>
             <dt className="text-caption text-ink-muted">{i.label}</dt>
-            <dd className="text-title font-medium tabular-nums whitespace-nowrap" data-total={i.key} data-value={i.raw ?? ''}>
+            <dd
+              className="text-title font-medium tabular-nums whitespace-nowrap"
+              data-total={i.key}
+              data-value={i.raw ?? ''}
+            >
               {i.value}
-              {totals && i.shownUnit ? <span className="ml-0.5 text-caption font-normal text-ink-muted">{i.shownUnit}</span> : null}
+              {totals && i.shownUnit ? (
+                <span className="ml-0.5 text-caption font-normal text-ink-muted">
+                  {i.shownUnit}
+                </span>
+              ) : null}
             </dd>
-            <dd className="h-4 leading-4"><Delta now={i.raw} before={i.prev} name={i.key} unit={i.unit} /></dd>
+            <dd className="h-4 leading-4">
+              <Delta now={i.raw} before={i.prev} name={i.key} unit={i.unit} />
+            </dd>
           </div>
         ))}
       </dl>
       {totals ? (
         <p className="mt-1 text-caption text-ink-muted">
-          E-factor {n(totals.eFactor, 0)} ({n(totals.eFactorExcludingWater, 0)} without water) · cycle time ≈ {n(totals.cycleTimeH)} h (common-practice step durations)
+          E-factor {n(totals.eFactor, 0)} ({n(totals.eFactorExcludingWater, 0)} without water) ·
+          cycle time ≈ {n(totals.cycleTimeH)} h (common-practice step durations)
         </p>
       ) : null}
     </section>
   );
 }
 
-type RouteWarning = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['warnings'][number];
+type RouteWarning = NonNullable<
+  ReturnType<typeof useEvaluation.getState>['result']
+>['warnings'][number];
 
 /** One entry of the caution list: a caution and every step it was raised on. */
 export interface CautionGroup {
@@ -96,11 +165,19 @@ export function groupCautions(warnings: readonly RouteWarning[]): CautionGroup[]
   for (const w of warnings) {
     const key = `${w.severity}\u0000${w.code}\u0000${w.message}`;
     let g = groups.get(key);
-    if (!g) groups.set(key, (g = { key, severity: w.severity, code: w.code, message: w.message, steps: [] }));
+    if (!g)
+      groups.set(
+        key,
+        (g = { key, severity: w.severity, code: w.code, message: w.message, steps: [] }),
+      );
     const stepId = w.stepId ?? null;
     if (!g.steps.includes(stepId)) g.steps.push(stepId);
   }
-  return [...groups.values()].sort((a, b) => SEVERITY_ORDER.indexOf(a.severity) - SEVERITY_ORDER.indexOf(b.severity) || b.steps.length - a.steps.length);
+  return [...groups.values()].sort(
+    (a, b) =>
+      SEVERITY_ORDER.indexOf(a.severity) - SEVERITY_ORDER.indexOf(b.severity) ||
+      b.steps.length - a.steps.length,
+  );
 }
 
 /** Set while the caution list selects a step, so the panel stays on the list. */
@@ -136,9 +213,24 @@ export function CautionList() {
         <ul aria-label="Problems to fix" className="space-y-1">
           {issues.map((i, k) => (
             <li key={k}>
-              <button type="button" onClick={() => jump(i.stepId)} className="flex w-full items-start gap-2 rounded-control px-1 py-0.5 text-left text-small hover:bg-accent-soft">
-                <span className="inline-flex shrink-0 items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep"><span aria-hidden="true" className="inline-block size-2 rotate-45 bg-caution-hazard" />Needs input</span>
-                <span><span className="font-medium">{i.stepId ? nameOf.get(i.stepId) ?? i.stepId : 'Route'}</span>{i.field ? ` · ${i.field}` : ''}: {i.message}</span>
+              <button
+                type="button"
+                onClick={() => jump(i.stepId)}
+                className="flex w-full items-start gap-2 rounded-control px-1 py-0.5 text-left text-small hover:bg-accent-soft"
+              >
+                <span className="inline-flex shrink-0 items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep">
+                  <span
+                    aria-hidden="true"
+                    className="inline-block size-2 rotate-45 bg-caution-hazard"
+                  />
+                  Needs input
+                </span>
+                <span>
+                  <span className="font-medium">
+                    {i.stepId ? (nameOf.get(i.stepId) ?? i.stepId) : 'Route'}
+                  </span>
+                  {i.field ? ` · ${i.field}` : ''}: {i.message}
+                </span>
               </button>
             </li>
           ))}
@@ -147,14 +239,21 @@ export function CautionList() {
       {groups.length ? (
         <>
           <p className="text-caption text-ink-muted">
-            {total} caution{total === 1 ? '' : 's'}{groups.length < total ? `, ${groups.length} different` : ''} — worst first. Choose a step name to go to it.
+            {total} caution{total === 1 ? '' : 's'}
+            {groups.length < total ? `, ${groups.length} different` : ''} — worst first. Choose a
+            step name to go to it.
           </p>
           <ul aria-label="Cautions" className="divide-y divide-rule">
             {groups.map((g) => {
               const many = g.steps.length > STEPS_SHOWN && !open[g.key];
               const shown = many ? g.steps.slice(0, STEPS_SHOWN) : g.steps;
               return (
-                <li key={g.key} className="py-1.5 text-small" data-caution={g.code} data-steps={g.steps.length}>
+                <li
+                  key={g.key}
+                  className="py-1.5 text-small"
+                  data-caution={g.code}
+                  data-steps={g.steps.length}
+                >
                   <div className="flex items-start gap-2">
                     <SeverityChip severity={g.severity} />
                     <p className="min-w-0 flex-1">{g.message}</p>
@@ -163,15 +262,27 @@ export function CautionList() {
                     <span>{g.steps.length > 1 ? `On ${g.steps.length} steps:` : 'On'}</span>
                     {shown.map((id) =>
                       id ? (
-                        <button key={id} type="button" onClick={() => jump(id)} className="rounded-control border border-rule bg-paper px-1.5 py-px text-caption text-accent hover:bg-accent-soft hover:text-accent-deep" data-jump={id}>
+                        <button
+                          key={id}
+                          type="button"
+                          onClick={() => jump(id)}
+                          className="rounded-control border border-rule bg-paper px-1.5 py-px text-caption text-accent hover:bg-accent-soft hover:text-accent-deep"
+                          data-jump={id}
+                        >
                           {nameOf.get(id) ?? id}
                         </button>
                       ) : (
-                        <span key="route" className="px-1">the whole route</span>
+                        <span key="route" className="px-1">
+                          the whole route
+                        </span>
                       ),
                     )}
                     {many ? (
-                      <button type="button" onClick={() => setOpen((o) => ({ ...o, [g.key]: true }))} className="px-1 text-caption text-accent underline-offset-2 hover:underline">
+                      <button
+                        type="button"
+                        onClick={() => setOpen((o) => ({ ...o, [g.key]: true }))}
+                        className="px-1 text-caption text-accent underline-offset-2 hover:underline"
+                      >
                         {g.steps.length - STEPS_SHOWN} more
                       </button>
                     ) : null}
@@ -184,7 +295,9 @@ export function CautionList() {
       ) : !issues.length ? (
         <p className="text-small text-ink-muted">No cautions for this route as drawn.</p>
       ) : null}
-      <p className="border-t border-rule pt-2 text-caption text-ink-muted" data-process-safety-note>{result?.processSafetyNote ?? PROCESS_SAFETY_NOTE}</p>
+      <p className="border-t border-rule pt-2 text-caption text-ink-muted" data-process-safety-note>
+        {result?.processSafetyNote ?? PROCESS_SAFETY_NOTE}
+      </p>
     </div>
   );
 }
@@ -197,23 +310,80 @@ export function StreamTable() {
   const rows = useMemo(() => {
     if (!result) return [];
     const stepName = new Map(doc.steps.map((s) => [s.id, s.name]));
-    const out: Array<{ id: string; from: string; to: string; phase: string; T: number; L: number; total: number; kg: Record<string, number> }> = [];
+    const out: Array<{
+      id: string;
+      from: string;
+      to: string;
+      phase: string;
+      T: number;
+      L: number;
+      total: number;
+      kg: Record<string, number>;
+    }> = [];
     for (const c of doc.connections) {
       const s = result.streams[c.id];
       if (!s) continue;
-      out.push({ id: c.id, from: `${stepName.get(c.from.stepId)} · ${c.from.port}`, to: `${stepName.get(c.to.stepId)} · ${c.to.port}`, phase: s.phase, T: s.temperatureK - 273.15, L: s.volumeM3 * 1000, total: Object.values(s.kg).reduce((a, b) => a + b, 0), kg: s.kg });
+      out.push({
+        id: c.id,
+        from: `${stepName.get(c.from.stepId)} · ${c.from.port}`,
+        to: `${stepName.get(c.to.stepId)} · ${c.to.port}`,
+        phase: s.phase,
+        T: s.temperatureK - 273.15,
+        L: s.volumeM3 * 1000,
+        total: Object.values(s.kg).reduce((a, b) => a + b, 0),
+        kg: s.kg,
+      });
     }
     for (const t of result.terminals) {
-      out.push({ id: `${t.stepId}:${t.port}`, from: `${stepName.get(t.stepId)} · ${t.port}`, to: t.isolated ? 'Isolated product' : 'Leaves the route', phase: t.stream.phase, T: t.stream.temperatureK - 273.15, L: t.stream.volumeM3 * 1000, total: Object.values(t.stream.kg).reduce((a, b) => a + b, 0), kg: t.stream.kg });
+      out.push({
+        id: `${t.stepId}:${t.port}`,
+        from: `${stepName.get(t.stepId)} · ${t.port}`,
+        to: t.isolated ? 'Isolated product' : 'Leaves the route',
+        phase: t.stream.phase,
+        T: t.stream.temperatureK - 273.15,
+        L: t.stream.volumeM3 * 1000,
+        total: Object.values(t.stream.kg).reduce((a, b) => a + b, 0),
+        kg: t.stream.kg,
+      });
     }
     return out;
   }, [result, doc]);
-  const comps = doc.components.filter((c) => !onlyNonZero || rows.some((r) => (r.kg[keyOf(c)] ?? 0) > 0));
-  if (!result) return <p className="text-small text-ink-muted">Streams appear once the route can be evaluated.</p>;
+  const comps = doc.components.filter(
+    (c) => !onlyNonZero || rows.some((r) => (r.kg[keyOf(c)] ?? 0) > 0),
+  );
+  if (!result)
+    return (
+      <p className="text-small text-ink-muted">Streams appear once the route can be evaluated.</p>
+    );
   const csv = () => {
-    const head = ['from', 'to', 'phase', 'temperature_C', 'volume_L', 'total_kg', ...comps.flatMap((c) => [`${keyOf(c)}_kg`, `${keyOf(c)}_wt_pct`])];
-    const lines = rows.map((r) => [r.from, r.to, r.phase, r.T.toFixed(2), r.L.toFixed(4), r.total.toFixed(6), ...comps.flatMap((c) => { const kg = r.kg[keyOf(c)] ?? 0; return [kg.toPrecision(6), r.total > 0 ? ((100 * kg) / r.total).toFixed(3) : '0']; })]);
-    const text = [head, ...lines].map((l) => l.map((x) => (/[",\n]/.test(String(x)) ? `"${String(x).replace(/"/g, '""')}"` : String(x))).join(',')).join('\n');
+    const head = [
+      'from',
+      'to',
+      'phase',
+      'temperature_C',
+      'volume_L',
+      'total_kg',
+      ...comps.flatMap((c) => [`${keyOf(c)}_kg`, `${keyOf(c)}_wt_pct`]),
+    ];
+    const lines = rows.map((r) => [
+      r.from,
+      r.to,
+      r.phase,
+      r.T.toFixed(2),
+      r.L.toFixed(4),
+      r.total.toFixed(6),
+      ...comps.flatMap((c) => {
+        const kg = r.kg[keyOf(c)] ?? 0;
+        return [kg.toPrecision(6), r.total > 0 ? ((100 * kg) / r.total).toFixed(3) : '0'];
+      }),
+    ]);
+    const text = [head, ...lines]
+      .map((l) =>
+        l
+          .map((x) => (/[",\n]/.test(String(x)) ? `"${String(x).replace(/"/g, '""')}"` : String(x)))
+          .join(','),
+      )
+      .join('\n');
     const url = URL.createObjectURL(new Blob([text], { type: 'text/csv' }));
     const a = document.createElement('a');
     a.href = url;
@@ -223,14 +393,28 @@ export function StreamTable() {
   };
   return (
     <div className="space-y-2">
-      <div className="flex justify-end"><Button size="sm" variant="secondary" onClick={csv}>Download CSV</Button></div>
+      <div className="flex justify-end">
+        <Button size="sm" variant="secondary" onClick={csv}>
+          Download CSV
+        </Button>
+      </div>
       <div className="overflow-auto rounded-card border border-rule">
         <table className="w-full border-collapse text-left text-caption tabular-nums">
           <caption className="sr-only">Streams of the route</caption>
           <thead>
             <tr className="bg-paper-sunken text-ink-muted">
-              {['From', 'To', 'Phase', '°C', 'L', 'Total kg', ...comps.map((c) => `${componentLabel(c)} kg (wt %)`)].map((h) => (
-                <th key={h} scope="col" className="border-b border-rule px-2 py-1 font-medium">{h}</th>
+              {[
+                'From',
+                'To',
+                'Phase',
+                '°C',
+                'L',
+                'Total kg',
+                ...comps.map((c) => `${componentLabel(c)} kg (wt %)`),
+              ].map((h) => (
+                <th key={h} scope="col" className="border-b border-rule px-2 py-1 font-medium">
+                  {h}
+                </th>
               ))}
             </tr>
           </thead>
@@ -239,13 +423,21 @@ export function StreamTable() {
               <tr key={r.id} className="border-b border-rule">
                 <td className="px-2 py-1">{r.from}</td>
                 <td className="px-2 py-1">{r.to}</td>
-                <td className="px-2 py-1">{PHASES[r.phase as keyof typeof PHASES]?.label ?? r.phase}</td>
+                <td className="px-2 py-1">
+                  {PHASES[r.phase as keyof typeof PHASES]?.label ?? r.phase}
+                </td>
                 <td className="px-2 py-1">{r.T.toFixed(1)}</td>
                 <td className="px-2 py-1">{r.L.toPrecision(3)}</td>
                 <td className="px-2 py-1">{r.total.toPrecision(4)}</td>
                 {comps.map((c) => {
                   const kg = r.kg[keyOf(c)] ?? 0;
-                  return <td key={keyOf(c)} className="px-2 py-1">{kg ? `${kg.toPrecision(3)} (${((100 * kg) / (r.total || 1)).toFixed(1)})` : '—'}</td>;
+                  return (
+                    <td key={keyOf(c)} className="px-2 py-1">
+                      {kg
+                        ? `${kg.toPrecision(3)} (${((100 * kg) / (r.total || 1)).toFixed(1)})`
+                        : '—'}
+                    </td>
+                  );
                 })}
               </tr>
             ))}

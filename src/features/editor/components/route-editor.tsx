@@ -26,7 +26,13 @@ import { cautionJump } from './results';
 /** An edit's result later than this dims the cards' numbers as stale. */
 const STALE_AFTER_MS = 150;
 
-export default function RouteEditor({ workspaceId, route }: { workspaceId: string; route: RouteDetail }) {
+export default function RouteEditor({
+  workspaceId,
+  route,
+}: {
+  workspaceId: string;
+  route: RouteDetail;
+}) {
   const start = useMemo(() => initialDocument(route.id, route.draft), [route.id, route.draft]);
   const [ready, setReady] = useState(false);
   useEffect(() => {
@@ -37,35 +43,61 @@ export default function RouteEditor({ workspaceId, route }: { workspaceId: strin
   if (!ready) return null;
   return (
     <ReactFlowProvider>
-      <EditorFrame workspaceId={workspaceId} route={route} restored={start.restored} staleLocal={start.staleLocal !== null} />
+      <EditorFrame
+        workspaceId={workspaceId}
+        route={route}
+        restored={start.restored}
+        staleLocal={start.staleLocal !== null}
+      />
     </ReactFlowProvider>
   );
 }
 
-function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId: string; route: RouteDetail; restored: boolean; staleLocal: boolean }) {
+function EditorFrame({
+  workspaceId,
+  route,
+  restored,
+  staleLocal,
+}: {
+  workspaceId: string;
+  route: RouteDetail;
+  restored: boolean;
+  staleLocal: boolean;
+}) {
   const canEdit = route.abilities.edit;
   const save = useAutosave(workspaceId, route.id, route.draft, canEdit, restored);
   const compounds = useWorkspaceCompounds(workspaceId);
   const [tab, setTab] = useState<ResultTab>('cautions');
-  const selectedId = useEditorStore((s) => (s.selection.steps.length === 1 ? s.selection.steps[0] : null));
+  const selectedId = useEditorStore((s) =>
+    s.selection.steps.length === 1 ? s.selection.steps[0] : null,
+  );
   // Choosing a step shows its settings (a jump from the caution list keeps the list).
   useEffect(() => {
     if (selectedId && !cautionJump.current) setTab('step');
     cautionJump.current = false;
   }, [selectedId]);
-  const selectedCautions = useEvaluation((s) => (selectedId ? (s.result?.warnings ?? []).filter((w) => w.stepId === selectedId).length : 0));
+  const selectedCautions = useEvaluation((s) =>
+    selectedId ? (s.result?.warnings ?? []).filter((w) => w.stepId === selectedId).length : 0,
+  );
   const [help, setHelp] = useState(false);
   const flow = useReactFlow();
   const { selected, past, future, notice } = useEditorStore(
     useShallow((s) => ({
-      selected: s.selection.steps.length === 1 ? s.doc.steps.find((x) => x.id === s.selection.steps[0]) ?? null : null,
+      selected:
+        s.selection.steps.length === 1
+          ? (s.doc.steps.find((x) => x.id === s.selection.steps[0]) ?? null)
+          : null,
       past: s.past.length,
       future: s.future.length,
       notice: s.notice,
     })),
   );
-  const cautionCount = useEvaluation((s) => (s.result?.warnings.length ?? 0) + (s.status === 'invalid' ? s.issues.length : 0));
-  const worst = useEvaluation((s) => SEVERITY_ORDER.find((sev) => s.result?.warnings.some((w) => w.severity === sev)));
+  const cautionCount = useEvaluation(
+    (s) => (s.result?.warnings.length ?? 0) + (s.status === 'invalid' ? s.issues.length : 0),
+  );
+  const worst = useEvaluation((s) =>
+    SEVERITY_ORDER.find((sev) => s.result?.warnings.some((w) => w.severity === sev)),
+  );
 
   // Stale results dim on every card through one attribute here, not a re-render of each card.
   // While an edit is evaluated they dim only if its result is late: a quick result would
@@ -73,15 +105,23 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
   const canvasBox = useRef<HTMLDivElement>(null);
   useEffect(() => {
     let late: ReturnType<typeof setTimeout> | undefined;
-    const set = (stale: boolean) => { if (canvasBox.current) canvasBox.current.dataset.resultsStale = String(stale); };
+    const set = (stale: boolean) => {
+      if (canvasBox.current) canvasBox.current.dataset.resultsStale = String(stale);
+    };
     const mark = (status: string) => {
       clearTimeout(late);
-      if (status === 'running') late = setTimeout(() => set(useEvaluation.getState().status === 'running'), STALE_AFTER_MS);
+      if (status === 'running')
+        late = setTimeout(() => set(useEvaluation.getState().status === 'running'), STALE_AFTER_MS);
       else set(status === 'invalid');
     };
     mark(useEvaluation.getState().status);
-    const unsub = useEvaluation.subscribe((s, prev) => { if (s.status !== prev.status) mark(s.status); });
-    return () => { clearTimeout(late); unsub(); };
+    const unsub = useEvaluation.subscribe((s, prev) => {
+      if (s.status !== prev.status) mark(s.status);
+    });
+    return () => {
+      clearTimeout(late);
+      unsub();
+    };
   }, []);
 
   // Every change of the model re-evaluates in the worker.
@@ -135,7 +175,8 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
     const onArrow = (e: KeyboardEvent) => {
       const delta = ARROWS[e.key];
       if (!delta || e.ctrlKey || e.metaKey || e.altKey) return;
-      if ((e.target as HTMLElement).closest('input, textarea, select, [contenteditable="true"]')) return;
+      if ((e.target as HTMLElement).closest('input, textarea, select, [contenteditable="true"]'))
+        return;
       const st = useEditorStore.getState();
       const ids = st.selection.steps;
       if (!ids.length) return;
@@ -145,8 +186,12 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
       const positions: Record<string, { x: number; y: number }> = {};
       for (const id of ids) {
         const node = flow.getNode(id);
-        const at = node?.position ?? st.doc.steps.find((x) => x.id === id)?.position ?? { x: 0, y: 0 };
-        positions[id] = { x: Math.round(at.x + delta[0] * step), y: Math.round(at.y + delta[1] * step) };
+        const at = node?.position ??
+          st.doc.steps.find((x) => x.id === id)?.position ?? { x: 0, y: 0 };
+        positions[id] = {
+          x: Math.round(at.x + delta[0] * step),
+          y: Math.round(at.y + delta[1] * step),
+        };
       }
       st.beginMove();
       st.moveSteps(positions);
@@ -169,32 +214,103 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
     seenCount.current = stepCount;
     if (!stepCount || !grew) return;
     const steps = useEditorStore.getState().doc.steps;
-    requestAnimationFrame(() => fitReadable(flow, opening ? undefined : steps[steps.length - 1]?.id));
+    requestAnimationFrame(() =>
+      fitReadable(flow, opening ? undefined : steps[steps.length - 1]?.id),
+    );
   }, [stepCount, flow]);
 
   return (
     <div className="flex h-full flex-col">
       <header className="flex h-bar shrink-0 items-center gap-3 border-b border-rule bg-paper-raised px-4">
-        <Link to={paths.workspace.home.to(workspaceId)} className="text-small text-accent hover:underline">Routes</Link>
-        <span aria-hidden="true" className="text-ink-faint">/</span>
+        <Link
+          to={paths.workspace.home.to(workspaceId)}
+          className="text-small text-accent hover:underline"
+        >
+          Routes
+        </Link>
+        <span aria-hidden="true" className="text-ink-faint">
+          /
+        </span>
         <h1 className="truncate text-lead font-semibold">{route.name}</h1>
-        {route.project ? <span className="text-small text-ink-muted">{route.project.name}</span> : null}
+        {route.project ? (
+          <span className="text-small text-ink-muted">{route.project.name}</span>
+        ) : null}
         <SaveIndicator state={save.state} canEdit={canEdit} />
         <div className="ml-auto flex items-center gap-1">
-          <Button size="sm" variant="secondary" onClick={() => useEditorStore.getState().undo()} disabled={!past} aria-keyshortcuts="Control+Z">Undo</Button>
-          <Button size="sm" variant="secondary" onClick={() => useEditorStore.getState().redo()} disabled={!future} aria-keyshortcuts="Control+Shift+Z">Redo</Button>
-          <Button size="sm" variant="secondary" disabled={!canEdit} onClick={() => { const st = useEditorStore.getState(); st.setPositions(autoLayout(st.doc)); requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 })); }} aria-keyshortcuts="L">Tidy layout</Button>
-          <Button size="sm" variant="secondary" onClick={() => flow.fitView({ maxZoom: 1, padding: 0.2 })} aria-keyshortcuts="F">Fit view</Button>
-          <Button size="sm" variant="quiet" onClick={() => setHelp((h) => !h)} aria-expanded={help} aria-keyshortcuts="?">Shortcuts</Button>
+          <Button
+            size="sm"
+            variant="secondary"
+            onClick={() => useEditorStore.getState().undo()}
+            disabled={!past}
+            aria-keyshortcuts="Control+Z"
+          >
+            Undo
+          </Button>
+          <Button
+            size="sm"
+            variant="secondary"
+            onClick={() => useEditorStore.getState().redo()}
+            disabled={!future}
+            aria-keyshortcuts="Control+Shift+Z"
+          >
+            Redo
+          </Button>
+          <Button
+            size="sm"
+            variant="secondary"
+            disabled={!canEdit}
+            onClick={() => {
+              const st = useEditorStore.getState();
+              st.setPositions(autoLayout(st.doc));
+              requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 }));
+            }}
+            aria-keyshortcuts="L"
+          >
+            Tidy layout
+          </Button>
+          <Button
+            size="sm"
+            variant="secondary"
+            onClick={() => flow.fitView({ maxZoom: 1, padding: 0.2 })}
+            aria-keyshortcuts="F"
+          >
+            Fit view
+          </Button>
+          <Button
+            size="sm"
+            variant="quiet"
+            onClick={() => setHelp((h) => !h)}
+            aria-expanded={help}
+            aria-keyshortcuts="?"
+          >
+            Shortcuts
+          </Button>
         </div>
       </header>
-      {save.state.kind === 'conflict' ? <ConflictBanner current={save.state.current} onTheirs={save.takeTheirs} onMine={save.keepMine} /> : null}
+      {save.state.kind === 'conflict' ? (
+        <ConflictBanner
+          current={save.state.current}
+          onTheirs={save.takeTheirs}
+          onMine={save.keepMine}
+        />
+      ) : null}
       {staleLocal ? (
-        <p role="status" className="border-b border-rule bg-caution-advisory-soft px-4 py-1.5 text-small text-caution-advisory-deep">
-          This computer held edits made on an older version of the draft; the saved draft is shown. Use Undo history or ask whoever changed it.
+        <p
+          role="status"
+          className="border-b border-rule bg-caution-advisory-soft px-4 py-1.5 text-small text-caution-advisory-deep"
+        >
+          This computer held edits made on an older version of the draft; the saved draft is shown.
+          Use Undo history or ask whoever changed it.
         </p>
       ) : null}
-      {restored ? <p role="status" className="border-b border-rule bg-phase-aqueous-soft px-4 py-1.5 text-small text-phase-aqueous-deep">Unsaved edits from this computer were restored and are being saved.</p> : null}
+      {restored ? (
+        <p
+          role="status"
+          className="border-b border-rule bg-phase-aqueous-soft px-4 py-1.5 text-small text-phase-aqueous-deep"
+        >
+          Unsaved edits from this computer were restored and are being saved.
+        </p>
+      ) : null}
       <div className="flex min-h-0 flex-1">
         {canEdit ? <Palette /> : null}
         <div className="relative min-w-0 flex-1" ref={canvasBox}>
@@ -203,20 +319,35 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
             <div className="pointer-events-none absolute inset-0 flex items-center justify-center">
               <div className="rounded-card border border-dashed border-rule-strong bg-paper/90 px-6 py-5 text-center">
                 <p className="text-title font-medium">An empty canvas — start with a Charge</p>
-                <p className="mt-1 max-w-sm text-body text-ink-muted">Pick “Charge” in the list on the left (or press A, then Enter). Each step you add next joins the selected one.</p>
+                <p className="mt-1 max-w-sm text-body text-ink-muted">
+                  Pick “Charge” in the list on the left (or press A, then Enter). Each step you add
+                  next joins the selected one.
+                </p>
               </div>
             </div>
           ) : null}
           {notice ? (
-            <p role="alert" className="absolute top-2 left-1/2 -translate-x-1/2 rounded-control border border-caution-warning/50 bg-caution-warning-soft px-3 py-1 text-small text-caution-warning-deep">
+            <p
+              role="alert"
+              className="absolute top-2 left-1/2 -translate-x-1/2 rounded-control border border-caution-warning/50 bg-caution-warning-soft px-3 py-1 text-small text-caution-warning-deep"
+            >
               {notice}
             </p>
           ) : null}
           {help ? <ShortcutHelp onClose={() => setHelp(false)} /> : null}
         </div>
-        <aside aria-label="Step and results" className="flex w-96 shrink-0 flex-col border-l border-rule bg-paper-raised">
-          <div className="border-b border-rule p-3"><TotalsCard /></div>
-          <div role="tablist" aria-label="Side panel" className="flex flex-wrap gap-x-0.5 gap-y-1 border-b border-rule bg-paper px-2 pt-1.5">
+        <aside
+          aria-label="Step and results"
+          className="flex w-96 shrink-0 flex-col border-l border-rule bg-paper-raised"
+        >
+          <div className="border-b border-rule p-3">
+            <TotalsCard />
+          </div>
+          <div
+            role="tablist"
+            aria-label="Side panel"
+            className="flex flex-wrap gap-x-0.5 gap-y-1 border-b border-rule bg-paper px-2 pt-1.5"
+          >
             {RESULT_TABS.map(([id, label]) => (
               <button
                 key={id}
@@ -230,20 +361,33 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
               >
                 {label}
                 {id === 'cautions' && cautionCount ? (
-                  <span className="inline-flex items-center gap-1 tabular-nums" data-caution-count={cautionCount} data-worst={worst ?? ''}>
+                  <span
+                    className="inline-flex items-center gap-1 tabular-nums"
+                    data-caution-count={cautionCount}
+                    data-worst={worst ?? ''}
+                  >
                     {worst ? <SeverityMark severity={worst} /> : null}
                     <span>{cautionCount}</span>
-                    {worst ? <span className="sr-only">, worst: {SEVERITY_LABEL[worst]}</span> : null}
+                    {worst ? (
+                      <span className="sr-only">, worst: {SEVERITY_LABEL[worst]}</span>
+                    ) : null}
                   </span>
                 ) : null}
               </button>
             ))}
           </div>
-          <div role="tabpanel" id="results-panel" aria-labelledby={`results-tab-${tab}`} className="min-h-0 flex-1 overflow-y-auto p-3">
+          <div
+            role="tabpanel"
+            id="results-panel"
+            aria-labelledby={`results-tab-${tab}`}
+            className="min-h-0 flex-1 overflow-y-auto p-3"
+          >
             {tab === 'step' ? (
               selected ? (
                 <>
-                  <h2 className="mb-2 text-title font-medium">{KINDS[selected.kind].label}: {selected.name}</h2>
+                  <h2 className="mb-2 text-title font-medium">
+                    {KINDS[selected.kind].label}: {selected.name}
+                  </h2>
                   {/* A disabled fieldset greys out every field for people who may only look. */}
                   <fieldset disabled={!canEdit} className="min-w-0">
                     <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
@@ -251,14 +395,34 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
                   <StepPlot key={`plot-${selected.id}`} step={selected} />
                 </>
               ) : (
-                <p className="text-small text-ink-muted">Select a step on the canvas to see and change its settings.</p>
+                <p className="text-small text-ink-muted">
+                  Select a step on the canvas to see and change its settings.
+                </p>
               )
-            ) : tab === 'cautions' ? <CautionList /> : tab === 'streams' ? <StreamTable /> : tab === 'product' ? <ProductFlow /> : tab === 'purge' ? <PurgePlot /> : <UncertaintyPanel />}
+            ) : tab === 'cautions' ? (
+              <CautionList />
+            ) : tab === 'streams' ? (
+              <StreamTable />
+            ) : tab === 'product' ? (
+              <ProductFlow />
+            ) : tab === 'purge' ? (
+              <PurgePlot />
+            ) : (
+              <UncertaintyPanel />
+            )}
           </div>
           {tab === 'step' && worst && cautionCount ? (
-            <button type="button" onClick={() => setTab('cautions')} className="flex items-center gap-2 border-t border-rule bg-paper px-3 py-1.5 text-left text-caption text-ink-muted hover:bg-accent-soft" data-caution-summary>
+            <button
+              type="button"
+              onClick={() => setTab('cautions')}
+              className="flex items-center gap-2 border-t border-rule bg-paper px-3 py-1.5 text-left text-caption text-ink-muted hover:bg-accent-soft"
+              data-caution-summary
+            >
               <SeverityChip severity={worst} />
-              <span>{cautionCount} caution{cautionCount === 1 ? '' : 's'} on the route{selectedCautions ? `, ${selectedCautions} on this step` : ''} — show the list</span>
+              <span>
+                {cautionCount} caution{cautionCount === 1 ? '' : 's'} on the route
+                {selectedCautions ? `, ${selectedCautions} on this step` : ''} — show the list
+              </span>
             </button>
           ) : null}
         </aside>
@@ -270,7 +434,12 @@ function EditorFrame({ workspaceId, route, restored, staleLocal }: { workspaceId
 const READABLE_ZOOM = 0.6;
 /** The canvas grid the cards snap to [px]. */
 const GRID = 20;
-const ARROWS: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
+const ARROWS: Record<string, [number, number]> = {
+  ArrowLeft: [-1, 0],
+  ArrowRight: [1, 0],
+  ArrowUp: [0, -1],
+  ArrowDown: [0, 1],
+};
 
 /**
  * The whole route when it fits at a readable zoom; otherwise that zoom, on the
@@ -294,8 +463,16 @@ function fitReadable(flow: ReactFlowInstance, focusId?: string) {
     return;
   }
   const focus = focusId ? nodes.find((n) => n.id === focusId) : undefined;
-  if (focus) flow.setCenter(focus.position.x + width(focus) / 2, focus.position.y + height(focus) / 2, { zoom: Math.max(flow.getZoom(), READABLE_ZOOM) });
-  else flow.setViewport({ x: 24 - minX * READABLE_ZOOM, y: h / 2 - ((minY + maxY) / 2) * READABLE_ZOOM, zoom: READABLE_ZOOM });
+  if (focus)
+    flow.setCenter(focus.position.x + width(focus) / 2, focus.position.y + height(focus) / 2, {
+      zoom: Math.max(flow.getZoom(), READABLE_ZOOM),
+    });
+  else
+    flow.setViewport({
+      x: 24 - minX * READABLE_ZOOM,
+      y: h / 2 - ((minY + maxY) / 2) * READABLE_ZOOM,
+      zoom: READABLE_ZOOM,
+    });
 }
 
 type ResultTab = 'step' | 'cautions' | 'streams' | 'product' | 'purge' | 'uncertainty';
@@ -309,21 +486,62 @@ const RESULT_TABS: Array<[ResultTab, string]> = [
 ];
 
 function SaveIndicator({ state, canEdit }: { state: SaveState; canEdit: boolean }) {
-  if (!canEdit) return <span className="text-small text-ink-muted">Read only — you can look but not change this route</span>;
+  if (!canEdit)
+    return (
+      <span className="text-small text-ink-muted">
+        Read only — you can look but not change this route
+      </span>
+    );
   const text =
-    state.kind === 'saved' ? `Draft saved ${formatDateTime(state.at)}` : state.kind === 'pending' ? 'Unsaved changes…' : state.kind === 'saving' ? 'Saving…' : state.kind === 'offline' ? `Not saved yet — kept on this computer (${state.message})` : 'Not saved: changed elsewhere';
-  return <span role="status" aria-live="polite" className={`text-small ${state.kind === 'offline' || state.kind === 'conflict' ? 'text-caution-warning-deep' : 'text-ink-muted'}`} data-save-state={state.kind}>{text}</span>;
+    state.kind === 'saved'
+      ? `Draft saved ${formatDateTime(state.at)}`
+      : state.kind === 'pending'
+        ? 'Unsaved changes…'
+        : state.kind === 'saving'
+          ? 'Saving…'
+          : state.kind === 'offline'
+            ? `Not saved yet — kept on this computer (${state.message})`
+            : 'Not saved: changed elsewhere';
+  return (
+    <span
+      role="status"
+      aria-live="polite"
+      className={`text-small ${state.kind === 'offline' || state.kind === 'conflict' ? 'text-caution-warning-deep' : 'text-ink-muted'}`}
+      data-save-state={state.kind}
+    >
+      {text}
+    </span>
+  );
 }
 
-function ConflictBanner({ current, onTheirs, onMine }: { current: import('@/features/routes/api/schemas').Draft; onTheirs: (d: typeof current) => void; onMine: (d: typeof current) => void }) {
+function ConflictBanner({
+  current,
+  onTheirs,
+  onMine,
+}: {
+  current: import('@/features/routes/api/schemas').Draft;
+  onTheirs: (d: typeof current) => void;
+  onMine: (d: typeof current) => void;
+}) {
   return (
-    <div role="alert" className="flex flex-wrap items-center gap-3 border-b border-caution-warning/50 bg-caution-warning-soft px-4 py-2 text-small text-caution-warning-deep">
-      <svg width="12" height="12" viewBox="0 0 10 10" aria-hidden="true"><path d="M5 0.5 L9.5 9.5 L0.5 9.5 Z" fill="#C4631D" /></svg>
+    <div
+      role="alert"
+      className="flex flex-wrap items-center gap-3 border-b border-caution-warning/50 bg-caution-warning-soft px-4 py-2 text-small text-caution-warning-deep"
+    >
+      <svg width="12" height="12" viewBox="0 0 10 10" aria-hidden="true">
+        <path d="M5 0.5 L9.5 9.5 L0.5 9.5 Z" fill="#C4631D" />
+      </svg>
       <span>
-        <strong>This draft was changed elsewhere by {current.updatedBy?.name ?? 'someone'}</strong> ({formatDateTime(current.updatedAt)}). Your edits are not saved yet and nothing was overwritten.
+        <strong>This draft was changed elsewhere by {current.updatedBy?.name ?? 'someone'}</strong>{' '}
+        ({formatDateTime(current.updatedAt)}). Your edits are not saved yet and nothing was
+        overwritten.
       </span>
-      <Button size="sm" variant="secondary" onClick={() => onTheirs(current)}>Reload their version</Button>
-      <Button size="sm" variant="secondary" onClick={() => onMine(current)}>Keep mine</Button>
+      <Button size="sm" variant="secondary" onClick={() => onTheirs(current)}>
+        Reload their version
+      </Button>
+      <Button size="sm" variant="secondary" onClick={() => onMine(current)}>
+        Keep mine
+      </Button>
     </div>
   );
 }
@@ -345,20 +563,32 @@ const SHORTCUTS: Array<[string, string]> = [
 
 function ShortcutHelp({ onClose }: { onClose: () => void }) {
   return (
-    <section aria-label="Keyboard shortcuts" className="absolute top-3 right-3 z-10 w-80 rounded-card border border-rule bg-paper-raised p-3 shadow-overlay">
+    <section
+      aria-label="Keyboard shortcuts"
+      className="absolute top-3 right-3 z-10 w-80 rounded-card border border-rule bg-paper-raised p-3 shadow-overlay"
+    >
       <div className="mb-2 flex items-center justify-between">
         <h2 className="text-title font-medium">Keyboard shortcuts</h2>
-        <Button size="sm" variant="quiet" onClick={onClose}>Close</Button>
+        <Button size="sm" variant="quiet" onClick={onClose}>
+          Close
+        </Button>
       </div>
       <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-small">
         {SHORTCUTS.map(([k, d]) => (
           <div key={k} className="contents">
-            <dt><kbd className="rounded-control border border-rule bg-paper-sunken px-1 text-caption">{k}</kbd></dt>
+            <dt>
+              <kbd className="rounded-control border border-rule bg-paper-sunken px-1 text-caption">
+                {k}
+              </kbd>
+            </dt>
             <dd className="text-ink-muted">{d}</dd>
           </div>
         ))}
       </dl>
-      <p className="mt-2 text-caption text-ink-muted">Connections: drag from an output mark (right) to an input mark (left), or choose the source under “Inputs” in a step’s settings.</p>
+      <p className="mt-2 text-caption text-ink-muted">
+        Connections: drag from an output mark (right) to an input mark (left), or choose the source
+        under “Inputs” in a step’s settings.
+      </p>
     </section>
   );
 }

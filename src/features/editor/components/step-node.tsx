@@ -13,7 +13,14 @@ export type StepNodeData = { step: StepInput };
 export type StepNodeType = { [K in StepKind]: Node<StepNodeData, K> }[StepKind];
 
 const NO_SUMMARY: Record<string, number | string | null> = {};
-const fmt = (v: number | string | null) => (v === null ? '—' : typeof v === 'number' ? (Math.abs(v) >= 100 ? v.toFixed(0) : Number(v.toPrecision(3)).toString()) : v);
+const fmt = (v: number | string | null) =>
+  v === null
+    ? '—'
+    : typeof v === 'number'
+      ? Math.abs(v) >= 100
+        ? v.toFixed(0)
+        : Number(v.toPrecision(3)).toString()
+      : v;
 
 function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
   const step = data.step;
@@ -27,7 +34,9 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
       return c;
     }),
   );
-  const errors = useEvaluation((s) => (s.status === 'invalid' ? s.issues.filter((i) => i.stepId === id).length : 0));
+  const errors = useEvaluation((s) =>
+    s.status === 'invalid' ? s.issues.filter((i) => i.stepId === id).length : 0,
+  );
   const rows = Math.max(ports.inputs.length, ports.outputs.length);
   return (
     <article
@@ -38,23 +47,50 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
       <header className="flex items-center gap-2 rounded-t-card border-b border-rule bg-paper-sunken px-2.5 py-1.5">
         <KindGlyph kind={step.kind} />
         <div className="min-w-0">
-          <p className="text-caption uppercase tracking-wide text-ink-muted">{KINDS[step.kind].label}</p>
+          <p className="text-caption uppercase tracking-wide text-ink-muted">
+            {KINDS[step.kind].label}
+          </p>
           <p className="truncate text-small font-medium">{step.name || 'Unnamed step'}</p>
         </div>
       </header>
       <div className="relative px-2.5 py-1.5" style={{ minHeight: rows * 22 + 8 }}>
         {ports.inputs.map((p, i) => (
-          <div key={p.name} className="absolute left-0 flex items-center gap-1 pl-3 text-caption text-ink-muted" style={{ top: 6 + i * 22 }}>
-            <Handle type="target" id={handleId('in', p.name)} position={Position.Left} className="pw-port" style={{ top: 8 }} aria-label={`${p.name} input (${PHASES[p.phase].label})`}>
+          <div
+            key={p.name}
+            className="absolute left-0 flex items-center gap-1 pl-3 text-caption text-ink-muted"
+            style={{ top: 6 + i * 22 }}
+          >
+            <Handle
+              type="target"
+              id={handleId('in', p.name)}
+              position={Position.Left}
+              className="pw-port"
+              style={{ top: 8 }}
+              aria-label={`${p.name} input (${PHASES[p.phase].label})`}
+            >
               <PhaseMark phase={p.phase} size={12} />
             </Handle>
-            <span>{p.name}{p.required ? '' : ' (optional)'}</span>
+            <span>
+              {p.name}
+              {p.required ? '' : ' (optional)'}
+            </span>
           </div>
         ))}
         {ports.outputs.map((p, i) => (
-          <div key={p.name} className="absolute right-0 flex items-center gap-1 pr-3 text-caption text-ink-muted" style={{ top: 6 + i * 22 }}>
+          <div
+            key={p.name}
+            className="absolute right-0 flex items-center gap-1 pr-3 text-caption text-ink-muted"
+            style={{ top: 6 + i * 22 }}
+          >
             <span className={PHASES[p.phase].text}>{p.name}</span>
-            <Handle type="source" id={handleId('out', p.name)} position={Position.Right} className="pw-port" style={{ top: 8 }} aria-label={`${p.name} output (${PHASES[p.phase].label})`}>
+            <Handle
+              type="source"
+              id={handleId('out', p.name)}
+              position={Position.Right}
+              className="pw-port"
+              style={{ top: 8 }}
+              aria-label={`${p.name} output (${PHASES[p.phase].label})`}
+            >
               <PhaseMark phase={p.phase} size={12} />
             </Handle>
           </div>
@@ -62,22 +98,39 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
       </div>
       <div className="border-t border-rule px-2.5 py-1.5 text-caption text-ink-muted">
         {keyParams(step).map((l) => (
-          <p key={l} className="truncate">{l}</p>
+          <p key={l} className="truncate">
+            {l}
+          </p>
         ))}
       </div>
       {summary && Object.keys(summary).length ? (
-        <dl className={`grid grid-cols-[1fr_auto] gap-x-2 border-t border-rule px-2.5 py-1.5 text-caption pw-results`} aria-label="Results">
-          {Object.entries(summary).slice(0, 4).map(([k, v]) => (
-            <div key={k} className="contents">
-              <dt className="truncate text-ink-muted">{k}</dt>
-              <dd className="text-right font-medium tabular-nums text-ink" data-result={k}>{fmt(v)}</dd>
-            </div>
-          ))}
+        <dl
+          className={`grid grid-cols-[1fr_auto] gap-x-2 border-t border-rule px-2.5 py-1.5 text-caption pw-results`}
+          aria-label="Results"
+        >
+          {Object.entries(summary)
+            .slice(0, 4)
+            .map(([k, v]) => (
+              <div key={k} className="contents">
+                <dt className="truncate text-ink-muted">{k}</dt>
+                <dd className="text-right font-medium tabular-nums text-ink" data-result={k}>
+                  {fmt(v)}
+                </dd>
+              </div>
+            ))}
         </dl>
       ) : null}
       {errors || SEVERITY_ORDER.some((s) => counts[s]) ? (
         <footer className="flex flex-wrap gap-1 border-t border-rule px-2 py-1.5">
-          {errors ? <span className="inline-flex items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep"><span aria-hidden="true" className="inline-block size-2 rotate-45 bg-caution-hazard" />Needs input {errors}</span> : null}
+          {errors ? (
+            <span className="inline-flex items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep">
+              <span
+                aria-hidden="true"
+                className="inline-block size-2 rotate-45 bg-caution-hazard"
+              />
+              Needs input {errors}
+            </span>
+          ) : null}
           {SEVERITY_ORDER.filter((s) => counts[s]).map((s) => (
             <SeverityChip key={s} severity={s} count={counts[s]} />
           ))}

@@ -1,10 +1,21 @@
 import { memo, useState } from 'react';
-import { BaseEdge, EdgeLabelRenderer, getBezierPath, useStore, type Edge, type EdgeProps } from '@xyflow/react';
+import {
+  BaseEdge,
+  EdgeLabelRenderer,
+  getBezierPath,
+  useStore,
+  type Edge,
+  type EdgeProps,
+} from '@xyflow/react';
 import type { PortPhase } from '@shared/schemas/route';
 import { useEvaluation } from '../evaluation';
 import { PHASES } from './phase';
 
-export type StreamEdgeData = { phase: PortPhase; productId: string | null; names: Record<string, { name: string; kind: string }> };
+export type StreamEdgeData = {
+  phase: PortPhase;
+  productId: string | null;
+  names: Record<string, { name: string; kind: string }>;
+};
 export type StreamEdgeType = Edge<StreamEdgeData, 'stream'>;
 
 /** Below this zoom the labels would cover the cards: they show only for a hovered or selected connection. */
@@ -16,18 +27,41 @@ const zoomedIn = (s: { transform: [number, number, number] }) => s.transform[2] 
  * with the stream it carries: volume and product mass (stacked, to fit between cards) when zoomed in, the main
  * solvent too when hovered or selected.
  */
-function StreamEdgeImpl({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, selected }: EdgeProps<StreamEdgeType>) {
-  const [path, labelX, labelY] = getBezierPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition });
+function StreamEdgeImpl({
+  id,
+  sourceX,
+  sourceY,
+  targetX,
+  targetY,
+  sourcePosition,
+  targetPosition,
+  data,
+  selected,
+}: EdgeProps<StreamEdgeType>) {
+  const [path, labelX, labelY] = getBezierPath({
+    sourceX,
+    sourceY,
+    targetX,
+    targetY,
+    sourcePosition,
+    targetPosition,
+  });
   // The label's words, not the stream object: a new result re-renders only the connections whose label changed.
   const text = useEvaluation((s) => streamLabel(s.result?.streams[id], data));
-  const [label = null, product = null, detail = null] = text ? text.split('\u0000').map((x) => x || null) : [];
+  const [label = null, product = null, detail = null] = text
+    ? text.split('\u0000').map((x) => x || null)
+    : [];
   const phase = PHASES[data?.phase ?? 'liquid'];
   const readable = useStore(zoomedIn);
   const [hover, setHover] = useState(false);
   const full = hover || !!selected;
   return (
     <g onMouseEnter={() => setHover(true)} onMouseLeave={() => setHover(false)}>
-      <BaseEdge id={id} path={path} style={{ stroke: phase.stroke, strokeWidth: selected ? 3 : 2, strokeDasharray: phase.dash }} />
+      <BaseEdge
+        id={id}
+        path={path}
+        style={{ stroke: phase.stroke, strokeWidth: selected ? 3 : 2, strokeDasharray: phase.dash }}
+      />
       {label && (readable || full) ? (
         <EdgeLabelRenderer>
           <div
@@ -52,15 +86,26 @@ function StreamEdgeImpl({ id, sourceX, sourceY, targetX, targetY, sourcePosition
 type StreamOf = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['streams'][string];
 
 /** Volume, product mass and main solvent of a stream, joined by NUL (a string, so selectors compare by value). */
-function streamLabel(stream: StreamOf | undefined, data: StreamEdgeData | undefined): string | null {
+function streamLabel(
+  stream: StreamOf | undefined,
+  data: StreamEdgeData | undefined,
+): string | null {
   if (!stream) return null;
   const L = stream.volumeM3 * 1000;
   const pid = data?.productId;
-  const productKg = pid ? stream.kg[pid] ?? 0 : null;
+  const productKg = pid ? (stream.kg[pid] ?? 0) : null;
   let main = '';
   let best = 0;
-  for (const [k, v] of Object.entries(stream.kg)) if (k !== pid && v > best && data?.names[k]?.kind !== 'compound') { best = v; main = k; }
-  return [`${L >= 10 ? L.toFixed(0) : L.toPrecision(2)} L`, productKg !== null ? `${productKg.toPrecision(3)} kg product` : '', main ? data?.names[main]?.name ?? main : ''].join('\u0000');
+  for (const [k, v] of Object.entries(stream.kg))
+    if (k !== pid && v > best && data?.names[k]?.kind !== 'compound') {
+      best = v;
+      main = k;
+    }
+  return [
+    `${L >= 10 ? L.toFixed(0) : L.toPrecision(2)} L`,
+    productKg !== null ? `${productKg.toPrecision(3)} kg product` : '',
+    main ? (data?.names[main]?.name ?? main) : '',
+  ].join('\u0000');
 }
 
 export const StreamEdge = memo(StreamEdgeImpl);

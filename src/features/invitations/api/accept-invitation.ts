@@ -8,7 +8,12 @@ import { clearSessionEnd } from '@/features/auth/session-end';
 
 /** Joins the workspace; the reply is the new session (the person is signed in). */
 export const acceptInvitation = (token: string, input: AcceptInvitationInput) =>
-  apiRequest(api.acceptInvitation(token), { method: 'POST', body: input, schema: sessionSchema, ignoreUnauthorized: true });
+  apiRequest(api.acceptInvitation(token), {
+    method: 'POST',
+    body: input,
+    schema: sessionSchema,
+    ignoreUnauthorized: true,
+  });
 
 export const useAcceptInvitation = (token: string) => {
   const queryClient = useQueryClient();
@@ -17,7 +22,9 @@ export const useAcceptInvitation = (token: string) => {
     onSuccess: (session) => {
       // Forget what an earlier session loaded. The invitation itself stays: the
       // page still shows it while navigating, and refetching a used one answers 410.
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] && q.queryKey[0] !== 'invitations' });
+      queryClient.removeQueries({
+        predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] && q.queryKey[0] !== 'invitations',
+      });
       clearSessionEnd();
       queryClient.setQueryData(sessionQueryKey, session);
     },

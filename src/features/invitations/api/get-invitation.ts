@@ -4,7 +4,11 @@ import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 
 export const getInvitation = (token: string, signal?: AbortSignal) =>
-  apiRequest(api.invitation(token), { schema: invitationInfoSchema, signal, ignoreUnauthorized: true });
+  apiRequest(api.invitation(token), {
+    schema: invitationInfoSchema,
+    signal,
+    ignoreUnauthorized: true,
+  });
 
 export const getInvitationQueryOptions = (token: string) =>
   queryOptions({

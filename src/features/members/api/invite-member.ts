@@ -5,12 +5,17 @@ import { api } from '@/paths';
 import { getMembersQueryOptions } from './get-members';
 
 export const inviteMember = (workspaceId: string, input: InviteInput) =>
-  apiRequest(api.invitations(workspaceId), { method: 'POST', body: input, schema: invitationSchema });
+  apiRequest(api.invitations(workspaceId), {
+    method: 'POST',
+    body: input,
+    schema: invitationSchema,
+  });
 
 export const useInviteMember = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: InviteInput) => inviteMember(workspaceId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey }),
   });
 };

@@ -10,6 +10,7 @@ export const useRemoveMember = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (userId: string) => removeMember(workspaceId, userId),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey }),
   });
 };

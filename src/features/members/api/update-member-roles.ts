@@ -6,7 +6,11 @@ import { getMembersQueryOptions } from './get-members';
 import { sessionQueryKey } from '@/features/auth/api/get-session';
 
 export const updateMemberRoles = (workspaceId: string, userId: string, input: UpdateRolesInput) =>
-  apiRequest(api.member(workspaceId, userId), { method: 'PATCH', body: input, schema: memberSchema });
+  apiRequest(api.member(workspaceId, userId), {
+    method: 'PATCH',
+    body: input,
+    schema: memberSchema,
+  });
 
 export const useUpdateMemberRoles = (workspaceId: string) => {
   const queryClient = useQueryClient();
@@ -14,7 +18,9 @@ export const useUpdateMemberRoles = (workspaceId: string) => {
     mutationFn: ({ userId, roles }: { userId: string } & UpdateRolesInput) =>
       updateMemberRoles(workspaceId, userId, { roles }),
     onSuccess: async () => {
-      await queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey });
+      await queryClient.invalidateQueries({
+        queryKey: getMembersQueryOptions(workspaceId).queryKey,
+      });
       // The admin may have changed their own roles.
       await queryClient.invalidateQueries({ queryKey: sessionQueryKey });
     },

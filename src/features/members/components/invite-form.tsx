@@ -35,7 +35,12 @@ export function InviteForm({ workspaceId }: { workspaceId: string }) {
         onValueChange={(v) => form.setField('email', v)}
         error={form.errors.email}
       />
-      <RolePicker legend="Roles" value={form.values.roles} onChange={(roles) => form.setField('roles', roles)} error={form.errors.roles} />
+      <RolePicker
+        legend="Roles"
+        value={form.values.roles}
+        onChange={(roles) => form.setField('roles', roles)}
+        error={form.errors.roles}
+      />
       <Button type="submit" busy={invite.isPending}>
         Send invitation
       </Button>

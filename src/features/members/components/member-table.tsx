@@ -11,9 +11,21 @@ import { ConfirmDialog } from '@/components/confirm-dialog';
 import { formatDate } from '@/lib/format';
 import { toast } from '@/stores/toasts';
 
-type MemberTableProps = { workspaceId: string; members: Member[]; currentUserId: string; canUpdateRoles: boolean; canRemove: boolean };
+type MemberTableProps = {
+  workspaceId: string;
+  members: Member[];
+  currentUserId: string;
+  canUpdateRoles: boolean;
+  canRemove: boolean;
+};
 
-export function MemberTable({ workspaceId, members, currentUserId, canUpdateRoles, canRemove }: MemberTableProps) {
+export function MemberTable({
+  workspaceId,
+  members,
+  currentUserId,
+  canUpdateRoles,
+  canRemove,
+}: MemberTableProps) {
   const [editing, setEditing] = useState<string | null>(null);
   const [removing, setRemoving] = useState<Member | null>(null);
   const remove = useRemoveMember(workspaceId);
@@ -34,12 +46,19 @@ export function MemberTable({ workspaceId, members, currentUserId, canUpdateRole
         <tbody>
           {members.map((m) =>
             editing === m.userId ? (
-              <EditRow key={m.userId} workspaceId={workspaceId} member={m} onDone={() => setEditing(null)} />
+              <EditRow
+                key={m.userId}
+                workspaceId={workspaceId}
+                member={m}
+                onDone={() => setEditing(null)}
+              />
             ) : (
               <tr key={m.userId}>
                 <Td>
                   <span className="font-medium">{m.name}</span>
-                  {m.userId === currentUserId ? <span className="ml-1.5 text-caption text-ink-muted">(you)</span> : null}
+                  {m.userId === currentUserId ? (
+                    <span className="ml-1.5 text-caption text-ink-muted">(you)</span>
+                  ) : null}
                   <span className="block text-small text-ink-muted">{m.email}</span>
                 </Td>
                 <Td>
@@ -48,12 +67,23 @@ export function MemberTable({ workspaceId, members, currentUserId, canUpdateRole
                 <Td className="whitespace-nowrap text-ink-muted">{formatDate(m.joinedAt)}</Td>
                 <Td className="text-right whitespace-nowrap">
                   {canUpdateRoles ? (
-                    <Button variant="quiet" size="sm" onClick={() => setEditing(m.userId)} aria-label={`Change roles of ${m.name}`}>
+                    <Button
+                      variant="quiet"
+                      size="sm"
+                      onClick={() => setEditing(m.userId)}
+                      aria-label={`Change roles of ${m.name}`}
+                    >
                       Change roles
                     </Button>
                   ) : null}
                   {canRemove ? (
-                    <Button variant="quiet" size="sm" className="text-caution-hazard-deep" onClick={() => setRemoving(m)} aria-label={`Remove ${m.name}`}>
+                    <Button
+                      variant="quiet"
+                      size="sm"
+                      className="text-caution-hazard-deep"
+                      onClick={() => setRemoving(m)}
+                      aria-label={`Remove ${m.name}`}
+                    >
                       Remove
                     </Button>
                   ) : null}
@@ -79,14 +109,22 @@ export function MemberTable({ workspaceId, members, currentUserId, canUpdateRole
           });
         }}
       >
-        {removing?.name} ({removing?.email}) loses access to this workspace at once. Their routes and signatures stay in the record. You can
-        invite them again later.
+        {removing?.name} ({removing?.email}) loses access to this workspace at once. Their routes
+        and signatures stay in the record. You can invite them again later.
       </ConfirmDialog>
     </>
   );
 }
 
-function EditRow({ workspaceId, member, onDone }: { workspaceId: string; member: Member; onDone: () => void }) {
+function EditRow({
+  workspaceId,
+  member,
+  onDone,
+}: {
+  workspaceId: string;
+  member: Member;
+  onDone: () => void;
+}) {
   const [roles, setRoles] = useState<Role[]>(member.roles);
   const [error, setError] = useState<string>();
   const update = useUpdateMemberRoles(workspaceId);
@@ -113,8 +151,20 @@ function EditRow({ workspaceId, member, onDone }: { workspaceId: string; member:
         <span className="block text-small text-ink-muted">{member.email}</span>
       </Td>
       <Td colSpan={2}>
-        <RolePicker compact legend={`Roles of ${member.name}`} value={roles} onChange={(r) => { setRoles(r); setError(undefined); }} />
-        {error ? <div className="mt-1"><FieldError>{error}</FieldError></div> : null}
+        <RolePicker
+          compact
+          legend={`Roles of ${member.name}`}
+          value={roles}
+          onChange={(r) => {
+            setRoles(r);
+            setError(undefined);
+          }}
+        />
+        {error ? (
+          <div className="mt-1">
+            <FieldError>{error}</FieldError>
+          </div>
+        ) : null}
       </Td>
       <Td className="text-right whitespace-nowrap">
         <Button size="sm" onClick={save} busy={update.isPending}>

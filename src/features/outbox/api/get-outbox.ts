@@ -3,7 +3,8 @@ import { outboxMessageListSchema } from '@shared/schemas/outbox';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 
-export const getOutbox = (signal?: AbortSignal) => apiRequest(api.outbox, { schema: outboxMessageListSchema, signal });
+export const getOutbox = (signal?: AbortSignal) =>
+  apiRequest(api.outbox, { schema: outboxMessageListSchema, signal });
 
 export const getOutboxQueryOptions = () =>
   queryOptions({ queryKey: ['outbox'], queryFn: ({ signal }) => getOutbox(signal) });

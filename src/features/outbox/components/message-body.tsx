@@ -9,7 +9,11 @@ export function MessageBody({ text }: { text: string }) {
     <pre className="font-sans text-body whitespace-pre-wrap text-ink">
       {parts.map((part, i) =>
         i % 2 === 1 ? (
-          <a key={i} href={part} className="break-all font-medium text-accent underline underline-offset-2 hover:text-accent-deep">
+          <a
+            key={i}
+            href={part}
+            className="break-all font-medium text-accent underline underline-offset-2 hover:text-accent-deep"
+          >
             {part}
           </a>
         ) : (

@@ -5,19 +5,28 @@ import { routeDetailSchema } from './schemas';
 import { routesApi } from './urls';
 
 export const createRouteInputSchema = z.object({
-  name: z.string().trim().min(1, 'Give the route a name.').max(200, 'Keep the name under 200 characters.'),
+  name: z
+    .string()
+    .trim()
+    .min(1, 'Give the route a name.')
+    .max(200, 'Keep the name under 200 characters.'),
   projectName: z.string().trim().max(200, 'Keep the project name under 200 characters.').optional(),
   document: z.record(z.string(), z.unknown()).optional(),
 });
 export type CreateRouteInput = z.infer<typeof createRouteInputSchema>;
 
 export const createRoute = (workspaceId: string, input: CreateRouteInput) =>
-  apiRequest(routesApi.create(workspaceId), { method: 'POST', body: input, schema: routeDetailSchema });
+  apiRequest(routesApi.create(workspaceId), {
+    method: 'POST',
+    body: input,
+    schema: routeDetailSchema,
+  });
 
 export const useCreateRoute = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: CreateRouteInput) => createRoute(workspaceId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
   });
 };

@@ -4,12 +4,18 @@ import { routeDetailSchema } from './schemas';
 import { routesApi } from './urls';
 
 export const duplicateRoute = (workspaceId: string, routeId: string, name?: string) =>
-  apiRequest(routesApi.duplicate(workspaceId, routeId), { method: 'POST', body: name ? { name } : {}, schema: routeDetailSchema });
+  apiRequest(routesApi.duplicate(workspaceId, routeId), {
+    method: 'POST',
+    body: name ? { name } : {},
+    schema: routeDetailSchema,
+  });
 
 export const useDuplicateRoute = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ routeId, name }: { routeId: string; name?: string }) => duplicateRoute(workspaceId, routeId, name),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
+    mutationFn: ({ routeId, name }: { routeId: string; name?: string }) =>
+      duplicateRoute(workspaceId, routeId, name),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
   });
 };

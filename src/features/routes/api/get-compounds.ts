@@ -7,8 +7,10 @@ import { routesApi } from './urls';
 export const getWorkspaceCompoundsQueryOptions = (workspaceId: string) =>
   queryOptions({
     queryKey: ['workspaces', workspaceId, 'compounds'],
-    queryFn: ({ signal }) => apiRequest(routesApi.compounds(workspaceId), { schema: compoundListSchema, signal }),
+    queryFn: ({ signal }) =>
+      apiRequest(routesApi.compounds(workspaceId), { schema: compoundListSchema, signal }),
     retry: false,
   });
 
-export const useWorkspaceCompounds = (workspaceId: string) => useQuery(getWorkspaceCompoundsQueryOptions(workspaceId));
+export const useWorkspaceCompounds = (workspaceId: string) =>
+  useQuery(getWorkspaceCompoundsQueryOptions(workspaceId));

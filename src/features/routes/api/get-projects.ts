@@ -6,7 +6,8 @@ import { routesApi } from './urls';
 export const getProjectsQueryOptions = (workspaceId: string) =>
   queryOptions({
     queryKey: ['workspaces', workspaceId, 'projects'],
-    queryFn: ({ signal }) => apiRequest(routesApi.projects(workspaceId), { schema: projectListSchema, signal }),
+    queryFn: ({ signal }) =>
+      apiRequest(routesApi.projects(workspaceId), { schema: projectListSchema, signal }),
   });
 
 export const useProjects = (workspaceId: string) => useQuery(getProjectsQueryOptions(workspaceId));

@@ -15,4 +15,5 @@ export const getRouteQueryOptions = (workspaceId: string, routeId: string) =>
     refetchOnWindowFocus: false,
   });
 
-export const useRoute = (workspaceId: string, routeId: string) => useQuery(getRouteQueryOptions(workspaceId, routeId));
+export const useRoute = (workspaceId: string, routeId: string) =>
+  useQuery(getRouteQueryOptions(workspaceId, routeId));

@@ -12,4 +12,5 @@ export const getRoutesQueryOptions = (workspaceId: string, archived = false) =>
     queryFn: ({ signal }) => getRoutes(workspaceId, archived, signal),
   });
 
-export const useRoutes = (workspaceId: string, archived = false) => useQuery(getRoutesQueryOptions(workspaceId, archived));
+export const useRoutes = (workspaceId: string, archived = false) =>
+  useQuery(getRoutesQueryOptions(workspaceId, archived));

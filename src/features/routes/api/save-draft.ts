@@ -3,14 +3,20 @@ import { saveDraftReplySchema, type DraftConflict, type SaveDraftReply } from '.
 import { getRoute } from './get-route';
 import { routesApi } from './urls';
 
-export type SaveDraftOutcome = { kind: 'saved'; reply: SaveDraftReply } | { kind: 'conflict'; conflict: DraftConflict };
+export type SaveDraftOutcome =
+  { kind: 'saved'; reply: SaveDraftReply } | { kind: 'conflict'; conflict: DraftConflict };
 
 /**
  * PUT the draft against the version it was based on. A 409 means someone else
  * saved meanwhile: the current draft is read back so the editor can show who
  * changed it and let the chemist choose — it is never overwritten silently.
  */
-export async function saveDraft(workspaceId: string, routeId: string, document: unknown, baseVersion: number): Promise<SaveDraftOutcome> {
+export async function saveDraft(
+  workspaceId: string,
+  routeId: string,
+  document: unknown,
+  baseVersion: number,
+): Promise<SaveDraftOutcome> {
   try {
     const reply = await apiRequest(routesApi.draft(workspaceId, routeId), {
       method: 'PUT',

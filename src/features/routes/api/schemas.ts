@@ -20,7 +20,14 @@ import {
 import { monteCarloStartedSchema } from '@shared/schemas/evaluate';
 import { jobSchema, type Job, type MonteCarloResult, type Percentiles } from '@shared/schemas/jobs';
 
-export { draftSchema, keyTotalsSchema as routeTotalsSchema, projectListSchema, routeDetailSchema, routeListSchema, routeSummarySchema };
+export {
+  draftSchema,
+  keyTotalsSchema as routeTotalsSchema,
+  projectListSchema,
+  routeDetailSchema,
+  routeListSchema,
+  routeSummarySchema,
+};
 export { projectSummarySchema as projectSchema };
 export type { RouteDetail, RouteSummary, Job, MonteCarloResult, Percentiles };
 

@@ -6,12 +6,18 @@ import { routesApi } from './urls';
 export type UpdateRouteInput = { name?: string; projectName?: string | null; archived?: boolean };
 
 export const updateRoute = (workspaceId: string, routeId: string, input: UpdateRouteInput) =>
-  apiRequest(routesApi.one(workspaceId, routeId), { method: 'PATCH', body: input, schema: routeSummarySchema.passthrough() });
+  apiRequest(routesApi.one(workspaceId, routeId), {
+    method: 'PATCH',
+    body: input,
+    schema: routeSummarySchema.passthrough(),
+  });
 
 export const useUpdateRoute = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ routeId, input }: { routeId: string; input: UpdateRouteInput }) => updateRoute(workspaceId, routeId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
+    mutationFn: ({ routeId, input }: { routeId: string; input: UpdateRouteInput }) =>
+      updateRoute(workspaceId, routeId, input),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
   });
 };

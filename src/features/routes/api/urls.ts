@@ -10,9 +10,12 @@ export const routesApi = {
     return `${ws(workspaceId)}/routes${s ? `?${s}` : ''}`;
   },
   create: (workspaceId: string) => `${ws(workspaceId)}/routes`,
-  one: (workspaceId: string, routeId: string) => `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}`,
-  duplicate: (workspaceId: string, routeId: string) => `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}/duplicate`,
-  draft: (workspaceId: string, routeId: string) => `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}/draft`,
+  one: (workspaceId: string, routeId: string) =>
+    `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}`,
+  duplicate: (workspaceId: string, routeId: string) =>
+    `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}/duplicate`,
+  draft: (workspaceId: string, routeId: string) =>
+    `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}/draft`,
   projects: (workspaceId: string) => `${ws(workspaceId)}/projects`,
   compounds: (workspaceId: string) => `${ws(workspaceId)}/compounds`,
   evaluate: '/api/v1/evaluate',

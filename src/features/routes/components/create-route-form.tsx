@@ -6,7 +6,13 @@ import { paths } from '@/paths';
 import { createRouteInputSchema, useCreateRoute } from '../api/create-route';
 
 /** Name and project of a new route; on success the editor opens on its empty canvas. */
-export function CreateRouteForm({ workspaceId, onCancel }: { workspaceId: string; onCancel?: () => void }) {
+export function CreateRouteForm({
+  workspaceId,
+  onCancel,
+}: {
+  workspaceId: string;
+  onCancel?: () => void;
+}) {
   const navigate = useNavigate();
   const create = useCreateRoute(workspaceId);
   const form = useForm(createRouteInputSchema, { name: '', projectName: '' });
@@ -28,7 +34,14 @@ export function CreateRouteForm({ workspaceId, onCancel }: { workspaceId: string
         );
       }}
     >
-      <TextField label="Route name" value={form.values.name} onValueChange={(v) => form.setField('name', v)} error={form.errors.name} autoFocus hint="For example “Amide isolation, 5 kg batch”." />
+      <TextField
+        label="Route name"
+        value={form.values.name}
+        onValueChange={(v) => form.setField('name', v)}
+        error={form.errors.name}
+        autoFocus
+        hint="For example “Amide isolation, 5 kg batch”."
+      />
       <TextField
         label="Project (optional)"
         value={form.values.projectName ?? ''}
@@ -46,7 +59,11 @@ export function CreateRouteForm({ workspaceId, onCancel }: { workspaceId: string
           </Button>
         ) : null}
       </div>
-      {form.formError ? <p role="alert" className="text-small text-caution-hazard-deep sm:col-span-3">{form.formError}</p> : null}
+      {form.formError ? (
+        <p role="alert" className="text-small text-caution-hazard-deep sm:col-span-3">
+          {form.formError}
+        </p>
+      ) : null}
     </form>
   );
 }

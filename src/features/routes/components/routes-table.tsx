@@ -19,11 +19,20 @@ import { useDuplicateRoute } from '../api/duplicate-route';
 import { toast } from '@/stores/toasts';
 
 const col = createColumnHelper<RouteSummary>();
-const pct = (v: number | null | undefined) => (v === null || v === undefined ? '—' : `${v.toFixed(1)} %`);
+const pct = (v: number | null | undefined) =>
+  v === null || v === undefined ? '—' : `${v.toFixed(1)} %`;
 const num = (v: number | null | undefined) => (v === null || v === undefined ? '—' : v.toFixed(0));
 
 /** The workspace's routes, grouped by project; sorts by any column, searches name, project and owner. */
-export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: string; routes: RouteSummary[]; canWrite: boolean }) {
+export function RoutesTable({
+  workspaceId,
+  routes,
+  canWrite,
+}: {
+  workspaceId: string;
+  routes: RouteSummary[];
+  canWrite: boolean;
+}) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'updatedAt', desc: true }]);
   const [filter, setFilter] = useState('');
   const [renaming, setRenaming] = useState<{ id: string; name: string } | null>(null);
@@ -35,54 +44,104 @@ export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: st
       col.accessor('name', {
         header: 'Route',
         cell: (c) => (
-          <Link to={paths.workspace.route.to(workspaceId, c.row.original.id)} className="font-medium text-accent hover:underline">
+          <Link
+            to={paths.workspace.route.to(workspaceId, c.row.original.id)}
+            className="font-medium text-accent hover:underline"
+          >
             {c.getValue()}
           </Link>
         ),
       }),
       col.accessor((r) => r.project?.name ?? '', { id: 'project', header: 'Project' }),
       col.accessor((r) => r.owner.name, { id: 'owner', header: 'Owner' }),
-      col.accessor('status', { header: 'Status', cell: (c) => (c.getValue() === 'archived' ? 'Archived' : 'Draft') }),
-      col.accessor('stepCount', { header: 'Steps', cell: (c) => <span className="tabular-nums">{c.getValue()}</span> }),
-      col.accessor((r) => r.totals?.yieldPct ?? null, { id: 'yield', header: 'Yield', sortUndefined: 'last', cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span> }),
-      col.accessor((r) => r.totals?.purityPct ?? null, { id: 'purity', header: 'Purity', cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span> }),
-      col.accessor((r) => r.totals?.pmi ?? null, { id: 'pmi', header: 'PMI', cell: (c) => <span className="tabular-nums">{num(c.getValue())}</span> }),
-      col.accessor('updatedAt', { header: 'Last change', cell: (c) => <span className="tabular-nums">{formatDateTime(c.getValue())}</span> }),
-      ...(!canWrite ? [] : [col.display({
-        id: 'actions',
-        header: () => <span className="sr-only">Actions</span>,
-        cell: (c) => {
-          const r = c.row.original;
-          return (
-            <div className="flex justify-end gap-1">
-              <Button size="sm" variant="quiet" aria-label={`Rename ${r.name}`} onClick={() => setRenaming({ id: r.id, name: r.name })}>
-                Rename
-              </Button>
-              <Button
-                size="sm"
-                variant="quiet"
-                aria-label={`Duplicate ${r.name}`}
-                onClick={() => duplicate.mutate({ routeId: r.id }, { onSuccess: (d) => toast.success(`Duplicated as “${d.name}”.`), onError: (e) => toast.error(e.message) })}
-              >
-                Duplicate
-              </Button>
-              <Button
-                size="sm"
-                variant="quiet"
-                aria-label={`${r.status === 'archived' ? 'Restore' : 'Archive'} ${r.name}`}
-                onClick={() =>
-                  update.mutate(
-                    { routeId: r.id, input: { archived: r.status !== 'archived' } },
-                    { onSuccess: () => toast.success(r.status === 'archived' ? `${r.name} restored.` : `${r.name} archived; find it under “Archived”.`), onError: (e) => toast.error(e.message) },
-                  )
-                }
-              >
-                {r.status === 'archived' ? 'Restore' : 'Archive'}
-              </Button>
-            </div>
-          );
-        },
-      })]),
+      col.accessor('status', {
+        header: 'Status',
+        cell: (c) => (c.getValue() === 'archived' ? 'Archived' : 'Draft'),
+      }),
+      col.accessor('stepCount', {
+        header: 'Steps',
+        cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
+      }),
+      col.accessor((r) => r.totals?.yieldPct ?? null, {
+        id: 'yield',
+        header: 'Yield',
+        sortUndefined: 'last',
+        cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
+      }),
+      col.accessor((r) => r.totals?.purityPct ?? null, {
+        id: 'purity',
+        header: 'Purity',
+        cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
+      }),
+      col.accessor((r) => r.totals?.pmi ?? null, {
+        id: 'pmi',
+        header: 'PMI',
+        cell: (c) => <span className="tabular-nums">{num(c.getValue())}</span>,
+      }),
+      col.accessor('updatedAt', {
+        header: 'Last change',
+        cell: (c) => <span className="tabular-nums">{formatDateTime(c.getValue())}</span>,
+      }),
+      ...(!canWrite
+        ? []
+        : [
+            col.display({
+              id: 'actions',
+              header: () => <span className="sr-only">Actions</span>,
+              cell: (c) => {
+                const r = c.row.original;
+                return (
+                  <div className="flex justify-end gap-1">
+                    <Button
+                      size="sm"
+                      variant="quiet"
+                      aria-label={`Rename ${r.name}`}
+                      onClick={() => setRenaming({ id: r.id, name: r.name })}
+                    >
+                      Rename
+                    </Button>
+                    <Button
+                      size="sm"
+                      variant="quiet"
+                      aria-label={`Duplicate ${r.name}`}
+                      onClick={() =>
+                        duplicate.mutate(
+                          { routeId: r.id },
+                          {
+                            onSuccess: (d) => toast.success(`Duplicated as “${d.name}”.`),
+                            onError: (e) => toast.error(e.message),
+                          },
+                        )
+                      }
+                    >
+                      Duplicate
+                    </Button>
+                    <Button
+                      size="sm"
+                      variant="quiet"
+                      aria-label={`${r.status === 'archived' ? 'Restore' : 'Archive'} ${r.name}`}
+                      onClick={() =>
+                        update.mutate(
+                          { routeId: r.id, input: { archived: r.status !== 'archived' } },
+                          {
+                            onSuccess: () =>
+                              toast.success(
+                                r.status === 'archived'
+                                  ? `${r.name} restored.`
+                                  : `${r.name} archived; find it under “Archived”.`,
+                              ),
+                            onError: (e) => toast.error(e.message),
+                          },
+                        )
+                      }
+                    >
+                      {r.status === 'archived' ? 'Restore' : 'Archive'}
+                    </Button>
+                  </div>
+                );
+              },
+            }),
+          ]),
     ],
     [workspaceId, duplicate, update, canWrite],
   );
@@ -112,7 +171,9 @@ export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: st
     if (!groups.has(key)) groups.set(key, []);
     groups.get(key)!.push(row);
   }
-  const ordered = [...groups.entries()].sort(([a], [b]) => (a === '' ? 1 : b === '' ? -1 : a.localeCompare(b)));
+  const ordered = [...groups.entries()].sort(([a], [b]) =>
+    a === '' ? 1 : b === '' ? -1 : a.localeCompare(b),
+  );
   const span = table.getVisibleLeafColumns().length;
 
   return (
@@ -122,7 +183,14 @@ export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: st
           <label htmlFor="route-search" className="block text-small font-medium text-ink">
             Search routes
           </label>
-          <input id="route-search" type="search" value={filter} onChange={(e) => setFilter(e.target.value)} placeholder="Name, project or owner" className={`${inputClass} border-rule-strong`} />
+          <input
+            id="route-search"
+            type="search"
+            value={filter}
+            onChange={(e) => setFilter(e.target.value)}
+            placeholder="Name, project or owner"
+            className={`${inputClass} border-rule-strong`}
+          />
         </div>
         <p className="pb-2 text-small text-ink-muted" aria-live="polite">
           {rows.length} of {routes.length} routes
@@ -136,15 +204,36 @@ export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: st
             e.preventDefault();
             const name = renaming.name.trim();
             if (!name) return;
-            update.mutate({ routeId: renaming.id, input: { name } }, { onSuccess: () => { toast.success('Route renamed.'); setRenaming(null); }, onError: (err) => toast.error(err.message) });
+            update.mutate(
+              { routeId: renaming.id, input: { name } },
+              {
+                onSuccess: () => {
+                  toast.success('Route renamed.');
+                  setRenaming(null);
+                },
+                onError: (err) => toast.error(err.message),
+              },
+            );
           }}
         >
           <div className="w-80 space-y-1">
-            <label htmlFor="rename-route" className="block text-small font-medium text-ink">New name</label>
-            <input id="rename-route" autoFocus value={renaming.name} onChange={(e) => setRenaming({ ...renaming, name: e.target.value })} className={`${inputClass} border-rule-strong`} />
+            <label htmlFor="rename-route" className="block text-small font-medium text-ink">
+              New name
+            </label>
+            <input
+              id="rename-route"
+              autoFocus
+              value={renaming.name}
+              onChange={(e) => setRenaming({ ...renaming, name: e.target.value })}
+              className={`${inputClass} border-rule-strong`}
+            />
           </div>
-          <Button type="submit" busy={update.isPending}>Save name</Button>
-          <Button variant="secondary" onClick={() => setRenaming(null)}>Cancel</Button>
+          <Button type="submit" busy={update.isPending}>
+            Save name
+          </Button>
+          <Button variant="secondary" onClick={() => setRenaming(null)}>
+            Cancel
+          </Button>
         </form>
       ) : null}
       <div className="overflow-x-auto rounded-card border border-rule bg-paper-raised">
@@ -156,11 +245,24 @@ export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: st
                 {hg.headers.map((h) => {
                   const sorted = h.column.getIsSorted();
                   return (
-                    <th key={h.id} scope="col" aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined} className="border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted">
+                    <th
+                      key={h.id}
+                      scope="col"
+                      aria-sort={
+                        sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined
+                      }
+                      className="border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted"
+                    >
                       {h.column.getCanSort() ? (
-                        <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
+                        <button
+                          type="button"
+                          onClick={h.column.getToggleSortingHandler()}
+                          className="inline-flex items-center gap-1 uppercase hover:text-ink"
+                        >
                           {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden="true">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '·'}</span>
+                          <span aria-hidden="true">
+                            {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '·'}
+                          </span>
                         </button>
                       ) : (
                         flexRender(h.column.columnDef.header, h.getContext())
@@ -174,8 +276,13 @@ export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: st
           {ordered.map(([project, groupRows]) => (
             <tbody key={project || '—'}>
               <tr>
-                <th colSpan={span} scope="rowgroup" className="border-b border-rule bg-paper px-3 py-1.5 text-small font-medium text-ink">
-                  {project || 'No project'} <span className="font-normal text-ink-muted">· {groupRows.length}</span>
+                <th
+                  colSpan={span}
+                  scope="rowgroup"
+                  className="border-b border-rule bg-paper px-3 py-1.5 text-small font-medium text-ink"
+                >
+                  {project || 'No project'}{' '}
+                  <span className="font-normal text-ink-muted">· {groupRows.length}</span>
                 </th>
               </tr>
               {groupRows.map((row) => (
@@ -190,7 +297,11 @@ export function RoutesTable({ workspaceId, routes, canWrite }: { workspaceId: st
             </tbody>
           ))}
         </table>
-        {rows.length === 0 ? <p className="px-3 py-4 text-body text-ink-muted">No route matches “{filter}”. Clear the search to see them all.</p> : null}
+        {rows.length === 0 ? (
+          <p className="px-3 py-4 text-body text-ink-muted">
+            No route matches “{filter}”. Clear the search to see them all.
+          </p>
+        ) : null}
       </div>
     </div>
   );

@@ -3,9 +3,15 @@ import { solventDetailSchema } from '@shared/schemas/solvents';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 
-export const getSolvent = (id: string, signal?: AbortSignal) => apiRequest(api.solvent(id), { schema: solventDetailSchema, signal });
+export const getSolvent = (id: string, signal?: AbortSignal) =>
+  apiRequest(api.solvent(id), { schema: solventDetailSchema, signal });
 
 export const getSolventQueryOptions = (id: string) =>
-  queryOptions({ queryKey: ['solvents', id], queryFn: ({ signal }) => getSolvent(id, signal), staleTime: Infinity });
+  queryOptions({
+    queryKey: ['solvents', id],
+    queryFn: ({ signal }) => getSolvent(id, signal),
+    staleTime: Infinity,
+  });
 
-export const useSolvent = (id: string | null) => useQuery({ ...getSolventQueryOptions(id ?? ''), enabled: id !== null });
+export const useSolvent = (id: string | null) =>
+  useQuery({ ...getSolventQueryOptions(id ?? ''), enabled: id !== null });

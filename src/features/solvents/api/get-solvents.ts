@@ -3,10 +3,15 @@ import { solventListSchema } from '@shared/schemas/solvents';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 
-export const getSolvents = (signal?: AbortSignal) => apiRequest(api.solvents, { schema: solventListSchema, signal });
+export const getSolvents = (signal?: AbortSignal) =>
+  apiRequest(api.solvents, { schema: solventListSchema, signal });
 
 /** The library changes only with a release: keep it for the session. */
 export const getSolventsQueryOptions = () =>
-  queryOptions({ queryKey: ['solvents'], queryFn: ({ signal }) => getSolvents(signal), staleTime: Infinity });
+  queryOptions({
+    queryKey: ['solvents'],
+    queryFn: ({ signal }) => getSolvents(signal),
+    staleTime: Infinity,
+  });
 
 export const useSolvents = () => useQuery(getSolventsQueryOptions());

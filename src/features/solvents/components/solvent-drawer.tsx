@@ -38,7 +38,13 @@ export function SolventDrawer({ solventId, onClose }: { solventId: string; onClo
         </Button>
       </header>
       <div className="flex-1 overflow-y-auto px-4 py-3">
-        {solvent.isPending ? <Loading /> : solvent.isError ? <ErrorState error={solvent.error} onRetry={() => solvent.refetch()} /> : <Details s={solvent.data} />}
+        {solvent.isPending ? (
+          <Loading />
+        ) : solvent.isError ? (
+          <ErrorState error={solvent.error} onRetry={() => solvent.refetch()} />
+        ) : (
+          <Details s={solvent.data} />
+        )}
       </div>
     </aside>
   );
@@ -47,16 +53,46 @@ export function SolventDrawer({ solventId, onClose }: { solventId: string; onClo
 function Details({ s }: { s: SolventDetail }) {
   const rows: Array<[string, React.ReactNode, string | null]> = [
     ['Molar mass', `${s.molarMassGmol.toFixed(3)} g/mol`, 'molarMassGmol'],
-    ['Density', `${s.densityGmL.toFixed(4)} g/mL at ${s.densityTemperatureC} °C${s.densityPerK !== null ? ` (${s.densityPerK} g/mL per K)` : ''}`, 'densityGmL'],
+    [
+      'Density',
+      `${s.densityGmL.toFixed(4)} g/mL at ${s.densityTemperatureC} °C${s.densityPerK !== null ? ` (${s.densityPerK} g/mL per K)` : ''}`,
+      'densityGmL',
+    ],
     ['Normal boiling point', `${s.boilingPointC.toFixed(2)} °C`, 'boilingPointC'],
     ['Melting point', `${s.meltingPointC.toFixed(1)} °C`, 'meltingPointC'],
-    ['Flash point (closed cup)', s.flashPointC === null ? 'none' : `${s.flashPointC} °C`, 'flashPointC'],
-    ['Enthalpy of vaporisation at Tb', s.enthalpyVapKJmol === null ? '—' : `${s.enthalpyVapKJmol} kJ/mol`, s.enthalpyVapKJmol === null ? null : 'enthalpyVapKJmol'],
+    [
+      'Flash point (closed cup)',
+      s.flashPointC === null ? 'none' : `${s.flashPointC} °C`,
+      'flashPointC',
+    ],
+    [
+      'Enthalpy of vaporisation at Tb',
+      s.enthalpyVapKJmol === null ? '—' : `${s.enthalpyVapKJmol} kJ/mol`,
+      s.enthalpyVapKJmol === null ? null : 'enthalpyVapKJmol',
+    ],
     ['Viscosity at 25 °C', `${s.viscosityMPas25C} mPa·s`, 'viscosityMPas25C'],
     ['Hansen δD / δP / δH', `${s.hansen.d} / ${s.hansen.p} / ${s.hansen.h} MPa½`, 'hansen'],
-    ['Molar volume', s.molarVolumeCm3mol === null ? '—' : `${s.molarVolumeCm3mol} cm³/mol`, s.molarVolumeCm3mol === null ? null : 'molarVolumeCm3mol'],
-    ['Water', s.waterMiscibility === 'miscible' ? 'miscible' : s.waterMutualSolubility ? `partly miscible: ${s.waterMutualSolubility.solventInWaterWtPct} wt % in water, ${s.waterMutualSolubility.waterInSolventWtPct} wt % water in it (${s.waterMutualSolubility.temperatureC} °C)` : 'partly miscible', s.waterMutualSolubility ? 'waterMutualSolubility' : null],
-    ['ICH Q3C', s.ich.class === null ? 'not listed' : `Class ${s.ich.class}${s.ich.limitPpm !== null ? `, ${s.ich.limitPpm} ppm` : ''}${s.pdeMgDay ? `, PDE ${s.pdeMgDay} mg/day` : ''}`, 'ich'],
+    [
+      'Molar volume',
+      s.molarVolumeCm3mol === null ? '—' : `${s.molarVolumeCm3mol} cm³/mol`,
+      s.molarVolumeCm3mol === null ? null : 'molarVolumeCm3mol',
+    ],
+    [
+      'Water',
+      s.waterMiscibility === 'miscible'
+        ? 'miscible'
+        : s.waterMutualSolubility
+          ? `partly miscible: ${s.waterMutualSolubility.solventInWaterWtPct} wt % in water, ${s.waterMutualSolubility.waterInSolventWtPct} wt % water in it (${s.waterMutualSolubility.temperatureC} °C)`
+          : 'partly miscible',
+      s.waterMutualSolubility ? 'waterMutualSolubility' : null,
+    ],
+    [
+      'ICH Q3C',
+      s.ich.class === null
+        ? 'not listed'
+        : `Class ${s.ich.class}${s.ich.limitPpm !== null ? `, ${s.ich.limitPpm} ppm` : ''}${s.pdeMgDay ? `, PDE ${s.pdeMgDay} mg/day` : ''}`,
+      'ich',
+    ],
     ['Solvent-selection guide', <GuideChip key="g" category={s.guideCategory} />, 'guideCategory'],
     ['Peroxide former', s.peroxideFormer ? 'yes' : 'no', 'peroxideFormer'],
     ['Low conductivity (static)', s.lowConductivity ? 'yes' : 'no', 'lowConductivity'],
@@ -76,16 +112,20 @@ function Details({ s }: { s: SolventDetail }) {
       <section>
         <h3 className="text-small font-medium text-ink">Antoine constants</h3>
         {s.antoine.length === 0 ? (
-          <p className="text-small text-ink-muted">None curated: vapour pressures use Clausius–Clapeyron from Tb.</p>
+          <p className="text-small text-ink-muted">
+            None curated: vapour pressures use Clausius–Clapeyron from Tb.
+          </p>
         ) : (
           <ul className="mt-1 space-y-2">
             {s.antoine.map((a, i) => (
               <li key={i} className="rounded-control border border-rule px-2 py-1.5 text-small">
                 <p className="font-mono">
-                  log10(P/bar) = {a.A} − {a.B} / ({a.form === 'log10-bar-degC' ? 't/°C' : 'T/K'} + {a.C})
+                  log10(P/bar) = {a.A} − {a.B} / ({a.form === 'log10-bar-degC' ? 't/°C' : 'T/K'} +{' '}
+                  {a.C})
                 </p>
                 <p className="text-ink-muted">
-                  valid {a.TminK}–{a.TmaxK} K ({(a.TminK - 273.15).toFixed(0)}–{(a.TmaxK - 273.15).toFixed(0)} °C)
+                  valid {a.TminK}–{a.TmaxK} K ({(a.TminK - 273.15).toFixed(0)}–
+                  {(a.TmaxK - 273.15).toFixed(0)} °C)
                 </p>
                 <SourceLine source={a.source} />
               </li>
@@ -108,7 +148,15 @@ const STATUS_LABEL: Record<ValueSource['status'], string> = {
 function SourceLine({ source }: { source: ValueSource }) {
   return (
     <p className="mt-0.5 text-caption text-ink-muted">
-      <span className={source.status === 'unverified-memory' ? 'font-medium text-caution-advisory-deep' : undefined}>{STATUS_LABEL[source.status]}</span>
+      <span
+        className={
+          source.status === 'unverified-memory'
+            ? 'font-medium text-caution-advisory-deep'
+            : undefined
+        }
+      >
+        {STATUS_LABEL[source.status]}
+      </span>
       {' — '}
       {source.citation ?? source.ref}
       {source.note ? ` (${source.note})` : ''}

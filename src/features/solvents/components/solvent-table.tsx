@@ -7,7 +7,12 @@ import { cn } from '@/components/cn';
 type Column = 'name' | 'boilingPointC' | 'densityGmL' | 'flashPointC' | 'ich' | 'guideCategory';
 type Sort = { key: Column; dir: 'asc' | 'desc' };
 
-const GUIDE_ORDER = { recommended: 0, problematic: 1, hazardous: 2, 'highly-hazardous': 3 } as const;
+const GUIDE_ORDER = {
+  recommended: 0,
+  problematic: 1,
+  hazardous: 2,
+  'highly-hazardous': 3,
+} as const;
 
 function sortValue(s: SolventSummary, key: Column): string | number | null {
   switch (key) {
@@ -25,15 +30,28 @@ function sortValue(s: SolventSummary, key: Column): string | number | null {
 function compare(a: string | number | null, b: string | number | null): number {
   if (a === null) return b === null ? 0 : 1;
   if (b === null) return -1;
-  return typeof a === 'number' && typeof b === 'number' ? a - b : String(a).localeCompare(String(b));
+  return typeof a === 'number' && typeof b === 'number'
+    ? a - b
+    : String(a).localeCompare(String(b));
 }
 
-export function SolventTable({ solvents, onOpen, selectedId }: { solvents: SolventSummary[]; onOpen: (id: string) => void; selectedId: string | null }) {
+export function SolventTable({
+  solvents,
+  onOpen,
+  selectedId,
+}: {
+  solvents: SolventSummary[];
+  onOpen: (id: string) => void;
+  selectedId: string | null;
+}) {
   const [query, setQuery] = useState('');
   const [sort, setSort] = useState<Sort>({ key: 'name', dir: 'asc' });
   const rows = useMemo(() => {
     const q = query.trim().toLowerCase();
-    const filtered = solvents.filter((s) => !q || [s.name, s.cas, s.smiles, ...s.synonyms].some((t) => t.toLowerCase().includes(q)));
+    const filtered = solvents.filter(
+      (s) =>
+        !q || [s.name, s.cas, s.smiles, ...s.synonyms].some((t) => t.toLowerCase().includes(q)),
+    );
     const sign = sort.dir === 'asc' ? 1 : -1;
     return filtered.sort((a, b) => {
       const va = sortValue(a, sort.key);
@@ -47,7 +65,10 @@ export function SolventTable({ solvents, onOpen, selectedId }: { solvents: Solve
   const header = (label: string, key: Column, className?: string, unit?: string) => {
     const active = sort.key === key;
     return (
-      <Th aria-sort={active ? (sort.dir === 'asc' ? 'ascending' : 'descending') : 'none'} className={className}>
+      <Th
+        aria-sort={active ? (sort.dir === 'asc' ? 'ascending' : 'descending') : 'none'}
+        className={className}
+      >
         <button
           type="button"
           className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink focus-visible:outline-2 focus-visible:outline-accent"
@@ -66,7 +87,13 @@ export function SolventTable({ solvents, onOpen, selectedId }: { solvents: Solve
   return (
     <div className="space-y-3">
       <div className="flex items-end gap-3">
-        <TextField label="Search by name, synonym, CAS RN or SMILES" type="search" value={query} onValueChange={setQuery} className="w-80" />
+        <TextField
+          label="Search by name, synonym, CAS RN or SMILES"
+          type="search"
+          value={query}
+          onValueChange={setQuery}
+          className="w-80"
+        />
         <p className="pb-2 text-small text-ink-muted" aria-live="polite">
           {rows.length} of {solvents.length} solvents
         </p>
@@ -92,19 +119,39 @@ export function SolventTable({ solvents, onOpen, selectedId }: { solvents: Solve
             </tr>
           ) : (
             rows.map((s) => (
-              <tr key={s.id} className={cn('hover:bg-paper-sunken/60', s.id === selectedId && 'bg-accent-soft')}>
+              <tr
+                key={s.id}
+                className={cn('hover:bg-paper-sunken/60', s.id === selectedId && 'bg-accent-soft')}
+              >
                 <Td>
-                  <button type="button" onClick={() => onOpen(s.id)} className="text-left font-medium text-accent hover:underline focus-visible:outline-2 focus-visible:outline-accent">
+                  <button
+                    type="button"
+                    onClick={() => onOpen(s.id)}
+                    className="text-left font-medium text-accent hover:underline focus-visible:outline-2 focus-visible:outline-accent"
+                  >
                     {s.name}
                   </button>
                   <span className="block text-caption text-ink-muted">{s.cas}</span>
                 </Td>
                 <Td className="text-right tabular-nums">{s.boilingPointC.toFixed(1)}</Td>
                 <Td className="text-right tabular-nums">
-                  {s.densityGmL.toFixed(3)} <span className="text-caption text-ink-muted">({s.densityTemperatureC} °C)</span>
+                  {s.densityGmL.toFixed(3)}{' '}
+                  <span className="text-caption text-ink-muted">({s.densityTemperatureC} °C)</span>
                 </Td>
-                <Td className="text-right tabular-nums">{s.flashPointC === null ? <span className="text-ink-muted">none</span> : s.flashPointC.toFixed(0)}</Td>
-                <Td>{s.ich.class === null ? <span className="text-ink-muted">not listed</span> : `Class ${s.ich.class}${s.ich.limitPpm !== null ? ` · ${s.ich.limitPpm} ppm` : ''}`}</Td>
+                <Td className="text-right tabular-nums">
+                  {s.flashPointC === null ? (
+                    <span className="text-ink-muted">none</span>
+                  ) : (
+                    s.flashPointC.toFixed(0)
+                  )}
+                </Td>
+                <Td>
+                  {s.ich.class === null ? (
+                    <span className="text-ink-muted">not listed</span>
+                  ) : (
+                    `Class ${s.ich.class}${s.ich.limitPpm !== null ? ` · ${s.ich.limitPpm} ppm` : ''}`
+                  )}
+                </Td>
                 <Td>
                   <GuideChip category={s.guideCategory} />
                 </Td>
@@ -131,13 +178,35 @@ const GUIDE_TONE = {
 } as const;
 
 export function GuideChip({ category }: { category: SolventSummary['guideCategory'] }) {
-  return <span className={cn('inline-block rounded-control px-1.5 py-0.5 text-caption font-medium', GUIDE_TONE[category])}>{GUIDE_CATEGORY_LABELS[category]}</span>;
+  return (
+    <span
+      className={cn(
+        'inline-block rounded-control px-1.5 py-0.5 text-caption font-medium',
+        GUIDE_TONE[category],
+      )}
+    >
+      {GUIDE_CATEGORY_LABELS[category]}
+    </span>
+  );
 }
 
 function Flag({ tone, children }: { tone: 'hazard' | 'warning'; children: string }) {
   return (
-    <span className={cn('inline-flex items-center gap-1 rounded-control px-1.5 py-0.5 text-caption font-medium', tone === 'hazard' ? 'bg-caution-hazard-soft text-caution-hazard-deep' : 'bg-caution-warning-soft text-caution-warning-deep')}>
-      <span aria-hidden="true" className={cn('inline-block size-1.5 rotate-45', tone === 'hazard' ? 'bg-caution-hazard' : 'bg-caution-warning')} />
+    <span
+      className={cn(
+        'inline-flex items-center gap-1 rounded-control px-1.5 py-0.5 text-caption font-medium',
+        tone === 'hazard'
+          ? 'bg-caution-hazard-soft text-caution-hazard-deep'
+          : 'bg-caution-warning-soft text-caution-warning-deep',
+      )}
+    >
+      <span
+        aria-hidden="true"
+        className={cn(
+          'inline-block size-1.5 rotate-45',
+          tone === 'hazard' ? 'bg-caution-hazard' : 'bg-caution-warning',
+        )}
+      />
       {children}
     </span>
   );

@@ -3,7 +3,8 @@ import { apiTokenListSchema } from '@shared/schemas/tokens';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 
-export const getTokens = (signal?: AbortSignal) => apiRequest(api.tokens, { schema: apiTokenListSchema, signal });
+export const getTokens = (signal?: AbortSignal) =>
+  apiRequest(api.tokens, { schema: apiTokenListSchema, signal });
 
 export const getTokensQueryOptions = () =>
   queryOptions({ queryKey: ['tokens'], queryFn: ({ signal }) => getTokens(signal) });

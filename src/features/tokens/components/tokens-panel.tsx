@@ -71,8 +71,13 @@ function NewTokenNotice({ token, onDismiss }: { token: CreatedToken; onDismiss: 
     }
   };
   return (
-    <div role="status" className="rounded-card border border-caution-advisory/50 bg-caution-advisory-soft p-4">
-      <p className="font-medium text-caution-advisory-deep">Token “{token.name}” created. Copy it now: it is shown only this once.</p>
+    <div
+      role="status"
+      className="rounded-card border border-caution-advisory/50 bg-caution-advisory-soft p-4"
+    >
+      <p className="font-medium text-caution-advisory-deep">
+        Token “{token.name}” created. Copy it now: it is shown only this once.
+      </p>
       <div className="mt-2 flex items-center gap-2">
         <code
           aria-label="New API token"
@@ -88,7 +93,8 @@ function NewTokenNotice({ token, onDismiss }: { token: CreatedToken; onDismiss: 
         </Button>
       </div>
       <p className="mt-2 text-caption text-ink-muted">
-        Send it as <code className="font-mono">Authorization: Bearer &lt;token&gt;</code>. It acts with your roles until you revoke it.
+        Send it as <code className="font-mono">Authorization: Bearer &lt;token&gt;</code>. It acts
+        with your roles until you revoke it.
       </p>
     </div>
   );
@@ -100,11 +106,19 @@ function TokenList() {
   const [revoking, setRevoking] = useState<ApiToken | null>(null);
 
   if (tokens.isPending) return <Loading label="Loading tokens…" />;
-  if (tokens.isError) return <ErrorState error={tokens.error} title="Tokens could not be loaded" onRetry={() => tokens.refetch()} />;
+  if (tokens.isError)
+    return (
+      <ErrorState
+        error={tokens.error}
+        title="Tokens could not be loaded"
+        onRetry={() => tokens.refetch()}
+      />
+    );
   if (tokens.data.length === 0) {
     return (
       <EmptyState title="No API tokens">
-        Create a token when a script or another system needs to read or write Phasewright data on your behalf.
+        Create a token when a script or another system needs to read or write Phasewright data on
+        your behalf.
       </EmptyState>
     );
   }
@@ -126,9 +140,17 @@ function TokenList() {
             <tr key={t.id}>
               <Td className="font-medium">{t.name}</Td>
               <Td className="text-ink-muted">{formatDateTime(t.createdAt)}</Td>
-              <Td className="text-ink-muted">{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : 'Never'}</Td>
+              <Td className="text-ink-muted">
+                {t.lastUsedAt ? formatDateTime(t.lastUsedAt) : 'Never'}
+              </Td>
               <Td className="text-right">
-                <Button variant="quiet" size="sm" className="text-caution-hazard-deep" onClick={() => setRevoking(t)} aria-label={`Revoke ${t.name}`}>
+                <Button
+                  variant="quiet"
+                  size="sm"
+                  className="text-caution-hazard-deep"
+                  onClick={() => setRevoking(t)}
+                  aria-label={`Revoke ${t.name}`}
+                >
                   Revoke
                 </Button>
               </Td>
@@ -152,7 +174,8 @@ function TokenList() {
           });
         }}
       >
-        Anything still using this token is refused from now on. This cannot be undone; create a new token if you need one.
+        Anything still using this token is refused from now on. This cannot be undone; create a new
+        token if you need one.
       </ConfirmDialog>
     </>
   );
