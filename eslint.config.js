@@ -1,9 +1,86 @@
+import { readdirSync } from 'node:fs';
+import { URL } from 'node:url';
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
+import { importX } from 'eslint-plugin-import-x';
+import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
+
+/**
+ * Layer rules (DEVELOPERS.md, "Layers"). Paths are resolved, so a relative
+ * import and an alias (`@/`, `@shared/`) are judged alike.
+ *
+ * - shared/engine imports only shared/engine and the pure packages below.
+ * - shared/* never imports the client or the server; shared/schemas may import
+ *   the engine, never the other way round.
+ * - src/features/<a> imports another feature only through its index.ts.
+ * - src/components, src/lib and src/api never import features, pages or the app.
+ * - server/routes never imports server/models (routes call services).
+ * - src never imports server, server never imports src.
+ */
+export const ENGINE_PACKAGES = ['zod'];
+
+const features = readdirSync(new URL('./src/features', import.meta.url), {
+  withFileTypes: true,
+})
+  .filter((entry) => entry.isDirectory())
+  .map((entry) => entry.name);
+
+const featureZones = features.flatMap((feature) =>
+  features
+    .filter((other) => other !== feature)
+    .map((other) => ({
+      target: `./src/features/${feature}`,
+      from: `./src/features/${other}`,
+      except: ['./index.ts'],
+      message: `Import the "${other}" feature through its public index (@/features/${other}).`,
+    })),
+);
+
+const layerZones = [
+  {
+    target: './shared/engine',
+    from: [
+      './shared/schemas',
+      './shared/chemistry',
+      './src',
+      './server',
+      './tests',
+      './seeders',
+      './migrations',
+    ],
+    message: 'The engine is pure: it imports only shared/engine and its declared packages.',
+  },
+  {
+    target: './shared',
+    from: ['./src', './server', './seeders', './migrations'],
+    message: 'shared/ is imported by the client and the server, never the other way round.',
+  },
+  {
+    target: './server/routes',
+    from: './server/models',
+    message: 'HTTP routes call services and policies; models are the services’ business.',
+  },
+  {
+    target: './src',
+    from: ['./server', './seeders', './migrations'],
+    message: 'The client never imports server code; share it through shared/.',
+  },
+  {
+    target: './server',
+    from: './src',
+    message: 'The server never imports client code; share it through shared/.',
+  },
+  {
+    target: ['./src/components', './src/lib', './src/api'],
+    from: ['./src/features', './src/routes', './src/app'],
+    message:
+      'Shared client pieces sit below features, pages and the app: they may not import them.',
+  },
+];
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-output/**'] },
+  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-output/**', 'coverage/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
@@ -23,12 +100,30 @@ export default tseslint.config(
     },
   },
   {
-    // The engine stays pure: no I/O, no database, no DOM.
+    files: ['**/*.{ts,tsx}'],
+    plugins: { 'import-x': importX },
+    settings: {
+      'import-x/resolver-next': [createTypeScriptImportResolver({ project: './tsconfig.json' })],
+    },
+    rules: {
+      'import-x/no-restricted-paths': ['error', { zones: [...layerZones, ...featureZones] }],
+      'import-x/no-duplicates': 'error',
+    },
+  },
+  {
+    // The engine stays pure: no I/O, no database, no DOM, no package but its own.
     files: ['shared/engine/**/*.ts'],
     rules: {
       'no-restricted-imports': [
         'error',
-        { patterns: ['node:*', 'fs', 'path', 'sequelize', 'pg', 'express', 'react'] },
+        {
+          patterns: [
+            {
+              regex: `^(?!\\.|(${ENGINE_PACKAGES.join('|')})(/|$))`,
+              message: `The engine imports only shared/engine and ${ENGINE_PACKAGES.join(', ')}.`,
+            },
+          ],
+        },
       ],
       'no-restricted-globals': ['error', 'window', 'document', 'fetch', 'localStorage'],
     },

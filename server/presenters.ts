@@ -7,9 +7,19 @@ import type {
 import type { OutboxMessage as OutboxPayload } from '@shared/schemas/outbox';
 import type { Role, Session } from '@shared/schemas/session';
 import type { ApiToken as ApiTokenPayload } from '@shared/schemas/tokens';
-import type { ApiToken, Invitation, Membership, OutboxMessage, User } from './models';
+import type { DraftDocument, KeyTotals, RouteDetail, RouteSummary } from '@shared/schemas/routes';
+import type { RouteTotals } from '@shared/engine/route/evaluate';
+import type {
+  ApiToken,
+  Invitation,
+  Membership,
+  OutboxMessage,
+  Route,
+  RouteDraft,
+  User,
+} from './models';
 import { Workspace } from './models';
-import { abilitiesFor, type Actor } from './policies';
+import { abilitiesFor, can, type Actor } from './policies';
 
 export async function presentSession(
   user: User,
@@ -74,3 +84,49 @@ export const presentOutboxMessage = (message: OutboxMessage): OutboxPayload => (
   html: message.html,
   receivedAt: message.receivedAt.toISOString(),
 });
+
+export function presentKeyTotals(totals: unknown): KeyTotals | null {
+  if (!totals) return null;
+  const t = totals as RouteTotals;
+  return { yieldPct: t.yieldPct, purityPct: t.purityWtPct, pmi: t.pmi };
+}
+
+const latest = (a: Date, b: Date) => (a > b ? a : b);
+
+export function presentRouteSummary(route: Route): RouteSummary {
+  const draft = route.draft as RouteDraft;
+  return {
+    id: route.id,
+    name: route.name,
+    project: route.project ? { id: route.project.id, name: route.project.name } : null,
+    status: route.archivedAt ? 'archived' : 'draft',
+    owner: { id: route.owner!.id, name: route.owner!.name },
+    updatedAt: latest(route.updatedAt, draft.updatedAt).toISOString(),
+    draftVersion: draft.version,
+    totals: presentKeyTotals(draft.totals),
+    stepCount: draft.stepCount,
+  };
+}
+
+export function presentRouteDetail(route: Route, actor: Actor): RouteDetail {
+  const draft = route.draft as RouteDraft;
+  const scope = { workspaceId: route.workspaceId as string };
+  const writable = !route.archivedAt;
+  return {
+    ...presentRouteSummary(route),
+    draft: {
+      document: draft.document as DraftDocument,
+      version: draft.version,
+      updatedAt: draft.updatedAt.toISOString(),
+      updatedBy: { id: draft.updatedBy!.id, name: draft.updatedBy!.name },
+      evaluationError: (draft.evaluationError ?? null) as RouteDetail['draft']['evaluationError'],
+    },
+    abilities: {
+      read: can(actor, 'route.read', scope),
+      edit: writable && can(actor, 'route.editDraft', scope),
+      rename: can(actor, 'route.rename', scope),
+      duplicate: can(actor, 'route.duplicate', scope),
+      archive: can(actor, 'route.archive', scope),
+    },
+  };
+}

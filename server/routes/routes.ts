@@ -13,14 +13,10 @@ import {
   saveDraftSchema,
   updateRouteSchema,
   type DraftDocument,
-  type KeyTotals,
-  type RouteDetail,
-  type RouteSummary,
 } from '@shared/schemas/routes';
-import type { RouteTotals } from '@shared/engine/route/evaluate';
 import { defineRoute } from '../http/route';
-import type { Route, RouteDraft } from '../models';
-import { authorize, can, type Actor } from '../policies';
+import { presentKeyTotals, presentRouteDetail, presentRouteSummary } from '../presenters';
+import { authorize } from '../policies';
 import { saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
 import { loadWorkspace } from '../services/members';
 import {
@@ -42,52 +38,6 @@ const forbiddenResponse = {
   description: 'Only chemists and admins change routes.',
   schema: apiErrorSchema,
 };
-
-function keyTotals(totals: unknown): KeyTotals | null {
-  if (!totals) return null;
-  const t = totals as RouteTotals;
-  return { yieldPct: t.yieldPct, purityPct: t.purityWtPct, pmi: t.pmi };
-}
-
-const latest = (a: Date, b: Date) => (a > b ? a : b);
-
-function presentSummary(route: Route): RouteSummary {
-  const draft = route.draft as RouteDraft;
-  return {
-    id: route.id,
-    name: route.name,
-    project: route.project ? { id: route.project.id, name: route.project.name } : null,
-    status: route.archivedAt ? 'archived' : 'draft',
-    owner: { id: route.owner!.id, name: route.owner!.name },
-    updatedAt: latest(route.updatedAt, draft.updatedAt).toISOString(),
-    draftVersion: draft.version,
-    totals: keyTotals(draft.totals),
-    stepCount: draft.stepCount,
-  };
-}
-
-function presentDetail(route: Route, actor: Actor): RouteDetail {
-  const draft = route.draft as RouteDraft;
-  const scope = { workspaceId: route.workspaceId as string };
-  const writable = !route.archivedAt;
-  return {
-    ...presentSummary(route),
-    draft: {
-      document: draft.document as DraftDocument,
-      version: draft.version,
-      updatedAt: draft.updatedAt.toISOString(),
-      updatedBy: { id: draft.updatedBy!.id, name: draft.updatedBy!.name },
-      evaluationError: (draft.evaluationError ?? null) as RouteDetail['draft']['evaluationError'],
-    },
-    abilities: {
-      read: can(actor, 'route.read', scope),
-      edit: writable && can(actor, 'route.editDraft', scope),
-      rename: can(actor, 'route.rename', scope),
-      duplicate: can(actor, 'route.duplicate', scope),
-      archive: can(actor, 'route.archive', scope),
-    },
-  };
-}
 
 export function routesRouter(): Router {
   const router = Router();
@@ -112,7 +62,7 @@ export function routesRouter(): Router {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.list', { workspaceId: workspace.id });
       const routes = await listRoutes(workspace.id, query, transaction);
-      return { status: 200, body: routes.map(presentSummary) };
+      return { status: 200, body: routes.map(presentRouteSummary) };
     },
   });
 
@@ -145,7 +95,7 @@ export function routesRouter(): Router {
         },
         transaction,
       );
-      return { status: 201, body: presentDetail(route, actor) };
+      return { status: 201, body: presentRouteDetail(route, actor) };
     },
   });
 
@@ -165,7 +115,7 @@ export function routesRouter(): Router {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.read', { workspaceId: workspace.id });
       const route = await loadRoute(workspace.id, params.routeId, transaction);
-      return { status: 200, body: presentDetail(route, actor) };
+      return { status: 200, body: presentRouteDetail(route, actor) };
     },
   });
 
@@ -192,7 +142,7 @@ export function routesRouter(): Router {
       if (body.archived !== undefined) authorize(actor, 'route.archive', scope);
       const route = await loadRoute(workspace.id, params.routeId, transaction);
       const updated = await updateRoute(route, body, actor.userId, transaction);
-      return { status: 200, body: presentDetail(updated, actor) };
+      return { status: 200, body: presentRouteDetail(updated, actor) };
     },
   });
 
@@ -215,7 +165,7 @@ export function routesRouter(): Router {
       authorize(actor, 'route.duplicate', { workspaceId: workspace.id });
       const route = await loadRoute(workspace.id, params.routeId, transaction);
       const copy = await duplicateRoute(route, body.name, actor.userId, transaction);
-      return { status: 201, body: presentDetail(copy, actor) };
+      return { status: 201, body: presentRouteDetail(copy, actor) };
     },
   });
 
@@ -256,7 +206,7 @@ export function routesRouter(): Router {
         body: {
           version: draft.version,
           updatedAt: draft.updatedAt.toISOString(),
-          totals: keyTotals(evaluation.totals),
+          totals: presentKeyTotals(evaluation.totals),
           evaluationError: evaluation.evaluationError,
           warnings: evaluation.warnings,
           processSafetyNote: PROCESS_SAFETY_NOTE,

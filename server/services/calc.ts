@@ -18,8 +18,8 @@ import type {
   SolubilityRequest,
   VapourPressureReply,
   VapourPressureRequest,
+  partitionRequestSchema,
 } from '@shared/schemas/calc';
-import type { partitionRequestSchema } from '@shared/schemas/calc';
 import type { z } from 'zod';
 import { AQUEOUS_SOLUTES, aqueousSoluteById, type SolventRecord } from '@shared/engine/data';
 import {

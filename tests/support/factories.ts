@@ -1,8 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
-import type { Role } from '@shared/schemas/session';
-import { sessionSchema, type Session } from '@shared/schemas/session';
+import type { Role, Session } from '@shared/schemas/session';
+import { sessionSchema } from '@shared/schemas/session';
 import { Membership, User, Workspace } from '../../server/models';
 import { hashPassword } from '../../server/services/passwords';
 

@@ -5,15 +5,9 @@
  */
 import type { AqueousSoluteRecord, SolventRecord } from '../data/types';
 import { aqueousSoluteById, solventById } from '../data/index';
-import {
-  componentKey,
-  type CompoundSnapshot,
-  type RouteDocument,
-  type Uncertain,
-  type Volume,
-} from '../../schemas/route';
+import { componentKey } from '../document';
 import type { EngineWarning, MethodUsed, Stream } from './types';
-import type { PortPhase } from '../../schemas/route';
+import type { PortPhase, CompoundSnapshot, RouteDocument, Uncertain, Volume } from '../document';
 import type { SeededRandom } from '../random';
 import { createUnifacModelCache, type UnifacModelCache } from '../thermo/unifac';
 

@@ -18,12 +18,7 @@
  *  - peak volume per step; cycle time as the sum of the steps' durations
  *    (common-practice durations, parallel branches counted in series).
  */
-import {
-  routeDocumentSchema,
-  PORTS,
-  type RouteDocument,
-  type RouteStep,
-} from '../../schemas/route';
+import { routeDocumentSchema, PORTS, type RouteDocument, type RouteStep } from '../document';
 import type { SeededRandom } from '../random';
 import { EngineError } from '../errors';
 import {

@@ -14,7 +14,7 @@
  * between chunks and report progress.
  */
 import { createRandom } from '../random';
-import type { RouteDocument } from '../../schemas/route';
+import type { RouteDocument } from '../document';
 import { evaluatePrepared, parseRoute, prepareRoute, type PreparedRoute } from './evaluate';
 
 export interface Percentiles {

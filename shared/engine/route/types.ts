@@ -7,9 +7,9 @@
  * volume): V = Σ m_i / ρ_i(T). Moles are derivable from the molar masses in
  * the evaluation context.
  */
-import type { EngineWarning, MethodUsed, PortPhase, StepKind } from '../../schemas/route';
+import type { EngineWarning, MethodUsed, PortPhase, StepKind } from '../document';
 
-export type { EngineWarning, MethodUsed } from '../../schemas/route';
+export type { EngineWarning, MethodUsed } from '../document';
 
 export interface Stream {
   phase: PortPhase;

@@ -6,7 +6,7 @@
  * not for this route (e.g. a medium above its saturation wt %).
  * Every issue names the step (or null for the document) and the field.
  */
-import { PHASE_ACCEPTS, PORTS, type RouteDocument, type RouteStep } from '../../schemas/route';
+import { PHASE_ACCEPTS, PORTS, type RouteDocument, type RouteStep } from '../document';
 import type { EvalContext } from './context';
 import type { RouteIssue } from './errors';
 
@@ -107,9 +107,7 @@ function references(step: RouteStep): Ref[] {
   return r;
 }
 
-function usesAqueousMedium(
-  step: RouteStep,
-): Array<{
+function usesAqueousMedium(step: RouteStep): Array<{
   field: string;
   soluteId: string;
   wtPct: number | { value: number; plusMinus: number };

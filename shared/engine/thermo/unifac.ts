@@ -388,9 +388,7 @@ export function activityCoefficients(
  * @returns one row per subgroup, in subgroup-number order; throws
  *          UnifacParameterError for an unknown subgroup
  */
-export function unifacGroupsSummary(
-  groups: UnifacGroups,
-): Array<{
+export function unifacGroupsSummary(groups: UnifacGroups): Array<{
   subgroup: number;
   name: string;
   mainGroup: number;

@@ -11,8 +11,8 @@
  * temperature (solids count as dissolved until a crystallisation says
  * otherwise); no reaction.
  */
-import type { ParamsOf, RouteStep } from '../../schemas/route';
-import { RANGES } from '../../schemas/route';
+import type { ParamsOf, RouteStep } from '../document';
+import { RANGES } from '../document';
 import type { EvalContext } from '../route/context';
 import {
   aqueousMediumKg,

@@ -1,5 +1,5 @@
 /** Helpers shared by the step models. */
-import type { RouteStep } from '../../schemas/route';
+import type { RouteStep } from '../document';
 import type { StepDuration, StepResult } from '../route/types';
 
 export function newResult(

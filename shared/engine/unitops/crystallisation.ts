@@ -17,8 +17,8 @@
  * Units: T [K], masses [kg], volumes [m³]. Kinetics (metastable zone,
  * growth, agglomeration) are not modelled: the result is an end-point bound.
  */
-import type { ParamsOf, RouteStep } from '../../schemas/route';
-import { RANGES } from '../../schemas/route';
+import type { ParamsOf, RouteStep } from '../document';
+import { RANGES } from '../document';
 import type { EvalContext } from '../route/context';
 import {
   commonCautions,

@@ -21,8 +21,8 @@
  * Units: volumes [m³] inside, reported in L; T [K] inside, reported in °C;
  * P [Pa] inside, reported in mbar.
  */
-import type { ParamsOf, RouteStep } from '../../schemas/route';
-import { RANGES } from '../../schemas/route';
+import type { ParamsOf, RouteStep } from '../document';
+import { RANGES } from '../document';
 import {
   bubblePoint,
   bubblePressure,

@@ -16,8 +16,8 @@
  * Each residual solvent is compared with its ICH Q3C (R9) concentration
  * limit (Option 1, ppm) from the solvent library.
  */
-import type { ParamsOf, RouteStep } from '../../schemas/route';
-import { RANGES } from '../../schemas/route';
+import type { ParamsOf, RouteStep } from '../document';
+import { RANGES } from '../document';
 import { vapourPressure } from '../thermo/antoine';
 import type { EvalContext } from '../route/context';
 import { commonCautions, cToK, emptyStream, finishStream, method, warn } from '../route/context';

@@ -25,8 +25,8 @@
  * Validity: incompressible cake, constant pressure; α, R_m and A are
  * parameters with stated defaults.
  */
-import type { ParamsOf, RouteStep } from '../../schemas/route';
-import { RANGES } from '../../schemas/route';
+import type { ParamsOf, RouteStep } from '../document';
+import { RANGES } from '../document';
 import type { EvalContext } from '../route/context';
 import {
   commonCautions,

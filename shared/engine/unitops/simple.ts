@@ -2,8 +2,8 @@
  * The simple steps: quench or neutralisation by stoichiometry, pH
  * adjustment, carbon treatment, polish filtration, split and merge.
  */
-import type { ParamsOf, RouteStep } from '../../schemas/route';
-import { RANGES } from '../../schemas/route';
+import type { ParamsOf, RouteStep } from '../document';
+import { RANGES } from '../document';
 import type { EvalContext } from '../route/context';
 import {
   aqueousMediumKg,

@@ -25,7 +25,7 @@ import type { EvalContext } from '../route/context';
 import { method, solventDensityGmL, warn } from '../route/context';
 import type { EngineWarning, MethodUsed } from '../route/types';
 import { R_J_PER_MOL_K } from '../units';
-import type { CompoundSnapshot } from '../../schemas/route';
+import type { CompoundSnapshot } from '../document';
 import type { SolventRecord } from '../data/types';
 
 type Curve = {

@@ -36,8 +36,8 @@
  * or parameters stays in the feed phase, with a warning; aqueous solutes
  * stay in the feed phase.
  */
-import type { ParamsOf, RouteStep } from '../../schemas/route';
-import { RANGES } from '../../schemas/route';
+import type { ParamsOf, RouteStep } from '../document';
+import { RANGES } from '../document';
 import type { EvalContext } from '../route/context';
 import type { PKa } from '../properties/partition';
 import {

@@ -6,8 +6,8 @@
  */
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { useEditorStore } from '@/stores/editor-store';
-import { saveDraft } from '@/features/routes/api/save-draft';
-import type { Draft } from '@/features/routes/api/schemas';
+import { saveDraft } from '@/features/routes';
+import type { Draft } from '@/features/routes';
 import type { EditorDoc } from './document';
 import { normaliseDocument } from './document';
 

@@ -1,8 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { evaluateRoute } from '../../../shared/engine/route/evaluate';
+import { evaluateRoute, parseRoute } from '../../../shared/engine/route/evaluate';
 import { buildContext } from '../../../shared/engine/route/context';
 import { ichResidualSolventFlags } from '../../../shared/engine/unitops/drying';
-import { parseRoute } from '../../../shared/engine/route/evaluate';
 import type { RouteDocumentInput } from '../../../shared/schemas/route';
 import type { EngineWarning } from '../../../shared/engine/route/types';
 

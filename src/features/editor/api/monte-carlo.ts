@@ -1,7 +1,7 @@
 import { useMutation, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
-import { jobAcceptedSchema, jobSchema, type Job } from '@/features/routes/api/schemas';
-import { routesApi } from '@/features/routes/api/urls';
+import { jobAcceptedSchema, jobSchema, type Job } from '@/features/routes';
+import { routesApi } from '@/features/routes';
 import type { EditorDoc } from '../document';
 
 /** Start a seeded Monte Carlo run of the document over its ± ranges: 202 with the job to poll. */

@@ -8,8 +8,8 @@ import { Button } from '@/components/button';
 import { formatDateTime } from '@/lib/format';
 import { paths } from '@/paths';
 import { useEditorStore } from '@/stores/editor-store';
-import type { RouteDetail } from '@/features/routes/api/schemas';
-import { useWorkspaceCompounds } from '@/features/routes/api/get-compounds';
+import type { RouteDetail } from '@/features/routes';
+import { useWorkspaceCompounds } from '@/features/routes';
 import { requestEvaluation, resetEvaluation, useEvaluation } from '../evaluation';
 import { initialDocument, useAutosave, type SaveState } from '../autosave';
 import { autoLayout } from '../layout';
@@ -17,11 +17,10 @@ import { KINDS } from '../step-kinds';
 import { Canvas } from './canvas';
 import { Palette } from './palette';
 import { StepPanel } from './step-panel';
-import { CautionList, StreamTable, TotalsCard } from './results';
+import { CautionList, StreamTable, TotalsCard, cautionJump } from './results';
 import { ProductFlow, PurgePlot, StepPlot } from './plots';
 import { UncertaintyPanel } from './uncertainty';
 import { SEVERITY_LABEL, SEVERITY_ORDER, SeverityChip, SeverityMark } from './phase';
-import { cautionJump } from './results';
 
 /** An edit's result later than this dims the cards' numbers as stale. */
 const STALE_AFTER_MS = 150;

@@ -1,6 +1,6 @@
 import { useId, useMemo, useState } from 'react';
 import { MONTE_CARLO_MAX_DRAWS } from '@shared/schemas/evaluate';
-import type { Percentiles } from '@/features/routes/api/schemas';
+import type { Percentiles } from '@/features/routes';
 import { Button } from '@/components/button';
 import { useEditorStore } from '@/stores/editor-store';
 import { keyOf } from '../document';

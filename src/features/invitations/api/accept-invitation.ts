@@ -3,8 +3,7 @@ import type { AcceptInvitationInput } from '@shared/schemas/members';
 import { sessionSchema } from '@shared/schemas/session';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { sessionQueryKey } from '@/features/auth/api/get-session';
-import { clearSessionEnd } from '@/features/auth/session-end';
+import { sessionQueryKey, clearSessionEnd } from '@/features/auth';
 
 /** Joins the workspace; the reply is the new session (the person is signed in). */
 export const acceptInvitation = (token: string, input: AcceptInvitationInput) =>

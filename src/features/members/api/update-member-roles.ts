@@ -3,7 +3,7 @@ import { memberSchema, type UpdateRolesInput } from '@shared/schemas/members';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
 import { getMembersQueryOptions } from './get-members';
-import { sessionQueryKey } from '@/features/auth/api/get-session';
+import { sessionQueryKey } from '@/features/auth';
 
 export const updateMemberRoles = (workspaceId: string, userId: string, input: UpdateRolesInput) =>
   apiRequest(api.member(workspaceId, userId), {

@@ -1,0 +1,3 @@
+// The auth feature's public face: what other features may import.
+export { sessionQueryKey } from './api/get-session';
+export { clearSessionEnd } from './session-end';
