@@ -24,6 +24,7 @@ import type { AntoineSet, UnifacGroups } from '../data/types';
 import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA, T0_K, PA_PER_BAR } from '../units';
 import { antoineTemperature, vapourPressureWithSlope } from './antoine';
 import { checkComposition, createUnifac, type UnifacModel } from './unifac';
+import { brent, findRoot, newtonSafe } from '../numerics';
 
 const LN10 = Math.LN10;
 const LN_PA_PER_BAR = Math.log(PA_PER_BAR);
@@ -187,7 +188,8 @@ export interface BubblePointResult {
  * Formula: modified Raoult's law; solve f(T) = ln Σ_i x_i γ_i(x,T) P_i^sat(T) − ln P = 0
  * by Newton's method with f'(T) ≈ Σ_i y_i d ln P_i^sat/dT (the temperature
  * dependence of γ is neglected in the step only), safeguarded by a bracket
- * and bisection; converged when |f| < 1e-10 (P matched to 1e-10 relative).
+ * (numerics/roots.ts newtonSafe); converged when |f| < 1e-10 (P matched to
+ * 1e-10 relative).
  *
  * @param sys   system from createVleSystem
  * @param x     liquid mole fractions [–], summing to 1
@@ -226,47 +228,28 @@ export function bubblePoint(
     }
     T /= sumX;
   }
-  let lo = 0;
-  let hi = Infinity;
-  let f = NaN;
-  let converged = false;
   const warnings: string[] = [];
-  for (let iter = 0; iter < 100; iter++) {
-    saturationPressures(sys, T, lnP, slope);
-    sys.unifac.lnGammas(xs, T, lnGamma);
-    let sum = 0;
-    let dsum = 0;
-    for (let i = 0; i < n; i++) {
-      if (xs[i] === 0 || lnP[i] === -Infinity) continue;
-      const p = xs[i] * Math.exp(lnGamma[i] + lnP[i]);
-      sum += p;
-      dsum += p * slope[i];
-    }
-    f = Math.log(sum) - lnTarget;
-    if (Math.abs(f) < 1e-10) {
-      converged = true;
-      break;
-    }
-    if (f < 0) lo = Math.max(lo, T);
-    else hi = Math.min(hi, T);
-    const dfdT = dsum / sum;
-    let next = T - f / dfdT;
-    const step = next - T;
-    if (Math.abs(step) > 40) next = T + Math.sign(step) * 40;
-    if (!Number.isFinite(next) || next <= lo || next >= hi) {
-      next = Number.isFinite(hi) ? 0.5 * (lo + hi) : T + 20;
-      if (lo === 0 && next <= 0) next = 0.5 * T;
-    }
-    if (Math.abs(next - T) < 1e-12 * T) {
-      T = next;
-      converged = Math.abs(f) < 1e-8;
-      break;
-    }
-    T = next;
-  }
-  if (!converged) {
+  const solution = newtonSafe(
+    (temperature) => {
+      saturationPressures(sys, temperature, lnP, slope);
+      sys.unifac.lnGammas(xs, temperature, lnGamma);
+      let sum = 0;
+      let dsum = 0;
+      for (let i = 0; i < n; i++) {
+        if (xs[i] === 0 || lnP[i] === -Infinity) continue;
+        const p = xs[i] * Math.exp(lnGamma[i] + lnP[i]);
+        sum += p;
+        dsum += p * slope[i];
+      }
+      return { f: Math.log(sum) - lnTarget, df: dsum / sum };
+    },
+    T,
+    { lower: 1, maxStep: 40, ftol: 1e-10, xtol: 1e-12 * T, rtol: 1e-13, maxIterations: 100 },
+  );
+  T = solution.root;
+  if (!solution.converged) {
     warnings.push(
-      `Bubble-point iteration did not converge (residual ln P = ${f.toExponential(2)}); result approximate.`,
+      `Bubble-point iteration did not converge (residual ln P = ${solution.value.toExponential(2)}); result approximate.`,
     );
   }
   saturationPressures(sys, T, lnP, slope);
@@ -327,7 +310,8 @@ export function bubblePressure(
  *
  * Formula: x_i = y_i P / (γ_i(x,T) P_i^sat(T)), Σ x_i = 1; at each T the
  * liquid composition is found by successive substitution, and T by Newton's
- * method on g(T) = ln Σ_i y_i P/(γ_i P_i^sat) with a bracket.
+ * method on g(T) = ln Σ_i y_i P/(γ_i P_i^sat) safeguarded by a bracket
+ * (numerics/roots.ts newtonSafe).
  *
  * @param sys   system from createVleSystem
  * @param y     vapour mole fractions [–], summing to 1; non-volatile components must have y = 0
@@ -393,27 +377,21 @@ export function dewPoint(
     }
     return Math.log(sumRaw); // g(T): > 0 below the dew point, < 0 above
   };
-  let lo = 0;
-  let hi = Infinity;
-  let g = NaN;
-  let converged = false;
-  for (let iter = 0; iter < 100; iter++) {
-    g = liquidAt(T);
-    if (Math.abs(g) < 1e-10) {
-      converged = true;
-      break;
-    }
-    if (g > 0) lo = Math.max(lo, T);
-    else hi = Math.min(hi, T);
-    // dg/dT ≈ −Σ w_i d ln P_i^sat/dT, w_i = x_i (weights of the condensing liquid).
-    let d = 0;
-    for (let i = 0; i < n; i++) if (xs[i] > 0) d -= xs[i] * slope[i];
-    let next = T - g / d;
-    if (Math.abs(next - T) > 40) next = T + Math.sign(next - T) * 40;
-    if (!Number.isFinite(next) || next <= lo || next >= hi)
-      next = Number.isFinite(hi) ? 0.5 * (lo + hi) : T + 20;
-    T = next;
-  }
+  const solution = newtonSafe(
+    (temperature) => {
+      const g = liquidAt(temperature);
+      // dg/dT ≈ −Σ x_i d ln P_i^sat/dT (weights of the condensing liquid).
+      let d = 0;
+      for (let i = 0; i < n; i++) if (xs[i] > 0) d -= xs[i] * slope[i];
+      return { f: g, df: d };
+    },
+    T,
+    { lower: 1, maxStep: 40, ftol: 1e-10, xtol: 1e-12 * T, rtol: 1e-13, maxIterations: 100 },
+  );
+  T = solution.root;
+  liquidAt(T);
+  const converged = solution.converged;
+  const g = solution.value;
   const warnings = saturationWarnings(sys, T, ys);
   if (!converged)
     warnings.push(
@@ -442,7 +420,8 @@ export interface AzeotropeResult {
  * Method: an azeotrope is where the relative volatility α_12 = K_1/K_2 =
  * γ_1 P_1^sat / (γ_2 P_2^sat) equals 1 along the bubble-point curve. ln α_12
  * is evaluated at the pure ends (infinite dilution) and on a grid of 50
- * intervals; a sign change is refined by bisection in x_1 to 1e-10. Kind:
+ * intervals; a sign change is refined by Brent's method (numerics/roots.ts)
+ * in x_1 to 1e-10. Kind:
  * minimum-boiling when T_az is below both pure boiling points, else
  * maximum-boiling. If the liquid at the azeotrope splits into two phases
  * (tested with liquidLiquidSplit), the azeotrope is heterogeneous: its
@@ -491,22 +470,14 @@ export function findBinaryAzeotrope(sys: VleSystem, P_Pa: number): AzeotropeResu
   if (roots.length === 0) return { found: false, warnings };
   if (roots.length > 1)
     warnings.push(`${roots.length} azeotropes found; the one at lowest x1 is reported.`);
-  let [lo, hi] = roots[0];
-  let fLo = lnAlpha(lo).value;
-  while (hi - lo > 1e-10) {
-    const mid = 0.5 * (lo + hi);
-    const fMid = lnAlpha(mid).value;
-    if (fMid === 0) {
-      lo = hi = mid;
-      break;
-    }
-    if (fMid * fLo < 0) hi = mid;
-    else {
-      lo = mid;
-      fLo = fMid;
-    }
-  }
-  const x1 = 0.5 * (lo + hi);
+  const [lo, hi] = roots[0];
+  const refined =
+    lo === hi
+      ? { root: lo, converged: true }
+      : brent((x) => lnAlpha(x).value, lo, hi, { xtol: 1e-10, rtol: 0 });
+  if (!refined.converged)
+    warnings.push('The azeotrope composition did not converge to 1e-10; result approximate.');
+  const x1 = refined.root;
   const bubble = bubblePoint(sys, [x1, 1 - x1], P_Pa);
   warnings.push(...bubble.warnings);
   const T1 = points[intervals].T;
@@ -540,29 +511,8 @@ function solveRachfordRice(z: Float64Array, K: Float64Array): number {
   };
   if (g(0) <= 0) return 0;
   if (g(1) >= 0) return 1;
-  let lo = 0;
-  let hi = 1;
-  let beta = 0.5;
-  for (let iter = 0; iter < 200; iter++) {
-    const value = g(beta);
-    if (Math.abs(value) < 1e-15) break;
-    if (value > 0) lo = beta;
-    else hi = beta;
-    let d = 0;
-    for (let i = 0; i < n; i++) {
-      if (z[i] === 0) continue;
-      const t = 1 + beta * (K[i] - 1);
-      d -= (z[i] * (K[i] - 1) * (K[i] - 1)) / (t * t);
-    }
-    let next = beta - value / d;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - beta) < 1e-15) {
-      beta = next;
-      break;
-    }
-    beta = next;
-  }
-  return beta;
+  // g is monotone decreasing in β on [0, 1]: Brent on the bracket.
+  return brent(g, 0, 1, { xtol: 1e-15, rtol: 0 }).root;
 }
 
 export type LiquidLiquidResult =
@@ -710,11 +660,10 @@ export function liquidLiquidSplit(
  * Method: if the liquid is stable at its homogeneous bubble point, that is
  * the answer (liquidPhases 1). Otherwise find T where the bubble pressure of
  * one of the coexisting liquids, Σ_i x_i^I γ_i^I P_i^sat, equals P (both
- * liquids have equal activities, hence equal partial pressures): bracket
- * from the homogeneous bubble point (2 K, then secant-guided steps of
- * 0.5–20 K, at most 200 K), then a secant on 1/T safeguarded by the bracket
- * (bisection when a step leaves it or it stops halving), on
- * ln P_calc(T) − ln P to 1e-12, or the bracket to 1e-9 K.
+ * liquids have equal activities, hence equal partial pressures): a bracket
+ * in 1/T grown from 2 K below the homogeneous bubble point (at most 200 K
+ * either way), then Brent's method (numerics/roots.ts) on
+ * ln P_calc(T) − ln P to 1e-12, or T to 1e-9 K.
  *
  * @param sys   system from createVleSystem
  * @param z     overall liquid mole fractions [–], summing to 1
@@ -747,78 +696,33 @@ export function heterogeneousBubblePoint(
     const b = bubblePressure(sys, liquid, T);
     return { f: Math.log(b.P_Pa / P_Pa), y: b.y, phases: s.split ? 2 : 1 };
   };
-  // Secant on 1/T (ln P_calc is nearly linear in 1/T, Clausius–Clapeyron), safeguarded by a bracket.
-  let T = homogeneous.T_K;
-  let current = evaluate(T);
-  const inv = (T1: number, f1: number, T2: number, f2: number) =>
-    1 / (1 / T1 - (f1 * (1 / T2 - 1 / T1)) / (f2 - f1));
-  // Bracket: step from the homogeneous bubble point towards the root, 2 K first, then to 0.2 K beyond
-  // the secant estimate of the root (0.5–20 K a step, at most 200 K in all).
-  let lo = T;
-  let hi = T;
-  let fLo = current.f;
-  let fHi = current.f;
-  const stepK = 2;
-  let moved = 0;
-  for (let k = 0; k < 100 && fLo > 0 && moved < 200; k++) {
-    let next = lo - stepK;
-    if (k > 0 && fHi > fLo) {
-      const guess = inv(lo, fLo, hi, fHi);
-      if (Number.isFinite(guess)) next = Math.min(lo - 0.5, Math.max(lo - 20, guess - 0.2));
-    }
-    moved += lo - next;
-    hi = lo;
-    fHi = fLo;
-    lo = next;
-    fLo = evaluate(lo).f;
-  }
-  for (let k = 0; k < 100 && fHi < 0 && moved < 200; k++) {
-    let next = hi + stepK;
-    if (k > 0 && fHi > fLo) {
-      const guess = inv(lo, fLo, hi, fHi);
-      if (Number.isFinite(guess)) next = Math.max(hi + 0.5, Math.min(hi + 20, guess + 0.2));
-    }
-    moved += next - hi;
-    lo = hi;
-    fLo = fHi;
-    hi = next;
-    fHi = evaluate(hi).f;
-  }
-  if (!(fLo <= 0 && fHi >= 0)) {
+  // Root of ln P_calc − ln P in u = 1000/T (nearly linear there, Clausius–Clapeyron): the bracket is
+  // grown from 2 K below the homogeneous bubble point (the three-phase point lies below it), then
+  // Brent's method (numerics/roots.ts) to 1e-9 K.
+  const T0 = homogeneous.T_K;
+  let last: { u: number; value: { f: number; y: number[]; phases: number } } | null = null;
+  const fOfU = (u: number): number => {
+    const value = evaluate(1000 / u);
+    last = { u, value };
+    return value.f;
+  };
+  const solution = findRoot(fOfU, 1000 / T0, 1000 / (T0 - 2), {
+    lower: 1000 / (T0 + 200),
+    upper: 1000 / Math.max(T0 - 200, 1),
+    xtol: 1e-9 * (1000 / (T0 * T0)),
+    rtol: 0,
+    ftol: 1e-12,
+  });
+  if (solution.reason === 'no-bracket' || solution.reason === 'not-finite') {
     throw new EngineError(
       'no-convergence',
       'Could not bracket the boiling point of the two-phase liquid.',
       { P_Pa },
     );
   }
-  // Refine: secant through the last two points when it falls inside the bracket, else bisection;
-  // bisection also when the bracket has not halved in three steps.
-  let last: { T: number; value: { f: number; y: number[]; phases: number } } | null = null;
-  let pA = lo;
-  let fA = fLo;
-  let pB = hi;
-  let fB = fHi;
-  let width = hi - lo;
-  for (let iter = 0; iter < 100 && hi - lo > 1e-9; iter++) {
-    let mid = fB !== fA ? inv(pA, fA, pB, fB) : NaN;
-    const stalled = iter % 3 === 2 && hi - lo > 0.5 * width;
-    if (iter % 3 === 2) width = hi - lo;
-    if (!(mid > lo && mid < hi) || stalled) mid = 0.5 * (lo + hi);
-    current = evaluate(mid);
-    last = { T: mid, value: current };
-    pA = pB;
-    fA = fB;
-    pB = mid;
-    fB = current.f;
-    if (Math.abs(current.f) < 1e-12) {
-      lo = hi = mid;
-      break;
-    }
-    if (current.f < 0) lo = mid;
-    else hi = mid;
-  }
-  T = lo === hi ? lo : 0.5 * (lo + hi);
-  current = last && last.T === T ? last.value : evaluate(T);
+  const T = 1000 / solution.root;
+  const kept = last as { u: number; value: { f: number; y: number[]; phases: number } } | null;
+  const current = kept && kept.u === solution.root ? kept.value : evaluate(T);
   const warnings = saturationWarnings(sys, T, zs);
   if (current.phases === 2)
     warnings.push('Two liquid phases boil together (heterogeneous boiling).');

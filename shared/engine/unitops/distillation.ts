@@ -46,6 +46,7 @@ import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/typ
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 import { solventVle } from './equilibria';
 import { rayleighConstantVolume, rayleighToVolume, type PotVle } from './rayleigh';
+import { findRoot } from '../numerics';
 import { solubilityIn } from './solubility-model';
 
 /** Reference temperature of reported and target volumes [K]. */
@@ -165,23 +166,32 @@ export function distilLeg(
       return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
     }
     if (hetero) {
-      // Pressure at which the heterogeneous bubble point equals the set pot temperature (secant on ln P).
-      let P1 = bubblePressure(sys, xs, cond.T_K).P_Pa;
-      let r1 = heterogeneousBubblePoint(sys, xs, P1);
+      // Pressure at which the heterogeneous bubble point equals the set pot temperature: Brent's
+      // method on ln P (numerics/roots.ts), bracket grown from the homogeneous bubble pressure.
+      const P1 = bubblePressure(sys, xs, cond.T_K).P_Pa;
+      const r1 = heterogeneousBubblePoint(sys, xs, P1);
       if (r1.liquidPhases === 1) {
         hetero = false;
       } else {
-        let P0 = P1 * 1.2;
-        let r0 = heterogeneousBubblePoint(sys, xs, P0);
-        for (let k = 0; k < 8 && Math.abs(r1.T_K - cond.T_K) > 0.01; k++) {
-          const slope = (r1.T_K - r0.T_K) / (Math.log(P1) - Math.log(P0));
-          const lnP = Math.log(P1) + (cond.T_K - r1.T_K) / (slope || 1e-9);
-          P0 = P1;
-          r0 = r1;
-          P1 = Math.exp(lnP);
-          r1 = heterogeneousBubblePoint(sys, xs, P1);
-        }
-        return { T_K: cond.T_K, P_Pa: P1, y: r1.y };
+        let kept = r1;
+        let keptLnP = Math.log(P1);
+        const root = findRoot(
+          (lnP) => {
+            kept = heterogeneousBubblePoint(sys, xs, Math.exp(lnP));
+            keptLnP = lnP;
+            return kept.T_K - cond.T_K;
+          },
+          Math.log(P1),
+          Math.log(P1 * 1.2),
+          { xtol: 1e-7, rtol: 0, ftol: 1e-4 },
+        );
+        if (!root.converged)
+          vleWarnings.add(
+            'The pressure that holds the pot at the set temperature did not converge; pot pressure approximate.',
+          );
+        const P = Math.exp(root.root);
+        if (keptLnP !== root.root) kept = heterogeneousBubblePoint(sys, xs, P);
+        return { T_K: cond.T_K, P_Pa: P, y: kept.y };
       }
     }
     const r = bubblePressure(sys, xs, cond.T_K);

@@ -1,0 +1,258 @@
+/**
+ * Adaptive integration of ordinary differential equations y' = f(t, y) with
+ * local error control: the explicit Runge–Kutta pair of Dormand and Prince,
+ * order 5 with an embedded order-4 error estimate (DOPRI5).
+ *
+ * Sources: J. R. Dormand, P. J. Prince, "A family of embedded Runge–Kutta
+ * formulae", J. Comput. Appl. Math. 1980, 6, 19–26
+ * (doi:10.1016/0771-050X(80)90013-3); coefficients, error norm, step-size
+ * control and starting step as in E. Hairer, S. P. Nørsett, G. Wanner,
+ * Solving Ordinary Differential Equations I, 2nd ed., Springer 1993, §II.4
+ * (eqs. 4.10–4.13, the starting-step algorithm) and §II.5 (Table 5.2).
+ *
+ * Formula: seven stages k_1…k_7 (FSAL: k_7 of a step is k_1 of the next),
+ *   y_{n+1} = y_n + h Σ b_i k_i          (order 5, the solution carried)
+ *   err     = h Σ (b_i − b̂_i) k_i         (difference to the order-4 solution)
+ * accepted when ‖err‖ ≤ 1 with the scaled norm
+ *   ‖err‖ = sqrt( (1/n) Σ_i (err_i / (atol_i + rtol·max(|y_n,i|, |y_{n+1},i|)))² ),
+ * and the next step h_new = h · min(5, max(0.2, 0.9 ‖err‖^(−1/5))) (no growth
+ * right after a rejection). A caller may supply its own error norm (for
+ * instance on mole fractions derived from the state).
+ *
+ * Validity: non-stiff and mildly stiff problems. On a stiff problem the step
+ * is limited by stability, not accuracy: it still converges but with many
+ * steps (the step count is reported). The local tolerance bounds the error
+ * made per step; the global error is typically of the order of the local
+ * tolerance times a modest factor, so callers that promise a global accuracy
+ * set the local tolerance a decade tighter and check it against a reference.
+ */
+
+/** Why an integration stopped. */
+export type OdeStop = 'converged' | 'stopped' | 'max-steps' | 'step-too-small' | 'not-finite';
+
+/** Right-hand side: writes dy/dt at (t, y) into dy [unit of y / unit of t]. */
+export type OdeRhs = (t: number, y: Float64Array, dy: Float64Array) => void;
+
+/** Options of an adaptive integration. */
+export interface OdeOptions {
+  /** Relative tolerance per step [–] (default 1e-6). */
+  rtol?: number;
+  /** Absolute tolerance per step [unit of y], one value or one per component (default 1e-9). */
+  atol?: number | readonly number[];
+  /** First step [unit of t] (default: Hairer's starting-step algorithm). */
+  h0?: number;
+  /** Largest step [unit of t] (default: the whole interval). */
+  hMax?: number;
+  /** Step limit [–] (default 100 000). */
+  maxSteps?: number;
+  /**
+   * Error norm of a trial step; ≤ 1 accepts it. Receives the state before the
+   * step, the trial state after it and the local error estimate [–].
+   */
+  errorNorm?: (y: Float64Array, yNew: Float64Array, err: Float64Array) => number;
+  /** Called after every accepted step with the new (t, y); may keep a copy. */
+  onStep?: (t: number, y: Float64Array) => void;
+  /** Checked after every accepted step: returning true ends the integration ('stopped'). */
+  stop?: (t: number, y: Float64Array) => boolean;
+}
+
+/** Result of an adaptive integration. */
+export interface OdeResult {
+  /** Where the integration ended [unit of t] (= t1 when converged). */
+  t: number;
+  /** State there [unit of y]. */
+  y: Float64Array;
+  /** True when t1 was reached (or the stop condition met) within the tolerances. */
+  converged: boolean;
+  reason: OdeStop;
+  /** Accepted steps [–]. */
+  steps: number;
+  /** Rejected trial steps [–]. */
+  rejected: number;
+  /** Right-hand-side evaluations [–]. */
+  evaluations: number;
+}
+
+// Dormand–Prince 5(4) tableau (Hairer, Nørsett & Wanner I, Table 5.2).
+const C2 = 1 / 5;
+const C3 = 3 / 10;
+const C4 = 4 / 5;
+const C5 = 8 / 9;
+const A21 = 1 / 5;
+const A31 = 3 / 40;
+const A32 = 9 / 40;
+const A41 = 44 / 45;
+const A42 = -56 / 15;
+const A43 = 32 / 9;
+const A51 = 19372 / 6561;
+const A52 = -25360 / 2187;
+const A53 = 64448 / 6561;
+const A54 = -212 / 729;
+const A61 = 9017 / 3168;
+const A62 = -355 / 33;
+const A63 = 46732 / 5247;
+const A64 = 49 / 176;
+const A65 = -5103 / 18656;
+const A71 = 35 / 384;
+const A73 = 500 / 1113;
+const A74 = 125 / 192;
+const A75 = -2187 / 6784;
+const A76 = 11 / 84;
+// e_i = b_i − b̂_i (order 5 minus order 4).
+const E1 = 71 / 57600;
+const E3 = -71 / 16695;
+const E4 = 71 / 1920;
+const E5 = -17253 / 339200;
+const E6 = 22 / 525;
+const E7 = -1 / 40;
+
+/**
+ * Integrate y' = f(t, y) from t0 to t1 (t1 > t0) with the Dormand–Prince
+ * 5(4) pair and adaptive steps.
+ *
+ * Source and formula: see the module comment (Dormand & Prince 1980; Hairer,
+ * Nørsett & Wanner 1993 §II.4–II.5).
+ *
+ * @param f     right-hand side, dy/dt [unit of y / unit of t]
+ * @param t0    start of the interval [unit of t]
+ * @param y0    state at t0 [unit of y] (not modified)
+ * @param t1    end of the interval [unit of t], > t0
+ * @param opts  tolerances and callbacks (OdeOptions)
+ * @returns the state at t1 (or where it stopped), the reason, step and evaluation counts
+ *
+ * Validity: f continuous in y and piecewise smooth in t; a kink in f is
+ * crossed with a few rejected steps. A right-hand side that returns a
+ * non-finite value makes the step be retried 5 times smaller.
+ */
+export function dormandPrince(
+  f: OdeRhs,
+  t0: number,
+  y0: ArrayLike<number>,
+  t1: number,
+  opts: OdeOptions = {},
+): OdeResult {
+  const n = y0.length;
+  const rtol = opts.rtol ?? 1e-6;
+  const atolOpt = opts.atol ?? 1e-9;
+  const atol = (i: number) => (typeof atolOpt === 'number' ? atolOpt : atolOpt[i]);
+  const maxSteps = opts.maxSteps ?? 100_000;
+  const span = t1 - t0;
+  const hMax = Math.min(opts.hMax ?? span, span);
+  const y = Float64Array.from(y0);
+  const yNew = new Float64Array(n);
+  const yStage = new Float64Array(n);
+  const err = new Float64Array(n);
+  const k1 = new Float64Array(n);
+  const k2 = new Float64Array(n);
+  const k3 = new Float64Array(n);
+  const k4 = new Float64Array(n);
+  const k5 = new Float64Array(n);
+  const k6 = new Float64Array(n);
+  const k7 = new Float64Array(n);
+  let evaluations = 0;
+  let steps = 0;
+  let rejected = 0;
+  const result = (t: number, reason: OdeStop): OdeResult => ({
+    t,
+    y: Float64Array.from(y),
+    converged: reason === 'converged' || reason === 'stopped',
+    reason,
+    steps,
+    rejected,
+    evaluations,
+  });
+  if (!(span > 0)) return result(t0, 'converged');
+
+  const defaultNorm = (a: Float64Array, b: Float64Array, e: Float64Array): number => {
+    let s = 0;
+    for (let i = 0; i < n; i++) {
+      const sc = atol(i) + rtol * Math.max(Math.abs(a[i]), Math.abs(b[i]));
+      const q = e[i] / sc;
+      s += q * q;
+    }
+    return Math.sqrt(s / n);
+  };
+  const norm = opts.errorNorm ?? defaultNorm;
+
+  f(t0, y, k1);
+  evaluations++;
+  for (let i = 0; i < n; i++) if (!Number.isFinite(k1[i])) return result(t0, 'not-finite');
+
+  // Starting step (Hairer, Nørsett & Wanner I, §II.4, "Automatic step size control").
+  let h = opts.h0 ?? NaN;
+  if (!(h > 0)) {
+    let d0 = 0;
+    let d1 = 0;
+    for (let i = 0; i < n; i++) {
+      const sc = atol(i) + rtol * Math.abs(y[i]);
+      d0 += (y[i] / sc) ** 2;
+      d1 += (k1[i] / sc) ** 2;
+    }
+    d0 = Math.sqrt(d0 / n);
+    d1 = Math.sqrt(d1 / n);
+    let h0 = d0 < 1e-5 || d1 < 1e-5 ? 1e-6 * span : (0.01 * d0) / d1;
+    h0 = Math.min(h0, hMax);
+    for (let i = 0; i < n; i++) yStage[i] = y[i] + h0 * k1[i];
+    f(t0 + h0, yStage, k2);
+    evaluations++;
+    let d2 = 0;
+    for (let i = 0; i < n; i++) {
+      const sc = atol(i) + rtol * Math.abs(y[i]);
+      d2 += ((k2[i] - k1[i]) / sc) ** 2;
+    }
+    d2 = Number.isFinite(d2) ? Math.sqrt(d2 / n) / h0 : Infinity;
+    const h1 =
+      Math.max(d1, d2) <= 1e-15
+        ? Math.max(1e-6 * span, h0 * 1e-3)
+        : (0.01 / Math.max(d1, d2)) ** (1 / 5);
+    h = Math.min(100 * h0, h1, hMax);
+  }
+
+  let t = t0;
+  let lastRejected = false;
+  while (steps + rejected < maxSteps) {
+    const last = t + h >= t1 - 1e-12 * Math.abs(span);
+    if (last) h = t1 - t;
+    if (h < 1e-14 * Math.max(Math.abs(t), Math.abs(span))) return result(t, 'step-too-small');
+    for (let i = 0; i < n; i++) yStage[i] = y[i] + h * A21 * k1[i];
+    f(t + C2 * h, yStage, k2);
+    for (let i = 0; i < n; i++) yStage[i] = y[i] + h * (A31 * k1[i] + A32 * k2[i]);
+    f(t + C3 * h, yStage, k3);
+    for (let i = 0; i < n; i++) yStage[i] = y[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
+    f(t + C4 * h, yStage, k4);
+    for (let i = 0; i < n; i++)
+      yStage[i] = y[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
+    f(t + C5 * h, yStage, k5);
+    for (let i = 0; i < n; i++)
+      yStage[i] = y[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
+    f(t + h, yStage, k6);
+    for (let i = 0; i < n; i++)
+      yNew[i] = y[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
+    f(t + h, yNew, k7);
+    evaluations += 6;
+    let finite = true;
+    for (let i = 0; i < n; i++) {
+      err[i] = h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i]);
+      if (!Number.isFinite(err[i]) || !Number.isFinite(yNew[i])) finite = false;
+    }
+    const e = finite ? norm(y, yNew, err) : Infinity;
+    if (e <= 1) {
+      steps++;
+      t = last ? t1 : t + h;
+      y.set(yNew);
+      k1.set(k7);
+      opts.onStep?.(t, y);
+      if (last) return result(t1, 'converged');
+      if (opts.stop?.(t, y)) return result(t, 'stopped');
+      let factor = e === 0 ? 5 : Math.min(5, Math.max(0.2, 0.9 * e ** -0.2));
+      if (lastRejected) factor = Math.min(1, factor);
+      h = Math.min(hMax, h * factor);
+      lastRejected = false;
+    } else {
+      rejected++;
+      lastRejected = true;
+      h *= Number.isFinite(e) ? Math.max(0.2, 0.9 * e ** -0.2) : 0.2;
+    }
+  }
+  return result(t, 'max-steps');
+}

@@ -1,0 +1,416 @@
+/**
+ * Scalar root finding for every solver in the engine: bracket expansion,
+ * Brent's method, and a bracket-safeguarded Newton iteration.
+ *
+ * Every routine returns the root with a convergence flag, the reason it
+ * stopped, and its iteration and evaluation counts; none throws on
+ * non-convergence, so the caller decides what to tell the chemist.
+ *
+ * Sources:
+ *  - Brent: R. P. Brent, Algorithms for Minimization without Derivatives,
+ *    Prentice-Hall, 1973, chapter 4 (procedure zero); the same algorithm as
+ *    W. H. Press et al., Numerical Recipes, 3rd ed., CUP 2007, §9.3 (zbrent).
+ *  - Bracket expansion: Numerical Recipes, 3rd ed., §9.1 (zbrac), geometric
+ *    growth by 1.6 of the interval on the side of the smaller |f|.
+ *  - Safeguarded Newton: Numerical Recipes, 3rd ed., §9.4 (rtsafe): Newton
+ *    steps accepted only inside the current bracket, bisection otherwise.
+ */
+
+/** Why an iteration stopped. */
+export type RootStop = 'converged' | 'no-bracket' | 'max-iterations' | 'not-finite';
+
+/** Result of a root search. */
+export interface RootResult {
+  /** Best estimate of the root [unit of x]. */
+  root: number;
+  /** f(root) [unit of f]. */
+  value: number;
+  /** True when the tolerance was met. */
+  converged: boolean;
+  reason: RootStop;
+  /** Iterations of the root finder (not counting bracket expansion) [–]. */
+  iterations: number;
+  /** Function evaluations in all, expansion included [–]. */
+  evaluations: number;
+  /** Final bracket [lower, upper] (equal ends when the root was hit exactly) [unit of x]. */
+  bracket: [number, number];
+}
+
+/** Tolerances of a root search. */
+export interface RootTolerance {
+  /** Absolute tolerance on x [unit of x] (default 1e-12). */
+  xtol?: number;
+  /** Relative tolerance on x [–] (default 4·machine epsilon). */
+  rtol?: number;
+  /** Stop as soon as |f| ≤ ftol [unit of f] (default 0: only the x tolerance). */
+  ftol?: number;
+  /** Iteration limit [–] (default 200). */
+  maxIterations?: number;
+}
+
+const EPS = Number.EPSILON;
+
+/** Result of a bracket expansion. */
+export interface BracketResult {
+  found: boolean;
+  /** Lower end [unit of x]. */
+  a: number;
+  /** Upper end [unit of x]. */
+  b: number;
+  fa: number;
+  fb: number;
+  evaluations: number;
+}
+
+/**
+ * Expand [a, b] until f changes sign across it.
+ *
+ * Source: Numerical Recipes, 3rd ed., §9.1 (zbrac). Formula: the end with
+ * the smaller |f| moves outwards by `factor`·(b − a), clipped at
+ * `lower`/`upper`; stops when f(a)·f(b) ≤ 0.
+ *
+ * @param f              function of x [unit of f]
+ * @param a              lower end of the first interval [unit of x]
+ * @param b              upper end of the first interval [unit of x], b > a
+ * @param opts.factor        growth of the interval per expansion [–] (default 1.6)
+ * @param opts.maxExpansions expansion limit [–] (default 60)
+ * @param opts.lower         smallest admissible x [unit of x] (default −∞)
+ * @param opts.upper         largest admissible x [unit of x] (default +∞)
+ * @returns the bracket (found = false when no sign change was met within the limits)
+ *
+ * Validity: any continuous f; an even number of roots inside [a, b] is not
+ * detected (a bracket needs a sign change).
+ */
+export function expandBracket(
+  f: (x: number) => number,
+  a: number,
+  b: number,
+  opts: { factor?: number; maxExpansions?: number; lower?: number; upper?: number } = {},
+): BracketResult {
+  const factor = opts.factor ?? 1.6;
+  const lower = opts.lower ?? -Infinity;
+  const upper = opts.upper ?? Infinity;
+  let lo = Math.max(lower, Math.min(a, b));
+  let hi = Math.min(upper, Math.max(a, b));
+  let flo = f(lo);
+  let fhi = f(hi);
+  let evaluations = 2;
+  for (let k = 0; k < (opts.maxExpansions ?? 60); k++) {
+    if (flo * fhi <= 0) return { found: true, a: lo, b: hi, fa: flo, fb: fhi, evaluations };
+    const width = hi - lo;
+    const canLower = lo > lower;
+    const canUpper = hi < upper;
+    if (!canLower && !canUpper) break;
+    const moveLower =
+      canLower && (!canUpper || Math.abs(flo) < Math.abs(fhi) || !Number.isFinite(fhi));
+    if (moveLower) {
+      lo = Math.max(lower, lo - factor * width);
+      flo = f(lo);
+    } else {
+      hi = Math.min(upper, hi + factor * width);
+      fhi = f(hi);
+    }
+    evaluations++;
+  }
+  return { found: flo * fhi <= 0, a: lo, b: hi, fa: flo, fb: fhi, evaluations };
+}
+
+/**
+ * Brent's method on a bracket [a, b] with f(a)·f(b) ≤ 0.
+ *
+ * Source: Brent 1973, ch. 4 (zero); Numerical Recipes 3rd ed. §9.3.
+ * Formula: inverse quadratic (or secant) interpolation through the last
+ * three points, accepted only when it falls inside the bracket and shrinks
+ * the step by more than half of the step before; bisection otherwise.
+ * Converged when the bracket half-width ≤ 2·rtol·|x| + xtol/2, or |f| ≤ ftol.
+ * A bisection is forced when three steps have not halved the bracket, so
+ * convergence is guaranteed for a continuous f and never much slower than
+ * bisection (multiple roots, flat functions).
+ *
+ * @param f     function of x [unit of f]
+ * @param a     one end of the bracket [unit of x]
+ * @param b     other end of the bracket [unit of x]
+ * @param tol   tolerances (see RootTolerance)
+ * @param known optional f(a) and f(b) already computed [unit of f]
+ * @returns the root with its convergence flag ('no-bracket' when f(a)·f(b) > 0)
+ *
+ * Validity: any f continuous on [a, b]; at a discontinuity with a sign
+ * change it returns the jump point.
+ */
+export function brent(
+  f: (x: number) => number,
+  a: number,
+  b: number,
+  tol: RootTolerance = {},
+  known?: { fa: number; fb: number },
+): RootResult {
+  const xtol = tol.xtol ?? 1e-12;
+  const rtol = tol.rtol ?? 4 * EPS;
+  const ftol = tol.ftol ?? 0;
+  const maxIterations = tol.maxIterations ?? 200;
+  let fa = known ? known.fa : f(a);
+  let fb = known ? known.fb : f(b);
+  let evaluations = known ? 0 : 2;
+  const done = (
+    root: number,
+    value: number,
+    reason: RootStop,
+    iterations: number,
+    lo: number,
+    hi: number,
+  ): RootResult => ({
+    root,
+    value,
+    converged: reason === 'converged',
+    reason,
+    iterations,
+    evaluations,
+    bracket: [Math.min(lo, hi), Math.max(lo, hi)],
+  });
+  if (!Number.isFinite(fa) || !Number.isFinite(fb)) return done(b, fb, 'not-finite', 0, a, b);
+  if (fa === 0) return done(a, 0, 'converged', 0, a, a);
+  if (fb === 0) return done(b, 0, 'converged', 0, b, b);
+  if (fa * fb > 0)
+    return done(Math.abs(fa) < Math.abs(fb) ? a : b, Math.min(fa, fb), 'no-bracket', 0, a, b);
+  let c = a;
+  let fc = fa;
+  let d = b - a;
+  let e = d;
+  let widthBefore = Infinity;
+  let forceBisection = false;
+  for (let iter = 1; iter <= maxIterations; iter++) {
+    if ((fb > 0 && fc > 0) || (fb < 0 && fc < 0)) {
+      c = a;
+      fc = fa;
+      d = b - a;
+      e = d;
+    }
+    if (Math.abs(fc) < Math.abs(fb)) {
+      a = b;
+      b = c;
+      c = a;
+      fa = fb;
+      fb = fc;
+      fc = fa;
+    }
+    const tol1 = 2 * rtol * Math.abs(b) + 0.5 * xtol;
+    const xm = 0.5 * (c - b);
+    if (Math.abs(xm) <= tol1 || fb === 0 || Math.abs(fb) <= ftol)
+      return done(b, fb, 'converged', iter - 1, b, c);
+    // Safeguard (as in Alefeld, Potra & Shi, ACM TOMS 1995, 21, 327): when three interpolation
+    // steps have not halved the bracket, bisect, so that no case is slower than about 3× bisection.
+    const width = Math.abs(c - b);
+    if (iter % 3 === 1) {
+      forceBisection = width > 0.5 * widthBefore;
+      widthBefore = width;
+    }
+    if (!forceBisection && Math.abs(e) >= tol1 && Math.abs(fa) > Math.abs(fb)) {
+      // Inverse quadratic interpolation (secant when only two distinct points).
+      const s = fb / fa;
+      let p: number;
+      let q: number;
+      if (a === c) {
+        p = 2 * xm * s;
+        q = 1 - s;
+      } else {
+        const qq = fa / fc;
+        const r = fb / fc;
+        p = s * (2 * xm * qq * (qq - r) - (b - a) * (r - 1));
+        q = (qq - 1) * (r - 1) * (s - 1);
+      }
+      if (p > 0) q = -q;
+      p = Math.abs(p);
+      const min1 = 3 * xm * q - Math.abs(tol1 * q);
+      const min2 = Math.abs(e * q);
+      if (2 * p < Math.min(min1, min2)) {
+        e = d;
+        d = p / q;
+      } else {
+        d = xm;
+        e = d;
+      }
+    } else {
+      d = xm;
+      e = d;
+      forceBisection = false;
+    }
+    a = b;
+    fa = fb;
+    b += Math.abs(d) > tol1 ? d : tol1 * Math.sign(xm);
+    fb = f(b);
+    evaluations++;
+    if (!Number.isFinite(fb)) return done(a, fa, 'not-finite', iter, a, c);
+  }
+  return done(b, fb, 'max-iterations', maxIterations, b, c);
+}
+
+/**
+ * Root of f near a starting interval: expandBracket, then brent.
+ *
+ * @param f     function of x [unit of f]
+ * @param a     lower end of the starting interval [unit of x]
+ * @param b     upper end of the starting interval [unit of x]
+ * @param opts  tolerances (RootTolerance) and the expansion limits of expandBracket
+ * @returns the root with its convergence flag; reason 'no-bracket' when no sign change was found
+ *
+ * Source and validity: as expandBracket and brent.
+ */
+export function findRoot(
+  f: (x: number) => number,
+  a: number,
+  b: number,
+  opts: RootTolerance & {
+    factor?: number;
+    maxExpansions?: number;
+    lower?: number;
+    upper?: number;
+  } = {},
+): RootResult {
+  const br = expandBracket(f, a, b, opts);
+  if (!br.found) {
+    return {
+      root: Math.abs(br.fa) < Math.abs(br.fb) ? br.a : br.b,
+      value: Math.abs(br.fa) < Math.abs(br.fb) ? br.fa : br.fb,
+      converged: false,
+      reason: 'no-bracket',
+      iterations: 0,
+      evaluations: br.evaluations,
+      bracket: [br.a, br.b],
+    };
+  }
+  const r = brent(f, br.a, br.b, opts, { fa: br.fa, fb: br.fb });
+  return { ...r, evaluations: r.evaluations + br.evaluations };
+}
+
+/**
+ * Newton's method safeguarded by a bracket, for functions whose derivative
+ * (or a good approximation of it) is cheap.
+ *
+ * Source: Numerical Recipes, 3rd ed., §9.4 (rtsafe), extended with a search
+ * for the bracket: before a sign change is seen, Newton steps are limited to
+ * `maxStep`; once f has changed sign, a Newton step that leaves the bracket
+ * or fails to halve |f| over two iterations is replaced by bisection.
+ * Converged when |f| ≤ ftol, or the step (or the bracket) is below
+ * xtol + rtol·|x|.
+ *
+ * @param fdf       returns f(x) [unit of f] and df/dx [unit of f / unit of x] (an approximate slope is allowed)
+ * @param x0        starting point [unit of x]
+ * @param opts.lower     smallest admissible x [unit of x] (default −∞)
+ * @param opts.upper     largest admissible x [unit of x] (default +∞)
+ * @param opts.maxStep   largest Newton step before a bracket is known [unit of x] (default ∞)
+ * @param opts.xtol, opts.rtol, opts.ftol, opts.maxIterations  as RootTolerance (default maxIterations 100)
+ * @returns the root with its convergence flag
+ *
+ * Validity: f continuous; converges quadratically near a simple root with an
+ * exact slope, linearly with an approximate one, never slower than bisection
+ * once bracketed.
+ */
+export function newtonSafe(
+  fdf: (x: number) => { f: number; df: number },
+  x0: number,
+  opts: RootTolerance & { lower?: number; upper?: number; maxStep?: number } = {},
+): RootResult {
+  const xtol = opts.xtol ?? 1e-12;
+  const rtol = opts.rtol ?? 4 * EPS;
+  const ftol = opts.ftol ?? 0;
+  const maxIterations = opts.maxIterations ?? 100;
+  const maxStep = opts.maxStep ?? Infinity;
+  let lower = opts.lower ?? -Infinity;
+  let upper = opts.upper ?? Infinity;
+  // Bracket: xNeg has f < 0, xPos has f > 0 (unknown until seen).
+  let xNeg = NaN;
+  let xPos = NaN;
+  let x = Math.min(upper, Math.max(lower, x0));
+  let evaluations = 0;
+  let prevAbsF = Infinity;
+  let lastStep = 0;
+  let best = { x, f: NaN };
+  const bracketOf = (): [number, number] =>
+    Number.isNaN(xNeg) || Number.isNaN(xPos)
+      ? [x, x]
+      : [Math.min(xNeg, xPos), Math.max(xNeg, xPos)];
+  for (let iter = 0; iter < maxIterations; iter++) {
+    const { f, df } = fdf(x);
+    evaluations++;
+    if (!Number.isFinite(f)) {
+      return {
+        root: best.x,
+        value: best.f,
+        converged: false,
+        reason: 'not-finite',
+        iterations: iter,
+        evaluations,
+        bracket: bracketOf(),
+      };
+    }
+    if (!(Math.abs(f) >= Math.abs(best.f))) best = { x, f };
+    if (Math.abs(f) <= ftol || f === 0) {
+      return {
+        root: x,
+        value: f,
+        converged: true,
+        reason: 'converged',
+        iterations: iter,
+        evaluations,
+        bracket: bracketOf(),
+      };
+    }
+    if (f < 0) xNeg = x;
+    else xPos = x;
+    const bracketed = !Number.isNaN(xNeg) && !Number.isNaN(xPos);
+    if (bracketed) {
+      lower = Math.max(lower, Math.min(xNeg, xPos));
+      upper = Math.min(upper, Math.max(xNeg, xPos));
+    }
+    let next = x - f / df;
+    if (!bracketed && Math.abs(next - x) > maxStep) next = x + Math.sign(next - x) * maxStep;
+    const outside = !Number.isFinite(next) || next <= lower || next >= upper;
+    const slow = bracketed && Math.abs(f) > 0.5 * prevAbsF;
+    if (outside || slow) {
+      if (bracketed) next = 0.5 * (xNeg + xPos);
+      else if (!Number.isFinite(next)) next = x + (Number.isFinite(maxStep) ? maxStep : 1);
+      else next = Math.min(Math.max(next, 0.5 * (x + lower)), 0.5 * (x + upper));
+    }
+    if (!bracketed && Math.abs(f) >= 0.9 * prevAbsF && iter > 0) {
+      // Newton is not closing in (a cycle, or a step away from the root) and no sign change has
+      // been seen: search for a bracket around x on the scale of the last step, then Brent.
+      const scale = Math.max(Math.abs(lastStep), xtol + rtol * Math.abs(x), 1e-8);
+      const r = findRoot((v) => fdf(v).f, Math.max(lower, x - scale), Math.min(upper, x + scale), {
+        xtol,
+        rtol,
+        ftol,
+        maxIterations,
+        lower: opts.lower,
+        upper: opts.upper,
+      });
+      return { ...r, iterations: r.iterations + iter, evaluations: r.evaluations + evaluations };
+    }
+    prevAbsF = Math.abs(f);
+    lastStep = next - x;
+    const tolX = xtol + rtol * Math.abs(x);
+    const [blo, bhi] = bracketOf();
+    if (Math.abs(next - x) <= tolX || (bracketed && bhi - blo <= tolX)) {
+      const { f: fn } = fdf(next);
+      evaluations++;
+      return {
+        root: next,
+        value: fn,
+        converged: true,
+        reason: 'converged',
+        iterations: iter + 1,
+        evaluations,
+        bracket: bracketOf(),
+      };
+    }
+    x = next;
+  }
+  return {
+    root: best.x,
+    value: best.f,
+    converged: false,
+    reason: 'max-iterations',
+    iterations: maxIterations,
+    evaluations,
+    bracket: bracketOf(),
+  };
+}
