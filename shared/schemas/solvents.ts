@@ -14,7 +14,14 @@ export const GUIDE_CATEGORIES = [
 /** Where a value comes from: the bibliography id, its status, and the full citation where known. */
 export const valueSourceSchema = z.object({
   ref: z.string(),
-  status: z.enum(['confirmed', 'unverified-memory', 'estimated', 'common-practice']),
+  status: z.enum([
+    'confirmed',
+    'secondary',
+    'unverified-memory',
+    'estimated',
+    'common-practice',
+    'not-confirmed',
+  ]),
   note: z.string().optional(),
   citation: z.string().optional(),
   via: z.string().optional(),
@@ -49,7 +56,7 @@ export const solventSummarySchema = z.object({
   densityGmL: z.number(),
   /** Temperature at which densityGmL applies [°C]. */
   densityTemperatureC: z.number(),
-  /** Closed-cup flash point; null where the liquid has none. */
+  /** Closed-cup flash point; null where the liquid has none, or where none was confirmed (sources.flashPointC.status 'not-confirmed': treat as flammable). */
   flashPointC: z.number().nullable(),
   hansen: hansenTripleSchema,
   viscosityMPas25C: z.number(),

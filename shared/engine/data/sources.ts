@@ -69,11 +69,6 @@ export const SOURCES = {
       'NIST Chemistry WebBook, NIST Standard Reference Database 69, phase-change data (melting point)',
     via: 'CalebBell/chemicals: chemicals/Misc/webbook_constants.tsv (column Tm, K)',
   },
-  'nist-webbook-dmso-page': {
-    citation:
-      'NIST Chemistry WebBook Antoine set for dimethyl sulfoxide, 293–323 K, as quoted on a public page',
-    url: 'https://vacuu-lan.com/vapor-pressure-estimates-antoine-equation/',
-  },
   'landolt-iv20-antoine': {
     citation:
       'Landolt-Börnstein, New Series IV/20, Vapor Pressure of Chemicals (J. Dykyj, J. Svoboda, R. C. Wilhoit, M. Frenkel, K. R. Hall; author list recalled), Springer',
@@ -123,22 +118,45 @@ export const SOURCES = {
       'J. Cannabis Res. 2022, article s42238-022-00130-3, Table 1 "Residual solvent limits imposed by ICH and USP (ICH 2011; USP 2009)" — secondary source for ICH Q3C classes and limits, unchanged through Q3C(R9) for these solvents',
     url: 'https://jcannabisresearch.biomedcentral.com/articles/10.1186/s42238-022-00130-3/tables/1',
   },
-  'caslab-class3': {
+  'wypych-2001-q3c-tables': {
     citation:
-      'ALS Environmental / caslab, "USP Class 3 Residual Solvents List" (ICH Q3C Class 3) — secondary source',
-    url: 'http://www.caslab.com/Class-3-Residual-Solvents/',
+      'G. Wypych (ed.), Handbook of Solvents, ChemTec Publishing, 2001 (publisher and year recalled), §16.2 "Residual solvents in pharmaceutical substances", Table 16.2.5 "Class 3 solvents which should be limited by GMP or other quality-based requirements" and Table 16.2.6 "Solvents for which no adequate toxicological data was found" — a reproduction of ICH Q3C (1997) Tables 3 and 4. Later revisions moved tetrahydrofuran (R1), cumene (R5) and methyl isobutyl ketone (R6) out of Class 3',
+    url: 'https://www.yumpu.com/en/document/view/10607080/handbook-of-solvents-george-wypych-chemtech-ventech/1172',
+  },
+  'q3c-r8-draft-report': {
+    citation:
+      'ICH Q3C(R8) Step 2 draft, "PDE for 2-methyltetrahydrofuran, cyclopentyl methyl ether and tertiary-butyl alcohol": 2-MeTHF PDE 50 mg/day (Class 3), CPME PDE 15 mg/day (Class 2), tertiary-butyl alcohol PDE 35 mg/day (Class 2), as reported by GMP-Verlag news (2020). The Step 4 guideline (22 April 2021) adopted PDEs for the three solvents; the numbers of the final text were not read',
+    url: 'https://www.gmp-verlag.de/content/en/gmp-news/news-about-gmp-cgmp/d/ich-publishes-ich-q3c-r8-with-three-new-pdes-for-comments',
+  },
+  'kelly-1996-peroxide-tables': {
+    citation:
+      'R. J. Kelly, "Review of safety guidelines for peroxidizable organic chemicals", Chem. Health Saf. 1996, 3(5), 28–36, Tables A–D (A: peroxides on storage without concentration; B: hazard on concentration; C: peroxide-initiated polymerisation; D: other peroxide formers) — read as reproduced in Cornell University EHS, "Appendix J – Peroxide Forming Chemicals" (Tables A–C complete, Table D in part); the attribution of those tables to Kelly 1996 is recalled',
+    url: 'https://ehs.cornell.edu/book/export/html/1481',
+  },
+  'nfpa-77-2000-table-b2': {
+    citation:
+      'NFPA 77, Recommended Practice on Static Electricity, 2000 ed., Annex B, Table B.2 "Static Electric Characteristics of Liquids" (conductivity in pS/m), sheet 2 of 5 read (guaiacol to phenetole); in several rows of the copy read the mantissa is lost and only the power of ten remains',
+    url: 'http://fayllar.org/static-electricity-2000-edition.html?page=95',
+  },
+  'static-accumulator-practice': {
+    citation:
+      'Common practice of electrostatic-hazard guidance (IEC TS 60079-32-1, NFPA 77): saturated and aromatic hydrocarbons and most ethers are low-conductivity static accumulators (below about 50 pS/m; threshold recalled); alcohols, ketones, nitriles, amides, sulfoxides, carboxylic acids and water are conductive. Applied by solvent family where no measured conductivity was read',
+  },
+  'flammability-practice': {
+    citation:
+      'Common practice: water, dichloromethane and chloroform show no flash point under the standard closed-cup test (dichloromethane vapour is nevertheless flammable in air at high concentration)',
+  },
+  'peroxide-practice': {
+    citation:
+      'Common practice: ethers with a hydrogen on the carbon next to the ether oxygen (as THF, Kelly Table B) form peroxides on storage; such solvents not named in the tables read are flagged by analogy and usually supplied stabilised',
+  },
+  'merck-index-mtbe': {
+    citation:
+      'The Merck Index, monograph "Methyl tert-Butyl Ether" (solubility 4.8 g/100 g water; dissolves 1.5 g water/100 g; d20/4 0.7404), read as reproduced on a public page that is not a publication (edition not identified)',
   },
   'chem21-guide-2016': {
     citation:
       'D. Prat, A. Wells, J. Hayler, H. Sneddon, C. R. McElroy, S. Abou-Shehada, P. J. Dunn, "CHEM21 selection guide of classical- and less classical-solvents", Green Chem. 2016, 18, 288–296 (doi:10.1039/C5GC01008J; author list, pages and doi recalled)',
-  },
-  'peroxide-former-lists': {
-    citation:
-      'Common practice peroxide-former lists (groups A–D), e.g. R. J. Kelly, "Review of safety guidelines for peroxidizable organic chemicals", Chem. Health Saf. 1996, 3(5), 28–36 (citation and list membership recalled, not read)',
-  },
-  'iec-ts-60079-32-1': {
-    citation:
-      'IEC TS 60079-32-1:2013, Explosive atmospheres – Part 32-1: Electrostatic hazards, guidance (liquids ≤ 50 pS/m treated as low-conductivity static accumulators) — classification of each solvent recalled, not read',
   },
 
   // --- Solubility and property pages read for reference-data.md ---------------
@@ -166,24 +184,10 @@ export const SOURCES = {
     citation:
       'Methyl isobutyl ketone, encyclopedia infobox, stored copies (solubility in water 1.91 g/100 mL, 20 °C) — weak secondary source',
   },
-  'mtbe-monograph-page': {
-    citation:
-      'The Merck Index monograph "Methyl tert-Butyl Ether" as reproduced on a public page (solubility 4.8 g/100 g water; dissolves 1.5 g water/100 g; d20/4 0.7404)',
-    url: 'http://www.druglead.com/cds/Methyl-tert-Butyl-Ether.html',
-  },
   'etoac-solubility-page': {
     citation:
       'Ethyl acetate article ("dissolves up to 3 % water … solubility of 8 % in water at room temperature") — weak secondary source',
     url: 'http://www.fact-archive.com/encyclopedia/Ethyl_acetate',
-  },
-  'dcm-solubility-page': {
-    citation:
-      'Dichloromethane data page (solubility in water 17.5 g/L at 25 °C, encyclopedia-derived) — weak secondary source',
-    url: 'https://sparxoversea.com/product/dichloromethane.html',
-  },
-  'toluene-solubility-page': {
-    citation: 'Toluene solubility article (526 mg/L at 25 °C) — weak secondary source',
-    url: 'https://biologyinsights.com/is-toluene-miscible-in-water',
   },
 
   // --- Derived values ----------------------------------------------------------

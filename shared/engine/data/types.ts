@@ -8,7 +8,24 @@
  * data file, page); `status` says whether the number was read there. */
 export interface Source {
   ref: string;
-  status: 'confirmed' | 'unverified-memory' | 'estimated' | 'common-practice';
+  /**
+   * - confirmed: read in the named source (the primary document, a standard's
+   *   own table, or a handbook table through an open data file);
+   * - secondary: read in a published reproduction of the primary document (a
+   *   journal article or handbook that reprints it), not in the primary itself;
+   * - unverified-memory: recalled, not read;
+   * - estimated: computed here from other values or assigned by rule;
+   * - common-practice: a fact of the trade, stated as such;
+   * - not-confirmed: no value is held because none could be read in a primary
+   *   or published source; the engine says so wherever the field matters.
+   */
+  status:
+    | 'confirmed'
+    | 'secondary'
+    | 'unverified-memory'
+    | 'estimated'
+    | 'common-practice'
+    | 'not-confirmed';
   note?: string;
 }
 
@@ -53,7 +70,12 @@ export interface SolventRecord {
   density: Sourced<{ gPerMl: number; temperatureC: number; dPerK?: number }>;
   boilingPointC: Sourced<number>;
   meltingPointC: Sourced<number>;
-  /** Closed-cup flash point; null where the liquid has none under standard test. */
+  /**
+   * Closed-cup flash point [°C]; null where the liquid has none under the
+   * standard test, or where no value was confirmed (source status
+   * 'not-confirmed': the engine then treats the liquid as flammable at any
+   * temperature). From shared/engine/data/hazards.ts.
+   */
   flashPointC: Sourced<number | null>;
   antoine: AntoineSet[]; // in order of preference; may be empty
   /** Enthalpy of vaporisation at the normal boiling point, kJ/mol, for
@@ -71,14 +93,37 @@ export interface SolventRecord {
   /** 'miscible' | 'partial' | 'immiscible' with water at 25 °C. */
   waterMiscibility: 'miscible' | 'partial';
   viscosityMPas25C: Sourced<number>;
-  ich: Sourced<{ class: 1 | 2 | 3 | null; limitPpm: number | null; pdeMgDay?: number | null }>;
+  /**
+   * ICH Q3C class, Option 1 concentration limit [ppm] and PDE [mg/day], with
+   * the guideline table the entry belongs to (Table 4: no adequate
+   * toxicological data, no PDE). Class and limit are null where the solvent
+   * is not a residual solvent in Q3C's sense, or where the entry could not be
+   * confirmed (source status 'not-confirmed'). From shared/engine/data/ich-q3c.ts.
+   */
+  ich: Sourced<{
+    class: 1 | 2 | 3 | null;
+    limitPpm: number | null;
+    pdeMgDay?: number | null;
+    table?: 'Table 1' | 'Table 2' | 'Table 3' | 'Table 4';
+  }>;
+  /** On a published peroxide-former list (shared/engine/data/hazards.ts). */
   peroxideFormer: Sourced<boolean>;
-  /** Low electrical conductivity (static accumulation risk). */
+  /** Low electrical conductivity: a static accumulator (shared/engine/data/hazards.ts). */
   lowConductivity: Sourced<boolean>;
   guideCategory: Sourced<GuideCategory>;
   /** Dielectric constant, used by some estimates; optional. */
   dielectricConstant?: Sourced<number>;
 }
+
+/** The fields of a solvent record kept apart from the physical data, in the
+ * regulatory and hazard modules (ich-q3c.ts, hazards.ts), keyed by solvent id. */
+export type SolventSafetyFields = Pick<
+  SolventRecord,
+  'ich' | 'flashPointC' | 'peroxideFormer' | 'lowConductivity'
+>;
+
+/** A solvent record as the family files hold it: everything but the safety fields. */
+export type SolventBaseRecord = Omit<SolventRecord, keyof SolventSafetyFields>;
 
 /** An aqueous medium made from water and a solute at a given wt %. */
 export interface AqueousSoluteRecord {

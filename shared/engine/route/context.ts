@@ -327,6 +327,7 @@ export function commonCautions(
 ) {
   const liquidTotal = totalKg(kg);
   const flam: string[] = [];
+  const flashUnknown: string[] = [];
   const lowCond: string[] = [];
   for (const id of ctx.ids) {
     const m = kg[id];
@@ -337,6 +338,8 @@ export function commonCautions(
     const fp = s.flashPointC.value;
     if (fp !== null && m / liquidTotal > 0.01 && T_K - 273.15 >= fp - FLASH_POINT_MARGIN_K)
       flam.push(`${s.name} (flash point ${fp} °C)`);
+    if (fp === null && s.flashPointC.source.status === 'not-confirmed' && m / liquidTotal > 0.01)
+      flashUnknown.push(s.name);
     if (s.ich.value.class === 1) {
       warn(
         warnings,
@@ -353,6 +356,14 @@ export function commonCautions(
       'advisory',
       'flammable-above-flash-point',
       `Process temperature ${(T_K - 273.15).toFixed(0)} °C is above or within ${FLASH_POINT_MARGIN_K} K of the flash point of ${flam.join(', ')}: flammable atmosphere; inerting and ignition-source control apply.`,
+    );
+  }
+  if (flashUnknown.length) {
+    warn(
+      warnings,
+      'advisory',
+      'flash-point-not-confirmed',
+      `No flash point of ${flashUnknown.join(', ')} is confirmed in a standard's table (IEC 60079-20-1, NFPA 497): treat it as flammable at any process temperature; inerting and ignition-source control apply.`,
     );
   }
   if (lowCond.length) {

@@ -27,10 +27,19 @@ import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from '
 export interface IchFlag {
   componentId: string;
   name: string;
+  /** Residual solvent in the dried solid [ppm by mass]. */
   ppm: number;
   ichClass: 1 | 2 | 3 | null;
+  /** ICH Q3C Option 1 concentration limit [ppm]; null where none is held. */
   limitPpm: number | null;
   exceeds: boolean;
+  /**
+   * Where the class and limit come from: a published reproduction of the
+   * guideline's tables ('reproduced-table'), no entry confirmed
+   * ('not-confirmed'), Q3C Table 4 without a PDE ('no-pde'), or not a
+   * residual solvent in Q3C's sense ('not-listed').
+   */
+  basis: 'reproduced-table' | 'not-confirmed' | 'no-pde' | 'not-listed';
 }
 
 /**
@@ -52,7 +61,16 @@ export function ichResidualSolventFlags(
     if (c.kind !== 'solvent' || c.isWater || !(kg[id] > 0)) continue;
     const ppm = (kg[id] / total) * 1e6;
     const ich = c.solvent!.ich.value;
+    const status = c.solvent!.ich.source.status;
     const exceeds = ich.limitPpm !== null && ppm > ich.limitPpm;
+    const basis: IchFlag['basis'] =
+      status === 'not-confirmed'
+        ? 'not-confirmed'
+        : ich.table === 'Table 4'
+          ? 'no-pde'
+          : ich.class === null
+            ? 'not-listed'
+            : 'reproduced-table';
     flags.push({
       componentId: id,
       name: c.name,
@@ -60,7 +78,29 @@ export function ichResidualSolventFlags(
       ichClass: ich.class,
       limitPpm: ich.limitPpm,
       exceeds,
+      basis,
     });
+    if (basis === 'not-confirmed')
+      warn(
+        warnings,
+        'warning',
+        'ich-limit-not-confirmed',
+        `No ICH Q3C class or limit of ${c.name} is confirmed in the library: compare the residual ${ppm.toPrecision(3)} ppm with ICH Q3C(R9) Tables 1–3 yourself.`,
+      );
+    if (basis === 'no-pde')
+      warn(
+        warnings,
+        'advisory',
+        'ich-no-pde',
+        `${c.name} is among the ICH Q3C solvents without adequate toxicological data (Table 4, no PDE): its residual ${ppm.toPrecision(3)} ppm must be justified.`,
+      );
+    if (basis === 'reproduced-table')
+      warn(
+        warnings,
+        'info',
+        'ich-limit-source',
+        'ICH Q3C classes and limits in the library were read in published reproductions of the guideline tables, not in the guideline itself: confirm them against ICH Q3C(R9) before they enter a regulated record.',
+      );
     if (exceeds) {
       warnings.push({
         severity: ich.class === 1 ? 'hazard' : 'warning',

@@ -1,4 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { countByStatus, sourcedValues } from '@shared/engine/data/provenance';
 import { SOLVENTS } from '@shared/engine/data/solvents';
 import { SOURCES } from '@shared/engine/data/sources';
 import { UNIFAC_SUBGROUPS } from '@shared/engine/data/unifac';
@@ -6,10 +9,22 @@ import type { AntoineSet, Source, SolventRecord } from '@shared/engine/data/type
 
 const STATUSES: ReadonlyArray<Source['status']> = [
   'confirmed',
+  'secondary',
   'unverified-memory',
   'estimated',
   'common-practice',
+  'not-confirmed',
 ];
+
+/** The fields whose values feed safety cautions and regulatory comparisons. */
+const SAFETY_FIELDS = ['ich', 'flashPointC', 'peroxideFormer', 'lowConductivity'] as const;
+
+/** Safety-relevant fields of a record whose value is recalled from memory (path list). */
+function recalledSafetyFields(s: SolventRecord): string[] {
+  return SAFETY_FIELDS.filter((f) => s[f].source.status === 'unverified-memory').map(
+    (f) => `${s.id}.${f}`,
+  );
+}
 
 /** CAS Registry Number check digit (CAS, "CAS Registry Number and Check Digit"):
  * the digits before the check digit, read right to left, are weighted 1, 2, 3, …;
@@ -164,20 +179,36 @@ describe('provenance', () => {
     }
   });
 
-  it('keeps the reference-data.md UNVERIFIED ICH rows unverified', () => {
-    for (const id of [
-      'n-hexane',
-      'dmf',
-      'mibk',
-      'cpme',
-      'chloroform',
-      'pyridine',
-      'nmp',
-      'tert-butanol',
-      '2-methyltetrahydrofuran',
-    ]) {
-      expect(SOLVENTS.find((s) => s.id === id)!.ich.source.status, id).toBe('unverified-memory');
+  it('holds no safety-relevant value recalled from memory (ICH Q3C, flash point, peroxide former, static accumulator)', () => {
+    expect(SOLVENTS.flatMap(recalledSafetyFields)).toEqual([]);
+  });
+
+  it('the recalled-value check fires on a record with a recalled flash point', () => {
+    const toluene = SOLVENTS.find((s) => s.id === 'toluene')!;
+    const recalled: SolventRecord = {
+      ...toluene,
+      flashPointC: { value: 4, source: { ref: 'flash-point-memory', status: 'unverified-memory' } },
+    };
+    expect(recalledSafetyFields(recalled)).toEqual(['toluene.flashPointC']);
+  });
+
+  it('holds no number where a safety value is not confirmed', () => {
+    for (const s of SOLVENTS) {
+      if (s.flashPointC.source.status === 'not-confirmed')
+        expect(s.flashPointC.value, s.id).toBeNull();
+      if (s.ich.source.status === 'not-confirmed') {
+        expect(s.ich.value.class, s.id).toBeNull();
+        expect(s.ich.value.limitPpm, s.id).toBeNull();
+      }
     }
+  });
+
+  it('cites no vendor, retail or homework page', () => {
+    const pages = Object.values(SOURCES)
+      .map((e) => ('url' in e ? String(e.url) : ''))
+      .filter(Boolean);
+    for (const url of pages)
+      expect(url).not.toMatch(/caslab|vacuu-lan|sparxoversea|biologyinsights|druglead/);
   });
 });
 
@@ -226,7 +257,7 @@ describe('Antoine sets', () => {
       expect(a.TminK, where).toBeGreaterThan(100);
       expect(['log10-bar-degC', 'log10-bar-K'], where).toContain(a.form);
       expect(a.B, where).toBeGreaterThan(0);
-      expect(a.source.status, where).toBe('confirmed');
+      expect(['confirmed', 'secondary'], where).toContain(a.source.status);
     }
   });
 
@@ -369,9 +400,34 @@ describe('safety flags', () => {
 
   it('records no flash point for water, dichloromethane and chloroform only', () => {
     expect(
-      SOLVENTS.filter((s) => s.flashPointC.value === null)
+      SOLVENTS.filter(
+        (s) => s.flashPointC.value === null && s.flashPointC.source.status !== 'not-confirmed',
+      )
         .map((s) => s.id)
         .sort(),
     ).toEqual(['chloroform', 'dichloromethane', 'water']);
+  });
+
+  it('says which flash points no standard table confirms (IEC 60079-20-1, NFPA 497)', () => {
+    expect(
+      SOLVENTS.filter((s) => s.flashPointC.source.status === 'not-confirmed')
+        .map((s) => s.id)
+        .sort(),
+    ).toEqual(['2-methyltetrahydrofuran', 'anisole', 'cpme', 'dmac', 'nmp']);
+  });
+});
+
+describe('docs/data-sources.md', () => {
+  it('states the current counts of values by status (regenerate with tests/support/data-sources-report.ts)', () => {
+    const doc = readFileSync(join(process.cwd(), 'docs/data-sources.md'), 'utf8').replace(
+      /\s+/g,
+      ' ',
+    );
+    const values = sourcedValues('solvents');
+    const c = countByStatus(values);
+    expect(doc).toContain(`Counts (41 solvents, ${values.length} sourced values)`);
+    expect(doc).toContain(`${c['unverified-memory']} unverified-memory`);
+    expect(doc).toContain(`${c['not-confirmed']} not-confirmed`);
+    expect(doc).toContain(`${c.secondary} secondary`);
   });
 });

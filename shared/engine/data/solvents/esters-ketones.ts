@@ -4,10 +4,10 @@
  * for how the values were chosen. Antoine constants are kept in the published
  * form (see AntoineSet in ../types.ts).
  */
-import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv, VISCOSITY } from './common';
+import type { SolventBaseRecord } from '../types';
+import { antoine, ASSIGNED, derived, read, recalled, sv, VISCOSITY } from './common';
 
-export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
+export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
   {
     id: 'ethyl-acetate',
     name: 'Ethyl acetate',
@@ -24,7 +24,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.9003, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(77.1, read('crc-organic-constants')),
     meltingPointC: sv(-83.6, recalled('melting-point-memory')),
-    flashPointC: sv(-4, read('iec-60079-20-1', 'NFPA 497: −4 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -70,9 +69,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -3.5169, B = -2089.32, C = -364.82 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–463 K), 3 significant figures; Perry 2-313 gives 0.430; stored value was 0.423 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -91,7 +87,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8662, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(88.6, read('crc-organic-constants')),
     meltingPointC: sv(-73.4, read('crc-organic-constants')),
-    flashPointC: sv(1, read('iec-60079-20-1', 'a public encyclopedia page gives 2 °C')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -116,9 +111,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(0.5, VISCOSITY),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('caslab-class3')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -137,7 +129,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8825, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(126, read('crc-organic-constants')),
     meltingPointC: sv(-77, read('crc-organic-constants')),
-    flashPointC: sv(22, read('iec-60079-20-1', 'NFPA 497: 22 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -168,12 +159,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.7722, B = -431.58, C = 29.726 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.677',
       ),
     ),
-    ich: sv(
-      { class: 3, limitPpm: 5000, pdeMgDay: 50 },
-      recalled('ich-q3c-r9', 'Class 3 membership recalled'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -192,7 +177,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7845, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(56.08, read('crc-organic-constants')),
     meltingPointC: sv(-94.9, read('crc-organic-constants')),
-    flashPointC: sv(-20, read('iec-60079-20-1', 'NFPA 497: −20 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -231,9 +215,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.4195, B = -214.96, C = 58.71 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 183–333 K), 3 significant figures; Perry 2-313 gives 0.307; V&N 3-term set 0.306; stored value was 0.306 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'problematic',
       recalled(
@@ -258,7 +239,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7999, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(79.6, read('crc-organic-constants')),
     meltingPointC: sv(-86.67, read('crc-organic-constants')),
-    flashPointC: sv(-10, read('iec-60079-20-1', 'NFPA 497: −6 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -292,9 +272,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from C1…C5 = -1.0598, 520.68, -1.4961, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 186.48–535.5 K), 3 significant figures; no V&N set in the files read; stored value was 0.405 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'problematic',
       recalled(
@@ -319,7 +296,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7965, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(115.7, read('crc-organic-constants')),
     meltingPointC: sv(-85, read('crc-organic-constants')),
-    flashPointC: sv(16, read('iec-60079-20-1', 'a public encyclopedia page gives 14 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -365,18 +341,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from C1…C5 = -11.394, 1168.7, -0.007539, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 189.15–389.15 K), 3 significant figures; no V&N set in the files read; stored value was 0.545 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: 2, limitPpm: 4500, pdeMgDay: 45 },
-      recalled(
-        'ich-q3c-r9',
-        'moved to Class 2 by Q3C(R6) (2016); value recalled. Older USP/caslab lists still show Class 3',
-      ),
-    ),
-    peroxideFormer: sv(
-      true,
-      practice('peroxide-former-lists', 'listed in group B of the usual peroxide-former lists'),
-    ),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'problematic',
       recalled(

@@ -4,10 +4,10 @@
  * for how the values were chosen. Antoine constants are kept in the published
  * form (see AntoineSet in ../types.ts).
  */
-import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv, VISCOSITY } from './common';
+import type { SolventBaseRecord } from '../types';
+import { antoine, ASSIGNED, derived, read, recalled, sv, VISCOSITY } from './common';
 
-export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
+export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
   {
     id: 'thf',
     name: 'Tetrahydrofuran',
@@ -27,7 +27,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
       read('crc-organic-constants', 'NIST/Poling Antoine gives 65.97 °C; Yaws 64.85 °C'),
     ),
     meltingPointC: sv(-108.38, read('crc-organic-constants')),
-    flashPointC: sv(-14, read('iec-60079-20-1', 'NFPA 497: −14 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -66,15 +65,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
         'the two tables read disagree by 4 % (Dutt–Prasad set 0.475, Perry 2-313 0.456); kept as recalled',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 720, pdeMgDay: 7.2 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(true, practice('peroxide-former-lists', 'classic peroxide former (ether)')),
-    lowConductivity: sv(
-      true,
-      recalled(
-        'iec-ts-60079-32-1',
-        'ether; conductivity class recalled, not read — verify for THF',
-      ),
-    ),
     guideCategory: sv(
       'hazardous',
       recalled(
@@ -99,7 +89,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8552, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(80, read('crc-organic-constants')),
     meltingPointC: sv(-136, recalled('melting-point-memory')),
-    flashPointC: sv(-11, recalled('flash-point-memory')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -126,15 +115,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(0.46, VISCOSITY),
-    ich: sv(
-      { class: 3, limitPpm: 5000, pdeMgDay: 50 },
-      recalled('ich-q3c-r9', 'added as Class 3 by Q3C(R8) (2021); recalled'),
-    ),
-    peroxideFormer: sv(
-      true,
-      practice('peroxide-former-lists', 'ether; usually supplied stabilised'),
-    ),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'ether; recalled')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
@@ -159,10 +139,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     ),
     boilingPointC: sv(55.1, read('crc-organic-constants')),
     meltingPointC: sv(-108.65, read('nist-webbook-constants', '164.5 K')),
-    flashPointC: sv(
-      -27,
-      read('iec-60079-20-1', 'NFPA 497 file gives −80 °C, almost certainly an error'),
-    ),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -183,7 +159,11 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     unifac: sv({ 1: 3, 4: 1, 24: 1 }, ASSIGNED),
     waterMutualSolubility: sv(
       { solventInWaterWtPct: 4.6, waterInSolventWtPct: 1.5, temperatureC: 20 },
-      read('mtbe-monograph-page', '4.8 g/100 g water (≈4.6 wt%) and 1.5 g water/100 g'),
+      {
+        ref: 'merck-index-mtbe',
+        status: 'secondary',
+        note: '4.8 g/100 g water (≈4.6 wt%) and 1.5 g water/100 g',
+      },
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(
@@ -193,9 +173,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from C1…C5 = -6.921, 790.773, -0.654, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 164.55–450 K), 3 significant figures; no V&N set in the files read; stored value was 0.34 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(true, practice('peroxide-former-lists', 'low tendency; ether')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'ether; recalled')),
     guideCategory: sv(
       'hazardous',
       recalled(
@@ -220,7 +197,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.86, temperatureC: 20 }, recalled('density-memory')),
     boilingPointC: sv(106, recalled('boiling-point-memory')),
     meltingPointC: sv(-140, read('opennotebook-melting-points', '133.15 K')),
-    flashPointC: sv(-1, recalled('flash-point-memory')),
     antoine: [], // no Antoine set found in the sources read; see docs/data-sources.md
     hansen: sv({ d: 16.7, p: 4.3, h: 4.3 }, read('hansen-diaz-2022')),
     molarVolumeCm3mol: sv(116.5, derived('derived-quantity', 'molar mass / density at 20 °C')),
@@ -231,12 +207,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(0.55, VISCOSITY),
-    ich: sv(
-      { class: 2, limitPpm: 1500, pdeMgDay: 15 },
-      recalled('ich-q3c-r9', 'added as Class 2 by Q3C(R8) (2021); recalled'),
-    ),
-    peroxideFormer: sv(true, practice('peroxide-former-lists', 'low tendency; ether')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'ether; recalled')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
@@ -255,7 +225,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7138, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(34.4, read('crc-organic-constants')),
     meltingPointC: sv(-116.22, read('crc-organic-constants')),
-    flashPointC: sv(-45, read('iec-60079-20-1', 'NFPA 497: −45 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -289,9 +258,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -4.4735, B = -3623.26, C = -648.55 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–373 K), 3 significant figures; Perry 2-313 gives 0.225; stored value was 0.224 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(true, practice('peroxide-former-lists', 'classic peroxide former')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'ether; recalled')),
     guideCategory: sv('highly-hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -310,7 +276,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7192, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(68.4, read('crc-organic-constants')),
     meltingPointC: sv(-85.37, read('crc-organic-constants')),
-    flashPointC: sv(-28, read('iec-60079-20-1', 'NFPA 497: −28 °C')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -341,18 +306,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from C1…C5 = -11.5, 993, 0.022, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 187.65–341.45 K), 3 significant figures; no V&N set in the files read; stored value was 0.379 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: null, limitPpm: null, pdeMgDay: null },
-      recalled('ich-q3c-r9', 'not listed in Q3C Tables 1–3 (recalled)'),
-    ),
-    peroxideFormer: sv(
-      true,
-      practice(
-        'peroxide-former-lists',
-        'severe peroxide former (group A of the usual lists): peroxides form on storage without concentration',
-      ),
-    ),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'ether; recalled')),
     guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -371,7 +324,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 1.0337, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(101.2, read('crc-organic-constants')),
     meltingPointC: sv(11.75, read('crc-organic-constants')),
-    flashPointC: sv(11, read('iec-60079-20-1', 'NFPA 497: 12 °C')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -398,9 +350,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.4827, B = -302.77, C = 103.4 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 288–348 K), 3 significant figures; Perry 2-313 gives 1.19; stored value was 1.177 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 380, pdeMgDay: 3.8 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(true, practice('peroxide-former-lists', 'classic peroxide former (ether)')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'ether; recalled')),
     guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -419,7 +368,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8637, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(85, read('crc-organic-constants')),
     meltingPointC: sv(-69, read('crc-organic-constants')),
-    flashPointC: sv(-6, read('iec-60079-20-1', 'NAS 2016 App. D gives −2 °C')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -440,15 +388,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     unifac: sv({ 2: 2, 24: 2 }, ASSIGNED),
     waterMiscibility: 'miscible',
     viscosityMPas25C: sv(0.455, VISCOSITY),
-    ich: sv({ class: 2, limitPpm: 100, pdeMgDay: 1 }, recalled('ich-q3c-r9', 'recalled')),
-    peroxideFormer: sv(
-      true,
-      practice('peroxide-former-lists', 'ether (glyme); group B of the usual lists'),
-    ),
-    lowConductivity: sv(
-      false,
-      recalled('iec-ts-60079-32-1', 'not classified here; conductivity not known to the authors'),
-    ),
     guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -467,7 +406,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.994, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(153.6, read('crc-organic-constants')),
     meltingPointC: sv(-37.3, read('crc-organic-constants')),
-    flashPointC: sv(52, recalled('flash-point-memory')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -501,12 +439,6 @@ export const ETHERS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from C1…C5 = -15.407, 1518.7, 0.60172, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 235.65–426.73 K), 3 significant figures; no V&N set in the files read; stored value was 0.98 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: 3, limitPpm: 5000, pdeMgDay: 50 },
-      recalled('ich-q3c-r9', 'Class 3 membership recalled'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'aromatic ether; recalled')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
 ];

@@ -4,10 +4,10 @@
  * for how the values were chosen. Antoine constants are kept in the published
  * form (see AntoineSet in ../types.ts).
  */
-import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv } from './common';
+import type { SolventBaseRecord } from '../types';
+import { antoine, ASSIGNED, derived, read, recalled, sv } from './common';
 
-export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
+export const HALOGENATED_SOLVENTS: readonly SolventBaseRecord[] = [
   {
     id: 'dichloromethane',
     name: 'Dichloromethane',
@@ -24,10 +24,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 1.3266, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(39.8, read('crc-organic-constants')),
     meltingPointC: sv(-95, read('crc-organic-constants')),
-    flashPointC: sv(
-      null,
-      recalled('flash-point-memory', 'no flash point under standard closed-cup test'),
-    ),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -64,8 +60,8 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
     waterMutualSolubility: sv(
       { solventInWaterWtPct: 1.73, waterInSolventWtPct: 0.2, temperatureC: 25 },
       recalled(
-        'dcm-solubility-page',
-        'DCM in water 17.5 g/L at 25 °C read on a public page (weak source); water in DCM recalled',
+        'mutual-solubility-memory',
+        'DCM in water 17.5 g/L at 25 °C was read on a vendor page (citation removed); water in DCM recalled',
       ),
     ),
     waterMiscibility: 'partial',
@@ -76,9 +72,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.4815, B = -302.66, C = 22.64 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–310 K), 3 significant figures; Perry 2-313 gives 0.413; stored value was 0.413 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 600, pdeMgDay: 6 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'hazardous',
       recalled(
@@ -103,7 +96,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 1.4788, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(61.2, read('crc-organic-constants')),
     meltingPointC: sv(-63.47, read('crc-organic-constants')),
-    flashPointC: sv(null, recalled('flash-point-memory', 'non-flammable under standard test')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -137,9 +129,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.3917, B = -288.76, C = 39.69 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–333 K), 3 significant figures; Perry 2-313 gives 0.539; V&N 3-term set 0.537; stored value was 0.537 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 60, pdeMgDay: 0.6 }, recalled('ich-q3c-r9', 'recalled')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('highly-hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -158,7 +147,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 1.1058, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(131.6, read('crc-organic-constants')),
     meltingPointC: sv(-45.2, read('crc-organic-constants')),
-    flashPointC: sv(28, read('iec-60079-20-1', 'NFPA 497: 29 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -192,9 +180,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.5481, B = -390.95, C = 24.03 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–393 K), 3 significant figures; Perry 2-313 gives 0.755; stored value was 0.753 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 360, pdeMgDay: 3.6 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1', 'not classified here; verify')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
 ];

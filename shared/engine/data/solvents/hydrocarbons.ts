@@ -4,10 +4,10 @@
  * for how the values were chosen. Antoine constants are kept in the published
  * form (see AntoineSet in ../types.ts).
  */
-import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv } from './common';
+import type { SolventBaseRecord } from '../types';
+import { antoine, ASSIGNED, derived, read, recalled, sv } from './common';
 
-export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
+export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
   {
     id: 'n-heptane',
     name: 'n-Heptane',
@@ -24,7 +24,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.6795, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(98.38, read('crc-organic-constants')),
     meltingPointC: sv(-90.6, recalled('melting-point-memory')),
-    flashPointC: sv(-7, read('iec-60079-20-1', 'NFPA 497: −4 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -67,9 +66,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.5365, B = -277.33, C = 51.64 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 183–373 K), 3 significant figures; Perry 2-313 gives 0.388; stored value was 0.387 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('caslab-class3')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
@@ -88,7 +84,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.6606, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(68.72, read('crc-organic-constants')),
     meltingPointC: sv(-95.27, read('crc-organic-constants')),
-    flashPointC: sv(-22, read('iec-60079-20-1', 'NFPA 497: −23 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -131,9 +126,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.804, B = -401.73, C = -16.29 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 213–343 K), 3 significant figures; Perry 2-313 gives 0.293; stored value was 0.3 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 290, pdeMgDay: 2.9 }, recalled('ich-q3c-r9', 'recalled')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
     guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -151,7 +143,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7739, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(80.7, read('crc-organic-constants')),
     meltingPointC: sv(6.7, read('crc-organic-constants')),
-    flashPointC: sv(-17, read('iec-60079-20-1', 'NFPA 497: −17 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -182,9 +173,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.969, B = -501.37, C = 37.2 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 278–353 K), 3 significant figures; Perry 2-313 gives 0.893; stored value was 0.894 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 3880, pdeMgDay: 38.8 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
     guideCategory: sv(
       'hazardous',
       recalled(
@@ -209,7 +197,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7694, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(100.9, read('crc-organic-constants')),
     meltingPointC: sv(-126.6, read('crc-organic-constants')),
-    flashPointC: sv(-4, read('iec-60079-20-1', 'NFPA 497: −4 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -240,9 +227,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.5348, B = -319.07, C = 64.712 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.683',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 1180, pdeMgDay: 11.8 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'hydrocarbon')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
@@ -261,7 +245,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8623, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(110.6, read('crc-organic-constants')),
     meltingPointC: sv(-95, read('crc-organic-constants')),
-    flashPointC: sv(4, read('iec-60079-20-1', 'NFPA 497: 4 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -295,8 +278,8 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
     waterMutualSolubility: sv(
       { solventInWaterWtPct: 0.052, waterInSolventWtPct: 0.033, temperatureC: 25 },
       recalled(
-        'toluene-solubility-page',
-        'toluene in water 526 mg/L read on a public page (weak source); water in toluene recalled',
+        'mutual-solubility-memory',
+        'toluene in water 526 mg/L was read on a web page that is not a publication (citation removed); water in toluene recalled',
       ),
     ),
     waterMiscibility: 'partial',
@@ -307,9 +290,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.7712, B = -433.71, C = 12.03 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 253–383 K), 3 significant figures; Perry 2-313 gives 0.554; stored value was 0.56 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 890, pdeMgDay: 8.9 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'aromatic hydrocarbon')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
@@ -328,7 +308,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8755, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(144.4, read('crc-organic-constants')),
     meltingPointC: sv(-25.16, read('crc-organic-constants')),
-    flashPointC: sv(30, read('iec-60079-20-1', 'mixed xylenes (CAS 1330-20-7): 25 °C in NFPA 497')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -362,12 +341,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.735, B = -445.93, C = 22.25 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–413 K), 3 significant figures; Perry 2-313 gives 0.758; stored value was 0.76 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: 2, limitPpm: 2170, pdeMgDay: 21.7 },
-      read('jcr-2022-table1', 'Q3C lists xylene as the sum of o-, m-, p-xylene and ethylbenzene'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(true, recalled('iec-ts-60079-32-1', 'aromatic hydrocarbon')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
 ];

@@ -4,10 +4,10 @@
  * for how the values were chosen. Antoine constants are kept in the published
  * form (see AntoineSet in ../types.ts).
  */
-import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv, VISCOSITY } from './common';
+import type { SolventBaseRecord } from '../types';
+import { antoine, ASSIGNED, derived, read, recalled, sv, VISCOSITY } from './common';
 
-export const POLAR_SOLVENTS: readonly SolventRecord[] = [
+export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
   {
     id: 'acetonitrile',
     name: 'Acetonitrile',
@@ -24,7 +24,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7857, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(81.6, read('crc-organic-constants')),
     meltingPointC: sv(-44, read('crc-organic-constants')),
-    flashPointC: sv(2, read('iec-60079-20-1', 'NFPA 497: 6 °C')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -51,9 +50,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
         'the tables read disagree (Perry 2-313 0.342, V&N 3-term set 0.485); kept as recalled',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 410, pdeMgDay: 4.1 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
@@ -72,7 +68,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.9445, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(152.8, read('crc-organic-constants')),
     meltingPointC: sv(-60.3, read('crc-organic-constants')),
-    flashPointC: sv(58, read('iec-60079-20-1', 'NFPA 497: 58 °C')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -105,9 +100,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -0.6419, B = -56.54, C = 193.62 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–323 K), 3 significant figures; Perry 2-313 gives 0.815; V&N 3-term set 0.794; stored value was 0.794 (recalled)',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 880, pdeMgDay: 8.8 }, recalled('ich-q3c-r9', 'recalled')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -126,7 +118,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.9372, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(165.9, read('crc-organic-constants')),
     meltingPointC: sv(-19, read('crc-organic-constants')),
-    flashPointC: sv(63, recalled('flash-point-memory')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -152,9 +143,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
         'the only table read (V&N 3-term set) gives 1.96, twice this value; not used — kept as recalled, verify',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 1090, pdeMgDay: 10.9 }, recalled('ich-q3c-r9', 'recalled')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -173,22 +161,12 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 1.023, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(204.2, read('crc-organic-constants', 'Yaws gives 202.05 °C')),
     meltingPointC: sv(-24.4, recalled('melting-point-memory')),
-    flashPointC: sv(
-      91,
-      recalled('flash-point-memory', 'a DIPPR-derived data file gives 86 °C (low confidence)'),
-    ),
     antoine: [], // no Antoine set found in the sources read; see docs/data-sources.md
     hansen: sv({ d: 18, p: 12.3, h: 7.2 }, read('hansen-hspipy')),
     molarVolumeCm3mol: sv(96.9, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 85: 1 }, read('unifac-groups', 'whole-molecule subgroup of the original table')),
     waterMiscibility: 'miscible',
     viscosityMPas25C: sv(1.67, VISCOSITY),
-    ich: sv(
-      { class: 2, limitPpm: 530, pdeMgDay: 5.3 },
-      recalled('ich-q3c-r9', 'PDE revised in Q3C(R2); value recalled'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
@@ -207,26 +185,12 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 1.101, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(191.9, read('crc-organic-constants')),
     meltingPointC: sv(18.52, read('crc-organic-constants')),
-    flashPointC: sv(
-      87,
-      recalled(
-        'flash-point-memory',
-        'a DIPPR-derived data file gives 86.7 °C (low confidence); NAS 2016 App. D gives 95 °C',
-      ),
-    ),
     antoine: [
-      antoine(
-        'log10-bar-K',
-        5.23039,
-        2239.161,
-        -29.215,
-        293,
-        323,
-        read(
-          'nist-webbook-dmso-page',
-          'NIST set quoted on a public page; a different NIST segment from the one in the data file',
-        ),
-      ),
+      antoine('log10-bar-K', 5.23039, 2239.161, -29.215, 293, 323, {
+        ref: 'nist-webbook-antoine',
+        status: 'secondary',
+        note: 'NIST set read as quoted on a vendor page (citation removed); a different NIST segment from the one in the data file; not checked in the WebBook itself',
+      }),
       antoine(
         'log10-bar-K',
         4.49107,
@@ -252,9 +216,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.3585, B = -323.95, C = 102.62 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 290–400 K), 3 significant figures; Perry 2-313 gives 1.98; stored value was 1.987 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('caslab-class3')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
@@ -273,7 +234,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 1.0446, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(117.9, read('crc-organic-constants')),
     meltingPointC: sv(17, read('crc-organic-constants')),
-    flashPointC: sv(39, read('iec-60079-20-1', 'NFPA 497: 39 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -315,9 +275,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.4999, B = -353.33, C = 69.11 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 283–383 K), 3 significant figures; Perry 2-313 gives 1.12; stored value was 1.056 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('caslab-class3')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'problematic',
       recalled(
@@ -342,7 +299,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.9819, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(115.2, read('crc-organic-constants')),
     meltingPointC: sv(-41.63, read('crc-organic-constants')),
-    flashPointC: sv(18, read('iec-60079-20-1', 'NFPA 497: 20 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -369,9 +325,6 @@ export const POLAR_SOLVENTS: readonly SolventRecord[] = [
         'the two V&N sets disagree by 3 % (Dutt–Prasad 0.852, 3-term 0.879); kept as recalled',
       ),
     ),
-    ich: sv({ class: 2, limitPpm: 200, pdeMgDay: 2 }, recalled('ich-q3c-r9', 'recalled')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'hazardous',
       recalled(

@@ -4,10 +4,10 @@
  * for how the values were chosen. Antoine constants are kept in the published
  * form (see AntoineSet in ../types.ts).
  */
-import type { SolventRecord } from '../types';
-import { antoine, ASSIGNED, derived, practice, read, recalled, sv } from './common';
+import type { SolventBaseRecord } from '../types';
+import { antoine, ASSIGNED, derived, read, recalled, sv } from './common';
 
-export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
+export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
   {
     id: 'water',
     name: 'Water',
@@ -27,7 +27,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     ),
     boilingPointC: sv(99.97, read('crc-inorganic-constants', '373.124 K')),
     meltingPointC: sv(0, recalled('crc-inorganic-constants', 'ice point; not read in the file')),
-    flashPointC: sv(null, recalled('iec-60079-20-1', 'not flammable')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -54,12 +53,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -1.5318, B = -220.57, C = 149.39 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.913; stored value was 0.89 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: null, limitPpm: null, pdeMgDay: null },
-      recalled('ich-q3c-r9', 'water is not a residual solvent in Q3C'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -78,7 +71,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7914, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(64.5, read('crc-organic-constants')),
     meltingPointC: sv(-97.5, read('crc-organic-constants')),
-    flashPointC: sv(9, read('iec-60079-20-1', 'NFPA 497: 12 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -123,12 +115,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -2.2968, B = -675.41, C = -33.89 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–333 K), 3 significant figures; Perry 2-313 gives 0.538; V&N 3-term set 0.544; stored value was 0.544 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: 2, limitPpm: 3000, pdeMgDay: 30 },
-      read('jcr-2022-table1', 'PDE 30 mg/day = limit × 10 g/day'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'problematic',
       recalled(
@@ -153,7 +139,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7893, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(78.24, read('crc-organic-constants')),
     meltingPointC: sv(-114.14, read('crc-organic-constants')),
-    flashPointC: sv(12, read('iec-60079-20-1', 'NFPA 497: 13 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -192,12 +177,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -2.8857, B = -1032.53, C = -55.95 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–348 K), 3 significant figures; Perry 2-313 gives 1.08; stored value was 1.074 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: 3, limitPpm: 5000, pdeMgDay: 50 },
-      read('jcr-2022-table1', 'also on the ALS/caslab Class 3 list'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -216,7 +195,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7997, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(97.04, read('crc-organic-constants')),
     meltingPointC: sv(-124.39, read('crc-organic-constants')),
-    flashPointC: sv(15, read('iec-60079-20-1', 'NFPA 497: 15 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -243,12 +221,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -2.73, B = -854.52, C = 14.96 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–348 K), 3 significant figures; Perry 2-313 gives 1.95; stored value was 1.945 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: 3, limitPpm: 5000, pdeMgDay: 50 },
-      recalled('ich-q3c-r9', 'Class 3 membership recalled; not read'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -267,7 +239,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.7809, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(82.21, read('crc-organic-constants')),
     meltingPointC: sv(-87.91, read('crc-organic-constants')),
-    flashPointC: sv(12, read('iec-60079-20-1', 'NFPA 497: 12 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -306,15 +277,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -3.9124, B = -1399.28, C = -32.76 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–348 K), 3 significant figures; Perry 2-313 gives 2.05; V&N 3-term set 2.04; stored value was 2.038 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(
-      true,
-      practice(
-        'peroxide-former-lists',
-        'secondary alcohol; peroxide hazard on concentration (group B of the usual lists)',
-      ),
-    ),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -333,7 +295,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8095, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(117.6, read('crc-organic-constants')),
     meltingPointC: sv(-88.6, read('crc-organic-constants')),
-    flashPointC: sv(35, read('iec-60079-20-1', 'NFPA 497: 36 °C')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -376,9 +337,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -2.9918, B = -1026.78, C = -4.25 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–393 K), 3 significant figures; Perry 2-313 gives 2.55; stored value was 2.544 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('caslab-class3')),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -397,7 +355,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8063, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(99.4, read('crc-organic-constants')),
     meltingPointC: sv(-88.44, read('crc-organic-constants')),
-    flashPointC: sv(24, read('iec-60079-20-1', 'NFPA 497: 23.8 °C')),
     antoine: [
       antoine(
         'log10-bar-K',
@@ -431,12 +388,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -2.2749, B = -452.89, C = 134.4 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 280–370 K), 3 significant figures; Perry 2-313 gives 3.07; stored value was 3 (recalled)',
       ),
     ),
-    ich: sv({ class: 3, limitPpm: 5000, pdeMgDay: 50 }, read('jcr-2022-table1')),
-    peroxideFormer: sv(
-      true,
-      practice('peroxide-former-lists', 'secondary alcohol; group B of the usual lists'),
-    ),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
@@ -455,10 +406,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8018, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(107.84, read('crc-organic-constants')),
     meltingPointC: sv(-101.96, read('crc-organic-constants')),
-    flashPointC: sv(
-      28,
-      read('iec-60079-20-1', 'NFPA 497 file gives −40 °C, almost certainly an error'),
-    ),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -489,12 +436,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from A = -3.1025, B = -946.92, C = 37.007 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; no second table read; stored value was 3.33 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: 3, limitPpm: 5000, pdeMgDay: 50 },
-      recalled('ich-q3c-r9', 'Class 3 membership recalled'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv('recommended', recalled('chem21-guide-2016', 'recalled; verify')),
   },
   {
@@ -516,7 +457,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     ),
     boilingPointC: sv(82.3, read('crc-organic-constants')),
     meltingPointC: sv(25.81, read('crc-organic-constants')),
-    flashPointC: sv(10, read('nfpa-497', 'not in the IEC 60079-20-1 file')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -543,12 +483,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'Perry 2-313 gives 4.61 and the V&N 3-term set 4.31 (fitted 300–360 K, 25 °C just below); kept as recalled',
       ),
     ),
-    ich: sv(
-      { class: 2, limitPpm: 3500, pdeMgDay: 35 },
-      recalled('ich-q3c-r9', 'moved to Class 2 by Q3C(R8) (2021); value recalled'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'problematic',
       recalled(
@@ -573,7 +507,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
     density: sv({ gPerMl: 0.8262, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(194.7, read('crc-organic-constants')),
     meltingPointC: sv(-14.7, read('crc-organic-constants')),
-    flashPointC: sv(81, read('iec-60079-20-1')),
     antoine: [
       antoine(
         'log10-bar-degC',
@@ -610,12 +543,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventRecord[] = [
         'computed at 298.15 K from C1…C5 = -19.907, 2791.7, 0.94296, 2.3041e24, -10.09 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 280–468.35 K), 3 significant figures; no V&N set in the files read; stored value was 7.288 (recalled)',
       ),
     ),
-    ich: sv(
-      { class: null, limitPpm: null, pdeMgDay: null },
-      recalled('ich-q3c-r9', 'not listed in Q3C (recalled)'),
-    ),
-    peroxideFormer: sv(false, practice('peroxide-former-lists')),
-    lowConductivity: sv(false, recalled('iec-ts-60079-32-1')),
     guideCategory: sv(
       'recommended',
       derived(

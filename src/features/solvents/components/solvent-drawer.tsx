@@ -62,7 +62,11 @@ function Details({ s }: { s: SolventDetail }) {
     ['Melting point', `${s.meltingPointC.toFixed(1)} °C`, 'meltingPointC'],
     [
       'Flash point (closed cup)',
-      s.flashPointC === null ? 'none' : `${s.flashPointC} °C`,
+      s.flashPointC !== null
+        ? `${s.flashPointC} °C`
+        : s.sources.flashPointC?.status === 'not-confirmed'
+          ? 'not confirmed — treat as flammable'
+          : 'none',
       'flashPointC',
     ],
     [
@@ -89,7 +93,9 @@ function Details({ s }: { s: SolventDetail }) {
     [
       'ICH Q3C',
       s.ich.class === null
-        ? 'not listed'
+        ? s.sources.ich?.status === 'not-confirmed'
+          ? 'not confirmed — check the current guideline'
+          : 'not listed'
         : `Class ${s.ich.class}${s.ich.limitPpm !== null ? `, ${s.ich.limitPpm} ppm` : ''}${s.pdeMgDay ? `, PDE ${s.pdeMgDay} mg/day` : ''}`,
       'ich',
     ],
@@ -140,9 +146,11 @@ function Details({ s }: { s: SolventDetail }) {
 
 const STATUS_LABEL: Record<ValueSource['status'], string> = {
   confirmed: 'read in the source',
+  secondary: 'read in a published reproduction, not the original',
   'unverified-memory': 'from memory, unverified',
   estimated: 'estimated',
   'common-practice': 'common practice',
+  'not-confirmed': 'not confirmed: no value held',
 };
 
 function SourceLine({ source }: { source: ValueSource }) {
@@ -150,7 +158,7 @@ function SourceLine({ source }: { source: ValueSource }) {
     <p className="mt-0.5 text-caption text-ink-muted">
       <span
         className={
-          source.status === 'unverified-memory'
+          source.status === 'unverified-memory' || source.status === 'not-confirmed'
             ? 'font-medium text-caution-advisory-deep'
             : undefined
         }

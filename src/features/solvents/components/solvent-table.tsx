@@ -140,14 +140,18 @@ export function SolventTable({
                 </Td>
                 <Td className="text-right tabular-nums">
                   {s.flashPointC === null ? (
-                    <span className="text-ink-muted">none</span>
+                    <span className="text-ink-muted">
+                      {s.sources.flashPointC?.status === 'not-confirmed' ? 'not confirmed' : 'none'}
+                    </span>
                   ) : (
                     s.flashPointC.toFixed(0)
                   )}
                 </Td>
                 <Td>
                   {s.ich.class === null ? (
-                    <span className="text-ink-muted">not listed</span>
+                    <span className="text-ink-muted">
+                      {s.sources.ich?.status === 'not-confirmed' ? 'not confirmed' : 'not listed'}
+                    </span>
                   ) : (
                     `Class ${s.ich.class}${s.ich.limitPpm !== null ? ` · ${s.ich.limitPpm} ppm` : ''}`
                   )}
