@@ -34,7 +34,12 @@ import {
 import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
-import { distilLeg, INCREMENTS_PER_LEG, newDistilState, VOLUME_REFERENCE_K } from './distillation';
+import {
+  distilLeg,
+  DISTILLATION_TOLERANCE_X,
+  newDistilState,
+  VOLUME_REFERENCE_K,
+} from './distillation';
 import { solubilityIn } from './solubility-model';
 
 export interface Precipitation {
@@ -130,7 +135,7 @@ export function crystallisation(
       st,
       volumeToM3(ctx, mode.targetVolume),
       { kind: 'pressure', P_Pa: P },
-      INCREMENTS_PER_LEG,
+      DISTILLATION_TOLERANCE_X,
       W,
       M,
     );

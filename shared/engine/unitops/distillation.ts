@@ -13,10 +13,12 @@
  * elevation by concentrated solutes is not modelled).
  *
  * Put-and-take: distil to the target volume, then `cycles` times: add the new
- * solvent, distil back to the target. Constant volume: the new solvent is fed
- * as fast as distillate is taken, holding the starting volume; the feed and
- * the vapour are integrated together (rayleigh.ts, rayleighConstantVolume;
- * 12 legs, about 16 Heun increments per pot volume fed). Volumes are at 20 °C.
+ * solvent, distil back to the target; the crash-out check runs at the bottom
+ * of every leg. Constant volume: the new solvent is fed as fast as distillate
+ * is taken, holding the starting volume; the feed and the vapour are
+ * integrated together (rayleigh.ts, rayleighConstantVolume). Every leg is
+ * integrated adaptively to DISTILLATION_TOLERANCE_X (1e-6) in the liquid mole
+ * fractions. Volumes are at 20 °C.
  *
  * Units: volumes [m³] inside, reported in L; T [K] inside, reported in °C;
  * P [Pa] inside, reported in mbar.
@@ -45,14 +47,19 @@ import { StepError } from '../route/errors';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 import { solventVle } from './equilibria';
-import { rayleighConstantVolume, rayleighToVolume, type PotVle } from './rayleigh';
+import {
+  RAYLEIGH_TOLERANCE_X,
+  rayleighConstantVolume,
+  rayleighToVolume,
+  type PotVle,
+} from './rayleigh';
 import { findRoot } from '../numerics';
 import { solubilityIn } from './solubility-model';
 
 /** Reference temperature of reported and target volumes [K]. */
 export const VOLUME_REFERENCE_K = 293.15;
-/** Rayleigh increments per distillation leg (accuracy vs speed; see docs/performance.md). */
-export const INCREMENTS_PER_LEG = 8;
+/** End accuracy of every distillation leg in the liquid mole fractions [–] (docs/methods.md). */
+export const DISTILLATION_TOLERANCE_X = RAYLEIGH_TOLERANCE_X;
 
 export type DistillationCondition =
   { kind: 'pressure'; P_Pa: number } | { kind: 'pot-temperature'; T_K: number };
@@ -111,7 +118,7 @@ export function distilLeg(
   st: DistilState,
   targetM3: number,
   cond: DistillationCondition,
-  increments: number,
+  toleranceX: number,
   warnings: EngineWarning[],
   methods: MethodUsed[],
   feed?: LegFeed,
@@ -147,17 +154,18 @@ export function distilLeg(
     for (let i = 0; i < m.length; i++) x[i] = m[i] / t;
     return x;
   };
-  // Two liquid phases at the start of the leg? Then the heterogeneous bubble point is used until the split disappears.
-  let hetero =
+  // Two liquid phases at the start of the leg? Then every evaluation asks for the boiling point of a
+  // liquid that may split (heterogeneousBubblePoint, which returns the one-liquid bubble point once the
+  // split has gone), so the vapour is a function of the pot contents alone, as the integrator needs.
+  const mayDemix =
     vol.length > 1 && liquidLiquidSplit(sys, norm(moles), Math.min(st.lastT_K, 373.15)).split;
   const vleWarnings = new Set<string>();
   const potVle: PotVle = (m) => {
     const xs = norm(m);
     if (cond.kind === 'pressure') {
-      if (hetero) {
+      if (mayDemix) {
         const r = heterogeneousBubblePoint(sys, xs, cond.P_Pa);
         r.warnings.forEach((w) => vleWarnings.add(w));
-        if (r.liquidPhases === 1) hetero = false;
         return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
       }
       const r = bubblePoint(sys, xs, cond.P_Pa, { T0_K: st.lastT_K });
@@ -165,14 +173,12 @@ export function distilLeg(
       st.lastT_K = r.T_K;
       return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
     }
-    if (hetero) {
+    if (mayDemix) {
       // Pressure at which the heterogeneous bubble point equals the set pot temperature: Brent's
       // method on ln P (numerics/roots.ts), bracket grown from the homogeneous bubble pressure.
       const P1 = bubblePressure(sys, xs, cond.T_K).P_Pa;
       const r1 = heterogeneousBubblePoint(sys, xs, P1);
-      if (r1.liquidPhases === 1) {
-        hetero = false;
-      } else {
+      if (r1.liquidPhases === 2) {
         let kept = r1;
         let keptLnP = Math.log(P1);
         const root = findRoot(
@@ -201,7 +207,7 @@ export function distilLeg(
   method(
     methods,
     'distillation',
-    'Rayleigh equation, Heun integration, modified Raoult with UNIFAC; heterogeneous bubble point while two liquids are present',
+    `Rayleigh equation integrated adaptively (Dormand–Prince 5(4), ${toleranceX.toExponential(0)} in liquid mole fraction), modified Raoult with UNIFAC; heterogeneous bubble point while two liquids are present`,
     'Rayleigh, Phil. Mag. 1902, 4, 521; UNIFAC: Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352; Antoine constants from the solvent library',
   );
   let r;
@@ -213,13 +219,20 @@ export function distilLeg(
       vol.indexOf(feed.solventId),
       feed.m3,
       potVle,
-      increments,
+      { toleranceX },
       fixed,
     );
     feed.add(feed.m3);
   } else {
-    r = rayleighToVolume(moles, mv, fixed, targetM3, potVle, increments);
+    r = rayleighToVolume(moles, mv, fixed, targetM3, potVle, { toleranceX });
   }
+  if (!r.converged)
+    warn(
+      warnings,
+      'warning',
+      'distillation-not-converged',
+      `The distillation integral did not reach its tolerance (${r.reason} after ${r.steps} steps): pot and distillate compositions are approximate.`,
+    );
   for (const w of vleWarnings) warn(warnings, 'info', 'vle', w);
   if (r.exhausted)
     warn(
@@ -235,7 +248,21 @@ export function distilLeg(
   });
   const base = st.distillateM3;
   const fedBase = st.newSolventAddedM3 - (feed?.m3 ?? 0);
-  for (const p of r.profile.slice(1)) {
+  // Original solvents as wt % of the solvents in the pot at each point of the profile.
+  const originalShare = (m: Float64Array): number => {
+    let orig = 0;
+    let all = 0;
+    for (const id of ctx.ids) {
+      if (ctx.comps.get(id)!.kind !== 'solvent') continue;
+      const i = vol.indexOf(id);
+      const kg = i >= 0 ? m[i] * M[i] : st.pot[id];
+      all += kg;
+      if (st.originalSolventIds.includes(id)) orig += kg;
+    }
+    return all > 0 ? (100 * orig) / all : 0;
+  };
+  // The first leg also reports its starting point (the feed as it starts to boil).
+  for (const p of st.profile.length === 0 ? r.profile : r.profile.slice(1)) {
     st.maxT_K = Math.max(st.maxT_K, p.T_K);
     st.minVolumeM3 = Math.min(st.minVolumeM3, p.volume);
     st.lastT_K = p.T_K;
@@ -248,7 +275,7 @@ export function distilLeg(
         (p.fed !== undefined ? fedBase + p.fed : st.newSolventAddedM3) * 1000,
         4,
       ),
-      originalSolventWtPct: NaN,
+      originalSolventWtPct: round(originalShare(p.moles), 4),
     });
   }
   if (r.profile.length > 0) {
@@ -282,6 +309,22 @@ export function solubilityCrossingCheck(
       );
     }
   }
+}
+
+/** The crash-out check at the bottom of one leg of a swap (pot volume and temperature there). */
+function legCrossingCheck(
+  ctx: EvalContext,
+  st: DistilState,
+  warnings: EngineWarning[],
+  methods: MethodUsed[],
+  leg: string,
+) {
+  const before = warnings.length;
+  const potVolumeL = streamVolume(ctx, st.pot, VOLUME_REFERENCE_K) * 1000;
+  solubilityCrossingCheck(ctx, st.pot, st.lastT_K, potVolumeL, warnings, methods);
+  for (let k = before; k < warnings.length; k++)
+    if (warnings[k].code === 'solubility-crossed')
+      warnings[k] = { ...warnings[k], message: `${leg}: ${warnings[k].message}` };
 }
 
 export function newDistilState(
@@ -356,32 +399,26 @@ export function distillation(
         'nothing-distilled',
         'The target volume is not below the feed volume: nothing is distilled.',
       );
-    distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
+    distilLeg(ctx, st, target, cond, DISTILLATION_TOLERANCE_X, W, Ms);
   } else if (mode.kind === 'put-and-take') {
     const target = volumeToM3(ctx, mode.targetVolume);
     const addV = volumeToM3(ctx, mode.addVolume);
-    distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
+    distilLeg(ctx, st, target, cond, DISTILLATION_TOLERANCE_X, W, Ms);
     for (let c = 0; c < mode.cycles; c++) {
+      // A solute can crash out at the bottom of any leg, not only the last: check each.
+      legCrossingCheck(ctx, st, W, Ms, `leg ${c + 1} of ${mode.cycles + 1}`);
       add(addV);
-      distilLeg(ctx, st, target, cond, INCREMENTS_PER_LEG, W, Ms);
+      distilLeg(ctx, st, target, cond, DISTILLATION_TOLERANCE_X, W, Ms);
     }
   } else {
-    // 12 legs (a residual reported after each), each integrated continuously
-    // (rayleighConstantVolume) with at least 2 Heun increments and about 16
-    // increments per pot volume fed in all.
+    // Constant volume: the feed and the vapour integrated together in one adaptive leg; the profile
+    // carries the residual of the original solvents at every step.
     const addV = volumeToM3(ctx, mode.addVolume);
-    const K = 12;
-    const perLeg = Math.max(
-      2,
-      Math.min(16, Math.ceil((16 * addV) / Math.max(1e-12, startVolume) / K)),
-    );
-    for (let k = 0; k < K; k++) {
-      distilLeg(ctx, st, startVolume, cond, perLeg, W, Ms, {
-        solventId: newId!,
-        m3: addV / K,
-        add,
-      });
-    }
+    distilLeg(ctx, st, startVolume, cond, DISTILLATION_TOLERANCE_X, W, Ms, {
+      solventId: newId!,
+      m3: addV,
+      add,
+    });
   }
   const potVol = streamVolume(ctx, st.pot, VOLUME_REFERENCE_K);
   const T_end = st.lastT_K;

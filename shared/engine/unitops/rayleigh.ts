@@ -5,15 +5,20 @@
  * from a still pot, for concentrations, solvent swaps and evaporative
  * crystallisation.
  *
- * Formula (Rayleigh 1902; Wankat, Separation Process Engineering, chapter on
- * batch distillation; McCabe, Smith & Harriott, Unit Operations of Chemical
- * Engineering): for each volatile component i,
- *     d n_i = − y_i dV,        y_i = y_i(x, P or T) from the VLE
- * (equivalently dN_L/N_L = dx/(y − x) for a binary). Integrated in the
- * distilled volume with Heun's predictor–corrector (second order): y at the
- * start of an increment, y at the predicted end, their mean for the removal;
- * each increment removes a fixed share of the volume to be distilled, and
- * the last increment lands exactly on the target volume.
+ * Formula (Lord Rayleigh, Phil. Mag. 1902, 4, 521; Wankat, Separation
+ * Process Engineering, chapter on batch distillation; McCabe, Smith &
+ * Harriott, Unit Operations of Chemical Engineering): for each volatile
+ * component i,
+ *     d n_i = − y_i dN_V,        y_i = y_i(x, P or T) from the VLE
+ * (equivalently dN_L/N_L = dx/(y − x) for a binary). Written with the
+ * distilled liquid volume s as the independent variable,
+ *     d n_i / d s = − y_i / Σ_j y_j v_j      (v_j: molar volumes)
+ * and integrated adaptively with the Dormand–Prince 5(4) pair
+ * (numerics/ode.ts) under an error norm on the liquid mole fractions: every
+ * step keeps the local error of every x_i below a tenth of the stated
+ * tolerance, so that the end composition is within the tolerance (default
+ * RAYLEIGH_TOLERANCE_X = 1e-6) of the converged integral; the reference
+ * tests check this against the closed form for constant relative volatility.
  *
  * Units: moles [mol]; volumes in any consistent unit (the caller passes
  * molar volumes [m³/mol] and a fixed non-volatile volume [m³]).
@@ -22,6 +27,13 @@
  * solutes stay in the pot. Mass is conserved exactly: every mole removed from
  * the pot is added to the distillate.
  */
+import { dormandPrince, type OdeStop } from '../numerics';
+
+/** Stated accuracy of every Rayleigh integration: absolute error in any liquid mole fraction [–]. */
+export const RAYLEIGH_TOLERANCE_X = 1e-6;
+
+/** Local error per step as a fraction of the stated (global) tolerance [–]. */
+const LOCAL_SHARE = 0.1;
 
 export interface VleAtPot {
   /** Pot temperature [K]. */
@@ -32,18 +44,22 @@ export interface VleAtPot {
   y: ArrayLike<number>;
 }
 
-/** Vapour in equilibrium with the pot liquid of the given volatile moles. */
+/** Vapour in equilibrium with the pot liquid of the given volatile moles [mol]. */
 export type PotVle = (moles: Float64Array) => VleAtPot;
 
 export interface RayleighPoint {
+  /** Pot temperature [K]. */
   T_K: number;
+  /** Pressure [Pa]. */
   P_Pa: number;
-  /** Pot volume after this increment (same unit as the inputs). */
+  /** Pot volume after this step (same unit as the inputs). */
   volume: number;
   /** Cumulative distilled volume. */
   distilled: number;
   /** Cumulative volume fed (constant-volume mode only). */
   fed?: number;
+  /** Volatile moles in the pot at this point [mol]. */
+  moles: Float64Array;
 }
 
 export interface RayleighResult {
@@ -51,19 +67,106 @@ export interface RayleighResult {
   moles: Float64Array;
   /** Moles distilled [mol]. */
   distilled: Float64Array;
+  /** Start point and one point per accepted integration step. */
   profile: RayleighPoint[];
   /** True when the volatile liquid ran out before the target volume. */
   exhausted: boolean;
+  /** True when the integration met its tolerance. */
+  converged: boolean;
+  /** Why the integration stopped. */
+  reason: OdeStop;
+  /** Accepted steps and VLE evaluations used [–]. */
+  steps: number;
+  evaluations: number;
+}
+
+/** Options of a Rayleigh integration. */
+export interface RayleighOptions {
+  /** Tolerance on every liquid mole fraction at the end [–] (default RAYLEIGH_TOLERANCE_X). */
+  toleranceX?: number;
+}
+
+/** Local relative error allowed per step in the moles of each component [–] (keeps traces positive and accurate). */
+const LOCAL_RELATIVE = 1e-4;
+
+/**
+ * Error norm of a Rayleigh step for a state of moles n, the larger of
+ *  (a) the mole-fraction error: with N = Σ n, δx_i = (δn_i − x_i Σ δn)/N,
+ *      max_i |δx_i| / tol (N floored at 1e-9 of the starting moles, so the
+ *      last traces before dryness do not force vanishing steps);
+ *  (b) the relative error of each component's moles, max_i |δn_i| /
+ *      (LOCAL_RELATIVE · n_i + 1e-10 N₀), so that a component being stripped
+ *      to traces (a residual solvent) is followed to 1e-4 of its own amount
+ *      per step (about 1e-3 of it at the end) and never overshoots below zero.
+ */
+function rayleighErrorNorm(tol: number, N0: number) {
+  const nFloor = 1e-9 * N0;
+  const nAbs = 1e-10 * N0;
+  return (y: Float64Array, yNew: Float64Array, err: Float64Array): number => {
+    let N = 0;
+    let sumErr = 0;
+    for (let i = 0; i < y.length; i++) {
+      N += Math.max(0, yNew[i]);
+      sumErr += err[i];
+    }
+    N = Math.max(N, nFloor);
+    let worst = 0;
+    for (let i = 0; i < y.length; i++) {
+      const x = Math.max(0, yNew[i]) / N;
+      worst = Math.max(worst, Math.abs(err[i] - x * sumErr) / N / tol);
+      const scale = LOCAL_RELATIVE * Math.min(Math.abs(y[i]), Math.abs(yNew[i])) + nAbs;
+      worst = Math.max(worst, Math.abs(err[i]) / scale);
+      if (yNew[i] < -nAbs) worst = Math.max(worst, 2);
+    }
+    return worst;
+  };
+}
+
+/**
+ * The VLE at the pot moles (negative trial values clipped to 0), remembering
+ * the last state: the integrator's last stage of an accepted step is at the
+ * new state, so the profile point reuses it instead of a new VLE solve.
+ */
+function cachedVle(vle: PotVle, n: number) {
+  const positive = new Float64Array(n);
+  const lastState = new Float64Array(n).fill(NaN);
+  let last: VleAtPot | null = null;
+  return {
+    positive,
+    at(m: Float64Array): VleAtPot {
+      let same = last !== null;
+      for (let i = 0; i < n; i++) {
+        positive[i] = Math.max(0, m[i]);
+        if (positive[i] !== lastState[i]) same = false;
+      }
+      if (same && last) return last;
+      const v = vle(positive);
+      // Keep a copy: a PotVle may reuse its output arrays.
+      last = { T_K: v.T_K, P_Pa: v.P_Pa, y: Float64Array.from(v.y as ArrayLike<number>) };
+      lastState.set(positive);
+      return last;
+    },
+  };
 }
 
 /**
  * Distil a pot down to `targetVolume`.
+ *
+ * Source and formula: the module comment (Rayleigh 1902; Dormand & Prince
+ * 1980 for the integrator).
+ *
  * @param moles        volatile moles in the pot [mol] (not modified)
  * @param molarVolume  molar volume of each volatile [volume/mol]
  * @param fixedVolume  volume of the non-volatile contents [volume]
  * @param targetVolume pot volume to stop at [volume]
  * @param vle          vapour composition at the current pot liquid
- * @param increments   number of increments (≥ 1); 8–16 give < 0.1 % error for smooth VLE
+ * @param opts         toleranceX: end accuracy in every liquid mole fraction [–] (default 1e-6)
+ * @returns the pot and distillate moles, a profile (one point per accepted step), exhausted when the pot ran dry
+ *
+ * Validity: any VLE that is continuous in the pot composition (a kink where
+ * a second liquid phase appears or vanishes costs a few rejected steps).
+ * When the non-volatile contents exceed the target, the volatile liquid is
+ * distilled to dryness and `exhausted` is set.
  */
 export function rayleighToVolume(
   moles: Float64Array,
@@ -71,79 +174,100 @@ export function rayleighToVolume(
   fixedVolume: number,
   targetVolume: number,
   vle: PotVle,
-  increments: number,
+  opts: RayleighOptions = {},
 ): RayleighResult {
   const n = moles.length;
-  const pot = Float64Array.from(moles);
-  const distilled = new Float64Array(n);
-  const profile: RayleighPoint[] = [];
-  const volumeOf = (m: Float64Array) => {
-    let v = fixedVolume;
-    for (let i = 0; i < n; i++) v += m[i] * molarVolume[i];
-    return v;
-  };
-  const total = (m: Float64Array) => {
-    let t = 0;
-    for (let i = 0; i < n; i++) t += m[i];
-    return t;
-  };
-  let V = volumeOf(pot);
-  const toRemove = V - targetVolume;
-  let distilledVolume = 0;
-  if (!(toRemove > 0)) return { moles: pot, distilled, profile, exhausted: false };
-  const stepVolume = toRemove / Math.max(1, Math.floor(increments));
-  const trial = new Float64Array(n);
-  const y = new Float64Array(n);
-  let exhausted = false;
-  let first = vle(pot);
-  profile.push({ T_K: first.T_K, P_Pa: first.P_Pa, volume: V, distilled: 0 });
-  for (let guard = 0; guard < 10 * increments + 10; guard++) {
-    const remaining = V - targetVolume;
-    if (remaining <= toRemove * 1e-12) break;
-    if (total(pot) <= 1e-14 * total(moles)) {
-      exhausted = true;
-      break;
-    }
-    const dVol = Math.min(stepVolume, remaining);
-    // Predictor with the vapour at the start of the increment.
-    const y0 = first.y;
-    let vPerMol = 0;
-    for (let i = 0; i < n; i++) vPerMol += y0[i] * molarVolume[i];
-    let dn = dVol / vPerMol;
-    for (let i = 0; i < n; i++) trial[i] = Math.max(0, pot[i] - dn * y0[i]);
-    const end = total(trial) > 0 ? vle(trial) : first;
-    // Corrector: mean vapour composition over the increment.
-    vPerMol = 0;
-    for (let i = 0; i < n; i++) {
-      y[i] = 0.5 * (y0[i] + end.y[i]);
-      vPerMol += y[i] * molarVolume[i];
-    }
-    dn = dVol / vPerMol;
-    let removedVolume = 0;
-    for (let i = 0; i < n; i++) {
-      const r = Math.min(pot[i], dn * y[i]);
-      pot[i] -= r;
-      distilled[i] += r;
-      removedVolume += r * molarVolume[i];
-    }
-    V -= removedVolume;
-    distilledVolume += removedVolume;
-    if (removedVolume <= 0) {
-      exhausted = true;
-      break;
-    }
-    first = total(pot) > 0 ? vle(pot) : end;
-    profile.push({ T_K: first.T_K, P_Pa: first.P_Pa, volume: V, distilled: distilledVolume });
+  const tol = opts.toleranceX ?? RAYLEIGH_TOLERANCE_X;
+  let volatileVolume = 0;
+  let N0 = 0;
+  for (let i = 0; i < n; i++) {
+    volatileVolume += moles[i] * molarVolume[i];
+    N0 += moles[i];
   }
-  return { moles: pot, distilled, profile, exhausted };
+  const V0 = fixedVolume + volatileVolume;
+  const first = vle(moles);
+  const start: RayleighPoint = {
+    T_K: first.T_K,
+    P_Pa: first.P_Pa,
+    volume: V0,
+    distilled: 0,
+    moles: Float64Array.from(moles),
+  };
+  const toRemoveAsked = V0 - targetVolume;
+  if (!(toRemoveAsked > 0) || !(N0 > 0)) {
+    return {
+      moles: Float64Array.from(moles),
+      distilled: new Float64Array(n),
+      profile: [start],
+      exhausted: false,
+      converged: true,
+      reason: 'converged',
+      steps: 0,
+      evaluations: 1,
+    };
+  }
+  // Dryness: the volatile liquid cannot supply the volume asked. Integrate to a trace of it, then
+  // take the trace over (the pot is dry).
+  const exhausted = toRemoveAsked >= volatileVolume * (1 - 1e-12);
+  const toRemove = exhausted ? volatileVolume * (1 - 1e-9) : toRemoveAsked;
+  const cached = cachedVle(vle, n);
+  const rhs = (_s: number, m: Float64Array, dm: Float64Array) => {
+    const y = cached.at(m).y;
+    let vPerMol = 0;
+    for (let i = 0; i < n; i++) vPerMol += y[i] * molarVolume[i];
+    for (let i = 0; i < n; i++) dm[i] = -y[i] / vPerMol;
+  };
+  const profile: RayleighPoint[] = [start];
+  const r = dormandPrince(rhs, 0, moles, toRemove, {
+    errorNorm: rayleighErrorNorm(LOCAL_SHARE * tol, N0),
+    atol: 1e-12 * N0,
+    rtol: LOCAL_SHARE * tol,
+    onStep: (s, m) => {
+      const at = cached.at(m);
+      profile.push({
+        T_K: at.T_K,
+        P_Pa: at.P_Pa,
+        volume: V0 - s,
+        distilled: s,
+        moles: Float64Array.from(cached.positive),
+      });
+    },
+  });
+  const pot = new Float64Array(n);
+  const distilled = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    pot[i] = exhausted ? 0 : Math.min(moles[i], Math.max(0, r.y[i]));
+    distilled[i] = moles[i] - pot[i];
+  }
+  if (exhausted) {
+    const last = profile[profile.length - 1];
+    last.moles = new Float64Array(n);
+    last.volume = fixedVolume;
+    last.distilled = volatileVolume;
+  }
+  return {
+    moles: pot,
+    distilled,
+    profile,
+    exhausted,
+    converged: r.converged,
+    reason: r.reason,
+    steps: r.steps,
+    evaluations: r.evaluations + 1,
+  };
 }
 
 /**
  * Closed form of the Rayleigh equation for a binary of constant relative
  * volatility α (Wankat, Separation Process Engineering, batch distillation):
  *   ln(W/F) = 1/(α − 1) · ln[x_W (1 − x_F) / (x_F (1 − x_W))] + ln[(1 − x_F)/(1 − x_W)]
- * x_F, x_W: mole fraction of the more volatile component in the charge and
- * in the final pot [-]; returns W/F [-].
+ *
+ * @param alpha  relative volatility of the lighter component [–], ≠ 1
+ * @param xF     mole fraction of the more volatile component in the charge [–]
+ * @param xW     mole fraction of the more volatile component in the final pot [–]
+ * @returns W/F, moles left per mole charged [–]
+ *
+ * Validity: constant α, one equilibrium stage; 0 < x_W, x_F < 1.
  */
 export function rayleighConstantAlphaResidueFraction(
   alpha: number,
@@ -162,24 +286,29 @@ export interface ConstantVolumeResult extends RayleighResult {
 
 /**
  * Constant-volume batch distillation (solvent swap): component `feedIndex`
- * is fed as fast as vapour is taken, holding the pot volume. With the fed
- * volume V_F as the independent variable, for each volatile i
+ * is fed as fast as vapour is taken, holding the pot volume.
+ *
+ * Formula: with the fed volume V_F as the independent variable, for each
+ * volatile i
  *     d n_i / d V_F = δ_i,feed / v_feed − y_i / Σ_j y_j v_j
- * (v: molar volumes; the vapour removed has the same volume as the liquid
- * fed). Integrated with Heun's predictor–corrector in `increments` equal
- * steps of fed volume. For a binary of constant α with equal molar volumes
- * this has the closed form (see rayleighConstantVolumeFeedRatio)
- *     F/N = [ln(x₀/x) + (α − 1)(x₀ − x)] / α,
- * the fraction of the original (more volatile) solvent falling nearly as
- * exp(−α F/N). Mass is conserved exactly: every mole removed from the pot is
- * added to the distillate; the feed is added in full.
+ * (v: molar volumes; the vapour removed has the same liquid volume as the
+ * liquid fed), integrated adaptively with Dormand–Prince 5(4) under the
+ * mole-fraction error norm of rayleighToVolume (end accuracy `toleranceX`).
+ * For a binary of constant α with equal molar volumes this has the closed
+ * form rayleighConstantVolumeFeedRatio. Mass is conserved exactly: every mole
+ * removed from the pot is added to the distillate; the feed is added in full.
+ *
  * @param moles       volatile moles in the pot [mol] (not modified)
  * @param molarVolume molar volume of each volatile [volume/mol]
- * @param feedIndex   index of the fed component
- * @param feedVolume  volume fed [same unit as the molar volumes × mol]
+ * @param feedIndex   index of the fed component [–]
+ * @param feedVolume  volume fed [volume]
  * @param vle         vapour in equilibrium with the pot liquid
- * @param increments  number of equal feed increments (≥ 1)
+ * @param opts        toleranceX: end accuracy in every liquid mole fraction [–] (default 1e-6)
  * @param fixedVolume volume of the non-volatile contents, reported in the profile only [volume]
+ * @returns pot and distillate moles, the moles fed, a profile (one point per accepted step)
+ *
+ * Validity: as rayleighToVolume; the pot never runs dry (the feed replaces
+ * what distils).
  */
 export function rayleighConstantVolume(
   moles: Float64Array,
@@ -187,59 +316,84 @@ export function rayleighConstantVolume(
   feedIndex: number,
   feedVolume: number,
   vle: PotVle,
-  increments: number,
+  opts: RayleighOptions = {},
   fixedVolume = 0,
 ): ConstantVolumeResult {
   const n = moles.length;
-  const pot = Float64Array.from(moles);
-  const distilled = new Float64Array(n);
-  const profile: RayleighPoint[] = [];
-  const trial = new Float64Array(n);
-  const y = new Float64Array(n);
-  const K = Math.max(1, Math.floor(increments));
-  const h = feedVolume / K;
-  const dFeed = h / molarVolume[feedIndex];
-  let fedMoles = 0;
-  let distilledVolume = 0;
+  const tol = opts.toleranceX ?? RAYLEIGH_TOLERANCE_X;
   let V = fixedVolume;
-  for (let i = 0; i < n; i++) V += pot[i] * molarVolume[i];
-  let first = vle(pot);
-  profile.push({ T_K: first.T_K, P_Pa: first.P_Pa, volume: V, distilled: 0, fed: 0 });
-  if (!(feedVolume > 0)) return { moles: pot, distilled, profile, exhausted: false, fedMoles };
-  for (let k = 0; k < K; k++) {
-    const y0 = first.y;
-    let vPerMol = 0;
-    for (let i = 0; i < n; i++) vPerMol += y0[i] * molarVolume[i];
-    let dn = h / vPerMol;
-    for (let i = 0; i < n; i++)
-      trial[i] = Math.max(0, pot[i] + (i === feedIndex ? dFeed : 0) - dn * y0[i]);
-    const end = vle(trial);
-    vPerMol = 0;
-    for (let i = 0; i < n; i++) {
-      y[i] = 0.5 * (y0[i] + end.y[i]);
-      vPerMol += y[i] * molarVolume[i];
-    }
-    dn = h / vPerMol;
-    pot[feedIndex] += dFeed;
-    fedMoles += dFeed;
-    V += h;
-    for (let i = 0; i < n; i++) {
-      const r = Math.min(pot[i], dn * y[i]);
-      pot[i] -= r;
-      distilled[i] += r;
-      V -= r * molarVolume[i];
-      distilledVolume += r * molarVolume[i];
-    }
-    first = vle(pot);
-    profile.push({
+  let N0 = 0;
+  for (let i = 0; i < n; i++) {
+    V += moles[i] * molarVolume[i];
+    N0 += moles[i];
+  }
+  const first = vle(moles);
+  const profile: RayleighPoint[] = [
+    {
       T_K: first.T_K,
       P_Pa: first.P_Pa,
       volume: V,
-      distilled: distilledVolume,
-      fed: (k + 1) * h,
-    });
+      distilled: 0,
+      fed: 0,
+      moles: Float64Array.from(moles),
+    },
+  ];
+  const vFeed = molarVolume[feedIndex];
+  if (!(feedVolume > 0)) {
+    return {
+      moles: Float64Array.from(moles),
+      distilled: new Float64Array(n),
+      profile,
+      exhausted: false,
+      converged: true,
+      reason: 'converged',
+      steps: 0,
+      evaluations: 1,
+      fedMoles: 0,
+    };
   }
-  return { moles: pot, distilled, profile, exhausted: false, fedMoles };
+  const cached = cachedVle(vle, n);
+  const rhs = (_f: number, m: Float64Array, dm: Float64Array) => {
+    const y = cached.at(m).y;
+    let vPerMol = 0;
+    for (let i = 0; i < n; i++) vPerMol += y[i] * molarVolume[i];
+    for (let i = 0; i < n; i++) dm[i] = (i === feedIndex ? 1 / vFeed : 0) - y[i] / vPerMol;
+  };
+  const r = dormandPrince(rhs, 0, moles, feedVolume, {
+    errorNorm: rayleighErrorNorm(LOCAL_SHARE * tol, N0),
+    atol: 1e-12 * N0,
+    rtol: LOCAL_SHARE * tol,
+    onStep: (fed, m) => {
+      const at = cached.at(m);
+      profile.push({
+        T_K: at.T_K,
+        P_Pa: at.P_Pa,
+        volume: V,
+        distilled: fed,
+        fed,
+        moles: Float64Array.from(cached.positive),
+      });
+    },
+  });
+  const fedMoles = feedVolume / vFeed;
+  const pot = new Float64Array(n);
+  const distilled = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const charged = moles[i] + (i === feedIndex ? fedMoles : 0);
+    pot[i] = Math.min(charged, Math.max(0, r.y[i]));
+    distilled[i] = charged - pot[i];
+  }
+  return {
+    moles: pot,
+    distilled,
+    profile,
+    exhausted: false,
+    converged: r.converged,
+    reason: r.reason,
+    steps: r.steps,
+    evaluations: r.evaluations + 1,
+    fedMoles,
+  };
 }
 
 /**
@@ -248,10 +402,15 @@ export function rayleighConstantVolume(
  * B, equal molar volumes, pot holdup N constant): from N dx = −y dF with
  * y = αx/(1 + (α − 1)x),
  *     F/N = [ln(x₀/x) + (α − 1)(x₀ − x)] / α.
- * x₀, x: mole fraction of A at the start and the end [-]; returns the moles
- * fed per mole of pot holdup, F/N [-]. Derived here (integral of the balance
- * above); the same integral underlies the constant-volume solvent-swap
- * estimate of common practice.
+ * Derived here (integral of the balance above); the same integral underlies
+ * the constant-volume solvent-swap estimate of common practice.
+ *
+ * @param alpha  relative volatility of A over B [–]
+ * @param x0     mole fraction of A at the start [–]
+ * @param x      mole fraction of A at the end [–]
+ * @returns moles fed per mole of pot holdup, F/N [–]
+ *
+ * Validity: constant α, equal molar volumes, 0 < x ≤ x₀ ≤ 1.
  */
 export function rayleighConstantVolumeFeedRatio(alpha: number, x0: number, x: number): number {
   return (Math.log(x0 / x) + (alpha - 1) * (x0 - x)) / alpha;
