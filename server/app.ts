@@ -53,6 +53,8 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   const log = options.log ?? ((error: unknown) => console.error('[api]', error));
   const app = express();
   app.disable('x-powered-by');
+  // Outside production every reply is checked against its declared schema (server/http/route.ts).
+  app.locals.checkReplies = config.env !== 'production';
   app.set('trust proxy', config.trustProxy);
 
   app.use(
@@ -160,7 +162,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
     res.set('Cache-Control', 'no-cache').sendFile(indexHtml);
   });
 
-  app.use(errorHandler(log));
+  app.use(errorHandler(log, { checkReplies: config.env !== 'production' }));
 
   return {
     app,

@@ -1,61 +1,140 @@
-import type { ApiErrorDetail } from '@shared/schemas/errors';
+import type {
+  ApiErrorBody,
+  ApiErrorBodyOf,
+  ApiErrorCode,
+  ApiErrorDetail,
+  ApiErrorDetailsOf,
+} from '@shared/schemas/errors';
 
 /**
- * An error the API reports to its caller. `code` is stable (clients and
- * scripts branch on it), `status` is the HTTP status, `message` is a plain
- * sentence that may be shown to a person.
+ * The HTTP status of every error code in the contract (shared/schemas/errors.ts). The
+ * `satisfies` makes the type-check name any code that has no status yet.
+ */
+export const ERROR_STATUS = {
+  validation_failed: 400,
+  bad_request: 400,
+  malformed_json: 400,
+  unauthenticated: 401,
+  invalid_credentials: 401,
+  invalid_token: 401,
+  forbidden: 403,
+  csrf_failed: 403,
+  not_found: 404,
+  already_exists: 409,
+  reference_conflict: 409,
+  already_member: 409,
+  last_admin: 409,
+  route_archived: 409,
+  draft_conflict: 409,
+  reset_used: 410,
+  reset_expired: 410,
+  invitation_used: 410,
+  invitation_expired: 410,
+  payload_too_large: 413,
+  unsupported_encoding: 415,
+  structure_unparsable: 422,
+  unifac_missing_parameters: 422,
+  no_data: 422,
+  not_computable: 422,
+  route_invalid: 422,
+  route_unevaluable: 422,
+  account_locked: 423,
+  rate_limited: 429,
+  internal_error: 500,
+  service_unavailable: 503,
+} as const satisfies Record<ApiErrorCode, number>;
+
+type Status = (typeof ERROR_STATUS)[ApiErrorCode];
+/** The codes answered with one HTTP status, e.g. CodeWithStatus<409>. */
+export type CodeWithStatus<S extends Status> = {
+  [C in ApiErrorCode]: (typeof ERROR_STATUS)[C] extends S ? C : never;
+}[ApiErrorCode];
+
+type BodyOf<C extends ApiErrorCode> = ApiErrorBodyOf<C>;
+/** Codes whose replies carry no details. */
+type PlainCode = {
+  [C in ApiErrorCode]: 'details' extends keyof BodyOf<C> ? never : C;
+}[ApiErrorCode];
+/** The factory's trailing argument: required, optional or absent, as the contract says. */
+type DetailsArgs<C extends ApiErrorCode> = 'details' extends keyof BodyOf<C>
+  ? undefined extends ApiErrorDetailsOf<C>
+    ? [details?: ApiErrorDetailsOf<C>]
+    : [details: ApiErrorDetailsOf<C>]
+  : [];
+
+/**
+ * An error the API reports to its caller. `body` is exactly what the reply's `error` member
+ * holds, typed by the shared contract; `status` follows from its code.
  */
 export class AppError extends Error {
+  readonly status: number;
+
   constructor(
-    readonly status: number,
-    readonly code: string,
-    message: string,
-    readonly details?: ApiErrorDetail[],
+    readonly body: ApiErrorBody,
     readonly headers?: Record<string, string>,
   ) {
-    super(message);
+    super(body.message);
     this.name = 'AppError';
+    this.status = ERROR_STATUS[body.code];
+  }
+
+  get code(): ApiErrorCode {
+    return this.body.code;
   }
 }
 
-// Factories: one per kind of failure, so a status and its code never drift apart.
+/**
+ * The one error factory: a code from the contract, a plain sentence a person may read, and
+ * the details that code carries (required, optional or none, by the contract's type).
+ */
+export function apiError<C extends ApiErrorCode>(
+  code: C,
+  message: string,
+  ...details: DetailsArgs<C>
+): AppError {
+  const body =
+    details[0] === undefined ? { code, message } : { code, message, details: details[0] };
+  return new AppError(body as ApiErrorBody);
+}
+
+// Named factories for the common failures, so call sites read as what went wrong.
 export const badRequest = (message: string, details?: ApiErrorDetail[]) =>
-  new AppError(400, 'bad_request', message, details);
+  apiError('bad_request', message, details);
 export const validationFailed = (details: ApiErrorDetail[]) =>
-  new AppError(400, 'validation_failed', 'Some fields are not valid.', details);
+  apiError('validation_failed', 'Some fields are not valid.', details);
 export const malformedJson = () =>
-  new AppError(400, 'malformed_json', 'The request body is not valid JSON.');
+  apiError('malformed_json', 'The request body is not valid JSON.');
 export const unauthenticated = (message = 'Sign in to continue.') =>
-  new AppError(401, 'unauthenticated', message);
+  apiError('unauthenticated', message);
 export const invalidCredentials = () =>
-  new AppError(401, 'invalid_credentials', 'E-mail or password is incorrect.');
+  apiError('invalid_credentials', 'E-mail or password is incorrect.');
 export const invalidToken = () =>
-  new AppError(401, 'invalid_token', 'The API token is not valid or was revoked.');
+  apiError('invalid_token', 'The API token is not valid or was revoked.');
 export const forbidden = (message = 'You do not have permission to do this.') =>
-  new AppError(403, 'forbidden', message);
+  apiError('forbidden', message);
 export const csrfFailed = () =>
-  new AppError(
-    403,
+  apiError(
     'csrf_failed',
     'The request is missing a valid X-CSRF-Token header. Reload the page and try again.',
   );
 // Loaders that run before authorize() must use the default text, so a hidden
 // object and a missing one give identical replies.
 export const notFound = (what = 'The requested item') =>
-  new AppError(404, 'not_found', `${what} was not found.`);
-export const conflict = (code: string, message: string) => new AppError(409, code, message);
-export const gone = (code: string, message: string) => new AppError(410, code, message);
+  apiError('not_found', `${what} was not found.`);
+export const conflict = (code: CodeWithStatus<409> & PlainCode, message: string) =>
+  apiError(code, message);
+export const gone = (code: CodeWithStatus<410> & PlainCode, message: string) =>
+  apiError(code, message);
 export const payloadTooLarge = () =>
-  new AppError(413, 'payload_too_large', 'The request body is too large.');
+  apiError('payload_too_large', 'The request body is too large.');
 export const accountLocked = (minutes: number) =>
-  new AppError(
-    423,
+  apiError(
     'account_locked',
     `Too many failed sign-ins. The account is locked; try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
   );
 export const tooManyRequests = () =>
-  new AppError(429, 'rate_limited', 'Too many requests. Wait a few minutes and try again.');
+  apiError('rate_limited', 'Too many requests. Wait a few minutes and try again.');
 export const serviceUnavailable = (message = 'The service is temporarily unavailable.') =>
-  new AppError(503, 'service_unavailable', message);
+  apiError('service_unavailable', message);
 export const internalError = () =>
-  new AppError(500, 'internal_error', 'Something went wrong on the server.');
+  apiError('internal_error', 'Something went wrong on the server.');

@@ -2,6 +2,7 @@ import type { Request, RequestHandler, Response, Router } from 'express';
 import type { Transaction } from 'sequelize';
 import { z, type ZodType } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/errors';
+import { parseExact } from '@shared/schemas/exact';
 import { database } from '../db/sequelize';
 import { unauthenticated, validationFailed } from '../errors';
 import type { Actor } from '../policies';
@@ -120,14 +121,52 @@ export function defineRoute<
     const params = parsePart(spec.params, req.params, 'params');
     const query = parsePart(spec.query, req.query, 'query');
     const body = spec.body ? parsePart(spec.body, req.body ?? {}, 'body') : undefined;
-    const run = (transaction: Transaction | null) =>
-      spec.handle({ req, res, params, query, body, actor: req.actor, transaction } as never);
+    const run = async (transaction: Transaction | null) => {
+      const reply = await spec.handle({
+        req,
+        res,
+        params,
+        query,
+        body,
+        actor: req.actor,
+        transaction,
+      } as never);
+      // Inside the transaction, so a reply that breaks its contract also undoes the change.
+      if (req.app.locals.checkReplies) checkReply(spec, reply);
+      return reply;
+    };
     const reply =
       spec.transaction === false ? await run(null) : await database().transaction((t) => run(t));
     if (reply.body === undefined) res.status(reply.status).end();
     else res.status(reply.status).json(reply.body);
   };
   router[spec.method](expressPath, ...(spec.before ?? []), handler);
+}
+
+/**
+ * Outside production, every reply is parsed exactly (no undeclared field) with the schema
+ * declared for its status, as the client will parse it; a mismatch is a server defect and
+ * answers 500, so an API test that reaches the operation catches a drifted contract.
+ */
+function checkReply(
+  spec: {
+    method: Method;
+    path: string;
+    responses: RouteSpec<undefined, undefined, undefined, boolean>['responses'];
+  },
+  reply: Reply,
+) {
+  const schema = spec.responses[reply.status]?.schema;
+  if (!schema || reply.body === undefined) return;
+  const checked = parseExact(schema, JSON.parse(JSON.stringify(reply.body)));
+  if (!checked.success) {
+    const problems = checked.error.issues
+      .map((issue) => `${issue.path.join('.') || '(body)'}: ${issue.message}`)
+      .join('; ');
+    throw new Error(
+      `${spec.method.toUpperCase()} ${spec.path} answered ${reply.status} with a body that does not match its declared schema: ${problems}`,
+    );
+  }
 }
 
 function parsePart(schema: ZodType | undefined, value: unknown, part: 'params' | 'query' | 'body') {

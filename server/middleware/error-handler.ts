@@ -6,7 +6,10 @@ import {
   ValidationError as SequelizeValidationError,
 } from 'sequelize';
 import { ZodError } from 'zod';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import { parseExact } from '@shared/schemas/exact';
 import {
+  apiError,
   AppError,
   conflict,
   internalError,
@@ -18,7 +21,7 @@ import {
 import { zodIssuesToDetails } from '../http/validation';
 
 export const apiNotFound: RequestHandler = () => {
-  throw new AppError(404, 'not_found', 'No such API endpoint.');
+  throw apiError('not_found', 'No such API endpoint.');
 };
 
 /** body-parser marks its errors with a `type`; map those, not their messages. */
@@ -27,7 +30,7 @@ function bodyParserError(error: unknown): AppError | null {
   if (type === 'entity.too.large') return payloadTooLarge();
   if (type === 'entity.parse.failed') return malformedJson();
   if (typeof type === 'string' && type.startsWith('encoding.'))
-    return new AppError(415, 'unsupported_encoding', 'The request encoding is not supported.');
+    return apiError('unsupported_encoding', 'The request encoding is not supported.');
   return null;
 }
 
@@ -47,7 +50,19 @@ function databaseError(error: unknown): AppError | null {
   return null;
 }
 
-export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler {
+export interface ErrorHandlerOptions {
+  /**
+   * Check every error reply against the shared contract before it is sent (outside
+   * production): a reply that does not match is a server defect, logged and answered as an
+   * internal error, so tests see it at once.
+   */
+  checkReplies?: boolean;
+}
+
+export function errorHandler(
+  log: (error: unknown) => void,
+  options: ErrorHandlerOptions = {},
+): ErrorRequestHandler {
   return (error, _req, res, _next) => {
     let appError: AppError;
     if (error instanceof AppError) appError = error;
@@ -55,15 +70,23 @@ export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler
       appError = validationFailed(zodIssuesToDetails(error.issues));
     else appError = bodyParserError(error) ?? databaseError(error) ?? internalError();
     if (appError.status >= 500) log(error);
+    if (options.checkReplies) {
+      const checked = parseExact(
+        apiErrorSchema,
+        JSON.parse(JSON.stringify({ error: appError.body })),
+      );
+      if (!checked.success) {
+        log(
+          new Error(
+            `Error reply "${appError.code}" does not match the error contract: ${checked.error.message}`,
+          ),
+        );
+        appError = internalError();
+      }
+    }
     if (res.headersSent) return;
     if (appError.headers) res.set(appError.headers);
     // Stack traces and internal messages never leave the server.
-    res.status(appError.status).json({
-      error: {
-        code: appError.code,
-        message: appError.message,
-        ...(appError.details ? { details: appError.details } : {}),
-      },
-    });
+    res.status(appError.status).json({ error: appError.body });
   };
 }

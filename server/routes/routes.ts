@@ -12,7 +12,6 @@ import {
   saveDraftResponseSchema,
   saveDraftSchema,
   updateRouteSchema,
-  type DraftDocument,
 } from '@shared/schemas/routes';
 import { defineRoute } from '../http/route';
 import { presentKeyTotals, presentRouteDetail, presentRouteSummary } from '../presenters';
@@ -80,18 +79,16 @@ export function routesRouter(): Router {
       403: forbiddenResponse,
       404: notFoundResponse,
     },
-    handle: async ({ req, actor, params, body, transaction }) => {
+    handle: async ({ actor, params, body, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.create', { workspaceId: workspace.id });
-      // The document is stored as the editor wrote it (validated; schema defaults are applied at evaluation).
-      const document = body.document ? (req.body.document as DraftDocument) : undefined;
       const route = await createRoute(
         {
           workspaceId: workspace.id,
           ownerId: actor.userId,
           name: body.name,
           projectName: body.projectName,
-          document,
+          document: body.document,
         },
         transaction,
       );
@@ -191,13 +188,13 @@ export function routesRouter(): Router {
         schema: draftConflictSchema,
       },
     },
-    handle: async ({ req, actor, params, body, transaction }) => {
+    handle: async ({ actor, params, body, transaction }) => {
       const workspace = await loadWorkspace(params.workspaceId, transaction);
       authorize(actor, 'route.editDraft', { workspaceId: workspace.id });
       const route = await loadRoute(workspace.id, params.routeId, transaction);
       const { draft, evaluation } = await saveDraft(
         route,
-        { document: req.body.document as DraftDocument, baseVersion: body.baseVersion },
+        { document: body.document, baseVersion: body.baseVersion },
         actor.userId,
         transaction,
       );

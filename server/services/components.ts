@@ -18,11 +18,15 @@ import {
 import { UNIFAC_PARAMETER_SOURCE } from '@shared/engine/data/unifac';
 import { EngineError, UnifacParameterError } from '@shared/engine/errors';
 import { unifacGroupsSummary } from '@shared/engine/thermo';
-import { AppError } from '../errors';
+import { apiError, type CodeWithStatus } from '../errors';
 
-/** 422: the request is well formed but cannot be computed. Codes: structure_unparsable, unifac_missing_parameters, no_data, not_computable. */
-export const unprocessable = (code: string, message: string, details?: ApiErrorDetail[]) =>
-  new AppError(422, code, message, details);
+/** 422: the request is well formed but cannot be computed. */
+export const unprocessable = (
+  code: CodeWithStatus<422> &
+    ('structure_unparsable' | 'unifac_missing_parameters' | 'no_data' | 'not_computable'),
+  message: string,
+  details?: ApiErrorDetail[],
+) => (code === 'structure_unparsable' ? apiError(code, message, details) : apiError(code, message));
 
 export type ResolvedSmiles =
   | { basis: 'library'; smiles: string; solvent: SolventRecord; groups: UnifacGroups }

@@ -7,12 +7,11 @@
  * cannot evaluate is still saved, with totals null and the reason.
  */
 import type { Transaction } from 'sequelize';
-import type { ApiErrorDetail } from '@shared/schemas/errors';
 import type { RouteEvaluationError } from '@shared/schemas/evaluate';
 import type { DraftDocument } from '@shared/schemas/routes';
 import type { EngineWarning } from '@shared/schemas/route';
 import { evaluateRoute, type RouteTotals } from '@shared/engine/route/evaluate';
-import { AppError, conflict } from '../errors';
+import { apiError, type AppError, conflict } from '../errors';
 import { Route, RouteDraft, User } from '../models';
 import { recordAudit } from './audit';
 import { describeFailure, ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
@@ -85,8 +84,7 @@ async function lockDraft(routeId: string, transaction: Transaction | null): Prom
 export function draftConflict(current: RouteDraft): AppError {
   const who = current.updatedBy?.name ?? 'someone';
   const when = current.updatedAt.toISOString();
-  return new AppError(
-    409,
+  return apiError(
     'draft_conflict',
     `This draft was changed by ${who} at ${when} (version ${current.version}) after you started editing. Your edit was not saved; review their version, then apply your change to it.`,
     {
@@ -94,9 +92,9 @@ export function draftConflict(current: RouteDraft): AppError {
         version: current.version,
         updatedAt: when,
         updatedBy: { id: current.updatedBy?.id ?? (current.updatedById as string), name: who },
-        document: current.document,
+        document: current.document as DraftDocument,
       },
-    } as unknown as ApiErrorDetail[],
+    },
   );
 }
 

@@ -2,7 +2,6 @@
  * Route evaluation on the server: the same pure engine the client runs, with
  * its failures turned into coded API errors that name the step and field.
  */
-import type { ApiErrorDetail } from '@shared/schemas/errors';
 import type { RouteIssuePayload, RouteEvaluationError } from '@shared/schemas/evaluate';
 import type { KeyTotals } from '@shared/schemas/routes';
 import type { RouteDocument } from '@shared/schemas/route';
@@ -21,7 +20,7 @@ export { ENGINE_VERSION, PROCESS_SAFETY_NOTE };
 /** 422: a document that passed the schema but that the engine cannot evaluate. */
 export class RouteEvaluationFailed extends AppError {
   constructor(readonly failure: RouteEvaluationError) {
-    super(422, failure.code, failure.message, failure.details as unknown as ApiErrorDetail[]);
+    super(failure);
     this.name = 'RouteEvaluationFailed';
   }
 }

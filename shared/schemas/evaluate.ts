@@ -3,6 +3,8 @@
  * the Monte Carlo request that starts a background job.
  */
 import { z } from 'zod';
+import type { RouteResult, RouteTotals } from '../engine/route/evaluate';
+import type { Exactly } from './exact';
 import { routeDocumentSchema, streamSchema, warningSchema } from './route';
 
 /** Highest number of Monte Carlo draws one job may ask for. */
@@ -23,66 +25,70 @@ export const routeIssueSchema = z.object({
 });
 export type RouteIssuePayload = z.infer<typeof routeIssueSchema>;
 
-/** 422 reply: route_invalid (graph, references, a step's parameters) or route_unevaluable (a model cannot run). */
-export const routeEvaluationErrorSchema = z.object({
-  error: z.object({
-    code: z.enum(['route_invalid', 'route_unevaluable']),
-    message: z.string(),
-    details: z.array(routeIssueSchema),
-  }),
+export const ROUTE_EVALUATION_CODES = ['route_invalid', 'route_unevaluable'] as const;
+
+/** Why a valid document cannot be evaluated: route_invalid (graph, references, a step's parameters) or route_unevaluable (a model cannot run). */
+export const routeEvaluationFailureSchema = z.object({
+  code: z.enum(ROUTE_EVALUATION_CODES),
+  message: z.string(),
+  details: z.array(routeIssueSchema),
 });
-export type RouteEvaluationError = z.infer<typeof routeEvaluationErrorSchema>['error'];
+
+/** 422 reply of an evaluation that failed; one member of the error contract (errors.ts). */
+export const routeEvaluationErrorSchema = z.object({ error: routeEvaluationFailureSchema });
+export type RouteEvaluationError = z.infer<typeof routeEvaluationFailureSchema>;
 
 /** The engine's route totals (shared/engine/route/evaluate.ts RouteTotals). */
-export const routeTotalsSchema = z
-  .object({
-    productId: z.string().nullable(),
-    productInKg: z.number(),
-    isolatedProductKg: z.number(),
-    isolatedSolidKg: z.number(),
-    yieldPct: z.number().nullable(),
-    purityWtPct: z.number().nullable(),
-    purge: z.record(
-      z.string(),
-      z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),
-    ),
-    solventUseLPerKg: z.number().nullable(),
-    pmi: z.number().nullable(),
-    eFactor: z.number().nullable(),
-    eFactorExcludingWater: z.number().nullable(),
-    totalInputKg: z.number(),
-    peakVolumeL: z.record(z.string(), z.number()),
-    cycleTimeH: z.number(),
-    cycleTimeBasis: z.string(),
-  })
-  .loose();
+export const routeTotalsSchema = z.object({
+  productId: z.string().nullable(),
+  productInKg: z.number(),
+  isolatedProductKg: z.number(),
+  isolatedSolidKg: z.number(),
+  yieldPct: z.number().nullable(),
+  purityWtPct: z.number().nullable(),
+  purge: z.record(
+    z.string(),
+    z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),
+  ),
+  solventUseLPerKg: z.number().nullable(),
+  pmi: z.number().nullable(),
+  eFactor: z.number().nullable(),
+  eFactorExcludingWater: z.number().nullable(),
+  totalInputKg: z.number(),
+  peakVolumeL: z.record(z.string(), z.number()),
+  cycleTimeH: z.number(),
+  cycleTimeBasis: z.string(),
+});
+// The type-check fails when the engine's totals and this schema drift apart.
+const _totalsMatchEngine: Exactly<z.infer<typeof routeTotalsSchema>, RouteTotals> = true;
 
 /** A warning or caution with the step it belongs to (null for the route). */
 export const stepWarningSchema = warningSchema.extend({ stepId: z.string().nullable() });
 
 /** A route result as the engine returns it; step results are kind-specific and kept open. */
-export const routeResultSchema = z
-  .object({
-    engineVersion: z.string(),
-    schemaVersion: z.number(),
-    order: z.array(z.string()),
-    steps: z.record(z.string(), z.record(z.string(), z.unknown())),
-    streams: z.record(z.string(), streamSchema),
-    terminals: z.array(
-      z.object({
-        stepId: z.string(),
-        port: z.string(),
-        isolated: z.boolean(),
-        stream: streamSchema,
-      }),
-    ),
-    totals: routeTotalsSchema,
-    /** Every warning and caution, on its step (null for the route). */
-    warnings: z.array(stepWarningSchema),
-    /** Cautions are prompts: defer to the site's process-safety review. */
-    processSafetyNote: z.string(),
-  })
-  .loose();
+export const routeResultSchema = z.object({
+  engineVersion: z.string(),
+  schemaVersion: z.number(),
+  order: z.array(z.string()),
+  steps: z.record(z.string(), z.record(z.string(), z.unknown())),
+  streams: z.record(z.string(), streamSchema),
+  terminals: z.array(
+    z.object({
+      stepId: z.string(),
+      port: z.string(),
+      isolated: z.boolean(),
+      stream: streamSchema,
+    }),
+  ),
+  totals: routeTotalsSchema,
+  /** Every warning and caution, on its step (null for the route). */
+  warnings: z.array(stepWarningSchema),
+  /** Cautions are prompts: defer to the site's process-safety review. */
+  processSafetyNote: z.string(),
+});
+// Step results stay open (kind-specific records); the result's own fields must match the engine's.
+const _resultMatchesEngine: Exactly<keyof z.infer<typeof routeResultSchema>, keyof RouteResult> =
+  true;
 
 export const evaluateResponseSchema = z.object({
   engineVersion: z.string(),

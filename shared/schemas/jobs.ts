@@ -1,5 +1,7 @@
 /** Background jobs a user started (Monte Carlo runs), polled for progress. */
 import { z } from 'zod';
+import type { MonteCarloResult as EngineMonteCarloResult } from '../engine/route/monte-carlo';
+import type { Exactly } from './exact';
 
 export const JOB_KINDS = ['monte-carlo'] as const;
 export const JOB_STATUSES = ['queued', 'running', 'done', 'failed'] as const;
@@ -12,21 +14,24 @@ export const percentilesSchema = z.object({
 });
 export type Percentiles = z.infer<typeof percentilesSchema>;
 
-export const monteCarloResultSchema = z
-  .object({
-    draws: z.number().int(),
-    seed: z.number().int(),
-    yieldPct: percentilesSchema,
-    purityWtPct: percentilesSchema,
-    /** Purge factor of each impurity; null where the impurity is purged completely in most draws. */
-    purgeFactor: z.record(z.string(), percentilesSchema),
-    /** Draws for which the route could not be evaluated. */
-    failedDraws: z.number().int(),
-    engineVersion: z.string(),
-    /** Cautions are prompts: defer to the site's process-safety review. */
-    processSafetyNote: z.string(),
-  })
-  .loose();
+export const monteCarloResultSchema = z.object({
+  draws: z.number().int(),
+  seed: z.number().int(),
+  yieldPct: percentilesSchema,
+  purityWtPct: percentilesSchema,
+  /** Purge factor of each impurity; null where the impurity is purged completely in most draws. */
+  purgeFactor: z.record(z.string(), percentilesSchema),
+  /** Draws for which the route could not be evaluated. */
+  failedDraws: z.number().int(),
+  engineVersion: z.string(),
+  /** Cautions are prompts: defer to the site's process-safety review. */
+  processSafetyNote: z.string(),
+});
+// The stored summary is the engine's plus the engine version and the safety note.
+const _monteCarloMatchesEngine: Exactly<
+  Omit<z.infer<typeof monteCarloResultSchema>, 'engineVersion' | 'processSafetyNote'>,
+  EngineMonteCarloResult
+> = true;
 export type MonteCarloResult = z.infer<typeof monteCarloResultSchema>;
 
 export const jobSchema = z.object({

@@ -157,19 +157,23 @@ export const saveDraftResponseSchema = z.object({
 });
 export type SaveDraftResponse = z.infer<typeof saveDraftResponseSchema>;
 
+/** Details of a 409 draft_conflict: the draft as it now stands, and who saved it. */
+export const draftConflictDetailsSchema = z.object({
+  current: z.object({
+    version: z.number().int(),
+    updatedAt: z.string(),
+    updatedBy: personRefSchema,
+    document: draftDocumentSchema,
+  }),
+});
+export type DraftConflictDetails = z.infer<typeof draftConflictDetailsSchema>;
+
 /** 409 draft_conflict: someone (or another tab) saved since baseVersion. */
 export const draftConflictSchema = z.object({
   error: z.object({
     code: z.literal('draft_conflict'),
     message: z.string(),
-    details: z.object({
-      current: z.object({
-        version: z.number().int(),
-        updatedAt: z.string(),
-        updatedBy: personRefSchema,
-        document: draftDocumentSchema,
-      }),
-    }),
+    details: draftConflictDetailsSchema,
   }),
 });
 

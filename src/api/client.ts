@@ -1,18 +1,44 @@
 import type { z } from 'zod';
-import { apiErrorSchema, type ApiErrorDetail } from '@shared/schemas/errors';
+import { apiErrorSchema, type ApiErrorBody, type ApiErrorDetail } from '@shared/schemas/errors';
+import { parseExact } from '@shared/schemas/exact';
+
+/**
+ * Failures the client detects itself: the server could not be reached, an error reply is not
+ * one the contract describes, or a success reply does not match its schema exactly.
+ */
+export type ClientFailure = {
+  code: 'network_error' | 'unexpected_reply' | 'invalid_reply';
+  message: string;
+};
+
+/** What went wrong: an error reply of the API contract (shared/schemas/errors.ts), or a client failure. */
+export type ApiErrorReply = ApiErrorBody | ClientFailure;
 
 /** An error reply from the API (or a failure to reach it), with what the UI needs to show it. */
 export class ApiError extends Error {
   readonly status: number;
-  readonly code: string;
-  readonly details: ApiErrorDetail[];
+  /** Narrow on `reply.code` to read the details that code carries (e.g. a draft conflict's `current`). */
+  readonly reply: ApiErrorReply;
 
-  constructor(status: number, code: string, message: string, details: ApiErrorDetail[] = []) {
-    super(message);
+  constructor(status: number, reply: ApiErrorReply) {
+    super(reply.message);
     this.name = 'ApiError';
     this.status = status;
-    this.code = code;
-    this.details = details;
+    this.reply = reply;
+  }
+
+  get code(): ApiErrorReply['code'] {
+    return this.reply.code;
+  }
+
+  /**
+   * Problems placed on fields: a validation failure's details, or the issues of a route that
+   * cannot be evaluated (each names its field path).
+   */
+  get details(): ApiErrorDetail[] {
+    const reply = this.reply;
+    if (!('details' in reply) || !Array.isArray(reply.details)) return [];
+    return reply.details.map(({ path, message }) => ({ path, message }));
   }
 
   /** Field problems keyed by dotted path, for mapping onto form fields. */
@@ -46,7 +72,7 @@ type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 type RequestOptions<S extends z.ZodType | undefined> = {
   method?: Method;
   body?: unknown;
-  /** Parses the reply; leave out for replies without a body (204, 202). */
+  /** Parses the reply exactly (no unknown field); leave out for replies without a body (204, 202). */
   schema?: S;
   signal?: AbortSignal;
   /** The session probe handles its own 401 (it means "signed out", not "session lost"). */
@@ -80,11 +106,10 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
     });
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
-    throw new ApiError(
-      0,
-      'network_error',
-      'The server could not be reached. Check your connection and try again.',
-    );
+    throw new ApiError(0, {
+      code: 'network_error',
+      message: 'The server could not be reached. Check your connection and try again.',
+    });
   }
 
   const text = await response.text();
@@ -99,26 +124,21 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
 
   if (!response.ok) {
     if (response.status === 401 && !options.ignoreUnauthorized) hooks.onUnauthorized();
-    const parsed = apiErrorSchema.safeParse(payload);
-    if (parsed.success) {
-      const { code, message, details } = parsed.data.error;
-      throw new ApiError(response.status, code, message, details ?? []);
-    }
-    throw new ApiError(
-      response.status,
-      'unexpected_reply',
-      `The server answered ${response.status} ${response.statusText}.`.trim(),
-    );
+    const parsed = parseExact(apiErrorSchema, payload);
+    if (parsed.success) throw new ApiError(response.status, parsed.data.error);
+    throw new ApiError(response.status, {
+      code: 'unexpected_reply',
+      message: `The server answered ${response.status} ${response.statusText}.`.trim(),
+    });
   }
 
   if (!options.schema) return undefined as Result<S>;
-  const parsed = options.schema.safeParse(payload);
+  const parsed = parseExact(options.schema, payload);
   if (!parsed.success) {
-    throw new ApiError(
-      response.status,
-      'invalid_reply',
-      'The server sent a reply this page does not understand. Reload and try again.',
-    );
+    throw new ApiError(response.status, {
+      code: 'invalid_reply',
+      message: 'The server sent a reply this page does not understand. Reload and try again.',
+    });
   }
   return parsed.data as Result<S>;
 }

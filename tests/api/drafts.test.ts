@@ -1,5 +1,7 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import { parseExact } from '@shared/schemas/exact';
 import {
   draftConflictSchema,
   routeDetailSchema,
@@ -106,6 +108,9 @@ describe('route drafts (autosave)', () => {
     mine.steps[0].params.temperatureC = 30;
     const response = await save(asChemist, route.id, mine, 1);
     expect(response.status).toBe(409);
+    // The reply is one member of the error contract, as the client parses it (exactly).
+    const contract = parseExact(apiErrorSchema, response.body);
+    expect(contract.success, JSON.stringify(contract.error?.issues)).toBe(true);
     const { error } = draftConflictSchema.parse(response.body);
     expect(error.code).toBe('draft_conflict');
     expect(error.message).toContain(colleagueName);

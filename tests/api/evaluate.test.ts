@@ -1,6 +1,8 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { apiErrorSchema } from '@shared/schemas/errors';
 import { evaluateResponseSchema, routeEvaluationErrorSchema } from '@shared/schemas/evaluate';
+import { parseExact } from '@shared/schemas/exact';
 import type { RouteDocumentInput } from '@shared/schemas/route';
 import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
 import { useTestServer } from '../support/app';
@@ -83,6 +85,9 @@ describe('POST /api/v1/evaluate', () => {
     });
     const response = await evaluate(doc);
     expect(response.status).toBe(422);
+    // The reply is one member of the error contract, as the client parses it (exactly).
+    const contract = parseExact(apiErrorSchema, response.body);
+    expect(contract.success, JSON.stringify(contract.error?.issues)).toBe(true);
     const { error } = routeEvaluationErrorSchema.parse(response.body);
     expect(error.code).toBe('route_invalid');
     const cycleSteps = error.details.filter((d) => /cycle/.test(d.message)).map((d) => d.stepId);

@@ -7,7 +7,7 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { useEditorStore } from '@/stores/editor-store';
 import { saveDraft } from '@/features/routes';
-import type { Draft } from '@/features/routes';
+import type { Draft, DraftConflict } from '@/features/routes';
 import type { EditorDoc } from './document';
 import { normaliseDocument } from './document';
 
@@ -37,7 +37,7 @@ export type SaveState =
   | { kind: 'pending' }
   | { kind: 'saving' }
   | { kind: 'offline'; message: string }
-  | { kind: 'conflict'; current: Draft };
+  | { kind: 'conflict'; current: DraftConflict['current'] };
 
 /** Choose the starting document: the server's draft, or this computer's unsaved edits made on the same version. */
 export function initialDocument(
@@ -132,7 +132,7 @@ export function useAutosave(
 
   /** Take the other version: their document replaces mine (mine stays undoable). */
   const takeTheirs = useCallback(
-    (current: Draft) => {
+    (current: DraftConflict['current']) => {
       base.current = current.version;
       blocked.current = false;
       useEditorStore.getState().load(normaliseDocument(current.document));
@@ -149,7 +149,7 @@ export function useAutosave(
 
   /** Keep mine: save it on top of their version, knowingly. */
   const keepMine = useCallback(
-    (current: Draft) => {
+    (current: DraftConflict['current']) => {
       base.current = current.version;
       blocked.current = false;
       void flush();

@@ -8,7 +8,7 @@ import { Button } from '@/components/button';
 import { formatDateTime } from '@/lib/format';
 import { paths } from '@/paths';
 import { useEditorStore } from '@/stores/editor-store';
-import type { RouteDetail } from '@/features/routes';
+import type { DraftConflict, RouteDetail } from '@/features/routes';
 import { useWorkspaceCompounds } from '@/features/routes';
 import { requestEvaluation, resetEvaluation, useEvaluation } from '../evaluation';
 import { initialDocument, useAutosave, type SaveState } from '../autosave';
@@ -518,7 +518,7 @@ function ConflictBanner({
   onTheirs,
   onMine,
 }: {
-  current: import('@/features/routes/api/schemas').Draft;
+  current: DraftConflict['current'];
   onTheirs: (d: typeof current) => void;
   onMine: (d: typeof current) => void;
 }) {

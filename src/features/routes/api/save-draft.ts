@@ -1,15 +1,16 @@
 import { apiRequest, isApiError } from '@/api/client';
 import { saveDraftReplySchema, type DraftConflict, type SaveDraftReply } from './schemas';
-import { getRoute } from './get-route';
 import { routesApi } from './urls';
 
 export type SaveDraftOutcome =
   { kind: 'saved'; reply: SaveDraftReply } | { kind: 'conflict'; conflict: DraftConflict };
 
 /**
- * PUT the draft against the version it was based on. A 409 means someone else
- * saved meanwhile: the current draft is read back so the editor can show who
- * changed it and let the chemist choose — it is never overwritten silently.
+ * PUT the draft against the version it was based on. A draft_conflict means
+ * someone else saved meanwhile: the reply carries the current draft and who
+ * saved it, so the editor can show it and let the chemist choose — it is never
+ * overwritten silently. Any other failure (an archived route, no permission)
+ * is thrown as it is.
  */
 export async function saveDraft(
   workspaceId: string,
@@ -25,10 +26,8 @@ export async function saveDraft(
     });
     return { kind: 'saved', reply };
   } catch (error) {
-    if (isApiError(error, 409)) {
-      const current = await getRoute(workspaceId, routeId);
-      return { kind: 'conflict', conflict: { current: current.draft } };
-    }
+    if (isApiError(error) && error.reply.code === 'draft_conflict')
+      return { kind: 'conflict', conflict: error.reply.details };
     throw error;
   }
 }

@@ -13,6 +13,7 @@ import {
   routeListSchema,
   routeSummarySchema,
   saveDraftResponseSchema,
+  type DraftConflictDetails,
   type RouteDetail,
   type RouteSummary,
   type SaveDraftResponse,
@@ -36,7 +37,7 @@ export type Draft = z.infer<typeof draftSchema>;
 export const saveDraftReplySchema = saveDraftResponseSchema;
 export type SaveDraftReply = SaveDraftResponse;
 
-/** What the editor needs after a 409: the draft as it now stands on the server. */
-export type DraftConflict = { current: Draft };
+/** What the editor needs after a draft_conflict: the draft as it now stands on the server. */
+export type DraftConflict = DraftConflictDetails;
 
 export { monteCarloStartedSchema as jobAcceptedSchema, jobSchema };

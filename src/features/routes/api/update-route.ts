@@ -9,7 +9,7 @@ export const updateRoute = (workspaceId: string, routeId: string, input: UpdateR
   apiRequest(routesApi.one(workspaceId, routeId), {
     method: 'PATCH',
     body: input,
-    schema: routeSummarySchema.passthrough(),
+    schema: routeSummarySchema,
   });
 
 export const useUpdateRoute = (workspaceId: string) => {
