@@ -2,11 +2,20 @@
  * One source of truth for who may do what.
  *
  * To add rules for a new resource: write server/policies/<resource>.ts exporting
- * `<resource>Rules = { '<resource>.<verb>': workspaceRule(...), ... } as const`
- * and spread it into `rules` below. The action names become typed everywhere
- * (`authorize(actor, 'route.create', route)`), and workspace-scoped rules show
- * up in the abilities map the client receives with the session.
+ * `<resource>Rules = { '<resource>.<verb>': workspaceRule(...), ... } as const`,
+ * spread it into `rules` below, and name each action in shared/schemas/actions.ts
+ * under its scope (the type-check below insists). The action names become typed
+ * everywhere (`authorize(actor, 'route.create', route)`), and workspace and
+ * account rules show up in the abilities map the client receives with the session.
  */
+import type {
+  AccountAction,
+  Action as SharedAction,
+  OwnerAction,
+  WorkspaceAction,
+} from '@shared/schemas/actions';
+import type { Abilities } from '@shared/schemas/session';
+import type { Exactly } from '@shared/schemas/exact';
 import { forbidden, notFound } from '../errors';
 import { accountRules } from './account';
 import { compoundRules } from './compound';
@@ -31,6 +40,16 @@ type Rules = typeof rules;
 export type Action = keyof Rules;
 /** The resource type an action applies to (null for account-wide actions). */
 export type ResourceOf<A extends Action> = Rules[A] extends Rule<infer R> ? R : never;
+
+// The client types its abilities from shared/schemas/actions.ts: these fail the type-check
+// when a rule is added, renamed, removed or changes scope without that list following.
+type ActionsOfScope<S extends Rule<unknown>['scope']> = {
+  [A in Action]: Rules[A] extends { scope: S } ? A : never;
+}[Action];
+const _sameActions: Exactly<Action, SharedAction> = true;
+const _sameWorkspaceActions: Exactly<ActionsOfScope<'workspace'>, WorkspaceAction> = true;
+const _sameAccountActions: Exactly<ActionsOfScope<'account'>, AccountAction> = true;
+const _sameOwnerActions: Exactly<ActionsOfScope<'owner'>, OwnerAction> = true;
 
 /**
  * Decides whether the actor may perform the action; false for resources they
@@ -79,10 +98,7 @@ function decide(
  * `global`, workspace actions per workspace the actor belongs to.
  * Owner-scoped actions depend on the object and are left out.
  */
-export function abilitiesFor(actor: Actor): {
-  global: Record<string, boolean>;
-  workspaces: Record<string, Record<string, boolean>>;
-} {
+export function abilitiesFor(actor: Actor): Abilities {
   const global: Record<string, boolean> = {};
   const workspaces: Record<string, Record<string, boolean>> = {};
   for (const [action, rule] of Object.entries(rules) as [string, Rule<unknown>][]) {
@@ -96,5 +112,6 @@ export function abilitiesFor(actor: Actor): {
     }
     workspaces[workspaceId] = abilities;
   }
-  return { global, workspaces };
+  // Every account and workspace action is named, by the type-checks above.
+  return { global, workspaces } as Abilities;
 }

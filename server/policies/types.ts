@@ -24,23 +24,26 @@ export interface UserOwned {
  * - 'owner': only the owning user can see it (others get 404).
  * - 'account': any signed-in user; `allow` decides (else 403). No resource.
  */
-export type Rule<R> =
-  | { scope: 'workspace'; allow: (roles: readonly Role[], actor: Actor, resource: R) => boolean }
-  | { scope: 'owner'; allow: (actor: Actor, resource: R) => boolean }
-  | { scope: 'account'; allow: (actor: Actor) => boolean };
+export type WorkspaceRule<R> = {
+  scope: 'workspace';
+  allow: (roles: readonly Role[], actor: Actor, resource: R) => boolean;
+};
+export type OwnerRule<R> = { scope: 'owner'; allow: (actor: Actor, resource: R) => boolean };
+export type AccountRule = { scope: 'account'; allow: (actor: Actor) => boolean };
+export type Rule<R> = WorkspaceRule<R> | OwnerRule<R> | AccountRule;
 
 export const workspaceRule = <R extends WorkspaceScoped>(
   allow: (roles: readonly Role[], actor: Actor, resource: R) => boolean,
-): Rule<R> => ({ scope: 'workspace', allow });
+): WorkspaceRule<R> => ({ scope: 'workspace', allow });
 
 export const ownerRule = <R extends UserOwned>(
   allow: (actor: Actor, resource: R) => boolean = () => true,
-): Rule<R> => ({
+): OwnerRule<R> => ({
   scope: 'owner',
   allow,
 });
 
-export const accountRule = (allow: (actor: Actor) => boolean = () => true): Rule<null> => ({
+export const accountRule = (allow: (actor: Actor) => boolean = () => true): AccountRule => ({
   scope: 'account',
   allow,
 });

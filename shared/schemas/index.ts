@@ -1,4 +1,5 @@
 export * from './errors';
+export * from './actions';
 export * from './limits';
 export * from './session';
 export * from './members';

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { accountAbilitiesSchema, workspaceAbilitiesSchema } from './actions';
 import {
   EMAIL_MAX_LENGTH,
   NAME_MAX_LENGTH,
@@ -67,8 +68,8 @@ export type SessionWorkspace = z.infer<typeof sessionWorkspaceSchema>;
  * that workspace. The server decides again on every request.
  */
 export const abilitiesSchema = z.object({
-  global: z.record(z.string(), z.boolean()),
-  workspaces: z.record(z.string(), z.record(z.string(), z.boolean())),
+  global: accountAbilitiesSchema,
+  workspaces: z.record(z.string(), workspaceAbilitiesSchema),
 });
 export type Abilities = z.infer<typeof abilitiesSchema>;
 

@@ -32,7 +32,7 @@ export function Component() {
   const [editing, setEditing] = useState<Editing>(null);
   const [confirmDelete, setConfirmDelete] = useState(false);
   if (!session) return null;
-  const canWrite = canInWorkspace(session, workspace.id, 'compound.create', 'chemist');
+  const canWrite = canInWorkspace(session, workspace.id, 'compound.create');
 
   const addButton = canWrite ? (
     <Button onClick={() => setEditing({ mode: 'new' })} disabled={editing?.mode === 'new'}>

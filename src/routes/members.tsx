@@ -1,6 +1,6 @@
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { useSession } from '@/features/auth/api/get-session';
-import { canInviteMembers, canRemoveMembers, canUpdateRoles } from '@/features/auth/abilities';
+import { canInWorkspace } from '@/features/auth/abilities';
 import { useMembers } from '@/features/members/api/get-members';
 import { InviteForm } from '@/features/members/components/invite-form';
 import { MemberTable } from '@/features/members/components/member-table';
@@ -15,9 +15,9 @@ export function Component() {
   const { data: session } = useSession();
   if (!session) return null;
   const can = {
-    invite: canInviteMembers(session, workspace.id),
-    updateRoles: canUpdateRoles(session, workspace.id),
-    remove: canRemoveMembers(session, workspace.id),
+    invite: canInWorkspace(session, workspace.id, 'member.invite'),
+    updateRoles: canInWorkspace(session, workspace.id, 'member.updateRoles'),
+    remove: canInWorkspace(session, workspace.id, 'member.remove'),
   };
 
   return (

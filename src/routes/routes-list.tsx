@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { useSession } from '@/features/auth/api/get-session';
-import { canInWorkspace, canInviteMembers } from '@/features/auth/abilities';
+import { canInWorkspace } from '@/features/auth/abilities';
 import { PageHeader } from '@/components/page-header';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorState } from '@/components/error-state';
@@ -18,11 +18,9 @@ import { RoutesTable } from '@/features/routes/components/routes-table';
 export function Component() {
   const workspace = useWorkspace();
   const { data: session } = useSession();
-  const isAdmin = session ? canInviteMembers(session, workspace.id) : false;
-  // Reviewers and scale-up engineers read routes; chemists and admins write them (the server decides again).
-  const canWrite = session
-    ? canInWorkspace(session, workspace.id, 'route.create', 'chemist')
-    : false;
+  const canInvite = session ? canInWorkspace(session, workspace.id, 'member.invite') : false;
+  // Who may create routes is the server's rule (chemists and admins today); it decides again.
+  const canWrite = session ? canInWorkspace(session, workspace.id, 'route.create') : false;
   const [archived, setArchived] = useState(false);
   const [creating, setCreating] = useState(false);
   const routes = useRoutes(workspace.id, archived);
@@ -100,7 +98,7 @@ export function Component() {
               >
                 solvent library
               </Link>
-              {isAdmin ? (
+              {canInvite ? (
                 <>
                   , or{' '}
                   <Link

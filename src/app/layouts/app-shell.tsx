@@ -12,7 +12,7 @@ import {
 import type { Session } from '@shared/schemas/session';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
-import { canViewOutbox } from '@/features/auth/abilities';
+import { canOnAccount } from '@/features/auth/abilities';
 import { lastWorkspace } from '@/features/auth/last-workspace';
 import { useSessionEnd } from '@/features/auth/session-end';
 import { WorkspaceSwitcher } from '@/features/auth/components/workspace-switcher';
@@ -126,7 +126,7 @@ function Shell({ session }: { session: Session }) {
               <NavItem to={paths.account.to()} glyph={<PersonGlyph />}>
                 Account
               </NavItem>
-              {canViewOutbox(session) ? (
+              {canOnAccount(session, 'outbox.read') ? (
                 <NavItem to={paths.outbox.to()} glyph={<MailGlyph />}>
                   Outbox
                 </NavItem>

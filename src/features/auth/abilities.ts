@@ -1,40 +1,22 @@
-import type { Role, Session } from '@shared/schemas/session';
+import type { AccountAction, WorkspaceAction } from '@shared/schemas/actions';
+import type { Session } from '@shared/schemas/session';
 
 /**
- * Whether the session allows an action, read from the abilities map the
- * server sends with the session (action names as in server/policies). When
- * the map does not name the action, fall back to the role that normally holds
- * it. Only for showing or hiding controls: the server decides again on every request.
+ * Whether the session allows an action in a workspace, read from the abilities map the server
+ * sends with the session. Action names are typed from shared/schemas/actions.ts, the list the
+ * server's policies are checked against; there is no fallback to roles, so a page cannot
+ * disagree with the server about who may act. Only for showing or hiding controls: the server
+ * decides again on every request.
  */
 export function canInWorkspace(
   session: Session,
   workspaceId: string,
-  action: string,
-  fallbackRole: Role,
+  action: WorkspaceAction,
 ): boolean {
-  const declared = session.abilities.workspaces[workspaceId]?.[action];
-  if (typeof declared === 'boolean') return declared;
-  return (
-    session.workspaces.find((w) => w.id === workspaceId)?.roles.includes(fallbackRole) ?? false
-  );
+  return session.abilities.workspaces[workspaceId]?.[action] ?? false;
 }
 
-export const canInviteMembers = (s: Session, workspaceId: string) =>
-  canInWorkspace(s, workspaceId, 'member.invite', 'admin');
-export const canUpdateRoles = (s: Session, workspaceId: string) =>
-  canInWorkspace(s, workspaceId, 'member.updateRoles', 'admin');
-export const canRemoveMembers = (s: Session, workspaceId: string) =>
-  canInWorkspace(s, workspaceId, 'member.remove', 'admin');
-
-/** Whether any member-management control shows (invite, change roles or remove). */
-export const canManageMembers = (s: Session, workspaceId: string) =>
-  canInviteMembers(s, workspaceId) ||
-  canUpdateRoles(s, workspaceId) ||
-  canRemoveMembers(s, workspaceId);
-
-/** The outbox is an admin's tool in the demo and in development. */
-export function canViewOutbox(session: Session): boolean {
-  const declared = session.abilities.global['outbox.read'];
-  if (typeof declared === 'boolean') return declared;
-  return session.workspaces.some((w) => w.roles.includes('admin'));
+/** Whether the session allows an account-wide action. */
+export function canOnAccount(session: Session, action: AccountAction): boolean {
+  return session.abilities.global[action];
 }
