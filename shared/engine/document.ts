@@ -70,6 +70,25 @@ export const solubilityPointSchema = z
   })
   .strict();
 
+/**
+ * Jouyban–Acree interaction terms of a compound in one solvent pair (Jouyban,
+ * J. Pharm. Pharm. Sci. 2008, 11, 32), fitted by the chemist to measured
+ * solubilities in the blend: ln x_m = f1 ln x1 + f2 ln x2 + (f1 f2/T) Σ J_k (f1 − f2)^k,
+ * with f on the stated basis and f1 the first solvent of the pair.
+ */
+export const cosolvencySchema = z
+  .object({
+    /** Library solvent ids of the pair, in the order the J terms were fitted (f1 − f2). */
+    solventIds: z.tuple([id, id]),
+    J0: finite().min(-1e5).max(1e5),
+    J1: finite().min(-1e5).max(1e5).default(0),
+    J2: finite().min(-1e5).max(1e5).default(0),
+    /** Basis of the solute-free fractions the J terms were fitted on. */
+    basis: z.enum(['volume', 'mass', 'mole']),
+    source: z.string().max(300).optional(),
+  })
+  .strict();
+
 export const partitionPointSchema = z
   .object({
     organicSolventId: id,
@@ -110,6 +129,8 @@ export const compoundSnapshotSchema = z
       .optional(),
     solubility: z.array(solubilityPointSchema).max(200).optional(),
     partition: z.array(partitionPointSchema).max(200).optional(),
+    /** Jouyban–Acree interaction terms for solvent pairs (mixed-solvent solubility). */
+    cosolvency: z.array(cosolvencySchema).max(50).optional(),
     /** Free-text note, e.g. "invented demo compound". */
     note: z.string().max(500).optional(),
   })
@@ -264,8 +285,10 @@ export const filtrationParamsSchema = z
         volume: volumeSchema,
         washes: z.number().int().min(1).max(10),
         temperatureC: temperatureC.optional(),
-        /** Fraction of the retained liquor displaced by a wash of at least one retained volume. Default 0.8 (common practice). */
+        /** Fraction of the retained liquor displaced by a wash of one retained volume (the wash efficiency E of R = (1 − E)^W). Default 0.8 (common practice). */
         displacementEfficiency: uncertain(0, 1).default(0.8),
+        /** Mean crystal size, µm, for the dissolution rate of the solid in the passing wash. Assumed 100 µm (with a warning) when absent. */
+        crystalSizeUm: uncertain(1, 5000).optional(),
       })
       .strict()
       .optional(),

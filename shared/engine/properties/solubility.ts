@@ -17,7 +17,9 @@
 import { EngineError } from '../errors';
 import { R_J_PER_MOL_K } from '../units';
 import type { UnifacGroups } from '../data/types';
-import { activityCoefficients } from '../thermo/unifac';
+import { createUnifac, type UnifacModel, type UnifacModelCache } from '../thermo/unifac';
+import { liquidLiquidSplit, type VleSystem } from '../thermo/vle';
+import { brent } from '../numerics';
 
 /** Temperature range in which the original UNIFAC parameters were fitted
  * (roughly 275–425 K, Fredenslund et al. 1975); outside it results carry a warning. */
@@ -93,6 +95,30 @@ export function idealSolubility(input: {
   return { moleFraction: Math.exp(lnx), method, warnings };
 }
 
+/** How the solute's liquid behaves at the saturation point (see liquidPhaseSeparation). */
+export interface OilingOutTest {
+  /**
+   * - 'none': the solute + solvent liquid is stable at every solute fraction
+   *   along the dilution line (no liquid–liquid split);
+   * - 'metastable': a liquid–liquid split exists, in the supersaturated
+   *   region (solute activity at the split above the solid's): a solution
+   *   driven past the solvent-rich binodal before it nucleates separates as
+   *   an oil;
+   * - 'stable': the split lies below the solid's solubility (solute activity
+   *   at the split at or below the solid's): the solute's stable state in this
+   *   solvent is an oil, not crystals;
+   * - 'not-tested': UNIFAC could not be evaluated (missing parameters).
+   */
+  kind: 'none' | 'metastable' | 'stable' | 'not-tested';
+  /** Solute mole fraction of the solvent-rich liquid at the split [–]. */
+  solventRichX?: number;
+  /** Solute mole fraction of the solute-rich liquid (the oil) [–]. */
+  soluteRichX?: number;
+  /** Solute activity (pure subcooled liquid reference) at the split [–]. */
+  activity?: number;
+  warnings: string[];
+}
+
 export interface ActivityCorrectedSolubilityResult {
   /** Mole fraction of the solute in the saturated solution [-] */
   moleFraction: number;
@@ -100,8 +126,200 @@ export interface ActivityCorrectedSolubilityResult {
   idealMoleFraction: number;
   /** Activity coefficient of the solute in the saturated solution [-] */
   gamma: number;
+  /** Liquid–liquid split (oiling-out) test at T. */
+  oilingOut: OilingOutTest;
   method: string;
   warnings: string[];
+}
+
+/**
+ * Scan grid of the solubility root: logarithmic from 1e−12 to 0.1 (44 steps),
+ * then linear to 1 − 1e−9 in steps of 0.025, so that a liquid–liquid split
+ * near the solute-rich end is not stepped over.
+ */
+const SCAN_GRID: readonly number[] = (() => {
+  const grid: number[] = [];
+  for (let k = 0; k <= 44; k++) grid.push(Math.pow(10, -12 + (11 * k) / 44));
+  for (let k = 1; k <= 36; k++) grid.push(0.1 + 0.025 * k);
+  grid[grid.length - 1] = 1 - 1e-9;
+  return grid;
+})();
+
+/** Result of solveActivitySolubility. */
+export interface ActivitySolubilityRoot {
+  /** Solute mole fraction at saturation [–]. */
+  x: number;
+  /** ln γ of the solute there [–]. */
+  lnGamma: number;
+  /** Sign changes of f on the scan grid [–]; more than one means f is not monotonic (a liquid–liquid split). */
+  signChanges: number;
+  /** False when Brent's method did not meet its tolerance (the best estimate is returned). */
+  converged: boolean;
+  /** True when the solute is below x = 1e-12 even at the lowest grid point. */
+  belowGrid: boolean;
+}
+
+/**
+ * The one root solver of activity-corrected solubility, used by the
+ * calculation API (activityCorrectedSolubility) and by the unit operations
+ * (unitops/solubility-model.ts):
+ *
+ *   f(x) = ln x + ln γ(x) − ln x_ideal = 0
+ *
+ * f → −∞ as x → 0 and f(1) = −ln x_ideal ≥ 0 (γ = 1 for the pure solute), so a
+ * root exists. f is scanned from x = 1e−12 (logarithmic steps to 0.1, then
+ * steps of 0.025 to 1 − 1e−9); the first sign change is refined by Brent's method
+ * (numerics/roots.ts) on u = ln x (f is nearly linear in ln x) to 1e−13 in
+ * u. More than one sign change means f is not monotonic: UNIFAC predicts a
+ * liquid–liquid split of the saturated solution (oiling out).
+ *
+ * @param lnGammaSolute  ln γ of the solute at solute mole fraction x [–], the solvents at their solute-free ratio
+ * @param xIdeal         ideal solubility [–], 0 < x_ideal ≤ 1
+ * @returns the lowest-concentration root with its convergence flag
+ *
+ * Validity: as the activity model; deterministic.
+ */
+export function solveActivitySolubility(
+  lnGammaSolute: (x: number) => number,
+  xIdeal: number,
+): ActivitySolubilityRoot {
+  if (xIdeal >= 1) return { x: 1, lnGamma: 0, signChanges: 0, converged: true, belowGrid: false };
+  const lnXi = Math.log(xIdeal);
+  const f = (x: number): number => Math.log(x) + lnGammaSolute(x) - lnXi;
+  let prevX = SCAN_GRID[0];
+  let prevF = f(prevX);
+  if (prevF >= 0)
+    return {
+      x: prevX,
+      lnGamma: lnGammaSolute(prevX),
+      signChanges: 0,
+      converged: true,
+      belowGrid: true,
+    };
+  let lo = NaN;
+  let hi = NaN;
+  let fLo = NaN;
+  let fHi = NaN;
+  let signChanges = 0;
+  for (let k = 1; k < SCAN_GRID.length; k++) {
+    const x = SCAN_GRID[k];
+    const fx = f(x);
+    if (prevF < 0 !== fx < 0) {
+      signChanges++;
+      if (Number.isNaN(lo)) {
+        lo = prevX;
+        hi = x;
+        fLo = prevF;
+        fHi = fx;
+      }
+    }
+    prevX = x;
+    prevF = fx;
+  }
+  if (Number.isNaN(lo)) {
+    // f(1) = −ln x_ideal > 0 analytically; f(1 − 1e−9) < 0 only by rounding.
+    lo = SCAN_GRID[SCAN_GRID.length - 2];
+    hi = 1;
+    fLo = f(lo);
+    fHi = -lnXi;
+  }
+  const r = brent(
+    (u) => f(Math.exp(u)),
+    Math.log(lo),
+    Math.log(hi),
+    { xtol: 1e-13, rtol: 0 },
+    { fa: fLo, fb: fHi },
+  );
+  const x = Math.exp(r.root);
+  return { x, lnGamma: lnGammaSolute(x), signChanges, converged: r.converged, belowGrid: false };
+}
+
+/**
+ * Liquid–liquid split of a solute (as its subcooled liquid) with a solvent
+ * blend: the oiling-out test.
+ *
+ * Method: along the dilution line (solute mole fraction x, the solvents at
+ * their solute-free ratio) the solute activity a(x) = x γ(x) of a stable
+ * liquid rises with x. Where it falls, the liquid is unstable; a UNIFAC
+ * liquid–liquid flash (thermo/vle liquidLiquidSplit: tangent-plane test,
+ * Michelsen 1982, then Rachford–Rice) from a composition there gives the two
+ * coexisting liquids and their common solute activity a_LL. Compared with the
+ * solid's solubility (activity x_ideal, Schröder–van Laar): a_LL > x_ideal —
+ * the split lies in the supersaturated region ('metastable': oiling out when
+ * the solution is driven past the solvent-rich binodal before nucleation);
+ * a_LL ≤ x_ideal — the oil is more stable than the crystals ('stable').
+ * (Veesler et al., Org. Process Res. Dev. 2006, 10, 841, describe oiling out
+ * as such a miscibility gap inside the supersaturated region — citation
+ * recalled.)
+ *
+ * @param input.soluteGroups          UNIFAC subgroups of the solute
+ * @param input.solventGroups         UNIFAC subgroups of each solvent
+ * @param input.solventMoleFractions  solute-free mole fractions of the solvents [–], summing to 1
+ * @param input.T_K                   temperature [K]
+ * @param input.xIdeal                ideal solubility of the solid at T [–]
+ * @param input.models                UNIFAC model cache (optional; same numbers)
+ * @returns the kind of split and, when there is one, the two liquid compositions
+ *
+ * Validity: UNIFAC's LLE weakness applies (the split's compositions can be
+ * off by a factor 2–10); the test is on the pseudo-binary dilution line and
+ * does not look for splits of the solvent blend itself.
+ */
+export function liquidPhaseSeparation(input: {
+  soluteGroups: UnifacGroups;
+  solventGroups: UnifacGroups[];
+  solventMoleFractions: number[];
+  T_K: number;
+  xIdeal: number;
+  models?: UnifacModelCache;
+}): OilingOutTest {
+  const { soluteGroups, solventGroups, solventMoleFractions: z, T_K, xIdeal } = input;
+  const components = [soluteGroups, ...solventGroups];
+  let model: UnifacModel;
+  try {
+    model = input.models ? input.models.model(components) : createUnifac(components);
+  } catch (e) {
+    return { kind: 'not-tested', warnings: [(e as Error).message] };
+  }
+  const n = components.length;
+  const xs = new Float64Array(n);
+  const buf = new Float64Array(n);
+  const lnA = (x: number): number => {
+    xs[0] = x;
+    for (let j = 0; j < z.length; j++) xs[j + 1] = (1 - x) * z[j];
+    return Math.log(x) + model.lnGammas(xs, T_K, buf)[0];
+  };
+  // Scan ln a along the dilution line for a falling stretch (instability).
+  const N = 60;
+  let prev = lnA(1e-6);
+  let unstableAt = NaN;
+  for (let k = 1; k <= N; k++) {
+    const x = 1e-6 * Math.pow((1 - 1e-6) / 1e-6, k / N);
+    const v = lnA(Math.min(x, 1 - 1e-9));
+    if (v < prev - 1e-12) {
+      unstableAt = x;
+      break;
+    }
+    prev = v;
+  }
+  if (Number.isNaN(unstableAt)) return { kind: 'none', warnings: [] };
+  const zAll = [unstableAt, ...z.map((v) => (1 - unstableAt) * v)];
+  const sys: VleSystem = {
+    components: components.map((g) => ({ antoine: [], unifac: g, nonVolatile: true })),
+    unifac: model,
+  };
+  const split = liquidLiquidSplit(sys, zAll, T_K);
+  if (!split.split) return { kind: 'none', warnings: split.warnings };
+  const [p1, p2] = split.phases;
+  const solventRich = p1[0] <= p2[0] ? p1 : p2;
+  const soluteRich = p1[0] <= p2[0] ? p2 : p1;
+  const activity = Math.exp(lnA(solventRich[0]));
+  return {
+    kind: activity <= xIdeal ? 'stable' : 'metastable',
+    solventRichX: solventRich[0],
+    soluteRichX: soluteRich[0],
+    activity,
+    warnings: split.warnings,
+  };
 }
 
 /**
@@ -110,27 +328,25 @@ export interface ActivityCorrectedSolubilityResult {
  *   x · γ(x, T) = x_ideal(T)
  *
  * where γ is the solute's UNIFAC activity coefficient in the saturated
- * liquid (solute + the solvent mixture at its solute-free composition).
+ * liquid (solute + the solvent mixture at its solute-free composition), and
+ * tests the liquid for a liquid–liquid split (oiling out).
  *
- * @param input.meltingPointK Tm [K]; input.enthalpyFusionJmol ΔHfus [J/mol];
- *   input.T_K temperature [K]
- * @param input.soluteGroups UNIFAC subgroups of the solute
- * @param input.solventGroups UNIFAC subgroups of each solvent
- * @param input.solventMoleFractions solute-free mole fractions of the
- *   solvents [-], summing to 1
- * @returns x, x_ideal, γ at the solution, method and warnings
+ * @param input.meltingPointK        Tm of the solute [K]
+ * @param input.enthalpyFusionJmol   ΔHfus [J/mol]
+ * @param input.T_K                  temperature [K]
+ * @param input.soluteGroups         UNIFAC subgroups of the solute
+ * @param input.solventGroups        UNIFAC subgroups of each solvent
+ * @param input.solventMoleFractions solute-free mole fractions of the solvents [–], summing to 1
+ * @param input.models               UNIFAC model cache (optional; the same numbers as building afresh)
+ * @returns x [–], x_ideal [–], γ at the solution [–], the oiling-out test, method and warnings
  *
- * Numerics: f(x) = ln x + ln γ(x) − ln x_ideal is negative as x → 0 and
- * ≥ 0 at x = 1 (γ = 1 for the pure solute), so a root always exists. The
- * function is scanned on a logarithmic grid from x = 1e−12 and the first
- * sign change is refined by bisection (60 halvings); more than one sign
- * change means UNIFAC predicts a liquid–liquid split (oiling out) and is
- * reported as a warning. Deterministic; no tolerance on γ is assumed.
- *
+ * Numerics: solveActivitySolubility (log scan, then Brent on ln x).
  * Validity: UNIFAC's range (≈ 275–425 K, warned outside); typical error of
- * UNIFAC solubility predictions for drug-like solids is a factor 2–3 in x.
- * Throws UnifacParameterError (code 'unifac-missing-parameters') when a
- * group pair has no parameter.
+ * UNIFAC solubility predictions for drug-like solids is a factor 2–3 in x
+ * (common practice). Throws UnifacParameterError (code
+ * 'unifac-missing-parameters') when a group pair has no parameter.
+ * Example: naphthalene (Tm 353.35 K, ΔHfus 18 980 J/mol) in toluene at
+ * 293.15 K → x ≈ 0.264 (Prausnitz et al. tabulate 0.224).
  */
 export function activityCorrectedSolubility(input: {
   meltingPointK: number;
@@ -139,6 +355,7 @@ export function activityCorrectedSolubility(input: {
   soluteGroups: UnifacGroups;
   solventGroups: UnifacGroups[];
   solventMoleFractions: number[];
+  models?: UnifacModelCache;
 }): ActivityCorrectedSolubilityResult {
   const ideal = idealSolubility(input);
   const warnings = [...ideal.warnings];
@@ -170,79 +387,66 @@ export function activityCorrectedSolubility(input: {
   const method =
     'ideal solubility (Schröder–van Laar) corrected by UNIFAC activity coefficient (x·γ = x_ideal)';
   const xIdeal = ideal.moleFraction;
-  if (xIdeal >= 1) {
-    return { moleFraction: 1, idealMoleFraction: 1, gamma: 1, method, warnings };
-  }
   const components = [input.soluteGroups, ...solventGroups];
-  const lnGamma = (x: number): number => {
-    const xs = [x, ...solventMoleFractions.map((z) => (1 - x) * z)];
-    return Math.log(activityCoefficients(components, xs, T_K)[0]);
-  };
-  const lnXi = Math.log(xIdeal);
-  const f = (x: number): number => Math.log(x) + lnGamma(x) - lnXi;
-
-  // Logarithmic scan from 1e-12 up to 1 - 1e-9.
-  const grid: number[] = [];
-  for (let k = 0; k <= 48; k++) grid.push(Math.pow(10, -12 + (12 * k) / 48));
-  grid[grid.length - 1] = 1 - 1e-9;
-  let lo = NaN;
-  let hi = NaN;
-  let crossings = 0;
-  let prevX = grid[0];
-  let prevF = f(prevX);
-  if (prevF >= 0) {
-    // The solute is practically insoluble (γ∞ > x_ideal / 1e-12).
-    warnings.push('Predicted solubility is below a mole fraction of 1e-12.');
+  const model = input.models ? input.models.model(components) : createUnifac(components);
+  if (xIdeal >= 1) {
     return {
-      moleFraction: prevX,
-      idealMoleFraction: xIdeal,
-      gamma: Math.exp(lnGamma(prevX)),
+      moleFraction: 1,
+      idealMoleFraction: 1,
+      gamma: 1,
+      oilingOut: { kind: 'none', warnings: [] },
       method,
       warnings,
     };
   }
-  for (let k = 1; k < grid.length; k++) {
-    const x = grid[k];
-    const fx = f(x);
-    if ((prevF < 0 && fx >= 0) || (prevF >= 0 && fx < 0)) {
-      crossings++;
-      if (Number.isNaN(lo)) {
-        lo = prevX;
-        hi = x;
-      }
-    }
-    prevX = x;
-    prevF = fx;
-  }
-  if (Number.isNaN(lo)) {
-    // f(1) = -ln x_ideal > 0 analytically; reaching here means f(1-1e-9) < 0 by rounding.
-    lo = grid[grid.length - 2];
-    hi = 1;
-  }
-  if (crossings > 1) {
-    warnings.push(
-      'UNIFAC predicts a liquid–liquid split of the saturated solution (the solute may oil out); the lowest-concentration root is reported.',
-    );
-  }
-  let flo = f(lo);
-  for (let i = 0; i < 60; i++) {
-    const mid = 0.5 * (lo + hi);
-    const fm = f(mid);
-    if (fm < 0 === flo < 0) {
-      lo = mid;
-      flo = fm;
-    } else {
-      hi = mid;
-    }
-  }
-  const x = 0.5 * (lo + hi);
+  const n = components.length;
+  const xs = new Float64Array(n);
+  const buf = new Float64Array(n);
+  const lnGamma = (x: number): number => {
+    xs[0] = x;
+    for (let j = 0; j < solventMoleFractions.length; j++)
+      xs[j + 1] = (1 - x) * solventMoleFractions[j];
+    return model.lnGammas(xs, T_K, buf)[0];
+  };
+  const root = solveActivitySolubility(lnGamma, xIdeal);
+  if (root.belowGrid) warnings.push('Predicted solubility is below a mole fraction of 1e-12.');
+  if (!root.converged)
+    warnings.push('The solubility root did not meet its tolerance; the best estimate is given.');
+  const oilingOut = liquidPhaseSeparation({
+    soluteGroups: input.soluteGroups,
+    solventGroups,
+    solventMoleFractions,
+    T_K,
+    xIdeal,
+    models: input.models,
+  });
+  warnings.push(...oilingOutWarnings(oilingOut, 'The solute'));
   return {
-    moleFraction: x,
+    moleFraction: root.x,
     idealMoleFraction: xIdeal,
-    gamma: Math.exp(lnGamma(x)),
+    gamma: Math.exp(root.lnGamma),
+    oilingOut,
     method,
     warnings,
   };
+}
+
+/**
+ * Plain-language warnings of an oiling-out test.
+ * @param t      the test result
+ * @param label  how to name the solute in the message (e.g. its name)
+ * @returns zero or one message
+ */
+export function oilingOutWarnings(t: OilingOutTest, label: string): string[] {
+  if (t.kind === 'stable')
+    return [
+      `${label} separates as an oil rather than crystals at this temperature: UNIFAC predicts a liquid–liquid split (solvent-rich liquid at x = ${t.solventRichX!.toPrecision(3)}, oil at x = ${t.soluteRichX!.toPrecision(3)}) below the solid's solubility.`,
+    ];
+  if (t.kind === 'metastable')
+    return [
+      `${label} may oil out: UNIFAC predicts a liquid–liquid split in the supersaturated region, from x = ${t.solventRichX!.toPrecision(3)} (oil at x = ${t.soluteRichX!.toPrecision(3)}); seed before the solution reaches it.`,
+    ];
+  return [];
 }
 
 type Point = { T_K: number; moleFraction: number };
@@ -415,25 +619,42 @@ export function fitApelblat(
   };
 }
 
+/** Jouyban–Acree interaction terms of one solvent pair [K]. */
+export interface JouybanPair {
+  /** Indices of the two solvents in the lists passed to jouybanAcree [–]. */
+  i: number;
+  j: number;
+  /** J0, J1, J2 [K], fitted for this solute with f_i − f_j as the difference variable. */
+  J0: number;
+  J1: number;
+  J2: number;
+}
+
 /**
  * Solubility in a mixed solvent by the Jouyban–Acree model (Jouyban 2008):
  *
- *   ln x_m,T = f1 ln x1,T + f2 ln x2,T + (f1 f2 / T) Σ_{i=0..2} J_i (f1 − f2)^i
+ *   binary:  ln x_m,T = f1 ln x1,T + f2 ln x2,T + (f1 f2 / T) Σ_{k=0..2} J_k (f1 − f2)^k
+ *   n ≥ 2:   ln x_m,T = Σ_i f_i ln x_i,T + Σ_pairs (f_i f_j / T) Σ_k J_k,ij (f_i − f_j)^k
  *
- * Without `interaction` the model reduces to the log-linear (Yalkowsky)
- * model, ln x_m = Σ f_i ln x_i, which is also accepted for n ≥ 2 solvents.
+ * (the multi-solvent form with binary interaction terms only, no ternary
+ * term). Without interaction terms the model reduces to the log-linear
+ * (Yalkowsky) model, ln x_m = Σ f_i ln x_i.
  *
  * @param input.lnSolubilities natural log of the solute's mole-fraction
- *   solubility in each neat solvent at T [-]
+ *   solubility in each neat solvent at T [–]
  * @param input.fractions fraction of each solvent in the solute-free blend
- *   [-], summing to 1 (mass, volume or mole fraction — the same basis on
- *   which the J_i were fitted; the log-linear form is usually on volume)
+ *   [–], summing to 1 (mass, volume or mole fraction — the same basis on
+ *   which the J terms were fitted; the log-linear form is usually on volume)
  * @param input.T_K temperature [K]
- * @param input.interaction J0, J1, J2 [K] fitted for this solute and pair
- * @returns ln x_m [-], natural log of the mole-fraction solubility in the blend
+ * @param input.interaction J0, J1, J2 [K] of a binary solvent (two solvents only)
+ * @param input.pairs J terms of any solvent pairs [K] (alternative to interaction)
+ * @returns ln x_m [–], natural log of the mole-fraction solubility in the blend
  *
+ * Validity: the J terms hold for the solute, solvent pair, fraction basis and
+ * temperature range they were fitted on; outside, an extrapolation.
  * Throws EngineError('invalid-input') when lengths differ, fractions do not
- * sum to 1 within 1e−6, or J is given for other than two solvents.
+ * sum to 1 within 1e−6, J is given as `interaction` for other than two
+ * solvents, or a pair index is out of range.
  * Example: ln x1 = −2, ln x2 = −8, f = (0.5, 0.5), no J → −5.
  */
 export function jouybanAcree(input: {
@@ -441,6 +662,7 @@ export function jouybanAcree(input: {
   fractions: number[];
   T_K: number;
   interaction?: { J0: number; J1: number; J2: number };
+  pairs?: readonly JouybanPair[];
 }): number {
   const { lnSolubilities: lnx, fractions: f, T_K, interaction } = input;
   if (lnx.length < 2 || lnx.length !== f.length) {
@@ -464,6 +686,7 @@ export function jouybanAcree(input: {
       sum,
     });
   }
+  const pairs: JouybanPair[] = [...(input.pairs ?? [])];
   if (interaction) {
     if (f.length !== 2) {
       throw new EngineError(
@@ -472,10 +695,17 @@ export function jouybanAcree(input: {
         { solvents: f.length },
       );
     }
-    const { J0, J1, J2 } = interaction;
-    for (const [k, v] of Object.entries({ J0, J1, J2 })) assertFinite(v, k, 'K');
-    const d = f[0] - f[1];
-    lnMix += ((f[0] * f[1]) / T_K) * (J0 + J1 * d + J2 * d * d);
+    pairs.push({ i: 0, j: 1, ...interaction });
+  }
+  for (const p of pairs) {
+    if (!(p.i >= 0 && p.i < f.length && p.j >= 0 && p.j < f.length && p.i !== p.j))
+      throw new EngineError('invalid-input', 'A Jouyban–Acree pair names an unknown solvent.', {
+        i: p.i,
+        j: p.j,
+      });
+    for (const [k, v] of Object.entries({ J0: p.J0, J1: p.J1, J2: p.J2 })) assertFinite(v, k, 'K');
+    const d = f[p.i] - f[p.j];
+    lnMix += ((f[p.i] * f[p.j]) / T_K) * (p.J0 + p.J1 * d + p.J2 * d * d);
   }
   return lnMix;
 }

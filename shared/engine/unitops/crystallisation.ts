@@ -41,6 +41,12 @@ import {
   VOLUME_REFERENCE_K,
 } from './distillation';
 import { solubilityIn } from './solubility-model';
+import {
+  idealSolubility,
+  liquidPhaseSeparation,
+  oilingOutWarnings,
+  type OilingOutTest,
+} from '../properties/solubility';
 
 export interface Precipitation {
   solidKg: Record<string, number>;
@@ -85,6 +91,94 @@ export function precipitate(
     solidKg[id] = Math.max(0, kg[id] - s.capacityKg);
   }
   return { solidKg, saturationKg };
+}
+
+/**
+ * Oiling-out test of a compound in the liquor at T by the liquid–liquid split
+ * of its subcooled liquid with the solvents (properties/solubility
+ * liquidPhaseSeparation, UNIFAC). A split below the solid's solubility
+ * ('stable') is a warning whatever the route; one in the supersaturated region
+ * ('metastable') is a warning when the liquor, with all the compound
+ * dissolved, would pass the solvent-rich binodal (an advisory when seeded).
+ * Without UNIFAC groups and melting data the test cannot be made: an info
+ * says so.
+ *
+ * @param ctx  evaluation context
+ * @param id   the compound
+ * @param kg   the liquor (all components) [kg]
+ * @param T_K  temperature of the test [K]
+ * @param seeded  whether the crystallisation is seeded
+ * @param W, M    warnings and methods of the step
+ */
+export function oilingOutCheck(
+  ctx: EvalContext,
+  id: string,
+  kg: Record<string, number>,
+  T_K: number,
+  seeded: boolean,
+  W: EngineWarning[],
+  M: MethodUsed[],
+): void {
+  const comp = ctx.comps.get(id)!;
+  const cp = comp.compound!;
+  if (!cp.unifac || cp.meltingPointC === undefined || cp.enthalpyFusionKJmol === undefined) {
+    warn(
+      W,
+      'info',
+      'oiling-out-not-tested',
+      `${comp.name}: no liquid–liquid split test for oiling out (it needs UNIFAC groups, a melting point and an enthalpy of fusion); only the melting-point margin is checked.`,
+    );
+    return;
+  }
+  const solvents = ctx.ids.filter((s) => ctx.comps.get(s)!.kind === 'solvent' && kg[s] > 0);
+  if (solvents.length === 0) return;
+  const mol = solvents.map((s) => kg[s] / ctx.comps.get(s)!.molarMassKgMol);
+  const nSolv = mol.reduce((a, b) => a + b, 0);
+  const Tm = cp.meltingPointC + 273.15;
+  if (T_K >= Tm) return;
+  const xIdeal = idealSolubility({
+    meltingPointK: Tm,
+    enthalpyFusionJmol: cp.enthalpyFusionKJmol * 1000,
+    T_K,
+  }).moleFraction;
+  const key = `oil:${id}:${T_K.toFixed(3)}:${mol.map((m) => (m / nSolv).toFixed(4)).join(',')}:${solvents.join(',')}`;
+  let test = ctx.scratch.get(key) as OilingOutTest | undefined;
+  if (!test) {
+    test = liquidPhaseSeparation({
+      soluteGroups: Object.fromEntries(Object.entries(cp.unifac).map(([k, v]) => [Number(k), v])),
+      solventGroups: solvents.map((s) => ctx.comps.get(s)!.solvent!.unifac.value),
+      solventMoleFractions: mol.map((m) => m / nSolv),
+      T_K,
+      xIdeal,
+      models: ctx.unifac,
+    });
+    ctx.scratch.set(key, test);
+  }
+  method(
+    M,
+    `oiling out of ${comp.name}`,
+    'liquid–liquid split of the subcooled liquid with the solvents (UNIFAC, tangent-plane test)',
+    'Michelsen, Fluid Phase Equilib. 1982, 9, 1; UNIFAC (Hansen et al. 1991)',
+  );
+  const nSolute = kg[id] / comp.molarMassKgMol;
+  const xTotal = nSolute / (nSolute + nSolv);
+  if (test.kind === 'stable') {
+    warn(W, 'warning', 'oiling-out', oilingOutWarnings(test, comp.name)[0]);
+  } else if (test.kind === 'metastable' && xTotal > test.solventRichX!) {
+    warn(
+      W,
+      seeded ? 'advisory' : 'warning',
+      'oiling-out',
+      `${oilingOutWarnings(test, comp.name)[0]} The liquor holds x = ${xTotal.toPrecision(3)} in all, beyond that point${seeded ? ' (seeded: the seed should take up the supersaturation first)' : ''}.`,
+    );
+  } else if (test.kind === 'not-tested') {
+    warn(
+      W,
+      'info',
+      'oiling-out-not-tested',
+      `${comp.name}: the liquid–liquid split test for oiling out could not be made (${test.warnings.join('; ')}).`,
+    );
+  }
 }
 
 export function crystallisation(
@@ -214,6 +308,7 @@ export function crystallisation(
         message: `The crystallisation runs within 10 K of the product's melting point (${cp.meltingPointC} °C): it may separate as an oil.`,
       });
     }
+    oilingOutCheck(ctx, pid, mix, T_end, params.seeded, W, M);
     const sat = end.saturationKg[pid];
     if (!params.seeded && sat && sat > 0 && mix[pid] / sat > 2) {
       W.push({

@@ -3,11 +3,33 @@
  *
  * Retained liquor: the cake holds r L of liquor per kg of solid (default
  * 0.5 L/kg, common practice for crystalline pharmaceutical cakes), of the
- * mother-liquor composition. Cake wash: each wash of volume V_w displaces a
- * fraction ε·min(1, V_w/V_r) of the retained liquor (ε the displacement
- * efficiency, default 0.8, common practice), replaced by wash solvent; the
- * rest of the wash passes to the filtrate. The wash is taken to leave
- * saturated with each solid it meets (an upper bound on wash losses).
+ * mother-liquor composition.
+ *
+ * Cake wash, per wash of volume V_w on the retained volume V_r (wash ratio
+ * W = V_w/V_r):
+ *  - displacement: the fraction of each dissolved component of the retained
+ *    liquor left in the cake is
+ *        R(W) = max(1 − W, (1 − E)^W)
+ *    (the exponential washing curve of Choudhury & Dahlstrom, AIChE J. 1957,
+ *    3, 433 — citation recalled — with E the fraction displaced by one
+ *    retained volume, default 0.8, common practice; bounded below by plug
+ *    flow, which cannot displace more liquor than the wash volume). No cap:
+ *    a larger wash displaces more;
+ *  - the wash's own composition: the liquid charged is the wash solvent; the
+ *    part that stays in the cake, (1 − R) V_r, replaces the displaced liquor;
+ *    the rest, V_p = V_w − (1 − R) V_r, passes through the cake;
+ *  - dissolution of the solid by the passing wash: the wash, entering free of
+ *    solute, approaches saturation in its own solvent while it crosses the
+ *    cake, dc/dt = k a (c_sat − c), so it leaves at a fraction
+ *        η = 1 − exp(−k a τ)
+ *    of saturation: k = Sh·D/d (film mass transfer, Sh = 2, the stagnant
+ *    sphere limit, a lower bound), a = 6 V_solid/(d V_r) the crystal surface
+ *    per volume of pore liquid, τ = V_r/Q_w the wash's residence time in the
+ *    cake at the final filtration rate Q_w, D the solute diffusivity by the
+ *    Stokes–Einstein relation D = k_B T/(6π μ r), r the radius of a sphere of
+ *    the solute's molar volume. The crystal size d is a parameter (100 µm
+ *    assumed, with a warning, when not given). Loss = η · c_sat · V_p, at
+ *    most the solid present; the result reports η per wash.
  *
  * Filtration time from the cake-filtration equation (Ruth; McCabe, Smith &
  * Harriott, Unit Operations of Chemical Engineering, filtration chapter):
@@ -16,7 +38,7 @@
  * c dry cake mass per filtrate volume [kg/m³], A filter area [m²],
  * ΔP pressure drop [Pa], R_m medium resistance [1/m], V filtrate volume [m³].
  * Each wash flows at the final filtration rate:
- *   t_w = V_w μ_w (α c V / A + R_m) / (A ΔP).
+ *   Q_w = A ΔP / (μ_w (α c V / A + R_m)),  t_w = V_w / Q_w.
  * Liquor viscosity: ln μ_mix = Σ x_i ln μ_i (Arrhenius mixing rule) from the
  * library's 25 °C values, corrected to T by the Lewis–Squires chart
  * correlation μ^−0.2661 = μ_25^−0.2661 + (T − 298.15)/233 (μ in mPa s, T in
@@ -40,18 +62,25 @@ import {
   warn,
 } from '../route/context';
 import { StepError } from '../route/errors';
-import type { StepOutput, Stream } from '../route/types';
+import type { EngineWarning, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 import { solubilityIn } from './solubility-model';
 
 /**
- * Viscosity of the liquid part of a stream [Pa s] at T [K]: Arrhenius mixing
- * of the solvents' 25 °C viscosities (mole fractions), Lewis–Squires for T.
+ * Viscosity of the liquid part of a stream at T: Arrhenius mixing of the
+ * solvents' 25 °C viscosities (mole fractions), Lewis–Squires for T.
+ *
+ * @param ctx      evaluation context
+ * @param kg       component masses [kg] (only solvents count)
+ * @param T_K      temperature [K]
+ * @param warnings receives a warning when Lewis–Squires is used below its range
+ * @returns μ [Pa s], or null when the stream holds no solvent
  */
 export function liquorViscosityPaS(
   ctx: EvalContext,
   kg: Record<string, number>,
   T_K: number,
+  warnings?: EngineWarning[],
 ): number | null {
   let lnMu = 0;
   let n = 0;
@@ -59,20 +88,58 @@ export function liquorViscosityPaS(
     const c = ctx.comps.get(id)!;
     if (c.kind !== 'solvent' || !(kg[id] > 0)) continue;
     const mol = kg[id] / c.molarMassKgMol;
-    lnMu += mol * Math.log(lewisSquires(c.solvent!.viscosityMPas25C.value, T_K));
+    const ls = lewisSquires(c.solvent!.viscosityMPas25C.value, T_K);
+    if (!ls.inRange && warnings)
+      warn(
+        warnings,
+        'warning',
+        'viscosity-extrapolated',
+        `${c.name}: the Lewis–Squires viscosity correlation has no solution at ${(T_K - 273.15).toFixed(0)} °C; the viscosity at ${(ls.T_K - 273.15).toFixed(0)} °C, the lowest temperature it reaches, is used (filtration times too short).`,
+      );
+    lnMu += mol * Math.log(ls.muMPas);
     n += mol;
   }
   if (n === 0) return null;
   return Math.exp(lnMu / n) / 1000;
 }
 
-/** Lewis–Squires: μ(T) [mPa s] from μ at 25 °C [mPa s]; T [K]. */
-export function lewisSquires(mu25: number, T_K: number): number {
-  const v = mu25 ** -0.2661 + (T_K - 298.15) / 233;
-  return v > 0 ? v ** (-1 / 0.2661) : mu25 * 50;
+/**
+ * Lewis–Squires temperature correction of a liquid viscosity:
+ *   μ(T)^−0.2661 = μ_25^−0.2661 + (T − 298.15)/233   (μ in mPa s, T in K)
+ * (Reid, Prausnitz & Poling, 4th ed., liquid viscosity chapter — cited from
+ * memory).
+ *
+ * @param mu25  viscosity at 25 °C [mPa s], > 0
+ * @param T_K   temperature [K]
+ * @returns μ at T [mPa s]; where the right-hand side is not positive (far
+ *   below 25 °C) the correlation has no solution: inRange is false and μ is
+ *   given at the temperature where μ reaches 1000 × μ_25 (T_K says which)
+ */
+export function lewisSquires(
+  mu25: number,
+  T_K: number,
+): { muMPas: number; inRange: boolean; T_K: number } {
+  const base = mu25 ** -0.2661;
+  const v = base + (T_K - 298.15) / 233;
+  const vMin = base * 1000 ** -0.2661;
+  if (v >= vMin) return { muMPas: v ** (-1 / 0.2661), inRange: true, T_K };
+  return { muMPas: vMin ** (-1 / 0.2661), inRange: false, T_K: 298.15 + 233 * (vMin - base) };
 }
 
-/** Cake-filtration time t [s] for filtrate volume V [m³] (Ruth equation, constant ΔP). */
+/**
+ * Cake-filtration time at constant pressure (Ruth equation; McCabe, Smith &
+ * Harriott, filtration chapter):
+ *   t = (μ α c / (2 A² ΔP)) V² + (μ R_m / (A ΔP)) V
+ * @param i.muPaS        filtrate viscosity μ [Pa s]
+ * @param i.alphaMPerKg  specific cake resistance α [m/kg]
+ * @param i.cKgM3        dry cake mass per filtrate volume c [kg/m³]
+ * @param i.areaM2       filter area A [m²]
+ * @param i.dPPa         pressure drop ΔP [Pa]
+ * @param i.RmPerM       medium resistance R_m [1/m]
+ * @param i.VM3          filtrate volume V [m³]
+ * @returns t [s]
+ * Validity: incompressible cake, constant ΔP.
+ */
 export function cakeFiltrationTime(i: {
   muPaS: number;
   alphaMPerKg: number;
@@ -84,6 +151,69 @@ export function cakeFiltrationTime(i: {
 }): number {
   const { muPaS: mu, alphaMPerKg: a, cKgM3: c, areaM2: A, dPPa: dP, RmPerM: Rm, VM3: V } = i;
   return ((mu * a * c) / (2 * A * A * dP)) * V * V + ((mu * Rm) / (A * dP)) * V;
+}
+
+/** Crystal size assumed for the wash-dissolution rate when none is given [µm] (common practice for pharmaceutical crystals). */
+export const DEFAULT_CRYSTAL_SIZE_UM = 100;
+
+const BOLTZMANN_J_PER_K = 1.380649e-23;
+const AVOGADRO_PER_MOL = 6.02214076e23;
+
+/**
+ * Fraction of a dissolved component of the retained cake liquor left after a
+ * displacement wash of W retained volumes:
+ *   R(W) = max(1 − W, (1 − E)^W)
+ * (exponential washing curve, Choudhury & Dahlstrom, AIChE J. 1957, 3, 433 —
+ * recalled; bounded below by plug flow).
+ * @param W  wash ratio V_wash/V_retained [–], ≥ 0
+ * @param E  fraction displaced by one retained volume [–], 0 ≤ E ≤ 1
+ * @returns R [–], 0 ≤ R ≤ 1; R(1) = 1 − E, R → 0 as W → ∞
+ */
+export function washRemainingFraction(W: number, E: number): number {
+  if (!(W > 0)) return 1;
+  if (!Number.isFinite(W)) return 0;
+  const exponential = E >= 1 ? 0 : (1 - E) ** W;
+  return Math.min(1, Math.max(1 - W, exponential));
+}
+
+/**
+ * Approach to saturation of a wash crossing a cake of crystals:
+ *   η = 1 − exp(−k a τ),  k = Sh D/d (Sh = 2),  a = 6 V_s/(d V_r),
+ *   D = k_B T/(6π μ r),  r = (3 V_m/(4π N_A))^(1/3)
+ * (film mass transfer to a sphere in stagnant liquid, Sh = 2; Stokes–Einstein
+ * diffusivity, Einstein 1905).
+ * @param i.crystalSizeM         crystal diameter d [m]
+ * @param i.solidVolumeM3        volume of the solid [m³]
+ * @param i.poreVolumeM3         liquid held in the cake V_r [m³]
+ * @param i.residenceTimeS       time the wash spends in the cake τ [s]
+ * @param i.T_K                  temperature [K]
+ * @param i.viscosityPaS         wash viscosity μ [Pa s]
+ * @param i.soluteMolarVolumeM3  molar volume of the solute V_m [m³/mol]
+ * @returns η [–], 0 ≤ η ≤ 1
+ * Validity: dilute wash, isolated spherical crystals; Sh = 2 is a lower bound
+ * of the transfer rate (flow raises it), so η is a lower bound too.
+ */
+export function approachToSaturation(i: {
+  crystalSizeM: number;
+  solidVolumeM3: number;
+  poreVolumeM3: number;
+  residenceTimeS: number;
+  T_K: number;
+  viscosityPaS: number;
+  soluteMolarVolumeM3: number;
+}): number {
+  if (!(i.poreVolumeM3 > 0) || !(i.residenceTimeS > 0)) return 0;
+  const r = Math.cbrt((3 * i.soluteMolarVolumeM3) / (4 * Math.PI * AVOGADRO_PER_MOL));
+  const D = (BOLTZMANN_J_PER_K * i.T_K) / (6 * Math.PI * i.viscosityPaS * r);
+  const k = (2 * D) / i.crystalSizeM;
+  const a = (6 * i.solidVolumeM3) / (i.crystalSizeM * i.poreVolumeM3);
+  return 1 - Math.exp(-k * a * i.residenceTimeS);
+}
+
+function emptyKg(ctx: EvalContext): Record<string, number> {
+  const o: Record<string, number> = {};
+  for (const id of ctx.ids) o[id] = 0;
+  return o;
 }
 
 export function filtration(
@@ -137,7 +267,7 @@ export function filtration(
     filtrate.kg[id] = liquor[id] - cakeLiq[id];
   }
   const Vf = VL - Vr;
-  const mu = liquorViscosityPaS(ctx, liquor, T);
+  const mu = liquorViscosityPaS(ctx, liquor, T, W);
   const c = Vf > 0 ? Ms / Vf : 0;
   let tFilt = 0;
   if (mu !== null && Vf > 0) {
@@ -165,7 +295,10 @@ export function filtration(
   }
   const washRecords: Array<{
     wash: number;
+    washRatio: number;
     displacedPct: number;
+    passingL: number;
+    approachToSaturationPct: number;
     dissolvedKg: Record<string, number>;
     timeH: number;
   }> = [];
@@ -183,45 +316,89 @@ export function filtration(
     const Vw = volumeToM3(ctx, cw.volume);
     const eps = ctx.num(cw.displacementEfficiency, 0, 1);
     const wKg = solventKgFromVolume(ctx, cw.solventId, Vw, Tw);
-    const muW = liquorViscosityPaS(ctx, { [cw.solventId]: 1 }, Tw) ?? 0.001;
+    const muW = liquorViscosityPaS(ctx, { ...emptyKg(ctx), [cw.solventId]: 1 }, Tw, W)!;
+    let dUm: number;
+    if (cw.crystalSizeUm !== undefined) dUm = ctx.num(cw.crystalSizeUm, 1, 5000);
+    else {
+      dUm = DEFAULT_CRYSTAL_SIZE_UM;
+      warn(
+        W,
+        'warning',
+        'crystal-size-assumed',
+        `No crystal size given for the cake wash: ${DEFAULT_CRYSTAL_SIZE_UM} µm assumed (common practice) for the rate at which the wash dissolves the solid; enter the measured size.`,
+      );
+    }
     method(
       M,
       'cake wash',
-      `displacement, efficiency ${eps} per retained volume; wash leaves saturated (upper bound on losses)`,
-      cw.displacementEfficiency === 0.8 ? 'default efficiency, common practice' : 'route document',
+      `displacement R = max(1 − W, (1 − E)^W) with E = ${eps} per retained volume; the passing wash dissolves the solid at the film rate (Sh = 2, Stokes–Einstein diffusivity, ${dUm} µm crystals)`,
+      cw.displacementEfficiency === 0.8
+        ? 'Choudhury & Dahlstrom 1957 (recalled); default efficiency, common practice'
+        : 'Choudhury & Dahlstrom 1957 (recalled); efficiency from the route document',
     );
+    // Wash flow at the final cake (Ruth): Q_w = A ΔP / (μ_w (α c V_f / A + R_m)) [m³/s].
+    const resistance = (alpha * c * Vf) / A + Rm;
+    const Qw = resistance > 0 ? (A * dP) / (muW * resistance) : Infinity;
     for (let k = 0; k < cw.washes; k++) {
       result.addedKg[cw.solventId] = (result.addedKg[cw.solventId] ?? 0) + wKg;
       result.addedVolumeM3 += Vw;
-      const d = Vr > 0 ? eps * Math.min(1, Vw / Vr) : 0;
-      const kept = Math.min(wKg, (d * Vr) / ws.specificVolume(Tw));
-      const passing = wKg - kept;
+      const Wr = Vr > 0 ? Vw / Vr : Infinity;
+      const remaining = Vr > 0 ? washRemainingFraction(Wr, eps) : 0;
+      const d = 1 - remaining;
+      // Displaced liquor to the filtrate; the same volume of wash solvent stays in the cake.
       for (const id of ctx.ids) {
         const moved = cakeLiq[id] * d;
         cakeLiq[id] -= moved;
         filtrate.kg[id] += moved;
       }
-      cakeLiq[cw.solventId] += kept;
-      filtrate.kg[cw.solventId] += passing;
-      // Dissolution of solids by the wash (saturation upper bound).
+      const keptM3 = Math.min(Vw, d * Vr);
+      const keptKg = keptM3 / ws.specificVolume(Tw);
+      cakeLiq[cw.solventId] += keptKg;
+      const passingKg = wKg - keptKg;
+      filtrate.kg[cw.solventId] += passingKg;
+      const passingM3 = passingKg * ws.specificVolume(Tw);
+      // Dissolution of the solid by the passing wash (its own composition: the wash solvent).
       const dissolved: Record<string, number> = {};
+      let etaReport = 0;
+      const tauS = Vr > 0 && Number.isFinite(Qw) ? Vr / Qw : 0;
       for (const id of ctx.ids) {
         const cc = ctx.comps.get(id)!;
-        if (!(solid[id] > 0) || cc.kind !== 'compound') continue;
-        const s = solubilityIn(ctx, id, { [cw.solventId]: wKg }, Tw, W, M);
-        const cap = s ? s.capacityKg : 0;
-        const loss = Math.min(solid[id], cap);
+        if (!(solid[id] > 0) || cc.kind !== 'compound' || !(passingKg > 0)) continue;
+        const sat = solubilityIn(ctx, id, { [cw.solventId]: passingKg }, Tw, W, M);
+        if (!sat) {
+          warn(
+            W,
+            'warning',
+            'wash-loss-not-estimated',
+            `${cc.name}: no solubility data in ${ws.name}, so what the cake wash dissolves of it is not estimated (taken as none).`,
+          );
+          continue;
+        }
+        const eta = approachToSaturation({
+          crystalSizeM: dUm * 1e-6,
+          solidVolumeM3: solid[id] * cc.specificVolume(Tw),
+          poreVolumeM3: Vr,
+          residenceTimeS: tauS,
+          T_K: Tw,
+          viscosityPaS: muW,
+          soluteMolarVolumeM3: cc.molarMassKgMol * cc.specificVolume(Tw),
+        });
+        etaReport = Math.max(etaReport, eta);
+        const loss = Math.min(solid[id], eta * sat.capacityKg);
         if (loss > 0) {
           solid[id] -= loss;
           filtrate.kg[id] += loss;
           dissolved[id] = round(loss, 6);
         }
       }
-      const tw = mu !== null && A > 0 ? (Vw * muW * ((alpha * c * Vf) / A + Rm)) / (A * dP) : 0;
+      const tw = Number.isFinite(Qw) ? Vw / Qw : 0;
       tWash += tw;
       washRecords.push({
         wash: k + 1,
+        washRatio: round(Wr, 4),
         displacedPct: round(100 * d, 2),
+        passingL: round(passingM3 * 1000, 4),
+        approachToSaturationPct: round(100 * etaReport, 2),
         dissolvedKg: dissolved,
         timeH: round(tw / 3600, 4),
       });

@@ -7,18 +7,27 @@
  *  1. the user's measured points for that solvent: van 't Hoff fit
  *     ln x = a + b/T (≥ 2 temperatures); one point is extended with the
  *     ideal slope d ln x/d(1/T) = −ΔHfus/R when ΔHfus is known;
- *  2. UNIFAC activity-corrected solubility x γ(x,T) = x_ideal(T);
+ *  2. UNIFAC activity-corrected solubility x γ(x,T) = x_ideal(T), solved by
+ *     the same routine as the calculation API
+ *     (properties/solubility.solveActivitySolubility);
  *  3. ideal solubility ln x = −(ΔHfus/R)(1/T − 1/Tm).
- * Blends: log-linear Jouyban–Acree model without interaction terms,
- *   ln x_m = Σ f_j ln x_j   (f_j solute-free volume fractions),
- * Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32. Solvents below 1 % of the
- * blend by volume are left out (fractions renormalised).
+ * Blends: Jouyban–Acree (Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32),
+ *   ln x_m = Σ f_j ln x_j + Σ_pairs (f_i f_j/T) Σ_k J_k (f_i − f_j)^k,
+ * with the compound's own J terms where the chemist gives them (on their
+ * fraction basis), else the log-linear form on solute-free volume fractions.
+ * Solvents below 1 % of the blend by volume are left out (fractions
+ * renormalised). A solvent with no solubility evidence at all is assumed to
+ * dissolve the compound per litre like the rest of the blend (it is left out
+ * of the average and adds capacity in proportion to its volume) — stated in a
+ * warning, never a silent collapse to "fully soluble".
  */
 import {
   fitVantHoff,
   gramsPerLitreToMoleFraction,
   idealSolubility,
   jouybanAcree,
+  solveActivitySolubility,
+  type JouybanPair,
 } from '../properties/solubility';
 import type { UnifacModel } from '../thermo/unifac';
 import type { EvalContext } from '../route/context';
@@ -33,6 +42,8 @@ type Curve = {
   method: string;
   source: string;
   range?: [number, number];
+  /** Why a better method could not be used (shown as a warning). */
+  note?: string;
 } | null;
 
 function pointToMoleFraction(
@@ -61,86 +72,23 @@ function pointToMoleFraction(
 }
 
 /**
- * x with x γ(x) = x_ideal in a neat solvent (solute index 0 of a two-component
- * UNIFAC model). Root bracketed as in activityCorrectedSolubility
- * (properties/solubility.ts, which documents the method and its source): a
- * logarithmic scan from 1e-12 to the first sign change of
- * f(x) = ln x + ln γ(x) − ln x_ideal. The bracket is then refined by the
- * Illinois variant of regula falsi on ln x (f is nearly linear in ln x), to
- * |f| < 1e-13 or a bracket of 1e-14 in ln x — the same root as 60 bisections
- * to within about 1e-13 relative, in about a tenth of the γ evaluations.
- * @param xIdeal ideal solubility [-]; @param T_K [K]; returns x [-].
+ * x with x γ(x) = x_ideal in a neat solvent (solute index 0 of a
+ * two-component UNIFAC model), by the shared solver of the calculation API
+ * (properties/solubility.solveActivitySolubility).
+ * @param model   UNIFAC model of [solute, solvent]
+ * @param xIdeal  ideal solubility [–]
+ * @param T_K     temperature [K]
+ * @returns solubility x [–]
  */
 function activitySolubility(model: UnifacModel, xIdeal: number, T_K: number): number {
-  if (xIdeal >= 1) return 1;
-  const buf = new Float64Array(2);
   const pair = new Float64Array(2);
-  const lnXi = Math.log(xIdeal);
-  const f = (x: number) => {
+  const buf = new Float64Array(2);
+  return solveActivitySolubility((x) => {
     pair[0] = x;
     pair[1] = 1 - x;
-    return Math.log(x) + Math.log(model.gammas(pair, T_K, buf)[0]) - lnXi;
-  };
-  let lo = NaN;
-  let hi = NaN;
-  let fHi = NaN;
-  let prevX = SCAN_GRID[0];
-  let prevF = f(prevX);
-  if (prevF >= 0) return prevX;
-  let flo = NaN;
-  for (let k = 1; k < SCAN_GRID.length && Number.isNaN(lo); k++) {
-    const x = SCAN_GRID[k];
-    const fx = f(x);
-    if ((prevF < 0 && fx >= 0) || (prevF >= 0 && fx < 0)) {
-      lo = prevX;
-      flo = prevF;
-      hi = x;
-      fHi = fx;
-    }
-    prevX = x;
-    prevF = fx;
-  }
-  if (Number.isNaN(lo)) {
-    lo = SCAN_GRID[SCAN_GRID.length - 2];
-    hi = 1;
-    flo = f(lo);
-    fHi = f(hi);
-  }
-  // Illinois regula falsi on u = ln x, keeping f(a) < 0 ≤ f(b).
-  let a = Math.log(lo);
-  let b = Math.log(hi);
-  let fa = flo;
-  let fb = fHi;
-  let side = 0;
-  let x = 0.5 * (lo + hi);
-  for (let i = 0; i < 100; i++) {
-    let c = b - (fb * (b - a)) / (fb - fa);
-    if (!(c > a && c < b)) c = 0.5 * (a + b);
-    x = Math.exp(c);
-    const fc = f(x);
-    if (Math.abs(fc) < 1e-13 || b - a < 1e-14) break;
-    if (fc < 0) {
-      a = c;
-      fa = fc;
-      if (side === -1) fb *= 0.5;
-      side = -1;
-    } else {
-      b = c;
-      fb = fc;
-      if (side === 1) fa *= 0.5;
-      side = 1;
-    }
-  }
-  return x;
+    return model.lnGammas(pair, T_K, buf)[0];
+  }, xIdeal).x;
 }
-
-/** Logarithmic scan grid of activitySolubility: 10^(−12 … 0) in 48 steps, the last point 1 − 1e-9. */
-const SCAN_GRID: readonly number[] = (() => {
-  const grid: number[] = [];
-  for (let k = 0; k <= 48; k++) grid.push(Math.pow(10, -12 + (12 * k) / 48));
-  grid[grid.length - 1] = 1 - 1e-9;
-  return grid;
-})();
 
 /** Solubility curve of a compound in one neat solvent, by the best evidence available. */
 export function neatSolventCurve(
@@ -194,16 +142,15 @@ export function neatSolventCurve(
         range: [T0, T0],
       };
   } else if (Tm !== undefined && dH !== undefined) {
+    let fallbackNote: string | undefined;
     if (c.unifac) {
       const groups = Object.fromEntries(Object.entries(c.unifac).map(([k, v]) => [Number(k), v]));
       try {
         // Invalid melting data or missing UNIFAC parameters fall through to the ideal model (building the
         // model is what throws for missing parameters; the melting data are checked as the ideal model does).
         idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: 298.15 });
-        // Same root as properties/solubility activityCorrectedSolubility (log scan from 1e-12, first
-        // sign change; refined by regula falsi instead of bisection, see activitySolubility), with the
-        // UNIFAC model built once per route (ctx.unifac) instead of once per γ evaluation, and memoised
-        // by temperature.
+        // The calculation API's root (solveActivitySolubility), with the UNIFAC model built once per
+        // route (ctx.unifac) and the result memoised by temperature.
         const model = ctx.unifac.model([groups, s.unifac.value]);
         const memo = new Map<number, number>();
         curve = {
@@ -228,12 +175,16 @@ export function neatSolventCurve(
           source:
             'Fredenslund et al. 1975 / Hansen et al. 1991 UNIFAC; melting data from the compound record',
         };
-      } catch {
+      } catch (e) {
+        fallbackNote = `UNIFAC could not be used (${(e as Error).message}); ideal solubility instead`;
         curve = null;
       }
+    } else {
+      fallbackNote = 'no UNIFAC groups for the compound; ideal solubility (γ = 1) instead';
     }
     if (!curve) {
       curve = {
+        note: fallbackNote,
         lnX: (T) =>
           Math.log(
             idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Math.min(T, Tm) })
@@ -256,11 +207,22 @@ export interface SolubilityAt {
   method: string;
 }
 
+const MINOR_BLEND_FRACTION = 0.01;
+
 /**
  * Saturation capacity of the liquor's solvents for a compound at T: the
- * solvents dissolve n_s = x/(1 − x) · Σ n_solvents mol. Returns null when the
- * compound has no solubility evidence at all (treated as fully soluble by the
- * callers, with a warning).
+ * solvents dissolve n_s = x/(1 − x) · Σ n_solvents mol, x from the best
+ * evidence per solvent (see the module comment) and Jouyban–Acree for blends.
+ *
+ * @param ctx        evaluation context
+ * @param compoundId the compound
+ * @param solventKg  kg of each component in the liquor (only solvents count) [kg]
+ * @param T_K        temperature [K]
+ * @param warnings   receives the warnings (missing data, assumptions, extrapolation)
+ * @param methods    receives the methods used
+ * @returns x [–], the capacity [kg] and the method; null when no solvent of
+ *   the liquor has any solubility evidence (the callers then keep the
+ *   compound dissolved and say so)
  */
 export function solubilityIn(
   ctx: EvalContext,
@@ -279,22 +241,36 @@ export function solubilityIn(
     vTot += v;
     return v;
   });
-  const used = ids.filter((_, i) => vol[i] / vTot >= 0.01);
-  const usedVol = used.map((id) => vol[ids.indexOf(id)]);
-  const usedTot = usedVol.reduce((a, b) => a + b, 0);
-  const lnXs: number[] = [];
-  const labels: string[] = [];
-  for (const id of used) {
+  const present = ids.filter((_, i) => vol[i] / vTot >= MINOR_BLEND_FRACTION);
+  const curves = new Map<string, NonNullable<Curve>>();
+  const missing: string[] = [];
+  for (const id of present) {
     const curve = neatSolventCurve(ctx, compoundId, id);
-    if (!curve) {
-      warn(
-        warnings,
-        'warning',
-        'no-solubility-data',
-        `${comp.name}: no solubility data in ${ctx.comps.get(id)!.name} and no melting data; treated as fully soluble.`,
-      );
-      return null;
-    }
+    if (curve) curves.set(id, curve);
+    else missing.push(id);
+  }
+  const used = present.filter((id) => curves.has(id));
+  if (used.length === 0) {
+    warn(
+      warnings,
+      'warning',
+      'no-solubility-data',
+      `${comp.name}: no solubility data in ${present.map((id) => ctx.comps.get(id)!.name).join(', ')} and no melting data; its solubility cannot be estimated.`,
+    );
+    return null;
+  }
+  if (missing.length > 0) {
+    const share = missing.reduce((a, id) => a + vol[ids.indexOf(id)], 0) / vTot;
+    warn(
+      warnings,
+      'warning',
+      'solubility-solvent-assumed',
+      `${comp.name}: no solubility data in ${missing.map((id) => ctx.comps.get(id)!.name).join(', ')} (${(100 * share).toFixed(1)} vol % of the solvents); assumed to dissolve it per litre like the rest of the liquor (${used.map((id) => ctx.comps.get(id)!.name).join(', ')}). Enter a measured point to replace the assumption.`,
+    );
+  }
+  const lnXs: number[] = [];
+  for (const id of used) {
+    const curve = curves.get(id)!;
     if (curve.range && (T_K < curve.range[0] - 10 || T_K > curve.range[1] + 10)) {
       warn(
         warnings,
@@ -309,23 +285,88 @@ export function solubilityIn(
       curve.method,
       curve.source,
     );
+    if (curve.note)
+      warn(
+        warnings,
+        'info',
+        'solubility-method-fallback',
+        `${comp.name}, in the solvents without measured points: ${curve.note}.`,
+      );
     lnXs.push(Math.min(0, curve.lnX(T_K)));
-    labels.push(curve.method);
   }
   let lnX: number;
-  if (used.length === 1) lnX = lnXs[0];
-  else {
-    lnX = jouybanAcree({ lnSolubilities: lnXs, fractions: usedVol.map((v) => v / usedTot), T_K });
-    method(
-      methods,
-      `solubility of ${comp.name} in the solvent blend`,
-      'Jouyban–Acree log-linear model on solute-free volume fractions (no interaction terms)',
-      'Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32',
-    );
+  let label: string;
+  if (used.length === 1) {
+    lnX = lnXs[0];
+    label = curves.get(used[0])!.method;
+  } else {
+    const blend = blendSolubility(ctx, comp.compound!, used, solventKg, T_K, lnXs);
+    lnX = blend.lnX;
+    label = blend.label;
+    method(methods, `solubility of ${comp.name} in the solvent blend`, blend.label, blend.source);
   }
   const x = Math.min(Math.exp(lnX), 0.999);
+  // Capacity of the solvents the mole fraction describes; a solvent without data adds capacity in
+  // proportion to its volume (it dissolves per litre like the rest of the liquor).
   let nSolv = 0;
-  for (const id of ids) nSolv += solventKg[id] / ctx.comps.get(id)!.molarMassKgMol;
-  const capacityKg = (x / (1 - x)) * nSolv * comp.molarMassKgMol;
-  return { x, capacityKg, method: used.length === 1 ? labels[0] : 'Jouyban–Acree (log-linear)' };
+  let vKnown = 0;
+  ids.forEach((id, i) => {
+    if (missing.includes(id)) return;
+    nSolv += solventKg[id] / ctx.comps.get(id)!.molarMassKgMol;
+    vKnown += vol[i];
+  });
+  const capacityKg = (x / (1 - x)) * nSolv * comp.molarMassKgMol * (vTot / vKnown);
+  return { x, capacityKg, method: label };
+}
+
+/**
+ * ln x of a compound in a blend of solvents with data: Jouyban–Acree with the
+ * compound's J terms for the pairs present (fractions on the basis they were
+ * fitted on; the pairs must share one basis), else the log-linear form on
+ * solute-free volume fractions.
+ */
+function blendSolubility(
+  ctx: EvalContext,
+  compound: CompoundSnapshot,
+  used: string[],
+  solventKg: Record<string, number>,
+  T_K: number,
+  lnXs: number[],
+): { lnX: number; label: string; source: string } {
+  const libraryId = (id: string) => ctx.comps.get(id)!.solvent!.id;
+  const pairs: JouybanPair[] = [];
+  let basis: 'volume' | 'mass' | 'mole' = 'volume';
+  const sources: string[] = [];
+  for (const c of compound.cosolvency ?? []) {
+    const i = used.findIndex((id) => libraryId(id) === c.solventIds[0]);
+    const j = used.findIndex((id) => libraryId(id) === c.solventIds[1]);
+    if (i < 0 || j < 0) continue;
+    if (pairs.length > 0 && c.basis !== basis) continue;
+    basis = c.basis;
+    pairs.push({ i, j, J0: c.J0, J1: c.J1 ?? 0, J2: c.J2 ?? 0 });
+    sources.push(c.source ?? 'J terms from the compound record');
+  }
+  const amount = used.map((id) => {
+    const comp = ctx.comps.get(id)!;
+    const kg = solventKg[id];
+    return basis === 'mass'
+      ? kg
+      : basis === 'mole'
+        ? kg / comp.molarMassKgMol
+        : kg * comp.specificVolume(T_K);
+  });
+  const total = amount.reduce((a, b) => a + b, 0);
+  const fractions = amount.map((v) => v / total);
+  const lnX = jouybanAcree({ lnSolubilities: lnXs, fractions, T_K, pairs });
+  if (pairs.length > 0)
+    return {
+      lnX,
+      label: `Jouyban–Acree with interaction terms (${basis} fractions)`,
+      source: `Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32; J terms: ${sources.join('; ')}`,
+    };
+  return {
+    lnX,
+    label: 'Jouyban–Acree log-linear model on solute-free volume fractions (no interaction terms)',
+    source: 'Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32',
+  };
 }

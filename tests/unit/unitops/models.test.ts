@@ -53,8 +53,16 @@ describe('aqueous pH by charge balance', () => {
 
 describe('filtration helpers', () => {
   it('Lewis–Squires returns the 25 °C value at 25 °C and falls with temperature', () => {
-    expect(lewisSquires(0.89, 298.15)).toBeCloseTo(0.89, 10);
-    expect(lewisSquires(0.89, 323.15)).toBeLessThan(0.89);
+    expect(lewisSquires(0.89, 298.15).muMPas).toBeCloseTo(0.89, 10);
+    expect(lewisSquires(0.89, 323.15).muMPas).toBeLessThan(0.89);
+  });
+  it('Lewis–Squires says when it has no solution (far below 25 °C) instead of inventing a value', () => {
+    const cold = lewisSquires(0.89, 40);
+    expect(cold.inRange).toBe(false);
+    expect(cold.T_K).toBeGreaterThan(40);
+    // At its limit the correlation gives 1000 × the 25 °C viscosity.
+    expect(cold.muMPas).toBeCloseTo(890, 6);
+    expect(lewisSquires(0.89, cold.T_K + 1).inRange).toBe(true);
   });
   it('cake-filtration time is quadratic in V without medium resistance', () => {
     const base = { muPaS: 1e-3, alphaMPerKg: 1e10, cKgM3: 100, areaM2: 0.1, dPPa: 8e4, RmPerM: 0 };
