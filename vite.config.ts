@@ -30,6 +30,9 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
+          // Generous: the suite shares the machine with builds and browsers; speed is
+          // measured by the benchmarks, never asserted here.
+          testTimeout: 60_000,
           include: [
             'tests/unit/**/*.test.ts',
             'tests/reference/**/*.test.ts',

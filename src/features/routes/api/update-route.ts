@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
-import { routeSummarySchema } from './schemas';
+import { routeDetailSchema } from './schemas';
 import { routesApi } from './urls';
 
 export type UpdateRouteInput = { name?: string; projectName?: string | null; archived?: boolean };
@@ -9,7 +9,7 @@ export const updateRoute = (workspaceId: string, routeId: string, input: UpdateR
   apiRequest(routesApi.one(workspaceId, routeId), {
     method: 'PATCH',
     body: input,
-    schema: routeSummarySchema,
+    schema: routeDetailSchema,
   });
 
 export const useUpdateRoute = (workspaceId: string) => {
