@@ -34,6 +34,20 @@ const summary = {
   stepCount: 7,
 };
 
+// A PATCH of a route answers with the route as the editor reads it (the server's
+// declared reply, routeDetailSchema): the summary plus the draft and abilities.
+const detail = {
+  ...summary,
+  draft: {
+    document: demoRoute,
+    version: 4,
+    updatedAt: '2026-12-03T10:00:00.000Z',
+    updatedBy: { id: 'u1', name: 'Ada Chemist' },
+    evaluationError: null,
+  },
+  abilities: { read: true, edit: true, rename: true, duplicate: true, archive: true },
+};
+
 afterEach(() => vi.unstubAllGlobals());
 
 describe('the client reads error replies with the shared error contract', () => {
@@ -107,7 +121,7 @@ describe('the client reads error replies with the shared error contract', () => 
 
 describe('the client parses every reply with its exact schema', () => {
   it('a PATCH reply with a field the schema does not declare is refused', async () => {
-    reply(200, { ...summary, secretFlag: true });
+    reply(200, { ...detail, secretFlag: true });
     const error = await failure(updateRoute('w1', 'r1', { name: 'Renamed' }));
     expect(error.code).toBe('invalid_reply');
   });
@@ -119,7 +133,7 @@ describe('the client parses every reply with its exact schema', () => {
   });
 
   it('the exact reply is accepted', async () => {
-    reply(200, summary);
-    expect(await updateRoute('w1', 'r1', { name: 'Renamed' })).toEqual(summary);
+    reply(200, detail);
+    expect(await updateRoute('w1', 'r1', { name: 'Renamed' })).toEqual(detail);
   });
 });
