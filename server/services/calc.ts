@@ -34,6 +34,7 @@ import {
   bubblePoint,
   createVleSystem,
   findBinaryAzeotrope,
+  solventVapourPressureData,
   vapourPressure,
   type VleComponent,
 } from '@shared/engine/thermo';
@@ -55,10 +56,7 @@ const WATER_GROUPS = { 16: 1 };
 const WATER_MOLAR_MASS = 18.015;
 const WATER_DENSITY = 0.99705;
 
-const fallbackOf = (s: SolventRecord) =>
-  s.enthalpyVapKJmol
-    ? { TbK: celsiusToKelvin(s.boilingPointC.value), dHvapJmol: s.enthalpyVapKJmol.value * 1000 }
-    : undefined;
+const fallbackOf = (s: SolventRecord) => solventVapourPressureData(s).extra;
 
 function requireLibrary(component: ResolvedSmiles, label: string, why: string): SolventRecord {
   if (component.basis === 'library') return component.solvent;
@@ -126,7 +124,14 @@ export function calcBubblePoint(input: BubblePointRequest): BubblePointReply {
     if (c.basis === 'library') {
       const s = c.solvent;
       const fb = fallbackOf(s);
-      return { name: s.name, antoine: s.antoine, unifac, TbK: fb?.TbK, dHvapJmol: fb?.dHvapJmol };
+      return {
+        name: s.name,
+        antoine: s.antoine,
+        unifac,
+        vapourPressure: fb.correlation,
+        TbK: fb.TbK,
+        dHvapJmol: fb.dHvapJmol,
+      };
     }
     warnings.push(
       `Component ${i + 1} (${c.smiles}) is not in the solvent library: treated as non-volatile (it lowers the others' activity but does not enter the vapour).`,
@@ -166,7 +171,9 @@ export function calcAzeotrope(input: AzeotropeRequest): AzeotropeReply {
         name: s.name,
         antoine: s.antoine,
         unifac: s.unifac.value,
-        ...fallbackOf(s),
+        vapourPressure: fallbackOf(s).correlation,
+        TbK: fallbackOf(s).TbK,
+        dHvapJmol: fallbackOf(s).dHvapJmol,
       })),
     );
     return findBinaryAzeotrope(system, kPaToPa(input.pressureKPa));

@@ -102,7 +102,7 @@ export const vapourPressureRequestSchema = z
 export type VapourPressureRequest = z.infer<typeof vapourPressureRequestSchema>;
 export const vapourPressureReplySchema = z.object({
   pressureKPa: z.number(),
-  method: z.enum(['antoine', 'clausius-clapeyron']),
+  method: z.enum(['dippr101', 'wagner', 'antoine', 'antoine-anchored', 'clausius-clapeyron']),
   source: valueSourceSchema,
   component: resolvedComponentSchema,
   warnings: warningsSchema,

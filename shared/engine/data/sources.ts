@@ -53,6 +53,20 @@ export const SOURCES = {
       'CRC Handbook of Chemistry and Physics, "Enthalpy of Vaporization" (ΔvapH at the normal boiling point)',
     via: 'CalebBell/chemicals: chemicals/Phase Change/CRC Handbook Heat of Vaporization.tsv (column HvapTb, J/mol)',
   },
+  'perry-8e-2-8-vapour-pressure': {
+    citation:
+      'D. W. Green, R. H. Perry (eds.), Perry\'s Chemical Engineers\' Handbook, 8th ed., McGraw-Hill, 2007, Table 2-8 "Vapor Pressure of Inorganic and Organic Liquids" (DIPPR equation 101: ln(P/Pa) = C1 + C2/T + C3 ln T + C4 T^C5, T/K, from Tmin, usually the triple point, to Tmax, the critical temperature)',
+    via: 'CalebBell/chemicals: chemicals/Vapor Pressure/Table 2-8 Vapor Pressure of Inorganic and Organic Liquids.tsv (columns C1–C5, Tmin, Tmax in K)',
+  },
+  'vdi-ppds-wagner': {
+    citation:
+      'VDI Heat Atlas, 2nd ed., Springer, 2010, part D3.1, PPDS vapour-pressure equation in the Wagner form ln(P/Pc) = (Tc/T)(A τ + B τ^1.5 + C τ^2.5 + D τ^5), τ = 1 − T/Tc (edition and part recalled)',
+    via: 'CalebBell/chemicals: chemicals/Vapor Pressure/VDI PPDS Boiling temperatures at different pressures.tsv (columns Tm, Tc in K, Pc in Pa, A–D); the form was checked here by reproducing the CRC normal boiling points of pyridine and isobutanol to 0.1 K',
+  },
+  'kistiakowsky-trouton': {
+    citation:
+      "Kistiakowsky's rule for the entropy of vaporisation at the normal boiling point, ΔSvb = 36.1 + R ln(Tb/K) J/(mol·K) (W. Kistiakowsky, Z. Phys. Chem. 1923, 107, 65; as given in Poling, Prausnitz & O'Connell, 5th ed., chapter 7 — citation recalled); typical error ±5 % for non-associating liquids",
+  },
   'poling-5e-antoine': {
     citation:
       "B. E. Poling, J. M. Prausnitz, J. P. O'Connell, The Properties of Gases and Liquids, 5th ed., McGraw-Hill, New York, 2001, Appendix A (Antoine constants, log10 P/bar, t/°C)",

@@ -51,6 +51,44 @@ export interface AntoineSet {
   source: Source;
 }
 
+/**
+ * A wide-range vapour-pressure correlation, valid from the triple (or
+ * melting) point to the critical point, with its coefficients exactly as
+ * published:
+ *  - 'dippr101': ln(P/Pa) = C1 + C2/T + C3 ln T + C4 T^C5, T in K (DIPPR
+ *    equation 101; Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8)
+ *  - 'wagner-2.5-5': ln(P/Pc) = (Tc/T)(A τ + B τ^1.5 + C τ^2.5 + D τ^5),
+ *    τ = 1 − T/Tc (the Wagner form of the VDI Heat Atlas, PPDS set)
+ */
+export type VapourPressureCorrelation =
+  | {
+      kind: 'dippr101';
+      C1: number;
+      C2: number;
+      C3: number;
+      C4: number;
+      C5: number;
+      /** Lowest temperature of the fit [K]. */
+      TminK: number;
+      /** Highest temperature of the fit (the critical temperature) [K]. */
+      TmaxK: number;
+    }
+  | {
+      kind: 'wagner-2.5-5';
+      /** Critical temperature [K]. */
+      TcK: number;
+      /** Critical pressure [Pa]. */
+      PcPa: number;
+      A: number;
+      B: number;
+      C: number;
+      D: number;
+      /** Lowest temperature of the fit (melting point) [K]. */
+      TminK: number;
+      /** Highest temperature of the fit (= Tc) [K]. */
+      TmaxK: number;
+    };
+
 /** UNIFAC subgroup counts, keyed by the subgroup number of the original
  * UNIFAC table (Hansen et al. 1991), e.g. ethanol = { 1: 1, 2: 1, 14: 1 }. */
 export type UnifacGroups = Record<number, number>;
@@ -77,6 +115,8 @@ export interface SolventRecord {
    * temperature). From shared/engine/data/hazards.ts.
    */
   flashPointC: Sourced<number | null>;
+  /** Wide-range correlation (triple point to critical point) where one is published; preferred over Antoine. */
+  vapourPressure?: Sourced<VapourPressureCorrelation>;
   antoine: AntoineSet[]; // in order of preference; may be empty
   /** Enthalpy of vaporisation at the normal boiling point, kJ/mol, for
    * Clausius–Clapeyron outside the Antoine range. */

@@ -1,6 +1,8 @@
 /**
- * Vapour pressure of pure liquids: the Antoine equation inside its fitted
- * range, Clausius–Clapeyron outside it (with a warning).
+ * Vapour pressure of pure liquids: a wide-range correlation (DIPPR 101 or
+ * Wagner, triple point to critical point) where one is published; else the
+ * Antoine equation inside its fitted range, joined smoothly to the normal
+ * boiling point outside it (with a warning).
  *
  * Sources: Antoine, C. R. Acad. Sci. 1888, 107, 681; constants as published in
  * Poling, Prausnitz & O'Connell, The Properties of Gases and Liquids, 5th ed.
@@ -9,16 +11,27 @@
  * e.g. Atkins' Physical Chemistry, §"the Clausius–Clapeyron equation".
  */
 import { EngineError } from '../errors';
-import type { AntoineSet, Source } from '../data/types';
+import type {
+  AntoineSet,
+  SolventRecord,
+  Source,
+  Sourced,
+  VapourPressureCorrelation,
+} from '../data/types';
+import { findRoot } from '../numerics';
 import { PA_PER_BAR, R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA, T0_K } from '../units';
 
 const LN10 = Math.LN10;
+
+/** How a vapour pressure was obtained. */
+export type VapourPressureMethod =
+  'dippr101' | 'wagner' | 'antoine' | 'antoine-anchored' | 'clausius-clapeyron';
 
 /** Result of a vapour-pressure evaluation. */
 export interface VapourPressureResult {
   /** Saturation pressure [Pa]. */
   pressurePa: number;
-  method: 'antoine' | 'clausius-clapeyron';
+  method: VapourPressureMethod;
   /** Source of the constants used (for an extrapolation: the set or data it started from). */
   source: Source;
   warnings: string[];
@@ -28,6 +41,19 @@ export interface VapourPressureResult {
 export interface VapourPressureWithSlope extends VapourPressureResult {
   /** d ln P^sat / dT [1/K]. */
   dlnPdT: number;
+}
+
+/**
+ * Data of one pure liquid beyond its Antoine sets: a wide-range correlation,
+ * the normal boiling point and the enthalpy of vaporisation there.
+ */
+export interface VapourPressureExtra {
+  /** Wide-range correlation (triple point to critical point), preferred when present. */
+  correlation?: Sourced<VapourPressureCorrelation>;
+  /** Normal boiling point [K] (anchor of the Antoine extension and of Clausius–Clapeyron). */
+  TbK?: number;
+  /** Enthalpy of vaporisation at Tb [J/mol] (Clausius–Clapeyron when there is no Antoine set). */
+  dHvapJmol?: number;
 }
 
 /** Temperature on the equation's own scale (°C or K) for a set. */
@@ -40,9 +66,14 @@ function equationTemperature(set: AntoineSet, T_K: number): number {
  *
  *   log10(P/bar) = A − B / (θ + C),   θ = t/°C  ('log10-bar-degC')  or  T/K  ('log10-bar-K')
  *
+ * Source: Antoine, C. R. Acad. Sci. 1888, 107, 681; constants as published
+ * (Poling et al. 5th ed. App. A, NIST WebBook, Landolt-Börnstein IV/20).
+ *
  * @param set  Antoine constants (A [–], B [°C or K], C [°C or K]) and form
  * @param T_K  temperature [K]
  * @returns    ln(P/Pa) [–] and d ln P/dT [1/K]
+ *
+ * Validity: the set's own range [TminK, TmaxK]; no check here.
  */
 export function antoineLnPressure(set: AntoineSet, T_K: number): { lnP: number; dlnPdT: number } {
   const denom = equationTemperature(set, T_K) + set.C;
@@ -51,6 +82,42 @@ export function antoineLnPressure(set: AntoineSet, T_K: number): { lnP: number; 
     lnP: log10Bar * LN10 + Math.log(PA_PER_BAR),
     dlnPdT: (LN10 * set.B) / (denom * denom),
   };
+}
+
+/**
+ * A wide-range correlation evaluated with no range check.
+ *
+ *   DIPPR 101:   ln(P/Pa) = C1 + C2/T + C3 ln T + C4 T^C5
+ *   Wagner 2.5-5: ln(P/Pc) = (Tc/T)(A τ + B τ^1.5 + C τ^2.5 + D τ^5),  τ = 1 − T/Tc
+ *
+ * Source: Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8 (DIPPR
+ * 101); VDI Heat Atlas, PPDS Wagner form.
+ *
+ * @param c    correlation and coefficients (T in K, P in Pa)
+ * @param T_K  temperature [K], > 0 (Wagner: ≤ Tc)
+ * @returns    ln(P/Pa) [–] and d ln P/dT [1/K]
+ *
+ * Validity: [TminK, TmaxK] of the row (triple or melting point to the critical point).
+ */
+export function correlationLnPressure(
+  c: VapourPressureCorrelation,
+  T_K: number,
+): { lnP: number; dlnPdT: number } {
+  if (c.kind === 'dippr101') {
+    const tPow = c.C5 === 0 ? 1 : T_K ** c.C5;
+    return {
+      lnP: c.C1 + c.C2 / T_K + c.C3 * Math.log(T_K) + c.C4 * tPow,
+      dlnPdT: -c.C2 / (T_K * T_K) + c.C3 / T_K + (c.C5 === 0 ? 0 : (c.C4 * c.C5 * tPow) / T_K),
+    };
+  }
+  const tau = Math.max(0, 1 - T_K / c.TcK);
+  const s = Math.sqrt(tau);
+  const poly = c.A * tau + c.B * tau * s + c.C * tau * tau * s + c.D * tau ** 5;
+  // d poly/dτ, with dτ/dT = −1/Tc.
+  const dpoly = c.A + 1.5 * c.B * s + 2.5 * c.C * tau * s + 5 * c.D * tau ** 4;
+  const lnP = Math.log(c.PcPa) + (c.TcK / T_K) * poly;
+  const dlnPdT = -(c.TcK / (T_K * T_K)) * poly - (1 / T_K) * dpoly;
+  return { lnP, dlnPdT };
 }
 
 function checkTemperature(T_K: number): void {
@@ -63,6 +130,67 @@ function checkTemperature(T_K: number): void {
   }
 }
 
+const LN_ATM = Math.log(STANDARD_ATMOSPHERE_PA);
+
+/**
+ * Kirchhoff form ln P = a + b/T + c ln T through (T_e, ln P_e) with slope s_e
+ * there and through (Tb, ln 1 atm): the Antoine extension anchored at the
+ * normal boiling point. Returns null when the fit is unphysical (ΔH = R(cT − b)
+ * not positive between the two anchors, or c > 0, i.e. ΔH rising with T).
+ */
+function anchoredKirchhoff(
+  Te: number,
+  lnPe: number,
+  se: number,
+  Tb: number,
+): { a: number; b: number; c: number } | null {
+  const dInv = 1 / Tb - 1 / Te;
+  const denom = Te * dInv + Math.log(Tb / Te);
+  if (Math.abs(denom) < 1e-12) return null;
+  const c = (LN_ATM - lnPe + se * Te * Te * dInv) / denom;
+  const b = c * Te - se * Te * Te;
+  const a = lnPe - b / Te - c * Math.log(Te);
+  if (c > 0) return null;
+  for (const T of [Te, Tb]) if (!(c * T - b > 0)) return null;
+  return { a, b, c };
+}
+
+/**
+ * ln P and its slope from the normal boiling point, integrating
+ * d ln P/dT = ΔH(T)/(R T²) with Watson's relation ΔH = ΔH_b ((1 − T/Tc)/(1 − Tb/Tc))^0.38
+ * (Watson, Ind. Eng. Chem. 1943, 35, 398) and Tc = 1.5 Tb (Guldberg's rule),
+ * by composite 8-point Gauss–Legendre quadrature in T, panels of at most 25 K
+ * (ideal-gas vapour, liquid volume
+ * neglected).
+ */
+function watsonClapeyron(TbK: number, dHb: number, T_K: number): { lnP: number; dlnPdT: number } {
+  const Tc = 1.5 * TbK;
+  const dH = (T: number) => (T >= Tc ? 0 : dHb * ((1 - T / Tc) / (1 - TbK / Tc)) ** 0.38);
+  const upper = Math.min(T_K, Tc);
+  // Composite rule: panels of at most 25 K, each integrated to about 1e-10 relative.
+  const panels = Math.max(1, Math.ceil(Math.abs(upper - TbK) / 25));
+  const width = (upper - TbK) / panels;
+  let integral = 0;
+  for (let p = 0; p < panels; p++) {
+    const mid = TbK + (p + 0.5) * width;
+    for (let k = 0; k < GL8_X.length; k++) {
+      const T = mid + 0.5 * width * GL8_X[k];
+      integral += 0.5 * width * GL8_W[k] * (dH(T) / (R_J_PER_MOL_K * T * T));
+    }
+  }
+  return { lnP: LN_ATM + integral, dlnPdT: dH(T_K) / (R_J_PER_MOL_K * T_K * T_K) };
+}
+
+// Gauss–Legendre nodes and weights, 8 points on [−1, 1] (Abramowitz & Stegun, Table 25.4).
+const GL8_X = [
+  -0.9602898564975363, -0.7966664774136267, -0.525532409916329, -0.1834346424956498,
+  0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363,
+];
+const GL8_W = [
+  0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.362683783378362, 0.362683783378362,
+  0.3137066458778873, 0.2223810344533745, 0.1012285362903763,
+];
+
 /**
  * Vapour pressure with its slope; same rules as {@link vapourPressure}.
  * The solvers use the slope for Newton steps.
@@ -70,10 +198,36 @@ function checkTemperature(T_K: number): void {
 export function vapourPressureWithSlope(
   sets: readonly AntoineSet[],
   T_K: number,
-  fallback?: { TbK: number; dHvapJmol: number },
+  extra?: VapourPressureExtra,
 ): VapourPressureWithSlope {
   checkTemperature(T_K);
-  for (const set of sets) {
+  const corr = extra?.correlation;
+  if (corr) {
+    const c = corr.value;
+    const method: VapourPressureMethod = c.kind === 'dippr101' ? 'dippr101' : 'wagner';
+    if (T_K >= c.TminK && T_K <= c.TmaxK) {
+      const { lnP, dlnPdT } = correlationLnPressure(c, T_K);
+      return { pressurePa: Math.exp(lnP), dlnPdT, method, source: corr.source, warnings: [] };
+    }
+    // Beyond the triple point or the critical point: constant-ΔH extension from the end, with a warning.
+    const end = T_K < c.TminK ? c.TminK : c.TmaxK;
+    const atEnd = correlationLnPressure(c, end);
+    const lnP = atEnd.lnP + end * end * atEnd.dlnPdT * (1 / end - 1 / T_K);
+    return {
+      pressurePa: Math.exp(lnP),
+      dlnPdT: (atEnd.dlnPdT * end * end) / (T_K * T_K),
+      method: 'clausius-clapeyron',
+      source: corr.source,
+      warnings: [
+        T_K > c.TmaxK
+          ? `${T_K.toFixed(2)} K is above the critical temperature (${c.TmaxK} K): there is no liquid; vapour pressure extrapolated by Clausius–Clapeyron.`
+          : `${T_K.toFixed(2)} K is below the triple point or fitted minimum (${c.TminK} K): vapour pressure of the subcooled liquid extrapolated by Clausius–Clapeyron.`,
+      ],
+    };
+  }
+  if (sets.length > 0) {
+    // Only the preferred set is used, extended smoothly outside its range: no jump where sets hand over.
+    const set = sets[0];
     if (T_K >= set.TminK && T_K <= set.TmaxK) {
       const { lnP, dlnPdT } = antoineLnPressure(set, T_K);
       return {
@@ -84,58 +238,79 @@ export function vapourPressureWithSlope(
         warnings: [],
       };
     }
-  }
-  if (sets.length > 0) {
-    // Nearest range end over all sets.
-    let best = sets[0];
-    let bestEnd = T_K < best.TminK ? best.TminK : best.TmaxK;
-    let bestDistance = Math.abs(T_K - bestEnd);
-    for (const set of sets) {
-      const end = T_K < set.TminK ? set.TminK : set.TmaxK;
-      const distance = Math.abs(T_K - end);
-      if (distance < bestDistance) {
-        best = set;
-        bestEnd = end;
-        bestDistance = distance;
-      }
+    const below = T_K < set.TminK;
+    const end = below ? set.TminK : set.TmaxK;
+    const atEnd = antoineLnPressure(set, end);
+    const Tb = extra?.TbK;
+    // Anchor only when Tb lies at least 5 K beyond the range end (closer, the fit is ill-conditioned
+    // and the range end already carries the boiling point).
+    const anchorBeyond = Tb !== undefined && (below ? Tb < end - 5 : Tb > end + 5);
+    const fit = anchorBeyond ? anchoredKirchhoff(end, atEnd.lnP, atEnd.dlnPdT, Tb!) : null;
+    if (fit) {
+      // Between the range end and Tb the Kirchhoff equation; beyond Tb, Clausius–Clapeyron from Tb with
+      // the Kirchhoff ΔH there, falling towards the critical point by Watson's relation (so ΔH never
+      // collapses to zero far from the data). Value and slope are continuous at Tb.
+      const beyondTb = below ? T_K < Tb! : T_K > Tb!;
+      const ext = beyondTb
+        ? watsonClapeyron(Tb!, R_J_PER_MOL_K * (fit.c * Tb! - fit.b), T_K)
+        : {
+            lnP: fit.a + fit.b / T_K + fit.c * Math.log(T_K),
+            dlnPdT: -fit.b / (T_K * T_K) + fit.c / T_K,
+          };
+      const lnP = ext.lnP;
+      return {
+        pressurePa: Math.exp(lnP),
+        dlnPdT: ext.dlnPdT,
+        method: 'antoine-anchored',
+        source: set.source,
+        warnings: [
+          `${T_K.toFixed(2)} K is outside the Antoine range ${set.TminK}–${set.TmaxK} K; vapour pressure from ` +
+            `the Antoine set joined smoothly to the normal boiling point (${Tb!.toFixed(2)} K) by a Kirchhoff ` +
+            `equation ln P = a + b/T + c ln T, ${Math.abs(T_K - end).toFixed(1)} K beyond the range.`,
+        ],
+      };
     }
-    const atEnd = antoineLnPressure(best, bestEnd);
     // Effective enthalpy of vaporisation at the range end: ΔH = R T² d ln P/dT.
-    const dHvap = R_J_PER_MOL_K * bestEnd * bestEnd * atEnd.dlnPdT;
-    const lnP = atEnd.lnP - (dHvap / R_J_PER_MOL_K) * (1 / T_K - 1 / bestEnd);
+    const dHvap = R_J_PER_MOL_K * end * end * atEnd.dlnPdT;
+    const lnP = atEnd.lnP - (dHvap / R_J_PER_MOL_K) * (1 / T_K - 1 / end);
     return {
       pressurePa: Math.exp(lnP),
       dlnPdT: dHvap / (R_J_PER_MOL_K * T_K * T_K),
       method: 'clausius-clapeyron',
-      source: best.source,
+      source: set.source,
       warnings: [
-        `${T_K.toFixed(2)} K is outside the Antoine range ${best.TminK}–${best.TmaxK} K; ` +
-          `vapour pressure extrapolated by Clausius–Clapeyron from ${bestEnd} K ` +
-          `(ΔHvap ${(dHvap / 1000).toFixed(1)} kJ/mol from the Antoine slope there), ${bestDistance.toFixed(1)} K beyond the range.`,
+        `${T_K.toFixed(2)} K is outside the Antoine range ${set.TminK}–${set.TmaxK} K; ` +
+          `vapour pressure extrapolated by Clausius–Clapeyron from ${end} K ` +
+          `(ΔHvap ${(dHvap / 1000).toFixed(1)} kJ/mol from the Antoine slope there), ${Math.abs(T_K - end).toFixed(1)} K beyond the range.`,
       ],
     };
   }
-  if (fallback && fallback.TbK > 0 && fallback.dHvapJmol > 0) {
-    const lnP =
-      Math.log(STANDARD_ATMOSPHERE_PA) -
-      (fallback.dHvapJmol / R_J_PER_MOL_K) * (1 / T_K - 1 / fallback.TbK);
+  const TbK = extra?.TbK;
+  if (TbK !== undefined && TbK > 0) {
+    const given = extra?.dHvapJmol !== undefined && extra.dHvapJmol > 0;
+    // Kistiakowsky's rule when no enthalpy of vaporisation is known: ΔSvb = 36.1 + R ln Tb J/(mol K).
+    const dHb = given ? extra!.dHvapJmol! : TbK * (36.1 + R_J_PER_MOL_K * Math.log(TbK));
+    const { lnP, dlnPdT } = watsonClapeyron(TbK, dHb, T_K);
     return {
       pressurePa: Math.exp(lnP),
-      dlnPdT: fallback.dHvapJmol / (R_J_PER_MOL_K * T_K * T_K),
+      dlnPdT,
       method: 'clausius-clapeyron',
-      source: {
-        ref: 'Clausius–Clapeyron from the normal boiling point and the enthalpy of vaporisation',
-        status: 'estimated',
-      },
+      source: given
+        ? {
+            ref: 'Clausius–Clapeyron from the normal boiling point and the enthalpy of vaporisation, Watson temperature dependence',
+            status: 'estimated',
+          }
+        : { ref: 'kistiakowsky-trouton', status: 'estimated' },
       warnings: [
-        `No Antoine constants; vapour pressure estimated by Clausius–Clapeyron from Tb = ${fallback.TbK} K ` +
-          `and ΔHvap = ${(fallback.dHvapJmol / 1000).toFixed(1)} kJ/mol (constant ΔHvap assumed).`,
+        `No vapour-pressure correlation; vapour pressure estimated by integrating Clausius–Clapeyron from Tb = ${TbK.toFixed(2)} K ` +
+          `with ΔHvap(Tb) = ${(dHb / 1000).toFixed(1)} kJ/mol (${given ? 'tabulated' : "estimated by Kistiakowsky's rule"}) ` +
+          `varying with T by Watson's relation (Tc ≈ 1.5 Tb by Guldberg's rule); an estimate: expect up to a factor of 2 at 25 °C.`,
       ],
     };
   }
   throw new EngineError(
     'no-vapour-pressure-data',
-    'No Antoine constants and no normal boiling point with enthalpy of vaporisation: vapour pressure cannot be computed.',
+    'No vapour-pressure correlation, no Antoine constants and no normal boiling point: vapour pressure cannot be computed.',
     { T_K },
   );
 }
@@ -145,35 +320,85 @@ export function vapourPressureWithSlope(
  *
  * Purpose: P^sat(T) for VLE, evaporation and drying models.
  *
- * Formula: inside a set's range, log10(P/bar) = A − B/(θ + C) (θ in °C or K by
- * the set's `form`). Sets are tried in order; the first whose [TminK, TmaxK]
- * covers T is used. Outside every range, Clausius–Clapeyron with constant
- * ΔHvap from the nearest range end,
- *   ln P = ln P_end − (ΔH/R)(1/T − 1/T_end),  ΔH = R T_end² (d ln P/dT)_end,
- * so P and its slope are continuous at the range end. With no set at all,
- * the same equation from the normal boiling point (P = 101 325 Pa at Tb) with
- * the given ΔHvap.
+ * Source: Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8 (DIPPR
+ * 101) and the VDI Heat Atlas PPDS Wagner set for the wide-range
+ * correlations; Antoine constants as published (Poling et al. 5th ed., NIST
+ * WebBook, Landolt-Börnstein); Clausius–Clapeyron (any physical-chemistry
+ * text); Kistiakowsky's rule for ΔSvb.
  *
- * @param sets      Antoine sets, in order of preference (may be empty)
- * @param T_K       temperature [K], > 0
- * @param fallback  TbK: normal boiling point [K]; dHvapJmol: enthalpy of vaporisation at Tb [J/mol]
+ * Formula, in order of preference:
+ *  1. a wide-range correlation (extra.correlation) inside [Tmin, Tc];
+ *  2. the first Antoine set inside its range, log10(P/bar) = A − B/(θ + C);
+ *     outside it, when the normal boiling point lies beyond the range end on
+ *     the same side, a Kirchhoff equation ln P = a + b/T + c ln T matching
+ *     the Antoine value and slope at the range end and P = 101 325 Pa at Tb
+ *     (continuous value and slope; exact at Tb), and beyond Tb
+ *     Clausius–Clapeyron from Tb with ΔH(T) by Watson's relation; otherwise constant-ΔH
+ *     Clausius–Clapeyron from the range end, ΔH = R T_end² (d ln P/dT)_end;
+ *  3. with no set, Clausius–Clapeyron integrated from Tb with ΔHvap(Tb)
+ *     tabulated or from Kistiakowsky's rule, varying with T by Watson's
+ *     relation with Tc ≈ 1.5 Tb (Guldberg's rule): an estimate, up to a
+ *     factor of 2 at 25 °C.
+ * Only the first Antoine set is evaluated, so there is no jump where sets
+ * would hand over; further sets are kept as data for cross-checks.
+ *
+ * @param sets   Antoine sets, in order of preference (may be empty)
+ * @param T_K    temperature [K], > 0
+ * @param extra  correlation (wide-range, T in K, P in Pa); TbK: normal boiling point [K]; dHvapJmol: ΔHvap at Tb [J/mol]
  * @returns pressurePa [Pa], the method, the source of the constants, warnings
  *
- * Validity: the Antoine ranges; extrapolation is reasonable for some tens of
- * kelvin (constant ΔHvap overestimates P^sat far above the range). Errors:
- * EngineError 'invalid-input' for T ≤ 0 or non-finite; 'no-vapour-pressure-data'
- * when there is nothing to compute from.
+ * Validity: the correlations from the triple point to the critical point
+ * (Perry states the Table 2-8 values as within 1–5 % for most liquids —
+ * figure recalled); an Antoine set inside its range; the anchored extension
+ * is exact at Tb and good to a few per cent within some tens of kelvin of it.
+ * Errors: EngineError 'invalid-input' for T ≤ 0 or non-finite;
+ * 'no-vapour-pressure-data' when there is nothing to compute from.
  *
- * Example: water (Poling 5e, A 5.11564, B 1687.537, C 230.17, °C form) at
- * 373.15 K → ≈ 1.01e5 Pa, method 'antoine'.
+ * Example: water (Perry Table 2-8) at 373.15 K → ≈ 1.013e5 Pa, method 'dippr101'.
  */
 export function vapourPressure(
   sets: readonly AntoineSet[],
   T_K: number,
-  fallback?: { TbK: number; dHvapJmol: number },
+  extra?: VapourPressureExtra,
 ): VapourPressureResult {
-  const { pressurePa, method, source, warnings } = vapourPressureWithSlope(sets, T_K, fallback);
+  const { pressurePa, method, source, warnings } = vapourPressureWithSlope(sets, T_K, extra);
   return { pressurePa, method, source, warnings };
+}
+
+/**
+ * Temperature at which a pure liquid's vapour pressure equals P (its boiling
+ * point at P), by Brent's method (numerics/roots.ts) on ln P^sat(T) − ln P
+ * with the same vapour-pressure rules as {@link vapourPressure}.
+ *
+ * @param sets   Antoine sets, in order of preference (may be empty)
+ * @param P_Pa   pressure [Pa], > 0
+ * @param extra  as vapourPressure
+ * @returns T_K [K], converged flag
+ *
+ * Validity: as vapourPressure; between 20 K and 2000 K.
+ */
+export function saturationTemperature(
+  sets: readonly AntoineSet[],
+  P_Pa: number,
+  extra?: VapourPressureExtra,
+): { T_K: number; converged: boolean } {
+  if (!Number.isFinite(P_Pa) || P_Pa <= 0) {
+    throw new EngineError(
+      'invalid-input',
+      `Pressure must be a finite number of pascal above 0; got ${P_Pa}.`,
+      { P_Pa },
+    );
+  }
+  const lnTarget = Math.log(P_Pa);
+  const f = (T: number) => Math.log(vapourPressureWithSlope(sets, T, extra).pressurePa) - lnTarget;
+  const start = extra?.TbK ?? 350;
+  const r = findRoot(f, start * 0.95, start * 1.05, {
+    lower: 20,
+    upper: 2000,
+    xtol: 1e-9,
+    rtol: 0,
+  });
+  return { T_K: r.root, converged: r.converged };
 }
 
 /**
@@ -197,4 +422,28 @@ export function antoineTemperature(set: AntoineSet, P_Pa: number): number {
   }
   const theta = set.B / (set.A - Math.log10(P_Pa / PA_PER_BAR)) - set.C;
   return set.form === 'log10-bar-degC' ? theta + T0_K : theta;
+}
+
+/**
+ * The vapour-pressure data of a library solvent in the form the functions
+ * above take: its Antoine sets, and its wide-range correlation, CRC normal
+ * boiling point and ΔHvap at Tb.
+ *
+ * @param s  solvent record (data/solvents)
+ * @returns sets and extra for vapourPressure(sets, T, extra)
+ *
+ * Source and validity: those of the record's values (data/sources.ts).
+ */
+export function solventVapourPressureData(s: SolventRecord): {
+  sets: readonly AntoineSet[];
+  extra: VapourPressureExtra;
+} {
+  return {
+    sets: s.antoine,
+    extra: {
+      correlation: s.vapourPressure,
+      TbK: s.boilingPointC.value + T0_K,
+      dHvapJmol: s.enthalpyVapKJmol ? s.enthalpyVapKJmol.value * 1000 : undefined,
+    },
+  };
 }

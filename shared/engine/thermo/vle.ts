@@ -20,9 +20,14 @@
  * phases.
  */
 import { EngineError } from '../errors';
-import type { AntoineSet, UnifacGroups } from '../data/types';
-import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA, T0_K, PA_PER_BAR } from '../units';
-import { antoineTemperature, vapourPressureWithSlope } from './antoine';
+import type { AntoineSet, Sourced, UnifacGroups, VapourPressureCorrelation } from '../data/types';
+import { T0_K, PA_PER_BAR } from '../units';
+import {
+  correlationLnPressure,
+  saturationTemperature as pureBoilingPoint,
+  vapourPressureWithSlope,
+  type VapourPressureExtra,
+} from './antoine';
 import { checkComposition, createUnifac, type UnifacModel } from './unifac';
 import { brent, findRoot, newtonSafe } from '../numerics';
 
@@ -31,8 +36,10 @@ const LN_PA_PER_BAR = Math.log(PA_PER_BAR);
 
 export interface VleComponent {
   name?: string;
-  /** Antoine sets in order of preference (may be empty if TbK and dHvapJmol are given, or nonVolatile). */
+  /** Antoine sets in order of preference (may be empty if a correlation or TbK is given, or nonVolatile). */
   antoine: readonly AntoineSet[];
+  /** Wide-range vapour-pressure correlation (preferred over Antoine when present). */
+  vapourPressure?: Sourced<VapourPressureCorrelation>;
   unifac: UnifacGroups;
   /** Normal boiling point [K], for Clausius–Clapeyron when there is no Antoine set. */
   TbK?: number;
@@ -63,10 +70,8 @@ function componentLabel(sys: VleSystem, i: number): string {
   return sys.components[i].name ?? `component ${i + 1}`;
 }
 
-function fallbackOf(c: VleComponent): { TbK: number; dHvapJmol: number } | undefined {
-  return c.TbK !== undefined && c.dHvapJmol !== undefined
-    ? { TbK: c.TbK, dHvapJmol: c.dHvapJmol }
-    : undefined;
+function fallbackOf(c: VleComponent): VapourPressureExtra {
+  return { correlation: c.vapourPressure, TbK: c.TbK, dHvapJmol: c.dHvapJmol };
 }
 
 /**
@@ -90,13 +95,21 @@ function saturationPressures(
       continue;
     }
     let done = false;
-    for (const set of c.antoine) {
+    const corr = c.vapourPressure?.value;
+    if (corr) {
+      if (T_K >= corr.TminK && T_K <= corr.TmaxK) {
+        const r = correlationLnPressure(corr, T_K);
+        lnP[i] = r.lnP;
+        slope[i] = r.dlnPdT;
+        done = true;
+      }
+    } else if (c.antoine.length > 0) {
+      const set = c.antoine[0];
       if (T_K >= set.TminK && T_K <= set.TmaxK) {
         const denom = (set.form === 'log10-bar-degC' ? T_K - T0_K : T_K) + set.C;
         lnP[i] = (set.A - set.B / denom) * LN10 + LN_PA_PER_BAR;
         slope[i] = (LN10 * set.B) / (denom * denom);
         done = true;
-        break;
       }
     }
     if (!done) {
@@ -118,18 +131,25 @@ function saturationWarnings(sys: VleSystem, T_K: number, involved: ArrayLike<num
   return warnings;
 }
 
-/** Saturation temperature of one component at P [K], for starting guesses. */
-function saturationTemperature(c: VleComponent, P_Pa: number): number {
-  if (c.antoine.length > 0) {
-    const T = antoineTemperature(c.antoine[0], P_Pa);
-    if (Number.isFinite(T) && T > 0) return T;
+const boilingPointMemo = new WeakMap<VleComponent, Map<number, number>>();
+
+/** Saturation temperature of one component at P [K], for starting guesses (memoised per component and P). */
+function saturationTemperatureGuess(c: VleComponent, P_Pa: number): number {
+  let memo = boilingPointMemo.get(c);
+  if (!memo) {
+    memo = new Map();
+    boilingPointMemo.set(c, memo);
   }
-  if (c.TbK && c.dHvapJmol) {
-    return (
-      1 / (1 / c.TbK - (R_J_PER_MOL_K * Math.log(P_Pa / STANDARD_ATMOSPHERE_PA)) / c.dHvapJmol)
-    );
+  const known = memo.get(P_Pa);
+  if (known !== undefined) return known;
+  let T = 350;
+  if (c.vapourPressure || c.antoine.length > 0 || c.TbK) {
+    const r = pureBoilingPoint(c.antoine, P_Pa, fallbackOf(c));
+    if (Number.isFinite(r.T_K) && r.T_K > 0) T = r.T_K;
   }
-  return 350;
+  if (memo.size > 64) memo.clear();
+  memo.set(P_Pa, T);
+  return T;
 }
 
 function checkPressure(P_Pa: number): void {
@@ -223,7 +243,7 @@ export function bubblePoint(
     T = 0;
     for (let i = 0; i < n; i++) {
       if (sys.components[i].nonVolatile || xs[i] === 0) continue;
-      T += xs[i] * saturationTemperature(sys.components[i], P_Pa);
+      T += xs[i] * saturationTemperatureGuess(sys.components[i], P_Pa);
       sumX += xs[i];
     }
     T /= sumX;
@@ -347,7 +367,7 @@ export function dewPoint(
   const xs = new Float64Array(n);
   let T = 0;
   for (let i = 0; i < n; i++)
-    if (ys[i] > 0) T += ys[i] * saturationTemperature(sys.components[i], P_Pa);
+    if (ys[i] > 0) T += ys[i] * saturationTemperatureGuess(sys.components[i], P_Pa);
   // Starting liquid: ideal (γ = 1) at the starting T.
   const liquidAt = (temperature: number): number => {
     saturationPressures(sys, temperature, lnP, slope);

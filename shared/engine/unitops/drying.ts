@@ -18,7 +18,7 @@
  */
 import type { ParamsOf, RouteStep } from '../document';
 import { RANGES } from '../document';
-import { vapourPressure } from '../thermo/antoine';
+import { solventVapourPressureData, vapourPressure } from '../thermo/antoine';
 import type { EvalContext } from '../route/context';
 import { commonCautions, cToK, emptyStream, finishStream, method, warn } from '../route/context';
 import type { EngineWarning, StepOutput, Stream } from '../route/types';
@@ -131,13 +131,8 @@ export function drying(
   const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && wet.kg[id] > 0);
   const psat: number[] = vol.map((id) => {
     const s = ctx.comps.get(id)!.solvent!;
-    const r = vapourPressure(
-      s.antoine,
-      T,
-      s.enthalpyVapKJmol
-        ? { TbK: s.boilingPointC.value + 273.15, dHvapJmol: s.enthalpyVapKJmol.value * 1000 }
-        : undefined,
-    );
+    const vp = solventVapourPressureData(s);
+    const r = vapourPressure(vp.sets, T, vp.extra);
     for (const w of r.warnings) warn(W, 'info', 'vapour-pressure', `${s.name}: ${w}`);
     return r.pressurePa;
   });

@@ -49,6 +49,7 @@ export function solventVle(ctx: EvalContext, ids: string[]): SolventVle {
       return {
         name: s.name,
         antoine: s.antoine,
+        vapourPressure: s.vapourPressure,
         unifac: s.unifac.value,
         TbK: s.boilingPointC.value + 273.15,
         dHvapJmol: s.enthalpyVapKJmol ? s.enthalpyVapKJmol.value * 1000 : undefined,

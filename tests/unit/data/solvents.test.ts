@@ -153,6 +153,7 @@ describe('provenance', () => {
         n +
         13 +
         s.antoine.length +
+        (s.vapourPressure ? 1 : 0) +
         (s.enthalpyVapKJmol ? 1 : 0) +
         (s.waterMutualSolubility ? 1 : 0) +
         (s.dielectricConstant ? 1 : 0),

@@ -1,0 +1,205 @@
+/**
+ * Vapour pressure over the whole range a route can reach, for every solvent
+ * of the library.
+ *
+ * 1. Normal boiling point: the temperature at which the engine's vapour
+ *    pressure is 101.325 kPa, against the record's CRC Handbook value
+ *    ("Physical Constants of Organic Compounds", via CalebBell/chemicals
+ *    chemicals/Misc/Physical Constants of Organic Compounds.csv; water from the
+ *    inorganic table), within 0.5 K. Four solvents are named exceptions where
+ *    the wide-range correlation (Perry 8e Table 2-8) and the CRC value differ
+ *    by 0.5–1.2 K; for each, the note names the independent source that sides
+ *    with one or the other. Twice per solvent: tight against this
+ *    implementation's own value (regression, 0.01 K), loose against CRC.
+ * 2. At 25 °C: against an independent published Antoine set whose fitted range
+ *    covers 25 °C (Poling 5e App. A, NIST WebBook or Landolt-Börnstein IV/20,
+ *    as stored in the library), within 3 % (Perry gives the Table 2-8 values as
+ *    accurate to 1–5 % for most liquids — recalled), and tight against our own
+ *    value (regression, 1e-4 relative).
+ * 3. Continuity from 200 K (or the triple point) to the critical point: no jump
+ *    in ln P or in its slope anywhere, including where methanol's and
+ *    ethanol's former Antoine sets handed over.
+ * 4. Outside former fitted ranges: DMF, DMAc, 1,4-dioxane and DMSO at 25 °C and
+ *    at their normal boiling points.
+ */
+import { describe, expect, it } from 'vitest';
+import { SOLVENTS, solventById } from '@shared/engine/data';
+import {
+  antoineLnPressure,
+  saturationTemperature,
+  solventVapourPressureData,
+  vapourPressure,
+  vapourPressureWithSlope,
+} from '@shared/engine/thermo/antoine';
+
+/** [id, engine Tb / K, engine P(25 °C) / Pa] — this implementation's own values (regression). */
+const OWN: Array<[string, number, number]> = [
+  ['water', 373.168, 3170.4],
+  ['methanol', 337.685, 16826],
+  ['ethanol', 351.46, 7924.1],
+  ['1-propanol', 370.34, 2808.5],
+  ['2-propanol', 354.764, 6027.0],
+  ['1-butanol', 390.758, 902.39],
+  ['2-butanol', 372.698, 2437.9],
+  ['isobutanol', 381.004, 1392.7],
+  ['tert-butanol', 355.62, 5583.2],
+  ['1-octanol', 467.057, 11.139],
+  ['ethyl-acetate', 350.353, 12426],
+  ['isopropyl-acetate', 362.051, 8045.8],
+  ['n-butyl-acetate', 399.165, 1492.7],
+  ['acetone', 329.287, 30752],
+  ['2-butanone', 352.492, 12314],
+  ['mibk', 389.293, 2651.1],
+  ['thf', 339.124, 21541],
+  ['2-methyltetrahydrofuran', 353.37, 12843],
+  ['mtbe', 328.186, 33321],
+  ['cpme', 379.15, 4952.8],
+  ['diethyl-ether', 307.544, 71732],
+  ['diisopropyl-ether', 341.609, 19827],
+  ['1-4-dioxane', 374.521, 5093.9],
+  ['dme', 357.953, 9963.1],
+  ['anisole', 426.98, 482.96],
+  ['n-heptane', 371.549, 6066.1],
+  ['n-hexane', 341.884, 20266],
+  ['cyclohexane', 353.932, 13044],
+  ['methylcyclohexane', 373.876, 6138.7],
+  ['toluene', 383.829, 3803.9],
+  ['o-xylene', 417.443, 886.18],
+  ['dichloromethane', 312.814, 58411],
+  ['chloroform', 334.249, 26165],
+  ['chlorobenzene', 405.112, 1585.8],
+  ['acetonitrile', 354.63, 12147],
+  ['dmf', 424.921, 542.29],
+  ['dmac', 439.05, 547.87],
+  ['nmp', 477.35, 73.83],
+  ['dmso', 463.893, 80.192],
+  ['acetic-acid', 391.158, 2079.2],
+  ['pyridine', 388.39, 2767.1],
+];
+
+/** CRC–correlation differences above 0.5 K, with the bound they are held to and why. */
+const TB_EXCEPTIONS: Record<string, { bound: number; why: string }> = {
+  '2-propanol': {
+    bound: 0.7,
+    why: 'Perry Table 2-8 gives 81.6 °C; CRC 82.21 °C; the Poling 5e Antoine set gives 82.27 °C (sides with CRC)',
+  },
+  '1-octanol': {
+    bound: 0.9,
+    why: 'Perry Table 2-8 gives 194.3 °C against CRC 195.1 °C; no second wide-range set read',
+  },
+  dmf: {
+    bound: 1.1,
+    why: 'Perry Table 2-8 gives 151.8 °C; CRC 152.8 °C, Yaws 153.0 °C; the NIST WebBook set (303–363 K) extrapolates to 150.3 °C',
+  },
+  dmso: {
+    bound: 1.2,
+    why: 'Perry Table 2-8 gives 190.7 °C; CRC file 191.9 °C; the NIST WebBook set (325–442 K) gives 190.7 °C (sides with Perry)',
+  },
+};
+
+describe('normal boiling point of every library solvent against the CRC Handbook', () => {
+  it('the table of own values covers the whole library', () => {
+    expect(OWN.map((r) => r[0]).sort()).toEqual(SOLVENTS.map((s) => s.id).sort());
+  });
+  for (const [id, ownTb] of OWN) {
+    const s = solventById(id)!;
+    const crc = s.boilingPointC.value + 273.15;
+    const exception = TB_EXCEPTIONS[id];
+    it(`${s.name}: Tb within ${exception ? exception.bound : 0.5} K of ${s.boilingPointC.value} °C (${s.boilingPointC.source.ref}, ${s.boilingPointC.source.status})`, () => {
+      const { sets, extra } = solventVapourPressureData(s);
+      const r = saturationTemperature(sets, 101325, extra);
+      expect(r.converged).toBe(true);
+      expect(r.T_K).toBeCloseTo(ownTb, 2);
+      expect(Math.abs(r.T_K - crc)).toBeLessThanOrEqual(exception ? exception.bound : 0.5);
+    });
+  }
+});
+
+describe('vapour pressure at 25 °C against an independent published Antoine set', () => {
+  for (const [id, , ownP25] of OWN) {
+    const s = solventById(id)!;
+    const { sets, extra } = solventVapourPressureData(s);
+    const p = vapourPressure(sets, 298.15, extra);
+    it(`${s.name}: own value ${ownP25} Pa (regression)`, () => {
+      expect(Math.abs(p.pressurePa / ownP25 - 1)).toBeLessThan(1e-4);
+    });
+    const independent = s.antoine.find(
+      (a) => 298.15 >= a.TminK && 298.15 <= a.TmaxK && a.source.ref !== p.source.ref,
+    );
+    if (independent) {
+      it(`${s.name}: within 3 % of ${independent.source.ref} at 25 °C`, () => {
+        const ref = Math.exp(antoineLnPressure(independent, 298.15).lnP);
+        expect(Math.abs(p.pressurePa / ref - 1)).toBeLessThan(0.03);
+      });
+    }
+  }
+  it('water at 25 °C: 3.1699 kPa (IAPWS-95, Wagner & Pruß, J. Phys. Chem. Ref. Data 2002, 31, 387 — value recalled) within 0.5 %', () => {
+    const { sets, extra } = solventVapourPressureData(solventById('water')!);
+    expect(Math.abs(vapourPressure(sets, 298.15, extra).pressurePa / 3169.9 - 1)).toBeLessThan(
+      0.005,
+    );
+  });
+});
+
+describe('continuity over the whole liquid range', () => {
+  for (const s of SOLVENTS) {
+    it(`${s.name}: no jump in ln P or its slope from 200 K to the critical point (1.4 Tb without a correlation)`, () => {
+      const { sets, extra } = solventVapourPressureData(s);
+      // Without a correlation the critical point is not known: scan to 1.4 Tb (Tc ≈ 1.5 Tb, Guldberg).
+      const Tmax = extra.correlation ? extra.correlation.value.TmaxK - 0.5 : 1.4 * extra.TbK!;
+      const h = 0.05;
+      let prev = vapourPressureWithSlope(sets, 200, extra);
+      for (let T = 200 + h; T < Tmax; T += h) {
+        const cur = vapourPressureWithSlope(sets, T, extra);
+        const step = Math.log(cur.pressurePa / prev.pressurePa);
+        // The step in ln P over 0.05 K matches the slope (trapezoid) to 1e-3 of itself: no jump anywhere.
+        expect(Math.abs(step - 0.5 * h * (cur.dlnPdT + prev.dlnPdT))).toBeLessThan(
+          1e-3 * Math.abs(step) + 1e-7,
+        );
+        // The slope itself changes by less than 2 % over 0.05 K: no kink.
+        expect(Math.abs(cur.dlnPdT / prev.dlnPdT - 1)).toBeLessThan(0.02);
+        prev = cur;
+      }
+    });
+  }
+});
+
+describe('outside the formerly fitted ranges', () => {
+  const at = (id: string, T: number) => {
+    const { sets, extra } = solventVapourPressureData(solventById(id)!);
+    return vapourPressure(sets, T, extra);
+  };
+  it('DMF, 1,4-dioxane and DMSO use Perry Table 2-8 at 25 °C and at Tb (no extrapolation)', () => {
+    for (const id of ['dmf', '1-4-dioxane', 'dmso']) {
+      const tb = solventById(id)!.boilingPointC.value + 273.15;
+      expect(at(id, 298.15).method).toBe('dippr101');
+      expect(at(id, tb).method).toBe('dippr101');
+      expect(at(id, 298.15).warnings).toEqual([]);
+    }
+  });
+  it('1,4-dioxane at 25 °C: 4.95 kPa (37.1 mmHg, value recalled from the handbook tables) within 5 %', () => {
+    expect(Math.abs(at('1-4-dioxane', 298.15).pressurePa / 4950 - 1)).toBeLessThan(0.05);
+  });
+  it('DMAc (Landolt set 303–363 K) reaches 1 atm at its CRC Tb through the anchored extension', () => {
+    const tb = solventById('dmac')!.boilingPointC.value + 273.15;
+    const p = at('dmac', tb);
+    expect(p.method).toBe('antoine-anchored');
+    expect(p.pressurePa).toBeCloseTo(101325, 3);
+    expect(p.warnings[0]).toMatch(/joined smoothly to the normal boiling point/);
+  });
+  it('NMP and CPME have an estimated vapour pressure with a warning that says so', () => {
+    for (const id of ['nmp', 'cpme']) {
+      const p = at(id, 298.15);
+      expect(p.method).toBe('clausius-clapeyron');
+      expect(p.source.status).toBe('estimated');
+      expect(p.warnings[0]).toMatch(/estimate/);
+    }
+    // NMP at 25 °C: published values are near 0.04–0.05 kPa (recalled); the estimate is within a factor of 2.
+    const nmp = at('nmp', 298.15).pressurePa;
+    expect(nmp).toBeGreaterThan(20);
+    expect(nmp).toBeLessThan(100);
+  });
+  it('above the critical point the extension warns that there is no liquid', () => {
+    expect(at('acetone', 520).warnings[0]).toMatch(/above the critical temperature/);
+  });
+});
