@@ -15,6 +15,7 @@ import { csrfProtection } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { API_PREFIX, buildOpenApiDocument } from './openapi';
 import { accountRouter } from './routes/account';
+import { auditRouter } from './routes/audit';
 import { calcRouter } from './routes/calc';
 import { compoundsRouter } from './routes/compounds';
 import { evaluateRouter, ROUTE_JSON_BODY_LIMIT } from './routes/evaluate';
@@ -132,6 +133,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(evaluateRouter());
   api.use(jobsRouter());
   api.use(routesRouter());
+  api.use(auditRouter());
   api.get('/openapi.json', (_req, res) => {
     res.json(buildOpenApiDocument());
   });

@@ -20,7 +20,11 @@ const envSchema = z
     HOST: z.string().default('127.0.0.1'),
     PORT: z.coerce.number().int().min(0).max(65535).default(3000),
     APP_URL: z.url().optional(),
-    DATABASE_URL: z.string().min(1).default('postgres://postgres@127.0.0.1:54329/phasewright'),
+    DATABASE_URL: z
+      .string()
+      .min(1)
+      .default('postgres://phasewright_app@127.0.0.1:54329/phasewright'),
+    DATABASE_OWNER_URL: z.string().optional(),
     SESSION_SECRET: z
       .string()
       .min(16, { message: 'SESSION_SECRET must be at least 16 characters.' })
@@ -64,7 +68,10 @@ export interface AppConfig {
   port: number;
   /** Public address of the app; links in e-mails point here. */
   appUrl: string;
+  /** The server's own role: reads and writes data, owns nothing. */
   databaseUrl: string;
+  /** The role that owns the schema and runs migrations; the server role when unset. */
+  databaseOwnerUrl: string;
   sessionSecret: string;
   sessionIdleMinutes: number;
   trustProxy: boolean | number | string;
@@ -102,6 +109,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     port: e.PORT,
     appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/+$/, ''),
     databaseUrl: e.DATABASE_URL,
+    databaseOwnerUrl: e.DATABASE_OWNER_URL ? e.DATABASE_OWNER_URL : e.DATABASE_URL,
     sessionSecret: e.SESSION_SECRET ?? DEV_SESSION_SECRET,
     sessionIdleMinutes: e.SESSION_IDLE_MINUTES,
     trustProxy: e.TRUST_PROXY,

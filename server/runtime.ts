@@ -2,7 +2,13 @@ import type { Sequelize } from 'sequelize';
 import type { AppConfig } from './config';
 import { closeDatabase, connectDatabase } from './db/sequelize';
 import { runMigrations, runSeeders } from './db/migrator';
-import { startJobQueue, stopJobQueue } from './services/jobs';
+import {
+  describeConnectedRole,
+  grantServerRole,
+  openRoleConnection,
+  roleWarning,
+} from './db/roles';
+import { prepareJobQueue, startJobQueue, stopJobQueue } from './services/jobs';
 import type { MailSettings } from './services/mail';
 import { startSmtpFake, type SmtpFake } from './services/smtp-fake';
 import { startWorkers } from './services/workers';
@@ -22,8 +28,19 @@ export interface Runtime {
  */
 export async function startRuntime(config: AppConfig): Promise<Runtime> {
   const sequelize = connectDatabase(config.databaseUrl);
-  await runMigrations(sequelize);
-  const seeded = config.seedDemo ? await runSeeders(sequelize, config.env) : [];
+  // Schema work runs as the owner; the server itself connects as a role that owns nothing.
+  const owner = openRoleConnection(config.databaseOwnerUrl);
+  let seeded: string[] = [];
+  try {
+    await runMigrations(owner);
+    await prepareJobQueue(config.databaseOwnerUrl);
+    await grantServerRole(owner, config.databaseUrl);
+    if (config.seedDemo) seeded = await runSeeders(owner, config.env);
+  } finally {
+    await owner.close();
+  }
+  const warning = roleWarning(await describeConnectedRole(sequelize));
+  if (warning && config.env !== 'test') console.warn(`[database] ${warning}`);
   const smtpFake = config.smtpUrl ? null : await startSmtpFake(config.smtpFakePort);
   const mail: MailSettings = {
     smtpUrl: config.smtpUrl ?? smtpFake!.url,

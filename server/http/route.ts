@@ -15,6 +15,8 @@ type ZodObjectAny = z.ZodObject<z.ZodRawShape>;
 export interface Reply {
   status: number;
   body?: unknown;
+  /** A download instead of JSON (CSV exports). */
+  file?: { contentType: string; filename: string; content: string };
 }
 
 interface HandlerContext<P, Q, B, Authed extends boolean> {
@@ -137,7 +139,13 @@ export function defineRoute<
     };
     const reply =
       spec.transaction === false ? await run(null) : await database().transaction((t) => run(t));
-    if (reply.body === undefined) res.status(reply.status).end();
+    if (reply.file)
+      res
+        .status(reply.status)
+        .type(reply.file.contentType)
+        .attachment(reply.file.filename)
+        .send(reply.file.content);
+    else if (reply.body === undefined) res.status(reply.status).end();
     else res.status(reply.status).json(reply.body);
   };
   router[spec.method](expressPath, ...(spec.before ?? []), handler);

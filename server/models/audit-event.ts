@@ -5,6 +5,7 @@ import {
   type ForeignKey,
   type InferAttributes,
   type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from 'sequelize';
 import type { User } from './user';
@@ -12,7 +13,10 @@ import type { Workspace } from './workspace';
 
 /**
  * One entry of the audit trail. Append-only: a database trigger refuses
- * UPDATE and DELETE, so not even a bug in the server can rewrite history.
+ * UPDATE and DELETE, and the server's database role is granted only INSERT
+ * and SELECT. Another trigger sets the time, the chain (workspace id, or
+ * "account"), the position in it and the hashes; values sent for those
+ * columns are overwritten.
  */
 export class AuditEvent extends Model<
   InferAttributes<AuditEvent>,
@@ -27,6 +31,11 @@ export class AuditEvent extends Model<
   declare before: unknown;
   declare after: unknown;
   declare at: CreationOptional<Date>;
+  declare chain: CreationOptional<string>;
+  declare position: CreationOptional<string>;
+  declare prevHash: CreationOptional<string>;
+  declare hash: CreationOptional<string>;
+  declare actor?: NonAttribute<User | null>;
 
   static initModel(sequelize: Sequelize) {
     AuditEvent.init(
@@ -37,7 +46,12 @@ export class AuditEvent extends Model<
         entityId: { type: DataTypes.STRING(80), allowNull: true },
         before: { type: DataTypes.JSONB, allowNull: true },
         after: { type: DataTypes.JSONB, allowNull: true },
-        at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+        // Set by the database trigger; never sent by the server.
+        at: { type: DataTypes.DATE, allowNull: true },
+        chain: { type: DataTypes.TEXT, allowNull: true },
+        position: { type: DataTypes.BIGINT, allowNull: true },
+        prevHash: { type: DataTypes.CHAR(64), allowNull: true },
+        hash: { type: DataTypes.CHAR(64), allowNull: true },
       },
       { sequelize, tableName: 'audit_events', underscored: true, timestamps: false },
     );

@@ -18,6 +18,7 @@ import type { Abilities } from '@shared/schemas/session';
 import type { Exactly } from '@shared/schemas/exact';
 import { forbidden, notFound } from '../errors';
 import { accountRules } from './account';
+import { auditRules } from './audit';
 import { compoundRules } from './compound';
 import { outboxRules } from './outbox';
 import { routeRules } from './route';
@@ -34,6 +35,7 @@ export const rules = {
   ...outboxRules,
   ...routeRules,
   ...compoundRules,
+  ...auditRules,
 } as const;
 
 type Rules = typeof rules;

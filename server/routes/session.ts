@@ -8,6 +8,7 @@ import { newCsrfToken } from '../middleware/csrf';
 import { limitRequests } from '../middleware/rate-limit';
 import { presentSession } from '../presenters';
 import { loadActor } from '../services/actors';
+import { recordSignOut } from '../services/sign-in';
 
 export function sessionRouter(config: AppConfig): Router {
   const router = Router();
@@ -70,10 +71,11 @@ export function sessionRouter(config: AppConfig): Router {
     auth: true,
     transaction: false,
     responses: { 204: { description: 'Signed out.' } },
-    handle: async ({ req, res }) => {
+    handle: async ({ req, res, actor }) => {
       if (req.authMethod === 'session') {
         await logOut(req);
         res.clearCookie(SESSION_COOKIE);
+        await recordSignOut(actor.userId);
       }
       return { status: 204 };
     },

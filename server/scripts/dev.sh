@@ -12,7 +12,7 @@ if [ -z "${DATABASE_URL:-}" ]; then
   PGPORT=${PGPORT:-54329}
   pg_up pg "$PGPORT"
   pg_createdb "$PGPORT" phasewright
-  export DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/phasewright"
+  database_urls "$PGPORT" phasewright
 fi
 export PHASEWRIGHT_SEED_DEMO=${PHASEWRIGHT_SEED_DEMO:-1}
 export APP_URL=${APP_URL:-http://127.0.0.1:5173}

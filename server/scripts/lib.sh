@@ -113,10 +113,27 @@ pg_down() {
   fi
 }
 
-# pg_createdb PORT NAME: create the database if it does not exist.
+# The owner role (schema, migrations) and the server's own role (owns nothing).
+APP_DB_ROLE=phasewright_app
+OWNER_DB_ROLE=phasewright_owner
+
+# pg_createdb PORT NAME: create the two roles and the database (owned by the
+# owner role) if they do not exist; a database made before the roles existed
+# is handed to the owner role.
 pg_createdb() {
   local port=$1 db=$2
-  if ! "$PGBIN/psql" -h 127.0.0.1 -p "$port" -U postgres -tAc "select 1 from pg_database where datname='$db'" postgres | grep -q 1; then
-    "$PGBIN/createdb" -h 127.0.0.1 -p "$port" -U postgres "$db" || die "createdb $db failed"
+  local psql=("$PGBIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$port" -U postgres)
+  "${psql[@]}" -f "$PROJECT_ROOT/server/scripts/roles.sql" postgres >/dev/null || die "creating the database roles failed"
+  if ! "${psql[@]}" -tAc "select 1 from pg_database where datname='$db'" postgres | grep -q 1; then
+    "$PGBIN/createdb" -h 127.0.0.1 -p "$port" -U postgres -O "$OWNER_DB_ROLE" "$db" || die "createdb $db failed"
   fi
+  "${psql[@]}" -c "ALTER DATABASE \"$db\" OWNER TO $OWNER_DB_ROLE" postgres >/dev/null || die "ALTER DATABASE $db failed"
+  "${psql[@]}" -f "$PROJECT_ROOT/server/scripts/database-owner.sql" "$db" >/dev/null || die "handing $db to $OWNER_DB_ROLE failed"
+}
+
+# database_urls PORT NAME: export the server's and the owner's connection URLs.
+database_urls() {
+  local port=$1 db=$2
+  export DATABASE_URL="postgres://$APP_DB_ROLE@127.0.0.1:$port/$db"
+  export DATABASE_OWNER_URL="postgres://$OWNER_DB_ROLE@127.0.0.1:$port/$db"
 }

@@ -7,9 +7,39 @@ import type { Transaction } from 'sequelize';
  * Register a queue name in QUEUES, send with `enqueue()`, and add its worker
  * in startWorkers() (server/services/workers.ts).
  */
-export const QUEUES = { mailSend: 'mail.send' } as const;
+export const QUEUES = { mailSend: 'mail.send', monteCarlo: 'evaluation.monte-carlo' } as const;
+
+/** Settings a queue is created with (pg-boss defaults otherwise). */
+const QUEUE_SETTINGS: Partial<Record<keyof typeof QUEUES, Omit<PgBoss.Queue, 'name'>>> = {
+  monteCarlo: { retryLimit: 1, expireInSeconds: 30 * 60 },
+};
 
 let boss: PgBoss | null = null;
+
+/**
+ * Creates or upgrades the queue's schema and its queues (pg-boss makes a
+ * table per queue), as the schema owner: the server's own role may not
+ * create tables.
+ */
+export async function prepareJobQueue(ownerDatabaseUrl: string): Promise<void> {
+  const instance = new PgBoss({
+    connectionString: ownerDatabaseUrl,
+    max: 1,
+    application_name: 'phasewright-jobs-setup',
+    supervise: false,
+    schedule: false,
+  });
+  instance.on('error', (error) => console.error('[jobs]', error));
+  await instance.start();
+  try {
+    for (const [key, name] of Object.entries(QUEUES)) {
+      const settings = QUEUE_SETTINGS[key as keyof typeof QUEUES] ?? {};
+      if (!(await instance.getQueue(name))) await instance.createQueue(name, { name, ...settings });
+    }
+  } finally {
+    await instance.stop({ graceful: false, wait: true });
+  }
+}
 
 export async function startJobQueue(databaseUrl: string): Promise<PgBoss> {
   if (boss) return boss;
@@ -17,10 +47,11 @@ export async function startJobQueue(databaseUrl: string): Promise<PgBoss> {
     connectionString: databaseUrl,
     max: 4,
     application_name: 'phasewright-jobs',
+    // prepareJobQueue() made the schema; the server's role only checks its version.
+    migrate: false,
   });
   instance.on('error', (error) => console.error('[jobs]', error));
   await instance.start();
-  for (const name of Object.values(QUEUES)) await instance.createQueue(name);
   boss = instance;
   return instance;
 }

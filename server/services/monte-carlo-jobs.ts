@@ -24,9 +24,9 @@ import {
   PROCESS_SAFETY_NOTE,
   RouteEvaluationFailed,
 } from './evaluation';
-import { enqueue, jobQueue } from './jobs';
+import { enqueue, jobQueue, QUEUES } from './jobs';
 
-export const MONTE_CARLO_QUEUE = 'evaluation.monte-carlo';
+export const MONTE_CARLO_QUEUE = QUEUES.monteCarlo;
 /** Runs of at most this many draws are evaluated in the request. */
 export const INLINE_MAX_DRAWS = 20;
 /** Draws per chunk: a few tens of milliseconds of work between progress writes. */
@@ -38,20 +38,9 @@ interface MonteCarloInput {
   seed: number;
 }
 
-let queueReady: Promise<void> | null = null;
-/** Creates the queue once per process (idempotent in pg-boss). */
+/** The queue is created with the schema, by the owner (prepareJobQueue); nothing to do at run time. */
 export function ensureMonteCarloQueue(): Promise<void> {
-  queueReady ??= jobQueue()
-    .createQueue(MONTE_CARLO_QUEUE, {
-      name: MONTE_CARLO_QUEUE,
-      retryLimit: 1,
-      expireInSeconds: 30 * 60,
-    })
-    .catch((error: unknown) => {
-      queueReady = null;
-      throw error;
-    });
-  return queueReady;
+  return Promise.resolve();
 }
 
 function prepare(document: RouteDocument): PreparedRoute {

@@ -13,3 +13,5 @@ export * from './compounds';
 export * from './evaluate';
 export * from './routes';
 export * from './jobs';
+export * from './lists';
+export * from './audit';

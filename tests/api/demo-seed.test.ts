@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { database } from '../../server/db/sequelize';
 import { runMigrations, runSeeders } from '../../server/db/migrator';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
-import { useTestServer } from '../support/app';
+import { clusterAdminUrl, ownerDatabaseUrl, useTestServer } from '../support/app';
 import { signIn } from '../support/factories';
 
 const server = useTestServer();
@@ -23,8 +23,14 @@ describe('migrations and the demo seed', () => {
   });
 
   it('seeds the invented demo once: two workspaces, the five demo accounts, isolated from each other', async () => {
-    expect(await runSeeders(database(), 'test')).toEqual(filesIn('seeders'));
-    expect(await runSeeders(database(), 'test')).toEqual([]);
+    // Seeds run as the schema owner, like migrations.
+    const owner = new Sequelize(ownerDatabaseUrl(), { dialect: 'postgres', logging: false });
+    try {
+      expect(await runSeeders(owner, 'test')).toEqual(filesIn('seeders'));
+      expect(await runSeeders(owner, 'test')).toEqual([]);
+    } finally {
+      await owner.close();
+    }
 
     const chemist = await signIn(server.app, 'chemist@example.com', DEMO_PASSWORD);
     expect(chemist.session.workspaces).toEqual([
@@ -54,13 +60,13 @@ describe('concurrent start-up', () => {
   it('two servers migrating a fresh database at once: one applies, the other waits and finds nothing to do', async () => {
     const baseUrl = new URL(process.env.DATABASE_URL!);
     const freshName = `${baseUrl.pathname.slice(1)}_fresh`;
-    const admin = new Sequelize(new URL('/postgres', baseUrl).href, {
+    const admin = new Sequelize(clusterAdminUrl(), {
       dialect: 'postgres',
       logging: false,
     });
     await admin.query(`CREATE DATABASE ${freshName}`);
     const connect = () =>
-      new Sequelize(new URL(`/${freshName}`, baseUrl).href, {
+      new Sequelize(clusterAdminUrl(freshName), {
         dialect: 'postgres',
         logging: false,
       });

@@ -7,7 +7,7 @@ import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
 import { AuditEvent, type User, type Workspace } from '../../server/models';
 import { runMigrations, runSeeders } from '../../server/db/migrator';
 import { DEMO_PROJECT_NAME, DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
-import { useTestServer } from '../support/app';
+import { clusterAdminUrl, useTestServer } from '../support/app';
 import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
 
 const server = useTestServer();
@@ -288,13 +288,13 @@ describe('demo seed', () => {
     // A database of its own: seeding the shared test database would change what other files see.
     const baseUrl = new URL(process.env.DATABASE_URL!);
     const name = `${baseUrl.pathname.slice(1)}_routes_seed`;
-    const admin = new Sequelize(new URL('/postgres', baseUrl).href, {
+    const admin = new Sequelize(clusterAdminUrl(), {
       dialect: 'postgres',
       logging: false,
     });
     await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
     await admin.query(`CREATE DATABASE ${name}`);
-    const fresh = new Sequelize(new URL(`/${name}`, baseUrl).href, {
+    const fresh = new Sequelize(clusterAdminUrl(name), {
       dialect: 'postgres',
       logging: false,
     });

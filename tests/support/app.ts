@@ -17,6 +17,7 @@ export function testConfig(overrides: Record<string, string> = {}): AppConfig {
   return loadConfig({
     NODE_ENV: 'test',
     DATABASE_URL: process.env.DATABASE_URL,
+    DATABASE_OWNER_URL: process.env.DATABASE_OWNER_URL,
     APP_URL: 'http://app.test',
     SMTP_FAKE_PORT: '0',
     JOB_POLL_SECONDS: '0.5',
@@ -57,3 +58,17 @@ export function useTestServer(overrides: Record<string, string> = {}): TestServe
   });
   return server;
 }
+
+/**
+ * The test cluster's superuser, for tests that create whole databases: the
+ * server's role and the owner role may not.
+ */
+export function clusterAdminUrl(database = 'postgres'): string {
+  const url = new URL(process.env.DATABASE_URL!);
+  url.username = 'postgres';
+  url.pathname = `/${database}`;
+  return url.href;
+}
+
+/** A connection as the schema owner (migrations, seeds, or editing behind the server's back). */
+export const ownerDatabaseUrl = () => process.env.DATABASE_OWNER_URL!;

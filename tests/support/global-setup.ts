@@ -1,4 +1,5 @@
 import { execFileSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import net from 'node:net';
 import path from 'node:path';
@@ -8,7 +9,10 @@ import type { TestProject } from 'vitest/node';
 
 declare module 'vitest' {
   export interface ProvidedContext {
+    /** The server's own role (owns nothing). */
     databaseUrl: string;
+    /** The role that owns the schema and runs migrations. */
+    databaseOwnerUrl: string;
   }
 }
 
@@ -63,16 +67,24 @@ export default async function setup(project: TestProject) {
     startedCluster = true;
   }
   const databaseName = `phasewright_test_${process.pid}_${randomBytes(4).toString('hex')}`;
-  await adminQuery(`CREATE DATABASE ${databaseName}`);
-  const databaseUrl = `postgres://postgres@127.0.0.1:${port}/${databaseName}`;
+  // The same two roles as `npm start` makes: the owner runs migrations, the server's role owns nothing.
+  await adminQuery(readFileSync(path.join(projectRoot, 'server/scripts/roles.sql'), 'utf8'));
+  await adminQuery(`CREATE DATABASE ${databaseName} OWNER phasewright_owner`);
+  const databaseUrl = `postgres://phasewright_app@127.0.0.1:${port}/${databaseName}`;
+  const databaseOwnerUrl = `postgres://phasewright_owner@127.0.0.1:${port}/${databaseName}`;
 
   // Migrate once here so each test file starts from the current schema.
-  const { connectDatabase, closeDatabase } = await import('../../server/db/sequelize');
+  const { openRoleConnection, grantServerRole } = await import('../../server/db/roles');
   const { runMigrations } = await import('../../server/db/migrator');
-  await runMigrations(connectDatabase(databaseUrl));
-  await closeDatabase();
+  const { prepareJobQueue } = await import('../../server/services/jobs');
+  const owner = openRoleConnection(databaseOwnerUrl);
+  await runMigrations(owner);
+  await prepareJobQueue(databaseOwnerUrl);
+  await grantServerRole(owner, databaseUrl);
+  await owner.close();
 
   project.provide('databaseUrl', databaseUrl);
+  project.provide('databaseOwnerUrl', databaseOwnerUrl);
 
   return async () => {
     await adminQuery(`DROP DATABASE IF EXISTS ${databaseName} WITH (FORCE)`);

@@ -1,0 +1,19 @@
+import { z, type ZodType } from 'zod';
+
+/** Paging of every list: `limit` (default 50, at most 200) and the `cursor` of the previous reply. */
+export const LIST_LIMIT_DEFAULT = 50;
+export const LIST_LIMIT_MAX = 200;
+
+export const listPagingSchema = z.object({
+  limit: z.coerce
+    .number()
+    .int({ message: 'Use a whole number.' })
+    .min(1, { message: 'Use at least 1.' })
+    .max(LIST_LIMIT_MAX, { message: `Use at most ${LIST_LIMIT_MAX}.` })
+    .default(LIST_LIMIT_DEFAULT),
+  cursor: z.string().max(500).optional(),
+});
+
+/** The one list reply: a page of items and the cursor of the next page (null on the last). */
+export const listReplySchema = <T extends ZodType>(item: T) =>
+  z.object({ items: z.array(item), nextCursor: z.string().nullable() });
