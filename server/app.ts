@@ -25,6 +25,7 @@ import { jobsRouter } from './routes/jobs';
 import { membersRouter } from './routes/members';
 import { outboxRouter } from './routes/outbox';
 import { passwordResetsRouter } from './routes/password-resets';
+import { revisionsRouter } from './routes/revisions';
 import { routesRouter } from './routes/routes';
 import { SESSION_COOKIE, sessionRouter } from './routes/session';
 import { solventsRouter } from './routes/solvents';
@@ -134,6 +135,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(jobsRouter());
   api.use(routesRouter());
   api.use(auditRouter());
+  api.use(revisionsRouter(config));
   api.get('/openapi.json', (_req, res) => {
     res.json(buildOpenApiDocument());
   });

@@ -17,6 +17,7 @@ export const ERROR_STATUS = {
   unauthenticated: 401,
   invalid_credentials: 401,
   invalid_token: 401,
+  invalid_password: 401,
   forbidden: 403,
   csrf_failed: 403,
   not_found: 404,
@@ -26,6 +27,13 @@ export const ERROR_STATUS = {
   last_admin: 409,
   route_archived: 409,
   draft_conflict: 409,
+  stale_draft: 409,
+  version_conflict: 409,
+  review_open: 409,
+  review_closed: 409,
+  revision_superseded: 409,
+  already_decided: 409,
+  invalid_reviewers: 422,
   reset_used: 410,
   reset_expired: 410,
   invitation_used: 410,
@@ -125,6 +133,16 @@ export const conflict = (code: CodeWithStatus<409> & PlainCode, message: string)
   apiError(code, message);
 export const gone = (code: CodeWithStatus<410> & PlainCode, message: string) =>
   apiError(code, message);
+/** A PATCH based on an older version of a route or compound: nothing was changed. */
+export const versionConflict = (
+  what: 'route' | 'compound',
+  current: { version: number; updatedAt: Date },
+) =>
+  apiError(
+    'version_conflict',
+    `This ${what} was changed by someone else after you opened it (it is now at version ${current.version}). Your change was not saved; reload to see theirs, then make yours again.`,
+    { version: current.version, updatedAt: current.updatedAt.toISOString() },
+  );
 export const payloadTooLarge = () =>
   apiError('payload_too_large', 'The request body is too large.');
 export const accountLocked = (minutes: number) =>

@@ -35,6 +35,7 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
   declare partition: CompoundPayload['partition'];
   declare notes: string;
   declare createdById: ForeignKey<User['id']> | null;
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare createdBy?: NonAttribute<User | null>;
@@ -65,6 +66,7 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
         solubility: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         partition: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -10,6 +10,10 @@ import { EvaluationJob } from './job';
 import { Project } from './project';
 import { Route } from './route';
 import { RouteDraft } from './route-draft';
+import { RouteRevision } from './route-revision';
+import { ReviewComment } from './review-comment';
+import { ReviewDecision } from './review-decision';
+import { ReviewRequest, ReviewRequestReviewer } from './review-request';
 import { User } from './user';
 import { Workspace } from './workspace';
 
@@ -25,6 +29,7 @@ export {
   Workspace,
 };
 export { EvaluationJob, Project, Route, RouteDraft };
+export { RouteRevision, ReviewRequest, ReviewRequestReviewer, ReviewDecision, ReviewComment };
 
 /** Binds every model to the connection and declares the associations. */
 export function initModels(sequelize: Sequelize): void {
@@ -42,6 +47,11 @@ export function initModels(sequelize: Sequelize): void {
     Route,
     RouteDraft,
     EvaluationJob,
+    RouteRevision,
+    ReviewRequest,
+    ReviewRequestReviewer,
+    ReviewDecision,
+    ReviewComment,
   ]) {
     model.initModel(sequelize);
   }
@@ -66,4 +76,20 @@ export function initModels(sequelize: Sequelize): void {
   RouteDraft.belongsTo(Route, { foreignKey: 'routeId', as: 'route' });
   RouteDraft.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
   EvaluationJob.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  RouteRevision.belongsTo(Route, { foreignKey: 'routeId', as: 'route' });
+  RouteRevision.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  RouteRevision.hasMany(ReviewRequest, { foreignKey: 'revisionId', as: 'reviews' });
+  ReviewRequest.belongsTo(RouteRevision, { foreignKey: 'revisionId', as: 'revision' });
+  ReviewRequest.belongsTo(User, { foreignKey: 'submittedById', as: 'submittedBy' });
+  ReviewRequest.belongsToMany(User, {
+    through: ReviewRequestReviewer,
+    foreignKey: 'reviewRequestId',
+    otherKey: 'reviewerId',
+    as: 'reviewers',
+  });
+  ReviewRequest.hasMany(ReviewDecision, { foreignKey: 'reviewRequestId', as: 'decisions' });
+  ReviewDecision.belongsTo(ReviewRequest, { foreignKey: 'reviewRequestId', as: 'reviewRequest' });
+  ReviewComment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  ReviewComment.belongsTo(RouteRevision, { foreignKey: 'revisionId', as: 'revision' });
+  ReviewComment.belongsTo(User, { foreignKey: 'resolvedById', as: 'resolvedBy' });
 }

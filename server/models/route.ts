@@ -21,6 +21,7 @@ export class Route extends Model<InferAttributes<Route>, InferCreationAttributes
   declare ownerId: ForeignKey<User['id']>;
   declare name: string;
   declare archivedAt: CreationOptional<Date | null>;
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare project?: NonAttribute<Project | null>;
@@ -33,6 +34,7 @@ export class Route extends Model<InferAttributes<Route>, InferCreationAttributes
         id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
         name: { type: DataTypes.STRING(200), allowNull: false },
         archivedAt: { type: DataTypes.DATE, allowNull: true },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -19,6 +19,9 @@ import type { Exactly } from '@shared/schemas/exact';
 import { forbidden, notFound } from '../errors';
 import { accountRules } from './account';
 import { auditRules } from './audit';
+import { commentRules } from './comment';
+import { reviewRules } from './review';
+import { revisionRules } from './revision';
 import { compoundRules } from './compound';
 import { outboxRules } from './outbox';
 import { routeRules } from './route';
@@ -36,6 +39,9 @@ export const rules = {
   ...routeRules,
   ...compoundRules,
   ...auditRules,
+  ...revisionRules,
+  ...reviewRules,
+  ...commentRules,
 } as const;
 
 type Rules = typeof rules;

@@ -71,7 +71,10 @@ export async function createDraft(
 }
 
 /** Loads the draft row locked for update, so two saves of one draft run one after the other. */
-async function lockDraft(routeId: string, transaction: Transaction | null): Promise<RouteDraft> {
+export async function lockDraft(
+  routeId: string,
+  transaction: Transaction | null,
+): Promise<RouteDraft> {
   const draft = await RouteDraft.findByPk(routeId, {
     include: [{ model: User, as: 'updatedBy', attributes: ['id', 'name'] }],
     transaction,

@@ -24,7 +24,7 @@ const escapeHtml = (value: string) =>
     (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
   );
 
-function layout(
+export function layout(
   title: string,
   paragraphs: string[],
   action: { label: string; url: string },

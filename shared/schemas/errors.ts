@@ -10,7 +10,20 @@
  */
 import { z } from 'zod';
 import { routeEvaluationFailureSchema, ROUTE_EVALUATION_CODES } from './evaluate';
-import { draftConflictDetailsSchema } from './routes';
+import { draftConflictDetailsSchema, personRefSchema } from './routes';
+
+/** 409 stale_draft: a revision was asked of a draft version that is no longer current. */
+export const staleDraftDetailsSchema = z.object({
+  draftVersion: z.number().int(),
+  updatedAt: z.string(),
+  updatedBy: personRefSchema,
+});
+
+/** 409 version_conflict: a PATCH based on an older version of a route or compound. */
+export const versionConflictDetailsSchema = z.object({
+  version: z.number().int(),
+  updatedAt: z.string(),
+});
 
 /** One problem with a request field; `path` is dotted ("steps.0.name"), empty for the whole body. */
 export const apiErrorDetailSchema = z.object({
@@ -21,7 +34,7 @@ export type ApiErrorDetail = z.infer<typeof apiErrorDetailSchema>;
 export const fieldProblemsSchema = z.array(apiErrorDetailSchema);
 
 /** Codes whose replies list every field problem (400 validation, database validation). */
-export const FIELD_PROBLEM_CODES = ['validation_failed'] as const;
+export const FIELD_PROBLEM_CODES = ['validation_failed', 'invalid_reviewers'] as const;
 
 /** Codes that may name the field at fault, or the request as a whole. */
 export const OPTIONAL_FIELD_PROBLEM_CODES = ['bad_request', 'structure_unparsable'] as const;
@@ -34,6 +47,7 @@ export const PLAIN_ERROR_CODES = [
   'unauthenticated',
   'invalid_credentials',
   'invalid_token',
+  'invalid_password',
   // 403
   'forbidden',
   'csrf_failed',
@@ -45,6 +59,10 @@ export const PLAIN_ERROR_CODES = [
   'already_member',
   'last_admin',
   'route_archived',
+  'review_open',
+  'review_closed',
+  'revision_superseded',
+  'already_decided',
   // 410
   'reset_used',
   'reset_expired',
@@ -75,6 +93,8 @@ export const apiErrorBodySchema = z.discriminatedUnion('code', [
     details: fieldProblemsSchema.optional(),
   }),
   z.object({ code: z.literal('draft_conflict'), message, details: draftConflictDetailsSchema }),
+  z.object({ code: z.literal('stale_draft'), message, details: staleDraftDetailsSchema }),
+  z.object({ code: z.literal('version_conflict'), message, details: versionConflictDetailsSchema }),
   routeEvaluationFailureSchema,
   z.object({ code: z.enum(PLAIN_ERROR_CODES), message }),
 ]);
@@ -103,6 +123,8 @@ export const API_ERROR_CODES: readonly ApiErrorCode[] = [
   ...FIELD_PROBLEM_CODES,
   ...OPTIONAL_FIELD_PROBLEM_CODES,
   'draft_conflict',
+  'stale_draft',
+  'version_conflict',
   ...ROUTE_EVALUATION_CODES,
   ...PLAIN_ERROR_CODES,
 ];

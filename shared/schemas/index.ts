@@ -15,3 +15,4 @@ export * from './routes';
 export * from './jobs';
 export * from './lists';
 export * from './audit';
+export * from './revisions';

@@ -37,7 +37,9 @@ export function testConfig(overrides: Record<string, string> = {}): AppConfig {
 export function useTestServer(overrides: Record<string, string> = {}): TestServer {
   const apps: { close(): Promise<void> }[] = [];
   const build = (config: AppConfig, options: AppOptions = {}) => {
-    const built = createApp(config, { log: () => undefined, ...options });
+    // TEST_LOG_ERRORS=1 prints the errors behind 500 replies.
+    const log = process.env.TEST_LOG_ERRORS ? (e: unknown) => console.error(e) : () => undefined;
+    const built = createApp(config, { log, ...options });
     apps.push(built);
     return built.app;
   };

@@ -1,0 +1,249 @@
+/**
+ * Saved revisions of a route, their comparison, review requests, comments
+ * and signed decisions. Every list reply is `{ items, nextCursor }`.
+ */
+import { z } from 'zod';
+import { listPagingSchema, listReplySchema } from './lists';
+import { draftDocumentSchema, personRefSchema } from './routes';
+
+export const REVISION_MESSAGE_MAX_LENGTH = 2000;
+export const REVIEW_NOTE_MAX_LENGTH = 4000;
+export const COMMENT_MAX_LENGTH = 4000;
+export const SIGNATURE_MEANING_MAX_LENGTH = 500;
+export const MAX_REVIEWERS = 10;
+
+/** Where a revision stands, in plain words: saved, sent for review, signed off, sent back, or overtaken by a newer one. */
+export const REVISION_STATUSES = [
+  'draft',
+  'in_review',
+  'approved',
+  'returned',
+  'superseded',
+] as const;
+export const revisionStatusSchema = z.enum(REVISION_STATUSES);
+export type RevisionStatus = z.infer<typeof revisionStatusSchema>;
+export const REVISION_STATUS_LABELS: Record<RevisionStatus, string> = {
+  draft: 'Draft',
+  in_review: 'In review',
+  approved: 'Approved',
+  returned: 'Returned',
+  superseded: 'Superseded',
+};
+
+/** The default meaning of signatures, stated in the record beside the signer's name. */
+export const DEFAULT_SIGNATURE_MEANING = {
+  approve:
+    'Approved as technical reviewer: I have reviewed this revision of the route, its inputs and its computed results, and approve it.',
+  return:
+    'Returned as technical reviewer: I have reviewed this revision of the route and return it for the changes given in the reason.',
+} as const;
+
+const personWithEmailSchema = z.object({ id: z.string(), name: z.string(), email: z.string() });
+
+/** The route evaluation's totals as stored with the revision (names as in result.totals). */
+export const revisionTotalsSchema = z
+  .object({
+    yieldPct: z.number().nullable(),
+    purityWtPct: z.number().nullable(),
+    pmi: z.number().nullable(),
+    purge: z.record(
+      z.string(),
+      z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),
+    ),
+  })
+  .loose();
+export type RevisionTotals = z.infer<typeof revisionTotalsSchema>;
+
+export const createRevisionSchema = z.object({
+  message: z
+    .string()
+    .trim()
+    .min(1, { message: 'Say what changed in this revision.' })
+    .max(REVISION_MESSAGE_MAX_LENGTH),
+  /** The draft version the chemist looked at; a newer draft is a conflict. */
+  baseDraftVersion: z.number().int().min(1),
+});
+export type CreateRevisionInput = z.input<typeof createRevisionSchema>;
+
+export const createdRevisionSchema = z.object({
+  number: z.number().int(),
+  contentHash: z.string(),
+  engineVersion: z.string(),
+  totals: revisionTotalsSchema.nullable(),
+  createdAt: z.string(),
+  author: personRefSchema,
+});
+
+/** A signed decision, as shown on the revision and given to exports. */
+export const signatureSchema = z.object({
+  id: z.string(),
+  decision: z.enum(['approve', 'return']),
+  signer: z.object({ id: z.string(), name: z.string(), email: z.string() }),
+  /** UTC, from the database clock. */
+  signedAt: z.string(),
+  meaning: z.string(),
+  reason: z.string().nullable(),
+  /** The content hash of the revision that was signed. */
+  contentHash: z.string(),
+});
+export type Signature = z.infer<typeof signatureSchema>;
+
+export const reviewRequestSchema = z.object({
+  id: z.string(),
+  status: z.enum(['in_review', 'approved', 'returned', 'superseded']),
+  note: z.string(),
+  submittedBy: personRefSchema,
+  reviewers: z.array(
+    personWithEmailSchema.extend({ decision: z.enum(['approve', 'return']).nullable() }),
+  ),
+  decisions: z.array(signatureSchema),
+  createdAt: z.string(),
+  closedAt: z.string().nullable(),
+});
+export type ReviewRequestPayload = z.infer<typeof reviewRequestSchema>;
+
+export const revisionAbilitiesSchema = z.object({
+  submit: z.boolean(),
+  comment: z.boolean(),
+  decide: z.boolean(),
+});
+
+export const revisionSummarySchema = z.object({
+  number: z.number().int(),
+  contentHash: z.string(),
+  message: z.string(),
+  status: revisionStatusSchema,
+  author: personRefSchema,
+  createdAt: z.string(),
+  totals: revisionTotalsSchema.nullable(),
+});
+export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
+export const revisionListQuerySchema = listPagingSchema;
+export const revisionListSchema = listReplySchema(revisionSummarySchema);
+
+export const revisionDetailSchema = revisionSummarySchema.extend({
+  document: draftDocumentSchema,
+  /** The server's own evaluation, stored with the revision; null when the route could not be evaluated. */
+  result: z.record(z.string(), z.unknown()).nullable(),
+  evaluationError: z
+    .object({ code: z.string(), message: z.string(), details: z.array(z.unknown()) })
+    .nullable(),
+  engineVersion: z.string(),
+  draftVersion: z.number().int(),
+  /** Review requests, newest first. */
+  reviews: z.array(reviewRequestSchema),
+  /** The approving signatures when the revision is approved, else null. */
+  approval: z.object({ signatures: z.array(signatureSchema) }).nullable(),
+  abilities: revisionAbilitiesSchema,
+});
+export type RevisionDetail = z.infer<typeof revisionDetailSchema>;
+
+export const stepRefSchema = z.object({ id: z.string(), kind: z.string(), name: z.string() });
+export const fieldChangeSchema = z.object({
+  path: z.string(),
+  from: z.unknown(),
+  to: z.unknown(),
+});
+export const revisionCompareSchema = z.object({
+  from: z.number().int(),
+  to: z.number().int(),
+  stepsAdded: z.array(stepRefSchema),
+  stepsRemoved: z.array(stepRefSchema),
+  stepsChanged: z.array(
+    z.object({
+      stepId: z.string(),
+      name: z.string(),
+      kind: z.string(),
+      changes: z.array(fieldChangeSchema),
+    }),
+  ),
+  connectionsAdded: z.array(z.string()),
+  connectionsRemoved: z.array(z.string()),
+  /** Other document changes (components, reference input), each path old → new. */
+  documentChanges: z.array(fieldChangeSchema),
+  /**
+   * Every numeric total of the evaluation, by its name in result.totals
+   * (yieldPct, purityWtPct, pmi, ...), and each purge factor as "purge.<componentId>".
+   */
+  totals: z.record(
+    z.string(),
+    z.object({ from: z.number().nullable(), to: z.number().nullable() }),
+  ),
+});
+export type RevisionCompare = z.infer<typeof revisionCompareSchema>;
+
+export const createReviewRequestSchema = z.object({
+  reviewerIds: z
+    .array(z.uuid({ message: 'Choose a reviewer from the list.' }))
+    .min(1, { message: 'Choose at least one reviewer.' })
+    .max(MAX_REVIEWERS, { message: `Choose at most ${MAX_REVIEWERS} reviewers.` }),
+  note: z.string().trim().max(REVIEW_NOTE_MAX_LENGTH).default(''),
+});
+export type CreateReviewRequestInput = z.input<typeof createReviewRequestSchema>;
+
+export const createCommentSchema = z.object({
+  body: z
+    .string()
+    .trim()
+    .min(1, { message: 'Write a comment.' })
+    .max(COMMENT_MAX_LENGTH, { message: `Keep it under ${COMMENT_MAX_LENGTH} characters.` }),
+  stepId: z.string().min(1).max(80).optional(),
+  parentId: z.uuid().optional(),
+});
+export type CreateCommentInput = z.input<typeof createCommentSchema>;
+export const updateCommentSchema = z.object({ resolved: z.boolean() });
+
+export const commentSchema = z.object({
+  id: z.string(),
+  body: z.string(),
+  stepId: z.string().nullable(),
+  parentId: z.string().nullable(),
+  author: personRefSchema,
+  createdAt: z.string(),
+  resolved: z.boolean(),
+  resolvedAt: z.string().nullable(),
+  resolvedBy: personRefSchema.nullable(),
+});
+export type CommentPayload = z.infer<typeof commentSchema>;
+export const commentListQuerySchema = listPagingSchema;
+export const commentListSchema = listReplySchema(commentSchema);
+
+export const createDecisionSchema = z
+  .object({
+    decision: z.enum(['approve', 'return'], { message: 'Choose approve or return.' }),
+    /** The signer's password, entered again for this signature. */
+    password: z.string().min(1, { message: 'Enter your password to sign.' }).max(256),
+    meaning: z.string().trim().min(1).max(SIGNATURE_MEANING_MAX_LENGTH).optional(),
+    reason: z.string().trim().max(REVIEW_NOTE_MAX_LENGTH).optional(),
+  })
+  .superRefine((body, ctx) => {
+    if (body.decision === 'return' && !body.reason)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['reason'],
+        message: 'Say why the revision goes back to its author.',
+      });
+  });
+export type CreateDecisionInput = z.input<typeof createDecisionSchema>;
+export const decisionReplySchema = z.object({
+  decision: z.enum(['approve', 'return']),
+  signer: z.object({ name: z.string(), email: z.string() }),
+  signedAt: z.string(),
+  meaning: z.string(),
+  contentHash: z.string(),
+  /** The revision's status after this decision. */
+  status: revisionStatusSchema,
+});
+
+/** What needs the signed-in person: reviews to do, returned revisions, new comments, approvals. */
+export const attentionItemSchema = z.object({
+  kind: z.enum(['review_requested', 'returned', 'approved', 'comment']),
+  routeId: z.string(),
+  routeName: z.string(),
+  revisionNumber: z.number().int(),
+  from: personRefSchema,
+  at: z.string(),
+  text: z.string(),
+});
+export type AttentionItem = z.infer<typeof attentionItemSchema>;
+export const attentionListSchema = listReplySchema(attentionItemSchema);
