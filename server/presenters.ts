@@ -103,6 +103,7 @@ export function presentRouteSummary(route: Route): RouteSummary {
     owner: { id: route.owner!.id, name: route.owner!.name },
     updatedAt: latest(route.updatedAt, draft.updatedAt).toISOString(),
     draftVersion: draft.version,
+    version: route.version,
     totals: presentKeyTotals(draft.totals),
     stepCount: draft.stepCount,
   };

@@ -23,7 +23,7 @@ import { solventById, type UnifacGroups } from '@shared/engine/data';
 import { UNIFAC_SUBGROUPS } from '@shared/engine/data/unifac';
 import { EngineError } from '@shared/engine/errors';
 import { estimateLogPow } from '@shared/engine/properties';
-import { notFound, validationFailed } from '../errors';
+import { notFound, validationFailed, versionConflict } from '../errors';
 import { Compound, User } from '../models';
 import { recordAudit } from './audit';
 import { findLibrarySolvent, subgroupRows, unprocessable } from './components';
@@ -220,7 +220,7 @@ function checkReferences(state: CompoundState): void {
 
 type Attributes = Omit<
   CompoundPayload,
-  'id' | 'workspaceId' | 'createdBy' | 'createdAt' | 'updatedAt'
+  'id' | 'version' | 'workspaceId' | 'createdBy' | 'createdAt' | 'updatedAt'
 >;
 
 function build(state: CompoundState): Attributes {
@@ -322,7 +322,10 @@ function stateFromRecord(c: Compound): CompoundState {
   };
 }
 
-function applyPatch(state: CompoundState, patch: CompoundUpdateInput): CompoundState {
+function applyPatch(
+  state: CompoundState,
+  patch: Omit<CompoundUpdateInput, 'baseVersion'>,
+): CompoundState {
   const next: CompoundState = { ...state };
   if (patch.name !== undefined) next.name = patch.name.trim();
   if (patch.role !== undefined) next.role = patch.role;
@@ -349,6 +352,7 @@ function applyPatch(state: CompoundState, patch: CompoundUpdateInput): CompoundS
 export function presentCompound(c: Compound): CompoundPayload {
   return {
     id: c.id,
+    version: c.version,
     workspaceId: c.workspaceId as string,
     name: c.name,
     role: c.role,
@@ -439,9 +443,15 @@ export async function updateCompound(
   actorId: string | null,
   transaction: Transaction | null,
 ): Promise<Compound> {
+  const { baseVersion, ...changes } = patch;
+  await compound.reload({
+    transaction,
+    lock: transaction ? { level: transaction.LOCK.UPDATE, of: Compound } : undefined,
+  });
+  if (compound.version !== baseVersion) throw versionConflict('compound', compound);
   const before = auditView(compound);
-  const attributes = build(applyPatch(stateFromRecord(compound), patch));
-  await compound.update(attributes, { transaction });
+  const attributes = build(applyPatch(stateFromRecord(compound), changes));
+  await compound.update({ ...attributes, version: compound.version + 1 }, { transaction });
   const after = await loadCompound(compound.workspaceId as string, compound.id, transaction);
   await recordAudit(
     {

@@ -13,7 +13,7 @@ import {
   type WhereOptions,
 } from 'sequelize';
 import { emptyRouteDocument, type DraftDocument } from '@shared/schemas/routes';
-import { notFound } from '../errors';
+import { notFound, versionConflict } from '../errors';
 import { Project, Route, RouteDraft, User } from '../models';
 import { recordAudit } from './audit';
 import { createDraft } from './drafts';
@@ -131,11 +131,17 @@ export async function createRoute(
 
 export async function updateRoute(
   route: Route,
-  changes: { name?: string; projectName?: string | null; archived?: boolean },
+  changes: { name?: string; projectName?: string | null; archived?: boolean; baseVersion: number },
   actorId: string,
   transaction: Transaction | null,
 ): Promise<Route> {
   const workspaceId = route.workspaceId as string;
+  const locked = await Route.findByPk(route.id, {
+    attributes: ['id', 'version', 'updatedAt'],
+    transaction,
+    lock: transaction ? { level: transaction.LOCK.UPDATE, of: Route } : undefined,
+  });
+  if (locked!.version !== changes.baseVersion) throw versionConflict('route', locked!);
   const audit = (action: string, before: unknown, after: unknown) =>
     recordAudit(
       { workspaceId, actorId, action, entityType: 'route', entityId: route.id, before, after },
@@ -168,7 +174,10 @@ export async function updateRoute(
     );
     route.archivedAt = changes.archived ? new Date() : null;
   }
-  if (route.changed()) await route.save({ transaction });
+  if (route.changed()) {
+    route.version = locked!.version + 1;
+    await route.save({ transaction });
+  }
   return loadRoute(workspaceId, route.id, transaction);
 }
 

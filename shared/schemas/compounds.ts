@@ -151,6 +151,8 @@ export type CompoundCreateInput = z.input<typeof compoundCreateSchema>;
 export const compoundUpdateSchema = z
   .object(compoundFields)
   .partial()
+  /** The compound version the change was based on; a newer one is a conflict (409 version_conflict). */
+  .extend({ baseVersion: z.number().int().min(1) })
   .strict()
   .refine((v) => v.smiles === undefined || v.molfile === undefined || hasStructure(v), {
     path: ['smiles'],
@@ -166,6 +168,8 @@ export const unassignedAtomSchema = z.object({
 
 export const compoundSchema = z.object({
   id: z.string(),
+  /** Goes up by one with every change; PATCH names it as baseVersion. */
+  version: z.number().int(),
   workspaceId: z.string(),
   name: z.string(),
   role: compoundRoleSchema,

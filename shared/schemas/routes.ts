@@ -73,6 +73,8 @@ export const routeSummarySchema = z.object({
   /** Last change to the route or its draft. */
   updatedAt: z.string(),
   draftVersion: z.number().int(),
+  /** Version of the route's own fields (name, project, archived); PATCH names it as baseVersion. */
+  version: z.number().int(),
   totals: keyTotalsSchema.nullable(),
   stepCount: z.number().int(),
 });
@@ -127,6 +129,8 @@ export const updateRouteSchema = z
     /** A project name (created when new), or null to take the route out of its project. */
     projectName: projectNameSchema.nullable().optional(),
     archived: z.boolean().optional(),
+    /** The route version the change was based on; a newer one is a conflict (409 version_conflict). */
+    baseVersion: z.number().int().min(1),
   })
   .refine(
     (body) =>

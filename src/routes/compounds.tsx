@@ -76,7 +76,10 @@ export function Component() {
             onDelete={current ? () => setConfirmDelete(true) : undefined}
             onSubmit={async ({ input }) => {
               if (current) {
-                const saved = await update.mutateAsync({ compoundId: current.id, input });
+                const saved = await update.mutateAsync({
+                  compoundId: current.id,
+                  input: { ...input, baseVersion: current.version },
+                });
                 toast.success(`${saved.name} saved.`);
               } else {
                 const saved = await create.mutateAsync(input);

@@ -210,7 +210,7 @@ describe('GET /workspaces/{id}/audit, verify and export', () => {
     await chemistSession.agent
       .patch(`/api/v1/workspaces/${workspace.id}/routes/${created.body.id}`)
       .set('X-CSRF-Token', chemistSession.csrfToken)
-      .send({ name: 'Renamed route (invented)' });
+      .send({ name: 'Renamed route (invented)', baseVersion: 1 });
     await chemistSession.agent
       .delete('/api/v1/session')
       .set('X-CSRF-Token', chemistSession.csrfToken);

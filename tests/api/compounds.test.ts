@@ -49,11 +49,34 @@ describe('workspace compounds', () => {
       .post(listPath())
       .set('X-CSRF-Token', who.csrfToken)
       .send(body as object);
-  const patch = (who: SignedIn, id: string, body: unknown) =>
-    who.agent
+  // Edits name the version they were based on: the current one, unless the body gives another.
+  const patch = async (who: SignedIn, id: string, body: unknown) => {
+    const current = await who.agent.get(`${listPath()}/${id}`);
+    return who.agent
       .patch(`${listPath()}/${id}`)
       .set('X-CSRF-Token', who.csrfToken)
-      .send(body as object);
+      .send({ baseVersion: current.body.version ?? 1, ...(body as object) });
+  };
+
+  it('refuses an edit based on an older version with 409, changing nothing', async () => {
+    const created = await post(asChemist, {
+      name: 'Versioned compound (invented)',
+      smiles: 'CCO',
+      role: 'impurity',
+    });
+    expect(created.body.version).toBe(1);
+    const send = (body: object) =>
+      asChemist.agent
+        .patch(`${listPath()}/${created.body.id}`)
+        .set('X-CSRF-Token', asChemist.csrfToken)
+        .send(body);
+    const first = await send({ notes: 'Mine', baseVersion: 1 });
+    expect(first.body).toMatchObject({ version: 2, notes: 'Mine' });
+    const stale = await send({ notes: 'Theirs, on the old version', baseVersion: 1 });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error).toMatchObject({ code: 'version_conflict', details: { version: 2 } });
+    expect((await asChemist.agent.get(`${listPath()}/${created.body.id}`)).body.notes).toBe('Mine');
+  });
 
   it('requires authentication', async () => {
     expect((await request(server.app).get(listPath())).status).toBe(401);

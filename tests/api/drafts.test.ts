@@ -190,14 +190,14 @@ describe('route drafts (autosave)', () => {
     await asChemist.agent
       .patch(routePath)
       .set('X-CSRF-Token', asChemist.csrfToken)
-      .send({ archived: true });
+      .send({ archived: true, baseVersion: 1 });
     const refused = await save(asChemist, route.id, demo(), 1);
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('route_archived');
     await asChemist.agent
       .patch(routePath)
       .set('X-CSRF-Token', asChemist.csrfToken)
-      .send({ archived: false });
+      .send({ archived: false, baseVersion: 2 });
     expect((await save(asChemist, route.id, demo(), 1)).status).toBe(200);
   });
 });

@@ -38,8 +38,46 @@ describe('routes of a workspace', () => {
   const routesPath = () => `/api/v1/workspaces/${workspace.id}/routes`;
   const post = (who: SignedIn, path: string, body: object) =>
     who.agent.post(path).set('X-CSRF-Token', who.csrfToken).send(body);
-  const patch = (who: SignedIn, path: string, body: object) =>
-    who.agent.patch(path).set('X-CSRF-Token', who.csrfToken).send(body);
+  // Edits name the version they were based on: the current one, unless the test says otherwise.
+  const patch = async (who: SignedIn, path: string, body: object) => {
+    const current = await who.agent.get(path);
+    return who.agent
+      .patch(path)
+      .set('X-CSRF-Token', who.csrfToken)
+      .send({ baseVersion: current.body.version ?? 1, ...body });
+  };
+
+  it('refuses an edit based on an older version (409), and of two concurrent edits keeps one', async () => {
+    const route = (await post(asChemist, routesPath(), { name: 'Versioned (invented)' })).body;
+    const path = `${routesPath()}/${route.id}`;
+    expect(route.version).toBe(1);
+    const [a, b] = await Promise.all([
+      asChemist.agent
+        .patch(path)
+        .set('X-CSRF-Token', asChemist.csrfToken)
+        .send({ name: 'First writer', baseVersion: 1 }),
+      asChemist.agent
+        .patch(path)
+        .set('X-CSRF-Token', asChemist.csrfToken)
+        .send({ name: 'Second writer', baseVersion: 1 }),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    const loser = a.status === 409 ? a : b;
+    const winner = a.status === 409 ? b : a;
+    expect(loser.body.error).toMatchObject({ code: 'version_conflict', details: { version: 2 } });
+    expect((await asChemist.agent.get(path)).body).toMatchObject({
+      name: winner.body.name,
+      version: 2,
+    });
+    const missing = await asChemist.agent
+      .patch(path)
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ name: 'No base' });
+    expect(missing.status).toBe(400);
+    expect(missing.body.error.details.map((d: { path: string }) => d.path)).toContain(
+      'baseVersion',
+    );
+  });
 
   it('requires authentication', async () => {
     expect((await request(server.app).get(routesPath())).status).toBe(401);

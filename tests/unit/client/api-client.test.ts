@@ -30,6 +30,7 @@ const summary = {
   owner: { id: 'u1', name: 'Ada Chemist' },
   updatedAt: '2026-12-03T10:00:00.000Z',
   draftVersion: 4,
+  version: 1,
   totals: { yieldPct: 88.1, purityPct: 99.2, pmi: 41 },
   stepCount: 7,
 };
@@ -122,7 +123,7 @@ describe('the client reads error replies with the shared error contract', () => 
 describe('the client parses every reply with its exact schema', () => {
   it('a PATCH reply with a field the schema does not declare is refused', async () => {
     reply(200, { ...detail, secretFlag: true });
-    const error = await failure(updateRoute('w1', 'r1', { name: 'Renamed' }));
+    const error = await failure(updateRoute('w1', 'r1', { name: 'Renamed', baseVersion: 1 }));
     expect(error.code).toBe('invalid_reply');
   });
 
@@ -134,6 +135,6 @@ describe('the client parses every reply with its exact schema', () => {
 
   it('the exact reply is accepted', async () => {
     reply(200, detail);
-    expect(await updateRoute('w1', 'r1', { name: 'Renamed' })).toEqual(detail);
+    expect(await updateRoute('w1', 'r1', { name: 'Renamed', baseVersion: 1 })).toEqual(detail);
   });
 });

@@ -3,7 +3,13 @@ import { apiRequest } from '@/api/client';
 import { routeDetailSchema } from './schemas';
 import { routesApi } from './urls';
 
-export type UpdateRouteInput = { name?: string; projectName?: string | null; archived?: boolean };
+export type UpdateRouteInput = {
+  name?: string;
+  projectName?: string | null;
+  archived?: boolean;
+  /** The route version the change is based on (409 version_conflict when stale). */
+  baseVersion: number;
+};
 
 export const updateRoute = (workspaceId: string, routeId: string, input: UpdateRouteInput) =>
   apiRequest(routesApi.one(workspaceId, routeId), {

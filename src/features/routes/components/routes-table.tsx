@@ -35,7 +35,9 @@ export function RoutesTable({
 }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'updatedAt', desc: true }]);
   const [filter, setFilter] = useState('');
-  const [renaming, setRenaming] = useState<{ id: string; name: string } | null>(null);
+  const [renaming, setRenaming] = useState<{ id: string; name: string; version: number } | null>(
+    null,
+  );
   const update = useUpdateRoute(workspaceId);
   const duplicate = useDuplicateRoute(workspaceId);
 
@@ -96,7 +98,7 @@ export function RoutesTable({
                       size="sm"
                       variant="quiet"
                       aria-label={`Rename ${r.name}`}
-                      onClick={() => setRenaming({ id: r.id, name: r.name })}
+                      onClick={() => setRenaming({ id: r.id, name: r.name, version: r.version })}
                     >
                       Rename
                     </Button>
@@ -122,7 +124,10 @@ export function RoutesTable({
                       aria-label={`${r.status === 'archived' ? 'Restore' : 'Archive'} ${r.name}`}
                       onClick={() =>
                         update.mutate(
-                          { routeId: r.id, input: { archived: r.status !== 'archived' } },
+                          {
+                            routeId: r.id,
+                            input: { archived: r.status !== 'archived', baseVersion: r.version },
+                          },
                           {
                             onSuccess: () =>
                               toast.success(
@@ -205,7 +210,7 @@ export function RoutesTable({
             const name = renaming.name.trim();
             if (!name) return;
             update.mutate(
-              { routeId: renaming.id, input: { name } },
+              { routeId: renaming.id, input: { name, baseVersion: renaming.version } },
               {
                 onSuccess: () => {
                   toast.success('Route renamed.');
