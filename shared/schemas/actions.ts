@@ -26,6 +26,17 @@ export const WORKSPACE_ACTIONS = [
   'compound.create',
   'compound.update',
   'compound.delete',
+  'audit.read',
+  'audit.verify',
+  'revision.list',
+  'revision.listAll',
+  'revision.read',
+  'revision.create',
+  'review.submit',
+  'review.decide',
+  'attention.list',
+  'comment.create',
+  'comment.resolve',
 ] as const;
 export type WorkspaceAction = (typeof WORKSPACE_ACTIONS)[number];
 
