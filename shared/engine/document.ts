@@ -311,6 +311,14 @@ export const dryingParamsSchema = z
     ]),
     temperatureC,
     pressureMbar: uncertain(...RANGES.pressureMbar),
+    /** Time allowed in the dryer, h: drying stops at the target or at this time. 12 h when absent (common practice). */
+    maxHours: uncertain(0.1, 1000).optional(),
+    /** Drying coefficient k_d, mol of vapour per kg of dry solid per hour per unit driving force (p* − p)/P. Assumed 0.5 (with a warning) when absent. */
+    dryingCoefficient: uncertain(1e-4, 1e4).optional(),
+    /** Critical solvent content X_c, kg of solvent per kg of dry solid, where the falling-rate period begins. Assumed 0.05 (with a warning) when absent. */
+    criticalContentKgPerKg: uncertain(1e-4, 5).optional(),
+    /** Inert gas through the dryer (nitrogen bleed or sweep), normal litres per minute per kg of dry solid; 0 for a closed vacuum dryer. Assumed 0.2 (with a warning) when absent. */
+    inertGasNLPerMinPerKg: uncertain(0, 1000).optional(),
   })
   .strict();
 

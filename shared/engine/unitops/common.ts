@@ -51,7 +51,6 @@ export const COMMON_PRACTICE_HOURS = {
   antisolventAddition: 1,
   filtrationSetup: 0.5,
   cakeWash: 0.5,
-  drying: 12,
   quench: 1,
   phAdjust: 1,
   carbonTreatment: 2,

@@ -1,28 +1,27 @@
 /**
- * Drying of a wet cake to a loss-on-drying (LOD) or a residual-solvent target.
- *
- * Model: the liquid in the cake evaporates with rates proportional to the
- * partial pressures of an ideal liquid, dn_i ∝ x_i P_i^sat(T), which
- * integrates to n_i = n_i,0 exp(−P_i^sat θ) for a common drying progress θ
- * (so less volatile solvents are enriched in what remains). θ is found by
- * bisection so that the target is met:
+ * Drying of a wet cake to a loss-on-drying (LOD) or a residual-solvent
+ * target, as a model that can fail (drying-model.ts): evaporation driven by
+ * the cake's equilibrium vapour pressure at the drying temperature against the
+ * solvent's partial pressure in the dryer gas at the dryer pressure, a
+ * constant-rate then a linear falling-rate period, integrated in time. The
+ * step ends when the target is met, when the time allowed runs out, or when
+ * the equilibrium with the dryer atmosphere stops the drying; the result gives
+ * the time and the LOD and residual solvents reached, and says which.
  *   LOD target:       Σ_volatiles m_i / m_total = LOD / 100
  *   residual target:  Σ_organic solvents m_i / m_total = ppm / 1e6 (water excluded)
- * Dissolved solutes in the retained liquor deposit on the solid. Vapour
- * pressures from the Antoine constants of the library (Clausius–Clapeyron
- * outside the range, with a warning). Units: T [K], P [Pa], m [kg].
- * Not modelled: solvates, occluded solvent, drying kinetics; the dryer
- * pressure is recorded but the end point does not depend on it.
- * Each residual solvent is compared with its ICH Q3C (R9) concentration
- * limit (Option 1, ppm) from the solvent library.
+ * Dissolved solutes in the retained liquor deposit on the solid.
+ * Each residual solvent is compared with its ICH Q3C concentration limit
+ * (Option 1, ppm) from the library; the flag carries the number reached.
+ * Units: T [K], P [Pa], m [kg], t [h].
  */
 import type { ParamsOf, RouteStep } from '../document';
 import { RANGES } from '../document';
-import { solventVapourPressureData, vapourPressure } from '../thermo/antoine';
 import type { EvalContext } from '../route/context';
 import { commonCautions, cToK, emptyStream, finishStream, method, warn } from '../route/context';
 import type { EngineWarning, StepOutput, Stream } from '../route/types';
-import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
+import { newResult, round } from './common';
+import { integrateDrying } from './drying-model';
+import { solventVle } from './equilibria';
 
 export interface IchFlag {
   componentId: string;
@@ -114,6 +113,17 @@ export function ichResidualSolventFlags(
   return flags;
 }
 
+/** Time allowed in the dryer when none is given [h] (common practice, one working day). */
+export const DEFAULT_DRYING_HOURS = 12;
+/** Drying coefficient assumed when none is given [mol/(kg h)]: a solvent-wet cake (0.3 kg/kg) under vacuum at 40–50 °C loses its free liquid in a few hours (common-practice order of magnitude). */
+export const DEFAULT_DRYING_COEFFICIENT = 0.5;
+/** Critical solvent content assumed when none is given [kg/kg] (common-practice order of magnitude for crystalline cakes). */
+export const DEFAULT_CRITICAL_CONTENT = 0.05;
+/** Inert gas (nitrogen bleed) assumed when none is given [normal L/min per kg of dry solid] (common practice). */
+export const DEFAULT_INERT_GAS_NL_MIN_KG = 0.2;
+/** Molar volume of an ideal gas at 0 °C and 1 atm [L/mol] (normal litres). */
+const NORMAL_LITRES_PER_MOL = 22.414;
+
 export function drying(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'drying'>,
@@ -123,74 +133,132 @@ export function drying(
   const wet = inputs.wet!;
   const T = cToK(ctx.num(params.temperatureC, ...RANGES.temperatureC));
   const P = ctx.num(params.pressureMbar, ...RANGES.pressureMbar) * 100;
-  const result = newResult(step, {
-    hours: COMMON_PRACTICE_HOURS.drying,
-    basis: `${COMMON_PRACTICE_BASIS}: 12 h in the dryer`,
-  });
+  const result = newResult(step, { hours: 0, basis: 'drying model (drying-model.ts)' });
   const W = result.warnings;
+  const M = result.methods;
+  const assumed: string[] = [];
+  const maxHours =
+    params.maxHours !== undefined ? ctx.num(params.maxHours, 0.1, 1000) : DEFAULT_DRYING_HOURS;
+  if (params.maxHours === undefined)
+    warn(
+      W,
+      'info',
+      'drying-time-assumed',
+      `No drying time given: at most ${DEFAULT_DRYING_HOURS} h in the dryer (common practice).`,
+    );
+  let kd = DEFAULT_DRYING_COEFFICIENT;
+  if (params.dryingCoefficient !== undefined) kd = ctx.num(params.dryingCoefficient, 1e-4, 1e4);
+  else assumed.push(`drying coefficient ${DEFAULT_DRYING_COEFFICIENT} mol/(kg·h)`);
+  let Xc = DEFAULT_CRITICAL_CONTENT;
+  if (params.criticalContentKgPerKg !== undefined)
+    Xc = ctx.num(params.criticalContentKgPerKg, 1e-4, 5);
+  else assumed.push(`critical solvent content ${DEFAULT_CRITICAL_CONTENT} kg/kg`);
+  let gasNL = DEFAULT_INERT_GAS_NL_MIN_KG;
+  if (params.inertGasNLPerMinPerKg !== undefined)
+    gasNL = ctx.num(params.inertGasNLPerMinPerKg, 0, 1000);
+  else assumed.push(`nitrogen ${DEFAULT_INERT_GAS_NL_MIN_KG} NL/min per kg of dry solid`);
+  if (assumed.length)
+    warn(
+      W,
+      'warning',
+      'drying-parameters-assumed',
+      `Drying parameters not given, assumed (common-practice orders of magnitude): ${assumed.join(', ')}. Fit them to a measured drying curve; the drying time and the residual reached depend on them.`,
+    );
   const vol = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && wet.kg[id] > 0);
-  const psat: number[] = vol.map((id) => {
-    const s = ctx.comps.get(id)!.solvent!;
-    const vp = solventVapourPressureData(s);
-    const r = vapourPressure(vp.sets, T, vp.extra);
-    for (const w of r.warnings) warn(W, 'info', 'vapour-pressure', `${s.name}: ${w}`);
-    return r.pressurePa;
-  });
-  method(
-    result.methods,
-    'drying end point',
-    'ideal evaporation, n_i = n_i0 exp(−P_i^sat θ), θ by bisection to the target',
-    'Antoine constants from the solvent library',
-  );
-  let fixed = 0;
-  for (const id of ctx.ids) if (!vol.includes(id)) fixed += wet.kg[id];
-  const counted = vol.map((id) =>
-    params.target.kind === 'lod' ? true : !ctx.comps.get(id)!.isWater,
-  );
+  let solidKg = 0;
+  for (const id of ctx.ids) if (!vol.includes(id)) solidKg += wet.kg[id];
+  const counted = vol.map((id) => params.target.kind === 'lod' || !ctx.comps.get(id)!.isWater);
   const target =
     params.target.kind === 'lod'
       ? ctx.num(params.target.lodWtPct, 0, 50) / 100
       : ctx.num(params.target.residualPpm, 0, 1e6) / 1e6;
-  const pmax = Math.max(1, ...psat);
-  const scaled = psat.map((p) => p / pmax);
-  const left = (theta: number) => vol.map((id, i) => wet.kg[id] * Math.exp(-scaled[i] * theta));
-  const frac = (m: number[]) => {
-    let c = 0;
-    let all = fixed;
-    m.forEach((x, i) => {
-      all += x;
-      if (counted[i]) c += x;
-    });
-    return all > 0 ? c / all : 0;
-  };
-  let theta = 0;
-  if (frac(left(0)) > target) {
-    let lo = 0;
-    let hi = 1;
-    while (frac(left(hi)) > target && hi < 1e6) hi *= 2;
-    for (let k = 0; k < 100; k++) {
-      const mid = 0.5 * (lo + hi);
-      if (frac(left(mid)) > target) lo = mid;
-      else hi = mid;
-    }
-    theta = hi;
-  }
-  const remaining = left(theta);
   const dry = emptyStream(ctx, 'solid', T);
   const vapour = emptyStream(ctx, 'vapour', T);
-  for (const id of ctx.ids) {
-    const i = vol.indexOf(id);
-    if (i >= 0) {
-      dry.kg[id] = Math.min(wet.kg[id], remaining[i]);
+  method(
+    M,
+    'drying',
+    'evaporation against the dryer gas, E_i = k_d (p_i* − p_i)/P with p_i* = y_i P_bubble(T) min(1, X/X_c), p_i = P E_i/(G + ΣE); constant-rate then linear falling-rate period; Dormand–Prince integration to the target or the time allowed',
+    'drying curve: McCabe, Smith & Harriott, drying chapter (recalled); vapour pressures and UNIFAC activity coefficients from the solvent library',
+  );
+  let outcome: string = 'target-reached';
+  let hours = 0;
+  let equilibrium: number | null = null;
+  let bubbleMbar: number | null = null;
+  if (vol.length > 0 && solidKg > 0) {
+    const { sys } = solventVle(ctx, vol);
+    const molar = vol.map((id) => ctx.comps.get(id)!.molarMassKgMol);
+    const n0 = vol.map((id, i) => wet.kg[id] / molar[i] / solidKg);
+    const frac = (n: ArrayLike<number>) => {
+      let c = 0;
+      let all = 1;
+      for (let i = 0; i < vol.length; i++) {
+        const m = Math.max(0, n[i]) * molar[i];
+        all += m;
+        if (counted[i]) c += m;
+      }
+      return c / all;
+    };
+    const r = integrateDrying({
+      sys,
+      molarMassKgMol: molar,
+      n0,
+      T_K: T,
+      P_Pa: P,
+      dryingCoefficient: kd,
+      criticalContent: Xc,
+      inertGas: (gasNL * 60) / NORMAL_LITRES_PER_MOL,
+      maxHours,
+      reached: (n) => frac(n) <= target,
+    });
+    outcome = r.outcome;
+    hours = r.hours;
+    equilibrium = r.equilibriumContentKgPerKg;
+    bubbleMbar = r.bubblePressurePa / 100;
+    if (!r.converged)
+      warn(
+        W,
+        'warning',
+        'drying-not-converged',
+        'The drying integration did not meet its tolerance.',
+      );
+    vol.forEach((id, i) => {
+      dry.kg[id] = Math.min(wet.kg[id], r.n[i] * molar[i] * solidKg);
       vapour.kg[id] = wet.kg[id] - dry.kg[id];
-    } else {
-      dry.kg[id] = wet.kg[id];
-      dry.solidKg[id] = wet.kg[id];
-    }
+    });
+  } else if (vol.length > 0) {
+    warn(W, 'warning', 'no-solid', 'The drying step receives no solid: all the liquid evaporates.');
+    for (const id of vol) vapour.kg[id] = wet.kg[id];
+  }
+  for (const id of ctx.ids) {
+    if (vol.includes(id)) continue;
+    dry.kg[id] = wet.kg[id];
+    dry.solidKg[id] = wet.kg[id];
   }
   finishStream(ctx, dry);
   finishStream(ctx, vapour);
   const flags = ichResidualSolventFlags(ctx, dry.kg, W);
+  const total = Object.values(dry.kg).reduce((a, b) => a + b, 0);
+  const liquid = vol.reduce((a, id) => a + dry.kg[id], 0);
+  const lod = total > 0 ? (100 * liquid) / total : 0;
+  const reachedText =
+    params.target.kind === 'lod'
+      ? `LOD ${lod.toPrecision(3)} % (target ${(target * 100).toPrecision(3)} %)`
+      : `residual solvent ${flags
+          .reduce((a, f) => a + f.ppm, 0)
+          .toPrecision(3)} ppm (target ${(target * 1e6).toPrecision(3)} ppm)`;
+  if (outcome !== 'target-reached') {
+    const why =
+      outcome === 'no-evaporation'
+        ? `nothing evaporates: at ${(T - 273.15).toFixed(0)} °C the cake liquid's vapour pressure (${bubbleMbar!.toPrecision(3)} mbar) does not exceed the dryer pressure (${(P / 100).toPrecision(4)} mbar) and no inert gas carries vapour away`
+        : outcome === 'equilibrium-limit'
+          ? `the cake is in equilibrium with the dryer vacuum: with no inert gas it cannot dry below ${((equilibrium ?? 0) * 100).toPrecision(3)} wt % solvent on solid at ${(T - 273.15).toFixed(0)} °C and ${(P / 100).toPrecision(4)} mbar`
+          : `the time allowed (${maxHours} h) runs out first; the driving force at ${(T - 273.15).toFixed(0)} °C and ${(P / 100).toPrecision(4)} mbar is too small`;
+    W.push({
+      severity: 'warning',
+      code: 'drying-target-not-reached',
+      message: `The drying target is not reached: ${reachedText} after ${hours.toPrecision(3)} h — ${why}. Dry warmer, at a lower pressure, with more nitrogen or for longer.`,
+    });
+  }
   const pid = ctx.productId;
   if (pid) {
     const mp = ctx.comps.get(pid)!.compound!.meltingPointC;
@@ -201,14 +269,14 @@ export function drying(
         message: `Dryer temperature is within 20 K of the product's melting point (${mp} °C): sintering or melting (common practice margin).`,
       });
   }
-  const total = Object.values(dry.kg).reduce((a, b) => a + b, 0);
-  const liquid = vol.reduce((a, id) => a + dry.kg[id], 0);
-  const lod = total > 0 ? (100 * liquid) / total : 0;
   result.summary = {
     'LOD %': round(lod, 3),
     'dry kg': round(total, 4),
+    'drying h': round(hours, 2),
+    'target reached': outcome === 'target-reached' ? 'yes' : 'no',
     'ICH exceedances': flags.filter((f) => f.exceeds).length,
   };
+  result.duration = { hours, basis: 'drying model: time to the target or the time allowed' };
   result.peakVolumeM3 = wet.volumeM3;
   commonCautions(ctx, wet.kg, T, W);
   result.details = {
@@ -216,6 +284,17 @@ export function drying(
     residualSolventsPpm: flags,
     pressureMbar: P / 100,
     temperatureC: T - 273.15,
+    outcome,
+    dryingHours: hours,
+    maxHours,
+    equilibriumSolventContentKgPerKg: equilibrium,
+    wetCakeBubblePressureMbar: bubbleMbar,
+    parameters: {
+      dryingCoefficientMolPerKgH: kd,
+      criticalContentKgPerKg: Xc,
+      inertGasNLPerMinPerKg: gasNL,
+      assumed,
+    },
   };
   return { outputs: { dry, vapour }, result };
 }

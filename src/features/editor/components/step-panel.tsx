@@ -484,6 +484,11 @@ function KindForm({ kind, set, err, val, compounds }: Ctx) {
                 ['params', 'cakeWash', 'displacementEfficiency'],
                 { common: true, fallback: 0.8 },
               )}
+              {q('Crystal size (µm)', 'number', ['params', 'cakeWash', 'crystalSizeUm'], {
+                common: true,
+                fallback: 100,
+                hint: 'Sets how fast the wash dissolves the cake.',
+              })}
             </>
           ) : null}
           {q(
@@ -533,6 +538,28 @@ function KindForm({ kind, set, err, val, compounds }: Ctx) {
             : q('Residual solvent (ppm)', 'number', ['params', 'target', 'residualPpm'])}
           {q('Temperature', 'temperature', ['params', 'temperatureC'])}
           {q('Pressure', 'pressure', ['params', 'pressureMbar'])}
+          {q('Time allowed (h)', 'number', ['params', 'maxHours'], {
+            common: true,
+            fallback: 12,
+            hint: 'Drying stops at the target or at this time.',
+          })}
+          {q('Nitrogen (NL/min per kg solid)', 'number', ['params', 'inertGasNLPerMinPerKg'], {
+            common: true,
+            fallback: 0.2,
+            hint: '0 for a closed vacuum dryer.',
+          })}
+          {q(
+            'Drying coefficient (mol per kg solid per h)',
+            'number',
+            ['params', 'dryingCoefficient'],
+            { common: true, fallback: 0.5, hint: 'Fit it to a measured drying curve.' },
+          )}
+          {q(
+            'Critical solvent content (kg per kg solid)',
+            'number',
+            ['params', 'criticalContentKgPerKg'],
+            { common: true, fallback: 0.05, hint: 'Where the falling-rate period begins.' },
+          )}
         </>
       );
     }
