@@ -414,3 +414,112 @@ export function newtonSafe(
     bracket: bracketOf(),
   };
 }
+
+/** Result of a small nonlinear system solve. */
+export interface SystemResult {
+  /** Solution [units of the unknowns]. */
+  x: number[];
+  /** Residuals at x [units of the equations]. */
+  residual: number[];
+  converged: boolean;
+  iterations: number;
+}
+
+/**
+ * Newton's method for a small system F(x) = 0 (a handful of unknowns), with a
+ * forward-difference Jacobian and a backtracking line search on ‖F‖².
+ *
+ * Source: J. E. Dennis, R. B. Schnabel, Numerical Methods for Unconstrained
+ * Optimization and Nonlinear Equations, SIAM 1996, §6.3 (backtracking line
+ * search) and §5.4 (finite-difference Jacobian); Numerical Recipes 3rd ed.
+ * §9.7 (newt).
+ *
+ * @param F              residual function of the unknowns [units of the equations]
+ * @param x0             starting point [units of the unknowns]
+ * @param opts.ftol      converged when max |F_i| ≤ ftol [units of the equations] (default 1e-10)
+ * @param opts.maxIterations iteration limit [–] (default 100)
+ * @param opts.maxStep   largest change of any unknown in one step [units of the unknowns] (default ∞)
+ * @returns the solution, its residuals and a convergence flag
+ *
+ * Validity: smooth F with a non-singular Jacobian near the root; converges
+ * from a starting point in the basin of the root (the line search widens
+ * the basin, it does not make convergence global).
+ */
+export function solveSystem(
+  F: (x: readonly number[]) => number[],
+  x0: readonly number[],
+  opts: { ftol?: number; maxIterations?: number; maxStep?: number } = {},
+): SystemResult {
+  const ftol = opts.ftol ?? 1e-10;
+  const maxIterations = opts.maxIterations ?? 100;
+  const maxStep = opts.maxStep ?? Infinity;
+  const n = x0.length;
+  let x = [...x0];
+  let f = F(x);
+  const norm2 = (v: number[]) => v.reduce((a, b) => a + b * b, 0);
+  for (let iter = 0; iter < maxIterations; iter++) {
+    if (f.every((v) => Math.abs(v) <= ftol))
+      return { x, residual: f, converged: true, iterations: iter };
+    if (f.some((v) => !Number.isFinite(v))) break;
+    // Forward-difference Jacobian J[i][j] = ∂F_i/∂x_j.
+    const J: number[][] = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+    for (let j = 0; j < n; j++) {
+      const h = 1e-7 * Math.max(1, Math.abs(x[j]));
+      const xp = [...x];
+      xp[j] += h;
+      const fp = F(xp);
+      for (let i = 0; i < n; i++) J[i][j] = (fp[i] - f[i]) / h;
+    }
+    const dx = gaussSolve(
+      J,
+      f.map((v) => -v),
+    );
+    if (!dx) break;
+    const biggest = Math.max(...dx.map(Math.abs));
+    const scale = biggest > maxStep ? maxStep / biggest : 1;
+    let lambda = scale;
+    const f0 = norm2(f);
+    let accepted = false;
+    for (let k = 0; k < 30; k++) {
+      const xt = x.map((v, i) => v + lambda * dx[i]);
+      const ft = F(xt);
+      if (ft.every(Number.isFinite) && norm2(ft) <= (1 - 1e-4 * lambda) * f0) {
+        x = xt;
+        f = ft;
+        accepted = true;
+        break;
+      }
+      lambda *= 0.5;
+    }
+    if (!accepted) break;
+  }
+  return {
+    x,
+    residual: f,
+    converged: f.every((v) => Math.abs(v) <= ftol),
+    iterations: maxIterations,
+  };
+}
+
+/** Gaussian elimination with partial pivoting; null when singular. */
+function gaussSolve(A: number[][], b: number[]): number[] | null {
+  const n = b.length;
+  const M = A.map((row, i) => [...row, b[i]]);
+  for (let c = 0; c < n; c++) {
+    let p = c;
+    for (let r = c + 1; r < n; r++) if (Math.abs(M[r][c]) > Math.abs(M[p][c])) p = r;
+    if (!(Math.abs(M[p][c]) > 1e-300)) return null;
+    [M[c], M[p]] = [M[p], M[c]];
+    for (let r = c + 1; r < n; r++) {
+      const k = M[r][c] / M[c][c];
+      for (let j = c; j <= n; j++) M[r][j] -= k * M[c][j];
+    }
+  }
+  const x = new Array<number>(n).fill(0);
+  for (let r = n - 1; r >= 0; r--) {
+    let s = M[r][n];
+    for (let j = r + 1; j < n; j++) s -= M[r][j] * x[j];
+    x[r] = s / M[r][r];
+  }
+  return x;
+}

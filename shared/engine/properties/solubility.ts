@@ -306,6 +306,8 @@ export function liquidPhaseSeparation(input: {
   const sys: VleSystem = {
     components: components.map((g) => ({ antoine: [], unifac: g, nonVolatile: true })),
     unifac: model,
+    regressedPairs: [],
+    warnings: [],
   };
   const split = liquidLiquidSplit(sys, zAll, T_K);
   if (!split.split) return { kind: 'none', warnings: split.warnings };

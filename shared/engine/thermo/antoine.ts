@@ -192,8 +192,16 @@ const GL8_W = [
 ];
 
 /**
- * Vapour pressure with its slope; same rules as {@link vapourPressure}.
- * The solvers use the slope for Newton steps.
+ * Vapour pressure with its slope; same rules, sources and validity as
+ * {@link vapourPressure}. The solvers use the slope for Newton steps.
+ *
+ * Source: as vapourPressure (Perry 8e Table 2-8, VDI PPDS, Antoine sets, Clausius–Clapeyron).
+ * Validity: as vapourPressure.
+ *
+ * @param sets   Antoine sets, in order of preference (may be empty)
+ * @param T_K    temperature [K], > 0
+ * @param extra  correlation, TbK [K], dHvapJmol [J/mol] (see VapourPressureExtra)
+ * @returns pressurePa [Pa], dlnPdT [1/K], method, source, warnings
  */
 export function vapourPressureWithSlope(
   sets: readonly AntoineSet[],
@@ -370,6 +378,8 @@ export function vapourPressure(
  * point at P), by Brent's method (numerics/roots.ts) on ln P^sat(T) − ln P
  * with the same vapour-pressure rules as {@link vapourPressure}.
  *
+ * Source: as vapourPressure; Brent 1973 for the root.
+ *
  * @param sets   Antoine sets, in order of preference (may be empty)
  * @param P_Pa   pressure [Pa], > 0
  * @param extra  as vapourPressure
@@ -409,6 +419,9 @@ export function saturationTemperature(
  * @param set   Antoine constants and form
  * @param P_Pa  pressure [Pa], > 0
  * @returns     temperature [K]; no range check (compare with set.TminK/TmaxK)
+ *
+ * Source: Antoine, C. R. Acad. Sci. 1888, 107, 681 (the equation solved for T).
+ * Validity: the set's range [TminK, TmaxK].
  *
  * Example: water (Poling 5e set) at 101 325 Pa → ≈ 373.2 K.
  */

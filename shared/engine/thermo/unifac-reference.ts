@@ -12,9 +12,14 @@ import { indexUnifacGroups } from './unifac';
 
 /**
  * ln γ_i [–] by the textbook equations.
- * @param components  subgroup counts per component
+ *
+ * Source: Fredenslund, Jones & Prausnitz, AIChE J. 1975, 21, 1086; parameters
+ * Hansen et al. 1991 (data/unifac.ts). Validity: as createUnifac.
+ *
+ * @param components  subgroup counts per component (subgroup number → count [–])
  * @param x           mole fractions [–], summing to 1
  * @param T_K         temperature [K]
+ * @returns ln γ_i [–]
  */
 export function referenceLnGammas(
   components: readonly UnifacGroups[],

@@ -9,6 +9,7 @@ import {
   type VleComponent,
   type VleSystem,
 } from '../thermo/vle';
+import { vleComponentOf } from '../thermo/mutual-solubility';
 import {
   distributionRatio,
   neutralFraction,
@@ -44,17 +45,10 @@ export function solventVle(ctx: EvalContext, ids: string[]): SolventVle {
   const key = ids.map((id) => ctx.comps.get(id)!.solvent!.id).join('|');
   let sys = vleCache.get(key);
   if (!sys) {
-    const comps: VleComponent[] = ids.map((id) => {
-      const s = ctx.comps.get(id)!.solvent!;
-      return {
-        name: s.name,
-        antoine: s.antoine,
-        vapourPressure: s.vapourPressure,
-        unifac: s.unifac.value,
-        TbK: s.boilingPointC.value + 273.15,
-        dHvapJmol: s.enthalpyVapKJmol ? s.enthalpyVapKJmol.value * 1000 : undefined,
-      };
-    });
+    const water = solventById('water');
+    const comps: VleComponent[] = ids.map((id) =>
+      vleComponentOf(ctx.comps.get(id)!.solvent!, water),
+    );
     sys = createVleSystem(comps);
     if (vleCache.size > 200) vleCache.clear();
     vleCache.set(key, sys);

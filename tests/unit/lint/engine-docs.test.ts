@@ -1,0 +1,132 @@
+/**
+ * Engine documentation standard, checked with the TypeScript compiler API.
+ *
+ * Convention (docs/methods.md, "Documentation of engine functions"): every
+ * exported function of the covered engine folders has a JSDoc comment that
+ *  - states its source: a line starting "Source" (or "Sources", "Source and
+ *    formula", "Source and validity") or an `@source` tag;
+ *  - states its validity range: a line starting "Validity" (or "Source and
+ *    validity") or a `@validity` tag;
+ *  - documents every parameter with `@param name …`; a numeric parameter
+ *    (number, number[], ArrayLike<number>, Float64Array) carries its unit in
+ *    square brackets, `[–]` for dimensionless values; an options object may
+ *    document its fields as `@param opts.field … [unit]`;
+ *  - says what it returns (`@returns`) unless it returns nothing.
+ * The formula goes in the description (or "Formula:"), or the function says
+ * where it is ("see the module comment").
+ *
+ * Covered so far: shared/engine/numerics, shared/engine/thermo (the unit
+ * operations follow as their owners bring them up to the standard).
+ */
+import { describe, expect, it } from 'vitest';
+import { readdirSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
+import ts from 'typescript';
+
+const ENGINE = fileURLToPath(new URL('../../../shared/engine/', import.meta.url));
+const COVERED = ['numerics', 'thermo'];
+
+interface Finding {
+  file: string;
+  fn: string;
+  problem: string;
+}
+
+function exportedFunctions(file: string): Array<{ name: string; node: ts.FunctionDeclaration }> {
+  const text = readFileSync(file, 'utf8');
+  const sf = ts.createSourceFile(file, text, ts.ScriptTarget.Latest, true);
+  const out: Array<{ name: string; node: ts.FunctionDeclaration }> = [];
+  sf.forEachChild((n) => {
+    if (
+      ts.isFunctionDeclaration(n) &&
+      n.name &&
+      n.modifiers?.some((m) => m.kind === ts.SyntaxKind.ExportKeyword)
+    )
+      out.push({ name: n.name.text, node: n });
+  });
+  return out;
+}
+
+function jsDocText(node: ts.Node): string {
+  return ts
+    .getJSDocCommentsAndTags(node)
+    .map((d) => d.getText())
+    .join('\n');
+}
+
+export function checkFile(file: string): Finding[] {
+  const findings: Finding[] = [];
+  const seen = new Set<string>();
+  for (const { name, node } of exportedFunctions(file)) {
+    // Overloads: document the implementation once.
+    if (seen.has(name)) continue;
+    seen.add(name);
+    const doc = jsDocText(node);
+    const add = (problem: string) => findings.push({ file, fn: name, problem });
+    if (!doc) {
+      add('no JSDoc comment');
+      continue;
+    }
+    if (!/(^|\n)\s*\*?\s*(Sources?\b|Source and)|@source/.test(doc)) add('no source');
+    if (!/(^|\n)\s*\*?\s*(Validity\b|Source and validity)|@validity|validity/i.test(doc))
+      add('no validity range');
+    for (const p of node.parameters) {
+      const pname = p.name.getText();
+      if (ts.isObjectBindingPattern(p.name)) continue;
+      const re = new RegExp(`@param\\s+${pname.replace(/[$]/g, '\\$')}\\b[^\\n]*`, 'g');
+      const lines = [...doc.matchAll(re)].map((m) => m[0]);
+      // Fields of an options object: @param opts.field … [unit] counts for opts.
+      const fieldLines = [...doc.matchAll(new RegExp(`@param\\s+${pname}\\.\\w+[^\\n]*`, 'g'))];
+      if (lines.length === 0 && fieldLines.length === 0) {
+        add(`parameter ${pname} undocumented`);
+        continue;
+      }
+      const typeText = p.type?.getText() ?? '';
+      const numeric =
+        /\bnumber\b|Float64Array|ArrayLike<number>/.test(typeText) && !/=>|[{&]/.test(typeText);
+      const all = [...lines, ...fieldLines.map((m) => m[0])].join('\n');
+      if (numeric && !/\[[^\]]+\]/.test(all)) add(`parameter ${pname} has no unit in [brackets]`);
+    }
+    const returnsVoid =
+      node.type?.kind === ts.SyntaxKind.VoidKeyword ||
+      (!node.type && !/return\s+[^;]/.test(node.body?.getText() ?? ''));
+    if (!returnsVoid && !/@returns?\b/.test(doc) && !/\bReturns\b/.test(doc))
+      add('return value undocumented');
+  }
+  return findings;
+}
+
+function filesUnder(dir: string): string[] {
+  return readdirSync(dir, { withFileTypes: true }).flatMap((e) =>
+    e.isDirectory()
+      ? filesUnder(join(dir, e.name))
+      : e.name.endsWith('.ts')
+        ? [join(dir, e.name)]
+        : [],
+  );
+}
+
+describe('engine documentation standard', () => {
+  for (const folder of COVERED) {
+    it(`every exported function in shared/engine/${folder} states source, validity and units`, () => {
+      const findings = filesUnder(join(ENGINE, folder)).flatMap(checkFile);
+      expect(findings.map((f) => `${f.file.slice(ENGINE.length)} ${f.fn}: ${f.problem}`)).toEqual(
+        [],
+      );
+    });
+  }
+
+  it('the check fails on a function that lacks them (the rule can fire)', () => {
+    const tmp = fileURLToPath(new URL('./fixtures/undocumented.ts.txt', import.meta.url));
+    const findings = checkFile(tmp);
+    expect(findings.map((f) => f.problem)).toEqual(
+      expect.arrayContaining([
+        'no source',
+        'no validity range',
+        'parameter T_K has no unit in [brackets]',
+        'parameter P undocumented',
+      ]),
+    );
+  });
+});
