@@ -39,6 +39,20 @@ export const paths = {
       to: (id: string, routeId: string) =>
         `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}`,
     },
+    revisions: {
+      pattern: '/w/:workspaceId/routes/:routeId/revisions',
+      to: (id: string, routeId: string) =>
+        `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}/revisions`,
+    },
+    revision: {
+      pattern: '/w/:workspaceId/routes/:routeId/revisions/:number',
+      to: (id: string, routeId: string, number: number) =>
+        `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}/revisions/${number}`,
+    },
+    audit: {
+      pattern: '/w/:workspaceId/audit',
+      to: (id: string) => `/w/${encodeURIComponent(id)}/audit`,
+    },
   },
 } as const;
 
@@ -71,4 +85,23 @@ export const api = {
   compound: (workspaceId: string, compoundId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds/${encodeURIComponent(compoundId)}`,
   structurePreview: '/api/v1/structures/preview',
+  revisions: (workspaceId: string, routeId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/routes/${encodeURIComponent(routeId)}/revisions`,
+  revision: (workspaceId: string, routeId: string, number: number) =>
+    `${api.revisions(workspaceId, routeId)}/${number}`,
+  revisionCompare: (workspaceId: string, routeId: string, a: number, b: number) =>
+    `${api.revisions(workspaceId, routeId)}/${a}/compare/${b}`,
+  revisionReviewRequests: (workspaceId: string, routeId: string, number: number) =>
+    `${api.revisions(workspaceId, routeId)}/${number}/review-requests`,
+  revisionComments: (workspaceId: string, routeId: string, number: number) =>
+    `${api.revisions(workspaceId, routeId)}/${number}/comments`,
+  revisionDecisions: (workspaceId: string, routeId: string, number: number) =>
+    `${api.revisions(workspaceId, routeId)}/${number}/decisions`,
+  attention: (workspaceId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/attention`,
+  audit: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit`,
+  auditVerify: (workspaceId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit/verify`,
+  auditCsv: (workspaceId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit/export.csv`,
 } as const;

@@ -92,7 +92,27 @@ export async function saveRevision(
     throw conflict('route_archived', 'This route is archived; unarchive it to save a revision.');
   const draft = await lockDraft(route.id, transaction);
   if (draft.version !== input.baseDraftVersion) throw staleDraft(draft);
-  const document = JSON.parse(JSON.stringify(draft.document)) as DraftDocument;
+  return storeRevision(
+    route,
+    draft.document as DraftDocument,
+    { message: input.message, draftVersion: draft.version },
+    actorId,
+    transaction,
+  );
+}
+
+/**
+ * Stores a document as the route's next revision with the server's own
+ * evaluation and content hash (the caller holds the draft lock, or seeds).
+ */
+export async function storeRevision(
+  route: Route,
+  source: DraftDocument,
+  input: { message: string; draftVersion: number },
+  actorId: string,
+  transaction: Transaction | null,
+): Promise<RouteRevision> {
+  const document = JSON.parse(JSON.stringify(source)) as DraftDocument;
   const evaluation = evaluateForRevision(document);
   const contentHash = revisionContentHash({
     document,
@@ -115,7 +135,7 @@ export async function saveRevision(
       totals: evaluation.totals,
       engineVersion: ENGINE_VERSION,
       contentHash,
-      draftVersion: draft.version,
+      draftVersion: input.draftVersion,
       authorId: actorId,
     },
     { transaction },
@@ -133,7 +153,7 @@ export async function saveRevision(
         message: revision.message,
         contentHash,
         engineVersion: ENGINE_VERSION,
-        draftVersion: draft.version,
+        draftVersion: input.draftVersion,
       },
     },
     transaction,

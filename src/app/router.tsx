@@ -40,6 +40,15 @@ export function createAppRouter() {
                   path: paths.workspace.route.pattern,
                   lazy: () => import('@/routes/route-editor'),
                 },
+                {
+                  path: paths.workspace.revisions.pattern,
+                  lazy: () => import('@/routes/revisions'),
+                },
+                {
+                  path: paths.workspace.revision.pattern,
+                  lazy: () => import('@/routes/revision'),
+                },
+                { path: paths.workspace.audit.pattern, lazy: () => import('@/routes/audit') },
                 { path: paths.workspace.members.pattern, lazy: () => import('@/routes/members') },
                 {
                   path: paths.workspace.compounds.pattern,

@@ -4,6 +4,7 @@ import { useWorkspace } from '@/features/auth/use-workspace';
 import { Loading } from '@/components/spinner';
 import { ErrorState } from '@/components/error-state';
 import { useRoute } from '@/features/routes/api/get-route';
+import { RevisionActions } from '@/features/review';
 
 // The canvas, React Flow and the engine worker load only when a route is opened.
 const RouteEditor = lazy(() => import('@/features/editor/components/route-editor'));
@@ -27,7 +28,19 @@ export function Component() {
         </div>
       ) : (
         <Suspense fallback={<Loading label="Loading the editor…" className="justify-center" />}>
-          <RouteEditor key={route.data.id} workspaceId={workspace.id} route={route.data} />
+          <RouteEditor
+            key={route.data.id}
+            workspaceId={workspace.id}
+            route={route.data}
+            actions={({ canEdit, saveNow }) => (
+              <RevisionActions
+                workspaceId={workspace.id}
+                routeId={route.data.id}
+                canSave={canEdit}
+                saveDraft={saveNow}
+              />
+            )}
+          />
         </Suspense>
       )}
     </div>

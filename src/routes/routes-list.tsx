@@ -13,6 +13,7 @@ import { paths } from '@/paths';
 import { useRoutes } from '@/features/routes/api/get-routes';
 import { CreateRouteForm } from '@/features/routes/components/create-route-form';
 import { RoutesTable } from '@/features/routes/components/routes-table';
+import { AttentionList } from '@/features/review';
 
 /** The workspace home: its routes, grouped by project, and a way to start a new one. */
 export function Component() {
@@ -50,6 +51,7 @@ export function Component() {
           </>
         }
       />
+      <AttentionList workspaceId={workspace.id} />
       {canWrite && creating ? (
         <div className="mb-4">
           <CreateRouteForm workspaceId={workspace.id} onCancel={() => setCreating(false)} />

@@ -120,6 +120,11 @@ function Shell({ session }: { session: Session }) {
                 <NavItem to={paths.workspace.members.to(workspaceId)} glyph={<PeopleGlyph />}>
                   Members
                 </NavItem>
+                {session.workspaces.find((w) => w.id === workspaceId)?.roles.includes('admin') ? (
+                  <NavItem to={paths.workspace.audit.to(workspaceId)} glyph={<PeopleGlyph />}>
+                    Audit trail
+                  </NavItem>
+                ) : null}
               </NavGroup>
             ) : null}
             <NavGroup label="You">

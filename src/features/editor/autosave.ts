@@ -13,6 +13,29 @@ import { normaliseDocument } from './document';
 
 const DEBOUNCE_MS = 800;
 const key = (routeId: string) => `phasewright.draft.${routeId}`;
+/** The chemist's own version, kept when they took someone else's after a conflict. */
+const keptKey = (routeId: string) => `phasewright.draft.${routeId}.kept`;
+
+export function readKeptCopy(routeId: string): EditorDoc | null {
+  try {
+    const raw = localStorage.getItem(keptKey(routeId));
+    return raw ? (JSON.parse(raw) as { document: EditorDoc }).document : null;
+  } catch {
+    return null;
+  }
+}
+function writeKeptCopy(routeId: string, document: EditorDoc | null) {
+  try {
+    if (document)
+      localStorage.setItem(
+        keptKey(routeId),
+        JSON.stringify({ document, keptAt: new Date().toISOString() }),
+      );
+    else localStorage.removeItem(keptKey(routeId));
+  } catch {
+    /* storage full or disabled: Undo still brings it back in this tab */
+  }
+}
 
 type LocalCopy = { document: EditorDoc; baseVersion: number; savedAt: string; dirty: boolean };
 
@@ -65,6 +88,7 @@ export function useAutosave(
   const saving = useRef(false);
   const again = useRef(false);
   const blocked = useRef(false);
+  const [kept, setKept] = useState<EditorDoc | null>(() => readKeptCopy(routeId));
 
   const flush = useCallback(async () => {
     if (!canEdit || blocked.current) return;
@@ -130,12 +154,19 @@ export function useAutosave(
     };
   }, [flush, routeId, canEdit, startDirty]);
 
-  /** Take the other version: their document replaces mine (mine stays undoable). */
+  /**
+   * Take the other version: their document replaces mine as one edit, so Undo
+   * brings mine back; mine is also kept on this computer until dismissed.
+   */
   const takeTheirs = useCallback(
     (current: DraftConflict['current']) => {
+      const mine = useEditorStore.getState().doc;
+      writeKeptCopy(routeId, mine);
+      setKept(mine);
       base.current = current.version;
+      // Still blocked while theirs comes in, so it is not saved back as a change.
+      useEditorStore.getState().replaceDocument(normaliseDocument(current.document));
       blocked.current = false;
-      useEditorStore.getState().load(normaliseDocument(current.document));
       writeLocalCopy(routeId, {
         document: useEditorStore.getState().doc,
         baseVersion: current.version,
@@ -157,8 +188,38 @@ export function useAutosave(
     [flush],
   );
 
+  /** Puts the kept version back (it is then saved on top of theirs, knowingly). */
+  const restoreMine = useCallback(() => {
+    if (!kept) return;
+    useEditorStore.getState().replaceDocument(kept);
+    writeKeptCopy(routeId, null);
+    setKept(null);
+  }, [kept, routeId]);
+  const dismissKept = useCallback(() => {
+    writeKeptCopy(routeId, null);
+    setKept(null);
+  }, [routeId]);
+
+  /** Saves pending edits now; answers the draft version on the server, or null when it could not be saved. */
+  const saveNow = useCallback(async (): Promise<number | null> => {
+    if (!canEdit) return base.current;
+    if (timer.current) clearTimeout(timer.current);
+    const idle = async () => {
+      for (let i = 0; i < 100 && saving.current; i += 1)
+        await new Promise((resolve) => setTimeout(resolve, 100));
+    };
+    await idle();
+    if (readLocalCopy(routeId)?.dirty) await flush();
+    await idle();
+    return blocked.current || readLocalCopy(routeId)?.dirty ? null : base.current;
+  }, [canEdit, flush, routeId]);
+
   return {
     state,
+    kept,
+    restoreMine,
+    dismissKept,
+    saveNow,
     takeTheirs,
     keepMine,
     flush,

@@ -1,6 +1,6 @@
 import '@xyflow/react/dist/style.css';
 import './editor.css';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { ReactFlowProvider, useReactFlow, type ReactFlowInstance } from '@xyflow/react';
 import { useShallow } from 'zustand/react/shallow';
 import { Link } from 'react-router-dom';
@@ -12,6 +12,8 @@ import type { DraftConflict, RouteDetail } from '@/features/routes';
 import { useWorkspaceCompounds } from '@/features/routes';
 import { requestEvaluation, resetEvaluation, useEvaluation } from '../evaluation';
 import { initialDocument, useAutosave, type SaveState } from '../autosave';
+import { normaliseDocument } from '../document';
+import { useStepMarks, type StepMark } from '../marks';
 import { autoLayout } from '../layout';
 import { KINDS } from '../step-kinds';
 import { Canvas } from './canvas';
@@ -25,20 +27,51 @@ import { SEVERITY_LABEL, SEVERITY_ORDER, SeverityChip, SeverityMark } from './ph
 /** An edit's result later than this dims the cards' numbers as stale. */
 const STALE_AFTER_MS = 150;
 
+/** A saved revision opened read-only: its document, what the header says, extra side tabs and canvas marks. */
+export interface EditorView {
+  document: RouteDetail['draft']['document'];
+  heading: ReactNode;
+  tabs: Array<{ id: string; label: string; content: ReactNode }>;
+  initialTab?: string;
+  marks?: Record<string, StepMark>;
+}
+
+/** What the draft's header actions may do: save pending edits now (the version then on the server, or null). */
+export interface DraftControls {
+  canEdit: boolean;
+  saveNow: () => Promise<number | null>;
+}
+
 export default function RouteEditor({
   workspaceId,
   route,
+  view,
+  actions,
 }: {
   workspaceId: string;
   route: RouteDetail;
+  view?: EditorView;
+  actions?: (draft: DraftControls) => ReactNode;
 }) {
-  const start = useMemo(() => initialDocument(route.id, route.draft), [route.id, route.draft]);
+  const start = useMemo(
+    () =>
+      view
+        ? { doc: normaliseDocument(view.document), restored: false, staleLocal: null }
+        : initialDocument(route.id, route.draft),
+    [route.id, route.draft, view?.document], // eslint-disable-line react-hooks/exhaustive-deps
+  );
   const [ready, setReady] = useState(false);
+  const viewing = view !== undefined;
   useEffect(() => {
-    useEditorStore.getState().load(start.doc, { readOnly: !route.abilities.edit });
+    useEditorStore.getState().load(start.doc, { readOnly: viewing || !route.abilities.edit });
     setReady(true);
     return () => resetEvaluation();
-  }, [start, route.abilities.edit]);
+  }, [start, route.abilities.edit, viewing]);
+  const marks = view?.marks;
+  useEffect(() => {
+    useStepMarks.setState({ marks: marks ?? {} });
+    return () => useStepMarks.setState({ marks: {} });
+  }, [marks]);
   if (!ready) return null;
   return (
     <ReactFlowProvider>
@@ -47,6 +80,8 @@ export default function RouteEditor({
         route={route}
         restored={start.restored}
         staleLocal={start.staleLocal !== null}
+        view={view}
+        actions={actions}
       />
     </ReactFlowProvider>
   );
@@ -57,24 +92,32 @@ function EditorFrame({
   route,
   restored,
   staleLocal,
+  view,
+  actions,
 }: {
   workspaceId: string;
   route: RouteDetail;
   restored: boolean;
   staleLocal: boolean;
+  view?: EditorView;
+  actions?: (draft: DraftControls) => ReactNode;
 }) {
-  const canEdit = route.abilities.edit;
+  const canEdit = !view && route.abilities.edit;
   const save = useAutosave(workspaceId, route.id, route.draft, canEdit, restored);
   const compounds = useWorkspaceCompounds(workspaceId);
-  const [tab, setTab] = useState<ResultTab>('cautions');
+  const viewTabs = view?.tabs ?? [];
+  const viewTabKey = viewTabs.map((v) => v.id).join(' ');
+  const [tab, setTab] = useState<string>(view?.initialTab ?? 'cautions');
   const selectedId = useEditorStore((s) =>
     s.selection.steps.length === 1 ? s.selection.steps[0] : null,
   );
   // Choosing a step shows its settings (a jump from the caution list keeps the list).
   useEffect(() => {
-    if (selectedId && !cautionJump.current) setTab('step');
+    // A page's own tab (the review) stays open: choosing a step there picks what to comment on.
+    if (selectedId && !cautionJump.current)
+      setTab((t) => (viewTabKey.split(' ').includes(t) ? t : 'step'));
     cautionJump.current = false;
-  }, [selectedId]);
+  }, [selectedId, viewTabKey]);
   const selectedCautions = useEvaluation((s) =>
     selectedId ? (s.result?.warnings ?? []).filter((w) => w.stepId === selectedId).length : 0,
   );
@@ -234,8 +277,9 @@ function EditorFrame({
         {route.project ? (
           <span className="text-small text-ink-muted">{route.project.name}</span>
         ) : null}
-        <SaveIndicator state={save.state} canEdit={canEdit} />
+        {view ? view.heading : <SaveIndicator state={save.state} canEdit={canEdit} />}
         <div className="ml-auto flex items-center gap-1">
+          {!view && actions ? actions({ canEdit, saveNow: save.saveNow }) : null}
           <Button
             size="sm"
             variant="secondary"
@@ -293,6 +337,24 @@ function EditorFrame({
           onMine={save.keepMine}
         />
       ) : null}
+      {save.kept && !view ? (
+        <div
+          role="status"
+          className="flex flex-wrap items-center gap-3 border-b border-rule bg-phase-aqueous-soft px-4 py-1.5 text-small text-phase-aqueous-deep"
+          data-kept-version
+        >
+          <span>
+            Their version is open. Yours is kept on this computer: Undo brings it back, or restore
+            it here.
+          </span>
+          <Button size="sm" variant="secondary" onClick={save.restoreMine}>
+            Restore my version
+          </Button>
+          <Button size="sm" variant="quiet" onClick={save.dismissKept}>
+            Discard my version
+          </Button>
+        </div>
+      ) : null}
       {staleLocal ? (
         <p
           role="status"
@@ -347,33 +409,35 @@ function EditorFrame({
             aria-label="Side panel"
             className="flex flex-wrap gap-x-0.5 gap-y-1 border-b border-rule bg-paper px-2 pt-1.5"
           >
-            {RESULT_TABS.map(([id, label]) => (
-              <button
-                key={id}
-                type="button"
-                role="tab"
-                id={`results-tab-${id}`}
-                aria-controls="results-panel"
-                aria-selected={tab === id}
-                onClick={() => setTab(id)}
-                className={`-mb-px flex shrink-0 items-center gap-1 rounded-t-control border px-2 py-1 text-small ${tab === id ? 'border-rule border-b-paper-raised bg-paper-raised font-medium text-ink' : 'border-transparent text-ink-muted hover:text-ink'}`}
-              >
-                {label}
-                {id === 'cautions' && cautionCount ? (
-                  <span
-                    className="inline-flex items-center gap-1 tabular-nums"
-                    data-caution-count={cautionCount}
-                    data-worst={worst ?? ''}
-                  >
-                    {worst ? <SeverityMark severity={worst} /> : null}
-                    <span>{cautionCount}</span>
-                    {worst ? (
-                      <span className="sr-only">, worst: {SEVERITY_LABEL[worst]}</span>
-                    ) : null}
-                  </span>
-                ) : null}
-              </button>
-            ))}
+            {[...viewTabs.map((v) => [v.id, v.label] as [string, string]), ...RESULT_TABS].map(
+              ([id, label]) => (
+                <button
+                  key={id}
+                  type="button"
+                  role="tab"
+                  id={`results-tab-${id}`}
+                  aria-controls="results-panel"
+                  aria-selected={tab === id}
+                  onClick={() => setTab(id)}
+                  className={`-mb-px flex shrink-0 items-center gap-1 rounded-t-control border px-2 py-1 text-small ${tab === id ? 'border-rule border-b-paper-raised bg-paper-raised font-medium text-ink' : 'border-transparent text-ink-muted hover:text-ink'}`}
+                >
+                  {label}
+                  {id === 'cautions' && cautionCount ? (
+                    <span
+                      className="inline-flex items-center gap-1 tabular-nums"
+                      data-caution-count={cautionCount}
+                      data-worst={worst ?? ''}
+                    >
+                      {worst ? <SeverityMark severity={worst} /> : null}
+                      <span>{cautionCount}</span>
+                      {worst ? (
+                        <span className="sr-only">, worst: {SEVERITY_LABEL[worst]}</span>
+                      ) : null}
+                    </span>
+                  ) : null}
+                </button>
+              ),
+            )}
           </div>
           <div
             role="tabpanel"
@@ -381,7 +445,9 @@ function EditorFrame({
             aria-labelledby={`results-tab-${tab}`}
             className="min-h-0 flex-1 overflow-y-auto p-3"
           >
-            {tab === 'step' ? (
+            {viewTabs.some((v) => v.id === tab) ? (
+              viewTabs.find((v) => v.id === tab)!.content
+            ) : tab === 'step' ? (
               selected ? (
                 <>
                   <h2 className="mb-2 text-title font-medium">

@@ -5,6 +5,7 @@ import { PORTS, type StepKind } from '@shared/schemas/route';
 import { handleId, type StepInput } from '../document';
 import { KINDS, keyParams } from '../step-kinds';
 import { useEvaluation } from '../evaluation';
+import { useStepMarks } from '../marks';
 import { PhaseMark, PHASES, SEVERITY_ORDER, SeverityChip, type Severity } from './phase';
 import { KindGlyph } from './kind-glyph';
 
@@ -37,13 +38,36 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
   const errors = useEvaluation((s) =>
     s.status === 'invalid' ? s.issues.filter((i) => i.stepId === id).length : 0,
   );
+  const mark = useStepMarks((s) => s.marks[id]);
   const rows = Math.max(ports.inputs.length, ports.outputs.length);
+  const changeRing =
+    mark?.change === 'added'
+      ? 'outline-3 outline-offset-2 outline-phase-aqueous'
+      : mark?.change === 'changed'
+        ? 'outline-3 outline-offset-2 outline-caution-warning'
+        : '';
   return (
     <article
       aria-label={`${KINDS[step.kind].label}: ${step.name}`}
       data-step-id={id}
-      className={`w-60 rounded-card border bg-paper-raised text-ink shadow-card ${selected ? 'border-accent ring-2 ring-accent/40' : 'border-rule-strong'}`}
+      data-change={mark?.change}
+      className={`relative w-60 rounded-card border bg-paper-raised text-ink shadow-card ${changeRing} ${selected ? 'border-accent ring-2 ring-accent/40' : 'border-rule-strong'}`}
     >
+      {mark?.comments ? (
+        <span
+          className="absolute -top-2.5 -right-2.5 z-10 flex h-5 min-w-5 items-center justify-center rounded-full bg-accent px-1 text-caption font-semibold text-white shadow-card"
+          data-comment-marker={mark.comments}
+          title={`${mark.comments} open comment${mark.comments === 1 ? '' : 's'}`}
+        >
+          <span aria-hidden="true">{mark.comments}</span>
+          <span className="sr-only">
+            {mark.comments} open comment{mark.comments === 1 ? '' : 's'}
+          </span>
+        </span>
+      ) : null}
+      {mark?.change ? (
+        <span className="sr-only">{mark.change === 'added' ? 'Added step' : 'Changed step'}</span>
+      ) : null}
       <header className="flex items-center gap-2 rounded-t-card border-b border-rule bg-paper-sunken px-2.5 py-1.5">
         <KindGlyph kind={step.kind} />
         <div className="min-w-0">

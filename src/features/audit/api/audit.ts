@@ -1,0 +1,37 @@
+import { useInfiniteQuery, useMutation } from '@tanstack/react-query';
+import { auditListSchema, auditVerifySchema, type AuditFilter } from '@shared/schemas/audit';
+import { apiRequest } from '@/api/client';
+import { api } from '@/paths';
+
+const query = (filter: AuditFilter, extra: Record<string, string> = {}) => {
+  const params = new URLSearchParams(extra);
+  for (const [key, value] of Object.entries(filter)) if (value) params.set(key, String(value));
+  const text = params.toString();
+  return text ? `?${text}` : '';
+};
+
+export const auditKeys = {
+  list: (workspaceId: string, filter: AuditFilter) =>
+    ['workspaces', workspaceId, 'audit', filter] as const,
+};
+
+/** The filtered trail, newest first, a page at a time ("Show more"). */
+export const useAuditTrail = (workspaceId: string, filter: AuditFilter) =>
+  useInfiniteQuery({
+    queryKey: auditKeys.list(workspaceId, filter),
+    queryFn: ({ pageParam, signal }) =>
+      apiRequest(
+        `${api.audit(workspaceId)}${query(filter, { limit: '100', ...(pageParam ? { cursor: pageParam } : {}) })}`,
+        { schema: auditListSchema, signal },
+      ),
+    initialPageParam: '',
+    getNextPageParam: (last) => last.nextCursor ?? undefined,
+  });
+
+export const useVerifyAudit = (workspaceId: string) =>
+  useMutation({
+    mutationFn: () => apiRequest(api.auditVerify(workspaceId), { schema: auditVerifySchema }),
+  });
+
+export const auditCsvUrl = (workspaceId: string, filter: AuditFilter) =>
+  `${api.auditCsv(workspaceId)}${query(filter)}`;

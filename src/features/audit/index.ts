@@ -1,0 +1,2 @@
+// The audit feature's public face.
+export { AuditTrail } from './components/audit-trail';

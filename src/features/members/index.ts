@@ -1,0 +1,2 @@
+// The members feature's public face.
+export { useMembers } from './api/get-members';

@@ -1,0 +1,26 @@
+import { PageHeader } from '@/components/page-header';
+import { useWorkspace } from '@/features/auth/use-workspace';
+import { AuditTrail } from '@/features/audit';
+
+/** The workspace's audit trail (admins). */
+export function Component() {
+  const workspace = useWorkspace();
+  if (!workspace.roles.includes('admin'))
+    return (
+      <div className="p-6">
+        <PageHeader
+          title="Audit trail"
+          description="Only admins of this workspace read the audit trail."
+        />
+      </div>
+    );
+  return (
+    <div className="p-6">
+      <PageHeader
+        title="Audit trail"
+        description="Every change in this workspace and every sign-in of its members: who, when (database clock, UTC), old and new values. Nobody can edit it."
+      />
+      <AuditTrail workspaceId={workspace.id} />
+    </div>
+  );
+}
