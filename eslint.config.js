@@ -128,4 +128,19 @@ export default tseslint.config(
       'no-restricted-globals': ['error', 'window', 'document', 'fetch', 'localStorage'],
     },
   },
+  {
+    // Every payload string is storable text (no NUL, no lone surrogate): build it with text().
+    files: ['shared/schemas/**/*.ts', 'shared/engine/document.ts', 'server/routes/**/*.ts'],
+    ignores: ['shared/schemas/errors.ts'],
+    rules: {
+      'no-restricted-properties': [
+        'error',
+        {
+          object: 'z',
+          property: 'string',
+          message: 'Use text() from @shared/schemas/text: it refuses NUL and broken Unicode.',
+        },
+      ],
+    },
+  },
 );

@@ -14,6 +14,9 @@ export const ERROR_STATUS = {
   validation_failed: 400,
   bad_request: 400,
   malformed_json: 400,
+  malformed_path: 400,
+  unreadable_body: 400,
+  unstorable_text: 400,
   unauthenticated: 401,
   invalid_credentials: 401,
   invalid_token: 401,
@@ -34,22 +37,31 @@ export const ERROR_STATUS = {
   revision_superseded: 409,
   already_decided: 409,
   invalid_reviewers: 422,
+  job_finished: 409,
   reset_used: 410,
   reset_expired: 410,
   invitation_used: 410,
   invitation_expired: 410,
   payload_too_large: 413,
+  route_too_large: 413,
   unsupported_encoding: 415,
+  unsupported_charset: 415,
   structure_unparsable: 422,
   unifac_missing_parameters: 422,
   no_data: 422,
   not_computable: 422,
   route_invalid: 422,
   route_unevaluable: 422,
+  evaluation_timeout: 422,
+  result_too_large: 422,
   account_locked: 423,
   rate_limited: 429,
+  too_many_evaluations: 429,
+  too_many_jobs: 429,
   internal_error: 500,
   service_unavailable: 503,
+  database_unavailable: 503,
+  server_busy: 503,
 } as const satisfies Record<ApiErrorCode, number>;
 
 type Status = (typeof ERROR_STATUS)[ApiErrorCode];
@@ -142,6 +154,81 @@ export const versionConflict = (
     'version_conflict',
     `This ${what} was changed by someone else after you opened it (it is now at version ${current.version}). Your change was not saved; reload to see theirs, then make yours again.`,
     { version: current.version, updatedAt: current.updatedAt.toISOString() },
+  );
+export const malformedPath = () =>
+  apiError(
+    'malformed_path',
+    'The address contains a malformed %-escape; check the link and try again.',
+  );
+export const unreadableBody = () =>
+  apiError(
+    'unreadable_body',
+    'The request body could not be read (damaged compression or an interrupted upload).',
+  );
+export const unstorableText = () =>
+  apiError(
+    'unstorable_text',
+    'Some text contains a character that cannot be stored (an invisible NUL character or half of a broken Unicode character); retype it.',
+  );
+export const unsupportedCharset = () =>
+  apiError('unsupported_charset', 'Send the request body as UTF-8 JSON.');
+export const unsupportedEncoding = () =>
+  apiError(
+    'unsupported_encoding',
+    'The request body is compressed in a way the server does not accept; send it as plain, gzip, deflate or br.',
+  );
+export const routeTooLarge = (what: string, limit: string) =>
+  apiError(
+    'route_too_large',
+    `This ${what}; the server evaluates at most ${limit} in one request. Split the route, or ask for fewer draws.`,
+  );
+export const resultTooLarge = (bytes: number, limitBytes: number) =>
+  apiError(
+    'result_too_large',
+    `The result would be ${(bytes / 1e6).toFixed(1)} MB, more than the ${(limitBytes / 1e6).toFixed(0)} MB the server sends in one reply. Evaluate a smaller part of the route.`,
+  );
+export const evaluationTimedOut = (ms: number) =>
+  apiError(
+    'evaluation_timeout',
+    `The calculation took longer than ${Math.round(ms / 1000)} s and was stopped. Split the route, or ask for fewer draws.`,
+  );
+/** An AppError with a Retry-After header (seconds). */
+const retryAfter = (error: AppError, seconds: number) =>
+  new AppError(error.body, {
+    ...error.headers,
+    'Retry-After': String(Math.max(1, Math.ceil(seconds))),
+  });
+export const tooManyEvaluations = (limit: number) =>
+  retryAfter(
+    apiError(
+      'too_many_evaluations',
+      `You already have ${limit} calculation${limit === 1 ? '' : 's'} running; wait for ${limit === 1 ? 'it' : 'one'} to finish.`,
+    ),
+    2,
+  );
+export const tooManyJobs = (limit: number) =>
+  retryAfter(
+    apiError(
+      'too_many_jobs',
+      `You already have ${limit} uncertainty run${limit === 1 ? '' : 's'} queued or running; wait for one to finish or cancel it.`,
+    ),
+    10,
+  );
+export const serverBusy = () =>
+  retryAfter(
+    apiError(
+      'server_busy',
+      'The server is busy with other calculations; try again in a few seconds.',
+    ),
+    5,
+  );
+export const databaseUnavailable = () =>
+  retryAfter(
+    apiError(
+      'database_unavailable',
+      'The database cannot be reached at the moment; try again in a minute. A change you were making was not saved.',
+    ),
+    10,
   );
 export const payloadTooLarge = () =>
   apiError('payload_too_large', 'The request body is too large.');

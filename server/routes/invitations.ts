@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { text } from '@shared/schemas/text';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { acceptInvitationSchema, invitationInfoSchema } from '@shared/schemas/members';
 import { sessionSchema } from '@shared/schemas/session';
@@ -12,7 +13,7 @@ import { presentInvitationInfo, presentSession } from '../presenters';
 import { loadActor } from '../services/actors';
 import { acceptInvitation, loadOpenInvitation, userExists } from '../services/invitations';
 
-const tokenParams = z.object({ token: z.string().min(20).max(200) });
+const tokenParams = z.object({ token: text().min(20).max(200) });
 const unusable = {
   404: { description: 'Unknown invitation.', schema: apiErrorSchema },
   410: { description: 'Already used or expired.', schema: apiErrorSchema },

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { text } from '@shared/schemas/text';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { completeResetSchema, requestResetSchema } from '@shared/schemas/password-reset';
 import type { AppConfig } from '../config';
@@ -37,7 +38,7 @@ export function passwordResetsRouter(config: AppConfig): Router {
       'Set a new password with the link from the e-mail (single use, 1 hour). Ends all sessions.',
     tags: ['password resets'],
     auth: false,
-    params: z.object({ token: z.string().min(20).max(200) }),
+    params: z.object({ token: text().min(20).max(200) }),
     body: completeResetSchema,
     before: [resetLimiter],
     responses: {

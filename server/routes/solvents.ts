@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { text } from '@shared/schemas/text';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { solventDetailSchema, solventListSchema } from '@shared/schemas/solvents';
 import { defineRoute } from '../http/route';
@@ -33,7 +34,7 @@ export function solventsRouter(): Router {
     tags: ['solvents'],
     auth: true,
     transaction: false,
-    params: z.object({ solventId: z.string().min(1).max(80) }),
+    params: z.object({ solventId: text().min(1).max(80) }),
     responses: {
       200: { description: 'The solvent.', schema: solventDetailSchema },
       404: { description: 'No such solvent.', schema: apiErrorSchema },

@@ -98,6 +98,9 @@ function load(input: StructureInput): { ok: true; mol: Molecule } | { ok: false;
     const bracketProblem = smilesBracketProblem(s);
     if (bracketProblem)
       return { ok: false, error: `Cannot read the SMILES "${s}": ${bracketProblem}` };
+    // "()" or "[]" parse to nothing: a compound needs at least one atom.
+    if (mol.getAllAtoms() === 0)
+      return { ok: false, error: `The SMILES "${s}" describes no atoms; enter the structure.` };
     return { ok: true, mol };
   }
   const m = input.molfile ?? '';
@@ -130,6 +133,11 @@ export function parseStructure(input: StructureInput): ParsedStructure {
   const mol = r.mol;
   try {
     const mf = mol.getMolecularFormula();
+    if (!(mf.relativeWeight > 0))
+      return {
+        ok: false,
+        error: 'The structure has no atoms with a molar mass; enter the structure.',
+      };
     let heavy = 0;
     for (let i = 0; i < mol.getAllAtoms(); i++) if (mol.getAtomicNo(i) !== 1) heavy++;
     return {

@@ -14,6 +14,7 @@
  * docs/route-format.md documents every field.
  */
 import { z } from 'zod';
+import { identifier, text } from './text';
 
 export const ROUTE_SCHEMA_VERSION = 1 as const;
 
@@ -40,7 +41,7 @@ export const RANGES = {
 } as const;
 
 const temperatureC = uncertain(...RANGES.temperatureC);
-const id = z.string().min(1).max(80);
+const id = identifier();
 
 /** A liquid volume: litres, or "vol" (L per kg of the reference input). */
 export const volumeSchema = z
@@ -56,7 +57,7 @@ export const pKaSchema = z
 
 /** UNIFAC subgroup counts keyed by subgroup number (Hansen et al. 1991 table). */
 export const unifacGroupsSchema = z.record(
-  z.string().regex(/^\d+$/, 'UNIFAC subgroup keys are subgroup numbers'),
+  text().regex(/^\d+$/, 'UNIFAC subgroup keys are subgroup numbers'),
   z.number().int().min(1).max(100),
 );
 
@@ -66,7 +67,7 @@ export const solubilityPointSchema = z
     temperatureC: finite().min(-100).max(300),
     value: finite().positive(),
     unit: z.enum(['g/L', 'mg/mL', 'mole-fraction', 'wt%']),
-    source: z.string().max(300).optional(),
+    source: text().max(300).optional(),
   })
   .strict();
 
@@ -95,7 +96,7 @@ export const partitionPointSchema = z
     pH: finite().min(-2).max(16).optional(),
     temperatureC: finite().min(-100).max(300).optional(),
     D: finite().positive(),
-    source: z.string().max(300).optional(),
+    source: text().max(300).optional(),
   })
   .strict();
 
@@ -108,9 +109,9 @@ export const compoundSnapshotSchema = z
   .object({
     kind: z.literal('compound'),
     id,
-    name: z.string().min(1).max(200),
+    name: text().min(1).max(200),
     role: z.enum(['product', 'impurity', 'reagent', 'by-product']),
-    smiles: z.string().max(2000).optional(),
+    smiles: text().max(2000).optional(),
     molarMassGmol: finite().positive().max(1e5),
     meltingPointC: finite().min(-150).max(600).optional(),
     enthalpyFusionKJmol: finite().positive().max(500).optional(),
@@ -132,7 +133,7 @@ export const compoundSnapshotSchema = z
     /** Jouyban–Acree interaction terms for solvent pairs (mixed-solvent solubility). */
     cosolvency: z.array(cosolvencySchema).max(50).optional(),
     /** Free-text note, e.g. "invented demo compound". */
-    note: z.string().max(500).optional(),
+    note: text().max(500).optional(),
   })
   .strict();
 export type CompoundSnapshot = z.infer<typeof compoundSnapshotSchema>;
@@ -448,7 +449,7 @@ export const PHASE_ACCEPTS: Record<PortPhase, readonly PortPhase[]> = {
 };
 
 const positionSchema = z.object({ x: finite(), y: finite() }).strict();
-const stepBase = { id, name: z.string().max(200), position: positionSchema.optional() };
+const stepBase = { id, name: text().max(200), position: positionSchema.optional() };
 
 export const stepSchema = z.discriminatedUnion('kind', [
   z.object({ ...stepBase, kind: z.literal('charge'), params: chargeParamsSchema }).strict(),
@@ -489,14 +490,14 @@ export type RouteStep = z.infer<typeof stepSchema>;
 export type StepOf<K extends StepKind> = Extract<RouteStep, { kind: K }>;
 export type ParamsOf<K extends StepKind> = StepOf<K>['params'];
 
-const endpointSchema = z.object({ stepId: id, port: z.string().min(1).max(40) }).strict();
+const endpointSchema = z.object({ stepId: id, port: text().min(1).max(40) }).strict();
 export const connectionSchema = z.object({ id, from: endpointSchema, to: endpointSchema }).strict();
 export type RouteConnection = z.infer<typeof connectionSchema>;
 
 export const routeDocumentSchema = z
   .object({
     schemaVersion: z.literal(ROUTE_SCHEMA_VERSION),
-    name: z.string().max(200).optional(),
+    name: text().max(200).optional(),
     /** The input mass that "vol" and "equiv" refer to. */
     referenceInput: z.object({ componentId: id, massKg: finite().positive().max(1e7) }).strict(),
     components: z.array(componentSchema).min(1).max(100),
@@ -512,21 +513,21 @@ export type RouteDocumentInput = z.input<typeof routeDocumentSchema>;
 
 export const warningSchema = z.object({
   severity: z.enum(['info', 'advisory', 'warning', 'hazard']),
-  code: z.string(),
-  message: z.string(),
+  code: text(),
+  message: text(),
 });
 export type EngineWarning = z.infer<typeof warningSchema>;
 
-export const methodSchema = z.object({ what: z.string(), method: z.string(), source: z.string() });
+export const methodSchema = z.object({ what: text(), method: text(), source: text() });
 export type MethodUsed = z.infer<typeof methodSchema>;
 
 export const streamSchema = z.object({
   phase: z.enum(['liquid', 'organic', 'aqueous', 'slurry', 'solid', 'vapour']),
   temperatureK: z.number(),
   /** Total kg of each component (dissolved, liquid and solid). */
-  kg: z.record(z.string(), z.number()),
+  kg: z.record(text(), z.number()),
   /** The part of `kg` present as solid. */
-  solidKg: z.record(z.string(), z.number()),
+  solidKg: z.record(text(), z.number()),
   /** Volume by ideal mixing of the components, m³. */
   volumeM3: z.number(),
 });

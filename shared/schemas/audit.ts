@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text';
 import { listPagingSchema, listReplySchema } from './lists';
 
 const isoDateTime = z.iso.datetime({
@@ -11,10 +12,10 @@ const isoDateOrDateTime = z.union([z.iso.date(), isoDateTime], {
 
 /** Filters of the audit trail list and its CSV export. */
 export const auditFilterSchema = z.object({
-  entityType: z.string().trim().min(1).max(80).optional(),
-  entityId: z.string().trim().min(1).max(80).optional(),
+  entityType: text().trim().min(1).max(80).optional(),
+  entityId: text().trim().min(1).max(80).optional(),
   actorId: z.uuid({ message: 'Choose a person from the list.' }).optional(),
-  action: z.string().trim().min(1).max(80).optional(),
+  action: text().trim().min(1).max(80).optional(),
   /** From this time on (a date means its start, UTC). */
   from: isoDateOrDateTime.optional(),
   /** Up to this time (a date means its end, UTC). */
@@ -24,22 +25,22 @@ export const auditListQuerySchema = auditFilterSchema.extend(listPagingSchema.sh
 export type AuditFilter = z.infer<typeof auditFilterSchema>;
 
 export const auditEventSchema = z.object({
-  id: z.string(),
+  id: text(),
   /** Set by the database clock, UTC. */
-  at: z.string(),
-  action: z.string(),
-  entityType: z.string(),
-  entityId: z.string().nullable(),
-  actor: z.object({ id: z.string(), name: z.string(), email: z.string() }).nullable(),
+  at: text(),
+  action: text(),
+  entityType: text(),
+  entityId: text().nullable(),
+  actor: z.object({ id: text(), name: text(), email: text() }).nullable(),
   /** null for account events (sign-ins, passwords, tokens). */
-  workspaceId: z.string().nullable(),
+  workspaceId: text().nullable(),
   before: z.unknown(),
   after: z.unknown(),
   /** The hash chain: the workspace id or "account", the position in it, and the hashes. */
-  chain: z.string(),
+  chain: text(),
   position: z.number().int(),
-  prevHash: z.string(),
-  hash: z.string(),
+  prevHash: text(),
+  hash: text(),
 });
 export type AuditEventPayload = z.infer<typeof auditEventSchema>;
 export const auditListSchema = listReplySchema(auditEventSchema);
@@ -50,11 +51,11 @@ export const auditVerifySchema = z.object({
   checked: z.number().int(),
   firstBroken: z
     .object({
-      id: z.string(),
-      at: z.string(),
-      chain: z.string(),
+      id: text(),
+      at: text(),
+      chain: text(),
       position: z.number().int(),
-      reason: z.string(),
+      reason: text(),
     })
     .optional(),
 });

@@ -8,6 +8,7 @@
  * method and which data it used, with warnings.
  */
 import { z } from 'zod';
+import { text } from './text';
 import { hansenTripleSchema, unifacGroupRowSchema, valueSourceSchema } from './solvents';
 
 export const CALC_LIMITS = {
@@ -35,8 +36,7 @@ export const pressureKPaSchema = finite()
     message: `Pressure must be at most ${CALC_LIMITS.pressureKPa[1]} kPa.`,
   });
 
-export const smilesSchema = z
-  .string({ error: 'Give the structure as a SMILES string.' })
+export const smilesSchema = text({ error: 'Give the structure as a SMILES string.' })
   .trim()
   .min(1, { message: 'The SMILES is empty.' })
   .max(2000, { message: 'The SMILES is longer than 2000 characters.' });
@@ -83,14 +83,14 @@ function checkComposition(
   }
 }
 
-const warningsSchema = z.array(z.string());
+const warningsSchema = z.array(text());
 
 /** How a SMILES was resolved: a library solvent, or groups derived from the structure. */
 export const resolvedComponentSchema = z.object({
-  smiles: z.string(),
+  smiles: text(),
   basis: z.enum(['library', 'structure']),
-  solventId: z.string().nullable(),
-  name: z.string().nullable(),
+  solventId: text().nullable(),
+  name: text().nullable(),
 });
 export type ResolvedComponent = z.infer<typeof resolvedComponentSchema>;
 
@@ -128,7 +128,7 @@ export const activityCoefficientsReplySchema = z.object({
       source: valueSourceSchema,
     }),
   ),
-  method: z.string(),
+  method: text(),
   source: valueSourceSchema,
   warnings: warningsSchema,
 });
@@ -150,7 +150,7 @@ export const bubblePointReplySchema = z.object({
   vapourMoleFractions: z.array(z.number()),
   activityCoefficients: z.array(z.number()),
   components: z.array(resolvedComponentSchema.extend({ volatile: z.boolean() })),
-  method: z.string(),
+  method: text(),
   sources: z.array(valueSourceSchema),
   warnings: warningsSchema,
 });
@@ -173,7 +173,7 @@ export const azeotropeReplySchema = z.object({
   moleFractions: z.array(z.number()).nullable(),
   kind: z.enum(['minimum-boiling', 'maximum-boiling']).nullable(),
   components: z.array(resolvedComponentSchema),
-  method: z.string(),
+  method: text(),
   sources: z.array(valueSourceSchema),
   warnings: warningsSchema,
 });
@@ -215,7 +215,7 @@ export const partitionRequestSchema = z
           .optional(),
         salt: z
           .object({
-            name: z.string().trim().min(1, { message: 'Name the salt (e.g. nacl).' }).max(80),
+            name: text().trim().min(1, { message: 'Name the salt (e.g. nacl).' }).max(80),
             molar: finite()
               .min(0, { message: 'Salt concentration cannot be negative.' })
               .max(10, { message: 'Salt concentration must be at most 10 mol/L.' }),
@@ -233,7 +233,7 @@ export const partitionReplySchema = z.object({
   logD: z.number(),
   D: z.number(),
   basis: z.literal('molar-concentration'),
-  method: z.string(),
+  method: text(),
   source: valueSourceSchema,
   organic: resolvedComponentSchema,
   warnings: warningsSchema,
@@ -264,7 +264,7 @@ export const solubilityReplySchema = z.object({
   idealMoleFraction: z.number(),
   moleFraction: z.number(),
   activityCoefficient: z.number().nullable(),
-  method: z.string(),
+  method: text(),
   solvent: resolvedComponentSchema.nullable(),
   warnings: warningsSchema,
 });
@@ -291,13 +291,13 @@ export type HansenDistanceRequest = z.infer<typeof hansenDistanceRequestSchema>;
 const hansenResolvedSchema = hansenTripleSchema.extend({
   basis: z.enum(['given', 'library', 'estimated']),
   source: valueSourceSchema.nullable(),
-  method: z.string().nullable(),
+  method: text().nullable(),
 });
 export const hansenDistanceReplySchema = z.object({
   ra: z.number(),
   a: hansenResolvedSchema,
   b: hansenResolvedSchema,
-  method: z.string(),
+  method: text(),
   warnings: warningsSchema,
 });
 export type HansenDistanceReply = z.infer<typeof hansenDistanceReplySchema>;

@@ -8,6 +8,7 @@
  * named method and marks it 'estimated'.
  */
 import { z } from 'zod';
+import { text } from './text';
 import { logPSchema, pKaEntrySchema } from './calc';
 import { unifacGroupRowSchema } from './solvents';
 
@@ -35,7 +36,7 @@ export const COMPOUND_LIMITS = {
 export const SOLUBILITY_UNITS = ['g/L', 'mg/mL', 'mole-fraction', 'wt%'] as const;
 
 const finite = () => z.number({ error: 'Enter a finite number.' });
-const solventIdSchema = z.string().trim().min(1, { message: 'Choose a solvent.' }).max(80);
+const solventIdSchema = text().trim().min(1, { message: 'Choose a solvent.' }).max(80);
 
 /** A measured solubility of the compound in one library solvent. */
 export const compoundSolubilityPointSchema = z
@@ -46,7 +47,7 @@ export const compoundSolubilityPointSchema = z
       .max(300, { message: 'At most 300 °C.' }),
     value: finite().positive({ message: 'Enter a positive value.' }),
     unit: z.enum(SOLUBILITY_UNITS, { error: 'Unit is g/L, mg/mL, mole-fraction or wt%.' }),
-    source: z.string().trim().max(300).optional(),
+    source: text().trim().max(300).optional(),
   })
   .strict();
 export type CompoundSolubilityPoint = z.infer<typeof compoundSolubilityPointSchema>;
@@ -64,14 +65,14 @@ export const compoundPartitionPointSchema = z
       .max(300, { message: 'At most 300 °C.' })
       .optional(),
     D: finite().positive({ message: 'D must be positive.' }),
-    source: z.string().trim().max(300).optional(),
+    source: text().trim().max(300).optional(),
   })
   .strict();
 export type CompoundPartitionPoint = z.infer<typeof compoundPartitionPointSchema>;
 
 /** UNIFAC subgroup counts keyed by subgroup number (Hansen et al. 1991 table). */
 export const unifacGroupCountsSchema = z.record(
-  z.string().regex(/^\d+$/, { message: 'UNIFAC subgroup keys are subgroup numbers.' }),
+  text().regex(/^\d+$/, { message: 'UNIFAC subgroup keys are subgroup numbers.' }),
   z
     .number()
     .int({ message: 'A group count is a whole number.' })
@@ -97,17 +98,15 @@ const hansenEntrySchema = z
 const optionalNumber = <T extends z.ZodType>(schema: T) => schema.nullable().optional();
 
 const compoundFields = {
-  name: z.string().trim().min(1, { message: 'Enter a name.' }).max(COMPOUND_LIMITS.nameMax),
+  name: text().trim().min(1, { message: 'Enter a name.' }).max(COMPOUND_LIMITS.nameMax),
   /** SMILES; leave empty when a molfile is given. */
-  smiles: z
-    .string()
+  smiles: text()
     .trim()
     .max(COMPOUND_LIMITS.smilesMax, { message: 'The SMILES is longer than 2000 characters.' })
     .nullable()
     .optional(),
   /** MDL molfile (V2000 or V3000); used when no SMILES is given. */
-  molfile: z
-    .string()
+  molfile: text()
     .max(COMPOUND_LIMITS.molfileMax, { message: 'The molfile is too large.' })
     .nullable()
     .optional(),
@@ -118,7 +117,7 @@ const compoundFields = {
     .optional(),
   /** A measured logP; leave out (or null) to have it estimated. */
   logP: z
-    .object({ value: logPSchema, method: z.string().trim().max(200).optional() })
+    .object({ value: logPSchema, method: text().trim().max(200).optional() })
     .strict()
     .nullable()
     .optional(),
@@ -136,7 +135,7 @@ const compoundFields = {
   unifacGroups: unifacGroupCountsSchema.nullable().optional(),
   solubility: z.array(compoundSolubilityPointSchema).max(COMPOUND_LIMITS.pointsMax).optional(),
   partition: z.array(compoundPartitionPointSchema).max(COMPOUND_LIMITS.pointsMax).optional(),
-  notes: z.string().max(COMPOUND_LIMITS.notesMax).optional(),
+  notes: text().max(COMPOUND_LIMITS.notesMax).optional(),
 };
 
 const hasStructure = (v: { smiles?: string | null; molfile?: string | null }) =>
@@ -162,31 +161,31 @@ export type CompoundUpdateInput = z.input<typeof compoundUpdateSchema>;
 
 export const unassignedAtomSchema = z.object({
   index: z.number().int(),
-  element: z.string(),
-  reason: z.string(),
+  element: text(),
+  reason: text(),
 });
 
 export const compoundSchema = z.object({
-  id: z.string(),
+  id: text(),
   /** Goes up by one with every change; PATCH names it as baseVersion. */
   version: z.number().int(),
-  workspaceId: z.string(),
-  name: z.string(),
+  workspaceId: text(),
+  name: text(),
   role: compoundRoleSchema,
-  smiles: z.string().nullable(),
-  molfile: z.string().nullable(),
-  canonicalSmiles: z.string(),
-  formula: z.string(),
+  smiles: text().nullable(),
+  molfile: text().nullable(),
+  canonicalSmiles: text(),
+  formula: text(),
   molarMassGmol: z.number(),
   /** Sanitised SVG drawing of the structure. */
-  svg: z.string(),
+  svg: text(),
   pKa: z.array(pKaEntrySchema),
   logP: z
     .object({
       value: z.number(),
       source: z.enum(['measured', 'estimated']),
-      method: z.string(),
-      warnings: z.array(z.string()),
+      method: text(),
+      warnings: z.array(text()),
     })
     .nullable(),
   meltingPointC: z.number().nullable(),
@@ -197,8 +196,8 @@ export const compoundSchema = z.object({
       p: z.number(),
       h: z.number(),
       source: z.enum(['entered', 'estimated']),
-      method: z.string(),
-      warnings: z.array(z.string()),
+      method: text(),
+      warnings: z.array(text()),
     })
     .nullable(),
   unifac: z.object({
@@ -206,16 +205,16 @@ export const compoundSchema = z.object({
     source: z.enum(['assigned', 'edited']),
     summary: z.array(unifacGroupRowSchema),
     unassignedAtoms: z.array(unassignedAtomSchema),
-    warnings: z.array(z.string()),
+    warnings: z.array(text()),
   }),
   /** Why an estimate could not be made (e.g. atoms no group covers). */
-  estimateNotes: z.array(z.string()),
+  estimateNotes: z.array(text()),
   solubility: z.array(compoundSolubilityPointSchema),
   partition: z.array(compoundPartitionPointSchema),
-  notes: z.string(),
-  createdBy: z.object({ id: z.string(), name: z.string() }).nullable(),
-  createdAt: z.string(),
-  updatedAt: z.string(),
+  notes: text(),
+  createdBy: z.object({ id: text(), name: text() }).nullable(),
+  createdAt: text(),
+  updatedAt: text(),
 });
 export type Compound = z.infer<typeof compoundSchema>;
 export const compoundListSchema = z.array(compoundSchema);
@@ -225,8 +224,7 @@ export const compoundListSchema = z.array(compoundSchema);
 export const structurePreviewRequestSchema = z.union([
   z
     .object({
-      smiles: z
-        .string()
+      smiles: text()
         .trim()
         .min(1, { message: 'The SMILES is empty.' })
         .max(COMPOUND_LIMITS.smilesMax),
@@ -234,43 +232,38 @@ export const structurePreviewRequestSchema = z.union([
     .strict(),
   z
     .object({
-      molfile: z
-        .string()
-        .min(1, { message: 'The molfile is empty.' })
-        .max(COMPOUND_LIMITS.molfileMax),
+      molfile: text().min(1, { message: 'The molfile is empty.' }).max(COMPOUND_LIMITS.molfileMax),
     })
     .strict(),
 ]);
 export type StructurePreviewRequest = z.infer<typeof structurePreviewRequestSchema>;
 
 export const structurePreviewSchema = z.object({
-  formula: z.string(),
+  formula: text(),
   molarMassGmol: z.number(),
-  svg: z.string(),
-  canonicalSmiles: z.string(),
+  svg: text(),
+  canonicalSmiles: text(),
   /** The library solvent this structure is, if any. */
-  librarySolventId: z.string().nullable(),
+  librarySolventId: text().nullable(),
   unifac: z.object({
     groups: unifacGroupCountsSchema,
     summary: z.array(unifacGroupRowSchema),
     unassignedAtoms: z.array(unassignedAtomSchema),
-    warnings: z.array(z.string()),
+    warnings: z.array(text()),
   }),
   estimates: z.object({
-    logP: z
-      .object({ value: z.number(), method: z.string(), warnings: z.array(z.string()) })
-      .nullable(),
+    logP: z.object({ value: z.number(), method: text(), warnings: z.array(text()) }).nullable(),
     hansen: z
       .object({
         d: z.number(),
         p: z.number(),
         h: z.number(),
-        method: z.string(),
-        warnings: z.array(z.string()),
+        method: text(),
+        warnings: z.array(text()),
       })
       .nullable(),
     /** Why an estimate is missing. */
-    notes: z.array(z.string()),
+    notes: z.array(text()),
   }),
 });
 export type StructurePreview = z.infer<typeof structurePreviewSchema>;

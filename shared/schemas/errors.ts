@@ -43,6 +43,9 @@ export const OPTIONAL_FIELD_PROBLEM_CODES = ['bad_request', 'structure_unparsabl
 export const PLAIN_ERROR_CODES = [
   // 400
   'malformed_json',
+  'malformed_path',
+  'unreadable_body',
+  'unstorable_text',
   // 401
   'unauthenticated',
   'invalid_credentials',
@@ -63,6 +66,7 @@ export const PLAIN_ERROR_CODES = [
   'review_closed',
   'revision_superseded',
   'already_decided',
+  'job_finished',
   // 410
   'reset_used',
   'reset_expired',
@@ -70,17 +74,25 @@ export const PLAIN_ERROR_CODES = [
   'invitation_expired',
   // 413, 415
   'payload_too_large',
+  'route_too_large',
   'unsupported_encoding',
+  'unsupported_charset',
   // 422: a well-formed request that cannot be computed
   'unifac_missing_parameters',
   'no_data',
   'not_computable',
+  'evaluation_timeout',
+  'result_too_large',
   // 423, 429
   'account_locked',
   'rate_limited',
+  'too_many_evaluations',
+  'too_many_jobs',
   // 5xx
   'internal_error',
   'service_unavailable',
+  'database_unavailable',
+  'server_busy',
 ] as const;
 
 const message = z.string();

@@ -3,6 +3,7 @@
  * the Monte Carlo request that starts a background job.
  */
 import { z } from 'zod';
+import { text } from './text';
 import type { RouteResult, RouteTotals } from '../engine/route/evaluate';
 import type { Exactly } from './exact';
 import { routeDocumentSchema, streamSchema, warningSchema } from './route';
@@ -16,12 +17,12 @@ export type EvaluateRequest = z.input<typeof evaluateRequestSchema>;
 /** One reason a valid document cannot be evaluated, on the step it belongs to. */
 export const routeIssueSchema = z.object({
   /** The step, or null for the document as a whole (components, reference input). */
-  stepId: z.string().nullable(),
+  stepId: text().nullable(),
   /** Field inside the step (or the document), e.g. "params.mode.targetVolume" or "inputs.feed". */
-  field: z.string(),
-  message: z.string(),
+  field: text(),
+  message: text(),
   /** The same place as a dotted path from the request body, for forms ("document.steps.2.params.stages"). */
-  path: z.string(),
+  path: text(),
 });
 export type RouteIssuePayload = z.infer<typeof routeIssueSchema>;
 
@@ -30,7 +31,7 @@ export const ROUTE_EVALUATION_CODES = ['route_invalid', 'route_unevaluable'] as 
 /** Why a valid document cannot be evaluated: route_invalid (graph, references, a step's parameters) or route_unevaluable (a model cannot run). */
 export const routeEvaluationFailureSchema = z.object({
   code: z.enum(ROUTE_EVALUATION_CODES),
-  message: z.string(),
+  message: text(),
   details: z.array(routeIssueSchema),
 });
 
@@ -40,14 +41,14 @@ export type RouteEvaluationError = z.infer<typeof routeEvaluationFailureSchema>;
 
 /** The engine's route totals (shared/engine/route/evaluate.ts RouteTotals). */
 export const routeTotalsSchema = z.object({
-  productId: z.string().nullable(),
+  productId: text().nullable(),
   productInKg: z.number(),
   isolatedProductKg: z.number(),
   isolatedSolidKg: z.number(),
   yieldPct: z.number().nullable(),
   purityWtPct: z.number().nullable(),
   purge: z.record(
-    z.string(),
+    text(),
     z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),
   ),
   solventUseLPerKg: z.number().nullable(),
@@ -55,27 +56,27 @@ export const routeTotalsSchema = z.object({
   eFactor: z.number().nullable(),
   eFactorExcludingWater: z.number().nullable(),
   totalInputKg: z.number(),
-  peakVolumeL: z.record(z.string(), z.number()),
+  peakVolumeL: z.record(text(), z.number()),
   cycleTimeH: z.number(),
-  cycleTimeBasis: z.string(),
+  cycleTimeBasis: text(),
 });
 // The type-check fails when the engine's totals and this schema drift apart.
 const _totalsMatchEngine: Exactly<z.infer<typeof routeTotalsSchema>, RouteTotals> = true;
 
 /** A warning or caution with the step it belongs to (null for the route). */
-export const stepWarningSchema = warningSchema.extend({ stepId: z.string().nullable() });
+export const stepWarningSchema = warningSchema.extend({ stepId: text().nullable() });
 
 /** A route result as the engine returns it; step results are kind-specific and kept open. */
 export const routeResultSchema = z.object({
-  engineVersion: z.string(),
+  engineVersion: text(),
   schemaVersion: z.number(),
-  order: z.array(z.string()),
-  steps: z.record(z.string(), z.record(z.string(), z.unknown())),
-  streams: z.record(z.string(), streamSchema),
+  order: z.array(text()),
+  steps: z.record(text(), z.record(text(), z.unknown())),
+  streams: z.record(text(), streamSchema),
   terminals: z.array(
     z.object({
-      stepId: z.string(),
-      port: z.string(),
+      stepId: text(),
+      port: text(),
       isolated: z.boolean(),
       stream: streamSchema,
     }),
@@ -84,14 +85,14 @@ export const routeResultSchema = z.object({
   /** Every warning and caution, on its step (null for the route). */
   warnings: z.array(stepWarningSchema),
   /** Cautions are prompts: defer to the site's process-safety review. */
-  processSafetyNote: z.string(),
+  processSafetyNote: text(),
 });
 // Step results stay open (kind-specific records); the result's own fields must match the engine's.
 const _resultMatchesEngine: Exactly<keyof z.infer<typeof routeResultSchema>, keyof RouteResult> =
   true;
 
 export const evaluateResponseSchema = z.object({
-  engineVersion: z.string(),
+  engineVersion: text(),
   result: routeResultSchema,
 });
 export type EvaluateResponse = z.infer<typeof evaluateResponseSchema>;
@@ -103,4 +104,4 @@ export const monteCarloRequestSchema = z.object({
 });
 export type MonteCarloRequest = z.input<typeof monteCarloRequestSchema>;
 
-export const monteCarloStartedSchema = z.object({ jobId: z.string() });
+export const monteCarloStartedSchema = z.object({ jobId: text() });

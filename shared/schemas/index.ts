@@ -16,3 +16,4 @@ export * from './jobs';
 export * from './lists';
 export * from './audit';
 export * from './revisions';
+export * from './text';

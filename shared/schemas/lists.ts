@@ -1,4 +1,5 @@
 import { z, type ZodType } from 'zod';
+import { text } from './text';
 
 /** Paging of every list: `limit` (default 50, at most 200) and the `cursor` of the previous reply. */
 export const LIST_LIMIT_DEFAULT = 50;
@@ -11,9 +12,9 @@ export const listPagingSchema = z.object({
     .min(1, { message: 'Use at least 1.' })
     .max(LIST_LIMIT_MAX, { message: `Use at most ${LIST_LIMIT_MAX}.` })
     .default(LIST_LIMIT_DEFAULT),
-  cursor: z.string().max(500).optional(),
+  cursor: text().max(500).optional(),
 });
 
 /** The one list reply: a page of items and the cursor of the next page (null on the last). */
 export const listReplySchema = <T extends ZodType>(item: T) =>
-  z.object({ items: z.array(item), nextCursor: z.string().nullable() });
+  z.object({ items: z.array(item), nextCursor: text().nullable() });

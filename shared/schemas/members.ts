@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text';
 import { emailSchema, newPasswordSchema, personNameSchema, roleSchema } from './session';
 
 const rolesSchema = z
@@ -9,11 +10,11 @@ const rolesSchema = z
   });
 
 export const memberSchema = z.object({
-  userId: z.string(),
-  email: z.string(),
-  name: z.string(),
+  userId: text(),
+  email: text(),
+  name: text(),
   roles: z.array(roleSchema),
-  joinedAt: z.string(),
+  joinedAt: text(),
 });
 export type Member = z.infer<typeof memberSchema>;
 export const memberListSchema = z.array(memberSchema);
@@ -25,10 +26,10 @@ export const inviteSchema = z.object({
 export type InviteInput = z.infer<typeof inviteSchema>;
 
 export const invitationSchema = z.object({
-  id: z.string(),
-  email: z.string(),
+  id: text(),
+  email: text(),
   roles: z.array(roleSchema),
-  expiresAt: z.string(),
+  expiresAt: text(),
 });
 export type Invitation = z.infer<typeof invitationSchema>;
 
@@ -39,10 +40,10 @@ export type UpdateRolesInput = z.infer<typeof updateRolesSchema>;
 
 /** What the public invitation page shows before the invitee accepts. */
 export const invitationInfoSchema = z.object({
-  workspaceName: z.string(),
-  email: z.string(),
+  workspaceName: text(),
+  email: text(),
   roles: z.array(roleSchema),
-  expiresAt: z.string(),
+  expiresAt: text(),
   /** True when the e-mail already has an account: the page then asks for its password. */
   existingUser: z.boolean(),
 });

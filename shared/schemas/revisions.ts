@@ -3,6 +3,7 @@
  * and signed decisions. Every list reply is `{ items, nextCursor }`.
  */
 import { z } from 'zod';
+import { text } from './text';
 import { listPagingSchema, listReplySchema } from './lists';
 import { draftDocumentSchema, personRefSchema } from './routes';
 
@@ -38,7 +39,7 @@ export const DEFAULT_SIGNATURE_MEANING = {
     'Returned as technical reviewer: I have reviewed this revision of the route and return it for the changes given in the reason.',
 } as const;
 
-const personWithEmailSchema = z.object({ id: z.string(), name: z.string(), email: z.string() });
+const personWithEmailSchema = z.object({ id: text(), name: text(), email: text() });
 
 /** The route evaluation's totals as stored with the revision (names as in result.totals). */
 export const revisionTotalsSchema = z
@@ -47,7 +48,7 @@ export const revisionTotalsSchema = z
     purityWtPct: z.number().nullable(),
     pmi: z.number().nullable(),
     purge: z.record(
-      z.string(),
+      text(),
       z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),
     ),
   })
@@ -55,8 +56,7 @@ export const revisionTotalsSchema = z
 export type RevisionTotals = z.infer<typeof revisionTotalsSchema>;
 
 export const createRevisionSchema = z.object({
-  message: z
-    .string()
+  message: text()
     .trim()
     .min(1, { message: 'Say what changed in this revision.' })
     .max(REVISION_MESSAGE_MAX_LENGTH),
@@ -67,38 +67,38 @@ export type CreateRevisionInput = z.input<typeof createRevisionSchema>;
 
 export const createdRevisionSchema = z.object({
   number: z.number().int(),
-  contentHash: z.string(),
-  engineVersion: z.string(),
+  contentHash: text(),
+  engineVersion: text(),
   totals: revisionTotalsSchema.nullable(),
-  createdAt: z.string(),
+  createdAt: text(),
   author: personRefSchema,
 });
 
 /** A signed decision, as shown on the revision and given to exports. */
 export const signatureSchema = z.object({
-  id: z.string(),
+  id: text(),
   decision: z.enum(['approve', 'return']),
-  signer: z.object({ id: z.string(), name: z.string(), email: z.string() }),
+  signer: z.object({ id: text(), name: text(), email: text() }),
   /** UTC, from the database clock. */
-  signedAt: z.string(),
-  meaning: z.string(),
-  reason: z.string().nullable(),
+  signedAt: text(),
+  meaning: text(),
+  reason: text().nullable(),
   /** The content hash of the revision that was signed. */
-  contentHash: z.string(),
+  contentHash: text(),
 });
 export type Signature = z.infer<typeof signatureSchema>;
 
 export const reviewRequestSchema = z.object({
-  id: z.string(),
+  id: text(),
   status: z.enum(['in_review', 'approved', 'returned', 'superseded']),
-  note: z.string(),
+  note: text(),
   submittedBy: personRefSchema,
   reviewers: z.array(
     personWithEmailSchema.extend({ decision: z.enum(['approve', 'return']).nullable() }),
   ),
   decisions: z.array(signatureSchema),
-  createdAt: z.string(),
-  closedAt: z.string().nullable(),
+  createdAt: text(),
+  closedAt: text().nullable(),
 });
 export type ReviewRequestPayload = z.infer<typeof reviewRequestSchema>;
 
@@ -110,11 +110,11 @@ export const revisionAbilitiesSchema = z.object({
 
 export const revisionSummarySchema = z.object({
   number: z.number().int(),
-  contentHash: z.string(),
-  message: z.string(),
+  contentHash: text(),
+  message: text(),
   status: revisionStatusSchema,
   author: personRefSchema,
-  createdAt: z.string(),
+  createdAt: text(),
   totals: revisionTotalsSchema.nullable(),
 });
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
@@ -124,11 +124,11 @@ export const revisionListSchema = listReplySchema(revisionSummarySchema);
 export const revisionDetailSchema = revisionSummarySchema.extend({
   document: draftDocumentSchema,
   /** The server's own evaluation, stored with the revision; null when the route could not be evaluated. */
-  result: z.record(z.string(), z.unknown()).nullable(),
+  result: z.record(text(), z.unknown()).nullable(),
   evaluationError: z
-    .object({ code: z.string(), message: z.string(), details: z.array(z.unknown()) })
+    .object({ code: text(), message: text(), details: z.array(z.unknown()) })
     .nullable(),
-  engineVersion: z.string(),
+  engineVersion: text(),
   draftVersion: z.number().int(),
   /** Review requests, newest first. */
   reviews: z.array(reviewRequestSchema),
@@ -138,9 +138,9 @@ export const revisionDetailSchema = revisionSummarySchema.extend({
 });
 export type RevisionDetail = z.infer<typeof revisionDetailSchema>;
 
-export const stepRefSchema = z.object({ id: z.string(), kind: z.string(), name: z.string() });
+export const stepRefSchema = z.object({ id: text(), kind: text(), name: text() });
 export const fieldChangeSchema = z.object({
-  path: z.string(),
+  path: text(),
   from: z.unknown(),
   to: z.unknown(),
 });
@@ -151,24 +151,21 @@ export const revisionCompareSchema = z.object({
   stepsRemoved: z.array(stepRefSchema),
   stepsChanged: z.array(
     z.object({
-      stepId: z.string(),
-      name: z.string(),
-      kind: z.string(),
+      stepId: text(),
+      name: text(),
+      kind: text(),
       changes: z.array(fieldChangeSchema),
     }),
   ),
-  connectionsAdded: z.array(z.string()),
-  connectionsRemoved: z.array(z.string()),
+  connectionsAdded: z.array(text()),
+  connectionsRemoved: z.array(text()),
   /** Other document changes (components, reference input), each path old → new. */
   documentChanges: z.array(fieldChangeSchema),
   /**
    * Every numeric total of the evaluation, by its name in result.totals
    * (yieldPct, purityWtPct, pmi, ...), and each purge factor as "purge.<componentId>".
    */
-  totals: z.record(
-    z.string(),
-    z.object({ from: z.number().nullable(), to: z.number().nullable() }),
-  ),
+  totals: z.record(text(), z.object({ from: z.number().nullable(), to: z.number().nullable() })),
 });
 export type RevisionCompare = z.infer<typeof revisionCompareSchema>;
 
@@ -177,31 +174,30 @@ export const createReviewRequestSchema = z.object({
     .array(z.uuid({ message: 'Choose a reviewer from the list.' }))
     .min(1, { message: 'Choose at least one reviewer.' })
     .max(MAX_REVIEWERS, { message: `Choose at most ${MAX_REVIEWERS} reviewers.` }),
-  note: z.string().trim().max(REVIEW_NOTE_MAX_LENGTH).default(''),
+  note: text().trim().max(REVIEW_NOTE_MAX_LENGTH).default(''),
 });
 export type CreateReviewRequestInput = z.input<typeof createReviewRequestSchema>;
 
 export const createCommentSchema = z.object({
-  body: z
-    .string()
+  body: text()
     .trim()
     .min(1, { message: 'Write a comment.' })
     .max(COMMENT_MAX_LENGTH, { message: `Keep it under ${COMMENT_MAX_LENGTH} characters.` }),
-  stepId: z.string().min(1).max(80).optional(),
+  stepId: text().min(1).max(80).optional(),
   parentId: z.uuid().optional(),
 });
 export type CreateCommentInput = z.input<typeof createCommentSchema>;
 export const updateCommentSchema = z.object({ resolved: z.boolean() });
 
 export const commentSchema = z.object({
-  id: z.string(),
-  body: z.string(),
-  stepId: z.string().nullable(),
-  parentId: z.string().nullable(),
+  id: text(),
+  body: text(),
+  stepId: text().nullable(),
+  parentId: text().nullable(),
   author: personRefSchema,
-  createdAt: z.string(),
+  createdAt: text(),
   resolved: z.boolean(),
-  resolvedAt: z.string().nullable(),
+  resolvedAt: text().nullable(),
   resolvedBy: personRefSchema.nullable(),
 });
 export type CommentPayload = z.infer<typeof commentSchema>;
@@ -212,9 +208,9 @@ export const createDecisionSchema = z
   .object({
     decision: z.enum(['approve', 'return'], { message: 'Choose approve or return.' }),
     /** The signer's password, entered again for this signature. */
-    password: z.string().min(1, { message: 'Enter your password to sign.' }).max(256),
-    meaning: z.string().trim().min(1).max(SIGNATURE_MEANING_MAX_LENGTH).optional(),
-    reason: z.string().trim().max(REVIEW_NOTE_MAX_LENGTH).optional(),
+    password: text().min(1, { message: 'Enter your password to sign.' }).max(256),
+    meaning: text().trim().min(1).max(SIGNATURE_MEANING_MAX_LENGTH).optional(),
+    reason: text().trim().max(REVIEW_NOTE_MAX_LENGTH).optional(),
   })
   .superRefine((body, ctx) => {
     if (body.decision === 'return' && !body.reason)
@@ -227,10 +223,10 @@ export const createDecisionSchema = z
 export type CreateDecisionInput = z.input<typeof createDecisionSchema>;
 export const decisionReplySchema = z.object({
   decision: z.enum(['approve', 'return']),
-  signer: z.object({ name: z.string(), email: z.string() }),
-  signedAt: z.string(),
-  meaning: z.string(),
-  contentHash: z.string(),
+  signer: z.object({ name: text(), email: text() }),
+  signedAt: text(),
+  meaning: text(),
+  contentHash: text(),
   /** The revision's status after this decision. */
   status: revisionStatusSchema,
 });
@@ -238,12 +234,12 @@ export const decisionReplySchema = z.object({
 /** What needs the signed-in person: reviews to do, returned revisions, new comments, approvals. */
 export const attentionItemSchema = z.object({
   kind: z.enum(['review_requested', 'returned', 'approved', 'comment']),
-  routeId: z.string(),
-  routeName: z.string(),
+  routeId: text(),
+  routeName: text(),
   revisionNumber: z.number().int(),
   from: personRefSchema,
-  at: z.string(),
-  text: z.string(),
+  at: text(),
+  text: text(),
 });
 export type AttentionItem = z.infer<typeof attentionItemSchema>;
 export const attentionListSchema = listReplySchema(attentionItemSchema);

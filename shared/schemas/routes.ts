@@ -6,6 +6,7 @@
  * evaluation.
  */
 import { z } from 'zod';
+import { text } from './text';
 import {
   componentSchema,
   ROUTE_SCHEMA_VERSION,
@@ -40,19 +41,17 @@ export function emptyRouteDocument(name?: string): RouteDocumentInput {
   } as unknown as RouteDocumentInput;
 }
 
-export const routeNameSchema = z
-  .string()
+export const routeNameSchema = text()
   .trim()
   .min(1, { message: 'Enter a name.' })
   .max(ROUTE_NAME_MAX_LENGTH);
-export const projectNameSchema = z
-  .string()
+export const projectNameSchema = text()
   .trim()
   .min(1, { message: 'Enter a project name.' })
   .max(PROJECT_NAME_MAX_LENGTH);
 
-export const personRefSchema = z.object({ id: z.string(), name: z.string() });
-export const projectRefSchema = z.object({ id: z.string(), name: z.string() });
+export const personRefSchema = z.object({ id: text(), name: text() });
+export const projectRefSchema = z.object({ id: text(), name: text() });
 
 /** The key totals a list row shows; null until the draft evaluates. */
 export const keyTotalsSchema = z.object({
@@ -65,13 +64,13 @@ export type KeyTotals = z.infer<typeof keyTotalsSchema>;
 export const routeStatusSchema = z.enum(['draft', 'archived']);
 
 export const routeSummarySchema = z.object({
-  id: z.string(),
-  name: z.string(),
+  id: text(),
+  name: text(),
   project: projectRefSchema.nullable(),
   status: routeStatusSchema,
   owner: personRefSchema,
   /** Last change to the route or its draft. */
-  updatedAt: z.string(),
+  updatedAt: text(),
   draftVersion: z.number().int(),
   /** Version of the route's own fields (name, project, archived); PATCH names it as baseVersion. */
   version: z.number().int(),
@@ -83,13 +82,13 @@ export const routeListSchema = z.array(routeSummarySchema);
 
 /** Why the stored draft has no totals (it could not be evaluated), or null. */
 export const draftEvaluationErrorSchema = z
-  .object({ code: z.string(), message: z.string(), details: z.array(routeIssueSchema) })
+  .object({ code: text(), message: text(), details: z.array(routeIssueSchema) })
   .nullable();
 
 export const draftSchema = z.object({
   document: draftDocumentSchema,
   version: z.number().int(),
-  updatedAt: z.string(),
+  updatedAt: text(),
   updatedBy: personRefSchema,
   evaluationError: draftEvaluationErrorSchema,
 });
@@ -113,7 +112,7 @@ export const listRoutesQuerySchema = z.object({
     .enum(['true', 'false'], { message: 'Use true or false.' })
     .default('false')
     .transform((value) => value === 'true'),
-  q: z.string().trim().max(200).optional(),
+  q: text().trim().max(200).optional(),
 });
 
 export const createRouteSchema = z.object({
@@ -152,12 +151,12 @@ export type SaveDraftInput = z.input<typeof saveDraftSchema>;
 
 export const saveDraftResponseSchema = z.object({
   version: z.number().int(),
-  updatedAt: z.string(),
+  updatedAt: text(),
   totals: keyTotalsSchema.nullable(),
   evaluationError: draftEvaluationErrorSchema,
   /** The engine's warnings and cautions for the saved document. */
   warnings: z.array(stepWarningSchema),
-  processSafetyNote: z.string(),
+  processSafetyNote: text(),
 });
 export type SaveDraftResponse = z.infer<typeof saveDraftResponseSchema>;
 
@@ -165,7 +164,7 @@ export type SaveDraftResponse = z.infer<typeof saveDraftResponseSchema>;
 export const draftConflictDetailsSchema = z.object({
   current: z.object({
     version: z.number().int(),
-    updatedAt: z.string(),
+    updatedAt: text(),
     updatedBy: personRefSchema,
     document: draftDocumentSchema,
   }),
@@ -176,14 +175,14 @@ export type DraftConflictDetails = z.infer<typeof draftConflictDetailsSchema>;
 export const draftConflictSchema = z.object({
   error: z.object({
     code: z.literal('draft_conflict'),
-    message: z.string(),
+    message: text(),
     details: draftConflictDetailsSchema,
   }),
 });
 
 export const projectSummarySchema = z.object({
-  id: z.string(),
-  name: z.string(),
+  id: text(),
+  name: text(),
   /** Routes in the project that are not archived. */
   routeCount: z.number().int(),
 });

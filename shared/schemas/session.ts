@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { accountAbilitiesSchema, workspaceAbilitiesSchema } from './actions';
+import { text } from './text';
 import {
   EMAIL_MAX_LENGTH,
   NAME_MAX_LENGTH,
@@ -21,21 +22,18 @@ export const ROLE_LABELS: Record<Role, string> = {
 };
 
 // Trim and lower-case run before the format check, so " Ann@Example.com " is accepted as ann@example.com.
-export const emailSchema = z
-  .string()
+export const emailSchema = text()
   .trim()
   .toLowerCase()
   .max(EMAIL_MAX_LENGTH)
   .email({ message: 'Enter a valid e-mail address.' });
 
 /** A new password: what the forms and the server both accept. */
-export const newPasswordSchema = z
-  .string()
+export const newPasswordSchema = text()
   .min(PASSWORD_MIN_LENGTH, { message: `Use at least ${PASSWORD_MIN_LENGTH} characters.` })
   .max(PASSWORD_MAX_LENGTH, { message: `Use at most ${PASSWORD_MAX_LENGTH} characters.` });
 
-export const personNameSchema = z
-  .string()
+export const personNameSchema = text()
   .trim()
   .min(1, { message: 'Enter a name.' })
   .max(NAME_MAX_LENGTH);
@@ -43,21 +41,21 @@ export const personNameSchema = z
 export const signInSchema = z.object({
   email: emailSchema,
   // Existing passwords are checked, not re-validated against today's rules.
-  password: z.string().min(1, { message: 'Enter your password.' }).max(PASSWORD_MAX_LENGTH),
+  password: text().min(1, { message: 'Enter your password.' }).max(PASSWORD_MAX_LENGTH),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 
 export const sessionUserSchema = z.object({
-  id: z.string(),
-  email: z.string(),
-  name: z.string(),
+  id: text(),
+  email: text(),
+  name: text(),
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 
 export const sessionWorkspaceSchema = z.object({
-  id: z.string(),
-  name: z.string(),
-  slug: z.string(),
+  id: text(),
+  name: text(),
+  slug: text(),
   roles: z.array(roleSchema),
 });
 export type SessionWorkspace = z.infer<typeof sessionWorkspaceSchema>;
@@ -69,21 +67,20 @@ export type SessionWorkspace = z.infer<typeof sessionWorkspaceSchema>;
  */
 export const abilitiesSchema = z.object({
   global: accountAbilitiesSchema,
-  workspaces: z.record(z.string(), workspaceAbilitiesSchema),
+  workspaces: z.record(text(), workspaceAbilitiesSchema),
 });
 export type Abilities = z.infer<typeof abilitiesSchema>;
 
 export const sessionSchema = z.object({
   user: sessionUserSchema,
   workspaces: z.array(sessionWorkspaceSchema),
-  csrfToken: z.string(),
+  csrfToken: text(),
   abilities: abilitiesSchema,
 });
 export type Session = z.infer<typeof sessionSchema>;
 
 export const changePasswordSchema = z.object({
-  currentPassword: z
-    .string()
+  currentPassword: text()
     .min(1, { message: 'Enter your current password.' })
     .max(PASSWORD_MAX_LENGTH),
   newPassword: newPasswordSchema,

@@ -3,6 +3,7 @@
  * Every value comes with its source under `sources` (field → citation).
  */
 import { z } from 'zod';
+import { text } from './text';
 
 export const GUIDE_CATEGORIES = [
   'recommended',
@@ -13,7 +14,7 @@ export const GUIDE_CATEGORIES = [
 
 /** Where a value comes from: the bibliography id, its status, and the full citation where known. */
 export const valueSourceSchema = z.object({
-  ref: z.string(),
+  ref: text(),
   status: z.enum([
     'confirmed',
     'secondary',
@@ -22,10 +23,10 @@ export const valueSourceSchema = z.object({
     'common-practice',
     'not-confirmed',
   ]),
-  note: z.string().optional(),
-  citation: z.string().optional(),
-  via: z.string().optional(),
-  url: z.string().optional(),
+  note: text().optional(),
+  citation: text().optional(),
+  via: text().optional(),
+  url: text().optional(),
 });
 export type ValueSource = z.infer<typeof valueSourceSchema>;
 
@@ -33,19 +34,19 @@ export const hansenTripleSchema = z.object({ d: z.number(), p: z.number(), h: z.
 
 export const unifacGroupRowSchema = z.object({
   subgroup: z.number().int(),
-  name: z.string(),
+  name: text(),
   mainGroup: z.number().int().optional(),
-  mainGroupName: z.string().optional(),
+  mainGroupName: text().optional(),
   count: z.number(),
 });
 export type UnifacGroupRow = z.infer<typeof unifacGroupRowSchema>;
 
 export const solventSummarySchema = z.object({
-  id: z.string(),
-  name: z.string(),
-  synonyms: z.array(z.string()),
-  smiles: z.string(),
-  cas: z.string(),
+  id: text(),
+  name: text(),
+  synonyms: z.array(text()),
+  smiles: text(),
+  cas: text(),
   molarMassGmol: z.number(),
   ich: z.object({
     class: z.union([z.literal(1), z.literal(2), z.literal(3)]).nullable(),
@@ -65,7 +66,7 @@ export const solventSummarySchema = z.object({
   guideCategory: z.enum(GUIDE_CATEGORIES),
   waterMiscibility: z.enum(['miscible', 'partial']),
   unifac: z.array(unifacGroupRowSchema),
-  sources: z.record(z.string(), valueSourceSchema),
+  sources: z.record(text(), valueSourceSchema),
 });
 export type SolventSummary = z.infer<typeof solventSummarySchema>;
 export const solventListSchema = z.array(solventSummarySchema);
@@ -94,7 +95,7 @@ export const solventDetailSchema = solventSummarySchema.extend({
       temperatureC: z.number(),
     })
     .nullable(),
-  dataVersion: z.string(),
+  dataVersion: text(),
 });
 export type SolventDetail = z.infer<typeof solventDetailSchema>;
 

@@ -10,6 +10,7 @@ import type { EngineWarning, MethodUsed, Stream } from './types';
 import type { PortPhase, CompoundSnapshot, RouteDocument, Uncertain, Volume } from '../document';
 import type { SeededRandom } from '../random';
 import { createUnifacModelCache, type UnifacModelCache } from '../thermo/unifac';
+import { idRecord } from '../text';
 
 /** Density assumed for a compound without a stated density, g/mL (common practice for organic solids, typically 1.1–1.4). */
 export const DEFAULT_COMPOUND_DENSITY_GML = 1.2;
@@ -212,8 +213,9 @@ export const kToC = (k: number) => k - 273.15;
 // ---- streams ----
 
 export function emptyStream(ctx: EvalContext, phase: PortPhase, T_K: number): Stream {
-  const kg: Record<string, number> = {};
-  const solidKg: Record<string, number> = {};
+  // Indexed by component id: no prototype, so no id can read a built-in.
+  const kg = idRecord<number>();
+  const solidKg = idRecord<number>();
   for (const id of ctx.ids) {
     kg[id] = 0;
     solidKg[id] = 0;
@@ -240,8 +242,8 @@ export function cloneStream(s: Stream): Stream {
   return {
     phase: s.phase,
     temperatureK: s.temperatureK,
-    kg: { ...s.kg },
-    solidKg: { ...s.solidKg },
+    kg: Object.assign(idRecord<number>(), s.kg),
+    solidKg: Object.assign(idRecord<number>(), s.solidKg),
     volumeM3: s.volumeM3,
   };
 }
@@ -258,7 +260,7 @@ export function liquidKg(s: Stream, id: string): number {
 
 /** Liquid part of a stream (solids removed). */
 export function liquidPart(s: Stream): Record<string, number> {
-  const out: Record<string, number> = {};
+  const out = idRecord<number>();
   for (const id in s.kg) out[id] = s.kg[id] - s.solidKg[id];
   return out;
 }

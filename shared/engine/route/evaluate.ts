@@ -52,6 +52,7 @@ export const ENGINE_VERSION = '1.0.2';
 export const MASS_BALANCE_TOLERANCE = 1e-9;
 
 import { PROCESS_SAFETY_NOTE } from './safety-note';
+import { idRecord } from '../text';
 export { PROCESS_SAFETY_NOTE };
 
 /** Output ports whose unconnected stream counts as the isolated product. */
@@ -166,11 +167,12 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
   const { ctx } = buildContext(doc, rng, prepared.caches ?? createEvaluationCaches());
   const stepById = new Map(doc.steps.map((s) => [s.id, s]));
   const outputsOf = new Map<string, Record<string, Stream>>();
-  const results: Record<string, StepResult> = {};
-  const streams: Record<string, Stream> = {};
+  // Indexed by step and connection ids: no prototype, so no id can read a built-in.
+  const results = idRecord<StepResult>();
+  const streams = idRecord<Stream>();
   for (const id of graph.order) {
     const step = stepById.get(id)!;
-    const inputs: Record<string, Stream | undefined> = {};
+    const inputs = idRecord<Stream | undefined>();
     for (const [port, c] of graph.incoming.get(id)!) {
       inputs[port] = outputsOf.get(c.from.stepId)![c.from.port];
     }
@@ -241,10 +243,10 @@ function checkBalance(
   out: StepOutput,
 ) {
   const r = out.result;
-  const balance: NonNullable<StepResult['balance']> = {};
+  const balance: NonNullable<StepResult['balance']> = idRecord();
   let scale = 0;
-  const inKg: Record<string, number> = {};
-  const outKg: Record<string, number> = {};
+  const inKg = idRecord<number>();
+  const outKg = idRecord<number>();
   for (const id of ctx.ids) {
     let a = (r.addedKg[id] ?? 0) + (r.generatedKg[id] ?? 0) - (r.consumedKg[id] ?? 0);
     for (const p in inputs) a += inputs[p]?.kg[id] ?? 0;
@@ -278,12 +280,12 @@ function computeTotals(
   terminals: RouteResult['terminals'],
 ): RouteTotals {
   const pid = ctx.productId;
-  const inputKg: Record<string, number> = {};
+  const inputKg = idRecord<number>();
   for (const id of ctx.ids) inputKg[id] = 0;
   let aux = 0;
   let volumeL = 0;
   let hours = 0;
-  const peak: Record<string, number> = {};
+  const peak = idRecord<number>();
   for (const id of order) {
     const r = results[id];
     for (const c in r.addedKg) inputKg[c] += r.addedKg[c];
@@ -294,12 +296,12 @@ function computeTotals(
     hours += r.duration.hours;
     peak[id] = r.peakVolumeM3 * 1000;
   }
-  const iso: Record<string, number> = {};
+  const iso = idRecord<number>();
   for (const id of ctx.ids) iso[id] = 0;
   for (const t of terminals) if (t.isolated) for (const id of ctx.ids) iso[id] += t.stream.kg[id];
   const isoTotal = Object.values(iso).reduce((a, b) => a + b, 0);
   const product = pid ? iso[pid] : 0;
-  const purge: Record<string, PurgeEntry> = {};
+  const purge = idRecord<PurgeEntry>();
   for (const id of ctx.ids) {
     const c = ctx.comps.get(id)!;
     if (c.kind !== 'compound' || id === pid || !(inputKg[id] > 0)) continue;

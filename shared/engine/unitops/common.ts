@@ -1,6 +1,7 @@
 /** Helpers shared by the step models. */
 import type { RouteStep } from '../document';
 import type { StepDuration, StepResult } from '../route/types';
+import { idRecord } from '../text';
 
 export function newResult(
   step: Pick<RouteStep, 'id' | 'kind' | 'name'>,
@@ -10,14 +11,14 @@ export function newResult(
     stepId: step.id,
     kind: step.kind,
     name: step.name,
-    summary: {},
+    summary: idRecord(),
     warnings: [],
     methods: [],
-    addedKg: {},
+    addedKg: idRecord(),
     addedVolumeM3: 0,
     auxiliaryKg: 0,
-    generatedKg: {},
-    consumedKg: {},
+    generatedKg: idRecord(),
+    consumedKg: idRecord(),
     peakVolumeM3: 0,
     duration,
     details: {},
