@@ -1,5 +1,6 @@
 import type { MigrationContext } from '../server/db/migrator';
 import { Route, User, Workspace } from '../server/models';
+import { evaluateDraft } from '../server/services/draft-evaluation';
 import { createRoute } from '../server/services/routes';
 import type { DraftDocument } from '@shared/schemas/routes';
 import { demoAmideIsolation as demoRoute } from './data/demo-route';
@@ -28,13 +29,16 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       transaction,
     });
     if (existing) return;
+    const document = structuredClone(demoRoute) as unknown as DraftDocument;
     await createRoute(
       {
         workspaceId: workspace.id,
         ownerId: chemist.id,
         name: DEMO_ROUTE_NAME,
         projectName: DEMO_PROJECT_NAME,
-        document: structuredClone(demoRoute) as unknown as DraftDocument,
+        document,
+        // Seeding runs before the server takes requests, so the engine may run here.
+        evaluation: evaluateDraft(document),
       },
       transaction,
     );

@@ -129,11 +129,11 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(tokensRouter());
   api.use(outboxRouter(config));
   api.use(solventsRouter());
-  api.use(calcRouter());
+  api.use(calcRouter(config));
   api.use(compoundsRouter());
-  api.use(evaluateRouter());
+  api.use(evaluateRouter(config));
   api.use(jobsRouter());
-  api.use(routesRouter());
+  api.use(routesRouter(config));
   api.use(auditRouter());
   api.use(revisionsRouter(config));
   api.get('/openapi.json', (_req, res) => {

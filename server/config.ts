@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { defaultPoolSize, type EnginePoolOptions } from './pool';
+import type { EvaluationLimits } from './services/evaluation-limits';
 
 const DEV_SESSION_SECRET = 'phasewright-development-secret-change-me';
 
@@ -44,6 +46,21 @@ const envSchema = z
     SIGN_IN_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
     RESET_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
     JOB_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
+    ENGINE_WORKERS: z.coerce.number().int().min(1).max(64).optional(),
+    ENGINE_QUEUE_LIMIT: z.coerce.number().int().min(1).default(64),
+    ENGINE_TASK_SECONDS: z.coerce.number().min(1).default(30),
+    ENGINE_WORKER_MEMORY_MB: z.coerce.number().int().min(64).default(1024),
+    EVALUATE_MAX_STEPS: z.coerce.number().int().min(1).default(300),
+    EVALUATE_MAX_REPLY_MB: z.coerce.number().min(0.1).default(8),
+    MONTE_CARLO_MAX_STEP_DRAWS: z.coerce.number().int().min(1).default(200_000),
+    CALCULATIONS_PER_USER: z.coerce.number().int().min(1).default(2),
+    MONTE_CARLO_JOBS_PER_USER: z.coerce.number().int().min(1).default(2),
+    SESSION_MAX_HOURS: z.coerce
+      .number()
+      .min(0.01)
+      .max(24 * 30)
+      .default(12),
+    SHUTDOWN_GRACE_SECONDS: z.coerce.number().min(0).default(20),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
@@ -85,6 +102,13 @@ export interface AppConfig {
   outboxEnabled: boolean;
   rateLimits: { signInPerWindow: number; resetPerWindow: number; windowMinutes: number };
   jobPollSeconds: number;
+  /** The engine pool's workers, queue and limits (docs/deployment.md). */
+  pool: EnginePoolOptions;
+  evaluation: EvaluationLimits;
+  /** Absolute lifetime of a session, however active. */
+  sessionMaxHours: number;
+  /** How long shutdown waits for requests in flight. */
+  shutdownGraceSeconds: number;
 }
 
 export class ConfigError extends Error {
@@ -125,5 +149,20 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       windowMinutes: 15,
     },
     jobPollSeconds: e.JOB_POLL_SECONDS,
+    pool: {
+      size: e.ENGINE_WORKERS ?? defaultPoolSize(),
+      maxQueue: e.ENGINE_QUEUE_LIMIT,
+      taskTimeoutMs: e.ENGINE_TASK_SECONDS * 1000,
+      workerMemoryMb: e.ENGINE_WORKER_MEMORY_MB,
+    },
+    evaluation: {
+      maxSteps: e.EVALUATE_MAX_STEPS,
+      maxStepDraws: e.MONTE_CARLO_MAX_STEP_DRAWS,
+      maxReplyBytes: Math.round(e.EVALUATE_MAX_REPLY_MB * 1e6),
+      perUserConcurrent: e.CALCULATIONS_PER_USER,
+      perUserJobs: e.MONTE_CARLO_JOBS_PER_USER,
+    },
+    sessionMaxHours: e.SESSION_MAX_HOURS,
+    shutdownGraceSeconds: e.SHUTDOWN_GRACE_SECONDS,
   };
 }

@@ -12,12 +12,14 @@ import { prepareJobQueue, startJobQueue, stopJobQueue } from './services/jobs';
 import type { MailSettings } from './services/mail';
 import { startSmtpFake, type SmtpFake } from './services/smtp-fake';
 import { startWorkers } from './services/workers';
+import { startEnginePool, stopEnginePool, type EnginePool } from './pool';
 
 export interface Runtime {
   sequelize: Sequelize;
   mail: MailSettings;
   smtpFake: SmtpFake | null;
   seeded: string[];
+  pool: EnginePool;
   close(): Promise<void>;
 }
 
@@ -27,6 +29,7 @@ export interface Runtime {
  * and its workers. Shared by server start-up and the API tests.
  */
 export async function startRuntime(config: AppConfig): Promise<Runtime> {
+  const pool = startEnginePool(config.pool);
   const sequelize = connectDatabase(config.databaseUrl);
   // Schema work runs as the owner; the server itself connects as a role that owns nothing.
   const owner = openRoleConnection(config.databaseOwnerUrl);
@@ -54,10 +57,12 @@ export async function startRuntime(config: AppConfig): Promise<Runtime> {
     mail,
     smtpFake,
     seeded,
+    pool,
     close: async () => {
-      // Workers first (they may be using the mail fake), the database last.
+      // Workers first (they may be using the mail fake and the engine pool), the database last.
       await stopWorkers().catch(() => undefined);
       await stopJobQueue().catch(() => undefined);
+      await stopEnginePool().catch(() => undefined);
       await smtpFake?.close();
       await closeDatabase();
     },

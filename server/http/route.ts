@@ -17,6 +17,13 @@ export interface Reply {
   body?: unknown;
   /** A download instead of JSON (CSV exports). */
   file?: { contentType: string; filename: string; content: string };
+  /** A body already serialised as JSON (e.g. by an engine pool worker), sent as it is. */
+  json?: string;
+}
+
+/** Runs `work` in one database transaction, for handlers that opt out of the wrapping one. */
+export function withTransaction<T>(work: (transaction: Transaction) => Promise<T>): Promise<T> {
+  return database().transaction(work);
 }
 
 interface HandlerContext<P, Q, B, Authed extends boolean> {
@@ -47,6 +54,11 @@ export interface RouteSpec<
   query?: Q;
   body?: B;
   responses: Record<number, { description: string; schema?: ZodType }>;
+  /**
+   * Whether the operation changes stored data; read-only API tokens may call
+   * only operations that do not. Default: every method but GET.
+   */
+  writes?: boolean;
   /** Runs before anything else, e.g. a rate limiter. */
   before?: RequestHandler[];
   /**
@@ -145,6 +157,8 @@ export function defineRoute<
         .type(reply.file.contentType)
         .attachment(reply.file.filename)
         .send(reply.file.content);
+    else if (reply.json !== undefined)
+      res.status(reply.status).type('application/json').send(reply.json);
     else if (reply.body === undefined) res.status(reply.status).end();
     else res.status(reply.status).json(reply.body);
   };
@@ -165,8 +179,9 @@ function checkReply(
   reply: Reply,
 ) {
   const schema = spec.responses[reply.status]?.schema;
-  if (!schema || reply.body === undefined) return;
-  const checked = parseExact(schema, JSON.parse(JSON.stringify(reply.body)));
+  const body = reply.json !== undefined ? JSON.parse(reply.json) : reply.body;
+  if (!schema || body === undefined) return;
+  const checked = parseExact(schema, JSON.parse(JSON.stringify(body)));
   if (!checked.success) {
     const problems = checked.error.issues
       .map((issue) => `${issue.path.join('.') || '(body)'}: ${issue.message}`)

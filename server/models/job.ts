@@ -21,7 +21,7 @@ export class EvaluationJob extends Model<
   declare id: CreationOptional<string>;
   declare userId: ForeignKey<User['id']>;
   declare kind: 'monte-carlo';
-  declare status: CreationOptional<'queued' | 'running' | 'done' | 'failed'>;
+  declare status: CreationOptional<'queued' | 'running' | 'done' | 'failed' | 'cancelled'>;
   declare progress: CreationOptional<number>;
   declare input: unknown;
   declare result: CreationOptional<Record<string, unknown> | null>;

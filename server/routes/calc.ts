@@ -19,15 +19,10 @@ import {
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
-import {
-  calcActivityCoefficients,
-  calcAzeotrope,
-  calcBubblePoint,
-  calcHansenDistance,
-  calcPartition,
-  calcSolubility,
-  calcVapourPressure,
-} from '../services/calc';
+import type { AppConfig } from '../config';
+import { enginePool } from '../pool';
+import type { CalculationName } from '../pool/tasks';
+import { inUserSlot } from '../services/evaluation-limits';
 
 const unprocessableResponse = {
   description:
@@ -40,15 +35,14 @@ const unprocessableResponse = {
  * The calculation endpoints: any signed-in member may call them (session or
  * Bearer token). They read no database, so they run without a transaction.
  */
-export function calcRouter(): Router {
+export function calcRouter(config: AppConfig): Router {
   const router = Router();
 
   const calc = <B extends ZodType>(spec: {
-    path: string;
+    path: CalculationName;
     summary: string;
     body: B;
     reply: ZodType;
-    run: (body: never) => unknown;
   }) =>
     defineRoute(router, {
       method: 'post',
@@ -65,9 +59,14 @@ export function calcRouter(): Router {
         },
         422: unprocessableResponse,
       },
+      writes: false,
       handle: async ({ actor, body }) => {
         authorize(actor, 'calc.run', null);
-        return { status: 200, body: spec.run(body as never) };
+        // The engine runs in the pool, never on the web thread.
+        const reply = await inUserSlot(actor.userId, config.evaluation, () =>
+          enginePool().run('calculate', { operation: spec.path, body }),
+        );
+        return { status: 200, body: reply };
       },
     });
 
@@ -77,7 +76,6 @@ export function calcRouter(): Router {
       'Vapour pressure of a library solvent (Antoine; Clausius–Clapeyron outside the fitted range, with a warning).',
     body: vapourPressureRequestSchema,
     reply: vapourPressureReplySchema,
-    run: calcVapourPressure,
   });
   calc({
     path: 'activity-coefficients',
@@ -85,7 +83,6 @@ export function calcRouter(): Router {
       'UNIFAC activity coefficients of a liquid mixture; components by SMILES (library solvent, or groups assigned from the structure).',
     body: activityCoefficientsRequestSchema,
     reply: activityCoefficientsReplySchema,
-    run: calcActivityCoefficients,
   });
   calc({
     path: 'bubble-point',
@@ -93,14 +90,12 @@ export function calcRouter(): Router {
       "Bubble-point temperature and vapour composition at a pressure (modified Raoult's law).",
     body: bubblePointRequestSchema,
     reply: bubblePointReplySchema,
-    run: calcBubblePoint,
   });
   calc({
     path: 'azeotrope',
     summary: 'Azeotrope of a binary of library solvents at a pressure.',
     body: azeotropeRequestSchema,
     reply: azeotropeReplySchema,
-    run: calcAzeotrope,
   });
   calc({
     path: 'partition',
@@ -108,7 +103,6 @@ export function calcRouter(): Router {
       'Distribution ratio D (organic/aqueous, molar concentrations) of a solute: Collander from logP, or UNIFAC; pH by Henderson–Hasselbalch, salt by Setschenow.',
     body: partitionRequestSchema,
     reply: partitionReplySchema,
-    run: calcPartition,
   });
   calc({
     path: 'solubility',
@@ -116,14 +110,12 @@ export function calcRouter(): Router {
       'Ideal solubility from melting point and enthalpy of fusion, and the UNIFAC-corrected solubility in a solvent.',
     body: solubilityRequestSchema,
     reply: solubilityReplySchema,
-    run: calcSolubility,
   });
   calc({
     path: 'hansen-distance',
     summary: 'Hansen distance Ra between two materials given by SMILES or by δD, δP, δH.',
     body: hansenDistanceRequestSchema,
     reply: hansenDistanceReplySchema,
-    run: calcHansenDistance,
   });
 
   return router;

@@ -9,7 +9,9 @@ import {
 } from '@shared/schemas/evaluate';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
-import { evaluateDocument } from '../services/evaluation';
+import type { AppConfig } from '../config';
+import { enginePool } from '../pool';
+import { checkStepCount, inUserSlot } from '../services/evaluation-limits';
 import { startMonteCarlo } from '../services/monte-carlo-jobs';
 
 /** Route documents are large (a 200-step route with its compounds); these paths accept up to this much JSON. */
@@ -21,7 +23,17 @@ const unevaluable = {
   schema: routeEvaluationErrorSchema,
 };
 
-export function evaluateRouter(): Router {
+const busyResponse = {
+  description:
+    'too_many_evaluations: the caller already has the allowed number of calculations running.',
+  schema: apiErrorSchema,
+};
+const poolFullResponse = {
+  description: 'server_busy: every engine worker is busy and the queue is full; retry later.',
+  schema: apiErrorSchema,
+};
+
+export function evaluateRouter(config: AppConfig): Router {
   const router = Router();
 
   defineRoute(router, {
@@ -39,12 +51,26 @@ export function evaluateRouter(): Router {
           'The result, with the engine version and the advice to defer to the site process-safety review.',
         schema: evaluateResponseSchema,
       },
-      413: { description: 'The document is larger than the body limit.', schema: apiErrorSchema },
+      413: {
+        description:
+          'The document is larger than the body limit, or has more steps than one evaluation may (route_too_large).',
+        schema: apiErrorSchema,
+      },
       422: unevaluable,
+      429: busyResponse,
+      503: poolFullResponse,
     },
     handle: async ({ actor, body }) => {
       authorize(actor, 'route.evaluate', null);
-      return { status: 200, body: evaluateDocument(body.document) };
+      checkStepCount(body.document.steps.length, config.evaluation);
+      // Evaluated and serialised in the engine pool; the web thread only passes the text on.
+      const { json } = await inUserSlot(actor.userId, config.evaluation, () =>
+        enginePool().run('route.evaluate', {
+          document: body.document,
+          maxReplyBytes: config.evaluation.maxReplyBytes,
+        }),
+      );
+      return { status: 200, json };
     },
   });
 
@@ -56,15 +82,27 @@ export function evaluateRouter(): Router {
     tags: ['evaluation'],
     auth: true,
     body: monteCarloRequestSchema,
+    // Validation and small runs happen in the engine pool first; the job row is written after.
+    transaction: false,
     responses: {
       202: { description: 'The job was queued.', schema: monteCarloStartedSchema },
+      413: {
+        description: 'More steps × draws than one run may ask for (route_too_large).',
+        schema: apiErrorSchema,
+      },
       422: unevaluable,
+      429: {
+        description:
+          'too_many_jobs: the caller already has the allowed number of runs queued or running; too_many_evaluations: calculations running.',
+        schema: apiErrorSchema,
+      },
+      503: poolFullResponse,
     },
-    handle: async ({ actor, body, transaction }) => {
+    handle: async ({ actor, body }) => {
       authorize(actor, 'job.create', null);
       const job = await startMonteCarlo(
         { userId: actor.userId, document: body.document, draws: body.draws, seed: body.seed },
-        transaction,
+        config.evaluation,
       );
       return { status: 202, body: { jobId: job.id } };
     },

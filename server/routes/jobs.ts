@@ -4,7 +4,7 @@ import { apiErrorSchema } from '@shared/schemas/errors';
 import { jobSchema } from '@shared/schemas/jobs';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
-import { loadJob, presentJob } from '../services/monte-carlo-jobs';
+import { cancelJob, loadJob, presentJob } from '../services/monte-carlo-jobs';
 
 export function jobsRouter(): Router {
   const router = Router();
@@ -25,6 +25,27 @@ export function jobsRouter(): Router {
       const job = await loadJob(params.jobId);
       authorize(actor, 'job.read', { userId: job.userId as string });
       return { status: 200, body: presentJob(job) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'post',
+    path: '/jobs/{jobId}/cancel',
+    summary:
+      'Cancel a background job you started that is still queued or running; the run stops after its current chunk at the latest.',
+    tags: ['evaluation'],
+    auth: true,
+    params: z.object({ jobId: z.uuid() }),
+    writes: false,
+    responses: {
+      200: { description: 'The job, now cancelled.', schema: jobSchema },
+      404: { description: 'No such job, or started by someone else.', schema: apiErrorSchema },
+      409: { description: 'job_finished: the job has already finished.', schema: apiErrorSchema },
+    },
+    handle: async ({ actor, params, transaction }) => {
+      const job = await loadJob(params.jobId, transaction);
+      authorize(actor, 'job.cancel', { userId: job.userId as string });
+      return { status: 200, body: presentJob(await cancelJob(job, transaction)) };
     },
   });
 

@@ -12,11 +12,14 @@ import {
   saveDraftResponseSchema,
   saveDraftSchema,
   updateRouteSchema,
+  emptyRouteDocument,
+  type DraftDocument,
 } from '@shared/schemas/routes';
-import { defineRoute } from '../http/route';
+import type { AppConfig } from '../config';
+import { defineRoute, withTransaction } from '../http/route';
 import { presentKeyTotals, presentRouteDetail, presentRouteSummary } from '../presenters';
 import { authorize } from '../policies';
-import { saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
+import { evaluateDraftInPool, saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
 import { loadWorkspace } from '../services/members';
 import {
   createRoute,
@@ -38,7 +41,7 @@ const forbiddenResponse = {
   schema: apiErrorSchema,
 };
 
-export function routesRouter(): Router {
+export function routesRouter(config: AppConfig): Router {
   const router = Router();
 
   defineRoute(router, {
@@ -79,18 +82,25 @@ export function routesRouter(): Router {
       403: forbiddenResponse,
       404: notFoundResponse,
     },
-    handle: async ({ actor, params, body, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+    // The engine pool evaluates the document first; the transaction holds no connection meanwhile.
+    transaction: false,
+    handle: async ({ actor, params, body }) => {
+      const workspace = await loadWorkspace(params.workspaceId, null);
       authorize(actor, 'route.create', { workspaceId: workspace.id });
-      const route = await createRoute(
-        {
-          workspaceId: workspace.id,
-          ownerId: actor.userId,
-          name: body.name,
-          projectName: body.projectName,
-          document: body.document,
-        },
-        transaction,
+      const document = body.document ?? (emptyRouteDocument(body.name) as DraftDocument);
+      const evaluation = await evaluateDraftInPool(document, actor.userId, config.evaluation);
+      const route = await withTransaction((transaction) =>
+        createRoute(
+          {
+            workspaceId: workspace.id,
+            ownerId: actor.userId,
+            name: body.name,
+            projectName: body.projectName,
+            document,
+            evaluation,
+          },
+          transaction,
+        ),
       );
       return { status: 201, body: presentRouteDetail(route, actor) };
     },
@@ -157,11 +167,21 @@ export function routesRouter(): Router {
       403: forbiddenResponse,
       404: notFoundResponse,
     },
-    handle: async ({ actor, params, body, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+    transaction: false,
+    handle: async ({ actor, params, body }) => {
+      const workspace = await loadWorkspace(params.workspaceId, null);
       authorize(actor, 'route.duplicate', { workspaceId: workspace.id });
-      const route = await loadRoute(workspace.id, params.routeId, transaction);
-      const copy = await duplicateRoute(route, body.name, actor.userId, transaction);
+      const source = await loadRoute(workspace.id, params.routeId, null);
+      const evaluation = await evaluateDraftInPool(
+        source.draft!.document as DraftDocument,
+        actor.userId,
+        config.evaluation,
+      );
+      const copy = await withTransaction(async (transaction) => {
+        // Copies the draft as it is now; the evaluation above is of the same document unless it changed meanwhile.
+        const route = await loadRoute(workspace.id, params.routeId, transaction);
+        return duplicateRoute(route, body.name, evaluation, actor.userId, transaction);
+      });
       return { status: 201, body: presentRouteDetail(copy, actor) };
     },
   });
@@ -188,15 +208,21 @@ export function routesRouter(): Router {
         schema: draftConflictSchema,
       },
     },
-    handle: async ({ actor, params, body, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+    transaction: false,
+    handle: async ({ actor, params, body }) => {
+      const workspace = await loadWorkspace(params.workspaceId, null);
       authorize(actor, 'route.editDraft', { workspaceId: workspace.id });
-      const route = await loadRoute(workspace.id, params.routeId, transaction);
-      const { draft, evaluation } = await saveDraft(
-        route,
-        { document: body.document, baseVersion: body.baseVersion },
-        actor.userId,
-        transaction,
+      await loadRoute(workspace.id, params.routeId, null);
+      const { document } = body;
+      // Evaluated in the engine pool before the transaction, so no row stays locked meanwhile.
+      const evaluated = await evaluateDraftInPool(document, actor.userId, config.evaluation);
+      const { draft, evaluation } = await withTransaction(async (transaction) =>
+        saveDraft(
+          await loadRoute(workspace.id, params.routeId, transaction),
+          { document, baseVersion: body.baseVersion, evaluation: evaluated },
+          actor.userId,
+          transaction,
+        ),
       );
       return {
         status: 200,

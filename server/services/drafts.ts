@@ -7,54 +7,49 @@
  * cannot evaluate is still saved, with totals null and the reason.
  */
 import type { Transaction } from 'sequelize';
-import type { RouteEvaluationError } from '@shared/schemas/evaluate';
 import type { DraftDocument } from '@shared/schemas/routes';
-import type { EngineWarning } from '@shared/schemas/route';
-import { evaluateRoute, type RouteTotals } from '@shared/engine/route/evaluate';
 import { apiError, type AppError, conflict } from '../errors';
 import { Route, RouteDraft, User } from '../models';
+import { enginePool } from '../pool';
 import { recordAudit } from './audit';
-import { describeFailure, ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
+import { incomplete, type DraftEvaluation } from './draft-evaluation';
+import { inUserSlot, type EvaluationLimits } from './evaluation-limits';
+import { ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
 
-export interface DraftEvaluation {
-  totals: RouteTotals | null;
-  evaluationError: RouteEvaluationError | { code: string; message: string; details: [] } | null;
-  warnings: Array<EngineWarning & { stepId: string | null }>;
-  stepCount: number;
-}
+export type { DraftEvaluation };
 
-/** What the engine says about a draft document; never throws for a document the engine rejects. */
-export function evaluateDraft(document: DraftDocument): DraftEvaluation {
-  const stepCount = document.steps.length;
-  if (document.steps.length === 0 || document.components.length === 0) {
-    return {
-      totals: null,
-      evaluationError: {
-        code: 'route_incomplete',
-        message: 'Add the components and at least one step to evaluate the route.',
-        details: [],
-      },
-      warnings: [],
-      stepCount,
-    };
+/**
+ * Evaluates a draft in the engine pool (never on the web thread), within the
+ * step limit; a draft over the limit is saved without totals, with the reason.
+ */
+export async function evaluateDraftInPool(
+  document: DraftDocument,
+  userId: string,
+  limits: EvaluationLimits,
+): Promise<DraftEvaluation> {
+  if (document.steps.length === 0 || document.components.length === 0)
+    return incomplete(
+      document.steps.length,
+      'route_incomplete',
+      'Add the components and at least one step to evaluate the route.',
+    );
+  if (document.steps.length > limits.maxSteps) {
+    return incomplete(
+      document.steps.length,
+      'route_too_large',
+      `This route has ${document.steps.length} steps; the server evaluates at most ${limits.maxSteps}. The draft is saved without totals.`,
+    );
   }
-  try {
-    const result = evaluateRoute(document);
-    return { totals: result.totals, evaluationError: null, warnings: result.warnings, stepCount };
-  } catch (error) {
-    const failure = describeFailure(error, document as Parameters<typeof describeFailure>[1]);
-    if (!failure) throw error;
-    return { totals: null, evaluationError: failure, warnings: [], stepCount };
-  }
+  return inUserSlot(userId, limits, () => enginePool().run('route.evaluateDraft', { document }));
 }
 
 export async function createDraft(
   routeId: string,
   document: DraftDocument,
+  evaluation: DraftEvaluation,
   userId: string,
   transaction: Transaction | null,
 ): Promise<RouteDraft> {
-  const evaluation = evaluateDraft(document);
   return RouteDraft.create(
     {
       routeId,
@@ -103,7 +98,7 @@ export function draftConflict(current: RouteDraft): AppError {
 
 export async function saveDraft(
   route: Route,
-  input: { document: DraftDocument; baseVersion: number },
+  input: { document: DraftDocument; baseVersion: number; evaluation: DraftEvaluation },
   actorId: string,
   transaction: Transaction | null,
 ): Promise<{ draft: RouteDraft; evaluation: DraftEvaluation }> {
@@ -111,7 +106,7 @@ export async function saveDraft(
     throw conflict('route_archived', 'This route is archived; unarchive it to edit its draft.');
   const draft = await lockDraft(route.id, transaction);
   if (draft.version !== input.baseVersion) throw draftConflict(draft);
-  const evaluation = evaluateDraft(input.document);
+  const { evaluation } = input;
   const before = { version: draft.version, stepCount: draft.stepCount };
   draft.set({
     document: input.document,

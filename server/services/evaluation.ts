@@ -15,6 +15,8 @@ import {
 } from '@shared/engine/route/evaluate';
 import { AppError } from '../errors';
 
+export { resultTooLarge } from '../errors';
+
 export { ENGINE_VERSION, PROCESS_SAFETY_NOTE };
 
 /** 422: a document that passed the schema but that the engine cannot evaluate. */

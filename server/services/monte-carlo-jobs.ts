@@ -1,35 +1,33 @@
 /**
- * Monte Carlo runs as background jobs. The request validates the document
- * (a 422 names the step before anything is queued), writes an evaluation_jobs
+ * Monte Carlo runs as background jobs. The request checks the size limits
+ * and the person's job cap, validates the document in the engine pool (a 422
+ * names the step before anything is queued), then writes an evaluation_jobs
  * row and a pg-boss job carrying only its id, in one transaction. A worker
- * runs the draws in small chunks, writing progress after each, and stores the
- * p5/p50/p95 summary. Small runs are evaluated inline but answer through the
- * same job row, so the client has one interface.
+ * runs the draws chunk by chunk in the engine pool, writing progress after
+ * each and stopping when the job is cancelled. Small runs are evaluated in
+ * the request but answer through the same job row, so the client has one
+ * interface.
  */
-import { setImmediate as nextTurn } from 'node:timers/promises';
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { RouteDocument } from '@shared/schemas/route';
 import type { Job, MonteCarloResult } from '@shared/schemas/jobs';
-import { parseRoute, prepareRoute, type PreparedRoute } from '@shared/engine/route/evaluate';
-import {
-  runMonteCarloChunk,
-  startMonteCarlo as startRun,
-  summariseMonteCarlo,
+import type {
+  MonteCarloResult as EngineMonteCarloResult,
+  MonteCarloState,
 } from '@shared/engine/route/monte-carlo';
-import { notFound } from '../errors';
+import { database } from '../db/sequelize';
+import { AppError, conflict, notFound, tooManyJobs } from '../errors';
 import { EvaluationJob } from '../models';
-import {
-  describeFailure,
-  ENGINE_VERSION,
-  PROCESS_SAFETY_NOTE,
-  RouteEvaluationFailed,
-} from './evaluation';
+import { enginePool } from '../pool';
+import type { TaskOutput } from '../pool/tasks';
+import { ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
+import { checkStepDraws, inUserSlot, type EvaluationLimits } from './evaluation-limits';
 import { enqueue, jobQueue, QUEUES } from './jobs';
 
 export const MONTE_CARLO_QUEUE = QUEUES.monteCarlo;
 /** Runs of at most this many draws are evaluated in the request. */
 export const INLINE_MAX_DRAWS = 20;
-/** Draws per chunk: a few tens of milliseconds of work between progress writes. */
+/** Draws per chunk: bounded work between progress writes and cancellation checks. */
 const CHUNK_DRAWS = 10;
 
 interface MonteCarloInput {
@@ -43,94 +41,139 @@ export function ensureMonteCarloQueue(): Promise<void> {
   return Promise.resolve();
 }
 
-function prepare(document: RouteDocument): PreparedRoute {
-  try {
-    return prepareRoute(parseRoute(document));
-  } catch (error) {
-    const failure = describeFailure(error, document);
-    if (failure) throw new RouteEvaluationFailed(failure);
-    throw error;
-  }
-}
+const OPEN_STATUSES = ['queued', 'running'];
 
 /** Validates the document and queues the run (or runs it now when small). */
 export async function startMonteCarlo(
   input: MonteCarloInput & { userId: string },
-  transaction: Transaction | null,
+  limits: EvaluationLimits,
 ): Promise<EvaluationJob> {
-  const prepared = prepare(input.document);
+  checkStepDraws(input.document.steps.length, input.draws, limits);
   const { userId, ...stored } = input;
-  const job = await EvaluationJob.create(
-    { userId, kind: 'monte-carlo', input: stored },
-    { transaction },
-  );
+  const open = await EvaluationJob.count({
+    where: { userId, status: { [Op.in]: OPEN_STATUSES } },
+  });
+  if (open >= limits.perUserJobs) throw tooManyJobs(limits.perUserJobs);
+
   if (input.draws <= INLINE_MAX_DRAWS) {
-    const state = runMonteCarloChunk(
-      prepared,
-      startRun({ draws: input.draws, seed: input.seed }),
-      input.draws,
+    const startedAt = new Date();
+    const result = await inUserSlot(userId, limits, () =>
+      enginePool().run('monteCarlo.run', stored),
     );
-    await job.update(
-      {
-        status: 'done',
-        progress: 1,
-        result: summary(state),
-        startedAt: new Date(),
-        finishedAt: new Date(),
-      },
-      { transaction },
-    );
-    return job;
-  }
-  await ensureMonteCarloQueue();
-  await enqueue(MONTE_CARLO_QUEUE, { jobId: job.id }, { retryLimit: 1 }, transaction);
-  return job;
-}
-
-function summary(state: ReturnType<typeof startRun>): MonteCarloResult {
-  return {
-    ...summariseMonteCarlo(state),
-    engineVersion: ENGINE_VERSION,
-    processSafetyNote: PROCESS_SAFETY_NOTE,
-  };
-}
-
-/** Runs one queued job to the end, writing progress as it goes. Safe to call again for a finished job. */
-export async function runMonteCarloJob(jobId: string): Promise<void> {
-  const job = await EvaluationJob.findByPk(jobId);
-  if (!job || job.status === 'done' || job.status === 'failed') return;
-  const input = job.input as MonteCarloInput;
-  await job.update({ status: 'running', progress: 0, startedAt: new Date() });
-  try {
-    const prepared = prepareRoute(parseRoute(input.document));
-    let state = startRun({ draws: input.draws, seed: input.seed });
-    let reported = 0;
-    while (state.done < state.draws) {
-      state = runMonteCarloChunk(prepared, state, CHUNK_DRAWS);
-      const progress = state.done / state.draws;
-      // Write progress about every 1 %, and let other requests run between chunks.
-      if (progress - reported >= 0.01 && state.done < state.draws) {
-        reported = progress;
-        await job.update({ progress });
-      }
-      await nextTurn();
-    }
-    await job.update({
+    return EvaluationJob.create({
+      userId,
+      kind: 'monte-carlo',
+      input: stored,
       status: 'done',
       progress: 1,
-      result: summary(state),
+      result: summary(result),
+      startedAt,
       finishedAt: new Date(),
     });
+  }
+  await inUserSlot(userId, limits, () =>
+    enginePool().run('route.check', { document: input.document }),
+  );
+  await ensureMonteCarloQueue();
+  return database().transaction(async (transaction: Transaction) => {
+    const job = await EvaluationJob.create(
+      { userId, kind: 'monte-carlo', input: stored },
+      { transaction },
+    );
+    await enqueue(MONTE_CARLO_QUEUE, { jobId: job.id }, { retryLimit: 1 }, transaction);
+    return job;
+  });
+}
+
+function summary(result: EngineMonteCarloResult): MonteCarloResult {
+  return { ...result, engineVersion: ENGINE_VERSION, processSafetyNote: PROCESS_SAFETY_NOTE };
+}
+
+/** Runs in progress on this server, so a cancel stops the chunk already in a worker. */
+const runningHere = new Map<string, AbortController>();
+
+class JobCancelled extends Error {
+  constructor() {
+    super('cancelled');
+    this.name = 'JobCancelled';
+  }
+}
+
+/**
+ * Runs one queued job to the end, writing progress as it goes. Stops when the
+ * job is cancelled (checked in the database between chunks, so a cancel on
+ * any server instance counts). Safe to call again for a finished job.
+ */
+export async function runMonteCarloJob(jobId: string, stopping?: AbortSignal): Promise<void> {
+  const job = await EvaluationJob.findByPk(jobId);
+  if (!job || !OPEN_STATUSES.includes(job.status)) return;
+  const input = job.input as MonteCarloInput;
+  const claimed = await EvaluationJob.update(
+    { status: 'running', progress: 0, startedAt: new Date() },
+    { where: { id: jobId, status: { [Op.in]: OPEN_STATUSES } } },
+  );
+  if (claimed[0] === 0) return;
+  const controller = new AbortController();
+  runningHere.set(jobId, controller);
+  const signal = stopping ? AbortSignal.any([controller.signal, stopping]) : controller.signal;
+  try {
+    let state: MonteCarloState | null = null;
+    let reported = 0;
+    for (;;) {
+      const chunk: TaskOutput<'monteCarlo.chunk'> = await enginePool().run(
+        'monteCarlo.chunk',
+        {
+          cacheKey: jobId,
+          document: input.document,
+          state,
+          draws: input.draws,
+          seed: input.seed,
+          chunk: CHUNK_DRAWS,
+        },
+        { signal },
+      );
+      const next = chunk.state;
+      state = next;
+      if (chunk.summary) {
+        await EvaluationJob.update(
+          { status: 'done', progress: 1, result: summary(chunk.summary), finishedAt: new Date() },
+          { where: { id: jobId, status: 'running' } },
+        );
+        return;
+      }
+      const progress = next.done / next.draws;
+      // Progress about every 1 %; the same statement finds out whether the job was cancelled.
+      const [still] = await EvaluationJob.update(
+        progress - reported >= 0.01 ? { progress } : { updatedAt: new Date() },
+        { where: { id: jobId, status: 'running' } },
+      );
+      if (still === 0) throw new JobCancelled();
+      if (progress - reported >= 0.01) reported = progress;
+    }
   } catch (error) {
-    const failure = describeFailure(error, input.document);
-    await job.update({
-      status: 'failed',
-      error: failure
-        ? { code: failure.code, message: failure.message }
-        : { code: 'internal_error', message: 'The run stopped on a server error.' },
-      finishedAt: new Date(),
-    });
-    if (!failure) console.error('[monte-carlo]', error);
+    if (error instanceof JobCancelled || controller.signal.aborted) return;
+    if (stopping?.aborted) {
+      // The server is shutting down: hand the job back so another run picks it up.
+      await EvaluationJob.update(
+        { status: 'queued', progress: 0 },
+        { where: { id: jobId, status: 'running' } },
+      );
+      throw error;
+    }
+    const known = error instanceof AppError;
+    await EvaluationJob.update(
+      {
+        status: 'failed',
+        error: known
+          ? { code: error.code, message: error.message }
+          : { code: 'internal_error', message: 'The run stopped on a server error.' },
+        finishedAt: new Date(),
+      },
+      { where: { id: jobId, status: 'running' } },
+    );
+    if (!known) console.error('[monte-carlo]', error);
+  } finally {
+    runningHere.delete(jobId);
   }
 }
 
@@ -138,22 +181,39 @@ export async function runMonteCarloJob(jobId: string): Promise<void> {
 export async function startMonteCarloWorker(pollSeconds: number): Promise<() => Promise<void>> {
   await ensureMonteCarloQueue();
   const boss = jobQueue();
+  const stopping = new AbortController();
   await boss.work<{ jobId: string }>(
     MONTE_CARLO_QUEUE,
     { pollingIntervalSeconds: pollSeconds, batchSize: 1 },
     async (jobs) => {
-      for (const job of jobs) await runMonteCarloJob(job.data.jobId);
+      for (const job of jobs) await runMonteCarloJob(job.data.jobId, stopping.signal);
     },
   );
   return async () => {
+    stopping.abort(new Error('server stopping'));
     await boss.offWork(MONTE_CARLO_QUEUE);
   };
 }
 
 /** Loads a job by id; the caller authorizes (only its starter sees it). */
-export async function loadJob(jobId: string): Promise<EvaluationJob> {
-  const job = await EvaluationJob.findByPk(jobId);
+export async function loadJob(
+  jobId: string,
+  transaction?: Transaction | null,
+): Promise<EvaluationJob> {
+  const job = await EvaluationJob.findByPk(jobId, { transaction });
   if (!job) throw notFound();
+  return job;
+}
+
+/** Cancels a queued or running job; the run stops after its current chunk at the latest. */
+export async function cancelJob(
+  job: EvaluationJob,
+  transaction: Transaction | null,
+): Promise<EvaluationJob> {
+  if (!OPEN_STATUSES.includes(job.status))
+    throw conflict('job_finished', 'This run has already finished; there is nothing to cancel.');
+  await job.update({ status: 'cancelled', finishedAt: new Date() }, { transaction });
+  runningHere.get(job.id)?.abort(new JobCancelled());
   return job;
 }
 

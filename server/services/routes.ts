@@ -12,11 +12,11 @@ import {
   type Transaction,
   type WhereOptions,
 } from 'sequelize';
-import { emptyRouteDocument, type DraftDocument } from '@shared/schemas/routes';
+import type { DraftDocument } from '@shared/schemas/routes';
 import { notFound, versionConflict } from '../errors';
 import { Project, Route, RouteDraft, User } from '../models';
 import { recordAudit } from './audit';
-import { createDraft } from './drafts';
+import { createDraft, type DraftEvaluation } from './drafts';
 
 const summaryIncludes = (withDocument: boolean) => [
   { model: Project, as: 'project', attributes: ['id', 'name'] },
@@ -97,7 +97,9 @@ export async function createRoute(
     ownerId: string;
     name: string;
     projectName?: string;
-    document?: DraftDocument;
+    document: DraftDocument;
+    /** The document's evaluation, made in the engine pool before the transaction. */
+    evaluation: DraftEvaluation;
   },
   transaction: Transaction | null,
 ): Promise<Route> {
@@ -113,8 +115,8 @@ export async function createRoute(
     },
     { transaction },
   );
-  const document = input.document ?? (emptyRouteDocument(input.name) as DraftDocument);
-  await createDraft(route.id, document, input.ownerId, transaction);
+  const { document } = input;
+  await createDraft(route.id, document, input.evaluation, input.ownerId, transaction);
   await recordAudit(
     {
       workspaceId: input.workspaceId,
@@ -184,6 +186,7 @@ export async function updateRoute(
 export async function duplicateRoute(
   route: Route,
   name: string | undefined,
+  evaluation: DraftEvaluation,
   actorId: string,
   transaction: Transaction | null,
 ): Promise<Route> {
@@ -193,7 +196,13 @@ export async function duplicateRoute(
     { workspaceId, projectId: route.projectId ?? null, ownerId: actorId, name: copyName },
     { transaction },
   );
-  await createDraft(copy.id, route.draft!.document as DraftDocument, actorId, transaction);
+  await createDraft(
+    copy.id,
+    route.draft!.document as DraftDocument,
+    evaluation,
+    actorId,
+    transaction,
+  );
   await recordAudit(
     {
       workspaceId,

@@ -1,10 +1,11 @@
 /** Background jobs a user started (Monte Carlo runs), polled for progress. */
 import { z } from 'zod';
+import { text } from './text';
 import type { MonteCarloResult as EngineMonteCarloResult } from '../engine/route/monte-carlo';
 import type { Exactly } from './exact';
 
 export const JOB_KINDS = ['monte-carlo'] as const;
-export const JOB_STATUSES = ['queued', 'running', 'done', 'failed'] as const;
+export const JOB_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
 
 /** p5/p50/p95 of one quantity over the draws; null when no draw gave a number. */
 export const percentilesSchema = z.object({
@@ -20,12 +21,12 @@ export const monteCarloResultSchema = z.object({
   yieldPct: percentilesSchema,
   purityWtPct: percentilesSchema,
   /** Purge factor of each impurity; null where the impurity is purged completely in most draws. */
-  purgeFactor: z.record(z.string(), percentilesSchema),
+  purgeFactor: z.record(text(), percentilesSchema),
   /** Draws for which the route could not be evaluated. */
   failedDraws: z.number().int(),
-  engineVersion: z.string(),
+  engineVersion: text(),
   /** Cautions are prompts: defer to the site's process-safety review. */
-  processSafetyNote: z.string(),
+  processSafetyNote: text(),
 });
 // The stored summary is the engine's plus the engine version and the safety note.
 const _monteCarloMatchesEngine: Exactly<
@@ -35,14 +36,14 @@ const _monteCarloMatchesEngine: Exactly<
 export type MonteCarloResult = z.infer<typeof monteCarloResultSchema>;
 
 export const jobSchema = z.object({
-  id: z.string(),
+  id: text(),
   kind: z.enum(JOB_KINDS),
   status: z.enum(JOB_STATUSES),
   /** 0..1: the share of draws done. */
   progress: z.number().min(0).max(1),
   result: monteCarloResultSchema.optional(),
-  error: z.object({ code: z.string(), message: z.string() }).optional(),
-  createdAt: z.string(),
-  updatedAt: z.string(),
+  error: z.object({ code: text(), message: text() }).optional(),
+  createdAt: text(),
+  updatedAt: text(),
 });
 export type Job = z.infer<typeof jobSchema>;

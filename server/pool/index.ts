@@ -1,0 +1,128 @@
+/**
+ * The engine pool: worker threads that run the engine (route evaluation,
+ * Monte Carlo draws, calculations) so the web thread only answers requests.
+ * A well-known pool (piscina) sized to the machine's cores, with a bounded
+ * queue, a time limit per task and a memory limit per worker.
+ *
+ * Use: `await enginePool().run('route.evaluate', input, { signal })`. The
+ * task names and their input and output types come from ./tasks.ts; an
+ * AppError thrown in a task arrives here as the same AppError.
+ */
+import { availableParallelism } from 'node:os';
+import { Piscina } from 'piscina';
+import { AppError, evaluationTimedOut, serverBusy } from '../errors';
+import type { TaskInput, TaskName, TaskOutput, TaskReply } from './tasks';
+
+export interface EnginePoolOptions {
+  /** Worker threads; default the number of cores. */
+  size: number;
+  /** Tasks that may wait for a worker; beyond it, 503 server_busy. */
+  maxQueue: number;
+  /** Default time limit of one task. */
+  taskTimeoutMs: number;
+  /** Heap limit of each worker, MB: a runaway task ends its worker, not the server. */
+  workerMemoryMb: number;
+}
+
+export const defaultPoolSize = () => Math.max(1, availableParallelism());
+
+export interface RunOptions {
+  /** Aborts the task (a running task's worker is stopped and replaced). */
+  signal?: AbortSignal;
+  /** Overrides the default time limit. */
+  timeoutMs?: number;
+}
+
+export interface EnginePool {
+  run<K extends TaskName>(
+    name: K,
+    input: TaskInput<K>,
+    options?: RunOptions,
+  ): Promise<TaskOutput<K>>;
+  /** Workers, how many are busy, and tasks waiting. */
+  stats(): { size: number; busy: number; queued: number };
+  close(): Promise<void>;
+}
+
+/** The reason a task was stopped because it ran out of time. */
+class TaskTimeout extends Error {
+  constructor(readonly ms: number) {
+    super(`task took longer than ${ms} ms`);
+    this.name = 'TaskTimeout';
+  }
+}
+
+export function createEnginePool(options: EnginePoolOptions): EnginePool {
+  const piscina = new Piscina({
+    filename: new URL('./worker.mjs', import.meta.url).href,
+    minThreads: options.size,
+    maxThreads: options.size,
+    maxQueue: options.maxQueue,
+    // One task at a time per worker: engine work is synchronous.
+    concurrentTasksPerWorker: 1,
+    idleTimeout: 60_000,
+    // The worker loads its own TypeScript loader; the web thread's flags are not for it.
+    execArgv: [],
+    resourceLimits: { maxOldGenerationSizeMb: options.workerMemoryMb },
+  });
+  let busy = 0;
+
+  async function run<K extends TaskName>(
+    name: K,
+    input: TaskInput<K>,
+    runOptions: RunOptions = {},
+  ): Promise<TaskOutput<K>> {
+    const limitMs = runOptions.timeoutMs ?? options.taskTimeoutMs;
+    const timer = new AbortController();
+    const timeout = setTimeout(() => timer.abort(new TaskTimeout(limitMs)), limitMs);
+    const signal = runOptions.signal
+      ? AbortSignal.any([runOptions.signal, timer.signal])
+      : timer.signal;
+    if (piscina.queueSize >= options.maxQueue && busy >= options.size) throw serverBusy();
+    busy++;
+    try {
+      const reply = (await piscina.run({ name, input }, { signal })) as TaskReply;
+      if (reply.ok) return reply.value as TaskOutput<K>;
+      throw new AppError(reply.error.body, reply.error.headers);
+    } catch (error) {
+      if (timer.signal.aborted && timer.signal.reason instanceof TaskTimeout)
+        throw evaluationTimedOut(limitMs);
+      if (runOptions.signal?.aborted) throw runOptions.signal.reason ?? error;
+      if (error instanceof Error && /queue is at limit/i.test(error.message)) throw serverBusy();
+      throw error;
+    } finally {
+      busy--;
+      clearTimeout(timeout);
+    }
+  }
+
+  return {
+    run,
+    stats: () => ({
+      size: options.size,
+      busy: Math.min(busy, options.size),
+      queued: piscina.queueSize,
+    }),
+    close: () => piscina.destroy(),
+  };
+}
+
+let current: EnginePool | null = null;
+
+/** Starts the process's engine pool (once). */
+export function startEnginePool(options: EnginePoolOptions): EnginePool {
+  current ??= createEnginePool(options);
+  return current;
+}
+
+export function enginePool(): EnginePool {
+  if (!current) throw new Error('startEnginePool() has not been called');
+  return current;
+}
+
+export async function stopEnginePool(): Promise<void> {
+  if (!current) return;
+  const stopping = current;
+  current = null;
+  await stopping.close();
+}

@@ -1,0 +1,138 @@
+/**
+ * The work the engine pool does, by name. This module runs inside the worker
+ * threads only (server/pool/worker.mjs loads it); the web thread imports its
+ * types, never its code, so the engine never runs on the thread that answers
+ * requests.
+ *
+ * To add a task: write a function of one structured-cloneable input that
+ * returns a structured-cloneable output, and add it to `tasks` under a
+ * dotted name. Throw an AppError for an answer the caller should pass on
+ * (it crosses the thread boundary as its status, code, message and details).
+ */
+import type { ApiErrorBody } from '@shared/schemas/errors';
+import type { DraftDocument } from '@shared/schemas/routes';
+import type { RouteDocument } from '@shared/schemas/route';
+import { parseRoute, prepareRoute, type PreparedRoute } from '@shared/engine/route/evaluate';
+import {
+  runMonteCarloChunk,
+  startMonteCarlo,
+  summariseMonteCarlo,
+  type MonteCarloState,
+} from '@shared/engine/route/monte-carlo';
+import { AppError } from '../errors';
+import {
+  calcActivityCoefficients,
+  calcAzeotrope,
+  calcBubblePoint,
+  calcHansenDistance,
+  calcPartition,
+  calcSolubility,
+  calcVapourPressure,
+} from '../services/calc';
+import { evaluateDraft } from '../services/draft-evaluation';
+import {
+  describeFailure,
+  evaluateDocument,
+  RouteEvaluationFailed,
+  resultTooLarge,
+} from '../services/evaluation';
+
+function prepare(document: RouteDocument): PreparedRoute {
+  try {
+    return prepareRoute(parseRoute(document));
+  } catch (error) {
+    const failure = describeFailure(error, document);
+    if (failure) throw new RouteEvaluationFailed(failure);
+    throw error;
+  }
+}
+
+/** Prepared routes of running Monte Carlo jobs, so each chunk skips validation and model set-up. */
+const preparedByJob = new Map<string, PreparedRoute>();
+function preparedFor(cacheKey: string, document: RouteDocument): PreparedRoute {
+  let prepared = preparedByJob.get(cacheKey);
+  if (!prepared) {
+    prepared = prepare(document);
+    preparedByJob.set(cacheKey, prepared);
+    if (preparedByJob.size > 4) preparedByJob.delete(preparedByJob.keys().next().value!);
+  }
+  return prepared;
+}
+
+const CALCULATIONS = {
+  'vapour-pressure': calcVapourPressure,
+  'activity-coefficients': calcActivityCoefficients,
+  'bubble-point': calcBubblePoint,
+  azeotrope: calcAzeotrope,
+  partition: calcPartition,
+  solubility: calcSolubility,
+  'hansen-distance': calcHansenDistance,
+} as const;
+export type CalculationName = keyof typeof CALCULATIONS;
+
+export const tasks = {
+  /** One evaluation, answered as JSON text (serialised here, off the web thread), refused above maxReplyBytes. */
+  'route.evaluate': (input: { document: RouteDocument; maxReplyBytes: number }) => {
+    const json = JSON.stringify(evaluateDocument(input.document));
+    if (json.length > input.maxReplyBytes) throw resultTooLarge(json.length, input.maxReplyBytes);
+    return { json };
+  },
+  /** A draft's totals and cautions; a document the engine rejects gives the reason, not an error. */
+  'route.evaluateDraft': (input: { document: DraftDocument }) => evaluateDraft(input.document),
+  /** Validates a document for a Monte Carlo run (422 naming the step when it cannot run). */
+  'route.check': (input: { document: RouteDocument }) => {
+    prepare(input.document);
+    return null;
+  },
+  /** A whole (small) Monte Carlo run. */
+  'monteCarlo.run': (input: { document: RouteDocument; draws: number; seed: number }) => {
+    const prepared = prepare(input.document);
+    const state = runMonteCarloChunk(
+      prepared,
+      startMonteCarlo({ draws: input.draws, seed: input.seed }),
+      input.draws,
+    );
+    return summariseMonteCarlo(state);
+  },
+  /** The next chunk of draws of a background run. */
+  'monteCarlo.chunk': (input: {
+    cacheKey: string;
+    document: RouteDocument;
+    state: MonteCarloState | null;
+    draws: number;
+    seed: number;
+    chunk: number;
+  }) => {
+    const prepared = preparedFor(input.cacheKey, input.document);
+    const state = input.state ?? startMonteCarlo({ draws: input.draws, seed: input.seed });
+    const next = runMonteCarloChunk(prepared, state, input.chunk);
+    if (next.done >= next.draws) preparedByJob.delete(input.cacheKey);
+    return { state: next, summary: next.done >= next.draws ? summariseMonteCarlo(next) : null };
+  },
+  /** One of the calculation API's computations. */
+  calculate: (input: { operation: CalculationName; body: unknown }) =>
+    (CALCULATIONS[input.operation] as (body: unknown) => unknown)(input.body),
+} as const;
+
+export type Tasks = typeof tasks;
+export type TaskName = keyof Tasks;
+export type TaskInput<K extends TaskName> = Parameters<Tasks[K]>[0];
+export type TaskOutput<K extends TaskName> = ReturnType<Tasks[K]>;
+
+/** What crosses back to the web thread: the value, or an API error to pass on. */
+export type TaskReply =
+  | { ok: true; value: unknown }
+  | { ok: false; error: { body: ApiErrorBody; headers?: Record<string, string> } };
+
+/** The worker's entry: runs the named task. Errors that are not AppErrors are thrown (a server fault). */
+export function runTask(message: { name: TaskName; input: unknown }): TaskReply {
+  const task = tasks[message.name] as ((input: unknown) => unknown) | undefined;
+  if (!task) throw new Error(`unknown pool task ${String(message.name)}`);
+  try {
+    return { ok: true, value: task(message.input) };
+  } catch (error) {
+    if (error instanceof AppError)
+      return { ok: false, error: { body: error.body, headers: error.headers } };
+    throw error;
+  }
+}
