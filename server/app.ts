@@ -81,13 +81,22 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
     }),
   );
 
-  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+  // Sessions and rate limits share one small pool. An idle client's error (the database
+  // restarting) must be handled, or Node ends the process; the pool then reconnects by itself.
+  const sessionPool = new pg.Pool({
+    connectionString: config.databaseUrl,
+    max: 5,
+    connectionTimeoutMillis: 5_000,
+    idleTimeoutMillis: 30_000,
+  });
+  sessionPool.on('error', (error) => log(error));
   const PgStore = connectPgSimple(session);
   const store = new PgStore({
     pool: sessionPool,
     tableName: 'session',
     createTableIfMissing: false,
     pruneSessionInterval: 15 * 60,
+    errorLog: (...args: unknown[]) => log(args),
   });
   const passport = configurePassport();
 

@@ -30,9 +30,20 @@ async function main() {
     if (stopping) return;
     stopping = true;
     console.log(`${signal} received, shutting down`);
-    // Stop taking requests, let open ones finish, then release the queue and the database.
+    // Stop taking connections and let the requests in flight finish (their engine work
+    // included); after the grace period, close what is still open. Then release the engine
+    // pool, the job queue and the database.
+    const closed = new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeIdleConnections();
-    await new Promise<void>((resolve) => server.close(() => resolve()));
+    const grace = setTimeout(() => {
+      console.error(
+        `Requests still open after ${config.shutdownGraceSeconds} s; closing their connections.`,
+      );
+      server.closeAllConnections();
+    }, config.shutdownGraceSeconds * 1000);
+    grace.unref();
+    await closed;
+    clearTimeout(grace);
     await closeApp();
     await runtime.close();
     process.exit(0);
