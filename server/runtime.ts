@@ -49,6 +49,7 @@ export async function startRuntime(config: AppConfig): Promise<Runtime> {
     smtpUrl: config.smtpUrl ?? smtpFake!.url,
     from: config.mailFrom,
     ignoreTLS: !config.smtpUrl,
+    tagWorkspaces: !config.smtpUrl,
   };
   await startJobQueue(config.databaseUrl);
   const stopWorkers = await startWorkers({ mail, pollSeconds: config.jobPollSeconds });

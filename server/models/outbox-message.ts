@@ -17,6 +17,8 @@ export class OutboxMessage extends Model<
   declare subject: string;
   declare text: string;
   declare html: string | null;
+  /** The workspaces the message concerns; an admin sees it only when they administer all of them. */
+  declare workspaceIds: CreationOptional<string[]>;
   declare receivedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
@@ -27,6 +29,7 @@ export class OutboxMessage extends Model<
         subject: { type: DataTypes.TEXT, allowNull: false },
         text: { type: DataTypes.TEXT, allowNull: false },
         html: { type: DataTypes.TEXT, allowNull: true },
+        workspaceIds: { type: DataTypes.ARRAY(DataTypes.UUID), allowNull: false, defaultValue: [] },
         receivedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
       },
       { sequelize, tableName: 'outbox_messages', underscored: true, timestamps: false },

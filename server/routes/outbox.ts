@@ -14,7 +14,7 @@ export function outboxRouter(config: AppConfig): Router {
     method: 'get',
     path: '/outbox',
     summary:
-      'Mail caught by the built-in mail fake, newest first (development and demo only; admins).',
+      'Mail caught by the built-in mail fake that concerns only workspaces you administer, newest first (outside production only; admins).',
     tags: ['outbox'],
     auth: true,
     responses: {
@@ -25,7 +25,10 @@ export function outboxRouter(config: AppConfig): Router {
     handle: async ({ actor, transaction }) => {
       if (!config.outboxEnabled) throw notFound('The outbox');
       authorize(actor, 'outbox.read', null);
-      return { status: 200, body: (await listOutbox(transaction)).map(presentOutboxMessage) };
+      return {
+        status: 200,
+        body: (await listOutbox(actor, transaction)).map(presentOutboxMessage),
+      };
     },
   });
   return router;

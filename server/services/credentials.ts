@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { database } from '../db/sequelize';
 import { gone, notFound, validationFailed } from '../errors';
-import { PasswordReset, User } from '../models';
+import { Membership, PasswordReset, User } from '../models';
 import { recordAudit } from './audit';
 import { passwordResetMail, queueMail } from './mail';
 import { hashPassword, verifyPassword } from './passwords';
@@ -32,6 +32,13 @@ export async function requestPasswordReset(
   await queueMail(
     passwordResetMail({
       to: user.email,
+      workspaceIds: (
+        await Membership.findAll({
+          where: { userId: user.id },
+          attributes: ['workspaceId'],
+          transaction,
+        })
+      ).map((m) => m.workspaceId as string),
       name: user.name,
       url: `${appUrl}/reset-password/${token}`,
     }),

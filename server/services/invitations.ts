@@ -57,6 +57,7 @@ export async function inviteMember(input: {
   await queueMail(
     invitationMail({
       to: email,
+      workspaceId: workspace.id,
       workspaceName: workspace.name,
       inviterName: inviter.name,
       roles,

@@ -5,6 +5,12 @@ import { enqueue, QUEUES } from './jobs';
 
 export interface MailMessage {
   to: string;
+  /**
+   * The workspaces the message concerns (an invitation: its workspace; account mail: every
+   * workspace of the account). The development outbox shows a message only to admins of all
+   * of them.
+   */
+  workspaceIds: string[];
   subject: string;
   text: string;
   html: string;
@@ -16,7 +22,12 @@ export interface MailSettings {
   from: string;
   /** The fake speaks plain SMTP only. */
   ignoreTLS: boolean;
+  /** Mark each message with its workspaces (for the built-in fake's outbox only). */
+  tagWorkspaces: boolean;
 }
+
+/** Header that carries a message's workspaces to the built-in mail fake. */
+export const WORKSPACES_HEADER = 'X-Phasewright-Workspaces';
 
 const escapeHtml = (value: string) =>
   value.replace(
@@ -39,6 +50,7 @@ export function layout(
 
 export function invitationMail(input: {
   to: string;
+  workspaceId: string;
   workspaceName: string;
   inviterName: string;
   roles: Role[];
@@ -53,6 +65,7 @@ export function invitationMail(input: {
   ];
   return {
     to: input.to,
+    workspaceIds: [input.workspaceId],
     subject: `You are invited to ${input.workspaceName} on Phasewright`,
     text: `${lines.join('\n\n')}\n\n${input.url}\n\n${expiry}\nIf you did not expect this, ignore the message.\n`,
     html: layout(
@@ -64,7 +77,12 @@ export function invitationMail(input: {
   };
 }
 
-export function passwordResetMail(input: { to: string; name: string; url: string }): MailMessage {
+export function passwordResetMail(input: {
+  to: string;
+  name: string;
+  url: string;
+  workspaceIds: string[];
+}): MailMessage {
   const lines = [
     `Hello ${input.name},`,
     'Someone asked to reset the password of your Phasewright account. Open the link to choose a new one.',
@@ -73,6 +91,7 @@ export function passwordResetMail(input: { to: string; name: string; url: string
     'The link works once and expires in 1 hour. If you did not ask for it, ignore this message; your password stays as it is.';
   return {
     to: input.to,
+    workspaceIds: input.workspaceIds,
     subject: 'Reset your Phasewright password',
     text: `${lines.join('\n\n')}\n\n${input.url}\n\n${footer}\n`,
     html: layout(
@@ -107,11 +126,14 @@ export function createMailTransport(settings: MailSettings): Transporter {
 /** Delivers one message now; used by the mail.send worker. Throws so the job is retried. */
 export async function deliverMail(
   transport: Transporter,
-  from: string,
+  settings: MailSettings,
   message: MailMessage,
 ): Promise<void> {
   await transport.sendMail({
-    from,
+    from: settings.from,
+    ...(settings.tagWorkspaces
+      ? { headers: { [WORKSPACES_HEADER]: (message.workspaceIds ?? []).join(',') } }
+      : {}),
     to: message.to,
     subject: message.subject,
     text: message.text,

@@ -2,6 +2,9 @@ import type { AddressInfo } from 'node:net';
 import { simpleParser, type AddressObject } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 import { OutboxMessage } from '../models';
+import { WORKSPACES_HEADER } from './mail';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export interface SmtpFake {
   port: number;
@@ -27,7 +30,12 @@ export async function startSmtpFake(port = 0): Promise<SmtpFake> {
       simpleParser(stream)
         .then(async (mail) => {
           const envelopeTo = session.envelope.rcptTo.map((r) => r.address).join(', ');
+          const tagged = String(mail.headers.get(WORKSPACES_HEADER.toLowerCase()) ?? '');
           await OutboxMessage.create({
+            workspaceIds: tagged
+              .split(',')
+              .filter((id) => UUID.test(id.trim()))
+              .map((id) => id.trim()),
             to: addressesOf(mail.to) || envelopeTo,
             subject: mail.subject ?? '',
             text: mail.text ?? '',

@@ -15,7 +15,7 @@ export async function startWorkers(options: {
     { pollingIntervalSeconds: options.pollSeconds, batchSize: 5 },
     async (jobs) => {
       // A thrown error fails the whole batch and pg-boss retries it with backoff.
-      for (const job of jobs) await deliverMail(transport, options.mail.from, job.data);
+      for (const job of jobs) await deliverMail(transport, options.mail, job.data);
     },
   );
   const stopMonteCarlo = await startMonteCarloWorker(options.pollSeconds);

@@ -10,7 +10,7 @@ import { Button } from '@/components/button';
 import { cn } from '@/components/cn';
 import { formatDateTime } from '@/lib/format';
 
-/** The demo's mail fake: every e-mail the app sent, as it was received. */
+/** The demo's mail fake: the e-mails about the workspaces you administer, as they were received. */
 export function Component() {
   const outbox = useOutbox();
   const [openId, setOpenId] = useState<string | null>(null);
@@ -18,7 +18,7 @@ export function Component() {
   const header = (
     <PageHeader
       title="Outbox"
-      description="E-mails Phasewright sent, caught by the built-in mail server of the demo and of development. Production sends real mail instead."
+      description="E-mails Phasewright sent about the workspaces you administer, caught by the built-in mail server of the demo and of development. Production sends real mail instead."
       actions={
         <Button
           variant="secondary"

@@ -10,6 +10,7 @@ const server = useTestServer();
 
 const message = (to: string) => ({
   to,
+  workspaceIds: [] as string[],
   subject: 'Queue check',
   text: 'Plain text body',
   html: '<p>HTML body</p>',

@@ -1,9 +1,9 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { outboxMessageListSchema } from '@shared/schemas/outbox';
-import { User } from '../../server/models';
+import type { User, Workspace } from '../../server/models';
 import { useTestServer } from '../support/app';
-import { buildMember, buildWorkspace, signIn } from '../support/factories';
+import { buildMember, buildMembership, buildWorkspace, signIn } from '../support/factories';
 import { waitForMail } from '../support/mail';
 
 const server = useTestServer();
@@ -11,9 +11,10 @@ const server = useTestServer();
 describe('GET /api/v1/outbox', () => {
   let admin: User;
   let chemist: User;
+  let workspace: Workspace;
 
   beforeAll(async () => {
-    const workspace = await buildWorkspace();
+    workspace = await buildWorkspace();
     admin = await buildMember(workspace, ['admin']);
     chemist = await buildMember(workspace, ['chemist']);
   });
@@ -28,7 +29,7 @@ describe('GET /api/v1/outbox', () => {
     expect(response.status).toBe(403);
   });
 
-  it('shows the mail the SMTP fake caught, newest first', async () => {
+  it('shows the mail of the admin’s own workspace, newest first', async () => {
     const before = new Date();
     await request(server.app).post('/api/v1/password-resets').send({ email: chemist.email });
     await request(server.app).post('/api/v1/password-resets').send({ email: admin.email });
@@ -43,6 +44,49 @@ describe('GET /api/v1/outbox', () => {
     const times = messages.map((m) => Date.parse(m.receivedAt));
     expect(times).toEqual([...times].sort((a, b) => b - a));
     expect(ours[0].subject).toBe('Reset your Phasewright password');
+  });
+
+  it('never shows another workspace’s mail: reset links and invitations of other groups stay hidden', async () => {
+    const elsewhere = await buildWorkspace();
+    const stranger = await buildMember(elsewhere, ['chemist']);
+    const otherAdmin = await buildMember(elsewhere, ['admin']);
+    // Someone in both groups: their reset link would open the other group too.
+    const both = await buildMember(elsewhere, ['chemist']);
+    await buildMembership(both, workspace, ['chemist']);
+    const before = new Date();
+    await request(server.app).post('/api/v1/password-resets').send({ email: stranger.email });
+    await request(server.app).post('/api/v1/password-resets').send({ email: both.email });
+    const asOtherAdmin = await signIn(server.app, otherAdmin.email);
+    await asOtherAdmin.agent
+      .post(`/api/v1/workspaces/${elsewhere.id}/invitations`)
+      .set('X-CSRF-Token', asOtherAdmin.csrfToken)
+      .send({ email: 'newcomer-elsewhere@example.com', roles: ['chemist'] });
+    await waitForMail(stranger.email, { after: before });
+    await waitForMail(both.email, { after: before });
+    await waitForMail('newcomer-elsewhere@example.com', { after: before });
+
+    const { agent } = await signIn(server.app, admin.email);
+    const mine = outboxMessageListSchema.parse((await agent.get('/api/v1/outbox')).body);
+    const recipients = mine.map((m) => m.to);
+    expect(recipients).not.toContain(stranger.email);
+    expect(recipients).not.toContain(both.email);
+    expect(recipients).not.toContain('newcomer-elsewhere@example.com');
+    expect(
+      mine.some(
+        (m) =>
+          m.text.includes('/reset-password/') && m.to !== admin.email && m.to !== chemist.email,
+      ),
+    ).toBe(false);
+
+    // The other group's admin sees their own group's mail, and not the shared member's link.
+    const theirs = outboxMessageListSchema.parse(
+      (await asOtherAdmin.agent.get('/api/v1/outbox')).body,
+    );
+    const theirRecipients = theirs.map((m) => m.to);
+    expect(theirRecipients).toContain(stranger.email);
+    expect(theirRecipients).toContain('newcomer-elsewhere@example.com');
+    expect(theirRecipients).not.toContain(both.email);
+    expect(theirRecipients).not.toContain(chemist.email);
   });
 
   it('does not exist in production (404)', async () => {
