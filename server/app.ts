@@ -10,7 +10,9 @@ import './http/express-augment';
 import { configurePassport } from './auth/passport';
 import type { AppConfig } from './config';
 import { database } from './db/sequelize';
-import { authenticate } from './middleware/authenticate';
+import { authenticate, sessionLifetime } from './middleware/authenticate';
+import type { Security } from './http/security';
+import { createSignInThrottle } from './services/sign-in-throttle';
 import { csrfProtection } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { API_PREFIX, buildOpenApiDocument } from './openapi';
@@ -99,6 +101,10 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
     errorLog: (...args: unknown[]) => log(args),
   });
   const passport = configurePassport();
+  const security: Security = {
+    pool: sessionPool,
+    throttle: createSignInThrottle(sessionPool, config.signInThrottle),
+  };
 
   const api = express.Router();
   // Route documents (up to a few hundred steps) get a larger limit than other bodies.
@@ -127,14 +133,15 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(authenticate);
+  api.use(sessionLifetime(config.sessionMaxHours));
   api.use(csrfProtection((method, requestPath) => method === 'POST' && requestPath === '/session'));
 
   api.use(healthRouter(sequelize));
-  api.use(sessionRouter(config));
-  api.use(accountRouter());
+  api.use(sessionRouter(config, security));
+  api.use(accountRouter(security));
   api.use(membersRouter(config));
-  api.use(invitationsRouter(config));
-  api.use(passwordResetsRouter(config));
+  api.use(invitationsRouter(config, security));
+  api.use(passwordResetsRouter(config, security));
   api.use(tokensRouter());
   api.use(outboxRouter(config));
   api.use(solventsRouter());
@@ -144,7 +151,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(jobsRouter());
   api.use(routesRouter(config));
   api.use(auditRouter());
-  api.use(revisionsRouter(config));
+  api.use(revisionsRouter(config, security));
   api.get('/openapi.json', (_req, res) => {
     res.json(buildOpenApiDocument());
   });

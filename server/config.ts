@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { defaultPoolSize, type EnginePoolOptions } from './pool';
 import type { EvaluationLimits } from './services/evaluation-limits';
+import { DEFAULT_THROTTLE, type ThrottleRules } from './services/sign-in-throttle';
 
 const DEV_SESSION_SECRET = 'phasewright-development-secret-change-me';
 
@@ -55,6 +56,9 @@ const envSchema = z
     MONTE_CARLO_MAX_STEP_DRAWS: z.coerce.number().int().min(1).default(200_000),
     CALCULATIONS_PER_USER: z.coerce.number().int().min(1).default(2),
     MONTE_CARLO_JOBS_PER_USER: z.coerce.number().int().min(1).default(2),
+    SIGN_IN_FREE_FAILURES_PAIR: z.coerce.number().int().min(1).default(5),
+    SIGN_IN_FREE_FAILURES_ACCOUNT: z.coerce.number().int().min(1).default(20),
+    SIGN_IN_FREE_FAILURES_ADDRESS: z.coerce.number().int().min(1).default(50),
     SESSION_MAX_HOURS: z.coerce
       .number()
       .min(0.01)
@@ -105,6 +109,8 @@ export interface AppConfig {
   /** The engine pool's workers, queue and limits (docs/deployment.md). */
   pool: EnginePoolOptions;
   evaluation: EvaluationLimits;
+  /** Growing waits after failed sign-ins, by account and address. */
+  signInThrottle: ThrottleRules;
   /** Absolute lifetime of a session, however active. */
   sessionMaxHours: number;
   /** How long shutdown waits for requests in flight. */
@@ -161,6 +167,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       maxReplyBytes: Math.round(e.EVALUATE_MAX_REPLY_MB * 1e6),
       perUserConcurrent: e.CALCULATIONS_PER_USER,
       perUserJobs: e.MONTE_CARLO_JOBS_PER_USER,
+    },
+    signInThrottle: {
+      ...DEFAULT_THROTTLE,
+      pair: { ...DEFAULT_THROTTLE.pair, free: e.SIGN_IN_FREE_FAILURES_PAIR },
+      account: { ...DEFAULT_THROTTLE.account, free: e.SIGN_IN_FREE_FAILURES_ACCOUNT },
+      address: { ...DEFAULT_THROTTLE.address, free: e.SIGN_IN_FREE_FAILURES_ADDRESS },
     },
     sessionMaxHours: e.SESSION_MAX_HOURS,
     shutdownGraceSeconds: e.SHUTDOWN_GRACE_SECONDS,

@@ -23,6 +23,7 @@ export const ERROR_STATUS = {
   invalid_password: 401,
   forbidden: 403,
   csrf_failed: 403,
+  token_read_only: 403,
   not_found: 404,
   already_exists: 409,
   reference_conflict: 409,
@@ -54,8 +55,8 @@ export const ERROR_STATUS = {
   route_unevaluable: 422,
   evaluation_timeout: 422,
   result_too_large: 422,
-  account_locked: 423,
   rate_limited: 429,
+  sign_in_throttled: 429,
   too_many_evaluations: 429,
   too_many_jobs: 429,
   internal_error: 500,
@@ -116,6 +117,13 @@ export function apiError<C extends ApiErrorCode>(
     details[0] === undefined ? { code, message } : { code, message, details: details[0] };
   return new AppError(body as ApiErrorBody);
 }
+
+/** An AppError with a Retry-After header (seconds). */
+const retryAfter = (error: AppError, seconds: number) =>
+  new AppError(error.body, {
+    ...error.headers,
+    'Retry-After': String(Math.max(1, Math.ceil(seconds))),
+  });
 
 // Named factories for the common failures, so call sites read as what went wrong.
 export const badRequest = (message: string, details?: ApiErrorDetail[]) =>
@@ -192,12 +200,6 @@ export const evaluationTimedOut = (ms: number) =>
     'evaluation_timeout',
     `The calculation took longer than ${Math.round(ms / 1000)} s and was stopped. Split the route, or ask for fewer draws.`,
   );
-/** An AppError with a Retry-After header (seconds). */
-const retryAfter = (error: AppError, seconds: number) =>
-  new AppError(error.body, {
-    ...error.headers,
-    'Retry-After': String(Math.max(1, Math.ceil(seconds))),
-  });
 export const tooManyEvaluations = (limit: number) =>
   retryAfter(
     apiError(
@@ -232,13 +234,24 @@ export const databaseUnavailable = () =>
   );
 export const payloadTooLarge = () =>
   apiError('payload_too_large', 'The request body is too large.');
-export const accountLocked = (minutes: number) =>
-  apiError(
-    'account_locked',
-    `Too many failed sign-ins. The account is locked; try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
+export const tooManyRequests = (retryAfterSeconds = 60) =>
+  retryAfter(
+    apiError('rate_limited', 'Too many requests. Wait a few minutes and try again.'),
+    retryAfterSeconds,
   );
-export const tooManyRequests = () =>
-  apiError('rate_limited', 'Too many requests. Wait a few minutes and try again.');
+export const signInThrottled = (seconds: number) =>
+  retryAfter(
+    apiError(
+      'sign_in_throttled',
+      `Too many failed sign-ins. Wait ${seconds} second${seconds === 1 ? '' : 's'} and try again, or reset your password.`,
+    ),
+    seconds,
+  );
+export const tokenReadOnly = () =>
+  apiError(
+    'token_read_only',
+    'This API token is read-only. Create a read-write token on your account page to make changes.',
+  );
 export const serviceUnavailable = (message = 'The service is temporarily unavailable.') =>
   apiError('service_unavailable', message);
 export const internalError = () =>

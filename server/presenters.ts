@@ -72,7 +72,9 @@ export const presentInvitationInfo = (
 export const presentToken = (token: ApiToken): ApiTokenPayload => ({
   id: token.id,
   name: token.name,
+  scope: token.scope,
   createdAt: token.createdAt.toISOString(),
+  expiresAt: token.expiresAt.toISOString(),
   lastUsedAt: token.lastUsedAt ? token.lastUsedAt.toISOString() : null,
 });
 

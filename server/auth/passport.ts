@@ -32,7 +32,7 @@ export function configurePassport(): typeof passport {
 
 /**
  * Runs the local strategy with a custom callback, so a failed sign-in becomes
- * a JSON 401 (or the lockout's 423) instead of passport's redirect.
+ * a JSON 401 instead of passport's redirect.
  */
 export function authenticatePassword(req: Request, res: Response): Promise<User> {
   return new Promise((resolve, reject) => {

@@ -10,6 +10,8 @@ declare global {
     interface Request {
       /** How this request was authenticated, if at all. */
       authMethod?: 'session' | 'token';
+      /** A Bearer token's scope: 'read' tokens may call only operations that change nothing. */
+      tokenScope?: 'read' | 'read-write';
       actor?: Actor;
     }
   }
@@ -18,6 +20,8 @@ declare global {
 declare module 'express-session' {
   interface SessionData {
     csrfToken?: string;
+    /** When the person signed in (ms since the epoch): sessions end SESSION_MAX_HOURS later. */
+    signedInAt?: number;
   }
 }
 

@@ -4,7 +4,7 @@ import { z, type ZodType } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { parseExact } from '@shared/schemas/exact';
 import { database } from '../db/sequelize';
-import { unauthenticated, validationFailed } from '../errors';
+import { tokenReadOnly, unauthenticated, validationFailed } from '../errors';
 import type { Actor } from '../policies';
 import { API_PREFIX, registry } from '../openapi';
 import { zodIssuesToDetails } from './validation';
@@ -129,9 +129,11 @@ export function defineRoute<
     });
   }
 
+  const writes = spec.writes ?? spec.method !== 'get';
   const expressPath = spec.path.replace(/\{(\w+)\}/g, ':$1');
   const handler: RequestHandler = async (req, res) => {
     if (spec.auth && !req.actor) throw unauthenticated();
+    if (req.authMethod === 'token' && req.tokenScope === 'read' && writes) throw tokenReadOnly();
     const params = parsePart(spec.params, req.params, 'params');
     const query = parsePart(spec.query, req.query, 'query');
     const body = spec.body ? parsePart(spec.body, req.body ?? {}, 'body') : undefined;

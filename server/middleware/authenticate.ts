@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { invalidToken } from '../errors';
+import { invalidToken, unauthenticated } from '../errors';
 import { loadActor } from '../services/actors';
 import { findUserByApiToken } from '../services/tokens';
 
@@ -15,13 +15,34 @@ export const authenticate: RequestHandler = async (req, _res, next) => {
   if (header) {
     const match = BEARER.exec(header);
     if (!match) throw invalidToken();
-    const user = await findUserByApiToken(match[1]);
-    if (!user) throw invalidToken();
-    req.user = user;
+    const found = await findUserByApiToken(match[1]);
+    if (!found) throw invalidToken();
+    req.user = found.user;
     req.authMethod = 'token';
+    req.tokenScope = found.scope;
   } else if (req.user) {
     req.authMethod = 'session';
   }
   if (req.user) req.actor = await loadActor(req.user.id);
   next();
 };
+
+/**
+ * Ends a session at its absolute lifetime, however active it was (the idle
+ * time-out is the cookie's rolling expiry). A session without a sign-in time
+ * predates the rule and ends too.
+ */
+export function sessionLifetime(maxHours: number): RequestHandler {
+  return (req, _res, next) => {
+    const signedInAt = req.session?.signedInAt;
+    if (!req.user || req.authMethod === 'token' || !req.session) return next();
+    if (signedInAt && Date.now() - signedInAt < maxHours * 3600_000) return next();
+    req.session.destroy(() =>
+      next(
+        unauthenticated(
+          `Your session ended ${maxHours} hours after you signed in; sign in again to continue.`,
+        ),
+      ),
+    );
+  };
+}

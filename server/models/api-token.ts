@@ -16,6 +16,9 @@ export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttr
   declare userId: ForeignKey<User['id']>;
   declare name: string;
   declare tokenHash: string;
+  /** 'read': only operations that change no stored data; 'read-write': everything the user may do. */
+  declare scope: CreationOptional<'read' | 'read-write'>;
+  declare expiresAt: Date;
   declare lastUsedAt: CreationOptional<Date | null>;
   declare revokedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -27,6 +30,8 @@ export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttr
         id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
         name: { type: DataTypes.STRING(80), allowNull: false },
         tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+        scope: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'read' },
+        expiresAt: { type: DataTypes.DATE, allowNull: false },
         lastUsedAt: { type: DataTypes.DATE, allowNull: true },
         revokedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,

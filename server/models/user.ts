@@ -14,8 +14,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare name: string;
   /** argon2id hash, never sent to clients. */
   declare passwordHash: string;
-  declare failedSignIns: CreationOptional<number>;
-  declare lockedUntil: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -33,8 +31,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         },
         name: { type: DataTypes.STRING(120), allowNull: false },
         passwordHash: { type: DataTypes.TEXT, allowNull: false },
-        failedSignIns: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        lockedUntil: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

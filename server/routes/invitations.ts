@@ -6,6 +6,8 @@ import { acceptInvitationSchema, invitationInfoSchema } from '@shared/schemas/me
 import { sessionSchema } from '@shared/schemas/session';
 import { logIn } from '../auth/passport';
 import type { AppConfig } from '../config';
+import { AppError } from '../errors';
+import type { Security } from '../http/security';
 import { defineRoute } from '../http/route';
 import { newCsrfToken } from '../middleware/csrf';
 import { limitRequests } from '../middleware/rate-limit';
@@ -19,10 +21,12 @@ const unusable = {
   410: { description: 'Already used or expired.', schema: apiErrorSchema },
 };
 
-export function invitationsRouter(config: AppConfig): Router {
+export function invitationsRouter(config: AppConfig, security: Security): Router {
   const router = Router();
   // Accepting checks a password for existing accounts, so it is limited like sign-in.
   const acceptLimiter = limitRequests({
+    pool: security.pool,
+    name: 'sign-in',
     windowMinutes: config.rateLimits.windowMinutes,
     limit: config.rateLimits.signInPerWindow,
   });
@@ -60,18 +64,31 @@ export function invitationsRouter(config: AppConfig): Router {
     responses: {
       200: { description: 'Joined and signed in.', schema: sessionSchema },
       401: { description: 'Wrong password for the existing account.', schema: apiErrorSchema },
+      429: {
+        description: 'Repeated wrong passwords: counted with sign-in failures (sign_in_throttled).',
+        schema: apiErrorSchema,
+      },
       ...unusable,
     },
     handle: async ({ req, params, body, transaction }) => {
       const invitation = await loadOpenInvitation(params.token, transaction);
+      // The password of an existing account is checked here: counted exactly like a sign-in.
+      const address = req.ip ?? 'unknown';
+      await security.throttle.assertAllowed(invitation.email, address);
       const user = await acceptInvitation({
         invitation,
         name: body.name,
         password: body.password,
         transaction,
+      }).catch(async (error: unknown) => {
+        if (error instanceof AppError && error.code === 'invalid_credentials')
+          await security.throttle.recordFailure(invitation.email, address);
+        throw error;
       });
+      await security.throttle.recordSuccess(invitation.email, address);
       await logIn(req, user);
       req.session.csrfToken = newCsrfToken();
+      req.session.signedInAt = Date.now();
       const actor = await loadActor(user.id, transaction);
       return { status: 200, body: await presentSession(user, actor, req.session.csrfToken) };
     },

@@ -4,13 +4,16 @@ import { text } from '@shared/schemas/text';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { completeResetSchema, requestResetSchema } from '@shared/schemas/password-reset';
 import type { AppConfig } from '../config';
+import type { Security } from '../http/security';
 import { defineRoute } from '../http/route';
 import { limitRequests } from '../middleware/rate-limit';
 import { completePasswordReset, requestPasswordReset } from '../services/credentials';
 
-export function passwordResetsRouter(config: AppConfig): Router {
+export function passwordResetsRouter(config: AppConfig, security: Security): Router {
   const router = Router();
   const resetLimiter = limitRequests({
+    pool: security.pool,
+    name: 'password-reset',
     windowMinutes: config.rateLimits.windowMinutes,
     limit: config.rateLimits.resetPerWindow,
   });
@@ -35,7 +38,7 @@ export function passwordResetsRouter(config: AppConfig): Router {
     method: 'post',
     path: '/password-resets/{token}',
     summary:
-      'Set a new password with the link from the e-mail (single use, 1 hour). Ends all sessions.',
+      'Set a new password with the link from the e-mail (single use, 1 hour). Ends every session, every API token and every other reset link of the account.',
     tags: ['password resets'],
     auth: false,
     params: z.object({ token: text().min(20).max(200) }),
@@ -47,7 +50,9 @@ export function passwordResetsRouter(config: AppConfig): Router {
       410: { description: 'Used or expired link.', schema: apiErrorSchema },
     },
     handle: async ({ params, body, transaction }) => {
-      await completePasswordReset(params.token, body.password, transaction);
+      const email = await completePasswordReset(params.token, body.password, transaction);
+      // Proving control of the mailbox lifts the sign-in waits of the account.
+      await security.throttle.forgetAccount(email);
       return { status: 204 };
     },
   });

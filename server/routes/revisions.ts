@@ -50,6 +50,7 @@ import {
 } from '../services/revisions';
 import { loadRoute } from '../services/routes';
 import { verifyCredentials } from '../services/sign-in';
+import type { Security } from '../http/security';
 
 const BASE = '/workspaces/{workspaceId}/routes/{routeId}/revisions';
 const routeParams = z.object({ workspaceId: z.uuid(), routeId: z.uuid() });
@@ -114,7 +115,7 @@ function presentDetail(actor: Actor, revision: RevisionWithReviews): RevisionDet
   };
 }
 
-export function revisionsRouter(config: AppConfig): Router {
+export function revisionsRouter(config: AppConfig, security: Security): Router {
   const router = Router();
 
   defineRoute(router, {
@@ -385,7 +386,12 @@ export function revisionsRouter(config: AppConfig): Router {
         workspaceId: workspace.id,
         authorId: preview.authorId as string,
       });
+      // The re-entered password counts like a sign-in: repeated failures make the signer wait.
+      const address = req.ip ?? 'unknown';
+      await security.throttle.assertAllowed(req.user!.email, address);
       const signer = await verifyCredentials(req.user!.email, body.password, 'signature');
+      if (!signer) await security.throttle.recordFailure(req.user!.email, address);
+      else await security.throttle.recordSuccess(req.user!.email, address);
       if (!signer)
         throw apiError(
           'invalid_password',

@@ -3,6 +3,8 @@ import { sessionSchema, signInSchema } from '@shared/schemas/session';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { authenticatePassword, logIn, logOut } from '../auth/passport';
 import type { AppConfig } from '../config';
+import { AppError } from '../errors';
+import type { Security } from '../http/security';
 import { defineRoute } from '../http/route';
 import { newCsrfToken } from '../middleware/csrf';
 import { limitRequests } from '../middleware/rate-limit';
@@ -10,9 +12,11 @@ import { presentSession } from '../presenters';
 import { loadActor } from '../services/actors';
 import { recordSignOut } from '../services/sign-in';
 
-export function sessionRouter(config: AppConfig): Router {
+export function sessionRouter(config: AppConfig, security: Security): Router {
   const router = Router();
   const signInLimiter = limitRequests({
+    pool: security.pool,
+    name: 'sign-in',
     windowMinutes: config.rateLimits.windowMinutes,
     limit: config.rateLimits.signInPerWindow,
   });
@@ -30,17 +34,25 @@ export function sessionRouter(config: AppConfig): Router {
     responses: {
       200: { description: 'Signed in.', schema: sessionSchema },
       401: { description: 'E-mail or password is incorrect.', schema: apiErrorSchema },
-      423: {
-        description: 'Locked for 15 minutes after 5 failed sign-ins.',
+      429: {
+        description:
+          'rate_limited: too many attempts from this address; sign_in_throttled: repeated failures for this e-mail or from this address, wait Retry-After seconds (the same for known and unknown e-mails).',
         schema: apiErrorSchema,
       },
-      429: { description: 'Too many attempts from this address.', schema: apiErrorSchema },
     },
     handle: async ({ req, res, body }) => {
       req.body = body; // the strategy reads the normalised e-mail
-      const user = await authenticatePassword(req, res);
+      const address = req.ip ?? 'unknown';
+      await security.throttle.assertAllowed(body.email, address);
+      const user = await authenticatePassword(req, res).catch(async (error: unknown) => {
+        if (error instanceof AppError && error.code === 'invalid_credentials')
+          await security.throttle.recordFailure(body.email, address);
+        throw error;
+      });
+      await security.throttle.recordSuccess(body.email, address);
       await logIn(req, user);
       req.session.csrfToken = newCsrfToken();
+      req.session.signedInAt = Date.now();
       return {
         status: 200,
         body: await presentSession(user, await loadActor(user.id), req.session.csrfToken),

@@ -26,14 +26,15 @@ export function tokensRouter(): Router {
   defineRoute(router, {
     method: 'post',
     path: '/tokens',
-    summary: 'Create a personal API token. The secret is in this reply only.',
+    summary:
+      'Create a personal API token: read-only (default) or read-write, working for expiresInDays (default 90, at most 365). The secret is in this reply only.',
     tags: ['tokens'],
     auth: true,
     body: createTokenSchema,
     responses: { 201: { description: 'Created.', schema: createdTokenSchema } },
     handle: async ({ actor, body, transaction }) => {
       authorize(actor, 'token.create', null);
-      const { record, token } = await createToken(actor.userId, body.name, transaction);
+      const { record, token } = await createToken(actor.userId, body, transaction);
       return { status: 201, body: { ...presentToken(record), token } };
     },
   });

@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { database } from '../db/sequelize';
 import { gone, notFound, validationFailed } from '../errors';
-import { Membership, PasswordReset, User } from '../models';
+import { ApiToken, Membership, PasswordReset, User } from '../models';
 import { recordAudit } from './audit';
 import { passwordResetMail, queueMail } from './mail';
 import { hashPassword, verifyPassword } from './passwords';
@@ -46,12 +46,15 @@ export async function requestPasswordReset(
   );
 }
 
-/** Sets a new password from a reset link: single use, 1 hour. Signs the user out everywhere. */
+/**
+ * Sets a new password from a reset link: single use, 1 hour. Signs the user out everywhere,
+ * revokes their API tokens and kills their other reset links. Returns the account's e-mail.
+ */
 export async function completePasswordReset(
   token: string,
   password: string,
   transaction: Transaction | null,
-): Promise<void> {
+): Promise<string> {
   const reset = await PasswordReset.findOne({
     where: { tokenHash: sha256(token) },
     include: [{ model: User, as: 'user', required: true }],
@@ -63,12 +66,9 @@ export async function completePasswordReset(
   if (reset.expiresAt.getTime() <= Date.now())
     throw gone('reset_expired', 'This reset link has expired. Ask for a new one.');
   await reset.update({ usedAt: new Date() }, { transaction });
-  // The reset also lifts a lockout: proving control of the mailbox is enough.
-  await reset.user.update(
-    { passwordHash: await hashPassword(password), failedSignIns: 0, lockedUntil: null },
-    { transaction },
-  );
-  await endSessionsOf(reset.user.id, transaction);
+  await reset.user.update({ passwordHash: await hashPassword(password) }, { transaction });
+  // Whoever knew the old password loses every way in: sessions, tokens, other reset links.
+  await endCredentialsOf(reset.user.id, null, transaction);
   await recordAudit(
     {
       workspaceId: null,
@@ -79,12 +79,19 @@ export async function completePasswordReset(
     },
     transaction,
   );
+  return reset.user.email;
 }
 
+/**
+ * Changes the password (the current one proves it is the owner). Every other
+ * session, every API token and every outstanding reset link of the account
+ * ends; the session making the change (keepSessionId) stays.
+ */
 export async function changePassword(
   user: User,
   currentPassword: string,
   newPassword: string,
+  keepSessionId: string | null,
   transaction: Transaction | null,
 ): Promise<void> {
   if (!(await verifyPassword(user.passwordHash, currentPassword))) {
@@ -96,6 +103,7 @@ export async function changePassword(
     { passwordHash: await hashPassword(newPassword) },
     { where: { id: user.id }, transaction },
   );
+  await endCredentialsOf(user.id, keepSessionId, transaction);
   await recordAudit(
     {
       workspaceId: null,
@@ -108,11 +116,26 @@ export async function changePassword(
   );
 }
 
-/** Deletes every stored session of the user (sessions are rows of connect-pg-simple's table). */
-async function endSessionsOf(userId: string, transaction: Transaction | null): Promise<void> {
-  await database().query(`DELETE FROM session WHERE sess -> 'passport' ->> 'user' = :userId`, {
-    replacements: { userId },
-    type: QueryTypes.DELETE,
-    transaction,
-  });
+/**
+ * Ends what lets someone act as the user without the new password: stored
+ * sessions (rows of connect-pg-simple's table) but the one to keep, API
+ * tokens, and reset links not yet used.
+ */
+async function endCredentialsOf(
+  userId: string,
+  keepSessionId: string | null,
+  transaction: Transaction | null,
+): Promise<void> {
+  await database().query(
+    `DELETE FROM session WHERE sess -> 'passport' ->> 'user' = :userId AND sid IS DISTINCT FROM :keep`,
+    { replacements: { userId, keep: keepSessionId }, type: QueryTypes.DELETE, transaction },
+  );
+  await ApiToken.update(
+    { revokedAt: new Date() },
+    { where: { userId, revokedAt: null }, transaction },
+  );
+  await PasswordReset.update(
+    { usedAt: new Date() },
+    { where: { userId, usedAt: null }, transaction },
+  );
 }

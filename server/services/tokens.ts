@@ -1,4 +1,4 @@
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { ApiToken, User } from '../models';
 import { notFound } from '../errors';
 import { recordAudit } from './audit';
@@ -6,16 +6,18 @@ import { randomSecret, sha256 } from './secrets';
 
 const TOKEN_PREFIX = 'pwt_';
 
-/** The user a Bearer token authenticates, or null when it is unknown or revoked. */
-export async function findUserByApiToken(token: string): Promise<User | null> {
+/** The user a Bearer token authenticates and the token's scope; null when unknown, revoked or expired. */
+export async function findUserByApiToken(
+  token: string,
+): Promise<{ user: User; scope: 'read' | 'read-write' } | null> {
   const record = await ApiToken.findOne({
-    where: { tokenHash: sha256(token), revokedAt: null },
+    where: { tokenHash: sha256(token), revokedAt: null, expiresAt: { [Op.gt]: new Date() } },
     include: [{ model: User, as: 'user', required: true }],
   });
   if (!record?.user) return null;
   // Recorded so people can spot tokens nobody uses any more.
   await ApiToken.update({ lastUsedAt: new Date() }, { where: { id: record.id } });
-  return record.user;
+  return { user: record.user, scope: record.scope };
 }
 
 export async function listTokens(
@@ -32,11 +34,16 @@ export async function listTokens(
 /** Creates a token and returns its secret — the only time it exists outside the caller's hands. */
 export async function createToken(
   userId: string,
-  name: string,
+  input: { name: string; scope: 'read' | 'read-write'; expiresInDays: number },
   transaction: Transaction | null,
 ): Promise<{ record: ApiToken; token: string }> {
+  const { name, scope } = input;
   const token = randomSecret(TOKEN_PREFIX);
-  const record = await ApiToken.create({ userId, name, tokenHash: sha256(token) }, { transaction });
+  const expiresAt = new Date(Date.now() + input.expiresInDays * 24 * 3600_000);
+  const record = await ApiToken.create(
+    { userId, name, scope, expiresAt, tokenHash: sha256(token) },
+    { transaction },
+  );
   await recordAudit(
     {
       workspaceId: null,
@@ -44,7 +51,7 @@ export async function createToken(
       action: 'token.created',
       entityType: 'api_token',
       entityId: record.id,
-      after: { name },
+      after: { name, scope, expiresAt: expiresAt.toISOString() },
     },
     transaction,
   );

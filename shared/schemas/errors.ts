@@ -54,6 +54,7 @@ export const PLAIN_ERROR_CODES = [
   // 403
   'forbidden',
   'csrf_failed',
+  'token_read_only',
   // 404
   'not_found',
   // 409
@@ -83,9 +84,9 @@ export const PLAIN_ERROR_CODES = [
   'not_computable',
   'evaluation_timeout',
   'result_too_large',
-  // 423, 429
-  'account_locked',
+  // 429
   'rate_limited',
+  'sign_in_throttled',
   'too_many_evaluations',
   'too_many_jobs',
   // 5xx

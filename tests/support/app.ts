@@ -22,8 +22,12 @@ export function testConfig(overrides: Record<string, string> = {}): AppConfig {
     SMTP_FAKE_PORT: '0',
     JOB_POLL_SECONDS: '0.5',
     // High enough not to trip ordinary tests; the rate-limit test builds its own app.
-    SIGN_IN_RATE_LIMIT: '1000',
-    RESET_RATE_LIMIT: '1000',
+    SIGN_IN_RATE_LIMIT: '100000',
+    RESET_RATE_LIMIT: '100000',
+    // The throttle tests build their own app with the real numbers and their own addresses.
+    SIGN_IN_FREE_FAILURES_PAIR: '100000',
+    SIGN_IN_FREE_FAILURES_ACCOUNT: '100000',
+    SIGN_IN_FREE_FAILURES_ADDRESS: '100000',
     STATIC_DIR: 'dist',
     ...overrides,
   });

@@ -1,9 +1,18 @@
 import { useState } from 'react';
-import { createTokenSchema, type ApiToken, type CreatedToken } from '@shared/schemas/tokens';
+import {
+  createTokenSchema,
+  TOKEN_EXPIRY_DAYS,
+  TOKEN_SCOPE_LABELS,
+  TOKEN_SCOPES,
+  type ApiToken,
+  type CreatedToken,
+  type TokenScope,
+} from '@shared/schemas/tokens';
 import { useTokens } from '../api/get-tokens';
 import { useCreateToken } from '../api/create-token';
 import { useRevokeToken } from '../api/revoke-token';
 import { Button } from '@/components/button';
+import { Select } from '@/components/select';
 import { TextField } from '@/components/text-field';
 import { Table, Td, Th } from '@/components/table';
 import { EmptyState } from '@/components/empty-state';
@@ -13,6 +22,9 @@ import { ConfirmDialog } from '@/components/confirm-dialog';
 import { useForm } from '@/lib/use-form';
 import { formatDateTime } from '@/lib/format';
 import { toast } from '@/stores/toasts';
+
+/** Lifetimes offered for a new token, days (the API accepts 1 to 365). */
+const EXPIRY_CHOICES = [7, 30, 90, 365] as const;
 
 export function TokensPanel() {
   const [created, setCreated] = useState<CreatedToken | null>(null);
@@ -27,7 +39,11 @@ export function TokensPanel() {
 
 function CreateTokenForm({ onCreated }: { onCreated: (t: CreatedToken) => void }) {
   const create = useCreateToken();
-  const form = useForm(createTokenSchema, { name: '' });
+  const form = useForm(createTokenSchema, {
+    name: '',
+    scope: 'read',
+    expiresInDays: TOKEN_EXPIRY_DAYS.default,
+  });
   const submit = (e: React.FormEvent) => {
     e.preventDefault();
     const input = form.validate();
@@ -51,6 +67,23 @@ function CreateTokenForm({ onCreated }: { onCreated: (t: CreatedToken) => void }
           value={form.values.name}
           onValueChange={(v) => form.setField('name', v)}
           error={form.errors.name}
+        />
+        <Select
+          label="Access"
+          className="w-40"
+          value={form.values.scope ?? 'read'}
+          options={TOKEN_SCOPES.map((scope) => ({
+            value: scope,
+            label: TOKEN_SCOPE_LABELS[scope],
+          }))}
+          onValueChange={(v) => form.setField('scope', v as TokenScope)}
+        />
+        <Select
+          label="Works for"
+          className="w-32"
+          value={String(form.values.expiresInDays ?? TOKEN_EXPIRY_DAYS.default)}
+          options={EXPIRY_CHOICES.map((days) => ({ value: String(days), label: `${days} days` }))}
+          onValueChange={(v) => form.setField('expiresInDays', Number(v))}
         />
         <Button type="submit" className="mt-[1.375rem]" busy={create.isPending}>
           Create token
@@ -94,7 +127,8 @@ function NewTokenNotice({ token, onDismiss }: { token: CreatedToken; onDismiss: 
       </div>
       <p className="mt-2 text-caption text-ink-muted">
         Send it as <code className="font-mono">Authorization: Bearer &lt;token&gt;</code>. It acts
-        with your roles until you revoke it.
+        with your roles{token.scope === 'read' ? ', reading only,' : ''} until{' '}
+        {formatDateTime(token.expiresAt)} or until you revoke it. Changing your password revokes it.
       </p>
     </div>
   );
@@ -128,7 +162,9 @@ function TokenList() {
         <thead>
           <tr>
             <Th>Name</Th>
+            <Th>Access</Th>
             <Th>Created</Th>
+            <Th>Expires</Th>
             <Th>Last used</Th>
             <Th className="text-right">
               <span className="sr-only">Actions</span>
@@ -139,7 +175,18 @@ function TokenList() {
           {tokens.data.map((t) => (
             <tr key={t.id}>
               <Td className="font-medium">{t.name}</Td>
+              <Td>{TOKEN_SCOPE_LABELS[t.scope]}</Td>
               <Td className="text-ink-muted">{formatDateTime(t.createdAt)}</Td>
+              <Td
+                className={
+                  Date.parse(t.expiresAt) <= Date.now()
+                    ? 'text-caution-hazard-deep'
+                    : 'text-ink-muted'
+                }
+              >
+                {Date.parse(t.expiresAt) <= Date.now() ? 'Expired ' : ''}
+                {formatDateTime(t.expiresAt)}
+              </Td>
               <Td className="text-ink-muted">
                 {t.lastUsedAt ? formatDateTime(t.lastUsedAt) : 'Never'}
               </Td>
