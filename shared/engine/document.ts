@@ -86,7 +86,7 @@ export const cosolvencySchema = z
     J2: finite().min(-1e5).max(1e5).default(0),
     /** Basis of the solute-free fractions the J terms were fitted on. */
     basis: z.enum(['volume', 'mass', 'mole']),
-    source: z.string().max(300).optional(),
+    source: text().max(300).optional(),
   })
   .strict();
 

@@ -55,7 +55,7 @@ export const ACCOUNT_ACTIONS = [
 export type AccountAction = (typeof ACCOUNT_ACTIONS)[number];
 
 /** Actions on an object only its owner can see; decided per object, so not in the abilities map. */
-export const OWNER_ACTIONS = ['token.revoke', 'job.read'] as const;
+export const OWNER_ACTIONS = ['token.revoke', 'job.read', 'job.cancel'] as const;
 export type OwnerAction = (typeof OWNER_ACTIONS)[number];
 
 export type Action = WorkspaceAction | AccountAction | OwnerAction;
