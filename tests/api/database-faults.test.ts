@@ -76,6 +76,7 @@ describe('database faults', () => {
     await admin.end();
     const config = testConfig({
       DATABASE_URL: `postgres://postgres@127.0.0.1:${port}/phasewright_fault`,
+      DATABASE_OWNER_URL: `postgres://postgres@127.0.0.1:${port}/phasewright_fault`,
       ENGINE_WORKERS: '1',
     });
     runtime = await startRuntime(config);

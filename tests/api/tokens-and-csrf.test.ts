@@ -31,7 +31,7 @@ describe('personal API tokens', () => {
     const created = await asAdmin.agent
       .post('/api/v1/tokens')
       .set('X-CSRF-Token', asAdmin.csrfToken)
-      .send({ name: 'lab script' });
+      .send({ name: 'lab script', scope: 'read-write' });
     expect(created.status).toBe(201);
     const { id, token } = createdTokenSchema.parse(created.body);
     const stored = await ApiToken.findByPk(id);
