@@ -260,7 +260,7 @@ export function revisionsRouter(config: AppConfig, security: Security): Router {
         revision,
         body,
         req.user!,
-        { appUrl: config.appUrl, workspaceName: workspace.name },
+        { appUrl: config.appUrl, workspaceId: workspace.id, workspaceName: workspace.name },
         transaction,
       );
       return { status: 201, body: presentReviewRequest(review) };
@@ -317,7 +317,7 @@ export function revisionsRouter(config: AppConfig, security: Security): Router {
         revision,
         body,
         req.user!,
-        { appUrl: config.appUrl, workspaceName: workspace.name },
+        { appUrl: config.appUrl, workspaceId: workspace.id, workspaceName: workspace.name },
         transaction,
       );
       return { status: 201, body: presentComment(comment) };
@@ -404,7 +404,7 @@ export function revisionsRouter(config: AppConfig, security: Security): Router {
           revision,
           body,
           signer,
-          { appUrl: config.appUrl, workspaceName: workspace.name },
+          { appUrl: config.appUrl, workspaceId: workspace.id, workspaceName: workspace.name },
           transaction,
         );
       });

@@ -11,9 +11,11 @@ function message(
   lines: string[],
   action: { label: string; url: string },
   workspaceName: string,
+  workspaceId: string,
 ): MailMessage {
   return {
     to,
+    workspaceIds: [workspaceId],
     subject,
     text: `${lines.join('\n\n')}\n\n${action.label}: ${action.url}\n\n${footer(workspaceName)}\n`,
     html: layout(title, lines, action, footer(workspaceName)),
@@ -28,6 +30,7 @@ export function reviewRequestMail(input: {
   revisionNumber: number;
   note: string;
   workspaceName: string;
+  workspaceId: string;
   url: string;
 }): MailMessage {
   const lines = [
@@ -43,6 +46,7 @@ export function reviewRequestMail(input: {
     lines,
     { label: 'Open the revision', url: input.url },
     input.workspaceName,
+    input.workspaceId,
   );
 }
 
@@ -56,6 +60,7 @@ export function commentMail(input: {
   body: string;
   reply: boolean;
   workspaceName: string;
+  workspaceId: string;
   url: string;
 }): MailMessage {
   const where = input.stepName ? `on the step "${input.stepName}"` : 'on the route';
@@ -71,6 +76,7 @@ export function commentMail(input: {
     lines,
     { label: 'Read the comment', url: input.url },
     input.workspaceName,
+    input.workspaceId,
   );
 }
 
@@ -85,6 +91,7 @@ export function decisionMail(input: {
   reason: string | null;
   signedAt: Date;
   workspaceName: string;
+  workspaceId: string;
   url: string;
 }): MailMessage {
   const when = `${input.signedAt.toISOString().replace('T', ' ').slice(0, 19)} UTC`;
@@ -108,5 +115,6 @@ export function decisionMail(input: {
     lines,
     { label: 'Open the revision', url: input.url },
     input.workspaceName,
+    input.workspaceId,
   );
 }

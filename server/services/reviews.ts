@@ -32,6 +32,7 @@ import { presentSignature, revisionStatus, type RevisionWithReviews } from './re
 
 export interface ReviewContext {
   appUrl: string;
+  workspaceId: string;
   workspaceName: string;
 }
 
@@ -156,6 +157,7 @@ export async function submitForReview(
         routeName: route.name,
         revisionNumber: revision.number,
         note: input.note,
+        workspaceId: context.workspaceId,
         workspaceName: context.workspaceName,
         url,
       }),
@@ -279,6 +281,7 @@ export async function recordDecision(
         revisionNumber: revision.number,
         reason: input.reason ?? null,
         signedAt: decision.signedAt,
+        workspaceId: context.workspaceId,
         workspaceName: context.workspaceName,
         url: revisionUrl(context.appUrl, route, revision.number),
       }),
@@ -417,6 +420,7 @@ export async function addComment(
         stepName,
         body: input.body,
         reply: parentId !== null,
+        workspaceId: context.workspaceId,
         workspaceName: context.workspaceName,
         url: revisionUrl(context.appUrl, route, revision.number),
       }),
