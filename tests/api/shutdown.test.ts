@@ -28,6 +28,11 @@ function startServer(): Promise<{ child: ChildProcess; base: string; output: () 
       SMTP_FAKE_PORT: '0',
       ENGINE_WORKERS: '1',
       SHUTDOWN_GRACE_SECONDS: '60',
+      // Every test file signs in from 127.0.0.1 and the limits are kept in the shared database.
+      SIGN_IN_RATE_LIMIT: '100000',
+      SIGN_IN_FREE_FAILURES_PAIR: '100000',
+      SIGN_IN_FREE_FAILURES_ACCOUNT: '100000',
+      SIGN_IN_FREE_FAILURES_ADDRESS: '100000',
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

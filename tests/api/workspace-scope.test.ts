@@ -60,9 +60,32 @@ function sampleBody(op: Operation): object | undefined {
       smiles: 'CCO',
       role: 'impurity',
     },
-    'PATCH /workspaces/{workspaceId}/compounds/{compoundId}': { name: 'Renamed by a stranger' },
+    'PATCH /workspaces/{workspaceId}/compounds/{compoundId}': {
+      name: 'Renamed by a stranger',
+      baseVersion: 1,
+    },
     'POST /workspaces/{workspaceId}/routes': { name: 'Scope probe route (invented)' },
-    'PATCH /workspaces/{workspaceId}/routes/{routeId}': { name: 'Renamed by a stranger' },
+    'PATCH /workspaces/{workspaceId}/routes/{routeId}': {
+      name: 'Renamed by a stranger',
+      baseVersion: 1,
+    },
+    'POST /workspaces/{workspaceId}/routes/{routeId}/revisions': {
+      message: 'Revision by a stranger',
+      baseDraftVersion: 1,
+    },
+    'POST /workspaces/{workspaceId}/routes/{routeId}/revisions/{number}/review-requests': {
+      reviewerIds: ['00000000-0000-4000-8000-000000000000'],
+    },
+    'POST /workspaces/{workspaceId}/routes/{routeId}/revisions/{number}/comments': {
+      body: 'Comment by a stranger',
+    },
+    'PATCH /workspaces/{workspaceId}/routes/{routeId}/revisions/{number}/comments/{id}': {
+      resolved: true,
+    },
+    'POST /workspaces/{workspaceId}/routes/{routeId}/revisions/{number}/decisions': {
+      decision: 'approve',
+      password: 'not-the-password',
+    },
     'POST /workspaces/{workspaceId}/routes/{routeId}/duplicate': {},
     'PUT /workspaces/{workspaceId}/routes/{routeId}/draft': { document: demo(), baseVersion: 1 },
     'POST /jobs/{jobId}/cancel': {},
@@ -103,6 +126,12 @@ describe('workspace scope: every endpoint × every role × another workspace', (
       smiles: 'CC(=O)Nc1ccccc1',
       role: 'impurity',
     });
+    // A kept revision, so the revision, review and comment paths address something real.
+    const revision = await post(`/workspaces/${away.id}/routes/${route.body.id}/revisions`, {
+      message: 'Far revision (invented)',
+      baseDraftVersion: route.body.draftVersion ?? 1,
+    });
+    expect(revision.status).toBe(201);
     const job = await post('/evaluate/monte-carlo', { document: demo(), draws: 5, seed: 1 });
     const token = await post('/tokens', { name: 'Far token' });
     const before = new Date();
@@ -151,6 +180,7 @@ describe('workspace scope: every endpoint × every role × another workspace', (
         jobId: foreign.jobId,
         id: foreign.tokenId,
         solventId: 'ethanol',
+        number: '1',
         token: 'not-a-real-link-token-0123456789abcdef',
       };
       // Parameters added later (a revision, a review, a chromatogram) get an id nobody has.
