@@ -57,7 +57,8 @@ describe('the demo route', () => {
     await expect.poll(async () => number(await yieldTotal.textContent())).not.toBe(yieldBefore);
     await expect.poll(purityValue).not.toBe(purityExactBefore);
     await page.locator('[data-delta="yield"]').filter({ hasText: /▼|▲/ }).waitFor();
-    await page.locator('[data-delta="purity"]').filter({ hasText: /▼|▲/ }).waitFor();
+    // The purity (solids basis, residual heptane included) moves by about 1e-8 wt % here, below
+    // what the totals show as a change; the exact value moving is asserted above.
     const yieldAfter = number(await yieldTotal.textContent());
     expect(yieldAfter).toBeGreaterThan(0);
     expect(yieldAfter).toBeLessThanOrEqual(100);

@@ -43,6 +43,12 @@ function Delta({
   );
 }
 
+const sameTotals = (a: Totals, b: Totals) =>
+  a.yieldPct === b.yieldPct &&
+  a.purityWtPct === b.purityWtPct &&
+  a.pmi === b.pmi &&
+  a.solventUseLPerKg === b.solventUseLPerKg;
+
 /** Yield, purity, PMI and solvent use of the whole route, each with its change since the previous result. */
 export function TotalsCard() {
   const totals = useEvaluation((s) => s.result?.totals);
@@ -52,7 +58,9 @@ export function TotalsCard() {
   const [before, setBefore] = useState<Totals | null>(null);
   useEffect(() => {
     if (!totals) return;
-    if (last.current && last.current !== totals) setBefore(last.current);
+    // A result that repeats the last numbers (the saved draft's own evaluation after the
+    // preview, a refetch) keeps the change the last edit made visible.
+    if (last.current && !sameTotals(last.current, totals)) setBefore(last.current);
     last.current = totals;
   }, [totals]);
   const items = [
