@@ -107,6 +107,7 @@ pg_up() {
 
 pg_down() {
   local dir=$1
+  [ -n "${PGBIN:-}" ] || die "pg_down: run ensure_postgres_binaries first (PGBIN is not set)"
   if as_pg_owner "$PGBIN/pg_ctl" -D "$dir" status >/dev/null 2>&1; then
     log "stopping PostgreSQL"
     as_pg_owner "$PGBIN/pg_ctl" -D "$dir" -m fast -w stop >/dev/null 2>&1 || true

@@ -302,11 +302,16 @@ export async function run(): Promise<BenchResult[]> {
     await built.close();
     await runtime.close();
     await admin(`DROP DATABASE IF EXISTS ${database} WITH (FORCE)`);
+    // pg_down needs the binaries' folder (PGBIN) that ensure_postgres_binaries sets; a failure
+    // to stop is reported, not hidden, so no cluster is left running after the benchmark.
     if (startedCluster)
       execFileSync(
         'bash',
-        ['-c', 'source server/scripts/lib.sh; pg_down "$(pg_cluster_dir pg-test)"'],
-        { stdio: 'ignore' },
+        [
+          '-c',
+          'set -e; source server/scripts/lib.sh; ensure_postgres_binaries; pg_down "$(pg_cluster_dir pg-test)"',
+        ],
+        { stdio: ['ignore', 'ignore', 'inherit'] },
       );
   }
   return out;
