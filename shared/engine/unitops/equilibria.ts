@@ -17,6 +17,7 @@ import {
   type PKa,
 } from '../properties/partition';
 import { solventById } from '../data/index';
+import type { UnifacGroups } from '../data/types';
 import type { EvalContext } from '../route/context';
 import { warn, method } from '../route/context';
 import type { EngineWarning, MethodUsed } from '../route/types';
@@ -66,22 +67,35 @@ export interface LiquidSplit {
   method: string;
 }
 
-/** Fraction of the organic solvents below which the minor ones follow the main solvent in the data-based split. */
-const MINOR_SOLVENT_FRACTION = 0.02;
-
 /**
  * Split the solvents of a liquid into two phases at T.
  *
- * 1. Water + one partly miscible organic solvent (others < 2 % of the organic
- *    solvents, which follow it) with published mutual solubilities: the two
- *    phases are mutually saturated at the tabulated compositions
- *    (solvent-in-water w_s, water-in-solvent w_w) and the lever rule
- *      W = A(1 − w_s) + G w_w,   O = A w_s + G (1 − w_w)
- *    gives the phase masses A (aqueous) and G (organic).
- * 2. Otherwise: UNIFAC liquid–liquid flash (liquidLiquidSplit).
- * No split → everything in one phase, with a warning.
- * The mutual-solubility data are at 20–25 °C and without salt; salting-out
- * of the organic solvent by brine is not modelled.
+ * Every solvent distributes by its own activity: one liquid–liquid flash
+ * (tangent-plane stability, Rachford–Rice; thermo/vle.ts liquidLiquidSplit)
+ * with the activity model of createVleSystem — UNIFAC plus, for each
+ * water–solvent pair with tabulated mutual solubilities, an NRTL (else
+ * Margules) term regressed so that the binary reproduces the tabulated
+ * phases exactly at the tabulated temperature (thermo/nrtl.ts). So the two
+ * phases are the mutually saturated phases at the wash temperature, minor
+ * solvents (however little of them) partition by their own activity
+ * coefficients, and a solvent without tabulated data follows UNIFAC. Away
+ * from the tabulated temperature the mutual solubility follows the
+ * temperature dependence of UNIFAC with constant pair energies (NRTL τ = b/T;
+ * the library holds one temperature per pair), with an information note
+ * beyond 15 K. Where the main organic solvent's tabulated mutual solubility
+ * cannot be fitted by a stable model (thermo/nrtl.ts keeps only fits that are
+ * globally stable), the tabulated phases are used by the lever rule
+ *   W = A(1 − w_s) + G w_w,   O = A w_s + G (1 − w_w)
+ * (A, G the aqueous and organic phase masses) and the other organic solvents
+ * split like it, with a note saying so. No split → everything in one phase,
+ * with a warning.
+ * Salting-out of the organic solvent by brine is not modelled.
+ *
+ * @param kg   kg of each component [kg] (non-solvents ignored)
+ * @param T_K  temperature [K]
+ * @returns the solvent kg of each phase [kg] and whether two phases form
+ *
+ * Validity: as liquidLiquidSplit; 0–80 °C.
  */
 export function splitLiquid(
   ctx: EvalContext,
@@ -109,12 +123,21 @@ export function splitLiquid(
   } else if (organics.length === 0) {
     return single(true, 'water only');
   }
+  let vle: SolventVle | null = null;
+  let vleError: Error | null = null;
+  try {
+    vle = solventVle(ctx, ids);
+  } catch (e) {
+    vleError = e as Error;
+  }
   const orgTotal = organics.reduce((a, id) => a + kg[id], 0);
   const main = organics.reduce((m, id) => (kg[id] > kg[m] ? id : m), organics[0]);
   const mainRec = ctx.comps.get(main)!.solvent!;
-  const minor = orgTotal > 0 ? (orgTotal - kg[main]) / orgTotal : 0;
+  const fitted = new Set(vle ? vle.sys.regressedPairs.map((p) => ids[p.solvent]) : []);
 
-  if (w && kg[w] > 0 && mainRec.waterMutualSolubility && minor < MINOR_SOLVENT_FRACTION) {
+  if (w && kg[w] > 0 && mainRec.waterMutualSolubility && !fitted.has(main)) {
+    // Tabulated mutual solubility that no stable liquid model reproduces: the measured phases
+    // win over UNIFAC alone (lever rule at the tabulated temperature; other solvents follow).
     const ms = mainRec.waterMutualSolubility.value;
     const ws = ms.solventInWaterWtPct / 100;
     const ww = ms.waterInSolventWtPct / 100;
@@ -126,17 +149,15 @@ export function splitLiquid(
     method(
       methods,
       'phase split',
-      'mutual solubility (lever rule on tabulated mutual solubilities)',
+      'mutual solubility (lever rule on tabulated mutual solubilities; no stable liquid model reproduces them)',
       `${mainRec.name}–water: ${mainRec.waterMutualSolubility.source.ref} (${mainRec.waterMutualSolubility.source.status})`,
     );
-    if (Math.abs(T_K - 273.15 - ms.temperatureC) > 15) {
-      warn(
-        warnings,
-        'info',
-        'mutual-solubility-temperature',
-        `Mutual solubility of ${mainRec.name} and water is tabulated at ${ms.temperatureC} °C and used at ${(T_K - 273.15).toFixed(0)} °C.`,
-      );
-    }
+    warn(
+      warnings,
+      'info',
+      'mutual-solubility-not-fitted',
+      `No liquid model reproduces the measured mutual solubility of ${mainRec.name} and water as a stable split, so the measured phases (${ms.temperatureC} °C) are used as they are, at any temperature${orgTotal > kg[main] ? `, and the other organic solvents (${((100 * (orgTotal - kg[main])) / orgTotal).toFixed(1)} % of the organic solvents) are assumed to split like ${mainRec.name}` : ''}.`,
+    );
     if (A <= 0) {
       warn(
         warnings,
@@ -163,30 +184,45 @@ export function splitLiquid(
     }
     aqueousKg[w] = Math.min(W, A * (1 - ws));
     organicKg[w] = W - aqueousKg[w];
-    if (minor > 0)
-      warn(
-        warnings,
-        'info',
-        'minor-solvents-follow-main',
-        `Minor solvents (${(minor * 100).toFixed(1)} % of the organic solvents) are split in the same proportion as ${mainRec.name}.`,
-      );
     return { split: true, organicKg, aqueousKg, method: 'mutual solubility' };
   }
 
-  // UNIFAC liquid–liquid equilibrium.
+  // Liquid–liquid flash with the regressed activity model.
   try {
-    const vle = solventVle(ctx, ids);
+    if (!vle) throw vleError ?? new Error('no liquid model');
     const mol = ids.map((id) => kg[id] / ctx.comps.get(id)!.molarMassKgMol);
     const N = mol.reduce((a, b) => a + b, 0);
     const z = mol.map((m) => m / N);
     const r = liquidLiquidSplit(vle.sys, z, T_K);
     for (const m of r.warnings) warn(warnings, 'info', 'lle', m);
+    const tabulated = organics.filter((id) => fitted.has(id));
     method(
       methods,
       'phase split',
-      'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)',
-      'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352',
+      tabulated.length
+        ? 'liquid–liquid flash of every solvent by its own activity (UNIFAC + NRTL/Margules term regressed to the tabulated mutual solubilities with water; tangent-plane stability, Rachford–Rice)'
+        : 'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)',
+      [
+        'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352',
+        ...(tabulated.length ? ['NRTL: Renon & Prausnitz, AIChE J. 1968, 14, 135'] : []),
+        ...tabulated.map((id) => {
+          const rec = ctx.comps.get(id)!.solvent!;
+          const ms = rec.waterMutualSolubility!;
+          return `${rec.name}–water mutual solubility at ${ms.value.temperatureC} °C: ${ms.source.ref} (${ms.source.status})`;
+        }),
+      ].join('; '),
     );
+    for (const id of tabulated) {
+      const rec = ctx.comps.get(id)!.solvent!;
+      const tC = rec.waterMutualSolubility!.value.temperatureC;
+      if (Math.abs(T_K - 273.15 - tC) > 15)
+        warn(
+          warnings,
+          'info',
+          'mutual-solubility-temperature',
+          `Mutual solubility of ${rec.name} and water is tabulated at ${tC} °C; at ${(T_K - 273.15).toFixed(0)} °C it follows the temperature dependence of the fitted liquid model (UNIFAC with constant pair energies).`,
+        );
+    }
     if (!r.split) {
       warn(
         warnings,
@@ -212,13 +248,22 @@ export function splitLiquid(
       if (aqueousKg[id] > kg[id]) aqueousKg[id] = kg[id];
       organicKg[id] = kg[id] - aqueousKg[id];
     });
-    warn(
-      warnings,
-      'info',
-      'unifac-mutual-solubility',
-      'Mutual solubility of the liquids from UNIFAC (VLE parameters): the minor component of each phase can be off by a factor of 2–10.',
+    const untabulated = organics.filter(
+      (id) => !fitted.has(id) && !ctx.comps.get(id)!.solvent!.waterMutualSolubility,
     );
-    return { split: true, organicKg, aqueousKg, method: 'UNIFAC LLE' };
+    if (untabulated.length)
+      warn(
+        warnings,
+        'info',
+        'unifac-mutual-solubility',
+        `Mutual solubility of ${untabulated.map((id) => ctx.comps.get(id)!.name).join(', ')} with the other liquids from UNIFAC alone (no tabulated mutual solubility with water): the minor component of each phase can be off by a factor of 2–10.`,
+      );
+    return {
+      split: true,
+      organicKg,
+      aqueousKg,
+      method: tabulated.length ? 'regressed LLE' : 'UNIFAC LLE',
+    };
   } catch (e) {
     warn(
       warnings,
@@ -484,17 +529,45 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
 
 // ---------------------------------------------------- distribution ----
 
+/**
+ * A liquid phase as the activity-coefficient estimate needs it: UNIFAC groups
+ * and mole fractions of its solvents, and its molar volume by ideal mixing at
+ * T [m³/mol]; key: the composition rounded to 1e-6 (for memoising).
+ */
+function phaseOf(
+  ctx: EvalContext,
+  kg: Record<string, number>,
+  T_K: number,
+): {
+  groups: UnifacGroups[];
+  moleFractions: number[];
+  molarVolumeM3mol: number;
+  key: string;
+} | null {
+  const ids = solventIds(ctx).filter((id) => kg[id] > 0);
+  if (ids.length === 0) return null;
+  const mol = ids.map((id) => kg[id] / ctx.comps.get(id)!.molarMassKgMol);
+  const N = mol.reduce((a, b) => a + b, 0);
+  const x = mol.map((m) => m / N);
+  const v = ids.reduce(
+    (a, id, i) =>
+      a + x[i] * ctx.comps.get(id)!.molarMassKgMol * ctx.comps.get(id)!.specificVolume(T_K),
+    0,
+  );
+  return {
+    groups: ids.map((id) => ctx.comps.get(id)!.solvent!.unifac.value),
+    moleFractions: x,
+    molarVolumeM3mol: v,
+    key: ids.map((id, i) => `${id}:${x[i].toFixed(6)}`).join(','),
+  };
+}
+
 export interface SoluteDistribution {
   D: number;
   method: string;
   source: string;
 }
 
-/**
- * Distribution ratio D = c_org / c_aq (molar concentrations, all species) of
- * a route compound between the organic phase (its main solvent) and an
- * aqueous phase of the given pH and salt, via properties/partition.
- */
 /**
  * Partition coefficient of the neutral species, K = D(pH)/f_n(pH) [-], of an
  * ionisable compound between an organic solvent and the aqueous phase, for
@@ -503,6 +576,12 @@ export interface SoluteDistribution {
  * neutral fraction (to avoid dividing by a vanishing f_n); for every method
  * D = K f_n(pH) (× the salt factor), so K does not depend on that choice.
  * Returns Infinity when the compound is assumed to stay in the organic phase.
+ *
+ * @param salt    Setschenow constant [L/mol] and salt molarity [mol/L]
+ * @param T_K     temperature [K]
+ * @param phases  solvent kg of each phase [kg] (mutually saturated phases), see compoundDistribution
+ *
+ * Validity: as compoundDistribution.
  */
 export function neutralPartitionCoefficient(
   ctx: EvalContext,
@@ -510,6 +589,7 @@ export function neutralPartitionCoefficient(
   organicSolventComponentId: string,
   salt: { ks_Lmol: number; molar: number } | undefined,
   T_K: number,
+  phases?: { organicKg: Record<string, number>; aqueousKg: Record<string, number> },
 ): number {
   const pKa = (ctx.comps.get(compoundId)!.compound!.pKa ?? []) as PKa[];
   let best = 7;
@@ -521,11 +601,42 @@ export function neutralPartitionCoefficient(
       best = p;
     }
   }
-  const d = compoundDistribution(ctx, compoundId, organicSolventComponentId, best, salt, T_K, []);
+  const d = compoundDistribution(
+    ctx,
+    compoundId,
+    organicSolventComponentId,
+    best,
+    salt,
+    T_K,
+    [],
+    phases,
+  );
   if (!Number.isFinite(d.D) || !(bestF > 0)) return Infinity;
   return d.D / bestF;
 }
 
+/**
+ * Distribution ratio D = c_org / c_aq (molar concentrations, all species) of
+ * a route compound between the organic phase and an aqueous phase of the
+ * given pH and salt, via properties/partition (measured D, else the UNIFAC
+ * activity-coefficient ratio at infinite dilution, else Collander from logP;
+ * Henderson–Hasselbalch and Setschenow on top).
+ *
+ * The activity-coefficient estimate uses the mutually saturated phases of
+ * the contact when `phases` is given (every solvent of each phase by its mole
+ * fraction, so the organic phase carries its dissolved water and the aqueous
+ * phase its dissolved solvent), as docs/methods.md states; without it the
+ * pure main solvent against pure water. Measured D and Collander refer to the
+ * main solvent (organicSolventComponentId).
+ *
+ * @param pH      aqueous pH [-] or null (no ionisation correction)
+ * @param salt    Setschenow constant [L/mol] and salt molarity [mol/L]
+ * @param T_K     temperature [K]
+ * @param phases  solvent kg of each phase [kg], from splitLiquid
+ * @returns D [-] (Infinity when nothing is known: the compound stays organic, with a warning)
+ *
+ * Validity: dilute solutes; as the method used.
+ */
 export function compoundDistribution(
   ctx: EvalContext,
   compoundId: string,
@@ -534,10 +645,25 @@ export function compoundDistribution(
   salt: { ks_Lmol: number; molar: number } | undefined,
   T_K: number,
   warnings: EngineWarning[],
+  phases?: { organicKg: Record<string, number>; aqueousKg: Record<string, number> },
 ): SoluteDistribution {
   const c = ctx.comps.get(compoundId)!.compound!;
   const solvent = ctx.comps.get(organicSolventComponentId)!.solvent!;
   const water = ctx.waterId ? ctx.comps.get(ctx.waterId)!.solvent : undefined;
+  // Phase descriptions for the activity-coefficient estimate: the mutually saturated phases of
+  // the split where given (every solvent of each phase, ideal-mixing molar volume), else the pure
+  // main solvent against pure water.
+  const pure = (s: NonNullable<typeof water>) => ({
+    groups: [s.unifac.value],
+    moleFractions: [1],
+    molarVolumeM3mol: (s.molarMassGmol.value / s.density.value.gPerMl) * 1e-6,
+  });
+  const organicPhase = phases ? phaseOf(ctx, phases.organicKg, T_K) : null;
+  const aqueousPhase = phases ? phaseOf(ctx, phases.aqueousKg, T_K) : null;
+  const orgDesc = organicPhase ?? pure(solvent);
+  const aqDesc = aqueousPhase ?? (water ? pure(water) : undefined);
+  const phaseKey =
+    organicPhase && aqueousPhase ? `${organicPhase.key}/${aqueousPhase.key}` : 'pure';
   const groupsKey = `unifac-groups:${compoundId}`;
   if (c.unifac && !ctx.cache.has(groupsKey))
     ctx.cache.set(
@@ -546,7 +672,7 @@ export function compoundDistribution(
     );
   const groups = c.unifac ? (ctx.cache.get(groupsKey) as Record<number, number>) : undefined;
   // The same inputs give the same ratio: memoised for this evaluation (washes ask stage after stage).
-  const memoKey = `${compoundId}|${organicSolventComponentId}|${pH}|${salt ? `${salt.ks_Lmol}|${salt.molar}` : '-'}|${T_K}`;
+  const memoKey = `${compoundId}|${organicSolventComponentId}|${pH}|${salt ? `${salt.ks_Lmol}|${salt.molar}` : '-'}|${T_K}|${phaseKey}`;
   const memo = ctx.scratch.get(memoKey) as
     { r: ReturnType<typeof distributionRatio> } | { error: string } | undefined;
   if (memo) {
@@ -577,18 +703,16 @@ export function compoundDistribution(
       },
       organic: {
         solventId: solvent.id,
-        groups: [solvent.unifac.value],
-        moleFractions: [1],
-        molarVolumeM3mol: (solvent.molarMassGmol.value / solvent.density.value.gPerMl) * 1e-6,
+        groups: orgDesc.groups,
+        moleFractions: orgDesc.moleFractions,
+        molarVolumeM3mol: orgDesc.molarVolumeM3mol,
       },
       aqueous: {
         pH: pH ?? undefined,
         salt,
-        groups: water ? [water.unifac.value] : undefined,
-        moleFractions: water ? [1] : undefined,
-        molarVolumeM3mol: water
-          ? (water.molarMassGmol.value / water.density.value.gPerMl) * 1e-6
-          : undefined,
+        groups: aqDesc?.groups,
+        moleFractions: aqDesc?.moleFractions,
+        molarVolumeM3mol: aqDesc?.molarVolumeM3mol,
       },
       T_K,
       models: ctx.unifac,

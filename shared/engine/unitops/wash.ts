@@ -133,6 +133,7 @@ export function equilibrate(
   }
   const salt = saltMolar > 0 ? { ks_Lmol: saltNum / saltMolar, molar: saltMolar } : undefined;
   const main = mainOrganic(ctx, organic);
+  const phaseKg = { organicKg: sp.organicKg, aqueousKg: sp.aqueousKg };
   let pH: number | null = null;
   if (hasAq && pHOverride !== undefined) {
     pH = pHOverride;
@@ -146,7 +147,7 @@ export function equilibrate(
       if (!cp?.pKa?.length || !(mix[id] > 0)) continue;
       const K =
         sp.split && Vo > 0 && main !== null
-          ? neutralPartitionCoefficient(ctx, id, main, salt, T_K)
+          ? neutralPartitionCoefficient(ctx, id, main, salt, T_K, phaseKg)
           : 0;
       if (!Number.isFinite(K)) continue;
       carried.push({ mol: mix[id] / (cp.molarMassGmol / 1000), pKa: cp.pKa, K });
@@ -191,7 +192,7 @@ export function equilibrate(
       toOrganic[id] = Vo > 0 || !hasAq ? 1 : 0;
       continue;
     }
-    const d = compoundDistribution(ctx, id, main, pH, salt, T_K, warnings);
+    const d = compoundDistribution(ctx, id, main, pH, salt, T_K, warnings, phaseKg);
     D[id] = d;
     method(methods, `distribution of ${c.name}`, d.method, d.source);
     toOrganic[id] = d.D === Infinity ? 1 : (d.D * Vo) / (d.D * Vo + Va);
