@@ -19,6 +19,7 @@ import { API_PREFIX, buildOpenApiDocument } from './openapi';
 import { accountRouter } from './routes/account';
 import { auditRouter } from './routes/audit';
 import { calcRouter } from './routes/calc';
+import { equipmentRouter } from './routes/equipment';
 import { compoundsRouter } from './routes/compounds';
 import { evaluateRouter, ROUTE_JSON_BODY_LIMIT } from './routes/evaluate';
 import { healthRouter } from './routes/health';
@@ -147,6 +148,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(solventsRouter());
   api.use(calcRouter(config));
   api.use(compoundsRouter());
+  api.use(equipmentRouter());
   api.use(evaluateRouter(config));
   api.use(jobsRouter());
   api.use(routesRouter(config));

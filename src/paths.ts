@@ -30,6 +30,10 @@ export const paths = {
       pattern: '/w/:workspaceId/compounds',
       to: (id: string) => `/w/${encodeURIComponent(id)}/compounds`,
     },
+    equipment: {
+      pattern: '/w/:workspaceId/equipment',
+      to: (id: string) => `/w/${encodeURIComponent(id)}/equipment`,
+    },
     solvents: {
       pattern: '/w/:workspaceId/solvents',
       to: (id: string) => `/w/${encodeURIComponent(id)}/solvents`,
@@ -84,6 +88,10 @@ export const api = {
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds`,
   compound: (workspaceId: string, compoundId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/compounds/${encodeURIComponent(compoundId)}`,
+  equipment: (workspaceId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/equipment`,
+  equipmentItem: (workspaceId: string, id: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/equipment/${encodeURIComponent(id)}`,
   structurePreview: '/api/v1/structures/preview',
   revisions: (workspaceId: string, routeId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/routes/${encodeURIComponent(routeId)}/revisions`,

@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { ApiToken } from './api-token';
 import { AuditEvent } from './audit-event';
 import { Compound } from './compound';
+import { Equipment } from './equipment';
 import { Invitation } from './invitation';
 import { Membership } from './membership';
 import { OutboxMessage } from './outbox-message';
@@ -28,7 +29,7 @@ export {
   User,
   Workspace,
 };
-export { EvaluationJob, Project, Route, RouteDraft };
+export { EvaluationJob, Equipment, Project, Route, RouteDraft };
 export { RouteRevision, ReviewRequest, ReviewRequestReviewer, ReviewDecision, ReviewComment };
 
 /** Binds every model to the connection and declares the associations. */
@@ -43,6 +44,7 @@ export function initModels(sequelize: Sequelize): void {
     OutboxMessage,
     AuditEvent,
     Compound,
+    Equipment,
     Project,
     Route,
     RouteDraft,
@@ -67,6 +69,7 @@ export function initModels(sequelize: Sequelize): void {
   AuditEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
   Compound.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
   Compound.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Equipment.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
   Project.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
   Route.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' });
   Route.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });

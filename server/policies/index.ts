@@ -23,6 +23,7 @@ import { commentRules } from './comment';
 import { reviewRules } from './review';
 import { revisionRules } from './revision';
 import { compoundRules } from './compound';
+import { equipmentRules } from './equipment';
 import { outboxRules } from './outbox';
 import { routeRules } from './route';
 import { tokenRules } from './token';
@@ -38,6 +39,7 @@ export const rules = {
   ...outboxRules,
   ...routeRules,
   ...compoundRules,
+  ...equipmentRules,
   ...auditRules,
   ...revisionRules,
   ...reviewRules,

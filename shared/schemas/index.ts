@@ -17,3 +17,4 @@ export * from './lists';
 export * from './audit';
 export * from './revisions';
 export * from './text';
+export * from './equipment';

@@ -55,6 +55,10 @@ export function createAppRouter() {
                   lazy: () => import('@/routes/compounds'),
                 },
                 { path: paths.workspace.solvents.pattern, lazy: () => import('@/routes/solvents') },
+                {
+                  path: paths.workspace.equipment.pattern,
+                  lazy: () => import('@/routes/equipment'),
+                },
               ],
             },
             { path: '*', lazy: () => import('@/routes/not-found') },

@@ -89,6 +89,13 @@ function sampleBody(op: Operation): object | undefined {
     'POST /workspaces/{workspaceId}/routes/{routeId}/duplicate': {},
     'PUT /workspaces/{workspaceId}/routes/{routeId}/draft': { document: demo(), baseVersion: 1 },
     'POST /jobs/{jobId}/cancel': {},
+    'POST /workspaces/{workspaceId}/equipment': {
+      kind: 'filter',
+      name: 'Scope probe filter (invented)',
+      areaM2: 1,
+      capacityL: 100,
+    },
+    'PATCH /workspaces/{workspaceId}/equipment/{id}': { name: 'Renamed by a stranger' },
   };
   return samples[key] ?? (op.hasBody ? {} : undefined);
 }

@@ -113,6 +113,9 @@ function Shell({ session }: { session: Session }) {
                 <NavItem to={paths.workspace.solvents.to(workspaceId)} glyph={<SolventGlyph />}>
                   Solvent library
                 </NavItem>
+                <NavItem to={paths.workspace.equipment.to(workspaceId)} glyph={<VesselGlyph />}>
+                  Equipment
+                </NavItem>
               </NavGroup>
             ) : null}
             {workspaceId ? (
@@ -301,6 +304,14 @@ function SolventGlyph() {
     <svg {...glyphProps}>
       <path d="M5.5 1.8h5M6.5 1.8v3.4L3 12.6a1.2 1.2 0 0 0 1.1 1.7h7.8a1.2 1.2 0 0 0 1.1-1.7L9.5 5.2V1.8" />
       <path d="M4.4 10h7.2" />
+    </svg>
+  );
+}
+function VesselGlyph() {
+  return (
+    <svg {...glyphProps}>
+      <path d="M4 3.5h8M5 3.5v8.2a3 3 0 0 0 6 0V3.5" />
+      <path d="M8 1.5v5.5M6.3 7h3.4" />
     </svg>
   );
 }
