@@ -15,13 +15,18 @@ function toCreateInput(c: CompoundSnapshot): CompoundCreateInput {
     name: c.name,
     smiles: c.smiles,
     role: c.role,
-    pKa: c.pKa,
+    // Measured (here: invented) values only; estimates are the server's to make.
+    pKa: c.pKa
+      ?.filter((p) => p.source !== 'estimated')
+      .map((p) => ({ value: p.value, type: p.type })),
     logP: c.logP === undefined ? undefined : { value: c.logP, method: 'invented demo value' },
     meltingPointC: c.meltingPointC,
     enthalpyFusionKJmol: c.enthalpyFusionKJmol,
     solubility: c.solubility?.map((p) => ({ ...p, source: p.source ?? 'invented demo value' })),
     partition: c.partition?.map((p) => ({ ...p, source: p.source ?? 'invented demo value' })),
     notes: c.note ? `${c.note} ${INVENTED}` : INVENTED,
+    specLimitPct: c.specLimitPct,
+    solidIncorporation: c.solidIncorporation,
   };
 }
 

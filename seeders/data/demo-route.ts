@@ -11,7 +11,9 @@
  * solubility ~90 g/L at 70 °C) → 6 vol heptane antisolvent at 60 °C, seeded →
  * cooling to 5 °C (product ~12 g/L in cold 2-propanol: about a tenth stays in
  * the mother liquor) → filtration with two cold heptane cake washes → vacuum
- * drying. The solubility points of each invented compound follow
+ * drying. Specification limits (0.15 % each, 0.10 % for the urea) are
+ * invented for the demo. The structure fingerprints are openchemlib's, as the
+ * compound service computes them (a unit test keeps them equal). The solubility points of each invented compound follow
  * ln c ≈ a + b/T (van 't Hoff); the impurities are more soluble than the
  * product in every solvent.
  *
@@ -41,6 +43,8 @@ export const demoAmideIsolation: RouteDocumentInput = {
       role: 'product',
       smiles: 'O=C(NCCC1CCOCC1)c1ccc(Cl)c(OCC2CC2)c1',
       molarMassGmol: 337.85,
+      fingerprint:
+        'fffffffebfdbffff1375609ec1bc112d90924a0020f492e2208ce24400000710200008421020601065f220ad00208000a0200008400000028010005008481040',
       meltingPointC: 168,
       enthalpyFusionKJmol: 32,
       densityGmL: 1.28,
@@ -95,6 +99,9 @@ export const demoAmideIsolation: RouteDocumentInput = {
       role: 'reagent',
       smiles: 'OC(=O)c1ccc(Cl)c(OCC2CC2)c1',
       molarMassGmol: 226.66,
+      fingerprint:
+        'ffff5f146e1326a11010308ec18c010990120200206410c20004a0040000060000000840102060106442200840208000a020000840001002801000400041900c',
+      specLimitPct: 0.15,
       meltingPointC: 142,
       enthalpyFusionKJmol: 27,
       logP: 2.4,
@@ -114,6 +121,9 @@ export const demoAmideIsolation: RouteDocumentInput = {
       role: 'reagent',
       smiles: 'NCCC1CCOCC1',
       molarMassGmol: 129.2,
+      fingerprint:
+        'fef9cee4b98852fe03504010002c0004000042002080802000800040000002000000000000000000000000240000000000000000000000000000000008100080',
+      specLimitPct: 0.15,
       meltingPointC: -12,
       enthalpyFusionKJmol: 14,
       logP: 1.6,
@@ -127,6 +137,9 @@ export const demoAmideIsolation: RouteDocumentInput = {
       role: 'impurity',
       smiles: 'O=C(NCCC1CCOCC1)c1cccc(OCC2CC2)c1',
       molarMassGmol: 303.4,
+      fingerprint:
+        'fffffffebfdbffff1375609a813c112c90924a0020d48022208c424000000700200008421000200045b020a500200000a0000008400000008000004008081040',
+      specLimitPct: 0.15,
       meltingPointC: 151,
       enthalpyFusionKJmol: 29,
       logP: 2.7,
@@ -145,9 +158,15 @@ export const demoAmideIsolation: RouteDocumentInput = {
       role: 'by-product',
       smiles: 'CCNC(=O)NCCCN(C)C',
       molarMassGmol: 173.26,
+      fingerprint:
+        'fff7e9de97cccd154d4cc409304200080009a0308000000008090000200000000080000000000008000000800000000000000000000000000000000002080040',
+      specLimitPct: 0.1,
       meltingPointC: 98,
       enthalpyFusionKJmol: 20,
       logP: -0.6,
+      // Estimated from the structure (dimethylamino group; Perrin, Dempsey &
+      // Serjeant group method, ±1): a unit test keeps it equal to the estimate.
+      pKa: [{ value: 10, type: 'base', source: 'estimated' }],
       note: 'Invented demo by-product of the coupling agent, water-soluble.',
     },
   ],

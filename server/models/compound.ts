@@ -34,6 +34,8 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
   declare solubility: CompoundPayload['solubility'];
   declare partition: CompoundPayload['partition'];
   declare notes: string;
+  declare specLimitPct: number | null;
+  declare solidIncorporation: number | null;
   declare createdById: ForeignKey<User['id']> | null;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -66,6 +68,8 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
         solubility: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         partition: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        specLimitPct: { type: DataTypes.DOUBLE, allowNull: true, field: 'spec_limit_pct' },
+        solidIncorporation: { type: DataTypes.DOUBLE, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -7,15 +7,19 @@ import type { Transaction } from 'sequelize';
 import {
   assignUnifacGroups,
   estimateHansen,
+  findIonisableGroups,
   parseStructure,
+  structureFingerprint,
   type StructureInput,
 } from '@shared/chemistry';
-import type {
-  Compound as CompoundPayload,
-  CompoundCreateInput,
-  CompoundUpdateInput,
-  StructurePreview,
-  UnifacGroupCounts,
+import {
+  pKaForEngine,
+  type Compound as CompoundPayload,
+  type CompoundCreateInput,
+  type CompoundUpdateInput,
+  type IonisableGroupPayload,
+  type StructurePreview,
+  type UnifacGroupCounts,
 } from '@shared/schemas/compounds';
 import { compoundSnapshotSchema, type CompoundSnapshot } from '@shared/schemas/route';
 import type { ApiErrorDetail } from '@shared/schemas/errors';
@@ -159,8 +163,34 @@ export function previewStructure(input: StructureInput): StructurePreview {
     canonicalSmiles: derived.canonicalSmiles,
     librarySolventId: derived.librarySolventId,
     unifac: { ...derived.automatic, summary: withMainGroups(derived.automatic.groups) },
-    estimates,
+    ionisableGroups: ionisableGroups(input),
+    estimates: { ...estimates, notes: [...estimates.notes, ...ionisableNotes(input, [])] },
   };
+}
+
+/** Acidic and basic groups with their estimated pKa (shared/chemistry/pka-estimate.ts). */
+export function ionisableGroups(input: StructureInput): IonisableGroupPayload[] {
+  const r = findIonisableGroups(input);
+  if (!r.ok) return [];
+  return r.groups.map((g) => ({
+    group: g.group,
+    type: g.type,
+    pKa: g.pKa,
+    method: g.method,
+    typicalError: g.typicalError,
+    notes: g.notes,
+  }));
+}
+
+/** A note for each ionisable group with no pKa, unless measured values are entered. */
+function ionisableNotes(input: StructureInput, measured: CompoundPayload['pKa']): string[] {
+  if (measured.length > 0) return [];
+  return ionisableGroups(input)
+    .filter((g) => g.pKa === null)
+    .map(
+      (g) =>
+        `The structure has an ionisable group (${g.group}) with no pKa estimate: enter a measured pKa so washes and pH adjustments treat it as an ${g.type === 'acid' ? 'acid' : 'base'}.`,
+    );
 }
 
 function withMainGroups(groups: UnifacGroupCounts): Unifac['summary'] {
@@ -184,6 +214,8 @@ interface CompoundState {
   solubility: CompoundPayload['solubility'];
   partition: CompoundPayload['partition'];
   notes: string;
+  specLimitPct: number | null;
+  solidIncorporation: number | null;
 }
 
 function checkReferences(state: CompoundState): void {
@@ -220,7 +252,14 @@ function checkReferences(state: CompoundState): void {
 
 type Attributes = Omit<
   CompoundPayload,
-  'id' | 'version' | 'workspaceId' | 'createdBy' | 'createdAt' | 'updatedAt'
+  | 'id'
+  | 'version'
+  | 'workspaceId'
+  | 'createdBy'
+  | 'createdAt'
+  | 'updatedAt'
+  | 'ionisableGroups'
+  | 'fingerprint'
 >;
 
 function build(state: CompoundState): Attributes {
@@ -277,10 +316,12 @@ function build(state: CompoundState): Attributes {
       unassignedAtoms: edited ? [] : derived.automatic.unassignedAtoms,
       warnings: unifacWarnings,
     },
-    estimateNotes: estimates.notes,
+    estimateNotes: [...estimates.notes, ...ionisableNotes(input, state.pKa)],
     solubility: state.solubility,
     partition: state.partition,
     notes: state.notes,
+    specLimitPct: state.specLimitPct,
+    solidIncorporation: state.solidIncorporation,
   };
 }
 
@@ -299,6 +340,8 @@ function stateFromCreate(input: CompoundCreateInput): CompoundState {
     solubility: input.solubility ?? [],
     partition: input.partition ?? [],
     notes: input.notes ?? '',
+    specLimitPct: input.specLimitPct ?? null,
+    solidIncorporation: input.solidIncorporation ?? null,
   };
 }
 
@@ -319,6 +362,8 @@ function stateFromRecord(c: Compound): CompoundState {
     solubility: c.solubility,
     partition: c.partition,
     notes: c.notes,
+    specLimitPct: c.specLimitPct,
+    solidIncorporation: c.solidIncorporation,
   };
 }
 
@@ -346,6 +391,8 @@ function applyPatch(
   if (patch.solubility !== undefined) next.solubility = patch.solubility;
   if (patch.partition !== undefined) next.partition = patch.partition;
   if (patch.notes !== undefined) next.notes = patch.notes;
+  if (patch.specLimitPct !== undefined) next.specLimitPct = patch.specLimitPct;
+  if (patch.solidIncorporation !== undefined) next.solidIncorporation = patch.solidIncorporation;
   return next;
 }
 
@@ -372,6 +419,10 @@ export function presentCompound(c: Compound): CompoundPayload {
     solubility: c.solubility,
     partition: c.partition,
     notes: c.notes,
+    specLimitPct: c.specLimitPct,
+    solidIncorporation: c.solidIncorporation,
+    ionisableGroups: ionisableGroups(structureInput(c.smiles, c.molfile)),
+    fingerprint: structureFingerprint(structureInput(c.smiles, c.molfile)),
     createdBy: c.createdBy ? { id: c.createdBy.id, name: c.createdBy.name } : null,
     createdAt: c.createdAt.toISOString(),
     updatedAt: c.updatedAt.toISOString(),
@@ -497,8 +548,10 @@ export function toCompoundSnapshot(compound: Compound | CompoundPayload): Compou
   const c = compound instanceof Compound ? presentCompound(compound) : compound;
   const groupsUsable =
     Object.keys(c.unifac.groups).length > 0 && c.unifac.unassignedAtoms.length === 0;
+  const engineP = pKaForEngine(c.pKa, c.ionisableGroups);
   const methodNotes = [
     c.logP ? `logP ${c.logP.source}` : null,
+    engineP.some((p) => p.source === 'estimated') ? 'pKa estimated from the structure' : null,
     c.hansen ? `Hansen ${c.hansen.source}` : null,
     `UNIFAC groups ${c.unifac.source}`,
   ].filter(Boolean);
@@ -512,11 +565,14 @@ export function toCompoundSnapshot(compound: Compound | CompoundPayload): Compou
     ...(c.meltingPointC !== null ? { meltingPointC: c.meltingPointC } : {}),
     ...(c.enthalpyFusionKJmol !== null ? { enthalpyFusionKJmol: c.enthalpyFusionKJmol } : {}),
     ...(c.logP ? { logP: c.logP.value } : {}),
-    ...(c.pKa.length > 0 ? { pKa: c.pKa.map((p) => ({ value: p.value, type: p.type })) } : {}),
+    ...(engineP.length > 0 ? { pKa: engineP } : {}),
     ...(groupsUsable ? { unifac: { ...c.unifac.groups } } : {}),
     ...(c.hansen ? { hansen: { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } } : {}),
     ...(c.solubility.length > 0 ? { solubility: c.solubility.map((p) => ({ ...p })) } : {}),
     ...(c.partition.length > 0 ? { partition: c.partition.map((p) => ({ ...p })) } : {}),
+    ...(c.specLimitPct !== null ? { specLimitPct: c.specLimitPct } : {}),
+    ...(c.solidIncorporation !== null ? { solidIncorporation: c.solidIncorporation } : {}),
+    ...(c.fingerprint ? { fingerprint: c.fingerprint } : {}),
     note: [c.notes, methodNotes.join(', ')].filter(Boolean).join(' — ').slice(0, 500),
   };
   return compoundSnapshotSchema.parse(snapshot);

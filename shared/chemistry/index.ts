@@ -13,3 +13,10 @@ export {
   type HansenEstimate,
   type MolarVolumeInput,
 } from './hansen-estimate';
+export { structureFingerprint } from './fingerprint';
+export {
+  findIonisableGroups,
+  PKA_METHOD,
+  PKA_TYPICAL_ERROR,
+  type IonisableGroup,
+} from './pka-estimate';

@@ -52,7 +52,12 @@ export type Volume = z.infer<typeof volumeSchema>;
 // ----- components ---------------------------------------------------------
 
 export const pKaSchema = z
-  .object({ value: finite().min(-10).max(30), type: z.enum(['acid', 'base']) })
+  .object({
+    value: finite().min(-10).max(30),
+    type: z.enum(['acid', 'base']),
+    /** Measured (entered by the chemist) or estimated from the structure; measured when absent. */
+    source: z.enum(['measured', 'estimated']).optional(),
+  })
   .strict();
 
 /** UNIFAC subgroup counts keyed by subgroup number (Hansen et al. 1991 table). */
@@ -132,6 +137,17 @@ export const compoundSnapshotSchema = z
     partition: z.array(partitionPointSchema).max(200).optional(),
     /** Jouyban–Acree interaction terms for solvent pairs (mixed-solvent solubility). */
     cosolvency: z.array(cosolvencySchema).max(50).optional(),
+    /** Specification limit in the isolated product [%, solvent-free basis], e.g. 0.15. */
+    specLimitPct: finite().min(0).max(100).optional(),
+    /**
+     * Incorporation into the product's crystals: distribution coefficient
+     * K = (m_i/m_product in the solid) / (m_i/m_product in the liquor); absent = none.
+     */
+    solidIncorporation: finite().min(0).max(10).optional(),
+    /** Structure fingerprint (openchemlib FragFp, 512 bits as hex) for similarity to the product. */
+    fingerprint: text()
+      .regex(/^[0-9a-f]{128}$/, 'A fingerprint is 128 hexadecimal digits')
+      .optional(),
     /** Free-text note, e.g. "invented demo compound". */
     note: text().max(500).optional(),
   })

@@ -8,7 +8,15 @@ export {
   PROCESS_SAFETY_NOTE,
   MASS_BALANCE_TOLERANCE,
 } from './route/evaluate';
-export type { RouteResult, RouteTotals, PurgeEntry, PreparedRoute } from './route/evaluate';
+export type {
+  RouteResult,
+  RouteTotals,
+  PurgeEntry,
+  ImpurityLevel,
+  PreparedRoute,
+} from './route/evaluate';
+export { groupWarnings, type GroupedWarning } from './route/cautions';
+export { purgeCascades, type PurgeCascade, type PurgeCascadeRow } from './route/purge';
 export { RouteValidationError, type RouteIssue } from './route/errors';
 export type { Stream, StepResult } from './route/types';
 export {

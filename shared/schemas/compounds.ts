@@ -136,6 +136,21 @@ const compoundFields = {
   solubility: z.array(compoundSolubilityPointSchema).max(COMPOUND_LIMITS.pointsMax).optional(),
   partition: z.array(compoundPartitionPointSchema).max(COMPOUND_LIMITS.pointsMax).optional(),
   notes: text().max(COMPOUND_LIMITS.notesMax).optional(),
+  /** Specification limit in the isolated product [%, solvent-free basis], e.g. 0.15; null for none. */
+  specLimitPct: optionalNumber(
+    finite()
+      .min(0, { message: 'The limit cannot be negative.' })
+      .max(100, { message: 'The limit is at most 100 %.' }),
+  ),
+  /**
+   * Incorporation into the product's crystals as a distribution coefficient K
+   * (ratio to the product in the solid over that in the liquor); null for none.
+   */
+  solidIncorporation: optionalNumber(
+    finite()
+      .min(0, { message: 'The incorporation cannot be negative.' })
+      .max(10, { message: 'The incorporation is at most 10.' }),
+  ),
 };
 
 const hasStructure = (v: { smiles?: string | null; molfile?: string | null }) =>
@@ -158,6 +173,19 @@ export const compoundUpdateSchema = z
     message: 'Enter a SMILES or paste a molfile.',
   });
 export type CompoundUpdateInput = z.input<typeof compoundUpdateSchema>;
+
+/** An acidic or basic group found in the structure, with its estimated pKa. */
+export const ionisableGroupSchema = z.object({
+  group: text(),
+  type: z.enum(['acid', 'base']),
+  /** Estimated pKa (for a base, of its conjugate acid); null when the method does not cover the group. */
+  pKa: z.number().nullable(),
+  method: text(),
+  /** Typical error of the estimate [pKa units]; null without an estimate. */
+  typicalError: z.number().nullable(),
+  notes: z.array(text()),
+});
+export type IonisableGroupPayload = z.infer<typeof ionisableGroupSchema>;
 
 export const unassignedAtomSchema = z.object({
   index: z.number().int(),
@@ -212,6 +240,12 @@ export const compoundSchema = z.object({
   solubility: z.array(compoundSolubilityPointSchema),
   partition: z.array(compoundPartitionPointSchema),
   notes: text(),
+  specLimitPct: z.number().nullable(),
+  solidIncorporation: z.number().nullable(),
+  /** Acidic and basic groups found from the structure; measured pKa values (pKa) replace the estimates. */
+  ionisableGroups: z.array(ionisableGroupSchema),
+  /** Structure fingerprint (openchemlib FragFp, hex) for similarity; null when it cannot be made. */
+  fingerprint: text().nullable(),
   createdBy: z.object({ id: text(), name: text() }).nullable(),
   createdAt: text(),
   updatedAt: text(),
@@ -251,6 +285,8 @@ export const structurePreviewSchema = z.object({
     unassignedAtoms: z.array(unassignedAtomSchema),
     warnings: z.array(text()),
   }),
+  /** Acidic and basic groups found from the structure, with estimated pKa and the method. */
+  ionisableGroups: z.array(ionisableGroupSchema),
   estimates: z.object({
     logP: z.object({ value: z.number(), method: text(), warnings: z.array(text()) }).nullable(),
     hansen: z
@@ -267,3 +303,20 @@ export const structurePreviewSchema = z.object({
   }),
 });
 export type StructurePreview = z.infer<typeof structurePreviewSchema>;
+
+/**
+ * The pKa values a route uses for a compound: the chemist's measured values
+ * when any are entered, else the estimates from the structure (marked
+ * estimated). At most six, as the route document allows.
+ */
+export function pKaForEngine(
+  measured: ReadonlyArray<{ value: number; type: 'acid' | 'base' }>,
+  groups: ReadonlyArray<{ pKa: number | null; type: 'acid' | 'base' }>,
+): Array<{ value: number; type: 'acid' | 'base'; source: 'measured' | 'estimated' }> {
+  if (measured.length > 0)
+    return measured.slice(0, 6).map((p) => ({ value: p.value, type: p.type, source: 'measured' }));
+  return groups
+    .filter((g): g is { pKa: number; type: 'acid' | 'base' } => g.pKa !== null)
+    .slice(0, 6)
+    .map((g) => ({ value: g.pKa, type: g.type, source: 'estimated' }));
+}

@@ -46,7 +46,19 @@ export const routeTotalsSchema = z.object({
   isolatedProductKg: z.number(),
   isolatedSolidKg: z.number(),
   yieldPct: z.number().nullable(),
+  /** Assay of the isolated solid including residual solvents and water [wt %]. */
   purityWtPct: z.number().nullable(),
+  /** Product / (product + organic impurities) in the isolated solid [%], the area-% basis. */
+  solventFreePurityPct: z.number().nullable(),
+  /** Each compound charged other than the product: level in the isolated solid (solvent-free) against its limit. */
+  impurities: z.array(
+    z.object({
+      componentId: text(),
+      levelPct: z.number(),
+      limitPct: z.number().nullable(),
+      pass: z.boolean().nullable(),
+    }),
+  ),
   purge: z.record(
     text(),
     z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),

@@ -368,6 +368,82 @@ describe('workspace compounds', () => {
     expect(snapshot.note).toMatch(/logP estimated/);
   });
 
+  it('lists the ionisable groups with estimated pKa and the method; the route uses the estimate until a measured pKa is entered', async () => {
+    const UREA = 'CCNC(=O)NCCCN(C)C';
+    const preview = structurePreviewSchema.parse(
+      (
+        await asChemist.agent
+          .post('/api/v1/structures/preview')
+          .set('X-CSRF-Token', asChemist.csrfToken)
+          .send({ smiles: UREA })
+      ).body,
+    );
+    expect(preview.ionisableGroups).toHaveLength(1);
+    expect(preview.ionisableGroups[0]).toMatchObject({
+      group: 'tertiary aliphatic amine',
+      type: 'base',
+      typicalError: 1,
+    });
+    expect(preview.ionisableGroups[0].pKa).toBeCloseTo(10, 5);
+    expect(preview.ionisableGroups[0].method).toMatch(/Perrin, Dempsey & Serjeant/);
+
+    const created = compoundSchema.parse(
+      (await post(asChemist, { name: 'Urea by-product', smiles: UREA, role: 'by-product' })).body,
+    );
+    expect(created.pKa).toEqual([]);
+    expect(created.ionisableGroups.map((g) => g.pKa)).toEqual([10]);
+    expect(toCompoundSnapshot(created).pKa).toEqual([
+      { value: 10, type: 'base', source: 'estimated' },
+    ]);
+    const measured = compoundSchema.parse(
+      (await patch(asChemist, created.id, { pKa: [{ value: 9.4, type: 'base' }] })).body,
+    );
+    expect(toCompoundSnapshot(measured).pKa).toEqual([
+      { value: 9.4, type: 'base', source: 'measured' },
+    ]);
+
+    // A group the method does not cover is named, and the chemist is asked for a measured value.
+    const guanidine = compoundSchema.parse(
+      (await post(asChemist, { name: 'Guanidine', smiles: 'CNC(=N)N', role: 'impurity' })).body,
+    );
+    expect(guanidine.ionisableGroups).toMatchObject([{ group: 'guanidine', pKa: null }]);
+    expect(guanidine.estimateNotes.join(' ')).toMatch(/ionisable group \(guanidine\) with no pKa/);
+  });
+
+  it('keeps the specification limit and the incorporation, and carries them into the snapshot', async () => {
+    const created = compoundSchema.parse(
+      (
+        await post(asChemist, {
+          name: 'Des-chloro analogue',
+          smiles: 'O=C(NC)c1cccc(OC)c1',
+          role: 'impurity',
+          specLimitPct: 0.15,
+        })
+      ).body,
+    );
+    expect(created).toMatchObject({ specLimitPct: 0.15, solidIncorporation: null });
+    expect(created.fingerprint).toMatch(/^[0-9a-f]{128}$/);
+    const updated = compoundSchema.parse(
+      (await patch(asChemist, created.id, { solidIncorporation: 0.02, specLimitPct: null })).body,
+    );
+    expect(updated).toMatchObject({ specLimitPct: null, solidIncorporation: 0.02 });
+    const snapshot = toCompoundSnapshot(updated);
+    expect(snapshot.solidIncorporation).toBe(0.02);
+    expect(snapshot.specLimitPct).toBeUndefined();
+    expect(snapshot.fingerprint).toBe(created.fingerprint);
+
+    const bad = await post(asChemist, {
+      name: 'Bad limit',
+      smiles: 'CCO',
+      role: 'impurity',
+      specLimitPct: -1,
+      solidIncorporation: 11,
+    });
+    expect(bad.status).toBe(400);
+    const paths = bad.body.error.details.map((d: { path: string }) => d.path);
+    expect(paths).toEqual(expect.arrayContaining(['specLimitPct', 'solidIncorporation']));
+  });
+
   it('seeds the invented demo compounds once, each marked invented', async () => {
     const context = { sequelize: database(), queryInterface: database().getQueryInterface() };
     await seedDemoWorkspaces({ context });
@@ -388,6 +464,10 @@ describe('workspace compounds', () => {
     );
     const product = seeded.find((c) => c.role === 'product')!;
     expect(product.logP).toMatchObject({ source: 'measured', method: 'invented demo value' });
+    // The urea's pKa is the server's estimate, not seeded as measured.
+    const urea = seeded.find((c) => c.name.startsWith('Coupling-agent urea'))!;
+    expect(urea.pKa).toEqual([]);
+    expect(seeded.find((c) => c.name.startsWith('Des-chloro'))!.specLimitPct).toBe(0.15);
     expect(product.unifac.unassignedAtoms).toEqual([]);
   });
 });

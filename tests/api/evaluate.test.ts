@@ -55,6 +55,20 @@ describe('POST /api/v1/evaluate', () => {
       (demoRoute.connections as { id: string }[]).map((c) => c.id).sort(),
     );
     expect(body.result.processSafetyNote).toMatch(/process-safety review/);
+    // Purity as the trade reads it, each impurity against its limit, and where each went per step.
+    expect(totals.solventFreePurityPct!).toBeGreaterThan(totals.purityWtPct!);
+    expect(totals.impurities.map((i) => i.componentId)).toEqual([
+      'pw417-acid',
+      'pw417-amine',
+      'deschloro-amide',
+      'coupling-urea',
+    ]);
+    expect(totals.impurities.every((i) => i.limitPct !== null && i.pass === true)).toBe(true);
+    const acidWash = body.result.steps['acid-wash'] as {
+      purge: Record<string, { inKg: number; outKg: number; purgeFactor: number | null }>;
+    };
+    expect(acidWash.purge['pw417-amine'].purgeFactor!).toBeGreaterThan(1e4);
+    expect(acidWash.purge['coupling-urea'].purgeFactor!).toBeGreaterThan(1e3);
   });
 
   it('is deterministic: the same document gives the same numbers', async () => {

@@ -11,3 +11,4 @@ export {
   V_OCTANOL_M3MOL,
   V_WATER_M3MOL,
 } from './logp';
+export { tanimotoHex, CLOSE_ANALOGUE_TANIMOTO } from './similarity';

@@ -357,7 +357,7 @@ export function commonCautions(
       warnings,
       'advisory',
       'flammable-above-flash-point',
-      `Process temperature ${(T_K - 273.15).toFixed(0)} °C is above or within ${FLASH_POINT_MARGIN_K} K of the flash point of ${flam.join(', ')}: flammable atmosphere; inerting and ignition-source control apply.`,
+      `Handled above or within ${FLASH_POINT_MARGIN_K} K of the flash point of ${flam.join(', ')}: flammable atmosphere; inerting and ignition-source control apply.`,
     );
   }
   if (flashUnknown.length) {

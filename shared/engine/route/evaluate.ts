@@ -6,8 +6,18 @@
  * Totals:
  *  - isolated yield = product in the isolated solid (unconnected 'dry' or
  *    'cake' outputs) / product charged (+ seeds, + formed by reaction);
- *  - purity = product / all mass in the isolated solid [wt %];
- *  - purge factor of each impurity = amount in / amount in the isolated solid;
+ *  - purity = product / all mass in the isolated solid [wt %] (the assay,
+ *    residual solvents and water included);
+ *  - solvent-free purity = product / (product + every other route compound)
+ *    in the isolated solid [%]: organic impurities only, the basis of an
+ *    HPLC area-% result (equal response factors assumed; solvents, water and
+ *    inorganic salts are not seen);
+ *  - each impurity's level in the isolated solid on the same solvent-free
+ *    basis, judged against the specification limit set on the compound;
+ *  - purge factor of each impurity = amount in / amount in the isolated solid,
+ *    and per step = amount entering the step / amount leaving it with the
+ *    product (the output that carries the most product);
+ *  - residual solvents within 20 % of their ICH Q3C limit get a near-limit note;
  *  - solvent use = litres of liquid charged / kg isolated product;
  *  - PMI = total mass charged (incl. water, reagents, auxiliaries) / kg
  *    product (ACS GCI Pharmaceutical Roundtable; Jimenez-Gonzalez et al.,
@@ -29,6 +39,7 @@ import {
 } from './context';
 import { RouteValidationError, StepError, type RouteIssue } from './errors';
 import { validateRoute, type GraphInfo } from './validate';
+import { analogueCautions } from './cautions';
 import type { EngineWarning, StepOutput, StepResult, Stream } from './types';
 import { charge } from '../unitops/charge';
 import { washOrExtraction } from '../unitops/wash';
@@ -46,7 +57,7 @@ import {
 } from '../unitops/simple';
 
 /** Version of the route engine; stored with every revision's results. */
-export const ENGINE_VERSION = '1.0.2';
+export const ENGINE_VERSION = '1.1.0';
 
 /** Relative closure required of every component balance at every step. */
 export const MASS_BALANCE_TOLERANCE = 1e-9;
@@ -68,13 +79,29 @@ export interface PurgeEntry {
   purgeFactor: number | null;
 }
 
+/** An impurity's level in the isolated solid (solvent-free basis) against its specification limit. */
+export interface ImpurityLevel {
+  componentId: string;
+  /** 100 · m_i / (m_product + Σ m_other compounds) in the isolated solid [%]. */
+  levelPct: number;
+  /** The compound's specification limit [%], or null when none is set. */
+  limitPct: number | null;
+  /** levelPct ≤ limitPct; null without a limit. */
+  pass: boolean | null;
+}
+
 export interface RouteTotals {
   productId: string | null;
   productInKg: number;
   isolatedProductKg: number;
   isolatedSolidKg: number;
   yieldPct: number | null;
+  /** Assay of the isolated solid including residual solvents and water [wt %]. */
   purityWtPct: number | null;
+  /** Product / (product + organic impurities) in the isolated solid [%] (area-% basis). */
+  solventFreePurityPct: number | null;
+  /** Every route compound other than the product that was charged, in route order of components. */
+  impurities: ImpurityLevel[];
   purge: Record<string, PurgeEntry>;
   solventUseLPerKg: number | null;
   pmi: number | null;
@@ -183,6 +210,7 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
       throw toRouteError(e, step);
     }
     checkBalance(ctx, inputs, out);
+    out.result.purge = stepPurge(ctx, out);
     outputsOf.set(id, out.outputs);
     results[id] = out.result;
     for (const [port, c] of graph.outgoing.get(id)!) streams[c.id] = out.outputs[port];
@@ -200,6 +228,8 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
   const warnings: RouteResult['warnings'] = [];
   for (const id of graph.order)
     for (const w of results[id].warnings) warnings.push({ ...w, stepId: id });
+  warnings.push(...analogueCautions(ctx, graph.order, stepById, results));
+  warnings.push(...nearLimitNotes(ctx, terminals));
   if (!ctx.productId)
     warnings.push({
       severity: 'info',
@@ -273,6 +303,71 @@ function checkBalance(
   r.balance = balance;
 }
 
+/**
+ * Where each impurity goes at one step: the amount entering it (inputs +
+ * charged + formed − consumed, from the balance) and the amount leaving with
+ * the product, i.e. in the output that carries the most product; purge factor
+ * = in / out (null when none leaves with the product). Empty when no product
+ * passes through the step, or the route names no product.
+ */
+export function stepPurge(ctx: EvalContext, out: StepOutput): Record<string, PurgeEntry> {
+  const purge = idRecord<PurgeEntry>();
+  const pid = ctx.productId;
+  const balance = out.result.balance;
+  if (!pid || !balance) return purge;
+  let carrier: Stream | null = null;
+  for (const port in out.outputs) {
+    const s = out.outputs[port];
+    if (s.kg[pid] > 0 && (!carrier || s.kg[pid] > carrier.kg[pid])) carrier = s;
+  }
+  if (!carrier) return purge;
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    const inKg = balance[id]?.inKg ?? 0;
+    if (c.kind !== 'compound' || id === pid || !(inKg > 0)) continue;
+    const outKg = carrier.kg[id];
+    purge[id] = { inKg, outKg, purgeFactor: outKg > 0 ? inKg / outKg : null };
+  }
+  return purge;
+}
+
+/** Fraction of an ICH Q3C limit from which a residual solvent gets a near-limit note. */
+export const ICH_NEAR_LIMIT_FRACTION = 0.8;
+
+/**
+ * Near-limit notes for the residual solvents of the isolated solid: a
+ * residual at or above 80 % of its ICH Q3C(R9) concentration limit (Option 1,
+ * the library's reproduced table) but not above it (exceedance is the drying
+ * step's own warning). The 20 % margin is common practice for a result that
+ * batch-to-batch variation may carry over the limit.
+ */
+function nearLimitNotes(
+  ctx: EvalContext,
+  terminals: RouteResult['terminals'],
+): RouteResult['warnings'] {
+  const notes: RouteResult['warnings'] = [];
+  for (const t of terminals) {
+    if (!t.isolated) continue;
+    let total = 0;
+    for (const id of ctx.ids) total += t.stream.kg[id];
+    if (!(total > 0)) continue;
+    for (const id of ctx.ids) {
+      const c = ctx.comps.get(id)!;
+      const limit = c.solvent?.ich.value.limitPpm ?? null;
+      if (!c.solvent || c.isWater || limit === null || !(t.stream.kg[id] > 0)) continue;
+      const ppm = (t.stream.kg[id] / total) * 1e6;
+      if (ppm >= ICH_NEAR_LIMIT_FRACTION * limit && ppm <= limit)
+        notes.push({
+          severity: 'advisory',
+          code: 'ich-near-limit',
+          message: `Residual ${c.name} ${ppm.toFixed(0)} ppm is within 20 % of its ICH Q3C limit of ${limit} ppm (${((100 * ppm) / limit).toFixed(0)} % of it): batch-to-batch variation may carry it over; dry longer or confirm by GC.`,
+          stepId: t.stepId,
+        });
+    }
+  }
+  return notes;
+}
+
 function computeTotals(
   ctx: EvalContext,
   order: string[],
@@ -311,6 +406,24 @@ function computeTotals(
       purgeFactor: iso[id] > 0 ? inputKg[id] / iso[id] : null,
     };
   }
+  // Solvent-free basis: the product and every other route compound in the solid.
+  let organicKg = product;
+  for (const id of ctx.ids)
+    if (id !== pid && ctx.comps.get(id)!.kind === 'compound') organicKg += iso[id];
+  const impurities: ImpurityLevel[] = [];
+  if (pid && organicKg > 0)
+    for (const id of ctx.ids) {
+      const c = ctx.comps.get(id)!;
+      if (c.kind !== 'compound' || id === pid || !(inputKg[id] > 0)) continue;
+      const levelPct = (100 * iso[id]) / organicKg;
+      const limitPct = c.compound?.specLimitPct ?? null;
+      impurities.push({
+        componentId: id,
+        levelPct,
+        limitPct,
+        pass: limitPct === null ? null : levelPct <= limitPct,
+      });
+    }
   // Total mass charged: everything added by any step (reaction products are not inputs) plus auxiliaries.
   let charged = aux;
   let water = 0;
@@ -329,6 +442,8 @@ function computeTotals(
     isolatedSolidKg: isoTotal,
     yieldPct: pid && inputKg[pid] > 0 ? (100 * product) / inputKg[pid] : null,
     purityWtPct: isoTotal > 0 && pid ? (100 * product) / isoTotal : null,
+    solventFreePurityPct: pid && organicKg > 0 ? (100 * product) / organicKg : null,
+    impurities,
     purge,
     solventUseLPerKg: has ? volumeL / product : null,
     pmi: has ? charged / product : null,

@@ -52,6 +52,11 @@ export interface StepResultBase {
   duration: StepDuration;
   /** Per-component closure, filled by the evaluator: in + added + generated − consumed vs out [kg]. */
   balance?: Record<string, { inKg: number; outKg: number; relativeError: number }>;
+  /**
+   * Per impurity, filled by the evaluator: amount entering the step, amount
+   * leaving with the product, and their ratio (null: none leaves with it).
+   */
+  purge?: Record<string, { inKg: number; outKg: number; purgeFactor: number | null }>;
   /** Kind-specific details (profiles, distribution ratios, ...). */
   details: Record<string, unknown>;
 }

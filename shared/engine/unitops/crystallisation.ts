@@ -7,8 +7,11 @@
  * ideal solubility; blends by the log-linear Jouyban–Acree model); the
  * excess is solid. So the product comes out to its solubility, and an
  * impurity stays in the liquor below its own solubility, else it
- * co-precipitates (as a separate solid; solid solutions and inclusions are
- * not modelled). Aqueous solutes (salts) dissolve in the water present up to
+ * co-precipitates (as a separate solid). An impurity the chemist marks as
+ * incorporated (solidIncorporation K) goes into the product's crystals in
+ * proportion to its ratio to the product in the liquor (see
+ * incorporateImpurities); otherwise solid solutions and inclusions are not
+ * modelled, and close analogues of the product get a caution. Aqueous solutes (salts) dissolve in the water present up to
  * their saturation wt %; without water they are solid.
  *   yield = m_solid,product / (m_product,in + m_seed)
  * Seeding is recorded (seed mass = seedWtPct % of the product in the feed,
@@ -181,6 +184,49 @@ export function oilingOutCheck(
   }
 }
 
+/**
+ * Incorporation of impurities into the product's crystals (solid solution,
+ * inclusion), by a constant distribution coefficient K (the "effective
+ * distribution coefficient" of crystallisation from solution; Mullin,
+ * Crystallization, 4th ed. 2001, §6.1 and §7.3 on impurities):
+ *   (m_i,solid / m_P,solid) = K · (m_i,liquor / m_P,liquor).
+ * With the dissolved impurity L_i = m_i − s_i (s_i: its own precipitate)
+ * shared between liquor and crystals and the product's solid S_P and
+ * dissolved L_P fixed by the solubility model, mass conservation gives
+ *   m_i,incorporated = K · S_P · L_i / (L_P + K · S_P).
+ * K = 0 (the default, "none") changes nothing; K = 1 crystallises the
+ * impurity at its liquor ratio, i.e. no purification.
+ * Returns the incorporated mass of each impurity [kg] and adds it to the slurry's solid.
+ */
+export function incorporateImpurities(
+  ctx: EvalContext,
+  slurry: Stream,
+  methods: MethodUsed[],
+): Record<string, number> {
+  const pid = ctx.productId;
+  const out: Record<string, number> = {};
+  if (!pid) return out;
+  const S_P = slurry.solidKg[pid];
+  const L_P = slurry.kg[pid] - S_P;
+  if (!(S_P > 0)) return out;
+  for (const id of ctx.ids) {
+    const K = ctx.comps.get(id)!.compound?.solidIncorporation;
+    if (id === pid || !K || !(K > 0)) continue;
+    const L_i = slurry.kg[id] - slurry.solidKg[id];
+    if (!(L_i > 0)) continue;
+    const m = (K * S_P * L_i) / (Math.max(L_P, 0) + K * S_P);
+    slurry.solidKg[id] += m;
+    out[id] = m;
+    method(
+      methods,
+      'impurity incorporation',
+      'constant distribution coefficient K between crystals and liquor (entered per impurity)',
+      'Mullin, Crystallization, 4th ed., Butterworth-Heinemann 2001, §6.1',
+    );
+  }
+  return out;
+}
+
 export function crystallisation(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'crystallisation'>,
@@ -278,6 +324,7 @@ export function crystallisation(
     slurry.kg[id] = mix[id];
     slurry.solidKg[id] = Math.min(mix[id], end.solidKg[id]);
   }
+  const incorporated = incorporateImpurities(ctx, slurry, M);
   finishStream(ctx, slurry);
   peak = Math.max(peak, slurry.volumeM3);
 
@@ -288,6 +335,7 @@ export function crystallisation(
     seedKg,
     endTemperatureC: T_end - 273.15,
     startTemperatureC: T_start - 273.15,
+    incorporatedKg: incorporated,
   };
   const saturation: Record<string, number | null> = {};
   for (const id of ctx.ids)

@@ -1,7 +1,7 @@
 import { useEffect, useId, useState, type ReactNode } from 'react';
 import { SOLVENTS, AQUEOUS_SOLUTES } from '@shared/engine/data';
 import { compoundSnapshotSchema } from '@shared/schemas/route';
-import type { Compound } from '@shared/schemas/compounds';
+import { pKaForEngine, type Compound } from '@shared/schemas/compounds';
 import { FieldError } from '@/components/text-field';
 import {
   formatQuantity,
@@ -196,6 +196,8 @@ export function componentLabel(c: ComponentInput): string {
 
 /** Compound record → the self-contained snapshot a route stores. */
 export function snapshotOf(c: Compound): ComponentInput | null {
+  // Measured pKa values win; otherwise the estimates from the structure.
+  const pKa = pKaForEngine(c.pKa ?? [], c.ionisableGroups ?? []);
   const snap = {
     kind: 'compound' as const,
     id: c.id,
@@ -206,14 +208,10 @@ export function snapshotOf(c: Compound): ComponentInput | null {
     ...(c.meltingPointC !== null ? { meltingPointC: c.meltingPointC } : {}),
     ...(c.enthalpyFusionKJmol !== null ? { enthalpyFusionKJmol: c.enthalpyFusionKJmol } : {}),
     ...(c.logP ? { logP: c.logP.value } : {}),
-    ...(c.pKa?.length
-      ? {
-          pKa: c.pKa.map((p) => ({
-            value: (p as { value: number }).value,
-            type: (p as { type: 'acid' | 'base' }).type,
-          })),
-        }
-      : {}),
+    ...(pKa.length ? { pKa } : {}),
+    ...(c.specLimitPct !== null ? { specLimitPct: c.specLimitPct } : {}),
+    ...(c.solidIncorporation !== null ? { solidIncorporation: c.solidIncorporation } : {}),
+    ...(c.fingerprint ? { fingerprint: c.fingerprint } : {}),
     ...(Object.keys(c.unifac?.groups ?? {}).length ? { unifac: c.unifac.groups } : {}),
     ...(c.hansen ? { hansen: { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } } : {}),
     ...(c.solubility?.length ? { solubility: c.solubility } : {}),

@@ -1,0 +1,78 @@
+/**
+ * Cautions as a chemist reads them: the same caution for the same cause once,
+ * with the steps it applies to; and the route-level caution that a close
+ * structural analogue of the product may co-crystallise.
+ */
+import type { RouteStep } from '../document';
+import type { EvalContext } from './context';
+import type { EngineWarning, StepResult } from './types';
+import { CLOSE_ANALOGUE_TANIMOTO, tanimotoHex } from '../properties/similarity';
+
+export interface GroupedWarning extends EngineWarning {
+  /** The steps it applies to, in route order (null: the route as a whole). */
+  stepIds: Array<string | null>;
+}
+
+/**
+ * Group warnings that say the same thing (severity, code and message) into
+ * one entry listing the steps, keeping the order of first appearance.
+ *
+ * Example: the same static-accumulation advisory on four washes becomes one
+ * entry with stepIds ['acid-wash', 'base-wash', 'brine-wash', 'filter'].
+ */
+export function groupWarnings(
+  warnings: ReadonlyArray<EngineWarning & { stepId: string | null }>,
+): GroupedWarning[] {
+  const byKey = new Map<string, GroupedWarning>();
+  for (const w of warnings) {
+    const key = `${w.severity}\u0000${w.code}\u0000${w.message}`;
+    const g = byKey.get(key);
+    if (g) {
+      if (!g.stepIds.includes(w.stepId)) g.stepIds.push(w.stepId);
+    } else
+      byKey.set(key, {
+        severity: w.severity,
+        code: w.code,
+        message: w.message,
+        stepIds: [w.stepId],
+      });
+  }
+  return [...byKey.values()];
+}
+
+/**
+ * A caution on each crystallisation an impurity reaches when it is a close
+ * structural analogue of the product (Tanimoto of the structure fingerprints
+ * ≥ CLOSE_ANALOGUE_TANIMOTO) and no incorporation into the crystals is set:
+ * close analogues often form solid solutions or are included in the crystals,
+ * which the solubility model alone does not see (common practice).
+ */
+export function analogueCautions(
+  ctx: EvalContext,
+  order: readonly string[],
+  steps: ReadonlyMap<string, RouteStep>,
+  results: Record<string, StepResult>,
+): Array<EngineWarning & { stepId: string | null }> {
+  const out: Array<EngineWarning & { stepId: string | null }> = [];
+  const pid = ctx.productId;
+  const fp = pid ? ctx.comps.get(pid)?.compound?.fingerprint : undefined;
+  if (!pid || !fp) return out;
+  const product = ctx.comps.get(pid)!;
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!.compound;
+    if (id === pid || !c?.fingerprint || c.solidIncorporation !== undefined) continue;
+    const t = tanimotoHex(fp, c.fingerprint);
+    if (t === null || t < CLOSE_ANALOGUE_TANIMOTO) continue;
+    for (const sid of order) {
+      if (steps.get(sid)?.kind !== 'crystallisation') continue;
+      if (!((results[sid].balance?.[id]?.inKg ?? 0) > 0)) continue;
+      out.push({
+        severity: 'warning',
+        code: 'close-analogue',
+        message: `${c.name} is a close structural analogue of ${product.name} (Tanimoto ${t.toFixed(2)} on structure fingerprints, ≥ ${CLOSE_ANALOGUE_TANIMOTO.toFixed(2)}): close analogues often co-crystallise, so its purge here may be far too high. Enter its incorporation into the solid on the compound (a measured distribution coefficient), or 0 if none is found.`,
+        stepId: sid,
+      });
+    }
+  }
+  return out;
+}
