@@ -1,20 +1,8 @@
 import { stringify } from 'csv-stringify/sync';
+import { neutraliseFormula } from '@shared/csv';
 
-/**
- * A cell a spreadsheet would run as a formula (starting with =, +, -, @, or
- * a tab or carriage return before one) gets a leading apostrophe, so an
- * exported value can never execute when the file is opened.
- */
-export function neutraliseFormula(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  const text =
-    typeof value === 'string'
-      ? value
-      : typeof value === 'object'
-        ? JSON.stringify(value)
-        : String(value);
-  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
-}
+// The guard against formula injection is shared with the exports the browser makes.
+export { neutraliseFormula };
 
 /** CSV text (RFC 4180 quoting, CRLF line ends) with every cell neutralised. */
 export function toCsv(header: string[], rows: unknown[][]): string {

@@ -15,7 +15,50 @@ import type {
 } from '@/workers/sweep.worker';
 import { useEvaluation } from './evaluation';
 import { useEditorStore } from '@/stores/editor-store';
-import type { StepInput } from './document';
+import { SOLVENTS } from '@shared/engine/data';
+import { keyOf, type StepInput } from './document';
+
+type Doc = ReturnType<typeof useEditorStore.getState>['doc'];
+type Result = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>;
+
+/** Share of the liquor's solvents from which a solvent bounds the reachable temperature. */
+const LIQUOR_SOLVENT_SHARE = 0.05;
+
+/**
+ * The highest temperature the liquor can reach in an open vessel: the lowest
+ * normal boiling point of the solvents making up at least 5 % of the solvents
+ * at the step (its feed, plus the antisolvent). A conservative bound: the
+ * mixture boils between its components' boiling points unless it forms a
+ * minimum-boiling azeotrope, when it boils lower still.
+ */
+export function liquorBoiling(
+  step: StepInput,
+  doc: Pick<Doc, 'components' | 'connections'>,
+  result: Pick<Result, 'streams'> | null,
+): { temperatureC: number; solvent: string } | null {
+  if (step.kind !== 'crystallisation' || !result) return null;
+  const feed = doc.connections.find((c) => c.to.stepId === step.id && c.to.port === 'feed');
+  const stream = feed ? result.streams[feed.id] : undefined;
+  if (!stream) return null;
+  const solventOf = new Map<string, string>();
+  for (const c of doc.components) if (c.kind === 'solvent') solventOf.set(keyOf(c), c.solventId);
+  const kg = new Map<string, number>();
+  for (const [id, m] of Object.entries(stream.kg)) if (solventOf.has(id) && m > 0) kg.set(id, m);
+  const mode = step.params.mode;
+  if (mode.kind === 'antisolvent' && solventOf.has(mode.antisolventId))
+    kg.set(mode.antisolventId, kg.get(mode.antisolventId) ?? 0);
+  const total = [...kg.values()].reduce((a, b) => a + b, 0);
+  let best: { temperatureC: number; solvent: string } | null = null;
+  for (const [id, m] of kg) {
+    const isAntisolvent = mode.kind === 'antisolvent' && id === mode.antisolventId;
+    if (!isAntisolvent && !(m / total >= LIQUOR_SOLVENT_SHARE)) continue;
+    const rec = SOLVENTS.find((x) => x.id === solventOf.get(id));
+    const bp = rec?.boilingPointC.value;
+    if (rec && typeof bp === 'number' && (!best || bp < best.temperatureC))
+      best = { temperatureC: bp, solvent: rec.name };
+  }
+  return best;
+}
 
 let worker: Worker | null = null;
 let nextId = 1;
@@ -47,6 +90,7 @@ const plain = (v: unknown): number | null =>
 /** Which sweep a step has, and over what values (around its current setting, in the usual plant range). */
 export function sweepFor(
   step: StepInput,
+  boilingC: number | null = null,
 ): { sweep: SweepKind; values: number[]; current: number } | null {
   if (step.kind === 'wash' || step.kind === 'extraction') {
     const current = step.params.stages;
@@ -57,8 +101,10 @@ export function sweepFor(
     if (mode.kind === 'evaporative') return null;
     const current = plain(mode.kind === 'cooling' ? mode.endC : mode.temperatureC);
     if (current === null) return null;
-    const hi =
+    let hi =
       mode.kind === 'cooling' ? (plain(mode.startC) ?? current + 40) : Math.max(current + 30, 40);
+    // Only the reachable range: below the liquor's boiling point (the set value itself stays, to be flagged).
+    if (boilingC !== null) hi = Math.max(Math.min(hi, boilingC - 2), current);
     const lo = Math.min(current - 10, -10);
     const values = Array.from(
       { length: 11 },
@@ -74,9 +120,14 @@ export function useSweep(step: StepInput): {
   points: SweepPoint[] | null;
   current: number | null;
   sweep: SweepKind | null;
+  boiling: { temperatureC: number; solvent: string } | null;
 } {
   const revision = useEditorStore((s) => s.modelRevision);
-  const spec = sweepFor(step);
+  const components = useEditorStore((s) => s.doc.components);
+  const connections = useEditorStore((s) => s.doc.connections);
+  const streams = useEvaluation((s) => s.result?.streams ?? null);
+  const boiling = liquorBoiling(step, { components, connections }, streams ? { streams } : null);
+  const spec = sweepFor(step, boiling?.temperatureC ?? null);
   const key = spec ? `${spec.sweep}:${spec.values.join(',')}` : '';
   const [points, setPoints] = useState<SweepPoint[] | null>(null);
   useEffect(() => {
@@ -120,5 +171,6 @@ export function useSweep(step: StepInput): {
     points: spec ? points : null,
     current: spec?.current ?? null,
     sweep: spec?.sweep ?? null,
+    boiling,
   };
 }

@@ -26,3 +26,18 @@ describe('CSV export cells', () => {
     ).toBe('a,b\r\n"x,y","say ""hi"""\r\n\'=cmd,"line\nbreak"\r\n');
   });
 });
+
+describe('csvText (the browser exports)', () => {
+  it('quotes commas, quotes and line breaks, ends lines with CRLF and guards formulas', async () => {
+    const { csvText } = await import('../../../shared/csv');
+    expect(
+      csvText(
+        ['a', 'b'],
+        [
+          ['x,y', 'say "hi"'],
+          ['=SUM(A1)', 'line\nbreak'],
+        ],
+      ),
+    ).toBe('a,b\r\n"x,y","say ""hi"""\r\n\'=SUM(A1),"line\nbreak"\r\n');
+  });
+});

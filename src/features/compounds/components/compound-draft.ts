@@ -30,6 +30,8 @@ export interface CompoundDraft {
   }>;
   partition: Array<{ organicSolventId: string; pH: string; temperatureC: string; D: string }>;
   notes: string;
+  specLimitPct: string;
+  solidIncorporation: string;
 }
 
 export const emptyDraft = (): CompoundDraft => ({
@@ -48,6 +50,8 @@ export const emptyDraft = (): CompoundDraft => ({
   solubility: [],
   partition: [],
   notes: '',
+  specLimitPct: '',
+  solidIncorporation: '',
 });
 
 const str = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
@@ -82,6 +86,8 @@ export function draftFromCompound(c: Compound): CompoundDraft {
       D: String(p.D),
     })),
     notes: c.notes,
+    specLimitPct: str(c.specLimitPct),
+    solidIncorporation: str(c.solidIncorporation),
   };
 }
 
@@ -122,6 +128,8 @@ export function draftToInput(d: CompoundDraft): CompoundCreateInput {
       D: num(p.D) as number,
     })),
     notes: d.notes,
+    specLimitPct: num(d.specLimitPct),
+    solidIncorporation: num(d.solidIncorporation),
   };
 }
 

@@ -193,6 +193,24 @@ export function CompoundForm({
               hint="Empty: estimated from the groups."
             />
           </div>
+          <div className="grid grid-cols-2 gap-3">
+            <TextField
+              label="Specification limit (%)"
+              inputMode="decimal"
+              value={draft.specLimitPct}
+              onValueChange={(v) => set('specLimitPct', v)}
+              error={errors.specLimitPct}
+              hint="In the isolated product, solvent-free (area-%), e.g. 0.15. Empty: no limit."
+            />
+            <TextField
+              label="Incorporation into the crystals (K)"
+              inputMode="decimal"
+              value={draft.solidIncorporation}
+              onValueChange={(v) => set('solidIncorporation', v)}
+              error={errors.solidIncorporation}
+              hint="Ratio to the product in the crystals over that in the liquor; 0 none, 1 no purification. Empty: none."
+            />
+          </div>
           <div className="grid grid-cols-3 gap-3">
             {(['d', 'p', 'h'] as const).map((k) => (
               <TextField
@@ -381,7 +399,11 @@ export function CompoundForm({
           groups={draft.unifacGroups}
           onGroupsChange={(g) => set('unifacGroups', g)}
           readOnly={readOnly}
-          measured={{ logP: draft.logP.trim() !== '', hansen: draft.hansen.d.trim() !== '' }}
+          measured={{
+            logP: draft.logP.trim() !== '',
+            hansen: draft.hansen.d.trim() !== '',
+            pKa: draft.pKa.length > 0,
+          }}
         />
       </fieldset>
       <div className="flex items-center gap-2 border-t border-rule pt-4">

@@ -16,7 +16,7 @@ type Props = {
   onGroupsChange: (groups: UnifacGroupCounts | null) => void;
   readOnly?: boolean;
   /** Whether a measured logP / entered Hansen set replaces the estimate. */
-  measured: { logP: boolean; hansen: boolean };
+  measured: { logP: boolean; hansen: boolean; pKa: boolean };
 };
 
 /** The structure as the server reads it: drawing, formula, groups and estimates, updated as the chemist types. */
@@ -230,7 +230,7 @@ function Estimates({
   measured,
 }: {
   preview: StructurePreview;
-  measured: { logP: boolean; hansen: boolean };
+  measured: { logP: boolean; hansen: boolean; pKa: boolean };
 }) {
   const { logP, hansen, notes } = preview.estimates;
   return (
@@ -280,6 +280,7 @@ function Estimates({
           </dd>
         </div>
       </dl>
+      <IonisableGroups groups={preview.ionisableGroups} measured={measured.pKa} />
       {notes.length > 0 ? (
         <ul className="list-disc pl-4 text-caption text-ink-muted">
           {notes.map((n) => (
@@ -287,6 +288,54 @@ function Estimates({
           ))}
         </ul>
       ) : null}
+    </div>
+  );
+}
+
+/** Acidic and basic groups found in the structure, each with its estimated pKa and the method. */
+export function IonisableGroups({
+  groups,
+  measured,
+}: {
+  groups: StructurePreview['ionisableGroups'];
+  measured: boolean;
+}) {
+  return (
+    <div data-ionisable-groups={groups.length}>
+      <h4 className="text-small text-ink-muted">Ionisable groups</h4>
+      {groups.length === 0 ? (
+        <p className="text-caption text-ink-muted">
+          None found: the compound is treated as neutral.
+        </p>
+      ) : (
+        <ul className="space-y-1 text-body">
+          {groups.map((g, k) => (
+            <li key={k}>
+              {g.group} ({g.type === 'acid' ? 'acid' : 'base; pKa of its conjugate acid'}):{' '}
+              {g.pKa !== null ? (
+                <>
+                  <span className="font-medium tabular-nums">pKa {g.pKa.toFixed(1)}</span> ±
+                  {g.typicalError} <EstimateBadge />
+                </>
+              ) : (
+                <span className="font-medium text-caution-warning-deep">
+                  no estimate — enter a measured pKa
+                </span>
+              )}
+              {measured ? (
+                <span className="text-caption text-ink-muted">
+                  {' '}
+                  — your measured values are used instead
+                </span>
+              ) : null}
+              <p className="text-caption text-ink-muted">
+                {g.method}
+                {g.notes.length ? `; ${g.notes.join('; ')}` : ''}
+              </p>
+            </li>
+          ))}
+        </ul>
+      )}
     </div>
   );
 }

@@ -120,8 +120,9 @@ function DistillationProfile({ stepId }: { stepId: string }) {
 
 /** Crystallisation yield against end temperature, or product recovery against the number of stages. */
 function SweepPlot({ step }: { step: StepInput }) {
-  const { points, current, sweep } = useSweep(step);
+  const { points, current, sweep, boiling } = useSweep(step);
   const stages = sweep === 'stages';
+  const beyond = !stages && boiling !== null && current !== null && current > boiling.temperatureC;
   const option = useMemo(() => {
     if (!points) return null;
     const data = points.filter((p) => p.y !== null).map((p) => [p.x, p.y]);
@@ -182,8 +183,18 @@ function SweepPlot({ step }: { step: StepInput }) {
   return (
     <PlotFrame
       title={title}
-      note="Each point is the whole route evaluated again with only this setting changed."
+      note={`Each point is the whole route evaluated again with only this setting changed.${
+        !stages && boiling
+          ? ` Limited to below the liquor's boiling point: ${boiling.solvent} boils at ${boiling.temperatureC.toFixed(0)} °C at 1 atm (the lowest-boiling solvent of the liquor).`
+          : ''
+      }`}
     >
+      {beyond ? (
+        <p className="text-caption font-medium text-caution-warning-deep" data-beyond-boiling>
+          The set temperature is above the liquor&apos;s boiling point ({boiling!.solvent},{' '}
+          {boiling!.temperatureC.toFixed(0)} °C at 1 atm): not reachable in an open vessel.
+        </p>
+      ) : null}
       {option ? (
         <Chart
           option={option}

@@ -7,6 +7,7 @@ import { keyOf } from '../document';
 import { componentLabel } from './fields';
 import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
 import { Button } from '@/components/button';
+import { formatLevel, formatPurity, LimitMark } from './purge-view';
 
 const NO_ISSUES: never[] = [];
 const n = (v: number | null | undefined, d = 1) =>
@@ -52,6 +53,11 @@ const sameTotals = (a: Totals, b: Totals) =>
 /** Yield, purity, PMI and solvent use of the whole route, each with its change since the previous result. */
 export function TotalsCard() {
   const totals = useEvaluation((s) => s.result?.totals);
+  const components = useEditorStore((s) => s.doc.components);
+  const impurityName = (id: string) => {
+    const c = components.find((x) => keyOf(x) === id);
+    return c?.kind === 'compound' ? c.name : id;
+  };
   const status = useEvaluation((s) => s.status);
   const ms = useEvaluation((s) => s.ms);
   const last = useRef<Totals | null>(null);
@@ -74,7 +80,19 @@ export function TotalsCard() {
       key: 'yield',
     },
     {
-      label: 'Purity',
+      label: 'Purity, solvent-free',
+      title:
+        'Product over product plus organic impurities in the isolated solid: the basis of an HPLC area-% result',
+      value: totals ? formatPurity(totals.solventFreePurityPct) : '—',
+      shownUnit: '%',
+      raw: totals?.solventFreePurityPct,
+      prev: before?.solventFreePurityPct,
+      unit: ' %',
+      key: 'solvent-free-purity',
+    },
+    {
+      label: 'Assay',
+      title: 'Product in the isolated solid including residual solvents and water',
       value: totals ? n(totals.purityWtPct, 2) : '—',
       shownUnit: 'wt %',
       raw: totals?.purityWtPct,
@@ -90,15 +108,6 @@ export function TotalsCard() {
       prev: before?.pmi,
       unit: '',
       key: 'pmi',
-    },
-    {
-      label: 'Solvent',
-      value: totals ? n(totals.solventUseLPerKg, 0) : '—',
-      shownUnit: 'L/kg',
-      raw: totals?.solventUseLPerKg,
-      prev: before?.solventUseLPerKg,
-      unit: ' L/kg',
-      key: 'solvent',
     },
   ];
   return (
@@ -121,7 +130,9 @@ export function TotalsCard() {
       <dl className="mt-1 grid grid-cols-4 gap-2">
         {items.map((i) => (
           <div key={i.key}>
-            <dt className="text-caption text-ink-muted">{i.label}</dt>
+            <dt className="text-caption text-ink-muted" title={'title' in i ? i.title : undefined}>
+              {i.label}
+            </dt>
             <dd
               className="text-title font-medium tabular-nums whitespace-nowrap"
               data-total={i.key}
@@ -140,10 +151,29 @@ export function TotalsCard() {
           </div>
         ))}
       </dl>
+      {totals?.impurities.length ? (
+        <ul
+          aria-label="Impurities against their limits"
+          className="mt-1 flex flex-wrap gap-x-3 gap-y-0.5"
+        >
+          {totals.impurities.map((i) => (
+            <li
+              key={i.componentId}
+              className="flex items-center gap-1 text-caption"
+              data-total-impurity={i.componentId}
+            >
+              <span className="text-ink-muted">{impurityName(i.componentId)}</span>
+              <span className="tabular-nums">{formatLevel(i.levelPct)} %</span>
+              <LimitMark impurity={i} />
+            </li>
+          ))}
+        </ul>
+      ) : null}
       {totals ? (
         <p className="mt-1 text-caption text-ink-muted">
-          E-factor {n(totals.eFactor, 0)} ({n(totals.eFactorExcludingWater, 0)} without water) ·
-          cycle time ≈ {n(totals.cycleTimeH)} h (common-practice step durations)
+          Solvent {n(totals.solventUseLPerKg, 0)} L/kg · E-factor {n(totals.eFactor, 0)} (
+          {n(totals.eFactorExcludingWater, 0)} without water) · cycle time ≈ {n(totals.cycleTimeH)}{' '}
+          h (common-practice step durations)
         </p>
       ) : null}
     </section>

@@ -20,7 +20,8 @@ import { Canvas } from './canvas';
 import { Palette } from './palette';
 import { StepPanel } from './step-panel';
 import { CautionList, StreamTable, TotalsCard, cautionJump } from './results';
-import { ProductFlow, PurgePlot, StepPlot } from './plots';
+import { ProductFlow, StepPlot } from './plots';
+import { PurgePanel } from './purge-view';
 import { UncertaintyPanel } from './uncertainty';
 import { SEVERITY_LABEL, SEVERITY_ORDER, SeverityChip, SeverityMark } from './phase';
 
@@ -471,7 +472,7 @@ function EditorFrame({
             ) : tab === 'product' ? (
               <ProductFlow />
             ) : tab === 'purge' ? (
-              <PurgePlot />
+              <PurgePanel />
             ) : (
               <UncertaintyPanel />
             )}

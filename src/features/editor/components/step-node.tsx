@@ -8,6 +8,7 @@ import { useEvaluation } from '../evaluation';
 import { useStepMarks } from '../marks';
 import { PhaseMark, PHASES, SEVERITY_ORDER, SeverityChip, type Severity } from './phase';
 import { KindGlyph } from './kind-glyph';
+import { formatPurity } from './purge-view';
 
 /** Node data: the step itself (serialisable parameters only, nothing derived). */
 export type StepNodeData = { step: StepInput };
@@ -39,6 +40,19 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
     s.status === 'invalid' ? s.issues.filter((i) => i.stepId === id).length : 0,
   );
   const mark = useStepMarks((s) => s.marks[id]);
+  // The step whose output is the isolated solid shows the purity and the impurities against their limits.
+  const isolation = useEvaluation(
+    useShallow((s) => {
+      const r = s.result;
+      if (!r || !r.terminals.some((t) => t.isolated && t.stepId === id)) return null;
+      const withLimit = r.totals.impurities.filter((i) => i.pass !== null);
+      return {
+        purity: r.totals.solventFreePurityPct,
+        failed: withLimit.filter((i) => i.pass === false).length,
+        judged: withLimit.length,
+      };
+    }),
+  );
   const rows = Math.max(ports.inputs.length, ports.outputs.length);
   const changeRing =
     mark?.change === 'added'
@@ -143,6 +157,25 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
               </div>
             ))}
         </dl>
+      ) : null}
+      {isolation ? (
+        <p
+          className="border-t border-rule px-2.5 py-1.5 text-caption"
+          data-isolation-purity={isolation.purity ?? ''}
+        >
+          Purity {formatPurity(isolation.purity)} % solvent-free
+          {isolation.judged ? (
+            isolation.failed ? (
+              <span className="ml-1 font-medium text-caution-hazard-deep">
+                · <span aria-hidden="true">✗</span> {isolation.failed} above limit
+              </span>
+            ) : (
+              <span className="ml-1 text-phase-aqueous-deep">
+                · <span aria-hidden="true">✓</span> {isolation.judged} within limits
+              </span>
+            )
+          ) : null}
+        </p>
       ) : null}
       {errors || SEVERITY_ORDER.some((s) => counts[s]) ? (
         <footer className="flex flex-wrap gap-1 border-t border-rule px-2 py-1.5">

@@ -2,7 +2,8 @@ import type { RevisionCompare } from '@shared/schemas/revisions';
 
 const TOTAL_LABELS: Record<string, string> = {
   yieldPct: 'Yield, %',
-  purityWtPct: 'Purity, wt%',
+  purityWtPct: 'Assay, wt%',
+  solventFreePurityPct: 'Purity, solvent-free %',
   pmi: 'PMI',
   eFactor: 'E-factor',
   eFactorExcludingWater: 'E-factor without water',
