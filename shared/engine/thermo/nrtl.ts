@@ -83,48 +83,66 @@ export function addPairLnGammas(
   pairs: readonly RegressedPair[],
   out: Float64Array,
 ): void {
-  const n = x.length;
+  compilePairTerms(x.length, pairs)(x, T_K, out);
+}
+
+/** ln γ of the pair terms added into `out`, for a fixed component count and pair list. */
+type PairTerms = (x: ArrayLike<number>, T_K: number, out: Float64Array) => void;
+
+/**
+ * The pair terms of addPairLnGammas prepared once for a fixed component count
+ * and pair list: the NRTL τ and G matrices are kept for the last temperature
+ * and the work arrays are allocated once, so a call allocates nothing (the
+ * activity model is called millions of times in a route's distillations).
+ */
+function compilePairTerms(n: number, pairs: readonly RegressedPair[]): PairTerms {
+  const margules = pairs.filter((p) => p.kind === 'margules');
   const nrtl = pairs.filter((p) => p.kind === 'nrtl');
-  for (const p of pairs) {
-    if (p.kind !== 'margules') continue;
-    const A = p.p1 / T_K;
-    const B = p.p2 / T_K;
-    const xw = x[p.water];
-    const xs = x[p.solvent];
-    const g = xw * xs * (A * xw + B * xs);
-    for (let k = 0; k < n; k++) out[k] -= 2 * g;
-    out[p.water] += xs * (2 * A * xw + B * xs);
-    out[p.solvent] += xw * (A * xw + 2 * B * xs);
-  }
-  if (nrtl.length === 0) return;
   const tau = new Float64Array(n * n);
   const G = new Float64Array(n * n).fill(1);
-  for (const p of nrtl) {
-    const tWS = p.p1 / T_K;
-    const tSW = p.p2 / T_K;
-    tau[p.water * n + p.solvent] = tWS;
-    tau[p.solvent * n + p.water] = tSW;
-    G[p.water * n + p.solvent] = Math.exp(-p.alpha * tWS);
-    G[p.solvent * n + p.water] = Math.exp(-p.alpha * tSW);
-  }
   const S = new Float64Array(n);
   const C = new Float64Array(n);
-  for (let j = 0; j < n; j++) {
-    let s = 0;
-    let c = 0;
-    for (let k = 0; k < n; k++) {
-      s += x[k] * G[k * n + j];
-      c += x[k] * tau[k * n + j] * G[k * n + j];
+  let lastT = NaN;
+  return (x, T_K, out) => {
+    for (const p of margules) {
+      const A = p.p1 / T_K;
+      const B = p.p2 / T_K;
+      const xw = x[p.water];
+      const xs = x[p.solvent];
+      const g = xw * xs * (A * xw + B * xs);
+      for (let k = 0; k < n; k++) out[k] -= 2 * g;
+      out[p.water] += xs * (2 * A * xw + B * xs);
+      out[p.solvent] += xw * (A * xw + 2 * B * xs);
     }
-    S[j] = s;
-    C[j] = c;
-  }
-  for (let i = 0; i < n; i++) {
-    let v = C[i] / S[i];
-    for (let j = 0; j < n; j++)
-      v += ((x[j] * G[i * n + j]) / S[j]) * (tau[i * n + j] - C[j] / S[j]);
-    out[i] += v;
-  }
+    if (nrtl.length === 0) return;
+    if (T_K !== lastT) {
+      for (const p of nrtl) {
+        const tWS = p.p1 / T_K;
+        const tSW = p.p2 / T_K;
+        tau[p.water * n + p.solvent] = tWS;
+        tau[p.solvent * n + p.water] = tSW;
+        G[p.water * n + p.solvent] = Math.exp(-p.alpha * tWS);
+        G[p.solvent * n + p.water] = Math.exp(-p.alpha * tSW);
+      }
+      lastT = T_K;
+    }
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      let c = 0;
+      for (let k = 0; k < n; k++) {
+        const g = G[k * n + j];
+        s += x[k] * g;
+        c += x[k] * tau[k * n + j] * g;
+      }
+      S[j] = s;
+      C[j] = c / s;
+    }
+    for (let i = 0; i < n; i++) {
+      let v = C[i];
+      for (let j = 0; j < n; j++) v += ((x[j] * G[i * n + j]) / S[j]) * (tau[i * n + j] - C[j]);
+      out[i] += v;
+    }
+  };
 }
 
 /**
@@ -142,11 +160,12 @@ export function withRegressedPairs(
   pairs: readonly RegressedPair[],
 ): UnifacModel {
   if (pairs.length === 0) return unifac;
+  const terms = compilePairTerms(unifac.n, pairs);
   return {
     n: unifac.n,
     lnGammas(x, T_K, out) {
       const r = unifac.lnGammas(x, T_K, out);
-      addPairLnGammas(x, T_K, pairs, r);
+      terms(x, T_K, r);
       return r;
     },
     gammas(x, T_K, out) {

@@ -634,7 +634,9 @@ export type LiquidLiquidResult =
  *
  * Method: (1) stability: tangent-plane test (Michelsen 1982) by successive
  * substitution from near-pure trial phases of each component,
- *   ln W_i = ln z_i + ln γ_i(z) − ln γ_i(w),  w = W/ΣW;  unstable if ΣW > 1.
+ *   ln W_i = ln z_i + ln γ_i(z) − ln γ_i(w),  w = W/ΣW;  unstable if ΣW > 1
+ * (a trial stops when it converges to 1e-12, falls onto the feed itself to
+ * 1e-7, or shows ΣW > 1 + 1e-4 with steps below 1e-6: the flash starts there).
  * (2) flash: K_i = γ_i^I/γ_i^II (equal activities), Rachford–Rice for the
  * phase fraction, iterate to max |Δ ln K| < 1e-10.
  *
@@ -686,12 +688,17 @@ export function liquidLiquidSplit(
         sumW += W[i];
       }
       let change = 0;
+      let distance = 0;
       for (let i = 0; i < n; i++) {
         const next = W[i] / sumW;
         change = Math.max(change, Math.abs(next - w[i]));
+        distance = Math.max(distance, Math.abs(next - zs[i]));
         w[i] = next;
       }
-      if (change < 1e-12) break;
+      // Stop when converged, when the trial has fallen onto the feed itself (the trivial solution:
+      // no split from this start), or when it is clearly unstable and close enough to start the
+      // flash from (the flash converges to the same phases from there).
+      if (change < 1e-12 || distance < 1e-7 || (sumW > 1 + 1e-4 && change < 1e-6)) break;
     }
     let distance = 0;
     for (let i = 0; i < n; i++) distance = Math.max(distance, Math.abs(w[i] - zs[i]));
@@ -703,14 +710,50 @@ export function liquidLiquidSplit(
   if (!bestTrial) return { split: false, warnings };
 
   // Flash from (z, trial).
-  const xI = Float64Array.from(zs);
-  const xII = bestTrial;
+  const r = flashFrom(model, zs, T_K, Float64Array.from(zs), bestTrial);
+  if (!r) return { split: false, warnings };
+  if (!r.converged)
+    warnings.push('Liquid–liquid flash did not fully converge; phase compositions approximate.');
+  return orderedSplit(r, warnings);
+}
+
+/** A converged (or best) two-liquid flash: phase I, phase II, fraction of moles in II. */
+interface Flash {
+  xI: Float64Array;
+  xII: Float64Array;
+  beta: number;
+  converged: boolean;
+}
+
+function orderedSplit(r: Flash, warnings: string[]): LiquidLiquidResult {
+  const phaseI = Array.from(r.xI);
+  const phaseII = Array.from(r.xII);
+  if (phaseI[0] >= phaseII[0])
+    return { split: true, phases: [phaseI, phaseII], phaseFraction: r.beta, warnings };
+  return { split: true, phases: [phaseII, phaseI], phaseFraction: 1 - r.beta, warnings };
+}
+
+/**
+ * Two-liquid flash of z at T from starting phases xI, xII (modified in place):
+ * successive substitution on K_i = γ_i^I/γ_i^II with Rachford–Rice, to
+ * max |Δ ln K| < 1e-10. Null when the feed does not split (β leaves (0, 1)
+ * or the phases become equal to 1e-6).
+ */
+function flashFrom(
+  model: UnifacModel,
+  zs: Float64Array,
+  T_K: number,
+  xI: Float64Array,
+  xII: Float64Array,
+  maxIterations = 2000,
+): Flash | null {
+  const n = zs.length;
   const lnGI = new Float64Array(n);
   const lnGII = new Float64Array(n);
   const K = new Float64Array(n);
   let beta = 0.5;
   let converged = false;
-  for (let iter = 0; iter < 2000; iter++) {
+  for (let iter = 0; iter < maxIterations; iter++) {
     model.lnGammas(xI, T_K, lnGI);
     model.lnGammas(xII, T_K, lnGII);
     let change = 0;
@@ -724,7 +767,7 @@ export function liquidLiquidSplit(
       break;
     }
     beta = solveRachfordRice(zs, K);
-    if (beta <= 0 || beta >= 1) return { split: false, warnings };
+    if (beta <= 0 || beta >= 1) return null;
     let sI = 0;
     let sII = 0;
     for (let i = 0; i < n; i++) {
@@ -740,14 +783,23 @@ export function liquidLiquidSplit(
   }
   let distance = 0;
   for (let i = 0; i < n; i++) distance = Math.max(distance, Math.abs(xI[i] - xII[i]));
-  if (distance < 1e-6) return { split: false, warnings };
-  if (!converged)
-    warnings.push('Liquid–liquid flash did not fully converge; phase compositions approximate.');
-  const phaseI = Array.from(xI);
-  const phaseII = Array.from(xII);
-  if (phaseI[0] >= phaseII[0])
-    return { split: true, phases: [phaseI, phaseII], phaseFraction: beta, warnings };
-  return { split: true, phases: [phaseII, phaseI], phaseFraction: 1 - beta, warnings };
+  if (distance < 1e-6) return null;
+  return { xI, xII, beta, converged };
+}
+
+/** Result of a boiling point of a liquid that may split into two liquids. */
+export interface HeterogeneousBubblePoint {
+  /** Boiling temperature [K]. */
+  T_K: number;
+  /** Vapour mole fractions [–]. */
+  y: number[];
+  /** Liquid phases present at the boiling point: 1 or 2. */
+  liquidPhases: number;
+  /** With two liquids: their compositions [–], phases[0] the richer in the first component. */
+  phases?: [number[], number[]];
+  /** With two liquids: fraction of all liquid moles in phases[1] [–]. */
+  phaseFraction?: number;
+  warnings: string[];
 }
 
 /**
@@ -772,7 +824,11 @@ export function liquidLiquidSplit(
  * @param sys   system from createVleSystem
  * @param z     overall liquid mole fractions [–], summing to 1
  * @param P_Pa  pressure [Pa]
- * @returns T_K [K], y [–] vapour, liquidPhases 1 or 2, warnings
+ * @param opts  previous: the result at a neighbouring composition (the last step of a distillation),
+ *              to start from: while both liquids remain, the flash and T start from its phases and
+ *              temperature [K], and the stability test is not repeated (same answer to the tolerances)
+ * @returns T_K [K], y [–] vapour, liquidPhases 1 or 2, the two liquids [–] and the fraction [–]
+ *          of moles in phases[1] when split, warnings
  *
  * Validity: as bubblePoint and liquidLiquidSplit; heteroazeotropes of the
  * regressed water pairs within 1.5 K of the handbook (docs/methods.md).
@@ -783,11 +839,17 @@ export function heterogeneousBubblePoint(
   sys: VleSystem,
   z: readonly number[],
   P_Pa: number,
-): { T_K: number; y: number[]; liquidPhases: number; warnings: string[] } {
+  opts?: { previous?: HeterogeneousBubblePoint },
+): HeterogeneousBubblePoint {
   const n = sys.components.length;
   const zs = Array.from(normalised(z, n));
   checkPressure(P_Pa);
-  const homogeneous = bubblePoint(sys, zs, P_Pa);
+  const previous = opts?.previous;
+  if (previous?.liquidPhases === 2 && previous.phases) {
+    const warm = threePhaseFrom(sys, zs, P_Pa, previous);
+    if (warm) return warm;
+  }
+  const homogeneous = bubblePoint(sys, zs, P_Pa, { T0_K: previous?.T_K });
   const atHomogeneous = liquidLiquidSplit(sys, zs, homogeneous.T_K);
   if (!atHomogeneous.split) {
     return {
@@ -797,17 +859,28 @@ export function heterogeneousBubblePoint(
       warnings: homogeneous.warnings,
     };
   }
-  const evaluate = (T: number): { f: number; y: number[]; phases: number } => {
+  // The three-phase point from the split found at the homogeneous bubble point (Newton with warm
+  // flashes); the bracketing search below when that fails.
+  const fromSplit = threePhaseFrom(sys, zs, P_Pa, {
+    T_K: homogeneous.T_K,
+    y: homogeneous.y,
+    liquidPhases: 2,
+    phases: atHomogeneous.phases,
+    warnings: [],
+  });
+  if (fromSplit) return fromSplit;
+  type Evaluated = { f: number; y: number[]; phases: number; split: LiquidLiquidResult };
+  const evaluate = (T: number): Evaluated => {
     const s = liquidLiquidSplit(sys, zs, T);
     const liquid = s.split ? s.phases[0] : zs;
     const b = bubblePressure(sys, liquid, T);
-    return { f: Math.log(b.P_Pa / P_Pa), y: b.y, phases: s.split ? 2 : 1 };
+    return { f: Math.log(b.P_Pa / P_Pa), y: b.y, phases: s.split ? 2 : 1, split: s };
   };
   // Root of ln P_calc − ln P in u = 1000/T (nearly linear there, Clausius–Clapeyron): the bracket is
   // grown from 2 K below the homogeneous bubble point (the three-phase point lies below it), then
   // Brent's method (numerics/roots.ts) to 1e-9 K.
   const T0 = homogeneous.T_K;
-  let last: { u: number; value: { f: number; y: number[]; phases: number } } | null = null;
+  let last: { u: number; value: Evaluated } | null = null;
   const fOfU = (u: number): number => {
     const value = evaluate(1000 / u);
     last = { u, value };
@@ -828,10 +901,94 @@ export function heterogeneousBubblePoint(
     );
   }
   const T = 1000 / solution.root;
-  const kept = last as { u: number; value: { f: number; y: number[]; phases: number } } | null;
+  const kept = last as { u: number; value: Evaluated } | null;
   const current = kept && kept.u === solution.root ? kept.value : evaluate(T);
   const warnings = saturationWarnings(sys, T, zs);
-  if (current.phases === 2)
-    warnings.push('Two liquid phases boil together (heterogeneous boiling).');
-  return { T_K: T, y: current.y, liquidPhases: current.phases, warnings };
+  if (current.split.split) {
+    warnings.push(THREE_PHASE_NOTE);
+    return {
+      T_K: T,
+      y: current.y,
+      liquidPhases: 2,
+      phases: current.split.phases,
+      phaseFraction: current.split.phaseFraction,
+      warnings,
+    };
+  }
+  return { T_K: T, y: current.y, liquidPhases: 1, warnings };
+}
+
+const THREE_PHASE_NOTE = 'Two liquid phases boil together (heterogeneous boiling).';
+
+/**
+ * The three-phase boiling point started from a neighbouring solution (the
+ * previous step of a distillation): the two-liquid flash at each trial T
+ * starts from the previous phases (flashFrom, a few substitutions instead of
+ * a stability test and a cold flash), and T is found by the safeguarded
+ * Newton iteration of bubblePoint on ln Σ x_i^I γ_i^I P_i^sat − ln P, from
+ * the previous T, to |f| < 1e-12. Null when the liquid no longer splits or
+ * the iteration does not converge: the caller then solves from cold.
+ */
+function threePhaseFrom(
+  sys: VleSystem,
+  zs: number[],
+  P_Pa: number,
+  previous: HeterogeneousBubblePoint,
+): HeterogeneousBubblePoint | null {
+  const n = sys.components.length;
+  const z = Float64Array.from(zs);
+  const xI = Float64Array.from(previous.phases![0]);
+  const xII = Float64Array.from(previous.phases![1]);
+  const lnP = new Float64Array(n);
+  const slope = new Float64Array(n);
+  const lnG = new Float64Array(n);
+  const lnTarget = Math.log(P_Pa);
+  let flash: Flash | null = null;
+  let failed = false;
+  const solution = newtonSafe(
+    (T) => {
+      flash = failed ? null : flashFrom(sys.unifac, z, T, xI, xII, 300);
+      if (!flash || !flash.converged) {
+        failed = true;
+        return { f: NaN, df: 1 };
+      }
+      saturationPressures(sys, T, lnP, slope);
+      sys.unifac.lnGammas(xI, T, lnG);
+      let sum = 0;
+      let dsum = 0;
+      for (let i = 0; i < n; i++) {
+        if (xI[i] === 0 || lnP[i] === -Infinity) continue;
+        const p = xI[i] * Math.exp(lnG[i] + lnP[i]);
+        sum += p;
+        dsum += p * slope[i];
+      }
+      return { f: Math.log(sum) - lnTarget, df: dsum / sum };
+    },
+    previous.T_K,
+    { lower: 1, maxStep: 10, ftol: 1e-12, xtol: 1e-9, rtol: 0, maxIterations: 40 },
+  );
+  if (failed || !solution.converged || !flash) return null;
+  const T = solution.root;
+  const done = flash as Flash;
+  // The vapour from phase I at the root (both liquids give the same partial pressures).
+  saturationPressures(sys, T, lnP, slope);
+  sys.unifac.lnGammas(done.xI, T, lnG);
+  const y = new Array<number>(n);
+  let sumY = 0;
+  for (let i = 0; i < n; i++) {
+    y[i] = lnP[i] === -Infinity ? 0 : done.xI[i] * Math.exp(lnG[i] + lnP[i]);
+    sumY += y[i];
+  }
+  for (let i = 0; i < n; i++) y[i] /= sumY;
+  const split = orderedSplit(done, []) as Extract<LiquidLiquidResult, { split: true }>;
+  const warnings = saturationWarnings(sys, T, zs);
+  warnings.push(THREE_PHASE_NOTE);
+  return {
+    T_K: T,
+    y,
+    liquidPhases: 2,
+    phases: split.phases,
+    phaseFraction: split.phaseFraction,
+    warnings,
+  };
 }

@@ -30,6 +30,7 @@ import {
   bubblePressure,
   heterogeneousBubblePoint,
   liquidLiquidSplit,
+  type HeterogeneousBubblePoint,
 } from '../thermo/vle';
 import type { EvalContext } from '../route/context';
 import {
@@ -160,11 +161,16 @@ export function distilLeg(
   const mayDemix =
     vol.length > 1 && liquidLiquidSplit(sys, norm(moles), Math.min(st.lastT_K, 373.15)).split;
   const vleWarnings = new Set<string>();
+  // The last boiling point of the two-liquid pot, to start the next one from (the integrator's
+  // evaluations are close together): its flash and temperature are the starting guesses only, so
+  // the answer is the same to the solver's tolerances.
+  let previous: HeterogeneousBubblePoint | undefined;
   const potVle: PotVle = (m) => {
     const xs = norm(m);
     if (cond.kind === 'pressure') {
       if (mayDemix) {
-        const r = heterogeneousBubblePoint(sys, xs, cond.P_Pa);
+        const r = heterogeneousBubblePoint(sys, xs, cond.P_Pa, { previous });
+        previous = r;
         r.warnings.forEach((w) => vleWarnings.add(w));
         return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
       }
@@ -177,13 +183,13 @@ export function distilLeg(
       // Pressure at which the heterogeneous bubble point equals the set pot temperature: Brent's
       // method on ln P (numerics/roots.ts), bracket grown from the homogeneous bubble pressure.
       const P1 = bubblePressure(sys, xs, cond.T_K).P_Pa;
-      const r1 = heterogeneousBubblePoint(sys, xs, P1);
+      const r1 = heterogeneousBubblePoint(sys, xs, P1, { previous });
       if (r1.liquidPhases === 2) {
         let kept = r1;
         let keptLnP = Math.log(P1);
         const root = findRoot(
           (lnP) => {
-            kept = heterogeneousBubblePoint(sys, xs, Math.exp(lnP));
+            kept = heterogeneousBubblePoint(sys, xs, Math.exp(lnP), { previous: kept });
             keptLnP = lnP;
             return kept.T_K - cond.T_K;
           },
@@ -196,7 +202,8 @@ export function distilLeg(
             'The pressure that holds the pot at the set temperature did not converge; pot pressure approximate.',
           );
         const P = Math.exp(root.root);
-        if (keptLnP !== root.root) kept = heterogeneousBubblePoint(sys, xs, P);
+        if (keptLnP !== root.root) kept = heterogeneousBubblePoint(sys, xs, P, { previous: kept });
+        previous = kept;
         return { T_K: cond.T_K, P_Pa: P, y: kept.y };
       }
     }
