@@ -262,6 +262,8 @@ export const distillationParamsSchema = z
         .strict(),
     ]),
     condition: distillationCondition,
+    /** Dean–Stark trap: the condensate separates, the aqueous layer is taken off, the organic layer returns. */
+    decanter: z.boolean().optional(),
   })
   .strict();
 

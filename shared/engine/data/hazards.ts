@@ -220,7 +220,17 @@ export const SOLVENT_HAZARDS: Readonly<Record<string, Hazards>> = Object.freeze(
   pyridine: h(iec(18, 'NFPA 497: 20 °C'), NOT_IN_KELLY, family(false, 'pyridine base: conductive')),
 });
 
-/** Whether a source leaves the field without a confirmed value. */
+/**
+ * Whether a source leaves the field without a confirmed value.
+ *
+ * Source: the library's own source statuses (data/types.ts); a bookkeeping
+ * function, no formula.
+ *
+ * @param source  the value's source
+ * @returns true when the status is 'not-confirmed'
+ *
+ * Validity: any source record.
+ */
 export function isNotConfirmed(source: Source): boolean {
   return source.status === 'not-confirmed';
 }

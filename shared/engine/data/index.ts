@@ -111,30 +111,86 @@ function normaliseName(name: string): string {
     .replace(/[\s_]+/g, ' ');
 }
 
-/** Normalise a SMILES string for the string match: trims and drops whitespace. */
+/**
+ * Normalise a SMILES string for the string match: trims and drops whitespace.
+ *
+ * Source: none needed (string handling; no chemistry: canonicalisation is done in shared/chemistry).
+ *
+ * @param smiles  SMILES as typed
+ * @returns the SMILES without whitespace
+ *
+ * Validity: any string.
+ */
 export function normaliseSmiles(smiles: string): string {
   return smiles.replace(/\s+/g, '');
 }
 
+/**
+ * The library solvent with this id.
+ *
+ * Source: the solvent library (data/solvents, each value with its own source).
+ *
+ * @param id  library id (e.g. 'ethyl-acetate')
+ * @returns the record, or undefined when no solvent has that id
+ *
+ * Validity: ids of the library.
+ */
 export function solventById(id: string): SolventRecord | undefined {
   return byId.get(id);
 }
 
-/** The library solvent written as `smiles` (canonical form or a listed alias), if any. */
+/**
+ * The library solvent written as `smiles` (canonical form or a listed alias), if any.
+ *
+ * Source: the solvent library (data/solvents).
+ *
+ * @param smiles  SMILES (whitespace ignored; matched as a string, not as a structure)
+ * @returns the record, or undefined
+ *
+ * Validity: the canonical SMILES of the library and their listed aliases.
+ */
 export function solventBySmiles(smiles: string): SolventRecord | undefined {
   return bySmiles.get(normaliseSmiles(smiles));
 }
 
-/** Case-insensitive match on id, name or synonym (e.g. 'THF', 'ethyl acetate'). */
+/**
+ * Case-insensitive match on id, name or synonym (e.g. 'THF', 'ethyl acetate').
+ *
+ * Source: the solvent library (data/solvents).
+ *
+ * @param name  id, name or synonym (case and repeated spaces ignored)
+ * @returns the record, or undefined
+ *
+ * Validity: names and synonyms listed in the library.
+ */
 export function solventByName(name: string): SolventRecord | undefined {
   return byName.get(normaliseName(name));
 }
 
+/**
+ * The aqueous medium solute (salt, acid, base) with this id.
+ *
+ * Source: the aqueous media table (data/aqueous.ts, each value with its own source).
+ *
+ * @param id  library id (e.g. 'sodium-chloride')
+ * @returns the record, or undefined
+ *
+ * Validity: ids of the aqueous media table.
+ */
 export function aqueousSoluteById(id: string): AqueousSoluteRecord | undefined {
   return aqueousById.get(id);
 }
 
-/** The bibliography entry a value's source points to. */
+/**
+ * The bibliography entry a value's source points to.
+ *
+ * Source: the bibliography (data/sources.ts).
+ *
+ * @param source  the value's source
+ * @returns the entry (citation, address), or undefined when the reference is not in the bibliography
+ *
+ * Validity: any source record.
+ */
 export function citationFor(source: Source): SourceEntry | undefined {
   return isSourceId(source.ref) ? SOURCES[source.ref] : undefined;
 }

@@ -41,6 +41,13 @@ function collect(recordId: string, value: unknown, path: string, out: SourcedVal
 /**
  * Every sourced value of the solvent library (`which` = 'solvents') or of the
  * aqueous media ('aqueous'), with its record, field path and source.
+ *
+ * Source: the library itself (for docs/data-sources.md and the provenance tests).
+ *
+ * @param which  'solvents' or 'aqueous'
+ * @returns one entry per sourced value: record id, field path, source
+ *
+ * Validity: the whole library.
  */
 export function sourcedValues(which: 'solvents' | 'aqueous'): SourcedValueRef[] {
   const out: SourcedValueRef[] = [];
@@ -48,7 +55,16 @@ export function sourcedValues(which: 'solvents' | 'aqueous'): SourcedValueRef[] 
   return out;
 }
 
-/** Number of sourced values by status [count]. */
+/**
+ * Number of sourced values by status [count].
+ *
+ * Source: the library itself (docs/data-sources.md reports these counts).
+ *
+ * @param values  sourced values (sourcedValues)
+ * @returns count per status [–]
+ *
+ * Validity: any list of sourced values.
+ */
 export function countByStatus(
   values: readonly SourcedValueRef[],
 ): Record<Source['status'], number> {

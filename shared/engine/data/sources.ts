@@ -262,6 +262,16 @@ export const SOURCES = {
 
 export type SourceId = keyof typeof SOURCES;
 
+/**
+ * Whether a reference names an entry of the bibliography.
+ *
+ * Source: the bibliography (this file).
+ *
+ * @param ref  reference key
+ * @returns true for a key of SOURCES
+ *
+ * Validity: any string.
+ */
 export function isSourceId(ref: string): ref is SourceId {
   return Object.prototype.hasOwnProperty.call(SOURCES, ref);
 }

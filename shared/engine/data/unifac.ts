@@ -1507,6 +1507,14 @@ for (const [m, n, a] of INTERACTION_ROWS) interactionByPair.set(m * 1000 + n, a)
  * Interaction parameter a_mn [K] between main groups m and n, used as
  * Ψ_mn = exp(−a_mn / T). Returns 0 for m = n and `undefined` where the table
  * has no parameter ("n/a").
+ *
+ * Source: original UNIFAC, Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352 (the table of this file).
+ *
+ * @param m  main group number [–]
+ * @param n  main group number [–]
+ * @returns a_mn [K], 0 for m = n, undefined where the table has none
+ *
+ * Validity: main groups of the original UNIFAC table (VLE parameters; about 300–425 K).
  */
 export function mainGroupInteraction(m: number, n: number): number | undefined {
   if (m === n) return 0;

@@ -114,6 +114,9 @@ export interface LegFeed {
   add: (m3: number) => void;
 }
 
+/** Temperature at which the condensate settles in a decanter (Dean–Stark trap) [K]. */
+export const DECANTER_K = VOLUME_REFERENCE_K;
+
 export function distilLeg(
   ctx: EvalContext,
   st: DistilState,
@@ -123,6 +126,7 @@ export function distilLeg(
   warnings: EngineWarning[],
   methods: MethodUsed[],
   feed?: LegFeed,
+  decanter = false,
 ) {
   const vol = ctx.ids.filter(
     (id) => ctx.comps.get(id)!.kind === 'solvent' && (st.pot[id] > 0 || id === feed?.solventId),
@@ -211,6 +215,43 @@ export function distilLeg(
     r.warnings.forEach((w) => vleWarnings.add(w));
     return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
   };
+  // Decanter (Dean–Stark trap): the condensate settles at DECANTER_K; the water-rich layer is taken
+  // off and the organic layer runs back to the pot, so what leaves the pot is the water-rich layer of
+  // the condensate (liquidLiquidSplit with the liquid model regressed to the mutual solubilities).
+  // Once the condensate no longer separates (the water is off), it is taken off whole.
+  const w = ctx.waterId ? vol.indexOf(ctx.waterId) : -1;
+  let decanted = false;
+  let stoppedSeparating = false;
+  const removed: PotVle =
+    decanter && w >= 0 && vol.length > 1
+      ? (m) => {
+          const v = potVle(m);
+          const y = Array.from(v.y as ArrayLike<number>);
+          const split = liquidLiquidSplit(sys, y, DECANTER_K);
+          if (!split.split) {
+            if (decanted) stoppedSeparating = true;
+            return v;
+          }
+          decanted = true;
+          const [a, b] = split.phases;
+          return { ...v, y: a[w] >= b[w] ? a : b };
+        }
+      : potVle;
+  if (decanter) {
+    if (w < 0 || !(st.pot[ctx.waterId!] > 0) || vol.length < 2)
+      warn(
+        warnings,
+        'info',
+        'decanter-idle',
+        'The decanter separates nothing: the pot holds no water besides one solvent, so the condensate is taken off whole.',
+      );
+    method(
+      methods,
+      'decanter',
+      `Decanter (Dean–Stark trap): the condensate settles at ${(DECANTER_K - 273.15).toFixed(0)} °C; the water-rich layer is taken off, the organic layer returns to the pot; layers from the liquid–liquid split of the regressed liquid model`,
+      'Liquid–liquid split: Michelsen, Fluid Phase Equilib. 1982, 9, 1; mutual solubilities from the solvent library (thermo/nrtl.ts)',
+    );
+  }
   method(
     methods,
     'distillation',
@@ -225,14 +266,23 @@ export function distilLeg(
       mv,
       vol.indexOf(feed.solventId),
       feed.m3,
-      potVle,
+      removed,
       { toleranceX },
       fixed,
     );
     feed.add(feed.m3);
   } else {
-    r = rayleighToVolume(moles, mv, fixed, targetM3, potVle, { toleranceX });
+    r = rayleighToVolume(moles, mv, fixed, targetM3, removed, { toleranceX });
   }
+  if (decanted)
+    warn(
+      warnings,
+      stoppedSeparating ? 'warning' : 'info',
+      'decanter',
+      stoppedSeparating
+        ? 'The condensate stopped separating in the decanter during the distillation: the water that can be removed this way is off, and from there the condensate is taken off whole (the organic solvent distils too).'
+        : 'The decanter took off the water-rich layer and returned the organic layer to the pot throughout; the distillate is the water-rich layer. Size the trap for its volume.',
+    );
   if (!r.converged)
     warn(
       warnings,
@@ -381,6 +431,12 @@ export function distillation(
           T_K: cToK(ctx.num(params.condition.potTemperatureC, ...RANGES.temperatureC)),
         };
   const mode = params.mode;
+  const decanter = params.decanter === true;
+  if (decanter && mode.kind !== 'concentrate')
+    throw new StepError(
+      'params.decanter',
+      'A decanter (Dean–Stark trap) is used with "Concentrate to a volume" only; swap the solvent in a separate step.',
+    );
   const newId = mode.kind === 'concentrate' ? null : mode.addSolventId;
   if (newId && ctx.comps.get(newId)!.kind !== 'solvent')
     throw new StepError(
@@ -406,7 +462,7 @@ export function distillation(
         'nothing-distilled',
         'The target volume is not below the feed volume: nothing is distilled.',
       );
-    distilLeg(ctx, st, target, cond, DISTILLATION_TOLERANCE_X, W, Ms);
+    distilLeg(ctx, st, target, cond, DISTILLATION_TOLERANCE_X, W, Ms, undefined, decanter);
   } else if (mode.kind === 'put-and-take') {
     const target = volumeToM3(ctx, mode.targetVolume);
     const addV = volumeToM3(ctx, mode.addVolume);

@@ -18,11 +18,38 @@ export const derived = (ref: SourceId, note?: string): Source => source(ref, 'es
 export const practice = (ref: SourceId, note?: string): Source =>
   source(ref, 'common-practice', note);
 
+/**
+ * A value with its source, as every library field is stored.
+ *
+ * Source: the library convention (DEVELOPERS.md, "Every number has a source").
+ *
+ * @param value  the value, in the unit its field states
+ * @param src    its source
+ * @returns the sourced value
+ *
+ * Validity: any value.
+ */
 export function sv<T>(value: T, src: Source): Sourced<T> {
   return { value, source: src };
 }
 
-/** An Antoine set exactly as published; validity range in kelvin. */
+/**
+ * An Antoine set exactly as published; validity range in kelvin.
+ *
+ * Source: the publication given in `src`. Formula: log10 P = A − B/(T + C),
+ * with P in bar and T in °C ('log10-bar-degC') or K ('log10-bar-K').
+ *
+ * @param form   which of the two published forms
+ * @param A      constant A [–] (log10 of bar)
+ * @param B      constant B [°C or K, as the form]
+ * @param C      constant C [°C or K, as the form]
+ * @param TminK  lower end of the fitted range [K]
+ * @param TmaxK  upper end of the fitted range [K]
+ * @param src    the publication
+ * @returns the set
+ *
+ * Validity: TminK to TmaxK, as published (thermo/antoine.ts extrapolates outside with a warning).
+ */
 export function antoine(
   form: AntoineSet['form'],
   A: number,

@@ -376,6 +376,18 @@ function KindForm({ kind, set, err, val, compounds }: Ctx) {
           {cond === 'pressure'
             ? q('Pressure', 'pressure', ['params', 'condition', 'pressureMbar'])
             : q('Pot temperature', 'temperature', ['params', 'condition', 'potTemperatureC'])}
+          <ChoiceField
+            label="Decanter (Dean–Stark trap)"
+            value={val(['params', 'decanter']) ? 'yes' : 'no'}
+            onChange={(v) => set(['params', 'decanter'], v === 'yes')}
+            options={[
+              { value: 'no', label: 'No: the whole condensate is taken off' },
+              {
+                value: 'yes',
+                label: 'Yes: the water layer is taken off, the organic layer returns',
+              },
+            ]}
+          />
         </>
       );
     }
