@@ -68,6 +68,12 @@ export type VapourPressureCorrelation =
       C3: number;
       C4: number;
       C5: number;
+      /**
+       * Anchor at the CRC normal boiling point where the row misses it: ln P gains
+       * dLnP·(u − u1)(u − uc)/((ub − u1)(ub − uc)), u = 1/T, zero at T1K and at TmaxK (Tc),
+       * dLnP at TbK [K] (thermo/antoine.ts correlationLnPressure).
+       */
+      anchor?: { TbK: number; T1K: number; dLnP: number };
       /** Lowest temperature of the fit [K]. */
       TminK: number;
       /** Highest temperature of the fit (the critical temperature) [K]. */

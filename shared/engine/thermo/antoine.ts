@@ -93,6 +93,10 @@ export function antoineLnPressure(set: AntoineSet, T_K: number): { lnP: number; 
  * Source: Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8 (DIPPR
  * 101); VDI Heat Atlas, PPDS Wagner form.
  *
+ * A DIPPR 101 row with an `anchor` (Perry rows that miss the CRC normal boiling point by more than
+ * 0.5 K) adds dLnP·(u − u1)(u − uc)/((ub − u1)(ub − uc)), u = 1/T, u1 = 1/T1 (25 °C), ub = 1/Tb,
+ * uc = 1/Tc: exact at the CRC Tb, unchanged at 25 °C and at Tc, smooth in value and slope.
+ *
  * @param c    correlation and coefficients (T in K, P in Pa)
  * @param T_K  temperature [K], > 0 (Wagner: ≤ Tc)
  * @returns    ln(P/Pa) [–] and d ln P/dT [1/K]
@@ -105,10 +109,19 @@ export function correlationLnPressure(
 ): { lnP: number; dlnPdT: number } {
   if (c.kind === 'dippr101') {
     const tPow = c.C5 === 0 ? 1 : T_K ** c.C5;
-    return {
-      lnP: c.C1 + c.C2 / T_K + c.C3 * Math.log(T_K) + c.C4 * tPow,
-      dlnPdT: -c.C2 / (T_K * T_K) + c.C3 / T_K + (c.C5 === 0 ? 0 : (c.C4 * c.C5 * tPow) / T_K),
-    };
+    let lnP = c.C1 + c.C2 / T_K + c.C3 * Math.log(T_K) + c.C4 * tPow;
+    let dlnPdT = -c.C2 / (T_K * T_K) + c.C3 / T_K + (c.C5 === 0 ? 0 : (c.C4 * c.C5 * tPow) / T_K);
+    if (c.anchor) {
+      // Anchor at the CRC Tb: + dLnP·(u − u1)(u − uc)/((ub − u1)(ub − uc)), u = 1/T.
+      const u = 1 / T_K;
+      const u1 = 1 / c.anchor.T1K;
+      const ub = 1 / c.anchor.TbK;
+      const uc = 1 / c.TmaxK;
+      const D = (ub - u1) * (ub - uc);
+      lnP += (c.anchor.dLnP * (u - u1) * (u - uc)) / D;
+      dlnPdT -= (c.anchor.dLnP * (2 * u - u1 - uc) * u * u) / D;
+    }
+    return { lnP, dlnPdT };
   }
   const tau = Math.max(0, 1 - T_K / c.TcK);
   const s = Math.sqrt(tau);
