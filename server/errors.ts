@@ -193,7 +193,7 @@ export const routeTooLarge = (what: string, limit: string) =>
 export const resultTooLarge = (bytes: number, limitBytes: number) =>
   apiError(
     'result_too_large',
-    `The result would be ${(bytes / 1e6).toFixed(1)} MB, more than the ${(limitBytes / 1e6).toFixed(0)} MB the server sends in one reply. Evaluate a smaller part of the route.`,
+    `The result would be ${(bytes / 1e6).toFixed(1)} MB, more than the ${Number((limitBytes / 1e6).toFixed(1))} MB the server sends in one reply. Evaluate a smaller part of the route.`,
   );
 export const evaluationTimedOut = (ms: number) =>
   apiError(

@@ -1,11 +1,9 @@
 /**
- * The engine runs in a pool of worker threads, never on the web thread: the
- * health check answers while every worker is busy, and each request is held
- * to a time limit, a size limit (steps, steps × draws, reply size) and a
+ * The engine runs in a pool of worker threads, never on the web thread. Each
+ * request is held to a size limit (steps, steps × draws, reply size) and a
  * per-person cap. Monte Carlo runs can be cancelled. Someone removed from
  * every workspace can no longer evaluate.
  */
-import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { jobSchema } from '@shared/schemas/jobs';
 import { saveDraftResponseSchema } from '@shared/schemas/routes';
@@ -18,9 +16,11 @@ import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/f
 
 const server = useTestServer({
   ENGINE_WORKERS: '1',
-  ENGINE_TASK_SECONDS: '4',
+  // Generous: the time limit has its own file (engine-time-limit.test.ts) with a short one, so a
+  // loaded test machine cannot turn these size and cap checks into time-outs.
+  ENGINE_TASK_SECONDS: '15',
   EVALUATE_MAX_STEPS: '120',
-  EVALUATE_MAX_REPLY_MB: '2',
+  EVALUATE_MAX_REPLY_MB: '0.5',
   MONTE_CARLO_MAX_STEP_DRAWS: '5000',
   CALCULATIONS_PER_USER: '1',
   MONTE_CARLO_JOBS_PER_USER: '1',
@@ -57,40 +57,6 @@ describe('the engine pool', () => {
     asColleague = await signIn(server.app, (await buildMember(workspace, ['chemist'])).email);
   });
 
-  it('answers the health check while every worker is busy, and stops a calculation at its time limit', async () => {
-    let settled = false;
-    const busy = post(asChemist, '/evaluate/monte-carlo', {
-      document: heavy,
-      draws: 20,
-      seed: 1,
-    }).then((response) => {
-      settled = true;
-      return response;
-    });
-    await untilAllWorkersBusy();
-    const latencies: number[] = [];
-    for (let i = 0; i < 5; i++) {
-      const started = performance.now();
-      const health = await request(server.app).get('/api/v1/health');
-      latencies.push(performance.now() - started);
-      expect(health.status).toBe(200);
-      expect(health.body).toEqual({ status: 'ok', db: 'ok' });
-    }
-    // The contract is 50 ms; the bound here is generous because the test machine is shared.
-    expect(settled).toBe(false);
-    expect(Math.max(...latencies)).toBeLessThan(1000);
-    console.log(
-      `[engine-pool] health latency with every worker busy: ${latencies.map((ms) => ms.toFixed(1)).join(', ')} ms`,
-    );
-    const response = await busy;
-    expect(response.status).toBe(422);
-    expect(response.body.error.code).toBe('evaluation_timeout');
-    expect(response.body.error.message).toMatch(/longer than 4 s/);
-    // The pool replaced the stopped worker: the next evaluation works.
-    const after = await post(asChemist, '/evaluate', { document: demo() });
-    expect(after.status).toBe(200);
-  });
-
   it('refuses a route with more steps than one evaluation may have (413), and saves such a draft without totals', async () => {
     const big = generateRoute({ seed: 3, steps: 130, compounds: 2 });
     const evaluated = await post(asChemist, '/evaluate', { document: big });
@@ -122,11 +88,11 @@ describe('the engine pool', () => {
   });
 
   it('refuses a reply larger than the limit (422 result_too_large) rather than sending it', async () => {
-    const wide = generateRoute({ seed: 5, steps: 110, compounds: 40 });
+    const wide = generateRoute({ seed: 5, steps: 40, compounds: 40 });
     const response = await post(asChemist, '/evaluate', { document: wide });
     expect(response.status).toBe(422);
     expect(response.body.error.code).toBe('result_too_large');
-    expect(response.body.error.message).toMatch(/more than the 2 MB/);
+    expect(response.body.error.message).toMatch(/more than the 0.5 MB/);
   });
 
   it('caps the calculations one person may run at once (429), not other people', async () => {

@@ -290,6 +290,9 @@ describe('a session ended on the server', () => {
     await page.goto(base + '/account');
     await signInAs(member.email, DEFAULT_PASSWORD);
     await page.getByRole('heading', { level: 1, name: 'Account' }).waitFor();
+    // The page has finished loading (its token list answered) before the session ends, so the
+    // first request to find it gone is the one the chemist makes below.
+    await page.getByRole('heading', { name: 'No API tokens' }).waitFor();
 
     await endSessionsOnServer(member.id);
     // The page does not know yet; its next request finds the session gone.
