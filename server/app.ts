@@ -20,6 +20,7 @@ import { accountRouter } from './routes/account';
 import { auditRouter } from './routes/audit';
 import { calcRouter } from './routes/calc';
 import { equipmentRouter } from './routes/equipment';
+import { chromatogramsRouter } from './routes/chromatograms';
 import { compoundsRouter } from './routes/compounds';
 import { evaluateRouter, ROUTE_JSON_BODY_LIMIT } from './routes/evaluate';
 import { healthRouter } from './routes/health';
@@ -33,6 +34,7 @@ import { routesRouter } from './routes/routes';
 import { SESSION_COOKIE, sessionRouter } from './routes/session';
 import { solventsRouter } from './routes/solvents';
 import { tokensRouter } from './routes/tokens';
+import { createStorage, type FileStorage } from './storage';
 
 export const JSON_BODY_LIMIT = '1mb';
 
@@ -40,6 +42,8 @@ export interface AppOptions {
   /** The database the health check probes; defaults to the process connection. */
   sequelize?: Sequelize;
   log?: (error: unknown) => void;
+  /** Where uploaded files go; defaults to the configured storage. */
+  storage?: FileStorage;
 }
 
 export interface PhasewrightApp {
@@ -56,6 +60,7 @@ export interface PhasewrightApp {
 export function createApp(config: AppConfig, options: AppOptions = {}): PhasewrightApp {
   const sequelize = options.sequelize ?? database();
   const log = options.log ?? ((error: unknown) => console.error('[api]', error));
+  const storage = options.storage ?? createStorage(config.storage);
   const app = express();
   app.disable('x-powered-by');
   // Outside production every reply is checked against its declared schema (server/http/route.ts).
@@ -154,6 +159,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(routesRouter(config));
   api.use(auditRouter());
   api.use(revisionsRouter(config, security));
+  api.use(chromatogramsRouter(config, storage, log));
   api.get('/openapi.json', (_req, res) => {
     res.json(buildOpenApiDocument());
   });

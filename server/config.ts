@@ -65,6 +65,16 @@ const envSchema = z
       .max(24 * 30)
       .default(12),
     SHUTDOWN_GRACE_SECONDS: z.coerce.number().min(0).default(20),
+    STORAGE_DRIVER: z.enum(['local', 's3', '']).default(''),
+    FILES_DIR: z.string().default('.data/files'),
+    S3_BUCKET: z.string().optional(),
+    S3_ENDPOINT: z.url().optional(),
+    S3_REGION: z.string().default('us-east-1'),
+    S3_ACCESS_KEY_ID: z.string().optional(),
+    S3_SECRET_ACCESS_KEY: z.string().optional(),
+    S3_FORCE_PATH_STYLE: booleanFromEnv.default(true),
+    S3_PREFIX: z.string().default(''),
+    CHROMATOGRAM_MAX_MB: z.coerce.number().min(0.001).max(2000).default(20),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
@@ -81,7 +91,35 @@ const envSchema = z
         message: 'The demo data is never seeded in production.',
       });
     }
+    if (env.STORAGE_DRIVER === 's3' && !env.S3_BUCKET) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['S3_BUCKET'],
+        message: 'S3_BUCKET is required when STORAGE_DRIVER=s3.',
+      });
+    }
   });
+
+export interface S3Config {
+  bucket: string;
+  /** Null: the AWS endpoint of the region. */
+  endpoint: string | null;
+  region: string;
+  /** Null: the SDK's default credential chain (environment, profile, instance role). */
+  accessKeyId: string | null;
+  secretAccessKey: string | null;
+  forcePathStyle: boolean;
+  /** Prepended to every object key ("phasewright/"). */
+  prefix: string;
+}
+
+/** Where uploaded files are kept (server/storage). */
+export interface StorageConfig {
+  driver: 'local' | 's3';
+  /** The folder of the local driver. */
+  dir: string;
+  s3: S3Config;
+}
 
 export interface AppConfig {
   env: 'development' | 'test' | 'production';
@@ -115,6 +153,9 @@ export interface AppConfig {
   sessionMaxHours: number;
   /** How long shutdown waits for requests in flight. */
   shutdownGraceSeconds: number;
+  storage: StorageConfig;
+  /** Largest chromatogram or document accepted [bytes]. */
+  chromatogramMaxBytes: number;
 }
 
 export class ConfigError extends Error {
@@ -176,5 +217,21 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     },
     sessionMaxHours: e.SESSION_MAX_HOURS,
     shutdownGraceSeconds: e.SHUTDOWN_GRACE_SECONDS,
+    storage: {
+      // S3 when asked, or when a bucket is named and nothing else was asked.
+      driver:
+        e.STORAGE_DRIVER === 's3' || (e.STORAGE_DRIVER === '' && e.S3_BUCKET) ? 's3' : 'local',
+      dir: e.FILES_DIR,
+      s3: {
+        bucket: e.S3_BUCKET ?? '',
+        endpoint: e.S3_ENDPOINT ?? null,
+        region: e.S3_REGION,
+        accessKeyId: e.S3_ACCESS_KEY_ID || null,
+        secretAccessKey: e.S3_SECRET_ACCESS_KEY || null,
+        forcePathStyle: e.S3_FORCE_PATH_STYLE,
+        prefix: e.S3_PREFIX,
+      },
+    },
+    chromatogramMaxBytes: Math.round(e.CHROMATOGRAM_MAX_MB * 1024 * 1024),
   };
 }

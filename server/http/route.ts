@@ -15,8 +15,8 @@ type ZodObjectAny = z.ZodObject<z.ZodRawShape>;
 export interface Reply {
   status: number;
   body?: unknown;
-  /** A download instead of JSON (CSV exports). */
-  file?: { contentType: string; filename: string; content: string };
+  /** A download instead of JSON (CSV exports, stored files). */
+  file?: { contentType: string; filename: string; content: string | Buffer };
   /** A body already serialised as JSON (e.g. by an engine pool worker), sent as it is. */
   json?: string;
 }
@@ -53,6 +53,12 @@ export interface RouteSpec<
   params?: P;
   query?: Q;
   body?: B;
+  /**
+   * A multipart/form-data request (file uploads): described in the OpenAPI
+   * document only; the handler reads the parts itself, after authorizing, so
+   * nobody can push a large upload at an operation they may not use.
+   */
+  multipart?: ZodType;
   responses: Record<number, { description: string; schema?: ZodType }>;
   /**
    * Whether the operation changes stored data; read-only API tokens may call
@@ -105,7 +111,7 @@ export function defineRoute<
         }
       : { description: response.description };
   }
-  if (spec.body || spec.params || spec.query)
+  if (spec.body || spec.multipart || spec.params || spec.query)
     responses['400'] ??= errorResponse('Invalid request; details lists every field problem.');
   if (spec.auth) responses['401'] ??= errorResponse('Not signed in.');
   // Several apps may be built in one process (tests); describe each operation once.
@@ -123,7 +129,9 @@ export function defineRoute<
         query: spec.query,
         body: spec.body
           ? { content: { 'application/json': { schema: spec.body } }, required: true }
-          : undefined,
+          : spec.multipart
+            ? { content: { 'multipart/form-data': { schema: spec.multipart } }, required: true }
+            : undefined,
       },
       responses: responses as never,
     });

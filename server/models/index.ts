@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { ApiToken } from './api-token';
 import { AuditEvent } from './audit-event';
+import { Chromatogram } from './chromatogram';
 import { Compound } from './compound';
 import { Equipment } from './equipment';
 import { Invitation } from './invitation';
@@ -31,6 +32,7 @@ export {
 };
 export { EvaluationJob, Equipment, Project, Route, RouteDraft };
 export { RouteRevision, ReviewRequest, ReviewRequestReviewer, ReviewDecision, ReviewComment };
+export { Chromatogram };
 
 /** Binds every model to the connection and declares the associations. */
 export function initModels(sequelize: Sequelize): void {
@@ -54,6 +56,7 @@ export function initModels(sequelize: Sequelize): void {
     ReviewRequestReviewer,
     ReviewDecision,
     ReviewComment,
+    Chromatogram,
   ]) {
     model.initModel(sequelize);
   }
@@ -95,4 +98,6 @@ export function initModels(sequelize: Sequelize): void {
   ReviewComment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
   ReviewComment.belongsTo(RouteRevision, { foreignKey: 'revisionId', as: 'revision' });
   ReviewComment.belongsTo(User, { foreignKey: 'resolvedById', as: 'resolvedBy' });
+  Chromatogram.belongsTo(Route, { foreignKey: 'routeId', as: 'route' });
+  Chromatogram.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
 }

@@ -19,6 +19,7 @@ import type { Exactly } from '@shared/schemas/exact';
 import { forbidden, notFound } from '../errors';
 import { accountRules } from './account';
 import { auditRules } from './audit';
+import { chromatogramRules } from './chromatogram';
 import { commentRules } from './comment';
 import { reviewRules } from './review';
 import { revisionRules } from './revision';
@@ -44,6 +45,7 @@ export const rules = {
   ...revisionRules,
   ...reviewRules,
   ...commentRules,
+  ...chromatogramRules,
 } as const;
 
 type Rules = typeof rules;

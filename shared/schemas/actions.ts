@@ -41,6 +41,11 @@ export const WORKSPACE_ACTIONS = [
   'attention.list',
   'comment.create',
   'comment.resolve',
+  'chromatogram.list',
+  'chromatogram.read',
+  'chromatogram.upload',
+  'chromatogram.update',
+  'chromatogram.delete',
 ] as const;
 export type WorkspaceAction = (typeof WORKSPACE_ACTIONS)[number];
 

@@ -78,12 +78,15 @@ export const PLAIN_ERROR_CODES = [
   'route_too_large',
   'unsupported_encoding',
   'unsupported_charset',
+  'file_too_large',
+  'unsupported_file',
   // 422: a well-formed request that cannot be computed
   'unifac_missing_parameters',
   'no_data',
   'not_computable',
   'evaluation_timeout',
   'result_too_large',
+  'unreadable_file',
   // 429
   'rate_limited',
   'sign_in_throttled',

@@ -18,3 +18,4 @@ export * from './audit';
 export * from './revisions';
 export * from './text';
 export * from './equipment';
+export * from './chromatograms';
