@@ -67,6 +67,9 @@ export function configureApiClient(next: ClientHooks) {
   hooks = next;
 }
 
+/** The session's CSRF token, for requests not sent through apiRequest (uploads with progress). */
+export const csrfToken = () => hooks.getCsrfToken();
+
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 type RequestOptions<S extends z.ZodType | undefined> = {

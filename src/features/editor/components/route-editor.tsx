@@ -19,6 +19,7 @@ import { KINDS } from '../step-kinds';
 import { Canvas } from './canvas';
 import { Palette } from './palette';
 import { StepPanel } from './step-panel';
+import { StepSamplesPanel } from './step-samples-panel';
 import { CautionList, StreamTable, TotalsCard, cautionJump } from './results';
 import { ProductFlow, StepPlot } from './plots';
 import { PurgePanel } from './purge-view';
@@ -459,6 +460,14 @@ function EditorFrame({
                     <StepPanel key={selected.id} step={selected} compounds={compounds.data} />
                   </fieldset>
                   <StepPlot key={`plot-${selected.id}`} step={selected} />
+                  {view ? null : (
+                    <StepSamplesPanel
+                      key={`samples-${selected.id}`}
+                      workspaceId={workspaceId}
+                      routeId={route.id}
+                      step={selected}
+                    />
+                  )}
                 </>
               ) : (
                 <p className="text-small text-ink-muted">

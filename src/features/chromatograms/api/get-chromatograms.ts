@@ -1,0 +1,21 @@
+import { useInfiniteQuery } from '@tanstack/react-query';
+import { chromatogramListSchema } from '@shared/schemas/chromatograms';
+import { apiRequest } from '@/api/client';
+import { chromatogramKeys } from './keys';
+import { chromatogramsApi } from './urls';
+
+/** The samples of one step, oldest first, a page at a time. */
+export const useStepChromatograms = (workspaceId: string, routeId: string, stepId: string) =>
+  useInfiniteQuery({
+    queryKey: chromatogramKeys.list(workspaceId, routeId, stepId),
+    queryFn: ({ pageParam, signal }) =>
+      apiRequest(
+        chromatogramsApi.list(workspaceId, routeId, {
+          stepId,
+          cursor: pageParam || undefined,
+        }),
+        { schema: chromatogramListSchema, signal },
+      ),
+    initialPageParam: '',
+    getNextPageParam: (last) => last.nextCursor ?? undefined,
+  });
