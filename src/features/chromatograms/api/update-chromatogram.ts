@@ -26,8 +26,16 @@ export const useUpdateChromatogram = (workspaceId: string, routeId: string) => {
         chromatogramKeys.one(workspaceId, routeId, detail.id, false),
         detail,
       );
-      return queryClient.invalidateQueries({
+      // The trace itself does not change: keep the full one already here.
+      queryClient.setQueryData(
+        chromatogramKeys.one(workspaceId, routeId, detail.id, true),
+        (old: typeof detail | undefined) =>
+          old ? { ...detail, trace: old.trace, decimated: old.decimated } : undefined,
+      );
+      // Lists refresh in the background; the edit is done once the server has answered.
+      void queryClient.invalidateQueries({
         queryKey: chromatogramKeys.all(workspaceId, routeId),
+        predicate: (query) => query.queryKey[5] !== 'one',
       });
     },
   });

@@ -95,11 +95,10 @@ export function useUploadChromatogram(workspaceId: string, routeId: string) {
       setProgress(0);
       return uploadChromatogram(workspaceId, routeId, input, setProgress);
     },
-    onSettled: async (_data, _error, input) => {
+    onSettled: async () => {
       setProgress(null);
-      await queryClient.invalidateQueries({
-        queryKey: chromatogramKeys.list(workspaceId, routeId, input.stepId),
-      });
+      // The step's list and the route-wide one (the wash calibration's choices).
+      await queryClient.invalidateQueries({ queryKey: chromatogramKeys.all(workspaceId, routeId) });
     },
   });
   return { ...mutation, progress };

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import type { PredictedLevel } from '@shared/chromatography/levels';
 import { Button } from '@/components/button';
 import { ErrorState } from '@/components/error-state';
@@ -22,6 +22,7 @@ export function StepSamples({
   predicted,
   evaluated,
   canWrite,
+  calibration,
 }: {
   workspaceId: string;
   routeId: string;
@@ -30,6 +31,8 @@ export function StepSamples({
   predicted: PredictedLevel[];
   evaluated: boolean;
   canWrite: boolean;
+  /** The wash calibration, on steps that have one. */
+  calibration?: ReactNode;
 }) {
   const list = useStepChromatograms(workspaceId, routeId, step.id);
   const [openId, setOpenId] = useState<string | null>(null);
@@ -122,6 +125,14 @@ export function StepSamples({
                 caption={`Measured and predicted levels at ${step.name}`}
               />
             </div>
+          ) : null}
+          {calibration && samples.some((s) => s.kind === 'trace') ? (
+            <details className="mb-3 rounded-control border border-rule px-2 py-1.5">
+              <summary className="cursor-pointer text-small font-medium">
+                Distribution ratio from this wash
+              </summary>
+              <div className="mt-2">{calibration}</div>
+            </details>
           ) : null}
           {canWrite && (showUpload || !samples.length) ? (
             <UploadForm
