@@ -19,3 +19,4 @@ export * from './revisions';
 export * from './text';
 export * from './equipment';
 export * from './chromatograms';
+export * from './step-list';
