@@ -19,6 +19,7 @@ import { API_PREFIX, buildOpenApiDocument } from './openapi';
 import { accountRouter } from './routes/account';
 import { auditRouter } from './routes/audit';
 import { calcRouter } from './routes/calc';
+import { stepListRouter } from './routes/step-list';
 import { equipmentRouter } from './routes/equipment';
 import { chromatogramsRouter } from './routes/chromatograms';
 import { compoundsRouter } from './routes/compounds';
@@ -160,6 +161,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(auditRouter());
   api.use(revisionsRouter(config, security));
   api.use(chromatogramsRouter(config, storage, log));
+  api.use(stepListRouter(config));
   api.get('/openapi.json', (_req, res) => {
     res.json(buildOpenApiDocument());
   });

@@ -15,7 +15,7 @@ type ZodObjectAny = z.ZodObject<z.ZodRawShape>;
 export interface Reply {
   status: number;
   body?: unknown;
-  /** A download instead of JSON (CSV exports, stored files). */
+  /** A download instead of JSON (CSV, XLSX and PDF exports, stored files). */
   file?: { contentType: string; filename: string; content: string | Buffer };
   /** A body already serialised as JSON (e.g. by an engine pool worker), sent as it is. */
   json?: string;

@@ -25,6 +25,7 @@ import { reviewRules } from './review';
 import { revisionRules } from './revision';
 import { compoundRules } from './compound';
 import { equipmentRules } from './equipment';
+import { stepListRules } from './step-list';
 import { outboxRules } from './outbox';
 import { routeRules } from './route';
 import { tokenRules } from './token';
@@ -41,6 +42,7 @@ export const rules = {
   ...routeRules,
   ...compoundRules,
   ...equipmentRules,
+  ...stepListRules,
   ...auditRules,
   ...revisionRules,
   ...reviewRules,

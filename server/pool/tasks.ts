@@ -19,6 +19,8 @@ import {
   summariseMonteCarlo,
   type MonteCarloState,
 } from '@shared/engine/route/monte-carlo';
+import type { Equipment } from '@shared/schemas/equipment';
+import { buildStepList } from '@shared/steplist';
 import { AppError } from '../errors';
 import {
   calcActivityCoefficients,
@@ -108,6 +110,15 @@ export const tasks = {
     const next = runMonteCarloChunk(prepared, state, input.chunk);
     if (next.done >= next.draws) preparedByJob.delete(input.cacheKey);
     return { state: next, summary: next.done >= next.draws ? summariseMonteCarlo(next) : null };
+  },
+  /** The plant step list of a document already scaled to the batch: its evaluation written as operations. */
+  'stepList.build': (input: {
+    document: RouteDocument;
+    assignments: Record<string, Equipment>;
+    available: Equipment[];
+  }) => {
+    const { result } = evaluateDocument(input.document);
+    return buildStepList({ ...input, result });
   },
   /** One of the calculation API's computations. */
   calculate: (input: { operation: CalculationName; body: unknown }) =>

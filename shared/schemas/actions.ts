@@ -30,6 +30,8 @@ export const WORKSPACE_ACTIONS = [
   'equipment.create',
   'equipment.update',
   'equipment.delete',
+  'stepList.export',
+  'route.import',
   'audit.read',
   'audit.verify',
   'revision.list',

@@ -96,6 +96,26 @@ function sampleBody(op: Operation): object | undefined {
       capacityL: 100,
     },
     'PATCH /workspaces/{workspaceId}/equipment/{id}': { name: 'Renamed by a stranger' },
+    'POST /workspaces/{workspaceId}/routes/{routeId}/revisions/{number}/step-list': {
+      batchKg: 10,
+      basis: 'input',
+      format: 'json',
+    },
+    'POST /workspaces/{workspaceId}/routes/import': {
+      format: 'phasewright-step-list',
+      formatVersion: 1,
+      route: { id: 'scope-probe', name: 'Scope probe (invented)', document: demo() },
+      revision: 1,
+      approval: null,
+      draft: true,
+      batchKg: 1,
+      basis: 'input',
+      scaleFactor: 1,
+      exportedAt: '2026-01-01T00:00:00.000Z',
+      equipment: [],
+      operations: [],
+      processSafetyNote: 'Scope probe.',
+    },
   };
   return samples[key] ?? (op.hasBody ? {} : undefined);
 }
