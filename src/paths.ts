@@ -53,6 +53,11 @@ export const paths = {
       to: (id: string, routeId: string, number: number) =>
         `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}/revisions/${number}`,
     },
+    stepList: {
+      pattern: '/w/:workspaceId/routes/:routeId/revisions/:number/step-list',
+      to: (id: string, routeId: string, number: number) =>
+        `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}/revisions/${number}/step-list`,
+    },
     audit: {
       pattern: '/w/:workspaceId/audit',
       to: (id: string) => `/w/${encodeURIComponent(id)}/audit`,
@@ -105,6 +110,8 @@ export const api = {
     `${api.revisions(workspaceId, routeId)}/${number}/comments`,
   revisionDecisions: (workspaceId: string, routeId: string, number: number) =>
     `${api.revisions(workspaceId, routeId)}/${number}/decisions`,
+  stepList: (workspaceId: string, routeId: string, number: number) =>
+    `${api.revisions(workspaceId, routeId)}/${number}/step-list`,
   attention: (workspaceId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/attention`,
   audit: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit`,

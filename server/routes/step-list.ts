@@ -64,7 +64,7 @@ export function stepListRouter(config: AppConfig): Router {
         schema: apiErrorSchema,
       },
     },
-    handle: async ({ actor, params: p, body }) => {
+    handle: async ({ actor, params: p, body, res }) => {
       const { route, revision } = await withTransaction(async (transaction) => {
         const workspace = await loadWorkspace(p.workspaceId, transaction);
         authorize(actor, 'stepList.export', { workspaceId: workspace.id });
@@ -81,6 +81,7 @@ export function stepListRouter(config: AppConfig): Router {
       });
       switch (body.format) {
         case 'json':
+          res.attachment(fileName(list, 'json'));
           return { status: 200, json: JSON.stringify(list) };
         case 'csv':
           return {

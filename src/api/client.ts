@@ -145,3 +145,54 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   }
   return parsed.data as Result<S>;
 }
+
+/**
+ * POSTs a request whose reply is a file, and hands the file to the browser as
+ * a download under the name the server gives. Errors come back as ApiError,
+ * like apiRequest's.
+ */
+export async function apiDownload(url: string, body: unknown): Promise<{ filename: string }> {
+  const headers: Record<string, string> = { 'Content-Type': 'application/json' };
+  const csrf = hooks.getCsrfToken();
+  if (csrf) headers['X-CSRF-Token'] = csrf;
+  let response: Response;
+  try {
+    response = await fetch(url, {
+      method: 'POST',
+      headers,
+      credentials: 'same-origin',
+      body: JSON.stringify(body),
+    });
+  } catch {
+    throw new ApiError(0, {
+      code: 'network_error',
+      message: 'The server could not be reached. Check your connection and try again.',
+    });
+  }
+  if (!response.ok) {
+    if (response.status === 401) hooks.onUnauthorized();
+    let payload: unknown;
+    try {
+      payload = await response.json();
+    } catch {
+      payload = undefined;
+    }
+    const parsed = parseExact(apiErrorSchema, payload);
+    if (parsed.success) throw new ApiError(response.status, parsed.data.error);
+    throw new ApiError(response.status, {
+      code: 'unexpected_reply',
+      message: `The server answered ${response.status} without an explanation. Try again.`,
+    });
+  }
+  const disposition = response.headers.get('Content-Disposition') ?? '';
+  const filename = /filename="([^"]+)"/.exec(disposition)?.[1] ?? 'step-list';
+  const blob = await response.blob();
+  const link = document.createElement('a');
+  link.href = URL.createObjectURL(blob);
+  link.download = filename;
+  document.body.append(link);
+  link.click();
+  link.remove();
+  setTimeout(() => URL.revokeObjectURL(link.href), 10_000);
+  return { filename };
+}

@@ -48,6 +48,10 @@ export function createAppRouter() {
                   path: paths.workspace.revision.pattern,
                   lazy: () => import('@/routes/revision'),
                 },
+                {
+                  path: paths.workspace.stepList.pattern,
+                  lazy: () => import('@/routes/step-list'),
+                },
                 { path: paths.workspace.audit.pattern, lazy: () => import('@/routes/audit') },
                 { path: paths.workspace.members.pattern, lazy: () => import('@/routes/members') },
                 {

@@ -2,6 +2,8 @@ import { lazy, Suspense, useMemo } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ErrorState } from '@/components/error-state';
 import { Loading } from '@/components/spinner';
+import { canInWorkspace } from '@/features/auth/abilities';
+import { useSession } from '@/features/auth/api/get-session';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import {
   CompareView,
@@ -27,6 +29,8 @@ export function Component() {
   const revision = useRevision(workspace.id, routeId, revisionNumber);
   const comments = useComments(workspace.id, routeId, revisionNumber);
   const compare = useCompare(workspace.id, routeId, compareWith, revisionNumber);
+  const { data: session } = useSession();
+  const canExport = session ? canInWorkspace(session, workspace.id, 'stepList.export') : false;
 
   const marks = useMemo(() => {
     const out: Record<string, { comments?: number; change?: 'added' | 'changed' }> = {};
@@ -93,6 +97,14 @@ export function Component() {
                   >
                     Draft
                   </Link>
+                  {canExport ? (
+                    <Link
+                      className="text-accent hover:underline"
+                      to={paths.workspace.stepList.to(workspace.id, routeId, revision.data.number)}
+                    >
+                      Step list
+                    </Link>
+                  ) : null}
                 </span>
               ),
               tabs: [

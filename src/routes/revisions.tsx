@@ -7,6 +7,8 @@ import { ErrorState } from '@/components/error-state';
 import { PageHeader } from '@/components/page-header';
 import { Loading } from '@/components/spinner';
 import { Table, Td, Th } from '@/components/table';
+import { canInWorkspace } from '@/features/auth/abilities';
+import { useSession } from '@/features/auth/api/get-session';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { StatusBadge, useRevisions } from '@/features/review';
 import { useRoute } from '@/features/routes/api/get-route';
@@ -23,6 +25,8 @@ export function Component() {
   const route = useRoute(workspace.id, routeId);
   const revisions = useRevisions(workspace.id, routeId);
   const [picked, setPicked] = useState<number[]>([]);
+  const { data: session } = useSession();
+  const canExport = session ? canInWorkspace(session, workspace.id, 'stepList.export') : false;
   const navigate = useNavigate();
   const toggle = (n: number) =>
     setPicked((p) => (p.includes(n) ? p.filter((x) => x !== n) : [...p, n].slice(-2)));
@@ -78,6 +82,11 @@ export function Component() {
               <Th className="text-right">Yield %</Th>
               <Th className="text-right">Purity wt%</Th>
               <Th className="text-right">PMI</Th>
+              {canExport ? (
+                <Th>
+                  <span className="sr-only">Plant</span>
+                </Th>
+              ) : null}
             </tr>
           </thead>
           <tbody>
@@ -109,6 +118,17 @@ export function Component() {
                 <Td className="text-right tabular-nums">{num(r.totals?.yieldPct)}</Td>
                 <Td className="text-right tabular-nums">{num(r.totals?.purityWtPct, 2)}</Td>
                 <Td className="text-right tabular-nums">{num(r.totals?.pmi)}</Td>
+                {canExport ? (
+                  <Td>
+                    <Link
+                      className="text-accent hover:underline"
+                      aria-label={`Step list of revision ${r.number}`}
+                      to={paths.workspace.stepList.to(workspace.id, routeId, r.number)}
+                    >
+                      Step list
+                    </Link>
+                  </Td>
+                ) : null}
               </tr>
             ))}
           </tbody>

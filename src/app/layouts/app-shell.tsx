@@ -69,7 +69,7 @@ function Shell({ session }: { session: Session }) {
       <div className="flex min-h-screen">
         <aside
           className={cn(
-            'sticky top-0 flex h-screen shrink-0 flex-col border-r border-rule bg-paper-sunken',
+            'sticky top-0 flex h-screen shrink-0 flex-col border-r border-rule bg-paper-sunken print:hidden',
             compact ? 'w-14' : 'w-rail',
           )}
           data-rail={compact ? 'compact' : 'full'}
@@ -143,7 +143,11 @@ function Shell({ session }: { session: Session }) {
           </nav>
           <UserPanel session={session} />
         </aside>
-        <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-gutter py-5 focus:outline-none">
+        <main
+          id="main"
+          tabIndex={-1}
+          className="min-w-0 flex-1 px-gutter py-5 focus:outline-none print:p-0"
+        >
           <div className="mx-auto max-w-page">
             <Outlet />
           </div>
