@@ -185,7 +185,8 @@ export async function apiDownload(url: string, body: unknown): Promise<{ filenam
     });
   }
   const disposition = response.headers.get('Content-Disposition') ?? '';
-  const filename = /filename="([^"]+)"/.exec(disposition)?.[1] ?? 'step-list';
+  // Express writes filename=name, or filename="name" when the name needs quoting.
+  const filename = /filename="?([^";]+)"?/.exec(disposition)?.[1] ?? 'download';
   const blob = await response.blob();
   const link = document.createElement('a');
   link.href = URL.createObjectURL(blob);
