@@ -19,7 +19,7 @@ import { demoAmideIsolation as demoRoute } from './data/demo-route';
 import { DEMO_PROJECT_NAME } from './20261203000000-demo-route';
 
 /** The approved copy of the demo route that the demo engineer turns into a plant step list. */
-export const DEMO_PLANT_ROUTE_NAME = 'PW-417 amide isolation, plant transfer (demo, invented)';
+export const DEMO_PLANT_ROUTE_NAME = 'PW-417 plant transfer: amide isolation (demo, invented)';
 
 /**
  * Gives the demo workspace an approved route for the plant (invented demo
