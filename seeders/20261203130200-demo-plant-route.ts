@@ -11,7 +11,6 @@ import {
   Workspace,
 } from '../server/models';
 import { evaluateDraft } from '../server/services/draft-evaluation';
-import { recordAudit } from '../server/services/audit';
 import { storeRevision } from '../server/services/revisions';
 import { createRoute } from '../server/services/routes';
 import { DEMO_WORKSPACES } from './data/demo-accounts';
@@ -25,7 +24,8 @@ export const DEMO_PLANT_ROUTE_NAME = 'PW-417 plant transfer: amide isolation (de
  * Gives the demo workspace an approved route for the plant (invented demo
  * history): the demo route saved as revision 1 by the demo chemist, sent to
  * the demo reviewer and approved with their signature. The review records are
- * written directly (no mail is sent for seeded history). The demo route
+ * written directly: no mail and no audit rows of their own for seeded history
+ * (the revision's creation is audited as usual). The demo route
  * itself stays unsubmitted, for the review walkthrough. Leaves a route of the
  * same name alone.
  */
@@ -85,7 +85,7 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       { reviewRequestId: review.id, reviewerId: reviewer.id },
       { transaction },
     );
-    const decision = await ReviewDecision.create(
+    await ReviewDecision.create(
       {
         reviewRequestId: review.id,
         revisionId: revision.id,
@@ -100,23 +100,5 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       { transaction },
     );
     await review.update({ status: 'approved', closedAt: new Date() }, { transaction });
-    await recordAudit(
-      {
-        workspaceId: workspace.id,
-        actorId: reviewer.id,
-        action: 'review.approve',
-        entityType: 'review',
-        entityId: review.id,
-        before: { status: 'in_review' },
-        after: {
-          status: 'approved',
-          routeId: route.id,
-          revision: 1,
-          signature: { id: decision.id, signer: reviewer.name, email: reviewer.email },
-          seeded: 'invented demo history',
-        },
-      },
-      transaction,
-    );
   });
 }
