@@ -7,7 +7,10 @@ import type { Transaction } from 'sequelize';
 import {
   assignUnifacGroups,
   estimateHansen,
+  atomContributionLogP,
   findIonisableGroups,
+  LOGP_FALLBACK_METHOD,
+  missingGroupNames,
   parseStructure,
   structureFingerprint,
   type StructureInput,
@@ -116,14 +119,27 @@ function estimate(
   groups: UnifacGroupCounts,
   groupsComplete: boolean,
   want: { logP: boolean; hansen: boolean },
+  unassignedReasons: readonly string[] = [],
 ): Estimates {
   const out: Estimates = { logP: null, hansen: null, notes: [] };
   if (want.logP) {
-    if (!groupsComplete)
-      out.notes.push(
-        'logP not estimated: some atoms have no UNIFAC group. Edit the groups or enter a measured logP.',
-      );
-    else if (Object.keys(groups).length === 0)
+    if (!groupsComplete) {
+      const missing = missingGroupNames(unassignedReasons);
+      const what = missing.length
+        ? `the UNIFAC groups have nothing for ${missing.join(', ')}`
+        : 'some atoms have no UNIFAC group';
+      const fallback = atomContributionLogP(input);
+      if (fallback !== null) {
+        out.logP = {
+          value: fallback,
+          method: LOGP_FALLBACK_METHOD,
+          warnings: [
+            `Fallback estimate: ${what}. Edit the groups or enter a measured logP for a better value.`,
+          ],
+        };
+      } else
+        out.notes.push(`logP not estimated: ${what}. Edit the groups or enter a measured logP.`);
+    } else if (Object.keys(groups).length === 0)
       out.notes.push('logP not estimated: no UNIFAC groups.');
     else {
       try {
@@ -152,10 +168,13 @@ function estimate(
 export function previewStructure(input: StructureInput): StructurePreview {
   const derived = deriveStructure(input, 'smiles' in input ? 'smiles' : 'molfile');
   const complete = derived.automatic.unassignedAtoms.length === 0;
-  const estimates = estimate(input, derived.automatic.groups, complete, {
-    logP: true,
-    hansen: true,
-  });
+  const estimates = estimate(
+    input,
+    derived.automatic.groups,
+    complete,
+    { logP: true, hansen: true },
+    derived.automatic.unassignedAtoms.map((a) => a.reason),
+  );
   return {
     formula: derived.formula,
     molarMassGmol: derived.molarMassGmol,
@@ -270,10 +289,13 @@ function build(state: CompoundState): Attributes {
     state.unifacEdited && Object.keys(state.unifacEdited).length > 0 ? state.unifacEdited : null;
   const groups = edited ?? derived.automatic.groups;
   const complete = edited !== null || derived.automatic.unassignedAtoms.length === 0;
-  const estimates = estimate(input, groups, complete, {
-    logP: !state.logPMeasured,
-    hansen: !state.hansenEntered,
-  });
+  const estimates = estimate(
+    input,
+    groups,
+    complete,
+    { logP: !state.logPMeasured, hansen: !state.hansenEntered },
+    edited ? [] : derived.automatic.unassignedAtoms.map((a) => a.reason),
+  );
   const unifacWarnings = edited
     ? ['Groups edited by hand; the automatic assignment is kept for comparison in the history.']
     : derived.automatic.warnings;

@@ -74,7 +74,12 @@ export type HansenEstimate =
       unassignedAtoms: Array<{ index: number; element: string; reason: string }>;
     };
 
-function match(g: AtomGraph): { hits: Array<{ group: string; atoms: number[] }>; left: number[] } {
+function match(g: AtomGraph): {
+  hits: Array<{ group: string; atoms: number[] }>;
+  left: number[];
+  amideSplit: boolean;
+} {
+  let amideSplit = false;
   const claimed = new Set<number>();
   const hits: Array<{ group: string; atoms: number[] }> = [];
   const el = (a: number) => g.element.get(a) as string;
@@ -109,7 +114,13 @@ function match(g: AtomGraph): { hits: Array<{ group: string; atoms: number[] }>;
     if (e === 'C' && !g.aromatic.get(a)) {
       const dO = nb(a).find((x) => x.order === 2 && el(x.atom) === 'O' && nb(x.atom).length === 1);
       if (dO) {
-        if (nb(a).some((x) => el(x.atom) === 'N')) continue; // amides: no increment here
+        if (nb(a).some((x) => el(x.atom) === 'N')) {
+          // Amides (anilides included): split into >C=O and the nitrogen's own
+          // >NH / >N– / –NH2 increment, a group-split fallback marked in the warnings.
+          take('CO', [a, dO.atom]);
+          amideSplit = true;
+          continue;
+        }
         const sO = nb(a).find((x) => x.order === 1 && el(x.atom) === 'O' && !claimed.has(x.atom));
         if (sO && H(sO.atom) === 1) take('COOH', [a, dO.atom, sO.atom]);
         else if (sO && H(sO.atom) === 0 && nb(sO.atom).length === 2)
@@ -153,7 +164,7 @@ function match(g: AtomGraph): { hits: Array<{ group: string; atoms: number[] }>;
       take('Cl', [a]);
     }
   }
-  return { hits, left: g.atoms.filter((a) => !claimed.has(a)) };
+  return { hits, left: g.atoms.filter((a) => !claimed.has(a)), amideSplit };
 }
 
 /**
@@ -180,7 +191,7 @@ export function estimateHansen(
 ): HansenEstimate {
   const r = loadGraph(structure);
   if (!r.ok) return { ok: false, reason: r.error, groups: [], unassignedAtoms: [] };
-  const { hits, left } = match(r.graph);
+  const { hits, left, amideSplit } = match(r.graph);
   const counts = new Map<string, { count: number; atoms: number[] }>();
   for (const h of hits) {
     const e = counts.get(h.group) ?? { count: 0, atoms: [] };
@@ -220,6 +231,11 @@ export function estimateHansen(
     Vf += v.count * inc.V;
   }
   const warnings = [
+    ...(amideSplit
+      ? [
+          'Fallback for the amide link, which the group set has no increment for: taken as >C=O plus the nitrogen group (group split); expect a larger error.',
+        ]
+      : []),
     'Group-contribution estimate (Hoftyzer–Van Krevelen); increments UNVERIFIED (memory) — verify against the printed table. Prefer measured parameters.',
     'No symmetry correction applied: δP is overestimated for symmetric molecules (e.g. para-disubstituted rings).',
   ];

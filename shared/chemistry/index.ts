@@ -20,3 +20,4 @@ export {
   PKA_TYPICAL_ERROR,
   type IonisableGroup,
 } from './pka-estimate';
+export { atomContributionLogP, missingGroupNames, LOGP_FALLBACK_METHOD } from './logp-fallback';

@@ -522,8 +522,12 @@ function defaultReason(c: Ctx, a: number): string {
   switch (e) {
     case 'C':
       return 'carbon in a functional group that the original UNIFAC groups assigned here do not cover';
-    case 'O':
+    case 'O': {
+      const carbonylC = nbrs(c, a).find((x) => x.order === 2 && el(c, x.atom) === 'C');
+      if (carbonylC && nbrs(c, carbonylC.atom).some((x) => el(c, x.atom) === 'N'))
+        return 'amide carbonyl oxygen: the amide as substituted here (e.g. an anilide) has no original UNIFAC group';
       return 'oxygen in a functional group that the original UNIFAC groups assigned here do not cover (e.g. carbonate, peroxide, N-oxide)';
+    }
     case 'N':
       return 'nitrogen in a functional group that the original UNIFAC groups assigned here do not cover (e.g. aryl amide, urea, imine, hydrazine)';
     case 'S':

@@ -137,8 +137,11 @@ describe('workspace compounds', () => {
       ).body,
     );
     expect(anilide.unifac.unassignedAtoms.map((a) => a.element).sort()).toEqual(['C', 'N', 'O']);
-    expect(anilide.estimates.logP).toBeNull();
-    expect(anilide.estimates.notes.join(' ')).toMatch(/logP not estimated/);
+    // No UNIFAC group for the anilide: logP by atom-type increments instead, marked as the fallback.
+    expect(anilide.estimates.logP!.method).toMatch(/^fallback: atom-type increments/);
+    expect(anilide.estimates.logP!.warnings.join(' ')).toMatch(/anilide link/);
+    expect(anilide.estimates.logP!.warnings.join(' ')).not.toMatch(/carbonate|N-oxide/);
+    expect(anilide.estimates.hansen!.warnings[0]).toMatch(/Fallback for the amide link/);
   });
 
   it('answers an unparsable structure with 422 naming the problem', async () => {
@@ -229,8 +232,8 @@ describe('workspace compounds', () => {
       ).body,
     );
     expect(created.unifac.unassignedAtoms).toHaveLength(3);
-    expect(created.logP).toBeNull();
-    expect(created.estimateNotes.join(' ')).toMatch(/logP not estimated/);
+    expect(created.logP).toMatchObject({ source: 'estimated' });
+    expect(created.logP!.method).toMatch(/^fallback/);
     const edited = compoundSchema.parse(
       (await patch(asChemist, created.id, { unifacGroups: { '1': 1, '9': 5, '10': 1, '94': 1 } }))
         .body,
