@@ -52,7 +52,9 @@ describe('purity and purge as a chemist reads them', () => {
       .getByText('1 M HCl wash (removes the amine)')
       .waitFor();
     await section.locator('svg').first().waitFor();
-    await expect(view.getByRole('row').count()).resolves.toBeGreaterThan(4 * 9);
+    // One row per impurity per step the product passes (the demo route has nine, or more once edited).
+    const stepRows = await view.locator('tbody tr').count();
+    expect(stepRows).toBeGreaterThanOrEqual(4 * 9);
     await shot('purge-03-view');
 
     // Exported as CSV: one row per impurity per step, cells guarded against formula injection.
@@ -66,7 +68,7 @@ describe('purity and purge as a chemist reads them', () => {
     expect(csv[0]).toBe(
       'impurity,step,in_kg,with_product_kg,step_purge_factor,cumulative_purge_factor',
     );
-    expect(csv.length).toBe(1 + 4 * 9);
+    expect(csv.length).toBe(1 + stepRows);
     expect(csv.some((l) => l.startsWith('Coupling-agent urea (invented),1 M HCl wash'))).toBe(true);
 
     await page.keyboard.press('Escape');
