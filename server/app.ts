@@ -1,6 +1,5 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
-import connectPgSimple from 'connect-pg-simple';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -8,6 +7,7 @@ import pg from 'pg';
 import type { Sequelize } from 'sequelize';
 import './http/express-augment';
 import { configurePassport } from './auth/passport';
+import { createSessionStore } from './auth/session-store';
 import type { AppConfig } from './config';
 import { database } from './db/sequelize';
 import { authenticate, sessionLifetime } from './middleware/authenticate';
@@ -94,17 +94,14 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   // restarting) must be handled, or Node ends the process; the pool then reconnects by itself.
   const sessionPool = new pg.Pool({
     connectionString: config.databaseUrl,
-    max: 5,
+    max: config.databasePool.sessionMax,
     connectionTimeoutMillis: 5_000,
     idleTimeoutMillis: 30_000,
   });
   sessionPool.on('error', (error) => log(error));
-  const PgStore = connectPgSimple(session);
-  const store = new PgStore({
+  const store = createSessionStore({
     pool: sessionPool,
-    tableName: 'session',
-    createTableIfMissing: false,
-    pruneSessionInterval: 15 * 60,
+    pruneSessionIntervalSeconds: 15 * 60,
     errorLog: (...args: unknown[]) => log(args),
   });
   const passport = configurePassport();
@@ -127,7 +124,8 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
       store,
       resave: false,
       saveUninitialized: false,
-      // Every request pushes expiry forward: the session ends after SESSION_IDLE_MINUTES of inactivity.
+      // Every request pushes expiry forward: the session ends after SESSION_IDLE_MINUTES of
+      // inactivity. The store writes the pushed expiry at most once a minute.
       rolling: true,
       cookie: {
         httpOnly: true,

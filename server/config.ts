@@ -64,6 +64,8 @@ const envSchema = z
       .min(0.01)
       .max(24 * 30)
       .default(12),
+    DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(500).default(10),
+    SESSION_POOL_MAX: z.coerce.number().int().min(1).max(500).default(10),
     SHUTDOWN_GRACE_SECONDS: z.coerce.number().min(0).default(20),
     STORAGE_DRIVER: z.enum(['local', 's3', '']).default(''),
     FILES_DIR: z.string().default('.data/files'),
@@ -156,6 +158,12 @@ export interface AppConfig {
   storage: StorageConfig;
   /** Largest chromatogram or document accepted [bytes]. */
   chromatogramMaxBytes: number;
+  /**
+   * Connections each server process opens: `max` for the data (Sequelize), `sessionMax`
+   * for sessions and rate limits. N processes need N × (max + sessionMax) below the
+   * database's max_connections (docs/deployment.md).
+   */
+  databasePool: { max: number; sessionMax: number };
 }
 
 export class ConfigError extends Error {
@@ -233,5 +241,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       },
     },
     chromatogramMaxBytes: Math.round(e.CHROMATOGRAM_MAX_MB * 1024 * 1024),
+    databasePool: { max: e.DATABASE_POOL_MAX, sessionMax: e.SESSION_POOL_MAX },
   };
 }

@@ -30,7 +30,7 @@ export interface Runtime {
  */
 export async function startRuntime(config: AppConfig): Promise<Runtime> {
   const pool = startEnginePool(config.pool);
-  const sequelize = connectDatabase(config.databaseUrl);
+  const sequelize = connectDatabase(config.databaseUrl, config.databasePool.max);
   // Schema work runs as the owner; the server itself connects as a role that owns nothing.
   const owner = openRoleConnection(config.databaseOwnerUrl);
   let seeded: string[] = [];

@@ -3,7 +3,9 @@ import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { invalidCredentials } from '../errors';
 import { User } from '../models';
+import { actorFrom } from '../services/actors';
 import { verifyCredentials } from '../services/sign-in';
+import { SESSION_LOAD } from './session-store';
 
 let configured = false;
 
@@ -23,10 +25,27 @@ export function configurePassport(): typeof passport {
     ),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser((id: string, done) => {
-    // A deleted user simply ends the session (false), rather than failing the request.
-    User.findByPk(id).then((user) => done(null, user ?? false), done);
-  });
+  passport.deserializeUser(
+    (req: Request, id: string, done: (error: unknown, user?: User | false) => void) => {
+      // The session read brought the user and their memberships along (server/auth/session-store.ts).
+      const loaded = req.session?.[SESSION_LOAD];
+      if (loaded && (loaded.user === null || loaded.user.id === id)) {
+        if (!loaded.user) return done(null, false);
+        req.actor = actorFrom(loaded.user.id, loaded.memberships);
+        const user = User.build(
+          {
+            ...loaded.user,
+            createdAt: new Date(loaded.user.createdAt),
+            updatedAt: new Date(loaded.user.updatedAt),
+          },
+          { isNewRecord: false, raw: true },
+        );
+        return done(null, user);
+      }
+      // A deleted user simply ends the session (false), rather than failing the request.
+      User.findByPk(id).then((user) => done(null, user ?? false), done);
+    },
+  );
   return passport;
 }
 

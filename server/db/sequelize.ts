@@ -8,13 +8,13 @@ let current: Sequelize | null = null;
  * Models bind to one instance (Model.init is static), so a process holds one
  * connection; calling again with the same URL returns it.
  */
-export function connectDatabase(databaseUrl: string): Sequelize {
+export function connectDatabase(databaseUrl: string, poolMax = 10): Sequelize {
   if (current) return current;
   const sequelize = new Sequelize(databaseUrl, {
     dialect: 'postgres',
     logging: false,
     // A database that is away fails fast (503) instead of holding requests for a minute.
-    pool: { max: 10, idle: 10_000, acquire: 10_000 },
+    pool: { max: poolMax, idle: 10_000, acquire: 10_000 },
     dialectOptions: { connectionTimeoutMillis: 5_000 },
     define: { underscored: false },
   });

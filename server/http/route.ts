@@ -68,9 +68,12 @@ export interface RouteSpec<
   /** Runs before anything else, e.g. a rate limiter. */
   before?: RequestHandler[];
   /**
-   * Default true: the handler runs inside one database transaction, committed
-   * before the reply is sent. Opt out when a failure must still leave a trace
-   * (sign-in counts failed attempts).
+   * Default: true for every method but GET, false for GET (a read opens no
+   * transaction, which would cost two more statements). In a transaction the
+   * handler's work is committed before the reply is sent. Writes opt out when a
+   * failure must still leave a trace (sign-in counts failed attempts) or when
+   * slow work must not hold a connection; reads opt in when they need one
+   * snapshot across several statements.
    */
   transaction?: boolean;
   handle: (
@@ -159,8 +162,9 @@ export function defineRoute<
       if (req.app.locals.checkReplies) checkReply(spec, reply);
       return reply;
     };
-    const reply =
-      spec.transaction === false ? await run(null) : await database().transaction((t) => run(t));
+    const reply = !(spec.transaction ?? spec.method !== 'get')
+      ? await run(null)
+      : await database().transaction((t) => run(t));
     if (reply.file)
       res
         .status(reply.status)

@@ -20,10 +20,14 @@ export const authenticate: RequestHandler = async (req, _res, next) => {
     req.user = found.user;
     req.authMethod = 'token';
     req.tokenScope = found.scope;
+    req.actor = await loadActor(found.user.id);
   } else if (req.user) {
     req.authMethod = 'session';
+    // Usually read together with the session (server/auth/session-store.ts).
+    req.actor ??= await loadActor(req.user.id);
+  } else {
+    req.actor = undefined;
   }
-  if (req.user) req.actor = await loadActor(req.user.id);
   next();
 };
 

@@ -20,7 +20,7 @@ import {
   previewStructure,
   updateCompound,
 } from '../services/compounds';
-import { loadWorkspace } from '../services/members';
+import { loadWorkspace, memberWorkspace } from '../services/members';
 
 const workspaceParams = z.object({ workspaceId: z.uuid() });
 const compoundParams = z.object({ workspaceId: z.uuid(), compoundId: z.uuid() });
@@ -72,7 +72,7 @@ export function compoundsRouter(): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'compound.list', { workspaceId: workspace.id });
       const compounds = await listCompounds(workspace.id, transaction);
       return { status: 200, body: compounds.map(presentCompound) };
@@ -117,7 +117,7 @@ export function compoundsRouter(): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'compound.read', { workspaceId: workspace.id });
       const compound = await loadCompound(workspace.id, params.compoundId, transaction);
       return { status: 200, body: presentCompound(compound) };

@@ -17,6 +17,7 @@ import {
   listMembers,
   loadMembership,
   loadWorkspace,
+  memberWorkspace,
   removeMember,
   updateRoles,
 } from '../services/members';
@@ -44,7 +45,7 @@ export function membersRouter(config: AppConfig): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'member.list', { workspaceId: workspace.id });
       const members = await listMembers(workspace.id, transaction);
       return { status: 200, body: members.map(presentMember) };

@@ -26,7 +26,7 @@ import { database } from '../db/sequelize';
 import { apiError } from '../errors';
 import { defineRoute } from '../http/route';
 import { authorize, can, type Actor } from '../policies';
-import { loadWorkspace } from '../services/members';
+import { loadWorkspace, memberWorkspace } from '../services/members';
 import { compareRevisions } from '../services/revision-compare';
 import {
   addComment,
@@ -436,7 +436,7 @@ export function revisionsRouter(config: AppConfig, security: Security): Router {
       404: { description: 'No such workspace, or not one of yours.', schema: apiErrorSchema },
     },
     handle: async ({ actor, params, query, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'attention.list', { workspaceId: workspace.id });
       const all = await attentionFor(workspace.id, actor.userId, transaction);
       const offset = query.cursor && /^\d{1,6}$/.test(query.cursor) ? Number(query.cursor) : 0;

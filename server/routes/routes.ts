@@ -20,7 +20,7 @@ import { defineRoute, withTransaction } from '../http/route';
 import { presentKeyTotals, presentRouteDetail, presentRouteSummary } from '../presenters';
 import { authorize } from '../policies';
 import { evaluateDraftInPool, saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
-import { loadWorkspace } from '../services/members';
+import { loadWorkspace, memberWorkspace } from '../services/members';
 import {
   createRoute,
   duplicateRoute,
@@ -61,7 +61,7 @@ export function routesRouter(config: AppConfig): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, query, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'route.list', { workspaceId: workspace.id });
       const routes = await listRoutes(workspace.id, query, transaction);
       return { status: 200, body: routes.map(presentRouteSummary) };
@@ -119,7 +119,7 @@ export function routesRouter(config: AppConfig): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'route.read', { workspaceId: workspace.id });
       const route = await loadRoute(workspace.id, params.routeId, transaction);
       return { status: 200, body: presentRouteDetail(route, actor) };
@@ -141,7 +141,7 @@ export function routesRouter(config: AppConfig): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, body, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       const scope = { workspaceId: workspace.id };
       authorize(actor, 'route.read', scope);
       if (body.name !== undefined || body.projectName !== undefined)
@@ -250,7 +250,7 @@ export function routesRouter(config: AppConfig): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'project.list', { workspaceId: workspace.id });
       return { status: 200, body: await listProjects(workspace.id, transaction) };
     },

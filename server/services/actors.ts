@@ -10,8 +10,15 @@ export async function loadActor(userId: string, transaction?: Transaction | null
     attributes: ['workspaceId', 'roles'],
     transaction,
   });
-  return {
+  return actorFrom(
     userId,
-    memberships: new Map(memberships.map((m) => [m.workspaceId as string, m.roles as Role[]])),
-  };
+    memberships.map((m) => ({ workspaceId: m.workspaceId as string, roles: m.roles as Role[] })),
+  );
+}
+
+export function actorFrom(
+  userId: string,
+  memberships: readonly { workspaceId: string; roles: Role[] }[],
+): Actor {
+  return { userId, memberships: new Map(memberships.map((m) => [m.workspaceId, m.roles])) };
 }

@@ -1,5 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import type { Role } from '@shared/schemas/session';
+import type { Actor } from '../policies';
 import { conflict, notFound } from '../errors';
 import { Membership, User, Workspace } from '../models';
 import { recordAudit } from './audit';
@@ -16,6 +17,16 @@ export async function loadWorkspace(
   // The generic message: a workspace the actor cannot see must answer exactly like a missing one.
   if (!workspace) throw notFound();
   return workspace;
+}
+
+/**
+ * The workspace of a read, known from the caller's memberships without a
+ * statement: a member's workspace exists. Anyone else gets the same 404 as for a
+ * missing workspace. Use loadWorkspace when the workspace's fields are needed.
+ */
+export function memberWorkspace(actor: Actor, id: string): { id: string } {
+  if (!actor.memberships.has(id)) throw notFound();
+  return { id };
 }
 
 export async function listMembers(

@@ -1,0 +1,128 @@
+import pg from 'pg';
+import { Sequelize } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { User, Workspace } from '../../server/models';
+import { ownerDatabaseUrl, useTestServer } from '../support/app';
+import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
+
+const server = useTestServer();
+
+/**
+ * Every statement any pool of this process sends (Sequelize and the session
+ * store both go through pg's Client), while `work` runs.
+ */
+async function statementsDuring(work: () => Promise<unknown>): Promise<string[]> {
+  const seen: string[] = [];
+  const original = pg.Client.prototype.query;
+  pg.Client.prototype.query = function (this: pg.Client, ...args: unknown[]) {
+    const first = args[0];
+    const text = typeof first === 'string' ? first : (first as { text?: string })?.text;
+    seen.push(
+      String(text ?? first)
+        .replace(/\s+/g, ' ')
+        .slice(0, 2000),
+    );
+    return (original as (...a: unknown[]) => unknown).apply(this, args);
+  } as typeof original;
+  try {
+    await work();
+  } finally {
+    pg.Client.prototype.query = original;
+  }
+  return seen;
+}
+
+describe('the cost of a signed-in read', () => {
+  let workspace: Workspace;
+  let chemist: User;
+  let asChemist: SignedIn;
+  let asAdmin: SignedIn;
+  let routePath: string;
+  let owner: Sequelize;
+
+  beforeAll(async () => {
+    workspace = await buildWorkspace();
+    chemist = await buildMember(workspace, ['chemist']);
+    const admin = await buildMember(workspace, ['admin']);
+    [asChemist, asAdmin] = await Promise.all([
+      signIn(server.app, chemist.email),
+      signIn(server.app, admin.email),
+    ]);
+    const created = await asChemist.agent
+      .post(`/api/v1/workspaces/${workspace.id}/routes`)
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ name: 'Counted route (invented)' });
+    expect(created.status).toBe(201);
+    routePath = `/api/v1/workspaces/${workspace.id}/routes/${created.body.id}`;
+    owner = new Sequelize(ownerDatabaseUrl(), { logging: false });
+  });
+  afterAll(() => owner?.close());
+
+  it('reads a route with two statements: the session with its user and roles, then the route', async () => {
+    expect((await asChemist.agent.get(routePath)).status).toBe(200);
+    let status = 0;
+    const statements = await statementsDuring(async () => {
+      status = (await asChemist.agent.get(routePath)).status;
+    });
+    expect(status).toBe(200);
+    expect(statements, statements.join('\n')).toHaveLength(2);
+    expect(statements[0]).toMatch(/FROM session/);
+    expect(statements.join('\n')).not.toMatch(/\b(BEGIN|START TRANSACTION|COMMIT|UPDATE)\b/);
+  });
+
+  it('pushes the stored expiry forward when it is more than a minute old, then not again', async () => {
+    const sid = await sessionIdOf(asChemist);
+    await owner.query(
+      `UPDATE session SET expire = expire - interval '5 minutes' WHERE sid = :sid RETURNING expire`,
+      { replacements: { sid } },
+    );
+    const before = await storedExpiry(sid);
+    const first = await statementsDuring(() => asChemist.agent.get(routePath));
+    expect(first.filter((s) => /UPDATE "?session"?/i.test(s))).toHaveLength(1);
+    const after = await storedExpiry(sid);
+    expect(after.getTime() - before.getTime()).toBeGreaterThan(4 * 60_000);
+    const second = await statementsDuring(() => asChemist.agent.get(routePath));
+    expect(second.filter((s) => /UPDATE "?session"?/i.test(s))).toHaveLength(0);
+  });
+
+  it('applies a role change and a removal from the next request on', async () => {
+    const membersPath = `/api/v1/workspaces/${workspace.id}/members/${chemist.id}`;
+    const rename = () =>
+      asChemist.agent
+        .get(routePath)
+        .then((current) =>
+          asChemist.agent
+            .patch(routePath)
+            .set('X-CSRF-Token', asChemist.csrfToken)
+            .send({ name: 'Renamed (invented)', baseVersion: current.body.version }),
+        );
+    const demoted = await asAdmin.agent
+      .patch(membersPath)
+      .set('X-CSRF-Token', asAdmin.csrfToken)
+      .send({ roles: ['reviewer'] });
+    expect(demoted.status).toBe(200);
+    expect((await rename()).status).toBe(403);
+    const session = await asChemist.agent.get('/api/v1/session');
+    expect(session.body.workspaces[0].roles).toEqual(['reviewer']);
+
+    const removed = await asAdmin.agent.delete(membersPath).set('X-CSRF-Token', asAdmin.csrfToken);
+    expect(removed.status).toBe(204);
+    expect((await asChemist.agent.get(routePath)).status).toBe(404);
+  });
+
+  async function sessionIdOf(who: SignedIn): Promise<string> {
+    const [rows] = await owner.query(
+      `SELECT sid FROM session WHERE sess -> 'passport' ->> 'user' = :userId AND sess ->> 'csrfToken' = :csrf`,
+      { replacements: { userId: who.session.user.id, csrf: who.csrfToken } },
+    );
+    expect(rows).toHaveLength(1);
+    return (rows[0] as { sid: string }).sid;
+  }
+
+  async function storedExpiry(sid: string): Promise<Date> {
+    const [rows] = await owner.query(`SELECT expire FROM session WHERE sid = :sid`, {
+      replacements: { sid },
+    });
+    return new Date((rows[0] as { expire: string }).expire);
+  }
+});
