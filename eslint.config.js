@@ -80,7 +80,16 @@ const layerZones = [
 ];
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-output/**', 'coverage/**'] },
+  {
+    ignores: [
+      'dist/**',
+      'dist-server/**',
+      'node_modules/**',
+      '.data/**',
+      'test-output/**',
+      'coverage/**',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

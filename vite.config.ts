@@ -3,6 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { compression } from 'vite-plugin-compression2';
 
 const alias = {
   '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
@@ -12,7 +13,13 @@ const alias = {
 const apiPort = Number(process.env.API_PORT ?? 3001);
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  // The build writes a brotli and a gzip copy beside each text asset; the server sends the one the
+  // browser accepts (server/app.ts), so nothing is compressed per request.
+  plugins: [
+    react(),
+    tailwindcss(),
+    compression({ algorithms: ['brotliCompress', 'gzip'], exclude: [/\.map$/], threshold: 1024 }),
+  ],
   resolve: { alias },
   server: {
     port: 5173,

@@ -1,6 +1,8 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import express, { type Express } from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import session from 'express-session';
 import helmet from 'helmet';
 import pg from 'pg';
@@ -90,6 +92,10 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
     }),
   );
 
+  // API replies and the HTML page are compressed per request (above 1 kB); built assets are
+  // sent from the brotli or gzip copy the build wrote, which this middleware leaves alone.
+  app.use(compression({ threshold: 1024 }));
+
   // Sessions and rate limits share one small pool. An idle client's error (the database
   // restarting) must be handled, or Node ends the process; the pool then reconnects by itself.
   const sessionPool = new pg.Pool({
@@ -169,10 +175,16 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
 
   const staticDir = path.resolve(config.staticDir);
   const indexHtml = path.join(staticDir, 'index.html');
-  // Hashed asset names change with their content, so they may be cached for long.
+  // Hashed asset names change with their content, so they may be cached for long. The build
+  // wrote .br and .gz copies beside each text asset: the one the browser accepts is sent.
   app.use(
     '/assets',
-    express.static(path.join(staticDir, 'assets'), { immutable: true, maxAge: '365d' }),
+    expressStaticGzip(path.join(staticDir, 'assets'), {
+      enableBrotli: true,
+      orderPreference: ['br', 'gz'],
+      index: false,
+      serveStatic: { immutable: true, maxAge: '365d' },
+    }),
   );
   // A missing asset must not fall back to index.html (the browser would parse HTML as a script).
   app.use('/assets', (_req, res) => {

@@ -14,18 +14,27 @@ export interface MigrationModule {
   down?(params: { context: MigrationContext }): Promise<void>;
 }
 
-const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+const here = path.dirname(fileURLToPath(import.meta.url));
+// The compiled server (dist-server/, server/build/server.mjs) carries its migrations and
+// seeders as JavaScript beside it; from source they are the TypeScript files of the project.
+const compiled = !import.meta.url.endsWith('.ts');
+const scriptsRoot = compiled ? here : path.resolve(here, '../..');
+const scriptExtension = compiled ? 'js' : 'ts';
 
 // Migrations are TypeScript; import() loads them under tsx, vitest and the
 // server alike, where a require()-based loader would not.
 function buildUmzug(sequelize: Sequelize, folder: 'migrations' | 'seeders', tableName: string) {
   return new Umzug<MigrationContext>({
     migrations: {
-      glob: [`${folder}/*.ts`, { cwd: projectRoot, ignore: ['**/*.test.ts', '**/*.d.ts'] }],
+      glob: [
+        `${folder}/*.${scriptExtension}`,
+        { cwd: scriptsRoot, ignore: ['**/*.test.*', '**/*.d.ts'] },
+      ],
       resolve: ({ name, path: filePath, context }) => {
         const load = async () => (await import(pathToFileURL(filePath!).href)) as MigrationModule;
         return {
-          name,
+          // Recorded under the source file's name, however it runs.
+          name: name.replace(/\.js$/, '.ts'),
           up: async () => (await load()).up({ context }),
           down: async () => {
             const module = await load();

@@ -52,9 +52,18 @@ class TaskTimeout extends Error {
   }
 }
 
+/**
+ * The worker's entry: beside the compiled server (dist-server/pool-worker.js), or, when the
+ * server runs from its TypeScript (development, tests), worker.mjs, which loads tsx itself.
+ */
+function workerFile(): string {
+  const compiled = !import.meta.url.endsWith('.ts');
+  return new URL(compiled ? './pool-worker.js' : './worker.mjs', import.meta.url).href;
+}
+
 export function createEnginePool(options: EnginePoolOptions): EnginePool {
   const piscina = new Piscina({
-    filename: new URL('./worker.mjs', import.meta.url).href,
+    filename: workerFile(),
     minThreads: options.size,
     maxThreads: options.size,
     maxQueue: options.maxQueue,

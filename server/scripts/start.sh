@@ -25,9 +25,11 @@ fi
 
 log "building the client"
 node node_modules/vite/bin/vite.js build --logLevel warn || { stop_all; die "client build failed"; }
+log "compiling the server"
+node server/build/server.mjs >/dev/null || { stop_all; die "server build failed"; }
 
 export PHASEWRIGHT_SEED_DEMO=${PHASEWRIGHT_SEED_DEMO:-1}
-node --import tsx server/index.ts &
+node dist-server/index.js &
 SERVER_PID=$!
 wait "$SERVER_PID"
 status=$?
