@@ -34,6 +34,7 @@ export function startServerProcess(
       ENGINE_WORKERS: '1',
       // Every test file signs in from 127.0.0.1 and the limits are kept in the shared database.
       SIGN_IN_RATE_LIMIT: '100000',
+      RESET_RATE_LIMIT: '100000',
       SIGN_IN_FREE_FAILURES_PAIR: '100000',
       SIGN_IN_FREE_FAILURES_ACCOUNT: '100000',
       SIGN_IN_FREE_FAILURES_ADDRESS: '100000',
