@@ -8,13 +8,17 @@ import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/f
 const server = useTestServer();
 
 /**
- * Every statement any pool of this process sends (Sequelize and the session
- * store both go through pg's Client), while `work` runs.
+ * Every statement the request path sends (Sequelize and the session store both go
+ * through pg's Client) while `work` runs; the job queue's polling is not counted.
  */
 async function statementsDuring(work: () => Promise<unknown>): Promise<string[]> {
   const seen: string[] = [];
   const original = pg.Client.prototype.query;
   pg.Client.prototype.query = function (this: pg.Client, ...args: unknown[]) {
+    // The job queue's own polling runs on its own connections, whatever the request does.
+    const client = this as unknown as { connectionParameters?: { application_name?: string } };
+    if (client.connectionParameters?.application_name?.startsWith('phasewright-jobs'))
+      return (original as (...a: unknown[]) => unknown).apply(this, args);
     const first = args[0];
     const text = typeof first === 'string' ? first : (first as { text?: string })?.text;
     seen.push(
