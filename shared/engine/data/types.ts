@@ -108,6 +108,12 @@ export interface SolventRecord {
   synonyms?: string[];
   smiles: string;
   cas: string;
+  /**
+   * Acid and base sites of a solvent that ionises in water (acetic acid,
+   * pyridine): pKa [-] at 25 °C; for a base the pKa of its conjugate acid.
+   * Washes put these solvents into the charge balance of the aqueous phase.
+   */
+  pKa?: Sourced<Array<{ value: number; type: 'acid' | 'base' }>>;
   molarMassGmol: Sourced<number>;
   /** Density in g/mL at `temperatureC`; optional linear temperature
    * coefficient in g/mL per K where known. */

@@ -39,7 +39,8 @@
 import type { ParamsOf, RouteStep } from '../document';
 import { RANGES } from '../document';
 import type { EvalContext } from '../route/context';
-import type { PKa } from '../properties/partition';
+import type { AqueousSoluteRecord } from '../data/types';
+import { neutralFraction, type PKa } from '../properties/partition';
 import {
   aqueousMediumKg,
   commonCautions,
@@ -105,7 +106,7 @@ export function equilibrate(
   warnings: EngineWarning[],
   methods: MethodUsed[],
   feedIsPolar = false,
-): PhaseState & { toOrganic: Record<string, number> } {
+): PhaseState & { toOrganic: Record<string, number>; co2Mol: number } {
   const sp = splitLiquid(ctx, solventsOnly(ctx, mix), T_K, warnings, methods);
   const organic: Record<string, number> = {};
   const aqueous: Record<string, number> = {};
@@ -135,6 +136,22 @@ export function equilibrate(
   const main = mainOrganic(ctx, organic);
   const phaseKg = { organicKg: sp.organicKg, aqueousKg: sp.aqueousKg };
   let pH: number | null = null;
+  // Acids and bases among the solvents (acetic acid, pyridine): their neutral molecule is split by
+  // the liquid–liquid flash, which gives its partition coefficient K = (n_org/V_org)/(n_aq/V_aq);
+  // in water they ionise and take part in the charge balance like the compounds the feed carries.
+  const ionisingSolvents: Array<{ id: string; mol: number; pKa: readonly PKa[]; K: number }> = [];
+  if (hasAq) {
+    for (const id of ctx.ids) {
+      const c = ctx.comps.get(id)!;
+      const sites = c.kind === 'solvent' ? c.solvent?.pKa?.value : undefined;
+      if (!sites?.length || !(mix[id] > 0)) continue;
+      const nO = organic[id] / c.molarMassKgMol;
+      const nA = aqueous[id] / c.molarMassKgMol;
+      const K = nA > 0 ? (Vo > 0 ? nO / Vo / (nA / Va) : 0) : Infinity;
+      if (!Number.isFinite(K)) continue;
+      ionisingSolvents.push({ id, mol: nO + nA, pKa: sites, K });
+    }
+  }
   if (hasAq && pHOverride !== undefined) {
     pH = pHOverride;
     method(methods, 'aqueous pH', 'stated pH of the medium', 'route document');
@@ -152,6 +169,8 @@ export function equilibrate(
       if (!Number.isFinite(K)) continue;
       carried.push({ mol: mix[id] / (cp.molarMassGmol / 1000), pKa: cp.pKa, K });
     }
+    for (const sv of ionisingSolvents) carried.push({ mol: sv.mol, pKa: sv.pKa, K: sv.K });
+    // aqueousPH ignores solvents among `kg`: their amounts enter through `carried`.
     pH = aqueousPH(ctx, {
       volumeM3: Va,
       kg: aqueous,
@@ -162,10 +181,30 @@ export function equilibrate(
       methods,
       'aqueous pH',
       carried.length
-        ? 'charge balance of the aqueous solutes and of the acids and bases carried by the feed (their neutral forms partitioning into the organic phase; ideal solution, pKw 14)'
+        ? 'charge balance of the aqueous solutes and of the acids and bases carried by the feed or present as solvents (their neutral forms partitioning into the organic phase; ideal solution, pKw 14)'
         : 'charge balance of the aqueous solutes (ideal solution, pKw 14)',
-      'pKa values from the aqueous-media library and the route compounds',
+      'pKa values from the aqueous-media and solvent libraries and the route compounds',
     );
+  }
+  if (pH !== null) {
+    // Ionised solvent stays in the water: n_aq = n V_aq / (V_aq + K f_n V_org).
+    for (const sv of ionisingSolvents) {
+      const M = ctx.comps.get(sv.id)!.molarMassKgMol;
+      const fn = neutralFraction(sv.pKa as PKa[], pH);
+      const nAq = (sv.mol * Va) / (Va + sv.K * fn * Vo);
+      aqueous[sv.id] = Math.min(mix[sv.id], nAq * M);
+      organic[sv.id] = mix[sv.id] - aqueous[sv.id];
+    }
+  }
+  // CO₂ formed from carbonate and bicarbonate: the carbonic-acid share of the carbonate in the
+  // aqueous phase at its pH (closed system: it stays dissolved as H2CO3* in the balance above).
+  let co2Mol = 0;
+  if (pH !== null) {
+    for (const id of ctx.ids) {
+      const c = ctx.comps.get(id)!;
+      if (!c.aqueous || !(aqueous[id] > 0) || !isCarbonate(c.aqueous)) continue;
+      co2Mol += (aqueous[id] / c.molarMassKgMol) * carbonicAcidFraction(c.aqueous, pH);
+    }
   }
   const D: PhaseState['D'] = {};
   const toOrganic: Record<string, number> = {};
@@ -205,7 +244,27 @@ export function equilibrate(
     volumes: { organicM3: Vo, aqueousM3: Va },
     D,
     toOrganic,
+    co2Mol,
   };
+}
+
+/** A carbonate or bicarbonate medium (carbonic acid pKa system). */
+function isCarbonate(a: AqueousSoluteRecord | undefined): boolean {
+  return (
+    !!a &&
+    /CO3/.test(a.formula) &&
+    (a.acidBase.kind === 'amphoteric-salt' || a.acidBase.kind === 'weak-base')
+  );
+}
+
+/**
+ * Fraction of a carbonate system present as carbonic acid (H2CO3*, i.e.
+ * dissolved CO₂) at pH: α0 = 1/(1 + 10^(pH − pKa1) + 10^(2pH − pKa1 − pKa2)).
+ */
+function carbonicAcidFraction(a: AqueousSoluteRecord, pH: number): number {
+  if (a.acidBase.kind !== 'amphoteric-salt' && a.acidBase.kind !== 'weak-base') return 0;
+  const [k1, k2] = a.acidBase.pKa.value;
+  return 1 / (1 + 10 ** (pH - k1) + (k2 === undefined ? 0 : 10 ** (2 * pH - k1 - k2)));
 }
 
 export function washOrExtraction(
@@ -276,6 +335,8 @@ export function washOrExtraction(
   > = {};
   let last: ReturnType<typeof equilibrate> | null = null;
   let peak = 0;
+  const stagePH: Array<number | null> = [];
+  let co2Leaving = 0;
 
   // Which phase carries on: the feed phase is the one the feed's main liquid lands in.
   let feedIsAqueous = !feedPhaseIsOrganic && !!ctx.waterId && feed.kg[ctx.waterId] > 0;
@@ -306,6 +367,8 @@ export function washOrExtraction(
       peak = Math.max(peak, streamVolume(ctx, mix, T));
       const eq = equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous);
       last = eq;
+      stagePH.push(eq.pH);
+      if (!feedIsAqueous || s === N - 1) co2Leaving += eq.co2Mol;
       const next: Record<string, number> = {};
       for (const id of ctx.ids) {
         const c = ctx.comps.get(id)!;
@@ -334,34 +397,32 @@ export function washOrExtraction(
     method(
       M,
       'stages',
-      'counter-current cascade, Kremser equation φ = (E − 1)/(E^{N+1} − 1)',
-      'Kremser, Natl. Petrol. News 1930, 22(21), 42; Seader, Henley & Roper, Separation Process Principles, liquid–liquid extraction chapter',
+      'counter-current cascade solved stage by stage: every stage its own liquid–liquid split, pH and distribution ratios; for the current stage splits the component balances of the cascade are solved exactly (tridiagonal), repeated until no split changes by more than 1e-9',
+      'balance and equilibrium stages as in Seader, Henley & Roper, Separation Process Principles, liquid–liquid extraction chapter; reduces to the Kremser equation (Kremser 1930) for a constant distribution ratio and immiscible liquids (reference test)',
     );
-    const mix: Record<string, number> = { ...feed.kg };
-    for (const id in added) mix[id] += added[id];
-    peak = streamVolume(ctx, mix, T);
-    const eq = equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous);
-    last = eq;
-    const Vo = eq.volumes.organicM3;
-    const Va = eq.volumes.aqueousM3;
+    const cc = counterCurrentCascade(ctx, feed.kg, added, N, feedIsAqueous, (mix, w, m) =>
+      equilibrate(ctx, mix, T, pHOverride, w, m, feedIsAqueous),
+    );
+    if (!cc.converged)
+      warn(
+        W,
+        'warning',
+        'cascade-not-converged',
+        `The ${N} counter-current stages did not settle to a steady state within ${COUNTER_CURRENT_MAX_SWEEPS} passes (largest remaining change ${cc.change.toExponential(1)}): the amounts in the two outlets are approximate.`,
+      );
+    // The final pass gives the warnings and methods of every stage at the steady state.
+    const finals = cc.mixes.map((mix) => {
+      peak = Math.max(peak, streamVolume(ctx, mix, T));
+      return equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous);
+    });
+    last = finals[N - 1];
+    stagePH.push(...finals.map((e) => e.pH));
+    co2Leaving = feedIsAqueous ? finals[N - 1].co2Mol : finals[0].co2Mol;
+    const feedOutC = feedIsAqueous ? aqueousOut : organicOut;
+    const addOutC = feedIsAqueous ? organicOut : aqueousOut;
     for (const id of ctx.ids) {
-      const c = ctx.comps.get(id)!;
-      if (c.kind === 'compound' && eq.D[id]) {
-        const D = eq.D[id].D;
-        // Extraction factor toward the added phase.
-        const E = feedIsAqueous ? (D * Vo) / Va : Va / (D * Vo);
-        const phi = kremserFractionRemaining(E, N);
-        const inFeedPhase = mix[id] * phi;
-        (feedIsAqueous ? aqueousOut : organicOut).kg[id] = inFeedPhase;
-        (feedIsAqueous ? organicOut : aqueousOut).kg[id] = mix[id] - inFeedPhase;
-      } else if (c.kind === 'compound') {
-        const org = mix[id] * eq.toOrganic[id];
-        organicOut.kg[id] = org;
-        aqueousOut.kg[id] = mix[id] - org;
-      } else {
-        aqueousOut.kg[id] = Math.min(mix[id], eq.aqueous[id]);
-        organicOut.kg[id] = mix[id] - aqueousOut.kg[id];
-      }
+      feedOutC.kg[id] = cc.feedPhaseOut[id];
+      addOutC.kg[id] = cc.addedPhaseOut[id];
     }
   }
   // Solids stay with the feed phase.
@@ -417,7 +478,7 @@ export function washOrExtraction(
   if (last?.split) emulsionChecks(ctx, organicOut, pH, rhoO, rhoA, W);
   // Gas evolution: carbonate or bicarbonate meeting acid.
   if (liq.kind === 'aqueous')
-    gasEvolutionCheck(ctx, feed, liq.soluteId, result.addedKg[liq.soluteId] ?? 0, T, W);
+    gasEvolutionCheck(ctx, liq.soluteId, result.addedKg, co2Leaving, T, W, result);
   buffercapacityCheck(ctx, feed, result.addedKg, pH, T, W);
 
   // Product loss to the discarded phase.
@@ -448,12 +509,139 @@ export function washOrExtraction(
     mode: params.mode,
     stages: N,
     aqueousPH: pH,
+    stagePH,
     topPhase: top,
     densitiesGmL: { organic: rhoO, aqueous: rhoA },
     phaseVolumesL: { organic: organicOut.volumeM3 * 1000, aqueous: aqueousOut.volumeM3 * 1000 },
     components: perComponent,
   };
   return { outputs: { organic: organicOut, aqueous: aqueousOut }, result };
+}
+
+/** Largest number of passes of the counter-current cascade solution. */
+export const COUNTER_CURRENT_MAX_SWEEPS = 200;
+
+/**
+ * Steady state of N ideal counter-current stages: the feed enters stage 1 and
+ * its phase moves toward stage N; the added liquid enters stage N and its
+ * phase moves toward stage 1. Each stage is an equilibrium contact of what
+ * enters it (`stage`: split, pH, distribution), which gives for every
+ * component i the fraction φ_n,i of stage n's content leaving in the feed
+ * phase. For given φ the component balances
+ *   T_n − φ_{n−1} T_{n−1} − (1 − φ_{n+1}) T_{n+1} = s_n
+ * (T_n the amount in stage n; s_1 the feed, s_N the added liquid) are linear
+ * and tridiagonal, solved exactly (Thomas algorithm); the stage contents are
+ * then re-equilibrated and the whole repeated until no φ changes by more than
+ * 1e-9 (from the 20th pass on the contents are relaxed by one half). With a
+ * constant φ (constant distribution ratio, immiscible liquids) this is the
+ * Kremser solution in one pass.
+ *
+ * @param feedKg   feed [kg per component]
+ * @param addedKg  added liquid, in total [kg per component]
+ * @param N        number of stages [-], ≥ 1
+ * @param feedIsAqueous  whether the feed phase is the aqueous one
+ * @param stage    equilibrium of one stage's content (warnings and methods go to the given lists)
+ * @returns the stage contents [kg], the two outlets [kg], whether it converged and the last change [-]
+ *
+ * Source: stage balances as in Seader, Henley & Roper, Separation Process
+ * Principles (liquid–liquid extraction chapter); Thomas algorithm (any
+ * numerical-analysis text). Validity: equilibrium stages, no entrainment.
+ */
+export function counterCurrentCascade(
+  ctx: EvalContext,
+  feedKg: Record<string, number>,
+  addedKg: Record<string, number>,
+  N: number,
+  feedIsAqueous: boolean,
+  stage: (
+    mix: Record<string, number>,
+    warnings: EngineWarning[],
+    methods: MethodUsed[],
+  ) => ReturnType<typeof equilibrate>,
+): {
+  mixes: Array<Record<string, number>>;
+  feedPhaseOut: Record<string, number>;
+  addedPhaseOut: Record<string, number>;
+  converged: boolean;
+  change: number;
+} {
+  const ids = ctx.ids;
+  const src = (n: number, id: string) =>
+    (n === 0 ? (feedKg[id] ?? 0) : 0) + (n === N - 1 ? (addedKg[id] ?? 0) : 0);
+  // First guess: every stage holds the whole feed and the whole added liquid.
+  let mixes = Array.from({ length: N }, () => {
+    const m: Record<string, number> = {};
+    for (const id of ids) m[id] = (feedKg[id] ?? 0) + (addedKg[id] ?? 0);
+    return m;
+  });
+  let phi: Array<Record<string, number>> | null = null;
+  let balanced = mixes;
+  let converged = false;
+  let change = Infinity;
+  for (let sweep = 0; sweep < COUNTER_CURRENT_MAX_SWEEPS; sweep++) {
+    const next = mixes.map((mix) => {
+      const eq = stage(mix, [], []);
+      const f: Record<string, number> = {};
+      for (const id of ids) {
+        const c = ctx.comps.get(id)!;
+        if (!(mix[id] > 0)) {
+          f[id] = 1;
+          continue;
+        }
+        let inFeedPhase: number;
+        if (c.kind === 'compound') {
+          const org = eq.toOrganic[id];
+          inFeedPhase = feedIsAqueous ? 1 - org : org;
+        } else {
+          inFeedPhase = (feedIsAqueous ? eq.aqueous[id] : eq.organic[id]) / mix[id];
+        }
+        f[id] = Math.min(1, Math.max(0, inFeedPhase));
+      }
+      return f;
+    });
+    change = 0;
+    if (phi)
+      for (let n = 0; n < N; n++)
+        for (const id of ids) change = Math.max(change, Math.abs(next[n][id] - phi[n][id]));
+    phi = next;
+    // Component balances for the current splits (Thomas algorithm).
+    const solved = Array.from({ length: N }, () => ({}) as Record<string, number>);
+    for (const id of ids) {
+      const cp = new Float64Array(N);
+      const dp = new Float64Array(N);
+      for (let n = 0; n < N; n++) {
+        const a = n > 0 ? -phi[n - 1][id] : 0;
+        const c = n < N - 1 ? -(1 - phi[n + 1][id]) : 0;
+        const den = 1 - a * (n > 0 ? cp[n - 1] : 0);
+        cp[n] = c / den;
+        dp[n] = (src(n, id) - a * (n > 0 ? dp[n - 1] : 0)) / den;
+      }
+      const T = new Float64Array(N);
+      for (let n = N - 1; n >= 0; n--) T[n] = dp[n] - (n < N - 1 ? cp[n] * T[n + 1] : 0);
+      for (let n = 0; n < N; n++) solved[n][id] = Math.max(0, T[n]);
+    }
+    balanced = solved;
+    mixes =
+      sweep >= 20
+        ? solved.map((m, n) => {
+            const r: Record<string, number> = {};
+            for (const id of ids) r[id] = 0.5 * (m[id] + mixes[n][id]);
+            return r;
+          })
+        : solved;
+    if (sweep > 0 && change < 1e-9) {
+      converged = true;
+      break;
+    }
+  }
+  const feedPhaseOut: Record<string, number> = {};
+  const addedPhaseOut: Record<string, number> = {};
+  // Outlets from the last exactly balanced solution (the balances close for any φ).
+  for (const id of ids) {
+    feedPhaseOut[id] = phi![N - 1][id] * balanced[N - 1][id];
+    addedPhaseOut[id] = (1 - phi![0][id]) * balanced[0][id];
+  }
+  return { mixes: balanced, feedPhaseOut, addedPhaseOut, converged, change };
 }
 
 /**
@@ -521,34 +709,43 @@ function emulsionChecks(
     });
 }
 
+/**
+ * CO₂ from a carbonate or bicarbonate wash: the carbonic acid (dissolved CO₂)
+ * in the aqueous phase(s) leaving the step at their pH, less what the medium
+ * alone holds at its own pH, is what can leave as gas (closed-system charge
+ * balance, so an upper bound for what degassing releases). Counts every acid
+ * that met the carbonate: strong and weak acids, acidic compounds and acidic
+ * solvents such as acetic acid. Reported in mol and L at 1 atm (ideal gas).
+ */
 function gasEvolutionCheck(
   ctx: EvalContext,
-  feed: Stream,
   soluteId: string,
-  soluteKg: number,
+  addedKg: Record<string, number>,
+  co2Leaving: number,
   T_K: number,
   W: EngineWarning[],
+  result: ReturnType<typeof newResult>,
 ) {
   const a = ctx.comps.get(soluteId)!.aqueous!;
-  if (!/CO3/.test(a.formula)) return;
+  const soluteKg = addedKg[soluteId] ?? 0;
+  if (!isCarbonate(a) || !(soluteKg > 0)) return;
+  const medium: Record<string, number> = {};
+  for (const id of ctx.ids) medium[id] = addedKg[id] ?? 0;
   const nCarb = soluteKg / ctx.comps.get(soluteId)!.molarMassKgMol;
-  let nAcid = 0;
-  for (const id of ctx.ids) {
-    const c = ctx.comps.get(id)!;
-    const m = feed.kg[id];
-    if (!(m > 0)) continue;
-    const n = m / c.molarMassKgMol;
-    if (c.aqueous?.acidBase.kind === 'strong-acid') nAcid += n * c.aqueous.acidBase.protons;
-    if (c.aqueous?.acidBase.kind === 'weak-acid') nAcid += n;
-    if (c.compound?.pKa?.some((p) => p.type === 'acid' && p.value < 6.4)) nAcid += n;
-  }
-  const nCO2 = Math.min(nAcid, nCarb * (a.formula.startsWith('Na2') ? 1 : 1));
-  if (nCO2 <= 0) return;
+  const mediumPH = aqueousPH(ctx, {
+    volumeM3: streamVolume(ctx, medium, T_K),
+    kg: medium,
+    includeCompounds: false,
+  });
+  const baseline = mediumPH === null ? 0 : nCarb * carbonicAcidFraction(a, mediumPH);
+  const nCO2 = co2Leaving - baseline;
+  if (!(nCO2 > 1e-6 * nCarb)) return;
+  result.summary['CO₂ released mol'] = round(nCO2, 4);
   const litres = ((nCO2 * R_J_PER_MOL_K * T_K) / STANDARD_ATMOSPHERE_PA) * 1000;
   W.push({
     severity: 'hazard',
     code: 'gas-evolution',
-    message: `${a.name} neutralises acid in the feed: up to ${nCO2.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is released. Add slowly with venting and stirring; never in a closed vessel; watch for foaming.`,
+    message: `${a.name} neutralises acid: up to ${nCO2.toFixed(2)} mol CO₂ (≈ ${litres.toFixed(0)} L at 1 atm) is formed and can be released. Add slowly with venting and stirring; never in a closed vessel; watch for foaming.`,
   });
 }
 
@@ -606,7 +803,7 @@ function buffercapacityCheck(
       needBase += n * ab.pKa.value.filter((k) => k < mediumPH).length;
     else if (ab?.kind === 'strong-base') needAcid += n * ab.hydroxides;
     else if (ab?.kind === 'weak-base' || ab?.kind === 'amphoteric-salt') needAcid += n;
-    for (const p of c.compound?.pKa ?? []) {
+    for (const p of [...(c.compound?.pKa ?? []), ...(c.solvent?.pKa?.value ?? [])]) {
       if (p.type === 'base' && p.value > mediumPH) needAcid += n;
       if (p.type === 'acid' && p.value < mediumPH) needBase += n;
     }

@@ -156,7 +156,8 @@ describe('provenance', () => {
         (s.vapourPressure ? 1 : 0) +
         (s.enthalpyVapKJmol ? 1 : 0) +
         (s.waterMutualSolubility ? 1 : 0) +
-        (s.dielectricConstant ? 1 : 0),
+        (s.dielectricConstant ? 1 : 0) +
+        (s.pKa ? 1 : 0),
       0,
     );
     expect(all.length).toBe(expected);

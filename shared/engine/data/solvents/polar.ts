@@ -224,6 +224,10 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
     synonyms: ['AcOH', 'ethanoic acid', 'glacial acetic acid'],
     smiles: 'CC(=O)O',
     cas: '64-19-7',
+    pKa: sv(
+      [{ value: 4.76, type: 'acid' }],
+      recalled('crc-dissociation-constants', 'acetic acid, 25 °C'),
+    ),
     molarMassGmol: sv(
       60.052,
       derived(
@@ -289,6 +293,10 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
     synonyms: ['py'],
     smiles: 'c1ccncc1',
     cas: '110-86-1',
+    pKa: sv(
+      [{ value: 5.23, type: 'base' }],
+      recalled('crc-dissociation-constants', 'pyridinium ion (conjugate acid), 25 °C'),
+    ),
     molarMassGmol: sv(
       79.102,
       derived(
