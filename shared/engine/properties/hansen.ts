@@ -50,6 +50,9 @@ function assertParams(x: HansenParams, label: string): void {
  *
  * Example: toluene (18.0, 1.4, 2.0) vs ethanol (15.8, 8.8, 19.4):
  * Ra = √(4·2.2² + 7.4² + 17.4²) = √(19.36 + 54.76 + 302.76) = 19.41.
+ *
+ * Source: C. M. Hansen, Hansen Solubility Parameters: A User's Handbook, 2nd ed., CRC Press 2007,
+ * eq. 1.9.
  */
 export function hansenDistance(a: HansenParams, b: HansenParams): number {
   assertParams(a, 'the first material');
@@ -71,6 +74,10 @@ export function hansenDistance(a: HansenParams, b: HansenParams): number {
  *
  * Throws EngineError('invalid-input') when R0 is not a positive finite number.
  * Example: Ra = 19.41, R0 = 8 → RED = 2.43.
+ *
+ * Source: Hansen 2007 (module comment), eq. 1.10.
+ * Validity: R0 > 0, fitted for the solute from its good/bad solvents; RED < 1 predicts dissolution,
+ * a screening rule, not a solubility.
  */
 export function relativeEnergyDifference(a: HansenParams, b: HansenParams, R0: number): number {
   if (!Number.isFinite(R0) || R0 <= 0) {
@@ -100,6 +107,10 @@ export function relativeEnergyDifference(a: HansenParams, b: HansenParams, R0: n
  *
  * Example: 50/50 by volume of toluene (18.0, 1.4, 2.0) and ethanol
  * (15.8, 8.8, 19.4) → (16.9, 5.1, 10.7).
+ *
+ * Source: Hansen 2007 (module comment), ch. 1: volume-fraction average of the blend's parameters
+ * (common practice).
+ * Validity: ideal volume mixing; blends without strong specific interactions between the solvents.
  */
 export function mixtureHansen(
   parts: Array<{ params: HansenParams; volumeFraction: number }>,

@@ -50,6 +50,10 @@ export const INFINITE_DILUTION_X = 1e-9;
  * @param T_K temperature [K]
  * @param models optional cache of UNIFAC models (same numbers; the model is built once per mixture)
  * @returns γ∞ [-]
+ *
+ * Source: UNIFAC (Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al. 1991), see the
+ * module comment.
+ * Validity: UNIFAC's range (about 275–425 K); γ∞ evaluated at a solute mole fraction of 1e−9.
  */
 export function gammaInfiniteDilution(
   soluteGroups: UnifacGroups,
@@ -96,6 +100,9 @@ export function gammaInfiniteDilution(
  * Throws UnifacParameterError when a group pair has no parameter.
  *
  * Example: benzene {9: 6} → logP ≈ 2.1–2.3 (measured 2.13).
+ *
+ * Source: see the module comment (UNIFAC activity coefficients in the mutually saturated octanol
+ * and water phases).
  */
 export function estimateLogPow(
   soluteGroups: UnifacGroups,

@@ -60,6 +60,9 @@ function checkPKa(pKa: readonly PKa[], pH: number): void {
  * pKa (closer than ~2 units) the independence assumption is approximate.
  *
  * Example: benzoic acid (pKa 4.20) at pH 4.20 → 0.5; at pH 7 → 1.58·10⁻³.
+ *
+ * Source: Henderson–Hasselbalch (module comment).
+ * Validity: pH −2 … 16; ideal dilute solution (activities = concentrations); independent sites.
  */
 export function neutralFraction(pKa: readonly PKa[], pH: number): number {
   checkPKa(pKa, pH);
@@ -85,6 +88,10 @@ export function neutralFraction(pKa: readonly PKa[], pH: number): number {
  * Assumption: ion pairs do not partition (for lipophilic ions with a
  * counter-ion, e.g. quaternary salts, the real log D is higher).
  * Example: benzoic acid log P 1.88, pH 7 → 1.88 − 2.80 = −0.92.
+ *
+ * Source: Henderson–Hasselbalch with only the neutral species partitioning (module comment).
+ * Validity: as neutralFraction; ion-pair partition neglected (it limits log D at large ionisation,
+ * typically 3–4 log units below log P).
  */
 export function logDFromLogP(logP: number, pKa: readonly PKa[], pH: number): number {
   if (!Number.isFinite(logP))
@@ -114,6 +121,9 @@ const COLLANDER_FALLBACK = { a: 1, b: 0 };
  * — a poor guess for alkanes (real slopes > 1.5) and for chlorinated solvents.
  *
  * Example: diethyl ether, log P 1.88 → 1.13·1.88 − 0.17 = 1.95.
+ *
+ * Source: R. Collander, Acta Chem. Scand. 1951, 5, 774; Leo, Hansch & Elkins, Chem. Rev. 1971, 71,
+ * 525 (module comment).
  */
 export function collanderLogK(
   logPow: number,
@@ -132,7 +142,10 @@ export function collanderLogK(
     return {
       logK: COLLANDER_FALLBACK.a * logPow + COLLANDER_FALLBACK.b,
       ...COLLANDER_FALLBACK,
-      source: { ref: 'fallback a = 1, b = 0 (octanol as proxy)', status: 'estimated' },
+      source: {
+        ref: 'fallback a = 1, b = 0 (octanol as proxy)',
+        status: 'estimated',
+      },
       warnings,
     };
   }
@@ -175,6 +188,8 @@ export function collanderLogK(
  *
  * Validity: up to a few mol/L; ks is specific to solute and salt.
  * Example: benzene in NaCl, ks ≈ 0.195 L/mol, 1 M → 10^0.195 = 1.567.
+ *
+ * Source: J. Setschenow, Z. Phys. Chem. 1889, 4, 117 (module comment).
  */
 export function setschenowFactor(ks_Lmol: number, saltMolar: number): number {
   if (!Number.isFinite(ks_Lmol))
@@ -217,6 +232,8 @@ export interface PhaseSpec {
  * Validity: original UNIFAC was fitted to VLE; liquid–liquid partition
  * coefficients from it are typically within a factor 3 (0.5 log) for
  * simple solutes, worse for multifunctional ones. 275–425 K.
+ *
+ * Source: UNIFAC (Fredenslund, Jones & Prausnitz 1975; Hansen et al. 1991), module comment.
  */
 export function partitionByActivity(input: {
   soluteGroups: UnifacGroups;
@@ -224,7 +241,13 @@ export function partitionByActivity(input: {
   aqueous: PhaseSpec;
   T_K: number;
   models?: UnifacModelCache;
-}): { Kx: number; Kc: number; gammaOrganic: number; gammaAqueous: number; warnings: string[] } {
+}): {
+  Kx: number;
+  Kc: number;
+  gammaOrganic: number;
+  gammaAqueous: number;
+  warnings: string[];
+} {
   const { soluteGroups, organic, aqueous, T_K } = input;
   if (!Number.isFinite(T_K) || T_K <= 0)
     throw new EngineError(
@@ -346,6 +369,10 @@ function activityReady(input: DistributionInput): boolean {
  *
  * Throws EngineError('invalid-input') when neither a measurement, a log P
  * nor the UNIFAC inputs are given.
+ *
+ * Source: the methods it combines (module comment): measured D, Collander 1951, UNIFAC,
+ * Henderson–Hasselbalch, Setschenow 1889.
+ * Validity: that of the method used (named in the result); dilute solutes.
  */
 export function distributionRatio(input: DistributionInput): DistributionResult {
   const { solute, organic, aqueous, T_K } = input;
@@ -486,5 +513,12 @@ export function distributionRatio(input: DistributionInput): DistributionResult 
   }
   let D = K * fn(pH);
   if (aqueous.salt) D *= setschenowFactor(aqueous.salt.ks_Lmol, aqueous.salt.molar);
-  return { D, logD: Math.log10(D), basis: 'molar-concentration', method, source, warnings };
+  return {
+    D,
+    logD: Math.log10(D),
+    basis: 'molar-concentration',
+    method,
+    source,
+    warnings,
+  };
 }

@@ -68,6 +68,9 @@ export interface IdealSolubilityResult {
  *
  * Example: naphthalene, Tm = 353.35 K, ΔHfus = 18 980 J/mol, T = 298.15 K →
  * x = exp(−18980/8.314 · (1/298.15 − 1/353.35)) = 0.302.
+ *
+ * Source: Schröder–van Laar equation; Prausnitz, Lichtenthaler & de Azevedo, Molecular
+ * Thermodynamics of Fluid-Phase Equilibria, 3rd ed. 1999, eq. 11-13.
  */
 export function idealSolubility(input: {
   meltingPointK: number;
@@ -178,12 +181,22 @@ export interface ActivitySolubilityRoot {
  * @returns the lowest-concentration root with its convergence flag
  *
  * Validity: as the activity model; deterministic.
+ *
+ * Source: solid–liquid equilibrium x γ(x, T) = x_ideal(T) (Prausnitz et al. 1999, ch. 11) with
+ * UNIFAC activity coefficients.
  */
 export function solveActivitySolubility(
   lnGammaSolute: (x: number) => number,
   xIdeal: number,
 ): ActivitySolubilityRoot {
-  if (xIdeal >= 1) return { x: 1, lnGamma: 0, signChanges: 0, converged: true, belowGrid: false };
+  if (xIdeal >= 1)
+    return {
+      x: 1,
+      lnGamma: 0,
+      signChanges: 0,
+      converged: true,
+      belowGrid: false,
+    };
   const lnXi = Math.log(xIdeal);
   const f = (x: number): number => Math.log(x) + lnGammaSolute(x) - lnXi;
   let prevX = SCAN_GRID[0];
@@ -231,7 +244,13 @@ export function solveActivitySolubility(
     { fa: fLo, fb: fHi },
   );
   const x = Math.exp(r.root);
-  return { x, lnGamma: lnGammaSolute(x), signChanges, converged: r.converged, belowGrid: false };
+  return {
+    x,
+    lnGamma: lnGammaSolute(x),
+    signChanges,
+    converged: r.converged,
+    belowGrid: false,
+  };
 }
 
 /**
@@ -263,6 +282,9 @@ export function solveActivitySolubility(
  * Validity: UNIFAC's LLE weakness applies (the split's compositions can be
  * off by a factor 2–10); the test is on the pseudo-binary dilution line and
  * does not look for splits of the solvent blend itself.
+ *
+ * Source: tangent-plane stability (M. L. Michelsen, Fluid Phase Equilib. 1982, 9, 1) and
+ * Rachford–Rice flash; oiling out as in Veesler et al., Org. Process Res. Dev. 2006, 10, 841.
  */
 export function liquidPhaseSeparation(input: {
   soluteGroups: UnifacGroups;
@@ -304,7 +326,11 @@ export function liquidPhaseSeparation(input: {
   if (Number.isNaN(unstableAt)) return { kind: 'none', warnings: [] };
   const zAll = [unstableAt, ...z.map((v) => (1 - unstableAt) * v)];
   const sys: VleSystem = {
-    components: components.map((g) => ({ antoine: [], unifac: g, nonVolatile: true })),
+    components: components.map((g) => ({
+      antoine: [],
+      unifac: g,
+      nonVolatile: true,
+    })),
     unifac: model,
     regressedPairs: [],
     warnings: [],
@@ -349,6 +375,9 @@ export function liquidPhaseSeparation(input: {
  * 'unifac-missing-parameters') when a group pair has no parameter.
  * Example: naphthalene (Tm 353.35 K, ΔHfus 18 980 J/mol) in toluene at
  * 293.15 K → x ≈ 0.264 (Prausnitz et al. tabulate 0.224).
+ *
+ * Source: Prausnitz et al. 1999, ch. 11 (solid–liquid equilibrium) with UNIFAC (Fredenslund et al.
+ * 1975; Hansen et al. 1991).
  */
 export function activityCorrectedSolubility(input: {
   meltingPointK: number;
@@ -366,7 +395,10 @@ export function activityCorrectedSolubility(input: {
     throw new EngineError(
       'invalid-input',
       'Give one mole fraction for each solvent (at least one solvent).',
-      { solvents: solventGroups.length, fractions: solventMoleFractions.length },
+      {
+        solvents: solventGroups.length,
+        fractions: solventMoleFractions.length,
+      },
     );
   }
   let sum = 0;
@@ -438,6 +470,9 @@ export function activityCorrectedSolubility(input: {
  * @param t      the test result
  * @param label  how to name the solute in the message (e.g. its name)
  * @returns zero or one message
+ *
+ * Source: liquidPhaseSeparation (Michelsen 1982; Veesler et al. 2006).
+ * Validity: as liquidPhaseSeparation (UNIFAC's liquid–liquid weakness applies).
  */
 export function oilingOutWarnings(t: OilingOutTest, label: string): string[] {
   if (t.kind === 'stable')
@@ -547,10 +582,15 @@ export interface FitRange {
  * x > 1 can come out of a wild extrapolation.
  * Example: points (290 K, 0.010), (310 K, 0.020) → b = ln 2 / (1/310 − 1/290) = −3116 K,
  * a = ln 0.010 − b/290 = 6.14.
+ *
+ * Source: van 't Hoff form ln x = a + b/T, least squares (e.g. Prausnitz et al. 1999, ch. 11).
  */
-export function fitVantHoff(
-  points: Point[],
-): { a: number; b: number; rmseLn: number; predict(T_K: number): number } & FitRange {
+export function fitVantHoff(points: Point[]): {
+  a: number;
+  b: number;
+  rmseLn: number;
+  predict(T_K: number): number;
+} & FitRange {
   checkPoints(points, 2, "van 't Hoff");
   const Tref = points.reduce((s, p) => s + p.T_K, 0) / points.length;
   const y = points.map((p) => Math.log(p.moleFraction));
@@ -586,10 +626,16 @@ export function fitVantHoff(
  *
  * Validity: as for van 't Hoff — a correlation for interpolation; the three
  * parameters are strongly correlated and individually not meaningful.
+ *
+ * Source: A. Apelblat, E. Manzurola, J. Chem. Thermodyn. 1999, 31, 85.
  */
-export function fitApelblat(
-  points: Point[],
-): { A: number; B: number; C: number; rmseLn: number; predict(T_K: number): number } & FitRange {
+export function fitApelblat(points: Point[]): {
+  A: number;
+  B: number;
+  C: number;
+  rmseLn: number;
+  predict(T_K: number): number;
+} & FitRange {
   checkPoints(points, 3, 'Apelblat');
   const Tref = points.reduce((s, p) => s + p.T_K, 0) / points.length;
   const y = points.map((p) => Math.log(p.moleFraction));
@@ -658,6 +704,8 @@ export interface JouybanPair {
  * sum to 1 within 1e−6, J is given as `interaction` for other than two
  * solvents, or a pair index is out of range.
  * Example: ln x1 = −2, ln x2 = −8, f = (0.5, 0.5), no J → −5.
+ *
+ * Source: A. Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32.
  */
 export function jouybanAcree(input: {
   lnSolubilities: number[];
@@ -728,6 +776,9 @@ export function jouybanAcree(input: {
  * here; for dilute solutions the two agree.
  * Example: naphthalene x = 0.10 in toluene (92.14 g/mol, 0.8623 g/mL):
  * 0.1/0.9 · 9.359 mol/L · 128.17 g/mol = 133.3 g/L.
+ *
+ * Source: definition (mass balance with the solvent's density; ideal volumes).
+ * Validity: dilute to moderate solutions; the solution volume is taken as the solvent volume.
  */
 export function moleFractionToGramsPerLitre(input: {
   moleFraction: number;
@@ -764,6 +815,9 @@ export function moleFractionToGramsPerLitre(input: {
  * @param input.soluteMolarMassGmol [g/mol]; input.solventMolarMassGmol [g/mol];
  *   input.solventDensityGmL [g/mL]
  * @returns x [-]
+ *
+ * Source: definition (inverse of moleFractionToGramsPerLitre).
+ * Validity: as moleFractionToGramsPerLitre.
  */
 export function gramsPerLitreToMoleFraction(input: {
   gramsPerLitre: number;
