@@ -29,7 +29,12 @@ export interface SolventVle {
   sys: VleSystem;
 }
 
-/** The solvent components of the route, in id order (volatile liquids). */
+/** The solvent components of the route, in id order (volatile liquids). *
+ * Source: the route document (no physics).
+ * Validity: any route.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @returns ids of the solvent components, in route order
+ */
 export function solventIds(ctx: EvalContext): string[] {
   return ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent');
 }
@@ -41,6 +46,12 @@ const vleCache = new Map<string, VleSystem>();
  * components. Solutes are treated as non-volatile and left out of the
  * activity coefficients (dilute-solution assumption, stated in the methods).
  * Systems are memoised by their solvent list (pure: same inputs, same system).
+ *
+ * Source: createVleSystem (thermo/vle.ts): UNIFAC, Hansen et al. 1991; regressed water pairs, Renon & Prausnitz 1968.
+ * Validity: as createVleSystem.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param ids  solvent component ids of the system
+ * @returns the ids and the memoised VLE system; throws when UNIFAC lacks a group pair
  */
 export function solventVle(ctx: EvalContext, ids: string[]): SolventVle {
   const key = ids.map((id) => ctx.comps.get(id)!.solvent!.id).join('|');
@@ -96,6 +107,11 @@ export interface LiquidSplit {
  * @returns the solvent kg of each phase [kg] and whether two phases form
  *
  * Validity: as liquidLiquidSplit; 0–80 °C.
+ *
+ * Source: thermo/vle.ts liquidLiquidSplit (Michelsen 1982; Rachford & Rice 1952) with the regressed liquid model (thermo/nrtl.ts); lever rule: mass balance.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param warnings  receives the notes and warnings of the split
+ * @param methods   receives the method used
  */
 export function splitLiquid(
   ctx: EvalContext,
@@ -313,6 +329,16 @@ function morePolarPhase(
  * UNIFAC lacks a parameter; the caller keeps the compound in the feed phase.
  *
  * @param lessPolarKg, polarKg solvent kg of each phase [kg]; T_K [K]
+ *
+ * Source: properties/partition.ts partitionByActivity (UNIFAC: Fredenslund, Jones & Prausnitz 1975; Hansen et al. 1991).
+ * Validity: dilute solutes; UNIFAC's range (≈ 275–425 K); D typically within 0.5 log units.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param compoundId  route compound id
+ * @param lessPolarKg  solvent kg of the less polar phase [kg]
+ * @param polarKg  solvent kg of the more polar phase [kg]
+ * @param T_K  temperature [K]
+ * @param warnings  receives the warnings
+ * @returns D [-] with its method and source, or null
  */
 export function organicOrganicDistribution(
   ctx: EvalContext,
@@ -439,6 +465,15 @@ export interface PHInput {
  * c_aq Σ_base sites 1/(1 + 10^(pH − pKa)) cations to the balance. This is how
  * a bicarbonate wash facing more acid than base ends near the acid's pKa.
  * Returns null when there is no water.
+ *
+ * Source: charge balance with Henderson–Hasselbalch fractions (e.g. Harris, Quantitative Chemical Analysis, systematic treatment of equilibrium; cited from memory).
+ * Validity: ideal dilute solution (activities = concentrations), 25 °C constants, pH −2 … 16.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param input.volumeM3  aqueous phase volume [m³]
+ * @param input.kg  kg of each component in the aqueous phase [kg]
+ * @param input.extraStrongAcidMol  extra strong acid (+) or base (−) [mol]
+ * @param input.carried  ionisable compounds carried into a contact (amounts [mol], pKa [-], K [-], organic volume [m³])
+ * @returns pH [-], or null without water
  */
 export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
   const VL = input.volumeM3 * 1000;
@@ -582,6 +617,11 @@ export interface SoluteDistribution {
  * @param phases  solvent kg of each phase [kg] (mutually saturated phases), see compoundDistribution
  *
  * Validity: as compoundDistribution.
+ *
+ * Source: Henderson–Hasselbalch with compoundDistribution (properties/partition.ts).
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param compoundId  route compound id
+ * @param organicSolventComponentId  main organic solvent component id
  */
 export function neutralPartitionCoefficient(
   ctx: EvalContext,
@@ -636,6 +676,12 @@ export function neutralPartitionCoefficient(
  * @returns D [-] (Infinity when nothing is known: the compound stays organic, with a warning)
  *
  * Validity: dilute solutes; as the method used.
+ *
+ * Source: properties/partition.ts distributionRatio (measured D; Collander 1951; UNIFAC; Henderson–Hasselbalch; Setschenow 1889).
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param compoundId  route compound id
+ * @param organicSolventComponentId  main organic solvent component id
+ * @param warnings  receives the warnings
  */
 export function compoundDistribution(
   ctx: EvalContext,

@@ -97,6 +97,17 @@ function solventsOnly(ctx: EvalContext, kg: Record<string, number>): Record<stri
 /**
  * One equilibrium contact of a liquid mixture: solvent split, pH of the
  * aqueous phase, and the distribution ratio of each compound.
+ *
+ * Source: splitLiquid, aqueousPH and compoundDistribution (equilibria.ts).
+ * Validity: dilute solutes; 0–80 °C; as the methods used.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param mix  kg of every component in the contact [kg]
+ * @param T_K  temperature [K]
+ * @param pHOverride  stated pH of the medium [-], or undefined to compute it
+ * @param warnings  receives the warnings
+ * @param methods  receives the methods used
+ * @param feedIsPolar  whether the feed is the more polar phase (organic–organic washes)
+ * @returns the two phases [kg], pH [-], volumes [m³], distribution ratios [-], the fraction of each compound to the organic phase [-] and the CO₂ formed [mol]
  */
 export function equilibrate(
   ctx: EvalContext,
@@ -267,6 +278,19 @@ function carbonicAcidFraction(a: AqueousSoluteRecord, pH: number): number {
   return 1 / (1 + 10 ** (pH - k1) + (k2 === undefined ? 0 : 10 ** (2 * pH - k1 - k2)));
 }
 
+/**
+ * The wash and extraction step model (see the module comment): the added
+ * liquid contacts the feed in cross-current or counter-current stages.
+ *
+ * Source: see the module comment (Harris; Kremser 1930; Seader, Henley & Roper).
+ * Validity: dilute solutes, 0–80 °C, equilibrium stages.
+ *
+ * @param inputs  the feed stream [kg per component]
+ * @param params  the step parameters (volumes in the chemist's units, temperature in °C)
+ * @param ctx     evaluation context
+ * @param step    the route step
+ * @returns the organic and aqueous outputs [kg] and the step result
+ */
 export function washOrExtraction(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'wash'>,
@@ -546,6 +570,8 @@ export const COUNTER_CURRENT_MAX_SWEEPS = 200;
  * Source: stage balances as in Seader, Henley & Roper, Separation Process
  * Principles (liquid–liquid extraction chapter); Thomas algorithm (any
  * numerical-analysis text). Validity: equilibrium stages, no entrainment.
+ *
+ * @param ctx  evaluation context (route components resolved against the library)
  */
 export function counterCurrentCascade(
   ctx: EvalContext,
@@ -649,6 +675,11 @@ export function counterCurrentCascade(
  * ideal counter-current stages with extraction factor E toward the solvent.
  *   φ = (E − 1)/(E^{N+1} − 1),   φ = 1/(N + 1) for E = 1.
  * E [-] ≥ 0, N [-] ≥ 1 integer. Returns φ in [0, 1].
+ *
+ * Source: A. Kremser, Natl. Petrol. News 1930, 22(21), 42; Seader, Henley & Roper, Separation Process Principles.
+ * Validity: ideal stages, constant E and immiscible liquids.
+ * @param E  extraction factor toward the added phase [-], ≥ 0
+ * @param N  number of stages [-], integer ≥ 1
  */
 export function kremserFractionRemaining(E: number, N: number): number {
   if (!(E >= 0)) return 1;
@@ -662,7 +693,13 @@ export function kremserFractionRemaining(E: number, N: number): number {
   return (1 - E) / (1 - E ** (N + 1));
 }
 
-/** Cross-current: fraction left after n stages, q^n with q = 1/(1 + E) (Harris). */
+/** Cross-current: fraction left after n stages, q^n with q = 1/(1 + E) (Harris). *
+ * Source: Harris, Quantitative Chemical Analysis, extraction section (attribution from memory).
+ * Validity: equal stages, constant E, immiscible liquids.
+ * @param E  extraction factor of one stage [-], ≥ 0
+ * @param n  number of stages [-]
+ * @returns fraction left in the feed phase [-]
+ */
 export function crossCurrentFractionRemaining(E: number, n: number): number {
   return (1 / (1 + E)) ** n;
 }
