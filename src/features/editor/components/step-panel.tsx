@@ -29,20 +29,7 @@ export function StepPanel({ step, compounds }: { step: StepInput; compounds?: Co
     return out;
   }, [step, engineIssues]);
   const set = (path: Path, value: unknown) => updateStep(step.id, path, value);
-  const err = (path: Path) => schemaErrors[path.join('.')];
   const val = (path: Path) => getIn(step, path);
-  const placed = new Set<string>();
-  const ctx = {
-    set,
-    err: (p: Path) => {
-      placed.add(p.join('.'));
-      return err(p);
-    },
-    val,
-    compounds,
-  };
-  const form = KindForm({ kind: step.kind, ...ctx });
-  const unplaced = Object.entries(schemaErrors).filter(([k]) => !placed.has(k));
 
   return (
     <div className="space-y-3" aria-label={`Settings of ${step.name}`} role="form">
@@ -51,6 +38,43 @@ export function StepPanel({ step, compounds }: { step: StepInput; compounds?: Co
         value={step.name}
         onCommit={(v) => useEditorStore.getState().renameStep(step.id, v)}
       />
+      <KindForm kind={step.kind} errors={schemaErrors} set={set} val={val} compounds={compounds} />
+      <Inputs step={step} />
+    </div>
+  );
+}
+
+/**
+ * The kind's fields, each with its own problem beside it; problems that belong
+ * to no field on the form are listed above the fields. Which fields the form
+ * shows is collected while this component builds its own elements (a local set,
+ * nothing outside it is touched), so the list is exactly the remainder.
+ */
+function KindForm({
+  kind,
+  errors,
+  set,
+  val,
+  compounds,
+}: Omit<Ctx, 'err' | 'claim'> & { errors: Record<string, string> }) {
+  const placed = new Set<string>();
+  const claimed: string[] = [];
+  const lookup = (p: Path) => errors[p.join('.')];
+  const err = (p: Path) => {
+    placed.add(p.join('.'));
+    return lookup(p);
+  };
+  // A sub-form (a component of its own) takes every problem under its path.
+  const claim = (prefix: Path) => {
+    claimed.push(prefix.join('.'));
+    return lookup;
+  };
+  const fields = kindFields({ kind, set, err, val, compounds, claim });
+  const unplaced = Object.entries(errors).filter(
+    ([k]) => !placed.has(k) && !claimed.some((c) => k === c || k.startsWith(`${c}.`)),
+  );
+  return (
+    <>
       {unplaced.length ? (
         <ul
           className="space-y-1 rounded-control border border-caution-hazard/40 bg-caution-hazard-soft px-2 py-1.5 text-caption text-caution-hazard-deep"
@@ -68,9 +92,8 @@ export function StepPanel({ step, compounds }: { step: StepInput; compounds?: Co
           ))}
         </ul>
       ) : null}
-      {form}
-      <Inputs step={step} />
-    </div>
+      {fields}
+    </>
   );
 }
 
@@ -80,9 +103,11 @@ type Ctx = {
   err: (p: Path) => string | undefined;
   val: (p: Path) => unknown;
   compounds?: Compound[];
+  claim: (prefix: Path) => (p: Path) => string | undefined;
 };
 
-function KindForm({ kind, set, err, val, compounds }: Ctx) {
+/** The fields of one step kind: a plain builder of elements (no hooks), used by KindForm only. */
+function kindFields({ kind, set, err, val, compounds, claim }: Ctx) {
   const q = (
     label: string,
     qk: Parameters<typeof QuantityField>[0]['kind'],
@@ -625,13 +650,13 @@ function KindForm({ kind, set, err, val, compounds }: Ctx) {
         <>
           {q('Carbon charge (wt % of dissolved solids)', 'percent', ['params', 'carbonWtPct'])}
           {q('Temperature', 'temperature', ['params', 'temperatureC'])}
-          <Removals set={set} err={err} val={val} compounds={compounds} />
+          <Removals set={set} err={claim(['params', 'removals'])} val={val} compounds={compounds} />
         </>
       );
     case 'polish-filtration':
       return (
         <>
-          <Removals set={set} err={err} val={val} compounds={compounds} />
+          <Removals set={set} err={claim(['params', 'removals'])} val={val} compounds={compounds} />
           {q('Temperature (optional)', 'temperature', ['params', 'temperatureC'])}
         </>
       );
@@ -658,7 +683,7 @@ function ensureAqueous(soluteId: string) {
 }
 
 /** What a treatment takes out: a component and the fraction of it removed, one row each. */
-function Removals({ set, err, val, compounds }: Omit<Ctx, 'kind'>) {
+function Removals({ set, err, val, compounds }: Omit<Ctx, 'kind' | 'claim'>) {
   const removals =
     (val(['params', 'removals']) as
       Array<{ componentId: string; fractionRemoved: unknown }> | undefined) ?? [];
@@ -668,6 +693,11 @@ function Removals({ set, err, val, compounds }: Omit<Ctx, 'kind'>) {
       aria-label="Removed by this step"
     >
       <legend className="px-1 text-small font-medium">Removed by this step</legend>
+      {err(['params', 'removals']) ? (
+        <p className="text-caption text-caution-hazard-deep" role="alert">
+          {err(['params', 'removals'])}
+        </p>
+      ) : null}
       {removals.length ? null : (
         <p className="text-caption text-ink-muted">
           Nothing removed yet. Add the components this step takes out, with the fraction of each
