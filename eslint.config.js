@@ -79,6 +79,36 @@ const layerZones = [
   },
 ];
 
+/**
+ * Query keys and URLs have one source each (DEVELOPERS.md, "How to add a query"
+ * and "How to add a URL"): a key is built by src/api/query-keys.ts, an API
+ * address by src/paths.ts. Anywhere else in src an array literal used as a
+ * query key, or a string that starts with /api/, is refused.
+ */
+const QUERY_KEY_MESSAGE =
+  'Build query keys with queryKeys from @/api/query-keys, never as an array literal.';
+const queryKeySyntax = [
+  { selector: "Property[key.name='queryKey'] > ArrayExpression", message: QUERY_KEY_MESSAGE },
+  {
+    selector: "Property[key.name='queryKey'] > TSAsExpression > ArrayExpression",
+    message: QUERY_KEY_MESSAGE,
+  },
+  {
+    selector:
+      'CallExpression[callee.property.name=/^(get|set)Quer(y|ies)(Data|State)$/] > ArrayExpression',
+    message: QUERY_KEY_MESSAGE,
+  },
+  {
+    selector: "MemberExpression[object.property.name='queryKey'][computed=true]",
+    message: 'Match queries with the keys of @/api/query-keys, not by reading a key’s parts.',
+  },
+];
+const URL_MESSAGE = 'API addresses live in src/paths.ts (api.*); use them from there.';
+const urlSyntax = [
+  { selector: 'Literal[value=/^\\/api\\//]', message: URL_MESSAGE },
+  { selector: 'TemplateElement[value.raw=/^\\/api\\//]', message: URL_MESSAGE },
+];
+
 export default tseslint.config(
   {
     ignores: [
@@ -136,6 +166,19 @@ export default tseslint.config(
       ],
       'no-restricted-globals': ['error', 'window', 'document', 'fetch', 'localStorage'],
     },
+  },
+  {
+    files: ['src/**/*.{ts,tsx}'],
+    ignores: ['src/api/query-keys.ts', 'src/paths.ts'],
+    rules: { 'no-restricted-syntax': ['error', ...queryKeySyntax, ...urlSyntax] },
+  },
+  {
+    files: ['src/api/query-keys.ts'],
+    rules: { 'no-restricted-syntax': ['error', ...urlSyntax] },
+  },
+  {
+    files: ['src/paths.ts'],
+    rules: { 'no-restricted-syntax': ['error', ...queryKeySyntax] },
   },
   {
     // Every payload string is storable text (no NUL, no lone surrogate): build it with text().

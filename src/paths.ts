@@ -1,6 +1,8 @@
 /**
- * Every URL the client links to or navigates to, in one place. `pattern` is
- * what the router matches; `to(...)` builds a concrete link.
+ * Every URL of the client, in one place: `paths` are the pages (`pattern` is
+ * what the router matches; `to(...)` builds a concrete link) and `api` the
+ * server's endpoints. Lint refuses an `/api/` address written anywhere else in
+ * src (eslint.config.js, "URLs").
  */
 export const paths = {
   root: { pattern: '/', to: () => '/' },
@@ -72,6 +74,8 @@ export function safeNext(next: string | null | undefined): string {
   return next;
 }
 
+const ws = (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}`;
+
 export const api = {
   session: '/api/v1/session',
   accountPassword: '/api/v1/account/password',
@@ -108,6 +112,8 @@ export const api = {
     `${api.revisions(workspaceId, routeId)}/${number}/review-requests`,
   revisionComments: (workspaceId: string, routeId: string, number: number) =>
     `${api.revisions(workspaceId, routeId)}/${number}/comments`,
+  revisionComment: (workspaceId: string, routeId: string, number: number, commentId: string) =>
+    `${api.revisions(workspaceId, routeId)}/${number}/comments/${encodeURIComponent(commentId)}`,
   revisionDecisions: (workspaceId: string, routeId: string, number: number) =>
     `${api.revisions(workspaceId, routeId)}/${number}/decisions`,
   stepList: (workspaceId: string, routeId: string, number: number) =>
@@ -119,4 +125,21 @@ export const api = {
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit/verify`,
   auditCsv: (workspaceId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit/export.csv`,
+  routes: (workspaceId: string, q: { archived?: boolean; q?: string } = {}) => {
+    const params = new URLSearchParams();
+    if (q.archived !== undefined) params.set('archived', String(q.archived));
+    if (q.q) params.set('q', q.q);
+    const s = params.toString();
+    return `${ws(workspaceId)}/routes${s ? `?${s}` : ''}`;
+  },
+  route: (workspaceId: string, routeId: string) =>
+    `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}`,
+  routeDuplicate: (workspaceId: string, routeId: string) =>
+    `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}/duplicate`,
+  routeDraft: (workspaceId: string, routeId: string) =>
+    `${ws(workspaceId)}/routes/${encodeURIComponent(routeId)}/draft`,
+  projects: (workspaceId: string) => `${ws(workspaceId)}/projects`,
+  evaluate: '/api/v1/evaluate',
+  monteCarlo: '/api/v1/evaluate/monte-carlo',
+  job: (jobId: string) => `/api/v1/jobs/${encodeURIComponent(jobId)}`,
 } as const;

@@ -2,7 +2,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { useState, type ReactNode } from 'react';
 import type { Session } from '@shared/schemas/session';
 import { configureApiClient, isApiError } from '@/api/client';
-import { sessionQueryKey } from '@/features/auth/api/get-session';
+import { queryKeys } from '@/api/query-keys';
 import { markSessionEnded } from '@/features/auth/session-end';
 import { Toaster } from '@/components/toaster';
 import { AppErrorBoundary } from './error-boundary';
@@ -20,12 +20,12 @@ export function createQueryClient() {
     },
   });
   configureApiClient({
-    getCsrfToken: () => queryClient.getQueryData<Session | null>(sessionQueryKey)?.csrfToken,
+    getCsrfToken: () => queryClient.getQueryData<Session | null>(queryKeys.session())?.csrfToken,
     onUnauthorized: () => {
       // The session ended (idle timeout, signed out elsewhere): forget it, and
       // the guard sends the person to sign in, where they are told why.
-      if (queryClient.getQueryData<Session | null>(sessionQueryKey)) markSessionEnded();
-      queryClient.setQueryData(sessionQueryKey, null);
+      if (queryClient.getQueryData<Session | null>(queryKeys.session())) markSessionEnded();
+      queryClient.setQueryData(queryKeys.session(), null);
     },
   });
   return queryClient;

@@ -1,5 +1,4 @@
 // The auth feature's public face: what other features may import.
-export { sessionQueryKey } from './api/get-session';
 export { clearSessionEnd } from './session-end';
 export { useSession } from './api/get-session';
 export { canInWorkspace } from './abilities';

@@ -1,6 +1,5 @@
 // The review feature's public face: revisions, their review and signatures, the attention list.
 export {
-  reviewKeys,
   useComments,
   useCompare,
   useRevision,

@@ -1,6 +1,4 @@
 // The routes feature's public face: what other features may import.
 export type { Draft, DraftConflict, Job, Percentiles, RouteDetail } from './api/schemas';
 export { jobAcceptedSchema, jobSchema } from './api/schemas';
-export { routesApi } from './api/urls';
 export { saveDraft } from './api/save-draft';
-export { useWorkspaceCompounds } from './api/get-compounds';

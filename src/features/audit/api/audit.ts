@@ -2,6 +2,7 @@ import { useInfiniteQuery, useMutation } from '@tanstack/react-query';
 import { auditListSchema, auditVerifySchema, type AuditFilter } from '@shared/schemas/audit';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 const query = (filter: AuditFilter, extra: Record<string, string> = {}) => {
   const params = new URLSearchParams(extra);
@@ -10,15 +11,10 @@ const query = (filter: AuditFilter, extra: Record<string, string> = {}) => {
   return text ? `?${text}` : '';
 };
 
-export const auditKeys = {
-  list: (workspaceId: string, filter: AuditFilter) =>
-    ['workspaces', workspaceId, 'audit', filter] as const,
-};
-
 /** The filtered trail, newest first, a page at a time ("Show more"). */
 export const useAuditTrail = (workspaceId: string, filter: AuditFilter) =>
   useInfiniteQuery({
-    queryKey: auditKeys.list(workspaceId, filter),
+    queryKey: queryKeys.audit.list(workspaceId, filter),
     queryFn: ({ pageParam, signal }) =>
       apiRequest(
         `${api.audit(workspaceId)}${query(filter, { limit: '100', ...(pageParam ? { cursor: pageParam } : {}) })}`,

@@ -2,9 +2,8 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { sessionSchema, type Session } from '@shared/schemas/session';
 import { apiRequest, isApiError } from '@/api/client';
 import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 import { markSessionEnded } from '../session-end';
-
-export const sessionQueryKey = ['session'] as const;
 
 /** The signed-in session, or null when signed out (the API answers 401). */
 export async function getSession(signal?: AbortSignal): Promise<Session | null> {
@@ -22,11 +21,11 @@ export async function getSession(signal?: AbortSignal): Promise<Session | null> 
 
 export const getSessionQueryOptions = () =>
   queryOptions({
-    queryKey: sessionQueryKey,
+    queryKey: queryKeys.session(),
     queryFn: async ({ signal, client }) => {
       const session = await getSession(signal);
       // Signed in a moment ago, signed out now: the session ended on the server.
-      if (!session && client.getQueryData<Session | null>(sessionQueryKey)) markSessionEnded();
+      if (!session && client.getQueryData<Session | null>(queryKeys.session())) markSessionEnded();
       return session;
     },
     staleTime: 60_000,

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { sessionSchema, type SignInInput } from '@shared/schemas/session';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { sessionQueryKey } from './get-session';
+import { allQueriesExcept, queryKeys } from '@/api/query-keys';
 
 export const signIn = (input: SignInInput) =>
   apiRequest(api.session, {
@@ -18,8 +18,8 @@ export const useSignIn = () => {
     mutationFn: signIn,
     onSuccess: (session) => {
       // A new person may be signing in: drop whatever the last one loaded.
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] });
-      queryClient.setQueryData(sessionQueryKey, session);
+      queryClient.removeQueries({ predicate: allQueriesExcept(queryKeys.session()) });
+      queryClient.setQueryData(queryKeys.session(), session);
     },
   });
 };

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { sessionQueryKey } from './get-session';
+import { allQueriesExcept, queryKeys } from '@/api/query-keys';
 import { markSignedOut } from '../session-end';
 
 export const signOut = () =>
@@ -13,8 +13,8 @@ export const useSignOut = () => {
     mutationFn: signOut,
     onSettled: () => {
       markSignedOut();
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] });
-      queryClient.setQueryData(sessionQueryKey, null);
+      queryClient.removeQueries({ predicate: allQueriesExcept(queryKeys.session()) });
+      queryClient.setQueryData(queryKeys.session(), null);
     },
   });
 };

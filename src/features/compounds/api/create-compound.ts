@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { compoundSchema, type CompoundCreateInput } from '@shared/schemas/compounds';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getCompoundsQueryOptions } from './get-compounds';
+import { queryKeys } from '@/api/query-keys';
 
 export const createCompound = (workspaceId: string, input: CompoundCreateInput) =>
   apiRequest(api.compounds(workspaceId), { method: 'POST', body: input, schema: compoundSchema });
@@ -12,6 +12,6 @@ export const useCreateCompound = (workspaceId: string) => {
   return useMutation({
     mutationFn: (input: CompoundCreateInput) => createCompound(workspaceId, input),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.compounds.list(workspaceId) }),
   });
 };

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getCompoundsQueryOptions } from './get-compounds';
+import { queryKeys } from '@/api/query-keys';
 
 export const deleteCompound = (workspaceId: string, compoundId: string) =>
   apiRequest(api.compound(workspaceId, compoundId), { method: 'DELETE' });
@@ -11,6 +11,6 @@ export const useDeleteCompound = (workspaceId: string) => {
   return useMutation({
     mutationFn: (compoundId: string) => deleteCompound(workspaceId, compoundId),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.compounds.list(workspaceId) }),
   });
 };

@@ -2,6 +2,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import { structurePreviewSchema, type StructurePreviewRequest } from '@shared/schemas/compounds';
 import { apiRequest, isApiError } from '@/api/client';
 import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export const previewStructure = (input: StructurePreviewRequest, signal?: AbortSignal) =>
   apiRequest(api.structurePreview, {
@@ -13,7 +14,7 @@ export const previewStructure = (input: StructurePreviewRequest, signal?: AbortS
 
 export const previewStructureQueryOptions = (input: StructurePreviewRequest | null) =>
   queryOptions({
-    queryKey: ['structure-preview', input],
+    queryKey: queryKeys.structurePreview(input),
     queryFn: ({ signal }) => previewStructure(input!, signal),
     enabled: input !== null,
     staleTime: Infinity,

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { compoundSchema, type CompoundUpdateInput } from '@shared/schemas/compounds';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getCompoundsQueryOptions } from './get-compounds';
+import { queryKeys } from '@/api/query-keys';
 
 export const updateCompound = (
   workspaceId: string,
@@ -21,6 +21,6 @@ export const useUpdateCompound = (workspaceId: string) => {
     mutationFn: ({ compoundId, input }: { compoundId: string; input: CompoundUpdateInput }) =>
       updateCompound(workspaceId, compoundId, input),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getCompoundsQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.compounds.list(workspaceId) }),
   });
 };

@@ -9,7 +9,7 @@ import { formatDateTime } from '@/lib/format';
 import { paths } from '@/paths';
 import { useEditorStore } from '@/stores/editor-store';
 import type { DraftConflict, RouteDetail } from '@/features/routes';
-import { useWorkspaceCompounds } from '@/features/routes';
+import { useCompounds } from '@/features/compounds';
 import { requestEvaluation, resetEvaluation, useEvaluation } from '../evaluation';
 import { initialDocument, useAutosave, type SaveState } from '../autosave';
 import { normaliseDocument } from '../document';
@@ -106,7 +106,7 @@ function EditorFrame({
 }) {
   const canEdit = !view && route.abilities.edit;
   const save = useAutosave(workspaceId, route.id, route.draft, canEdit, restored);
-  const compounds = useWorkspaceCompounds(workspaceId);
+  const compounds = useCompounds(workspaceId);
   const viewTabs = view?.tabs ?? [];
   const viewTabKey = viewTabs.map((v) => v.id).join(' ');
   const [tab, setTab] = useState<string>(view?.initialTab ?? 'cautions');

@@ -3,7 +3,8 @@ import type { AcceptInvitationInput } from '@shared/schemas/members';
 import { sessionSchema } from '@shared/schemas/session';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { sessionQueryKey, clearSessionEnd } from '@/features/auth';
+import { allQueriesExcept, queryKeys } from '@/api/query-keys';
+import { clearSessionEnd } from '@/features/auth';
 
 /** Joins the workspace; the reply is the new session (the person is signed in). */
 export const acceptInvitation = (token: string, input: AcceptInvitationInput) =>
@@ -22,10 +23,10 @@ export const useAcceptInvitation = (token: string) => {
       // Forget what an earlier session loaded. The invitation itself stays: the
       // page still shows it while navigating, and refetching a used one answers 410.
       queryClient.removeQueries({
-        predicate: (q) => q.queryKey[0] !== sessionQueryKey[0] && q.queryKey[0] !== 'invitations',
+        predicate: allQueriesExcept(queryKeys.session(), queryKeys.invitations.all()),
       });
       clearSessionEnd();
-      queryClient.setQueryData(sessionQueryKey, session);
+      queryClient.setQueryData(queryKeys.session(), session);
     },
   });
 };

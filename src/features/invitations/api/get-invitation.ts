@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { invitationInfoSchema } from '@shared/schemas/members';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export const getInvitation = (token: string, signal?: AbortSignal) =>
   apiRequest(api.invitation(token), {
@@ -12,7 +13,7 @@ export const getInvitation = (token: string, signal?: AbortSignal) =>
 
 export const getInvitationQueryOptions = (token: string) =>
   queryOptions({
-    queryKey: ['invitations', token],
+    queryKey: queryKeys.invitations.one(token),
     queryFn: ({ signal }) => getInvitation(token, signal),
     retry: false,
   });

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { invitationSchema, type InviteInput } from '@shared/schemas/members';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getMembersQueryOptions } from './get-members';
+import { queryKeys } from '@/api/query-keys';
 
 export const inviteMember = (workspaceId: string, input: InviteInput) =>
   apiRequest(api.invitations(workspaceId), {
@@ -16,6 +16,6 @@ export const useInviteMember = (workspaceId: string) => {
   return useMutation({
     mutationFn: (input: InviteInput) => inviteMember(workspaceId, input),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.members.list(workspaceId) }),
   });
 };

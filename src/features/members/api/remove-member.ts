@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getMembersQueryOptions } from './get-members';
+import { queryKeys } from '@/api/query-keys';
 
 export const removeMember = (workspaceId: string, userId: string) =>
   apiRequest(api.member(workspaceId, userId), { method: 'DELETE' });
@@ -11,6 +11,6 @@ export const useRemoveMember = (workspaceId: string) => {
   return useMutation({
     mutationFn: (userId: string) => removeMember(workspaceId, userId),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.members.list(workspaceId) }),
   });
 };

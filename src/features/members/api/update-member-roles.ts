@@ -2,8 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { memberSchema, type UpdateRolesInput } from '@shared/schemas/members';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getMembersQueryOptions } from './get-members';
-import { sessionQueryKey } from '@/features/auth';
+import { queryKeys } from '@/api/query-keys';
 
 export const updateMemberRoles = (workspaceId: string, userId: string, input: UpdateRolesInput) =>
   apiRequest(api.member(workspaceId, userId), {
@@ -19,10 +18,10 @@ export const useUpdateMemberRoles = (workspaceId: string) => {
       updateMemberRoles(workspaceId, userId, { roles }),
     onSuccess: async () => {
       await queryClient.invalidateQueries({
-        queryKey: getMembersQueryOptions(workspaceId).queryKey,
+        queryKey: queryKeys.members.list(workspaceId),
       });
       // The admin may have changed their own roles.
-      await queryClient.invalidateQueries({ queryKey: sessionQueryKey });
+      await queryClient.invalidateQueries({ queryKey: queryKeys.session() });
     },
   });
 };

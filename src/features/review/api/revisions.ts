@@ -19,23 +19,11 @@ import {
 } from '@shared/schemas/revisions';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-
-export const reviewKeys = {
-  all: (workspaceId: string) => ['workspaces', workspaceId, 'revisions'] as const,
-  list: (workspaceId: string, routeId: string) =>
-    [...reviewKeys.all(workspaceId), routeId, 'list'] as const,
-  detail: (workspaceId: string, routeId: string, number: number) =>
-    [...reviewKeys.all(workspaceId), routeId, 'detail', number] as const,
-  compare: (workspaceId: string, routeId: string, a: number, b: number) =>
-    [...reviewKeys.all(workspaceId), routeId, 'compare', a, b] as const,
-  comments: (workspaceId: string, routeId: string, number: number) =>
-    [...reviewKeys.all(workspaceId), routeId, 'comments', number] as const,
-  attention: (workspaceId: string) => ['workspaces', workspaceId, 'attention'] as const,
-};
+import { queryKeys } from '@/api/query-keys';
 
 export const revisionsQueryOptions = (workspaceId: string, routeId: string) =>
   queryOptions({
-    queryKey: reviewKeys.list(workspaceId, routeId),
+    queryKey: queryKeys.revisions.list(workspaceId, routeId),
     queryFn: ({ signal }) =>
       apiRequest(`${api.revisions(workspaceId, routeId)}?limit=200`, {
         schema: revisionListSchema,
@@ -47,7 +35,7 @@ export const useRevisions = (workspaceId: string, routeId: string) =>
 
 export const revisionQueryOptions = (workspaceId: string, routeId: string, number: number) =>
   queryOptions({
-    queryKey: reviewKeys.detail(workspaceId, routeId, number),
+    queryKey: queryKeys.revisions.detail(workspaceId, routeId, number),
     queryFn: ({ signal }) =>
       apiRequest(api.revision(workspaceId, routeId, number), {
         schema: revisionDetailSchema,
@@ -59,7 +47,7 @@ export const useRevision = (workspaceId: string, routeId: string, number: number
 
 export const useCompare = (workspaceId: string, routeId: string, a: number | null, b: number) =>
   useQuery({
-    queryKey: reviewKeys.compare(workspaceId, routeId, a ?? 0, b),
+    queryKey: queryKeys.revisions.compare(workspaceId, routeId, a ?? 0, b),
     queryFn: ({ signal }) =>
       apiRequest(api.revisionCompare(workspaceId, routeId, a!, b), {
         schema: revisionCompareSchema,
@@ -70,7 +58,7 @@ export const useCompare = (workspaceId: string, routeId: string, a: number | nul
 
 export const useComments = (workspaceId: string, routeId: string, number: number) =>
   useQuery({
-    queryKey: reviewKeys.comments(workspaceId, routeId, number),
+    queryKey: queryKeys.revisions.comments(workspaceId, routeId, number),
     queryFn: ({ signal }) =>
       apiRequest(`${api.revisionComments(workspaceId, routeId, number)}?limit=200`, {
         schema: commentListSchema,
@@ -80,7 +68,7 @@ export const useComments = (workspaceId: string, routeId: string, number: number
 
 export const useAttention = (workspaceId: string) =>
   useQuery({
-    queryKey: reviewKeys.attention(workspaceId),
+    queryKey: queryKeys.attention(workspaceId),
     queryFn: ({ signal }) =>
       apiRequest(api.attention(workspaceId), { schema: attentionListSchema, signal }),
   });
@@ -90,8 +78,8 @@ function useInvalidateReview(workspaceId: string) {
   const queryClient = useQueryClient();
   return () =>
     Promise.all([
-      queryClient.invalidateQueries({ queryKey: reviewKeys.all(workspaceId) }),
-      queryClient.invalidateQueries({ queryKey: reviewKeys.attention(workspaceId) }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.revisions.all(workspaceId) }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.attention(workspaceId) }),
     ]);
 }
 
@@ -138,14 +126,11 @@ export const useResolveComment = (workspaceId: string, routeId: string, number: 
   const invalidate = useInvalidateReview(workspaceId);
   return useMutation({
     mutationFn: ({ id, resolved }: { id: string; resolved: boolean }) =>
-      apiRequest(
-        `${api.revisionComments(workspaceId, routeId, number)}/${encodeURIComponent(id)}`,
-        {
-          method: 'PATCH',
-          body: { resolved },
-          schema: commentSchema,
-        },
-      ),
+      apiRequest(api.revisionComment(workspaceId, routeId, number, id), {
+        method: 'PATCH',
+        body: { resolved },
+        schema: commentSchema,
+      }),
     onSuccess: invalidate,
   });
 };

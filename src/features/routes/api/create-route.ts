@@ -2,7 +2,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/api/client';
 import { routeDetailSchema } from './schemas';
-import { routesApi } from './urls';
+import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export const createRouteInputSchema = z.object({
   name: z
@@ -16,7 +17,7 @@ export const createRouteInputSchema = z.object({
 export type CreateRouteInput = z.infer<typeof createRouteInputSchema>;
 
 export const createRoute = (workspaceId: string, input: CreateRouteInput) =>
-  apiRequest(routesApi.create(workspaceId), {
+  apiRequest(api.routes(workspaceId), {
     method: 'POST',
     body: input,
     schema: routeDetailSchema,
@@ -26,7 +27,6 @@ export const useCreateRoute = (workspaceId: string) => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: CreateRouteInput) => createRoute(workspaceId, input),
-    onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.routes.all(workspaceId) }),
   });
 };

@@ -1,10 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { routeDetailSchema } from './schemas';
-import { routesApi } from './urls';
+import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export const duplicateRoute = (workspaceId: string, routeId: string, name?: string) =>
-  apiRequest(routesApi.duplicate(workspaceId, routeId), {
+  apiRequest(api.routeDuplicate(workspaceId, routeId), {
     method: 'POST',
     body: name ? { name } : {},
     schema: routeDetailSchema,
@@ -15,7 +16,6 @@ export const useDuplicateRoute = (workspaceId: string) => {
   return useMutation({
     mutationFn: ({ routeId, name }: { routeId: string; name?: string }) =>
       duplicateRoute(workspaceId, routeId, name),
-    onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.routes.all(workspaceId) }),
   });
 };

@@ -1,13 +1,14 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { projectListSchema } from './schemas';
-import { routesApi } from './urls';
+import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export const getProjectsQueryOptions = (workspaceId: string) =>
   queryOptions({
-    queryKey: ['workspaces', workspaceId, 'projects'],
+    queryKey: queryKeys.projects.list(workspaceId),
     queryFn: ({ signal }) =>
-      apiRequest(routesApi.projects(workspaceId), { schema: projectListSchema, signal }),
+      apiRequest(api.projects(workspaceId), { schema: projectListSchema, signal }),
   });
 
 export const useProjects = (workspaceId: string) => useQuery(getProjectsQueryOptions(workspaceId));

@@ -1,14 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { routeDetailSchema } from './schemas';
-import { routesApi } from './urls';
+import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export const getRoute = (workspaceId: string, routeId: string, signal?: AbortSignal) =>
-  apiRequest(routesApi.one(workspaceId, routeId), { schema: routeDetailSchema, signal });
+  apiRequest(api.route(workspaceId, routeId), { schema: routeDetailSchema, signal });
 
 export const getRouteQueryOptions = (workspaceId: string, routeId: string) =>
   queryOptions({
-    queryKey: ['workspaces', workspaceId, 'routes', 'detail', routeId],
+    queryKey: queryKeys.routes.detail(workspaceId, routeId),
     queryFn: ({ signal }) => getRoute(workspaceId, routeId, signal),
     // The editor owns the draft once open; refetching would fight the chemist's edits.
     staleTime: Infinity,

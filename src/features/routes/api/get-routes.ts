@@ -1,14 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { routeListSchema } from './schemas';
-import { routesApi } from './urls';
+import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export const getRoutes = (workspaceId: string, archived: boolean, signal?: AbortSignal) =>
-  apiRequest(routesApi.list(workspaceId, { archived }), { schema: routeListSchema, signal });
+  apiRequest(api.routes(workspaceId, { archived }), { schema: routeListSchema, signal });
 
 export const getRoutesQueryOptions = (workspaceId: string, archived = false) =>
   queryOptions({
-    queryKey: ['workspaces', workspaceId, 'routes', { archived }],
+    queryKey: queryKeys.routes.list(workspaceId, { archived }),
     queryFn: ({ signal }) => getRoutes(workspaceId, archived, signal),
   });
 

@@ -1,6 +1,6 @@
 import { apiRequest, isApiError } from '@/api/client';
 import { saveDraftReplySchema, type DraftConflict, type SaveDraftReply } from './schemas';
-import { routesApi } from './urls';
+import { api } from '@/paths';
 
 export type SaveDraftOutcome =
   { kind: 'saved'; reply: SaveDraftReply } | { kind: 'conflict'; conflict: DraftConflict };
@@ -19,7 +19,7 @@ export async function saveDraft(
   baseVersion: number,
 ): Promise<SaveDraftOutcome> {
   try {
-    const reply = await apiRequest(routesApi.draft(workspaceId, routeId), {
+    const reply = await apiRequest(api.routeDraft(workspaceId, routeId), {
       method: 'PUT',
       body: { document, baseVersion },
       schema: saveDraftReplySchema,

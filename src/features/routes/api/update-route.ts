@@ -1,7 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { routeDetailSchema } from './schemas';
-import { routesApi } from './urls';
+import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 export type UpdateRouteInput = {
   name?: string;
@@ -12,7 +13,7 @@ export type UpdateRouteInput = {
 };
 
 export const updateRoute = (workspaceId: string, routeId: string, input: UpdateRouteInput) =>
-  apiRequest(routesApi.one(workspaceId, routeId), {
+  apiRequest(api.route(workspaceId, routeId), {
     method: 'PATCH',
     body: input,
     schema: routeDetailSchema,
@@ -23,7 +24,6 @@ export const useUpdateRoute = (workspaceId: string) => {
   return useMutation({
     mutationFn: ({ routeId, input }: { routeId: string; input: UpdateRouteInput }) =>
       updateRoute(workspaceId, routeId, input),
-    onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: ['workspaces', workspaceId, 'routes'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.routes.all(workspaceId) }),
   });
 };

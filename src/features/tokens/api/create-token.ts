@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { createdTokenSchema, type CreateTokenInput } from '@shared/schemas/tokens';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getTokensQueryOptions } from './get-tokens';
+import { queryKeys } from '@/api/query-keys';
 
 export const createToken = (input: CreateTokenInput) =>
   apiRequest(api.tokens, { method: 'POST', body: input, schema: createdTokenSchema });
@@ -11,6 +11,6 @@ export const useCreateToken = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createToken,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: getTokensQueryOptions().queryKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.tokens() }),
   });
 };

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getTokensQueryOptions } from './get-tokens';
+import { queryKeys } from '@/api/query-keys';
 
 export const revokeToken = (id: string) => apiRequest(api.token(id), { method: 'DELETE' });
 
@@ -9,6 +9,6 @@ export const useRevokeToken = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: revokeToken,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: getTokensQueryOptions().queryKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.tokens() }),
   });
 };

@@ -1,0 +1,2 @@
+// The compounds feature's public face.
+export { useCompounds } from './api/get-compounds';
