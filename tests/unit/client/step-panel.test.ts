@@ -35,7 +35,7 @@ describe('step form', () => {
   it('lists a problem that has no field of its own above the form', () => {
     const html = renderToStaticMarkup(
       createElement(StepPanel, {
-        step: { ...step([]), params: { ...step([]).params, stray: 1 } } as StepInput,
+        step: { ...step([]), params: { ...step([]).params, stray: 1 } } as unknown as StepInput,
       }),
     );
     expect(html).toMatch(/<ul[^>]*role="alert"/);
