@@ -50,17 +50,31 @@ export async function loadMembership(
     where: { workspaceId, userId },
     include: [{ model: User, as: 'user', required: true }],
     transaction,
-    // Locked so two admins changing roles at once cannot both remove the last admin.
-    lock: transaction ? transaction.LOCK.UPDATE : undefined,
+    // Locked so two changes to the same member are applied one after the other.
+    lock: transaction ? { level: transaction.LOCK.UPDATE, of: Membership } : undefined,
   });
   if (!membership) throw notFound('The member');
   return membership;
 }
 
+/**
+ * Refuses a change that would leave the workspace without an admin. The
+ * workspace row is locked first (SELECT ... FOR UPDATE) and held to the end of
+ * the transaction, so changes to admins of one workspace are counted one after
+ * another: of two admins demoting each other at once, the second counts after
+ * the first has committed and is refused. Locking only the membership being
+ * changed is not enough, since each would count the other as still admin.
+ */
 async function assertAnotherAdminRemains(
   membership: Membership,
   transaction: Transaction | null,
 ): Promise<void> {
+  if (transaction)
+    await Workspace.findByPk(membership.workspaceId as string, {
+      attributes: ['id'],
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
   const otherAdmins = await Membership.count({
     where: {
       workspaceId: membership.workspaceId,

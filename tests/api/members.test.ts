@@ -1,7 +1,11 @@
+import { Op } from 'sequelize';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { memberListSchema } from '@shared/schemas/members';
+import { AppError } from '../../server/errors';
+import { database } from '../../server/db/sequelize';
 import { AuditEvent, Membership, User, Workspace } from '../../server/models';
+import { loadMembership, updateRoles } from '../../server/services/members';
 import { useTestServer } from '../support/app';
 import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
 
@@ -136,6 +140,88 @@ describe('workspace members', () => {
       .delete(`${membersPath()}/${admin.id}`)
       .set('X-CSRF-Token', asAdmin.csrfToken);
     expect(remove.status).toBe(409);
+  });
+
+  it('of two admins demoting each other at once, one succeeds and the other is refused', async () => {
+    const shared = await buildWorkspace();
+    const first = await buildMember(shared, ['admin', 'chemist']);
+    const second = await buildMember(shared, ['admin', 'chemist']);
+    const asFirst = await signIn(server.app, first.email);
+    const asSecond = await signIn(server.app, second.email);
+    const demote = (as: SignedIn, other: User) =>
+      as.agent
+        .patch(`/api/v1/workspaces/${shared.id}/members/${other.id}`)
+        .set('X-CSRF-Token', as.csrfToken)
+        .send({ roles: ['chemist'] });
+    const results = await Promise.all([demote(asFirst, second), demote(asSecond, first)]);
+    // One wins. The other is refused: as the last admin (409) when the two overlap,
+    // or as no longer an admin (403) when the first finished before it began.
+    const statuses = results.map((r) => r.status).sort();
+    expect(statuses[0]).toBe(200);
+    expect([403, 409]).toContain(statuses[1]);
+    const refused = results.find((r) => r.status !== 200)!;
+    if (refused.status === 409) expect(refused.body.error.code).toBe('last_admin');
+    const admins = await Membership.count({
+      where: { workspaceId: shared.id, roles: { [Op.contains]: ['admin'] } },
+    });
+    expect(admins).toBe(1);
+  });
+
+  it('counts admins only after the workspace is locked, so an interleaved demotion is refused', async () => {
+    // The two demotions interleaved by hand, so the order is certain: the first
+    // transaction demotes and stays open; the second starts its demotion while
+    // the first holds the workspace; the first commits; the second must now see
+    // that no other admin remains.
+    const shared = await buildWorkspace();
+    const first = await buildMember(shared, ['admin']);
+    const second = await buildMember(shared, ['admin']);
+    // The audit records name someone else as actor, so only the lock under test can order them.
+    const recorder = await buildMember(shared, ['chemist']);
+    const sequelize = database();
+    const t1 = await sequelize.transaction();
+    const t2 = await sequelize.transaction();
+    try {
+      await updateRoles(
+        await loadMembership(shared.id, second.id, t1),
+        ['chemist'],
+        recorder.id,
+        t1,
+      );
+      const target = await loadMembership(shared.id, first.id, t2);
+      const { pid } = (await sequelize.query('SELECT pg_backend_pid() AS pid', {
+        transaction: t2,
+        plain: true,
+      })) as { pid: number };
+      const waitsOnLock = async (backend: number) =>
+        (
+          (await sequelize.query(
+            'SELECT wait_event_type FROM pg_stat_activity WHERE pid = :backend',
+            {
+              replacements: { backend },
+              plain: true,
+            },
+          )) as { wait_event_type: string | null } | null
+        )?.wait_event_type === 'Lock';
+      const racing = updateRoles(target, ['chemist'], recorder.id, t2).then(
+        () => 'updated',
+        (error: unknown) => error,
+      );
+      // Commit only once the second demotion is under way: waiting on a lock, or done.
+      let settled = false;
+      void racing.then(() => (settled = true));
+      while (!settled && !(await waitsOnLock(pid))) await new Promise((r) => setImmediate(r));
+      await t1.commit();
+      const outcome = await racing;
+      expect(outcome).toBeInstanceOf(AppError);
+      expect((outcome as AppError).body.code).toBe('last_admin');
+    } finally {
+      await t2.rollback();
+      if (!(t1 as unknown as { finished?: string }).finished) await t1.rollback();
+    }
+    const admins = await Membership.findAll({
+      where: { workspaceId: shared.id, roles: { [Op.contains]: ['admin'] } },
+    });
+    expect(admins.map((m) => m.userId)).toEqual([first.id]);
   });
 
   it('lets an admin remove a member, who then no longer sees the workspace', async () => {
