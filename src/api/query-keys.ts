@@ -36,6 +36,9 @@ export const queryKeys = {
   compounds: {
     list: (workspaceId: string) => [...workspace(workspaceId), 'compounds'] as const,
   },
+  equipment: {
+    list: (workspaceId: string) => [...workspace(workspaceId), 'equipment'] as const,
+  },
   projects: {
     list: (workspaceId: string) => [...workspace(workspaceId), 'projects'] as const,
   },

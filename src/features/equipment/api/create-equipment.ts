@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { equipmentSchema, type EquipmentCreateInput } from '@shared/schemas/equipment';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getEquipmentQueryOptions } from './get-equipment';
+import { queryKeys } from '@/api/query-keys';
 
 export const createEquipment = (workspaceId: string, input: EquipmentCreateInput) =>
   apiRequest(api.equipment(workspaceId), { method: 'POST', body: input, schema: equipmentSchema });
@@ -12,6 +12,6 @@ export const useCreateEquipment = (workspaceId: string) => {
   return useMutation({
     mutationFn: (input: EquipmentCreateInput) => createEquipment(workspaceId, input),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getEquipmentQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.equipment.list(workspaceId) }),
   });
 };

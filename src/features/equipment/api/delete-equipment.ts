@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getEquipmentQueryOptions } from './get-equipment';
+import { queryKeys } from '@/api/query-keys';
 
 export const deleteEquipment = (workspaceId: string, id: string) =>
   apiRequest(api.equipmentItem(workspaceId, id), { method: 'DELETE' });
@@ -11,6 +11,6 @@ export const useDeleteEquipment = (workspaceId: string) => {
   return useMutation({
     mutationFn: (id: string) => deleteEquipment(workspaceId, id),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getEquipmentQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.equipment.list(workspaceId) }),
   });
 };

@@ -3,6 +3,7 @@ import { equipmentListSchema } from '@shared/schemas/equipment';
 import { LIST_LIMIT_MAX } from '@shared/schemas/lists';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
+import { queryKeys } from '@/api/query-keys';
 
 /** The workspace's equipment, one page of the largest size (vessels first, by name). */
 export const getEquipment = (workspaceId: string, signal?: AbortSignal) =>
@@ -13,7 +14,7 @@ export const getEquipment = (workspaceId: string, signal?: AbortSignal) =>
 
 export const getEquipmentQueryOptions = (workspaceId: string) =>
   queryOptions({
-    queryKey: ['workspaces', workspaceId, 'equipment'],
+    queryKey: queryKeys.equipment.list(workspaceId),
     queryFn: ({ signal }) => getEquipment(workspaceId, signal),
   });
 

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { equipmentSchema, type EquipmentUpdateInput } from '@shared/schemas/equipment';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
-import { getEquipmentQueryOptions } from './get-equipment';
+import { queryKeys } from '@/api/query-keys';
 
 export const updateEquipment = (workspaceId: string, id: string, input: EquipmentUpdateInput) =>
   apiRequest(api.equipmentItem(workspaceId, id), {
@@ -17,6 +17,6 @@ export const useUpdateEquipment = (workspaceId: string) => {
     mutationFn: ({ id, input }: { id: string; input: EquipmentUpdateInput }) =>
       updateEquipment(workspaceId, id, input),
     onSuccess: () =>
-      queryClient.invalidateQueries({ queryKey: getEquipmentQueryOptions(workspaceId).queryKey }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.equipment.list(workspaceId) }),
   });
 };
