@@ -10,7 +10,7 @@ import { apiErrorSchema } from '@shared/schemas/errors';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
 import { allAuditEvents, listAudit, verifyChains, workspaceChains } from '../services/audit';
-import { toCsv } from '../services/csv';
+import { toCsv } from '@shared/csv';
 import { loadWorkspace } from '../services/members';
 
 const workspaceParams = z.object({ workspaceId: z.uuid() });

@@ -9,17 +9,22 @@ import { Button } from '@/components/button';
 import { Select } from '@/components/select';
 import { Table, Td } from '@/components/table';
 import { TextField } from '@/components/text-field';
-import { compareValues, SortableTh, type SortState } from './sortable-th';
+import {
+  missing,
+  SortHeader,
+  useSortableTable,
+  type SortColumns,
+} from '@/components/sortable-table';
 import { StructureImage } from './structure-image';
 
-type Column = 'name' | 'role' | 'formula' | 'molarMassGmol' | 'logP';
-
-const value = (c: Compound, column: Column) =>
-  column === 'logP'
-    ? (c.logP?.value ?? null)
-    : column === 'role'
-      ? COMPOUND_ROLE_LABELS[c.role]
-      : c[column];
+/** What each column sorts by; a missing value (undefined) sorts last either way. */
+export const compoundColumns: SortColumns<Compound> = [
+  { id: 'name', accessorFn: (c) => c.name },
+  { id: 'role', accessorFn: (c) => COMPOUND_ROLE_LABELS[c.role] },
+  { id: 'formula', accessorFn: (c) => c.formula },
+  { id: 'molarMassGmol', accessorFn: (c) => c.molarMassGmol },
+  { id: 'logP', accessorFn: (c) => missing(c.logP?.value) },
+];
 
 export function CompoundTable({
   compounds,
@@ -34,18 +39,20 @@ export function CompoundTable({
 }) {
   const [query, setQuery] = useState('');
   const [role, setRole] = useState<CompoundRole | 'all'>('all');
-  const [sort, setSort] = useState<SortState<Column>>({ key: 'name', dir: 'asc' });
-
-  const rows = useMemo(() => {
+  const filtered = useMemo(() => {
     const q = query.trim().toLowerCase();
-    const filtered = compounds.filter(
+    return compounds.filter(
       (c) =>
         (role === 'all' || c.role === role) &&
         (!q || c.name.toLowerCase().includes(q) || c.formula.toLowerCase().includes(q)),
     );
-    const sign = sort.dir === 'asc' ? 1 : -1;
-    return filtered.sort((a, b) => sign * compareValues(value(a, sort.key), value(b, sort.key)));
-  }, [compounds, query, role, sort]);
+  }, [compounds, query, role]);
+  const { table, rows } = useSortableTable({
+    data: filtered,
+    columns: compoundColumns,
+    initialSorting: [{ id: 'name', desc: false }],
+  });
+  const column = (id: string) => table.getColumn(id)!;
 
   return (
     <div className="space-y-3">
@@ -80,24 +87,16 @@ export function CompoundTable({
             >
               Structure
             </th>
-            <SortableTh label="Name" column="name" sort={sort} onSort={setSort} />
-            <SortableTh label="Role" column="role" sort={sort} onSort={setSort} />
-            <SortableTh label="Formula" column="formula" sort={sort} onSort={setSort} />
-            <SortableTh
+            <SortHeader label="Name" column={column('name')} />
+            <SortHeader label="Role" column={column('role')} />
+            <SortHeader label="Formula" column={column('formula')} />
+            <SortHeader
               label="M"
               unit="g/mol"
-              column="molarMassGmol"
-              sort={sort}
-              onSort={setSort}
+              column={column('molarMassGmol')}
               className="text-right"
             />
-            <SortableTh
-              label="logP"
-              column="logP"
-              sort={sort}
-              onSort={setSort}
-              className="text-right"
-            />
+            <SortHeader label="logP" column={column('logP')} className="text-right" />
             <th scope="col" className="border-b border-rule bg-paper-sunken px-3 py-2">
               <span className="sr-only">Actions</span>
             </th>

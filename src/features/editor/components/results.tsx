@@ -4,6 +4,7 @@ import { PROCESS_SAFETY_NOTE } from '@shared/engine/route/safety-note';
 import { useEditorStore } from '@/stores/editor-store';
 import { useEvaluation } from '../evaluation';
 import { keyOf } from '../document';
+import { streamsCsv, type StreamRow } from '../streams-csv';
 import { componentLabel } from './fields';
 import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
 import { Button } from '@/components/button';
@@ -348,16 +349,7 @@ export function StreamTable() {
   const rows = useMemo(() => {
     if (!result) return [];
     const stepName = new Map(doc.steps.map((s) => [s.id, s.name]));
-    const out: Array<{
-      id: string;
-      from: string;
-      to: string;
-      phase: string;
-      T: number;
-      L: number;
-      total: number;
-      kg: Record<string, number>;
-    }> = [];
+    const out: StreamRow[] = [];
     for (const c of doc.connections) {
       const s = result.streams[c.id];
       if (!s) continue;
@@ -394,34 +386,7 @@ export function StreamTable() {
       <p className="text-small text-ink-muted">Streams appear once the route can be evaluated.</p>
     );
   const csv = () => {
-    const head = [
-      'from',
-      'to',
-      'phase',
-      'temperature_C',
-      'volume_L',
-      'total_kg',
-      ...comps.flatMap((c) => [`${keyOf(c)}_kg`, `${keyOf(c)}_wt_pct`]),
-    ];
-    const lines = rows.map((r) => [
-      r.from,
-      r.to,
-      r.phase,
-      r.T.toFixed(2),
-      r.L.toFixed(4),
-      r.total.toFixed(6),
-      ...comps.flatMap((c) => {
-        const kg = r.kg[keyOf(c)] ?? 0;
-        return [kg.toPrecision(6), r.total > 0 ? ((100 * kg) / r.total).toFixed(3) : '0'];
-      }),
-    ]);
-    const text = [head, ...lines]
-      .map((l) =>
-        l
-          .map((x) => (/[",\n]/.test(String(x)) ? `"${String(x).replace(/"/g, '""')}"` : String(x)))
-          .join(','),
-      )
-      .join('\n');
+    const text = streamsCsv(rows, comps);
     const url = URL.createObjectURL(new Blob([text], { type: 'text/csv' }));
     const a = document.createElement('a');
     a.href = url;

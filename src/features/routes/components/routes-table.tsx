@@ -3,13 +3,11 @@ import { Link } from 'react-router-dom';
 import {
   createColumnHelper,
   flexRender,
-  getCoreRowModel,
-  getFilteredRowModel,
-  getSortedRowModel,
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
 import { Button } from '@/components/button';
+import { missing, SortHeader, sortableTableOptions } from '@/components/sortable-table';
 import { inputClass } from '@/components/text-field';
 import { formatDateTime } from '@/lib/format';
 import { paths } from '@/paths';
@@ -64,18 +62,17 @@ export function RoutesTable({
         header: 'Steps',
         cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
       }),
-      col.accessor((r) => r.totals?.yieldPct ?? null, {
+      col.accessor((r) => missing(r.totals?.yieldPct), {
         id: 'yield',
         header: 'Yield',
-        sortUndefined: 'last',
         cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
       }),
-      col.accessor((r) => r.totals?.purityPct ?? null, {
+      col.accessor((r) => missing(r.totals?.purityPct), {
         id: 'purity',
         header: 'Purity',
         cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
       }),
-      col.accessor((r) => r.totals?.pmi ?? null, {
+      col.accessor((r) => missing(r.totals?.pmi), {
         id: 'pmi',
         header: 'PMI',
         cell: (c) => <span className="tabular-nums">{num(c.getValue())}</span>,
@@ -152,20 +149,21 @@ export function RoutesTable({
   );
 
   const table = useReactTable({
-    data: routes,
-    columns,
+    ...sortableTableOptions({
+      data: routes,
+      columns,
+      globalFilterFn: (row, _id, value: string) => {
+        const q = value.trim().toLowerCase();
+        if (!q) return true;
+        const r = row.original;
+        return [r.name, r.project?.name ?? '', r.owner.name].some((s) =>
+          s.toLowerCase().includes(q),
+        );
+      },
+    }),
     state: { sorting, globalFilter: filter },
     onSortingChange: setSorting,
     onGlobalFilterChange: setFilter,
-    globalFilterFn: (row, _id, value: string) => {
-      const q = value.trim().toLowerCase();
-      if (!q) return true;
-      const r = row.original;
-      return [r.name, r.project?.name ?? '', r.owner.name].some((s) => s.toLowerCase().includes(q));
-    },
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getFilteredRowModel: getFilteredRowModel(),
   });
 
   // Group the sorted rows by project, keeping the sort inside each group.
@@ -247,34 +245,19 @@ export function RoutesTable({
           <thead>
             {table.getHeaderGroups().map((hg) => (
               <tr key={hg.id}>
-                {hg.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  return (
+                {hg.headers.map((h) =>
+                  h.column.getCanSort() && typeof h.column.columnDef.header === 'string' ? (
+                    <SortHeader key={h.id} column={h.column} label={h.column.columnDef.header} />
+                  ) : (
                     <th
                       key={h.id}
                       scope="col"
-                      aria-sort={
-                        sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined
-                      }
                       className="border-b border-rule bg-paper-sunken px-3 py-2 text-caption font-medium uppercase tracking-wide text-ink-muted"
                     >
-                      {h.column.getCanSort() ? (
-                        <button
-                          type="button"
-                          onClick={h.column.getToggleSortingHandler()}
-                          className="inline-flex items-center gap-1 uppercase hover:text-ink"
-                        >
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden="true">
-                            {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '·'}
-                          </span>
-                        </button>
-                      ) : (
-                        flexRender(h.column.columnDef.header, h.getContext())
-                      )}
+                      {flexRender(h.column.columnDef.header, h.getContext())}
                     </th>
-                  );
-                })}
+                  ),
+                )}
               </tr>
             ))}
           </thead>

@@ -1,11 +1,14 @@
 import { useMemo, useState } from 'react';
 import { GUIDE_CATEGORY_LABELS, type SolventSummary } from '@shared/schemas/solvents';
+import {
+  missing,
+  SortHeader,
+  useSortableTable,
+  type SortColumns,
+} from '@/components/sortable-table';
 import { Table, Td, Th } from '@/components/table';
 import { TextField } from '@/components/text-field';
 import { cn } from '@/components/cn';
-
-type Column = 'name' | 'boilingPointC' | 'densityGmL' | 'flashPointC' | 'ich' | 'guideCategory';
-type Sort = { key: Column; dir: 'asc' | 'desc' };
 
 const GUIDE_ORDER = {
   recommended: 0,
@@ -14,26 +17,19 @@ const GUIDE_ORDER = {
   'highly-hazardous': 3,
 } as const;
 
-function sortValue(s: SolventSummary, key: Column): string | number | null {
-  switch (key) {
-    case 'name':
-      return s.name;
-    case 'ich':
-      return s.ich.class === null ? null : s.ich.class * 1e7 + (s.ich.limitPpm ?? 0);
-    case 'guideCategory':
-      return GUIDE_ORDER[s.guideCategory];
-    default:
-      return s[key];
-  }
-}
-
-function compare(a: string | number | null, b: string | number | null): number {
-  if (a === null) return b === null ? 0 : 1;
-  if (b === null) return -1;
-  return typeof a === 'number' && typeof b === 'number'
-    ? a - b
-    : String(a).localeCompare(String(b));
-}
+/** What each column sorts by; a missing value (undefined) sorts last either way. */
+export const solventColumns: SortColumns<SolventSummary> = [
+  { id: 'name', accessorFn: (s) => s.name },
+  { id: 'boilingPointC', accessorFn: (s) => s.boilingPointC },
+  { id: 'densityGmL', accessorFn: (s) => s.densityGmL },
+  { id: 'flashPointC', accessorFn: (s) => missing(s.flashPointC) },
+  {
+    id: 'ich',
+    accessorFn: (s) =>
+      s.ich.class === null ? undefined : s.ich.class * 1e7 + (s.ich.limitPpm ?? 0),
+  },
+  { id: 'guideCategory', accessorFn: (s) => GUIDE_ORDER[s.guideCategory] },
+];
 
 export function SolventTable({
   solvents,
@@ -45,44 +41,22 @@ export function SolventTable({
   selectedId: string | null;
 }) {
   const [query, setQuery] = useState('');
-  const [sort, setSort] = useState<Sort>({ key: 'name', dir: 'asc' });
-  const rows = useMemo(() => {
+  const filtered = useMemo(() => {
     const q = query.trim().toLowerCase();
-    const filtered = solvents.filter(
+    return solvents.filter(
       (s) =>
         !q || [s.name, s.cas, s.smiles, ...s.synonyms].some((t) => t.toLowerCase().includes(q)),
     );
-    const sign = sort.dir === 'asc' ? 1 : -1;
-    return filtered.sort((a, b) => {
-      const va = sortValue(a, sort.key);
-      const vb = sortValue(b, sort.key);
-      // Missing values stay at the bottom whichever way the column sorts.
-      if (va === null || vb === null) return compare(va, vb);
-      return sign * compare(va, vb);
-    });
-  }, [solvents, query, sort]);
+  }, [solvents, query]);
+  const { table, rows } = useSortableTable({
+    data: filtered,
+    columns: solventColumns,
+    initialSorting: [{ id: 'name', desc: false }],
+  });
 
-  const header = (label: string, key: Column, className?: string, unit?: string) => {
-    const active = sort.key === key;
-    return (
-      <Th
-        aria-sort={active ? (sort.dir === 'asc' ? 'ascending' : 'descending') : 'none'}
-        className={className}
-      >
-        <button
-          type="button"
-          className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink focus-visible:outline-2 focus-visible:outline-accent"
-          onClick={() => setSort({ key, dir: active && sort.dir === 'asc' ? 'desc' : 'asc' })}
-        >
-          {label}
-          {unit ? <span className="normal-case">({unit})</span> : null}
-          <span aria-hidden="true" className={active ? 'text-accent' : 'text-ink-faint'}>
-            {active ? (sort.dir === 'asc' ? '▲' : '▼') : '↕'}
-          </span>
-        </button>
-      </Th>
-    );
-  };
+  const header = (label: string, id: string, className?: string, unit?: string) => (
+    <SortHeader column={table.getColumn(id)!} label={label} unit={unit} className={className} />
+  );
 
   return (
     <div className="space-y-3">
