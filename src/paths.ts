@@ -76,7 +76,24 @@ export function safeNext(next: string | null | undefined): string {
 
 const ws = (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}`;
 
+/** IPC chromatograms of a route. */
+const chromatogramsBase = (workspaceId: string, routeId: string) =>
+  `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/routes/${encodeURIComponent(routeId)}/chromatograms`;
+
 export const api = {
+  chromatograms: {
+    list: (workspaceId: string, routeId: string, q: { stepId?: string; cursor?: string } = {}) => {
+      const params = new URLSearchParams({ limit: '200' });
+      if (q.stepId) params.set('stepId', q.stepId);
+      if (q.cursor) params.set('cursor', q.cursor);
+      return `${chromatogramsBase(workspaceId, routeId)}?${params}`;
+    },
+    upload: (workspaceId: string, routeId: string) => chromatogramsBase(workspaceId, routeId),
+    one: (workspaceId: string, routeId: string, id: string, full = false) =>
+      `${chromatogramsBase(workspaceId, routeId)}/${encodeURIComponent(id)}${full ? '?full=1' : ''}`,
+    file: (workspaceId: string, routeId: string, id: string) =>
+      `${chromatogramsBase(workspaceId, routeId)}/${encodeURIComponent(id)}/file`,
+  },
   session: '/api/v1/session',
   accountPassword: '/api/v1/account/password',
   members: (workspaceId: string) => `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/members`,

@@ -36,6 +36,20 @@ export const queryKeys = {
   compounds: {
     list: (workspaceId: string) => [...workspace(workspaceId), 'compounds'] as const,
   },
+  chromatograms: {
+    all: (workspaceId: string, routeId: string) =>
+      [...workspace(workspaceId), 'routes', routeId, 'chromatograms'] as const,
+    list: (workspaceId: string, routeId: string, stepId: string) =>
+      [...queryKeys.chromatograms.all(workspaceId, routeId), 'list', stepId] as const,
+    /** Every sample of the route (all steps), for the calibration's choice. */
+    route: (workspaceId: string, routeId: string) =>
+      [...queryKeys.chromatograms.all(workspaceId, routeId), 'route'] as const,
+    /** Prefix of every single-sample key of the route. */
+    ones: (workspaceId: string, routeId: string) =>
+      [...queryKeys.chromatograms.all(workspaceId, routeId), 'one'] as const,
+    one: (workspaceId: string, routeId: string, id: string, full: boolean) =>
+      [...queryKeys.chromatograms.ones(workspaceId, routeId), id, full] as const,
+  },
   equipment: {
     list: (workspaceId: string) => [...workspace(workspaceId), 'equipment'] as const,
   },

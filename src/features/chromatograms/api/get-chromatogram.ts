@@ -1,8 +1,8 @@
 import { queryOptions, useQueries, useQuery } from '@tanstack/react-query';
 import { chromatogramDetailSchema } from '@shared/schemas/chromatograms';
 import { apiRequest } from '@/api/client';
-import { chromatogramKeys } from './keys';
-import { chromatogramsApi } from './urls';
+import { queryKeys } from '@/api/query-keys';
+import { api } from '@/paths';
 
 /** One sample; `full` asks for every point of the trace (the plot thins it per pixel itself). */
 export const getChromatogramQueryOptions = (
@@ -12,9 +12,9 @@ export const getChromatogramQueryOptions = (
   full: boolean,
 ) =>
   queryOptions({
-    queryKey: chromatogramKeys.one(workspaceId, routeId, id, full),
+    queryKey: queryKeys.chromatograms.one(workspaceId, routeId, id, full),
     queryFn: ({ signal }) =>
-      apiRequest(chromatogramsApi.one(workspaceId, routeId, id, full), {
+      apiRequest(api.chromatograms.one(workspaceId, routeId, id, full), {
         schema: chromatogramDetailSchema,
         signal,
       }),

@@ -1,16 +1,16 @@
 import { useInfiniteQuery } from '@tanstack/react-query';
 import { chromatogramListSchema } from '@shared/schemas/chromatograms';
 import { apiRequest } from '@/api/client';
-import { chromatogramKeys } from './keys';
-import { chromatogramsApi } from './urls';
+import { queryKeys } from '@/api/query-keys';
+import { api } from '@/paths';
 
 /** The samples of one step, oldest first, a page at a time. */
 export const useStepChromatograms = (workspaceId: string, routeId: string, stepId: string) =>
   useInfiniteQuery({
-    queryKey: chromatogramKeys.list(workspaceId, routeId, stepId),
+    queryKey: queryKeys.chromatograms.list(workspaceId, routeId, stepId),
     queryFn: ({ pageParam, signal }) =>
       apiRequest(
-        chromatogramsApi.list(workspaceId, routeId, {
+        api.chromatograms.list(workspaceId, routeId, {
           stepId,
           cursor: pageParam || undefined,
         }),

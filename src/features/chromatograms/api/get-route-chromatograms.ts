@@ -1,8 +1,8 @@
 import { useQuery } from '@tanstack/react-query';
 import { chromatogramListSchema, type ChromatogramSummary } from '@shared/schemas/chromatograms';
 import { apiRequest } from '@/api/client';
-import { chromatogramKeys } from './keys';
-import { chromatogramsApi } from './urls';
+import { queryKeys } from '@/api/query-keys';
+import { api } from '@/paths';
 
 /** Pages read at most for the calibration's choice of samples (200 each). */
 const MAX_PAGES = 10;
@@ -10,12 +10,12 @@ const MAX_PAGES = 10;
 /** Every sample of the route (all steps), for choosing the levels before and after a wash. */
 export const useRouteChromatograms = (workspaceId: string, routeId: string) =>
   useQuery({
-    queryKey: [...chromatogramKeys.all(workspaceId, routeId), 'route'] as const,
+    queryKey: queryKeys.chromatograms.route(workspaceId, routeId),
     queryFn: async ({ signal }) => {
       const items: ChromatogramSummary[] = [];
       let cursor: string | undefined;
       for (let page = 0; page < MAX_PAGES; page++) {
-        const reply = await apiRequest(chromatogramsApi.list(workspaceId, routeId, { cursor }), {
+        const reply = await apiRequest(api.chromatograms.list(workspaceId, routeId, { cursor }), {
           schema: chromatogramListSchema,
           signal,
         });

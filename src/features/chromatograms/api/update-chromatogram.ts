@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { chromatogramDetailSchema, type ChromatogramUpdate } from '@shared/schemas/chromatograms';
 import { apiRequest } from '@/api/client';
-import { chromatogramKeys } from './keys';
-import { chromatogramsApi } from './urls';
+import { allQueriesExcept, queryKeys } from '@/api/query-keys';
+import { api } from '@/paths';
 
 export const updateChromatogram = (
   workspaceId: string,
@@ -10,7 +10,7 @@ export const updateChromatogram = (
   id: string,
   change: ChromatogramUpdate,
 ) =>
-  apiRequest(chromatogramsApi.one(workspaceId, routeId, id), {
+  apiRequest(api.chromatograms.one(workspaceId, routeId, id), {
     method: 'PATCH',
     body: change,
     schema: chromatogramDetailSchema,
@@ -23,19 +23,19 @@ export const useUpdateChromatogram = (workspaceId: string, routeId: string) => {
       updateChromatogram(workspaceId, routeId, id, change),
     onSuccess: (detail) => {
       queryClient.setQueryData(
-        chromatogramKeys.one(workspaceId, routeId, detail.id, false),
+        queryKeys.chromatograms.one(workspaceId, routeId, detail.id, false),
         detail,
       );
       // The trace itself does not change: keep the full one already here.
       queryClient.setQueryData(
-        chromatogramKeys.one(workspaceId, routeId, detail.id, true),
+        queryKeys.chromatograms.one(workspaceId, routeId, detail.id, true),
         (old: typeof detail | undefined) =>
           old ? { ...detail, trace: old.trace, decimated: old.decimated } : undefined,
       );
       // Lists refresh in the background; the edit is done once the server has answered.
       void queryClient.invalidateQueries({
-        queryKey: chromatogramKeys.all(workspaceId, routeId),
-        predicate: (query) => query.queryKey[5] !== 'one',
+        queryKey: queryKeys.chromatograms.all(workspaceId, routeId),
+        predicate: allQueriesExcept(queryKeys.chromatograms.ones(workspaceId, routeId)),
       });
     },
   });

@@ -4,8 +4,8 @@ import { apiErrorSchema } from '@shared/schemas/errors';
 import { chromatogramCreatedSchema, type ChromatogramCreated } from '@shared/schemas/chromatograms';
 import { parseExact } from '@shared/schemas/exact';
 import { ApiError, csrfToken } from '@/api/client';
-import { chromatogramKeys } from './keys';
-import { chromatogramsApi } from './urls';
+import { queryKeys } from '@/api/query-keys';
+import { api } from '@/paths';
 
 export interface UploadInput {
   file: File;
@@ -36,7 +36,7 @@ export function uploadChromatogram(
     if (input.methodNote) form.set('methodNote', input.methodNote);
     form.set('file', input.file, input.file.name);
     const xhr = new XMLHttpRequest();
-    xhr.open('POST', chromatogramsApi.upload(workspaceId, routeId));
+    xhr.open('POST', api.chromatograms.upload(workspaceId, routeId));
     xhr.setRequestHeader('Accept', 'application/json');
     const csrf = csrfToken();
     if (csrf) xhr.setRequestHeader('X-CSRF-Token', csrf);
@@ -98,7 +98,9 @@ export function useUploadChromatogram(workspaceId: string, routeId: string) {
     onSettled: async () => {
       setProgress(null);
       // The step's list and the route-wide one (the wash calibration's choices).
-      await queryClient.invalidateQueries({ queryKey: chromatogramKeys.all(workspaceId, routeId) });
+      await queryClient.invalidateQueries({
+        queryKey: queryKeys.chromatograms.all(workspaceId, routeId),
+      });
     },
   });
   return { ...mutation, progress };

@@ -14,7 +14,7 @@ import { Table, Td, Th } from '@/components/table';
 import { useChromatogram, useChromatograms } from '../api/get-chromatogram';
 import { useDeleteChromatogram } from '../api/delete-chromatogram';
 import { useUpdateChromatogram } from '../api/update-chromatogram';
-import { chromatogramsApi } from '../api/urls';
+import { api } from '@/paths';
 import { fmt } from './format';
 import { levelRows, MeasuredLevels } from './measured-levels';
 import { TracePlot, type PlotTrace } from './trace-plot';
@@ -164,7 +164,7 @@ function SampleBody({
   );
 
   const mutationError = update.error ?? remove.error;
-  const fileUrl = chromatogramsApi.file(workspaceId, routeId, detail.id);
+  const fileUrl = api.chromatograms.file(workspaceId, routeId, detail.id);
 
   const assign = (index: number, componentId: string) => {
     const next: Record<string, string> = {};
