@@ -14,7 +14,7 @@ import {
   type StepListDocument,
   type StepListOperation,
 } from '@shared/schemas/step-list';
-import { neutraliseFormula } from './csv';
+import { neutraliseFormula } from '@shared/csv';
 
 export const DRAFT_MARK = 'DRAFT — not approved: not for use in the plant';
 
