@@ -346,7 +346,7 @@ describe('demo seed', () => {
             `SELECT r.name, p.name AS project, u.email AS owner, d.version, d.step_count, d.totals, d.evaluation_error, d.document
                FROM routes r JOIN workspaces w ON w.id = r.workspace_id JOIN route_drafts d ON d.route_id = r.id
                JOIN users u ON u.id = r.owner_id LEFT JOIN projects p ON p.id = r.project_id
-              WHERE w.slug = 'demo-process-group'`,
+              WHERE w.slug = 'demo-process-group' AND r.name = '${DEMO_ROUTE_NAME.replace(/'/g, "''")}'`,
           )
         )[0] as Array<{
           name: string;
