@@ -1,4 +1,6 @@
-import { stringify } from 'csv-stringify/sync';
+import { stringify } from 'csv-stringify/browser/esm/sync';
+// The browser build (its own small Buffer shim) runs in Node and in the page alike;
+// the Node build needs the Buffer global, which the page does not have.
 
 /**
  * CSV written by the server (audit export) and the client (stream table), in
