@@ -14,7 +14,7 @@ describe('purity and purge as a chemist reads them', () => {
     await page.getByLabel('E-mail').fill('chemist@example.com');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).click();
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
     await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
 
     // Totals: the solvent-free purity beside the assay, and each impurity against its limit.

@@ -29,7 +29,7 @@ describe('routes list', () => {
     // The seeded demo route, in its project, with yield, purity and PMI worked out.
     const demo = page
       .getByRole('row')
-      .filter({ has: page.getByRole('link', { name: DEMO_ROUTE_NAME }) });
+      .filter({ has: page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }) });
     await demo.waitFor();
     await expect(
       page
@@ -71,7 +71,9 @@ describe('routes list', () => {
 
     // Search narrows the table to the matching routes.
     await page.getByLabel('Search routes').fill(suffix);
-    await expect.poll(() => page.getByRole('link', { name: DEMO_ROUTE_NAME }).count()).toBe(0);
+    await expect
+      .poll(() => page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).count())
+      .toBe(0);
     await page.getByLabel('Search routes').fill('');
 
     // Archive: gone from the current routes, found under "Archived", where it can be restored.
@@ -86,7 +88,9 @@ describe('routes list', () => {
     await expect(
       archivedRow.getByRole('cell', { name: 'Archived', exact: true }).isVisible(),
     ).resolves.toBe(true);
-    await expect(page.getByRole('link', { name: DEMO_ROUTE_NAME }).count()).resolves.toBe(0);
+    await expect(
+      page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).count(),
+    ).resolves.toBe(0);
     await shot('routes-03-archived');
     expect(flows.browser.problems).toEqual([]);
   });
@@ -94,7 +98,7 @@ describe('routes list', () => {
   it('shows the reviewer the routes read-only', async () => {
     const { page, shot } = flows.browser;
     await signInAs('reviewer@example.com');
-    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).waitFor();
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).waitFor();
     await expect(page.getByRole('button', { name: 'New route' }).count()).resolves.toBe(0);
     await expect(
       page.getByRole('button', { name: /^(Rename|Duplicate|Archive) / }).count(),
@@ -102,7 +106,7 @@ describe('routes list', () => {
     await shot('routes-04-reviewer');
 
     // The editor opens the route read-only, too.
-    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).click();
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
     await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
     await page.getByText('Read only — you can look but not change this route').waitFor();
     // Nothing offers a change: no step list to add from, a greyed-out settings form, no tidy-up.

@@ -37,7 +37,7 @@ describe('signing in', () => {
     expect(new URL(page.url()).pathname).toMatch(/^\/w\/[^/]+$/);
     await expect(page.getByText(DEMO_WORKSPACE).first().isVisible()).resolves.toBe(true);
     // The demo workspace holds the seeded demo route; a chemist may start a new one.
-    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).waitFor();
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).waitFor();
     await expect(page.getByRole('button', { name: 'New route' }).isEnabled()).resolves.toBe(true);
     // The chemist's role is shown; admin-only places are not offered.
     await expect(

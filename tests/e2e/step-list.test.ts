@@ -27,7 +27,7 @@ describe('plant step list', () => {
     await page.getByLabel('E-mail').fill('engineer@example.com');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('link', { name: DEMO_PLANT_ROUTE_NAME }).click();
+    await page.getByRole('link', { name: DEMO_PLANT_ROUTE_NAME, exact: true }).click();
     await page.getByRole('link', { name: 'History' }).click();
     await page.getByRole('link', { name: 'Step list of revision 1' }).click();
     await page.getByRole('heading', { level: 1, name: 'Plant step list' }).waitFor();

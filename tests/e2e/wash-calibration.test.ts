@@ -17,7 +17,7 @@ describe('a distribution ratio from the levels before and after a wash', () => {
     await page.getByLabel('E-mail').fill('chemist@example.com');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('link', { name: DEMO_ROUTE_NAME }).click();
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
     await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
     await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
     await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
