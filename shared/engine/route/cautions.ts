@@ -4,7 +4,7 @@
  * structural analogue of the product may co-crystallise.
  */
 import type { RouteStep } from '../document';
-import type { EvalContext } from './context';
+import { DEFAULT_COMPOUND_DENSITY_GML, type EvalContext } from './context';
 import type { EngineWarning, StepResult } from './types';
 import { CLOSE_ANALOGUE_TANIMOTO, tanimotoHex } from '../properties/similarity';
 
@@ -73,6 +73,27 @@ export function analogueCautions(
         stepId: sid,
       });
     }
+  }
+  return out;
+}
+
+/**
+ * A note for each compound of the route whose density is not given: its
+ * volume in every stream is computed with DEFAULT_COMPOUND_DENSITY_GML, so
+ * slurry volumes, vessel fill and concentrations carry that assumption. A
+ * default that stands in for missing data is never silent.
+ */
+export function assumedDataNotes(ctx: EvalContext): Array<EngineWarning & { stepId: null }> {
+  const out: Array<EngineWarning & { stepId: null }> = [];
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    if (c.kind !== 'compound' || c.compound?.densityGmL !== undefined) continue;
+    out.push({
+      severity: 'info',
+      code: 'density-assumed',
+      message: `No density given for ${c.name}: ${DEFAULT_COMPOUND_DENSITY_GML} g/mL is assumed for its volume in the streams (common practice for organic solids, typically 1.1–1.4 g/mL). Enter the measured density on the compound to replace it.`,
+      stepId: null,
+    });
   }
   return out;
 }

@@ -39,7 +39,7 @@ import {
 } from './context';
 import { RouteValidationError, StepError, type RouteIssue } from './errors';
 import { validateRoute, type GraphInfo } from './validate';
-import { analogueCautions } from './cautions';
+import { analogueCautions, assumedDataNotes } from './cautions';
 import type { EngineWarning, StepOutput, StepResult, Stream } from './types';
 import { charge } from '../unitops/charge';
 import { washOrExtraction } from '../unitops/wash';
@@ -230,6 +230,7 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
     for (const w of results[id].warnings) warnings.push({ ...w, stepId: id });
   warnings.push(...analogueCautions(ctx, graph.order, stepById, results));
   warnings.push(...nearLimitNotes(ctx, terminals));
+  warnings.push(...assumedDataNotes(ctx));
   if (!ctx.productId)
     warnings.push({
       severity: 'info',
