@@ -109,6 +109,28 @@ const urlSyntax = [
   { selector: 'TemplateElement[value.raw=/^\\/api\\//]', message: URL_MESSAGE },
 ];
 
+/**
+ * No markup is injected into the page (DEVELOPERS.md, "Markup"): React builds
+ * every element, and a structure drawing is shown as an <img> data URL
+ * (src/features/compounds/components/structure-image.tsx), where SVG runs
+ * nothing. dangerouslySetInnerHTML, innerHTML/outerHTML and insertAdjacentHTML
+ * are refused everywhere.
+ */
+const MARKUP_MESSAGE =
+  'Do not inject markup: render with React, or show an SVG as an <img> data URL (StructureImage).';
+const markupSyntax = [
+  { selector: "JSXAttribute[name.name='dangerouslySetInnerHTML']", message: MARKUP_MESSAGE },
+  { selector: "Property[key.name='dangerouslySetInnerHTML']", message: MARKUP_MESSAGE },
+  {
+    selector: 'AssignmentExpression > MemberExpression.left[property.name=/^(inner|outer)HTML$/]',
+    message: MARKUP_MESSAGE,
+  },
+  {
+    selector: "CallExpression[callee.property.name='insertAdjacentHTML']",
+    message: MARKUP_MESSAGE,
+  },
+];
+
 export default tseslint.config(
   {
     ignores: [
@@ -168,17 +190,24 @@ export default tseslint.config(
     },
   },
   {
+    files: ['**/*.{js,mjs,ts,tsx}'],
+    rules: { 'no-restricted-syntax': ['error', ...markupSyntax] },
+  },
+  {
+    // A later no-restricted-syntax replaces an earlier one: each list repeats markupSyntax.
     files: ['src/**/*.{ts,tsx}'],
     ignores: ['src/api/query-keys.ts', 'src/paths.ts'],
-    rules: { 'no-restricted-syntax': ['error', ...queryKeySyntax, ...urlSyntax] },
+    rules: {
+      'no-restricted-syntax': ['error', ...markupSyntax, ...queryKeySyntax, ...urlSyntax],
+    },
   },
   {
     files: ['src/api/query-keys.ts'],
-    rules: { 'no-restricted-syntax': ['error', ...urlSyntax] },
+    rules: { 'no-restricted-syntax': ['error', ...markupSyntax, ...urlSyntax] },
   },
   {
     files: ['src/paths.ts'],
-    rules: { 'no-restricted-syntax': ['error', ...queryKeySyntax] },
+    rules: { 'no-restricted-syntax': ['error', ...markupSyntax, ...queryKeySyntax] },
   },
   {
     // Every payload string is storable text (no NUL, no lone surrogate): build it with text().

@@ -37,21 +37,6 @@ import { findLibrarySolvent, subgroupRows, unprocessable } from './components';
 
 // ----- structure ------------------------------------------------------------
 
-/**
- * Keeps only drawing elements and attributes in an SVG: no scripts, event
- * handlers, links or foreign content. The client also shows it as an image,
- * where scripts never run; this is the second line.
- */
-export function sanitiseSvg(svg: string): string {
-  return svg
-    .replace(/<script[\s\S]*?<\/script\s*>/gi, '')
-    .replace(/<foreignObject[\s\S]*?<\/foreignObject\s*>/gi, '')
-    .replace(/<(iframe|object|embed|image|use|a)\b[\s\S]*?(\/>|<\/\1\s*>)/gi, '')
-    .replace(/\s(on\w+|href|xlink:href|src)\s*=\s*("[^"]*"|'[^']*'|[^\s>]+)/gi, '')
-    .replace(/javascript:/gi, '')
-    .replace(/url\s*\([^)]*\)/gi, 'none');
-}
-
 type Unifac = CompoundPayload['unifac'];
 
 interface DerivedStructure {
@@ -92,7 +77,9 @@ export function deriveStructure(input: StructureInput, path = 'smiles'): Derived
     formula: parsed.formula,
     molarMassGmol: parsed.molarMassGmol,
     canonicalSmiles: parsed.canonicalSmiles,
-    svg: sanitiseSvg(parsed.svg),
+    // openchemlib writes the drawing itself and escapes every label it draws (an atom's
+    // custom label included); the client shows it only as an <img>, where SVG runs nothing.
+    svg: parsed.svg,
     librarySolventId: library?.id ?? null,
     automatic: {
       groups: toCounts(assignment.groups),

@@ -14,6 +14,36 @@ describe('parseStructure', () => {
     expect(r.svg.startsWith('<svg')).toBe(true);
     expect(r.atomCount).toBe(3);
   });
+  it("escapes markup in a molfile's atom labels, so the drawing carries text, never elements", () => {
+    // A molfile may carry free-text atom labels (here openchemlib's custom label data field);
+    // the drawing must show them as text: the page shows it as an <img>, the server no longer
+    // filters it.
+    const molfile = [
+      '',
+      '  label test',
+      '',
+      '  3  2  0  0  0  0  0  0  0  0999 V2000',
+      '    1.7321   -0.5000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0',
+      '    0.8660    0.0000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0',
+      '    0.0000   -0.5000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0',
+      '  1  2  1  0  0  0  0',
+      '  2  3  1  0  0  0  0',
+      'M  STY  1   1 DAT',
+      'M  SLB  1   1   1',
+      'M  SAL   1  1   1',
+      'M  SDT   1 NOSEARCH_OCL_CUSTOM_LABEL',
+      'M  SDD   1     1.7321    0.5000    DA    ALL  1       5',
+      'M  SED   1 <script>alert(1)</script><img src=x onerror="y">',
+      'M  END',
+    ].join('\n');
+    const r = parseStructure({ molfile });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.svg).toContain('&lt;script&gt;alert(1)&lt;/script&gt;');
+    const elements = new Set([...r.svg.matchAll(/<([a-zA-Z][\w:-]*)/g)].map((m) => m[1]));
+    expect([...elements].sort()).toEqual(['circle', 'line', 'style', 'svg', 'text']);
+    expect(r.svg).not.toMatch(/\son\w+\s*=\s*"/i);
+  });
   it('gives the same canonical SMILES for two writings of one molecule', () => {
     const a = parseStructure({ smiles: 'c1ccccc1C' });
     const b = parseStructure({ smiles: 'Cc1ccccc1' });

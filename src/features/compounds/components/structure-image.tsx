@@ -1,8 +1,10 @@
 import { cn } from '@/components/cn';
 
 /**
- * A structure drawing from the server. The SVG is sanitised there, and shown
- * here as an image: an image's SVG never runs scripts or loads anything.
+ * A structure drawing from the server (openchemlib's SVG), shown as an image:
+ * an image's SVG never runs scripts or loads anything, and the page's CSP
+ * allows images from data: URLs only. Lint refuses injecting markup into the
+ * DOM (dangerouslySetInnerHTML, innerHTML), so this is the one way a drawing is shown.
  */
 export function StructureImage({
   svg,
