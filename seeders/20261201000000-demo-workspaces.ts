@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/db/migrator';
+import type { MigrationContext, SeedSignIn } from '../server/db/migrator';
 import { Membership, User, Workspace } from '../server/models';
 import { hashPassword } from '../server/services/passwords';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_WORKSPACES } from './data/demo-accounts';
@@ -38,4 +38,21 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       });
     }
   });
+}
+
+/** The demo accounts this seeder made that the seeded database holds, to print at start. */
+export async function signIns({
+  context: { sequelize },
+}: {
+  context: MigrationContext;
+}): Promise<SeedSignIn[]> {
+  const [rows] = (await sequelize.query('SELECT email FROM users WHERE email IN (:emails)', {
+    replacements: { emails: DEMO_ACCOUNTS.map((a) => a.email) },
+  })) as [Array<{ email: string }>, unknown];
+  const present = new Set(rows.map((row) => row.email));
+  return DEMO_ACCOUNTS.filter((a) => present.has(a.email)).map((a) => ({
+    email: a.email,
+    password: DEMO_PASSWORD,
+    description: a.description,
+  }));
 }

@@ -1,8 +1,8 @@
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config';
+import { printSignIns } from './db/migrator';
 import { startRuntime } from './runtime';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../seeders/data/demo-accounts';
 
 async function main() {
   const config = loadConfig();
@@ -19,11 +19,8 @@ async function main() {
     console.log(
       `Mail goes to the built-in fake (${runtime.smtpFake.url}); read it on the Outbox page.`,
     );
-  if (config.seedDemo) {
-    console.log(`Demo sign-ins (password ${DEMO_PASSWORD}), invented data:`);
-    for (const account of DEMO_ACCOUNTS)
-      console.log(`  ${account.email.padEnd(24)} ${account.description}`);
-  }
+  // The sign-ins come from the seed run (seeders are loaded only when the demo is seeded).
+  if (runtime.seeded) printSignIns(runtime.seeded.signIns);
 
   let stopping = false;
   const shutdown = async (signal: string) => {

@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import type { AppConfig } from './config';
 import { closeDatabase, connectDatabase } from './db/sequelize';
-import { runMigrations, runSeeders } from './db/migrator';
+import { runMigrations, runSeeders, type SeedResult } from './db/migrator';
 import {
   describeConnectedRole,
   grantServerRole,
@@ -18,7 +18,8 @@ export interface Runtime {
   sequelize: Sequelize;
   mail: MailSettings;
   smtpFake: SmtpFake | null;
-  seeded: string[];
+  /** What the demo seed ran and the sign-ins it made; null when the demo is not seeded. */
+  seeded: SeedResult | null;
   pool: EnginePool;
   close(): Promise<void>;
 }
@@ -33,7 +34,7 @@ export async function startRuntime(config: AppConfig): Promise<Runtime> {
   const sequelize = connectDatabase(config.databaseUrl, config.databasePool.max);
   // Schema work runs as the owner; the server itself connects as a role that owns nothing.
   const owner = openRoleConnection(config.databaseOwnerUrl);
-  let seeded: string[] = [];
+  let seeded: SeedResult | null = null;
   try {
     await runMigrations(owner);
     await prepareJobQueue(config.databaseOwnerUrl);

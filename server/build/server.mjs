@@ -2,7 +2,7 @@
 // Compiles the server for production: server/index.ts, the engine pool's worker, the database
 // CLI, and each migration and seeder become plain JavaScript in dist-server/, so `npm start`
 // runs node without a TypeScript loader. Packages stay in node_modules (not bundled).
-import { readdirSync, rmSync } from 'node:fs';
+import { readdirSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { build } from 'esbuild';
@@ -19,7 +19,7 @@ const scripts = (folder) =>
     }));
 
 rmSync(outdir, { recursive: true, force: true });
-await build({
+const result = await build({
   absWorkingDir: root,
   entryPoints: [
     { in: 'server/index.ts', out: 'index' },
@@ -41,5 +41,9 @@ await build({
   // Shared chunks sit beside index.js, so import.meta.url in them names this folder.
   chunkNames: '[name]-[hash]',
   logLevel: 'warning',
+  metafile: true,
 });
+// What each output holds and imports: tests/unit/server/server-build.test.ts reads it to prove
+// the server's own module graph holds no seeder.
+writeFileSync(path.join(outdir, 'meta.json'), JSON.stringify(result.metafile));
 console.log(`Server compiled into ${path.relative(process.cwd(), outdir) || '.'}/`);

@@ -1,7 +1,7 @@
 // `npm run db:migrate` and `npm run db:seed`.
 import { loadConfig } from '../config';
 import { closeDatabase, connectDatabase } from './sequelize';
-import { runMigrations, runSeeders } from './migrator';
+import { printSignIns, runMigrations, runSeeders } from './migrator';
 import { grantServerRole, openRoleConnection } from './roles';
 import { prepareJobQueue } from '../services/jobs';
 
@@ -23,10 +23,11 @@ try {
     console.log(applied.length ? `Applied: ${applied.join(', ')}` : 'Migrations are up to date.');
   } else if (command === 'seed') {
     await migrate();
-    const applied = await runSeeders(owner, config.env);
+    const { applied, signIns } = await runSeeders(owner, config.env);
     console.log(
       applied.length ? `Seeded: ${applied.join(', ')}` : 'The demo data is already seeded.',
     );
+    printSignIns(signIns);
   } else {
     console.error('Usage: node --import tsx server/db/cli.ts migrate|seed');
     process.exitCode = 2;

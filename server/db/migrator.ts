@@ -8,10 +8,26 @@ export interface MigrationContext {
   sequelize: Sequelize;
 }
 
+/** A demo sign-in a seeder made: printed at start so a reader can sign in. */
+export interface SeedSignIn {
+  email: string;
+  password: string;
+  description: string;
+}
+
 /** What a file in migrations/ or seeders/ exports. */
 export interface MigrationModule {
   up(params: { context: MigrationContext }): Promise<void>;
   down?(params: { context: MigrationContext }): Promise<void>;
+  /** A seeder that makes accounts: those of its accounts the database holds. */
+  signIns?(params: { context: MigrationContext }): Promise<SeedSignIn[]>;
+}
+
+export interface SeedResult {
+  /** The seeders run now (empty when the demo data was seeded before). */
+  applied: string[];
+  /** The demo sign-ins the seeders made, now or on an earlier run. */
+  signIns: SeedSignIn[];
 }
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -84,11 +100,28 @@ export async function runMigrations(sequelize: Sequelize): Promise<string[]> {
   return applied.map((migration) => migration.name);
 }
 
-/** Seeds the invented demo data; each seeder runs once (recorded in SequelizeData). */
-export async function runSeeders(sequelize: Sequelize, env: string): Promise<string[]> {
+/**
+ * Seeds the invented demo data; each seeder runs once (recorded in SequelizeData).
+ * The seeders are loaded here only, by path: the server's own module graph holds
+ * no seeder, so a production build without seeders/ starts.
+ */
+export async function runSeeders(sequelize: Sequelize, env: string): Promise<SeedResult> {
   if (env === 'production') throw new Error('Refusing to seed demo data when NODE_ENV=production.');
-  const applied = await withMigrationLock(sequelize, () =>
-    buildUmzug(sequelize, 'seeders', 'SequelizeData').up(),
-  );
-  return applied.map((seeder) => seeder.name);
+  const umzug = buildUmzug(sequelize, 'seeders', 'SequelizeData');
+  const applied = await withMigrationLock(sequelize, () => umzug.up());
+  const context: MigrationContext = { queryInterface: sequelize.getQueryInterface(), sequelize };
+  const signIns: SeedSignIn[] = [];
+  for (const seeder of await umzug.executed()) {
+    const module = (await import(pathToFileURL(seeder.path!).href)) as MigrationModule;
+    if (module.signIns) signIns.push(...(await module.signIns({ context })));
+  }
+  return { applied: applied.map((seeder) => seeder.name), signIns };
+}
+
+/** Prints the demo sign-ins a seed run returned (invented accounts). */
+export function printSignIns(signIns: SeedSignIn[]): void {
+  if (signIns.length === 0) return;
+  console.log('Demo sign-ins, invented data:');
+  for (const s of signIns)
+    console.log(`  ${s.email.padEnd(24)} password ${s.password.padEnd(18)} ${s.description}`);
 }

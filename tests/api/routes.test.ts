@@ -338,7 +338,7 @@ describe('demo seed', () => {
     });
     try {
       await runMigrations(fresh);
-      const applied = await runSeeders(fresh, 'test');
+      const { applied } = await runSeeders(fresh, 'test');
       expect(applied).toContain('20261203000000-demo-route.ts');
       const routesOfDemo = async () =>
         (
@@ -383,7 +383,7 @@ describe('demo seed', () => {
 
       // Idempotent, even when the record of the seed run is lost.
       await fresh.query(`DELETE FROM "SequelizeData" WHERE name = '20261203000000-demo-route.ts'`);
-      expect(await runSeeders(fresh, 'test')).toEqual(['20261203000000-demo-route.ts']);
+      expect((await runSeeders(fresh, 'test')).applied).toEqual(['20261203000000-demo-route.ts']);
       expect(await routesOfDemo()).toHaveLength(1);
     } finally {
       await fresh.close();
