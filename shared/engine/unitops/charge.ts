@@ -28,6 +28,21 @@ import { StepError } from '../route/errors';
 import type { StepOutput, Stream } from '../route/types';
 import { addTo, COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 
+/**
+ * Charge step model: turns the charge list into component masses added to the
+ * feed (or to an empty vessel) at the charge temperature; formulae in the
+ * module comment.
+ * Source: mass and volume bookkeeping with ideal mixing of component volumes
+ * (densities from the solvent library, see docs/data-sources.md); a compound
+ * without a density at 1.2 g/mL (common practice).
+ * Validity: any charge the schema accepts; volumes by ideal mixing (excess
+ * volumes of a few % for e.g. alcohol–water are neglected); no reaction.
+ * @param inputs  the incoming stream on port 'feed', if any
+ * @param params  the step's parameters (contents, temperatureC [°C], crudeMassKg [kg])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the output stream 'out' and the step result (added kg, volumes [m³], cautions)
+ */
 export function charge(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'charge'>,

@@ -3,6 +3,14 @@ import type { RouteStep } from '../document';
 import type { StepDuration, StepResult } from '../route/types';
 import { idRecord } from '../text';
 
+/**
+ * Empty result of a step (no masses, no warnings) with its duration basis.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any step the schema accepts.
+ * @param step      the step's id, kind and name
+ * @param duration  the step's duration estimate and its basis
+ * @returns a fresh StepResult with empty records
+ */
 export function newResult(
   step: Pick<RouteStep, 'id' | 'kind' | 'name'>,
   duration: StepDuration,
@@ -25,11 +33,27 @@ export function newResult(
   };
 }
 
+/**
+ * Add kg of one component to a record of masses: target[id] += kg.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any finite mass.
+ * @param target  masses by component id [kg] (modified)
+ * @param id      component id
+ * @param kg      mass to add [kg]
+ */
 export function addTo(target: Record<string, number>, id: string, kg: number) {
   target[id] = (target[id] ?? 0) + kg;
 }
 
-/** Round for display in summaries (the streams keep full precision). */
+/**
+ * Round for display in summaries (the streams keep full precision):
+ * round(x · 10^digits) / 10^digits; non-finite values pass through.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any number; |x| · 10^digits below 2^53 for an exact result.
+ * @param x       value to round [any unit, kept]
+ * @param digits  decimal places [–] (default 4)
+ * @returns x rounded to `digits` decimals [unit of x]
+ */
 export function round(x: number, digits = 4): number {
   if (!Number.isFinite(x)) return x;
   const f = 10 ** digits;

@@ -56,7 +56,26 @@ export interface Precipitation {
   saturationKg: Record<string, number | null>;
 }
 
-/** Solid formed from a liquid of total composition kg at T (equilibrium end point). */
+/**
+ * Solid formed from a liquid of total composition kg at T (equilibrium end
+ * point): each compound dissolves up to its saturation capacity c_sat(T) in
+ * the liquor's solvents and the excess is solid, m_solid = max(0, m − c_sat);
+ * an aqueous solute dissolves in the water up to its saturation wt %,
+ * c_sat = m_water · w/(100 − w), and is insoluble in organic solvents.
+ *
+ * Source: solubility-model.ts solubilityIn (van 't Hoff fits, UNIFAC or
+ * Schröder–van Laar ideal solubility, Jouyban–Acree blends); saturation wt %
+ * of aqueous solutes from the aqueous-media library (docs/data-sources.md).
+ * Validity: thermodynamic end point only (no metastable zone, kinetics or
+ * solvates); each compound treated independently (no common-ion or solid
+ * solution effects other than incorporateImpurities); as solubilityIn.
+ * @param ctx       evaluation context (route components resolved against the library)
+ * @param kg        total mass of each component in the vessel [kg]
+ * @param T_K       temperature of the end point [K]
+ * @param warnings  receives the warnings of the solubility model
+ * @param methods   receives the methods used
+ * @returns solid kg of each component [kg] and its saturation capacity [kg] (null without evidence)
+ */
 export function precipitate(
   ctx: EvalContext,
   kg: Record<string, number>,
@@ -111,7 +130,15 @@ export function precipitate(
  * @param kg   the liquor (all components) [kg]
  * @param T_K  temperature of the test [K]
  * @param seeded  whether the crystallisation is seeded
- * @param W, M    warnings and methods of the step
+ * @param W  receives the warnings of the step
+ * @param M  receives the methods used
+ *
+ * Source: properties/solubility liquidPhaseSeparation: tangent-plane
+ * stability (Michelsen, Fluid Phase Equilib. 1982, 9, 1) of the subcooled
+ * liquid solute with UNIFAC (Fredenslund et al. 1975; Hansen et al. 1991).
+ * Validity: as liquidPhaseSeparation (UNIFAC's liquid–liquid predictions are
+ * qualitative; the binodal's position can be off by tens of %); below the
+ * melting point.
  */
 export function oilingOutCheck(
   ctx: EvalContext,
@@ -197,6 +224,16 @@ export function oilingOutCheck(
  * K = 0 (the default, "none") changes nothing; K = 1 crystallises the
  * impurity at its liquor ratio, i.e. no purification.
  * Returns the incorporated mass of each impurity [kg] and adds it to the slurry's solid.
+ *
+ * Source: Mullin, Crystallization, 4th ed. 2001, §6.1 and §7.3 (effective
+ * distribution coefficient); the mass balance above is derived here.
+ * Validity: K constant over the crystallisation (entered per impurity from
+ * the chemist's own data); 0 ≤ K; equilibrium end point, no growth-rate
+ * dependence of K.
+ * @param ctx      evaluation context (route components resolved against the library)
+ * @param slurry   the crystallised slurry (kg and solidKg [kg]; solidKg modified)
+ * @param methods  receives the method used
+ * @returns incorporated mass of each impurity [kg]
  */
 export function incorporateImpurities(
   ctx: EvalContext,
@@ -227,6 +264,25 @@ export function incorporateImpurities(
   return out;
 }
 
+/**
+ * Crystallisation step model (cooling, antisolvent, evaporative): the
+ * equilibrium end point of the module comment, yield
+ * = m_solid,product / (m_product,in + m_seed), with oiling-out checks and
+ * impurity incorporation; evaporative mode distils first (distilLeg) and
+ * crystallises at the final pot temperature. Duration: ageing plus cooling at
+ * a common-practice rate.
+ *
+ * Source: precipitate (solubility-model.ts), oilingOutCheck,
+ * incorporateImpurities (Mullin, Crystallization, 4th ed. 2001), distilLeg
+ * (Rayleigh 1902) in evaporative mode; durations common practice.
+ * Validity: end-point bound only — metastable zone width, growth,
+ * agglomeration and polymorphs are not modelled; as the solubility model.
+ * @param inputs  the liquor on port 'feed'
+ * @param params  the step's parameters (mode with temperatures [°C], antisolvent volume, evaporation; seeded, seedWtPct [%])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the slurry and the distillate (empty unless evaporative) with the step result (yield [–], solid kg [kg])
+ */
 export function crystallisation(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'crystallisation'>,

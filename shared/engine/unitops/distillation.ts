@@ -101,10 +101,7 @@ function originalWtPct(ctx: EvalContext, st: DistilState): number {
   return all > 0 ? (100 * orig) / all : 0;
 }
 
-/**
- * Distil the pot in `st` to `targetM3` (volume at 20 °C) by the Rayleigh
- * equation with the UNIFAC VLE; updates st (pot, distillate, profile).
- */
+/** The solvent fed during a constant-volume leg (distilLeg). */
 export interface LegFeed {
   /** Solvent fed as fast as it distils (constant-volume mode). */
   solventId: string;
@@ -117,6 +114,36 @@ export interface LegFeed {
 /** Temperature at which the condensate settles in a decanter (Dean–Stark trap) [K]. */
 export const DECANTER_K = VOLUME_REFERENCE_K;
 
+/**
+ * Distil the pot in `st` to `targetM3` (volume at 20 °C) by the Rayleigh
+ * equation with the UNIFAC VLE; updates st (pot, distillate, profile).
+ * Formula: dn_i/ds = −y_i / Σ_j y_j v_j (s the distilled volume, v_j molar
+ * volumes at 20 °C), y from the bubble point at the set pressure or the
+ * bubble pressure at the set pot temperature (heterogeneous bubble point
+ * while the pot liquid splits); with `feed`, the constant-volume form
+ * (rayleighConstantVolume); with `decanter`, the water-rich layer of the
+ * condensate (split at DECANTER_K) is what leaves the pot.
+ *
+ * Source: Rayleigh, Phil. Mag. 1902, 4, 521; modified Raoult's law with
+ * UNIFAC (Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352) and the
+ * regressed water pairs (thermo/nrtl.ts); Dormand–Prince 5(4) integration
+ * (numerics/ode.ts); Brent's method for the pressure at a set pot
+ * temperature (numerics/roots.ts).
+ * Validity: one equilibrium stage (no reflux, no column), solutes
+ * non-volatile and left out of the activity coefficients (no boiling-point
+ * elevation); as the VLE model (UNIFAC 0–150 °C, Antoine ranges with the
+ * anchored extrapolation of thermo/antoine.ts).
+ * @param ctx         evaluation context (route components resolved against the library)
+ * @param st          the distillation state (pot, distillate, profile; modified)
+ * @param targetM3    pot volume to distil to, at 20 °C [m³]
+ * @param cond        set pressure [Pa] or set pot temperature [K]
+ * @param toleranceX  end accuracy in every liquid mole fraction [–]
+ * @param warnings    receives the warnings of the leg
+ * @param methods     receives the methods used
+ * @param feed        the solvent fed as fast as it distils (constant-volume mode), volume [m³]
+ * @param decanter    whether a decanter (Dean–Stark trap) returns the organic layer
+ * @returns nothing; the leg's result is written into st
+ */
 export function distilLeg(
   ctx: EvalContext,
   st: DistilState,
@@ -344,7 +371,21 @@ export function distilLeg(
   if (last) last.originalSolventWtPct = round(originalWtPct(ctx, st), 4);
 }
 
-/** Warn when a compound in the pot exceeds its solubility at the end of a leg (crash-out or oiling). */
+/**
+ * Warn when a compound in the pot exceeds its solubility at the end of a leg
+ * (crash-out or oiling): a warning when m_i > c_sat,i(T) in the pot's solvents.
+ *
+ * Source: solubility-model.ts solubilityIn (van 't Hoff fits, UNIFAC or
+ * ideal solubility, Jouyban–Acree blends).
+ * Validity: as solubilityIn; an equilibrium check at the end of the leg only
+ * (supersaturation and wall crusting during the leg are not modelled).
+ * @param ctx         evaluation context (route components resolved against the library)
+ * @param pot         mass of each component in the pot [kg]
+ * @param T_K         pot temperature [K]
+ * @param potVolumeL  pot volume, for the message [L]
+ * @param warnings    receives the crash-out warnings
+ * @param methods     receives the methods used
+ */
 export function solubilityCrossingCheck(
   ctx: EvalContext,
   pot: Record<string, number>,
@@ -384,6 +425,18 @@ function legCrossingCheck(
       warnings[k] = { ...warnings[k], message: `${leg}: ${warnings[k].message}` };
 }
 
+/**
+ * Starting state of a distillation: the feed in the pot, an empty distillate,
+ * the original solvents (those present other than the new solvent) recorded
+ * for the swap's progress.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any feed stream the route produces.
+ * @param ctx           evaluation context (route components resolved against the library)
+ * @param feed          the stream charged to the pot (kg [kg])
+ * @param T_K           starting pot temperature [K]
+ * @param newSolventId  the solvent swapped in, or null
+ * @returns the state with the pot volume at 20 °C [m³] as its first extreme
+ */
 export function newDistilState(
   ctx: EvalContext,
   feed: Stream,
@@ -410,6 +463,23 @@ export function newDistilState(
   };
 }
 
+/**
+ * Distillation step model: concentration, put-and-take swap or constant-volume
+ * swap at a set pressure or pot temperature (module comment), leg by leg with
+ * distilLeg and a crash-out check at the bottom of every leg; duration from a
+ * common-practice distillation rate.
+ *
+ * Source: distilLeg (Rayleigh 1902; modified Raoult with UNIFAC, Hansen et
+ * al. 1991); solubilityCrossingCheck; durations common practice
+ * (COMMON_PRACTICE_HOURS).
+ * Validity: as distilLeg (single stage, non-volatile solutes); integration
+ * tolerance DISTILLATION_TOLERANCE_X in the liquid mole fractions.
+ * @param inputs  the pot contents on port 'feed'
+ * @param params  the step's parameters (mode with target volumes and cycles, condition with pressureMbar [mbar] or potTemperatureC [°C], decanter)
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the pot and the distillate streams with the step result (profile, volumes [L], temperatures [°C])
+ */
 export function distillation(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'distillation'>,

@@ -90,6 +90,11 @@ export interface DryingResult {
  * @param p     the drying problem
  * @param n     solvent left per kg of dry solid [mol/kg]
  * @param out   receives E_i [mol/(kg h)]
+ *
+ * Source: the module comment (constant-rate / falling-rate drying curve as in
+ * McCabe, Smith & Harriott and Geankoplis §9.7, recalled; the gas balance and
+ * rate law are stated in this module, not taken from a source).
+ * Validity: as the module comment (isothermal cake, linear falling rate, well-mixed dryer gas).
  */
 export function evaporationRates(p: DryingProblem, n: ArrayLike<number>, out: Float64Array): void {
   const m = n.length;
@@ -138,6 +143,12 @@ export function evaporationRates(p: DryingProblem, n: ArrayLike<number>, out: Fl
  *
  * @param p  the drying problem (units in DryingProblem)
  * @returns solvent left, time, outcome and the equilibrium content
+ *
+ * Source: the module comment for the model; Dormand & Prince 1980 and Brent
+ * 1973 (numerics/ode.ts, numerics/roots.ts) for the integration and the
+ * location of the end point.
+ * Validity: as the module comment (isothermal cake, linear falling rate,
+ * well-mixed dryer gas); time up to p.maxHours.
  */
 export function integrateDrying(p: DryingProblem): DryingResult {
   const m = p.n0.length;

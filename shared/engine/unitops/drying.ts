@@ -45,6 +45,19 @@ export interface IchFlag {
  * Compare residual solvents in a solid with their ICH Q3C limits.
  * `kg`: component masses of the dried solid [kg]. Returns one flag per
  * solvent present and adds a warning (class 1: hazard) per exceedance.
+ * Formula: ppm_i = 10⁶ · m_i / Σ m (water excluded from the flags, counted in
+ * the total); exceeds when ppm_i > the Option 1 limit.
+ *
+ * Source: ICH Q3C(R9) (2024), Option 1 concentration limits of Tables 1–3 and
+ * the Table 4 list, as held per solvent in data/ich-q3c.ts with each entry's
+ * provenance (docs/data-sources.md; several entries read in published
+ * reproductions of the tables, which the flag's basis says).
+ * Validity: Option 1 only (daily dose ≤ 10 g); Option 2 (PDE with the actual
+ * dose) is not computed.
+ * @param ctx       evaluation context (route components resolved against the library)
+ * @param kg        component masses of the dried solid [kg]
+ * @param warnings  receives the exceedance, class 1 and source notes
+ * @returns one flag per organic solvent present: ppm [ppm by mass], class, limit [ppm], basis
  */
 export function ichResidualSolventFlags(
   ctx: EvalContext,
@@ -124,6 +137,26 @@ export const DEFAULT_INERT_GAS_NL_MIN_KG = 0.2;
 /** Molar volume of an ideal gas at 0 °C and 1 atm [L/mol] (normal litres). */
 const NORMAL_LITRES_PER_MOL = 22.414;
 
+/**
+ * Drying step model: integrates drying-model.ts for the volatile solvents of
+ * the wet cake at the drying temperature and pressure until the LOD or
+ * residual-solvent target (module comment), the time allowed, or the
+ * equilibrium limit; then flags residual solvents against ICH Q3C.
+ * Inert gas: G [mol/(h kg)] = 60 · NL/min per kg / 22.414 L/mol.
+ *
+ * Source: drying-model.ts (constant-rate / falling-rate drying curve, McCabe,
+ * Smith & Harriott, recalled; vapour pressures and UNIFAC from the library);
+ * ICH Q3C(R9) via ichResidualSolventFlags; default drying parameters and the
+ * 20 K melting-point margin are common practice.
+ * Validity: as drying-model.ts (isothermal cake, linear falling rate, no
+ * solvates); the defaults are orders of magnitude only — fit k_d and X_c to a
+ * measured drying curve.
+ * @param inputs  the wet cake on port 'wet'
+ * @param params  the step's parameters (temperatureC [°C], pressureMbar [mbar], target, maxHours [h], dryingCoefficient [mol/(kg h)], criticalContentKgPerKg [kg/kg], inertGasNLPerMinPerKg [NL/(min kg)])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the dried solid 'dry' and the vapour 'vapour', with the step result (time [h], LOD [%], ICH flags)
+ */
 export function drying(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'drying'>,

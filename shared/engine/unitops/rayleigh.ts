@@ -267,6 +267,8 @@ export function rayleighToVolume(
  * @param xW     mole fraction of the more volatile component in the final pot [–]
  * @returns W/F, moles left per mole charged [–]
  *
+ * Source: Rayleigh 1902 (Phil. Mag.), integrated for constant α as in
+ * Wankat, Separation Process Engineering, chapter on batch distillation.
  * Validity: constant α, one equilibrium stage; 0 < x_W, x_F < 1.
  */
 export function rayleighConstantAlphaResidueFraction(
@@ -307,6 +309,9 @@ export interface ConstantVolumeResult extends RayleighResult {
  * @param fixedVolume volume of the non-volatile contents, reported in the profile only [volume]
  * @returns pot and distillate moles, the moles fed, a profile (one point per accepted step)
  *
+ * Source: component balance of a constant-volume (fed) batch still, the
+ * Rayleigh balance with a feed term (Rayleigh 1902); integrator Dormand &
+ * Prince 1980 (numerics/ode.ts).
  * Validity: as rayleighToVolume; the pot never runs dry (the feed replaces
  * what distils).
  */
@@ -410,6 +415,7 @@ export function rayleighConstantVolume(
  * @param x      mole fraction of A at the end [–]
  * @returns moles fed per mole of pot holdup, F/N [–]
  *
+ * Source: derived in this module from the balance above (no external source).
  * Validity: constant α, equal molar volumes, 0 < x ≤ x₀ ≤ 1.
  */
 export function rayleighConstantVolumeFeedRatio(alpha: number, x0: number, x: number): number {

@@ -49,6 +49,20 @@ function co2Hazard(W: EngineWarning[], mol: number, T_K: number, what: string) {
  * an optional carrier liquid. With a reaction enthalpy ΔH_r [kJ per mol S]
  * and a heat capacity c_p [kJ/(kg K)] the adiabatic rise is
  *   ΔT_ad = −ΔH_r ξ / (m c_p).
+ * A carbonate reagent or substrate releases ν ξ mol CO₂ (a hazard with its
+ * volume at 1 atm, ideal gas).
+ *
+ * Source: stoichiometry and mass balance (no external source); adiabatic
+ * temperature rise as in Stoessel, Thermal Safety of Chemical Processes,
+ * Wiley-VCH 2008 (the 50 K flag threshold cited from memory).
+ * Validity: complete reaction of the limiting reagent, no side reactions,
+ * equilibria or kinetics; ΔT_ad with constant c_p and no heat loss (an upper
+ * bound for a batch quench); the declared products only are counted.
+ * @param inputs  the stream to quench on port 'feed'
+ * @param params  the step's parameters (reagentId, equiv [mol/mol of the reference], stoichiometry [–], products [mol/mol], temperatureC [°C], reactionEnthalpyKJmol [kJ/mol], heatCapacityKJkgK [kJ/(kg K)], carrier volume)
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the quenched stream 'out' with the step result (extent [mol], ΔT_ad [K], consumed and generated kg [kg])
  */
 export function quench(
   inputs: Record<string, Stream | undefined>,
@@ -174,6 +188,21 @@ export function quench(
  * the aqueous part of the feed to the target pH, by charge balance
  * (equilibria.aqueousPH, including the compounds' own pKa values) and
  * bisection on the charged mass.
+ * Formula: find m with pH(m) = pH_target, where pH(m) solves the charge
+ * balance of the aqueous part with m kg of medium at w wt % added.
+ *
+ * Source: charge balance with Henderson–Hasselbalch fractions
+ * (equilibria.aqueousPH; Harris, Quantitative Chemical Analysis, cited from
+ * memory); pKa values from the aqueous-media library and the compound
+ * records; bisection: this project's own root bracket (no external source).
+ * Validity: as aqueousPH — ideal dilute solution (activities =
+ * concentrations), 25 °C constants, pH −2 … 16; organic solvents left out of
+ * the aqueous phase; reagent mass found to 2⁻⁴⁰ of the bracket.
+ * @param inputs  the stream to adjust on port 'feed'
+ * @param params  the step's parameters (reagentSoluteId, wtPct [%], targetPH [–], temperatureC [°C])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the adjusted stream 'out' with the step result (start and final pH [–], reagent kg [kg])
  */
 export function phAdjust(
   inputs: Record<string, Stream | undefined>,
@@ -309,6 +338,17 @@ function removeFractions(
  * and leaves with the spent carbon (user data; no adsorption isotherm).
  * Carbon charge = carbonWtPct % of the dissolved compounds, counted in PMI
  * as an auxiliary material. Liquor held up on the carbon is not modelled.
+ * Formula: m_removed,i = f_i m_i;  m_carbon = (carbonWtPct/100) Σ m_compounds.
+ *
+ * Source: user data (the fractions removed) and mass balance; the handling
+ * caution is common practice.
+ * Validity: the fractions the chemist states for this carbon, load and
+ * contact time (no isotherm: the removal does not scale with the charge).
+ * @param inputs  the stream to treat on port 'feed'
+ * @param params  the step's parameters (removals with fractionRemoved [–], carbonWtPct [%], temperatureC [°C])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the treated stream 'out' and the spent carbon's load 'spent' with the step result (carbon kg [kg])
  */
 export function carbonTreatment(
   inputs: Record<string, Stream | undefined>,
@@ -348,7 +388,20 @@ export function carbonTreatment(
   return { outputs: { out, spent: removed }, result };
 }
 
-/** Polish filtration: the stated fraction of each chosen component (particulates, insolubles) is retained on the filter. */
+/**
+ * Polish filtration: the stated fraction of each chosen component
+ * (particulates, insolubles) is retained on the filter, m_retained,i = f_i m_i;
+ * undissolved solids are retained in full.
+ *
+ * Source: user data (the fractions retained) and mass balance (no external source).
+ * Validity: the fractions the chemist states; liquor held up on the filter
+ * and filter aid are not modelled.
+ * @param inputs  the stream to filter on port 'feed'
+ * @param params  the step's parameters (removals with fractionRemoved [–], temperatureC [°C])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the filtrate 'out' and what the filter retains 'retained' with the step result
+ */
 export function polishFiltration(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'polish-filtration'>,
@@ -389,7 +442,18 @@ export function polishFiltration(
   return { outputs: { out, retained: removed }, result };
 }
 
-/** Split a stream in two by a fraction (same composition). */
+/**
+ * Split a stream in two by a fraction (same composition): a = f · feed,
+ * b = feed − a, component by component, solids alike.
+ *
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any fraction 0 ≤ f ≤ 1; a well-mixed feed (solids split like the liquid).
+ * @param inputs  the stream to split on port 'feed'
+ * @param params  the step's parameters (fractionToA [–])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the two streams 'a' and 'b' with the step result
+ */
 export function split(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'split'>,
@@ -417,7 +481,20 @@ export function split(
   return { outputs: { a, b }, result };
 }
 
-/** Merge streams; temperature is the mass-weighted mean (equal heat capacities, no heat of mixing). */
+/**
+ * Merge streams; temperature is the mass-weighted mean (equal heat
+ * capacities, no heat of mixing): T = Σ m_s T_s / Σ m_s.
+ *
+ * Source: this project's own bookkeeping (no external source); the mixing
+ * temperature is an energy balance with equal c_p.
+ * Validity: streams of similar heat capacity without a heat of mixing
+ * (acid or alcohol with water mix exothermically; not modelled).
+ * @param inputs   the streams on ports 'a', 'b' and 'c' (any may be absent)
+ * @param _params  the step's parameters (none)
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the merged stream 'out' with the step result
+ */
 export function merge(
   inputs: Record<string, Stream | undefined>,
   _params: ParamsOf<'merge'>,

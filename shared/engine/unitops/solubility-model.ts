@@ -90,7 +90,26 @@ function activitySolubility(model: UnifacModel, xIdeal: number, T_K: number): nu
   }, xIdeal).x;
 }
 
-/** Solubility curve of a compound in one neat solvent, by the best evidence available. */
+/**
+ * Solubility curve ln x(T) of a compound in one neat solvent, by the best
+ * evidence available (module comment, items 1–3): measured points with a
+ * van 't Hoff fit ln x = a + b/T; one point with the ideal slope
+ * −ΔHfus/R; UNIFAC activity-corrected x γ(x) = x_ideal(T); ideal solubility
+ * ln x = −(ΔHfus/R)(1/T − 1/Tm). Memoised in the evaluation context.
+ *
+ * Source: van 't Hoff fit of the user's measured points; Schröder–van Laar
+ * ideal solubility (Prausnitz, Lichtenthaler & de Azevedo, Molecular
+ * Thermodynamics of Fluid-Phase Equilibria, solid–liquid equilibria chapter);
+ * UNIFAC (Fredenslund et al. 1975; Hansen et al. 1991) via
+ * properties/solubility.ts.
+ * Validity: the fit over its measured temperature range (the curve's range;
+ * callers warn outside it); UNIFAC and ideal models below the melting point
+ * (T is capped at Tm), for a pure crystalline form without solvates.
+ * @param ctx                 evaluation context (route components resolved against the library)
+ * @param compoundId          the compound's component id
+ * @param solventComponentId  the solvent's component id
+ * @returns the curve (ln x as a function of T [K], method, source, fitted range [K]) or null when there is no evidence
+ */
 export function neatSolventCurve(
   ctx: EvalContext,
   compoundId: string,
@@ -223,6 +242,13 @@ const MINOR_BLEND_FRACTION = 0.01;
  * @returns x [–], the capacity [kg] and the method; null when no solvent of
  *   the liquor has any solubility evidence (the callers then keep the
  *   compound dissolved and say so)
+ *
+ * Source: neatSolventCurve per solvent; blends by Jouyban–Acree (Jouyban,
+ * J. Pharm. Pharm. Sci. 2008, 11, 32); the per-litre assumption for a
+ * solvent without evidence is this project's own (stated in a warning).
+ * Validity: as neatSolventCurve for each solvent; log-linear blending without
+ * J terms is a first estimate (cosolvency maxima are missed); solvents under
+ * 1 vol % of the blend are left out.
  */
 export function solubilityIn(
   ctx: EvalContext,

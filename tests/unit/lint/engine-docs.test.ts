@@ -34,7 +34,16 @@ const COVERED_FILES = [
   'properties/logp.ts',
   'properties/partition.ts',
   'properties/solubility.ts',
+  'unitops/charge.ts',
+  'unitops/common.ts',
+  'unitops/crystallisation.ts',
+  'unitops/distillation.ts',
+  'unitops/drying-model.ts',
+  'unitops/drying.ts',
   'unitops/equilibria.ts',
+  'unitops/rayleigh.ts',
+  'unitops/simple.ts',
+  'unitops/solubility-model.ts',
   'unitops/wash.ts',
 ];
 
