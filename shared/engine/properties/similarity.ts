@@ -37,6 +37,13 @@ function words(hex: string): number[] {
  * @returns T in [0, 1]; null when the lengths differ or both are empty
  *
  * Example: tanimotoHex('0000000f', '00000003') → 0.5
+ *
+ * Source: Tanimoto (Jaccard) coefficient T = c / (a + b − c) (Willett,
+ * Barnard & Downs, J. Chem. Inf. Comput. Sci. 1998, 38, 983); the popcount is
+ * the standard SWAR bit count.
+ * Validity: fingerprints of the same descriptor and length (a multiple of 8
+ * hex digits, else null); T measures shared fragments, not a guarantee of
+ * similar solubility or crystallisation behaviour.
  */
 export function tanimotoHex(a: string, b: string): number | null {
   if (a.length !== b.length || a.length % 8 !== 0) return null;

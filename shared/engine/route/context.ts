@@ -62,16 +62,40 @@ export interface EvaluationCaches {
   unifac: UnifacModelCache;
 }
 
+/**
+ * Fresh caches for the evaluations of one prepared route.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: one route document (the caches are keyed by its content).
+ * @returns an empty memo and an empty UNIFAC model cache
+ */
 export function createEvaluationCaches(): EvaluationCaches {
   return { memo: new Map(), unifac: createUnifacModelCache() };
 }
 
+/**
+ * Density of water at the library's reference temperature [g/mL]; 0.9982
+ * (water at 20 °C, from memory) only if the library lacks water.
+ * Source: the solvent library's water record (docs/data-sources.md).
+ * Validity: the record's reference temperature (no temperature dependence here).
+ * @returns density of water [g/mL]
+ */
 export function waterDensityGmL(): number {
   const w = solventById('water');
   return w ? w.density.value.gPerMl : 0.9982;
 }
 
-/** Solvent density at T [g/mL]: ρ(T) = ρ_ref + (dρ/dT)(T − T_ref), linear; the record's reference density when no coefficient is known. */
+/**
+ * Solvent density at T [g/mL]: ρ(T) = ρ_ref + (dρ/dT)(T − T_ref), linear; the
+ * record's reference density when no coefficient is known; never below
+ * 0.3 ρ_ref (a floor against runaway extrapolation).
+ * Source: reference density and its temperature coefficient from the solvent
+ * library (docs/data-sources.md); the linear form is common practice.
+ * Validity: liquid range, well below the critical point (linear within about
+ * 1 % over 0–80 °C for the library's solvents).
+ * @param s    the solvent record
+ * @param T_K  temperature [K]
+ * @returns density [g/mL]
+ */
 export function solventDensityGmL(s: SolventRecord, T_K: number): number {
   const d = s.density.value;
   const rho = d.gPerMl + (d.dPerK ?? 0) * (T_K - 273.15 - d.temperatureC);
@@ -82,7 +106,14 @@ export function solventDensityGmL(s: SolventRecord, T_K: number): number {
  * Apparent specific volume of an aqueous solute [mL/g], from the densest
  * published solution point (w, ρ): v = (1/ρ − (1 − w)/ρ_water)/w. Ideal
  * mixing of water and solute at this apparent volume reproduces that
- * solution's density exactly and is approximate elsewhere.
+ * solution's density exactly and is approximate elsewhere. Without a
+ * solution density point, 0.5 mL/g (an assumed solid density of 2 g/mL).
+ * Source: density points of the aqueous-media library (docs/data-sources.md);
+ * the apparent-volume formula is a mass and volume balance.
+ * Validity: 0 ≤ w ≤ the densest tabulated point, at the table's temperature;
+ * floored at 0.05 mL/g.
+ * @param a  the aqueous solute record
+ * @returns apparent specific volume of the solute [mL/g]
  */
 export function aqueousApparentSpecificVolume(a: AqueousSoluteRecord): number {
   const pts = a.densityPoints.value.filter(([w]) => w > 0);
@@ -94,6 +125,21 @@ export function aqueousApparentSpecificVolume(a: AqueousSoluteRecord): number {
   return Math.max(v, 0.05);
 }
 
+/**
+ * Resolve the route's components against the library and build the
+ * evaluation context: specific volumes (solvents by solventDensityGmL,
+ * aqueous solutes by their apparent volume, compounds at their stated density
+ * or DEFAULT_COMPOUND_DENSITY_GML), the reference moles n = m_ref / M_ref and
+ * the parameter reader (nominal value, or a uniform draw on value ± plusMinus
+ * clipped to the field's range in Monte Carlo).
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts; unknown ids and a second
+ * product are returned as issues with their field.
+ * @param doc     the route document
+ * @param rng     seeded random source for a Monte Carlo draw, or null for nominal values
+ * @param caches  caches shared by the evaluations of one prepared route
+ * @returns the context and the issues found (field and message)
+ */
 export function buildContext(
   doc: RouteDocument,
   rng: SeededRandom | null = null,
@@ -202,7 +248,15 @@ export function buildContext(
 
 // ---- units at the edge ----
 
-/** A document volume (L or vol) → m³. 1 vol = 1 L per kg of the reference input. */
+/**
+ * A document volume (L or vol) → m³. 1 vol = 1 L per kg of the reference input:
+ * V = x/1000 (L) or x · m_ref/1000 (vol).
+ * Source: common practice (the "volumes" of process chemistry, L per kg of input).
+ * Validity: 0 ≤ x ≤ 10⁶ L or vol.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param v    the volume with its unit (L or vol)
+ * @returns volume [m³]
+ */
 export function volumeToM3(ctx: EvalContext, v: Volume): number {
   const x = ctx.num(v.value, 0, 1e6);
   return v.unit === 'L' ? x / 1000 : (x * ctx.referenceKg) / 1000;
@@ -212,6 +266,15 @@ export const kToC = (k: number) => k - 273.15;
 
 // ---- streams ----
 
+/**
+ * A stream with zero mass of every component.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param phase  the stream's phase
+ * @param T_K    temperature [K]
+ * @returns the empty stream (volume 0 m³)
+ */
 export function emptyStream(ctx: EvalContext, phase: PortPhase, T_K: number): Stream {
   // Indexed by component id: no prototype, so no id can read a built-in.
   const kg = idRecord<number>();
@@ -223,7 +286,16 @@ export function emptyStream(ctx: EvalContext, phase: PortPhase, T_K: number): St
   return { phase, temperatureK: T_K, kg, solidKg, volumeM3: 0 };
 }
 
-/** Volume by ideal mixing, V = Σ m_i v_i(T) [m³]. */
+/**
+ * Volume by ideal mixing, V = Σ m_i v_i(T) [m³].
+ * Source: ideal mixing of component volumes (common practice; excess volumes neglected).
+ * Validity: excess volumes are neglected (a few % for alcohol–water,
+ * acetonitrile–water); specific volumes as in buildContext.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param kg   mass of each component [kg]
+ * @param T_K  temperature [K]
+ * @returns volume [m³]
+ */
 export function streamVolume(ctx: EvalContext, kg: Record<string, number>, T_K: number): number {
   let v = 0;
   for (const id of ctx.ids) {
@@ -233,11 +305,26 @@ export function streamVolume(ctx: EvalContext, kg: Record<string, number>, T_K: 
   return v;
 }
 
+/**
+ * Set a stream's volume from its masses (streamVolume at its temperature).
+ * Source: streamVolume (ideal mixing; common practice).
+ * Validity: as streamVolume.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param s  the stream (volumeM3 [m³] modified)
+ * @returns the same stream
+ */
 export function finishStream(ctx: EvalContext, s: Stream): Stream {
   s.volumeM3 = streamVolume(ctx, s.kg, s.temperatureK);
   return s;
 }
 
+/**
+ * Copy of a stream (own mass records).
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any stream.
+ * @param s  the stream
+ * @returns a copy that shares nothing with s
+ */
 export function cloneStream(s: Stream): Stream {
   return {
     phase: s.phase,
@@ -248,24 +335,54 @@ export function cloneStream(s: Stream): Stream {
   };
 }
 
+/**
+ * Total mass, Σ m_i.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any record of masses.
+ * @param kg  mass of each component [kg]
+ * @returns total mass [kg]
+ */
 export function totalKg(kg: Record<string, number>): number {
   let t = 0;
   for (const k in kg) t += kg[k];
   return t;
 }
 
+/**
+ * Dissolved (liquid) mass of one component: m − m_solid.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any stream.
+ * @param s   the stream
+ * @param id  component id
+ * @returns liquid mass of the component [kg]
+ */
 export function liquidKg(s: Stream, id: string): number {
   return s.kg[id] - s.solidKg[id];
 }
 
-/** Liquid part of a stream (solids removed). */
+/**
+ * Liquid part of a stream (solids removed): m_i − m_solid,i per component.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any stream.
+ * @param s  the stream
+ * @returns liquid mass of each component [kg]
+ */
 export function liquidPart(s: Stream): Record<string, number> {
   const out = idRecord<number>();
   for (const id in s.kg) out[id] = s.kg[id] - s.solidKg[id];
   return out;
 }
 
-/** kg of a liquid charge of `volumeM3` of a solvent at T. */
+/**
+ * kg of a liquid charge of `volumeM3` of a solvent at T: m = V / v(T).
+ * Source: the component's specific volume (solvent library density; see solventDensityGmL).
+ * Validity: as solventDensityGmL (liquid range).
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param id        the solvent's component id
+ * @param volumeM3  volume charged [m³]
+ * @param T_K       temperature [K]
+ * @returns mass [kg]
+ */
 export function solventKgFromVolume(
   ctx: EvalContext,
   id: string,
@@ -279,7 +396,18 @@ export function solventKgFromVolume(
 /**
  * kg of water and solute in `volumeM3` of an aqueous medium at `wtPct`:
  * the medium's density from the ideal mixture of water and the solute's
- * apparent specific volume.
+ * apparent specific volume:
+ *   m = V / (w v_solute + (1 − w) v_water),  m_water = (1 − w) m,  m_solute = w m.
+ * Source: ideal mixing at the apparent specific volume (aqueousApparentSpecificVolume;
+ * density points of the aqueous-media library).
+ * Validity: 0 ≤ w up to the solute's saturation; exact at the tabulated
+ * density point, approximate elsewhere.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param soluteId  the aqueous solute's component id
+ * @param wtPct     solute concentration [wt %]
+ * @param volumeM3  volume of the medium [m³]
+ * @param T_K       temperature [K]
+ * @returns water and solute masses [kg]
  */
 export function aqueousMediumKg(
   ctx: EvalContext,
@@ -298,6 +426,15 @@ export function aqueousMediumKg(
 
 // ---- warnings and cautions ----
 
+/**
+ * Add a warning unless the same code and message are already in the list.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any warning.
+ * @param list      the warnings (modified)
+ * @param severity  hazard, warning, advisory or info
+ * @param code      stable warning code
+ * @param message   the message in the chemist's words
+ */
 export function warn(
   list: EngineWarning[],
   severity: EngineWarning['severity'],
@@ -308,6 +445,15 @@ export function warn(
     list.push({ severity, code, message });
 }
 
+/**
+ * Record a method used (what, method, source) unless already recorded.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any method.
+ * @param list    the methods (modified)
+ * @param what    the quantity computed
+ * @param m       the method
+ * @param source  its source
+ */
 export function method(list: MethodUsed[], what: string, m: string, source: string) {
   if (!list.some((x) => x.what === what && x.method === m)) list.push({ what, method: m, source });
 }
@@ -319,6 +465,22 @@ export const FLASH_POINT_MARGIN_K = 10;
  * Cautions that hold for any vessel contents: flammable liquids at or above
  * (flash point − margin), ICH Q3C class 1 solvents, and static-accumulating
  * low-conductivity solvents where liquid is transferred or filtered.
+ * Rules: flammable when a solvent above 1 wt % of the contents is at
+ * T ≥ flash point − FLASH_POINT_MARGIN_K; flash point not confirmed → treat as
+ * flammable; static accumulator above 10 wt % in a transfer.
+ *
+ * Source: flash points, ICH Q3C classes and the low-conductivity flag from
+ * the solvent library with their provenance (data/hazards.ts, data/ich-q3c.ts;
+ * IEC 60079-20-1, ICH Q3C(R9) — docs/data-sources.md); the 10 K margin and the
+ * 1 % and 10 % shares are common practice.
+ * Validity: cautions only — they defer to local codes, the site's
+ * process-safety review and licensed practice; mixture flash points are not
+ * computed (any flammable component above 1 wt % counts).
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param kg        mass of each component in the vessel [kg]
+ * @param T_K       handling temperature [K]
+ * @param warnings  receives the cautions
+ * @param opts      transfer: liquid is transferred or filtered (static caution)
  */
 export function commonCautions(
   ctx: EvalContext,

@@ -150,7 +150,13 @@ const MODELS: Record<RouteStep['kind'], Model> = {
   merge: merge as Model,
 };
 
-/** Parse with the schema; schema errors become a RouteValidationError with field paths. */
+/**
+ * Parse with the schema; schema errors become a RouteValidationError with field paths.
+ * Source: this project's own bookkeeping (no external source): the route document schema (document.ts).
+ * Validity: any input; every schema issue is reported with its step and field.
+ * @param doc  the route document as received (unparsed)
+ * @returns the parsed route document; throws RouteValidationError
+ */
 export function parseRoute(doc: unknown): RouteDocument {
   const r = routeDocumentSchema.safeParse(doc);
   if (r.success) return r.data;
@@ -167,7 +173,21 @@ export function parseRoute(doc: unknown): RouteDocument {
   );
 }
 
-/** Evaluate a route document (parsed or raw). Throws RouteValidationError naming step and field. */
+/**
+ * Evaluate a route document (parsed or raw). Throws RouteValidationError naming step and field.
+ * parseRoute, prepareRoute, then evaluatePrepared.
+ * Source: the step models' own sources (docs/methods.md); totals as in the
+ * module comment — PMI after the ACS GCI Pharmaceutical Roundtable
+ * (Jimenez-Gonzalez et al., Org. Process Res. Dev. 2011, 15, 912), E-factor
+ * after Sheldon (Chem. Ind. 1992, 903); cycle time from common-practice
+ * durations.
+ * Validity: any route document the schema accepts; each number within the
+ * validity of the step models that produce it (their warnings say where a
+ * model is stretched); parallel branches are counted in series in the cycle time.
+ * @param doc          the route document (parsed or raw)
+ * @param options.rng  seeded random source for one Monte Carlo draw (nominal values without it)
+ * @returns the route result (per-step results, streams [kg, m³, K], terminals, totals, warnings)
+ */
 export function evaluateRoute(doc: unknown, options: { rng?: SeededRandom } = {}): RouteResult {
   const parsed = parseRoute(doc);
   const prepared = prepareRoute(parsed);
@@ -181,7 +201,15 @@ export interface PreparedRoute {
   caches?: EvaluationCaches;
 }
 
-/** Validate once (for repeated evaluation in Monte Carlo). */
+/**
+ * Validate once (for repeated evaluation in Monte Carlo): resolve the
+ * components, check the graph and order the steps; throws
+ * RouteValidationError with every issue.
+ * Source: this project's own bookkeeping (no external source); see validateRoute.
+ * Validity: any parsed route document.
+ * @param doc  the parsed route document
+ * @returns the document, its graph (topological order, connections) and fresh caches
+ */
 export function prepareRoute(doc: RouteDocument): PreparedRoute {
   const { ctx, issues: ctxIssues } = buildContext(doc);
   const { issues, graph } = validateRoute(doc, ctx, ctxIssues);
@@ -189,6 +217,24 @@ export function prepareRoute(doc: RouteDocument): PreparedRoute {
   return { doc, graph, caches: createEvaluationCaches() };
 }
 
+/**
+ * Evaluate a prepared route: every step model in topological order, streams
+ * carried along the connections, the mass balance of every component checked
+ * at every step (in + added + generated − consumed = out, to
+ * MASS_BALANCE_TOLERANCE relative), the per-step purge, the route totals and
+ * the route-level cautions and notes.
+ * Source: the step models' own sources (docs/methods.md); totals as in the
+ * module comment — PMI after the ACS GCI Pharmaceutical Roundtable
+ * (Jimenez-Gonzalez et al., Org. Process Res. Dev. 2011, 15, 912), E-factor
+ * after Sheldon (Chem. Ind. 1992, 903); cycle time from common-practice
+ * durations.
+ * Validity: any route document the schema accepts; each number within the
+ * validity of the step models that produce it (their warnings say where a
+ * model is stretched); parallel branches are counted in series in the cycle time.
+ * @param prepared  the prepared route (prepareRoute)
+ * @param rng       seeded random source for one Monte Carlo draw, or null for nominal values
+ * @returns the route result (per-step results, streams, terminals, totals, warnings, process-safety note)
+ */
 export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | null): RouteResult {
   const { doc, graph } = prepared;
   const { ctx } = buildContext(doc, rng, prepared.caches ?? createEvaluationCaches());
@@ -310,6 +356,15 @@ function checkBalance(
  * the product, i.e. in the output that carries the most product; purge factor
  * = in / out (null when none leaves with the product). Empty when no product
  * passes through the step, or the route names no product.
+ *
+ * Source: the purge factor of a purge argument (Teasdale et al., Org.
+ * Process Res. Dev. 2013, 17, 221); amounts from this step's mass balance.
+ * Validity: any evaluated step; "with the product" is the one output that
+ * carries the most product (a step that splits the product between outputs
+ * counts only the largest).
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param out  the step's outputs (kg [kg]) and result (balance [kg])
+ * @returns in and out [kg] and the purge factor [–] of each impurity, by component id
  */
 export function stepPurge(ctx: EvalContext, out: StepOutput): Record<string, PurgeEntry> {
   const purge = idRecord<PurgeEntry>();

@@ -46,6 +46,16 @@ export interface MonteCarloState {
 
 export const MAX_DRAWS = 100_000;
 
+/**
+ * Initial state of a run: no draws done, the generator seeded.
+ * Source: Monte Carlo propagation of uniform parameter uncertainty (common
+ * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * Am. Stat. 1996, 50, 361, definition 7.
+ * Validity: 1 ≤ draws ≤ MAX_DRAWS, integer seed (else a RangeError).
+ * @param opts.draws  number of draws [–]
+ * @param opts.seed   integer seed of the generator [–]
+ * @returns the run state
+ */
 export function startMonteCarlo(opts: { draws: number; seed: number }): MonteCarloState {
   if (!Number.isInteger(opts.draws) || opts.draws < 1 || opts.draws > MAX_DRAWS)
     throw new RangeError(`draws must be an integer in 1..${MAX_DRAWS}`);
@@ -60,7 +70,20 @@ export function startMonteCarlo(opts: { draws: number; seed: number }): MonteCar
   };
 }
 
-/** Run up to `chunk` further draws; returns the new state (the input is not modified). */
+/**
+ * Run up to `chunk` further draws; returns the new state (the input is not
+ * modified). A draw whose evaluation fails is counted in failedDraws and
+ * left out of the samples.
+ * Source: Monte Carlo propagation of uniform parameter uncertainty (common
+ * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * Am. Stat. 1996, 50, 361, definition 7.
+ * Validity: any prepared route; results are reproducible for a seed whatever
+ * the chunking.
+ * @param route  the prepared route
+ * @param state  the run state so far
+ * @param chunk  maximum number of draws to run now [–] (at least 1)
+ * @returns the new run state
+ */
 export function runMonteCarloChunk(
   route: PreparedRoute,
   state: MonteCarloState,
@@ -91,7 +114,15 @@ export function runMonteCarloChunk(
   return s;
 }
 
-/** Percentile p ∈ [0, 1] by linear interpolation between order statistics (Hyndman–Fan 7). */
+/**
+ * Percentile p ∈ [0, 1] by linear interpolation between order statistics
+ * (Hyndman–Fan 7): h = (n − 1) p, Q = x_⌊h⌋ + (h − ⌊h⌋)(x_⌈h⌉ − x_⌊h⌋).
+ * Source: Hyndman & Fan, Am. Stat. 1996, 50, 361, definition 7.
+ * Validity: sorted finite samples; null for no samples or when a neighbour is infinite.
+ * @param sorted  samples in ascending order [unit of the samples]
+ * @param p       probability [–], 0 ≤ p ≤ 1
+ * @returns the percentile [unit of the samples], or null
+ */
 export function percentile(sorted: readonly number[], p: number): number | null {
   if (sorted.length === 0) return null;
   const h = (sorted.length - 1) * p;
@@ -108,6 +139,16 @@ function summarise(values: number[]): Percentiles {
   return { p5: percentile(v, 0.05), p50: percentile(v, 0.5), p95: percentile(v, 0.95) };
 }
 
+/**
+ * p5, p50 and p95 of yield, purity and each purge factor over the draws done
+ * (NaN samples left out; an infinite purge factor gives null).
+ * Source: Monte Carlo propagation of uniform parameter uncertainty (common
+ * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * Am. Stat. 1996, 50, 361, definition 7.
+ * Validity: any run state; percentiles of few draws are rough.
+ * @param state  the run state
+ * @returns the summary (draws, seed, failed draws, percentiles)
+ */
 export function summariseMonteCarlo(state: MonteCarloState): MonteCarloResult {
   return {
     draws: state.done,
@@ -124,6 +165,15 @@ export function summariseMonteCarlo(state: MonteCarloState): MonteCarloResult {
 /**
  * Chunked iterator for background jobs: yields progress after each chunk and
  * returns the summary. `for (const p of it) report(p.done / p.total)`.
+ * Source: Monte Carlo propagation of uniform parameter uncertainty (common
+ * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * Am. Stat. 1996, 50, 361, definition 7.
+ * Validity: any route document the schema accepts (parsed first; a bad document throws).
+ * @param doc               the route document (unparsed)
+ * @param opts.draws        number of draws [–]
+ * @param opts.seed         integer seed [–]
+ * @param opts.chunkSize    draws per chunk [–] (default 50)
+ * @returns a generator of progress (done, total [–], state) that returns the summary
  */
 export function* monteCarloChunks(
   doc: unknown,
@@ -139,7 +189,18 @@ export function* monteCarloChunks(
   return summariseMonteCarlo(state);
 }
 
-/** Run all draws at once, with an optional progress callback (fraction done). */
+/**
+ * Run all draws at once, with an optional progress callback (fraction done).
+ * Source: Monte Carlo propagation of uniform parameter uncertainty (common
+ * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * Am. Stat. 1996, 50, 361, definition 7.
+ * Validity: any route document the schema accepts (parsed first; a bad document throws).
+ * @param doc          the route document
+ * @param opts.draws   number of draws [–]
+ * @param opts.seed    integer seed [–]
+ * @param onProgress   receives the fraction done [–]
+ * @returns the summary (percentiles of yield [%], purity [wt %], purge factors [–])
+ */
 export function monteCarlo(
   doc: unknown | RouteDocument,
   opts: { draws: number; seed: number },

@@ -26,7 +26,19 @@ export interface PurgeCascade {
   mainStepId: string | null;
 }
 
-/** One cascade per impurity charged, in the order of result.totals.impurities. */
+/**
+ * One cascade per impurity charged, in the order of result.totals.impurities:
+ * per step the step factor f_k = in/out and the cumulative factor Π f_k
+ * (null from the first complete purge on); the main step is the one with the
+ * largest in − out.
+ *
+ * Source: the multiplication of step purge factors of a purge argument
+ * (Teasdale et al., Org. Process Res. Dev. 2013, 17, 221).
+ * Validity: the step factors of this evaluation; multiplying them assumes
+ * each step's purge is independent of the amount entering (dilute impurity).
+ * @param result  the route result (step order, per-step purge entries [kg], totals)
+ * @returns one cascade per impurity (rows with in and out [kg], step and cumulative factors [–])
+ */
 export function purgeCascades(
   result: Pick<RouteResult, 'order' | 'steps' | 'totals'>,
 ): PurgeCascade[] {

@@ -143,6 +143,22 @@ export interface GraphInfo {
   outgoing: Map<string, Map<string, RouteDocument['connections'][number]>>;
 }
 
+/**
+ * Check a route document's graph and references: duplicate ids, unknown
+ * steps, ports and components, phase mismatches between ports, ports used
+ * twice, required inputs left open, aqueous media above their saturation, wt %
+ * without a crude mass; then the topological order of the steps (Kahn's
+ * algorithm, ties broken by document order) and any cycle.
+ *
+ * Source: this project's own bookkeeping (no external source); topological
+ * sort after Kahn, Commun. ACM 1962, 5, 558.
+ * Validity: any route document the schema accepts; every issue names its
+ * step and field.
+ * @param doc            the route document
+ * @param ctx            evaluation context (route components resolved against the library)
+ * @param contextIssues  issues already found while resolving the components
+ * @returns the issues (step, field, message) and the graph (order, incoming and outgoing connections)
+ */
 export function validateRoute(
   doc: RouteDocument,
   ctx: EvalContext,
