@@ -7,6 +7,11 @@ const tones = {
   info: 'border-l-caution-info',
 } as const;
 
+/**
+ * Messages in the bottom-right corner. Only their dismiss buttons take the
+ * pointer: a click anywhere else on a message reaches the control beneath it,
+ * so a message never blocks the row or button it happens to cover.
+ */
 export function Toaster() {
   const toasts = useToasts((s) => s.toasts);
   const dismiss = useToasts((s) => s.dismiss);
@@ -20,7 +25,7 @@ export function Toaster() {
           key={t.id}
           role={t.tone === 'error' ? 'alert' : 'status'}
           className={cn(
-            'pointer-events-auto flex items-start gap-3 rounded-card border border-rule border-l-4 bg-paper-raised px-3 py-2 shadow-overlay',
+            'flex items-start gap-3 rounded-card border border-rule border-l-4 bg-paper-raised px-3 py-2 shadow-overlay',
             tones[t.tone],
           )}
         >
@@ -28,7 +33,7 @@ export function Toaster() {
           <button
             type="button"
             onClick={() => dismiss(t.id)}
-            className="rounded-control px-1 text-small text-ink-muted hover:text-ink"
+            className="pointer-events-auto rounded-control px-1 text-small text-ink-muted hover:text-ink"
             aria-label="Dismiss message"
           >
             ✕
