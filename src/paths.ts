@@ -142,10 +142,16 @@ export const api = {
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit/verify`,
   auditCsv: (workspaceId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/audit/export.csv`,
-  routes: (workspaceId: string, q: { archived?: boolean; q?: string } = {}) => {
+  routes: (
+    workspaceId: string,
+    q: { archived?: boolean; q?: string; sort?: string; cursor?: string; limit?: number } = {},
+  ) => {
     const params = new URLSearchParams();
     if (q.archived !== undefined) params.set('archived', String(q.archived));
     if (q.q) params.set('q', q.q);
+    if (q.sort) params.set('sort', q.sort);
+    if (q.limit) params.set('limit', String(q.limit));
+    if (q.cursor) params.set('cursor', q.cursor);
     const s = params.toString();
     return `${ws(workspaceId)}/routes${s ? `?${s}` : ''}`;
   },

@@ -48,14 +48,14 @@ export function routesRouter(config: AppConfig): Router {
     method: 'get',
     path: '/workspaces/{workspaceId}/routes',
     summary:
-      'Routes of the workspace with project, owner, status, last change and key totals; archived=true lists the archived ones; q searches route and project names.',
+      'One page of the routes of the workspace with project, owner, status, last change and key totals; archived=true lists the archived ones; q searches route and project names; sort=changed (newest first, default) or name; limit (default 50, at most 200) and the cursor of the previous page.',
     tags: ['routes'],
     auth: true,
     params: workspaceParams,
     query: listRoutesQuerySchema,
     responses: {
       200: {
-        description: 'The routes, ordered by project, then last change.',
+        description: 'One page of routes and the cursor of the next page (null on the last).',
         schema: routeListSchema,
       },
       404: notFoundResponse,
@@ -63,8 +63,11 @@ export function routesRouter(config: AppConfig): Router {
     handle: async ({ actor, params, query, transaction }) => {
       const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'route.list', { workspaceId: workspace.id });
-      const routes = await listRoutes(workspace.id, query, transaction);
-      return { status: 200, body: routes.map(presentRouteSummary) };
+      const page = await listRoutes(workspace.id, query, transaction);
+      return {
+        status: 200,
+        body: { items: page.routes.map(presentRouteSummary), nextCursor: page.nextCursor },
+      };
     },
   });
 

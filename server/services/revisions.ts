@@ -4,7 +4,7 @@
  * a content hash, numbered per route. Saving leaves the draft as it is.
  * A revision's status follows from its latest review request.
  */
-import { Op, type Transaction } from 'sequelize';
+import { Op, literal, type Transaction } from 'sequelize';
 import type { DraftDocument } from '@shared/schemas/routes';
 import type {
   RevisionStatus,
@@ -253,14 +253,27 @@ export async function listRevisions(
     throw badRequest('The page link is not valid; start from the first page.', [
       { path: 'query.cursor', message: 'Not a cursor from a previous page.' },
     ]);
+  // Keyset on the route's revision number (route_revisions_route_number_key serves it); one
+  // row beyond the page says whether there is a next one. An engineer sees approved revisions
+  // only: those whose latest review request is approved, decided in SQL so pages stay full.
   const revisions = await RouteRevision.findAll({
     where: {
-      routeId: route.id,
-      ...(page.cursor ? { number: { [Op.lt]: Number(page.cursor) } } : {}),
+      [Op.and]: [
+        { routeId: route.id },
+        ...(page.cursor ? [{ number: { [Op.lt]: Number(page.cursor) } }] : []),
+        ...(approvedOnly
+          ? [
+              literal(
+                `(SELECT rr.status FROM review_requests rr WHERE rr.revision_id = "RouteRevision"."id" ORDER BY rr.created_at DESC LIMIT 1) = 'approved'`,
+              ),
+            ]
+          : []),
+      ],
     },
     attributes: { exclude: ['document', 'result'] },
     include: [{ model: User, as: 'author', attributes: ['id', 'name', 'email'] }],
     order: [['number', 'DESC']],
+    limit: page.limit + 1,
     transaction,
   });
   const reviews = await ReviewRequest.findAll({

@@ -1,5 +1,5 @@
 /**
- * Routes of a workspace: list (grouped by project on the client), create,
+ * Routes of a workspace: list (a page at a time), create,
  * rename, move between projects, archive, duplicate. Callers load the
  * workspace and authorize first; a route of another workspace is not found.
  */
@@ -12,8 +12,8 @@ import {
   type Transaction,
   type WhereOptions,
 } from 'sequelize';
-import type { DraftDocument } from '@shared/schemas/routes';
-import { notFound, versionConflict } from '../errors';
+import type { DraftDocument, RouteSort } from '@shared/schemas/routes';
+import { badRequest, notFound, versionConflict } from '../errors';
 import { Project, Route, RouteDraft, User } from '../models';
 import { recordAudit } from './audit';
 import { createDraft, type DraftEvaluation } from './drafts';
@@ -32,34 +32,112 @@ const summaryIncludes = (withDocument: boolean) => [
 
 const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
+type RouteCursor = { sort: RouteSort; key: string; id: string };
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
+// The sort key as text, exactly (microseconds kept), for the cursor of the next page.
+const CHANGED_KEY = `to_char("Route"."changed_at" AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
+const NAME_KEY = 'lower("Route"."name")';
+
+const encodeRouteCursor = (cursor: RouteCursor) =>
+  Buffer.from(JSON.stringify([cursor.sort, cursor.key, cursor.id]), 'utf8').toString('base64url');
+
+function decodeRouteCursor(text: string, sort: RouteSort): RouteCursor {
+  let parts: unknown;
+  try {
+    parts = JSON.parse(Buffer.from(text, 'base64url').toString('utf8'));
+  } catch {
+    parts = null;
+  }
+  const [cursorSort, key, id] = Array.isArray(parts) && parts.length === 3 ? parts : [];
+  const valid =
+    typeof key === 'string' &&
+    typeof id === 'string' &&
+    UUID.test(id) &&
+    (cursorSort === 'name' || (cursorSort === 'changed' && !Number.isNaN(Date.parse(key))));
+  if (!valid)
+    throw badRequest('The page link is not valid; start from the first page.', [
+      { path: 'query.cursor', message: 'Not a cursor from a previous page.' },
+    ]);
+  if (cursorSort !== sort)
+    throw badRequest(
+      'The page link belongs to another order of the list; start from the first page.',
+      [
+        {
+          path: 'query.cursor',
+          message: `This cursor pages the list sorted by ${cursorSort}, not by ${sort}.`,
+        },
+      ],
+    );
+  return { sort, key: key as string, id: id as string };
+}
+
+/**
+ * One page of the workspace's routes (current or archived), by last change
+ * (newest first) or by name, after the cursor of the previous page. Keyset
+ * paging: the page starts after the last row's (sort key, id), so rows never
+ * repeat or go missing between pages, whatever is added meanwhile. Each sort
+ * is served by a partial index (migrations, "list-keysets"); `q` matches part
+ * of the route's or its project's name (trigram indexes), wildcards literal.
+ */
 export async function listRoutes(
   workspaceId: string,
-  filter: { archived: boolean; q?: string },
+  query: { archived: boolean; q?: string; sort: RouteSort; limit: number; cursor?: string },
   transaction: Transaction | null,
-): Promise<Route[]> {
+): Promise<{ routes: Route[]; nextCursor: string | null }> {
+  const escape = (value: string) => Route.sequelize!.escape(value);
   const conditions: WhereOptions[] = [
     { workspaceId },
-    { archivedAt: filter.archived ? { [Op.ne]: null } : null },
+    { archivedAt: query.archived ? { [Op.ne]: null } : null },
   ];
-  if (filter.q) {
-    const pattern = likePattern(filter.q);
-    conditions.push({
-      [Op.or]: [{ name: { [Op.iLike]: pattern } }, { '$project.name$': { [Op.iLike]: pattern } }],
-    });
+  if (query.q) {
+    const pattern = escape(likePattern(query.q));
+    conditions.push(
+      literal(
+        `("Route"."name" ILIKE ${pattern} OR "Route"."project_id" IN (SELECT p.id FROM projects p WHERE p.workspace_id = ${escape(workspaceId)} AND p.name ILIKE ${pattern}))`,
+      ),
+    );
   }
-  return Route.findAll({
+  if (query.cursor) {
+    const after = decodeRouteCursor(query.cursor, query.sort);
+    conditions.push(
+      literal(
+        query.sort === 'changed'
+          ? `("Route"."changed_at", "Route"."id") < (${escape(after.key)}::timestamptz, ${escape(after.id)}::uuid)`
+          : `(${NAME_KEY}, "Route"."id") > (${escape(after.key)}, ${escape(after.id)}::uuid)`,
+      ),
+    );
+  }
+  const rows = (await Route.findAll({
     where: { [Op.and]: conditions },
+    attributes: {
+      include: [[literal(query.sort === 'changed' ? CHANGED_KEY : NAME_KEY), 'sortKey']],
+    },
     include: summaryIncludes(false),
-    order: [
-      [literal('"project"."name" IS NULL'), 'ASC'],
-      [fn('lower', col('project.name')), 'ASC'],
-      ['updatedAt', 'DESC'],
-    ],
-    limit: 1000,
-    // One row per route (every include is to-one), so the filter on the project name can stay in one query.
+    order:
+      query.sort === 'changed'
+        ? [
+            [literal('"Route"."changed_at"'), 'DESC'],
+            ['id', 'DESC'],
+          ]
+        : [
+            [literal(NAME_KEY), 'ASC'],
+            ['id', 'ASC'],
+          ],
+    limit: query.limit + 1,
+    // One row per route (every include is to-one), so LIMIT counts routes.
     subQuery: false,
     transaction,
-  });
+  })) as Route[];
+  const routes = rows.slice(0, query.limit);
+  const last = routes.at(-1);
+  return {
+    routes,
+    nextCursor:
+      rows.length > query.limit && last
+        ? encodeRouteCursor({ sort: query.sort, key: last.get('sortKey') as string, id: last.id })
+        : null,
+  };
 }
 
 /** A route of this workspace with its project, owner and draft; 404 otherwise. */

@@ -7,6 +7,7 @@
  */
 import { z } from 'zod';
 import { text } from './text';
+import { listPagingSchema, listReplySchema } from './lists';
 import {
   componentSchema,
   ROUTE_SCHEMA_VERSION,
@@ -78,7 +79,8 @@ export const routeSummarySchema = z.object({
   stepCount: z.number().int(),
 });
 export type RouteSummary = z.infer<typeof routeSummarySchema>;
-export const routeListSchema = z.array(routeSummarySchema);
+export const routeListSchema = listReplySchema(routeSummarySchema);
+export type RouteList = z.infer<typeof routeListSchema>;
 
 /** Why the stored draft has no totals (it could not be evaluated), or null. */
 export const draftEvaluationErrorSchema = z
@@ -107,12 +109,20 @@ export const routeDetailSchema = routeSummarySchema.extend({
 });
 export type RouteDetail = z.infer<typeof routeDetailSchema>;
 
-export const listRoutesQuerySchema = z.object({
+/** How the routes list is ordered: last change, newest first (default), or name A to Z. */
+export const ROUTE_SORTS = ['changed', 'name'] as const;
+export type RouteSort = (typeof ROUTE_SORTS)[number];
+
+export const listRoutesQuerySchema = listPagingSchema.extend({
   archived: z
     .enum(['true', 'false'], { message: 'Use true or false.' })
     .default('false')
     .transform((value) => value === 'true'),
+  /** Part of the route's or its project's name. */
   q: text().trim().max(200).optional(),
+  sort: z
+    .enum(ROUTE_SORTS, { message: 'Sort by last change (changed) or by name (name).' })
+    .default('changed'),
 });
 
 export const createRouteSchema = z.object({

@@ -58,7 +58,7 @@ export const queryKeys = {
   },
   routes: {
     all: (workspaceId: string) => [...workspace(workspaceId), 'routes'] as const,
-    list: (workspaceId: string, filter: { archived: boolean }) =>
+    list: (workspaceId: string, filter: { archived: boolean; q?: string; sort?: string }) =>
       [...queryKeys.routes.all(workspaceId), 'list', filter] as const,
     detail: (workspaceId: string, routeId: string) =>
       [...queryKeys.routes.all(workspaceId), 'detail', routeId] as const,

@@ -1,4 +1,5 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
+import type { RouteSort } from '@shared/schemas/routes';
 import { Link } from 'react-router-dom';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { useSession } from '@/features/auth/api/get-session';
@@ -8,6 +9,7 @@ import { EmptyState } from '@/components/empty-state';
 import { ErrorState } from '@/components/error-state';
 import { Button } from '@/components/button';
 import { Loading } from '@/components/spinner';
+import { inputClass } from '@/components/text-field';
 import { RoleBadges } from '@/components/role-picker';
 import { paths } from '@/paths';
 import { useRoutes } from '@/features/routes/api/get-routes';
@@ -15,7 +17,14 @@ import { CreateRouteForm } from '@/features/routes/components/create-route-form'
 import { RoutesTable } from '@/features/routes/components/routes-table';
 import { AttentionList } from '@/features/review';
 
-/** The workspace home: its routes, grouped by project, and a way to start a new one. */
+/** How long typing rests before the search goes to the server. */
+const SEARCH_PAUSE_MS = 250;
+
+/**
+ * The workspace home: its routes, a page at a time from the server (sorted by
+ * last change or name, searched by route and project name), and a way to
+ * start a new one.
+ */
 export function Component() {
   const workspace = useWorkspace();
   const { data: session } = useSession();
@@ -24,7 +33,15 @@ export function Component() {
   const canWrite = session ? canInWorkspace(session, workspace.id, 'route.create') : false;
   const [archived, setArchived] = useState(false);
   const [creating, setCreating] = useState(false);
-  const routes = useRoutes(workspace.id, archived);
+  const [search, setSearch] = useState('');
+  const [q, setQ] = useState('');
+  const [sort, setSort] = useState<RouteSort>('changed');
+  useEffect(() => {
+    const timer = setTimeout(() => setQ(search.trim()), SEARCH_PAUSE_MS);
+    return () => clearTimeout(timer);
+  }, [search]);
+  const routes = useRoutes(workspace.id, { archived, q, sort });
+  const items = routes.data?.pages.flatMap((page) => page.items) ?? [];
 
   return (
     <>
@@ -65,7 +82,7 @@ export function Component() {
           error={routes.error}
           onRetry={() => routes.refetch()}
         />
-      ) : routes.data.length === 0 ? (
+      ) : items.length === 0 && !q && !search ? (
         archived ? (
           <EmptyState title="No archived routes">
             Routes you archive are kept here and can be restored at any time.
@@ -116,7 +133,49 @@ export function Component() {
           </EmptyState>
         )
       ) : (
-        <RoutesTable workspaceId={workspace.id} routes={routes.data} canWrite={canWrite} />
+        <div className="space-y-3">
+          <div className="flex items-end gap-3">
+            <div className="w-72 space-y-1">
+              <label htmlFor="route-search" className="block text-small font-medium text-ink">
+                Search routes
+              </label>
+              <input
+                id="route-search"
+                type="search"
+                value={search}
+                onChange={(e) => setSearch(e.target.value)}
+                placeholder="Route or project name"
+                className={`${inputClass} border-rule-strong`}
+              />
+            </div>
+            <p className="pb-2 text-small text-ink-muted" aria-live="polite">
+              {routes.isFetching && !routes.isFetchingNextPage
+                ? 'Searching…'
+                : `${items.length} ${items.length === 1 ? 'route' : 'routes'} shown${routes.hasNextPage ? ', more below' : ''}`}
+            </p>
+          </div>
+          <RoutesTable
+            workspaceId={workspace.id}
+            routes={items}
+            canWrite={canWrite}
+            sort={sort}
+            onSortChange={setSort}
+          />
+          {items.length === 0 && !routes.isFetching ? (
+            <p className="px-3 py-2 text-body text-ink-muted">
+              No route matches “{q || search}”. Clear the search to see them all.
+            </p>
+          ) : null}
+          {routes.hasNextPage ? (
+            <Button
+              variant="secondary"
+              busy={routes.isFetchingNextPage}
+              onClick={() => routes.fetchNextPage()}
+            >
+              Show more routes
+            </Button>
+          ) : null}
+        </div>
       )}
     </>
   );

@@ -268,27 +268,30 @@ describe('routes of a workspace', () => {
     const gone = await make('Zeta old attempt');
     await patch(asChemist, `${routesPath()}/${gone.id}`, { archived: true });
 
-    const active = routeListSchema.parse((await asChemist.agent.get(routesPath())).body);
+    const active = routeListSchema.parse((await asChemist.agent.get(routesPath())).body).items;
     expect(active.map((r) => r.id)).toContain(kept.id);
     expect(active.map((r) => r.id)).not.toContain(gone.id);
     expect(active.every((r) => r.status === 'draft')).toBe(true);
 
     const archived = routeListSchema.parse(
       (await asChemist.agent.get(`${routesPath()}?archived=true`)).body,
-    );
+    ).items;
     expect(archived.map((r) => r.id)).toContain(gone.id);
     expect(archived.every((r) => r.status === 'archived')).toBe(true);
 
     const byName = routeListSchema.parse(
       (await asChemist.agent.get(`${routesPath()}?q=zeta`)).body,
-    );
+    ).items;
     expect(byName.map((r) => r.id)).toEqual([kept.id]);
     const byProject = routeListSchema.parse(
       (await asChemist.agent.get(`${routesPath()}?q=quokka`)).body,
-    );
+    ).items;
     expect(byProject.map((r) => r.id)).toEqual([kept.id]);
     // LIKE wildcards in the search are taken literally.
-    expect((await asChemist.agent.get(`${routesPath()}?q=%25`)).body).toEqual([]);
+    expect((await asChemist.agent.get(`${routesPath()}?q=%25`)).body).toEqual({
+      items: [],
+      nextCursor: null,
+    });
     const row = byName[0];
     expect(row).toMatchObject({
       owner: { id: chemist.id, name: 'Ada Chemist' },
@@ -303,10 +306,14 @@ describe('routes of a workspace', () => {
     expect(bad.body.error.details[0].path).toBe('query.archived');
   });
 
-  it('groups by project: routes of a project come together, routes without one last', async () => {
-    const list = routeListSchema.parse((await asChemist.agent.get(routesPath())).body);
-    const keys = list.map((r) => r.project?.name.toLowerCase() ?? '\uffff');
-    expect(keys).toEqual([...keys].sort());
+  it('orders by last change, newest first: a route just renamed comes first', async () => {
+    const list = routeListSchema.parse((await asChemist.agent.get(routesPath())).body).items;
+    const times = list.map((r) => Date.parse(r.updatedAt));
+    expect(times).toEqual([...times].sort((a, b) => b - a));
+    const oldest = list.at(-1)!;
+    await patch(asChemist, `${routesPath()}/${oldest.id}`, { name: 'Renamed last (invented)' });
+    const after = routeListSchema.parse((await asChemist.agent.get(routesPath())).body).items;
+    expect(after[0]!.id).toBe(oldest.id);
   });
 
   it('answers 400 with the path of a bad name or document', async () => {

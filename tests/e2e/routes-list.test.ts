@@ -31,13 +31,9 @@ describe('routes list', () => {
       .getByRole('row')
       .filter({ has: page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }) });
     await demo.waitFor();
-    await expect(
-      page
-        .getByRole('rowheader', { name: new RegExp(DEMO_PROJECT_NAME.replace(/[()]/g, '\\$&')) })
-        .isVisible(),
-    ).resolves.toBe(true);
     const cells = demo.getByRole('cell');
     const texts = await cells.allTextContents();
+    expect(texts).toContain(DEMO_PROJECT_NAME);
     const yieldPct = percent(texts.find((t) => /%/.test(t)) ?? null);
     expect(yieldPct).toBeGreaterThan(30);
     expect(yieldPct).toBeLessThanOrEqual(100);
@@ -69,12 +65,21 @@ describe('routes list', () => {
     await page.getByRole('status').filter({ hasText: 'Duplicated as' }).waitFor();
     await expect.poll(() => page.getByRole('link', { name: new RegExp(renamed) }).count()).toBe(2);
 
-    // Search narrows the table to the matching routes.
+    // Search (done by the server) narrows the table to the matching routes.
     await page.getByLabel('Search routes').fill(suffix);
     await expect
       .poll(() => page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).count())
       .toBe(0);
+    await expect.poll(() => page.getByRole('link', { name: new RegExp(renamed) }).count()).toBe(2);
     await page.getByLabel('Search routes').fill('');
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).waitFor();
+
+    // Sorting by name asks the server for that order.
+    await page.getByRole('button', { name: /^Route/ }).click();
+    await expect
+      .poll(() => page.getByRole('columnheader', { name: /^Route/ }).getAttribute('aria-sort'))
+      .toBe('ascending');
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).waitFor();
 
     // Archive: gone from the current routes, found under "Archived", where it can be restored.
     await page.getByRole('button', { name: `Archive ${renamed}`, exact: true }).click();

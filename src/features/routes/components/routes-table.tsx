@@ -3,11 +3,14 @@ import { Link } from 'react-router-dom';
 import {
   createColumnHelper,
   flexRender,
+  getCoreRowModel,
   useReactTable,
   type SortingState,
+  type Updater,
 } from '@tanstack/react-table';
+import type { RouteSort } from '@shared/schemas/routes';
 import { Button } from '@/components/button';
-import { missing, SortHeader, sortableTableOptions } from '@/components/sortable-table';
+import { SortHeader } from '@/components/sortable-table';
 import { inputClass } from '@/components/text-field';
 import { formatDateTime } from '@/lib/format';
 import { paths } from '@/paths';
@@ -21,18 +24,31 @@ const pct = (v: number | null | undefined) =>
   v === null || v === undefined ? '—' : `${v.toFixed(1)} %`;
 const num = (v: number | null | undefined) => (v === null || v === undefined ? '—' : v.toFixed(0));
 
-/** The workspace's routes, grouped by project; sorts by any column, searches name, project and owner. */
+// The server sorts the list (by last change or by name) and pages it; the table shows the
+// pages loaded so far in that order. Column id ↔ the server's sort.
+const SORT_OF_COLUMN: Record<string, RouteSort> = { name: 'name', updatedAt: 'changed' };
+const SORTING_OF: Record<RouteSort, SortingState> = {
+  name: [{ id: 'name', desc: false }],
+  changed: [{ id: 'updatedAt', desc: true }],
+};
+
+/**
+ * The workspace's routes, as the server pages them: sorted by last change or by
+ * name, searched by route and project name, with the next page on request.
+ */
 export function RoutesTable({
   workspaceId,
   routes,
   canWrite,
+  sort,
+  onSortChange,
 }: {
   workspaceId: string;
   routes: RouteSummary[];
   canWrite: boolean;
+  sort: RouteSort;
+  onSortChange: (sort: RouteSort) => void;
 }) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'updatedAt', desc: true }]);
-  const [filter, setFilter] = useState('');
   const [renaming, setRenaming] = useState<{ id: string; name: string; version: number } | null>(
     null,
   );
@@ -43,6 +59,7 @@ export function RoutesTable({
     () => [
       col.accessor('name', {
         header: 'Route',
+        enableSorting: true,
         cell: (c) => (
           <Link
             to={paths.workspace.route.to(workspaceId, c.row.original.id)}
@@ -52,7 +69,7 @@ export function RoutesTable({
           </Link>
         ),
       }),
-      col.accessor((r) => r.project?.name ?? '', { id: 'project', header: 'Project' }),
+      col.accessor((r) => r.project?.name ?? '—', { id: 'project', header: 'Project' }),
       col.accessor((r) => r.owner.name, { id: 'owner', header: 'Owner' }),
       col.accessor('status', {
         header: 'Status',
@@ -62,23 +79,24 @@ export function RoutesTable({
         header: 'Steps',
         cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
       }),
-      col.accessor((r) => missing(r.totals?.yieldPct), {
+      col.accessor((r) => r.totals?.yieldPct, {
         id: 'yield',
         header: 'Yield',
         cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
       }),
-      col.accessor((r) => missing(r.totals?.purityPct), {
+      col.accessor((r) => r.totals?.purityPct, {
         id: 'purity',
         header: 'Purity',
         cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
       }),
-      col.accessor((r) => missing(r.totals?.pmi), {
+      col.accessor((r) => r.totals?.pmi, {
         id: 'pmi',
         header: 'PMI',
         cell: (c) => <span className="tabular-nums">{num(c.getValue())}</span>,
       }),
       col.accessor('updatedAt', {
         header: 'Last change',
+        enableSorting: true,
         cell: (c) => <span className="tabular-nums">{formatDateTime(c.getValue())}</span>,
       }),
       ...(!canWrite
@@ -148,57 +166,26 @@ export function RoutesTable({
     [workspaceId, duplicate, update, canWrite],
   );
 
+  const sorting = SORTING_OF[sort];
   const table = useReactTable({
-    ...sortableTableOptions({
-      data: routes,
-      columns,
-      globalFilterFn: (row, _id, value: string) => {
-        const q = value.trim().toLowerCase();
-        if (!q) return true;
-        const r = row.original;
-        return [r.name, r.project?.name ?? '', r.owner.name].some((s) =>
-          s.toLowerCase().includes(q),
-        );
-      },
-    }),
-    state: { sorting, globalFilter: filter },
-    onSortingChange: setSorting,
-    onGlobalFilterChange: setFilter,
+    data: routes,
+    columns,
+    defaultColumn: { enableSorting: false },
+    manualSorting: true,
+    enableSortingRemoval: false,
+    enableMultiSort: false,
+    state: { sorting },
+    onSortingChange: (updater: Updater<SortingState>) => {
+      const next = typeof updater === 'function' ? updater(sorting) : updater;
+      const chosen = next[0] && SORT_OF_COLUMN[next[0].id];
+      if (chosen && chosen !== sort) onSortChange(chosen);
+    },
+    getCoreRowModel: getCoreRowModel(),
   });
-
-  // Group the sorted rows by project, keeping the sort inside each group.
   const rows = table.getRowModel().rows;
-  const groups = new Map<string, typeof rows>();
-  for (const row of rows) {
-    const key = row.original.project?.name ?? '';
-    if (!groups.has(key)) groups.set(key, []);
-    groups.get(key)!.push(row);
-  }
-  const ordered = [...groups.entries()].sort(([a], [b]) =>
-    a === '' ? 1 : b === '' ? -1 : a.localeCompare(b),
-  );
-  const span = table.getVisibleLeafColumns().length;
 
   return (
     <div className="space-y-3">
-      <div className="flex items-end gap-3">
-        <div className="w-72 space-y-1">
-          <label htmlFor="route-search" className="block text-small font-medium text-ink">
-            Search routes
-          </label>
-          <input
-            id="route-search"
-            type="search"
-            value={filter}
-            onChange={(e) => setFilter(e.target.value)}
-            placeholder="Name, project or owner"
-            className={`${inputClass} border-rule-strong`}
-          />
-        </div>
-        <p className="pb-2 text-small text-ink-muted" aria-live="polite">
-          {rows.length} of {routes.length} routes
-        </p>
-      </div>
       {renaming ? (
         <form
           aria-label="Rename route"
@@ -241,7 +228,7 @@ export function RoutesTable({
       ) : null}
       <div className="overflow-x-auto rounded-card border border-rule bg-paper-raised">
         <table className="w-full border-collapse text-left text-body">
-          <caption className="sr-only">Routes of this workspace, grouped by project</caption>
+          <caption className="sr-only">Routes of this workspace</caption>
           <thead>
             {table.getHeaderGroups().map((hg) => (
               <tr key={hg.id}>
@@ -261,35 +248,18 @@ export function RoutesTable({
               </tr>
             ))}
           </thead>
-          {ordered.map(([project, groupRows]) => (
-            <tbody key={project || '—'}>
-              <tr>
-                <th
-                  colSpan={span}
-                  scope="rowgroup"
-                  className="border-b border-rule bg-paper px-3 py-1.5 text-small font-medium text-ink"
-                >
-                  {project || 'No project'}{' '}
-                  <span className="font-normal text-ink-muted">· {groupRows.length}</span>
-                </th>
+          <tbody>
+            {rows.map((row) => (
+              <tr key={row.id} className="hover:bg-accent-soft/40">
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id} className="border-b border-rule px-3 py-2 align-middle">
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  </td>
+                ))}
               </tr>
-              {groupRows.map((row) => (
-                <tr key={row.id} className="hover:bg-accent-soft/40">
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="border-b border-rule px-3 py-2 align-middle">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
-              ))}
-            </tbody>
-          ))}
+            ))}
+          </tbody>
         </table>
-        {rows.length === 0 ? (
-          <p className="px-3 py-4 text-body text-ink-muted">
-            No route matches “{filter}”. Clear the search to see them all.
-          </p>
-        ) : null}
       </div>
     </div>
   );
