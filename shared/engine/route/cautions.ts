@@ -19,6 +19,11 @@ export interface GroupedWarning extends EngineWarning {
  *
  * Example: the same static-accumulation advisory on four washes becomes one
  * entry with stepIds ['acid-wash', 'base-wash', 'brine-wash', 'filter'].
+ *
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any list of warnings.
+ * @param warnings  the route's warnings, each with its step (null: the route as a whole)
+ * @returns one entry per distinct severity, code and message, with the steps it applies to
  */
 export function groupWarnings(
   warnings: ReadonlyArray<EngineWarning & { stepId: string | null }>,
@@ -46,6 +51,17 @@ export function groupWarnings(
  * ≥ CLOSE_ANALOGUE_TANIMOTO) and no incorporation into the crystals is set:
  * close analogues often form solid solutions or are included in the crystals,
  * which the solubility model alone does not see (common practice).
+ *
+ * Source: Tanimoto coefficient of structure fingerprints (Willett, Barnard &
+ * Downs, J. Chem. Inf. Comput. Sci. 1998, 38, 983; properties/similarity.ts);
+ * the 0.8 threshold and the co-crystallisation caution are common practice.
+ * Validity: compounds with fingerprints; a caution, not a prediction — a
+ * Tanimoto below the threshold does not rule out a solid solution.
+ * @param ctx      evaluation context (route components resolved against the library)
+ * @param order    step ids in topological order
+ * @param steps    the route's steps by id
+ * @param results  the step results by id (balance [kg] tells which crystallisations the impurity reaches)
+ * @returns one caution per close analogue per crystallisation it reaches
  */
 export function analogueCautions(
   ctx: EvalContext,
@@ -82,6 +98,12 @@ export function analogueCautions(
  * volume in every stream is computed with DEFAULT_COMPOUND_DENSITY_GML, so
  * slurry volumes, vessel fill and concentrations carry that assumption. A
  * default that stands in for missing data is never silent.
+ *
+ * Source: this project's own bookkeeping (no external source); the assumed
+ * density is common practice (DEFAULT_COMPOUND_DENSITY_GML).
+ * Validity: any route document the schema accepts.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @returns one information note per compound without a stated density
  */
 export function assumedDataNotes(ctx: EvalContext): Array<EngineWarning & { stepId: null }> {
   const out: Array<EngineWarning & { stepId: null }> = [];

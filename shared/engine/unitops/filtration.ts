@@ -75,6 +75,17 @@ import { solubilityIn } from './solubility-model';
  * @param T_K      temperature [K]
  * @param warnings receives a warning when Lewis–Squires is used below its range
  * @returns μ [Pa s], or null when the stream holds no solvent
+ *
+ * Formula: ln μ_mix = Σ x_i ln μ_i(T) over the solvents (mole fractions x_i),
+ * μ_i(T) by lewisSquires from the library's 25 °C value.
+ * Source: Arrhenius (log-mole-fraction) mixing rule and the Lewis–Squires
+ * correction, both as in Reid, Prausnitz & Poling, The Properties of Gases
+ * and Liquids, 4th ed., liquid viscosity chapter (cited from memory); 25 °C
+ * viscosities from the solvent library (docs/data-sources.md).
+ * Validity: non-associating mixtures are best served; for aqueous–alcohol
+ * mixtures (viscosity maximum) the rule can be off by a factor of about 2;
+ * temperatures where Lewis–Squires has a solution (a warning otherwise);
+ * dissolved solutes do not raise the viscosity here.
  */
 export function liquorViscosityPaS(
   ctx: EvalContext,
@@ -114,6 +125,14 @@ export function liquorViscosityPaS(
  * @returns μ at T [mPa s]; where the right-hand side is not positive (far
  *   below 25 °C) the correlation has no solution: inRange is false and μ is
  *   given at the temperature where μ reaches 1000 × μ_25 (T_K says which)
+ *
+ * Source: Lewis–Squires chart correlation as given in Reid, Prausnitz &
+ * Poling, The Properties of Gases and Liquids, 4th ed., liquid viscosity
+ * chapter (cited from memory).
+ * Validity: liquids below their normal boiling point, from one reference
+ * value (a generalised chart: its error grows with the distance from 25 °C);
+ * far below 25 °C the correlation has no solution (inRange false, μ capped
+ * at 1000 μ_25).
  */
 export function lewisSquires(
   mu25: number,
@@ -139,6 +158,8 @@ export function lewisSquires(
  * @param i.VM3          filtrate volume V [m³]
  * @returns t [s]
  * Validity: incompressible cake, constant ΔP.
+ * Source: Ruth 1935; McCabe, Smith & Harriott, Unit Operations of Chemical
+ * Engineering, filtration chapter.
  */
 export function cakeFiltrationTime(i: {
   muPaS: number;
@@ -168,6 +189,10 @@ const AVOGADRO_PER_MOL = 6.02214076e23;
  * @param W  wash ratio V_wash/V_retained [–], ≥ 0
  * @param E  fraction displaced by one retained volume [–], 0 ≤ E ≤ 1
  * @returns R [–], 0 ≤ R ≤ 1; R(1) = 1 − E, R → 0 as W → ∞
+ * Source: Choudhury & Dahlstrom, AIChE J. 1957, 3, 433 (recalled); plug-flow
+ * bound 1 − W from the mass balance.
+ * Validity: a cake that does not crack or channel, the wash miscible with the
+ * liquor; E from a measured washing curve (the default 0.8 is common practice).
  */
 export function washRemainingFraction(W: number, E: number): number {
   if (!(W > 0)) return 1;
@@ -192,6 +217,10 @@ export function washRemainingFraction(W: number, E: number): number {
  * @returns η [–], 0 ≤ η ≤ 1
  * Validity: dilute wash, isolated spherical crystals; Sh = 2 is a lower bound
  * of the transfer rate (flow raises it), so η is a lower bound too.
+ * Source: film mass transfer to a sphere, Sh = 2 (the stagnant limit of the
+ * Ranz–Marshall correlation, Chem. Eng. Prog. 1952, 48, 141 — from memory);
+ * Stokes–Einstein diffusivity (Einstein, Ann. Phys. 1905); surface per volume
+ * of spheres 6/d (geometry).
  */
 export function approachToSaturation(i: {
   crystalSizeM: number;
@@ -216,6 +245,27 @@ function emptyKg(ctx: EvalContext): Record<string, number> {
   return o;
 }
 
+/**
+ * Filtration step model: cake and filtrate from the slurry, the retained
+ * liquor at the mother-liquor composition, the cake-filtration time, and each
+ * cake wash by displacement (washRemainingFraction) with the dissolution of
+ * the solid by the passing wash (approachToSaturation); formulae in the
+ * module comment. The filtrate closes the mass balance by difference.
+ *
+ * Source: Ruth 1935 and McCabe, Smith & Harriott (filtration time);
+ * Choudhury & Dahlstrom 1957 (washing curve, recalled); Ranz & Marshall
+ * Sh = 2 and Stokes–Einstein (dissolution rate); solubility-model.ts
+ * (solubility in the wash); retained liquor 0.5 L/kg, E = 0.8 and crystal
+ * size 100 µm as defaults are common practice.
+ * Validity: incompressible cake at constant pressure; α, R_m, A and the
+ * retained liquor are parameters (defaults stated); the wash loss is a lower
+ * bound (Sh = 2); as the solubility model for the wash.
+ * @param inputs  the slurry on port 'slurry'
+ * @param params  the step's parameters (retainedLiquorLPerKg [L/kg], specificCakeResistanceMPerKg [m/kg], mediumResistancePerM [1/m], filterAreaM2 [m²], pressureDropBar [bar], cakeWash with volume, temperatureC [°C], displacementEfficiency [–], crystalSizeUm [µm])
+ * @param ctx     evaluation context (route components resolved against the library)
+ * @param step    the route step being evaluated
+ * @returns the cake and the filtrate with the step result (times [h], wash records, wet-cake LOD [%])
+ */
 export function filtration(
   inputs: Record<string, Stream | undefined>,
   params: ParamsOf<'filtration'>,
