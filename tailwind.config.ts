@@ -36,13 +36,14 @@ const config: Config = {
       },
       // A dense scale for a working tool: body text is 14 px.
       fontSize: {
-        caption: ['0.75rem', { lineHeight: '1rem' }],
-        small: ['0.8125rem', { lineHeight: '1.125rem' }],
-        body: ['0.875rem', { lineHeight: '1.25rem' }],
-        lead: ['1rem', { lineHeight: '1.5rem' }],
-        title: ['1.125rem', { lineHeight: '1.5rem' }],
-        heading: ['1.375rem', { lineHeight: '1.75rem' }],
-        display: ['1.75rem', { lineHeight: '2.125rem' }],
+        // In px: the page's root size is the 14 px body text, so rem sizes would come out 7/8 of the scale.
+        caption: ['12px', { lineHeight: '16px' }],
+        small: ['13px', { lineHeight: '18px' }],
+        body: ['14px', { lineHeight: '20px' }],
+        lead: ['16px', { lineHeight: '24px' }],
+        title: ['18px', { lineHeight: '24px' }],
+        heading: ['22px', { lineHeight: '28px' }],
+        display: ['28px', { lineHeight: '34px' }],
       },
       // Spacing stays on Tailwind's 4 px grid; these name the layout measures.
       spacing: {

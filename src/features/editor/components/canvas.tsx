@@ -28,6 +28,8 @@ import {
 import { StepNode, type StepNodeType } from './step-node';
 import { StreamEdge, type StreamEdgeData, type StreamEdgeType } from './stream-edge';
 import { PHASES } from './phase';
+import { KINDS } from '../step-kinds';
+import { READABLE_ZOOM } from '../layout';
 
 // Declared once: every step kind uses the same memoised card.
 const nodeTypes = Object.fromEntries(Object.keys(PORTS).map((k) => [k, StepNode])) as NodeTypes;
@@ -71,6 +73,8 @@ export function Canvas() {
         type: step.kind,
         position: step.position ?? { x: 80 + i * 300, y: 120 },
         data: { step },
+        // Spoken when the card takes focus: what the step is and its name.
+        ariaLabel: `${KINDS[step.kind].label}: ${step.name || 'Unnamed step'}`,
         selected,
         // The card's usual size until it is measured, so the mini-map can draw it.
         initialWidth: 240,
@@ -112,6 +116,7 @@ export function Canvas() {
   const edges = useMemo<StreamEdgeType[]>(() => {
     const sel = new Set(selection.connections);
     const kindOf = new Map(steps.map((s) => [s.id, s.kind]));
+    const stepName = new Map(steps.map((s) => [s.id, s.name || KINDS[s.kind].label]));
     const cache = edgeCache.current;
     const next = new Map<
       string,
@@ -127,6 +132,7 @@ export function Canvas() {
       const selected = sel.has(c.id);
       const phase =
         portPhase(kindOf.get(c.from.stepId) ?? 'charge', 'out', c.from.port) ?? 'liquid';
+      const ariaLabel = `Stream from ${stepName.get(c.from.stepId) ?? 'a step'} (${c.from.port}) to ${stepName.get(c.to.stepId) ?? 'a step'} (${c.to.port})`;
       const hit = cache.get(c.id);
       if (
         hit &&
@@ -134,7 +140,8 @@ export function Canvas() {
         hit.selected === selected &&
         hit.phase === phase &&
         hit.data.productId === productId &&
-        hit.data.names === names
+        hit.data.names === names &&
+        hit.edge.ariaLabel === ariaLabel
       ) {
         next.set(c.id, hit);
         return hit.edge;
@@ -148,7 +155,7 @@ export function Canvas() {
         target: c.to.stepId,
         targetHandle: handleId('in', c.to.port),
         selected,
-        ariaLabel: `Stream from ${c.from.stepId} ${c.from.port} to ${c.to.stepId} ${c.to.port}`,
+        ariaLabel,
         data,
       };
       next.set(c.id, { c, selected, phase, data, edge });
@@ -221,64 +228,80 @@ export function Canvas() {
   );
 
   return (
-    <div
-      className="relative h-full w-full"
-      onDragOver={(e) => {
-        if (e.dataTransfer.types.includes(PALETTE_MIME)) {
-          e.preventDefault();
-          e.dataTransfer.dropEffect = 'copy';
-        }
-      }}
-      onDrop={onDrop}
-    >
-      <ReactFlow<StepNodeType, StreamEdgeType>
-        nodes={nodes}
-        edges={edges}
-        nodeTypes={nodeTypes}
-        edgeTypes={edgeTypes}
-        onNodesChange={onNodesChange}
-        onEdgesChange={onEdgesChange}
-        onNodeDragStart={actions.beginMove}
-        onNodeDragStop={actions.endMove}
-        onConnect={onConnect}
-        isValidConnection={isValidConnection}
-        deleteKeyCode={null}
-        nodesDraggable={!readOnly}
-        nodesConnectable={!readOnly}
-        multiSelectionKeyCode={['Shift', 'Meta', 'Control']}
-        selectionKeyCode="Shift"
-        snapToGrid
-        snapGrid={[20, 20]}
-        fitView
-        fitViewOptions={READABLE_FIT}
-        minZoom={0.1}
-        proOptions={{ hideAttribution: true }}
-        aria-label="Route canvas"
+    <div className="flex h-full w-full flex-col">
+      <div
+        className="relative min-h-0 w-full flex-1"
+        onDragOver={(e) => {
+          if (e.dataTransfer.types.includes(PALETTE_MIME)) {
+            e.preventDefault();
+            e.dataTransfer.dropEffect = 'copy';
+          }
+        }}
+        onDrop={onDrop}
       >
-        <Background variant={BackgroundVariant.Dots} gap={20} size={1.2} color="#D9D5CB" />
-        <MiniMap
-          pannable
-          zoomable
-          ariaLabel="Overview of the route"
-          style={{ width: 150, height: 100 }}
-          bgColor="#FFFFFF"
-          nodeColor={miniMapFill}
-          nodeStrokeColor={miniMapStroke}
-          nodeStrokeWidth={4}
-          nodeBorderRadius={6}
-          maskColor="rgba(236,234,228,0.55)"
-          maskStrokeColor="#3B4C86"
-          maskStrokeWidth={2}
+        <ReactFlow<StepNodeType, StreamEdgeType>
+          nodes={nodes}
+          edges={edges}
+          nodeTypes={nodeTypes}
+          edgeTypes={edgeTypes}
+          onNodesChange={onNodesChange}
+          onEdgesChange={onEdgesChange}
+          onNodeDragStart={actions.beginMove}
+          onNodeDragStop={actions.endMove}
+          onConnect={onConnect}
+          isValidConnection={isValidConnection}
+          deleteKeyCode={null}
+          // Tab goes from card to card; a connection is made or removed from the keyboard in the
+          // step's settings (where each input comes from).
+          edgesFocusable={false}
+          nodesDraggable={!readOnly}
+          nodesConnectable={!readOnly}
+          multiSelectionKeyCode={['Shift', 'Meta', 'Control']}
+          selectionKeyCode="Shift"
+          snapToGrid
+          snapGrid={[20, 20]}
+          fitView
+          fitViewOptions={READABLE_FIT}
+          minZoom={0.1}
+          proOptions={{ hideAttribution: true }}
+          aria-label="Route canvas"
+        >
+          <Background variant={BackgroundVariant.Dots} gap={20} size={1.2} color="#D9D5CB" />
+        </ReactFlow>
+      </div>
+      {/* Below the canvas, never over a card: the phase key and the overview of the route. */}
+      <div className="flex h-15 shrink-0 items-center gap-3 border-t border-rule bg-paper px-3">
+        <Controls
+          showInteractive={false}
+          aria-label="Zoom"
+          orientation="horizontal"
+          style={{ position: 'relative', margin: 0 }}
+          className="pw-zoom"
         />
-        <Controls showInteractive={false} aria-label="Zoom" />
-      </ReactFlow>
-      <Legend />
+        <Legend />
+        <div className="ml-auto" data-minimap>
+          <MiniMap
+            pannable
+            zoomable
+            ariaLabel="Overview of the route"
+            style={{ width: 96, height: 50, position: 'relative', margin: 0 }}
+            bgColor="#FFFFFF"
+            nodeColor={miniMapFill}
+            nodeStrokeColor={miniMapStroke}
+            nodeStrokeWidth={4}
+            nodeBorderRadius={6}
+            maskColor="rgba(236,234,228,0.55)"
+            maskStrokeColor="#3B4C86"
+            maskStrokeWidth={2}
+          />
+        </div>
+      </div>
     </div>
   );
 }
 
 /** The first view: the whole route when it fits at a readable size, else its start at that size (pan or use the mini-map for the rest). */
-const READABLE_FIT = { maxZoom: 1, minZoom: 0.6, padding: 0.15 } as const;
+const READABLE_FIT = { maxZoom: 1, minZoom: READABLE_ZOOM, padding: 0.05 } as const;
 
 // Mini-map cards: the card colours of the canvas (ink-faint outline, accent when selected), so the overview reads like the route.
 const miniMapFill = (node: StepNodeType) => (node.selected ? '#E6E9F4' : '#ECEAE4');
@@ -286,10 +309,7 @@ const miniMapStroke = (node: StepNodeType) => (node.selected ? '#3B4C86' : '#585
 
 function Legend() {
   return (
-    <div
-      className="pointer-events-none absolute bottom-2 left-14 flex gap-3 rounded-control border border-rule bg-paper-raised/90 px-2 py-1 text-caption text-ink-muted"
-      aria-label="Phase key"
-    >
+    <div className="flex flex-wrap gap-x-3 text-caption text-ink-muted" aria-label="Phase key">
       {(Object.keys(PHASES) as Array<keyof typeof PHASES>).map((p) => (
         <span key={p} className="inline-flex items-center gap-1">
           <svg width="22" height="6" aria-hidden="true">

@@ -143,13 +143,25 @@ export function SeverityMark({ severity }: { severity: Severity }) {
   );
 }
 
-export function SeverityChip({ severity, count }: { severity: Severity; count?: number }) {
+export function SeverityChip({
+  severity,
+  count,
+  compact = false,
+}: {
+  severity: Severity;
+  count?: number;
+  /** Shape and count only (the word stays the accessible name and the tooltip): for the cards. */
+  compact?: boolean;
+}) {
   return (
     <span
       className={`inline-flex items-center gap-1 rounded-control px-1.5 py-0.5 text-caption font-medium ${SEVERITY[severity].cls}`}
+      title={
+        compact ? `${SEVERITY[severity].label}${count !== undefined ? ` ${count}` : ''}` : undefined
+      }
     >
       <SeverityMark severity={severity} />
-      {SEVERITY[severity].label}
+      <span className={compact ? 'sr-only' : undefined}>{`${SEVERITY[severity].label} `}</span>
       {count !== undefined ? <span className="tabular-nums">{count}</span> : null}
     </span>
   );

@@ -14,7 +14,7 @@ import { requestEvaluation, resetEvaluation, useEvaluation } from '../evaluation
 import { initialDocument, useAutosave, type SaveState } from '../autosave';
 import { normaliseDocument } from '../document';
 import { useStepMarks, type StepMark } from '../marks';
-import { autoLayout } from '../layout';
+import { READABLE_ZOOM, tidyLayout } from '../layout';
 import { KINDS } from '../step-kinds';
 import { Canvas } from './canvas';
 import { Palette } from './palette';
@@ -207,8 +207,7 @@ function EditorFrame({
         st.select({ steps: [], connections: [] });
       } else if (e.key.toLowerCase() === 'f' && !mod) flow.fitView({ maxZoom: 1, padding: 0.2 });
       else if (e.key.toLowerCase() === 'l' && !mod) {
-        st.setPositions(autoLayout(st.doc));
-        requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 }));
+        tidy(flow);
       } else if (e.key.toLowerCase() === 'a' && !mod) {
         e.preventDefault();
         document.querySelector<HTMLButtonElement>('#step-palette button[data-kind]')?.focus();
@@ -304,11 +303,7 @@ function EditorFrame({
             size="sm"
             variant="secondary"
             disabled={!canEdit}
-            onClick={() => {
-              const st = useEditorStore.getState();
-              st.setPositions(autoLayout(st.doc));
-              requestAnimationFrame(() => flow.fitView({ maxZoom: 1, padding: 0.2 }));
-            }}
+            onClick={() => tidy(flow)}
             aria-keyshortcuts="L"
           >
             Tidy layout
@@ -506,7 +501,6 @@ function EditorFrame({
   );
 }
 
-const READABLE_ZOOM = 0.6;
 /** The canvas grid the cards snap to [px]. */
 const GRID = 20;
 const ARROWS: Record<string, [number, number]> = {
@@ -515,6 +509,25 @@ const ARROWS: Record<string, [number, number]> = {
   ArrowUp: [0, -1],
   ArrowDown: [0, 1],
 };
+
+/** Tidy layout: the steps wrapped in flow order to fit the canvas, then a readable view of them. */
+function tidy(flow: ReactFlowInstance) {
+  const st = useEditorStore.getState();
+  const sizes: Record<string, { width: number; height: number }> = {};
+  for (const n of flow.getNodes()) {
+    const measured = flow.getInternalNode(n.id)?.measured;
+    if (measured?.width && measured.height)
+      sizes[n.id] = { width: measured.width, height: measured.height };
+  }
+  const pane = document.querySelector('.react-flow');
+  st.setPositions(
+    tidyLayout(st.doc, {
+      sizes,
+      pane: pane ? { width: pane.clientWidth, height: pane.clientHeight } : undefined,
+    }),
+  );
+  requestAnimationFrame(() => fitReadable(flow));
+}
 
 /**
  * The whole route when it fits at a readable zoom; otherwise that zoom, on the
@@ -526,15 +539,18 @@ function fitReadable(flow: ReactFlowInstance, focusId?: string) {
   const pane = document.querySelector('.react-flow');
   const w = pane?.clientWidth ?? 800;
   const h = pane?.clientHeight ?? 600;
-  const width = (n: (typeof nodes)[number]) => n.measured?.width ?? 240;
-  const height = (n: (typeof nodes)[number]) => n.measured?.height ?? 150;
+  // The drawn size is kept on the canvas's own copy of each card.
+  const width = (n: (typeof nodes)[number]) =>
+    flow.getInternalNode(n.id)?.measured.width ?? n.measured?.width ?? 240;
+  const height = (n: (typeof nodes)[number]) =>
+    flow.getInternalNode(n.id)?.measured.height ?? n.measured?.height ?? 150;
   const minX = Math.min(...nodes.map((n) => n.position.x));
   const maxX = Math.max(...nodes.map((n) => n.position.x + width(n)));
   const minY = Math.min(...nodes.map((n) => n.position.y));
   const maxY = Math.max(...nodes.map((n) => n.position.y + height(n)));
-  const zoomAll = Math.min(w / ((maxX - minX) * 1.3), h / ((maxY - minY) * 1.3));
+  const zoomAll = Math.min(w / ((maxX - minX) * 1.04), h / ((maxY - minY) * 1.04));
   if (zoomAll >= READABLE_ZOOM) {
-    flow.fitView({ maxZoom: 1, padding: 0.15 });
+    flow.fitView({ maxZoom: 1, padding: 0.02 });
     return;
   }
   const focus = focusId ? nodes.find((n) => n.id === focusId) : undefined;
@@ -544,8 +560,14 @@ function fitReadable(flow: ReactFlowInstance, focusId?: string) {
     });
   else
     flow.setViewport({
-      x: 24 - minX * READABLE_ZOOM,
-      y: h / 2 - ((minY + maxY) / 2) * READABLE_ZOOM,
+      x:
+        (maxX - minX) * READABLE_ZOOM <= w
+          ? (w - (maxX - minX) * READABLE_ZOOM) / 2 - minX * READABLE_ZOOM
+          : 24 - minX * READABLE_ZOOM,
+      y:
+        (maxY - minY) * READABLE_ZOOM <= h
+          ? h / 2 - ((minY + maxY) / 2) * READABLE_ZOOM
+          : 16 - minY * READABLE_ZOOM,
       zoom: READABLE_ZOOM,
     });
 }

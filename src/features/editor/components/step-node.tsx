@@ -91,12 +91,12 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
           <p className="truncate text-small font-medium">{step.name || 'Unnamed step'}</p>
         </div>
       </header>
-      <div className="relative px-2.5 py-1.5" style={{ minHeight: rows * 22 + 8 }}>
+      <div className="relative px-2.5 py-1.5" style={{ minHeight: rows * 20 + 8 }}>
         {ports.inputs.map((p, i) => (
           <div
             key={p.name}
             className="absolute left-0 flex items-center gap-1 pl-3 text-caption text-ink-muted"
-            style={{ top: 6 + i * 22 }}
+            style={{ top: 4 + i * 20 }}
           >
             <Handle
               type="target"
@@ -118,7 +118,7 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
           <div
             key={p.name}
             className="absolute right-0 flex items-center gap-1 pr-3 text-caption text-ink-muted"
-            style={{ top: 6 + i * 22 }}
+            style={{ top: 4 + i * 20 }}
           >
             <span className={PHASES[p.phase].text}>{p.name}</span>
             <Handle
@@ -189,7 +189,7 @@ function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {
             </span>
           ) : null}
           {SEVERITY_ORDER.filter((s) => counts[s]).map((s) => (
-            <SeverityChip key={s} severity={s} count={counts[s]} />
+            <SeverityChip key={s} severity={s} count={counts[s]} compact />
           ))}
         </footer>
       ) : null}
