@@ -103,6 +103,10 @@ describe('the route editor at 1280×800', () => {
     expect(two.card).toBe(true);
     expect(two.name).toMatch(/^Wash: 1 M HCl wash/);
     await shot('readability-03-focus');
+    // Enter selects the focused step: its settings open beside the canvas.
+    await page.keyboard.press('Enter');
+    await page.getByRole('form', { name: /Settings of 1 M HCl wash/ }).waitFor();
+    await shot('readability-04-step-selected');
     // Connections are named by their steps, never by internal ids.
     const streams = await page
       .locator('.react-flow__edge')
