@@ -127,6 +127,26 @@ function load(input: StructureInput): { ok: true; mol: Molecule } | { ok: false;
  * Example: parseStructure({ smiles: 'CCO' }) → formula 'C2H6O', molar mass
  * 46.07 g/mol, atomCount 3.
  */
+/**
+ * A molecular formula in Hill order (Hill, J. Am. Chem. Soc. 1900, 22, 478 — citation recalled):
+ * with carbon, C first, then H, then the other elements alphabetically; without carbon, every
+ * element alphabetically. A formula it cannot read (a charge, a bracket) is returned unchanged.
+ * @param formula element symbols with counts, in any order, e.g. 'C8H8NOCl'
+ * @returns the same formula in Hill order, e.g. 'C8H8ClNO'
+ */
+export function hillFormula(formula: string): string {
+  if (!/^(?:[A-Z][a-z]?\d*)+$/.test(formula)) return formula;
+  const counts = new Map<string, number>();
+  for (const [, el, n] of formula.matchAll(/([A-Z][a-z]?)(\d*)/g))
+    counts.set(el!, (counts.get(el!) ?? 0) + (n ? Number(n) : 1));
+  const hasCarbon = counts.has('C');
+  const rank = (el: string) => (!hasCarbon ? 2 : el === 'C' ? 0 : el === 'H' ? 1 : 2);
+  return [...counts.entries()]
+    .sort(([a], [b]) => rank(a) - rank(b) || (a < b ? -1 : a > b ? 1 : 0))
+    .map(([el, n]) => (n === 1 ? el : `${el}${n}`))
+    .join('');
+}
+
 export function parseStructure(input: StructureInput): ParsedStructure {
   const r = load(input);
   if (!r.ok) return r;
@@ -142,7 +162,7 @@ export function parseStructure(input: StructureInput): ParsedStructure {
     for (let i = 0; i < mol.getAllAtoms(); i++) if (mol.getAtomicNo(i) !== 1) heavy++;
     return {
       ok: true,
-      formula: mf.formula,
+      formula: hillFormula(mf.formula),
       molarMassGmol: mf.relativeWeight,
       canonicalSmiles: mol.toIsomericSmiles(),
       svg: mol.toSVG(300, 220, 'structure'),
