@@ -1,0 +1,111 @@
+/**
+ * Free parameters of a route: a step's parameter addressed by its path
+ * inside the step's `params` as written in the route document (for example
+ * `addedLiquid.volume` of a wash, `mode.cycles` of a put-and-take swap).
+ * The path addresses the quantity: a plain number, a number with a ± range
+ * ({ value, plusMinus }: the value moves, the range stays) or a volume
+ * ({ value, unit }: the value moves in the document's unit).
+ */
+import type { RouteDocument, RouteStep } from '../document';
+
+/** Step parameters that only take whole numbers: stages, put-and-take cycles, cake washes. */
+const INTEGER_FIELDS = new Set(['stages', 'cycles', 'washes']);
+
+/** The chemist's name of each parameter the optimiser is meant for, by step kind and path. */
+const LABELS: Partial<Record<RouteStep['kind'], Record<string, string>>> = {
+  wash: {
+    'addedLiquid.volume': 'wash volume',
+    'addedLiquid.wtPct': 'strength of the wash',
+    'addedLiquid.pH': 'pH of the wash',
+    stages: 'number of washes',
+    temperatureC: 'temperature',
+  },
+  extraction: {
+    'addedLiquid.volume': 'extraction volume',
+    'addedLiquid.pH': 'pH of the aqueous phase',
+    stages: 'number of stages',
+    temperatureC: 'temperature',
+  },
+  distillation: {
+    'mode.cycles': 'put-and-take cycles',
+    'mode.addVolume': 'volume added',
+    'mode.targetVolume': 'volume to distil down to',
+    'condition.pressureMbar': 'pressure',
+    'condition.potTemperatureC': 'pot temperature',
+  },
+  crystallisation: {
+    'mode.volume': 'antisolvent volume',
+    'mode.endC': 'end temperature',
+    'mode.startC': 'start temperature',
+    'mode.temperatureC': 'temperature',
+    'mode.targetVolume': 'volume to evaporate down to',
+    seedWtPct: 'seed charge',
+  },
+  filtration: {
+    'cakeWash.volume': 'cake-wash volume',
+    'cakeWash.washes': 'number of cake washes',
+  },
+  drying: { temperatureC: 'drying temperature', pressureMbar: 'drying pressure' },
+};
+
+/** "the wash volume of step “Acid wash”" — how a message names a free parameter. */
+export function paramLabel(step: Pick<RouteStep, 'kind' | 'name' | 'id'>, path: string): string {
+  const label = LABELS[step.kind]?.[path] ?? `parameter “${path}”`;
+  return `the ${label} of step “${step.name || step.id}”`;
+}
+
+export function isIntegerParam(path: string): boolean {
+  return INTEGER_FIELDS.has(path.split('.').at(-1) ?? '');
+}
+
+type Holder = Record<string, unknown> | unknown[];
+
+/** Where the number lives: the object holding it and its key. */
+function locate(params: unknown, path: string): { holder: Holder; key: string } | null {
+  const parts = path.split('.');
+  if (parts.some((p) => p === '' || p === '__proto__' || p === 'constructor' || p === 'prototype'))
+    return null;
+  let holder: unknown = null;
+  let key = '';
+  let node: unknown = params;
+  for (const part of parts) {
+    if (node === null || typeof node !== 'object' || !Object.hasOwn(node, part)) return null;
+    holder = node;
+    key = part;
+    node = (node as Record<string, unknown>)[part];
+  }
+  // Descend into a volume's value, then into a ± range's value.
+  for (;;) {
+    if (typeof node === 'number') return { holder: holder as Holder, key };
+    if (node && typeof node === 'object' && 'value' in node) {
+      holder = node;
+      key = 'value';
+      node = (node as { value: unknown }).value;
+      continue;
+    }
+    return null;
+  }
+}
+
+/** The current value of a step's parameter, or null when the path does not address a number. */
+export function readParam(doc: RouteDocument, stepId: string, path: string): number | null {
+  const step = doc.steps.find((s) => s.id === stepId);
+  if (!step) return null;
+  const at = locate(step.params, path);
+  return at ? ((at.holder as Record<string, number>)[at.key] ?? null) : null;
+}
+
+/** A copy of the document with the given parameters set; the original is not modified. */
+export function withParams(
+  doc: RouteDocument,
+  values: ReadonlyArray<{ stepId: string; param: string; value: number }>,
+): RouteDocument {
+  const copy = structuredClone(doc);
+  for (const v of values) {
+    const step = copy.steps.find((s) => s.id === v.stepId);
+    const at = step ? locate(step.params, v.param) : null;
+    if (!at) throw new RangeError(`step ${v.stepId} has no number at ${v.param}`);
+    (at.holder as Record<string, number>)[at.key] = v.value;
+  }
+  return copy;
+}
