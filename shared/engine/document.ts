@@ -20,7 +20,14 @@ export const ROUTE_SCHEMA_VERSION = 1 as const;
 
 const finite = () => z.number().finite();
 
-/** A number with an optional ± range, bounded to [min, max]. */
+/**
+ * A number with an optional ± range, bounded to [min, max].
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: finite bounds, min ≤ max.
+ * @param min  lowest value the field accepts [unit of the field]
+ * @param max  highest value the field accepts [unit of the field]
+ * @returns the zod schema: a number, or { value, plusMinus } with plusMinus ≥ 0
+ */
 export function uncertain(min: number, max: number) {
   const plain = finite().min(min).max(max);
   return z.union([plain, z.object({ value: plain, plusMinus: finite().nonnegative() }).strict()]);
@@ -168,7 +175,14 @@ export const componentSchema = z.discriminatedUnion('kind', [
 ]);
 export type RouteComponent = z.infer<typeof componentSchema>;
 
-/** The id under which a component appears in streams. */
+/**
+ * The id under which a component appears in streams (an aqueous solute
+ * without its own id goes by its library id).
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any component the schema accepts.
+ * @param c  the route component
+ * @returns its stream id
+ */
 export function componentKey(c: RouteComponent): string {
   return c.kind === 'aqueous-solute' ? (c.id ?? c.soluteId) : c.id;
 }

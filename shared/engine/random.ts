@@ -35,6 +35,12 @@ function splitmix32(seed: number): () => number {
 /**
  * Create a generator from an integer seed (any finite number; it is reduced
  * to 32 bits), or from a saved state.
+ * Source: sfc32 (Doty-Humphrey, PractRand) seeded by splitmix32 (after
+ * Steele, Lea & Flood, OOPSLA 2014) — module comment, from memory of their
+ * public descriptions.
+ * Validity: Monte Carlo sampling; not for cryptographic use.
+ * @param seed  integer seed [–] (reduced to 32 bits), or a saved state of four 32-bit words [–]
+ * @returns the seeded generator
  */
 export function createRandom(seed: number | [number, number, number, number]): SeededRandom {
   let a: number, b: number, c: number, d: number;

@@ -29,42 +29,90 @@ export const STANDARD_ATMOSPHERE_PA = 101325;
 /** One conventional millimetre of mercury (torr) in pascal [Pa/mmHg]. */
 export const PA_PER_MMHG = 101325 / 760;
 
-/** Celsius to kelvin. `t_C`: temperature [°C]. Returns [K]. */
+/**
+ * Celsius to kelvin: T = t + 273.15.
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param t_C  temperature [°C]
+ * @returns temperature [K]
+ */
 export function celsiusToKelvin(t_C: number): number {
   return t_C + T0_K;
 }
 
-/** Kelvin to Celsius. `T_K`: temperature [K]. Returns [°C]. */
+/**
+ * Kelvin to Celsius: t = T − 273.15.
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param T_K  temperature [K]
+ * @returns temperature [°C]
+ */
 export function kelvinToCelsius(T_K: number): number {
   return T_K - T0_K;
 }
 
-/** `P_bar`: pressure [bar]. Returns [Pa]. */
+/**
+ * Bar to pascal: P = 10⁵ P_bar.
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param P_bar  pressure [bar]
+ * @returns pressure [Pa]
+ */
 export function barToPa(P_bar: number): number {
   return P_bar * PA_PER_BAR;
 }
 
-/** `P_Pa`: pressure [Pa]. Returns [bar]. */
+/**
+ * Pascal to bar: P_bar = P / 10⁵.
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param P_Pa  pressure [Pa]
+ * @returns pressure [bar]
+ */
 export function paToBar(P_Pa: number): number {
   return P_Pa / PA_PER_BAR;
 }
 
-/** `P_kPa`: pressure [kPa]. Returns [Pa]. */
+/**
+ * Kilopascal to pascal: P = 10³ P_kPa.
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param P_kPa  pressure [kPa]
+ * @returns pressure [Pa]
+ */
 export function kPaToPa(P_kPa: number): number {
   return P_kPa * PA_PER_KPA;
 }
 
-/** `P_Pa`: pressure [Pa]. Returns [kPa]. */
+/**
+ * Pascal to kilopascal: P_kPa = P / 10³.
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param P_Pa  pressure [Pa]
+ * @returns pressure [kPa]
+ */
 export function paToKPa(P_Pa: number): number {
   return P_Pa / PA_PER_KPA;
 }
 
-/** `P_mmHg`: pressure [mmHg]. Returns [Pa]. */
+/**
+ * Millimetres of mercury to pascal: P = P_mmHg · 101 325/760 (mmHg taken as the torr; the conventional mmHg, 133.322 387 Pa, differs by about 1 part in 10⁷).
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param P_mmHg  pressure [mmHg]
+ * @returns pressure [Pa]
+ */
 export function mmHgToPa(P_mmHg: number): number {
   return P_mmHg * PA_PER_MMHG;
 }
 
-/** `P_Pa`: pressure [Pa]. Returns [mmHg]. */
+/**
+ * Pascal to millimetres of mercury: P_mmHg = P · 760/101 325 (mmHg taken as the torr).
+ * Source: BIPM, The International System of Units (SI), 9th ed., 2019 (module comment).
+ * Validity: any finite value (exact conversion).
+ * @param P_Pa  pressure [Pa]
+ * @returns pressure [mmHg]
+ */
 export function paToMmHg(P_Pa: number): number {
   return P_Pa / PA_PER_MMHG;
 }

@@ -16,7 +16,9 @@
  * where it is ("see the module comment").
  *
  * Covered: every file under shared/engine/numerics, thermo, data,
- * properties, unitops and route, so a new undocumented function there fails.
+ * properties, unitops and route, and the top-level engine modules (units,
+ * random, document, text, ...), so a new undocumented function there fails.
+ * A new engine folder is added to COVERED when it is created.
  * A plumbing function (stream helpers, validation, grouping) states
  * "this project's own bookkeeping (no external source)" as its source and
  * "any input the schema accepts" (or the like) as its validity.
@@ -119,6 +121,13 @@ describe('engine documentation standard', () => {
       );
     });
   }
+
+  it('every exported function in the top-level engine modules states source, validity and units', () => {
+    const findings = readdirSync(ENGINE)
+      .filter((f) => f.endsWith('.ts'))
+      .flatMap((f) => checkFile(join(ENGINE, f)));
+    expect(findings.map((f) => `${f.file.slice(ENGINE.length)} ${f.fn}: ${f.problem}`)).toEqual([]);
+  });
 
   it('the check fails on a function that lacks them (the rule can fire)', () => {
     const tmp = fileURLToPath(new URL('./fixtures/undocumented.ts.txt', import.meta.url));
