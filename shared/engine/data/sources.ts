@@ -173,6 +173,13 @@ export const SOURCES = {
       'D. Prat, A. Wells, J. Hayler, H. Sneddon, C. R. McElroy, S. Abou-Shehada, P. J. Dunn, "CHEM21 selection guide of classical- and less classical-solvents", Green Chem. 2016, 18, 288–296 (doi:10.1039/C5GC01008J; author list, pages and doi recalled)',
   },
 
+  'chem21-guide-2016-table': {
+    citation:
+      'D. Prat et al., "CHEM21 selection guide of classical- and less classical-solvents", Green Chem. 2016, 18, 288–296 (open access), the table of classical solvents with the default ranking and the ranking after discussion',
+    via: 'AI4Green/AI4Green: Webapp/sources/services/solvent_PCA/data/CHEM21_full.csv (commit 8cc45e3a55120268374c312280fef2b2b3e09784), columns "Solvent", "CAS", "Ranking Default", "Ranking Discussion"',
+    url: 'https://pubs.rsc.org/en/content/articlehtml/2016/gc/c5gc01008j',
+  },
+
   // --- Solubility and property pages read for reference-data.md ---------------
   'iupac-nist-srd106-butanol': {
     citation:

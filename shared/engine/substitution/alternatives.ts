@@ -1,0 +1,219 @@
+/**
+ * The solvent substitution advisor: for one step's solvent role, every
+ * library solvent is tried in its place and the route is evaluated again by
+ * the engine; the substitutes are ranked by PMI among those that keep the
+ * isolated yield within YIELD_WINDOW_POINTS of the current route and the
+ * solvent-free purity at least the current one, then the rest by PMI, then
+ * those the engine could not evaluate.
+ *
+ * What it is not: a similarity score. Every number is an evaluation of the
+ * whole route with the substitute in that one role (volumes, temperatures
+ * and every other step unchanged); nothing is re-optimised for the new
+ * solvent.
+ */
+import { SOLVENTS } from '../data';
+import type { RouteDocument } from '../document';
+import { createRandom } from '../random';
+import {
+  evaluatePrepared,
+  evaluateRoute,
+  parseRoute,
+  prepareRoute,
+  type RouteTotals,
+} from '../route/evaluate';
+import { percentile, type Percentiles } from '../route/monte-carlo';
+import { solventFacts, type SolventFacts } from './facts';
+import { roleSolvent, substituteSolvent, type SubstitutionRole } from './roles';
+
+/** A substitute keeps the yield when it is at most this many percentage points below the current route's. */
+export const YIELD_WINDOW_POINTS = 2;
+/** Round-off allowed when comparing solvent-free purities [percentage points]. */
+export const PURITY_TOLERANCE_POINTS = 1e-9;
+
+export interface Deltas {
+  yieldPct: number | null;
+  solventFreePurityPct: number | null;
+  pmi: number | null;
+  solventUseLPerKg: number | null;
+}
+
+/** Monte Carlo spread (p5/p50/p95) of the constrained figures with the substitute. */
+export interface SubstituteUncertainty {
+  draws: number;
+  seed: number;
+  failedDraws: number;
+  yieldPct: Percentiles;
+  solventFreePurityPct: Percentiles;
+  pmi: Percentiles;
+}
+
+export interface SolventAlternative extends Omit<SolventFacts, 'cautions'> {
+  solventId: string;
+  /** The engine's totals with the substitute; null when the route cannot be evaluated with it. */
+  totals: RouteTotals | null;
+  /** Substitute minus current (yield, purity, PMI, solvent use); null when not evaluated. */
+  deltaVsCurrent: Deltas | null;
+  /** Keeps the yield within YIELD_WINDOW_POINTS and the solvent-free purity at least the current. */
+  keepsYieldAndPurity: boolean;
+  uncertainty: SubstituteUncertainty | null;
+  cautions: string[];
+}
+
+export interface AlternativesResult {
+  current: { solventId: string; totals: RouteTotals };
+  alternatives: SolventAlternative[];
+}
+
+export interface AlternativesOptions {
+  /** Monte Carlo spread for the first `top` suggestions, `draws` draws each (0 or absent: none). */
+  uncertainty?: { top: number; draws: number; seed: number };
+}
+
+const diff = (a: number | null, b: number | null) => (a === null || b === null ? null : a - b);
+
+/** Whether a substitute's totals keep the yield and the solvent-free purity of the current route. */
+export function keepsYieldAndPurity(current: RouteTotals, candidate: RouteTotals): boolean {
+  const { yieldPct: y0, solventFreePurityPct: p0 } = current;
+  const { yieldPct: y, solventFreePurityPct: p } = candidate;
+  if (y0 === null || p0 === null || y === null || p === null) return false;
+  return y >= y0 - YIELD_WINDOW_POINTS && p >= p0 - PURITY_TOLERANCE_POINTS;
+}
+
+/**
+ * The advisor's order: substitutes that keep the yield and purity by PMI,
+ * then the other evaluated ones by PMI, then those not evaluated; PMI ties
+ * and missing PMI by solvent id.
+ */
+export function rankAlternatives<T extends { solventId: string; totals: RouteTotals | null }>(
+  current: RouteTotals,
+  candidates: readonly T[],
+): T[] {
+  const group = (c: T) => (c.totals === null ? 2 : keepsYieldAndPurity(current, c.totals) ? 0 : 1);
+  const pmi = (c: T) => c.totals?.pmi ?? Infinity;
+  return [...candidates].sort(
+    (a, b) =>
+      group(a) - group(b) ||
+      pmi(a) - pmi(b) ||
+      (a.solventId < b.solventId ? -1 : a.solventId > b.solventId ? 1 : 0),
+  );
+}
+
+/**
+ * The library solvents the advisor tries in a role: every solvent but the
+ * current one; for an extraction, only solvents that form a second liquid
+ * phase with water (not water, not fully miscible ones: common practice).
+ */
+export function candidateSolventIds(role: SubstitutionRole, currentSolventId: string): string[] {
+  return SOLVENTS.filter(
+    (s) =>
+      s.id !== currentSolventId &&
+      !(role === 'extraction' && (s.id === 'water' || s.waterMiscibility === 'miscible')),
+  ).map((s) => s.id);
+}
+
+function spread(doc: RouteDocument, draws: number, seed: number): SubstituteUncertainty {
+  const prepared = prepareRoute(parseRoute(doc));
+  const rng = createRandom(seed);
+  const samples = {
+    yieldPct: [] as number[],
+    solventFreePurityPct: [] as number[],
+    pmi: [] as number[],
+  };
+  let failedDraws = 0;
+  for (let i = 0; i < draws; i++) {
+    try {
+      const t = evaluatePrepared(prepared, rng).totals;
+      samples.yieldPct.push(t.yieldPct ?? NaN);
+      samples.solventFreePurityPct.push(t.solventFreePurityPct ?? NaN);
+      samples.pmi.push(t.pmi ?? NaN);
+    } catch {
+      failedDraws++;
+    }
+  }
+  const summary = (v: number[]): Percentiles => {
+    const s = v.filter((x) => !Number.isNaN(x)).sort((a, b) => a - b);
+    return { p5: percentile(s, 0.05), p50: percentile(s, 0.5), p95: percentile(s, 0.95) };
+  };
+  return {
+    draws,
+    seed,
+    failedDraws,
+    yieldPct: summary(samples.yieldPct),
+    solventFreePurityPct: summary(samples.solventFreePurityPct),
+    pmi: summary(samples.pmi),
+  };
+}
+
+/**
+ * Rank the library's alternatives to the solvent of one step's role.
+ *
+ * @param doc     a schema-valid route document
+ * @param stepId  the step whose solvent is replaced
+ * @param role    which of the step's solvents
+ * @throws SubstitutionError (unknown step, role the step does not have); the
+ *         engine's RouteValidationError / EngineError when the current route
+ *         itself cannot be evaluated
+ */
+export function solventAlternatives(
+  doc: RouteDocument,
+  stepId: string,
+  role: SubstitutionRole,
+  options: AlternativesOptions = {},
+): AlternativesResult {
+  const current = roleSolvent(doc, stepId, role);
+  const currentTotals = evaluateRoute(doc).totals;
+  const evaluated = candidateSolventIds(role, current.solventId).map((solventId) => {
+    const { cautions, ...facts } = solventFacts(solventId);
+    const substituted = substituteSolvent(doc, stepId, role, solventId);
+    let totals: RouteTotals | null = null;
+    const notes: string[] = [];
+    try {
+      const result = evaluateRoute(substituted);
+      totals = result.totals;
+      for (const w of result.warnings)
+        if (w.stepId === stepId && (w.severity === 'hazard' || w.severity === 'warning'))
+          if (!notes.includes(w.message)) notes.push(w.message);
+    } catch (error) {
+      notes.push(
+        `The route cannot be evaluated with ${facts.name} in this role: ${error instanceof Error ? error.message : String(error)}`,
+      );
+    }
+    const alternative: SolventAlternative = {
+      solventId,
+      ...facts,
+      totals,
+      deltaVsCurrent: totals
+        ? {
+            yieldPct: diff(totals.yieldPct, currentTotals.yieldPct),
+            solventFreePurityPct: diff(
+              totals.solventFreePurityPct,
+              currentTotals.solventFreePurityPct,
+            ),
+            pmi: diff(totals.pmi, currentTotals.pmi),
+            solventUseLPerKg: diff(totals.solventUseLPerKg, currentTotals.solventUseLPerKg),
+          }
+        : null,
+      keepsYieldAndPurity: totals ? keepsYieldAndPurity(currentTotals, totals) : false,
+      uncertainty: null,
+      cautions: [...cautions, ...notes],
+    };
+    return { alternative, substituted };
+  });
+  const ranked = rankAlternatives(
+    currentTotals,
+    evaluated.map((e) => ({
+      ...e,
+      solventId: e.alternative.solventId,
+      totals: e.alternative.totals,
+    })),
+  );
+  const u = options.uncertainty;
+  if (u && u.top > 0 && u.draws > 0)
+    for (const entry of ranked.slice(0, u.top))
+      if (entry.alternative.totals)
+        entry.alternative.uncertainty = spread(entry.substituted, u.draws, u.seed);
+  return {
+    current: { solventId: current.solventId, totals: currentTotals },
+    alternatives: ranked.map((e) => e.alternative),
+  };
+}

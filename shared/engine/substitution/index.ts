@@ -1,0 +1,4 @@
+/** The solvent substitution advisor (docs/methods.md, "Solvent substitution advisor"). */
+export * from './roles';
+export * from './facts';
+export * from './alternatives';
