@@ -26,6 +26,7 @@ import { equipmentRouter } from './routes/equipment';
 import { chromatogramsRouter } from './routes/chromatograms';
 import { compoundsRouter } from './routes/compounds';
 import { evaluateRouter, ROUTE_JSON_BODY_LIMIT } from './routes/evaluate';
+import { solventAlternativesRouter } from './routes/solvent-alternatives';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
 import { jobsRouter } from './routes/jobs';
@@ -119,7 +120,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   const api = express.Router();
   // Route documents (up to a few hundred steps) get a larger limit than other bodies.
   api.use(
-    ['/evaluate', '/workspaces/:workspaceId/routes'],
+    ['/evaluate', '/solvent-alternatives', '/workspaces/:workspaceId/routes'],
     express.json({ limit: ROUTE_JSON_BODY_LIMIT }),
   );
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
@@ -160,6 +161,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(compoundsRouter());
   api.use(equipmentRouter());
   api.use(evaluateRouter(config));
+  api.use(solventAlternativesRouter(config));
   api.use(jobsRouter());
   api.use(routesRouter(config));
   api.use(auditRouter());

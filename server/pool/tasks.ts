@@ -32,6 +32,7 @@ import {
   calcVapourPressure,
 } from '../services/calc';
 import { evaluateDraft } from '../services/draft-evaluation';
+import { computeSolventAlternatives } from '../services/solvent-alternatives';
 import {
   describeFailure,
   evaluateDocument,
@@ -120,6 +121,8 @@ export const tasks = {
     const { result } = evaluateDocument(input.document);
     return buildStepList({ ...input, result });
   },
+  /** The solvent substitution advisor: every library solvent tried in one step's role. */
+  'solvent.alternatives': computeSolventAlternatives,
   /** One of the calculation API's computations. */
   calculate: (input: { operation: CalculationName; body: unknown }) =>
     (CALCULATIONS[input.operation] as (body: unknown) => unknown)(input.body),

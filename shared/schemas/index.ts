@@ -20,3 +20,4 @@ export * from './text';
 export * from './equipment';
 export * from './chromatograms';
 export * from './step-list';
+export * from './solvent-alternatives';

@@ -34,7 +34,15 @@ export const SOLVENT_GUIDE: Readonly<Record<string, GuideRow>> = Object.freeze({
   'acetic-acid': { row: 'Acetic acid', category: 'problematic', defaultCategory: 'problematic' },
 });
 
-/** The guide's category of a library solvent, or null when its row was not read. */
+/**
+ * The guide's category of a library solvent, or null when its row was not read.
+ *
+ * Source: SOLVENT_GUIDE (CHEM21 table, ranking after discussion; see the module comment).
+ * Validity: the rows read; no category is inferred for other solvents.
+ *
+ * @param solventId  library solvent id, e.g. 'dme'
+ * @returns the category, or null
+ */
 export function guideCategoryOf(solventId: string): GuideCategory | null {
   return Object.hasOwn(SOLVENT_GUIDE, solventId) ? SOLVENT_GUIDE[solventId].category : null;
 }

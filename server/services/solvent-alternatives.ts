@@ -1,0 +1,31 @@
+/**
+ * The solvent substitution advisor on the server: runs in the engine pool
+ * (task 'solvent.alternatives'); a step or role the route does not have
+ * answers 400 in the chemist's words, a route the engine cannot evaluate 422.
+ */
+import type { RouteDocument } from '@shared/schemas/route';
+import type { SolventAlternative, SubstitutionRole } from '@shared/schemas/solvent-alternatives';
+import { solventAlternatives, SubstitutionError } from '@shared/engine/substitution';
+import { badRequest } from '../errors';
+import { describeFailure, RouteEvaluationFailed } from './evaluation';
+
+/** Monte Carlo spread for the first suggestions: how many, how many draws, which seed. */
+export const ADVISOR_UNCERTAINTY = { top: 3, draws: 12, seed: 1 } as const;
+
+export function computeSolventAlternatives(input: {
+  document: RouteDocument;
+  stepId: string;
+  role: SubstitutionRole;
+}): SolventAlternative[] {
+  try {
+    return solventAlternatives(input.document, input.stepId, input.role, {
+      uncertainty: ADVISOR_UNCERTAINTY,
+    }).alternatives;
+  } catch (error) {
+    if (error instanceof SubstitutionError)
+      throw badRequest(error.message, [{ path: error.field, message: error.message }]);
+    const failure = describeFailure(error, input.document);
+    if (failure) throw new RouteEvaluationFailed(failure);
+    throw error;
+  }
+}
