@@ -16,6 +16,18 @@ const server = useTestServer();
 const demo = (): RouteDocumentInput => structuredClone(demoRoute) as RouteDocumentInput;
 
 type Totals = EvaluateResponse['result']['totals'];
+/** The fields these tests change, typed loosely enough to set them on a copy of the fixture. */
+interface Editable {
+  components: Array<{ kind: string; id?: string; solventId?: string }>;
+  steps: Array<{
+    id: string;
+    params: {
+      mode: { addSolventId?: string; antisolventId?: string };
+      cakeWash: { solventId: string };
+    };
+  }>;
+}
+const editable = () => demo() as unknown as Editable;
 
 describe('POST /api/v1/solvent-alternatives', () => {
   let asEngineer: SignedIn;
@@ -63,7 +75,7 @@ describe('POST /api/v1/solvent-alternatives', () => {
     const sample = [...evaluated.slice(0, 5), evaluated[evaluated.length - 1]];
     const byHand = new Map<string, Totals>();
     for (const a of sample) {
-      const doc = demo() as { components: object[]; steps: Array<{ id: string; params: any }> };
+      const doc = editable();
       if (!doc.components.some((c) => (c as { solventId?: string }).solventId === a.solventId))
         doc.components.push({ kind: 'solvent', id: a.solventId, solventId: a.solventId });
       const id = (doc.components as Array<{ id?: string; solventId?: string }>).find(
@@ -104,7 +116,7 @@ describe('POST /api/v1/solvent-alternatives', () => {
     expect(list.map((a) => a.solventId)).not.toContain('n-heptane');
     const top = list.find((a) => a.totals !== null)!;
     // Substituting the antisolvent and the cake wash together gives other totals than the advisor's.
-    const both = demo() as { components: object[]; steps: Array<{ id: string; params: any }> };
+    const both = editable();
     if (!both.components.some((c) => (c as { id?: string }).id === top.solventId))
       both.components.push({ kind: 'solvent', id: top.solventId, solventId: top.solventId });
     both.steps.find((s) => s.id === 'antisolvent')!.params.mode.antisolventId = top.solventId;
