@@ -32,6 +32,9 @@ export const SOLVENT_GUIDE_SOURCE: Source = {
 export const SOLVENT_GUIDE: Readonly<Record<string, GuideRow>> = Object.freeze({
   dme: { row: '1,2-Dimethoxyethane', category: 'hazardous', defaultCategory: 'hazardous' },
   'acetic-acid': { row: 'Acetic acid', category: 'problematic', defaultCategory: 'problematic' },
+  acetone: { row: 'Acetone', category: 'recommended', defaultCategory: 'problematic' },
+  acetonitrile: { row: 'Acetonitrile', category: 'problematic', defaultCategory: 'recommended' },
+  anisole: { row: 'Anisole', category: 'recommended', defaultCategory: 'problematic' },
 });
 
 /**
