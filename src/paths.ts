@@ -164,5 +164,6 @@ export const api = {
   projects: (workspaceId: string) => `${ws(workspaceId)}/projects`,
   evaluate: '/api/v1/evaluate',
   monteCarlo: '/api/v1/evaluate/monte-carlo',
+  solventAlternatives: '/api/v1/solvent-alternatives',
   job: (jobId: string) => `/api/v1/jobs/${encodeURIComponent(jobId)}`,
 } as const;

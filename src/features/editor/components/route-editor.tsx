@@ -20,6 +20,7 @@ import { Canvas } from './canvas';
 import { Palette } from './palette';
 import { StepPanel } from './step-panel';
 import { StepSamplesPanel } from './step-samples-panel';
+import { AdvisorPanel } from '@/features/assistant';
 import { CautionList, StreamTable, TotalsCard, cautionJump } from './results';
 import { ProductFlow, StepPlot } from './plots';
 import { PurgePanel } from './purge-view';
@@ -456,12 +457,21 @@ function EditorFrame({
                   </fieldset>
                   <StepPlot key={`plot-${selected.id}`} step={selected} />
                   {view ? null : (
-                    <StepSamplesPanel
-                      key={`samples-${selected.id}`}
-                      workspaceId={workspaceId}
-                      routeId={route.id}
-                      step={selected}
-                    />
+                    <>
+                      <StepSamplesPanel
+                        key={`samples-${selected.id}`}
+                        workspaceId={workspaceId}
+                        routeId={route.id}
+                        step={selected}
+                      />
+                      <AdvisorPanel
+                        key={`advisor-${selected.id}`}
+                        workspaceId={workspaceId}
+                        routeName={route.name}
+                        projectName={route.project?.name}
+                        stepId={selected.id}
+                      />
+                    </>
                   )}
                 </>
               ) : (

@@ -1,0 +1,243 @@
+import { useMemo, useState } from 'react';
+import { useNavigate } from 'react-router-dom';
+import { routeDocumentSchema, type RouteDocument } from '@shared/schemas/route';
+import type { SolventAlternative } from '@shared/schemas/solvent-alternatives';
+import {
+  ROLE_LABELS,
+  roleSolvent,
+  SUBSTITUTION_ROLES,
+  substituteSolvent,
+  type SubstitutionRole,
+} from '@shared/engine/substitution/roles';
+import { Button } from '@/components/button';
+import { ErrorState } from '@/components/error-state';
+import { Loading } from '@/components/spinner';
+import { Select } from '@/components/select';
+import { paths } from '@/paths';
+import { useEditorStore } from '@/stores/editor-store';
+import { useSolventAlternatives } from '../api/advisor-solvent-alternatives';
+import { useTryInCopy } from '../api/advisor-try-copy';
+
+const GUIDE_LABELS: Record<NonNullable<SolventAlternative['guideCategory']>, string> = {
+  recommended: 'Recommended',
+  problematic: 'Problematic',
+  hazardous: 'Hazardous',
+  'highly-hazardous': 'Highly hazardous',
+};
+
+const fmt = (v: number | null | undefined, digits = 1) =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
+const signed = (v: number | null | undefined, digits = 1) =>
+  v === null || v === undefined || !Number.isFinite(v)
+    ? ''
+    : ` (${v >= 0 ? '+' : '−'}${Math.abs(v).toFixed(digits)})`;
+
+/** The roles the step has a solvent in, with that solvent, for the route as it stands. */
+function rolesOf(doc: RouteDocument | null, stepId: string) {
+  if (!doc) return [];
+  return SUBSTITUTION_ROLES.flatMap((role) => {
+    try {
+      return [{ role, solventId: roleSolvent(doc, stepId, role).solventId }];
+    } catch {
+      return [];
+    }
+  });
+}
+
+/**
+ * "Suggest alternatives" for the selected step's solvent: the advisor ranks
+ * library solvents by evaluating the whole route again with each one in this
+ * step's role; one click saves a substitute as a copy of the route.
+ */
+export function AdvisorPanel({
+  workspaceId,
+  routeName,
+  projectName,
+  stepId,
+}: {
+  workspaceId: string;
+  routeName: string;
+  projectName?: string;
+  stepId: string;
+}) {
+  const doc = useEditorStore((s) => s.doc);
+  const parsed = useMemo(() => {
+    const r = routeDocumentSchema.safeParse(doc);
+    return r.success ? r.data : null;
+  }, [doc]);
+  const roles = useMemo(() => rolesOf(parsed, stepId), [parsed, stepId]);
+  const [chosen, setChosen] = useState<SubstitutionRole | null>(null);
+  const role = roles.find((r) => r.role === chosen) ?? roles[0];
+  const advice = useSolventAlternatives();
+  const copy = useTryInCopy(workspaceId);
+  const navigate = useNavigate();
+  const [asked, setAsked] = useState<{ role: SubstitutionRole; document: RouteDocument } | null>(
+    null,
+  );
+
+  if (!parsed || roles.length === 0 || !role) return null;
+
+  const ask = () => {
+    setAsked({ role: role.role, document: parsed });
+    advice.mutate({ document: parsed, stepId, role: role.role });
+  };
+
+  const tryInCopy = (a: SolventAlternative) => {
+    if (!asked) return;
+    const document = substituteSolvent(asked.document, stepId, asked.role, a.solventId);
+    const name = `${routeName} — ${a.name} as ${ROLE_LABELS[asked.role]}`.slice(0, 200);
+    copy.mutate(
+      { name, projectName, document },
+      { onSuccess: (route) => navigate(paths.workspace.route.to(workspaceId, route.id)) },
+    );
+  };
+
+  return (
+    <section aria-labelledby="advisor-heading" className="mt-4 border-t border-rule pt-3">
+      <h3 id="advisor-heading" className="text-body font-medium">
+        Solvent alternatives
+      </h3>
+      <div className="mt-2 flex flex-wrap items-end gap-2">
+        {roles.length > 1 ? (
+          <Select
+            label="Solvent to replace"
+            value={role.role}
+            onValueChange={(v) => setChosen(v as SubstitutionRole)}
+            options={roles.map((r) => ({
+              value: r.role,
+              label: `${ROLE_LABELS[r.role]} (${r.solventId})`,
+            }))}
+          />
+        ) : (
+          <p className="text-small text-ink-muted">
+            Replace the {ROLE_LABELS[role.role]} ({role.solventId}).
+          </p>
+        )}
+        <Button size="sm" variant="secondary" onClick={ask} disabled={advice.isPending}>
+          Suggest alternatives
+        </Button>
+      </div>
+      {advice.isPending ? (
+        <Loading className="mt-2" label="Evaluating the route with each library solvent…" />
+      ) : advice.isError ? (
+        <ErrorState className="mt-2" title="No suggestions" error={advice.error} onRetry={ask} />
+      ) : advice.data && asked ? (
+        <AlternativesList
+          items={advice.data}
+          role={asked.role}
+          onTry={tryInCopy}
+          busy={copy.isPending}
+        />
+      ) : null}
+      {copy.isError ? (
+        <ErrorState className="mt-2" title="The copy was not saved" error={copy.error} />
+      ) : null}
+    </section>
+  );
+}
+
+function AlternativesList({
+  items,
+  role,
+  onTry,
+  busy,
+}: {
+  items: SolventAlternative[];
+  role: SubstitutionRole;
+  onTry: (a: SolventAlternative) => void;
+  busy: boolean;
+}) {
+  if (items.length === 0)
+    return (
+      <p className="mt-2 text-small text-ink-muted">The library has no other solvent to try.</p>
+    );
+  return (
+    <div className="mt-2 space-y-2">
+      <p className="text-caption text-ink-muted">
+        Each line is the whole route evaluated again with that solvent as the {ROLE_LABELS[role]} of
+        this step only (volumes and every other step unchanged), ranked by PMI among those that keep
+        the yield within 2 points and the solvent-free purity at least the current, then the rest.
+        Model results: confirm at the bench and through the site&apos;s process-safety review. The
+        spread (p5–p95 over 12 draws of the route&apos;s ± ranges) is given for the first three
+        only; it does not include the error of the models or the solvent data. Guide categories:
+        CHEM21 (Prat et al., Green Chem. 2016, 18, 288), as read from the guide&apos;s table.
+      </p>
+      <ol aria-label="Ranked alternatives" className="space-y-2">
+        {items.map((a, i) => (
+          <li
+            key={a.solventId}
+            aria-label={a.name}
+            className="rounded-control border border-rule px-2 py-1.5 text-small"
+          >
+            <div className="flex items-baseline justify-between gap-2">
+              <span className="font-medium">
+                {i + 1}. {a.name}
+              </span>
+              <span className="text-caption text-ink-muted">
+                {a.totals === null
+                  ? 'cannot be evaluated'
+                  : a.keepsYieldAndPurity
+                    ? 'keeps yield and purity'
+                    : 'loses yield or purity'}
+              </span>
+            </div>
+            {a.totals ? (
+              <p>
+                PMI {fmt(a.totals.pmi)}
+                {signed(a.deltaVsCurrent?.pmi)} · yield {fmt(a.totals.yieldPct)} %
+                {signed(a.deltaVsCurrent?.yieldPct)} · purity{' '}
+                {fmt(a.totals.solventFreePurityPct, 2)} %
+              </p>
+            ) : null}
+            {a.uncertainty ? (
+              <p className="text-caption text-ink-muted">
+                Spread p5–p95: PMI {fmt(a.uncertainty.pmi.p5)}–{fmt(a.uncertainty.pmi.p95)}, yield{' '}
+                {fmt(a.uncertainty.yieldPct.p5)}–{fmt(a.uncertainty.yieldPct.p95)} %, purity{' '}
+                {fmt(a.uncertainty.solventFreePurityPct.p5, 2)}–
+                {fmt(a.uncertainty.solventFreePurityPct.p95, 2)} %
+              </p>
+            ) : null}
+            <p className="text-caption">
+              {a.ich.class === null
+                ? 'No ICH Q3C class'
+                : `ICH class ${a.ich.class}${a.ich.limitPpm !== null ? `, ${a.ich.limitPpm} ppm` : ''}`}
+              {' · '}Guide:{' '}
+              {a.guideCategory ? GUIDE_LABELS[a.guideCategory] : "not in the guide's table"}
+              {' · '}bp {fmt(a.boilingPointC, 0)} °C · flash point{' '}
+              {a.flashPointC === null ? 'none given' : `${fmt(a.flashPointC, 0)} °C`}
+              {' · '}
+              {a.waterMiscibility === 'miscible'
+                ? 'miscible with water'
+                : 'partly miscible with water'}
+              {a.heteroazeotropeWithWater?.forms
+                ? `, heteroazeotrope with water near ${fmt(a.heteroazeotropeWithWater.temperatureC, 0)} °C`
+                : a.heteroazeotropeWithWater
+                  ? ', no heteroazeotrope with water'
+                  : ''}
+            </p>
+            <details className="text-caption">
+              <summary>Cautions ({a.cautions.length})</summary>
+              <ul className="list-disc pl-4">
+                {a.cautions.map((c) => (
+                  <li key={c}>{c}</li>
+                ))}
+              </ul>
+            </details>
+            {a.totals ? (
+              <Button
+                size="sm"
+                variant="quiet"
+                className="mt-1"
+                disabled={busy}
+                onClick={() => onTry(a)}
+                aria-label={`Try ${a.name} in a copy`}
+              >
+                Try in a copy
+              </Button>
+            ) : null}
+          </li>
+        ))}
+      </ol>
+    </div>
+  );
+}

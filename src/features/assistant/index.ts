@@ -1,0 +1,2 @@
+// The assistant feature's public face: what other features may import.
+export { AdvisorPanel } from './components/advisor-panel';
