@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 import { text } from './text';
+import { routeTotalsSchema } from './evaluate';
 import { listPagingSchema, listReplySchema } from './lists';
 import { draftDocumentSchema, personRefSchema } from './routes';
 
@@ -41,18 +42,18 @@ export const DEFAULT_SIGNATURE_MEANING = {
 
 const personWithEmailSchema = z.object({ id: text(), name: text(), email: text() });
 
-/** The route evaluation's totals as stored with the revision (names as in result.totals). */
-export const revisionTotalsSchema = z
-  .object({
-    yieldPct: z.number().nullable(),
-    purityWtPct: z.number().nullable(),
-    pmi: z.number().nullable(),
-    purge: z.record(
-      text(),
-      z.object({ inKg: z.number(), outKg: z.number(), purgeFactor: z.number().nullable() }),
-    ),
-  })
-  .loose();
+/**
+ * The route evaluation's totals as stored with the revision (names as in
+ * result.totals). Every field the engine writes is declared; a revision stored
+ * by an older engine may lack the newer ones, so only the four every revision
+ * has are required.
+ */
+export const revisionTotalsSchema = routeTotalsSchema.partial().required({
+  yieldPct: true,
+  purityWtPct: true,
+  pmi: true,
+  purge: true,
+});
 export type RevisionTotals = z.infer<typeof revisionTotalsSchema>;
 
 export const createRevisionSchema = z.object({

@@ -1,11 +1,14 @@
 import { PageHeader } from '@/components/page-header';
 import { useWorkspace } from '@/features/auth/use-workspace';
+import { canInWorkspace } from '@/features/auth/abilities';
+import { useSession } from '@/features/auth/api/get-session';
 import { AuditTrail } from '@/features/audit';
 
-/** The workspace's audit trail (admins). */
+/** The workspace's audit trail (whoever the server allows to read it: admins). */
 export function Component() {
   const workspace = useWorkspace();
-  if (!workspace.roles.includes('admin'))
+  const { data: session } = useSession();
+  if (!session || !canInWorkspace(session, workspace.id, 'audit.read'))
     return (
       <div className="p-6">
         <PageHeader

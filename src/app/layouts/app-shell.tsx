@@ -12,7 +12,7 @@ import {
 import type { Session } from '@shared/schemas/session';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
-import { canOnAccount } from '@/features/auth/abilities';
+import { canInWorkspace, canOnAccount } from '@/features/auth/abilities';
 import { lastWorkspace } from '@/features/auth/last-workspace';
 import { useSessionEnd } from '@/features/auth/session-end';
 import { WorkspaceSwitcher } from '@/features/auth/components/workspace-switcher';
@@ -123,7 +123,7 @@ function Shell({ session }: { session: Session }) {
                 <NavItem to={paths.workspace.members.to(workspaceId)} glyph={<PeopleGlyph />}>
                   Members
                 </NavItem>
-                {session.workspaces.find((w) => w.id === workspaceId)?.roles.includes('admin') ? (
+                {canInWorkspace(session, workspaceId, 'audit.read') ? (
                   <NavItem to={paths.workspace.audit.to(workspaceId)} glyph={<PeopleGlyph />}>
                     Audit trail
                   </NavItem>
