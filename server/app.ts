@@ -30,6 +30,7 @@ import { solventAlternativesRouter } from './routes/solvent-alternatives';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
 import { jobsRouter } from './routes/jobs';
+import { optimiseRouter } from './routes/optimise';
 import { membersRouter } from './routes/members';
 import { outboxRouter } from './routes/outbox';
 import { passwordResetsRouter } from './routes/password-resets';
@@ -120,7 +121,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   const api = express.Router();
   // Route documents (up to a few hundred steps) get a larger limit than other bodies.
   api.use(
-    ['/evaluate', '/solvent-alternatives', '/workspaces/:workspaceId/routes'],
+    ['/evaluate', '/optimise', '/solvent-alternatives', '/workspaces/:workspaceId/routes'],
     express.json({ limit: ROUTE_JSON_BODY_LIMIT }),
   );
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
@@ -162,6 +163,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   api.use(equipmentRouter());
   api.use(evaluateRouter(config));
   api.use(solventAlternativesRouter(config));
+  api.use(optimiseRouter(config));
   api.use(jobsRouter());
   api.use(routesRouter(config));
   api.use(auditRouter());

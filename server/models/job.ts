@@ -20,7 +20,7 @@ export class EvaluationJob extends Model<
 > {
   declare id: CreationOptional<string>;
   declare userId: ForeignKey<User['id']>;
-  declare kind: 'monte-carlo';
+  declare kind: 'monte-carlo' | 'optimise';
   declare status: CreationOptional<'queued' | 'running' | 'done' | 'failed' | 'cancelled'>;
   declare progress: CreationOptional<number>;
   declare input: unknown;

@@ -20,8 +20,20 @@ import {
   type MonteCarloState,
 } from '@shared/engine/route/monte-carlo';
 import type { Equipment } from '@shared/schemas/equipment';
+import {
+  checkOptimiseRequest,
+  optimiseProgress,
+  runOptimiseChunk,
+  setUpOptimise,
+  startOptimise,
+  summariseOptimise,
+  type OptimiseRequest,
+  type OptimiseSetup,
+  type OptimiseState,
+} from '@shared/engine/optimise/optimise';
+import { ENGINE_VERSION, PROCESS_SAFETY_NOTE } from '@shared/engine/route/evaluate';
 import { buildStepList } from '@shared/steplist';
-import { AppError } from '../errors';
+import { apiError, AppError, validationFailed } from '../errors';
 import {
   calcActivityCoefficients,
   calcAzeotrope,
@@ -61,6 +73,9 @@ function preparedFor(cacheKey: string, document: RouteDocument): PreparedRoute {
   }
   return prepared;
 }
+
+/** Shared set-up of running optimisations (the engine's caches, the ICH limits). */
+const setupByJob = new Map<string, OptimiseSetup>();
 
 const CALCULATIONS = {
   'vapour-pressure': calcVapourPressure,
@@ -111,6 +126,50 @@ export const tasks = {
     const next = runMonteCarloChunk(prepared, state, input.chunk);
     if (next.done >= next.draws) preparedByJob.delete(input.cacheKey);
     return { state: next, summary: next.done >= next.draws ? summariseMonteCarlo(next) : null };
+  },
+  /** Checks an optimisation request: 400 naming each free parameter at fault, 422 when the route cannot run. */
+  'optimise.check': (input: { request: OptimiseRequest }) => {
+    const issues = checkOptimiseRequest(input.request);
+    if (issues.length) throw validationFailed(issues);
+    prepare(input.request.document);
+    return null;
+  },
+  /** The next few evaluations of a background optimisation; the result once it is finished. */
+  'optimise.chunk': (input: {
+    cacheKey: string;
+    request: OptimiseRequest;
+    state: OptimiseState | null;
+    evaluations: number;
+  }) => {
+    let setup = setupByJob.get(input.cacheKey);
+    if (!setup) {
+      setup = setUpOptimise(input.request);
+      setupByJob.set(input.cacheKey, setup);
+      if (setupByJob.size > 4) setupByJob.delete(setupByJob.keys().next().value!);
+    }
+    const state = runOptimiseChunk(
+      setup,
+      input.state ?? startOptimise(input.request),
+      input.evaluations,
+    );
+    if (state.phase !== 'done') return { state, progress: optimiseProgress(state), result: null };
+    setupByJob.delete(input.cacheKey);
+    let summary;
+    try {
+      summary = summariseOptimise(setup, state);
+    } catch (error) {
+      if (!(error instanceof RangeError)) throw error;
+      throw apiError('not_computable', `No candidate route could be evaluated: ${error.message}`);
+    }
+    return {
+      state,
+      progress: 1,
+      result: {
+        ...summary,
+        engineVersion: ENGINE_VERSION,
+        processSafetyNote: PROCESS_SAFETY_NOTE,
+      },
+    };
   },
   /** The plant step list of a document already scaled to the batch: its evaluation written as operations. */
   'stepList.build': (input: {

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/errors';
-import { jobSchema } from '@shared/schemas/jobs';
+import { anyJobSchema } from '@shared/schemas/jobs';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
 import { cancelJob, loadJob, presentJob } from '../services/monte-carlo-jobs';
@@ -18,7 +18,7 @@ export function jobsRouter(): Router {
     params: z.object({ jobId: z.uuid() }),
     transaction: false,
     responses: {
-      200: { description: 'The job.', schema: jobSchema },
+      200: { description: 'The job.', schema: anyJobSchema },
       404: { description: 'No such job, or started by someone else.', schema: apiErrorSchema },
     },
     handle: async ({ actor, params }) => {
@@ -38,7 +38,28 @@ export function jobsRouter(): Router {
     params: z.object({ jobId: z.uuid() }),
     writes: false,
     responses: {
-      200: { description: 'The job, now cancelled.', schema: jobSchema },
+      200: { description: 'The job, now cancelled.', schema: anyJobSchema },
+      404: { description: 'No such job, or started by someone else.', schema: apiErrorSchema },
+      409: { description: 'job_finished: the job has already finished.', schema: apiErrorSchema },
+    },
+    handle: async ({ actor, params, transaction }) => {
+      const job = await loadJob(params.jobId, transaction);
+      authorize(actor, 'job.cancel', { userId: job.userId as string });
+      return { status: 200, body: presentJob(await cancelJob(job, transaction)) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'delete',
+    path: '/jobs/{jobId}',
+    summary:
+      'Cancel a background job you started (a route optimisation or a Monte Carlo run) that is still queued or running; the run stops after its current chunk at the latest.',
+    tags: ['evaluation'],
+    auth: true,
+    params: z.object({ jobId: z.uuid() }),
+    writes: false,
+    responses: {
+      200: { description: 'The job, now cancelled.', schema: anyJobSchema },
       404: { description: 'No such job, or started by someone else.', schema: apiErrorSchema },
       409: { description: 'job_finished: the job has already finished.', schema: apiErrorSchema },
     },

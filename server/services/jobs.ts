@@ -7,11 +7,16 @@ import type { Transaction } from 'sequelize';
  * Register a queue name in QUEUES, send with `enqueue()`, and add its worker
  * in startWorkers() (server/services/workers.ts).
  */
-export const QUEUES = { mailSend: 'mail.send', monteCarlo: 'evaluation.monte-carlo' } as const;
+export const QUEUES = {
+  mailSend: 'mail.send',
+  monteCarlo: 'evaluation.monte-carlo',
+  optimise: 'evaluation.optimise',
+} as const;
 
 /** Settings a queue is created with (pg-boss defaults otherwise). */
 const QUEUE_SETTINGS: Partial<Record<keyof typeof QUEUES, Omit<PgBoss.Queue, 'name'>>> = {
   monteCarlo: { retryLimit: 1, expireInSeconds: 30 * 60 },
+  optimise: { retryLimit: 1, expireInSeconds: 30 * 60 },
 };
 
 let boss: PgBoss | null = null;

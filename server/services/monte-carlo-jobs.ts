@@ -10,7 +10,7 @@
  */
 import { Op, type Transaction } from 'sequelize';
 import type { RouteDocument } from '@shared/schemas/route';
-import type { Job, MonteCarloResult } from '@shared/schemas/jobs';
+import type { AnyJob, MonteCarloResult, OptimiseResult } from '@shared/schemas/jobs';
 import type {
   MonteCarloResult as EngineMonteCarloResult,
   MonteCarloState,
@@ -23,6 +23,7 @@ import type { TaskOutput } from '../pool/tasks';
 import { ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
 import { checkStepDraws, inUserSlot, type EvaluationLimits } from './evaluation-limits';
 import { enqueue, jobQueue, QUEUES } from './jobs';
+import { abortOptimisationHere } from './optimise-jobs';
 
 export const MONTE_CARLO_QUEUE = QUEUES.monteCarlo;
 /** Runs of at most this many draws are evaluated in the request. */
@@ -214,18 +215,28 @@ export async function cancelJob(
     throw conflict('job_finished', 'This run has already finished; there is nothing to cancel.');
   await job.update({ status: 'cancelled', finishedAt: new Date() }, { transaction });
   runningHere.get(job.id)?.abort(new JobCancelled());
+  abortOptimisationHere(job.id);
   return job;
 }
 
-export function presentJob(job: EvaluationJob): Job {
-  return {
+export function presentJob(job: EvaluationJob): AnyJob {
+  const common = {
     id: job.id,
-    kind: job.kind,
     status: job.status,
     progress: job.progress,
-    ...(job.result ? { result: job.result as MonteCarloResult } : {}),
     ...(job.error ? { error: job.error } : {}),
     createdAt: job.createdAt.toISOString(),
     updatedAt: job.updatedAt.toISOString(),
+  };
+  if (job.kind === 'optimise')
+    return {
+      ...common,
+      kind: 'optimise',
+      ...(job.result ? { result: job.result as OptimiseResult } : {}),
+    };
+  return {
+    ...common,
+    kind: 'monte-carlo',
+    ...(job.result ? { result: job.result as MonteCarloResult } : {}),
   };
 }

@@ -1,6 +1,7 @@
 import type { Transporter } from 'nodemailer';
 import { jobQueue, QUEUES } from './jobs';
 import { startMonteCarloWorker } from './monte-carlo-jobs';
+import { startOptimiseWorker } from './optimise-jobs';
 import { createMailTransport, deliverMail, type MailMessage, type MailSettings } from './mail';
 
 /** Starts the background workers of this process. Returns a function that stops them. */
@@ -19,7 +20,9 @@ export async function startWorkers(options: {
     },
   );
   const stopMonteCarlo = await startMonteCarloWorker(options.pollSeconds);
+  const stopOptimise = await startOptimiseWorker(options.pollSeconds);
   return async () => {
+    await stopOptimise();
     await stopMonteCarlo();
     await boss.offWork(QUEUES.mailSend);
     transport.close();

@@ -21,3 +21,4 @@ export * from './equipment';
 export * from './chromatograms';
 export * from './step-list';
 export * from './solvent-alternatives';
+export * from './optimise';

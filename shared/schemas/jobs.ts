@@ -1,10 +1,14 @@
 /** Background jobs a user started (Monte Carlo runs), polled for progress. */
 import { z } from 'zod';
 import { text } from './text';
+import { routeDocumentSchema } from './route';
+import { OBJECTIVES } from '../engine/optimise/optimise';
 import type { MonteCarloResult as EngineMonteCarloResult } from '../engine/route/monte-carlo';
 import type { Exactly } from './exact';
 
 export const JOB_KINDS = ['monte-carlo'] as const;
+/** Every kind of background job (Monte Carlo runs, route optimisations). */
+export const ALL_JOB_KINDS = ['monte-carlo', 'optimise'] as const;
 export const JOB_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
 
 /** p5/p50/p95 of one quantity over the draws; null when no draw gave a number. */
@@ -47,3 +51,65 @@ export const jobSchema = z.object({
   updatedAt: text(),
 });
 export type Job = z.infer<typeof jobSchema>;
+
+/** The figures of one candidate route the optimiser evaluated. */
+export const candidateTotalsSchema = z.object({
+  pmi: z.number().nullable(),
+  solventLPerKg: z.number().nullable(),
+  cycleTimeH: z.number(),
+  yieldPct: z.number().nullable(),
+  purityWtPct: z.number().nullable(),
+  solventFreePurityPct: z.number().nullable(),
+  impurityPct: z.record(text(), z.number()),
+  peakVolumeL: z.number(),
+  residualSolventPpm: z.record(text(), z.number()),
+});
+
+export const candidateSchema = z.object({
+  /** `{ "<stepId>.<param>": value }`. */
+  params: z.record(text(), z.number()),
+  totals: candidateTotalsSchema,
+  feasible: z.boolean(),
+});
+export type Candidate = z.infer<typeof candidateSchema>;
+
+/** Monte Carlo spread of the constrained figures at the chosen point. */
+export const optimiseUncertaintySchema = z.object({
+  draws: z.number().int(),
+  failedDraws: z.number().int(),
+  objective: percentilesSchema,
+  yieldPct: percentilesSchema,
+  solventFreePurityPct: percentilesSchema,
+  peakVolumeL: percentilesSchema,
+  impurityPct: z.record(text(), percentilesSchema),
+});
+
+export const optimiseResultSchema = z.object({
+  objective: z.enum(OBJECTIVES),
+  feasible: z.boolean(),
+  message: text(),
+  best: candidateSchema.extend({
+    document: routeDocumentSchema,
+    uncertainty: optimiseUncertaintySchema,
+    unmet: z.array(text()),
+  }),
+  current: candidateSchema.extend({ unmet: z.array(text()) }).nullable(),
+  candidates: z.array(candidateSchema),
+  evaluations: z.number().int(),
+  failedEvaluations: z.number().int(),
+  seed: z.number().int(),
+  engineVersion: text(),
+  processSafetyNote: text(),
+});
+export type OptimiseResult = z.infer<typeof optimiseResultSchema>;
+
+/** A route optimisation job: the job fields with the optimiser's result. */
+export const optimiseJobSchema = jobSchema.extend({
+  kind: z.literal('optimise'),
+  result: optimiseResultSchema.optional(),
+});
+export type OptimiseJob = z.infer<typeof optimiseJobSchema>;
+
+/** Any job, as GET /jobs/{jobId} answers it. */
+export const anyJobSchema = z.union([jobSchema, optimiseJobSchema]);
+export type AnyJob = z.infer<typeof anyJobSchema>;
