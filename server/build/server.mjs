@@ -41,6 +41,9 @@ const result = await build({
   // Shared chunks sit beside index.js, so import.meta.url in them names this folder.
   chunkNames: '[name]-[hash]',
   logLevel: 'warning',
+  // Sequelize names each model after its class, and queries name those aliases in SQL text
+  // ("Route"."changed_at"); without this esbuild may rename a class (Route -> _Route).
+  keepNames: true,
   metafile: true,
 });
 // What each output holds and imports: tests/unit/server/server-build.test.ts reads it to prove
