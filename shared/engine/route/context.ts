@@ -261,8 +261,27 @@ export function volumeToM3(ctx: EvalContext, v: Volume): number {
   const x = ctx.num(v.value, 0, 1e6);
   return v.unit === 'L' ? x / 1000 : (x * ctx.referenceKg) / 1000;
 }
-export const cToK = (c: number) => c + 273.15;
-export const kToC = (k: number) => k - 273.15;
+/**
+ * Celsius to kelvin: T = t + 273.15.
+ * Source: the definition of the Celsius scale (SI Brochure, 9th ed., 2019).
+ * Validity: any temperature.
+ * @param c temperature [°C]
+ * @returns temperature [K]
+ */
+export function cToK(c: number): number {
+  return c + 273.15;
+}
+
+/**
+ * Kelvin to Celsius: t = T − 273.15.
+ * Source: the definition of the Celsius scale (SI Brochure, 9th ed., 2019).
+ * Validity: any temperature.
+ * @param k temperature [K]
+ * @returns temperature [°C]
+ */
+export function kToC(k: number): number {
+  return k - 273.15;
+}
 
 // ---- streams ----
 

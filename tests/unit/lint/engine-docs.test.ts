@@ -15,10 +15,11 @@
  * The formula goes in the description (or "Formula:"), or the function says
  * where it is ("see the module comment").
  *
- * Covered: every file under shared/engine/numerics, thermo, data,
- * properties, unitops and route, and the top-level engine modules (units,
- * random, document, text, ...), so a new undocumented function there fails.
- * A new engine folder is added to COVERED when it is created.
+ * Covered: every engine folder except those in NOT_YET_COVERED (optimise and
+ * substitution, whose owners bring them up), and the top-level engine modules
+ * (units, random, document, text, ...), so a new undocumented function there
+ * fails; a new folder is covered from its first file. Exported arrow functions
+ * and function expressions count as functions (their JSDoc is on the `export const`).
  * A plumbing function (stream helpers, validation, grouping) states
  * "this project's own bookkeeping (no external source)" as its source and
  * "any input the schema accepts" (or the like) as its validity.
@@ -30,7 +31,14 @@ import { join } from 'node:path';
 import ts from 'typescript';
 
 const ENGINE = fileURLToPath(new URL('../../../shared/engine/', import.meta.url));
-const COVERED = ['numerics', 'thermo', 'data', 'properties', 'unitops', 'route'];
+/**
+ * Engine folders not yet brought up to the standard. Every other folder is
+ * covered, so a new folder is covered from its first file.
+ */
+const NOT_YET_COVERED = ['optimise', 'substitution'];
+const COVERED = readdirSync(ENGINE, { withFileTypes: true })
+  .filter((e) => e.isDirectory() && !NOT_YET_COVERED.includes(e.name))
+  .map((e) => e.name);
 
 interface Finding {
   file: string;
@@ -38,17 +46,33 @@ interface Finding {
   problem: string;
 }
 
-function exportedFunctions(file: string): Array<{ name: string; node: ts.FunctionDeclaration }> {
+type ExportedFunction = ts.FunctionDeclaration | ts.ArrowFunction | ts.FunctionExpression;
+
+/**
+ * Exported functions: declarations, and constants holding an arrow function or a
+ * function expression (`export const f = (x: number) => …`), whose JSDoc sits on
+ * the variable statement.
+ */
+function exportedFunctions(
+  file: string,
+): Array<{ name: string; node: ExportedFunction; docNode: ts.Node }> {
   const text = readFileSync(file, 'utf8');
   const sf = ts.createSourceFile(file, text, ts.ScriptTarget.Latest, true);
-  const out: Array<{ name: string; node: ts.FunctionDeclaration }> = [];
+  const out: Array<{ name: string; node: ExportedFunction; docNode: ts.Node }> = [];
+  const exported = (n: ts.Node) =>
+    ts.canHaveModifiers(n) &&
+    ts.getModifiers(n)?.some((m) => m.kind === ts.SyntaxKind.ExportKeyword);
   sf.forEachChild((n) => {
-    if (
-      ts.isFunctionDeclaration(n) &&
-      n.name &&
-      n.modifiers?.some((m) => m.kind === ts.SyntaxKind.ExportKeyword)
-    )
-      out.push({ name: n.name.text, node: n });
+    if (ts.isFunctionDeclaration(n) && n.name && exported(n))
+      out.push({ name: n.name.text, node: n, docNode: n });
+    if (ts.isVariableStatement(n) && exported(n))
+      for (const d of n.declarationList.declarations)
+        if (
+          ts.isIdentifier(d.name) &&
+          d.initializer &&
+          (ts.isArrowFunction(d.initializer) || ts.isFunctionExpression(d.initializer))
+        )
+          out.push({ name: d.name.text, node: d.initializer, docNode: n });
   });
   return out;
 }
@@ -63,11 +87,11 @@ function jsDocText(node: ts.Node): string {
 export function checkFile(file: string): Finding[] {
   const findings: Finding[] = [];
   const seen = new Set<string>();
-  for (const { name, node } of exportedFunctions(file)) {
+  for (const { name, node, docNode } of exportedFunctions(file)) {
     // Overloads: document the implementation once.
     if (seen.has(name)) continue;
     seen.add(name);
-    const doc = jsDocText(node);
+    const doc = jsDocText(docNode);
     const add = (problem: string) => findings.push({ file, fn: name, problem });
     if (!doc) {
       add('no JSDoc comment');
@@ -95,7 +119,10 @@ export function checkFile(file: string): Finding[] {
     }
     const returnsVoid =
       node.type?.kind === ts.SyntaxKind.VoidKeyword ||
-      (!node.type && !/return\s+[^;]/.test(node.body?.getText() ?? ''));
+      (!node.type &&
+        // An arrow function with an expression body returns that expression.
+        (node.body === undefined || ts.isBlock(node.body)) &&
+        !/return\s+[^;]/.test(node.body?.getText() ?? ''));
     if (!returnsVoid && !/@returns?\b/.test(doc) && !/\bReturns\b/.test(doc))
       add('return value undocumented');
   }
@@ -129,6 +156,13 @@ describe('engine documentation standard', () => {
     expect(findings.map((f) => `${f.file.slice(ENGINE.length)} ${f.fn}: ${f.problem}`)).toEqual([]);
   });
 
+  it('lists only folders that exist as not yet covered', () => {
+    const folders = readdirSync(ENGINE, { withFileTypes: true })
+      .filter((e) => e.isDirectory())
+      .map((e) => e.name);
+    for (const f of NOT_YET_COVERED) expect(folders).toContain(f);
+  });
+
   it('the check fails on a function that lacks them (the rule can fire)', () => {
     const tmp = fileURLToPath(new URL('./fixtures/undocumented.ts.txt', import.meta.url));
     const findings = checkFile(tmp);
@@ -140,5 +174,8 @@ describe('engine documentation standard', () => {
         'parameter P undocumented',
       ]),
     );
+    expect(findings.filter((f) => f.fn === 'undocumentedArrow').map((f) => f.problem)).toEqual([
+      'no JSDoc comment',
+    ]);
   });
 });

@@ -11,12 +11,53 @@ function source(ref: SourceId, status: Source['status'], note?: string): Source 
   return note === undefined ? { ref, status } : { ref, status, note };
 }
 
-export const read = (ref: SourceId, note?: string): Source => source(ref, 'confirmed', note);
-export const recalled = (ref: SourceId, note?: string): Source =>
-  source(ref, 'unverified-memory', note);
-export const derived = (ref: SourceId, note?: string): Source => source(ref, 'estimated', note);
-export const practice = (ref: SourceId, note?: string): Source =>
-  source(ref, 'common-practice', note);
+/**
+ * A library value read from its source (status 'confirmed' in docs/data-sources.md).
+ * Source: this project's own bookkeeping (no external source); `ref` names the value's source.
+ * Validity: any source listed in data/sources.ts.
+ * @param ref the source the value comes from
+ * @param note what was read, or why the value stands in
+ * @returns the value's source record
+ */
+export function read(ref: SourceId, note?: string): Source {
+  return source(ref, 'confirmed', note);
+}
+
+/**
+ * A library value recalled from memory, not yet read from its source (status 'unverified-memory' in docs/data-sources.md).
+ * Source: this project's own bookkeeping (no external source); `ref` names the value's source.
+ * Validity: any source listed in data/sources.ts.
+ * @param ref the source the value comes from
+ * @param note what was read, or why the value stands in
+ * @returns the value's source record
+ */
+export function recalled(ref: SourceId, note?: string): Source {
+  return source(ref, 'unverified-memory', note);
+}
+
+/**
+ * A library value derived from other values of the source (status 'estimated' in docs/data-sources.md).
+ * Source: this project's own bookkeeping (no external source); `ref` names the value's source.
+ * Validity: any source listed in data/sources.ts.
+ * @param ref the source the value comes from
+ * @param note what was read, or why the value stands in
+ * @returns the value's source record
+ */
+export function derived(ref: SourceId, note?: string): Source {
+  return source(ref, 'estimated', note);
+}
+
+/**
+ * A library value that is common practice with no published source (status 'common-practice' in docs/data-sources.md).
+ * Source: this project's own bookkeeping (no external source); `ref` names the value's source.
+ * Validity: any source listed in data/sources.ts.
+ * @param ref the source the value comes from
+ * @param note what was read, or why the value stands in
+ * @returns the value's source record
+ */
+export function practice(ref: SourceId, note?: string): Source {
+  return source(ref, 'common-practice', note);
+}
 
 /**
  * A value with its source, as every library field is stored.
