@@ -16,13 +16,14 @@ import type {
   MonteCarloState,
 } from '@shared/engine/route/monte-carlo';
 import { database } from '../db/sequelize';
-import { AppError, conflict, notFound, tooManyJobs } from '../errors';
+import { conflict, notFound, tooManyJobs } from '../errors';
 import { EvaluationJob } from '../models';
 import { enginePool } from '../pool';
 import type { TaskOutput } from '../pool/tasks';
 import { ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
 import { checkStepDraws, inUserSlot, type EvaluationLimits } from './evaluation-limits';
 import { enqueue, jobQueue, QUEUES } from './jobs';
+import { JobCancelled, recordStoppedRun, reportProgress } from './job-runs';
 import { abortOptimisationHere } from './optimise-jobs';
 
 export const MONTE_CARLO_QUEUE = QUEUES.monteCarlo;
@@ -93,13 +94,6 @@ function summary(result: EngineMonteCarloResult): MonteCarloResult {
 /** Runs in progress on this server, so a cancel stops the chunk already in a worker. */
 const runningHere = new Map<string, AbortController>();
 
-class JobCancelled extends Error {
-  constructor() {
-    super('cancelled');
-    this.name = 'JobCancelled';
-  }
-}
-
 /**
  * Runs one queued job to the end, writing progress as it goes. Stops when the
  * job is cancelled (checked in the database between chunks, so a cancel on
@@ -142,37 +136,15 @@ export async function runMonteCarloJob(jobId: string, stopping?: AbortSignal): P
         );
         return;
       }
-      const progress = next.done / next.draws;
-      // Progress about every 1 %; the same statement finds out whether the job was cancelled.
-      const [still] = await EvaluationJob.update(
-        progress - reported >= 0.01 ? { progress } : { updatedAt: new Date() },
-        { where: { id: jobId, status: 'running' } },
-      );
-      if (still === 0) throw new JobCancelled();
-      if (progress - reported >= 0.01) reported = progress;
+      reported = await reportProgress(jobId, next.done / next.draws, reported);
     }
   } catch (error) {
-    if (error instanceof JobCancelled || controller.signal.aborted) return;
-    if (stopping?.aborted) {
-      // The server is shutting down: hand the job back so another run picks it up.
-      await EvaluationJob.update(
-        { status: 'queued', progress: 0 },
-        { where: { id: jobId, status: 'running' } },
-      );
-      throw error;
-    }
-    const known = error instanceof AppError;
-    await EvaluationJob.update(
-      {
-        status: 'failed',
-        error: known
-          ? { code: error.code, message: error.message }
-          : { code: 'internal_error', message: 'The run stopped on a server error.' },
-        finishedAt: new Date(),
-      },
-      { where: { id: jobId, status: 'running' } },
-    );
-    if (!known) console.error('[monte-carlo]', error);
+    await recordStoppedRun(jobId, error, {
+      aborted: controller.signal.aborted,
+      stopping,
+      label: 'monte-carlo',
+      serverErrorMessage: 'The run stopped on a server error.',
+    });
   } finally {
     runningHere.delete(jobId);
   }

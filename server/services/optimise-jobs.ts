@@ -19,12 +19,13 @@ import {
   type OptimiseState,
 } from '@shared/engine/optimise/optimise';
 import { database } from '../db/sequelize';
-import { AppError, tooManyJobs } from '../errors';
+import { tooManyJobs } from '../errors';
 import { EvaluationJob } from '../models';
 import { enginePool } from '../pool';
 import type { TaskOutput } from '../pool/tasks';
 import { checkStepDraws, inUserSlot, type EvaluationLimits } from './evaluation-limits';
 import { enqueue, jobQueue, QUEUES } from './jobs';
+import { recordStoppedRun, reportProgress } from './job-runs';
 
 export const OPTIMISE_QUEUE = QUEUES.optimise;
 /** Evaluations per chunk: bounded work between progress writes and cancellation checks. */
@@ -65,13 +66,6 @@ export function abortOptimisationHere(jobId: string): void {
   runningHere.get(jobId)?.abort(new Error('cancelled'));
 }
 
-class JobCancelled extends Error {
-  constructor() {
-    super('cancelled');
-    this.name = 'JobCancelled';
-  }
-}
-
 /**
  * Runs one queued optimisation to the end, writing progress as it goes.
  * Stops when the job is cancelled. Safe to call again for a finished job.
@@ -106,37 +100,15 @@ export async function runOptimiseJob(jobId: string, stopping?: AbortSignal): Pro
         );
         return;
       }
-      const progress = chunk.progress;
-      // Progress about every 1 %; the same statement finds out whether the job was cancelled.
-      const [still] = await EvaluationJob.update(
-        progress - reported >= 0.01 ? { progress } : { updatedAt: new Date() },
-        { where: { id: jobId, status: 'running' } },
-      );
-      if (still === 0) throw new JobCancelled();
-      if (progress - reported >= 0.01) reported = progress;
+      reported = await reportProgress(jobId, chunk.progress, reported);
     }
   } catch (error) {
-    if (error instanceof JobCancelled || controller.signal.aborted) return;
-    if (stopping?.aborted) {
-      // The server is shutting down: hand the job back so another run picks it up.
-      await EvaluationJob.update(
-        { status: 'queued', progress: 0 },
-        { where: { id: jobId, status: 'running' } },
-      );
-      throw error;
-    }
-    const known = error instanceof AppError;
-    await EvaluationJob.update(
-      {
-        status: 'failed',
-        error: known
-          ? { code: error.code, message: error.message }
-          : { code: 'internal_error', message: 'The optimisation stopped on a server error.' },
-        finishedAt: new Date(),
-      },
-      { where: { id: jobId, status: 'running' } },
-    );
-    if (!known) console.error('[optimise]', error);
+    await recordStoppedRun(jobId, error, {
+      aborted: controller.signal.aborted,
+      stopping,
+      label: 'optimise',
+      serverErrorMessage: 'The optimisation stopped on a server error.',
+    });
   } finally {
     runningHere.delete(jobId);
   }

@@ -1,0 +1,64 @@
+/**
+ * What every background calculation run (Monte Carlo, optimisation) does the
+ * same way: progress written about every 1 % in the statement that also finds
+ * out whether the job was cancelled, and how a run that stops is recorded.
+ */
+import { AppError } from '../errors';
+import { EvaluationJob } from '../models';
+
+export class JobCancelled extends Error {
+  constructor() {
+    super('cancelled');
+    this.name = 'JobCancelled';
+  }
+}
+
+/**
+ * Writes the run's progress when it moved by 1 % or more since `reported`
+ * (else only touches the job), and throws JobCancelled when the job is no
+ * longer running. Returns the progress now reported.
+ */
+export async function reportProgress(
+  jobId: string,
+  progress: number,
+  reported: number,
+): Promise<number> {
+  const moved = progress - reported >= 0.01;
+  const [still] = await EvaluationJob.update(moved ? { progress } : { updatedAt: new Date() }, {
+    where: { id: jobId, status: 'running' },
+  });
+  if (still === 0) throw new JobCancelled();
+  return moved ? progress : reported;
+}
+
+/**
+ * Records a run that stopped on `error`: nothing for a cancel; back to the
+ * queue (and the error rethrown) when the server is shutting down, so another
+ * run picks it up; otherwise failed, with the coded error or `serverErrorMessage`.
+ */
+export async function recordStoppedRun(
+  jobId: string,
+  error: unknown,
+  options: { aborted: boolean; stopping?: AbortSignal; label: string; serverErrorMessage: string },
+): Promise<void> {
+  if (error instanceof JobCancelled || options.aborted) return;
+  if (options.stopping?.aborted) {
+    await EvaluationJob.update(
+      { status: 'queued', progress: 0 },
+      { where: { id: jobId, status: 'running' } },
+    );
+    throw error;
+  }
+  const known = error instanceof AppError;
+  await EvaluationJob.update(
+    {
+      status: 'failed',
+      error: known
+        ? { code: error.code, message: error.message }
+        : { code: 'internal_error', message: options.serverErrorMessage },
+      finishedAt: new Date(),
+    },
+    { where: { id: jobId, status: 'running' } },
+  );
+  if (!known) console.error(`[${options.label}]`, error);
+}
