@@ -320,6 +320,8 @@ export const filtrationParamsSchema = z
         temperatureC: temperatureC.optional(),
         /** Fraction of the retained liquor displaced by a wash of one retained volume (the wash efficiency E of R = (1 − E)^W). Default 0.8 (common practice). */
         displacementEfficiency: uncertain(0, 1).default(0.8),
+        /** Fraction of the retained liquor one wash cannot displace however large it is (liquor in dead-end pores, inside agglomerates and at particle contacts; channelling): the floor of R per wash. Assumed 0.05 (common practice) when absent. */
+        undisplacedFraction: uncertain(0, 0.5).optional(),
         /** Mean crystal size, µm, for the dissolution rate of the solid in the passing wash. Assumed 100 µm (with a warning) when absent. */
         crystalSizeUm: uncertain(1, 5000).optional(),
       })

@@ -9,12 +9,14 @@
  * W = V_w/V_r):
  *  - displacement: the fraction of each dissolved component of the retained
  *    liquor left in the cake is
- *        R(W) = max(1 − W, (1 − E)^W)
+ *        R(W) = φ + (1 − φ) max(1 − W, (1 − E)^W)
  *    (the exponential washing curve of Choudhury & Dahlstrom, AIChE J. 1957,
  *    3, 433 — citation recalled — with E the fraction displaced by one
  *    retained volume, default 0.8, common practice; bounded below by plug
- *    flow, which cannot displace more liquor than the wash volume). No cap:
- *    a larger wash displaces more;
+ *    flow, which cannot displace more liquor than the wash volume), with a
+ *    stagnant fraction φ of the liquor that no wash displaces (Rhodes, Ind.
+ *    Eng. Chem. 1934, 26, 1331, recalled; default 0.05, common practice):
+ *    a larger wash displaces more, but never below φ per wash;
  *  - the wash's own composition: the liquid charged is the wash solvent; the
  *    part that stays in the cake, (1 − R) V_r, replaces the displaced liquor;
  *    the rest, V_p = V_w − (1 − R) V_r, passes through the cake;
@@ -181,24 +183,53 @@ const BOLTZMANN_J_PER_K = 1.380649e-23;
 const AVOGADRO_PER_MOL = 6.02214076e23;
 
 /**
- * Fraction of a dissolved component of the retained cake liquor left after a
- * displacement wash of W retained volumes:
- *   R(W) = max(1 − W, (1 − E)^W)
- * (exponential washing curve, Choudhury & Dahlstrom, AIChE J. 1957, 3, 433 —
- * recalled; bounded below by plug flow).
- * @param W  wash ratio V_wash/V_retained [–], ≥ 0
- * @param E  fraction displaced by one retained volume [–], 0 ≤ E ≤ 1
- * @returns R [–], 0 ≤ R ≤ 1; R(1) = 1 − E, R → 0 as W → ∞
- * Source: Choudhury & Dahlstrom, AIChE J. 1957, 3, 433 (recalled); plug-flow
- * bound 1 − W from the mass balance.
- * Validity: a cake that does not crack or channel, the wash miscible with the
- * liquor; E from a measured washing curve (the default 0.8 is common practice).
+ * Fraction of the retained liquor a single wash cannot displace however large
+ * it is, when the route gives none [–]: 0.05 (common practice — washing curves
+ * of crystalline cakes flatten at a few per cent of the original solute per
+ * wash; the value is stated from memory, not from a measured curve: enter the
+ * measured one).
  */
-export function washRemainingFraction(W: number, E: number): number {
+export const DEFAULT_UNDISPLACED_FRACTION = 0.05;
+
+/**
+ * Fraction of a dissolved component of the retained cake liquor left after a
+ * displacement wash of W retained volumes, with a stagnant part φ that the
+ * wash does not reach:
+ *   R(W) = φ + (1 − φ) · max(1 − W, (1 − E)^W)
+ * The mobile liquor (1 − φ) follows the exponential washing curve (Choudhury
+ * & Dahlstrom, AIChE J. 1957, 3, 433 — recalled) bounded below by plug flow;
+ * the stagnant liquor φ (dead-end pores, the inside of agglomerates, particle
+ * contacts, liquor bypassed by channelling) is left by the wash and mixes
+ * with the cake liquor before the next wash — the two-region picture of
+ * Rhodes, Ind. Eng. Chem. 1934, 26, 1331 (displacement followed by a slow
+ * diffusion-controlled tail; citation from memory) and of the washing-curve
+ * tail in Wakeman & Tarleton, Solid/Liquid Separation: Principles of
+ * Industrial Filtration, 2005, cake-washing chapter (from memory), taken here
+ * as a floor: however large the wash, R ≥ φ.
+ * @param W    wash ratio V_wash/V_retained [–], ≥ 0
+ * @param E    fraction of the mobile liquor displaced by one retained volume [–], 0 ≤ E ≤ 1
+ * @param phi  fraction of the retained liquor one wash cannot displace [–], 0 ≤ φ < 1
+ *   (default DEFAULT_UNDISPLACED_FRACTION)
+ * @returns R [–], φ ≤ R ≤ 1 for W > 0; R(0) = 1, R(1) = φ + (1 − φ)(1 − E),
+ *   R → φ as W → ∞ (continuous and non-increasing in W)
+ * Source: as above; plug-flow bound 1 − W from the mass balance; the floor
+ * value is common practice.
+ * Validity: the wash miscible with the liquor; E and φ from a measured
+ * washing curve. Successive washes multiply (n washes leave at least φ^n):
+ * this assumes the stagnant liquor re-mixes with the fresh liquor between
+ * washes (a soak); without one the tail is slower and the purge of many washes
+ * is overstated. Liquor occluded inside crystals is not cake liquor: it
+ * belongs to the crystallisation's incorporation factor.
+ */
+export function washRemainingFraction(
+  W: number,
+  E: number,
+  phi: number = DEFAULT_UNDISPLACED_FRACTION,
+): number {
   if (!(W > 0)) return 1;
-  if (!Number.isFinite(W)) return 0;
-  const exponential = E >= 1 ? 0 : (1 - E) ** W;
-  return Math.min(1, Math.max(1 - W, exponential));
+  const f = Math.min(Math.max(phi, 0), 1);
+  const mobile = !Number.isFinite(W) ? 0 : Math.min(1, Math.max(1 - W, E >= 1 ? 0 : (1 - E) ** W));
+  return f + (1 - f) * mobile;
 }
 
 /**
@@ -253,15 +284,16 @@ function emptyKg(ctx: EvalContext): Record<string, number> {
  * module comment. The filtrate closes the mass balance by difference.
  *
  * Source: Ruth 1935 and McCabe, Smith & Harriott (filtration time);
- * Choudhury & Dahlstrom 1957 (washing curve, recalled); Ranz & Marshall
+ * Choudhury & Dahlstrom 1957 (washing curve, recalled) with the stagnant
+ * floor of Rhodes 1934 (recalled); Ranz & Marshall
  * Sh = 2 and Stokes–Einstein (dissolution rate); solubility-model.ts
- * (solubility in the wash); retained liquor 0.5 L/kg, E = 0.8 and crystal
- * size 100 µm as defaults are common practice.
+ * (solubility in the wash); retained liquor 0.5 L/kg, E = 0.8, φ = 0.05 and
+ * crystal size 100 µm as defaults are common practice.
  * Validity: incompressible cake at constant pressure; α, R_m, A and the
  * retained liquor are parameters (defaults stated); the wash loss is a lower
  * bound (Sh = 2); as the solubility model for the wash.
  * @param inputs  the slurry on port 'slurry'
- * @param params  the step's parameters (retainedLiquorLPerKg [L/kg], specificCakeResistanceMPerKg [m/kg], mediumResistancePerM [1/m], filterAreaM2 [m²], pressureDropBar [bar], cakeWash with volume, temperatureC [°C], displacementEfficiency [–], crystalSizeUm [µm])
+ * @param params  the step's parameters (retainedLiquorLPerKg [L/kg], specificCakeResistanceMPerKg [m/kg], mediumResistancePerM [1/m], filterAreaM2 [m²], pressureDropBar [bar], cakeWash with volume, temperatureC [°C], displacementEfficiency [–], undisplacedFraction [–], crystalSizeUm [µm])
  * @param ctx     evaluation context (route components resolved against the library)
  * @param step    the route step being evaluated
  * @returns the cake and the filtrate with the step result (times [h], wash records, wet-cake LOD [%])
@@ -365,6 +397,17 @@ export function filtration(
       cw.temperatureC !== undefined ? cToK(ctx.num(cw.temperatureC, ...RANGES.temperatureC)) : T;
     const Vw = volumeToM3(ctx, cw.volume);
     const eps = ctx.num(cw.displacementEfficiency, 0, 1);
+    const phi =
+      cw.undisplacedFraction !== undefined
+        ? ctx.num(cw.undisplacedFraction, 0, 0.5)
+        : DEFAULT_UNDISPLACED_FRACTION;
+    if (cw.undisplacedFraction === undefined)
+      warn(
+        W,
+        'info',
+        'wash-floor-assumed',
+        `No value given for the liquor a cake wash cannot displace: ${DEFAULT_UNDISPLACED_FRACTION * 100} % of the retained liquor assumed (common practice), so no wash leaves less than that of each dissolved impurity; enter the value from a measured washing curve.`,
+      );
     const wKg = solventKgFromVolume(ctx, cw.solventId, Vw, Tw);
     const muW = liquorViscosityPaS(ctx, { ...emptyKg(ctx), [cw.solventId]: 1 }, Tw, W)!;
     let dUm: number;
@@ -381,10 +424,10 @@ export function filtration(
     method(
       M,
       'cake wash',
-      `displacement R = max(1 − W, (1 − E)^W) with E = ${eps} per retained volume; the passing wash dissolves the solid at the film rate (Sh = 2, Stokes–Einstein diffusivity, ${dUm} µm crystals)`,
+      `displacement R = φ + (1 − φ) max(1 − W, (1 − E)^W) with E = ${eps} per retained volume and φ = ${phi} of the liquor no wash displaces${cw.undisplacedFraction === undefined ? ' (assumed, common practice)' : ''}; the passing wash dissolves the solid at the film rate (Sh = 2, Stokes–Einstein diffusivity, ${dUm} µm crystals)`,
       cw.displacementEfficiency === 0.8
-        ? 'Choudhury & Dahlstrom 1957 (recalled); default efficiency, common practice'
-        : 'Choudhury & Dahlstrom 1957 (recalled); efficiency from the route document',
+        ? 'Choudhury & Dahlstrom 1957 (recalled); Rhodes 1934 two-region wash (recalled); default efficiency, common practice'
+        : 'Choudhury & Dahlstrom 1957 (recalled); Rhodes 1934 two-region wash (recalled); efficiency from the route document',
     );
     // Wash flow at the final cake (Ruth): Q_w = A ΔP / (μ_w (α c V_f / A + R_m)) [m³/s].
     const resistance = (alpha * c * Vf) / A + Rm;
@@ -393,7 +436,7 @@ export function filtration(
       result.addedKg[cw.solventId] = (result.addedKg[cw.solventId] ?? 0) + wKg;
       result.addedVolumeM3 += Vw;
       const Wr = Vr > 0 ? Vw / Vr : Infinity;
-      const remaining = Vr > 0 ? washRemainingFraction(Wr, eps) : 0;
+      const remaining = Vr > 0 ? washRemainingFraction(Wr, eps, phi) : 0;
       const d = 1 - remaining;
       // Displaced liquor to the filtrate; the same volume of wash solvent stays in the cake.
       for (const id of ctx.ids) {

@@ -270,13 +270,36 @@ describe('the shared solubility root on a model with a liquid–liquid split', (
 });
 
 describe('cake wash', () => {
-  it('displaces without a cap: R(W) = max(1 − W, (1 − E)^W)', () => {
-    expect(washRemainingFraction(1, 0.8)).toBeCloseTo(0.2, 12);
-    expect(washRemainingFraction(2, 0.8)).toBeCloseTo(0.04, 12);
-    expect(washRemainingFraction(5, 0.8)).toBeCloseTo(0.2 ** 5, 12);
+  it('without a stagnant fraction the mobile liquor follows R(W) = max(1 − W, (1 − E)^W)', () => {
+    expect(washRemainingFraction(1, 0.8, 0)).toBeCloseTo(0.2, 12);
+    expect(washRemainingFraction(2, 0.8, 0)).toBeCloseTo(0.04, 12);
+    expect(washRemainingFraction(5, 0.8, 0)).toBeCloseTo(0.2 ** 5, 12);
     // Plug-flow bound: half a retained volume cannot displace more than half.
-    expect(washRemainingFraction(0.5, 0.8)).toBeCloseTo(0.5, 12);
+    expect(washRemainingFraction(0.5, 0.8, 0)).toBeCloseTo(0.5, 12);
+    expect(washRemainingFraction(0, 0.8, 0)).toBe(1);
+  });
+  it('levels off at the stagnant fraction however large the wash (R = φ + (1 − φ) R_mobile)', () => {
+    // Hand values with φ = 0.05, E = 0.8: R(1) = 0.05 + 0.95 × 0.2 = 0.24; R(2) = 0.05 + 0.95 × 0.04.
+    expect(washRemainingFraction(1, 0.8)).toBeCloseTo(0.24, 12);
+    expect(washRemainingFraction(2, 0.8)).toBeCloseTo(0.088, 12);
     expect(washRemainingFraction(0, 0.8)).toBe(1);
+    // Large washes: 20, 100 and infinitely many retained volumes all leave φ (the old curve
+    // gave 0.2^20 = 1e-14 and 0.2^100 = 1e-70).
+    expect(washRemainingFraction(20, 0.8)).toBeCloseTo(0.05, 12);
+    expect(washRemainingFraction(100, 0.8)).toBe(0.05);
+    expect(washRemainingFraction(Infinity, 0.8)).toBe(0.05);
+    // Steep case: perfect displacement (E = 1) of the mobile liquor still leaves φ.
+    expect(washRemainingFraction(1.5, 1)).toBe(0.05);
+    expect(washRemainingFraction(1.5, 1, 0.2)).toBe(0.2);
+    // Continuous and non-increasing in W over a fine scan, never below φ.
+    let last = 1;
+    for (let W = 0; W <= 30; W += 0.01) {
+      const R = washRemainingFraction(W, 0.8);
+      expect(R).toBeLessThanOrEqual(last + 1e-15);
+      expect(last - R).toBeLessThan(0.011);
+      expect(R).toBeGreaterThanOrEqual(0.05);
+      last = R;
+    }
   });
   it('the approach to saturation falls with crystal size and rises with contact time', () => {
     const base = {
@@ -301,7 +324,11 @@ describe('cake wash', () => {
     ).toBeGreaterThan(coarse);
   });
 
-  function filtered(washVol: number, crystalSizeUm?: number) {
+  function filtered(
+    washVol: number,
+    crystalSizeUm?: number,
+    more: { undisplacedFraction?: number; washes?: number } = { undisplacedFraction: 0 },
+  ) {
     return coolingRoute(0, [
       {
         id: 'f',
@@ -311,9 +338,12 @@ describe('cake wash', () => {
           cakeWash: {
             solventId: 'n-heptane',
             volume: { value: washVol, unit: 'vol' },
-            washes: 1,
+            washes: more.washes ?? 1,
             temperatureC: 5,
             ...(crystalSizeUm ? { crystalSizeUm } : {}),
+            ...(more.undisplacedFraction !== undefined
+              ? { undisplacedFraction: more.undisplacedFraction }
+              : {}),
           },
         },
       },
@@ -328,6 +358,24 @@ describe('cake wash', () => {
     expect(liquorIn(three) / liquorIn(one)).toBeCloseTo(0.2 ** 3 / 0.2, 3);
     const washes = three.steps.f.details.washes as Array<{ displacedPct: number }>;
     expect(washes[0].displacedPct).toBeCloseTo(100 * (1 - 0.2 ** 3), 2);
+  });
+  it('many large washes level off: the cake keeps at least φ per wash of the mother liquor', () => {
+    const liquorIn = (r: ReturnType<typeof filtered>) =>
+      r.terminals.find((t) => t.port === 'cake')!.stream.kg['ethyl-acetate'];
+    // Default φ = 0.05 (common practice), with an information note saying it was assumed.
+    const big = filtered(20, 100, { washes: 3 });
+    const huge = filtered(200, 100, { washes: 3 });
+    expect(big.steps.f.warnings.some((w) => w.code === 'wash-floor-assumed')).toBe(true);
+    // 48 and 480 retained volumes per wash leave the same: φ³ of the retained liquor
+    // (0.42 L of ethyl acetate mother liquor at 5 °C, less what the heptane keeps).
+    expect(liquorIn(huge) / liquorIn(big)).toBeCloseTo(1, 6);
+    const unwashed = coolingRoute(0, [{ id: 'f', kind: 'filtration', name: 'f', params: {} }]);
+    const ratio = liquorIn(big) / liquorIn(unwashed);
+    expect(ratio).toBeGreaterThan(0.05 ** 3 * 0.999);
+    expect(ratio).toBeLessThan(0.05 ** 3 * 1.01);
+    // With the floor switched off (φ = 0) the same washes remove essentially everything:
+    // the old, unbounded curve.
+    expect(liquorIn(filtered(20, 100, { washes: 3, undisplacedFraction: 0 }))).toBeLessThan(1e-30);
   });
   it('warns that the crystal size is assumed, and reports the approach to saturation', () => {
     const r = filtered(1);

@@ -521,6 +521,16 @@ function kindFields({ kind, set, err, val, compounds, claim }: Ctx) {
                 ['params', 'cakeWash', 'displacementEfficiency'],
                 { common: true, fallback: 0.8 },
               )}
+              {q(
+                'Liquor a wash cannot displace (fraction)',
+                'fraction',
+                ['params', 'cakeWash', 'undisplacedFraction'],
+                {
+                  common: true,
+                  fallback: 0.05,
+                  hint: 'Liquor in pores, agglomerates and channels: the least each wash leaves.',
+                },
+              )}
               {q('Crystal size (µm)', 'number', ['params', 'cakeWash', 'crystalSizeUm'], {
                 common: true,
                 fallback: 100,
