@@ -8,6 +8,7 @@ import { create } from 'zustand';
 import type { StepKind } from '@shared/schemas/route';
 import {
   checkConnection,
+  keptOutput,
   keyOf,
   setIn,
   type ComponentInput,
@@ -175,25 +176,35 @@ export const useEditorStore = create<EditorState>((set, get) => {
         params,
       } as StepInput;
       let next = withComponents({ ...doc, steps: [...doc.steps, step] }, needs);
-      // Added from the palette with one step selected: the new step takes that step's first free, fitting output.
+      // Added from the palette with one step selected: the new step joins that step's kept output
+      // (the layer a wash keeps, the pot, the cake, ...) in line: whatever that output fed now
+      // comes from the new step's kept output instead.
+      let notice: string | null = null;
       if (source && !position && PORTS[kind].inputs.length) {
-        const input = PORTS[kind].inputs[0].name;
-        for (const out of PORTS[source.kind].outputs) {
-          const from = { stepId: source.id, port: out.name };
-          const to = { stepId: id, port: input };
-          if (checkConnection(next, from, to).ok) {
-            next = {
-              ...next,
-              connections: [
-                ...next.connections,
-                { id: newId('c', new Set(next.connections.map((c) => c.id))), from, to },
-              ],
-            };
-            break;
-          }
+        const from = { stepId: source.id, port: keptOutput(source) };
+        const to = { stepId: id, port: PORTS[kind].inputs[0].name };
+        const onward = next.connections.find(
+          (c) => c.from.stepId === from.stepId && c.from.port === from.port,
+        );
+        const without = onward
+          ? { ...next, connections: next.connections.filter((c) => c !== onward) }
+          : next;
+        const check = checkConnection(without, from, to);
+        const out = { stepId: id, port: keptOutput(step) };
+        const onwardCheck = onward
+          ? checkConnection({ ...without, connections: [] }, out, onward.to)
+          : ({ ok: true } as const);
+        if (!check.ok) notice = `Not joined to ${source.name || source.kind}: ${check.reason}`;
+        else if (!onwardCheck.ok)
+          notice = `Not put in line after ${source.name || source.kind}: ${onwardCheck.reason}`;
+        else {
+          const joined = [{ id: newId('c', new Set(next.connections.map((c) => c.id))), from, to }];
+          if (onward) joined.push({ ...onward, from: out });
+          next = { ...without, connections: [...without.connections, ...joined] };
         }
       }
       commit(next, { selection: { steps: [id], connections: [] } });
+      if (notice) set({ notice });
       return id;
     },
 

@@ -64,7 +64,84 @@ export const portOfHandle = (h: string | null | undefined) =>
 
 export type ConnectCheck = { ok: true } | { ok: false; reason: string };
 
-/** Whether a connection may be drawn: output to input, phases that fit, each input used once, no loops. */
+/** What a chemist calls each step kind in a sentence ("a filtration's cake"). */
+const KIND_NOUN: Record<StepKind, string> = {
+  charge: 'charge',
+  wash: 'wash',
+  extraction: 'extraction',
+  distillation: 'distillation',
+  crystallisation: 'crystallisation',
+  filtration: 'filtration',
+  drying: 'drying',
+  quench: 'quench',
+  'ph-adjust': 'pH adjustment',
+  'carbon-treatment': 'carbon treatment',
+  'polish-filtration': 'polish filtration',
+  split: 'split',
+  merge: 'merge',
+};
+
+/** What each phase of stream is, in words. */
+const PHASE_WORDS: Record<PortPhase, string> = {
+  liquid: 'a solution',
+  organic: 'an organic layer',
+  aqueous: 'an aqueous layer',
+  slurry: 'a slurry or a solution',
+  solid: 'a solid (a cake or a slurry)',
+  vapour: 'a vapour',
+};
+
+/** What a port carries, as a chemist names it. */
+const PORT_WORDS: Record<string, string> = {
+  out: 'output',
+  organic: 'organic layer',
+  aqueous: 'aqueous layer',
+  pot: 'pot contents',
+  distillate: 'distillate',
+  slurry: 'slurry',
+  cake: 'cake',
+  filtrate: 'filtrate',
+  dry: 'dried solid',
+  vapour: 'vapour',
+  spent: 'spent carbon',
+  retained: 'retained solids',
+  feed: 'feed',
+  wet: 'wet cake',
+  a: 'first stream',
+  b: 'second stream',
+  c: 'third stream',
+};
+
+const article = (word: string) => (/^[aeiou]/i.test(word) ? 'an' : 'a');
+const stepWords = (s: StepInput) => `${article(KIND_NOUN[s.kind])} ${KIND_NOUN[s.kind]}`;
+const named = (s: StepInput) => s.name?.trim() || KIND_NOUN[s.kind];
+
+/**
+ * The output a step's product goes on in: the layer a wash or extraction keeps,
+ * a distillation's pot, a crystallisation's slurry, a filtration's cake, the
+ * dried solid, or the treated stream.
+ */
+export function keptOutput(step: StepInput): string {
+  switch (step.kind) {
+    case 'wash':
+    case 'extraction':
+      return (step.params as { keep?: string }).keep ?? 'organic';
+    case 'distillation':
+      return 'pot';
+    case 'crystallisation':
+      return 'slurry';
+    case 'filtration':
+      return 'cake';
+    case 'drying':
+      return 'dry';
+    case 'split':
+      return 'a';
+    default:
+      return 'out';
+  }
+}
+
+/** Whether a connection may be drawn: output to input, phases that fit, each input used once, no loops; if not, why, in the chemist's words. */
 export function checkConnection(
   doc: EditorDoc,
   from: { stepId: string; port: string },
@@ -73,17 +150,38 @@ export function checkConnection(
   if (from.stepId === to.stepId) return { ok: false, reason: 'A step cannot feed itself.' };
   const a = doc.steps.find((s) => s.id === from.stepId);
   const b = doc.steps.find((s) => s.id === to.stepId);
-  if (!a || !b) return { ok: false, reason: 'Unknown step.' };
+  if (!a || !b) return { ok: false, reason: 'That step is no longer on the route.' };
   const out = portPhase(a.kind, 'out', from.port);
   const inn = portPhase(b.kind, 'in', to.port);
   if (!out || !inn)
-    return { ok: false, reason: 'Connect an output (right side) to an input (left side).' };
+    return {
+      ok: false,
+      reason: 'Join an output (right side of a card) to an input (left side of a card).',
+    };
+  const what = PORT_WORDS[from.port] ?? from.port;
   if (!PHASE_ACCEPTS[inn].includes(out))
-    return { ok: false, reason: `The ${to.port} input takes ${inn}, not ${out}.` };
-  if (doc.connections.some((c) => c.to.stepId === to.stepId && c.to.port === to.port))
-    return { ok: false, reason: `${b.name || b.kind} already has a ${to.port} stream.` };
-  if (doc.connections.some((c) => c.from.stepId === from.stepId && c.from.port === from.port))
-    return { ok: false, reason: `The ${from.port} output already goes somewhere.` };
+    return {
+      ok: false,
+      reason: `${capitalise(stepWords(a))}'s ${what} cannot feed ${stepWords(b)}: ${article(KIND_NOUN[b.kind])} ${KIND_NOUN[b.kind]} takes ${PHASE_WORDS[inn]}.`,
+    };
+  const fed = doc.connections.find((c) => c.to.stepId === to.stepId && c.to.port === to.port);
+  if (fed) {
+    const source = doc.steps.find((s) => s.id === fed.from.stepId);
+    return {
+      ok: false,
+      reason: `${named(b)} is already fed${source ? ` by ${named(source)}` : ''}: remove that stream first (select it and press Delete), or choose where the ${PORT_WORDS[to.port] ?? to.port} comes from in ${named(b)}'s settings.`,
+    };
+  }
+  const goes = doc.connections.find(
+    (c) => c.from.stepId === from.stepId && c.from.port === from.port,
+  );
+  if (goes) {
+    const dest = doc.steps.find((s) => s.id === goes.to.stepId);
+    return {
+      ok: false,
+      reason: `${named(a)}'s ${what} already goes to ${dest ? named(dest) : 'another step'}: a stream goes to one step (add a split to divide it).`,
+    };
+  }
   // A loop would make the route impossible to evaluate in order.
   const next = new Map<string, string[]>();
   for (const c of doc.connections)
@@ -92,13 +190,19 @@ export function checkConnection(
   const seen = new Set<string>();
   while (stack.length) {
     const s = stack.pop()!;
-    if (s === from.stepId) return { ok: false, reason: 'That connection would make a loop.' };
+    if (s === from.stepId)
+      return {
+        ok: false,
+        reason: `${named(b)} comes before ${named(a)} on the route: feeding it back would make a loop.`,
+      };
     if (seen.has(s)) continue;
     seen.add(s);
     stack.push(...(next.get(s) ?? []));
   }
   return { ok: true };
 }
+
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /** Immutable set of a value at a path inside an object. */
 export function setIn<T>(obj: T, path: ReadonlyArray<string | number>, value: unknown): T {

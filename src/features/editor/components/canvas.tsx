@@ -9,6 +9,7 @@ import {
   type Connection,
   type EdgeChange,
   type IsValidConnection,
+  type OnConnectEnd,
   type NodeChange,
   type NodeTypes,
   type EdgeTypes,
@@ -214,6 +215,22 @@ export function Canvas() {
       );
   }, []);
 
+  // A drop on an input that does not fit is refused by isValidConnection before onConnect:
+  // say why, in the same words as the step's settings.
+  const onConnectEnd = useCallback<OnConnectEnd>((_, state) => {
+    if (state.isValid !== false || !state.toHandle || !state.fromHandle) return;
+    const [out, inn] =
+      state.fromHandle.type === 'source'
+        ? [state.fromHandle, state.toHandle]
+        : [state.toHandle, state.fromHandle];
+    useEditorStore
+      .getState()
+      .connect(
+        { stepId: out.nodeId, port: portOfHandle(out.id) },
+        { stepId: inn.nodeId, port: portOfHandle(inn.id) },
+      );
+  }, []);
+
   const onDrop = useCallback(
     (e: DragEvent) => {
       const kind = e.dataTransfer.getData(PALETTE_MIME) as StepKind;
@@ -249,6 +266,7 @@ export function Canvas() {
           onNodeDragStart={actions.beginMove}
           onNodeDragStop={actions.endMove}
           onConnect={onConnect}
+          onConnectEnd={onConnectEnd}
           isValidConnection={isValidConnection}
           deleteKeyCode={null}
           // Tab goes from card to card; a connection is made or removed from the keyboard in the

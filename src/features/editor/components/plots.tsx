@@ -50,25 +50,43 @@ function DistillationProfile({ stepId }: { stepId: string }) {
   const option = useMemo(() => {
     if (!profile?.length) return null;
     const swap = profile.some((p) => p.originalSolventWtPct < 99.999);
+    // Axis titles beside their axes and the legend below the plot, so neither sits on the other;
+    // each series has its own mark as well as its colour and dash.
     return {
       ...baseOption,
-      grid: { left: 40, right: swap ? 44 : 12, top: 28, bottom: 34 },
-      legend: { top: 0, right: 0, itemWidth: 18, textStyle: { fontSize: 11, color: PLOT.muted } },
+      grid: { left: 52, right: swap ? 52 : 16, top: 12, bottom: 62 },
+      legend: {
+        bottom: 0,
+        left: 'center',
+        itemWidth: 22,
+        textStyle: { fontSize: 11, color: PLOT.muted },
+      },
       xAxis: {
         type: 'value',
         name: 'Distillate (L)',
         nameLocation: 'middle',
-        nameGap: 22,
+        nameGap: 24,
         ...axisStyle,
         splitLine: { show: false },
       },
       yAxis: [
-        { type: 'value', name: '°C', scale: true, ...axisStyle },
+        {
+          type: 'value',
+          name: 'Pot temperature (°C)',
+          nameLocation: 'middle',
+          nameGap: 36,
+          nameRotate: 90,
+          scale: true,
+          ...axisStyle,
+        },
         ...(swap
           ? [
               {
                 type: 'value',
-                name: 'wt %',
+                name: 'Original solvent left (wt %)',
+                nameLocation: 'middle',
+                nameGap: 34,
+                nameRotate: -90,
                 min: 0,
                 max: 100,
                 ...axisStyle,
@@ -81,7 +99,9 @@ function DistillationProfile({ stepId }: { stepId: string }) {
         {
           name: 'Pot temperature',
           type: 'line',
-          showSymbol: false,
+          symbol: 'circle',
+          symbolSize: 5,
+          showSymbol: true,
           lineStyle: { color: PLOT.accent, width: 2 },
           itemStyle: { color: PLOT.accent },
           data: profile.map((p) => [p.distillateL, p.potTemperatureC]),
@@ -92,7 +112,9 @@ function DistillationProfile({ stepId }: { stepId: string }) {
                 name: 'Original solvent left',
                 type: 'line',
                 yAxisIndex: 1,
-                showSymbol: false,
+                symbol: 'triangle',
+                symbolSize: 6,
+                showSymbol: true,
                 lineStyle: { color: PLOT.organic, width: 2, type: 'dashed' },
                 itemStyle: { color: PLOT.organic },
                 data: profile.map((p) => [p.distillateL, p.originalSolventWtPct]),
@@ -113,6 +135,7 @@ function DistillationProfile({ stepId }: { stepId: string }) {
         option={option}
         label="Pot temperature and original solvent left against distillate volume"
         testId="plot-distillation"
+        height={260}
       />
     </PlotFrame>
   );

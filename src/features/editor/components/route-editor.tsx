@@ -388,7 +388,7 @@ function EditorFrame({
           {notice ? (
             <p
               role="alert"
-              className="absolute top-2 left-1/2 -translate-x-1/2 rounded-control border border-caution-warning/50 bg-caution-warning-soft px-3 py-1 text-small text-caution-warning-deep"
+              className="absolute top-2 left-1/2 max-w-[90%] -translate-x-1/2 rounded-control border border-caution-warning/50 bg-caution-warning-soft px-3 py-1 text-small text-caution-warning-deep"
             >
               {notice}
             </p>
