@@ -45,6 +45,11 @@ export const paths = {
       to: (id: string, routeId: string) =>
         `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}`,
     },
+    optimise: {
+      pattern: '/w/:workspaceId/routes/:routeId/optimise',
+      to: (id: string, routeId: string) =>
+        `/w/${encodeURIComponent(id)}/routes/${encodeURIComponent(routeId)}/optimise`,
+    },
     revisions: {
       pattern: '/w/:workspaceId/routes/:routeId/revisions',
       to: (id: string, routeId: string) =>
@@ -165,5 +170,6 @@ export const api = {
   evaluate: '/api/v1/evaluate',
   monteCarlo: '/api/v1/evaluate/monte-carlo',
   solventAlternatives: '/api/v1/solvent-alternatives',
+  optimise: '/api/v1/optimise',
   job: (jobId: string) => `/api/v1/jobs/${encodeURIComponent(jobId)}`,
 } as const;

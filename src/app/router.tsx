@@ -41,6 +41,10 @@ export function createAppRouter() {
                   lazy: () => import('@/routes/route-editor'),
                 },
                 {
+                  path: paths.workspace.optimise.pattern,
+                  lazy: () => import('@/routes/optimise'),
+                },
+                {
                   path: paths.workspace.revisions.pattern,
                   lazy: () => import('@/routes/revisions'),
                 },

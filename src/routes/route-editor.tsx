@@ -1,10 +1,12 @@
 import { lazy, Suspense } from 'react';
-import { useParams } from 'react-router-dom';
+import { useNavigate, useParams } from 'react-router-dom';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { Loading } from '@/components/spinner';
 import { ErrorState } from '@/components/error-state';
 import { useRoute } from '@/features/routes/api/get-route';
 import { RevisionActions } from '@/features/review';
+import { Button } from '@/components/button';
+import { paths } from '@/paths';
 
 // The canvas, React Flow and the engine worker load only when a route is opened.
 const RouteEditor = lazy(() => import('@/features/editor/components/route-editor'));
@@ -33,16 +35,44 @@ export function Component() {
             workspaceId={workspace.id}
             route={route.data}
             actions={({ canEdit, saveNow }) => (
-              <RevisionActions
-                workspaceId={workspace.id}
-                routeId={route.data.id}
-                canSave={canEdit}
-                saveDraft={saveNow}
-              />
+              <>
+                <OptimiseButton workspaceId={workspace.id} routeId={route.data.id} save={saveNow} />
+                <RevisionActions
+                  workspaceId={workspace.id}
+                  routeId={route.data.id}
+                  canSave={canEdit}
+                  saveDraft={saveNow}
+                />
+              </>
             )}
           />
         </Suspense>
       )}
     </div>
+  );
+}
+
+/** Opens the optimiser on the draft as saved: pending edits are saved first. */
+function OptimiseButton({
+  workspaceId,
+  routeId,
+  save,
+}: {
+  workspaceId: string;
+  routeId: string;
+  save: () => Promise<number | null>;
+}) {
+  const navigate = useNavigate();
+  return (
+    <Button
+      size="sm"
+      variant="secondary"
+      onClick={async () => {
+        await save().catch(() => null);
+        navigate(paths.workspace.optimise.to(workspaceId, routeId));
+      }}
+    >
+      Optimise…
+    </Button>
   );
 }

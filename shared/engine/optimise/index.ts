@@ -1,6 +1,13 @@
 /** The route optimiser: seeded differential evolution over the parameters the chemist frees. */
 export * from './optimise';
-export { paramLabel, readParam, withParams, isIntegerParam } from './route-params';
+export {
+  freeParamChoices,
+  isIntegerParam,
+  paramLabel,
+  readParam,
+  withParams,
+  type FreeParamChoice,
+} from './route-params';
 export {
   minimise,
   startDe,

@@ -109,3 +109,60 @@ export function withParams(
   }
   return copy;
 }
+
+/** One parameter of a route the chemist may free, as the optimiser's form offers it. */
+export interface FreeParamChoice {
+  stepId: string;
+  stepName: string;
+  /** The path inside the step's params, e.g. "addedLiquid.volume". */
+  param: string;
+  /** The chemist's name of the parameter, e.g. "wash volume". */
+  label: string;
+  /** Its value in the document, in `unit`. */
+  value: number;
+  /** The unit the document gives it ("vol", "L", "°C", "mbar", "wt %", "" for counts and pH). */
+  unit: string;
+  integer: boolean;
+}
+
+/** The unit of the number at `path`: a volume's own unit, else what the field's name says. */
+function unitOf(params: unknown, path: string): string {
+  let node: unknown = params;
+  for (const part of path.split('.')) {
+    if (node === null || typeof node !== 'object') return '';
+    node = (node as Record<string, unknown>)[part];
+  }
+  if (node && typeof node === 'object' && typeof (node as { unit?: unknown }).unit === 'string')
+    return (node as { unit: string }).unit;
+  const last = path.split('.').at(-1) ?? '';
+  if (/C$/.test(last)) return '°C';
+  if (/Mbar$/.test(last)) return 'mbar';
+  if (/wtPct$/i.test(last)) return 'wt %';
+  return '';
+}
+
+/**
+ * Every parameter of the document the optimiser is meant for (the table in
+ * docs/route-format.md) that the document gives as a number, in step order.
+ */
+export function freeParamChoices(doc: RouteDocument): FreeParamChoice[] {
+  const out: FreeParamChoice[] = [];
+  for (const step of doc.steps) {
+    const labels = LABELS[step.kind];
+    if (!labels) continue;
+    for (const [param, label] of Object.entries(labels)) {
+      const value = readParam(doc, step.id, param);
+      if (value === null || !Number.isFinite(value)) continue;
+      out.push({
+        stepId: step.id,
+        stepName: step.name || step.id,
+        param,
+        label,
+        value,
+        unit: unitOf(step.params, param),
+        integer: isIntegerParam(param),
+      });
+    }
+  }
+  return out;
+}

@@ -1,10 +1,10 @@
 /**
  * The parts of the charting library the result plots use, and nothing else:
- * line, bar and Sankey charts, the SVG renderer. Loaded on demand (the first
+ * line, bar, scatter and Sankey charts, the SVG renderer. Loaded on demand (the first
  * time a plot shows), never with the first page.
  */
 import * as echarts from 'echarts/core';
-import { BarChart, LineChart, SankeyChart } from 'echarts/charts';
+import { BarChart, LineChart, SankeyChart, ScatterChart } from 'echarts/charts';
 import {
   GridComponent,
   LegendComponent,
@@ -17,6 +17,7 @@ echarts.use([
   LineChart,
   BarChart,
   SankeyChart,
+  ScatterChart,
   GridComponent,
   LegendComponent,
   TooltipComponent,
