@@ -72,7 +72,7 @@ function OptimiseButton({
         navigate(paths.workspace.optimise.to(workspaceId, routeId));
       }}
     >
-      Optimise…
+      Optimise
     </Button>
   );
 }

@@ -18,7 +18,7 @@ describe('optimising the demo route', () => {
     await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
     const originalUrl = page.url();
 
-    await page.getByRole('button', { name: 'Optimise…' }).click();
+    await page.getByRole('button', { name: 'Optimise', exact: true }).click();
     await page.getByRole('heading', { level: 1, name: `Optimise ${DEMO_ROUTE_NAME}` }).waitFor();
 
     // An empty run is refused beside the field, in words, not paths.
@@ -147,6 +147,49 @@ describe('optimising the demo route', () => {
         .map((id) => JSON.stringify(d.draft.document.steps.find((s) => s.id === id)?.params))
         .join();
     expect(washes(copy) + antisolvent(copy)).not.toBe(washes(original) + antisolvent(original));
+    expect(problems).toEqual([]);
+  });
+
+  it('says "No feasible route" with the closest candidate and what it misses, in words', async () => {
+    const { page, problems } = flows.browser;
+    await page.goto(base + '/sign-in');
+    await page.getByLabel('E-mail').fill('chemist@example.com');
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+    await page.getByRole('button', { name: 'Optimise', exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: `Optimise ${DEMO_ROUTE_NAME}` }).waitFor();
+
+    // Keyboard only: choose the antisolvent step and free its volume.
+    const step = page.getByLabel('Step', { exact: true });
+    const value = await step
+      .locator('option')
+      .filter({ hasText: /antisolvent/i })
+      .first()
+      .getAttribute('value');
+    await step.selectOption(value!);
+    await page.getByLabel('Parameter', { exact: true }).selectOption('mode.volume');
+    await page.getByRole('button', { name: 'Free this parameter' }).focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('table', { name: 'Free parameters' }).waitFor();
+    // No route of this one keeps 99.9 % of the product in the solid.
+    await page.getByLabel('Least yield (%)').fill('99.9');
+    await page.getByLabel('Evaluations', { exact: true }).fill('10');
+    await page.getByRole('button', { name: 'Start optimising' }).focus();
+    await page.keyboard.press('Enter');
+
+    const alert = page.getByRole('alert').filter({ hasText: 'No feasible route' });
+    await alert.waitFor({ timeout: 180_000 });
+    expect(await alert.textContent()).toMatch(
+      /Yield \d+(\.\d)? % is below the 99\.9 % asked for\./,
+    );
+    expect(await alert.textContent()).not.toMatch(/constraints\.|minYieldPct/);
+    await page.getByRole('heading', { name: 'Closest candidate' }).waitFor();
+    expect(
+      await page.getByRole('table', { name: 'Chosen parameters' }).locator('tbody tr').count(),
+    ).toBe(1);
+    await page.getByTestId('trade-off-chart').locator('svg').waitFor();
     expect(problems).toEqual([]);
   });
 });

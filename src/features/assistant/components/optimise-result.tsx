@@ -224,7 +224,7 @@ export function OptimiseResultView({
         </Button>
         <p className="text-caption text-ink-muted">
           Saves the {result.feasible ? 'chosen' : 'closest'} candidate as a new route (a draft);
-          this route stays as it is.
+          this route stays as it is. The chosen values are taken to two decimals of their unit.
         </p>
       </div>
     </div>

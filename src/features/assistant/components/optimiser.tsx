@@ -11,6 +11,7 @@ import type { OptimiseJob } from '@shared/schemas/jobs';
 import {
   defaultEvaluations,
   freeParamChoices,
+  withParams,
   type FreeParamChoice,
 } from '@shared/engine/optimise';
 import { isApiError } from '@/api/client';
@@ -221,8 +222,17 @@ export function Optimiser({
     const result = data?.result;
     if (!result || !run) return;
     const name = `${routeName} — optimised for ${OBJECTIVE_SHORT[result.objective]}`.slice(0, 200);
+    // Nobody charges 3.344396 vol: the copy takes the chosen values to two decimals.
+    const rounded = withParams(
+      result.best.document,
+      run.request.free.map((f) => ({
+        stepId: f.stepId,
+        param: f.param,
+        value: Number((result.best.params[`${f.stepId}.${f.param}`] ?? f.min).toFixed(2)),
+      })),
+    );
     copy.mutate(
-      { name, projectName, document: result.best.document },
+      { name, projectName, document: rounded },
       { onSuccess: (route) => navigate(paths.workspace.route.to(workspaceId, route.id)) },
     );
   };
