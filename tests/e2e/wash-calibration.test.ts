@@ -52,14 +52,19 @@ describe('a distribution ratio from the levels before and after a wash', () => {
     };
 
     // Before: at the acid wash, every peak assigned by hand.
-    const before = await upload(/^Wash: 1 M HCl wash/, 'Before base wash', BEFORE);
+    // Names of this flow's own: other test files may leave samples on the demo route's washes.
+    const before = await upload(/^Wash: 1 M HCl wash/, 'Calibration, before base wash', BEFORE);
     await assign(before, 1, 'Des-chloro amide (invented)');
     await assign(before, 2, 'PW-417 amide (invented)');
     await assign(before, 3, 'PW-417 acid (invented)');
     await before.getByRole('button', { name: 'Close' }).click();
 
     // After: at the base wash; the peaks are assigned by their retention times.
-    const after = await upload(/^Wash: 8 % NaHCO3 wash/, 'After base wash', DEMO_PEAKS);
+    const after = await upload(
+      /^Wash: 8 % NaHCO3 wash/,
+      'Calibration, after base wash',
+      DEMO_PEAKS,
+    );
     await expect
       .poll(() =>
         after
@@ -72,12 +77,23 @@ describe('a distribution ratio from the levels before and after a wash', () => {
 
     const samples = page.getByRole('region', { name: /IPC samples/ });
     await samples.getByText('Distribution ratio from this wash').click();
-    // The first choice of each list (after the prompt) is the sample uploaded first.
-    await samples.getByLabel('Before the wash').selectOption({ index: 1 });
-    await samples.getByLabel('After the wash').selectOption({ index: 1 });
+    // Each list offers every assigned sample of the steps concerned; choose this flow's by name.
+    const choose = async (list: string, name: string) => {
+      const select = samples.getByLabel(list);
+      const options = await select
+        .locator('option')
+        .evaluateAll((all) =>
+          all.map((o) => ({ value: (o as HTMLOptionElement).value, text: o.textContent ?? '' })),
+        );
+      const option = options.find((o) => o.text.startsWith(name));
+      expect(option, `${list}: ${name}`).toBeDefined();
+      await select.selectOption(option!.value);
+    };
+    await choose('Before the wash', 'Calibration, before base wash');
+    await choose('After the wash', 'Calibration, after base wash');
     await expect(
       samples.getByLabel('Before the wash').locator('option:checked').textContent(),
-    ).resolves.toMatch(/^Before base wash/);
+    ).resolves.toMatch(/^Calibration, before base wash/);
     await samples.getByLabel('Compound').selectOption({ label: 'PW-417 acid (invented)' });
     const d = Number(await samples.locator('[data-d]').textContent());
     // A fifth of the acid stays (ratio to the product): D = (f/(1 − f))·(V_aq/V_org) with f ≈ 0.2.
