@@ -87,7 +87,10 @@ export default async function setup(project: TestProject) {
   project.provide('databaseOwnerUrl', databaseOwnerUrl);
 
   return async () => {
-    await adminQuery(`DROP DATABASE IF EXISTS ${databaseName} WITH (FORCE)`);
+    // With several projects in one run, the project that started the cluster may have stopped it
+    // already; the throwaway cluster then took this database with it.
+    if (await answers('127.0.0.1', port))
+      await adminQuery(`DROP DATABASE IF EXISTS ${databaseName} WITH (FORCE)`);
     if (startedCluster) clusterScript(`pg_down "$(pg_cluster_dir pg-test)"`);
   };
 }
