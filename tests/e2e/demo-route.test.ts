@@ -2,27 +2,31 @@ import { describe, expect, it } from 'vitest';
 import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
 import { useBrowserFlows } from './browser';
+import { demoRouteCopy } from './demo-copy';
 
 const flows = await useBrowserFlows({ profile: 'per-flow', lastShot: 'demo-route-last' });
 const { base } = flows;
 
 const number = (text: string | null) => Number(/-?[\d.]+/.exec(text ?? '')?.[0] ?? NaN);
 
-async function openDemoRoute() {
+/** Opens the demo route, or a copy of it by name for a flow that changes it. */
+async function openDemoRoute(name = DEMO_ROUTE_NAME) {
   const { page } = flows.browser;
   await page.goto(base + '/sign-in');
   await page.getByLabel('E-mail').fill('chemist@example.com');
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
-  await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+  await page.getByRole('link', { name, exact: true }).click();
+  await page.getByRole('heading', { level: 1, name }).waitFor();
   await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
 }
 
 describe('the demo route', () => {
   it('opens for the demo chemist; the antisolvent volume moves yield and purity; a wash is added; a reload keeps everything', async () => {
     const { page, shot } = flows.browser;
-    await openDemoRoute();
+    // Its own copy: this flow changes the route, which other files read as seeded.
+    const route = await demoRouteCopy('edited');
+    await openDemoRoute(route);
     const yieldTotal = page.locator('[data-total="yield"]');
     const purityTotal = page.locator('[data-total="purity"]');
     const yieldBefore = number(await yieldTotal.textContent());
@@ -83,7 +87,7 @@ describe('the demo route', () => {
     // The draft saves by itself; a reload brings back both changes.
     await page.locator('[data-save-state="saved"]').waitFor();
     await page.reload();
-    await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+    await page.getByRole('heading', { level: 1, name: route }).waitFor();
     await expect.poll(() => page.getByRole('article').count()).toBe(cards + 1);
     await page.getByRole('article', { name: addedName }).waitFor();
     await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
 import { useBrowserFlows } from './browser';
+import { demoRouteCopy } from './demo-copy';
 
 const flows = await useBrowserFlows({ profile: 'per-file', lastShot: 'readability-last' });
 
@@ -35,15 +35,29 @@ function measure() {
   });
 }
 
+/** Every card within the canvas's width, and the first row on screen at its top. */
+function expectRowsInCanvas(drawn: Awaited<ReturnType<typeof measure>>) {
+  const { pane, cards } = drawn;
+  for (const card of cards) {
+    expect(card.x).toBeGreaterThanOrEqual(pane.x);
+    expect(card.x + card.width).toBeLessThanOrEqual(pane.x + pane.width);
+  }
+  const top = Math.min(...cards.map((c) => c.y));
+  expect(top).toBeGreaterThanOrEqual(pane.y);
+  expect(top).toBeLessThan(pane.y + pane.height);
+}
+
 describe('the route editor at 1280×800', () => {
   it('draws the demo route readably: cards at 11 px or more, the mini-map beside the canvas, Tidy layout in rows, focus visible and Tab from step to step', async () => {
     const { page, shot } = flows.browser;
+    // Its own copy of the demo route: Tidy layout and the steps added below change it.
+    const route = await demoRouteCopy('readability');
     await page.goto(flows.base + '/sign-in');
     await page.getByLabel('E-mail').fill('chemist@example.com');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
-    await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+    await page.getByRole('link', { name: route, exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: route }).waitFor();
     await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
     await page.getByRole('article', { name: /^Charge:/ }).waitFor();
 
@@ -70,13 +84,7 @@ describe('the route editor at 1280×800', () => {
     tidy.cards.forEach((a, i) =>
       tidy.cards.slice(i + 1).forEach((b) => expect(overlaps(a, b)).toBe(false)),
     );
-    // The first row is on screen, inside the canvas.
-    const top = Math.min(...tidy.cards.map((c) => c.y));
-    for (const card of tidy.cards.filter((c) => c.y === top)) {
-      expect(card.x).toBeGreaterThanOrEqual(tidy.pane.x);
-      expect(card.x + card.width).toBeLessThanOrEqual(tidy.pane.x + tidy.pane.width);
-      expect(card.y).toBeGreaterThanOrEqual(tidy.pane.y);
-    }
+    expectRowsInCanvas(tidy);
     await shot('readability-02-tidy-layout');
     await page.getByRole('button', { name: 'Undo' }).click();
 
@@ -114,6 +122,27 @@ describe('the route editor at 1280×800', () => {
     expect(streams.length).toBeGreaterThan(0);
     for (const s of streams) expect(s).toMatch(/^Stream from .+ \(\w+\) to .+ \(\w+\)$/);
     expect(streams.join(' ')).toContain('1 M HCl wash');
+
+    // A longer route still tidies into rows that fit the canvas's width, its start on screen.
+    await page.keyboard.press('Escape');
+    await page
+      .getByRole('article', { name: /^Wash: 20 % brine wash/ })
+      .locator('header')
+      .click();
+    const before = await page.locator('.react-flow__node').count();
+    for (let i = 0; i < 4; i++) await page.getByRole('button', { name: 'Add Wash' }).click();
+    await expect.poll(() => page.locator('.react-flow__node').count()).toBe(before + 4);
+    await page.getByRole('button', { name: 'Tidy layout' }).click();
+    await expect
+      .poll(async () => {
+        const { cards, pane } = await measure();
+        return cards.every((c) => c.x >= pane.x && c.x + c.width <= pane.x + pane.width);
+      })
+      .toBe(true);
+    const longer = await measure();
+    expect(longer.zoom).toBeGreaterThanOrEqual(0.92);
+    expectRowsInCanvas(longer);
+    await shot('readability-05-tidy-longer-route');
     expect(flows.browser.problems).toEqual([]);
   });
 });

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
 import { DEMO_PEAKS, gaussianCsv, type GaussianPeak } from '../support/chromatograms';
 import { useBrowserFlows } from './browser';
+import { demoRouteCopy } from './demo-copy';
 
 const flows = await useBrowserFlows({ profile: 'per-flow', lastShot: 'wash-calibration-last' });
 const { base } = flows;
@@ -13,12 +13,14 @@ const BEFORE: GaussianPeak[] = [DEMO_PEAKS[0], DEMO_PEAKS[1], { ...DEMO_PEAKS[2]
 describe('a distribution ratio from the levels before and after a wash', () => {
   it('back-calculates D of the acid across the base wash and keeps it as measured data of the route', async () => {
     const { page, shot, problems } = flows.browser;
+    // Its own copy: the measured D is saved into the route, which other files read as seeded.
+    const route = await demoRouteCopy('wash calibration');
     await page.goto(base + '/sign-in');
     await page.getByLabel('E-mail').fill('chemist@example.com');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
-    await page.getByRole('heading', { level: 1, name: DEMO_ROUTE_NAME }).waitFor();
+    await page.getByRole('link', { name: route, exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: route }).waitFor();
     await page.locator('[data-total="yield"]').filter({ hasText: /\d/ }).waitFor();
     await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
 

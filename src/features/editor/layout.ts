@@ -10,6 +10,8 @@ export const READABLE_ZOOM = 0.92;
 const CARD = { width: 240, height: 200 };
 const GAP_X = 70;
 const GAP_Y = 24;
+/** The share of the canvas a tidied route may fill, leaving a margin at its edges. */
+export const FIT_MARGIN = 0.96;
 
 type Size = { width: number; height: number };
 
@@ -48,15 +50,20 @@ export function tidyLayout(
   );
   const pane = opts.pane ?? { width: 800, height: 600 };
 
-  // The number of ranks per row that lets the whole route be drawn largest.
-  let best = { cols: ranks.length, zoom: 0 };
-  for (let cols = 1; cols <= ranks.length; cols++) {
+  // The number of ranks per row that lets the whole route be drawn largest, among those whose
+  // rows fit the canvas's width at a readable zoom: a long route then runs on in further rows
+  // (the canvas scrolls down, like a page) instead of shrinking its cards below readable.
+  const rowWidth = (cols: number) => cols * colWidth + (cols - 1) * GAP_X;
+  let widest = 1;
+  while (widest < ranks.length && rowWidth(widest + 1) * READABLE_ZOOM <= pane.width * FIT_MARGIN)
+    widest++;
+  let best = { cols: 1, zoom: 0 };
+  for (let cols = 1; cols <= widest; cols++) {
     const rows = Math.ceil(ranks.length / cols);
-    const width = cols * colWidth + (cols - 1) * GAP_X;
     let height = (rows - 1) * GAP_Y;
     for (let r = 0; r < rows; r++)
       height += Math.max(...rankHeight.slice(r * cols, (r + 1) * cols));
-    const zoom = Math.min(pane.width / width, pane.height / height);
+    const zoom = Math.min(pane.width / rowWidth(cols), pane.height / height);
     if (zoom > best.zoom + 1e-9) best = { cols, zoom };
   }
 
