@@ -6,6 +6,7 @@ import {
   solventById,
   type SolventRecord,
 } from '@shared/engine/data';
+import { guideCategoryOf, SOLVENT_GUIDE_SOURCE } from '@shared/engine/data/solvent-guide';
 import { notFound } from '../errors';
 import { presentSource, subgroupRows } from './components';
 
@@ -32,8 +33,10 @@ function sources(s: SolventRecord): Record<string, ValueSource> {
     ich: presentSource(s.ich.source),
     peroxideFormer: presentSource(s.peroxideFormer.source),
     lowConductivity: presentSource(s.lowConductivity.source),
-    guideCategory: presentSource(s.guideCategory.source),
   };
+  // The guide category is read from the guide's table (solvent-guide.ts), never
+  // recalled; a solvent the table does not list has no category and no source.
+  if (guideCategoryOf(s.id)) out.guideCategory = presentSource(SOLVENT_GUIDE_SOURCE);
   if (s.enthalpyVapKJmol) out.enthalpyVapKJmol = presentSource(s.enthalpyVapKJmol.source);
   if (s.molarVolumeCm3mol) out.molarVolumeCm3mol = presentSource(s.molarVolumeCm3mol.source);
   if (s.waterMutualSolubility)
@@ -60,7 +63,7 @@ export function presentSolventSummary(s: SolventRecord): SolventSummary {
     viscosityMPas25C: s.viscosityMPas25C.value,
     peroxideFormer: s.peroxideFormer.value,
     lowConductivity: s.lowConductivity.value,
-    guideCategory: s.guideCategory.value,
+    guideCategory: guideCategoryOf(s.id),
     waterMiscibility: s.waterMiscibility,
     unifac: subgroupRows(s.unifac.value),
     sources: sources(s),

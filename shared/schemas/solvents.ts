@@ -63,7 +63,8 @@ export const solventSummarySchema = z.object({
   viscosityMPas25C: z.number(),
   peroxideFormer: z.boolean(),
   lowConductivity: z.boolean(),
-  guideCategory: z.enum(GUIDE_CATEGORIES),
+  /** CHEM21 guide category (ranking after discussion), read from the guide's table; null where the guide does not list the solvent. */
+  guideCategory: z.enum(GUIDE_CATEGORIES).nullable(),
   waterMiscibility: z.enum(['miscible', 'partial']),
   unifac: z.array(unifacGroupRowSchema),
   sources: z.record(text(), valueSourceSchema),

@@ -36,7 +36,7 @@ describe('which solvent could replace the swap solvent', () => {
     const firstText = (await first.textContent()) ?? '';
     expect(firstText).toMatch(/ICH class \d|No ICH Q3C class/);
     expect(firstText).toMatch(
-      /Guide: (Recommended|Problematic|Hazardous|Highly hazardous|not in the guide's table)/,
+      /Guide: (Recommended|Problematic|Hazardous|Highly hazardous|not in the guide)/,
     );
     expect(firstText).toMatch(/PMI \d/);
     await first.getByText(/^Cautions/).click();

@@ -168,10 +168,6 @@ export const SOURCES = {
     citation:
       'The Merck Index, monograph "Methyl tert-Butyl Ether" (solubility 4.8 g/100 g water; dissolves 1.5 g water/100 g; d20/4 0.7404), read as reproduced on a public page that is not a publication (edition not identified)',
   },
-  'chem21-guide-2016': {
-    citation:
-      'D. Prat, A. Wells, J. Hayler, H. Sneddon, C. R. McElroy, S. Abou-Shehada, P. J. Dunn, "CHEM21 selection guide of classical- and less classical-solvents", Green Chem. 2016, 18, 288–296 (doi:10.1039/C5GC01008J; author list, pages and doi recalled)',
-  },
 
   'chem21-guide-2016-table': {
     citation:

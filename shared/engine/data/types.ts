@@ -162,7 +162,6 @@ export interface SolventRecord {
   peroxideFormer: Sourced<boolean>;
   /** Low electrical conductivity: a static accumulator (shared/engine/data/hazards.ts). */
   lowConductivity: Sourced<boolean>;
-  guideCategory: Sourced<GuideCategory>;
   /** Dielectric constant, used by some estimates; optional. */
   dielectricConstant?: Sourced<number>;
 }

@@ -6,8 +6,8 @@
 import { describe, expect, it } from 'vitest';
 import type { RouteTotals } from '@shared/engine/route/evaluate';
 import { evaluateRoute, parseRoute } from '@shared/engine/route/evaluate';
-import { solventById } from '@shared/engine/data';
-import { guideCategoryOf, SOLVENT_GUIDE } from '@shared/engine/data/solvent-guide';
+import { SOLVENTS, solventById } from '@shared/engine/data';
+import { guideCategoryOf, NOT_IN_GUIDE, SOLVENT_GUIDE } from '@shared/engine/data/solvent-guide';
 import {
   candidateSolventIds,
   heteroazeotropeWithWater,
@@ -124,11 +124,35 @@ describe('facts beside a substitute', () => {
     });
   });
 
-  it('gives a guide category only for rows read from the guide’s table', () => {
-    for (const s of ['water', '2-propanol', 'n-heptane'])
-      expect(guideCategoryOf(s)).toBe(SOLVENT_GUIDE[s]?.category ?? null);
+  it('gives every library solvent its category as read from the guide’s table, or none where the table has no row', () => {
+    // Every library solvent is either a row of the table or listed as not in it: a new solvent
+    // cannot get a category without its row being read.
+    for (const s of SOLVENTS) {
+      const inGuide = Object.hasOwn(SOLVENT_GUIDE, s.id);
+      const notInGuide = Object.hasOwn(NOT_IN_GUIDE, s.id);
+      expect(inGuide !== notInGuide, s.id).toBe(true);
+      expect(guideCategoryOf(s.id), s.id).toBe(inGuide ? SOLVENT_GUIDE[s.id].category : null);
+    }
+    for (const id of [...Object.keys(SOLVENT_GUIDE), ...Object.keys(NOT_IN_GUIDE)])
+      expect(solventById(id), id).toBeDefined();
     expect(guideCategoryOf('no-such-solvent')).toBeNull();
-    for (const id of Object.keys(SOLVENT_GUIDE)) expect(solventById(id)).toBeDefined();
+    // Rows of the CHEM21 table (Prat et al., Green Chem. 2016, 18, 288, classical solvents,
+    // "ranking after discussion"), read through the AI4Green CHEM21_full.csv reproduction:
+    // the column the advisor shows, not the default ranking, where the two differ.
+    expect(SOLVENT_GUIDE.methanol).toMatchObject({
+      category: 'recommended',
+      defaultCategory: 'problematic',
+    });
+    expect(SOLVENT_GUIDE.pyridine).toMatchObject({
+      category: 'hazardous',
+      defaultCategory: 'recommended',
+    });
+    expect(SOLVENT_GUIDE['diethyl-ether'].category).toBe('highly-hazardous');
+    expect(SOLVENT_GUIDE['1-4-dioxane'].category).toBe('hazardous');
+    expect(SOLVENT_GUIDE['n-heptane'].category).toBe('problematic');
+    expect(SOLVENT_GUIDE['2-propanol'].row).toBe('Isopropyl alcohol');
+    // The table lists mixed xylenes only; o-xylene is not given that row's category.
+    expect(guideCategoryOf('o-xylene')).toBeNull();
   });
 
   it('finds the toluene–water heteroazeotrope and none for a miscible solvent', () => {

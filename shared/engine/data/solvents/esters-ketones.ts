@@ -69,7 +69,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -3.5169, B = -2089.32, C = -364.82 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–463 K), 3 significant figures; Perry 2-313 gives 0.430; stored value was 0.423 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: 'isopropyl-acetate',
@@ -111,7 +110,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(0.5, VISCOSITY),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: 'n-butyl-acetate',
@@ -159,7 +157,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.7722, B = -431.58, C = 29.726 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.677',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: 'acetone',
@@ -215,13 +212,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.4195, B = -214.96, C = 58.71 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 183–333 K), 3 significant figures; Perry 2-313 gives 0.307; V&N 3-term set 0.306; stored value was 0.306 (recalled)',
       ),
     ),
-    guideCategory: sv(
-      'problematic',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'recommended or problematic?'; cautious category stored",
-      ),
-    ),
   },
   {
     id: '2-butanone',
@@ -270,13 +260,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
       read(
         'perry-8e-2-313-viscosity',
         'computed at 298.15 K from C1…C5 = -1.0598, 520.68, -1.4961, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 186.48–535.5 K), 3 significant figures; no V&N set in the files read; stored value was 0.405 (recalled)',
-      ),
-    ),
-    guideCategory: sv(
-      'problematic',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'recommended or problematic?'; cautious category stored",
       ),
     ),
   },
@@ -339,13 +322,6 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
       read(
         'perry-8e-2-313-viscosity',
         'computed at 298.15 K from C1…C5 = -11.394, 1168.7, -0.007539, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 189.15–389.15 K), 3 significant figures; no V&N set in the files read; stored value was 0.545 (recalled)',
-      ),
-    ),
-    guideCategory: sv(
-      'problematic',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'recommended or problematic?'; cautious category stored",
       ),
     ),
   },

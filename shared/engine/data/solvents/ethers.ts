@@ -65,13 +65,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
         'the two tables read disagree by 4 % (Dutt–Prasad set 0.475, Perry 2-313 0.456); kept as recalled',
       ),
     ),
-    guideCategory: sv(
-      'hazardous',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'problematic or hazardous?'; cautious category stored",
-      ),
-    ),
   },
   {
     id: '2-methyltetrahydrofuran',
@@ -115,7 +108,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(0.46, VISCOSITY),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
     id: 'mtbe',
@@ -173,13 +165,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from C1…C5 = -6.921, 790.773, -0.654, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 164.55–450 K), 3 significant figures; no V&N set in the files read; stored value was 0.34 (recalled)',
       ),
     ),
-    guideCategory: sv(
-      'hazardous',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'problematic or hazardous?'; cautious category stored",
-      ),
-    ),
   },
   {
     id: 'cpme',
@@ -207,7 +192,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(0.55, VISCOSITY),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
     id: 'diethyl-ether',
@@ -258,7 +242,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -4.4735, B = -3623.26, C = -648.55 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–373 K), 3 significant figures; Perry 2-313 gives 0.225; stored value was 0.224 (recalled)',
       ),
     ),
-    guideCategory: sv('highly-hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'diisopropyl-ether',
@@ -306,7 +289,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from C1…C5 = -11.5, 993, 0.022, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 187.65–341.45 K), 3 significant figures; no V&N set in the files read; stored value was 0.379 (recalled)',
       ),
     ),
-    guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: '1-4-dioxane',
@@ -350,7 +332,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.4827, B = -302.77, C = 103.4 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 288–348 K), 3 significant figures; Perry 2-313 gives 1.19; stored value was 1.177 (recalled)',
       ),
     ),
-    guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'dme',
@@ -388,7 +369,6 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
     unifac: sv({ 2: 2, 24: 2 }, ASSIGNED),
     waterMiscibility: 'miscible',
     viscosityMPas25C: sv(0.455, VISCOSITY),
-    guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'anisole',
@@ -439,6 +419,5 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from C1…C5 = -15.407, 1518.7, 0.60172, 0, 0 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 235.65–426.73 K), 3 significant figures; no V&N set in the files read; stored value was 0.98 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
 ];

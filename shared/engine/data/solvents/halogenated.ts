@@ -72,13 +72,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.4815, B = -302.66, C = 22.64 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–310 K), 3 significant figures; Perry 2-313 gives 0.413; stored value was 0.413 (recalled)',
       ),
     ),
-    guideCategory: sv(
-      'hazardous',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'problematic or hazardous?'; cautious category stored",
-      ),
-    ),
   },
   {
     id: 'chloroform',
@@ -129,7 +122,6 @@ export const HALOGENATED_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.3917, B = -288.76, C = 39.69 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–333 K), 3 significant figures; Perry 2-313 gives 0.539; V&N 3-term set 0.537; stored value was 0.537 (recalled)',
       ),
     ),
-    guideCategory: sv('highly-hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'chlorobenzene',
@@ -180,6 +172,5 @@ export const HALOGENATED_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.5481, B = -390.95, C = 24.03 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–393 K), 3 significant figures; Perry 2-313 gives 0.755; stored value was 0.753 (recalled)',
       ),
     ),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
 ];

@@ -66,7 +66,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.5365, B = -277.33, C = 51.64 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 183–373 K), 3 significant figures; Perry 2-313 gives 0.388; stored value was 0.387 (recalled)',
       ),
     ),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
     id: 'n-hexane',
@@ -126,7 +125,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.804, B = -401.73, C = -16.29 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 213–343 K), 3 significant figures; Perry 2-313 gives 0.293; stored value was 0.3 (recalled)',
       ),
     ),
-    guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'cyclohexane',
@@ -171,13 +169,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
       read(
         'vn-dutt-prasad-viscosity',
         'computed at 298.15 K from A = -1.969, B = -501.37, C = 37.2 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 278–353 K), 3 significant figures; Perry 2-313 gives 0.893; stored value was 0.894 (recalled)',
-      ),
-    ),
-    guideCategory: sv(
-      'hazardous',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'problematic or hazardous?'; cautious category stored",
       ),
     ),
   },
@@ -227,7 +218,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.5348, B = -319.07, C = 64.712 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.683',
       ),
     ),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
     id: 'toluene',
@@ -290,7 +280,6 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.7712, B = -433.71, C = 12.03 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 253–383 K), 3 significant figures; Perry 2-313 gives 0.554; stored value was 0.56 (recalled)',
       ),
     ),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
     id: 'o-xylene',
@@ -341,6 +330,5 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.735, B = -445.93, C = 22.25 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–413 K), 3 significant figures; Perry 2-313 gives 0.758; stored value was 0.76 (recalled)',
       ),
     ),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
 ];

@@ -50,7 +50,6 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
         'the tables read disagree (Perry 2-313 0.342, V&N 3-term set 0.485); kept as recalled',
       ),
     ),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
     id: 'dmf',
@@ -100,7 +99,6 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -0.6419, B = -56.54, C = 193.62 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–323 K), 3 significant figures; Perry 2-313 gives 0.815; V&N 3-term set 0.794; stored value was 0.794 (recalled)',
       ),
     ),
-    guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'dmac',
@@ -143,7 +141,6 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
         'the only table read (V&N 3-term set) gives 1.96, twice this value; not used — kept as recalled, verify',
       ),
     ),
-    guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'nmp',
@@ -167,7 +164,6 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
     unifac: sv({ 85: 1 }, read('unifac-groups', 'whole-molecule subgroup of the original table')),
     waterMiscibility: 'miscible',
     viscosityMPas25C: sv(1.67, VISCOSITY),
-    guideCategory: sv('hazardous', recalled('chem21-guide-2016')),
   },
   {
     id: 'dmso',
@@ -216,7 +212,6 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.3585, B = -323.95, C = 102.62 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 290–400 K), 3 significant figures; Perry 2-313 gives 1.98; stored value was 1.987 (recalled)',
       ),
     ),
-    guideCategory: sv('problematic', recalled('chem21-guide-2016')),
   },
   {
     id: 'acetic-acid',
@@ -279,13 +274,6 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.4999, B = -353.33, C = 69.11 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 283–383 K), 3 significant figures; Perry 2-313 gives 1.12; stored value was 1.056 (recalled)',
       ),
     ),
-    guideCategory: sv(
-      'problematic',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'recommended or problematic?'; cautious category stored",
-      ),
-    ),
   },
   {
     id: 'pyridine',
@@ -331,13 +319,6 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
       recalled(
         'crc-viscosity-liquids',
         'the two V&N sets disagree by 3 % (Dutt–Prasad 0.852, 3-term 0.879); kept as recalled',
-      ),
-    ),
-    guideCategory: sv(
-      'hazardous',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'problematic or hazardous?'; cautious category stored",
       ),
     ),
   },

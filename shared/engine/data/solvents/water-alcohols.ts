@@ -53,7 +53,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -1.5318, B = -220.57, C = 149.39 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; Perry 2-313 gives 0.913; stored value was 0.89 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: 'methanol',
@@ -115,13 +114,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -2.2968, B = -675.41, C = -33.89 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–333 K), 3 significant figures; Perry 2-313 gives 0.538; V&N 3-term set 0.544; stored value was 0.544 (recalled)',
       ),
     ),
-    guideCategory: sv(
-      'problematic',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21 ranking after discussion: 'recommended or problematic?'; the more cautious category is stored",
-      ),
-    ),
   },
   {
     id: 'ethanol',
@@ -177,7 +169,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -2.8857, B = -1032.53, C = -55.95 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–348 K), 3 significant figures; Perry 2-313 gives 1.08; stored value was 1.074 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: '1-propanol',
@@ -221,7 +212,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -2.73, B = -854.52, C = 14.96 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 248–348 K), 3 significant figures; Perry 2-313 gives 1.95; stored value was 1.945 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: '2-propanol',
@@ -277,7 +267,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -3.9124, B = -1399.28, C = -32.76 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–348 K), 3 significant figures; Perry 2-313 gives 2.05; V&N 3-term set 2.04; stored value was 2.038 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: '1-butanol',
@@ -337,7 +326,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -2.9918, B = -1026.78, C = -4.25 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 273–393 K), 3 significant figures; Perry 2-313 gives 2.55; stored value was 2.544 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: '2-butanol',
@@ -388,7 +376,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -2.2749, B = -452.89, C = 134.4 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 280–370 K), 3 significant figures; Perry 2-313 gives 3.07; stored value was 3 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016')),
   },
   {
     id: 'isobutanol',
@@ -436,7 +423,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
         'computed at 298.15 K from A = -3.1025, B = -946.92, C = 37.007 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–380 K), 3 significant figures; no second table read; stored value was 3.33 (recalled)',
       ),
     ),
-    guideCategory: sv('recommended', recalled('chem21-guide-2016', 'recalled; verify')),
   },
   {
     id: 'tert-butanol',
@@ -481,13 +467,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
       recalled(
         'crc-viscosity-liquids',
         'Perry 2-313 gives 4.61 and the V&N 3-term set 4.31 (fitted 300–360 K, 25 °C just below); kept as recalled',
-      ),
-    ),
-    guideCategory: sv(
-      'problematic',
-      recalled(
-        'chem21-guide-2016',
-        "CHEM21: 'recommended or problematic?'; cautious category stored",
       ),
     ),
   },
@@ -541,13 +520,6 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
       read(
         'perry-8e-2-313-viscosity',
         'computed at 298.15 K from C1…C5 = -19.907, 2791.7, 0.94296, 2.3041e24, -10.09 (μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K, fitted 280–468.35 K), 3 significant figures; no V&N set in the files read; stored value was 7.288 (recalled)',
-      ),
-    ),
-    guideCategory: sv(
-      'recommended',
-      derived(
-        'chem21-guide-2016',
-        'not ranked in the CHEM21 tables as far as the authors recall; assigned by analogy with 1-butanol — verify',
       ),
     ),
   },

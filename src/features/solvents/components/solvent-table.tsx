@@ -28,7 +28,10 @@ export const solventColumns: SortColumns<SolventSummary> = [
     accessorFn: (s) =>
       s.ich.class === null ? undefined : s.ich.class * 1e7 + (s.ich.limitPpm ?? 0),
   },
-  { id: 'guideCategory', accessorFn: (s) => GUIDE_ORDER[s.guideCategory] },
+  {
+    id: 'guideCategory',
+    accessorFn: (s) => (s.guideCategory === null ? undefined : GUIDE_ORDER[s.guideCategory]),
+  },
 ];
 
 export function SolventTable({
@@ -156,6 +159,8 @@ const GUIDE_TONE = {
 } as const;
 
 export function GuideChip({ category }: { category: SolventSummary['guideCategory'] }) {
+  if (category === null)
+    return <span className="text-caption text-ink-muted">not in the guide</span>;
   return (
     <span
       className={cn(
