@@ -201,8 +201,7 @@ function AlternativesList({
               {a.ich.class === null
                 ? 'No ICH Q3C class'
                 : `ICH class ${a.ich.class}${a.ich.limitPpm !== null ? `, ${a.ich.limitPpm} ppm` : ''}`}
-              {' · '}Guide:{' '}
-              {a.guideCategory ? GUIDE_LABELS[a.guideCategory] : 'not in the guide'}
+              {' · '}Guide: {a.guideCategory ? GUIDE_LABELS[a.guideCategory] : 'not in the guide'}
               {' · '}bp {fmt(a.boilingPointC, 0)} °C · flash point{' '}
               {a.flashPointC === null ? 'none given' : `${fmt(a.flashPointC, 0)} °C`}
               {' · '}
