@@ -51,6 +51,29 @@ import {
   type OilingOutTest,
 } from '../properties/solubility';
 
+/**
+ * Most of a compound without any solubility evidence that a liquor is assumed
+ * to hold, per kg of its solvents [kg/kg]: 1, i.e. up to 50 wt % (this
+ * project's own bound, stated in the step's warning; a liquor richer than
+ * that is a paste, not a solution).
+ */
+export const NO_DATA_MAX_KG_PER_KG_SOLVENT = 1;
+
+/**
+ * Mass of the solvents (library solvent components) in a mixture, Σ m_j.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any stream the route produces.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @param kg   mass of each component [kg]
+ * @returns the solvents' mass [kg]
+ */
+export function liquorSolventKg(ctx: EvalContext, kg: Record<string, number>): number {
+  let total = 0;
+  for (const id of ctx.ids)
+    if (ctx.comps.get(id)!.kind === 'solvent' && kg[id] > 0) total += kg[id];
+  return total;
+}
+
 export interface Precipitation {
   solidKg: Record<string, number>;
   saturationKg: Record<string, number | null>;
@@ -61,7 +84,11 @@ export interface Precipitation {
  * point): each compound dissolves up to its saturation capacity c_sat(T) in
  * the liquor's solvents and the excess is solid, m_solid = max(0, m − c_sat);
  * an aqueous solute dissolves in the water up to its saturation wt %,
- * c_sat = m_water · w/(100 − w), and is insoluble in organic solvents.
+ * c_sat = m_water · w/(100 − w), and is insoluble in organic solvents. A
+ * compound without solubility evidence in any solvent of the liquor is
+ * assumed dissolved up to NO_DATA_MAX_KG_PER_KG_SOLVENT times the solvents'
+ * mass (so it comes out smoothly as the liquor goes to dryness); its
+ * saturation is reported as null and the step warns.
  *
  * Source: solubility-model.ts solubilityIn (van 't Hoff fits, UNIFAC or
  * Schröder–van Laar ideal solubility, Jouyban–Acree blends); saturation wt %
@@ -106,7 +133,11 @@ export function precipitate(
     }
     const s = solubilityIn(ctx, id, kg, T_K, warnings, methods);
     if (!s) {
+      // No evidence in any solvent of the liquor: assumed dissolved, but a liquor cannot hold more
+      // than NO_DATA_MAX_KG_PER_KG_SOLVENT of it, so the answer goes smoothly to "all solid" as
+      // the liquor goes to nothing (an evaporation near dryness) instead of jumping there.
       saturationKg[id] = null;
+      solidKg[id] = Math.max(0, kg[id] - NO_DATA_MAX_KG_PER_KG_SOLVENT * liquorSolventKg(ctx, kg));
       continue;
     }
     saturationKg[id] = s.capacityKg;
@@ -451,7 +482,9 @@ export function crystallisation(
         W,
         'warning',
         'no-solubility-data',
-        `${c.name}: no solubility data; assumed to stay dissolved.`,
+        end.solidKg[id] > 0
+          ? `${c.name}: no solubility data; assumed to stay dissolved up to its own mass of the liquor's solvents (50 wt %), so ${((100 * end.solidKg[id]) / mix[id]).toFixed(1)} % of it comes out as solid at this little liquor. Enter a measured solubility to replace the assumption.`
+          : `${c.name}: no solubility data; assumed to stay dissolved. Enter a measured solubility to replace the assumption.`,
       );
     }
   }

@@ -325,10 +325,13 @@ export function distilLeg(
       'target-below-solids',
       'The volatile solvents ran out before the target volume: the pot is at dryness (the non-volatile contents exceed the target volume).',
     );
+  // The pot takes the integrator's moles left (exactly 0 at dryness) rather than the charge less the
+  // moles distilled: the difference of two nearly equal numbers leaves a dust of solvent (1e-19 kg)
+  // that later steps would read as a liquor (a "dry" pot in which everything stays dissolved).
   vol.forEach((id, i) => {
-    const removed = Math.min(st.pot[id], r.distilled[i] * M[i]);
-    st.pot[id] -= removed;
-    st.distillate[id] += removed;
+    const left = Math.min(st.pot[id], Math.max(0, r.moles[i] * M[i]));
+    st.distillate[id] += st.pot[id] - left;
+    st.pot[id] = left;
   });
   const base = st.distillateM3;
   const fedBase = st.newSolventAddedM3 - (feed?.m3 ?? 0);
