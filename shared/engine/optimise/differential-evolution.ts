@@ -91,7 +91,20 @@ function clampRound(v: number, b: Bound): number {
   return b.integer ? Math.min(b.max, Math.max(b.min, Math.round(x))) : x;
 }
 
-/** a better than (or as good as) b by Deb's rules. */
+/**
+ * Whether score a is better than or as good as score b by Deb's feasibility
+ * rules: both feasible (violation 0) → a.objective ≤ b.objective; only a
+ * feasible → true; only b feasible → false; both infeasible →
+ * a.violation ≤ b.violation.
+ *
+ * Source: Deb, Comput. Methods Appl. Mech. Eng. 186 (2000) 311–338 (the
+ * tournament rules, used here as the selection of differential evolution).
+ * Validity: any finite scores; objective and violation in the caller's units
+ * (the route optimiser: the objective's unit, violation dimensionless ≥ 0).
+ * @param a  the challenger (objective [objective's unit], violation [–], 0 = feasible)
+ * @param b  the incumbent (objective [objective's unit], violation [–], 0 = feasible)
+ * @returns true when a is not worse than b
+ */
 export function notWorse(a: Score, b: Score): boolean {
   if (a.violation === 0 && b.violation === 0) return a.objective <= b.objective;
   if (a.violation === 0) return true;
@@ -99,6 +112,28 @@ export function notWorse(a: Score, b: Score): boolean {
   return a.violation <= b.violation;
 }
 
+/**
+ * Starts a differential-evolution run: the initial population is the given
+ * points (clamped to the bounds, integers rounded) and the rest by Latin
+ * hypercube sampling, each parameter's range [min, max] cut into N equal
+ * strata with one point uniformly in each, strata shuffled per parameter.
+ * Population size N = max(8, min(30, 6·d)) for d free parameters unless given.
+ *
+ * Source: Storn & Price, J. Global Optim. 11 (1997) 341 (the method and the
+ * defaults F = 0.6, CR = 0.9 within their recommended ranges); Latin
+ * hypercube: McKay, Beckman & Conover, Technometrics 21 (1979) 239.
+ * Validity: finite bounds with min ≤ max (RangeError otherwise), at least one
+ * parameter; any seed (the same seed gives the same run).
+ * @param options.bounds      range of each parameter [parameter's own unit], integer flag
+ * @param options.seed        seed of the generator [–]
+ * @param options.budget      evaluations allowed in all, the initial population included [–]
+ * @param options.populationSize  population size N [–]
+ * @param options.weight      differential weight F [–] (default 0.6)
+ * @param options.crossover   crossover rate CR [–] (default 0.9)
+ * @param options.strategy    mutation scheme ('current-to-best/1' by default)
+ * @param options.initial     points to evaluate first [parameters' own units]
+ * @returns the state, with the initial population pending evaluation
+ */
 export function startDe(options: DeOptions): DeState {
   const n = options.bounds.length;
   if (n === 0) throw new RangeError('at least one free parameter is needed');
@@ -141,18 +176,50 @@ export function startDe(options: DeOptions): DeState {
   };
 }
 
-/** True when the budget is spent. */
+/**
+ * True when the evaluation budget is spent (evaluations ≥ budget).
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any state startDe or deTell returned.
+ * @param state  the run's state
+ * @returns whether the run is finished
+ */
 export function deFinished(state: DeState): boolean {
   return state.evaluations >= state.budget;
 }
 
-/** The next point to evaluate, or null when the budget is spent. */
+/**
+ * The next point to evaluate (the ask half of ask/tell), or null when the
+ * budget is spent.
+ * Source: this project's own bookkeeping (no external source); the points are
+ * drawn by startDe and the generation step (Storn & Price 1997).
+ * Validity: any state startDe or deTell returned.
+ * @param state  the run's state
+ * @returns the parameter vector [parameters' own units] or null
+ */
 export function deAsk(state: DeState): number[] | null {
   if (deFinished(state)) return null;
   return state.pending[state.told.length].x;
 }
 
-/** Records the score of the point deAsk gave; returns the new state (the input is not modified). */
+/**
+ * Records the score of the point deAsk gave (the tell half); when the
+ * generation is complete, selection (a trial replaces its member when
+ * notWorse) and the next generation's trials: DE/current-to-best/1
+ * v = x_i + F(x_best − x_i) + F(x_r1 − x_r2) or DE/rand/1
+ * v = x_r1 + F(x_r2 − x_r3), binomial crossover at rate CR with one
+ * coordinate always from the mutant, a coordinate past a bound set to the
+ * midpoint of the base and that bound, integers rounded. The input state is
+ * not modified.
+ *
+ * Source: Storn & Price, J. Global Optim. 11 (1997) 341; current-to-best:
+ * Price, Storn & Lampinen, Differential Evolution, Springer 2005; integers:
+ * Lampinen & Zelinka, MENDEL 1999; selection: Deb 2000.
+ * Validity: a score for the point deAsk last gave; finite objective and
+ * violation ≥ 0.
+ * @param state  the run's state
+ * @param score  objective [objective's unit] and total violation [–] of the point
+ * @returns the new state
+ */
 export function deTell(state: DeState, score: Score): DeState {
   const s: DeState = { ...state, told: [...state.told, score], evaluations: state.evaluations + 1 };
   if (s.told.length < s.pending.length && !deFinished(s)) return s;
@@ -214,7 +281,14 @@ function trials(state: DeState): DeState['pending'] {
   return out;
 }
 
-/** Index of the best member of the population by Deb's rules, or -1 before any is scored. */
+/**
+ * Index of the best member of the population by Deb's rules (strictly better
+ * replaces; the first of equals is kept), or -1 before any is scored.
+ * Source: Deb, Comput. Methods Appl. Mech. Eng. 186 (2000) 311–338.
+ * Validity: any state startDe or deTell returned.
+ * @param state  the run's state
+ * @returns the index [–] or -1
+ */
 export function deBest(state: DeState): number {
   let best = -1;
   state.scores.forEach((s, i) => {
@@ -227,7 +301,18 @@ function lessThan(a: Score, b: Score): boolean {
   return notWorse(a, b) && !notWorse(b, a);
 }
 
-/** Minimise f over the bounds in one call (for tests and small problems). */
+/**
+ * Minimises f over the bounds in one call (startDe, then deAsk/deTell until
+ * the budget is spent), for tests and small problems.
+ * Source: Storn & Price, J. Global Optim. 11 (1997) 341, with Deb's (2000)
+ * constraint rules; checked on the sphere, Rosenbrock and Deb's constrained
+ * problem in tests/unit/optimise/differential-evolution.test.ts.
+ * Validity: as startDe; a stochastic search: the answer is the best point
+ * seen within the budget, not a proven optimum.
+ * @param f        the objective: objective [its own unit] and total constraint violation [–] of a point
+ * @param options  as startDe (bounds [parameters' own units], seed [–], budget [–], F [–], CR [–])
+ * @returns the best point [parameters' own units], its score and the evaluations used [–]
+ */
 export function minimise(
   f: (x: number[]) => Score,
   options: DeOptions,

@@ -116,6 +116,15 @@ const FAILED_VIOLATION = 1e9;
 /** Nothing isolated: worse than any candidate that isolates the product. */
 const NOTHING_ISOLATED_VIOLATION = 1e6;
 
+/**
+ * Evaluations a run gets when the request names no budget: 50 + 50 per free
+ * parameter, at most MAX_EVALUATIONS (2000).
+ * Source: this project's own choice (common practice for differential
+ * evolution is 10–100 evaluations per dimension; Storn & Price 1997).
+ * Validity: 1 or more free parameters.
+ * @param freeCount  number of free parameters [–]
+ * @returns the evaluation budget [–]
+ */
 export function defaultEvaluations(freeCount: number): number {
   return Math.min(MAX_EVALUATIONS, 50 + 50 * freeCount);
 }
@@ -124,6 +133,10 @@ export function defaultEvaluations(freeCount: number): number {
  * Checks the request against the document: every free parameter addresses a
  * number of an existing step, its bounds lie inside the field's range, the
  * named impurities exist, and the route has a product. Returns every problem.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any request the optimisation schema accepts.
+ * @param request  the route document, free parameters (bounds in the document's unit of each field), objective, constraints, seed
+ * @returns every problem, each with its field and the chemist's words (empty when the request is sound)
  */
 export function checkOptimiseRequest(request: OptimiseRequest): OptimiseIssue[] {
   const issues: OptimiseIssue[] = [];
@@ -201,7 +214,16 @@ interface Setup {
   names: Map<string, string>;
 }
 
-/** Builds what every evaluation of this request shares (the engine's caches, the ICH limits). */
+/**
+ * Builds what every evaluation of this request shares: the parsed document,
+ * the engine's caches, the ICH Q3C limit of each residual solvent and the
+ * components' names.
+ * Source: this project's own bookkeeping (no external source); ICH Q3C
+ * limits from the solvent library (docs/data-sources.md).
+ * Validity: a request checkOptimiseRequest accepts.
+ * @param input  the optimisation request
+ * @returns the shared setup
+ */
 export function setUpOptimise(input: OptimiseRequest): Setup {
   const request = { ...input, document: parseRoute(input.document) };
   const { ctx } = buildContext(request.document);
@@ -269,7 +291,21 @@ const fmt = (v: number, digits = 2) =>
     .toFixed(digits)
     .replace(/\.?0+$/, '');
 
-/** The objective and the total constraint violation (sum of shortfalls, each relative to its bound). */
+/**
+ * The objective and the total constraint violation of one candidate:
+ * violation = Σ shortfall/bound over the constraints, each shortfall
+ * relative to its bound so constraints of different units add
+ * (purity: (p_min − p)/(100 − p_min); impurity: (L − L_max)/L_max; yield:
+ * (y_min − y)/y_min; residual solvent: (ppm − limit)/limit; volume:
+ * (V − V_max)/V_max); 0 = feasible. A candidate that isolates nothing scores
+ * worse than any that does.
+ * Source: relative constraint violation summed for Deb's feasibility rules
+ * (Deb, Comput. Methods Appl. Mech. Eng. 186 (2000) 311–338).
+ * Validity: totals of a route the engine evaluated.
+ * @param setup   the request, the ICH limits [ppm] and the components' names
+ * @param totals  the candidate's figures (PMI [kg/kg], solvent [L/kg], cycle time [h], yield [%], purity [%], impurities [%], residual solvents [ppm], peak volume [L])
+ * @returns the score (objective [its unit], violation [–]) and the unmet constraints in the chemist's words
+ */
 export function scoreTotals(
   setup: Pick<Setup, 'request' | 'ichLimitPpm' | 'names'>,
   totals: CandidateTotals,
@@ -365,6 +401,15 @@ export interface OptimiseState {
   uncertainty: UncertaintySamples | null;
 }
 
+/**
+ * Starts a run: the current route's values (clamped into the bounds) first in
+ * the initial population, the budget from the request or defaultEvaluations.
+ * Source: differential evolution (Storn & Price, J. Global Optim. 11 (1997)
+ * 341) via startDe.
+ * Validity: a request checkOptimiseRequest accepts.
+ * @param request  the optimisation request (bounds in the document's unit of each field)
+ * @returns the serialisable state of the run
+ */
 export function startOptimise(request: OptimiseRequest): OptimiseState {
   const evaluations = Math.min(
     MAX_EVALUATIONS,
@@ -391,7 +436,14 @@ export function startOptimise(request: OptimiseRequest): OptimiseState {
   };
 }
 
-/** The share of the work done, 0..1 (the spread at the chosen point counts as the last tenth). */
+/**
+ * The share of the work done, 0.9 × evaluations/budget + 0.1 × draws done of
+ * the spread at the chosen point, 1 when done.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any state of a run.
+ * @param state  the run's state
+ * @returns the fraction done [–], 0..1
+ */
 export function optimiseProgress(state: OptimiseState): number {
   if (state.phase === 'done') return 1;
   const search = state.de.evaluations / state.de.budget;
@@ -399,7 +451,19 @@ export function optimiseProgress(state: OptimiseState): number {
   return Math.min(1, 0.9 * search + 0.1 * mc);
 }
 
-/** Runs up to `chunk` further evaluations; returns the new state (the input is not modified). */
+/**
+ * Runs up to `chunk` further evaluations (the current route, the search,
+ * then the Monte Carlo draws at the chosen point over the document's ±
+ * ranges); returns the new state (the input is not modified).
+ * Source: differential evolution with Deb's rules (./differential-evolution.ts);
+ * Monte Carlo percentiles as route/monte-carlo.ts.
+ * Validity: the setup and state of the same request; the result does not
+ * depend on the chunk size.
+ * @param setup  the shared setup of the request
+ * @param input  the run's state
+ * @param chunk  evaluations to run at most [–] (at least 1)
+ * @returns the new state
+ */
 export function runOptimiseChunk(setup: Setup, input: OptimiseState, chunk: number): OptimiseState {
   const state: OptimiseState = { ...input, evaluated: [...input.evaluated] };
   let left = Math.max(1, Math.floor(chunk));
@@ -502,6 +566,19 @@ function paramsOf(request: OptimiseRequest, x: number[]): Record<string, number>
   return Object.fromEntries(request.free.map((f, i) => [`${f.stepId}.${f.param}`, x[i]]));
 }
 
+/**
+ * The result of a finished run: the best candidate by Deb's rules with its
+ * document, figures, unmet constraints and spread (p5/p50/p95), the current
+ * route's figures, every distinct candidate and a message in the chemist's
+ * words ("No feasible route …" when none meets every constraint). Throws
+ * when no candidate could be evaluated.
+ * Source: this project's own bookkeeping (no external source); percentiles
+ * as route/monte-carlo.ts.
+ * Validity: a state whose phase is done.
+ * @param setup  the shared setup of the request
+ * @param state  the finished run's state
+ * @returns the optimisation result
+ */
 export function summariseOptimise(setup: Setup, state: OptimiseState): OptimiseResult {
   const { request } = setup;
   const best = state.evaluated[state.best];
@@ -566,7 +643,17 @@ export function summariseOptimise(setup: Setup, state: OptimiseState): OptimiseR
   };
 }
 
-/** Runs a whole optimisation at once (tests, benchmarks), with an optional progress callback. */
+/**
+ * Runs a whole optimisation at once (tests, benchmarks): setUpOptimise,
+ * startOptimise, runOptimiseChunk in chunks of 25, summariseOptimise.
+ * Source: seeded differential evolution with Deb's feasibility rules
+ * (Storn & Price 1997; Deb 2000), see the module comment.
+ * Validity: a request checkOptimiseRequest accepts; a model result within
+ * the budget, not a proven optimum.
+ * @param request     the optimisation request (bounds in the document's unit of each field)
+ * @param onProgress  called with the fraction done [–] after each chunk
+ * @returns the optimisation result
+ */
 export function optimiseRoute(
   request: OptimiseRequest,
   onProgress?: (fraction: number) => void,

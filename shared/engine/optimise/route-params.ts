@@ -48,12 +48,29 @@ const LABELS: Partial<Record<RouteStep['kind'], Record<string, string>>> = {
   drying: { temperatureC: 'drying temperature', pressureMbar: 'drying pressure' },
 };
 
-/** "the wash volume of step “Acid wash”" — how a message names a free parameter. */
+/**
+ * How a message names a free parameter in the chemist's words, e.g. "the wash
+ * volume of step “Acid wash”" (the step's name, else its id; a path without
+ * a label is named as it is written).
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts.
+ * @param step  the step (kind, name, id)
+ * @param path  the parameter's path inside the step's params, e.g. "addedLiquid.volume"
+ * @returns the phrase
+ */
 export function paramLabel(step: Pick<RouteStep, 'kind' | 'name' | 'id'>, path: string): string {
   const label = LABELS[step.kind]?.[path] ?? `parameter “${path}”`;
   return `the ${label} of step “${step.name || step.id}”`;
 }
 
+/**
+ * Whether a parameter only takes whole numbers (stages, put-and-take cycles,
+ * cake washes), by the last field of its path.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts.
+ * @param path  the parameter's path inside the step's params
+ * @returns true for a count
+ */
 export function isIntegerParam(path: string): boolean {
   return INTEGER_FIELDS.has(path.split('.').at(-1) ?? '');
 }
@@ -87,7 +104,17 @@ function locate(params: unknown, path: string): { holder: Holder; key: string } 
   }
 }
 
-/** The current value of a step's parameter, or null when the path does not address a number. */
+/**
+ * The current value of a step's parameter in the document's own unit (a
+ * volume's value in its unit, the central value of a ± range), or null when
+ * the path does not address a number.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts.
+ * @param doc     the route document
+ * @param stepId  the step's id
+ * @param path    the parameter's path inside the step's params
+ * @returns the value [the document's unit for that field: vol, L, °C, mbar, wt %, or a count] or null
+ */
 export function readParam(doc: RouteDocument, stepId: string, path: string): number | null {
   const step = doc.steps.find((s) => s.id === stepId);
   if (!step) return null;
@@ -95,7 +122,17 @@ export function readParam(doc: RouteDocument, stepId: string, path: string): num
   return at ? ((at.holder as Record<string, number>)[at.key] ?? null) : null;
 }
 
-/** A copy of the document with the given parameters set; the original is not modified. */
+/**
+ * A copy of the document with the given parameters set (each value in the
+ * document's own unit for that field; a ± range keeps its width); the
+ * original is not modified. Throws RangeError for a path that addresses no
+ * number.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts.
+ * @param doc     the route document
+ * @param values  step id, parameter path and new value [the document's unit for that field] of each parameter
+ * @returns the changed copy
+ */
 export function withParams(
   doc: RouteDocument,
   values: ReadonlyArray<{ stepId: string; param: string; value: number }>,
@@ -143,7 +180,12 @@ function unitOf(params: unknown, path: string): string {
 
 /**
  * Every parameter of the document the optimiser is meant for (the table in
- * docs/route-format.md) that the document gives as a number, in step order.
+ * docs/route-format.md) that the document gives as a number, in step order,
+ * with its label, current value and unit.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts.
+ * @param doc  the route document
+ * @returns the choices (value in `unit`: vol, L, °C, mbar, wt %, or "" for counts and pH)
  */
 export function freeParamChoices(doc: RouteDocument): FreeParamChoice[] {
   const out: FreeParamChoice[] = [];

@@ -71,7 +71,18 @@ export interface AlternativesOptions {
 
 const diff = (a: number | null, b: number | null) => (a === null || b === null ? null : a - b);
 
-/** Whether a substitute's totals keep the yield and the solvent-free purity of the current route. */
+/**
+ * Whether a substitute's totals keep the yield and the solvent-free purity of
+ * the current route: y ≥ y₀ − YIELD_WINDOW_POINTS (2 percentage points) and
+ * p ≥ p₀ − PURITY_TOLERANCE_POINTS (round-off only); false when either route
+ * isolates nothing.
+ * Source: this project's own rule (the window is common practice for a
+ * screening comparison, not a published criterion).
+ * Validity: totals of routes the engine evaluated with the same reference input.
+ * @param current    totals of the current route (yield [%], solvent-free purity [%])
+ * @param candidate  totals with the substitute (yield [%], solvent-free purity [%])
+ * @returns true when both are kept
+ */
 export function keepsYieldAndPurity(current: RouteTotals, candidate: RouteTotals): boolean {
   const { yieldPct: y0, solventFreePurityPct: p0 } = current;
   const { yieldPct: y, solventFreePurityPct: p } = candidate;
@@ -83,6 +94,12 @@ export function keepsYieldAndPurity(current: RouteTotals, candidate: RouteTotals
  * The advisor's order: substitutes that keep the yield and purity by PMI,
  * then the other evaluated ones by PMI, then those not evaluated; PMI ties
  * and missing PMI by solvent id.
+ * Source: PMI after the ACS GCI Pharmaceutical Roundtable (kg of all input
+ * per kg of product, as docs/methods.md); the order is this project's own.
+ * Validity: totals of routes the engine evaluated with the same reference input.
+ * @param current     totals of the current route (yield [%], purity [%], PMI [kg/kg])
+ * @param candidates  the substitutes with their totals (null when not evaluated)
+ * @returns the candidates in the advisor's order (a new array)
  */
 export function rankAlternatives<T extends { solventId: string; totals: RouteTotals | null }>(
   current: RouteTotals,
@@ -102,6 +119,11 @@ export function rankAlternatives<T extends { solventId: string; totals: RouteTot
  * The library solvents the advisor tries in a role: every solvent but the
  * current one; for an extraction, only solvents that form a second liquid
  * phase with water (not water, not fully miscible ones: common practice).
+ * Source: the solvent library's water miscibility (docs/data-sources.md).
+ * Validity: any role and library solvent id.
+ * @param role              which of the step's solvents is replaced
+ * @param currentSolventId  library id of the solvent in that role now
+ * @returns the library ids to try
  */
 export function candidateSolventIds(role: SubstitutionRole, currentSolventId: string): string[] {
   return SOLVENTS.filter(
@@ -145,11 +167,23 @@ function spread(doc: RouteDocument, draws: number, seed: number): SubstituteUnce
 }
 
 /**
- * Rank the library's alternatives to the solvent of one step's role.
+ * Rank the library's alternatives to the solvent of one step's role: each
+ * candidate put in that role (substituteSolvent), the whole route evaluated
+ * again by the engine, ranked by rankAlternatives, with the solvent's facts
+ * and, for the first `top`, the Monte Carlo spread over the document's ±
+ * ranges.
+ * Source: the route engine (docs/methods.md) for every figure; ICH Q3C class
+ * and limit, guide category and hazards from the solvent library
+ * (docs/data-sources.md); Monte Carlo percentiles as route/monte-carlo.ts.
+ * Validity: as the route engine for each substitute; volumes, temperatures
+ * and every other step are unchanged (nothing is re-optimised for the new
+ * solvent), so a substitute that needs other conditions ranks low.
  *
  * @param doc     a schema-valid route document
  * @param stepId  the step whose solvent is replaced
  * @param role    which of the step's solvents
+ * @param options.uncertainty  spread for the first `top` suggestions [–], `draws` draws each [–], seeded by `seed` [–]
+ * @returns the current solvent's totals and the ranked alternatives
  * @throws SubstitutionError (unknown step, role the step does not have); the
  *         engine's RouteValidationError / EngineError when the current route
  *         itself cannot be evaluated

@@ -38,8 +38,18 @@ const ATMOSPHERE_PA = 101_325;
  * Whether a solvent forms a heteroazeotrope with water at 1 atm: the
  * heterogeneous bubble point (thermo/vle.ts heterogeneousBubblePoint, UNIFAC
  * with the pair regressed to the library's mutual solubility) of a feed in
- * the middle of the miscibility gap boils with two liquids present.
+ * the middle of the miscibility gap, z_S = ½(x_S,aq + 1 − x_W,org), boils
+ * with two liquids present; then its temperature is the heteroazeotrope's.
  * Miscible solvents: forms false. Null when the model cannot say.
+ * Source: heterogeneous bubble point (Michelsen, Fluid Phase Equilib. 1982,
+ * 9, 1 for the split; modified Raoult with the library's Antoine constants);
+ * mutual solubilities from the solvent library (docs/data-sources.md).
+ * Validity: 1 atm (101.325 kPa); as thermo/vle.ts and the regressed liquid
+ * model (the reference checks in tests/reference/thermo/heteroazeotropes.test.ts
+ * state the accuracy against handbook tables).
+ * @param solvent  the library solvent
+ * @param water    the library's water record
+ * @returns forms and the boiling point [°C], or null
  */
 export function heteroazeotropeWithWater(
   solvent: SolventRecord,
@@ -60,7 +70,18 @@ export function heteroazeotropeWithWater(
   }
 }
 
-/** The cautions of a library solvent, from its hazard and ICH Q3C records. */
+/**
+ * The cautions of a library solvent, from its hazard and ICH Q3C records:
+ * flash point, peroxide former, static accumulator, ICH Q3C class 1, class 2
+ * with its limit, Table 4.
+ * Source: the solvent library's flash point, peroxide-former and
+ * low-conductivity flags and ICH Q3C class and limit, each with its source in
+ * docs/data-sources.md; the handling advice is common practice (defer to the
+ * site's process-safety review).
+ * Validity: any library solvent.
+ * @param s  the library solvent
+ * @returns the cautions in the chemist's words
+ */
 export function solventCautions(s: SolventRecord): string[] {
   const out: string[] = [];
   const fp = s.flashPointC;
@@ -88,7 +109,16 @@ export function solventCautions(s: SolventRecord): string[] {
   return out;
 }
 
-/** The facts shown beside a substitute. */
+/**
+ * The facts shown beside a substitute: ICH Q3C class and limit [ppm], guide
+ * category, boiling and flash points [°C], water miscibility, heteroazeotrope
+ * with water and the cautions (the model-result caution first).
+ * Source: the solvent library (docs/data-sources.md); the solvent guide's
+ * table (data/solvent-guide.ts); heteroazeotropeWithWater.
+ * Validity: any library solvent id (throws for an id not in the library).
+ * @param solventId  library id of the solvent
+ * @returns the facts
+ */
 export function solventFacts(solventId: string): SolventFacts {
   const s = solventById(solventId);
   const water = solventById('water');

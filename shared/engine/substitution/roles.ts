@@ -211,6 +211,12 @@ function located(doc: RouteDocument, stepId: string, role: SubstitutionRole): Lo
 
 /**
  * The solvent a step holds in a role.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts.
+ * @param doc     the route document
+ * @param stepId  the step's id
+ * @param role    which of the step's solvents
+ * @returns the route component id and the library solvent id
  *
  * @throws SubstitutionError naming the step when it has no such solvent
  * Example: the demo route's "swap" in role swap-target → { componentId: '2-propanol', solventId: '2-propanol' }.
@@ -226,9 +232,17 @@ export function roleSolvent(
 
 /**
  * A copy of the route with the solvent of one step's role replaced by a
- * library solvent; nothing else changes. The substitute is added as a
- * solvent component with the library id as its id (or the existing
- * component of that library solvent is reused).
+ * library solvent; nothing else changes (volumes stay in their units). The
+ * substitute is added as a solvent component with the library id as its id
+ * (or the existing component of that library solvent is reused).
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route document the schema accepts; throws SubstitutionError
+ * for a step or role the route does not have.
+ * @param doc        the route document (not modified)
+ * @param stepId     the step's id
+ * @param role       which of the step's solvents
+ * @param solventId  library id of the substitute
+ * @returns the changed copy
  */
 export function substituteSolvent(
   doc: RouteDocument,

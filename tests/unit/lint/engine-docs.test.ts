@@ -15,8 +15,8 @@
  * The formula goes in the description (or "Formula:"), or the function says
  * where it is ("see the module comment").
  *
- * Covered: every engine folder except those in NOT_YET_COVERED (optimise and
- * substitution, whose owners bring them up), and the top-level engine modules
+ * Covered: every engine folder (NOT_YET_COVERED is empty: the optimiser and
+ * the substitution advisor were the last brought up), and the top-level engine modules
  * (units, random, document, text, ...), so a new undocumented function there
  * fails; a new folder is covered from its first file. Exported arrow functions
  * and function expressions count as functions (their JSDoc is on the `export const`).
@@ -32,10 +32,11 @@ import ts from 'typescript';
 
 const ENGINE = fileURLToPath(new URL('../../../shared/engine/', import.meta.url));
 /**
- * Engine folders not yet brought up to the standard. Every other folder is
- * covered, so a new folder is covered from its first file.
+ * Engine folders not yet brought up to the standard: none. Every folder is
+ * covered, so a new folder is covered from its first file; a folder listed
+ * here must exist (the test below).
  */
-const NOT_YET_COVERED = ['optimise', 'substitution'];
+const NOT_YET_COVERED: string[] = [];
 const COVERED = readdirSync(ENGINE, { withFileTypes: true })
   .filter((e) => e.isDirectory() && !NOT_YET_COVERED.includes(e.name))
   .map((e) => e.name);
