@@ -27,6 +27,7 @@ import {
   distributionRatio,
   hansenDistance,
   idealSolubility,
+  saturatedPhasesWithWater,
   type DistributionInput,
 } from '@shared/engine/properties';
 import {
@@ -51,10 +52,6 @@ import {
   unprocessable,
   type ResolvedSmiles,
 } from './components';
-
-const WATER_GROUPS = { 16: 1 };
-const WATER_MOLAR_MASS = 18.015;
-const WATER_DENSITY = 0.99705;
 
 const fallbackOf = (s: SolventRecord) => solventVapourPressureData(s).extra;
 
@@ -194,16 +191,6 @@ export function calcAzeotrope(input: AzeotropeRequest): AzeotropeReply {
   };
 }
 
-/** Mole fractions [solvent, water] of a phase holding `waterWtPct` water. */
-function phaseOf(solvent: SolventRecord, waterWtPct: number) {
-  const nW = waterWtPct / WATER_MOLAR_MASS;
-  const nS = (100 - waterWtPct) / solvent.molarMassGmol.value;
-  const xW = nW / (nW + nS);
-  const vS = (solvent.molarMassGmol.value / solvent.density.value.gPerMl) * 1e-6;
-  const vW = (WATER_MOLAR_MASS / WATER_DENSITY) * 1e-6;
-  return { moleFractions: [1 - xW, xW], molarVolumeM3mol: (1 - xW) * vS + xW * vW };
-}
-
 function findSalt(name: string) {
   const key = name.trim().toLowerCase();
   return (
@@ -256,28 +243,14 @@ export function calcPartition(input: z.output<typeof partitionRequestSchema>): P
       `Setschenow coefficient ${record.setschenowKs.value} L/mol for ${record.name} is a typical value for neutral organics, not specific to this solute.`,
     );
   }
-  const mutual = solvent.waterMutualSolubility?.value;
-  if (!mutual)
-    warnings.push(
-      `No curated mutual solubility of ${solvent.name} with water: the phases are taken as pure for the activity estimate.`,
-    );
-  const organicPhase = phaseOf(solvent, mutual?.waterInSolventWtPct ?? 0);
-  const aqueousPhaseRaw = phaseOf(solvent, 100 - (mutual?.solventInWaterWtPct ?? 0));
+  // The mutually saturated phases from the library's mutual solubility (the engine's one builder).
+  const phases = saturatedPhasesWithWater(solvent);
+  warnings.push(...phases.warnings);
   const result = mapEngineErrors(() =>
     distributionRatio({
       solute: { logP: input.solute.logP, pKa: input.solute.pKa, unifac: soluteGroups },
-      organic: {
-        solventId: solvent.id,
-        groups: [solvent.unifac.value, WATER_GROUPS],
-        ...organicPhase,
-      },
-      aqueous: {
-        pH: input.aqueous.pH,
-        salt,
-        groups: [WATER_GROUPS, solvent.unifac.value],
-        moleFractions: [aqueousPhaseRaw.moleFractions[1], aqueousPhaseRaw.moleFractions[0]],
-        molarVolumeM3mol: aqueousPhaseRaw.molarVolumeM3mol,
-      },
+      organic: { solventId: solvent.id, ...phases.organic },
+      aqueous: { pH: input.aqueous.pH, salt, ...phases.aqueous },
       T_K: celsiusToKelvin(input.temperatureC),
     }),
   );

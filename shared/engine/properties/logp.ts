@@ -33,8 +33,12 @@ export const X_OCTANOL_IN_ORGANIC = 0.742;
 /** Mole fraction of octanol in the water-rich phase at 298 K (IUPAC–NIST SDS recommended). */
 export const X_OCTANOL_IN_AQUEOUS = 7.5e-5;
 
+/** Molar mass of water [g/mol] (2 × 1.008 + 15.999, IUPAC standard atomic weights). */
+export const WATER_MOLAR_MASS_GMOL = 18.015;
+/** Density of water at 25 °C [g/mL] (0.99705; IAPWS, value from memory). */
+export const WATER_DENSITY_25C_GML = 0.99705;
 /** Molar volume of water at 25 °C [m³/mol] (18.015 g/mol, 0.99705 g/mL; density from memory). */
-export const V_WATER_M3MOL = (18.015 / 0.99705) * 1e-6;
+export const V_WATER_M3MOL = (WATER_MOLAR_MASS_GMOL / WATER_DENSITY_25C_GML) * 1e-6;
 /** Molar volume of 1-octanol at 20 °C [m³/mol] (130.23 g/mol, 0.8262 g/mL; density from memory). */
 export const V_OCTANOL_M3MOL = (130.23 / 0.8262) * 1e-6;
 

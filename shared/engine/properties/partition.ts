@@ -15,9 +15,9 @@
  *    Res. 1991, 30, 2352 (doi:10.1021/ie00058a017).
  */
 import { EngineError } from '../errors';
-import type { Source, UnifacGroups } from '../data/types';
+import type { SolventRecord, Source, UnifacGroups } from '../data/types';
 import { COLLANDER } from '../data/collander';
-import { gammaInfiniteDilution } from './logp';
+import { gammaInfiniteDilution, V_WATER_M3MOL, WATER_GROUPS, WATER_MOLAR_MASS_GMOL } from './logp';
 import type { UnifacModelCache } from '../thermo/unifac';
 
 export { estimateLogPow } from './logp';
@@ -213,6 +213,82 @@ export interface PhaseSpec {
   moleFractions: number[];
   /** molar volume of the phase [m³/mol] */
   molarVolumeM3mol: number;
+}
+
+/**
+ * A binary liquid phase of a library solvent holding w wt % water, as the
+ * activity-coefficient estimate needs it: mole fractions from the masses,
+ *   x_W = (w/M_W) / (w/M_W + (100 − w)/M_S),
+ * and the molar volume by ideal mixing, V̄ = (1 − x_W) M_S/ρ_S + x_W V̄_W.
+ * Components in the order [solvent, water].
+ *
+ * Source: definition of mole fraction; ideal mixing of volumes (excess volume
+ * neglected); water's molar volume at 25 °C (logp.ts V_WATER_M3MOL); the
+ * solvent's molar mass and density from the solvent library.
+ * Validity: 0 ≤ w ≤ 100; the excess volume of solvent–water mixtures (a few
+ * % at most for the partially miscible solvents) is neglected.
+ * @param solvent     the library solvent (molar mass [g/mol], density [g/mL], UNIFAC groups)
+ * @param waterWtPct  water in the phase [wt %]
+ * @returns the phase: groups [solvent, water], mole fractions [–], molar volume [m³/mol]
+ */
+export function solventWaterPhase(solvent: SolventRecord, waterWtPct: number): PhaseSpec {
+  if (!(waterWtPct >= 0 && waterWtPct <= 100))
+    throw new EngineError(
+      'invalid-input',
+      `Water in the phase must be 0–100 wt % (got ${waterWtPct}).`,
+      { waterWtPct },
+    );
+  const M_S = solvent.molarMassGmol.value;
+  const nW = waterWtPct / WATER_MOLAR_MASS_GMOL;
+  const nS = (100 - waterWtPct) / M_S;
+  const xW = nW / (nW + nS);
+  const vS = (M_S / solvent.density.value.gPerMl) * 1e-6;
+  return {
+    groups: [solvent.unifac.value, WATER_GROUPS],
+    moleFractions: [1 - xW, xW],
+    molarVolumeM3mol: (1 - xW) * vS + xW * V_WATER_M3MOL,
+  };
+}
+
+/**
+ * The two mutually saturated liquid phases of a library solvent and water,
+ * from the library's tabulated mutual solubility: the organic phase holds
+ * the tabulated water (solventWaterPhase with w = water in solvent), the
+ * aqueous phase the tabulated solvent (w = 100 − solvent in water), its
+ * components ordered [water, solvent]. Without a tabulated mutual
+ * solubility the phases are the pure liquids, with a warning that says so.
+ *
+ * Source: mutual solubilities of the solvent library (docs/data-sources.md,
+ * each with its own source); phases as solventWaterPhase.
+ * Validity: the tabulated temperature of the mutual solubility (about
+ * 20–25 °C); used at other temperatures it ignores the change of the
+ * solubilities with temperature. Partially miscible solvents only (a
+ * miscible solvent has no second phase).
+ * @param solvent  the library solvent
+ * @returns the organic and aqueous phases (mole fractions [–], molar volumes [m³/mol]) and warnings
+ */
+export function saturatedPhasesWithWater(solvent: SolventRecord): {
+  organic: PhaseSpec;
+  aqueous: PhaseSpec;
+  warnings: string[];
+} {
+  const mutual = solvent.waterMutualSolubility?.value;
+  const warnings: string[] = [];
+  if (!mutual)
+    warnings.push(
+      `No curated mutual solubility of ${solvent.name} with water: the phases are taken as pure for the activity estimate.`,
+    );
+  const organic = solventWaterPhase(solvent, mutual?.waterInSolventWtPct ?? 0);
+  const raw = solventWaterPhase(solvent, 100 - (mutual?.solventInWaterWtPct ?? 0));
+  return {
+    organic,
+    aqueous: {
+      groups: [WATER_GROUPS, solvent.unifac.value],
+      moleFractions: [raw.moleFractions[1], raw.moleFractions[0]],
+      molarVolumeM3mol: raw.molarVolumeM3mol,
+    },
+    warnings,
+  };
 }
 
 /**

@@ -8,6 +8,13 @@ import {
   setschenowFactor,
 } from '@shared/engine/properties/partition';
 import { EngineError } from '@shared/engine/errors';
+import {
+  saturatedPhasesWithWater,
+  solventWaterPhase,
+  V_WATER_M3MOL,
+  WATER_GROUPS,
+} from '@shared/engine/properties';
+import { solventById } from '@shared/engine/data';
 import type { UnifacGroups } from '@shared/engine/data/types';
 
 describe('neutralFraction', () => {
@@ -198,5 +205,42 @@ describe('distributionRatio', () => {
         T_K: 298.15,
       }),
     ).toThrow(/Cannot estimate/);
+  });
+});
+
+describe('saturatedPhasesWithWater: the mutually saturated phases from the tabulated solubilities', () => {
+  // Ethyl acetate–water as the library tabulates it (8 wt % ester in water, 3 wt % water in the
+  // ester, 20 °C); mole fractions by hand from the masses: organic x_W = (3/18.015)/(3/18.015 +
+  // 97/88.11) = 0.13139; aqueous x_S = (8/88.11)/(8/88.11 + 92/18.015) = 0.017469.
+  const ester = solventById('ethyl-acetate')!;
+  const phases = saturatedPhasesWithWater(ester);
+
+  it('reads the compositions by hand, components ordered [solvent, water] and [water, solvent]', () => {
+    expect(ester.waterMutualSolubility!.value).toMatchObject({
+      solventInWaterWtPct: 8,
+      waterInSolventWtPct: 3,
+    });
+    expect(phases.organic.moleFractions[1]).toBeCloseTo(0.13139, 4);
+    expect(phases.aqueous.moleFractions[1]).toBeCloseTo(0.017469, 5);
+    expect(phases.organic.groups).toEqual([ester.unifac.value, WATER_GROUPS]);
+    expect(phases.aqueous.groups).toEqual([WATER_GROUPS, ester.unifac.value]);
+    expect(phases.warnings).toEqual([]);
+  });
+
+  it('molar volumes by ideal mixing, between the pure liquids', () => {
+    const vEster = (ester.molarMassGmol.value / ester.density.value.gPerMl) * 1e-6;
+    const x = phases.organic.moleFractions[1];
+    expect(phases.organic.molarVolumeM3mol).toBeCloseTo((1 - x) * vEster + x * V_WATER_M3MOL, 12);
+    expect(phases.aqueous.molarVolumeM3mol).toBeGreaterThan(V_WATER_M3MOL);
+    expect(phases.aqueous.molarVolumeM3mol).toBeLessThan(vEster);
+  });
+
+  it('pure phases with a warning when no mutual solubility is tabulated, and refuses water outside 0–100 wt %', () => {
+    const bare = { ...ester, waterMutualSolubility: undefined };
+    const p = saturatedPhasesWithWater(bare);
+    expect(p.organic.moleFractions).toEqual([1, 0]);
+    expect(p.aqueous.moleFractions).toEqual([1, 0]);
+    expect(p.warnings[0]).toMatch(/No curated mutual solubility of Ethyl acetate with water/);
+    expect(() => solventWaterPhase(ester, 101)).toThrow(EngineError);
   });
 });
