@@ -27,7 +27,7 @@ export function solventAlternativesRouter(config: AppConfig): Router {
     responses: {
       200: {
         description:
-          'The substitutes, ranked: by PMI among those that keep the yield within 2 points and the solvent-free purity at least the current, then the others by PMI, then those the route cannot be evaluated with. The current solvent is not listed. Each carries the caution that it is a model result to confirm at the bench and through the process-safety review.',
+          'The substitutes, ranked: by PMI among those that keep the yield within 2 points and the solvent-free purity at least the current, then the others by PMI, then those the route cannot be evaluated with. The current solvent is not listed. Each one the engine could evaluate carries the Monte Carlo spread (p5/p50/p95 over 12 seeded draws of the ± ranges) of its yield, solvent-free purity and PMI, and every one the caution that it is a model result to confirm at the bench and through the process-safety review.',
         schema: solventAlternativesResponseSchema,
       },
       400: {

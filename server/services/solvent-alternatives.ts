@@ -9,8 +9,8 @@ import { solventAlternatives, SubstitutionError } from '@shared/engine/substitut
 import { badRequest } from '../errors';
 import { describeFailure, RouteEvaluationFailed } from './evaluation';
 
-/** Monte Carlo spread for the first suggestions: how many, how many draws, which seed. */
-export const ADVISOR_UNCERTAINTY = { top: 3, draws: 12, seed: 1 } as const;
+/** Monte Carlo spread given with every suggestion: how many draws, which seed. */
+export const ADVISOR_UNCERTAINTY = { draws: 12, seed: 1 } as const;
 
 export function computeSolventAlternatives(input: {
   document: RouteDocument;

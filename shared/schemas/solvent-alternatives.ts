@@ -60,7 +60,7 @@ export const solventAlternativeSchema = z.object({
   heteroazeotropeWithWater: z
     .object({ forms: z.boolean(), temperatureC: z.number().nullable() })
     .nullable(),
-  /** Monte Carlo spread (p5/p50/p95) of the constrained figures; given for the first suggestions only, else null. */
+  /** Monte Carlo spread (p5/p50/p95) of the constrained figures with the substitute; given for every suggestion the engine could evaluate, null for the others. */
   uncertainty: z
     .object({
       draws: z.number().int(),

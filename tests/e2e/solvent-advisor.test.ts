@@ -39,6 +39,14 @@ describe('which solvent could replace the swap solvent', () => {
       /Guide: (Recommended|Problematic|Hazardous|Highly hazardous|not in the guide)/,
     );
     expect(firstText).toMatch(/PMI \d/);
+    // Every evaluated line, down to the last, shows the spread of its figures.
+    const lines = list.locator(':scope > li');
+    const n = await lines.count();
+    for (const i of [0, Math.floor(n / 2), n - 1]) {
+      const text = (await lines.nth(i).textContent()) ?? '';
+      if (/cannot be evaluated/.test(text)) continue;
+      expect(text).toMatch(/Spread p5–p95: PMI [\d.]+–[\d.]+, yield/);
+    }
     await first.getByText(/^Cautions/).click();
     await expect
       .poll(async () => (await first.textContent()) ?? '')

@@ -19,6 +19,7 @@ import {
   evaluateRoute,
   parseRoute,
   prepareRoute,
+  type PreparedRoute,
   type RouteTotals,
 } from '../route/evaluate';
 import { percentile, type Percentiles } from '../route/monte-carlo';
@@ -65,8 +66,12 @@ export interface AlternativesResult {
 }
 
 export interface AlternativesOptions {
-  /** Monte Carlo spread for the first `top` suggestions, `draws` draws each (0 or absent: none). */
-  uncertainty?: { top: number; draws: number; seed: number };
+  /**
+   * Monte Carlo spread for every suggestion the engine could evaluate, `draws`
+   * draws each from the same seed (so the suggestions are compared on the same
+   * draws); 0 or absent: none.
+   */
+  uncertainty?: { draws: number; seed: number };
 }
 
 const diff = (a: number | null, b: number | null) => (a === null || b === null ? null : a - b);
@@ -133,8 +138,12 @@ export function candidateSolventIds(role: SubstitutionRole, currentSolventId: st
   ).map((s) => s.id);
 }
 
-function spread(doc: RouteDocument, draws: number, seed: number): SubstituteUncertainty {
-  const prepared = prepareRoute(parseRoute(doc));
+/**
+ * p5/p50/p95 of yield, solvent-free purity and PMI over `draws` seeded draws
+ * of the document's ± ranges, reusing the prepared route (and its caches) of
+ * the nominal evaluation.
+ */
+function spread(prepared: PreparedRoute, draws: number, seed: number): SubstituteUncertainty {
   const rng = createRandom(seed);
   const samples = {
     yieldPct: [] as number[],
@@ -200,9 +209,11 @@ export function solventAlternatives(
     const { cautions, ...facts } = solventFacts(solventId);
     const substituted = substituteSolvent(doc, stepId, role, solventId);
     let totals: RouteTotals | null = null;
+    let prepared: PreparedRoute | null = null;
     const notes: string[] = [];
     try {
-      const result = evaluateRoute(substituted);
+      prepared = prepareRoute(parseRoute(substituted));
+      const result = evaluatePrepared(prepared, null);
       totals = result.totals;
       for (const w of result.warnings)
         if (w.stepId === stepId && (w.severity === 'hazard' || w.severity === 'warning'))
@@ -231,7 +242,7 @@ export function solventAlternatives(
       uncertainty: null,
       cautions: [...cautions, ...notes],
     };
-    return { alternative, substituted };
+    return { alternative, prepared };
   });
   const ranked = rankAlternatives(
     currentTotals,
@@ -242,10 +253,10 @@ export function solventAlternatives(
     })),
   );
   const u = options.uncertainty;
-  if (u && u.top > 0 && u.draws > 0)
-    for (const entry of ranked.slice(0, u.top))
-      if (entry.alternative.totals)
-        entry.alternative.uncertainty = spread(entry.substituted, u.draws, u.seed);
+  if (u && u.draws > 0)
+    for (const entry of ranked)
+      if (entry.alternative.totals && entry.prepared)
+        entry.alternative.uncertainty = spread(entry.prepared, u.draws, u.seed);
   return {
     current: { solventId: current.solventId, totals: currentTotals },
     alternatives: ranked.map((e) => e.alternative),

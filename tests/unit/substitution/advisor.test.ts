@@ -5,7 +5,14 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { RouteTotals } from '@shared/engine/route/evaluate';
-import { evaluateRoute, parseRoute } from '@shared/engine/route/evaluate';
+import {
+  evaluatePrepared,
+  evaluateRoute,
+  parseRoute,
+  prepareRoute,
+} from '@shared/engine/route/evaluate';
+import { percentile } from '@shared/engine/route/monte-carlo';
+import { createRandom } from '@shared/engine/random';
 import { SOLVENTS, solventById } from '@shared/engine/data';
 import { guideCategoryOf, NOT_IN_GUIDE, SOLVENT_GUIDE } from '@shared/engine/data/solvent-guide';
 import {
@@ -185,5 +192,46 @@ describe('advisor on the demo route', () => {
     expect(rankAlternatives(current.totals, alternatives).map((a) => a.solventId)).toEqual(
       alternatives.map((a) => a.solventId),
     );
+  });
+
+  it('gives every evaluated suggestion, not only the first, the spread of its constrained figures', () => {
+    const doc = demo();
+    const { alternatives } = solventAlternatives(doc, 'antisolvent', 'antisolvent', {
+      uncertainty: { draws: 6, seed: 7 },
+    });
+    const evaluated = alternatives.filter((a) => a.totals !== null);
+    expect(evaluated.length).toBeGreaterThan(3);
+    for (const a of alternatives) {
+      if (a.totals === null) {
+        expect(a.uncertainty, a.solventId).toBeNull();
+        continue;
+      }
+      expect(a.uncertainty, a.solventId).toMatchObject({ draws: 6, seed: 7 });
+      for (const f of ['yieldPct', 'solventFreePurityPct', 'pmi'] as const) {
+        const { p5, p50, p95 } = a.uncertainty![f];
+        expect(p5, `${a.solventId} ${f}`).not.toBeNull();
+        expect(p5!).toBeLessThanOrEqual(p50!);
+        expect(p50!).toBeLessThanOrEqual(p95!);
+      }
+      // Every suggestion also says it is a model result to confirm at the bench and in review.
+      expect(a.cautions[0]).toMatch(/model result.*bench.*process-safety review/);
+    }
+    // The last evaluated suggestion's spread is its own route's, drawn as a Monte Carlo run of
+    // the substituted document with the same seed would draw it: reproduced by hand.
+    const last = evaluated[evaluated.length - 1];
+    const prepared = prepareRoute(
+      parseRoute(substituteSolvent(doc, 'antisolvent', 'antisolvent', last.solventId)),
+    );
+    const rng = createRandom(7);
+    const pmis = Array.from({ length: 6 }, () => evaluatePrepared(prepared, rng).totals.pmi!).sort(
+      (a, b) => a - b,
+    );
+    expect(last.uncertainty!.pmi.p50!).toBeCloseTo(percentile(pmis, 0.5)!, 9);
+    // Without the option no spread is computed.
+    expect(
+      solventAlternatives(doc, 'antisolvent', 'antisolvent').alternatives.every(
+        (a) => a.uncertainty === null,
+      ),
+    ).toBe(true);
   });
 });

@@ -157,10 +157,11 @@ function AlternativesList({
         Each line is the whole route evaluated again with that solvent as the {ROLE_LABELS[role]} of
         this step only (volumes and every other step unchanged), ranked by PMI among those that keep
         the yield within 2 points and the solvent-free purity at least the current, then the rest.
-        Model results: confirm at the bench and through the site&apos;s process-safety review. The
-        spread (p5–p95 over 12 draws of the route&apos;s ± ranges) is given for the first three
-        only; it does not include the error of the models or the solvent data. Guide categories:
-        CHEM21 (Prat et al., Green Chem. 2016, 18, 288), as read from the guide&apos;s table.
+        Model results: confirm at the bench and through the site&apos;s process-safety review. Each
+        line gives the spread of its PMI, yield and purity (p5–p95 over 12 draws of the route&apos;s
+        ± ranges, with that solvent); it does not include the error of the models or the solvent
+        data. Guide categories: CHEM21 (Prat et al., Green Chem. 2016, 18, 288), as read from the
+        guide&apos;s table.
       </p>
       <ol aria-label="Ranked alternatives" className="space-y-2">
         {items.map((a, i) => (
