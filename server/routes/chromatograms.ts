@@ -139,7 +139,7 @@ export function chromatogramsRouter(
     method: 'get',
     path: base,
     summary:
-      'IPC samples of a route, or of one step (stepId), in the order they were uploaded; cursor pagination.',
+      'One page of the IPC samples of a route, or of one step (stepId), in the order they were uploaded (sort=newest for newest first); q matches part of the sample name; limit (default 50, at most 200) and the cursor of the previous page.',
     tags: ['chromatograms'],
     auth: true,
     params: routeParams,

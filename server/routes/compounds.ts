@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import {
   compoundCreateSchema,
+  compoundListQuerySchema,
   compoundListSchema,
   compoundSchema,
   compoundUpdateSchema,
@@ -63,19 +64,27 @@ export function compoundsRouter(): Router {
   defineRoute(router, {
     method: 'get',
     path: '/workspaces/{workspaceId}/compounds',
-    summary: 'Compounds of a workspace, by name.',
+    summary:
+      'One page of the compounds of a workspace; sort=name (default) or created (newest first); q matches part of the name or the formula; limit (default 50, at most 200) and the cursor of the previous page.',
     tags: ['compounds'],
     auth: true,
     params: workspaceParams,
+    query: compoundListQuerySchema,
     responses: {
-      200: { description: 'The compounds.', schema: compoundListSchema },
+      200: {
+        description: 'One page of compounds and the cursor of the next page (null on the last).',
+        schema: compoundListSchema,
+      },
       404: notFoundResponse,
     },
-    handle: async ({ actor, params, transaction }) => {
+    handle: async ({ actor, params, query, transaction }) => {
       const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'compound.list', { workspaceId: workspace.id });
-      const compounds = await listCompounds(workspace.id, transaction);
-      return { status: 200, body: compounds.map(presentCompound) };
+      const page = await listCompounds(workspace.id, query, transaction);
+      return {
+        status: 200,
+        body: { items: page.items.map(presentCompound), nextCursor: page.nextCursor },
+      };
     },
   });
 

@@ -18,7 +18,7 @@ import {
   presentEquipment,
   updateEquipment,
 } from '../services/equipment';
-import { loadWorkspace } from '../services/members';
+import { loadWorkspace, memberWorkspace } from '../services/members';
 
 const workspaceParams = z.object({ workspaceId: z.uuid() });
 const itemParams = z.object({ workspaceId: z.uuid(), id: z.uuid() });
@@ -42,7 +42,7 @@ export function equipmentRouter(): Router {
     method: 'get',
     path: '/workspaces/{workspaceId}/equipment',
     summary:
-      'Vessels, filters and dryers of the workspace (every member reads them): vessels first, by name; `kind` and `q` filter, `sort=size` puts the largest first.',
+      'One page of the vessels, filters and dryers of the workspace (every member reads them): vessels first, by name; `kind` and `q` (part of the name) filter, `sort=size` puts the largest first; limit (default 50, at most 200) and the cursor of the previous page.',
     tags: ['equipment'],
     auth: true,
     params: workspaceParams,
@@ -52,7 +52,7 @@ export function equipmentRouter(): Router {
       404: notFoundResponse,
     },
     handle: async ({ actor, params, query, transaction }) => {
-      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'equipment.list', { workspaceId: workspace.id });
       const page = await listEquipment(workspace.id, query, transaction);
       return {

@@ -1,13 +1,38 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/errors';
-import { anyJobSchema } from '@shared/schemas/jobs';
+import { anyJobSchema, jobListQuerySchema, jobListSchema } from '@shared/schemas/jobs';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
+import { listJobs, presentJobSummary } from '../services/job-list';
 import { cancelJob, loadJob, presentJob } from '../services/monte-carlo-jobs';
 
 export function jobsRouter(): Router {
   const router = Router();
+
+  defineRoute(router, {
+    method: 'get',
+    path: '/jobs',
+    summary:
+      'One page of the background jobs you started (Monte Carlo runs, route optimisations), newest first (sort=oldest for oldest first), without their results; kind and status filter, q matches part of either; limit (default 50, at most 200) and the cursor of the previous page.',
+    tags: ['evaluation'],
+    auth: true,
+    query: jobListQuerySchema,
+    responses: {
+      200: {
+        description: 'One page of your jobs and the cursor of the next page (null on the last).',
+        schema: jobListSchema,
+      },
+    },
+    handle: async ({ actor, query, transaction }) => {
+      authorize(actor, 'job.read', { userId: actor.userId });
+      const page = await listJobs(actor.userId, query, transaction);
+      return {
+        status: 200,
+        body: { items: page.items.map(presentJobSummary), nextCursor: page.nextCursor },
+      };
+    },
+  });
 
   defineRoute(router, {
     method: 'get',

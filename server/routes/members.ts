@@ -4,6 +4,7 @@ import { apiErrorSchema } from '@shared/schemas/errors';
 import {
   invitationSchema,
   inviteSchema,
+  memberListQuerySchema,
   memberListSchema,
   memberSchema,
   updateRolesSchema,
@@ -36,19 +37,27 @@ export function membersRouter(config: AppConfig): Router {
   defineRoute(router, {
     method: 'get',
     path: '/workspaces/{workspaceId}/members',
-    summary: 'Members of a workspace with their roles.',
+    summary:
+      'One page of the members of a workspace with their roles, by name; q matches part of the name or e-mail; role keeps the holders of one role; limit (default 50, at most 200) and the cursor of the previous page.',
     tags: ['members'],
     auth: true,
     params: workspaceParams,
+    query: memberListQuerySchema,
     responses: {
-      200: { description: 'The members.', schema: memberListSchema },
+      200: {
+        description: 'One page of members and the cursor of the next page (null on the last).',
+        schema: memberListSchema,
+      },
       404: notFoundResponse,
     },
-    handle: async ({ actor, params, transaction }) => {
+    handle: async ({ actor, params, query, transaction }) => {
       const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'member.list', { workspaceId: workspace.id });
-      const members = await listMembers(workspace.id, transaction);
-      return { status: 200, body: members.map(presentMember) };
+      const page = await listMembers(workspace.id, query, transaction);
+      return {
+        status: 200,
+        body: { items: page.items.map(presentMember), nextCursor: page.nextCursor },
+      };
     },
   });
 

@@ -271,7 +271,7 @@ export function revisionsRouter(config: AppConfig, security: Security): Router {
     method: 'get',
     path: `${BASE}/{number}/comments`,
     summary:
-      'Comments on the revision, oldest first; a reply names its thread (parentId), a step comment its step (stepId).',
+      'One page of the comments on the revision, oldest first (sort=newest for newest first); q matches part of the text; a reply names its thread (parentId), a step comment its step (stepId); limit (default 50, at most 200) and the cursor of the previous page.',
     tags: ['reviews'],
     auth: true,
     params: revisionParams,

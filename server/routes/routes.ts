@@ -6,6 +6,7 @@ import {
   draftConflictSchema,
   duplicateRouteSchema,
   listRoutesQuerySchema,
+  projectListQuerySchema,
   projectListSchema,
   routeDetailSchema,
   routeListSchema,
@@ -244,18 +245,23 @@ export function routesRouter(config: AppConfig): Router {
   defineRoute(router, {
     method: 'get',
     path: '/workspaces/{workspaceId}/projects',
-    summary: 'Projects of the workspace with the number of routes in each that are not archived.',
+    summary:
+      'One page of the projects of the workspace by name, each with the number of its routes that are not archived; q searches project names; limit (default 50, at most 200) and the cursor of the previous page.',
     tags: ['routes'],
     auth: true,
     params: workspaceParams,
+    query: projectListQuerySchema,
     responses: {
-      200: { description: 'The projects.', schema: projectListSchema },
+      200: {
+        description: 'One page of projects and the cursor of the next page (null on the last).',
+        schema: projectListSchema,
+      },
       404: notFoundResponse,
     },
-    handle: async ({ actor, params, transaction }) => {
+    handle: async ({ actor, params, query, transaction }) => {
       const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'project.list', { workspaceId: workspace.id });
-      return { status: 200, body: await listProjects(workspace.id, transaction) };
+      return { status: 200, body: await listProjects(workspace.id, query, transaction) };
     },
   });
 

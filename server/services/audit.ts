@@ -9,6 +9,7 @@ import type { AuditEventPayload, AuditFilter, AuditVerify } from '@shared/schema
 import { database } from '../db/sequelize';
 import { badRequest } from '../errors';
 import { AuditEvent, Membership, User } from '../models';
+import { containsAny } from './keyset';
 
 export interface AuditEntry {
   workspaceId: string | null;
@@ -87,6 +88,11 @@ async function workspaceScope(workspaceId: string, filter: AuditFilter): Promise
   if (filter.action) conditions.push({ action: { [Op.startsWith]: filter.action } });
   if (filter.from) conditions.push({ at: { [Op.gte]: startOf(filter.from) } });
   if (filter.to) conditions.push({ at: { [Op.lte]: endOf(filter.to) } });
+  // Served by audit_events_action_trgm_idx (the same expression).
+  if (filter.q)
+    conditions.push(
+      containsAny([`("AuditEvent"."action" || ' ' || "AuditEvent"."entity_type")`], filter.q),
+    );
   return { [Op.and]: conditions };
 }
 

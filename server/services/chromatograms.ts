@@ -7,7 +7,7 @@
  * a deleted row's file is removed after the deletion commits.
  */
 import { randomUUID } from 'node:crypto';
-import { Op, literal, type Transaction } from 'sequelize';
+import { Op, literal, type Transaction, type WhereOptions } from 'sequelize';
 import {
   decimateTrace,
   processTrace,
@@ -25,10 +25,18 @@ import type {
   StoredPeak,
   StoredProcessing,
 } from '@shared/schemas/chromatograms';
-import { apiError, badRequest, conflict, notFound, validationFailed } from '../errors';
+import { apiError, conflict, notFound, validationFailed } from '../errors';
 import { Chromatogram, RouteDraft, RouteRevision, User, type Route } from '../models';
 import type { FileStorage } from '../storage';
 import { recordAudit } from './audit';
+import {
+  afterCursor,
+  containsAny,
+  keyAttributes,
+  keyOrder,
+  pageOf,
+  type KeysetOrder,
+} from './keyset';
 import { readUpload } from './chromatogram-files';
 
 interface DocumentLike {
@@ -330,48 +338,56 @@ export async function loadChromatogram(
   return found;
 }
 
+const CHROMATOGRAM_ORDERS: Record<'oldest' | 'newest', KeysetOrder> = {
+  oldest: {
+    name: 'oldest',
+    columns: [
+      { sql: '"Chromatogram"."created_at"', type: 'timestamptz' },
+      { sql: '"Chromatogram"."id"', type: 'uuid' },
+    ],
+    direction: 'ASC',
+  },
+  newest: {
+    name: 'newest',
+    columns: [
+      { sql: '"Chromatogram"."created_at"', type: 'timestamptz' },
+      { sql: '"Chromatogram"."id"', type: 'uuid' },
+    ],
+    direction: 'DESC',
+  },
+};
+
+/**
+ * One page of a route's samples (of one step with `stepId`), oldest first by
+ * default (chromatograms_route_idx, chromatograms_route_step_idx serve both
+ * orders); `q` matches part of the sample name (chromatograms_sample_name_trgm_idx).
+ */
 export async function listChromatograms(
   route: Route,
-  query: { stepId?: string; limit: number; cursor?: string },
+  query: {
+    stepId?: string;
+    q?: string;
+    sort?: 'oldest' | 'newest';
+    limit: number;
+    cursor?: string;
+  },
   transaction: Transaction | null,
 ): Promise<{ items: Chromatogram[]; nextCursor: string | null }> {
-  const where: Record<string | symbol, unknown> = {
-    routeId: route.id,
-    workspaceId: route.workspaceId,
-  };
-  if (query.stepId) where.stepId = query.stepId;
-  if (query.cursor) {
-    if (!/^[0-9a-f-]{36}$/.test(query.cursor))
-      throw badRequest('The page link is not valid; start from the first page.', [
-        { path: 'query.cursor', message: 'Not a cursor from a previous page.' },
-      ]);
-    const after = await Chromatogram.findOne({
-      where: { id: query.cursor, routeId: route.id },
-      attributes: ['id'],
-      transaction,
-    });
-    if (!after)
-      throw badRequest('The page link is no longer valid; start from the first page.', [
-        { path: 'query.cursor', message: 'That sample was deleted.' },
-      ]);
-    const escaped = Chromatogram.sequelize!.escape(query.cursor);
-    where[Op.and] = literal(
-      `("Chromatogram"."created_at", "Chromatogram"."id") > (SELECT created_at, id FROM chromatograms WHERE id = ${escaped})`,
-    );
-  }
+  const order = CHROMATOGRAM_ORDERS[query.sort ?? 'oldest'];
+  const conditions: WhereOptions[] = [{ routeId: route.id, workspaceId: route.workspaceId }];
+  if (query.stepId) conditions.push({ stepId: query.stepId });
+  if (query.q) conditions.push(containsAny(['"Chromatogram"."sample_name"'], query.q));
+  if (query.cursor) conditions.push(afterCursor(order, query.cursor));
   const rows = await Chromatogram.findAll({
-    where,
-    attributes: SUMMARY_ATTRIBUTES as never,
+    where: { [Op.and]: conditions },
+    attributes: { exclude: [...SUMMARY_ATTRIBUTES.exclude], include: keyAttributes(order) },
     include: withCreator,
-    order: [
-      ['createdAt', 'ASC'],
-      ['id', 'ASC'],
-    ],
+    order: keyOrder(order),
     limit: query.limit + 1,
+    subQuery: false,
     transaction,
   });
-  const items = rows.slice(0, query.limit);
-  return { items, nextCursor: rows.length > query.limit ? items.at(-1)!.id : null };
+  return pageOf(rows, query.limit, order);
 }
 
 export async function readStoredFile(

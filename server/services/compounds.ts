@@ -3,7 +3,7 @@
  * what the chemist did not enter (logP from UNIFAC, Hansen parameters by
  * group contributions) and mark it estimated, store, audit.
  */
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
   assignUnifacGroups,
   estimateHansen,
@@ -33,6 +33,14 @@ import { estimateLogPow } from '@shared/engine/properties';
 import { notFound, validationFailed, versionConflict } from '../errors';
 import { Compound, User } from '../models';
 import { recordAudit } from './audit';
+import {
+  afterCursor,
+  containsAny,
+  keyAttributes,
+  keyOrder,
+  pageOf,
+  type KeysetOrder,
+} from './keyset';
 import { findLibrarySolvent, subgroupRows, unprocessable } from './components';
 
 // ----- structure ------------------------------------------------------------
@@ -446,16 +454,49 @@ function auditView(c: Compound) {
 
 const includeCreator = [{ model: User, as: 'createdBy', required: false }];
 
+const COMPOUND_ORDERS: Record<'name' | 'created', KeysetOrder> = {
+  name: {
+    name: 'name',
+    columns: [
+      { sql: 'lower("Compound"."name")', type: 'text' },
+      { sql: '"Compound"."id"', type: 'uuid' },
+    ],
+    direction: 'ASC',
+  },
+  created: {
+    name: 'created',
+    columns: [
+      { sql: '"Compound"."created_at"', type: 'timestamptz' },
+      { sql: '"Compound"."id"', type: 'uuid' },
+    ],
+    direction: 'DESC',
+  },
+};
+
+/**
+ * One page of the workspace's compounds by name or newest first (indexes
+ * compounds_workspace_name_id_idx, compounds_workspace_created_idx); `q`
+ * matches part of the name or the formula (trigram indexes).
+ */
 export async function listCompounds(
   workspaceId: string,
+  query: { q?: string; sort: 'name' | 'created'; limit: number; cursor?: string },
   transaction: Transaction | null,
-): Promise<Compound[]> {
-  return Compound.findAll({
-    where: { workspaceId },
+): Promise<{ items: Compound[]; nextCursor: string | null }> {
+  const order = COMPOUND_ORDERS[query.sort];
+  const conditions: WhereOptions[] = [{ workspaceId }];
+  if (query.q) conditions.push(containsAny(['"Compound"."name"', '"Compound"."formula"'], query.q));
+  if (query.cursor) conditions.push(afterCursor(order, query.cursor));
+  const rows = await Compound.findAll({
+    where: { [Op.and]: conditions },
+    attributes: { include: keyAttributes(order) },
     include: includeCreator,
-    order: [['name', 'ASC']],
+    order: keyOrder(order),
+    limit: query.limit + 1,
+    subQuery: false,
     transaction,
   });
+  return pageOf(rows, query.limit, order);
 }
 
 /** A compound of this workspace; another workspace's compound answers exactly like a missing one. */

@@ -14,6 +14,14 @@ import {
 import { conflict, notFound, validationFailed } from '../errors';
 import { Equipment } from '../models';
 import { recordAudit } from './audit';
+import {
+  afterCursor,
+  containsAny,
+  keyAttributes,
+  keyOrder,
+  pageOf,
+  type KeysetOrder,
+} from './keyset';
 
 const VESSEL_FIELDS = [
   'nominalL',
@@ -102,45 +110,55 @@ async function ensureNameFree(
     );
 }
 
+// Vessels, then filters, then dryers: the kind's rank keeps every key column in one direction.
+const KIND_RANK = `(CASE "Equipment"."kind" WHEN 'vessel' THEN 0 WHEN 'filter' THEN 1 ELSE 2 END)`;
+const EQUIPMENT_ORDERS: Record<'name' | 'size', KeysetOrder> = {
+  name: {
+    name: 'name',
+    columns: [
+      { sql: KIND_RANK, type: 'int' },
+      { sql: 'lower("Equipment"."name")', type: 'text' },
+      { sql: '"Equipment"."id"', type: 'uuid' },
+    ],
+    direction: 'ASC',
+  },
+  size: {
+    name: 'size',
+    columns: [
+      { sql: KIND_RANK, type: 'int' },
+      // Largest first: the working volume (vessels) or capacity (filters, dryers), negated.
+      { sql: '(-coalesce("Equipment"."max_working_l", "Equipment"."capacity_l"))', type: 'float8' },
+      { sql: '"Equipment"."id"', type: 'uuid' },
+    ],
+    direction: 'ASC',
+  },
+};
+
+/**
+ * One page of the workspace's equipment, vessels first, then by name or by
+ * size, largest first (equipment_workspace_kind_name_idx,
+ * equipment_workspace_kind_size_idx); `q` matches part of the name
+ * (equipment_name_trgm_idx).
+ */
 export async function listEquipment(
   workspaceId: string,
   query: EquipmentListQuery & { limit: number },
   transaction: Transaction | null,
 ): Promise<{ items: Equipment[]; nextCursor: string | null }> {
+  const order = EQUIPMENT_ORDERS[query.sort ?? 'name'];
   const where: WhereOptions[] = [{ workspaceId }];
   if (query.kind) where.push({ kind: query.kind });
-  if (query.q)
-    where.push({ name: { [Op.iLike]: `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` } });
-  const offset = query.cursor && /^\d{1,7}$/.test(query.cursor) ? Number(query.cursor) : 0;
+  if (query.q) where.push(containsAny(['"Equipment"."name"'], query.q));
+  if (query.cursor) where.push(afterCursor(order, query.cursor));
   const rows = await Equipment.findAll({
     where: { [Op.and]: where },
-    order:
-      query.sort === 'size'
-        ? [
-            ['kind', 'DESC'],
-            [sizeOrder(), 'DESC'],
-            ['name', 'ASC'],
-          ]
-        : [
-            ['kind', 'DESC'],
-            ['name', 'ASC'],
-          ],
-    offset,
+    attributes: { include: keyAttributes(order) },
+    order: keyOrder(order),
     limit: query.limit + 1,
     transaction,
   });
-  return {
-    items: rows.slice(0, query.limit),
-    nextCursor: rows.length > query.limit ? String(offset + query.limit) : null,
-  };
+  return pageOf(rows, query.limit, order);
 }
-
-const sizeOrder = () =>
-  Equipment.sequelize!.fn(
-    'coalesce',
-    Equipment.sequelize!.col('max_working_l'),
-    Equipment.sequelize!.col('capacity_l'),
-  );
 
 /** Every piece of equipment of the workspace, vessels first (for the step list). */
 export async function allEquipment(

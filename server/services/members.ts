@@ -1,9 +1,17 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Role } from '@shared/schemas/session';
 import type { Actor } from '../policies';
 import { conflict, notFound } from '../errors';
 import { Membership, User, Workspace } from '../models';
 import { recordAudit } from './audit';
+import {
+  afterCursor,
+  containsAny,
+  keyAttributes,
+  keyOrder,
+  pageOf,
+  type KeysetOrder,
+} from './keyset';
 
 /**
  * Loads a workspace by id. Callers authorize next; a workspace the actor does
@@ -29,16 +37,39 @@ export function memberWorkspace(actor: Actor, id: string): { id: string } {
   return { id };
 }
 
+const MEMBER_ORDER: KeysetOrder = {
+  name: 'name',
+  columns: [
+    { sql: 'lower("user"."name")', type: 'text' },
+    { sql: '"user"."id"', type: 'uuid' },
+  ],
+  direction: 'ASC',
+};
+
+/**
+ * One page of the workspace's members by name (memberships_workspace_idx, then
+ * users_name_id_idx); `q` matches part of the name or e-mail (trigram indexes),
+ * `role` keeps those who hold it.
+ */
 export async function listMembers(
   workspaceId: string,
+  query: { q?: string; role?: Role; limit: number; cursor?: string },
   transaction: Transaction | null,
-): Promise<Membership[]> {
-  return Membership.findAll({
-    where: { workspaceId },
+): Promise<{ items: Membership[]; nextCursor: string | null }> {
+  const conditions: WhereOptions[] = [{ workspaceId }];
+  if (query.role) conditions.push({ roles: { [Op.contains]: [query.role] } });
+  if (query.q) conditions.push(containsAny(['"user"."name"', '"user"."email"'], query.q));
+  if (query.cursor) conditions.push(afterCursor(MEMBER_ORDER, query.cursor));
+  const rows = await Membership.findAll({
+    where: { [Op.and]: conditions },
+    attributes: { include: keyAttributes(MEMBER_ORDER) },
     include: [{ model: User, as: 'user', required: true }],
-    order: [[{ model: User, as: 'user' }, 'name', 'ASC']],
+    order: keyOrder(MEMBER_ORDER),
+    limit: query.limit + 1,
+    subQuery: false,
     transaction,
   });
+  return pageOf(rows, query.limit, MEMBER_ORDER);
 }
 
 export async function loadMembership(

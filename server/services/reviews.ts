@@ -6,7 +6,7 @@
  * it concerns are told by e-mail (through the job queue, in the same
  * transaction as the change).
  */
-import { Op, type Transaction } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
   DEFAULT_SIGNATURE_MEANING,
   type AttentionItem,
@@ -15,6 +15,14 @@ import {
   type RevisionStatus,
 } from '@shared/schemas/revisions';
 import { apiError, conflict, forbidden, notFound, validationFailed } from '../errors';
+import {
+  afterCursor,
+  containsAny,
+  keyAttributes,
+  keyOrder,
+  pageOf,
+  type KeysetOrder,
+} from './keyset';
 import {
   Membership,
   ReviewComment,
@@ -313,28 +321,49 @@ const commentIncludes = [
   { model: User, as: 'resolvedBy', attributes: ['id', 'name'] },
 ];
 
-/** Oldest first, so threads read top to bottom; paged by position. */
+const COMMENT_ORDERS: Record<'oldest' | 'newest', KeysetOrder> = {
+  oldest: {
+    name: 'oldest',
+    columns: [
+      { sql: '"ReviewComment"."created_at"', type: 'timestamptz' },
+      { sql: '"ReviewComment"."id"', type: 'uuid' },
+    ],
+    direction: 'ASC',
+  },
+  newest: {
+    name: 'newest',
+    columns: [
+      { sql: '"ReviewComment"."created_at"', type: 'timestamptz' },
+      { sql: '"ReviewComment"."id"', type: 'uuid' },
+    ],
+    direction: 'DESC',
+  },
+};
+
+/**
+ * One page of a revision's comments, oldest first by default so threads read
+ * top to bottom (review_comments_revision_created_idx serves both orders); `q`
+ * matches part of the text (review_comments_body_trgm_idx).
+ */
 export async function listComments(
   revision: RouteRevision,
-  page: { limit: number; cursor?: string },
+  query: { q?: string; sort: 'oldest' | 'newest'; limit: number; cursor?: string },
   transaction: Transaction | null,
 ): Promise<{ items: ReviewComment[]; nextCursor: string | null }> {
-  const offset = page.cursor && /^\d{1,7}$/.test(page.cursor) ? Number(page.cursor) : 0;
+  const order = COMMENT_ORDERS[query.sort];
+  const conditions: WhereOptions[] = [{ revisionId: revision.id }];
+  if (query.q) conditions.push(containsAny(['"ReviewComment"."body"'], query.q));
+  if (query.cursor) conditions.push(afterCursor(order, query.cursor));
   const rows = await ReviewComment.findAll({
-    where: { revisionId: revision.id },
+    where: { [Op.and]: conditions },
+    attributes: { include: keyAttributes(order) },
     include: commentIncludes,
-    order: [
-      ['createdAt', 'ASC'],
-      ['id', 'ASC'],
-    ],
-    offset,
-    limit: page.limit + 1,
+    order: keyOrder(order),
+    limit: query.limit + 1,
+    subQuery: false,
     transaction,
   });
-  return {
-    items: rows.slice(0, page.limit),
-    nextCursor: rows.length > page.limit ? String(offset + page.limit) : null,
-  };
+  return pageOf(rows, query.limit, order);
 }
 
 export async function addComment(

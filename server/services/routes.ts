@@ -16,6 +16,14 @@ import type { DraftDocument, RouteSort } from '@shared/schemas/routes';
 import { badRequest, notFound, versionConflict } from '../errors';
 import { Project, Route, RouteDraft, User } from '../models';
 import { recordAudit } from './audit';
+import {
+  afterCursor,
+  containsAny,
+  keyAttributes,
+  keyOrder,
+  pageOf,
+  type KeysetOrder,
+} from './keyset';
 import { createDraft, type DraftEvaluation } from './drafts';
 
 const summaryIncludes = (withDocument: boolean) => [
@@ -295,26 +303,55 @@ export async function duplicateRoute(
   return loadRoute(workspaceId, copy.id, transaction);
 }
 
+const PROJECT_ORDER: KeysetOrder = {
+  name: 'name',
+  columns: [
+    { sql: 'lower("Project"."name")', type: 'text' },
+    { sql: '"Project"."id"', type: 'uuid' },
+  ],
+  direction: 'ASC',
+};
+
+/**
+ * One page of the workspace's projects by name (projects_workspace_name_id_idx),
+ * `q` matching part of the name (projects_name_trgm_idx), each with the count of
+ * its current routes.
+ */
 export async function listProjects(
   workspaceId: string,
+  query: { q?: string; limit: number; cursor?: string },
   transaction: Transaction | null,
-): Promise<Array<{ id: string; name: string; routeCount: number }>> {
-  const projects = await Project.findAll({
-    where: { workspaceId },
-    order: [[fn('lower', col('name')), 'ASC']],
+): Promise<{
+  items: Array<{ id: string; name: string; routeCount: number }>;
+  nextCursor: string | null;
+}> {
+  const conditions: WhereOptions[] = [{ workspaceId }];
+  if (query.q) conditions.push(containsAny(['"Project"."name"'], query.q));
+  if (query.cursor) conditions.push(afterCursor(PROJECT_ORDER, query.cursor));
+  const rows = await Project.findAll({
+    where: { [Op.and]: conditions },
+    attributes: { include: keyAttributes(PROJECT_ORDER) },
+    order: keyOrder(PROJECT_ORDER),
+    limit: query.limit + 1,
     transaction,
   });
-  const counts = (await Route.findAll({
-    attributes: ['projectId', [fn('count', col('id')), 'count']],
-    where: { workspaceId, archivedAt: null, projectId: { [Op.ne]: null } },
-    group: ['projectId'],
-    raw: true,
-    transaction,
-  })) as unknown as Array<{ projectId: string; count: string }>;
+  const page = pageOf(rows, query.limit, PROJECT_ORDER);
+  const counts = page.items.length
+    ? ((await Route.findAll({
+        attributes: ['projectId', [fn('count', col('id')), 'count']],
+        where: { workspaceId, archivedAt: null, projectId: page.items.map((p) => p.id) },
+        group: ['projectId'],
+        raw: true,
+        transaction,
+      })) as unknown as Array<{ projectId: string; count: string }>)
+    : [];
   const byProject = new Map(counts.map((row) => [row.projectId, Number(row.count)]));
-  return projects.map((project) => ({
-    id: project.id,
-    name: project.name,
-    routeCount: byProject.get(project.id) ?? 0,
-  }));
+  return {
+    items: page.items.map((project) => ({
+      id: project.id,
+      name: project.name,
+      routeCount: byProject.get(project.id) ?? 0,
+    })),
+    nextCursor: page.nextCursor,
+  };
 }

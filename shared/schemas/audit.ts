@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { text } from './text';
-import { listPagingSchema, listReplySchema } from './lists';
+import { listQuerySchema, listReplySchema } from './lists';
 
 const isoDateTime = z.iso.datetime({
   offset: true,
@@ -20,8 +20,13 @@ export const auditFilterSchema = z.object({
   from: isoDateOrDateTime.optional(),
   /** Up to this time (a date means its end, UTC). */
   to: isoDateOrDateTime.optional(),
+  /** Part of the action or the kind of record ("route.rename", "compound"). */
+  q: text().trim().max(200).optional(),
 });
-export const auditListQuerySchema = auditFilterSchema.extend(listPagingSchema.shape);
+/** Newest first: the one order of the trail. */
+export const auditListQuerySchema = auditFilterSchema.extend(
+  listQuerySchema(['newest'], 'The trail reads newest first (newest).').shape,
+);
 export type AuditFilter = z.infer<typeof auditFilterSchema>;
 
 export const auditEventSchema = z.object({

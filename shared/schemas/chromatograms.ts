@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import type { ProcessedPeak, ProcessingResult } from '../chromatography/types';
-import { listPagingSchema, listReplySchema } from './lists';
+import { listQuerySchema, listReplySchema } from './lists';
 import { identifier, text } from './text';
 
 export const CHROMATOGRAM_LIMITS = {
@@ -116,7 +116,11 @@ export type ChromatogramSummary = z.infer<typeof chromatogramSummarySchema>;
 export const chromatogramListSchema = listReplySchema(chromatogramSummarySchema);
 export type ChromatogramList = z.infer<typeof chromatogramListSchema>;
 
-export const chromatogramListQuerySchema = listPagingSchema.extend({
+/** Oldest first (default) or newest first; q matches part of the sample name; stepId keeps one step's. */
+export const chromatogramListQuerySchema = listQuerySchema(
+  ['oldest', 'newest'],
+  'Sort oldest first (oldest) or newest first (newest).',
+).extend({
   stepId: identifier().max(CHROMATOGRAM_LIMITS.stepIdMax).optional(),
 });
 

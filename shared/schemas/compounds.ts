@@ -9,6 +9,7 @@
  */
 import { z } from 'zod';
 import { text } from './text';
+import { listQuerySchema, listReplySchema } from './lists';
 import { logPSchema, pKaEntrySchema } from './calc';
 import { unifacGroupRowSchema } from './solvents';
 
@@ -251,7 +252,13 @@ export const compoundSchema = z.object({
   updatedAt: text(),
 });
 export type Compound = z.infer<typeof compoundSchema>;
-export const compoundListSchema = z.array(compoundSchema);
+export const compoundListSchema = listReplySchema(compoundSchema);
+/** By name A to Z (default) or newest first; q matches part of the name or the formula. */
+export const compoundListQuerySchema = listQuerySchema(
+  ['name', 'created'],
+  'Sort by name (name) or newest first (created).',
+);
+export type CompoundListQuery = z.input<typeof compoundListQuerySchema>;
 
 // ----- structure preview ----------------------------------------------------
 

@@ -1,6 +1,7 @@
 /** Background jobs a user started (Monte Carlo runs), polled for progress. */
 import { z } from 'zod';
 import { text } from './text';
+import { listQuerySchema, listReplySchema } from './lists';
 import { routeDocumentSchema } from './route';
 import { OBJECTIVES } from '../engine/optimise/optimise';
 import type { MonteCarloResult as EngineMonteCarloResult } from '../engine/route/monte-carlo';
@@ -109,6 +110,24 @@ export const optimiseJobSchema = jobSchema.extend({
   result: optimiseResultSchema.optional(),
 });
 export type OptimiseJob = z.infer<typeof optimiseJobSchema>;
+
+/** A job in the list of your jobs: its state without the result (GET /jobs/{jobId} has it). */
+export const jobSummarySchema = jobSchema.omit({ result: true }).extend({
+  kind: z.enum(ALL_JOB_KINDS),
+});
+export type JobSummary = z.infer<typeof jobSummarySchema>;
+export const jobListSchema = listReplySchema(jobSummarySchema);
+/** Newest first (default) or oldest first; kind and status filter; q matches part of either. */
+export const jobListQuerySchema = listQuerySchema(
+  ['newest', 'oldest'],
+  'Sort newest first (newest) or oldest first (oldest).',
+).extend({
+  kind: z.enum(ALL_JOB_KINDS, { message: 'Choose monte-carlo or optimise.' }).optional(),
+  status: z
+    .enum(JOB_STATUSES, { message: 'Choose queued, running, done, failed or cancelled.' })
+    .optional(),
+});
+export type JobListQuery = z.infer<typeof jobListQuerySchema>;
 
 /** Any job, as GET /jobs/{jobId} answers it. */
 export const anyJobSchema = z.union([jobSchema, optimiseJobSchema]);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { text } from './text';
+import { listQuerySchema, listReplySchema } from './lists';
 import { emailSchema, newPasswordSchema, personNameSchema, roleSchema } from './session';
 
 const rolesSchema = z
@@ -17,7 +18,13 @@ export const memberSchema = z.object({
   joinedAt: text(),
 });
 export type Member = z.infer<typeof memberSchema>;
-export const memberListSchema = z.array(memberSchema);
+export const memberListSchema = listReplySchema(memberSchema);
+/** By name; q matches part of the name or e-mail; role keeps those who hold it. */
+export const memberListQuerySchema = listQuerySchema(
+  ['name'],
+  'Sort members by name (name).',
+).extend({ role: roleSchema.optional() });
+export type MemberListQuery = z.input<typeof memberListQuerySchema>;
 
 export const inviteSchema = z.object({
   email: emailSchema,

@@ -5,7 +5,7 @@
 import { z } from 'zod';
 import { text } from './text';
 import { routeTotalsSchema } from './evaluate';
-import { listPagingSchema, listReplySchema } from './lists';
+import { listPagingSchema, listQuerySchema, listReplySchema } from './lists';
 import { draftDocumentSchema, personRefSchema } from './routes';
 
 export const REVISION_MESSAGE_MAX_LENGTH = 2000;
@@ -202,7 +202,11 @@ export const commentSchema = z.object({
   resolvedBy: personRefSchema.nullable(),
 });
 export type CommentPayload = z.infer<typeof commentSchema>;
-export const commentListQuerySchema = listPagingSchema;
+/** Oldest first (default, threads read top to bottom) or newest first; q matches part of the text. */
+export const commentListQuerySchema = listQuerySchema(
+  ['oldest', 'newest'],
+  'Sort oldest first (oldest) or newest first (newest).',
+);
 export const commentListSchema = listReplySchema(commentSchema);
 
 export const createDecisionSchema = z

@@ -7,7 +7,7 @@
  */
 import { z } from 'zod';
 import { text } from './text';
-import { listPagingSchema, listReplySchema } from './lists';
+import { listPagingSchema, listQuerySchema, listReplySchema } from './lists';
 import {
   componentSchema,
   ROUTE_SCHEMA_VERSION,
@@ -196,4 +196,5 @@ export const projectSummarySchema = z.object({
   /** Routes in the project that are not archived. */
   routeCount: z.number().int(),
 });
-export const projectListSchema = z.array(projectSummarySchema);
+export const projectListSchema = listReplySchema(projectSummarySchema);
+export const projectListQuerySchema = listQuerySchema(['name'], 'Sort projects by name (name).');

@@ -31,10 +31,23 @@ export const queryKeys = {
     one: (jobId: string | null) => ['jobs', jobId] as const,
   },
   members: {
+    /** Prefix of every members list key of the workspace (invalidated by writes). */
     list: (workspaceId: string) => [...workspace(workspaceId), 'members'] as const,
+    /** The page list as searched, page after page. */
+    pages: (workspaceId: string, q: string) =>
+      [...queryKeys.members.list(workspaceId), 'pages', q] as const,
+    /** Holders of one role, every page. */
+    withRole: (workspaceId: string, role: string) =>
+      [...queryKeys.members.list(workspaceId), 'role', role] as const,
   },
   compounds: {
+    /** Prefix of every compounds list key of the workspace (invalidated by writes). */
     list: (workspaceId: string) => [...workspace(workspaceId), 'compounds'] as const,
+    /** The page list as searched, page after page. */
+    pages: (workspaceId: string, q: string) =>
+      [...queryKeys.compounds.list(workspaceId), 'pages', q] as const,
+    /** Every item, every page (for a choice among all of them). */
+    all: (workspaceId: string) => [...queryKeys.compounds.list(workspaceId), 'all'] as const,
   },
   chromatograms: {
     all: (workspaceId: string, routeId: string) =>
@@ -51,7 +64,13 @@ export const queryKeys = {
       [...queryKeys.chromatograms.ones(workspaceId, routeId), id, full] as const,
   },
   equipment: {
+    /** Prefix of every equipment list key of the workspace (invalidated by writes). */
     list: (workspaceId: string) => [...workspace(workspaceId), 'equipment'] as const,
+    /** The page list as searched, page after page. */
+    pages: (workspaceId: string, q: string) =>
+      [...queryKeys.equipment.list(workspaceId), 'pages', q] as const,
+    /** Every item, every page (for a choice among all of them). */
+    all: (workspaceId: string) => [...queryKeys.equipment.list(workspaceId), 'all'] as const,
   },
   projects: {
     list: (workspaceId: string) => [...workspace(workspaceId), 'projects'] as const,

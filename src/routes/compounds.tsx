@@ -1,9 +1,10 @@
 import { useState } from 'react';
+import { ListMore, ListSearch } from '@/components/list-controls';
 import type { Compound } from '@shared/schemas/compounds';
 import { canInWorkspace } from '@/features/auth/abilities';
 import { useSession } from '@/features/auth/api/get-session';
 import { useWorkspace } from '@/features/auth/use-workspace';
-import { useCompounds } from '@/features/compounds/api/get-compounds';
+import { useCompoundPages } from '@/features/compounds/api/get-compounds';
 import { useCreateCompound } from '@/features/compounds/api/create-compound';
 import { useUpdateCompound } from '@/features/compounds/api/update-compound';
 import { useDeleteCompound } from '@/features/compounds/api/delete-compound';
@@ -24,7 +25,8 @@ type Editing = { mode: 'new' } | { mode: 'edit'; compound: Compound } | null;
 export function Component() {
   const workspace = useWorkspace();
   const { data: session } = useSession();
-  const compounds = useCompounds(workspace.id);
+  const [q, setQ] = useState('');
+  const compounds = useCompoundPages(workspace.id, q);
   const solvents = useSolvents();
   const create = useCreateCompound(workspace.id);
   const update = useUpdateCompound(workspace.id);
@@ -98,7 +100,7 @@ export function Component() {
           title="Compounds could not be loaded"
           onRetry={() => compounds.refetch()}
         />
-      ) : compounds.data.length === 0 ? (
+      ) : compounds.items.length === 0 && !q ? (
         editing ? null : (
           <EmptyState
             title="No compounds yet — add your product and its impurities from a SMILES"
@@ -110,12 +112,28 @@ export function Component() {
           </EmptyState>
         )
       ) : (
-        <CompoundTable
-          compounds={compounds.data}
-          canWrite={canWrite}
-          selectedId={current?.id}
-          onOpen={(c) => setEditing({ mode: 'edit', compound: c })}
-        />
+        <div className="space-y-3">
+          <ListSearch label="Search compounds" placeholder="Name or formula" onSearch={setQ} />
+          {compounds.items.length === 0 ? (
+            <p className="px-3 py-2 text-body text-ink-muted">
+              No compound matches “{q}”. Clear the search to see them all.
+            </p>
+          ) : (
+            <CompoundTable
+              compounds={compounds.items}
+              canWrite={canWrite}
+              selectedId={current?.id}
+              onOpen={(c) => setEditing({ mode: 'edit', compound: c })}
+            />
+          )}
+          <ListMore
+            shown={compounds.items.length}
+            noun={['compound', 'compounds']}
+            hasMore={compounds.hasNextPage}
+            loading={compounds.isFetchingNextPage}
+            onMore={() => compounds.fetchNextPage()}
+          />
+        </div>
       )}
       <ConfirmDialog
         open={confirmDelete && current !== null}

@@ -3,7 +3,8 @@ import type { Equipment } from '@shared/schemas/equipment';
 import { canInWorkspace } from '@/features/auth/abilities';
 import { useSession } from '@/features/auth/api/get-session';
 import { useWorkspace } from '@/features/auth/use-workspace';
-import { useEquipment } from '@/features/equipment/api/get-equipment';
+import { useEquipmentPages } from '@/features/equipment/api/get-equipment';
+import { ListMore, ListSearch } from '@/components/list-controls';
 import { useCreateEquipment } from '@/features/equipment/api/create-equipment';
 import { useUpdateEquipment } from '@/features/equipment/api/update-equipment';
 import { useDeleteEquipment } from '@/features/equipment/api/delete-equipment';
@@ -23,7 +24,8 @@ type Editing = { mode: 'new' } | { mode: 'edit'; item: Equipment } | null;
 export function Component() {
   const workspace = useWorkspace();
   const { data: session } = useSession();
-  const equipment = useEquipment(workspace.id);
+  const [q, setQ] = useState('');
+  const equipment = useEquipmentPages(workspace.id, q);
   const create = useCreateEquipment(workspace.id);
   const update = useUpdateEquipment(workspace.id);
   const remove = useDeleteEquipment(workspace.id);
@@ -87,7 +89,7 @@ export function Component() {
           title="Equipment could not be loaded"
           onRetry={() => equipment.refetch()}
         />
-      ) : equipment.data.items.length === 0 ? (
+      ) : equipment.items.length === 0 && !q ? (
         editing ? null : (
           <EmptyState
             title="No equipment yet — add the vessels you run batches in"
@@ -99,12 +101,28 @@ export function Component() {
           </EmptyState>
         )
       ) : (
-        <EquipmentTable
-          items={equipment.data.items}
-          canWrite={canWrite}
-          selectedId={current?.id}
-          onOpen={(item) => setEditing({ mode: 'edit', item })}
-        />
+        <div className="space-y-3">
+          <ListSearch label="Search equipment" placeholder="Name" onSearch={setQ} />
+          {equipment.items.length === 0 ? (
+            <p className="px-3 py-2 text-body text-ink-muted">
+              No equipment matches “{q}”. Clear the search to see it all.
+            </p>
+          ) : (
+            <EquipmentTable
+              items={equipment.items}
+              canWrite={canWrite}
+              selectedId={current?.id}
+              onOpen={(item) => setEditing({ mode: 'edit', item })}
+            />
+          )}
+          <ListMore
+            shown={equipment.items.length}
+            noun={['item', 'items']}
+            hasMore={equipment.hasNextPage}
+            loading={equipment.isFetchingNextPage}
+            onMore={() => equipment.fetchNextPage()}
+          />
+        </div>
       )}
       <ConfirmDialog
         open={confirmDelete && current !== null}

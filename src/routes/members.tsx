@@ -1,7 +1,9 @@
+import { useState } from 'react';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { useSession } from '@/features/auth/api/get-session';
 import { canInWorkspace } from '@/features/auth/abilities';
-import { useMembers } from '@/features/members/api/get-members';
+import { useMemberPages } from '@/features/members/api/get-members';
+import { ListMore, ListSearch } from '@/components/list-controls';
 import { InviteForm } from '@/features/members/components/invite-form';
 import { MemberTable } from '@/features/members/components/member-table';
 import { PageHeader } from '@/components/page-header';
@@ -58,7 +60,9 @@ function MemberList({
   currentUserId: string;
   can: Can;
 }) {
-  const members = useMembers(workspaceId);
+  const [q, setQ] = useState('');
+  const members = useMemberPages(workspaceId, q);
+  const search = <ListSearch label="Search members" placeholder="Name or e-mail" onSearch={setQ} />;
   if (members.isPending) return <Loading label="Loading members…" />;
   if (members.isError)
     return (
@@ -68,7 +72,17 @@ function MemberList({
         onRetry={() => members.refetch()}
       />
     );
-  if (members.data.length === 0) {
+  if (members.items.length === 0 && q) {
+    return (
+      <div className="space-y-3">
+        {search}
+        <p className="px-3 py-2 text-body text-ink-muted">
+          No member matches “{q}”. Clear the search to see them all.
+        </p>
+      </div>
+    );
+  }
+  if (members.items.length === 0) {
     return (
       <EmptyState title="No members yet">
         {can.updateRoles
@@ -78,12 +92,22 @@ function MemberList({
     );
   }
   return (
-    <MemberTable
-      workspaceId={workspaceId}
-      members={members.data}
-      currentUserId={currentUserId}
-      canUpdateRoles={can.updateRoles}
-      canRemove={can.remove}
-    />
+    <div className="space-y-3">
+      {search}
+      <MemberTable
+        workspaceId={workspaceId}
+        members={members.items}
+        currentUserId={currentUserId}
+        canUpdateRoles={can.updateRoles}
+        canRemove={can.remove}
+      />
+      <ListMore
+        shown={members.items.length}
+        noun={['member', 'members']}
+        hasMore={members.hasNextPage}
+        loading={members.isFetchingNextPage}
+        onMore={() => members.fetchNextPage()}
+      />
+    </div>
   );
 }

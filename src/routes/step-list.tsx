@@ -204,7 +204,7 @@ export function Component() {
                   error={equipment.error}
                   onRetry={() => equipment.refetch()}
                 />
-              ) : equipment.data && equipment.data.items.length === 0 ? (
+              ) : equipment.data && equipment.data.length === 0 ? (
                 <p className="text-small text-ink-muted">
                   This workspace has no equipment yet: the step list is made without vessel checks.{' '}
                   <Link
@@ -228,7 +228,7 @@ export function Component() {
                           value={chosen[step.id] ?? ''}
                           options={[
                             { value: '', label: 'No equipment (no check)' },
-                            ...(equipment.data?.items ?? [])
+                            ...(equipment.data ?? [])
                               .filter((item) => kindsFor(step.kind).includes(item.kind))
                               .map((item) => ({
                                 value: item.id,

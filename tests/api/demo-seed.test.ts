@@ -51,7 +51,8 @@ describe('migrations and the demo seed', () => {
       expect.objectContaining({ name: 'Demo process group (invented)', roles: ['chemist'] }),
     ]);
     const demoId = chemist.session.workspaces[0].id;
-    const members = (await chemist.agent.get(`/api/v1/workspaces/${demoId}/members`)).body as {
+    const members = (await chemist.agent.get(`/api/v1/workspaces/${demoId}/members`)).body
+      .items as {
       email: string;
       roles: string[];
     }[];

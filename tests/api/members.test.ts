@@ -58,7 +58,7 @@ describe('workspace members', () => {
   it('lists members with their roles for any member', async () => {
     const response = await asChemist.agent.get(membersPath());
     expect(response.status).toBe(200);
-    const members = memberListSchema.parse(response.body);
+    const members = memberListSchema.parse(response.body).items;
     expect(members.map((m) => m.userId).sort()).toEqual([admin.id, chemist.id, reviewer.id].sort());
     expect(members.find((m) => m.userId === reviewer.id)!.roles).toEqual(['reviewer', 'engineer']);
   });

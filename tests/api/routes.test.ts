@@ -141,7 +141,7 @@ describe('routes of a workspace', () => {
     // The project name matched the existing one, ignoring case.
     const projects = projectListSchema.parse(
       (await asReviewer.agent.get(`/api/v1/workspaces/${workspace.id}/projects`)).body,
-    );
+    ).items;
     expect(projects.filter((p) => p.name.toLowerCase() === 'programme a (invented)')).toHaveLength(
       1,
     );

@@ -1,2 +1,2 @@
 // The members feature's public face.
-export { useMembers } from './api/get-members';
+export { useMembersWithRole } from './api/get-members';

@@ -15,7 +15,7 @@ import { FieldError, TextField, inputClass } from '@/components/text-field';
 import { formatDateTime } from '@/lib/format';
 import { useEditorStore } from '@/stores/editor-store';
 import { toast } from '@/stores/toasts';
-import { useMembers } from '@/features/members';
+import { useMembersWithRole } from '@/features/members';
 import {
   useAddComment,
   useComments,
@@ -73,14 +73,12 @@ export function ReviewPanel({ workspaceId, routeId, revision }: Props) {
 }
 
 function SubmitForm({ workspaceId, routeId, revision }: Props) {
-  const members = useMembers(workspaceId);
+  const members = useMembersWithRole(workspaceId, 'reviewer');
   const submit = useSubmitForReview(workspaceId, routeId, revision.number);
   const [chosen, setChosen] = useState<string[]>([]);
   const [note, setNote] = useState('');
   const [error, setError] = useState<string | null>(null);
-  const reviewers = (members.data ?? []).filter(
-    (m) => m.roles.includes('reviewer') && m.userId !== revision.author.id,
-  );
+  const reviewers = (members.data ?? []).filter((m) => m.userId !== revision.author.id);
   const onSubmit = async (e: FormEvent) => {
     e.preventDefault();
     setError(null);
