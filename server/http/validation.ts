@@ -1,3 +1,4 @@
+import { messageInWords } from '@shared/engine/route/field-words';
 import type { z } from 'zod';
 import type { ApiErrorDetail } from '@shared/schemas/errors';
 
@@ -8,6 +9,7 @@ export function zodIssuesToDetails(
 ): ApiErrorDetail[] {
   return issues.map((issue) => ({
     path: [...prefix, ...issue.path.map(String)].join('.'),
-    message: issue.message,
+    // The schema's default wording ("Too big: expected …") said as what to enter instead.
+    message: messageInWords(issue),
   }));
 }

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import type { z } from 'zod';
+import { fieldInWords, messageInWords } from '@shared/engine/route/field-words';
 import { isApiError } from '@/api/client';
 
 export type FieldErrors = Record<string, string>;
@@ -9,7 +10,7 @@ export function issuesToErrors(issues: z.core.$ZodIssue[]): FieldErrors {
   const out: FieldErrors = {};
   for (const issue of issues) {
     const key = issue.path.map(String).join('.');
-    if (!(key in out)) out[key] = issue.message;
+    if (!(key in out)) out[key] = messageInWords(issue);
   }
   return out;
 }
@@ -57,7 +58,7 @@ export function useForm<S extends z.ZodType<unknown, Record<string, unknown>>>(
       // a part of the URL such as a token) are named and shown above the form.
       const unplaced = Object.entries(fields)
         .filter(([k]) => !known.includes(k))
-        .map(([k, m]) => (k ? `${k}: ${m}` : m));
+        .map(([k, m]) => (k ? `${fieldInWords(k)}: ${m}` : m));
       // When every problem sits on its field, the fields say it all; a generic
       // "Some fields are not valid." above them would only repeat it vaguely.
       setFormError(

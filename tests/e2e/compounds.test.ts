@@ -60,7 +60,30 @@ describe('compounds', () => {
     await form.getByLabel('ΔHfus (kJ/mol)').fill('-3');
     await form.getByRole('button', { name: 'Save compound' }).click();
     await form.getByText('Must be positive.').waitFor();
+    await form.getByText('Some fields need attention').waitFor();
+    await shot('compounds-03b-marked');
+    // Each problem goes as soon as its field is fixed, before the next save.
     await form.getByLabel('ΔHfus (kJ/mol)').fill('27');
+    await expect.poll(() => form.getByText('Must be positive.').count()).toBe(0);
+    await expect.poll(() => form.getByText('Some fields need attention').count()).toBe(0);
+    await expect(form.getByLabel('ΔHfus (kJ/mol)').getAttribute('aria-invalid')).resolves.not.toBe(
+      'true',
+    );
+    // A field still wrong keeps its mark while another is fixed.
+    await form.getByLabel('Name').fill('');
+    await form.getByLabel('Melting point (°C)').fill('9999');
+    await form.getByRole('button', { name: 'Save compound' }).click();
+    const nameError = form.locator('[id$="-error"]').filter({ hasText: /name/i });
+    await nameError.waitFor();
+    await form.getByLabel('Name').fill('Propanoic acid impurity (test)');
+    await expect.poll(() => nameError.count()).toBe(0);
+    await expect(form.getByLabel('Melting point (°C)').getAttribute('aria-invalid')).resolves.toBe(
+      'true',
+    );
+    await form.getByLabel('Melting point (°C)').fill('101');
+    await expect
+      .poll(() => form.getByLabel('Melting point (°C)').getAttribute('aria-invalid'))
+      .not.toBe('true');
     await form.getByRole('button', { name: 'Save compound' }).click();
     await page
       .getByRole('status')

@@ -149,4 +149,44 @@ describe('joining steps on the canvas', () => {
     await shot('connections-04-swap-plot');
     expect(flows.browser.problems).toEqual([]);
   });
+
+  it('says every problem in the chemist’s words, once, and keeps a refused value out of the draft', async () => {
+    const { page, shot } = flows.browser;
+    await page.goto(flows.base + '/');
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    const name = `Messages ${Date.now().toString(36)}`;
+    await page.getByRole('button', { name: 'New route' }).click();
+    await page.getByLabel('Route name').fill(name);
+    await page.getByRole('button', { name: 'Create and open' }).click();
+    await page.getByRole('heading', { level: 1, name }).waitFor();
+
+    // The first problem of a new route: what to do, not a path and an internal id.
+    await page.getByRole('button', { name: 'Add Charge' }).click();
+    await page.getByRole('tab', { name: /^Cautions/ }).click();
+    const problems = page.getByRole('list', { name: 'Problems to fix' });
+    await problems.getByText(/Charge the compound you isolate/).waitFor();
+    const said = await problems.innerText();
+    expect(said).not.toMatch(/referenceInput|componentId|Unknown component|params\./);
+    await shot('messages-01-new-route');
+
+    // A value out of range: one message under its field, in words; the route keeps its last
+    // good value, so the draft still saves.
+    await page.getByRole('tab', { name: 'Step' }).click();
+    const settings = page.getByRole('form', { name: /Settings of Charge/ });
+    const temperature = settings.getByLabel('Temperature', { exact: true });
+    await temperature.fill('900 °C');
+    await temperature.press('Enter');
+    await settings.getByText('Enter at most 250.').waitFor();
+    await expect(page.getByText('Enter at most 250.').count()).resolves.toBe(1);
+    await expect(page.getByText(/params\.|Too big|expected number/).count()).resolves.toBe(0);
+    await expect(temperature.getAttribute('aria-invalid')).resolves.toBe('true');
+    await page.locator('[data-save-state="saved"]').waitFor();
+    await shot('messages-02-out-of-range');
+    // Fixed, the message goes.
+    await temperature.fill('40 °C');
+    await temperature.press('Enter');
+    await expect.poll(() => page.getByText('Enter at most 250.').count()).toBe(0);
+    await page.locator('[data-save-state="saved"]').waitFor();
+    expect(flows.browser.problems).toEqual([]);
+  });
 });

@@ -54,6 +54,18 @@ describe('routes list', () => {
     // Rename.
     await page.getByRole('button', { name: `Rename ${name}`, exact: true }).click();
     const form = page.getByRole('form', { name: 'Rename route' });
+    // Checked as New route checks a name: an empty or overlong name is said under the field,
+    // in words, and nothing is sent.
+    await form.getByLabel('New name').fill('   ');
+    await form.getByRole('button', { name: 'Save name' }).click();
+    await form.getByText('Give the route a name.').waitFor();
+    await form.getByLabel('New name').fill('x'.repeat(10_000));
+    await expect(form.getByText('Give the route a name.').count()).resolves.toBe(0);
+    await form.getByRole('button', { name: 'Save name' }).click();
+    await form.getByText('Keep the name under 200 characters.').waitFor();
+    await expect(form.getByText(/not valid/).count()).resolves.toBe(0);
+    await shot('routes-02a-rename-refused');
+    await expect(page.getByRole('link', { name, exact: true }).count()).resolves.toBe(1);
     await form.getByLabel('New name').fill(renamed);
     await shot('routes-02-rename');
     await form.getByRole('button', { name: 'Save name' }).click();
@@ -127,5 +139,25 @@ describe('routes list', () => {
     await expect(page.locator('.react-flow__node').count()).resolves.toBe(steps);
     await shot('routes-05-reviewer-editor');
     expect(flows.browser.problems).toEqual([]);
+  });
+
+  it('answers a route that is not there with where to go, not “Try again”', async () => {
+    const { page, shot } = flows.browser;
+    await signInAs('chemist@example.com');
+    const demo = page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true });
+    const href = (await demo.getAttribute('href'))!;
+    // The same workspace, a route id that names nothing.
+    await page.goto(
+      base + href.replace(/routes\/[^/]+$/, 'routes/00000000-0000-4000-8000-000000000000'),
+    );
+    const notice = page.getByRole('alert').filter({ hasText: 'The route was not found' });
+    await notice.waitFor();
+    await expect(notice.innerText()).resolves.toMatch(/mistyped|workspace/);
+    await expect(notice.getByRole('button', { name: 'Try again' }).count()).resolves.toBe(0);
+    await shot('routes-06-route-not-found');
+    await notice.getByRole('link', { name: 'Go to your routes' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    // The browser logs the 404 of the missing route; that answer is the point of this flow.
+    expect(flows.browser.problems.filter((p) => !/status of 404/.test(p))).toEqual([]);
   });
 });

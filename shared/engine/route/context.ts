@@ -221,7 +221,9 @@ export function buildContext(
   if (!refComp)
     issues.push({
       field: 'referenceInput.componentId',
-      message: `Unknown component "${doc.referenceInput.componentId}".`,
+      message: products.length
+        ? `The reference compound is not one of the route's compounds; yields are worked out per kg of ${products[0].name}, so choose it.`
+        : 'Charge the compound you isolate (the product) in a Charge step: yield and purity are worked out per kg of it.',
     });
   const referenceKg = doc.referenceInput.massKg;
   const ctx: EvalContext = {

@@ -28,6 +28,7 @@
  *  - peak volume per step; cycle time as the sum of the steps' durations
  *    (common-practice durations, parallel branches counted in series).
  */
+import { messageInWords } from './field-words';
 import { routeDocumentSchema, PORTS, type RouteDocument, type RouteStep } from '../document';
 import type { SeededRandom } from '../random';
 import { EngineError } from '../errors';
@@ -168,7 +169,10 @@ export function parseRoute(doc: unknown): RouteDocument {
         path[0] === 'steps' && steps?.[Number(path[1])]?.id
           ? String(steps[Number(path[1])].id)
           : null;
-      return { stepId, field: path.join('.'), message: i.message };
+      // A step's field is named inside the step (as the route validation names it); the
+      // message says what to enter, in the chemist's words, not the schema's.
+      const field = (stepId ? path.slice(2) : path).join('.');
+      return { stepId, field, message: messageInWords(i) };
     }),
   );
 }

@@ -28,7 +28,8 @@ describe('step form', () => {
     expect(html).toContain('Fraction removed 1');
     expect(html).not.toContain('params.removals.0.fractionRemoved');
     expect(html).toContain('aria-invalid="true"');
-    expect(count(html, 'Too big')).toBe(1);
+    expect(count(html, 'Enter at most 1.')).toBe(1);
+    expect(html).not.toContain('Too big');
     expect(html).not.toMatch(/<ul[^>]*role="alert"/);
   });
 
@@ -39,7 +40,32 @@ describe('step form', () => {
       }),
     );
     expect(html).toMatch(/<ul[^>]*role="alert"/);
-    expect(html).toContain('params');
+    expect(html).toContain('This setting is not one the step has');
+    expect(html).not.toContain('params');
+  });
+
+  it('puts a problem with the value of an uncertain number on its field, once, in words', () => {
+    const html = renderToStaticMarkup(
+      createElement(StepPanel, {
+        step: {
+          id: 's2',
+          name: 'Antisolvent',
+          kind: 'crystallisation',
+          params: {
+            mode: {
+              kind: 'antisolvent',
+              antisolventId: 'n-heptane',
+              volume: { value: 5e6, unit: 'vol' },
+              temperatureC: 20,
+            },
+            seeded: false,
+          },
+        } as unknown as StepInput,
+      }),
+    );
+    expect(html).not.toMatch(/params\.|Too big|expected number/);
+    expect(html).not.toMatch(/<ul[^>]*role="alert"/);
+    expect(html).toContain('aria-invalid="true"');
   });
 
   it('renders a clean step with no problem list', () => {

@@ -89,7 +89,8 @@ describe('route validation', () => {
     if (s.kind === 'drying') s.params.temperatureC = 900;
     const issues = issuesOf(d);
     expect(issues[0].stepId).toBe('dry');
-    expect(issues[0].field).toBe('steps.8.params.temperatureC');
+    expect(issues[0].field).toBe('params.temperatureC');
+    expect(issues[0].message).toBe('Enter at most 250.');
   });
   it('reports a medium above its saturation wt%', () => {
     const d = demo();

@@ -1,4 +1,4 @@
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import {
   COMPOUND_ROLE_LABELS,
   COMPOUND_ROLES,
@@ -27,6 +27,14 @@ function useDebounced<T>(value: T, ms: number): T {
   return debounced;
 }
 
+const NEEDS_ATTENTION = 'Some fields need attention: they are marked below.';
+
+/** The errors without those of one field of the draft (and of its rows). */
+function withoutField(errors: FieldErrors, key: string): FieldErrors {
+  const kept = Object.entries(errors).filter(([k]) => k !== key && !k.startsWith(`${key}.`));
+  return kept.length === Object.keys(errors).length ? errors : Object.fromEntries(kept);
+}
+
 type Props = {
   compound: Compound | null;
   solvents: SolventSummary[];
@@ -52,8 +60,36 @@ export function CompoundForm({
   );
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string>();
-  const set = <K extends keyof CompoundDraft>(key: K, value: CompoundDraft[K]) =>
+  /** Problems only the server can judge (a name in use, a structure it cannot read). */
+  const fromServer = useRef(new Set<string>());
+  const set = <K extends keyof CompoundDraft>(key: K, value: CompoundDraft[K]) => {
     setDraft((d) => ({ ...d, [key]: value }));
+    // A changed field drops the server's word on it (the next save checks it again).
+    for (const k of fromServer.current)
+      if (k === key || k.startsWith(`${key}.`)) fromServer.current.delete(k);
+    setErrors((e) => withoutField(e, key));
+  };
+  // Once problems are shown, each goes as soon as its field is fixed, and says the current
+  // problem while it is not: the draft is checked again on every change.
+  useEffect(() => {
+    setErrors((shown) => {
+      if (!Object.keys(shown).length) return shown;
+      const checked = checkDraft(draft);
+      const now: FieldErrors = checked.ok ? {} : checked.errors;
+      const next: FieldErrors = {};
+      for (const [k, m] of Object.entries(shown)) {
+        if (k in now) next[k] = now[k];
+        else if (fromServer.current.has(k)) next[k] = m;
+      }
+      const same =
+        Object.keys(next).length === Object.keys(shown).length &&
+        Object.entries(next).every(([k, m]) => shown[k] === m);
+      return same ? shown : next;
+    });
+  }, [draft]);
+  useEffect(() => {
+    if (!Object.keys(errors).length) setFormError((f) => (f === NEEDS_ATTENTION ? undefined : f));
+  }, [errors]);
 
   const structureText = (draft.structureKind === 'smiles' ? draft.smiles : draft.molfile).trim()
     ? draft.structureKind === 'smiles'
@@ -77,7 +113,7 @@ export function CompoundForm({
     const checked = checkDraft(draft);
     if (!checked.ok) {
       setErrors(checked.errors);
-      setFormError('Some fields need attention: they are marked below.');
+      setFormError(NEEDS_ATTENTION);
       return;
     }
     setErrors({});
@@ -86,6 +122,7 @@ export function CompoundForm({
     } catch (error) {
       if (isApiError(error)) {
         const fields = error.fieldErrors();
+        fromServer.current = new Set(Object.keys(fields));
         setErrors(fields);
         setFormError(error.message);
       } else

@@ -73,7 +73,8 @@ export function QuantityField({
   label: string;
   kind: QuantityKind;
   value: unknown;
-  onCommit: (value: unknown) => void;
+  /** Puts the value into the route; a string back is why the route refused it. */
+  onCommit: (value: unknown) => string | undefined | void;
   hint?: ReactNode;
   error?: string;
   common?: boolean;
@@ -100,8 +101,9 @@ export function QuantityField({
       setParseError(r.error);
       return;
     }
-    setParseError(null);
-    onCommit(r.value);
+    // The step refuses a value it cannot take (out of range): said here, the route unchanged.
+    const refused = onCommit(r.value);
+    setParseError(typeof refused === 'string' ? refused : null);
   };
   const err = parseError ?? error;
   return (

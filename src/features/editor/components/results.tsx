@@ -8,6 +8,7 @@ import { streamsCsv, type StreamRow } from '../streams-csv';
 import { componentLabel } from './fields';
 import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
 import { Button } from '@/components/button';
+import { fieldInWords } from '@shared/engine/route/field-words';
 import { formatLevel, formatPurity, LimitMark } from './purge-view';
 
 const NO_ISSUES: never[] = [];
@@ -268,7 +269,7 @@ export function CautionList() {
                   <span className="font-medium">
                     {i.stepId ? (nameOf.get(i.stepId) ?? i.stepId) : 'Route'}
                   </span>
-                  {i.field ? ` · ${i.field}` : ''}: {i.message}
+                  {fieldInWords(i.field) ? ` · ${fieldInWords(i.field)}` : ''}: {i.message}
                 </span>
               </button>
             </li>

@@ -2,16 +2,19 @@ import { useMemo } from 'react';
 import { useShallow } from 'zustand/react/shallow';
 import { stepSchema, PORTS, type StepKind } from '@shared/schemas/route';
 import type { Compound } from '@shared/schemas/compounds';
+import { fieldInWords, messageInWords } from '@shared/engine/route/field-words';
 import { Button } from '@/components/button';
 import { useEditorStore } from '@/stores/editor-store';
 import { useEvaluation } from '../evaluation';
-import { checkConnection, getIn, type StepInput } from '../document';
+import { checkConnection, getIn, setIn, type StepInput } from '../document';
 import { KINDS } from '../step-kinds';
 import { ChoiceField, ComponentPicker, QuantityField, TextInputField } from './fields';
 import { PhaseMark } from './phase';
 
 type Path = ReadonlyArray<string | number>;
 const NONE: never[] = [];
+/** The parts of one quantity field below its path: a volume's value and unit, a value's ±. */
+const QUANTITY_PART = /^(\.(value|plusMinus|unit))+$/;
 
 /** The selected step's parameters as a form; every field checked by the shared schema, engine problems placed on their field. */
 export function StepPanel({ step, compounds }: { step: StepInput; compounds?: Compound[] }) {
@@ -24,11 +27,27 @@ export function StepPanel({ step, compounds }: { step: StepInput; compounds?: Co
   const schemaErrors = useMemo(() => {
     const r = stepSchema.safeParse(step);
     const out: Record<string, string> = {};
-    if (!r.success) for (const i of r.error.issues) out[i.path.map(String).join('.')] ??= i.message;
+    // One message per field: the form's own check and the engine's say the same problem once.
+    if (!r.success)
+      for (const i of r.error.issues) out[i.path.map(String).join('.')] ??= messageInWords(i);
     for (const i of engineIssues) out[i.field.replace(/\[(\d+)\]/g, '.$1')] ??= i.message;
     return out;
   }, [step, engineIssues]);
-  const set = (path: Path, value: unknown) => updateStep(step.id, path, value);
+  // A typed value the step's schema refuses (out of range, say) is not put into the route: the
+  // field says why and the draft keeps its last good value, so it still saves. Returns the problem.
+  const set = (path: Path, value: unknown): string | undefined => {
+    const checked = stepSchema.safeParse(setIn(step, path, value));
+    if (!checked.success) {
+      const key = path.join('.');
+      const own = checked.error.issues.find((i) => {
+        const k = i.path.map(String).join('.');
+        return k === key || (k.startsWith(`${key}.`) && QUANTITY_PART.test(k.slice(key.length)));
+      });
+      if (own && value !== undefined) return messageInWords(own);
+    }
+    updateStep(step.id, path, value);
+    return undefined;
+  };
   const val = (path: Path) => getIn(step, path);
 
   return (
@@ -59,9 +78,17 @@ function KindForm({
 }: Omit<Ctx, 'err' | 'claim'> & { errors: Record<string, string> }) {
   const placed = new Set<string>();
   const claimed: string[] = [];
-  const lookup = (p: Path) => errors[p.join('.')];
+  // A field takes its own problem and those of its parts (the value, the ± or the unit of a
+  // quantity), so no problem of a field is listed apart from it.
+  const under = (p: Path) => {
+    const key = p.join('.');
+    return Object.keys(errors).filter(
+      (k) => k === key || (k.startsWith(`${key}.`) && QUANTITY_PART.test(k.slice(key.length))),
+    );
+  };
+  const lookup = (p: Path) => under(p).map((k) => errors[k])[0];
   const err = (p: Path) => {
-    placed.add(p.join('.'));
+    for (const k of under(p)) placed.add(k);
     return lookup(p);
   };
   // A sub-form (a component of its own) takes every problem under its path.
@@ -86,7 +113,7 @@ function KindForm({
                 aria-hidden="true"
                 className="mt-1 inline-block size-2 shrink-0 rotate-45 bg-caution-hazard"
               />
-              {k ? `${k}: ` : ''}
+              {fieldInWords(k) ? `${fieldInWords(k)}: ` : ''}
               {m}
             </li>
           ))}
@@ -99,7 +126,7 @@ function KindForm({
 
 type Ctx = {
   kind: StepKind;
-  set: (p: Path, v: unknown) => void;
+  set: (p: Path, v: unknown) => string | undefined;
   err: (p: Path) => string | undefined;
   val: (p: Path) => unknown;
   compounds?: Compound[];

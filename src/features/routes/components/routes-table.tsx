@@ -11,12 +11,12 @@ import {
 import type { RouteSort } from '@shared/schemas/routes';
 import { Button } from '@/components/button';
 import { SortHeader } from '@/components/sortable-table';
-import { inputClass } from '@/components/text-field';
 import { formatDateTime } from '@/lib/format';
 import { paths } from '@/paths';
 import type { RouteSummary } from '../api/schemas';
 import { useUpdateRoute } from '../api/update-route';
 import { useDuplicateRoute } from '../api/duplicate-route';
+import { RenameRouteForm } from './rename-route-form';
 import { toast } from '@/stores/toasts';
 
 const col = createColumnHelper<RouteSummary>();
@@ -187,44 +187,12 @@ export function RoutesTable({
   return (
     <div className="space-y-3">
       {renaming ? (
-        <form
-          aria-label="Rename route"
-          className="flex items-end gap-2 rounded-card border border-rule bg-paper-raised p-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            const name = renaming.name.trim();
-            if (!name) return;
-            update.mutate(
-              { routeId: renaming.id, input: { name, baseVersion: renaming.version } },
-              {
-                onSuccess: () => {
-                  toast.success('Route renamed.');
-                  setRenaming(null);
-                },
-                onError: (err) => toast.error(err.message),
-              },
-            );
-          }}
-        >
-          <div className="w-80 space-y-1">
-            <label htmlFor="rename-route" className="block text-small font-medium text-ink">
-              New name
-            </label>
-            <input
-              id="rename-route"
-              autoFocus
-              value={renaming.name}
-              onChange={(e) => setRenaming({ ...renaming, name: e.target.value })}
-              className={`${inputClass} border-rule-strong`}
-            />
-          </div>
-          <Button type="submit" busy={update.isPending}>
-            Save name
-          </Button>
-          <Button variant="secondary" onClick={() => setRenaming(null)}>
-            Cancel
-          </Button>
-        </form>
+        <RenameRouteForm
+          key={renaming.id}
+          workspaceId={workspaceId}
+          route={renaming}
+          onDone={() => setRenaming(null)}
+        />
       ) : null}
       <div className="overflow-x-auto rounded-card border border-rule bg-paper-raised">
         <table className="w-full border-collapse text-left text-body">
