@@ -85,6 +85,8 @@ const humanise = (key: string) =>
  * The field a problem is about, as the chemist knows it: "Antisolvent volume",
  * "Item 2 of Contents: amount", "Reference compound (yields are per kg of it)".
  * Accepts "a.b.0.c" and "a.b[0].c"; a path inside a step may keep its "steps.N." prefix.
+ * Source: this project's own wording (no external source): the step panel's labels.
+ * Validity: any path; one not in the tables is said by its last key in words.
  * @param field  the path the schema or the validation reported
  * @returns the label, or '' when the problem is about the step or document as a whole
  */
@@ -150,6 +152,8 @@ const DEFAULT_MESSAGE =
 /**
  * A schema problem as what to enter: "Enter at most 1 × 10⁶.", "Enter a number.", "Choose one
  * of the options.". A message the schema itself words (custom) is returned unchanged.
+ * Source: this project's own wording (no external source) of the schema library's issue codes.
+ * Validity: any issue; an unknown code is said as "Check this value.".
  * @param issue  a zod issue (or anything with its code, message and limits)
  * @returns one sentence for the chemist
  */
