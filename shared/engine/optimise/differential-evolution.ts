@@ -26,6 +26,10 @@
  * differential evolution", MENDEL 1999), so the optimiser only ever asks for
  * whole stages or cycles.
  *
+ * The method references above are given from memory (the methods are
+ * standard); the project's tests check the implementation against published
+ * test functions rather than against the papers' tables.
+ *
  * Reproducible: the generator state travels in the state, and the trials of
  * a generation are drawn together at its start, so the answer does not
  * depend on how the run is cut into chunks.

@@ -120,7 +120,8 @@ const NOTHING_ISOLATED_VIOLATION = 1e6;
  * Evaluations a run gets when the request names no budget: 50 + 50 per free
  * parameter, at most MAX_EVALUATIONS (2000).
  * Source: this project's own choice (common practice for differential
- * evolution is 10–100 evaluations per dimension; Storn & Price 1997).
+ * evolution is 10–100 evaluations per dimension — recalled from memory, no
+ * source checked in this project).
  * Validity: 1 or more free parameters.
  * @param freeCount  number of free parameters [–]
  * @returns the evaluation budget [–]
