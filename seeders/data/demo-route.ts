@@ -106,6 +106,7 @@ export const demoAmideIsolation: RouteDocumentInput = {
       enthalpyFusionKJmol: 27,
       logP: 2.4,
       pKa: [{ value: 4.2, type: 'acid' }],
+      ionisableGroups: [{ group: 'aromatic carboxylic acid', type: 'acid' }],
       note: 'Invented demo compound (carboxylic acid coupling partner).',
       solubility: [
         { solventId: '2-propanol', temperatureC: 5, value: 80, unit: 'g/L', source: invented },
@@ -128,6 +129,7 @@ export const demoAmideIsolation: RouteDocumentInput = {
       enthalpyFusionKJmol: 14,
       logP: 1.6,
       pKa: [{ value: 9.6, type: 'base' }],
+      ionisableGroups: [{ group: 'primary aliphatic amine', type: 'base' }],
       note: 'Invented demo compound (amine coupling partner, a liquid).',
     },
     {
@@ -167,6 +169,7 @@ export const demoAmideIsolation: RouteDocumentInput = {
       // Estimated from the structure (dimethylamino group; Perrin, Dempsey &
       // Serjeant group method, ±1): a unit test keeps it equal to the estimate.
       pKa: [{ value: 10, type: 'base', source: 'estimated' }],
+      ionisableGroups: [{ group: 'tertiary aliphatic amine', type: 'base' }],
       note: 'Invented demo by-product of the coupling agent, water-soluble.',
     },
   ],

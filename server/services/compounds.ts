@@ -616,6 +616,13 @@ export function toCompoundSnapshot(compound: Compound | CompoundPayload): Compou
     ...(c.enthalpyFusionKJmol !== null ? { enthalpyFusionKJmol: c.enthalpyFusionKJmol } : {}),
     ...(c.logP ? { logP: c.logP.value } : {}),
     ...(engineP.length > 0 ? { pKa: engineP } : {}),
+    ...(c.ionisableGroups.length > 0
+      ? {
+          ionisableGroups: c.ionisableGroups
+            .slice(0, 20)
+            .map(({ group, type }) => ({ group, type })),
+        }
+      : {}),
     ...(groupsUsable ? { unifac: { ...c.unifac.groups } } : {}),
     ...(c.hansen ? { hansen: { d: c.hansen.d, p: c.hansen.p, h: c.hansen.h } } : {}),
     ...(c.solubility.length > 0 ? { solubility: c.solubility.map((p) => ({ ...p })) } : {}),

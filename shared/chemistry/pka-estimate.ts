@@ -34,6 +34,12 @@ import { loadGraph, type AtomGraph, type StructureInput } from './structure';
 
 export const PKA_METHOD =
   'Perrin, Dempsey & Serjeant (1981) group method: parent pKa shifted by Taft-type ΔpKa (attenuation 0.4 per bond) or Hammett σ (meta/para)';
+/**
+ * Said with every estimate: the parent pKa values and the substituent shifts are recalled
+ * handbook values, not read from the printed tables (docs/methods.md gives each one's status).
+ */
+export const PKA_FROM_MEMORY =
+  'parent pKa and substituent shifts recalled from handbooks (from memory, not yet checked against the printed tables)';
 /** Typical error of an estimate [pKa units]. */
 export const PKA_TYPICAL_ERROR = 1;
 
@@ -285,7 +291,7 @@ function estimate(
     pKa: round1(pKa),
     method: `${PKA_METHOD}; ${detail}`,
     typicalError: PKA_TYPICAL_ERROR,
-    notes,
+    notes: [...notes, PKA_FROM_MEMORY],
   };
 }
 

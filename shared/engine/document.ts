@@ -131,6 +131,14 @@ export const compoundSnapshotSchema = z
     densityGmL: finite().positive().max(5).optional(),
     logP: finite().min(-10).max(15).optional(),
     pKa: z.array(pKaSchema).max(6).optional(),
+    /**
+     * Acidic and basic groups found in the structure (by the structure reader, not the engine),
+     * so the evaluation can say when one has no pKa and is treated as neutral.
+     */
+    ionisableGroups: z
+      .array(z.object({ group: text().min(1).max(100), type: z.enum(['acid', 'base']) }).strict())
+      .max(20)
+      .optional(),
     unifac: unifacGroupsSchema.optional(),
     hansen: z
       .object({

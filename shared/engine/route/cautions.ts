@@ -119,3 +119,40 @@ export function assumedDataNotes(ctx: EvalContext): Array<EngineWarning & { step
   }
   return out;
 }
+
+/**
+ * A warning for each compound whose structure has more acidic (or basic) groups than it has
+ * pKa values of that kind: those groups are treated as neutral, so a wash at any pH moves the
+ * compound as the neutral form (an amine is not taken out by an acid wash, an acid not by a
+ * base wash).
+ * Source: this project's own bookkeeping (no external source); the groups come with the
+ * compound from the structure reader (shared/chemistry/pka-estimate.ts).
+ * Validity: any route document the schema accepts; compounds without groups are silent.
+ * @param ctx  evaluation context (route components resolved against the library)
+ * @returns one warning per compound and kind of group (acid, base) left without a pKa
+ */
+export function missingPkaWarnings(ctx: EvalContext): Array<EngineWarning & { stepId: null }> {
+  const out: Array<EngineWarning & { stepId: null }> = [];
+  for (const id of ctx.ids) {
+    const c = ctx.comps.get(id)!;
+    const groups = c.compound?.ionisableGroups ?? [];
+    if (c.kind !== 'compound' || !groups.length) continue;
+    for (const type of ['base', 'acid'] as const) {
+      const found = groups.filter((g) => g.type === type);
+      const given = (c.compound?.pKa ?? []).filter((p) => p.type === type).length;
+      if (found.length <= given) continue;
+      const names = [...new Set(found.map((g) => g.group))].join(', ');
+      const effect =
+        type === 'base'
+          ? 'an acid wash will not take it into the water as it would a protonated base'
+          : 'a basic wash will not take it into the water as it would a deprotonated acid';
+      out.push({
+        severity: 'warning',
+        code: 'ionisable-group-without-pka',
+        message: `${c.name} has ${found.length === 1 ? `a ${type === 'base' ? 'basic' : 'acidic'} group` : `${found.length} ${type === 'base' ? 'basic' : 'acidic'} groups`} in its structure (${names}) with no pKa, so every wash and pH adjustment treats it as neutral: ${effect}. Enter a measured pKa on the compound, or take the estimate its compound page shows (±1 unit).`,
+        stepId: null,
+      });
+    }
+  }
+  return out;
+}

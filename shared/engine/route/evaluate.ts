@@ -40,7 +40,7 @@ import {
 } from './context';
 import { RouteValidationError, StepError, type RouteIssue } from './errors';
 import { validateRoute, type GraphInfo } from './validate';
-import { analogueCautions, assumedDataNotes } from './cautions';
+import { analogueCautions, assumedDataNotes, missingPkaWarnings } from './cautions';
 import type { EngineWarning, StepOutput, StepResult, Stream } from './types';
 import { charge } from '../unitops/charge';
 import { washOrExtraction } from '../unitops/wash';
@@ -281,6 +281,7 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
   warnings.push(...analogueCautions(ctx, graph.order, stepById, results));
   warnings.push(...nearLimitNotes(ctx, terminals));
   warnings.push(...assumedDataNotes(ctx));
+  warnings.push(...missingPkaWarnings(ctx));
   if (!ctx.productId)
     warnings.push({
       severity: 'info',

@@ -79,6 +79,22 @@ describe('structure fingerprints', () => {
       expect(c.fingerprint).toBe(structureFingerprint({ smiles: c.smiles! }));
     }
   });
+  it('says of every estimate that its parent values are recalled, from memory', () => {
+    const found = findIonisableGroups({ smiles: 'OC(=O)c1ccc(Cl)cc1' });
+    expect(found.ok).toBe(true);
+    const estimates = found.ok ? found.groups.filter((g) => g.pKa !== null) : [];
+    expect(estimates.length).toBeGreaterThan(0);
+    for (const g of estimates) expect(g.notes.join(' ')).toMatch(/from memory/);
+  });
+  it('the demo route carries the ionisable groups the structures give', () => {
+    for (const c of demoAmideIsolation.components) {
+      if (c.kind !== 'compound') continue;
+      const found = findIonisableGroups({ smiles: c.smiles! });
+      expect(found.ok).toBe(true);
+      const groups = found.ok ? found.groups.map(({ group, type }) => ({ group, type })) : [];
+      expect(c.ionisableGroups ?? []).toEqual(groups);
+    }
+  });
   it('a bad structure gives none', () => {
     expect(structureFingerprint({ smiles: 'C1CC' })).toBeNull();
   });

@@ -211,6 +211,13 @@ export function snapshotOf(c: Compound): ComponentInput | null {
     ...(c.enthalpyFusionKJmol !== null ? { enthalpyFusionKJmol: c.enthalpyFusionKJmol } : {}),
     ...(c.logP ? { logP: c.logP.value } : {}),
     ...(pKa.length ? { pKa } : {}),
+    ...(c.ionisableGroups?.length
+      ? {
+          ionisableGroups: c.ionisableGroups
+            .slice(0, 20)
+            .map(({ group, type }) => ({ group, type })),
+        }
+      : {}),
     ...(c.specLimitPct !== null ? { specLimitPct: c.specLimitPct } : {}),
     ...(c.solidIncorporation !== null ? { solidIncorporation: c.solidIncorporation } : {}),
     ...(c.fingerprint ? { fingerprint: c.fingerprint } : {}),
