@@ -8,7 +8,7 @@ import { Op, QueryTypes, type Sequelize, type Transaction, type WhereOptions } f
 import type { AuditEventPayload, AuditFilter, AuditVerify } from '@shared/schemas/audit';
 import { database } from '../db/sequelize';
 import { badRequest } from '../errors';
-import { AuditEvent, Membership, User } from '../models';
+import { AuditEvent, User } from '../models';
 import { containsAny } from './keyset';
 
 export interface AuditEntry {
@@ -66,22 +66,13 @@ function decodeCursor(text: string): Cursor {
 
 /**
  * The workspace's events, and the account events (sign-ins, passwords,
- * tokens) of the people who are its members now, newest first.
+ * tokens) of the people who are its members now: two scopes, each read on its
+ * own index in time order (audit_events_workspace_at_id_idx,
+ * audit_events_account_at_idx) and merged, so a page never sorts the whole
+ * trail. Members are named by a subquery, not a list, however many there are.
  */
-async function workspaceScope(workspaceId: string, filter: AuditFilter): Promise<WhereOptions> {
-  const members = await Membership.findAll({ where: { workspaceId }, attributes: ['userId'] });
-  const memberIds = members.map((m) => m.userId as string);
-  const conditions: WhereOptions[] = [
-    {
-      [Op.or]: [
-        { workspaceId },
-        {
-          workspaceId: null,
-          [Op.or]: [{ actorId: memberIds }, { entityType: 'user', entityId: memberIds }],
-        },
-      ],
-    },
-  ];
+function workspaceScopes(workspaceId: string, filter: AuditFilter): WhereOptions[] {
+  const conditions: WhereOptions[] = [];
   if (filter.entityType) conditions.push({ entityType: filter.entityType });
   if (filter.entityId) conditions.push({ entityId: filter.entityId });
   if (filter.actorId) conditions.push({ actorId: filter.actorId });
@@ -93,12 +84,34 @@ async function workspaceScope(workspaceId: string, filter: AuditFilter): Promise
     conditions.push(
       containsAny([`("AuditEvent"."action" || ' ' || "AuditEvent"."entity_type")`], filter.q),
     );
-  return { [Op.and]: conditions };
+  const ws = database().escape(workspaceId);
+  const accountOfMember = database().literal(
+    `("AuditEvent"."actor_id" IN (SELECT m.user_id FROM memberships m WHERE m.workspace_id = ${ws})` +
+      ` OR ("AuditEvent"."entity_type" = 'user' AND "AuditEvent"."entity_id" IN (SELECT m.user_id::text FROM memberships m WHERE m.workspace_id = ${ws})))`,
+  ) as unknown as WhereOptions;
+  return [
+    { [Op.and]: [{ workspaceId }, ...conditions] },
+    { [Op.and]: [{ workspaceId: null }, accountOfMember, ...conditions] },
+  ];
 }
 
 const AT_TEXT = `to_char("AuditEvent"."at" AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 
+/** The newest `limit` events of the scopes after the cursor, merged in time order. */
 async function findEvents(
+  scopes: WhereOptions[],
+  limit: number,
+  after: Cursor | null,
+): Promise<Array<AuditEvent & { atText: string }>> {
+  const parts = await Promise.all(scopes.map((where) => findScopeEvents(where, limit, after)));
+  const key = (e: AuditEvent & { atText?: string }) => `${e.get('atText') as string}|${e.id}`;
+  return parts
+    .flat()
+    .sort((a, b) => (key(a) < key(b) ? 1 : key(a) > key(b) ? -1 : 0))
+    .slice(0, limit);
+}
+
+async function findScopeEvents(
   where: WhereOptions,
   limit: number,
   after: Cursor | null,
@@ -150,7 +163,7 @@ export async function listAudit(
   filter: AuditFilter & { limit: number; cursor?: string },
 ): Promise<{ items: AuditEventPayload[]; nextCursor: string | null }> {
   const after = filter.cursor ? decodeCursor(filter.cursor) : null;
-  const rows = await findEvents(await workspaceScope(workspaceId, filter), filter.limit + 1, after);
+  const rows = await findEvents(workspaceScopes(workspaceId, filter), filter.limit + 1, after);
   const page = rows.slice(0, filter.limit);
   const last = page.at(-1);
   return {
@@ -167,7 +180,7 @@ export async function* allAuditEvents(
   workspaceId: string,
   filter: AuditFilter,
 ): AsyncGenerator<AuditEventPayload> {
-  const where = await workspaceScope(workspaceId, filter);
+  const where = workspaceScopes(workspaceId, filter);
   let after: Cursor | null = null;
   for (;;) {
     const rows = await findEvents(where, 1000, after);

@@ -3,7 +3,9 @@
  *
  * Seeds a benchmark database (never the demo data: its own database on the test cluster,
  * dropped first) with one workspace holding 10,000 routes in 100 projects and 100,000
- * revisions (10 per route; one route carries 1,000), then runs the list queries exactly as
+ * revisions (10 per route; one route carries 1,000), 2,000 members, 3,000 compounds, 1,000
+ * pieces of equipment, 10,000 comments and 2,000 samples on the large route's revisions,
+ * 20,000 audit events and 5,000 jobs of one user, then runs the list queries exactly as
  * the services issue them (their SQL is captured from Sequelize), prints EXPLAIN (ANALYZE,
  * BUFFERS) for each and the median and p95 of 30 runs, and rewrites the "lists" section of
  * docs/performance.md. The plans must name the indexes; the script fails when one scans the
@@ -20,8 +22,15 @@ import { fileURLToPath } from 'node:url';
 import { Sequelize } from 'sequelize';
 import { runMigrations } from '../../server/db/migrator';
 import { connectDatabase, closeDatabase, database } from '../../server/db/sequelize';
-import { Route } from '../../server/models';
-import { listRoutes } from '../../server/services/routes';
+import { Route, RouteRevision } from '../../server/models';
+import { listAudit } from '../../server/services/audit';
+import { listChromatograms } from '../../server/services/chromatograms';
+import { listCompounds } from '../../server/services/compounds';
+import { listEquipment } from '../../server/services/equipment';
+import { listJobs } from '../../server/services/job-list';
+import { listMembers } from '../../server/services/members';
+import { listComments } from '../../server/services/reviews';
+import { listProjects, listRoutes } from '../../server/services/routes';
 import { listRevisions } from '../../server/services/revisions';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -32,6 +41,14 @@ const ROUTES = 10_000;
 const REVISIONS_PER_ROUTE = 10;
 const BIG_ROUTE_REVISIONS = 1_000;
 const RUNS = 30;
+const MEMBERS = 10_000;
+const EXTRA_PROJECTS = 5_000;
+const COMPOUNDS = 20_000;
+const EQUIPMENT = 1_000;
+const COMMENTS = 50_000;
+const SAMPLES = 2_000;
+const AUDIT_EVENTS = 20_000;
+const JOBS = 5_000;
 
 const adminUrl = (db = 'postgres') => `postgres://postgres@127.0.0.1:${port}/${db}`;
 
@@ -46,7 +63,9 @@ function ensureCluster(): void {
   );
 }
 
-async function seed(sequelize: Sequelize): Promise<{ workspaceId: string; bigRouteId: string }> {
+async function seed(
+  sequelize: Sequelize,
+): Promise<{ workspaceId: string; bigRouteId: string; userId: string }> {
   const one = async <T>(sql: string) => ((await sequelize.query(sql))[0] as T[])[0]!;
   const { id: workspaceId } = await one<{ id: string }>(
     `INSERT INTO workspaces (name, slug) VALUES ('Benchmark site (invented)', 'bench') RETURNING id`,
@@ -78,9 +97,54 @@ async function seed(sequelize: Sequelize): Promise<{ workspaceId: string; bigRou
       SELECT r.id, r.workspace_id, n, 'Revision ' || n || ' (invented)', '{}'::jsonb, 'bench', repeat('0', 64), 1, '${userId}'
         FROM routes r
         CROSS JOIN LATERAL generate_series(1, CASE WHEN r.id = '${bigRouteId}' THEN ${BIG_ROUTE_REVISIONS} ELSE ${REVISIONS_PER_ROUTE} END) n;
+
+    INSERT INTO projects (workspace_id, name)
+      SELECT '${workspaceId}', 'Closed project ' || g || ' (invented)' FROM generate_series(1, ${EXTRA_PROJECTS}) g;
+    INSERT INTO users (email, name, password_hash)
+      SELECT 'member' || g || '@example.com',
+             (ARRAY['Ana', 'Bo', 'Chen', 'Dara', 'Eli'])[1 + g % 5] || ' Member ' || g || ' (invented)', 'x'
+        FROM generate_series(1, ${MEMBERS}) g;
+    INSERT INTO memberships (user_id, workspace_id, roles)
+      SELECT id, '${workspaceId}', CASE WHEN random() < 0.2 THEN ARRAY['reviewer'] ELSE ARRAY['chemist'] END
+        FROM users WHERE email LIKE 'member%';
+    INSERT INTO memberships (user_id, workspace_id, roles) VALUES ('${userId}', '${workspaceId}', ARRAY['admin']);
+
+    INSERT INTO compounds (workspace_id, name, role, smiles, canonical_smiles, formula, molar_mass_gmol, svg, unifac)
+      SELECT '${workspaceId}', (ARRAY['Amide', 'Ester', 'Salt', 'Acid'])[1 + g % 4] || ' impurity ' || g || ' (invented)',
+             'impurity', 'CCO', 'CCO', 'C2H6O', 46.07, '<svg/>', '{}'::jsonb
+        FROM generate_series(1, ${COMPOUNDS}) g;
+
+    INSERT INTO equipment (workspace_id, kind, name, area_m2, capacity_l)
+      SELECT '${workspaceId}', CASE WHEN g % 2 = 0 THEN 'filter' ELSE 'dryer' END,
+             'Unit ' || g || ' (invented)', 1 + g % 7, 100 + g % 900
+        FROM generate_series(1, ${EQUIPMENT}) g;
+
+    INSERT INTO review_comments (revision_id, workspace_id, author_id, body, created_at)
+      SELECT (SELECT id FROM route_revisions WHERE route_id = '${bigRouteId}' AND number = ${BIG_ROUTE_REVISIONS}),
+             '${workspaceId}', '${userId}', 'Check the wash volume of step ' || g || ' (invented)',
+             now() - (g || ' seconds')::interval
+        FROM generate_series(1, ${COMMENTS}) g;
+
+    INSERT INTO chromatograms (workspace_id, route_id, step_id, sample_name, kind, content_type, file_name, size_bytes, storage_key, format, created_at)
+      SELECT '${workspaceId}', '${bigRouteId}', 'step-' || (g % 10), 'IPC ' || g || ' (invented)', 'document',
+             'application/pdf', 'ipc-' || g || '.pdf', 1000, 'bench/' || g, 'pdf', now() - (g || ' seconds')::interval
+        FROM generate_series(1, ${SAMPLES}) g;
+
+    INSERT INTO audit_events (workspace_id, actor_id, action, entity_type, entity_id)
+      SELECT '${workspaceId}', '${userId}', (ARRAY['route.rename', 'route.create', 'compound.update', 'draft.save'])[1 + g % 4],
+             (ARRAY['route', 'route', 'compound', 'route'])[1 + g % 4], g::text
+        FROM generate_series(1, ${AUDIT_EVENTS}) g;
+
+    -- Account events (sign-ins) of the members and of people of other workspaces.
+    INSERT INTO audit_events (actor_id, action, entity_type, entity_id)
+      SELECT id, 'session.signed_in', 'user', id::text FROM users;
+    INSERT INTO evaluation_jobs (user_id, kind, status, input, created_at)
+      SELECT '${userId}', CASE WHEN g % 3 = 0 THEN 'optimise' ELSE 'monte-carlo' END, 'done', '{}'::jsonb,
+             now() - (g || ' seconds')::interval
+        FROM generate_series(1, ${JOBS}) g;
     ANALYZE;
   `);
-  return { workspaceId, bigRouteId };
+  return { workspaceId, bigRouteId, userId };
 }
 
 interface Case {
@@ -88,12 +152,17 @@ interface Case {
   run: () => Promise<unknown>;
   /** The indexes that may serve it: the plan must use one of them. */
   indexes: string[];
+  /** The table of the statement to explain, when the service issues more than one. */
+  table?: string;
 }
 
 async function measure(c: Case, captured: string[]) {
   captured.length = 0;
   await c.run();
-  const statements = captured.filter((sql) => /^Executing \(default\): SELECT/.test(sql));
+  const statements = captured.filter(
+    (sql) =>
+      /^Executing \(default\): SELECT/.test(sql) && (!c.table || sql.includes(`FROM "${c.table}"`)),
+  );
   const sql = statements[0]!.replace(/^Executing \(default\): /, '');
   const [rows] = await database().query(`EXPLAIN (ANALYZE, BUFFERS) ${sql}`);
   const plan = (rows as Array<{ 'QUERY PLAN': string }>).map((r) => r['QUERY PLAN']).join('\n');
@@ -122,7 +191,7 @@ async function main(): Promise<void> {
   const sequelize = connectDatabase(adminUrl(NAME));
   await runMigrations(sequelize);
   const seedStart = Date.now();
-  const { workspaceId, bigRouteId } = await seed(sequelize);
+  const { workspaceId, bigRouteId, userId } = await seed(sequelize);
   const seedSeconds = (Date.now() - seedStart) / 1000;
   // Sequelize reads its logging option at each query: capture the SQL the services issue.
   const options = (sequelize as unknown as { options: { logging: unknown } }).options;
@@ -140,6 +209,111 @@ async function main(): Promise<void> {
   );
   const bigRoute = (await Route.findByPk(bigRouteId))!;
   const firstRevisions = await listRevisions(bigRoute, { limit: 50 }, false, null);
+  const lastRevision = (await RouteRevision.findOne({
+    where: { routeId: bigRouteId, number: BIG_ROUTE_REVISIONS },
+  }))!;
+  const page = { limit: 50 };
+  const second = async <Q extends { limit: number; cursor?: string }>(
+    list: (query: Q) => Promise<{ nextCursor: string | null }>,
+    query: Q,
+  ) => {
+    const cursor = (await list(query)).nextCursor!;
+    return () => list({ ...query, cursor });
+  };
+  const projects = (q: { limit: number; q?: string; cursor?: string }) =>
+    listProjects(workspaceId, q, null);
+  const compounds = (q: { limit: number; sort: 'name' | 'created'; q?: string; cursor?: string }) =>
+    listCompounds(workspaceId, q, null);
+  const members = (q: { limit: number; q?: string; role?: 'reviewer'; cursor?: string }) =>
+    listMembers(workspaceId, q, null);
+  const equipment = (q: { limit: number; sort: 'name' | 'size'; q?: string; cursor?: string }) =>
+    listEquipment(workspaceId, q, null);
+  const comments = (q: { limit: number; sort: 'oldest' | 'newest'; q?: string; cursor?: string }) =>
+    listComments(lastRevision, q, null);
+  const samples = (q: { limit: number; sort: 'oldest' | 'newest'; q?: string; cursor?: string }) =>
+    listChromatograms(bigRoute, q, null);
+  const audit = (q: { limit: number; q?: string; cursor?: string }) => listAudit(workspaceId, q);
+  const jobs = (q: { limit: number; sort: 'newest' | 'oldest'; cursor?: string }) =>
+    listJobs(userId, q, null);
+  const more: Case[] = [
+    {
+      name: 'Projects, second page by name (cursor)',
+      run: await second(projects, page),
+      indexes: ['projects_workspace_name_id_idx'],
+    },
+    {
+      name: 'Projects, search "project 04"',
+      run: () => projects({ ...page, q: 'project 04' }),
+      indexes: ['projects_name_trgm_idx', 'projects_workspace_name_id_idx'],
+    },
+    {
+      name: 'Compounds, second page by name (cursor)',
+      run: await second(compounds, { ...page, sort: 'name' }),
+      indexes: ['compounds_workspace_name_id_idx'],
+    },
+    {
+      name: 'Compounds, second page newest first (cursor)',
+      run: await second(compounds, { ...page, sort: 'created' }),
+      indexes: ['compounds_workspace_created_idx'],
+    },
+    {
+      name: 'Compounds, search "impurity 12"',
+      run: () => compounds({ ...page, sort: 'name', q: 'impurity 12' }),
+      indexes: ['compounds_name_trgm_idx', 'compounds_workspace_name_id_idx'],
+    },
+    {
+      name: 'Members, second page by name (cursor)',
+      run: await second(members, page),
+      indexes: ['users_name_id_idx', 'memberships_workspace_idx'],
+    },
+    {
+      name: 'Members, search "member 77"',
+      run: () => members({ ...page, q: 'member 77' }),
+      indexes: ['users_name_trgm_idx', 'users_email_trgm_idx', 'users_name_id_idx'],
+    },
+    {
+      name: 'Equipment, second page by name (cursor)',
+      run: await second(equipment, { ...page, sort: 'name' }),
+      indexes: ['equipment_workspace_kind_name_idx'],
+    },
+    {
+      name: 'Equipment, second page largest first (cursor)',
+      run: await second(equipment, { ...page, sort: 'size' }),
+      indexes: ['equipment_workspace_kind_size_idx'],
+    },
+    {
+      name: 'Comments on a revision with 50,000, second page (cursor)',
+      run: await second(comments, { ...page, sort: 'oldest' }),
+      indexes: ['review_comments_revision_created_idx'],
+    },
+    {
+      name: 'Comments, search "step 77"',
+      run: () => comments({ ...page, sort: 'oldest', q: 'step 77' }),
+      indexes: ['review_comments_body_trgm_idx', 'review_comments_revision_created_idx'],
+    },
+    {
+      name: 'Samples of a route with 2,000, second page newest first (cursor)',
+      run: await second(samples, { ...page, sort: 'newest' }),
+      indexes: ['chromatograms_route_idx'],
+    },
+    {
+      name: 'Audit trail of 20,000 events, second page (cursor)',
+      run: await second(audit, page),
+      indexes: ['audit_events_workspace_at_id_idx', 'audit_events_account_at_idx'],
+      table: 'audit_events',
+    },
+    {
+      name: 'Audit trail, search "rename"',
+      run: () => audit({ ...page, q: 'rename' }),
+      indexes: ['audit_events_action_trgm_idx', 'audit_events_workspace_at_id_idx'],
+      table: 'audit_events',
+    },
+    {
+      name: 'Jobs of a user with 5,000, second page (cursor)',
+      run: await second(jobs, { ...page, sort: 'newest' }),
+      indexes: ['evaluation_jobs_user_created_idx'],
+    },
+  ];
 
   const cases: Case[] = [
     {
@@ -198,6 +372,7 @@ async function main(): Promise<void> {
         listRevisions(bigRoute, { limit: 50, cursor: firstRevisions.nextCursor! }, false, null),
       indexes: ['route_revisions_route_number_key'],
     },
+    ...more,
   ];
 
   const results = [];
@@ -215,7 +390,7 @@ async function main(): Promise<void> {
   const cpu = os.cpus()[0]?.model?.trim() ?? 'unknown CPU';
   const body = [
     `Run ${date} (load average ${os.loadavg()[0]!.toFixed(1)} when it ended) on ${os.type()} ${os.release()}, ${cpu} × ${os.cpus().length}, Node ${process.version}, PostgreSQL on loopback (fsync off), while other work shared the machine.`,
-    `Benchmark database: one workspace, ${ROUTES.toLocaleString('en')} routes in 100 projects (every tenth archived), ${(ROUTES * REVISIONS_PER_ROUTE + BIG_ROUTE_REVISIONS - REVISIONS_PER_ROUTE).toLocaleString('en')} revisions (one route with ${BIG_ROUTE_REVISIONS.toLocaleString('en')}); seeded in ${seedSeconds.toFixed(0)} s. Times are the service call (SQL and row building, page of 50), ${RUNS} runs; target p95 ≤ 50 ms.`,
+    `Benchmark database: one workspace, ${ROUTES.toLocaleString('en')} routes in 100 projects (every tenth archived), ${(ROUTES * REVISIONS_PER_ROUTE + BIG_ROUTE_REVISIONS - REVISIONS_PER_ROUTE).toLocaleString('en')} revisions (one route with ${BIG_ROUTE_REVISIONS.toLocaleString('en')}), ${MEMBERS.toLocaleString('en')} members, ${COMPOUNDS.toLocaleString('en')} compounds, ${(100 + EXTRA_PROJECTS).toLocaleString('en')} projects, ${EQUIPMENT.toLocaleString('en')} filters and dryers, ${COMMENTS.toLocaleString('en')} comments and ${SAMPLES.toLocaleString('en')} samples on the large route, ${AUDIT_EVENTS.toLocaleString('en')} audit events and a sign-in of each person, ${JOBS.toLocaleString('en')} jobs of one user; seeded in ${seedSeconds.toFixed(0)} s. Times are the service call (SQL and row building, page of 50), ${RUNS} runs; target p95 ≤ 50 ms.`,
     '',
     '| List query | Index in the plan | SQL execution (ms, EXPLAIN ANALYZE) | Service median (ms) | Service p95 (ms) | p95 ≤ 50 ms |',
     '|---|---|---:|---:|---:|---|',
