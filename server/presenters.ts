@@ -3,6 +3,7 @@ import type {
   Member,
   Invitation as InvitationPayload,
   InvitationInfo,
+  PendingInvitation as PendingInvitationPayload,
 } from '@shared/schemas/members';
 import type { OutboxMessage as OutboxPayload } from '@shared/schemas/outbox';
 import type { Role, Session } from '@shared/schemas/session';
@@ -56,6 +57,14 @@ export const presentInvitation = (invitation: Invitation): InvitationPayload => 
   email: invitation.email,
   roles: invitation.roles,
   expiresAt: invitation.expiresAt.toISOString(),
+});
+
+export const presentPendingInvitation = (invitation: Invitation): PendingInvitationPayload => ({
+  ...presentInvitation(invitation),
+  invitedBy: invitation.invitedBy
+    ? { id: invitation.invitedBy.id, name: invitation.invitedBy.name }
+    : null,
+  createdAt: invitation.createdAt.toISOString(),
 });
 
 export const presentInvitationInfo = (

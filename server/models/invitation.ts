@@ -28,6 +28,7 @@ export class Invitation extends Model<
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare workspace?: NonAttribute<Workspace>;
+  declare invitedBy?: NonAttribute<User>;
 
   static initModel(sequelize: Sequelize) {
     Invitation.init(

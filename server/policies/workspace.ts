@@ -7,4 +7,8 @@ export const workspaceRules = {
   'member.invite': workspaceRule<WorkspaceScoped>((roles) => hasRole(roles, 'admin')),
   'member.updateRoles': workspaceRule<WorkspaceScoped>((roles) => hasRole(roles, 'admin')),
   'member.remove': workspaceRule<WorkspaceScoped>((roles) => hasRole(roles, 'admin')),
+  // Pending invitations carry the invitees' addresses and a live link: admins only, like inviting.
+  'invitation.list': workspaceRule<WorkspaceScoped>((roles) => hasRole(roles, 'admin')),
+  'invitation.resend': workspaceRule<WorkspaceScoped>((roles) => hasRole(roles, 'admin')),
+  'invitation.revoke': workspaceRule<WorkspaceScoped>((roles) => hasRole(roles, 'admin')),
 } as const;

@@ -7,13 +7,20 @@ import {
   memberListQuerySchema,
   memberListSchema,
   memberSchema,
+  pendingInvitationListSchema,
   updateRolesSchema,
 } from '@shared/schemas/members';
 import type { AppConfig } from '../config';
 import { defineRoute } from '../http/route';
 import { authorize } from '../policies';
-import { presentInvitation, presentMember } from '../presenters';
-import { inviteMember } from '../services/invitations';
+import { presentInvitation, presentMember, presentPendingInvitation } from '../presenters';
+import {
+  inviteMember,
+  listPendingInvitations,
+  loadPendingInvitation,
+  resendInvitation,
+  revokeInvitation,
+} from '../services/invitations';
 import {
   listMembers,
   loadMembership,
@@ -25,6 +32,7 @@ import {
 
 const workspaceParams = z.object({ workspaceId: z.uuid() });
 const memberParams = z.object({ workspaceId: z.uuid(), userId: z.uuid() });
+const invitationParams = z.object({ workspaceId: z.uuid(), invitationId: z.uuid() });
 const notFoundResponse = {
   description: 'No such workspace or member, or not one of yours.',
   schema: apiErrorSchema,
@@ -87,6 +95,84 @@ export function membersRouter(config: AppConfig): Router {
         transaction,
       });
       return { status: 201, body: presentInvitation(invitation) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'get',
+    path: '/workspaces/{workspaceId}/invitations',
+    summary:
+      'The invitations not yet accepted and not expired or revoked, newest first, with who sent each (admins).',
+    tags: ['members'],
+    auth: true,
+    params: workspaceParams,
+    responses: {
+      200: { description: 'The pending invitations.', schema: pendingInvitationListSchema },
+      403: forbiddenResponse,
+      404: notFoundResponse,
+    },
+    handle: async ({ actor, params, transaction }) => {
+      const workspace = memberWorkspace(actor, params.workspaceId);
+      authorize(actor, 'invitation.list', { workspaceId: workspace.id });
+      const items = await listPendingInvitations(workspace.id, transaction);
+      return { status: 200, body: { items: items.map(presentPendingInvitation) } };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'post',
+    path: '/workspaces/{workspaceId}/invitations/{invitationId}/resend',
+    summary:
+      'Send a pending invitation again: a new link, valid for another 7 days; the old link stops working (admins).',
+    tags: ['members'],
+    auth: true,
+    params: invitationParams,
+    responses: {
+      200: { description: 'Sent again; the new expiry.', schema: invitationSchema },
+      403: forbiddenResponse,
+      404: { description: 'No such pending invitation in this workspace.', schema: apiErrorSchema },
+    },
+    handle: async ({ req, actor, params, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'invitation.resend', { workspaceId: workspace.id });
+      const invitation = await loadPendingInvitation(
+        workspace.id,
+        params.invitationId,
+        transaction,
+      );
+      await resendInvitation({
+        invitation,
+        workspace,
+        actor: req.user!,
+        appUrl: config.appUrl,
+        transaction,
+      });
+      return { status: 200, body: presentInvitation(invitation) };
+    },
+  });
+
+  defineRoute(router, {
+    method: 'delete',
+    path: '/workspaces/{workspaceId}/invitations/{invitationId}',
+    summary: 'Revoke a pending invitation: its link stops working at once (admins).',
+    tags: ['members'],
+    auth: true,
+    params: invitationParams,
+    responses: {
+      204: { description: 'Revoked.' },
+      403: forbiddenResponse,
+      404: { description: 'No such pending invitation in this workspace.', schema: apiErrorSchema },
+    },
+    handle: async ({ actor, params, transaction }) => {
+      const workspace = await loadWorkspace(params.workspaceId, transaction);
+      authorize(actor, 'invitation.revoke', { workspaceId: workspace.id });
+      const invitation = await loadPendingInvitation(
+        workspace.id,
+        params.invitationId,
+        transaction,
+      );
+      await revokeInvitation({ invitation, actorId: actor.userId, transaction });
+      return { status: 204 };
     },
   });
 

@@ -80,6 +80,109 @@ export async function inviteMember(input: {
   return invitation;
 }
 
+/** The workspace's invitations not yet accepted and not expired (or revoked), newest first. */
+export async function listPendingInvitations(
+  workspaceId: string,
+  transaction: Transaction | null,
+): Promise<Invitation[]> {
+  return Invitation.findAll({
+    where: { workspaceId, acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
+    include: [{ model: User, as: 'invitedBy', attributes: ['id', 'name'] }],
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'ASC'],
+    ],
+    limit: 500,
+    transaction,
+  });
+}
+
+/** A pending invitation of this workspace by id: 404 when unknown, another workspace's, used or expired. */
+export async function loadPendingInvitation(
+  workspaceId: string,
+  invitationId: string,
+  transaction: Transaction | null,
+): Promise<Invitation> {
+  const invitation = await Invitation.findOne({
+    where: {
+      id: invitationId,
+      workspaceId,
+      acceptedAt: null,
+      expiresAt: { [Op.gt]: new Date() },
+    },
+    transaction,
+    lock: transaction ? transaction.LOCK.UPDATE : undefined,
+  });
+  if (!invitation) throw notFound('The pending invitation');
+  return invitation;
+}
+
+/**
+ * Sends a pending invitation again: a new link (the old one stops working) valid for another
+ * INVITATION_DAYS, mailed in the same transaction, with an audit entry.
+ */
+export async function resendInvitation(input: {
+  invitation: Invitation;
+  workspace: Workspace;
+  actor: User;
+  appUrl: string;
+  transaction: Transaction | null;
+}): Promise<Invitation> {
+  const { invitation, workspace, actor, transaction } = input;
+  const token = randomSecret();
+  const before = { expiresAt: invitation.expiresAt.toISOString() };
+  invitation.tokenHash = sha256(token);
+  invitation.expiresAt = new Date(Date.now() + INVITATION_DAYS * 24 * 3600_000);
+  await invitation.save({ transaction });
+  await queueMail(
+    invitationMail({
+      to: invitation.email,
+      workspaceId: workspace.id,
+      workspaceName: workspace.name,
+      inviterName: actor.name,
+      roles: invitation.roles,
+      url: `${input.appUrl}/invitations/${token}`,
+      expiresAt: invitation.expiresAt,
+    }),
+    transaction,
+  );
+  await recordAudit(
+    {
+      workspaceId: workspace.id,
+      actorId: actor.id,
+      action: 'member.invitation-resent',
+      entityType: 'invitation',
+      entityId: invitation.id,
+      before,
+      after: { email: invitation.email, expiresAt: invitation.expiresAt.toISOString() },
+    },
+    transaction,
+  );
+  return invitation;
+}
+
+/** Withdraws a pending invitation: its link stops working at once; an audit entry says who. */
+export async function revokeInvitation(input: {
+  invitation: Invitation;
+  actorId: string;
+  transaction: Transaction | null;
+}): Promise<void> {
+  const { invitation, actorId, transaction } = input;
+  invitation.expiresAt = new Date();
+  await invitation.save({ transaction });
+  await recordAudit(
+    {
+      workspaceId: invitation.workspaceId,
+      actorId,
+      action: 'member.invitation-revoked',
+      entityType: 'invitation',
+      entityId: invitation.id,
+      before: { email: invitation.email, roles: invitation.roles },
+    },
+    transaction,
+  );
+}
+
 /** Finds an open invitation by its token: 404 when unknown, 410 when used or expired. */
 export async function loadOpenInvitation(
   token: string,

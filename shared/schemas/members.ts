@@ -40,6 +40,14 @@ export const invitationSchema = z.object({
 });
 export type Invitation = z.infer<typeof invitationSchema>;
 
+/** An invitation not yet accepted, as the members page lists it for resending or revoking. */
+export const pendingInvitationSchema = invitationSchema.extend({
+  invitedBy: z.object({ id: text(), name: text() }).nullable(),
+  createdAt: text(),
+});
+export type PendingInvitation = z.infer<typeof pendingInvitationSchema>;
+export const pendingInvitationListSchema = z.object({ items: z.array(pendingInvitationSchema) });
+
 export const updateRolesSchema = z.object({
   roles: rolesSchema,
 });

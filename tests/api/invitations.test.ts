@@ -1,8 +1,8 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { invitationInfoSchema } from '@shared/schemas/members';
+import { invitationInfoSchema, pendingInvitationListSchema } from '@shared/schemas/members';
 import { sessionSchema } from '@shared/schemas/session';
-import { Invitation, User, Workspace } from '../../server/models';
+import { AuditEvent, Invitation, User, Workspace } from '../../server/models';
 import { useTestServer } from '../support/app';
 import {
   buildMember,
@@ -171,5 +171,102 @@ describe('invitations', () => {
       'email',
       'roles',
     ]);
+  });
+
+  describe('pending invitations: list, resend, revoke', () => {
+    const base = () => `/api/v1/workspaces/${workspace.id}/invitations`;
+    const pending = async (as: SignedIn = asAdmin) =>
+      as.agent.get(base()).set('X-CSRF-Token', as.csrfToken);
+
+    it('lists the pending ones with who sent them; resending mails a new link and the old one stops working; revoking ends the link; each leaves an audit entry', async () => {
+      const before = new Date();
+      const created = await invite({ email: 'pending.one@example.com', roles: ['reviewer'] });
+      expect(created.status).toBe(201);
+      const firstToken = tokenFromLink(
+        (await waitForMail('pending.one@example.com', { after: before })).text,
+        'invitations',
+      );
+
+      const listed = await pending();
+      expect(listed.status).toBe(200);
+      const parsed = pendingInvitationListSchema.parse(listed.body);
+      const mine = parsed.items.find((i) => i.id === created.body.id);
+      expect(mine).toMatchObject({
+        email: 'pending.one@example.com',
+        roles: ['reviewer'],
+        invitedBy: { id: admin.id, name: 'Inviting Admin' },
+      });
+      // Accepted invitations are not pending.
+      expect(parsed.items.some((i) => i.email === 'new.chemist@example.com')).toBe(false);
+
+      const resentAt = new Date();
+      const resent = await asAdmin.agent
+        .post(`${base()}/${created.body.id}/resend`)
+        .set('X-CSRF-Token', asAdmin.csrfToken);
+      expect(resent.status).toBe(200);
+      expect(Date.parse(resent.body.expiresAt)).toBeGreaterThanOrEqual(
+        Date.parse(created.body.expiresAt),
+      );
+      const secondToken = tokenFromLink(
+        (await waitForMail('pending.one@example.com', { after: resentAt })).text,
+        'invitations',
+      );
+      expect(secondToken).not.toBe(firstToken);
+      expect((await request(server.app).get(`/api/v1/invitations/${firstToken}`)).status).toBe(404);
+      expect((await request(server.app).get(`/api/v1/invitations/${secondToken}`)).status).toBe(
+        200,
+      );
+
+      const revoked = await asAdmin.agent
+        .delete(`${base()}/${created.body.id}`)
+        .set('X-CSRF-Token', asAdmin.csrfToken);
+      expect(revoked.status).toBe(204);
+      const gone = await request(server.app).get(`/api/v1/invitations/${secondToken}`);
+      expect(gone.status).toBe(410);
+      const after = pendingInvitationListSchema.parse((await pending()).body);
+      expect(after.items.some((i) => i.id === created.body.id)).toBe(false);
+      // Neither can be done twice: the invitation is no longer pending.
+      const again = await asAdmin.agent
+        .delete(`${base()}/${created.body.id}`)
+        .set('X-CSRF-Token', asAdmin.csrfToken);
+      expect(again.status).toBe(404);
+
+      const audit = await AuditEvent.findAll({
+        where: { entityId: created.body.id },
+        order: [['position', 'ASC']],
+      });
+      expect(audit.map((a) => a.action)).toEqual([
+        'member.invited',
+        'member.invitation-resent',
+        'member.invitation-revoked',
+      ]);
+      expect(audit.every((a) => a.actorId === admin.id)).toBe(true);
+    });
+
+    it('only admins may list, resend or revoke; another workspace’s invitation is not found', async () => {
+      const created = await invite({ email: 'pending.two@example.com', roles: ['chemist'] });
+      const chemist = await buildMember(workspace, ['chemist']);
+      const asChemist = await signIn(server.app, chemist.email);
+      expect((await pending(asChemist)).status).toBe(403);
+      const resend = await asChemist.agent
+        .post(`${base()}/${created.body.id}/resend`)
+        .set('X-CSRF-Token', asChemist.csrfToken);
+      expect(resend.status).toBe(403);
+      const revoke = await asChemist.agent
+        .delete(`${base()}/${created.body.id}`)
+        .set('X-CSRF-Token', asChemist.csrfToken);
+      expect(revoke.status).toBe(403);
+
+      const other = await buildWorkspace();
+      const otherAdmin = await buildMember(other, ['admin']);
+      const asOther = await signIn(server.app, otherAdmin.email);
+      const foreign = await asOther.agent
+        .delete(`/api/v1/workspaces/${other.id}/invitations/${created.body.id}`)
+        .set('X-CSRF-Token', asOther.csrfToken);
+      expect(foreign.status).toBe(404);
+      expect(
+        pendingInvitationListSchema.parse((await pending()).body).items.map((i) => i.id),
+      ).toContain(created.body.id);
+    });
   });
 });
