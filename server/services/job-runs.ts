@@ -15,20 +15,26 @@ export class JobCancelled extends Error {
 
 /**
  * Writes the run's progress when it moved by 1 % or more since `reported`
- * (else only touches the job), and throws JobCancelled when the job is no
- * longer running. Returns the progress now reported.
+ * (else writes the progress already reported, which touches the job), and
+ * throws JobCancelled when the job is no longer running. Returns the progress
+ * now reported.
+ *
+ * Every call writes a column of the job: an update of the timestamp alone is
+ * skipped by the model layer and reports no row, which read as a cancel and
+ * left a long run (under 1 % per chunk) "running" at 0 % for good.
  */
 export async function reportProgress(
   jobId: string,
   progress: number,
   reported: number,
 ): Promise<number> {
-  const moved = progress - reported >= 0.01;
-  const [still] = await EvaluationJob.update(moved ? { progress } : { updatedAt: new Date() }, {
-    where: { id: jobId, status: 'running' },
-  });
+  const now = progress - reported >= 0.01 ? progress : reported;
+  const [still] = await EvaluationJob.update(
+    { progress: now },
+    { where: { id: jobId, status: 'running' } },
+  );
   if (still === 0) throw new JobCancelled();
-  return moved ? progress : reported;
+  return now;
 }
 
 /**

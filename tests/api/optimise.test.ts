@@ -124,6 +124,26 @@ describe('route optimisation jobs', () => {
     expect(messages.seed).toBe('Give a whole-number seed, so the run can be repeated.');
   });
 
+  it('keeps a long run going when each chunk moves it by less than 1 %', async () => {
+    // 2000 evaluations: a chunk of 4 is 0.18 % of the run, so most chunks write no new progress;
+    // the run must still go on (it once stopped silently at 0 %, left "running").
+    const { jobId } = optimiseStartedSchema.parse(
+      (await start(asChemist, body({ budget: { evaluations: 2000 } }))).body,
+    );
+    let job: OptimiseJob | null = null;
+    for (let attempt = 0; attempt < 120; attempt++) {
+      job = optimiseJobSchema.parse((await asChemist.agent.get(`/api/v1/jobs/${jobId}`)).body);
+      if (job.progress >= 0.02 || (job.status !== 'running' && job.status !== 'queued')) break;
+      await new Promise((resolve) => setTimeout(resolve, 200));
+    }
+    expect(job?.status).toBe('running');
+    expect(job!.progress).toBeGreaterThanOrEqual(0.02);
+    const cancelled = await asChemist.agent
+      .delete(`/api/v1/jobs/${jobId}`)
+      .set('X-CSRF-Token', asChemist.csrfToken);
+    expect(optimiseJobSchema.parse(cancelled.body).status).toBe('cancelled');
+  });
+
   it('cancels with DELETE; a finished job cannot be cancelled; another person’s job is 404', async () => {
     const { jobId } = optimiseStartedSchema.parse(
       (await start(asChemist, body({ budget: { evaluations: 400 } }))).body,
