@@ -106,6 +106,10 @@ export const api = {
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/members/${encodeURIComponent(userId)}`,
   invitations: (workspaceId: string) =>
     `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/invitations`,
+  pendingInvitation: (workspaceId: string, invitationId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/invitations/${encodeURIComponent(invitationId)}`,
+  resendInvitation: (workspaceId: string, invitationId: string) =>
+    `/api/v1/workspaces/${encodeURIComponent(workspaceId)}/invitations/${encodeURIComponent(invitationId)}/resend`,
   invitation: (token: string) => `/api/v1/invitations/${encodeURIComponent(token)}`,
   acceptInvitation: (token: string) => `/api/v1/invitations/${encodeURIComponent(token)}/accept`,
   passwordResets: '/api/v1/password-resets',

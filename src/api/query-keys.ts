@@ -39,6 +39,9 @@ export const queryKeys = {
     /** Holders of one role, every page. */
     withRole: (workspaceId: string, role: string) =>
       [...queryKeys.members.list(workspaceId), 'role', role] as const,
+    /** The workspace's invitations not yet accepted (admins). */
+    pendingInvitations: (workspaceId: string) =>
+      [...queryKeys.members.list(workspaceId), 'pending-invitations'] as const,
   },
   compounds: {
     /** Prefix of every compounds list key of the workspace (invalidated by writes). */

@@ -6,6 +6,7 @@ import { useMemberPages } from '@/features/members/api/get-members';
 import { ListMore, ListSearch } from '@/components/list-controls';
 import { InviteForm } from '@/features/members/components/invite-form';
 import { MemberTable } from '@/features/members/components/member-table';
+import { PendingInvitations } from '@/features/members/components/pending-invitations';
 import { PageHeader } from '@/components/page-header';
 import { Card } from '@/components/card';
 import { EmptyState } from '@/components/empty-state';
@@ -20,6 +21,7 @@ export function Component() {
     invite: canInWorkspace(session, workspace.id, 'member.invite'),
     updateRoles: canInWorkspace(session, workspace.id, 'member.updateRoles'),
     remove: canInWorkspace(session, workspace.id, 'member.remove'),
+    pending: canInWorkspace(session, workspace.id, 'invitation.list'),
   };
 
   return (
@@ -31,7 +33,10 @@ export function Component() {
       />
       {can.invite ? (
         <div className="grid grid-cols-[minmax(0,1fr)_20rem] items-start gap-5">
-          <MemberList workspaceId={workspace.id} currentUserId={session.user.id} can={can} />
+          <div className="min-w-0 space-y-6">
+            <MemberList workspaceId={workspace.id} currentUserId={session.user.id} can={can} />
+            {can.pending ? <PendingInvitations workspaceId={workspace.id} /> : null}
+          </div>
           <Card title="Invite a member" description="They get an e-mail with a link to join.">
             <InviteForm workspaceId={workspace.id} />
           </Card>

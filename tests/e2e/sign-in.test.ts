@@ -150,6 +150,81 @@ describe('inviting a member', () => {
 });
 
 describe('managing members', () => {
+  it('lists pending invitations for the admin, sends one again with a new link and revokes another', async () => {
+    const { page, shot } = flows.browser;
+    const tag = randomBytes(3).toString('hex');
+    const resent = `pending-resent-${tag}@example.com`;
+    const revoked = `pending-revoked-${tag}@example.com`;
+    await page.goto(base + '/sign-in');
+    await signInAs('admin@example.com');
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    await page.getByRole('link', { name: 'Members' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Members' }).waitFor();
+    const form = page.getByRole('form', { name: 'Invite a member' });
+    for (const email of [resent, revoked]) {
+      await form.getByLabel('E-mail address').fill(email);
+      await form.getByRole('button', { name: 'Send invitation' }).click();
+      await page
+        .getByRole('status')
+        .filter({ hasText: `Invitation sent to ${email}` })
+        .waitFor();
+    }
+    const pending = page.getByRole('table', { name: 'Invitations not yet accepted' });
+    await pending.getByText(resent).waitFor();
+    await pending.getByText(revoked).waitFor();
+    await expect(pending.getByRole('row').filter({ hasText: resent }).innerText()).resolves.toMatch(
+      /by Demo Admin|by .+, /,
+    );
+    await shot('pending-invitations-01-listed');
+
+    // Send again: a new e-mail with a new link; the first link no longer opens the invitation.
+    const firstToken = tokenFromLink((await waitForMail(resent)).text, 'invitations');
+    const resentAfter = new Date();
+    await pending.getByRole('button', { name: `Send the invitation to ${resent} again` }).click();
+    await page
+      .getByRole('status')
+      .filter({ hasText: `Invitation sent to ${resent} again` })
+      .waitFor();
+    const secondToken = tokenFromLink(
+      (await waitForMail(resent, { after: resentAfter })).text,
+      'invitations',
+    );
+    expect(secondToken).not.toBe(firstToken);
+
+    // Revoke, after a question: gone from the list, and its link says it has expired.
+    const revokedToken = tokenFromLink((await waitForMail(revoked)).text, 'invitations');
+    await pending.getByRole('button', { name: `Revoke the invitation to ${revoked}` }).click();
+    const dialog = page.getByRole('dialog', { name: `Revoke the invitation to ${revoked}?` });
+    await dialog.getByRole('button', { name: 'Revoke invitation' }).click();
+    await page
+      .getByRole('status')
+      .filter({ hasText: `The invitation to ${revoked} was revoked.` })
+      .waitFor();
+    await expect.poll(() => pending.getByText(revoked).count()).toBe(0);
+    await expect(pending.getByText(resent).count()).resolves.toBe(1);
+    await shot('pending-invitations-02-revoked');
+    const reply = await page.evaluate(
+      (url) => fetch(url).then((r) => r.status),
+      `/api/v1/invitations/${revokedToken}`,
+    );
+    expect(reply).toBe(410);
+    expect(flows.browser.problems.filter((p) => !/status of 410/.test(p))).toEqual([]);
+  });
+
+  it('shows no pending invitations to a chemist', async () => {
+    const { page } = flows.browser;
+    await page.goto(base + '/sign-in');
+    await signInAs('chemist@example.com');
+    await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
+    await page.getByRole('link', { name: 'Members' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Members' }).waitFor();
+    await page.getByRole('table').getByText('chemist@example.com').waitFor();
+    await expect(page.getByRole('heading', { name: 'Pending invitations' }).count()).resolves.toBe(
+      0,
+    );
+    expect(flows.browser.problems).toEqual([]);
+  });
+
   it('lets the admin change a member’s roles and remove them after confirming', async () => {
     const { page, shot } = flows.browser;
     const workspace = await Workspace.findOne({ where: { name: DEMO_WORKSPACE } });
