@@ -116,6 +116,30 @@ export function expandBracket(
 }
 
 /**
+ * The result of a Brent solve (a module-level function rather than a closure per call: the
+ * solver runs thousands of times per route evaluation).
+ */
+function brentResult(
+  root: number,
+  value: number,
+  reason: RootStop,
+  iterations: number,
+  lo: number,
+  hi: number,
+  evaluations: number,
+): RootResult {
+  return {
+    root,
+    value,
+    converged: reason === 'converged',
+    reason,
+    iterations,
+    evaluations,
+    bracket: [Math.min(lo, hi), Math.max(lo, hi)],
+  };
+}
+
+/**
  * Brent's method on a bracket [a, b] with f(a)·f(b) ≤ 0.
  *
  * Source: Brent 1973, ch. 4 (zero); Numerical Recipes 3rd ed. §9.3.
@@ -151,27 +175,20 @@ export function brent(
   let fa = known ? known.fa : f(a);
   let fb = known ? known.fb : f(b);
   let evaluations = known ? 0 : 2;
-  const done = (
-    root: number,
-    value: number,
-    reason: RootStop,
-    iterations: number,
-    lo: number,
-    hi: number,
-  ): RootResult => ({
-    root,
-    value,
-    converged: reason === 'converged',
-    reason,
-    iterations,
-    evaluations,
-    bracket: [Math.min(lo, hi), Math.max(lo, hi)],
-  });
-  if (!Number.isFinite(fa) || !Number.isFinite(fb)) return done(b, fb, 'not-finite', 0, a, b);
-  if (fa === 0) return done(a, 0, 'converged', 0, a, a);
-  if (fb === 0) return done(b, 0, 'converged', 0, b, b);
+  if (!Number.isFinite(fa) || !Number.isFinite(fb))
+    return brentResult(b, fb, 'not-finite', 0, a, b, evaluations);
+  if (fa === 0) return brentResult(a, 0, 'converged', 0, a, a, evaluations);
+  if (fb === 0) return brentResult(b, 0, 'converged', 0, b, b, evaluations);
   if (fa * fb > 0)
-    return done(Math.abs(fa) < Math.abs(fb) ? a : b, Math.min(fa, fb), 'no-bracket', 0, a, b);
+    return brentResult(
+      Math.abs(fa) < Math.abs(fb) ? a : b,
+      Math.min(fa, fb),
+      'no-bracket',
+      0,
+      a,
+      b,
+      evaluations,
+    );
   let c = a;
   let fc = fa;
   let d = b - a;
@@ -196,7 +213,7 @@ export function brent(
     const tol1 = 2 * rtol * Math.abs(b) + 0.5 * xtol;
     const xm = 0.5 * (c - b);
     if (Math.abs(xm) <= tol1 || fb === 0 || Math.abs(fb) <= ftol)
-      return done(b, fb, 'converged', iter - 1, b, c);
+      return brentResult(b, fb, 'converged', iter - 1, b, c, evaluations);
     // Safeguard (as in Alefeld, Potra & Shi, ACM TOMS 1995, 21, 327): when three interpolation
     // steps have not halved the bracket, bisect, so that no case is slower than about 3× bisection.
     const width = Math.abs(c - b);
@@ -239,9 +256,9 @@ export function brent(
     b += Math.abs(d) > tol1 ? d : tol1 * Math.sign(xm);
     fb = f(b);
     evaluations++;
-    if (!Number.isFinite(fb)) return done(a, fa, 'not-finite', iter, a, c);
+    if (!Number.isFinite(fb)) return brentResult(a, fa, 'not-finite', iter, a, c, evaluations);
   }
-  return done(b, fb, 'max-iterations', maxIterations, b, c);
+  return brentResult(b, fb, 'max-iterations', maxIterations, b, c, evaluations);
 }
 
 /**
@@ -280,6 +297,13 @@ export function findRoot(
   }
   const r = brent(f, br.a, br.b, opts, { fa: br.fa, fb: br.fb });
   return { ...r, evaluations: r.evaluations + br.evaluations };
+}
+
+/** The bracket seen so far by newtonSafe: [x, x] until both signs of f have been seen. */
+function newtonBracket(xNeg: number, xPos: number, x: number): [number, number] {
+  return Number.isNaN(xNeg) || Number.isNaN(xPos)
+    ? [x, x]
+    : [Math.min(xNeg, xPos), Math.max(xNeg, xPos)];
 }
 
 /**
@@ -325,10 +349,6 @@ export function newtonSafe(
   let prevAbsF = Infinity;
   let lastStep = 0;
   let best = { x, f: NaN };
-  const bracketOf = (): [number, number] =>
-    Number.isNaN(xNeg) || Number.isNaN(xPos)
-      ? [x, x]
-      : [Math.min(xNeg, xPos), Math.max(xNeg, xPos)];
   for (let iter = 0; iter < maxIterations; iter++) {
     const { f, df } = fdf(x);
     evaluations++;
@@ -340,7 +360,7 @@ export function newtonSafe(
         reason: 'not-finite',
         iterations: iter,
         evaluations,
-        bracket: bracketOf(),
+        bracket: newtonBracket(xNeg, xPos, x),
       };
     }
     if (!(Math.abs(f) >= Math.abs(best.f))) best = { x, f };
@@ -352,7 +372,7 @@ export function newtonSafe(
         reason: 'converged',
         iterations: iter,
         evaluations,
-        bracket: bracketOf(),
+        bracket: newtonBracket(xNeg, xPos, x),
       };
     }
     if (f < 0) xNeg = x;
@@ -388,7 +408,7 @@ export function newtonSafe(
     prevAbsF = Math.abs(f);
     lastStep = next - x;
     const tolX = xtol + rtol * Math.abs(x);
-    const [blo, bhi] = bracketOf();
+    const [blo, bhi] = newtonBracket(xNeg, xPos, x);
     if (Math.abs(next - x) <= tolX || (bracketed && bhi - blo <= tolX)) {
       const { f: fn } = fdf(next);
       evaluations++;
@@ -399,7 +419,7 @@ export function newtonSafe(
         reason: 'converged',
         iterations: iter + 1,
         evaluations,
-        bracket: bracketOf(),
+        bracket: newtonBracket(xNeg, xPos, x),
       };
     }
     x = next;
@@ -411,7 +431,7 @@ export function newtonSafe(
     reason: 'max-iterations',
     iterations: maxIterations,
     evaluations,
-    bracket: bracketOf(),
+    bracket: newtonBracket(xNeg, xPos, x),
   };
 }
 

@@ -599,16 +599,19 @@ export function findBinaryAzeotrope(sys: VleSystem, P_Pa: number): AzeotropeResu
 
 /** Rachford–Rice for two liquids: fraction β of the feed in phase II, with K_i = x_i^II/x_i^I. */
 function solveRachfordRice(z: Float64Array, K: Float64Array): number {
+  if (rachfordRiceSum(z, K, 0) <= 0) return 0;
+  if (rachfordRiceSum(z, K, 1) >= 0) return 1;
+  // The sum is monotone decreasing in β on [0, 1]: Brent on the bracket. (An inline arrow, not a
+  // named closure: this runs at every flash iteration.)
+  return brent((beta) => rachfordRiceSum(z, K, beta), 0, 1, { xtol: 1e-15, rtol: 0 }).root;
+}
+
+/** Rachford–Rice sum Σ z_i (K_i − 1)/(1 + β (K_i − 1)) over the components present. */
+function rachfordRiceSum(z: Float64Array, K: Float64Array, beta: number): number {
   const n = z.length;
-  const g = (beta: number): number => {
-    let s = 0;
-    for (let i = 0; i < n; i++) if (z[i] > 0) s += (z[i] * (K[i] - 1)) / (1 + beta * (K[i] - 1));
-    return s;
-  };
-  if (g(0) <= 0) return 0;
-  if (g(1) >= 0) return 1;
-  // g is monotone decreasing in β on [0, 1]: Brent on the bracket.
-  return brent(g, 0, 1, { xtol: 1e-15, rtol: 0 }).root;
+  let s = 0;
+  for (let i = 0; i < n; i++) if (z[i] > 0) s += (z[i] * (K[i] - 1)) / (1 + beta * (K[i] - 1));
+  return s;
 }
 
 export type LiquidLiquidResult =
