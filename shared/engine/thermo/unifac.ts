@@ -236,6 +236,22 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
   presentStart[n] = presentList.length;
   const present = Int32Array.from(presentList);
 
+  // Ψ_mn depends on the main groups of m and n only: exp(−a/T) is taken once per distinct
+  // interaction energy a (the same a gives the same Ψ, so the matrix is identical to one exp per
+  // entry; a cold temperature costs far fewer exponentials).
+  const energyOf = new Map<number, number>();
+  const energyIndex = new Int32Array(K * K);
+  for (let j = 0; j < K * K; j++) {
+    let e = energyOf.get(aMatrix[j]);
+    if (e === undefined) {
+      e = energyOf.size;
+      energyOf.set(aMatrix[j], e);
+    }
+    energyIndex[j] = e;
+  }
+  const energies = Float64Array.from(energyOf.keys());
+  const psiOfEnergy = new Float64Array(energies.length);
+
   // Temperature cache.
   let cachedT = NaN;
   const psi = new Float64Array(K * K);
@@ -266,10 +282,59 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
     }
   }
 
+  /**
+   * ln Γ_k^(i) of pure component i for its own groups only. The groups absent from i have
+   * θ_m = 0, so their terms in groupLnGammas are exact zeros: leaving them out gives the same
+   * sums bit for bit (when every Ψ is finite), at (groups of i)² instead of K² operations.
+   */
+  function pureGroupLnGammas(i: number): void {
+    const start = presentStart[i];
+    const end = presentStart[i + 1];
+    const base = i * K;
+    let sumQX = 0;
+    for (let p = start; p < end; p++) {
+      const k = present[p];
+      sumQX += Qk[k] * nu[base + k];
+    }
+    const inv = 1 / sumQX;
+    for (let p = start; p < end; p++) {
+      const k = present[p];
+      theta[k] = Qk[k] * nu[base + k] * inv;
+    }
+    for (let p = start; p < end; p++) {
+      const k = present[p];
+      let s = 0;
+      for (let pm = start; pm < end; pm++) {
+        const m = present[pm];
+        s += theta[m] * psi[m * K + k];
+      }
+      S[k] = s;
+    }
+    for (let p = start; p < end; p++) {
+      const k = present[p];
+      let t = 0;
+      const row = k * K;
+      for (let pm = start; pm < end; pm++) {
+        const m = present[pm];
+        t += (theta[m] * psi[row + m]) / S[m];
+      }
+      lnGammaPure[base + k] = Qk[k] * (1 - Math.log(S[k]) - t);
+    }
+  }
+
   function setTemperature(T_K: number): void {
     if (T_K === cachedT) return;
-    for (let j = 0; j < K * K; j++) psi[j] = Math.exp(-aMatrix[j] / T_K);
+    let finite = true;
+    for (let e = 0; e < energies.length; e++) {
+      psiOfEnergy[e] = Math.exp(-energies[e] / T_K);
+      if (!Number.isFinite(psiOfEnergy[e])) finite = false;
+    }
+    for (let j = 0; j < K * K; j++) psi[j] = psiOfEnergy[energyIndex[j]];
     for (let i = 0; i < n; i++) {
+      if (finite) {
+        pureGroupLnGammas(i);
+        continue;
+      }
       for (let k = 0; k < K; k++) X[k] = nu[i * K + k];
       groupLnGammas(lnGammaPure, i * K);
     }
