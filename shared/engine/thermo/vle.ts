@@ -311,10 +311,13 @@ export function bubblePoint(
     T /= sumX;
   }
   const warnings: string[] = [];
+  // Temperature of the last residual evaluation: lnP, slope and lnGamma hold its values.
+  let evaluatedT = NaN;
   const solution = newtonSafe(
     (temperature) => {
       saturationPressures(sys, temperature, lnP, slope);
       sys.unifac.lnGammas(xs, temperature, lnGamma);
+      evaluatedT = temperature;
       let sum = 0;
       let dsum = 0;
       for (let i = 0; i < n; i++) {
@@ -334,8 +337,14 @@ export function bubblePoint(
       `Bubble-point iteration did not converge (residual ln P = ${solution.value.toExponential(2)}); result approximate.`,
     );
   }
-  saturationPressures(sys, T, lnP, slope);
-  const gammas = Array.from(sys.unifac.gammas(xs, T));
+  // The solver usually stops at the point it evaluated last: its vapour pressures and activity
+  // coefficients are then already at hand (the same numbers a fresh evaluation gives).
+  if (T !== evaluatedT) {
+    saturationPressures(sys, T, lnP, slope);
+    sys.unifac.lnGammas(xs, T, lnGamma);
+  }
+  const gammas: number[] = new Array(n);
+  for (let i = 0; i < n; i++) gammas[i] = Math.exp(lnGamma[i]);
   const K: number[] = new Array(n);
   const y: number[] = new Array(n);
   let sumY = 0;
