@@ -74,6 +74,29 @@ describe('the cost of a signed-in read', () => {
     expect(statements.join('\n')).not.toMatch(/\b(BEGIN|START TRANSACTION|COMMIT|UPDATE)\b/);
   });
 
+  it('reads the first page of every list with two statements and no transaction', async () => {
+    const ws = `/api/v1/workspaces/${workspace.id}`;
+    for (const path of [
+      `${ws}/routes`,
+      `${ws}/routes?sort=name&q=invented`,
+      `${ws}/projects`,
+      `${ws}/compounds`,
+      `${ws}/members?q=a`,
+      `${ws}/equipment`,
+      '/api/v1/jobs',
+    ]) {
+      expect((await asChemist.agent.get(path)).status).toBe(200);
+      let status = 0;
+      const statements = await statementsDuring(async () => {
+        status = (await asChemist.agent.get(path)).status;
+      });
+      expect(status, path).toBe(200);
+      expect(statements, `${path}\n${statements.join('\n')}`).toHaveLength(2);
+      expect(statements[0]).toMatch(/FROM session/);
+      expect(statements.join('\n')).not.toMatch(/\b(BEGIN|START TRANSACTION|COMMIT|UPDATE)\b/);
+    }
+  });
+
   it('pushes the stored expiry forward when it is more than a minute old, then not again', async () => {
     const sid = await sessionIdOf(asChemist);
     await owner.query(
