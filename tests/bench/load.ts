@@ -1,0 +1,431 @@
+/**
+ * Load benchmark: `npm run bench:load` (node --import tsx tests/bench/load.ts).
+ *
+ * Runs the compiled server as production runs it (`node dist-server/index.js`, NODE_ENV
+ * production) against a database of its own on the test cluster (TEST_PGPORT, default 54330;
+ * dropped first, never the demo data), signs in 50 chemists (one session each) and measures
+ * with autocannon, 50 connections, one per signed-in user:
+ *
+ * - a bare Express endpoint (GET returning a small JSON object) in its own process, the
+ *   baseline every figure is also given as a ratio to, measured in the same run;
+ * - the health check with a session cookie; reading the 30-step route; the first page of the
+ *   routes list (60 routes); POST /api/v1/evaluate of the 30-step route;
+ * - the same three with two server processes on two ports against the one database (25
+ *   connections each, rates summed);
+ * - the resident memory (RSS) of an idle server and of the bare process.
+ *
+ * Prints the figures and rewrites the "load" section of docs/performance.md and the figures
+ * block of docs/deployment.md. Targets (issue): route and list ≥ 30 % of the bare rate with
+ * p99 ≤ 100 ms and no errors; evaluate ≥ 150 requests/s; idle RSS ≤ 120 MB.
+ * LOAD_SECONDS sets the length of each measurement (default 10).
+ */
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import autocannon from 'autocannon';
+import pg from 'pg';
+import { hashPassword } from '../../server/services/passwords';
+import { BENCH_WEIGHTS, generateRoute } from '../fixtures/routes/generate';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const root = join(here, '..', '..');
+const pgPort = Number(process.env.TEST_PGPORT ?? 54330);
+const DB = 'phasewright_bench_load';
+const USERS = 50;
+const ROUTES = 60;
+const SECONDS = Number(process.env.LOAD_SECONDS ?? 10);
+const BASE_PORT = Number(process.env.LOAD_PORT ?? 3900);
+const PASSWORD = 'bench-password-invented';
+
+const adminUrl = (db = 'postgres') => `postgres://postgres@127.0.0.1:${pgPort}/${db}`;
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+function shell(script: string): void {
+  execFileSync('bash', ['-c', `source server/scripts/lib.sh; ${script}`], {
+    cwd: root,
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+}
+
+async function adminQuery(sql: string, db = 'postgres'): Promise<pg.QueryResult> {
+  const client = new pg.Client({ connectionString: adminUrl(db) });
+  await client.connect();
+  try {
+    return await client.query(sql);
+  } finally {
+    await client.end();
+  }
+}
+
+const children: ChildProcess[] = [];
+function stopChildren(): void {
+  for (const child of children) if (child.exitCode === null) child.kill('SIGTERM');
+}
+process.on('exit', stopChildren);
+
+async function waitFor(url: string, child: ChildProcess): Promise<void> {
+  for (let i = 0; i < 600; i++) {
+    if (child.exitCode !== null) throw new Error(`${url}: the process exited (${child.exitCode})`);
+    try {
+      if ((await fetch(url)).ok) return;
+    } catch {
+      // not listening yet
+    }
+    await sleep(100);
+  }
+  throw new Error(`${url} did not answer within 60 s`);
+}
+
+function startServer(port: number): ChildProcess {
+  const child = spawn('node', ['dist-server/index.js'], {
+    cwd: root,
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      DATABASE_URL: `postgres://phasewright_app@127.0.0.1:${pgPort}/${DB}`,
+      DATABASE_OWNER_URL: `postgres://phasewright_owner@127.0.0.1:${pgPort}/${DB}`,
+      SESSION_SECRET: 'bench-session-secret-invented-0123456789',
+      // 50 sign-ins from one address in a few seconds: the bench signs in, it does not attack.
+      SIGN_IN_RATE_LIMIT: '100000',
+      PHASEWRIGHT_SEED_DEMO: '',
+      STORAGE_DRIVER: 'local',
+      FILES_DIR: join(root, '.data', 'bench-load-files'),
+    },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  children.push(child);
+  return child;
+}
+
+function startBare(port: number): ChildProcess {
+  const source = `
+    import express from 'express';
+    const app = express();
+    app.get('/bare', (req, res) => res.json({ ok: true, at: Date.now() }));
+    app.listen(${port}, '127.0.0.1');
+  `;
+  const child = spawn('node', ['--input-type=module', '-e', source], {
+    cwd: root,
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  children.push(child);
+  return child;
+}
+
+const rssMb = (pid: number) => {
+  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+  return Number(/VmRSS:\s+(\d+) kB/.exec(status)![1]) / 1024;
+};
+
+interface User {
+  cookie: string;
+  csrf: string;
+}
+
+async function signIn(base: string, email: string): Promise<User> {
+  const reply = await fetch(`${base}/api/v1/session`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password: PASSWORD }),
+  });
+  if (!reply.ok) throw new Error(`sign-in ${email}: ${reply.status} ${await reply.text()}`);
+  const cookie = reply.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
+  const body = (await reply.json()) as { csrfToken: string };
+  return { cookie, csrf: body.csrfToken };
+}
+
+interface Figure {
+  name: string;
+  rps: number;
+  p50: number;
+  p99: number;
+  errors: number;
+  non2xx: number;
+  requests: number;
+}
+
+interface Load {
+  name: string;
+  method: 'GET' | 'POST';
+  path: string;
+  body?: string;
+  signedIn: boolean;
+}
+
+/** One autocannon run; each connection keeps one user's session. */
+async function measure(
+  load: Load,
+  targets: Array<{ base: string; users: User[] }>,
+  connections = USERS,
+  seconds = SECONDS,
+): Promise<Figure> {
+  const perTarget = Math.round(connections / targets.length);
+  const results = await Promise.all(
+    targets.map(({ base, users }) => {
+      let next = 0;
+      return autocannon({
+        url: base,
+        connections: perTarget,
+        duration: seconds,
+        requests: [
+          {
+            method: load.method,
+            path: load.path,
+            ...(load.body ? { body: load.body } : {}),
+            setupRequest: (request: autocannon.Request, context: object) => {
+              if (!load.signedIn) return request;
+              const session = context as { user?: User };
+              session.user ??= users[next++ % users.length];
+              const user = session.user!;
+              return {
+                ...request,
+                headers: {
+                  ...request.headers,
+                  cookie: user.cookie,
+                  'x-csrf-token': user.csrf,
+                  ...(load.body ? { 'content-type': 'application/json' } : {}),
+                },
+              };
+            },
+          },
+        ],
+      });
+    }),
+  );
+  const total = (pick: (r: autocannon.Result) => number) =>
+    results.reduce((sum, r) => sum + pick(r), 0);
+  const worst = (pick: (r: autocannon.Result) => number) => Math.max(...results.map(pick));
+  return {
+    name: load.name,
+    rps: total((r) => r.requests.average),
+    p50: worst((r) => r.latency.p50),
+    p99: worst((r) => r.latency.p99),
+    errors: total((r) => r.errors + r.timeouts),
+    non2xx: total((r) => r.non2xx),
+    requests: total((r) => r.requests.total),
+  };
+}
+
+async function prepareDatabase(): Promise<void> {
+  shell(
+    `ensure_postgres_binaries; pg_up pg-test ${pgPort} "-c fsync=off -c synchronous_commit=off"`,
+  );
+  await adminQuery(`DROP DATABASE IF EXISTS ${DB} WITH (FORCE)`);
+  shell(`ensure_postgres_binaries; pg_createdb ${pgPort} ${DB}`);
+}
+
+async function seedPeople(): Promise<{ workspaceId: string; emails: string[] }> {
+  const hash = await hashPassword(PASSWORD);
+  const client = new pg.Client({ connectionString: adminUrl(DB) });
+  await client.connect();
+  try {
+    const workspace = await client.query(
+      `INSERT INTO workspaces (name, slug) VALUES ('Load test group (invented)', 'load-test') RETURNING id`,
+    );
+    const workspaceId = workspace.rows[0].id as string;
+    const emails = Array.from({ length: USERS }, (_, i) => `load-chemist-${i}@example.com`);
+    for (const [i, email] of emails.entries()) {
+      const user = await client.query(
+        `INSERT INTO users (email, name, password_hash) VALUES ($1, $2, $3) RETURNING id`,
+        [email, `Load Chemist ${i} (invented)`, hash],
+      );
+      await client.query(
+        `INSERT INTO memberships (user_id, workspace_id, roles) VALUES ($1, $2, ARRAY['chemist'])`,
+        [user.rows[0].id, workspaceId],
+      );
+    }
+    return { workspaceId, emails };
+  } finally {
+    await client.end();
+  }
+}
+
+const fmt = (n: number, digits = 0) => n.toFixed(digits);
+
+async function main(): Promise<void> {
+  console.log('preparing the database and compiling the server');
+  await prepareDatabase();
+  execFileSync('node', ['server/build/server.mjs'], { cwd: root, stdio: 'ignore' });
+
+  const ports = [BASE_PORT, BASE_PORT + 1];
+  const barePort = BASE_PORT + 2;
+  const bases = ports.map((p) => `http://127.0.0.1:${p}`);
+  const first = startServer(ports[0]!);
+  await waitFor(`${bases[0]}/api/v1/health`, first);
+  const bare = startBare(barePort);
+  const bareBase = `http://127.0.0.1:${barePort}`;
+  await waitFor(`${bareBase}/bare`, bare);
+
+  const { workspaceId, emails } = await seedPeople();
+  const users: User[] = [];
+  for (const email of emails) users.push(await signIn(bases[0]!, email));
+
+  // The 30-step route of the engine benchmark (tests/bench/route.bench.ts), 10 components.
+  const make = (compounds: number) =>
+    generateRoute({ seed: 11, steps: 30, compounds, weights: BENCH_WEIGHTS });
+  const document = make(Math.max(1, 10 - (make(1).components.length - 1)));
+  let routeId = '';
+  for (let i = 0; i < ROUTES; i++) {
+    const user = users[i % users.length]!;
+    const reply = await fetch(`${bases[0]}/api/v1/workspaces/${workspaceId}/routes`, {
+      method: 'POST',
+      headers: {
+        'content-type': 'application/json',
+        cookie: user.cookie,
+        'x-csrf-token': user.csrf,
+      },
+      body: JSON.stringify({ name: `Load route ${i} (invented)`, document }),
+    });
+    if (reply.status !== 201)
+      throw new Error(`create route: ${reply.status} ${await reply.text()}`);
+    routeId ||= ((await reply.json()) as { id: string }).id;
+  }
+
+  // Idle: a few seconds after start-up and seeding, before any load.
+  await sleep(5000);
+  const idleRss = rssMb(first.pid!);
+  const bareRss = rssMb(bare.pid!);
+
+  const loads: Record<string, Load> = {
+    bare: { name: 'Bare Express GET', method: 'GET', path: '/bare', signedIn: false },
+    health: {
+      name: 'Health check with a session cookie',
+      method: 'GET',
+      path: '/api/v1/health',
+      signedIn: true,
+    },
+    route: {
+      name: 'Read the 30-step route',
+      method: 'GET',
+      path: `/api/v1/workspaces/${workspaceId}/routes/${routeId}`,
+      signedIn: true,
+    },
+    list: {
+      name: 'Routes list, first page',
+      method: 'GET',
+      path: `/api/v1/workspaces/${workspaceId}/routes`,
+      signedIn: true,
+    },
+    evaluate: {
+      name: 'POST /evaluate, 30-step route',
+      method: 'POST',
+      path: '/api/v1/evaluate',
+      body: JSON.stringify({ document }),
+      signedIn: true,
+    },
+  };
+  const one = [{ base: bases[0]!, users }];
+  const bareTarget = [{ base: bareBase, users: [] }];
+
+  console.log('warming up');
+  await measure(loads.route!, one, USERS, 2);
+  await measure(loads.evaluate!, one, USERS, 2);
+
+  const oneInstance: Figure[] = [];
+  const bareOne = await measure(loads.bare!, bareTarget);
+  for (const key of ['health', 'route', 'list', 'evaluate'])
+    oneInstance.push(await measure(loads[key]!, one));
+  const busyRss = rssMb(first.pid!);
+
+  console.log('starting the second instance');
+  const second = startServer(ports[1]!);
+  await waitFor(`${bases[1]}/api/v1/health`, second);
+  const two = bases.map((base) => ({ base, users }));
+  // A session made on one instance works on the other: the same users, the same cookies.
+  const twoInstances: Figure[] = [];
+  const bareTwo = await measure(loads.bare!, bareTarget);
+  for (const key of ['route', 'list', 'evaluate'])
+    twoInstances.push(await measure(loads[key]!, two));
+
+  stopChildren();
+  await sleep(500);
+  await adminQuery(`DROP DATABASE IF EXISTS ${DB} WITH (FORCE)`);
+
+  const ratio = (f: Figure, base: Figure) => (100 * f.rps) / base.rps;
+  const line = (f: Figure, base: Figure, target: string, met: boolean | null) =>
+    `| ${f.name} | ${fmt(f.rps)} | ${fmt(ratio(f, base), 1)} % | ${fmt(f.p50)} | ${fmt(f.p99)} | ${f.errors + f.non2xx} of ${f.requests} | ${target} | ${met === null ? '' : met ? 'yes' : 'NO'} |`;
+  const readMet = (f: Figure, base: Figure) =>
+    ratio(f, base) >= 30 && f.p99 <= 100 && f.errors + f.non2xx === 0;
+  const header = [
+    '| Load (50 connections) | Requests/s | Of bare | p50 (ms) | p99 (ms) | Errors | Target | Met |',
+    '|---|---:|---:|---:|---:|---|---|---|',
+  ];
+  const [health, route, list, evaluate] = oneInstance as [Figure, Figure, Figure, Figure];
+  const [route2, list2, evaluate2] = twoInstances as [Figure, Figure, Figure];
+  const date = new Date().toISOString().slice(0, 16).replace('T', ' ');
+  const cpu = os.cpus()[0]?.model?.trim() ?? 'unknown CPU';
+  const machine = `${os.type()} ${os.release()}, ${cpu} × ${os.cpus().length}, Node ${process.version}, load average ${os.loadavg()[0]!.toFixed(1)} at the end`;
+  const oneTable = [
+    ...header,
+    line(bareOne, bareOne, 'baseline', null),
+    line(health, bareOne, '', null),
+    line(route, bareOne, '≥ 30 % of bare, p99 ≤ 100 ms, no errors', readMet(route, bareOne)),
+    line(list, bareOne, '≥ 30 % of bare, p99 ≤ 100 ms, no errors', readMet(list, bareOne)),
+    line(evaluate, bareOne, '≥ 150 requests/s', evaluate.rps >= 150),
+  ];
+  const twoTable = [
+    ...header,
+    line(bareTwo, bareTwo, 'baseline', null),
+    line(route2, bareTwo, '', null),
+    line(list2, bareTwo, '', null),
+    line(evaluate2, bareTwo, '', null),
+  ];
+  const memory = `Idle server RSS ${fmt(idleRss)} MB (target ≤ 120 MB: ${idleRss <= 120 ? 'met' : 'NOT met'}); after the load ${fmt(busyRss)} MB; the bare Express process ${fmt(bareRss)} MB.`;
+  const performance = [
+    `Run ${date} UTC on ${machine}. \`npm run bench:load\` (tests/bench/load.ts): the compiled server (\`node dist-server/index.js\`, production), its own database on the test cluster (fsync off), ${USERS} chemists signed in (one session per connection), ${ROUTES} routes of 30 steps, autocannon for ${SECONDS} s per line; the bare Express endpoint runs in its own process in the same run.`,
+    '',
+    '### One instance',
+    '',
+    ...oneTable,
+    '',
+    '### Two instances (two processes, two ports, one database; 25 connections each)',
+    '',
+    ...twoTable,
+    '',
+    memory,
+  ].join('\n');
+  const deployment = [
+    `Measured ${date} UTC with \`npm run bench:load\` on this machine (${os.cpus().length} cores shared by everything, including PostgreSQL and the load generator): requests per second with ${USERS} signed-in users.`,
+    '',
+    '| Load | One instance | Two instances | Bare Express (same run) |',
+    '|---|---:|---:|---:|',
+    `| Read the 30-step route | ${fmt(route.rps)} (p99 ${fmt(route.p99)} ms) | ${fmt(route2.rps)} (p99 ${fmt(route2.p99)} ms) | ${fmt(bareOne.rps)} / ${fmt(bareTwo.rps)} |`,
+    `| Routes list, first page | ${fmt(list.rps)} (p99 ${fmt(list.p99)} ms) | ${fmt(list2.rps)} (p99 ${fmt(list2.p99)} ms) | ${fmt(bareOne.rps)} / ${fmt(bareTwo.rps)} |`,
+    `| POST /evaluate, 30 steps | ${fmt(evaluate.rps)} (p99 ${fmt(evaluate.p99)} ms) | ${fmt(evaluate2.rps)} (p99 ${fmt(evaluate2.p99)} ms) | |`,
+    '',
+    memory,
+  ].join('\n');
+  console.log(`\n${performance}\n`);
+  rewrite(join(root, 'docs', 'performance.md'), 'load', performance, '## load');
+  rewrite(join(root, 'docs', 'deployment.md'), 'load', deployment, '## Measured figures');
+  console.log(
+    'Wrote the load section of docs/performance.md and the figures in docs/deployment.md.',
+  );
+}
+
+function rewrite(file: string, name: string, body: string, heading: string): void {
+  const start = `<!-- bench:${name}:start -->`;
+  const end = `<!-- bench:${name}:end -->`;
+  const block = `${start}\n${body}\n${end}`;
+  let text = existsSync(file) ? readFileSync(file, 'utf8') : '';
+  const i = text.indexOf(start);
+  const j = text.indexOf(end);
+  text =
+    i >= 0 && j > i
+      ? text.slice(0, i) + block + text.slice(j + end.length)
+      : `${text.trimEnd()}\n\n${heading}\n\n${block}\n`;
+  writeFileSync(file, text);
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  stopChildren();
+  process.exit(1);
+});
