@@ -30,7 +30,7 @@ export function Select({
       <select
         id={selectId}
         onChange={(e) => onValueChange(e.target.value)}
-        className="block h-8 w-full rounded-control border border-rule-strong bg-paper-raised px-2 text-body text-ink focus-visible:outline-2 focus-visible:outline-accent"
+        className="block h-8 w-full rounded-control border border-rule-strong bg-paper-raised px-2 text-body text-ink focus-visible:outline-2 focus-visible:outline-accent disabled:cursor-not-allowed disabled:border-rule disabled:bg-paper-sunken disabled:text-ink-muted read-only:border-rule read-only:bg-paper-sunken"
         {...rest}
       >
         {options.map((o) => (

@@ -3,7 +3,9 @@ import { cn } from './cn';
 
 export const inputClass =
   'block w-full h-9 rounded-control border bg-paper-raised px-2.5 text-body text-ink placeholder:text-ink-faint ' +
-  'focus-visible:outline-2 focus-visible:outline-offset-1 focus-visible:outline-accent';
+  'focus-visible:outline-2 focus-visible:outline-offset-1 focus-visible:outline-accent ' +
+  // A field that may only be read looks it: sunken, muted, no edit cursor.
+  'disabled:cursor-not-allowed disabled:border-rule disabled:bg-paper-sunken disabled:text-ink-muted read-only:border-rule read-only:bg-paper-sunken';
 
 type TextFieldProps = Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' | 'value'> & {
   label: string;

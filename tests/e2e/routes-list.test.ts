@@ -133,6 +133,18 @@ describe('routes list', () => {
     );
     await page.locator('.react-flow__node').first().click();
     await expect(page.getByLabel('Step name').isEditable()).resolves.toBe(false);
+    // And looks it: sunken, not the raised white of a field that takes typing, no edit cursor.
+    const look = await page.getByLabel('Step name').evaluate((el) => {
+      const probe = document.createElement('input');
+      probe.className = el.className;
+      document.body.append(probe);
+      const editable = getComputedStyle(probe).backgroundColor;
+      probe.remove();
+      const style = getComputedStyle(el);
+      return { background: style.backgroundColor, editable, cursor: style.cursor };
+    });
+    expect(look.background).not.toBe(look.editable);
+    expect(look.cursor).toBe('not-allowed');
     // A keyboard edit is refused with a plain note, and the route keeps its steps.
     const steps = await page.locator('.react-flow__node').count();
     await page.keyboard.press('Delete');

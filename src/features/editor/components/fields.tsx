@@ -15,7 +15,7 @@ import { useEditorStore } from '@/stores/editor-store';
 import { keyOf, type ComponentInput } from '../document';
 
 const inputCls =
-  'nodrag nokey block h-8 w-full rounded-control border bg-paper-raised px-2 text-body text-ink focus-visible:outline-2 focus-visible:outline-accent';
+  'nodrag nokey block h-8 w-full rounded-control border bg-paper-raised px-2 text-body text-ink focus-visible:outline-2 focus-visible:outline-accent disabled:cursor-not-allowed disabled:border-rule disabled:bg-paper-sunken disabled:text-ink-muted read-only:border-rule read-only:bg-paper-sunken';
 
 /** A labelled row of the side panel; `common` marks a value taken from common practice. */
 export function Field({
