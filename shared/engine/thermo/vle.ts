@@ -400,6 +400,56 @@ export function bubblePressure(
 }
 
 /**
+ * Bubble pressure of many liquids at one fixed temperature (the isothermal
+ * drying model asks at every integration stage): the vapour pressures at T are
+ * computed once, the buffers are reused, and no warnings are built (ask
+ * bubblePressure once for those).
+ *
+ * Source: as bubblePressure (modified Raoult's law, P = Σ_i x_i γ_i P_i^sat,
+ * y_i = x_i γ_i P_i^sat / P; Smith, Van Ness & Abbott 7th ed. §10.5), the same
+ * arithmetic in the same order, so the same numbers bit for bit.
+ *
+ * @param sys  system from createVleSystem
+ * @param T_K  temperature [K]
+ * @returns a function of the liquid mole fractions x [–] that writes y [–] and returns P [Pa]
+ *
+ * Validity: as bubblePressure; the same errors (composition, temperature, no volatile component).
+ */
+export function bubblePressureAtFixedT(
+  sys: VleSystem,
+  T_K: number,
+): (x: readonly number[], y: Float64Array) => number {
+  const n = sys.components.length;
+  let expLnP: Float64Array | null = null;
+  let volatile: Uint8Array | null = null;
+  const gammas = new Float64Array(n);
+  const partial = new Float64Array(n);
+  return (x, y) => {
+    const xs = normalised(x, n);
+    checkTemperature(T_K);
+    requireVolatile(sys, xs, 'liquid');
+    if (!expLnP || !volatile) {
+      const lnP = new Float64Array(n);
+      saturationPressures(sys, T_K, lnP, new Float64Array(n));
+      expLnP = new Float64Array(n);
+      volatile = new Uint8Array(n);
+      for (let i = 0; i < n; i++) {
+        volatile[i] = lnP[i] === -Infinity ? 0 : 1;
+        expLnP[i] = Math.exp(lnP[i]);
+      }
+    }
+    sys.unifac.gammas(xs, T_K, gammas);
+    let P = 0;
+    for (let i = 0; i < n; i++) {
+      partial[i] = volatile[i] ? xs[i] * gammas[i] * expLnP[i] : 0;
+      P += partial[i];
+    }
+    for (let i = 0; i < n; i++) y[i] = partial[i] / P;
+    return P;
+  };
+}
+
+/**
  * Dew-point temperature of a vapour at a given pressure.
  *
  * Purpose: the temperature at which a vapour of composition y starts to

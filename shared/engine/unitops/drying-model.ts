@@ -42,7 +42,7 @@
  * dryer: fit them to a measured drying curve.
  */
 import { dormandPrince } from '../numerics';
-import { bubblePressure, type VleSystem } from '../thermo/vle';
+import { bubblePressure, bubblePressureAtFixedT, type VleSystem } from '../thermo/vle';
 
 /** The inputs of a drying integration. */
 export interface DryingProblem {
@@ -85,6 +85,15 @@ export interface DryingResult {
 }
 
 /**
+ * Bubble-pressure evaluators of the drying problems at each problem's cake temperature (with the
+ * system and temperature they were made for, so a changed problem gets a new one).
+ */
+const bubbleAtDryingT = new WeakMap<
+  DryingProblem,
+  { sys: VleSystem; T_K: number; at: ReturnType<typeof bubblePressureAtFixedT> }
+>();
+
+/**
  * Evaporation rates E_i [mol/(kg h)] at the state n [mol/kg] (see the module
  * comment for the equations).
  * @param p     the drying problem
@@ -111,12 +120,19 @@ export function evaporationRates(p: DryingProblem, n: ArrayLike<number>, out: Fl
   }
   const x = new Array<number>(m);
   for (let i = 0; i < m; i++) x[i] = Math.max(0, n[i]) / nTot;
-  const b = bubblePressure(p.sys, x, p.T_K);
+  // The cake is isothermal: one bubble-pressure evaluator per problem (vapour pressures once).
+  let bubble = bubbleAtDryingT.get(p);
+  if (!bubble || bubble.sys !== p.sys || bubble.T_K !== p.T_K) {
+    bubble = { sys: p.sys, T_K: p.T_K, at: bubblePressureAtFixedT(p.sys, p.T_K) };
+    bubbleAtDryingT.set(p, bubble);
+  }
+  const y = new Float64Array(m);
+  const P_Pa = bubble.at(x, y);
   const phi = Math.min(1, X / p.criticalContent);
   let A = 0;
   const a = new Array<number>(m);
   for (let i = 0; i < m; i++) {
-    a[i] = (b.y[i] * b.P_Pa * phi) / p.P_Pa;
+    a[i] = (y[i] * P_Pa * phi) / p.P_Pa;
     A += a[i];
   }
   const k = p.dryingCoefficient;
