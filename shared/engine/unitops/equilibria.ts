@@ -17,7 +17,7 @@ import {
   type PKa,
 } from '../properties/partition';
 import { solventById } from '../data/index';
-import type { UnifacGroups } from '../data/types';
+import type { SolventRecord, UnifacGroups } from '../data/types';
 import type { EvalContext } from '../route/context';
 import { warn, method } from '../route/context';
 import type { EngineWarning, MethodUsed } from '../route/types';
@@ -79,6 +79,22 @@ export interface LiquidSplit {
 }
 
 /**
+ * One liquid phase: every solvent to the aqueous or the organic side (a module-level function,
+ * not a closure per call: splitLiquid runs at every wash stage).
+ */
+function singlePhase(
+  ids: readonly string[],
+  kg: Record<string, number>,
+  organicKg: Record<string, number>,
+  aqueousKg: Record<string, number>,
+  toAqueous: boolean,
+  why: string,
+): LiquidSplit {
+  for (const id of ids) (toAqueous ? aqueousKg : organicKg)[id] = kg[id];
+  return { split: false, organicKg, aqueousKg, method: why };
+}
+
+/**
  * Split the solvents of a liquid into two phases at T.
  *
  * Every solvent distributes by its own activity: one liquid–liquid flash
@@ -128,16 +144,12 @@ export function splitLiquid(
     aqueousKg[id] = 0;
   }
   const w = ctx.waterId;
-  const single = (toAqueous: boolean, why: string): LiquidSplit => {
-    for (const id of ids) (toAqueous ? aqueousKg : organicKg)[id] = kg[id];
-    return { split: false, organicKg, aqueousKg, method: why };
-  };
-  if (ids.length === 0) return single(false, 'no solvent');
+  if (ids.length === 0) return singlePhase(ids, kg, organicKg, aqueousKg, false, 'no solvent');
   const organics = ids.filter((id) => id !== w);
   if (!w || !(kg[w] > 0)) {
-    if (organics.length < 2) return single(false, 'one liquid');
+    if (organics.length < 2) return singlePhase(ids, kg, organicKg, aqueousKg, false, 'one liquid');
   } else if (organics.length === 0) {
-    return single(true, 'water only');
+    return singlePhase(ids, kg, organicKg, aqueousKg, true, 'water only');
   }
   let vle: SolventVle | null = null;
   let vleError: Error | null = null;
@@ -181,7 +193,14 @@ export function splitLiquid(
         'no-phase-split',
         `All the water dissolves in ${mainRec.name}: one liquid phase, nothing separates.`,
       );
-      return single(false, 'mutual solubility: single organic phase');
+      return singlePhase(
+        ids,
+        kg,
+        organicKg,
+        aqueousKg,
+        false,
+        'mutual solubility: single organic phase',
+      );
     }
     if (G <= 0) {
       warn(
@@ -190,7 +209,14 @@ export function splitLiquid(
         'no-phase-split',
         `All the ${mainRec.name} dissolves in the water: one liquid phase, nothing separates.`,
       );
-      return single(true, 'mutual solubility: single aqueous phase');
+      return singlePhase(
+        ids,
+        kg,
+        organicKg,
+        aqueousKg,
+        true,
+        'mutual solubility: single aqueous phase',
+      );
     }
     const solventInAq = A * ws;
     for (const id of organics) {
@@ -247,7 +273,7 @@ export function splitLiquid(
         'The liquids are miscible at this composition and temperature (UNIFAC): one liquid phase, nothing separates.',
       );
       const aq = w ? (kg[w] ?? 0) / totalOf(kg, ids) > 0.5 : false;
-      return single(aq, 'UNIFAC: single phase');
+      return singlePhase(ids, kg, organicKg, aqueousKg, aq, 'UNIFAC: single phase');
     }
     const beta = r.phaseFraction;
     const [x0, x1] = r.phases;
@@ -655,6 +681,15 @@ export function neutralPartitionCoefficient(
   return d.D / bestF;
 }
 
+/** A pure solvent as a phase description for the activity-coefficient estimate (ideal molar volume). */
+function pureSolventPhase(s: SolventRecord) {
+  return {
+    groups: [s.unifac.value],
+    moleFractions: [1],
+    molarVolumeM3mol: (s.molarMassGmol.value / s.density.value.gPerMl) * 1e-6,
+  };
+}
+
 /**
  * Distribution ratio D = c_org / c_aq (molar concentrations, all species) of
  * a route compound between the organic phase and an aqueous phase of the
@@ -699,15 +734,10 @@ export function compoundDistribution(
   // Phase descriptions for the activity-coefficient estimate: the mutually saturated phases of
   // the split where given (every solvent of each phase, ideal-mixing molar volume), else the pure
   // main solvent against pure water.
-  const pure = (s: NonNullable<typeof water>) => ({
-    groups: [s.unifac.value],
-    moleFractions: [1],
-    molarVolumeM3mol: (s.molarMassGmol.value / s.density.value.gPerMl) * 1e-6,
-  });
   const organicPhase = phases ? phaseOf(ctx, phases.organicKg, T_K) : null;
   const aqueousPhase = phases ? phaseOf(ctx, phases.aqueousKg, T_K) : null;
-  const orgDesc = organicPhase ?? pure(solvent);
-  const aqDesc = aqueousPhase ?? (water ? pure(water) : undefined);
+  const orgDesc = organicPhase ?? pureSolventPhase(solvent);
+  const aqDesc = aqueousPhase ?? (water ? pureSolventPhase(water) : undefined);
   const phaseKey =
     organicPhase && aqueousPhase ? `${organicPhase.key}/${aqueousPhase.key}` : 'pure';
   const groupsKey = `unifac-groups:${compoundId}`;
