@@ -1,12 +1,13 @@
 import { RouterProvider } from 'react-router-dom';
 import { useState } from 'react';
-import { AppProvider } from './provider';
+import { AppProvider, createQueryClient } from './provider';
 import { createAppRouter } from './router';
 
 export function App() {
-  const [router] = useState(createAppRouter);
+  const [queryClient] = useState(createQueryClient);
+  const [router] = useState(() => createAppRouter(queryClient));
   return (
-    <AppProvider>
+    <AppProvider queryClient={queryClient}>
       <RouterProvider router={router} />
     </AppProvider>
   );

@@ -1,5 +1,5 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import type { Session } from '@shared/schemas/session';
 import { configureApiClient, isApiError } from '@/api/client';
 import { queryKeys } from '@/api/query-keys';
@@ -31,8 +31,13 @@ export function createQueryClient() {
   return queryClient;
 }
 
-export function AppProvider({ children }: { children: ReactNode }) {
-  const [queryClient] = useState(createQueryClient);
+export function AppProvider({
+  children,
+  queryClient,
+}: {
+  children: ReactNode;
+  queryClient: QueryClient;
+}) {
   return (
     <AppErrorBoundary>
       <QueryClientProvider client={queryClient}>

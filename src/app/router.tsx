@@ -1,13 +1,17 @@
+import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter } from 'react-router-dom';
 import { paths } from '@/paths';
 import { Loading } from '@/components/spinner';
 import { RouteErrorPage } from './route-error';
+import { prefetchRouteEditor, prefetchSession } from './prefetch';
 
 /**
  * Every page is its own lazily loaded module, so the first page ships only
- * the router, the query client and the page itself.
+ * the router, the query client and the page itself. Loaders return at once:
+ * they only start the session and the page's data, which then load beside
+ * the page's code instead of after it.
  */
-export function createAppRouter() {
+export function createAppRouter(queryClient: QueryClient) {
   return createBrowserRouter([
     {
       errorElement: <RouteErrorPage />,
@@ -27,6 +31,10 @@ export function createAppRouter() {
         },
         {
           lazy: () => import('./layouts/app-shell'),
+          loader: () => {
+            prefetchSession(queryClient);
+            return null;
+          },
           children: [
             { index: true, lazy: () => import('@/routes/start') },
             { path: paths.account.pattern, lazy: () => import('@/routes/account') },
@@ -39,6 +47,10 @@ export function createAppRouter() {
                 {
                   path: paths.workspace.route.pattern,
                   lazy: () => import('@/routes/route-editor'),
+                  loader: ({ params }) => {
+                    prefetchRouteEditor(queryClient, params.workspaceId!, params.routeId!);
+                    return null;
+                  },
                 },
                 {
                   path: paths.workspace.optimise.pattern,

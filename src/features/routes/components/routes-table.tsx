@@ -1,5 +1,7 @@
 import { useMemo, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
+import { prefetchRouteEditor } from '@/app/prefetch';
 import {
   createColumnHelper,
   flexRender,
@@ -52,6 +54,7 @@ export function RoutesTable({
   const [renaming, setRenaming] = useState<{ id: string; name: string; version: number } | null>(
     null,
   );
+  const queryClient = useQueryClient();
   const update = useUpdateRoute(workspaceId);
   const duplicate = useDuplicateRoute(workspaceId);
 
@@ -64,6 +67,9 @@ export function RoutesTable({
           <Link
             to={paths.workspace.route.to(workspaceId, c.row.original.id)}
             className="font-medium text-accent hover:underline"
+            // Pointing at or tabbing to a route starts its code, the session and the route.
+            onMouseEnter={() => prefetchRouteEditor(queryClient, workspaceId, c.row.original.id)}
+            onFocus={() => prefetchRouteEditor(queryClient, workspaceId, c.row.original.id)}
           >
             {c.getValue()}
           </Link>
@@ -163,7 +169,7 @@ export function RoutesTable({
             }),
           ]),
     ],
-    [workspaceId, duplicate, update, canWrite],
+    [workspaceId, duplicate, update, canWrite, queryClient],
   );
 
   const sorting = SORTING_OF[sort];
