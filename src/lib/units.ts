@@ -5,9 +5,54 @@
  * the reference input) and "equiv" (mol per mol of it) are the document's own
  * relative units and are read here directly. Errors say what was expected.
  */
-import { create, unitDependencies } from 'mathjs';
+import {
+  create,
+  // @ts-expect-error mathjs exports the Unit class factory but its type declarations omit it
+  createUnitClass,
+  factory,
+} from 'mathjs';
 
-const math = create({ unitDependencies });
+// A custom mathjs bundle: the Unit class alone, over plain numbers. Unit asks for the
+// arithmetic, formatting and number types of the full library; every value here is a plain
+// number, so each of those is the number operation itself and the BigNumber, Fraction and
+// Complex types are empty stand-ins that are never built from what a chemist types. This keeps
+// mathjs' matrices, typed functions and the decimal, fraction and complex libraries out of the
+// editor's code.
+const plain = <F extends (...args: never[]) => unknown>(name: string, fn: F) =>
+  factory(name, [], () => fn);
+class Unused {
+  constructor(..._args: unknown[]) {}
+}
+const math = create({
+  createUnitClass,
+  createAddScalar: plain('addScalar', (a: number, b: number) => a + b),
+  createSubtractScalar: plain('subtractScalar', (a: number, b: number) => a - b),
+  createMultiplyScalar: plain('multiplyScalar', (a: number, b: number) => a * b),
+  createDivideScalar: plain('divideScalar', (a: number, b: number) => a / b),
+  createPow: plain('pow', (a: number, b: number) => a ** b),
+  createAbs: plain('abs', (a: number) => Math.abs(a)),
+  createFix: plain('fix', (a: number) => Math.trunc(a)),
+  createRound: plain('round', (a: number, digits = 0) => {
+    const scale = 10 ** digits;
+    return Math.round(a * scale) / scale;
+  }),
+  createEqual: plain('equal', (a: number, b: number) => a === b),
+  createIsNumeric: plain('isNumeric', (a: unknown) => typeof a === 'number'),
+  createFormat: plain('format', (a: number) => String(a)),
+  createNumber: plain('number', (a: unknown) => Number(a)),
+  createComplexClass: factory('Complex', [], () => Unused),
+  createBigNumberClass: factory('BigNumber', [], () => Unused),
+  createFractionClass: factory('Fraction', [], () => Unused),
+}) as unknown as { Unit: MathUnitClass };
+
+interface MathUnit {
+  equalBase(other: MathUnit): boolean;
+  toNumber(unit: string): number;
+}
+interface MathUnitClass {
+  parse(text: string): MathUnit;
+}
+const unit = (text: string) => math.Unit.parse(text);
 
 export type QuantityKind =
   | 'volume'
@@ -101,8 +146,8 @@ function toUnit(text: string, target: string, kind: QuantityKind): Parsed<number
   const t = normalise(text);
   if (!t) return { ok: false, error: `Enter a value, for example ${EXAMPLES[kind]}.` };
   try {
-    const u = math.unit(t);
-    if (!u.equalBase(math.unit(target))) {
+    const u = unit(t);
+    if (!u.equalBase(unit(target))) {
       return {
         ok: false,
         error: `“${text.trim()}” is not a ${kind}. Write it as ${EXAMPLES[kind]}.`,
