@@ -11,6 +11,7 @@ import { authorize } from '../policies';
 import type { AppConfig } from '../config';
 import { enginePool } from '../pool';
 import { checkStepCount, inUserSlot } from '../services/evaluation-limits';
+import { ADVISOR_TIME_LIMIT_FACTOR } from '../services/solvent-alternatives';
 
 export function solventAlternativesRouter(config: AppConfig): Router {
   const router = Router();
@@ -27,7 +28,7 @@ export function solventAlternativesRouter(config: AppConfig): Router {
     responses: {
       200: {
         description:
-          'The substitutes, ranked: by PMI among those that keep the yield within 2 points and the solvent-free purity at least the current, then the others by PMI, then those the route cannot be evaluated with. The current solvent is not listed. Each one the engine could evaluate carries the Monte Carlo spread (p5/p50/p95 over 12 seeded draws of the ± ranges) of its yield, solvent-free purity and PMI, and every one the caution that it is a model result to confirm at the bench and through the process-safety review.',
+          'The substitutes, ranked: by PMI among those that keep the yield within 2 points and the solvent-free purity at least the current, then the others by PMI, then those the route cannot be evaluated with. The current solvent is not listed. Each one the engine could evaluate carries the Monte Carlo spread (p5/p50/p95 over 8 seeded draws of the ± ranges) of its yield, solvent-free purity and PMI, and every one the caution that it is a model result to confirm at the bench and through the process-safety review.',
         schema: solventAlternativesResponseSchema,
       },
       400: {
@@ -41,7 +42,7 @@ export function solventAlternativesRouter(config: AppConfig): Router {
       },
       422: {
         description:
-          'The route itself cannot be evaluated (details name the step and field), or evaluation_timeout: the substitutes took longer than the engine time limit.',
+          'The route itself cannot be evaluated (details name the step and field), or evaluation_timeout: the substitutes took longer than three times the engine time limit.',
         schema: z.union([routeEvaluationErrorSchema, apiErrorSchema]),
       },
       429: {
@@ -58,7 +59,9 @@ export function solventAlternativesRouter(config: AppConfig): Router {
       authorize(actor, 'route.evaluate', null);
       checkStepCount(body.document.steps.length, config.evaluation);
       const alternatives = await inUserSlot(actor.userId, config.evaluation, () =>
-        enginePool().run('solvent.alternatives', body),
+        enginePool().run('solvent.alternatives', body, {
+          timeoutMs: ADVISOR_TIME_LIMIT_FACTOR * config.pool.taskTimeoutMs,
+        }),
       );
       return { status: 200, body: alternatives };
     },

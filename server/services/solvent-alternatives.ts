@@ -10,7 +10,13 @@ import { badRequest } from '../errors';
 import { describeFailure, RouteEvaluationFailed } from './evaluation';
 
 /** Monte Carlo spread given with every suggestion: how many draws, which seed. */
-export const ADVISOR_UNCERTAINTY = { draws: 12, seed: 1 } as const;
+export const ADVISOR_UNCERTAINTY = { draws: 8, seed: 1 } as const;
+/**
+ * The advisor evaluates the route once per library solvent and draws each
+ * one's spread (about 40 × 9 evaluations): it gets this many times the engine
+ * time limit of one evaluation, so a loaded server still answers.
+ */
+export const ADVISOR_TIME_LIMIT_FACTOR = 3;
 
 export function computeSolventAlternatives(input: {
   document: RouteDocument;

@@ -69,7 +69,7 @@ describe('POST /api/v1/solvent-alternatives', () => {
         expect(a.uncertainty, a.solventId).toBeNull();
         continue;
       }
-      expect(a.uncertainty?.draws, a.solventId).toBe(12);
+      expect(a.uncertainty?.draws, a.solventId).toBe(8);
       expect(a.uncertainty!.pmi.p5!).toBeLessThanOrEqual(a.uncertainty!.pmi.p95!);
     }
 

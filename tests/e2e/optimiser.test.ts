@@ -70,8 +70,16 @@ describe('optimising the demo route', () => {
     await page.getByLabel('Evaluations', { exact: true }).fill('30');
     await page.getByRole('button', { name: 'Start optimising' }).click();
 
-    // Progress is shown while it runs, then the picture.
+    // Progress is shown while it runs, brought into view (it sits below the form), then the picture.
     await page.getByRole('progressbar', { name: 'Optimisation progress' }).waitFor();
+    await expect
+      .poll(async () => {
+        const box = await page
+          .getByRole('progressbar', { name: 'Optimisation progress' })
+          .boundingBox();
+        return box !== null && box.y >= 0 && box.y + box.height <= 800;
+      })
+      .toBe(true);
     const result = page.getByTestId('optimiser-result');
     await result.waitFor({ timeout: 180_000 });
     await expect
@@ -100,6 +108,9 @@ describe('optimising the demo route', () => {
     expect(await result.textContent()).toMatch(
       /bench and through the site’s process-safety review/,
     );
+    // Purity is written as the totals card writes it: never "100.00" for a solid with impurities.
+    const figures = page.getByRole('table', { name: /Figures/ });
+    expect(await figures.textContent()).not.toMatch(/100\.00/);
     await page.evaluate(() =>
       document.getElementById('optimiser-run')?.scrollIntoView({ block: 'start' }),
     );

@@ -13,6 +13,7 @@ import { Button } from '@/components/button';
 import { ErrorState } from '@/components/error-state';
 import { Loading } from '@/components/spinner';
 import { Select } from '@/components/select';
+import { formatPurity } from '@/features/editor';
 import { paths } from '@/paths';
 import { useEditorStore } from '@/stores/editor-store';
 import { useSolventAlternatives } from '../api/advisor-solvent-alternatives';
@@ -158,7 +159,7 @@ function AlternativesList({
         this step only (volumes and every other step unchanged), ranked by PMI among those that keep
         the yield within 2 points and the solvent-free purity at least the current, then the rest.
         Model results: confirm at the bench and through the site&apos;s process-safety review. Each
-        line gives the spread of its PMI, yield and purity (p5–p95 over 12 draws of the route&apos;s
+        line gives the spread of its PMI, yield and purity (p5–p95 over 8 draws of the route&apos;s
         ± ranges, with that solvent); it does not include the error of the models or the solvent
         data. Guide categories: CHEM21 (Prat et al., Green Chem. 2016, 18, 288), as read from the
         guide&apos;s table.
@@ -187,15 +188,15 @@ function AlternativesList({
                 PMI {fmt(a.totals.pmi)}
                 {signed(a.deltaVsCurrent?.pmi)} · yield {fmt(a.totals.yieldPct)} %
                 {signed(a.deltaVsCurrent?.yieldPct)} · purity{' '}
-                {fmt(a.totals.solventFreePurityPct, 2)} %
+                {formatPurity(a.totals.solventFreePurityPct)} %
               </p>
             ) : null}
             {a.uncertainty ? (
               <p className="text-caption text-ink-muted">
                 Spread p5–p95: PMI {fmt(a.uncertainty.pmi.p5)}–{fmt(a.uncertainty.pmi.p95)}, yield{' '}
                 {fmt(a.uncertainty.yieldPct.p5)}–{fmt(a.uncertainty.yieldPct.p95)} %, purity{' '}
-                {fmt(a.uncertainty.solventFreePurityPct.p5, 2)}–
-                {fmt(a.uncertainty.solventFreePurityPct.p95, 2)} %
+                {formatPurity(a.uncertainty.solventFreePurityPct.p5)}–
+                {formatPurity(a.uncertainty.solventFreePurityPct.p95)} %
               </p>
             ) : null}
             <p className="text-caption">

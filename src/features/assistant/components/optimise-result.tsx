@@ -5,6 +5,7 @@ import type { OptimiseRequestInput } from '@shared/schemas/optimise';
 import { freeParamChoices } from '@shared/engine/optimise';
 import { Button } from '@/components/button';
 import { Select } from '@/components/select';
+import { formatPurity } from '@/features/editor';
 import {
   OBJECTIVE_AXIS,
   TRADE_OFF_AXES,
@@ -180,8 +181,12 @@ export function OptimiseResultView({
                 name="Solvent-free purity (%)"
                 now={current?.totals.solventFreePurityPct}
                 chosen={best.totals.solventFreePurityPct}
-                spread={band(u.solventFreePurityPct, 2)}
-                digits={2}
+                spread={
+                  u.solventFreePurityPct
+                    ? `${formatPurity(u.solventFreePurityPct.p5)} – ${formatPurity(u.solventFreePurityPct.p95)}`
+                    : '—'
+                }
+                format={formatPurity}
               />
               <FigureRow
                 name="Largest volume (L)"
@@ -237,18 +242,21 @@ function FigureRow({
   chosen,
   spread,
   digits = 1,
+  format = (v) => fmt(v, digits),
 }: {
   name: string;
   now: number | null | undefined;
   chosen: number | null | undefined;
   spread: string;
   digits?: number;
+  /** How a value is written (purity: as the totals card writes it). */
+  format?: (v: number | null | undefined) => string;
 }) {
   return (
     <tr className="border-b border-rule">
       <td className="py-1 pr-2">{name}</td>
-      <td className="py-1 pr-2">{fmt(now, digits)}</td>
-      <td className="py-1 pr-2 font-medium">{fmt(chosen, digits)}</td>
+      <td className="py-1 pr-2">{format(now)}</td>
+      <td className="py-1 pr-2 font-medium">{format(chosen)}</td>
       <td className="py-1">{spread}</td>
     </tr>
   );

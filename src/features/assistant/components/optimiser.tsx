@@ -1,4 +1,4 @@
-import { useMemo, useState, type FormEvent } from 'react';
+import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { RouteDocument } from '@shared/schemas/route';
 import {
@@ -116,6 +116,12 @@ export function Optimiser({
   const start = useStartOptimise();
   const [run, setRun] = useState<{ jobId: string; request: OptimiseRequestInput } | null>(null);
   const job = useOptimiseJob(run?.jobId ?? null);
+  // The run's progress and answer appear below the form: bring them into view when a run
+  // starts, so the chemist does not look at a greyed-out button and wonder what happened.
+  const runHeading = useRef<HTMLHeadingElement>(null);
+  useEffect(() => {
+    if (run) runHeading.current?.scrollIntoView({ block: 'start' });
+  }, [run?.jobId]); // eslint-disable-line react-hooks/exhaustive-deps
   const cancel = useCancelOptimise();
   const copy = useTryInCopy(workspaceId);
   const navigate = useNavigate();
@@ -450,7 +456,7 @@ export function Optimiser({
 
       {run ? (
         <section aria-labelledby="optimiser-run" className="space-y-3">
-          <h2 id="optimiser-run" className="text-title font-medium">
+          <h2 id="optimiser-run" ref={runHeading} className="text-title font-medium">
             Run
           </h2>
           {job.isPending ? (
