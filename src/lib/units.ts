@@ -5,6 +5,7 @@
  * the reference input) and "equiv" (mol per mol of it) are the document's own
  * relative units and are read here directly. Errors say what was expected.
  */
+import { engineeringToE, formatEngineering } from './format';
 import {
   create,
   // @ts-expect-error mathjs exports the Unit class factory but its type declarations omit it
@@ -129,7 +130,7 @@ function mapParsed<A, B>(r: Parsed<A>, f: (v: A) => B): Parsed<B> {
 }
 
 function normalise(text: string): string {
-  return text
+  return engineeringToE(text)
     .trim()
     .replace(/(\d),(\d)/g, '$1.$2')
     .replace(/°\s*C|℃/g, ' degC')
@@ -321,7 +322,8 @@ export function formatQuantity(kind: QuantityKind, value: unknown): string {
 }
 
 function fmt(v: number): string {
-  return String(round(v));
+  // Very large and very small values in engineering notation ("10 × 10⁹"), which the parser reads back.
+  return formatEngineering(round(v), 4);
 }
 function round(v: number): number {
   return Number(v.toPrecision(10));

@@ -55,6 +55,18 @@ describe('the demo route', () => {
       .waitFor();
     await shot('demo-02-crystallisation');
 
+    // Very large numbers in engineering notation, read back as typed: the filter medium's resistance.
+    await page.getByRole('article', { name: /^Filtration:/ }).click();
+    const medium = page
+      .getByRole('form', { name: /Settings of Filter/ })
+      .getByLabel('Filter-medium resistance (1/m)');
+    await expect(medium.inputValue()).resolves.toBe('10 × 10⁹');
+    await medium.fill('20 × 10⁹');
+    await medium.press('Enter');
+    await expect.poll(() => medium.inputValue()).toBe('20 × 10⁹');
+    await expect(medium.getAttribute('aria-invalid')).resolves.not.toBe('true');
+    await page.getByRole('article', { name: /^Crystallisation: Heptane antisolvent/ }).click();
+
     // Half the heptane: the yield and the purity both move, and the totals show by how much.
     await volume.fill('3 ± 0.5 vol');
     await volume.press('Enter');
