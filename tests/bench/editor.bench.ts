@@ -19,22 +19,13 @@ import { gzipSync } from 'node:zlib';
 import pg from 'pg';
 import { chromium, type Page } from 'playwright-core';
 import type { BenchResult } from './harness';
+import { useTestCluster } from './test-cluster';
 import { BENCH_WEIGHTS, generateRoute } from '../fixtures/routes/generate';
 
 const PG_PORT = Number(process.env.TEST_PGPORT ?? 54330);
 const ADMIN_URL = `postgres://postgres@127.0.0.1:${PG_PORT}/postgres`;
 const OPEN_RUNS = 5;
 const EDITS = 30;
-
-function answers(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = net.connect({ host: '127.0.0.1', port });
-    socket.setTimeout(1_000);
-    socket.once('connect', () => (socket.destroy(), resolve(true)));
-    socket.once('timeout', () => (socket.destroy(), resolve(false)));
-    socket.once('error', () => resolve(false));
-  });
-}
 
 async function admin(sql: string) {
   const client = new pg.Client({ connectionString: ADMIN_URL });
@@ -87,18 +78,7 @@ async function createRoute(
 export async function run(): Promise<BenchResult[]> {
   execFileSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build'], { stdio: 'ignore' });
 
-  let startedCluster = false;
-  if (!(await answers(PG_PORT))) {
-    execFileSync(
-      'bash',
-      [
-        '-c',
-        `source server/scripts/lib.sh; ensure_postgres_binaries; pg_up pg-test ${PG_PORT} "-c fsync=off -c synchronous_commit=off"`,
-      ],
-      { stdio: 'ignore' },
-    );
-    startedCluster = true;
-  }
+  const cluster = await useTestCluster(PG_PORT);
   const database = `phasewright_bench_${process.pid}_${randomBytes(4).toString('hex')}`;
   await admin(`CREATE DATABASE ${database}`);
   const databaseUrl = `postgres://postgres@127.0.0.1:${PG_PORT}/${database}`;
@@ -302,17 +282,7 @@ export async function run(): Promise<BenchResult[]> {
     await built.close();
     await runtime.close();
     await admin(`DROP DATABASE IF EXISTS ${database} WITH (FORCE)`);
-    // pg_down needs the binaries' folder (PGBIN) that ensure_postgres_binaries sets; a failure
-    // to stop is reported, not hidden, so no cluster is left running after the benchmark.
-    if (startedCluster)
-      execFileSync(
-        'bash',
-        [
-          '-c',
-          'set -e; source server/scripts/lib.sh; ensure_postgres_binaries; pg_down "$(pg_cluster_dir pg-test)"',
-        ],
-        { stdio: ['ignore', 'ignore', 'inherit'] },
-      );
+    cluster.stop();
   }
   return out;
 }

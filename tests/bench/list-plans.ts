@@ -14,7 +14,6 @@
  * Needs the test cluster: TEST_PGPORT (default 54330); started like `npm test` does if it is
  * not running (server/scripts/lib.sh).
  */
-import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { dirname, join } from 'node:path';
@@ -32,6 +31,7 @@ import { listMembers } from '../../server/services/members';
 import { listComments } from '../../server/services/reviews';
 import { listProjects, listRoutes } from '../../server/services/routes';
 import { listRevisions } from '../../server/services/revisions';
+import { useTestCluster, type TestCluster } from './test-cluster';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..', '..');
@@ -51,17 +51,6 @@ const AUDIT_EVENTS = 20_000;
 const JOBS = 5_000;
 
 const adminUrl = (db = 'postgres') => `postgres://postgres@127.0.0.1:${port}/${db}`;
-
-function ensureCluster(): void {
-  execFileSync(
-    'bash',
-    [
-      '-c',
-      `source server/scripts/lib.sh; ensure_postgres_binaries; pg_up pg-test ${port} "-c fsync=off -c synchronous_commit=off"`,
-    ],
-    { cwd: root, stdio: ['ignore', 'ignore', 'inherit'] },
-  );
-}
 
 async function seed(
   sequelize: Sequelize,
@@ -180,8 +169,10 @@ async function measure(c: Case, captured: string[]) {
   return { plan, median, p95, used, sqlMs };
 }
 
+let cluster: TestCluster | undefined;
+
 async function main(): Promise<void> {
-  ensureCluster();
+  cluster = await useTestCluster(port);
   const admin = new Sequelize(adminUrl(), { dialect: 'postgres', logging: false });
   await admin.query(`DROP DATABASE IF EXISTS ${NAME} WITH (FORCE)`);
   await admin.query(`CREATE DATABASE ${NAME}`);
@@ -428,6 +419,7 @@ async function main(): Promise<void> {
   const admin2 = new Sequelize(adminUrl(), { dialect: 'postgres', logging: false });
   await admin2.query(`DROP DATABASE IF EXISTS ${NAME} WITH (FORCE)`);
   await admin2.close();
+  cluster.stop();
   if (results.some((r) => !r.used)) {
     console.error('A list query does not use its index: see the plans above.');
     process.exitCode = 1;
@@ -436,5 +428,6 @@ async function main(): Promise<void> {
 
 main().catch((error: unknown) => {
   console.error(error);
+  cluster?.stop();
   process.exit(1);
 });

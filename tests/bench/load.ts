@@ -28,6 +28,7 @@ import autocannon from 'autocannon';
 import pg from 'pg';
 import { hashPassword } from '../../server/services/passwords';
 import { BENCH_WEIGHTS, generateRoute } from '../fixtures/routes/generate';
+import { useTestCluster, type TestCluster } from './test-cluster';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..', '..');
@@ -213,10 +214,10 @@ async function measure(
   };
 }
 
+let cluster: TestCluster | undefined;
+
 async function prepareDatabase(): Promise<void> {
-  shell(
-    `ensure_postgres_binaries; pg_up pg-test ${pgPort} "-c fsync=off -c synchronous_commit=off"`,
-  );
+  cluster = await useTestCluster(pgPort);
   await adminQuery(`DROP DATABASE IF EXISTS ${DB} WITH (FORCE)`);
   shell(`ensure_postgres_binaries; pg_createdb ${pgPort} ${DB}`);
 }
@@ -347,6 +348,7 @@ async function main(): Promise<void> {
   stopChildren();
   await sleep(500);
   await adminQuery(`DROP DATABASE IF EXISTS ${DB} WITH (FORCE)`);
+  cluster?.stop();
 
   const ratio = (f: Figure, base: Figure) => (100 * f.rps) / base.rps;
   const line = (f: Figure, base: Figure, target: string, met: boolean | null) =>
@@ -427,5 +429,6 @@ function rewrite(file: string, name: string, body: string, heading: string): voi
 main().catch((error: unknown) => {
   console.error(error);
   stopChildren();
+  cluster?.stop();
   process.exit(1);
 });
