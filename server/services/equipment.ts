@@ -160,7 +160,11 @@ export async function listEquipment(
   return pageOf(rows, query.limit, order);
 }
 
-/** Every piece of equipment of the workspace, vessels first (for the step list). */
+/**
+ * Every piece of equipment of the workspace, vessels first (for the step list). No cap: the step
+ * list fits the batch to the whole register, and a silent cut-off would drop a vessel unseen; a
+ * site register is hundreds of items, not millions.
+ */
 export async function allEquipment(
   workspaceId: string,
   transaction: Transaction | null,
@@ -171,7 +175,6 @@ export async function allEquipment(
       ['kind', 'DESC'],
       ['name', 'ASC'],
     ],
-    limit: 1000,
     transaction,
   });
 }
