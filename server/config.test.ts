@@ -53,4 +53,14 @@ describe('loadConfig', () => {
     expect(loadConfig({ TRUST_PROXY: 'loopback' }).trustProxy).toBe('loopback');
     expect(() => loadConfig({ PORT: 'eighty' })).toThrow(/PORT/);
   });
+
+  it('takes a running job as abandoned only after twice the engine time limit without progress', () => {
+    expect(loadConfig({}).jobStaleSeconds).toBe(600);
+    expect(loadConfig({ JOB_STALE_MINUTES: '2', ENGINE_TASK_SECONDS: '60' }).jobStaleSeconds).toBe(
+      120,
+    );
+    expect(() => loadConfig({ JOB_STALE_MINUTES: '1', ENGINE_TASK_SECONDS: '60' })).toThrow(
+      /JOB_STALE_MINUTES/,
+    );
+  });
 });

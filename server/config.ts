@@ -47,6 +47,7 @@ const envSchema = z
     SIGN_IN_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
     RESET_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
     JOB_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
+    JOB_STALE_MINUTES: z.coerce.number().min(1).default(10),
     ENGINE_WORKERS: z.coerce.number().int().min(1).max(64).optional(),
     ENGINE_QUEUE_LIMIT: z.coerce.number().int().min(1).default(64),
     ENGINE_TASK_SECONDS: z.coerce.number().min(1).default(30),
@@ -91,6 +92,15 @@ const envSchema = z
         code: 'custom',
         path: ['PHASEWRIGHT_SEED_DEMO'],
         message: 'The demo data is never seeded in production.',
+      });
+    }
+    // A run writes its progress after every engine chunk, and a chunk stops at
+    // ENGINE_TASK_SECONDS; a run silent for less than twice that may still be alive.
+    if (env.JOB_STALE_MINUTES * 60 < 2 * env.ENGINE_TASK_SECONDS) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['JOB_STALE_MINUTES'],
+        message: 'JOB_STALE_MINUTES must be at least twice ENGINE_TASK_SECONDS (in minutes).',
       });
     }
     if (env.STORAGE_DRIVER === 's3' && !env.S3_BUCKET) {
@@ -146,6 +156,8 @@ export interface AppConfig {
   outboxEnabled: boolean;
   rateLimits: { signInPerWindow: number; resetPerWindow: number; windowMinutes: number };
   jobPollSeconds: number;
+  /** A running job whose progress was not written for this long is taken as abandoned. */
+  jobStaleSeconds: number;
   /** The engine pool's workers, queue and limits (docs/deployment.md). */
   pool: EnginePoolOptions;
   evaluation: EvaluationLimits;
@@ -204,6 +216,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       windowMinutes: 15,
     },
     jobPollSeconds: e.JOB_POLL_SECONDS,
+    jobStaleSeconds: e.JOB_STALE_MINUTES * 60,
     pool: {
       size: e.ENGINE_WORKERS ?? defaultPoolSize(),
       maxQueue: e.ENGINE_QUEUE_LIMIT,

@@ -53,7 +53,11 @@ export async function startRuntime(config: AppConfig): Promise<Runtime> {
     tagWorkspaces: !config.smtpUrl,
   };
   await startJobQueue(config.databaseUrl);
-  const stopWorkers = await startWorkers({ mail, pollSeconds: config.jobPollSeconds });
+  const stopWorkers = await startWorkers({
+    mail,
+    pollSeconds: config.jobPollSeconds,
+    staleSeconds: config.jobStaleSeconds,
+  });
   return {
     sequelize,
     mail,

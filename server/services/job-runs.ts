@@ -3,6 +3,7 @@
  * same way: progress written about every 1 % in the statement that also finds
  * out whether the job was cancelled, and how a run that stops is recorded.
  */
+import { Op } from 'sequelize';
 import { AppError } from '../errors';
 import { EvaluationJob } from '../models';
 
@@ -67,4 +68,43 @@ export async function recordStoppedRun(
     { where: { id: jobId, status: 'running' } },
   );
   if (!known) console.error(`[${options.label}]`, error);
+}
+
+/** What the chemist reads on a run whose server stopped or crashed under it. */
+export const SERVER_STOPPED_ERROR = {
+  code: 'server_stopped',
+  message: 'The server stopped during this run; start it again.',
+} as const;
+
+/**
+ * Marks failed every run still "running" whose progress was last written more
+ * than `staleSeconds` ago: its server stopped or crashed under it (a live run
+ * touches its row after every engine chunk, and a chunk ends within the
+ * engine's time limit). Returns how many were marked.
+ *
+ * Failed, not queued again, because that is what is safe with several
+ * instances on one database: another instance may be running the job
+ * (this instance cannot tell a dead run from a live one elsewhere except by
+ * its silence), and pg-boss may still hold the original queue entry and
+ * retry it, so queueing it again could run it twice at once; and a run that
+ * brought its server down (memory) would bring the next one down too. One
+ * conditional UPDATE: any number of instances may sweep together, each row
+ * changes once. Should the run be alive after all, its next progress write
+ * finds it no longer running and it stops without writing (JobCancelled), and
+ * a later retry of its queue entry finds it finished and does nothing.
+ *
+ * The cut-off is this instance's clock, like the timestamps the runs write;
+ * clocks of instances differ by seconds, the staleness is minutes.
+ */
+export async function failAbandonedRuns(staleSeconds: number): Promise<number> {
+  const [count] = await EvaluationJob.update(
+    { status: 'failed', error: { ...SERVER_STOPPED_ERROR }, finishedAt: new Date() },
+    {
+      where: {
+        status: 'running',
+        updatedAt: { [Op.lt]: new Date(Date.now() - staleSeconds * 1000) },
+      },
+    },
+  );
+  return count;
 }

@@ -1,4 +1,5 @@
 import type { Transporter } from 'nodemailer';
+import { failAbandonedRuns } from './job-runs';
 import { jobQueue, QUEUES } from './jobs';
 import { startMonteCarloWorker } from './monte-carlo-jobs';
 import { startOptimiseWorker } from './optimise-jobs';
@@ -8,8 +9,23 @@ import { createMailTransport, deliverMail, type MailMessage, type MailSettings }
 export async function startWorkers(options: {
   mail: MailSettings;
   pollSeconds: number;
+  /** A running job silent for this long is marked failed (failAbandonedRuns). */
+  staleSeconds: number;
 }): Promise<() => Promise<void>> {
   const boss = jobQueue();
+  // Runs left "running" by a stop or a crash would count against their owner's
+  // open-job limit for good: fail them at start, then keep sweeping, for runs
+  // abandoned by another instance that went away while this one runs.
+  await failAbandonedRuns(options.staleSeconds);
+  const sweep = setInterval(
+    () => {
+      failAbandonedRuns(options.staleSeconds).catch((error: unknown) =>
+        console.error('[jobs] sweeping abandoned runs', error),
+      );
+    },
+    Math.min(60, options.staleSeconds / 2) * 1000,
+  );
+  sweep.unref();
   const transport: Transporter = createMailTransport(options.mail);
   await boss.work<MailMessage>(
     QUEUES.mailSend,
@@ -22,6 +38,7 @@ export async function startWorkers(options: {
   const stopMonteCarlo = await startMonteCarloWorker(options.pollSeconds);
   const stopOptimise = await startOptimiseWorker(options.pollSeconds);
   return async () => {
+    clearInterval(sweep);
     await stopOptimise();
     await stopMonteCarlo();
     await boss.offWork(QUEUES.mailSend);
