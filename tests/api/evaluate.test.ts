@@ -104,7 +104,7 @@ describe('POST /api/v1/evaluate', () => {
     expect(contract.success, JSON.stringify(contract.error?.issues)).toBe(true);
     const { error } = routeEvaluationErrorSchema.parse(response.body);
     expect(error.code).toBe('route_invalid');
-    const cycleSteps = error.details.filter((d) => /cycle/.test(d.message)).map((d) => d.stepId);
+    const cycleSteps = error.details.filter((d) => /loop/.test(d.message)).map((d) => d.stepId);
     expect(cycleSteps).toEqual(
       expect.arrayContaining(['acid-wash', 'base-wash', 'brine-wash', 'swap']),
     );

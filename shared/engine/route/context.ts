@@ -152,7 +152,7 @@ export function buildContext(
     if (comps.has(key)) {
       issues.push({
         field: `components[${i}].id`,
-        message: `Component id "${key}" is used twice.`,
+        message: `${c.kind === 'compound' ? c.name : (comps.get(key)?.name ?? 'This compound')} is listed twice among the route's compounds: remove one of them.`,
       });
       return;
     }
@@ -161,7 +161,7 @@ export function buildContext(
       if (!s) {
         issues.push({
           field: `components[${i}].solventId`,
-          message: `Unknown library solvent "${c.solventId}".`,
+          message: `Compound ${i + 1} of the route is a solvent that is not in the solvent library: remove it and choose a solvent from the library.`,
         });
         return;
       }
@@ -180,7 +180,7 @@ export function buildContext(
       if (!a) {
         issues.push({
           field: `components[${i}].soluteId`,
-          message: `Unknown aqueous solute "${c.soluteId}".`,
+          message: `Compound ${i + 1} of the route is an aqueous solute that is not in the library: remove it and choose one from the library.`,
         });
         return;
       }
@@ -215,14 +215,14 @@ export function buildContext(
   if (products.length > 1)
     issues.push({
       field: 'components',
-      message: 'Only one component may have the role "product".',
+      message: `Only one compound can be the product, and ${products.map((p) => p.name).join(' and ')} are all marked so: mark the others as impurities or by-products.`,
     });
   const refComp = comps.get(doc.referenceInput.componentId);
   if (!refComp)
     issues.push({
       field: 'referenceInput.componentId',
       message: products.length
-        ? `The reference compound is not one of the route's compounds; yields are worked out per kg of ${products[0].name}, so choose it.`
+        ? `The reference compound is not one of the route's compounds: choose ${products[0].name}, the product, since yields are worked out per kg of it.`
         : 'Charge the compound you isolate (the product) in a Charge step: yield and purity are worked out per kg of it.',
     });
   const referenceKg = doc.referenceInput.massKg;

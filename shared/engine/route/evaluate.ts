@@ -286,7 +286,8 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
     warnings.push({
       severity: 'info',
       code: 'no-product',
-      message: 'No component has the role "product": yield, purity and purge are not computed.',
+      message:
+        'No compound is marked as the product, so yield, purity and purge are not worked out: mark the compound you isolate as the product.',
       stepId: null,
     });
   else if (!terminals.some((t) => t.isolated))

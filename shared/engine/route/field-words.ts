@@ -5,6 +5,7 @@
  * Source: this project's own wording (no external source); labels as in the step panel.
  * Validity: any field path the route schema or the route validation reports.
  */
+import { portWords } from './step-words';
 
 /** Labels of step settings by their path below `params` (as the step panel shows them). */
 const STEP_FIELDS: Record<string, string> = {
@@ -100,6 +101,9 @@ export function fieldInWords(field: string): string {
   if (parts[0] !== 'params') {
     const key = parts.join('.');
     if (DOCUMENT_FIELDS[key]) return DOCUMENT_FIELDS[key];
+    // A stream between steps, or a step's input, as the canvas shows them.
+    if (parts[0] === 'connections') return DOCUMENT_FIELDS.connections;
+    if (parts[0] === 'inputs' && parts[1]) return `Input: ${portWords(parts[1])}`;
     if (parts[0] === 'components' && parts.length > 2)
       return `Compound ${Number(parts[1]) + 1}: ${humanise(parts[2]).toLowerCase()}`;
     if (parts[0] === 'name') return 'Step name';

@@ -9,6 +9,17 @@
 import { PHASE_ACCEPTS, PORTS, type RouteDocument, type RouteStep } from '../document';
 import type { EvalContext } from './context';
 import type { RouteIssue } from './errors';
+import {
+  AQUEOUS_NEEDS_WATER,
+  PHASE_WORDS,
+  capitalise,
+  listInWords,
+  portWords,
+  stepInWords,
+} from './step-words';
+
+/** A stream's end in words: "the organic layer of the wash “Acid wash”". */
+const portOf = (step: RouteStep, port: string) => `the ${portWords(port)} of ${stepInWords(step)}`;
 
 type Ref = {
   field: string;
@@ -171,7 +182,7 @@ export function validateRoute(
       issues.push({
         stepId: s.id,
         field: `steps[${i}].id`,
-        message: `Step id "${s.id}" is used twice.`,
+        message: `${capitalise(stepInWords(s))} carries the same internal reference as an earlier step, so it is left out: delete it and add the step again.`,
       });
     else steps.set(s.id, s);
   });
@@ -188,7 +199,7 @@ export function validateRoute(
       issues.push({
         stepId: null,
         field: `${f}.id`,
-        message: `Connection id "${c.id}" is used twice.`,
+        message: `Two streams carry the same internal reference: delete one of them and draw it again.`,
       });
     connIds.add(c.id);
     const from = steps.get(c.from.stepId);
@@ -197,13 +208,13 @@ export function validateRoute(
       issues.push({
         stepId: null,
         field: `${f}.from.stepId`,
-        message: `Unknown step "${c.from.stepId}".`,
+        message: 'A stream comes from a step that is not on the route: delete that stream.',
       });
     if (!to)
       issues.push({
         stepId: null,
         field: `${f}.to.stepId`,
-        message: `Unknown step "${c.to.stepId}".`,
+        message: 'A stream goes to a step that is not on the route: delete that stream.',
       });
     if (!from || !to) return;
     const outPort = PORTS[from.kind].outputs.find((p) => p.name === c.from.port);
@@ -212,35 +223,39 @@ export function validateRoute(
       issues.push({
         stepId: from.id,
         field: `${f}.from.port`,
-        message: `A ${from.kind} step has no output port "${c.from.port}" (it has ${PORTS[from.kind].outputs.map((p) => p.name).join(', ')}).`,
+        message: `A stream leaves ${stepInWords(from)} from an output it does not have: draw it again from its ${listInWords(PORTS[from.kind].outputs.map((p) => portWords(p.name)))}.`,
       });
     if (!inPort)
       issues.push({
         stepId: to.id,
         field: `${f}.to.port`,
-        message: `A ${to.kind} step has no input port "${c.to.port}" (it has ${PORTS[to.kind].inputs.map((p) => p.name).join(', ') || 'none'}).`,
+        message: `A stream enters ${stepInWords(to)} at an input it does not have: draw it again into its ${listInWords(PORTS[to.kind].inputs.map((p) => portWords(p.name)))}.`,
       });
     if (!outPort || !inPort) return;
     if (!PHASE_ACCEPTS[inPort.phase].includes(outPort.phase))
       issues.push({
         stepId: to.id,
         field: `${f}`,
-        message: `Port "${c.to.port}" takes ${inPort.phase}, not the ${outPort.phase} from ${from.id}.${c.from.port}.`,
+        message: `${capitalise(portOf(to, c.to.port))} takes ${PHASE_WORDS[inPort.phase]}, not ${PHASE_WORDS[outPort.phase]} such as ${portOf(from, c.from.port)}: feed it from an output of that kind.`,
       });
     if (from.id === to.id)
-      issues.push({ stepId: to.id, field: f, message: 'A step cannot feed itself.' });
+      issues.push({
+        stepId: to.id,
+        field: f,
+        message: `${capitalise(stepInWords(to))} cannot feed itself: send its ${portWords(c.from.port)} to a later step.`,
+      });
     if (outgoing.get(from.id)!.has(c.from.port))
       issues.push({
         stepId: from.id,
         field: `${f}.from.port`,
-        message: `Output port "${c.from.port}" is used twice (use a split step to divide a stream).`,
+        message: `${capitalise(portOf(from, c.from.port))} goes to two steps: a stream goes to one step; add a split to divide it.`,
       });
     else outgoing.get(from.id)!.set(c.from.port, c);
     if (incoming.get(to.id)!.has(c.to.port))
       issues.push({
         stepId: to.id,
         field: `${f}.to.port`,
-        message: `Input port "${c.to.port}" is used twice (use a merge step to combine streams).`,
+        message: `${capitalise(portOf(to, c.to.port))} comes from two streams: an input takes one stream; add a merge to combine them.`,
       });
     else incoming.get(to.id)!.set(c.to.port, c);
   });
@@ -250,32 +265,36 @@ export function validateRoute(
         issues.push({
           stepId: s.id,
           field: `inputs.${p.name}`,
-          message: `Required input "${p.name}" is not connected.`,
+          message: `${capitalise(portOf(s, p.name))} is not connected: draw a stream into it from an earlier step's output.`,
         });
     }
     for (const ref of references(s)) {
       const c = ctx.comps.get(ref.id);
       if (!c) {
-        issues.push({ stepId: s.id, field: ref.field, message: `Unknown component "${ref.id}".` });
+        issues.push({
+          stepId: s.id,
+          field: ref.field,
+          message: `${capitalise(stepInWords(s))} names a compound that is not among the route's compounds: choose one from the list, or add it to the route first.`,
+        });
         continue;
       }
       if (ref.want === 'solvent' && c.kind !== 'solvent')
         issues.push({
           stepId: s.id,
           field: ref.field,
-          message: `"${ref.id}" is not a solvent component.`,
+          message: `${c.name} is not a solvent: choose a solvent here.`,
         });
       if (ref.want === 'aqueous-solute' && c.kind !== 'aqueous-solute')
         issues.push({
           stepId: s.id,
           field: ref.field,
-          message: `"${ref.id}" is not an aqueous-solute component.`,
+          message: `${c.name} is not a salt, acid or base for an aqueous solution: choose one of the aqueous solutes here.`,
         });
       if (ref.want === 'compound-or-aqueous' && c.kind === 'solvent')
         issues.push({
           stepId: s.id,
           field: ref.field,
-          message: `"${ref.id}" must be a compound or an aqueous solute.`,
+          message: `${c.name} is a solvent: choose a compound or an aqueous solute here.`,
         });
     }
     for (const m of usesAqueousMedium(s)) {
@@ -283,7 +302,7 @@ export function validateRoute(
         issues.push({
           stepId: s.id,
           field: m.field,
-          message: 'An aqueous medium needs the solvent "water" among the route components.',
+          message: AQUEOUS_NEEDS_WATER,
         });
       const a = ctx.comps.get(m.soluteId)?.aqueous;
       const w = typeof m.wtPct === 'number' ? m.wtPct : m.wtPct.value + m.wtPct.plusMinus;
@@ -291,7 +310,7 @@ export function validateRoute(
         issues.push({
           stepId: s.id,
           field: m.field,
-          message: `${a.name} at ${w} wt% is above its saturation or usual maximum of ${a.maxWtPct} wt%.`,
+          message: `${a.name} at ${w} wt% is above its saturation or usual maximum of ${a.maxWtPct} wt%: enter at most ${a.maxWtPct} wt% (including the ± part).`,
         });
     }
     if (
@@ -302,7 +321,7 @@ export function validateRoute(
       issues.push({
         stepId: s.id,
         field: 'params.crudeMassKg',
-        message: 'Entries in wt% need the crude mass they refer to.',
+        message: 'Entries in wt% need the crude mass they refer to: enter the crude mass.',
       });
     }
     if (s.kind === 'charge') {
@@ -315,7 +334,7 @@ export function validateRoute(
           issues.push({
             stepId: s.id,
             field: `params.contents[${i}].unit`,
-            message: 'An aqueous solute is charged by mass or as an aqueous medium, not by volume.',
+            message: `${ctx.comps.get(c.componentId)!.name} is charged by mass (kg) or as an aqueous solution, not by volume: change the unit.`,
           });
         }
       });
@@ -344,11 +363,40 @@ export function validateRoute(
   }
   if (order.length < steps.size) {
     const inCycle = [...steps.keys()].filter((id) => !order.includes(id));
+    // Kahn's algorithm leaves the loop and every step after it unordered: tell them apart.
+    const next = (id: string) =>
+      [...(outgoing.get(id)?.values() ?? [])].map((c) => c.to.stepId).filter((t) => steps.has(t));
+    const reachesItself = (start: string) => {
+      const seen = new Set<string>();
+      const stack = next(start);
+      while (stack.length) {
+        const id = stack.pop()!;
+        if (id === start) return true;
+        if (seen.has(id)) continue;
+        seen.add(id);
+        stack.push(...next(id));
+      }
+      return false;
+    };
+    const onLoop = inCycle.filter(reachesItself);
+    // The loop in stream order, from its first step in the document.
+    const walk: string[] = [];
+    let at: string | undefined = onLoop[0];
+    while (at) {
+      walk.push(at);
+      at = next(at).find((t) => onLoop.includes(t) && !walk.includes(t));
+    }
+    const said = [...walk, ...onLoop.filter((id) => !walk.includes(id))]
+      .map((id) => steps.get(id)!)
+      .map((st) => st.name?.trim() || stepInWords(st));
+    const loop = `${said.join(' → ')} → back to ${said[0]}`;
     for (const id of inCycle)
       issues.push({
         stepId: id,
         field: 'connections',
-        message: `The step is part of a cycle (${inCycle.join(' → ')}); a route must be acyclic.`,
+        message: onLoop.includes(id)
+          ? `${capitalise(stepInWords(steps.get(id)!))} is on a loop (${loop}): a route runs one way; delete the stream that feeds back.`
+          : `${capitalise(stepInWords(steps.get(id)!))} comes after a loop (${loop}) and cannot be worked out: delete the stream that feeds back.`,
       });
   }
   return { issues, graph: { order, incoming, outgoing } };

@@ -25,6 +25,7 @@ import {
   volumeToM3,
 } from '../route/context';
 import { StepError } from '../route/errors';
+import { AQUEOUS_NEEDS_WATER } from '../route/step-words';
 import type { StepOutput, Stream } from '../route/types';
 import { addTo, COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 
@@ -61,11 +62,7 @@ export function charge(
   let addedVolume = 0;
   params.contents.forEach((e, i) => {
     if (e.kind === 'aqueous') {
-      if (!ctx.waterId)
-        throw new StepError(
-          `params.contents[${i}]`,
-          'An aqueous medium needs the solvent "water" among the route components.',
-        );
+      if (!ctx.waterId) throw new StepError(`params.contents[${i}]`, AQUEOUS_NEEDS_WATER);
       const V = volumeToM3(ctx, e.volume);
       const { waterKg, soluteKg } = aqueousMediumKg(ctx, e.soluteId, ctx.num(e.wtPct, 0, 60), V, T);
       addTo(result.addedKg, ctx.waterId, waterKg);
@@ -82,7 +79,10 @@ export function charge(
         break;
       case 'wt%':
         if (crudeKg === undefined)
-          throw new StepError(`params.contents[${i}].unit`, "wt% needs the charge's crudeMassKg.");
+          throw new StepError(
+            `params.contents[${i}].unit`,
+            'Entries in wt% need the crude mass they refer to: enter the crude mass.',
+          );
         kg = (amount / 100) * crudeKg;
         break;
       case 'L':

@@ -54,6 +54,7 @@ import {
   warn,
 } from '../route/context';
 import { StepError } from '../route/errors';
+import { AQUEOUS_NEEDS_WATER } from '../route/step-words';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 import {
@@ -313,11 +314,7 @@ export function washOrExtraction(
   const added: Record<string, number> = {};
   let pHOverride: number | undefined;
   if (liq.kind === 'aqueous') {
-    if (!ctx.waterId)
-      throw new StepError(
-        'params.addedLiquid',
-        'An aqueous medium needs the solvent "water" among the route components.',
-      );
+    if (!ctx.waterId) throw new StepError('params.addedLiquid', AQUEOUS_NEEDS_WATER);
     const wt = ctx.num(liq.wtPct, 0, 60);
     const { waterKg, soluteKg } = aqueousMediumKg(ctx, liq.soluteId, wt, V, T);
     added[ctx.waterId] = waterKg;

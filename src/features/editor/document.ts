@@ -14,6 +14,13 @@ import {
   type PortPhase,
   type StepKind,
 } from '@shared/schemas/route';
+import {
+  KIND_NOUN,
+  PHASE_WORDS,
+  PORT_WORDS,
+  article,
+  capitalise,
+} from '@shared/engine/route/step-words';
 
 export type StepInput = z.input<typeof stepSchema>;
 export type ComponentInput = z.input<typeof componentSchema>;
@@ -64,55 +71,6 @@ export const portOfHandle = (h: string | null | undefined) =>
 
 export type ConnectCheck = { ok: true } | { ok: false; reason: string };
 
-/** What a chemist calls each step kind in a sentence ("a filtration's cake"). */
-const KIND_NOUN: Record<StepKind, string> = {
-  charge: 'charge',
-  wash: 'wash',
-  extraction: 'extraction',
-  distillation: 'distillation',
-  crystallisation: 'crystallisation',
-  filtration: 'filtration',
-  drying: 'drying',
-  quench: 'quench',
-  'ph-adjust': 'pH adjustment',
-  'carbon-treatment': 'carbon treatment',
-  'polish-filtration': 'polish filtration',
-  split: 'split',
-  merge: 'merge',
-};
-
-/** What each phase of stream is, in words. */
-const PHASE_WORDS: Record<PortPhase, string> = {
-  liquid: 'a solution',
-  organic: 'an organic layer',
-  aqueous: 'an aqueous layer',
-  slurry: 'a slurry or a solution',
-  solid: 'a solid (a cake or a slurry)',
-  vapour: 'a vapour',
-};
-
-/** What a port carries, as a chemist names it. */
-const PORT_WORDS: Record<string, string> = {
-  out: 'output',
-  organic: 'organic layer',
-  aqueous: 'aqueous layer',
-  pot: 'pot contents',
-  distillate: 'distillate',
-  slurry: 'slurry',
-  cake: 'cake',
-  filtrate: 'filtrate',
-  dry: 'dried solid',
-  vapour: 'vapour',
-  spent: 'spent carbon',
-  retained: 'retained solids',
-  feed: 'feed',
-  wet: 'wet cake',
-  a: 'first stream',
-  b: 'second stream',
-  c: 'third stream',
-};
-
-const article = (word: string) => (/^[aeiou]/i.test(word) ? 'an' : 'a');
 const stepWords = (s: StepInput) => `${article(KIND_NOUN[s.kind])} ${KIND_NOUN[s.kind]}`;
 const named = (s: StepInput) => s.name?.trim() || KIND_NOUN[s.kind];
 
@@ -201,8 +159,6 @@ export function checkConnection(
   }
   return { ok: true };
 }
-
-const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /** Immutable set of a value at a path inside an object. */
 export function setIn<T>(obj: T, path: ReadonlyArray<string | number>, value: unknown): T {
