@@ -26,10 +26,9 @@ import { percentile, type Percentiles } from '../route/monte-carlo';
 import { solventFacts, type SolventFacts } from './facts';
 import { roleSolvent, substituteSolvent, type SubstitutionRole } from './roles';
 
-/** A substitute keeps the yield when it is at most this many percentage points below the current route's. */
-export const YIELD_WINDOW_POINTS = 2;
-/** Round-off allowed when comparing solvent-free purities [percentage points]. */
-export const PURITY_TOLERANCE_POINTS = 1e-9;
+import { PURITY_TOLERANCE_POINTS, YIELD_WINDOW_POINTS } from './keep-rule';
+
+export { PURITY_TOLERANCE_POINTS, YIELD_WINDOW_POINTS };
 
 export interface Deltas {
   yieldPct: number | null;

@@ -3,6 +3,10 @@ import { useNavigate } from 'react-router-dom';
 import { routeDocumentSchema, type RouteDocument } from '@shared/schemas/route';
 import type { SolventAlternative } from '@shared/schemas/solvent-alternatives';
 import {
+  PURITY_TOLERANCE_POINTS,
+  YIELD_WINDOW_POINTS,
+} from '@shared/engine/substitution/keep-rule';
+import {
   ROLE_LABELS,
   roleSolvent,
   SUBSTITUTION_ROLES,
@@ -32,6 +36,57 @@ const signed = (v: number | null | undefined, digits = 1) =>
   v === null || v === undefined || !Number.isFinite(v)
     ? ''
     : ` (${v >= 0 ? '+' : '−'}${Math.abs(v).toFixed(digits)})`;
+
+/**
+ * A p5–p95 spread as text: one value when both ends read the same (two
+ * purities above 99.99 % are "> 99.99 %", never "> 99.99–> 99.99 %"), and
+ * "to" when an end is a bound ("99.98 % to > 99.99 %").
+ */
+export function formatSpread(low: string, high: string, unit = ''): string {
+  if (low === high) return `${low}${unit}`;
+  if (/^[<>]/.test(low) || /^[<>]/.test(high)) return `${low}${unit} to ${high}${unit}`;
+  return `${low}–${high}${unit}`;
+}
+
+/**
+ * What is not in the solvent-free solid, before and after, in one unit: ppm
+ * when both are below 0.01 % (where both purities read "> 99.99"), else %.
+ */
+function impurityChange(purityBefore: number, purityAfter: number): string {
+  const before = Math.max(0, 100 - purityBefore);
+  const after = Math.max(0, 100 - purityAfter);
+  if (Math.max(before, after) < 0.01) {
+    const ppm = (pct: number) => {
+      const v = pct * 1e4;
+      return v >= 10 ? v.toFixed(0) : String(Number(v.toPrecision(2)));
+    };
+    return `${ppm(before)} → ${ppm(after)} ppm`;
+  }
+  return `${before.toFixed(2)} → ${after.toFixed(2)} %`;
+}
+
+/**
+ * Why a substitute is not ranked with those that keep the yield and purity,
+ * with the figures that decide it (the rule of keepsYieldAndPurity): the
+ * yield lost beyond the window, and the impurities gained in the
+ * solvent-free solid, which the purity alone hides above 99.99 %.
+ */
+export function verdictOf(a: SolventAlternative): string {
+  if (a.totals === null) return 'cannot be evaluated';
+  if (a.keepsYieldAndPurity) return 'keeps yield and purity';
+  const dy = a.deltaVsCurrent?.yieldPct ?? null;
+  const dp = a.deltaVsCurrent?.solventFreePurityPct ?? null;
+  const p = a.totals.solventFreePurityPct;
+  if (dy === null || dp === null || p === null || a.totals.yieldPct === null)
+    return 'isolates no product to compare';
+  const losses: string[] = [];
+  if (dy < -YIELD_WINDOW_POINTS)
+    losses.push(
+      `yield: ${Math.abs(dy).toFixed(1)} points lower (at most ${YIELD_WINDOW_POINTS} allowed)`,
+    );
+  if (dp < -PURITY_TOLERANCE_POINTS) losses.push(`purity: impurities ${impurityChange(p - dp, p)}`);
+  return losses.length > 0 ? `loses ${losses.join('; ')}` : 'loses yield or purity';
+}
 
 /** The roles the step has a solvent in, with that solvent, for the route as it stands. */
 function rolesOf(doc: RouteDocument | null, stepId: string) {
@@ -137,7 +192,7 @@ export function AdvisorPanel({
   );
 }
 
-function AlternativesList({
+export function AlternativesList({
   items,
   role,
   onTry,
@@ -175,13 +230,7 @@ function AlternativesList({
               <span className="font-medium">
                 {i + 1}. {a.name}
               </span>
-              <span className="text-caption text-ink-muted">
-                {a.totals === null
-                  ? 'cannot be evaluated'
-                  : a.keepsYieldAndPurity
-                    ? 'keeps yield and purity'
-                    : 'loses yield or purity'}
-              </span>
+              <span className="text-caption text-ink-muted">{verdictOf(a)}</span>
             </div>
             {a.totals ? (
               <p>
@@ -193,10 +242,19 @@ function AlternativesList({
             ) : null}
             {a.uncertainty ? (
               <p className="text-caption text-ink-muted">
-                Spread p5–p95: PMI {fmt(a.uncertainty.pmi.p5)}–{fmt(a.uncertainty.pmi.p95)}, yield{' '}
-                {fmt(a.uncertainty.yieldPct.p5)}–{fmt(a.uncertainty.yieldPct.p95)} %, purity{' '}
-                {formatPurity(a.uncertainty.solventFreePurityPct.p5)}–
-                {formatPurity(a.uncertainty.solventFreePurityPct.p95)} %
+                Spread p5–p95: PMI{' '}
+                {formatSpread(fmt(a.uncertainty.pmi.p5), fmt(a.uncertainty.pmi.p95))}, yield{' '}
+                {formatSpread(
+                  fmt(a.uncertainty.yieldPct.p5),
+                  fmt(a.uncertainty.yieldPct.p95),
+                  ' %',
+                )}
+                , purity{' '}
+                {formatSpread(
+                  formatPurity(a.uncertainty.solventFreePurityPct.p5),
+                  formatPurity(a.uncertainty.solventFreePurityPct.p95),
+                  ' %',
+                )}
               </p>
             ) : null}
             <p className="text-caption">
