@@ -49,20 +49,20 @@ const kg = (v: number) => (v === 0 ? '0' : v >= 0.01 ? v.toFixed(4) : v.toExpone
 export function LimitMark({ impurity }: { impurity: Impurity }) {
   if (impurity.pass === null)
     return (
-      <span className="text-caption text-ink-muted" data-limit="none">
+      <span className="whitespace-nowrap text-caption text-ink-muted" data-limit="none">
         no limit set
       </span>
     );
   return impurity.pass ? (
     <span
-      className="inline-flex items-center gap-1 rounded-control bg-phase-aqueous-soft px-1.5 py-px text-caption font-medium text-phase-aqueous-deep"
+      className="inline-flex items-center gap-1 whitespace-nowrap rounded-control bg-phase-aqueous-soft px-1.5 py-px text-caption font-medium text-phase-aqueous-deep"
       data-limit="pass"
     >
       <span aria-hidden="true">✓</span> within {impurity.limitPct} %
     </span>
   ) : (
     <span
-      className="inline-flex items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-px text-caption font-medium text-caution-hazard-deep"
+      className="inline-flex items-center gap-1 whitespace-nowrap rounded-control bg-caution-hazard-soft px-1.5 py-px text-caption font-medium text-caution-hazard-deep"
       data-limit="fail"
     >
       <span aria-hidden="true">✗</span> above {impurity.limitPct} %

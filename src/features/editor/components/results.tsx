@@ -165,7 +165,7 @@ export function TotalsCard() {
               data-total-impurity={i.componentId}
             >
               <span className="text-ink-muted">{impurityName(i.componentId)}</span>
-              <span className="tabular-nums">{formatLevel(i.levelPct)} %</span>
+              <span className="whitespace-nowrap tabular-nums">{formatLevel(i.levelPct)} %</span>
               <LimitMark impurity={i} />
             </li>
           ))}

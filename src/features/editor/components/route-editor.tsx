@@ -268,19 +268,27 @@ function EditorFrame({
       <header className="flex h-bar shrink-0 items-center gap-3 border-b border-rule bg-paper-raised px-4">
         <Link
           to={paths.workspace.home.to(workspaceId)}
-          className="text-small text-accent hover:underline"
+          className="shrink-0 text-small text-accent hover:underline"
         >
           Routes
         </Link>
-        <span aria-hidden="true" className="text-ink-faint">
+        <span aria-hidden="true" className="shrink-0 text-ink-faint">
           /
         </span>
-        <h1 className="truncate text-lead font-semibold">{route.name}</h1>
+        {/* Long names end in an ellipsis on one line; the full name is the tooltip. */}
+        <h1 className="min-w-0 truncate text-lead font-semibold" title={route.name}>
+          {route.name}
+        </h1>
         {route.project ? (
-          <span className="text-small text-ink-muted">{route.project.name}</span>
+          <span
+            className="min-w-0 max-w-[10rem] truncate whitespace-nowrap text-small text-ink-muted"
+            title={route.project.name}
+          >
+            {route.project.name}
+          </span>
         ) : null}
         {view ? view.heading : <SaveIndicator state={save.state} canEdit={canEdit} />}
-        <div className="ml-auto flex items-center gap-1">
+        <div className="ml-auto flex shrink-0 items-center gap-1">
           {!view && actions ? actions({ canEdit, saveNow: save.saveNow }) : null}
           <Button
             size="sm"
@@ -595,7 +603,10 @@ const RESULT_TABS: Array<[ResultTab, string]> = [
 function SaveIndicator({ state, canEdit }: { state: SaveState; canEdit: boolean }) {
   if (!canEdit)
     return (
-      <span className="text-small text-ink-muted">
+      <span
+        className="min-w-0 truncate whitespace-nowrap text-small text-ink-muted"
+        title="Read only — you can look but not change this route"
+      >
         Read only — you can look but not change this route
       </span>
     );
@@ -613,8 +624,9 @@ function SaveIndicator({ state, canEdit }: { state: SaveState; canEdit: boolean 
     <span
       role="status"
       aria-live="polite"
-      className={`text-small ${state.kind === 'offline' || state.kind === 'conflict' ? 'text-caution-warning-deep' : 'text-ink-muted'}`}
+      className={`max-w-[16rem] shrink-0 truncate whitespace-nowrap text-small ${state.kind === 'offline' || state.kind === 'conflict' ? 'text-caution-warning-deep' : 'text-ink-muted'}`}
       data-save-state={state.kind}
+      title={text}
     >
       {text}
     </span>
