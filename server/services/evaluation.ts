@@ -13,6 +13,8 @@ import {
   PROCESS_SAFETY_NOTE,
   type RouteResult,
 } from '@shared/engine/route/evaluate';
+import { fieldInWords } from '@shared/engine/route/field-words';
+import { capitalise, stepInWords } from '@shared/engine/route/step-words';
 import { AppError } from '../errors';
 
 export { resultTooLarge } from '../errors';
@@ -52,16 +54,19 @@ export function describeFailure(
       path: issuePath(issue, doc, prefix),
     }));
     const first = details[0];
+    // The message is read by the chemist: the step by its name, the field by its label (scripts
+    // read stepId, field and path from details).
+    const step = first?.stepId ? doc.steps.find((s) => s.id === first.stepId) : undefined;
     const where = first
-      ? first.stepId
-        ? `step "${first.stepId}", ${first.field}`
-        : first.field
+      ? [step ? step.name.trim() || capitalise(stepInWords(step)) : '', fieldInWords(first.field)]
+          .filter(Boolean)
+          .join(', ')
       : '';
     const more = details.length > 1 ? ` (and ${details.length - 1} more)` : '';
     return {
       code: 'route_invalid',
       message: first
-        ? `The route cannot be evaluated: ${where}: ${first.message}${more}`
+        ? `The route cannot be evaluated: ${where ? `${where}: ` : ''}${first.message}${more}`
         : 'The route cannot be evaluated.',
       details,
     };

@@ -121,7 +121,10 @@ describe('POST /api/v1/evaluate', () => {
     expect(error.details).toContainEqual(
       expect.objectContaining({ stepId: 'filter', field: 'inputs.slurry' }),
     );
-    expect(error.message).toMatch(/filter/);
+    // The message names the step by its name and the input as its card shows it, no id.
+    expect(error.message).toMatch(/Filter, wash with cold heptane/);
+    expect(error.message).toMatch(/the slurry of the filtration/i);
+    expect(error.message).not.toMatch(/"filter"|inputs\.slurry/);
   });
 
   it('answers 422 with the body path of an unknown component in a step', async () => {
