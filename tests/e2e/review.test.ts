@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
+import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
 import { useBrowserFlows } from './browser';
 
@@ -28,10 +29,8 @@ describe('review of the demo route', () => {
   it('the chemist compares the two revisions and submits; the reviewer comments on the crystallisation and signs; the chemist sees the signed approval', async () => {
     const { page, shot, problems } = flows.browser;
     await signInAs(page, 'chemist@example.com');
-    await page
-      .getByRole('link', { name: /PW-417 amide isolation/ })
-      .first()
-      .click();
+    // By its exact name: other flows make copies whose names begin with the demo route's.
+    await page.getByRole('link', { name: DEMO_ROUTE_NAME, exact: true }).click();
     await page.getByRole('link', { name: 'History' }).click();
     await page.getByRole('heading', { level: 1, name: /History of/ }).waitFor();
     await page.getByRole('link', { name: 'Revision 2' }).waitFor();
