@@ -60,13 +60,31 @@ export const PORT_WORDS: Record<string, string> = {
 export const AQUEOUS_NEEDS_WATER =
   "An aqueous solution needs water among the route's compounds: add water to the route's solvents.";
 
-/** "a" or "an" before a word. */
+/**
+ * "a" or "an" before a word (by its first letter).
+ * Source: this project's own wording (no external source).
+ * Validity: any word; spelling, not pronunciation, decides.
+ * @param word  the word that follows
+ * @returns "a" or "an"
+ */
 export const article = (word: string) => (/^[aeiou]/i.test(word) ? 'an' : 'a');
 
-/** First letter upper case. */
+/**
+ * The text with its first letter upper case.
+ * Source: this project's own wording (no external source).
+ * Validity: any text, empty included.
+ * @param s  the text
+ * @returns the text, first letter upper case
+ */
 export const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
-/** An input or output in words ("organic layer"); a port not in the table as "stream". */
+/**
+ * An input or output in words ("organic layer"); a port not in the table as "stream".
+ * Source: this project's own wording (no external source).
+ * Validity: any port name.
+ * @param port  the input or output as the route document names it
+ * @returns the words a card shows for it
+ */
 export const portWords = (port: string): string =>
   Object.prototype.hasOwnProperty.call(PORT_WORDS, port) ? PORT_WORDS[port] : 'stream';
 
@@ -85,6 +103,8 @@ export function stepInWords(step: { kind: StepKind; name?: string }): string {
 
 /**
  * A list in words: "a", "a and b", "a, b and c".
+ * Source: this project's own wording (no external source).
+ * Validity: any list, empty included (gives "").
  * @param items  the words
  * @returns the joined list
  */
