@@ -29,14 +29,7 @@ import { apiError, conflict, notFound, validationFailed } from '../errors';
 import { Chromatogram, RouteDraft, RouteRevision, User, type Route } from '../models';
 import type { FileStorage } from '../storage';
 import { recordAudit } from './audit';
-import {
-  afterCursor,
-  containsAny,
-  keyAttributes,
-  keyOrder,
-  pageOf,
-  type KeysetOrder,
-} from './keyset';
+import { afterCursor, containsAny, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
 import { readUpload } from './chromatogram-files';
 
 interface DocumentLike {
@@ -338,24 +331,7 @@ export async function loadChromatogram(
   return found;
 }
 
-const CHROMATOGRAM_ORDERS: Record<'oldest' | 'newest', KeysetOrder> = {
-  oldest: {
-    name: 'oldest',
-    columns: [
-      { sql: '"Chromatogram"."created_at"', type: 'timestamptz' },
-      { sql: '"Chromatogram"."id"', type: 'uuid' },
-    ],
-    direction: 'ASC',
-  },
-  newest: {
-    name: 'newest',
-    columns: [
-      { sql: '"Chromatogram"."created_at"', type: 'timestamptz' },
-      { sql: '"Chromatogram"."id"', type: 'uuid' },
-    ],
-    direction: 'DESC',
-  },
-};
+const CHROMATOGRAM_ORDERS = byCreation('Chromatogram');
 
 /**
  * One page of a route's samples (of one step with `stepId`), oldest first by

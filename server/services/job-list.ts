@@ -2,33 +2,9 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { JobListQuery, JobSummary } from '@shared/schemas/jobs';
 import { EvaluationJob } from '../models';
-import {
-  afterCursor,
-  containsAny,
-  keyAttributes,
-  keyOrder,
-  pageOf,
-  type KeysetOrder,
-} from './keyset';
+import { afterCursor, containsAny, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
 
-const JOB_ORDERS: Record<'newest' | 'oldest', KeysetOrder> = {
-  newest: {
-    name: 'newest',
-    columns: [
-      { sql: '"EvaluationJob"."created_at"', type: 'timestamptz' },
-      { sql: '"EvaluationJob"."id"', type: 'uuid' },
-    ],
-    direction: 'DESC',
-  },
-  oldest: {
-    name: 'oldest',
-    columns: [
-      { sql: '"EvaluationJob"."created_at"', type: 'timestamptz' },
-      { sql: '"EvaluationJob"."id"', type: 'uuid' },
-    ],
-    direction: 'ASC',
-  },
-};
+const JOB_ORDERS = byCreation('EvaluationJob');
 
 /**
  * One page of the user's jobs, newest first by default

@@ -39,6 +39,22 @@ const invalidCursor = () =>
     { path: 'query.cursor', message: 'Not a cursor from a previous page.' },
   ]);
 
+/**
+ * The two orders of a table's rows by creation, "oldest" and "newest", with the id breaking ties
+ * (the shape most lists here share; each is served by a (…, created_at, id) index).
+ * @param model  the model's name as Sequelize quotes it in SQL, e.g. "Chromatogram"
+ */
+export function byCreation(model: string): Record<'oldest' | 'newest', KeysetOrder> {
+  const columns: KeyColumn[] = [
+    { sql: `"${model}"."created_at"`, type: 'timestamptz' },
+    { sql: `"${model}"."id"`, type: 'uuid' },
+  ];
+  return {
+    oldest: { name: 'oldest', columns, direction: 'ASC' },
+    newest: { name: 'newest', columns, direction: 'DESC' },
+  };
+}
+
 export const encodeCursor = (order: KeysetOrder, key: string[]) =>
   Buffer.from(JSON.stringify([order.name, ...key]), 'utf8').toString('base64url');
 

@@ -15,14 +15,7 @@ import {
   type RevisionStatus,
 } from '@shared/schemas/revisions';
 import { apiError, conflict, forbidden, notFound, validationFailed } from '../errors';
-import {
-  afterCursor,
-  containsAny,
-  keyAttributes,
-  keyOrder,
-  pageOf,
-  type KeysetOrder,
-} from './keyset';
+import { afterCursor, containsAny, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
 import {
   Membership,
   ReviewComment,
@@ -321,24 +314,7 @@ const commentIncludes = [
   { model: User, as: 'resolvedBy', attributes: ['id', 'name'] },
 ];
 
-const COMMENT_ORDERS: Record<'oldest' | 'newest', KeysetOrder> = {
-  oldest: {
-    name: 'oldest',
-    columns: [
-      { sql: '"ReviewComment"."created_at"', type: 'timestamptz' },
-      { sql: '"ReviewComment"."id"', type: 'uuid' },
-    ],
-    direction: 'ASC',
-  },
-  newest: {
-    name: 'newest',
-    columns: [
-      { sql: '"ReviewComment"."created_at"', type: 'timestamptz' },
-      { sql: '"ReviewComment"."id"', type: 'uuid' },
-    ],
-    direction: 'DESC',
-  },
-};
+const COMMENT_ORDERS = byCreation('ReviewComment');
 
 /**
  * One page of a revision's comments, oldest first by default so threads read
