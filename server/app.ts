@@ -13,6 +13,7 @@ import { createSessionStore } from './auth/session-store';
 import type { AppConfig } from './config';
 import { database } from './db/sequelize';
 import { authenticate, sessionLifetime } from './middleware/authenticate';
+import { trackInFlight } from './http/in-flight';
 import type { Security } from './http/security';
 import { createSignInThrottle } from './services/sign-in-throttle';
 import { csrfProtection } from './middleware/csrf';
@@ -53,8 +54,14 @@ export interface AppOptions {
 
 export interface PhasewrightApp {
   app: Express;
-  /** Releases what the app holds itself (the session store's pool). */
-  close(): Promise<void>;
+  /**
+   * Waits up to `drainMs` (default: the shutdown grace period) for handlers still at work,
+   * then releases what the app holds itself (the session store's pool). Call it after the
+   * HTTP server has closed, and before the data pool is closed.
+   */
+  close(options?: { drainMs?: number }): Promise<void>;
+  /** Requests whose handlers are still running. */
+  inFlight(): number;
 }
 
 /**
@@ -68,6 +75,9 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   const storage = options.storage ?? createStorage(config.storage);
   const app = express();
   app.disable('x-powered-by');
+  // First, so shutdown knows which handlers still run (server/http/in-flight.ts).
+  const inFlight = trackInFlight();
+  app.use(inFlight.middleware);
   // Outside production every reply is checked against its declared schema (server/http/route.ts).
   app.locals.checkReplies = config.env !== 'production';
   app.set('trust proxy', config.trustProxy);
@@ -210,7 +220,15 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
 
   return {
     app,
-    close: async () => {
+    inFlight: inFlight.count,
+    close: async (options = {}) => {
+      const drainMs = options.drainMs ?? config.shutdownGraceSeconds * 1000;
+      if (!(await inFlight.drained(drainMs)))
+        log(
+          new Error(
+            `${inFlight.count()} request(s) still running after ${Math.round(drainMs / 1000)} s; closing the database connections under them.`,
+          ),
+        );
       store.close();
       await sessionPool.end().catch(() => undefined);
     },

@@ -28,8 +28,9 @@ async function main() {
     stopping = true;
     console.log(`${signal} received, shutting down`);
     // Stop taking connections and let the requests in flight finish (their engine work
-    // included); after the grace period, close what is still open. Then release the engine
-    // pool, the job queue and the database.
+    // included); after the grace period, close what is still open. Then wait for handlers
+    // whose clients hung up (they still read the session and write a reply to nothing),
+    // and only then release the session pool, the engine pool, the job queue and the database.
     const closed = new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeIdleConnections();
     const grace = setTimeout(() => {
@@ -41,7 +42,7 @@ async function main() {
     grace.unref();
     await closed;
     clearTimeout(grace);
-    await closeApp();
+    await closeApp({ drainMs: config.shutdownGraceSeconds * 1000 });
     await runtime.close();
     process.exit(0);
   };

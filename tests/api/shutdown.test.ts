@@ -1,7 +1,8 @@
 /**
  * Graceful shutdown: on SIGTERM the server stops taking connections, finishes
  * the requests in flight, then releases the engine pool, the job queue and the
- * database, and exits 0. Runs the real server process (npm start's command).
+ * database, and exits 0; handlers whose clients hung up finish before the
+ * session and data pools close. Runs the real server process (npm start's command).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
@@ -16,7 +17,9 @@ const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 // Gives this file the database (the server under test is a separate process on the same one).
 const server = useTestServer();
 
-function startServer(): Promise<{ child: ChildProcess; base: string; output: () => string }> {
+function startServer(
+  extraEnv: Record<string, string> = {},
+): Promise<{ child: ChildProcess; base: string; output: () => string }> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: projectRoot,
     env: {
@@ -33,6 +36,7 @@ function startServer(): Promise<{ child: ChildProcess; base: string; output: () 
       SIGN_IN_FREE_FAILURES_PAIR: '100000',
       SIGN_IN_FREE_FAILURES_ACCOUNT: '100000',
       SIGN_IN_FREE_FAILURES_ADDRESS: '100000',
+      ...extraEnv,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
@@ -101,5 +105,60 @@ describe('graceful shutdown', () => {
     expect(started.output()).toMatch(/SIGTERM received/);
     void demoRoute;
     void server;
+  }, 120_000);
+
+  it('under load, lets the handlers of clients that hung up finish before the database connections close', async () => {
+    const workspace = await buildWorkspace();
+    const chemists = await Promise.all(
+      Array.from({ length: 4 }, () => buildMember(workspace, ['chemist'])),
+    );
+    // One session connection: the sign-ins queue for it, as they do under load.
+    const started = await startServer({ SESSION_POOL_MAX: '1', SHUTDOWN_GRACE_SECONDS: '20' });
+    child = started.child;
+    const { base } = started;
+
+    // A background run keeps the engine busy, so stopping the engine pool takes a while
+    // after the session pool has been released.
+    const signedIn = await fetch(`${base}/api/v1/session`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: chemists[0].email, password: 'correct-horse-battery' }),
+    });
+    const cookie = signedIn.headers.get('set-cookie')!.split(';')[0];
+    const { csrfToken } = (await signedIn.json()) as { csrfToken: string };
+    const run = await fetch(`${base}/api/v1/evaluate/monte-carlo`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', cookie, 'x-csrf-token': csrfToken },
+      body: JSON.stringify({
+        document: generateRoute({ seed: 5, steps: 60, compounds: 3 }),
+        draws: 40,
+        seed: 3,
+      }),
+    });
+    expect(run.status).toBe(202);
+
+    // Sign-ins hash a password, then write the new session: a client that hangs up in
+    // between leaves a handler that still needs the session store.
+    const controller = new AbortController();
+    const requests = Array.from({ length: 24 }, (_, index) =>
+      fetch(`${base}/api/v1/session`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({
+          email: chemists[index % chemists.length].email,
+          password: 'correct-horse-battery',
+        }),
+        signal: controller.signal,
+      }).catch(() => null),
+    );
+    await new Promise((resolve) => setTimeout(resolve, 150));
+    controller.abort();
+    await Promise.all(requests);
+    const exited = new Promise<number | null>((resolve) => child!.once('exit', resolve));
+    child.kill('SIGTERM');
+
+    expect(await exited).toBe(0);
+    expect(started.output()).toMatch(/SIGTERM received/);
+    expect(started.output()).not.toMatch(/after calling end on the pool|still running after/);
   }, 120_000);
 });
