@@ -110,6 +110,21 @@ const urlSyntax = [
 ];
 
 /**
+ * Numbers a chemist reads have one formatter (DEVELOPERS.md, "Numbers"): src/lib/format.ts
+ * (formatSignificant, formatEngineering, formatFactor; significant() for files written for other
+ * programs). toExponential gives "1.2e-7" and toPrecision switches to it on its own, so both are
+ * refused anywhere else in src.
+ */
+const NUMBER_MESSAGE =
+  'Show numbers with formatSignificant/formatEngineering from @/lib/format (significant() for exports), not toExponential/toPrecision.';
+const numberSyntax = [
+  {
+    selector: 'CallExpression[callee.property.name=/^(toExponential|toPrecision)$/]',
+    message: NUMBER_MESSAGE,
+  },
+];
+
+/**
  * No markup is injected into the page (DEVELOPERS.md, "Markup"): React builds
  * every element, and a structure drawing is shown as an <img> data URL
  * (src/features/compounds/components/structure-image.tsx), where SVG runs
@@ -196,18 +211,33 @@ export default tseslint.config(
   {
     // A later no-restricted-syntax replaces an earlier one: each list repeats markupSyntax.
     files: ['src/**/*.{ts,tsx}'],
-    ignores: ['src/api/query-keys.ts', 'src/paths.ts'],
+    ignores: ['src/api/query-keys.ts', 'src/paths.ts', 'src/lib/format.ts'],
     rules: {
-      'no-restricted-syntax': ['error', ...markupSyntax, ...queryKeySyntax, ...urlSyntax],
+      'no-restricted-syntax': [
+        'error',
+        ...markupSyntax,
+        ...queryKeySyntax,
+        ...urlSyntax,
+        ...numberSyntax,
+      ],
     },
   },
   {
     files: ['src/api/query-keys.ts'],
-    rules: { 'no-restricted-syntax': ['error', ...markupSyntax, ...urlSyntax] },
+    rules: { 'no-restricted-syntax': ['error', ...markupSyntax, ...urlSyntax, ...numberSyntax] },
   },
   {
     files: ['src/paths.ts'],
-    rules: { 'no-restricted-syntax': ['error', ...markupSyntax, ...queryKeySyntax] },
+    rules: {
+      'no-restricted-syntax': ['error', ...markupSyntax, ...queryKeySyntax, ...numberSyntax],
+    },
+  },
+  {
+    // The one number formatter.
+    files: ['src/lib/format.ts'],
+    rules: {
+      'no-restricted-syntax': ['error', ...markupSyntax, ...queryKeySyntax, ...urlSyntax],
+    },
   },
   {
     // Every payload string is storable text (no NUL, no lone surrogate): build it with text().

@@ -52,6 +52,29 @@ export function formatEngineering(value: number, digits = 3): string {
 }
 
 /**
+ * A number shown to `digits` significant figures: plainly between 0.001 and 100 000
+ * ("0.0125", "1230"), in engineering notation outside it ("25 × 10⁻⁶"). The display form of
+ * every computed number (cards, stream table, plots, step list, chromatograms); fields that must
+ * read back exactly use formatEngineering.
+ */
+export function formatSignificant(value: number, digits = 3): string {
+  if (!Number.isFinite(value)) return formatEngineering(value, digits);
+  const abs = Math.abs(value);
+  if (abs === 0) return '0';
+  if (abs >= 1e-3 && abs < 1e5) return String(significant(value, digits));
+  return formatEngineering(value, digits);
+}
+
+/**
+ * `value` rounded to `digits` significant figures, as a number (for files written for other
+ * programs, such as the CSV exports, and for values stored back). Not for display: a number
+ * shown to a chemist goes through formatSignificant or formatEngineering.
+ */
+export function significant(value: number, digits: number): number {
+  return Number.isFinite(value) ? Number(value.toPrecision(digits)) : value;
+}
+
+/**
  * "10 × 10⁹" or "10 x 10^9" as the computer writes it ("10e9"); other text unchanged. The power
  * must be superscript or follow "^", so "2 × 100 mL" (two washes of 100 mL) is left alone.
  */
@@ -71,7 +94,7 @@ export function formatFactor(value: number | null | undefined): string {
   if (value === null || value === undefined || Number.isNaN(value)) return '—';
   if (!Number.isFinite(value)) return '∞';
   const abs = Math.abs(value);
-  if (abs < 1) return value.toPrecision(2);
+  if (abs < 1) return formatSignificant(value, 2);
   if (abs < 100) return value.toFixed(1);
   if (abs < 1e5) return Math.round(value).toLocaleString('en-GB').replace(/,/g, '\u2009');
   return formatEngineering(value, 2);

@@ -5,7 +5,7 @@
  * the reference input) and "equiv" (mol per mol of it) are the document's own
  * relative units and are read here directly. Errors say what was expected.
  */
-import { engineeringToE, formatEngineering } from './format';
+import { engineeringToE, formatEngineering, significant } from './format';
 import {
   create,
   // @ts-expect-error mathjs exports the Unit class factory but its type declarations omit it
@@ -326,7 +326,7 @@ function fmt(v: number): string {
   return formatEngineering(round(v), 4);
 }
 function round(v: number): number {
-  return Number(v.toPrecision(10));
+  return significant(v, 10);
 }
 function mapOk(r: Parsed<number>, f: (v: number) => number): Parsed<number> {
   return r.ok ? { ok: true, value: f(r.value) } : r;

@@ -1,5 +1,6 @@
 import { toCsv } from '@shared/csv';
 import { keyOf, type ComponentInput } from './document';
+import { significant } from '@/lib/format';
 
 /** One row of the stream table: a connection's or a terminal's stream. */
 export interface StreamRow {
@@ -42,7 +43,7 @@ export function streamsCsv(rows: StreamRow[], components: ComponentInput[]): str
     round(r.total, 6),
     ...components.flatMap((c) => {
       const kg = r.kg[keyOf(c)] ?? 0;
-      return [Number(kg.toPrecision(6)), r.total > 0 ? round((100 * kg) / r.total, 3) : 0];
+      return [significant(kg, 6), r.total > 0 ? round((100 * kg) / r.total, 3) : 0];
     }),
   ]);
   return toCsv(head, lines);

@@ -22,6 +22,7 @@ import { paths } from '@/paths';
 import { useEditorStore } from '@/stores/editor-store';
 import { useSolventAlternatives } from '../api/advisor-solvent-alternatives';
 import { useTryInCopy } from '../api/advisor-try-copy';
+import { formatSignificant } from '@/lib/format';
 
 const GUIDE_LABELS: Record<NonNullable<SolventAlternative['guideCategory']>, string> = {
   recommended: 'Recommended',
@@ -58,7 +59,7 @@ function impurityChange(purityBefore: number, purityAfter: number): string {
   if (Math.max(before, after) < 0.01) {
     const ppm = (pct: number) => {
       const v = pct * 1e4;
-      return v >= 10 ? v.toFixed(0) : String(Number(v.toPrecision(2)));
+      return v >= 10 && v < 1e5 ? v.toFixed(0) : formatSignificant(v, 2);
     };
     return `${ppm(before)} → ${ppm(after)} ppm`;
   }

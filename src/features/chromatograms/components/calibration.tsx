@@ -6,6 +6,7 @@ import { Loading } from '@/components/spinner';
 import { useRouteChromatograms } from '../api/get-route-chromatograms';
 import { fmt } from './format';
 import type { RouteCompound } from './sample-viewer';
+import { formatSignificant, significant } from '@/lib/format';
 
 /** What the route's evaluation says about the wash, for the back-calculation. */
 export interface WashContext {
@@ -193,7 +194,7 @@ export function WashCalibration({
               Apparent D of {chosen.name}
               {wash.organicSolventName ? ` (${wash.organicSolventName}/water)` : ''}:{' '}
               <strong className="tabular-nums" data-d>
-                {result.D.toPrecision(3)}
+                {formatSignificant(result.D, 3)}
               </strong>
             </p>
             <p className="text-caption text-ink-muted">
@@ -214,7 +215,7 @@ export function WashCalibration({
                     organicSolventId: wash.organicSolventId!,
                     ...(wash.pH !== null ? { pH: Math.round(wash.pH * 100) / 100 } : {}),
                     ...(wash.temperatureC !== null ? { temperatureC: wash.temperatureC } : {}),
-                    D: Number(result.D.toPrecision(4)),
+                    D: significant(result.D, 4),
                     source:
                       `Measured: back-calculated from IPC samples “${before!.sampleName}” and “${after!.sampleName}” across ${step.name}`.slice(
                         0,
@@ -224,7 +225,7 @@ export function WashCalibration({
                   setSaved(chosen.name);
                 }}
               >
-                Save D = {result.D.toPrecision(3)} as measured for {chosen.name}
+                Save D = {formatSignificant(result.D, 3)} as measured for {chosen.name}
               </Button>
             ) : null}
             {saved ? (

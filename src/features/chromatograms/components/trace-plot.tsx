@@ -1,6 +1,7 @@
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import type { EChartsCoreOption } from 'echarts/core';
 import { Button } from '@/components/button';
+import { formatSignificant } from '@/lib/format';
 
 type Echarts = (typeof import('./echarts-trace'))['echarts'];
 let loading: Promise<Echarts> | null = null;
@@ -62,7 +63,8 @@ export function TracePlot({
       tooltip: {
         trigger: 'axis',
         textStyle: { fontSize: 12, fontFamily: FONT },
-        valueFormatter: (v: unknown) => (typeof v === 'number' ? v.toPrecision(4) : String(v)),
+        valueFormatter: (v: unknown) =>
+          typeof v === 'number' ? formatSignificant(v, 4) : String(v),
       },
       xAxis: {
         type: 'value',

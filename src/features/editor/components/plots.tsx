@@ -5,7 +5,7 @@ import { keyOf, type StepInput } from '../document';
 import { useSweep } from '../sweep';
 import { Chart, PLOT, axisStyle, baseOption } from '../charts/chart';
 import { componentLabel } from './fields';
-import { formatFactor } from '@/lib/format';
+import { formatFactor, formatSignificant } from '@/lib/format';
 
 type ProfilePoint = {
   distillateL: number;
@@ -361,7 +361,9 @@ export function ProductFlow() {
                 />
                 {e.where}
               </th>
-              <td className="whitespace-nowrap py-0.5 text-right">{e.kg.toPrecision(3)} kg</td>
+              <td className="whitespace-nowrap py-0.5 text-right">
+                {formatSignificant(e.kg, 3)} kg
+              </td>
               <td className="w-14 py-0.5 text-right">
                 {fmt((100 * e.kg) / (result.totals.productInKg || 1), 1)} %
               </td>

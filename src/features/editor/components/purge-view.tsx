@@ -4,7 +4,7 @@ import { purgeCascades, type PurgeCascade } from '@shared/engine/route/purge';
 import { csvText } from '@shared/csv';
 import { useEditorStore } from '@/stores/editor-store';
 import { Button } from '@/components/button';
-import { formatFactor } from '@/lib/format';
+import { formatFactor, formatSignificant, significant } from '@/lib/format';
 import { useEvaluation } from '../evaluation';
 import { keyOf } from '../document';
 import { Chart, PLOT, axisStyle, baseOption } from '../charts/chart';
@@ -43,7 +43,8 @@ const SUPERSCRIPT: Record<string, string> = {
 const powerOfTen = (v: number) =>
   `10${String(Math.round(Math.log10(v))).replace(/./g, (c) => SUPERSCRIPT[c] ?? c)}`;
 
-const kg = (v: number) => (v === 0 ? '0' : v >= 0.01 ? v.toFixed(4) : v.toExponential(2));
+const kg = (v: number) =>
+  v === 0 ? '0' : v >= 0.01 && v < 1e5 ? v.toFixed(4) : formatSignificant(v, 3);
 
 /** Pass / fail / no limit, in words and a mark (never colour alone). */
 export function LimitMark({ impurity }: { impurity: Impurity }) {
@@ -259,10 +260,10 @@ export function PurgeView({ onClose }: { onClose: () => void }) {
       c.rows.map((r) => [
         names.component(c.componentId),
         names.step(r.stepId),
-        r.inKg.toPrecision(6),
-        r.outKg.toPrecision(6),
-        r.stepFactor === null ? 'complete' : r.stepFactor.toPrecision(4),
-        r.cumulativeFactor === null ? 'complete' : r.cumulativeFactor.toPrecision(4),
+        significant(r.inKg, 6),
+        significant(r.outKg, 6),
+        r.stepFactor === null ? 'complete' : significant(r.stepFactor, 4),
+        r.cumulativeFactor === null ? 'complete' : significant(r.cumulativeFactor, 4),
       ]),
     );
     const text = csvText(

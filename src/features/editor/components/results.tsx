@@ -10,6 +10,7 @@ import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
 import { Button } from '@/components/button';
 import { fieldInWords } from '@shared/engine/route/field-words';
 import { formatLevel, formatPurity, LimitMark } from './purge-view';
+import { formatSignificant } from '@/lib/format';
 
 const NO_ISSUES: never[] = [];
 const n = (v: number | null | undefined, d = 1) =>
@@ -33,7 +34,7 @@ function Delta({
   const d = now - before;
   if (!Number.isFinite(d) || Math.abs(d) < 1e-9 * Math.max(1, Math.abs(now))) return null;
   const size = Math.abs(d);
-  const text = size >= 0.1 ? size.toFixed(1) : size.toPrecision(2);
+  const text = size >= 0.1 && size < 1e5 ? size.toFixed(1) : formatSignificant(size, 2);
   return (
     <span
       className="ml-1 text-caption font-normal text-ink-muted"
@@ -431,14 +432,14 @@ export function StreamTable() {
                   {PHASES[r.phase as keyof typeof PHASES]?.label ?? r.phase}
                 </td>
                 <td className="px-2 py-1">{r.T.toFixed(1)}</td>
-                <td className="px-2 py-1">{r.L.toPrecision(3)}</td>
-                <td className="px-2 py-1">{r.total.toPrecision(4)}</td>
+                <td className="px-2 py-1">{formatSignificant(r.L, 3)}</td>
+                <td className="px-2 py-1">{formatSignificant(r.total, 4)}</td>
                 {comps.map((c) => {
                   const kg = r.kg[keyOf(c)] ?? 0;
                   return (
                     <td key={keyOf(c)} className="px-2 py-1">
                       {kg
-                        ? `${kg.toPrecision(3)} (${((100 * kg) / (r.total || 1)).toFixed(1)})`
+                        ? `${formatSignificant(kg, 3)} (${((100 * kg) / (r.total || 1)).toFixed(1)})`
                         : '—'}
                     </td>
                   );

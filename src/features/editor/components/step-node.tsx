@@ -9,6 +9,7 @@ import { useStepMarks } from '../marks';
 import { PhaseMark, PHASES, SEVERITY_ORDER, SeverityChip, type Severity } from './phase';
 import { KindGlyph } from './kind-glyph';
 import { formatPurity } from './purge-view';
+import { formatSignificant } from '@/lib/format';
 
 /** Node data: the step itself (serialisable parameters only, nothing derived). */
 export type StepNodeData = { step: StepInput };
@@ -19,9 +20,9 @@ const fmt = (v: number | string | null) =>
   v === null
     ? '—'
     : typeof v === 'number'
-      ? Math.abs(v) >= 100
+      ? Math.abs(v) >= 100 && Math.abs(v) < 1e5
         ? v.toFixed(0)
-        : Number(v.toPrecision(3)).toString()
+        : formatSignificant(v, 3)
       : v;
 
 function StepNodeImpl({ id, data, selected }: NodeProps<StepNodeType>) {

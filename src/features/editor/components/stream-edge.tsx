@@ -10,6 +10,7 @@ import {
 import type { PortPhase } from '@shared/schemas/route';
 import { useEvaluation } from '../evaluation';
 import { PHASES } from './phase';
+import { formatSignificant } from '@/lib/format';
 
 export type StreamEdgeData = {
   phase: PortPhase;
@@ -102,8 +103,8 @@ function streamLabel(
       main = k;
     }
   return [
-    `${L >= 10 ? L.toFixed(0) : L.toPrecision(2)} L`,
-    productKg !== null ? `${productKg.toPrecision(3)} kg product` : '',
+    `${L >= 10 && L < 1e5 ? L.toFixed(0) : formatSignificant(L, 2)} L`,
+    productKg !== null ? `${formatSignificant(productKg, 3)} kg product` : '',
     main ? (data?.names[main]?.name ?? main) : '',
   ].join('\u0000');
 }

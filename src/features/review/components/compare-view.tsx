@@ -1,4 +1,5 @@
 import type { RevisionCompare } from '@shared/schemas/revisions';
+import { formatSignificant } from '@/lib/format';
 
 const TOTAL_LABELS: Record<string, string> = {
   yieldPct: 'Yield, %',
@@ -17,7 +18,7 @@ const TOTAL_LABELS: Record<string, string> = {
 
 const show = (value: unknown) => {
   if (value === null || value === undefined) return '—';
-  if (typeof value === 'number') return Number(value.toPrecision(4)).toString();
+  if (typeof value === 'number') return formatSignificant(value, 4);
   if (typeof value === 'object') return JSON.stringify(value);
   return String(value);
 };
