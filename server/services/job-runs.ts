@@ -3,9 +3,11 @@
  * same way: progress written about every 1 % in the statement that also finds
  * out whether the job was cancelled, and how a run that stops is recorded.
  */
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
+import { database } from '../db/sequelize';
 import { AppError } from '../errors';
 import { EvaluationJob } from '../models';
+import { QUEUES } from './jobs';
 
 export class JobCancelled extends Error {
   constructor() {
@@ -104,6 +106,49 @@ export async function failAbandonedRuns(staleSeconds: number): Promise<number> {
         status: 'running',
         updatedAt: { [Op.lt]: new Date(Date.now() - staleSeconds * 1000) },
       },
+    },
+  );
+  return count;
+}
+
+/** What the chemist reads on a run the queue gave up on before it could finish. */
+export const RUN_GAVE_UP_ERROR = {
+  code: 'run_gave_up',
+  message:
+    'This run could not be finished: the server stopped or failed each time it was tried. Start it again.',
+} as const;
+
+/**
+ * Marks failed every run still "queued" that no queue entry will start any more:
+ * its pg-boss entry ran out of retries (the server stopped under it twice, or
+ * it failed on every attempt), expired, or was deleted. Without this the run
+ * stays "queued" for good and holds one of its owner's open jobs.
+ *
+ * A run's row and its queue entry are written in one transaction
+ * (startMonteCarlo, startOptimise), and a run handed back on shutdown is set
+ * "queued" before its entry is failed for a retry, so a live entry exists
+ * whenever the run can still start. Only runs unchanged for `staleSeconds`
+ * are looked at, so rows written by hand moments ago are left alone. One
+ * conditional UPDATE, safe with several instances sweeping together.
+ */
+export async function failRunsWithoutQueueEntry(staleSeconds: number): Promise<number> {
+  const [, count] = await database().query(
+    `UPDATE evaluation_jobs e
+        SET status = 'failed', error = CAST(:error AS jsonb), finished_at = now(), updated_at = now()
+      WHERE e.status = 'queued'
+        AND e.updated_at < now() - make_interval(secs => :staleSeconds)
+        AND NOT EXISTS (
+          SELECT 1 FROM pgboss.job j
+           WHERE j.name IN (:queues)
+             AND j.state IN ('created', 'retry', 'active')
+             AND j.data ->> 'jobId' = e.id::text)`,
+    {
+      replacements: {
+        error: JSON.stringify(RUN_GAVE_UP_ERROR),
+        staleSeconds,
+        queues: [QUEUES.monteCarlo, QUEUES.optimise],
+      },
+      type: QueryTypes.UPDATE,
     },
   );
   return count;

@@ -1,5 +1,5 @@
 import type { Transporter } from 'nodemailer';
-import { failAbandonedRuns } from './job-runs';
+import { failAbandonedRuns, failRunsWithoutQueueEntry } from './job-runs';
 import { jobQueue, QUEUES } from './jobs';
 import { startMonteCarloWorker } from './monte-carlo-jobs';
 import { startOptimiseWorker } from './optimise-jobs';
@@ -16,12 +16,15 @@ export async function startWorkers(options: {
   // Runs left "running" by a stop or a crash would count against their owner's
   // open-job limit for good: fail them at start, then keep sweeping, for runs
   // abandoned by another instance that went away while this one runs.
-  await failAbandonedRuns(options.staleSeconds);
+  // Runs left "queued" whose queue entry ran out of retries are failed the same way.
+  const sweepOnce = async () => {
+    await failAbandonedRuns(options.staleSeconds);
+    await failRunsWithoutQueueEntry(options.staleSeconds);
+  };
+  await sweepOnce();
   const sweep = setInterval(
     () => {
-      failAbandonedRuns(options.staleSeconds).catch((error: unknown) =>
-        console.error('[jobs] sweeping abandoned runs', error),
-      );
+      sweepOnce().catch((error: unknown) => console.error('[jobs] sweeping abandoned runs', error));
     },
     Math.min(60, options.staleSeconds / 2) * 1000,
   );

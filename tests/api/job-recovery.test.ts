@@ -10,7 +10,12 @@ import { anyJobSchema } from '@shared/schemas/jobs';
 import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
 import { database } from '../../server/db/sequelize';
 import { EvaluationJob } from '../../server/models';
-import { SERVER_STOPPED_ERROR } from '../../server/services/job-runs';
+import {
+  failRunsWithoutQueueEntry,
+  RUN_GAVE_UP_ERROR,
+  SERVER_STOPPED_ERROR,
+} from '../../server/services/job-runs';
+import { jobQueue, QUEUES } from '../../server/services/jobs';
 import { useTestServer } from '../support/app';
 import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
@@ -95,4 +100,47 @@ describe('runs abandoned by a stopped server', () => {
     for (const jobId of [accepted.body.jobId as string, live.id])
       await EvaluationJob.update({ status: 'cancelled' }, { where: { id: jobId } });
   }, 120_000);
+
+  it("a queued run whose queue entry ran out of retries ends failed in the chemist's words; one still queued is kept", async () => {
+    const queuedRun = () =>
+      EvaluationJob.create({
+        userId: asChemist.session.user.id,
+        kind: 'monte-carlo',
+        input: {},
+        status: 'queued',
+        progress: 0,
+      });
+    const [givenUp, waiting] = [await queuedRun(), await queuedRun()];
+    // Queue entries due in an hour, so no worker takes them; the first is failed on its
+    // last attempt, as pg-boss does when the server stopped under the run once too often.
+    const boss = jobQueue();
+    const later = new Date(Date.now() + 3_600_000);
+    const givenUpEntry = await boss.send(
+      QUEUES.monteCarlo,
+      { jobId: givenUp.id },
+      { retryLimit: 0, startAfter: later },
+    );
+    await boss.send(QUEUES.monteCarlo, { jobId: waiting.id }, { retryLimit: 0, startAfter: later });
+    await boss.fail(QUEUES.monteCarlo, givenUpEntry!, new Error('server stopping'));
+    expect((await boss.getJobById(QUEUES.monteCarlo, givenUpEntry!))?.state).toBe('failed');
+    await database().query(
+      `UPDATE evaluation_jobs SET updated_at = now() - interval '1 hour' WHERE id IN (:ids)`,
+      { replacements: { ids: [givenUp.id, waiting.id] } },
+    );
+
+    // (The server process the first test started sweeps too; either sweep may get there first.)
+    await failRunsWithoutQueueEntry(600);
+
+    const seen = await jobOf(asChemist, givenUp.id);
+    expect(seen.status).toBe('failed');
+    expect(seen.error).toEqual(RUN_GAVE_UP_ERROR);
+    expect(seen.error!.message).toBe(
+      'This run could not be finished: the server stopped or failed each time it was tried. Start it again.',
+    );
+    expect((await jobOf(asChemist, waiting.id)).status).toBe('queued');
+    // A second sweep changes nothing.
+    expect(await failRunsWithoutQueueEntry(600)).toBe(0);
+
+    await EvaluationJob.update({ status: 'cancelled' }, { where: { id: waiting.id } });
+  }, 60_000);
 });
