@@ -142,6 +142,14 @@ export interface SolventRecord {
     waterInSolventWtPct: number;
     temperatureC: number;
   }>;
+  /**
+   * Further measured mutual solubilities with water at other temperatures
+   * (wt %, °C; either phase or both), for the temperature dependence of the
+   * liquid–liquid model (thermo/nrtl.ts, regressReplacingWaterPair).
+   */
+  waterMutualSolubilityCurve?: Sourced<
+    Array<{ temperatureC: number; solventInWaterWtPct?: number; waterInSolventWtPct?: number }>
+  >;
   /** 'miscible' | 'partial' | 'immiscible' with water at 25 °C. */
   waterMiscibility: 'miscible' | 'partial';
   viscosityMPas25C: Sourced<number>;

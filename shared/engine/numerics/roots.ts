@@ -521,8 +521,23 @@ export function solveSystem(
   };
 }
 
-/** Gaussian elimination with partial pivoting; null when singular. */
-function gaussSolve(A: number[][], b: number[]): number[] | null {
+/**
+ * Solves the square linear system A x = b by Gaussian elimination with
+ * partial pivoting (A and b are not modified).
+ *
+ * Source: G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns
+ * Hopkins 2013, §3.4 (partial pivoting).
+ *
+ * @param A  square matrix [units of the equations per unit of the unknowns]
+ * @param b  right-hand side [units of the equations]
+ * @returns x [units of the unknowns], or null when a pivot vanishes (singular A)
+ *
+ * Validity: small dense systems (a handful of unknowns); no scaling or refinement.
+ */
+export function gaussSolve(
+  A: readonly (readonly number[])[],
+  b: readonly number[],
+): number[] | null {
   const n = b.length;
   const M = A.map((row, i) => [...row, b[i]]);
   for (let c = 0; c < n; c++) {

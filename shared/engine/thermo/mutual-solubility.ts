@@ -6,7 +6,7 @@
 import type { SolventRecord } from '../data/types';
 import { EngineError } from '../errors';
 import { solventVapourPressureData } from './antoine';
-import type { MutualSolubilityPoint } from './nrtl';
+import type { MutualSolubilityCurvePoint, MutualSolubilityPoint } from './nrtl';
 import { createVleSystem, liquidLiquidSplit, type VleComponent, type VleSystem } from './vle';
 
 /**
@@ -38,6 +38,36 @@ export function mutualSolubilityPoint(
 }
 
 /**
+ * The record's further measured mutual solubilities with water (other
+ * temperatures) as mole fractions.
+ *
+ * Formula: x = (w/M) / Σ(w/M) for each phase given, from the wt % of the record.
+ *
+ * @param solvent  solvent record with waterMutualSolubilityCurve (wt %, °C)
+ * @param water    the water record (molar mass [g/mol])
+ * @returns the points (mole fractions [–], T [K]); empty when none are tabulated
+ *
+ * Source: the record's waterMutualSolubilityCurve source. Validity: as tabulated.
+ */
+export function mutualSolubilityCurve(
+  solvent: SolventRecord,
+  water: SolventRecord,
+): MutualSolubilityCurvePoint[] {
+  const points = solvent.waterMutualSolubilityCurve?.value ?? [];
+  const Mw = water.molarMassGmol.value;
+  const Ms = solvent.molarMassGmol.value;
+  const molFrac = (wSolute: number, Msolute: number, Mrest: number) =>
+    wSolute / Msolute / (wSolute / Msolute + (100 - wSolute) / Mrest);
+  return points.map((p) => ({
+    T_K: p.temperatureC + 273.15,
+    xSolventInWater:
+      p.solventInWaterWtPct === undefined ? undefined : molFrac(p.solventInWaterWtPct, Ms, Mw),
+    xWaterInSolvent:
+      p.waterInSolventWtPct === undefined ? undefined : molFrac(p.waterInSolventWtPct, Mw, Ms),
+  }));
+}
+
+/**
  * The VLE component of a library solvent, with the data the regressed
  * liquid–liquid model needs (water flag, mutual solubility with water).
  *
@@ -59,6 +89,8 @@ export function vleComponentOf(s: SolventRecord, water?: SolventRecord): VleComp
     isWater: s.id === 'water',
     mutualSolubilityWithWater:
       water && s.id !== 'water' ? mutualSolubilityPoint(s, water) : undefined,
+    mutualSolubilityCurveWithWater:
+      water && s.id !== 'water' ? mutualSolubilityCurve(s, water) : undefined,
   };
 }
 
@@ -95,7 +127,9 @@ export type SaturatedPhases =
  *
  * Validity: reproduces the tabulated phases at the tabulated temperature;
  * elsewhere the temperature dependence of UNIFAC with constant NRTL
- * interaction energies (a few tens of kelvin).
+ * interaction energies (a few tens of kelvin), or, for a pair tabulated at
+ * several temperatures, the fitted τ(T) within the range of the data
+ * (outside it by more than 5 K the result carries a warning).
  */
 export function mutuallySaturatedPhases(
   solvent: SolventRecord,

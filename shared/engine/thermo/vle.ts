@@ -30,8 +30,10 @@ import {
 } from './antoine';
 import { checkComposition, createUnifac, type UnifacModel } from './unifac';
 import {
+  regressReplacingWaterPair,
   regressWaterPair,
   withRegressedPairs,
+  type MutualSolubilityCurvePoint,
   type MutualSolubilityPoint,
   type RegressedPair,
 } from './nrtl';
@@ -57,6 +59,8 @@ export interface VleComponent {
   isWater?: boolean;
   /** Tabulated mutual solubility with water, as mole fractions: regressed into a pair term (thermo/nrtl.ts). */
   mutualSolubilityWithWater?: MutualSolubilityPoint;
+  /** Further measured mutual solubilities with water at other temperatures: the temperature dependence of the pair (thermo/nrtl.ts). */
+  mutualSolubilityCurveWithWater?: readonly MutualSolubilityCurvePoint[];
 }
 
 export interface VleSystem {
@@ -83,10 +87,18 @@ function regressPairs(components: readonly VleComponent[]): {
   components.forEach((c, i) => {
     const data = c.mutualSolubilityWithWater;
     if (i === water || !data) return;
-    const key = JSON.stringify([components[water].unifac, c.unifac, data]);
+    const curve = c.mutualSolubilityCurveWithWater ?? [];
+    const key = JSON.stringify([components[water].unifac, c.unifac, data, curve]);
     let fit = pairMemo.get(key);
     if (fit === undefined) {
-      fit = regressWaterPair(createUnifac([components[water].unifac, c.unifac]), data);
+      // Measured at several temperatures: NRTL replaces UNIFAC for the binary, with its
+      // temperature dependence fitted. At one temperature: a term added to UNIFAC, else (no
+      // stable added term) the replacing form with constant interaction energies.
+      fit =
+        curve.length > 0
+          ? regressReplacingWaterPair(data, curve)
+          : (regressWaterPair(createUnifac([components[water].unifac, c.unifac]), data) ??
+            regressReplacingWaterPair(data, []));
       if (pairMemo.size > 500) pairMemo.clear();
       pairMemo.set(key, fit);
     }
@@ -118,7 +130,9 @@ export function createVleSystem(components: readonly VleComponent[]): VleSystem 
   const { pairs, warnings } = regressPairs(components);
   return {
     components,
-    unifac: withRegressedPairs(createUnifac(components.map((c) => c.unifac)), pairs),
+    unifac: withRegressedPairs(createUnifac(components.map((c) => c.unifac)), pairs, (p) =>
+      createUnifac([components[p.water].unifac, components[p.solvent].unifac]),
+    ),
     regressedPairs: pairs,
     warnings,
   };
@@ -178,9 +192,50 @@ function saturationPressures(
   }
 }
 
-/** Warnings from vapour-pressure extrapolation at the final temperature. */
-function saturationWarnings(sys: VleSystem, T_K: number, involved: ArrayLike<number>): string[] {
+/**
+ * How far beyond the temperature range of its data a fitted water pair is used
+ * without a warning [K]: this project's own allowance (the fitted τ(T) is
+ * smooth, and a few kelvin past the last point stay within the scatter of
+ * the tabulated solubilities).
+ */
+export const PAIR_RANGE_ALLOWANCE_K = 5;
+
+/**
+ * Warnings for fitted water–solvent pairs used outside the temperature range
+ * of their data (RegressedPair.fittedRangeK) by more than
+ * PAIR_RANGE_ALLOWANCE_K: the liquid–liquid model is then extrapolated.
+ *
+ * Source: this project's own bookkeeping (no external source).
+ *
+ * @param sys       system from createVleSystem
+ * @param T_K       temperature [K]
+ * @param involved  mole fractions or amounts of the components present [any unit]; a pair counts when both are > 0
+ * @returns one warning per pair extrapolated, in the chemist's words
+ *
+ * Validity: any system; pairs without a fitted range (one tabulated temperature) never warn.
+ */
+export function pairRangeWarnings(
+  sys: VleSystem,
+  T_K: number,
+  involved: ArrayLike<number>,
+): string[] {
   const warnings: string[] = [];
+  for (const p of sys.regressedPairs) {
+    const range = p.fittedRangeK;
+    if (!range || !(involved[p.water] > 0 && involved[p.solvent] > 0)) continue;
+    if (T_K >= range[0] - PAIR_RANGE_ALLOWANCE_K && T_K <= range[1] + PAIR_RANGE_ALLOWANCE_K)
+      continue;
+    const c = (K: number) => `${(K - 273.15).toFixed(1)} °C`;
+    warnings.push(
+      `${componentLabel(sys, p.solvent)}–water: the liquid–liquid model is fitted to mutual solubilities measured from ${c(range[0])} to ${c(range[1])}; at ${c(T_K)} it is extrapolated (mutual solubilities less certain).`,
+    );
+  }
+  return warnings;
+}
+
+/** Warnings from vapour-pressure extrapolation at the final temperature, and from fitted pairs used outside their range. */
+function saturationWarnings(sys: VleSystem, T_K: number, involved: ArrayLike<number>): string[] {
+  const warnings: string[] = pairRangeWarnings(sys, T_K, involved);
   sys.components.forEach((c, i) => {
     if (c.nonVolatile || involved[i] === 0) return;
     const r = vapourPressureWithSlope(c.antoine, T_K, fallbackOf(c));
@@ -722,7 +777,7 @@ export function liquidLiquidSplit(
   const n = sys.components.length;
   const zs = normalised(z, n);
   checkTemperature(T_K);
-  const warnings: string[] = [];
+  const warnings: string[] = pairRangeWarnings(sys, T_K, zs);
   const present = Array.from(zs).filter((v) => v > 0).length;
   if (present < 2) return { split: false, warnings };
   const model = sys.unifac;

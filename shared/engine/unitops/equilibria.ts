@@ -242,7 +242,7 @@ export function splitLiquid(
       methods,
       'phase split',
       tabulated.length
-        ? 'liquid–liquid flash of every solvent by its own activity (UNIFAC + NRTL/Margules term regressed to the tabulated mutual solubilities with water; tangent-plane stability, Rachford–Rice)'
+        ? 'liquid–liquid flash of every solvent by its own activity (UNIFAC with NRTL/Margules terms regressed to the tabulated mutual solubilities with water: added to UNIFAC, or NRTL in its place for a pair measured at several temperatures; tangent-plane stability, Rachford–Rice)'
         : 'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)',
       [
         'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352',
@@ -250,12 +250,22 @@ export function splitLiquid(
         ...tabulated.map((id) => {
           const rec = ctx.comps.get(id)!.solvent!;
           const ms = rec.waterMutualSolubility!;
-          return `${rec.name}–water mutual solubility at ${ms.value.temperatureC} °C: ${ms.source.ref} (${ms.source.status})`;
+          const curve = rec.waterMutualSolubilityCurve;
+          const more = curve
+            ? ` and at ${curve.value.map((p) => p.temperatureC).join(', ')} °C: ${curve.source.ref} (${curve.source.status})`
+            : '';
+          return `${rec.name}–water mutual solubility at ${ms.value.temperatureC} °C: ${ms.source.ref} (${ms.source.status})${more}`;
         }),
       ].join('; '),
     );
+    const pairBySolvent = new Map(
+      vle ? vle.sys.regressedPairs.map((p) => [ids[p.solvent], p] as const) : [],
+    );
     for (const id of tabulated) {
       const rec = ctx.comps.get(id)!.solvent!;
+      // Measured over a range of temperatures: the fitted temperature dependence holds inside
+      // it; outside, the flash's own note (code 'lle', pairRangeWarnings) says it is extrapolated.
+      if (pairBySolvent.get(id)?.fittedRangeK) continue;
       const tC = rec.waterMutualSolubility!.value.temperatureC;
       if (Math.abs(T_K - 273.15 - tC) > 15)
         warn(

@@ -157,6 +157,7 @@ describe('provenance', () => {
         (s.vapourPressure ? 1 : 0) +
         (s.enthalpyVapKJmol ? 1 : 0) +
         (s.waterMutualSolubility ? 1 : 0) +
+        (s.waterMutualSolubilityCurve ? 1 : 0) +
         (s.dielectricConstant ? 1 : 0) +
         (s.pKa ? 1 : 0),
       0,

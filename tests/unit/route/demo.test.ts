@@ -29,9 +29,11 @@ describe('demo amide isolation', () => {
     expect(r.totals.purityWtPct!).toBeGreaterThanOrEqual(99);
     // Regression values of this engine version for the invented demo data
     // (re-pinned deliberately when the demo data were tuned: 90.2 % yield,
-    // purity 99.50 wt %, capped by the 0.5 % loss on drying). Re-pin only on
-    // purpose, with the reason in the commit.
-    expect(r.totals.yieldPct!).toBeCloseTo(90.2, 0);
+    // purity 99.50 wt %, capped by the 0.5 % loss on drying; 90.5 % since the
+    // 2-MeTHF–water pair is fitted (NRTL in UNIFAC's place): the swap strips water
+    // and 2-MeTHF faster, so less of the product stays in the liquor). Re-pin only
+    // on purpose, with the reason in the commit.
+    expect(r.totals.yieldPct!).toBeCloseTo(90.5, 0);
     expect(r.totals.purityWtPct!).toBeCloseTo(99.5, 1);
     // The acid wash takes the amine, the base wash the acid.
     expect(r.totals.purge['pw417-amine'].purgeFactor!).toBeGreaterThan(1000);
@@ -54,9 +56,12 @@ describe('demo amide isolation', () => {
       residualOriginalSolventWtPct: number;
       profile: Array<{ potTemperatureC: number }>;
     };
-    // 4 × 10 vol of 2-propanol against a 14 vol pot leaves about 2 wt % 2-MeTHF
-    // (was < 2 with 3 × 5 vol to 4 vol, which crashed the product out).
-    expect(d.residualOriginalSolventWtPct).toBeLessThan(3);
+    // 4 × 10 vol of 2-propanol against a 14 vol pot leaves about 1.5 wt % 2-MeTHF
+    // (was < 2 with 3 × 5 vol to 4 vol, which crashed the product out). It was 2.3 wt %
+    // while the 2-MeTHF–water pair stayed on UNIFAC, which gives water in 2-MeTHF half the
+    // activity the measured mutual solubility implies: the fitted pair strips the water
+    // (0.038 → 0.013 kg left) and, with it, more 2-MeTHF.
+    expect(d.residualOriginalSolventWtPct).toBeCloseTo(1.46, 1);
     expect(d.residualOriginalSolventWtPct).toBeGreaterThan(0.5);
     expect(d.profile.length).toBeGreaterThan(10);
     // 2-MeTHF / 2-propanol boil near 60–70 °C at 600 mbar (2-propanol about 69–70 °C).

@@ -106,6 +106,17 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
         'solvent in water 14.4 wt% at 19.3 °C (inverse solubility: 21.0 % at 0 °C, 6.0 % at 70.6 °C); water in solvent 4.4 g/100 g at 23 °C',
       ),
     ),
+    waterMutualSolubilityCurve: sv(
+      [
+        { temperatureC: 0, solventInWaterWtPct: 21.0 },
+        { temperatureC: 29.5, solventInWaterWtPct: 11.4 },
+        { temperatureC: 70.6, solventInWaterWtPct: 6.0 },
+      ],
+      read(
+        'encyclopedia-2-methyltetrahydrofuran',
+        'solvent in water: 21.0 % at 0 °C, 11.4 wt% at 29.5 °C, 6.0 % at 70.6 °C (inverse solubility); no water-in-solvent value at another temperature',
+      ),
+    ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(0.46, VISCOSITY),
   },
