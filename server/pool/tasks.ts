@@ -12,13 +12,14 @@
 import type { ApiErrorBody } from '@shared/schemas/errors';
 import type { DraftDocument } from '@shared/schemas/routes';
 import type { RouteDocument } from '@shared/schemas/route';
-import { parseRoute, prepareRoute, type PreparedRoute } from '@shared/engine/route/evaluate';
+import type { PreparedRoute } from '@shared/engine/route/evaluate';
 import {
   runMonteCarloChunk,
   startMonteCarlo,
   summariseMonteCarlo,
   type MonteCarloState,
 } from '@shared/engine/route/monte-carlo';
+import type { StepMemo } from '@shared/engine/route/step-memo';
 import type { Equipment } from '@shared/schemas/equipment';
 import {
   checkOptimiseRequest,
@@ -44,6 +45,7 @@ import {
   calcVapourPressure,
 } from '../services/calc';
 import { evaluateDraft } from '../services/draft-evaluation';
+import { monteCarloMemo, prepareWithReuse } from '../services/engine-reuse';
 import { computeSolventAlternatives } from '../services/solvent-alternatives';
 import {
   describeFailure,
@@ -54,7 +56,7 @@ import {
 
 function prepare(document: RouteDocument): PreparedRoute {
   try {
-    return prepareRoute(parseRoute(document));
+    return prepareWithReuse(document);
   } catch (error) {
     const failure = describeFailure(error, document);
     if (failure) throw new RouteEvaluationFailed(failure);
@@ -62,12 +64,16 @@ function prepare(document: RouteDocument): PreparedRoute {
   }
 }
 
-/** Prepared routes of running Monte Carlo jobs, so each chunk skips validation and model set-up. */
-const preparedByJob = new Map<string, PreparedRoute>();
-function preparedFor(cacheKey: string, document: RouteDocument): PreparedRoute {
+/**
+ * Prepared routes of running Monte Carlo jobs, so each chunk skips validation and model set-up,
+ * with a step memo of the job's own (steps without uncertain settings are reused draw after draw).
+ */
+const preparedByJob = new Map<string, { prepared: PreparedRoute; memo: StepMemo }>();
+function preparedFor(cacheKey: string, document: RouteDocument) {
   let prepared = preparedByJob.get(cacheKey);
   if (!prepared) {
-    prepared = prepare(document);
+    const route = prepare(document);
+    prepared = { prepared: route, memo: monteCarloMemo(route.doc.steps.length) };
     preparedByJob.set(cacheKey, prepared);
     if (preparedByJob.size > 4) preparedByJob.delete(preparedByJob.keys().next().value!);
   }
@@ -89,6 +95,8 @@ const CALCULATIONS = {
 export type CalculationName = keyof typeof CALCULATIONS;
 
 export const tasks = {
+  /** Nothing: answered once the worker has loaded the engine (the pool's start waits for it). */
+  'pool.ready': () => null,
   /** One evaluation, answered as JSON text (serialised here, off the web thread), refused above maxReplyBytes. */
   'route.evaluate': (input: { document: RouteDocument; maxReplyBytes: number }) => {
     const json = JSON.stringify(evaluateDocument(input.document));
@@ -109,6 +117,7 @@ export const tasks = {
       prepared,
       startMonteCarlo({ draws: input.draws, seed: input.seed }),
       input.draws,
+      monteCarloMemo(prepared.doc.steps.length),
     );
     return summariseMonteCarlo(state);
   },
@@ -121,9 +130,9 @@ export const tasks = {
     seed: number;
     chunk: number;
   }) => {
-    const prepared = preparedFor(input.cacheKey, input.document);
+    const { prepared, memo } = preparedFor(input.cacheKey, input.document);
     const state = input.state ?? startMonteCarlo({ draws: input.draws, seed: input.seed });
-    const next = runMonteCarloChunk(prepared, state, input.chunk);
+    const next = runMonteCarloChunk(prepared, state, input.chunk, memo);
     if (next.done >= next.draws) preparedByJob.delete(input.cacheKey);
     return { state: next, summary: next.done >= next.draws ? summariseMonteCarlo(next) : null };
   },

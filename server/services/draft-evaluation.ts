@@ -5,7 +5,8 @@
 import type { RouteEvaluationError } from '@shared/schemas/evaluate';
 import type { DraftDocument } from '@shared/schemas/routes';
 import type { EngineWarning } from '@shared/schemas/route';
-import { evaluateRoute, type RouteTotals } from '@shared/engine/route/evaluate';
+import type { RouteTotals } from '@shared/engine/route/evaluate';
+import { evaluateWithReuse } from './engine-reuse';
 import { describeFailure } from './evaluation';
 
 export interface DraftEvaluation {
@@ -26,7 +27,7 @@ export function evaluateDraft(document: DraftDocument): DraftEvaluation {
     );
   }
   try {
-    const result = evaluateRoute(document);
+    const result = evaluateWithReuse(document);
     return { totals: result.totals, evaluationError: null, warnings: result.warnings, stepCount };
   } catch (error) {
     const failure = describeFailure(error, document as Parameters<typeof describeFailure>[1]);

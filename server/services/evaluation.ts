@@ -9,13 +9,13 @@ import { EngineError } from '@shared/engine/errors';
 import { RouteValidationError, type RouteIssue } from '@shared/engine/route/errors';
 import {
   ENGINE_VERSION,
-  evaluateRoute,
   PROCESS_SAFETY_NOTE,
   type RouteResult,
 } from '@shared/engine/route/evaluate';
 import { fieldInWords } from '@shared/engine/route/field-words';
 import { capitalise, stepInWords } from '@shared/engine/route/step-words';
 import { AppError } from '../errors';
+import { evaluateWithReuse } from './engine-reuse';
 
 export { resultTooLarge } from '../errors';
 
@@ -93,7 +93,7 @@ export function evaluateDocument(doc: RouteDocument): {
   result: RouteResult;
 } {
   try {
-    return { engineVersion: ENGINE_VERSION, result: evaluateRoute(doc) };
+    return { engineVersion: ENGINE_VERSION, result: evaluateWithReuse(doc) };
   } catch (error) {
     const failure = describeFailure(error, doc);
     if (failure) throw new RouteEvaluationFailed(failure);

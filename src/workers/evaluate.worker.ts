@@ -6,8 +6,9 @@
  *
  * The engine's document caches (fitted solubility curves, UNIFAC models) are
  * kept here between messages, keyed by the route's component set, so an edit
- * of a step's setting does not rebuild them. They depend on the components
- * only and make no number differ from a fresh evaluation.
+ * of a step's setting does not rebuild them; and a step-result memo, so an
+ * edit re-evaluates only the edited step and those downstream of it. Both make
+ * no number differ from a fresh evaluation (shared/engine/route/step-memo.ts).
  */
 import {
   evaluatePrepared,
@@ -15,7 +16,7 @@ import {
   prepareRoute,
   type RouteResult,
 } from '@shared/engine/route/evaluate';
-import { createEvaluationCaches, type EvaluationCaches } from '@shared/engine/route/context';
+import { cachesFor, createCachePool, createStepMemo } from '@shared/engine/route/step-memo';
 import { RouteValidationError } from '@shared/engine/route/errors';
 
 export type EvaluateRequest = { revision: number; document: unknown };
@@ -29,18 +30,9 @@ export type EvaluateReply =
     };
 
 /** Component sets whose caches are kept (most recently used last); a few cover undo, redo and switching routes. */
-const KEPT = 4;
-const kept = new Map<string, EvaluationCaches>();
-
-function cachesFor(components: unknown): EvaluationCaches {
-  const key = JSON.stringify(components);
-  let caches = kept.get(key);
-  if (caches) kept.delete(key);
-  else caches = createEvaluationCaches();
-  kept.set(key, caches);
-  while (kept.size > KEPT) kept.delete(kept.keys().next().value!);
-  return caches;
-}
+const cachePool = createCachePool(4);
+/** Step results kept: several versions of a few hundred steps (undo, redo, switching routes). */
+const stepMemo = createStepMemo(1000);
 
 self.onmessage = (event: MessageEvent<EvaluateRequest>) => {
   const { revision, document } = event.data;
@@ -49,8 +41,8 @@ self.onmessage = (event: MessageEvent<EvaluateRequest>) => {
   try {
     const parsed = parseRoute(document);
     const prepared = prepareRoute(parsed);
-    prepared.caches = cachesFor(parsed.components);
-    const result = evaluatePrepared(prepared, null);
+    prepared.caches = cachesFor(cachePool, parsed);
+    const result = evaluatePrepared(prepared, null, stepMemo);
     reply = { revision, ok: true, result, ms: performance.now() - t0 };
   } catch (error) {
     const issues =

@@ -4,19 +4,82 @@
  * growth ≤ 50 MB), 1000 Monte Carlo draws of the 30-step route (≤ 5 s), and
  * the cost against steps and components. Memory is read with
  * process.memoryUsage() here only (the engine itself uses no Node APIs).
+ *
+ * Each route is timed three ways, side by side: every step evaluated (no step
+ * memo: what a route whose steps all changed costs), the same route evaluated
+ * again with the step memo (nothing changed: every step reused), and one step
+ * in the middle of the order changed before every evaluation (it and the steps
+ * after it evaluated, the others reused). A target met only with the memo says so.
  */
 import { measure, type BenchResult } from './harness';
 import { BENCH_WEIGHTS, generateRoute } from '../fixtures/routes/generate';
-import { evaluatePrepared, parseRoute, prepareRoute } from '../../shared/engine/route/evaluate';
+import { benchRoute as route } from '../fixtures/routes/corpus';
+import {
+  evaluatePrepared,
+  parseRoute,
+  prepareRoute,
+  type PreparedRoute,
+} from '../../shared/engine/route/evaluate';
 import { monteCarlo } from '../../shared/engine/route/monte-carlo';
+import { createStepMemo } from '../../shared/engine/route/step-memo';
 
-function route(steps: number, components: number, seed = 11) {
-  // About two distillations per 30 steps (weights), the rest washes and simple steps;
-  // compounds are added until the route has `components` components.
-  const make = (compounds: number) =>
-    generateRoute({ seed, steps, compounds, weights: BENCH_WEIGHTS });
-  const base = make(1).components.length - 1;
-  return make(Math.max(1, components - base));
+/** Sets the first number of the step's settings (not an uncertainty) to `value`; returns its original value. */
+function setFirstNumber(o: unknown, value: number | null): number | null {
+  if (o === null || typeof o !== 'object') return null;
+  for (const [k, v] of Object.entries(o as Record<string, unknown>)) {
+    if (typeof v === 'number' && v > 0 && k !== 'plusMinus') {
+      if (value !== null) (o as Record<string, unknown>)[k] = value;
+      return v;
+    }
+    const inner = setFirstNumber(v, value);
+    if (inner !== null) return inner;
+  }
+  return null;
+}
+
+/**
+ * Timings with the step memo: the same route again (all steps reused), and one step in the middle
+ * of the order changed before each evaluation (a new value each time, within 1 % of the original).
+ */
+function withMemo(
+  label: string,
+  p: PreparedRoute,
+  targetUs: number,
+  opts: { samples: number; batch: number; warmup: number },
+): BenchResult[] {
+  const memo = createStepMemo(5000);
+  evaluatePrepared(p, null, memo);
+  const repeated = {
+    ...measure(`${label}, repeated unchanged (step memo)`, () => evaluatePrepared(p, null, memo), {
+      ...opts,
+      targetUs,
+    }),
+    note: 'CACHED: every step answered from the step memo (an unchanged route evaluated again)',
+  };
+  const position = Math.floor(p.graph.order.length / 2);
+  const step = p.doc.steps.find((s) => s.id === p.graph.order[position])!;
+  const original = setFirstNumber(step.params, null)!;
+  let i = 0;
+  const before = { hits: memo.hits, misses: memo.misses };
+  const edited = measure(
+    `${label}, one step changed per evaluation (step memo)`,
+    () => {
+      i++;
+      setFirstNumber(step.params, original * (1 + (i % 997) * 1e-5));
+      return evaluatePrepared(p, null, memo);
+    },
+    { ...opts, targetUs },
+  );
+  setFirstNumber(step.params, original);
+  const runs = i;
+  const evaluated = (memo.misses - before.misses) / runs;
+  return [
+    repeated,
+    {
+      ...edited,
+      note: `step ${position + 1} of ${p.graph.order.length} (${step.kind}) changed: ${evaluated.toFixed(1)} steps evaluated per call, the rest reused`,
+    },
+  ];
 }
 
 export async function run(): Promise<BenchResult[]> {
@@ -25,14 +88,19 @@ export async function run(): Promise<BenchResult[]> {
   const p30 = prepareRoute(parseRoute(d30));
   const nDist = d30.steps.filter((s) => s.kind === 'distillation').length;
   out.push({
-    ...measure('30-step route, 10 components', () => evaluatePrepared(p30, null), {
-      samples: 60,
-      batch: 5,
-      warmup: 30,
-      targetUs: 5000,
-    }),
-    note: `${nDist} distillations, ${d30.steps.length} steps, ${d30.components.length} components`,
+    ...measure(
+      '30-step route, 10 components, every step evaluated',
+      () => evaluatePrepared(p30, null),
+      {
+        samples: 60,
+        batch: 5,
+        warmup: 30,
+        targetUs: 5000,
+      },
+    ),
+    note: `UNCACHED steps (no step memo; document caches kept): ${nDist} distillations, ${d30.steps.length} steps, ${d30.components.length} components`,
   });
+  out.push(...withMemo('30-step route', p30, 5000, { samples: 60, batch: 5, warmup: 30 }));
   // The same route with nothing carried over from an earlier evaluation (as for one API request):
   // fresh document caches (UNIFAC models, solubility curves) each call.
   out.push({
@@ -52,7 +120,7 @@ export async function run(): Promise<BenchResult[]> {
   let peak = before;
   const timer = setInterval(() => (peak = Math.max(peak, process.memoryUsage().heapUsed)), 1);
   const r200 = measure(
-    '200-step route, 10 components',
+    '200-step route, 10 components, every step evaluated',
     () => {
       const r = evaluatePrepared(p200, null);
       peak = Math.max(peak, process.memoryUsage().heapUsed);
@@ -64,8 +132,9 @@ export async function run(): Promise<BenchResult[]> {
   const peakMB = (peak - before) / 2 ** 20;
   out.push({
     ...r200,
-    note: `heap growth during the runs ${peakMB.toFixed(1)} MB (target ≤ 50 MB, met: ${peakMB <= 50 ? 'yes' : 'NO'}); ${d200.steps.filter((s) => s.kind === 'distillation').length} distillations`,
+    note: `UNCACHED steps; heap growth during the runs ${peakMB.toFixed(1)} MB (target ≤ 50 MB, met: ${peakMB <= 50 ? 'yes' : 'NO'}); ${d200.steps.filter((s) => s.kind === 'distillation').length} distillations`,
   });
+  out.push(...withMemo('200-step route', p200, 50000, { samples: 20, batch: 2, warmup: 5 }));
 
   const t0 = performance.now();
   monteCarlo(d30, { draws: 1000, seed: 1 });
@@ -77,7 +146,7 @@ export async function run(): Promise<BenchResult[]> {
     iterations: 1,
     target: '≤ 5000000 µs',
     meetsTarget: mcUs <= 5e6,
-    note: 'one run, single thread',
+    note: 'one run, single thread; every draw changes the first step, so the step memo cannot help',
   });
 
   // Cost against steps and components (washes only, no distillation; and with distillations).

@@ -48,7 +48,11 @@ export interface EvalContext {
   cache: Map<string, unknown>;
   /** UNIFAC models by mixture (same numbers as building each one afresh); shared like `cache`. */
   unifac: UnifacModelCache;
-  /** Memo for this evaluation only (results that depend on drawn parameters, e.g. distribution ratios). */
+  /**
+   * Memo for one step's evaluation only (results that depend on drawn
+   * parameters, e.g. distribution ratios): the evaluator gives each step a
+   * fresh one, so a step's result depends on its own inputs alone.
+   */
   scratch: Map<string, unknown>;
 }
 

@@ -40,6 +40,14 @@ import {
 } from './context';
 import { RouteValidationError, StepError, type RouteIssue } from './errors';
 import { validateRoute, type GraphInfo } from './validate';
+import {
+  contextToken,
+  recallStep,
+  rememberStep,
+  stepIsUncertain,
+  stepKey,
+  type StepMemo,
+} from './step-memo';
 import { analogueCautions, assumedDataNotes, missingPkaWarnings } from './cautions';
 import type { EngineWarning, StepOutput, StepResult, Stream } from './types';
 import { charge } from '../unitops/charge';
@@ -188,14 +196,20 @@ export function parseRoute(doc: unknown): RouteDocument {
  * Validity: any route document the schema accepts; each number within the
  * validity of the step models that produce it (their warnings say where a
  * model is stretched); parallel branches are counted in series in the cycle time.
- * @param doc          the route document (parsed or raw)
- * @param options.rng  seeded random source for one Monte Carlo draw (nominal values without it)
+ * @param doc             the route document (parsed or raw)
+ * @param options.rng     seeded random source for one Monte Carlo draw (nominal values without it)
+ * @param options.memo    step-result memo of the caller (step-memo.ts), or none
+ * @param options.caches  document caches to use (step-memo.ts cachesFor), or fresh ones
  * @returns the route result (per-step results, streams [kg, m³, K], terminals, totals, warnings)
  */
-export function evaluateRoute(doc: unknown, options: { rng?: SeededRandom } = {}): RouteResult {
+export function evaluateRoute(
+  doc: unknown,
+  options: { rng?: SeededRandom; memo?: StepMemo | null; caches?: EvaluationCaches } = {},
+): RouteResult {
   const parsed = parseRoute(doc);
   const prepared = prepareRoute(parsed);
-  return evaluatePrepared(prepared, options.rng ?? null);
+  if (options.caches) prepared.caches = options.caches;
+  return evaluatePrepared(prepared, options.rng ?? null, options.memo ?? null);
 }
 
 export interface PreparedRoute {
@@ -235,13 +249,26 @@ export function prepareRoute(doc: RouteDocument): PreparedRoute {
  * Validity: any route document the schema accepts; each number within the
  * validity of the step models that produce it (their warnings say where a
  * model is stretched); parallel branches are counted in series in the cycle time.
+ *
+ * With a step-result memo (step-memo.ts), a step whose own parameters,
+ * inlet streams and route components were seen before is answered with a copy
+ * of its earlier result instead of running its model (the same numbers to the
+ * last bit); in a Monte Carlo draw only steps without uncertain parameters are
+ * reused. Each step gets a fresh scratch memo, so its result never depends on
+ * what an earlier step left there.
  * @param prepared  the prepared route (prepareRoute)
  * @param rng       seeded random source for one Monte Carlo draw, or null for nominal values
+ * @param memo      step-result memo owned by the caller, or null to evaluate every step
  * @returns the route result (per-step results, streams, terminals, totals, warnings, process-safety note)
  */
-export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | null): RouteResult {
+export function evaluatePrepared(
+  prepared: PreparedRoute,
+  rng: SeededRandom | null,
+  memo: StepMemo | null = null,
+): RouteResult {
   const { doc, graph } = prepared;
   const { ctx } = buildContext(doc, rng, prepared.caches ?? createEvaluationCaches());
+  const token = memo ? contextToken(memo, doc) : '';
   const stepById = new Map(doc.steps.map((s) => [s.id, s]));
   const outputsOf = new Map<string, Record<string, Stream>>();
   // Indexed by step and connection ids: no prototype, so no id can read a built-in.
@@ -253,14 +280,19 @@ export function evaluatePrepared(prepared: PreparedRoute, rng: SeededRandom | nu
     for (const [port, c] of graph.incoming.get(id)!) {
       inputs[port] = outputsOf.get(c.from.stepId)![c.from.port];
     }
-    let out: StepOutput;
-    try {
-      out = MODELS[step.kind](inputs, step.params as never, ctx, step);
-    } catch (e) {
-      throw toRouteError(e, step);
+    const key = memo && !(rng && stepIsUncertain(step)) ? stepKey(token, step, inputs) : null;
+    let out = key !== null ? recallStep(memo!, key) : undefined;
+    if (!out) {
+      ctx.scratch = new Map();
+      try {
+        out = MODELS[step.kind](inputs, step.params as never, ctx, step);
+      } catch (e) {
+        throw toRouteError(e, step);
+      }
+      checkBalance(ctx, inputs, out);
+      out.result.purge = stepPurge(ctx, out);
+      if (key !== null) rememberStep(memo!, key, out);
     }
-    checkBalance(ctx, inputs, out);
-    out.result.purge = stepPurge(ctx, out);
     outputsOf.set(id, out.outputs);
     results[id] = out.result;
     for (const [port, c] of graph.outgoing.get(id)!) streams[c.id] = out.outputs[port];

@@ -16,6 +16,7 @@
 import { createRandom } from '../random';
 import type { RouteDocument } from '../document';
 import { evaluatePrepared, parseRoute, prepareRoute, type PreparedRoute } from './evaluate';
+import type { StepMemo } from './step-memo';
 
 export interface Percentiles {
   p5: number | null;
@@ -82,12 +83,16 @@ export function startMonteCarlo(opts: { draws: number; seed: number }): MonteCar
  * @param route  the prepared route
  * @param state  the run state so far
  * @param chunk  maximum number of draws to run now [–] (at least 1)
+ * @param memo   step-result memo of the caller (steps without uncertain
+ *               parameters whose inlets are unchanged are reused; the same
+ *               numbers), or null
  * @returns the new run state
  */
 export function runMonteCarloChunk(
   route: PreparedRoute,
   state: MonteCarloState,
   chunk: number,
+  memo: StepMemo | null = null,
 ): MonteCarloState {
   const rng = createRandom(state.rngState);
   const s: MonteCarloState = {
@@ -101,7 +106,7 @@ export function runMonteCarloChunk(
   const end = Math.min(s.draws, s.done + Math.max(1, Math.floor(chunk)));
   for (; s.done < end; s.done++) {
     try {
-      const r = evaluatePrepared(route, rng);
+      const r = evaluatePrepared(route, rng, memo);
       s.samples.yieldPct.push(r.totals.yieldPct ?? NaN);
       s.samples.purityWtPct.push(r.totals.purityWtPct ?? NaN);
       for (const [id, p] of Object.entries(r.totals.purge))

@@ -1,0 +1,254 @@
+/**
+ * Reuse of unchanged work between evaluations: a memo of step results, and a
+ * pool of the document caches (solubility curves, UNIFAC models) keyed by the
+ * route's components.
+ *
+ * A step model is a function of its own step (kind, name, parameters), the
+ * streams on its inlets and the route's components (with their compound data)
+ * and reference input; nothing else of the route reaches it (the evaluator
+ * gives each step a fresh scratch memo). So a step whose key — exactly those
+ * things, every number written in full (shortest round-trip form, −0, NaN and
+ * ±∞ kept apart) — was seen before has the same result, and the evaluator can
+ * return a copy of it instead of running the model: an edited step and the
+ * steps downstream of it are evaluated again, the others are not, and a
+ * repeated evaluation of an unchanged route runs no model at all. The answer
+ * is the same to the last bit (tests/unit/route/step-memo.test.ts compares
+ * whole results with and without the memo).
+ *
+ * A Monte Carlo draw reuses a step only when none of the step's own parameters
+ * is uncertain (no random number is drawn for it) and its inlets are unchanged.
+ *
+ * The memo is owned by its caller (one per worker process in the server, one
+ * per browser worker), never module state of the engine, and bounded: least
+ * recently used entries are dropped beyond `maxEntries`.
+ */
+import type { RouteDocument, RouteStep } from '../document';
+import { createEvaluationCaches, type EvaluationCaches } from './context';
+import type { StepOutput, Stream } from './types';
+
+/** A bounded memo of step results; create with createStepMemo. */
+export interface StepMemo {
+  /** Entries kept at most (least recently used dropped first). */
+  readonly maxEntries: number;
+  /** Results by step key (Map order = use order, oldest first). */
+  readonly entries: Map<string, StepOutput>;
+  /** Short tokens standing for whole context keys (components and reference input). */
+  readonly contexts: Map<string, string>;
+  /** Counters since creation: steps answered from the memo and steps evaluated. */
+  hits: number;
+  misses: number;
+  /** Next context token number (never reused, so a dropped context cannot alias a new one). */
+  nextToken: number;
+}
+
+/** Context keys kept (each distinct component set and reference input of recent routes). */
+const MAX_CONTEXTS = 64;
+
+/**
+ * An empty step-result memo.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any route; one memo may serve any number of routes (keys include
+ * everything a step's result depends on).
+ * @param maxEntries  step results kept at most [–] (default 5000)
+ * @returns the memo
+ */
+export function createStepMemo(maxEntries = 5000): StepMemo {
+  return {
+    maxEntries,
+    entries: new Map(),
+    contexts: new Map(),
+    hits: 0,
+    misses: 0,
+    nextToken: 0,
+  };
+}
+
+/** A number written so that two numbers give the same text only when they are the same number. */
+function numberKey(x: number): string {
+  return Object.is(x, -0) ? '-0' : String(x);
+}
+
+/** Any JSON-like value written exactly (numbers as numberKey, keys in their order). */
+function exactKey(value: unknown): string {
+  switch (typeof value) {
+    case 'number':
+      return numberKey(value);
+    case 'string':
+      return JSON.stringify(value);
+    case 'boolean':
+      return value ? 't' : 'f';
+    case 'undefined':
+      return 'u';
+    case 'object': {
+      if (value === null) return 'n';
+      if (Array.isArray(value)) return `[${value.map(exactKey).join(',')}]`;
+      let s = '{';
+      for (const k in value as Record<string, unknown>)
+        s += `${JSON.stringify(k)}:${exactKey((value as Record<string, unknown>)[k])},`;
+      return `${s}}`;
+    }
+    default:
+      // Functions, symbols, bigints do not occur in a parsed document; never equal to anything.
+      return `?${Math.random()}`;
+  }
+}
+
+function recordKey(r: Record<string, number>): string {
+  let s = '';
+  for (const k in r) s += `${k}=${numberKey(r[k])};`;
+  return s;
+}
+
+function streamKey(s: Stream): string {
+  return `${s.phase}|${numberKey(s.temperatureK)}|${numberKey(s.volumeM3)}|${recordKey(s.kg)}|${recordKey(s.solidKg)}`;
+}
+
+/**
+ * Token of a route's evaluation context: the components (with every compound
+ * property) and the reference input, which every step model may read.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any parsed route document.
+ * @param memo  the step memo (its context tokens are updated)
+ * @param doc   the parsed route document
+ * @returns a short token standing for the context
+ */
+export function contextToken(memo: StepMemo, doc: RouteDocument): string {
+  const key = `${exactKey(doc.components)}#${exactKey(doc.referenceInput)}`;
+  let token = memo.contexts.get(key);
+  if (token !== undefined) memo.contexts.delete(key);
+  else token = `c${memo.nextToken++}`;
+  memo.contexts.set(key, token);
+  while (memo.contexts.size > MAX_CONTEXTS)
+    memo.contexts.delete(memo.contexts.keys().next().value!);
+  return token;
+}
+
+/**
+ * Whether evaluating the step draws random numbers in a Monte Carlo draw: any
+ * parameter given as { value, plusMinus } with plusMinus ≠ 0.
+ * Source: this project's own bookkeeping (no external source); the parameter
+ * reader of the evaluation context draws only for such values.
+ * Validity: any parsed route step.
+ * @param step  the route step
+ * @returns true when the step has an uncertain parameter
+ */
+export function stepIsUncertain(step: RouteStep): boolean {
+  const walk = (v: unknown): boolean => {
+    if (v === null || typeof v !== 'object') return false;
+    if (Array.isArray(v)) return v.some(walk);
+    const o = v as Record<string, unknown>;
+    if ('plusMinus' in o && typeof o.plusMinus === 'number' && o.plusMinus !== 0) return true;
+    for (const k in o) if (walk(o[k])) return true;
+    return false;
+  };
+  return walk(step.params);
+}
+
+/**
+ * Key of one step's evaluation: context token, the whole step, and every
+ * connected inlet's stream (port by port, in port-name order).
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any step of a prepared route.
+ * @param token   the context token (contextToken)
+ * @param step    the route step
+ * @param inputs  the streams on its connected inlets, by port
+ * @returns the key
+ */
+export function stepKey(
+  token: string,
+  step: RouteStep,
+  inputs: Record<string, Stream | undefined>,
+): string {
+  let s = `${token}\u0001${exactKey(step)}`;
+  for (const port of Object.keys(inputs).sort()) {
+    const stream = inputs[port];
+    s += `\u0001${port}:${stream ? streamKey(stream) : 'none'}`;
+  }
+  return s;
+}
+
+/** Deep copy keeping each object's prototype (the engine's id records have none). */
+function copy<T>(v: T): T {
+  if (v === null || typeof v !== 'object') return v;
+  if (Array.isArray(v)) return v.map(copy) as T;
+  if (ArrayBuffer.isView(v)) return (v as unknown as Float64Array).slice() as T;
+  const out = Object.create(Object.getPrototypeOf(v)) as Record<string, unknown>;
+  for (const k of Object.keys(v)) out[k] = copy((v as Record<string, unknown>)[k]);
+  return out as T;
+}
+
+/**
+ * A copy of a remembered step result, or undefined; marks it recently used.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any key made by stepKey.
+ * @param memo  the step memo
+ * @param key   the step key
+ * @returns a copy of the outputs and result (shares nothing with the memo), or undefined
+ */
+export function recallStep(memo: StepMemo, key: string): StepOutput | undefined {
+  const hit = memo.entries.get(key);
+  if (!hit) {
+    memo.misses++;
+    return undefined;
+  }
+  memo.hits++;
+  memo.entries.delete(key);
+  memo.entries.set(key, hit);
+  return copy(hit);
+}
+
+/**
+ * Remember a step's outputs and result (a copy, so later changes to them do
+ * not reach the memo); drops the least recently used beyond maxEntries.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: the complete result of the step (balance and purge filled in).
+ * @param memo  the step memo
+ * @param key   the step key
+ * @param out   the step's outputs and result
+ */
+export function rememberStep(memo: StepMemo, key: string, out: StepOutput): void {
+  memo.entries.set(key, copy(out));
+  while (memo.entries.size > memo.maxEntries)
+    memo.entries.delete(memo.entries.keys().next().value!);
+}
+
+/** A bounded set of document caches, keyed by the route's components; create with createCachePool. */
+export interface CachePool {
+  readonly maxSets: number;
+  /** Caches by component key (Map order = use order, oldest first). */
+  readonly sets: Map<string, EvaluationCaches>;
+}
+
+/**
+ * An empty pool of document caches.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any routes.
+ * @param maxSets  component sets kept at most [–] (default 16)
+ * @returns the pool
+ */
+export function createCachePool(maxSets = 16): CachePool {
+  return { maxSets, sets: new Map() };
+}
+
+/**
+ * The document caches for a route's components (solubility curves, UNIFAC
+ * models): the same caches for every route with the same components, so a
+ * second request or an edit of a step's setting rebuilds none of them. They
+ * depend on the components only (their keys name compounds and solvents of
+ * the route, whose data the component key fixes) and make no number differ
+ * from a fresh evaluation.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any parsed route document.
+ * @param pool  the cache pool (updated)
+ * @param doc   the parsed route document
+ * @returns the caches to put on the prepared route
+ */
+export function cachesFor(pool: CachePool, doc: RouteDocument): EvaluationCaches {
+  const key = exactKey(doc.components);
+  let caches = pool.sets.get(key);
+  if (caches) pool.sets.delete(key);
+  else caches = createEvaluationCaches();
+  pool.sets.set(key, caches);
+  while (pool.sets.size > pool.maxSets) pool.sets.delete(pool.sets.keys().next().value!);
+  return caches;
+}

@@ -1,0 +1,189 @@
+/**
+ * The step-result memo (shared/engine/route/step-memo.ts) must be exact: a
+ * route evaluated with it gives the same result, number for number (−0, NaN
+ * and ±∞ told apart), as without it — whether the memo is empty, full of the
+ * same route, or full of other routes — and any change a step can see (its own
+ * parameters, its inlets, a compound's data, the reference input) makes the
+ * step and those downstream of it evaluate again.
+ */
+import { describe, expect, it } from 'vitest';
+import {
+  evaluatePrepared,
+  evaluateRoute,
+  parseRoute,
+  prepareRoute,
+} from '../../../shared/engine/route/evaluate';
+import {
+  runMonteCarloChunk,
+  startMonteCarlo,
+  summariseMonteCarlo,
+} from '../../../shared/engine/route/monte-carlo';
+import {
+  cachesFor,
+  createCachePool,
+  createStepMemo,
+  stepIsUncertain,
+} from '../../../shared/engine/route/step-memo';
+import { routeCorpus } from '../../fixtures/routes/corpus';
+import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
+
+/** JSON in which every number is written exactly (−0, NaN, ±∞ kept apart). */
+function exact(value: unknown): string {
+  return JSON.stringify(value, (_k, v: unknown) =>
+    typeof v === 'number' ? `#${Object.is(v, -0) ? '-0' : String(v)}` : v,
+  );
+}
+
+function clone<T>(v: T): T {
+  return JSON.parse(JSON.stringify(v)) as T;
+}
+
+type Doc = {
+  steps: Array<{ id: string; kind: string; params: Record<string, unknown> }>;
+  components: Array<Record<string, unknown>>;
+  referenceInput: { massKg: number };
+};
+
+const corpus = routeCorpus({ large: true });
+
+describe('step-result memo', () => {
+  it('gives every corpus route the same result as evaluating every step, cold, warm and shared between routes', () => {
+    const memo = createStepMemo();
+    const pool = createCachePool();
+    const plain = corpus.map(([, doc]) => exact(evaluateRoute(doc)));
+    for (let pass = 0; pass < 2; pass++) {
+      corpus.forEach(([name, doc], i) => {
+        const before = memo.hits;
+        const parsed = parseRoute(doc);
+        const result = evaluateRoute(parsed, { memo, caches: cachesFor(pool, parsed) });
+        expect(exact(result), `${name}, pass ${pass + 1}`).toBe(plain[i]);
+        // The second pass runs no step model: every step is answered from the memo.
+        if (pass === 1) expect(memo.hits - before, name).toBe(parsed.steps.length);
+      });
+    }
+    expect(corpus.length).toBeGreaterThan(20);
+  }, 120_000);
+
+  it('returns copies: changing a result does not change the next evaluation', () => {
+    const memo = createStepMemo();
+    const first = evaluateRoute(demoAmideIsolation, { memo });
+    const expected = exact(first);
+    for (const s of Object.values(first.steps)) {
+      s.summary.changed = 1;
+      for (const k in s.addedKg) s.addedKg[k] = -1;
+    }
+    for (const t of first.terminals) for (const k in t.stream.kg) t.stream.kg[k] = 42;
+    expect(exact(evaluateRoute(demoAmideIsolation, { memo }))).toBe(expected);
+  });
+
+  it('evaluates an edited step and what is downstream of it again, and nothing upstream', () => {
+    const base = clone(demoAmideIsolation) as unknown as Doc;
+    const memo = createStepMemo();
+    evaluateRoute(base, { memo });
+    const order = prepareRoute(parseRoute(base)).graph.order;
+    // Edit each step kind that has a numeric setting, one at a time.
+    let edited = 0;
+    for (const [position, id] of order.entries()) {
+      const doc = clone(base);
+      const step = doc.steps.find((s) => s.id === id)!;
+      const changed = bumpFirstNumber(step.params);
+      if (!changed) continue;
+      let plainResult: string;
+      try {
+        plainResult = exact(evaluateRoute(doc));
+      } catch {
+        continue; // a setting the step refuses at the new value
+      }
+      const hits = memo.hits;
+      const misses = memo.misses;
+      const result = exact(evaluateRoute(doc, { memo }));
+      expect(result, `${id} (${changed})`).toBe(plainResult);
+      // Every step before the edited one in the order whose inlets cannot have changed is reused:
+      // at least the first step (a charge) is, and the edited step is evaluated again.
+      expect(memo.misses - misses, id).toBeGreaterThanOrEqual(1);
+      if (position > 0) expect(memo.hits - hits, id).toBeGreaterThanOrEqual(1);
+      edited++;
+    }
+    expect(edited).toBeGreaterThan(3);
+  });
+
+  it('evaluates every step again when a compound property or the reference input changes', () => {
+    const memo = createStepMemo();
+    const pool = createCachePool();
+    evaluateRoute(demoAmideIsolation, { memo });
+    const variants: Array<[string, (d: Doc) => void]> = [
+      [
+        'molar mass of a compound',
+        (d) => (d.components.find((c) => c.kind === 'compound')!.molarMassGmol = 338.85),
+      ],
+      [
+        'a solubility point',
+        (d) => {
+          const c = d.components.find((x) => Array.isArray(x.solubility))!;
+          const p = (c.solubility as Array<Record<string, number>>)[0];
+          for (const k in p)
+            if (typeof p[k] === 'number' && k !== 'temperatureC') {
+              p[k] *= 1.1;
+              break;
+            }
+        },
+      ],
+      [
+        'the specification limit of an impurity',
+        (d) => (d.components.find((c) => typeof c.specLimitPct === 'number')!.specLimitPct = 0.1),
+      ],
+      ['the reference mass', (d) => (d.referenceInput.massKg *= 2)],
+    ];
+    for (const [what, change] of variants) {
+      const doc = clone(demoAmideIsolation) as unknown as Doc;
+      change(doc);
+      expect(exact(doc), what).not.toBe(exact(demoAmideIsolation));
+      const hits = memo.hits;
+      const parsed = parseRoute(doc);
+      const result = exact(evaluateRoute(parsed, { memo, caches: cachesFor(pool, parsed) }));
+      expect(result, what).toBe(exact(evaluateRoute(doc)));
+      expect(memo.hits - hits, what).toBe(0);
+    }
+  });
+
+  it('keeps Monte Carlo draws the same number for number, reusing only steps without uncertain parameters', () => {
+    for (const [name, doc] of corpus.slice(0, 4)) {
+      const prepared = prepareRoute(parseRoute(doc));
+      const plain = summariseMonteCarlo(
+        runMonteCarloChunk(prepared, startMonteCarlo({ draws: 10, seed: 5 }), 10),
+      );
+      const memo = createStepMemo();
+      const withMemo = summariseMonteCarlo(
+        runMonteCarloChunk(prepared, startMonteCarlo({ draws: 10, seed: 5 }), 10, memo),
+      );
+      expect(exact(withMemo), name).toBe(exact(plain));
+      const uncertain = prepared.doc.steps.filter(stepIsUncertain).length;
+      if (uncertain === 0) expect(memo.hits, name).toBe(9 * prepared.doc.steps.length);
+    }
+  }, 60_000);
+
+  it('keeps at most maxEntries results, dropping the least recently used', () => {
+    const memo = createStepMemo(5);
+    const prepared = prepareRoute(parseRoute(demoAmideIsolation));
+    evaluatePrepared(prepared, null, memo);
+    expect(memo.entries.size).toBe(5);
+    const misses = memo.misses;
+    evaluatePrepared(prepared, null, memo);
+    // The first steps were dropped, so the whole route runs again (each evaluated step pushes out an older one).
+    expect(memo.misses - misses).toBe(prepared.doc.steps.length);
+  });
+});
+
+/** Multiplies the first positive number found in a step's parameters by 1.05; returns its path or null. */
+function bumpFirstNumber(o: unknown, path = ''): string | null {
+  if (o === null || typeof o !== 'object') return null;
+  for (const [k, v] of Object.entries(o as Record<string, unknown>)) {
+    if (typeof v === 'number' && v > 0 && k !== 'plusMinus') {
+      (o as Record<string, unknown>)[k] = v * 1.05;
+      return `${path}${k}`;
+    }
+    const inner = bumpFirstNumber(v, `${path}${k}.`);
+    if (inner) return inner;
+  }
+  return null;
+}
