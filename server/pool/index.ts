@@ -39,8 +39,8 @@ export interface EnginePool {
     input: TaskInput<K>,
     options?: RunOptions,
   ): Promise<TaskOutput<K>>;
-  /** Workers, how many are busy, and tasks waiting. */
-  stats(): { size: number; busy: number; queued: number };
+  /** Workers, how many are busy, tasks waiting, and whether the workers have been started (first use). */
+  stats(): { size: number; busy: number; queued: number; started: boolean };
   close(): Promise<void>;
 }
 
@@ -61,36 +61,64 @@ function workerFile(): string {
   return new URL(compiled ? './pool-worker.js' : './worker.mjs', import.meta.url).href;
 }
 
+/**
+ * The pool starts its workers on first use, not at boot: a server that has not yet been asked
+ * for engine work holds no engine in memory (each worker loads the whole engine), and the health
+ * check never waits for one. The first task waits until every worker has loaded, and its time
+ * limit starts only then, so loading is never counted as the task's own time.
+ */
 export function createEnginePool(options: EnginePoolOptions): EnginePool {
-  const piscina = new Piscina({
-    filename: workerFile(),
-    minThreads: options.size,
-    maxThreads: options.size,
-    maxQueue: options.maxQueue,
-    // One task at a time per worker: engine work is synchronous.
-    concurrentTasksPerWorker: 1,
-    idleTimeout: 60_000,
-    // The worker loads its own TypeScript loader; the web thread's flags are not for it.
-    execArgv: [],
-    resourceLimits: { maxOldGenerationSizeMb: options.workerMemoryMb },
-  });
+  let piscina: Piscina | null = null;
+  let started: Promise<Piscina> | null = null;
   let busy = 0;
+
+  function start(): Promise<Piscina> {
+    started ??= (async () => {
+      const pool = new Piscina({
+        filename: workerFile(),
+        minThreads: options.size,
+        maxThreads: options.size,
+        maxQueue: options.maxQueue,
+        // One task at a time per worker: engine work is synchronous.
+        concurrentTasksPerWorker: 1,
+        idleTimeout: 60_000,
+        // The worker loads its own TypeScript loader; the web thread's flags are not for it.
+        execArgv: [],
+        resourceLimits: { maxOldGenerationSizeMb: options.workerMemoryMb },
+      });
+      piscina = pool;
+      try {
+        await Promise.all(
+          Array.from({ length: options.size }, () => pool.run({ name: 'pool.ready', input: null })),
+        );
+      } catch (error) {
+        // A worker that cannot load: the next task tries a fresh start.
+        started = null;
+        piscina = null;
+        await pool.destroy().catch(() => undefined);
+        throw error;
+      }
+      return pool;
+    })();
+    return started;
+  }
 
   async function run<K extends TaskName>(
     name: K,
     input: TaskInput<K>,
     runOptions: RunOptions = {},
   ): Promise<TaskOutput<K>> {
+    const pool = await start();
     const limitMs = runOptions.timeoutMs ?? options.taskTimeoutMs;
     const timer = new AbortController();
     const timeout = setTimeout(() => timer.abort(new TaskTimeout(limitMs)), limitMs);
     const signal = runOptions.signal
       ? AbortSignal.any([runOptions.signal, timer.signal])
       : timer.signal;
-    if (piscina.queueSize >= options.maxQueue && busy >= options.size) throw serverBusy();
+    if (pool.queueSize >= options.maxQueue && busy >= options.size) throw serverBusy();
     busy++;
     try {
-      const reply = (await piscina.run({ name, input }, { signal })) as TaskReply;
+      const reply = (await pool.run({ name, input }, { signal })) as TaskReply;
       if (reply.ok) return reply.value as TaskOutput<K>;
       throw new AppError(reply.error.body, reply.error.headers);
     } catch (error) {
@@ -110,9 +138,15 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
     stats: () => ({
       size: options.size,
       busy: Math.min(busy, options.size),
-      queued: piscina.queueSize,
+      queued: piscina?.queueSize ?? 0,
+      started: piscina !== null,
     }),
-    close: () => piscina.destroy(),
+    close: async () => {
+      if (!started) return;
+      // A close during start-up waits for it, so no worker outlives the pool.
+      await started.catch(() => undefined);
+      await piscina?.destroy();
+    },
   };
 }
 
