@@ -25,11 +25,16 @@ export class RouteValidationError extends EngineError {
   }
 }
 
-/** Thrown by a step model when its parameters cannot be applied to its input (e.g. wt% without a crude mass). */
+/**
+ * Thrown by a step model when its parameters cannot be applied to its input (e.g. wt% without a
+ * crude mass). `inStep`, when given, says the message with the step named ("The distillation
+ * “Strip” cannot …"): the model does not know the step, the evaluation that catches it does.
+ */
 export class StepError extends Error {
   constructor(
     public field: string,
     message: string,
+    public inStep?: (stepWords: string) => string,
   ) {
     super(message);
     this.name = 'StepError';

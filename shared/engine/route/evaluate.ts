@@ -29,6 +29,7 @@
  *    (common-practice durations, parallel branches counted in series).
  */
 import { messageInWords } from './field-words';
+import { capitalise, stepInWords } from './step-words';
 import { routeDocumentSchema, PORTS, type RouteDocument, type RouteStep } from '../document';
 import type { SeededRandom } from '../random';
 import { EngineError } from '../errors';
@@ -345,7 +346,13 @@ export function evaluatePrepared(
 function toRouteError(e: unknown, step: RouteStep): Error {
   if (e instanceof RouteValidationError) return e;
   if (e instanceof StepError)
-    return new RouteValidationError([{ stepId: step.id, field: e.field, message: e.message }]);
+    return new RouteValidationError([
+      {
+        stepId: step.id,
+        field: e.field,
+        message: e.inStep ? e.inStep(capitalise(stepInWords(step))) : e.message,
+      },
+    ]);
   if (e instanceof EngineError)
     return new RouteValidationError([{ stepId: step.id, field: 'params', message: e.message }]);
   return e as Error;

@@ -390,14 +390,10 @@ export function validateRoute(
       .map((id) => steps.get(id)!)
       .map((st) => st.name?.trim() || stepInWords(st));
     const loop = `${said.join(' → ')} → back to ${said[0]}`;
-    for (const id of inCycle)
-      issues.push({
-        stepId: id,
-        field: 'connections',
-        message: onLoop.includes(id)
-          ? `${capitalise(stepInWords(steps.get(id)!))} is on a loop (${loop}): a route runs one way; delete the stream that feeds back.`
-          : `${capitalise(stepInWords(steps.get(id)!))} comes after a loop (${loop}) and cannot be worked out: delete the stream that feeds back.`,
-      });
+    // One message for every step on the loop and after it, so the problem list shows it once
+    // with the steps it stops (each card still carries it).
+    const message = `The streams make a loop (${loop}), so the steps on it and after it cannot be worked out: a route runs one way; delete the stream that feeds back.`;
+    for (const id of inCycle) issues.push({ stepId: id, field: 'connections', message });
   }
   return { issues, graph: { order, incoming, outgoing } };
 }

@@ -45,6 +45,9 @@ import {
   warn,
 } from '../route/context';
 import { StepError } from '../route/errors';
+import { listInWords } from '../route/step-words';
+import { UnifacParameterError } from '../errors';
+import { UNIFAC_SUBGROUPS } from '../data/unifac';
 import type { EngineWarning, MethodUsed, StepOutput, Stream } from '../route/types';
 import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from './common';
 import { solventVle } from './equilibria';
@@ -56,6 +59,57 @@ import {
 } from './rayleigh';
 import { findRoot } from '../numerics';
 import { solubilityIn } from './solubility-model';
+
+/**
+ * Why the pot solvents have no boiling model, in the chemist's words: the solvents by name and,
+ * when UNIFAC lacks an interaction pair, which solvents carry the two groups (never group numbers
+ * or the model's own message).
+ * Source: UNIFAC main groups and parameter table of Hansen et al., Ind. Eng. Chem. Res. 1991, 30,
+ * 2352 (data/unifac.ts); wording this project's own.
+ * Validity: any error thrown while building the pot's VLE system.
+ * @param ctx  evaluation context (component names and solvent records)
+ * @param vol  ids of the volatile solvents in the pot
+ * @param e    the error the VLE system threw
+ * @returns the StepError to throw, naming the step when the evaluation catches it
+ */
+function noBoilingModel(ctx: EvalContext, vol: readonly string[], e: unknown): StepError {
+  const names = vol.map((id) => ctx.comps.get(id)!.name);
+  const solvents = listInWords(names);
+  const groupsOf = (id: string) =>
+    Object.keys(ctx.comps.get(id)!.solvent?.unifac.value ?? {}).map(
+      (g) => UNIFAC_SUBGROUPS.get(Number(g))?.mainGroup,
+    );
+  const carrying = (main: number) =>
+    vol.filter((id) => groupsOf(id).includes(main)).map((id) => ctx.comps.get(id)!.name);
+  let why = 'the group-contribution method (UNIFAC) cannot describe them';
+  if (e instanceof UnifacParameterError && e.gap.missingPairs.length > 0) {
+    const pairs = e.gap.missingPairs.map((p) => {
+      const a = listInWords(carrying(p.mainGroupA));
+      const b = listInWords(carrying(p.mainGroupB));
+      return a && b && a !== b ? `${a} and ${b}` : a || b;
+    });
+    why = `the group-contribution method (UNIFAC) has no published parameters between ${listInWords([...new Set(pairs)])}`;
+  } else if (e instanceof UnifacParameterError && e.gap.unknownSubgroups.length > 0) {
+    const odd = vol
+      .filter((id) =>
+        Object.keys(ctx.comps.get(id)!.solvent?.unifac.value ?? {}).some((g) =>
+          e.gap.unknownSubgroups.includes(Number(g)),
+        ),
+      )
+      .map((id) => ctx.comps.get(id)!.name);
+    why = `the group-contribution method (UNIFAC) does not know a structure group of ${listInWords(odd) || 'one of them'}`;
+  }
+  const advice =
+    vol.length > 1
+      ? 'take one of them out before this step (for example by a wash) or choose another solvent'
+      : 'choose another solvent';
+  return new StepError(
+    'params',
+    `No boiling model for ${solvents} in the pot: ${why}; ${advice}.`,
+    (step) =>
+      `${step} cannot work out how ${solvents} boil${vol.length > 1 ? ' together' : ''}: ${why}. To distil, ${advice}.`,
+  );
+}
 
 /** Reference temperature of reported and target volumes [K]. */
 export const VOLUME_REFERENCE_K = 293.15;
@@ -177,7 +231,7 @@ export function distilLeg(
   try {
     sys = solventVle(ctx, vol).sys;
   } catch (e) {
-    throw new StepError('params', `No VLE model for the pot solvents: ${(e as Error).message}`);
+    throw noBoilingModel(ctx, vol, e);
   }
   const x = new Array<number>(vol.length);
   const norm = (m: Float64Array) => {

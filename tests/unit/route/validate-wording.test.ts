@@ -7,10 +7,10 @@
  * chemist's words); no external source.
  */
 import { describe, expect, it } from 'vitest';
-import { parseRoute } from '../../../shared/engine/route/evaluate';
+import { evaluateRoute, parseRoute } from '../../../shared/engine/route/evaluate';
 import { buildContext } from '../../../shared/engine/route/context';
 import { validateRoute } from '../../../shared/engine/route/validate';
-import type { RouteIssue } from '../../../shared/engine/route/errors';
+import type { RouteIssue, RouteValidationError } from '../../../shared/engine/route/errors';
 import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
 import type { RouteDocumentInput } from '../../../shared/schemas/route';
 
@@ -354,5 +354,31 @@ describe('route validation messages are in the chemist’s words', () => {
     expect(issuesOf(twice).map((i) => i.message)).toContain(
       'The organic layer of the wash “1 M HCl wash (removes the amine)” goes to two steps: a stream goes to one step; add a split to divide it.',
     );
+  });
+});
+
+describe('a step the engine cannot work out says why in the chemist’s words', () => {
+  it('a distillation whose solvents have no boiling model names the step and the solvents, not the model’s groups', () => {
+    // 2-MeTHF (an ether) and NMP: the UNIFAC table of Hansen et al. (Ind. Eng. Chem. Res. 1991,
+    // 30, 2352) has no parameters for the ether–NMP main-group pair.
+    const d = demo();
+    d.components.push({ kind: 'solvent', id: 'nmp', solventId: 'nmp' });
+    const p = params(d, 'swap', 'distillation');
+    if (p.mode.kind !== 'put-and-take') throw new Error('the demo swap is put-and-take');
+    p.mode.addSolventId = 'nmp';
+    let issues: RouteIssue[] = [];
+    try {
+      evaluateRoute(d);
+    } catch (e) {
+      issues = (e as RouteValidationError).issues;
+    }
+    expect(issues).toHaveLength(1);
+    expect(issues[0]).toMatchObject({ stepId: 'stp-swap-q9', field: 'params' });
+    const message = issues[0].message;
+    expect(message).toMatch(/^The distillation “Solvent swap to 2-propanol” cannot work out how /);
+    expect(message).toMatch(/2-Methyltetrahydrofuran and N-Methyl-2-pyrrolidone/);
+    expect(message).toMatch(/: \S/);
+    for (const raw of [/VLE/, /UNIFAC cannot/, /main-group/, /\(\d+\)/, /stp-/, /pot solvents/])
+      expect(message).not.toMatch(raw);
   });
 });

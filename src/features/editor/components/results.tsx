@@ -9,6 +9,8 @@ import { componentLabel } from './fields';
 import { SEVERITY_ORDER, SeverityChip, PHASES } from './phase';
 import { Button } from '@/components/button';
 import { fieldInWords } from '@shared/engine/route/field-words';
+import { listInWords } from '@shared/engine/route/step-words';
+import { groupProblems } from '../problems';
 import { formatLevel, formatPurity, LimitMark } from './purge-view';
 import { formatSignificant } from '@/lib/format';
 
@@ -246,17 +248,18 @@ export function CautionList() {
   const jump = useJumpToStep();
   const nameOf = useMemo(() => new Map(steps.map((s) => [s.id, s.name])), [steps]);
   const groups = useMemo(() => groupCautions(result?.warnings ?? []), [result]);
+  const problems = useMemo(() => groupProblems(issues), [issues]);
   const [open, setOpen] = useState<Record<string, boolean>>({});
   const total = result?.warnings.length ?? 0;
   return (
     <div className="space-y-2">
       {issues.length ? (
         <ul aria-label="Problems to fix" className="space-y-1">
-          {issues.map((i, k) => (
-            <li key={k}>
+          {problems.map((i, k) => (
+            <li key={k} data-problem-steps={i.stepIds.length}>
               <button
                 type="button"
-                onClick={() => jump(i.stepId)}
+                onClick={() => jump(i.stepIds[0] ?? null)}
                 className="flex w-full items-start gap-2 rounded-control px-1 py-0.5 text-left text-small hover:bg-accent-soft"
               >
                 <span className="inline-flex shrink-0 items-center gap-1 rounded-control bg-caution-hazard-soft px-1.5 py-0.5 text-caption font-medium text-caution-hazard-deep">
@@ -268,7 +271,7 @@ export function CautionList() {
                 </span>
                 <span>
                   <span className="font-medium">
-                    {i.stepId ? (nameOf.get(i.stepId) ?? i.stepId) : 'Route'}
+                    {listInWords(i.stepIds.map((id) => (id ? (nameOf.get(id) ?? id) : 'Route')))}
                   </span>
                   {fieldInWords(i.field) ? ` · ${fieldInWords(i.field)}` : ''}: {i.message}
                 </span>
