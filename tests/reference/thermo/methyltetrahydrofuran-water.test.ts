@@ -73,6 +73,28 @@ describe('2-MeTHF–water liquid–liquid equilibrium [ENC-2MeTHF]', () => {
     expect(sys.warnings).toEqual([]);
   });
 
+  it('with the 20 °C point alone: NRTL in the place of UNIFAC with constant energies (no added term is stable)', () => {
+    // The fallback for a pair tabulated at one temperature whose added term has no stable root.
+    const component = {
+      ...vleComponentOf(meTHF, water),
+      mutualSolubilityCurveWithWater: undefined,
+    };
+    const sys = createVleSystem([vleComponentOf(water, water), component]);
+    expect(sys.warnings).toEqual([]);
+    const pair = sys.regressedPairs[0];
+    expect(pair.form).toBe('replacing');
+    expect(pair.fittedRangeK).toBeUndefined();
+    // α = 0.3, τ = 853/T and 335/T: the same root the previous search found outside the engine.
+    expect(pair.alpha).toBe(0.3);
+    expect(pair.p1).toBeCloseTo(853.4, 0);
+    expect(pair.p2).toBeCloseTo(335.5, 0);
+    const p = mutualSolubilityPoint(meTHF, water)!;
+    const r = liquidLiquidSplit(sys, [0.6, 0.4], p.T_K);
+    if (!r.split) throw new Error('no split');
+    expect(r.phases[0][1]).toBeCloseTo(p.xSolventInWater, 6);
+    expect(r.phases[1][0]).toBeCloseTo(p.xWaterInSolvent, 6);
+  });
+
   it('reproduces the reference point at 20 °C exactly', () => {
     const r = mutuallySaturatedPhases(meTHF, water, 293.15);
     if (!r.split) throw new Error('no split');
