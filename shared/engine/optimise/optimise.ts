@@ -21,6 +21,7 @@
  * Results are model results: confirm them at the bench and through the
  * site's process-safety review before use.
  */
+import { createStepMemo, type StepMemo } from '../route/step-memo';
 import type { RouteDocument } from '../document';
 import { createRandom } from '../random';
 import { buildContext, createEvaluationCaches, type EvaluationCaches } from '../route/context';
@@ -214,6 +215,8 @@ interface Setup {
   request: OptimiseRequest;
   bounds: Array<{ min: number; max: number; integer: boolean }>;
   caches: EvaluationCaches;
+  /** Step results of earlier candidates: steps before the first free parameter are evaluated once (same numbers). */
+  memo: StepMemo;
   ichLimitPpm: Map<string, { name: string; limitPpm: number }>;
   names: Map<string, string>;
 }
@@ -247,6 +250,7 @@ export function setUpOptimise(input: OptimiseRequest): Setup {
       integer: Boolean(f.integer) || isIntegerParam(f.param),
     })),
     caches: createEvaluationCaches(),
+    memo: createStepMemo(Math.max(64, 8 * request.document.steps.length)),
     ichLimitPpm,
     names,
   };
@@ -369,7 +373,7 @@ export function scoreTotals(
 
 function evaluateAt(setup: Setup, x: number[], doc = documentAt(setup, x)): Evaluated {
   try {
-    const totals = totalsOf(setup, evaluatePrepared(prepared(setup, doc), null));
+    const totals = totalsOf(setup, evaluatePrepared(prepared(setup, doc), null, setup.memo));
     return { x, totals, ...scoreTotals(setup, totals) };
   } catch (error) {
     const reason = error instanceof Error ? error.message : 'the engine could not evaluate it';
@@ -512,7 +516,7 @@ export function runOptimiseChunk(setup: Setup, input: OptimiseState, chunk: numb
     const limited = Object.keys(setup.request.constraints.maxImpurityPct ?? {});
     for (; u.done < u.draws && left > 0; u.done++, left--) {
       try {
-        const totals = totalsOf(setup, evaluatePrepared(route, rng));
+        const totals = totalsOf(setup, evaluatePrepared(route, rng, setup.memo));
         u.objective.push(totals[setup.request.objective] ?? NaN);
         u.yieldPct.push(totals.yieldPct ?? NaN);
         u.solventFreePurityPct.push(totals.solventFreePurityPct ?? NaN);

@@ -24,6 +24,14 @@ import {
   createStepMemo,
   stepIsUncertain,
 } from '../../../shared/engine/route/step-memo';
+import {
+  runOptimiseChunk,
+  setUpOptimise,
+  startOptimise,
+  summariseOptimise,
+  type OptimiseRequest,
+} from '../../../shared/engine/optimise';
+import type { RouteDocument } from '../../../shared/engine/document';
 import { routeCorpus } from '../../fixtures/routes/corpus';
 import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
 
@@ -160,6 +168,33 @@ describe('step-result memo', () => {
       const uncertain = prepared.doc.steps.filter(stepIsUncertain).length;
       if (uncertain === 0) expect(memo.hits, name).toBe(9 * prepared.doc.steps.length);
     }
+  }, 60_000);
+
+  it('gives the optimiser the same candidates and result as evaluating every step', () => {
+    const request: OptimiseRequest = {
+      document: demoAmideIsolation as unknown as RouteDocument,
+      free: [
+        { stepId: 'antisolvent', param: 'mode.volume', min: 3, max: 9 },
+        { stepId: 'swap', param: 'mode.cycles', min: 2, max: 6, integer: true },
+      ],
+      objective: 'pmi',
+      constraints: { minSolventFreePurityPct: 99.5, ichResidualSolvents: true },
+      seed: 1,
+      budget: { evaluations: 24 },
+    };
+    const run = (memoEntries: number | null) => {
+      const setup = setUpOptimise(request);
+      if (memoEntries !== null) setup.memo = createStepMemo(memoEntries);
+      let state = startOptimise(request);
+      while (state.phase !== 'done') state = runOptimiseChunk(setup, state, 10);
+      return { result: exact(summariseOptimise(setup, state)), hits: setup.memo.hits };
+    };
+    const withMemo = run(null);
+    // A memo that keeps nothing: every step of every candidate evaluated.
+    const without = run(0);
+    expect(without.hits).toBe(0);
+    expect(withMemo.hits).toBeGreaterThan(0);
+    expect(withMemo.result).toBe(without.result);
   }, 60_000);
 
   it('keeps at most maxEntries results, dropping the least recently used', () => {
