@@ -114,7 +114,9 @@ function regressPairs(components: readonly VleComponent[]): {
 /**
  * Builds the activity model for a list of components once, for repeated VLE
  * calls: UNIFAC, plus a pair term (NRTL, else Margules) regressed to the tabulated mutual
- * solubility of every water–solvent pair that has one (thermo/nrtl.ts).
+ * solubility of every water–solvent pair that has one; for a pair tabulated at several
+ * temperatures, or whose added term is never stable, NRTL in the place of UNIFAC for that
+ * binary (thermo/nrtl.ts, regressReplacingWaterPair).
  *
  * Source: UNIFAC (Hansen et al. 1991); NRTL (Renon & Prausnitz 1968); Margules (1895).
  *
@@ -122,7 +124,8 @@ function regressPairs(components: readonly VleComponent[]): {
  * @returns the system; throws UnifacParameterError when a group pair has no parameters
  *
  * Validity: as UNIFAC; the regressed pairs reproduce their tabulated
- * phases exactly at the tabulated temperature.
+ * phases exactly at the tabulated (reference) temperature; a pair fitted over
+ * a range of temperatures warns outside it (pairRangeWarnings).
  */
 export function createVleSystem(components: readonly VleComponent[]): VleSystem {
   if (components.length === 0)
