@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import {
+  attentionListQuerySchema,
   attentionListSchema,
   commentListQuerySchema,
   commentListSchema,
@@ -31,6 +32,7 @@ import { compareRevisions } from '../services/revision-compare';
 import {
   addComment,
   attentionFor,
+  pickAttention,
   listComments,
   openReviewOf,
   presentComment,
@@ -430,7 +432,7 @@ export function revisionsRouter(config: AppConfig, security: Security): Router {
     tags: ['reviews'],
     auth: true,
     params: z.object({ workspaceId: z.uuid() }),
-    query: revisionListQuerySchema,
+    query: attentionListQuerySchema,
     responses: {
       200: { description: 'One page of items.', schema: attentionListSchema },
       404: { description: 'No such workspace, or not one of yours.', schema: apiErrorSchema },
@@ -438,7 +440,7 @@ export function revisionsRouter(config: AppConfig, security: Security): Router {
     handle: async ({ actor, params, query, transaction }) => {
       const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'attention.list', { workspaceId: workspace.id });
-      const all = await attentionFor(workspace.id, actor.userId, transaction);
+      const all = pickAttention(await attentionFor(workspace.id, actor.userId, transaction), query);
       const offset = query.cursor && /^\d{1,6}$/.test(query.cursor) ? Number(query.cursor) : 0;
       const items = all.slice(offset, offset + query.limit);
       return {

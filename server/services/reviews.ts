@@ -478,6 +478,27 @@ export async function setCommentResolved(
 // ---------------------------------------------------------------- attention
 
 /**
+ * The items matching `q` (part of the route's name, the text or the name of the person it
+ * comes from, case-insensitive), in the asked order. The list is one person's (a few
+ * hundred items at most), built in full by attentionFor(), so it is filtered here.
+ */
+export function pickAttention(
+  items: AttentionItem[],
+  query: { q?: string; sort: 'newest' | 'oldest' },
+): AttentionItem[] {
+  const needle = query.q?.toLocaleLowerCase();
+  const kept = needle
+    ? items.filter((item) =>
+        [item.routeName, item.text, item.from.name].some((field) =>
+          field.toLocaleLowerCase().includes(needle),
+        ),
+      )
+    : items;
+  const sign = query.sort === 'oldest' ? 1 : -1;
+  return [...kept].sort((a, b) => sign * (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
+}
+
+/**
  * What needs the person in this workspace, newest first: reviews waiting for
  * their decision, their revisions returned or approved in the last 30 days,
  * and open comment threads by others on their revisions in review.

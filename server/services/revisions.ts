@@ -13,7 +13,7 @@ import type {
   Signature,
 } from '@shared/schemas/revisions';
 import { evaluateRoute } from '@shared/engine/route/evaluate';
-import { apiError, badRequest, conflict, notFound, type AppError } from '../errors';
+import { apiError, conflict, notFound, type AppError } from '../errors';
 import {
   ReviewDecision,
   ReviewRequest,
@@ -22,7 +22,16 @@ import {
   User,
   type RouteDraft,
 } from '../models';
+import { database } from '../db/sequelize';
 import { recordAudit } from './audit';
+import {
+  afterCursor,
+  containsPattern,
+  keyAttributes,
+  keyOrder,
+  pageOf,
+  type KeysetOrder,
+} from './keyset';
 import { revisionContentHash } from './content-hash';
 import { lockDraft } from './drafts';
 import { describeFailure, ENGINE_VERSION } from './evaluation';
@@ -240,27 +249,49 @@ export async function loadRevision(
   return revision;
 }
 
-const LIST_CURSOR = /^\d{1,9}$/;
+/** A route's revisions by number; the number is unique within the route. */
+const REVISION_ORDERS: Record<'newest' | 'oldest', KeysetOrder> = {
+  newest: {
+    name: 'newest',
+    columns: [{ sql: '"RouteRevision"."number"', type: 'int' }],
+    direction: 'DESC',
+  },
+  oldest: {
+    name: 'oldest',
+    columns: [{ sql: '"RouteRevision"."number"', type: 'int' }],
+    direction: 'ASC',
+  },
+};
 
-/** Newest first; only approved ones when `approvedOnly` (scale-up engineers). */
+/**
+ * One page of the route's revisions, newest first by default; only approved ones when
+ * `approvedOnly` (scale-up engineers). `q` matches part of the message or the author's name.
+ */
 export async function listRevisions(
   route: Route,
-  page: { limit: number; cursor?: string },
+  page: { limit: number; cursor?: string; q?: string; sort?: 'newest' | 'oldest' },
   approvedOnly: boolean,
   transaction: Transaction | null,
 ): Promise<{ items: RevisionWithReviews[]; nextCursor: string | null }> {
-  if (page.cursor !== undefined && !LIST_CURSOR.test(page.cursor))
-    throw badRequest('The page link is not valid; start from the first page.', [
-      { path: 'query.cursor', message: 'Not a cursor from a previous page.' },
-    ]);
-  // Keyset on the route's revision number (route_revisions_route_number_key serves it); one
-  // row beyond the page says whether there is a next one. An engineer sees approved revisions
-  // only: those whose latest review request is approved, decided in SQL so pages stay full.
+  const order = REVISION_ORDERS[page.sort ?? 'newest'];
+  // Keyset on the route's revision number (route_revisions_route_number_key serves both
+  // directions); one row beyond the page says whether there is a next one. A search filters
+  // the route's own revisions on that walk: a route has hundreds of revisions, not millions.
+  // An engineer sees approved revisions only: those whose latest review request is approved,
+  // decided in SQL so pages stay full.
+  const pattern = page.q ? database().escape(containsPattern(page.q)) : null;
   const revisions = await RouteRevision.findAll({
     where: {
       [Op.and]: [
         { routeId: route.id },
-        ...(page.cursor ? [{ number: { [Op.lt]: Number(page.cursor) } }] : []),
+        ...(page.cursor ? [afterCursor(order, page.cursor)] : []),
+        ...(pattern
+          ? [
+              literal(
+                `("RouteRevision"."message" ILIKE ${pattern} OR "RouteRevision"."author_id" IN (SELECT u.id FROM users u WHERE u.name ILIKE ${pattern}))`,
+              ),
+            ]
+          : []),
         ...(approvedOnly
           ? [
               literal(
@@ -270,9 +301,9 @@ export async function listRevisions(
           : []),
       ],
     },
-    attributes: { exclude: ['document', 'result'] },
+    attributes: { exclude: ['document', 'result'], include: keyAttributes(order) },
     include: [{ model: User, as: 'author', attributes: ['id', 'name', 'email'] }],
-    order: [['number', 'DESC']],
+    order: keyOrder(order),
     limit: page.limit + 1,
     transaction,
   });
@@ -286,11 +317,7 @@ export async function listRevisions(
   const visible = approvedOnly
     ? revisions.filter((r) => revisionStatus(r as RevisionWithReviews) === 'approved')
     : revisions;
-  const items = visible.slice(0, page.limit) as RevisionWithReviews[];
-  return {
-    items,
-    nextCursor: visible.length > page.limit ? String(items.at(-1)!.number) : null,
-  };
+  return pageOf(visible as RevisionWithReviews[], page.limit, order);
 }
 
 // ---------------------------------------------------------------- presenting

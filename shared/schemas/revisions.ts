@@ -5,7 +5,7 @@
 import { z } from 'zod';
 import { text } from './text';
 import { routeTotalsSchema } from './evaluate';
-import { listPagingSchema, listQuerySchema, listReplySchema } from './lists';
+import { listQuerySchema, listReplySchema } from './lists';
 import { draftDocumentSchema, personRefSchema } from './routes';
 
 export const REVISION_MESSAGE_MAX_LENGTH = 2000;
@@ -119,7 +119,19 @@ export const revisionSummarySchema = z.object({
   totals: revisionTotalsSchema.nullable(),
 });
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
-export const revisionListQuerySchema = listPagingSchema;
+/** Newest first (default) or oldest first; q matches part of the message or the author's name. */
+export const revisionListQuerySchema = listQuerySchema(
+  ['newest', 'oldest'],
+  'Sort newest first (newest) or oldest first (oldest).',
+);
+/**
+ * What needs the person: newest first (default) or oldest first; q matches part of the
+ * route's name, the text or the name of the person it comes from.
+ */
+export const attentionListQuerySchema = listQuerySchema(
+  ['newest', 'oldest'],
+  'Sort newest first (newest) or oldest first (oldest).',
+);
 export const revisionListSchema = listReplySchema(revisionSummarySchema);
 
 export const revisionDetailSchema = revisionSummarySchema.extend({

@@ -641,3 +641,113 @@ describe('every revision endpoint against every role and another workspace', () 
     );
   });
 });
+
+describe('the revisions and attention lists search and sort on the server', () => {
+  let s: Scene;
+  beforeAll(async () => {
+    s = await scene();
+  });
+
+  it('revisions: newest or oldest first, keyset paged, searched by message or author', async () => {
+    const route = await newRoute(s, 'Ester wash (invented)');
+    let version = route.version;
+    const messages = ['Cool to 5 °C', 'Wash with 50% less_water', 'Cool to 20 °C only'];
+    for (const [i, message] of messages.entries()) {
+      if (i > 0) version = await coolTo(s, route, version, 5 + 5 * i);
+      const saved = await post(s.as.chemist, `${route.base}/revisions`, {
+        message,
+        baseDraftVersion: version,
+      });
+      expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    }
+    const list = async (query: Record<string, string | number>) => {
+      const reply = await s.as.chemist.agent.get(`${route.base}/revisions`).query(query);
+      expect(reply.status, JSON.stringify(reply.body)).toBe(200);
+      return revisionListSchema.parse(reply.body);
+    };
+    const numbers = async (query: Record<string, string | number>) =>
+      (await list(query)).items.map((r) => r.number);
+
+    expect(await numbers({})).toEqual([3, 2, 1]);
+    expect(await numbers({ sort: 'oldest' })).toEqual([1, 2, 3]);
+    // Paged one at a time, oldest first: every revision once, in order.
+    const walked: number[] = [];
+    let cursor: string | null = null;
+    do {
+      const page = await list({ sort: 'oldest', limit: 1, ...(cursor ? { cursor } : {}) });
+      walked.push(...page.items.map((r) => r.number));
+      cursor = page.nextCursor;
+    } while (cursor && walked.length < 10);
+    expect(walked).toEqual([1, 2, 3]);
+    // A cursor of one order is refused in the other.
+    const first = await list({ sort: 'oldest', limit: 1 });
+    const crossed = await s.as.chemist.agent
+      .get(`${route.base}/revisions`)
+      .query({ sort: 'newest', cursor: first.nextCursor! });
+    expect(crossed.status).toBe(400);
+    expect(crossed.body.error.details[0].path).toBe('query.cursor');
+
+    expect(await numbers({ q: 'COOL' })).toEqual([3, 1]);
+    expect(await numbers({ q: 'cool', sort: 'oldest', limit: 1 })).toEqual([1]);
+    expect(await numbers({ q: 'ada chem' })).toEqual([3, 2, 1]);
+    // Wildcards of the search text are taken literally.
+    expect(await numbers({ q: '50%' })).toEqual([2]);
+    expect(await numbers({ q: 'h_w' })).toEqual([]); // would match "Wash with" as a wildcard
+    expect(await numbers({ q: 'less_water' })).toEqual([2]);
+    expect(await list({ q: 'nothing like it' })).toEqual({ items: [], nextCursor: null });
+
+    const badSort = await s.as.chemist.agent.get(`${route.base}/revisions`).query({ sort: 'name' });
+    expect(badSort.status).toBe(400);
+    expect(badSort.body.error.details[0].path).toBe('query.sort');
+  });
+
+  it('attention: newest or oldest first, searched by route, text or person', async () => {
+    const routes = [
+      await newRoute(s, 'Amide isolation (invented)'),
+      await newRoute(s, 'Salt break (invented)'),
+    ];
+    for (const route of routes) {
+      const saved = await post(s.as.chemist, `${route.base}/revisions`, {
+        message: 'Ready for review',
+        baseDraftVersion: route.version,
+      });
+      expect(saved.status).toBe(201);
+      const asked = await post(s.as.chemist, `${route.base}/revisions/1/review-requests`, {
+        reviewerIds: [s.reviewer2.id],
+        note: route === routes[0] ? 'Check the end point.' : 'Check the filter cake wash.',
+      });
+      expect(asked.status).toBe(201);
+    }
+    const attention = `/api/v1/workspaces/${s.workspace.id}/attention`;
+    const names = async (query: Record<string, string | number>) => {
+      const reply = await s.as.reviewer2.agent.get(attention).query(query);
+      expect(reply.status, JSON.stringify(reply.body)).toBe(200);
+      expect(Object.keys(reply.body).sort()).toEqual(['items', 'nextCursor']);
+      return (reply.body.items as Array<{ routeName: string }>).map((i) => i.routeName);
+    };
+
+    expect(await names({})).toEqual(['Salt break (invented)', 'Amide isolation (invented)']);
+    expect(await names({ sort: 'oldest' })).toEqual([
+      'Amide isolation (invented)',
+      'Salt break (invented)',
+    ]);
+    expect(await names({ q: 'salt' })).toEqual(['Salt break (invented)']);
+    expect(await names({ q: 'CAKE WASH' })).toEqual(['Salt break (invented)']);
+    expect(await names({ q: 'ada chemist' })).toHaveLength(2);
+    expect(await names({ q: 'nothing like it' })).toEqual([]);
+    // One at a time, oldest first.
+    const first = await s.as.reviewer2.agent.get(attention).query({ sort: 'oldest', limit: 1 });
+    expect(first.body.items.map((i: { routeName: string }) => i.routeName)).toEqual([
+      'Amide isolation (invented)',
+    ]);
+    const second = await s.as.reviewer2.agent
+      .get(attention)
+      .query({ sort: 'oldest', limit: 1, cursor: first.body.nextCursor });
+    expect(second.body).toMatchObject({
+      items: [{ routeName: 'Salt break (invented)' }],
+      nextCursor: null,
+    });
+    const badSort = await s.as.reviewer2.agent.get(attention).query({ sort: 'name' });
+    expect(badSort.status).toBe(400);
+  });
+});
