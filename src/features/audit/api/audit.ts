@@ -1,4 +1,4 @@
-import { useInfiniteQuery, useMutation } from '@tanstack/react-query';
+import { keepPreviousData, useInfiniteQuery, useMutation } from '@tanstack/react-query';
 import { auditListSchema, auditVerifySchema, type AuditFilter } from '@shared/schemas/audit';
 import { apiRequest } from '@/api/client';
 import { api } from '@/paths';
@@ -11,7 +11,10 @@ const query = (filter: AuditFilter, extra: Record<string, string> = {}) => {
   return text ? `?${text}` : '';
 };
 
-/** The filtered trail, newest first, a page at a time ("Show more"). */
+/**
+ * The filtered trail, newest first, a page at a time ("Show more"). While a new search or
+ * filter loads, the rows of the last one stay on screen (isPlaceholderData).
+ */
 export const useAuditTrail = (workspaceId: string, filter: AuditFilter) =>
   useInfiniteQuery({
     queryKey: queryKeys.audit.list(workspaceId, filter),
@@ -22,6 +25,7 @@ export const useAuditTrail = (workspaceId: string, filter: AuditFilter) =>
       ),
     initialPageParam: '',
     getNextPageParam: (last) => last.nextCursor ?? undefined,
+    placeholderData: keepPreviousData,
   });
 
 export const useVerifyAudit = (workspaceId: string) =>

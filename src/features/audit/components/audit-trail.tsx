@@ -1,7 +1,8 @@
-import { useState, type FormEvent } from 'react';
+import { useCallback, useState, type FormEvent } from 'react';
 import type { AuditFilter } from '@shared/schemas/audit';
 import { Button, buttonClass } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
+import { ListSearch } from '@/components/list-controls';
 import { ErrorState } from '@/components/error-state';
 import { Loading } from '@/components/spinner';
 import { Table, Td, Th } from '@/components/table';
@@ -27,7 +28,12 @@ const value = (v: unknown) => (v === null || v === undefined ? '' : JSON.stringi
 export function AuditTrail({ workspaceId }: { workspaceId: string }) {
   const [draft, setDraft] = useState<Record<string, string>>({});
   const [filter, setFilter] = useState<AuditFilter>({});
-  const trail = useAuditTrail(workspaceId, filter);
+  // The search goes to the server as `q` (part of the action or the kind of record).
+  const [q, setQ] = useState('');
+  const onSearch = useCallback((text: string) => setQ(text), []);
+  const shown: AuditFilter = q ? { ...filter, q } : filter;
+  const trail = useAuditTrail(workspaceId, shown);
+  const searching = trail.isPlaceholderData && trail.isFetching;
   const verify = useVerifyAudit(workspaceId);
   const apply = (e: FormEvent) => {
     e.preventDefault();
@@ -112,12 +118,22 @@ export function AuditTrail({ workspaceId }: { workspaceId: string }) {
         </Button>
         <a
           className={buttonClass('secondary', 'sm')}
-          href={auditCsvUrl(workspaceId, filter)}
+          href={auditCsvUrl(workspaceId, shown)}
           download
         >
           Export CSV
         </a>
       </form>
+      <div className="flex items-end gap-3">
+        <ListSearch
+          label="Search the trail"
+          placeholder="Action or kind of record, e.g. rename"
+          onSearch={onSearch}
+        />
+        <span role="status" aria-live="polite" className="pb-2 text-small text-ink-muted">
+          {searching ? 'Searching…' : ''}
+        </span>
+      </div>
       {trail.isPending ? (
         <Loading label="Loading the audit trail…" />
       ) : trail.isError ? (
@@ -127,42 +143,51 @@ export function AuditTrail({ workspaceId }: { workspaceId: string }) {
           onRetry={() => trail.refetch()}
         />
       ) : rows.length === 0 ? (
-        <EmptyState title="No entries match">Clear a filter to see more of the trail.</EmptyState>
+        <EmptyState title={q ? `No entries match “${q}”` : 'No entries match'}>
+          {q
+            ? 'Clear the search or a filter to see more of the trail.'
+            : 'Clear a filter to see more of the trail.'}
+        </EmptyState>
       ) : (
         <>
-          <Table caption="Audit trail">
-            <thead>
-              <tr>
-                <Th>Time (UTC)</Th>
-                <Th>Who</Th>
-                <Th>Action</Th>
-                <Th>Record</Th>
-                <Th>Old value</Th>
-                <Th>New value</Th>
-              </tr>
-            </thead>
-            <tbody>
-              {rows.map((e) => (
-                <tr key={e.id} data-action={e.action}>
-                  <Td className="whitespace-nowrap tabular-nums">
-                    {e.at.replace('T', ' ').slice(0, 19)}
-                  </Td>
-                  <Td>{e.actor?.name ?? '—'}</Td>
-                  <Td className="font-mono text-caption">{e.action}</Td>
-                  <Td className="text-caption">
-                    {e.entityType}
-                    {e.entityId ? ` ${e.entityId.slice(0, 8)}` : ''}
-                  </Td>
-                  <Td className="max-w-64 truncate font-mono text-caption" title={value(e.before)}>
-                    {value(e.before)}
-                  </Td>
-                  <Td className="max-w-72 truncate font-mono text-caption" title={value(e.after)}>
-                    {value(e.after)}
-                  </Td>
+          <div aria-busy={searching} className={searching ? 'opacity-60' : undefined}>
+            <Table caption="Audit trail">
+              <thead>
+                <tr>
+                  <Th>Time (UTC)</Th>
+                  <Th>Who</Th>
+                  <Th>Action</Th>
+                  <Th>Record</Th>
+                  <Th>Old value</Th>
+                  <Th>New value</Th>
                 </tr>
-              ))}
-            </tbody>
-          </Table>
+              </thead>
+              <tbody>
+                {rows.map((e) => (
+                  <tr key={e.id} data-action={e.action}>
+                    <Td className="whitespace-nowrap tabular-nums">
+                      {e.at.replace('T', ' ').slice(0, 19)}
+                    </Td>
+                    <Td>{e.actor?.name ?? '—'}</Td>
+                    <Td className="font-mono text-caption">{e.action}</Td>
+                    <Td className="text-caption">
+                      {e.entityType}
+                      {e.entityId ? ` ${e.entityId.slice(0, 8)}` : ''}
+                    </Td>
+                    <Td
+                      className="max-w-64 truncate font-mono text-caption"
+                      title={value(e.before)}
+                    >
+                      {value(e.before)}
+                    </Td>
+                    <Td className="max-w-72 truncate font-mono text-caption" title={value(e.after)}>
+                      {value(e.after)}
+                    </Td>
+                  </tr>
+                ))}
+              </tbody>
+            </Table>
+          </div>
           {trail.hasNextPage ? (
             <Button
               size="sm"
