@@ -62,14 +62,19 @@ function Shell({ session }: { session: Session }) {
     (session.workspaces.some((w) => w.id === remembered) ? remembered! : session.workspaces[0]?.id);
 
   // The route editor needs the width for its canvas: there the rail keeps only its marks (names as tooltips and accessible names).
-  const compact = useMatch(paths.workspace.route.pattern) !== null;
+  // The pages that open the editor (a route and one of its revisions) take the page from the
+  // compact rail's edge on: a full rail there would sit under the canvas.
+  const onRoute = useMatch(paths.workspace.route.pattern) !== null;
+  const onRevision = useMatch(paths.workspace.revision.pattern) !== null;
+  const compact = onRoute || onRevision;
 
   return (
     <CompactRail.Provider value={compact}>
       <div className="flex min-h-screen">
         <aside
           className={cn(
-            'sticky top-0 flex h-screen shrink-0 flex-col border-r border-rule bg-paper-sunken print:hidden',
+            // Above the pages that fill the window beside it (the editor): nothing draws over the rail.
+            'sticky top-0 z-20 flex h-screen shrink-0 flex-col border-r border-rule bg-paper-sunken print:hidden',
             compact ? 'w-14' : 'w-rail',
           )}
           data-rail={compact ? 'compact' : 'full'}

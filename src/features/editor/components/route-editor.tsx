@@ -380,7 +380,8 @@ function EditorFrame({
       ) : null}
       <div className="flex min-h-0 flex-1">
         {canEdit ? <Palette /> : null}
-        <div className="relative min-w-0 flex-1" ref={canvasBox}>
+        {/* The canvas draws only in its own area: a card panned or fitted past its edge is cut there. */}
+        <div className="relative min-w-0 flex-1 overflow-hidden" ref={canvasBox}>
           <Canvas />
           {stepCount === 0 ? (
             <div className="pointer-events-none absolute inset-0 flex items-center justify-center">

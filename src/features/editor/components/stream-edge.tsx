@@ -1,4 +1,5 @@
-import { memo, useState } from 'react';
+import { memo, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { useShallow } from 'zustand/react/shallow';
 import {
   BaseEdge,
   EdgeLabelRenderer,
@@ -10,6 +11,7 @@ import {
 import type { PortPhase } from '@shared/schemas/route';
 import { useEvaluation } from '../evaluation';
 import { PHASES } from './phase';
+import { labelSpot, type Box } from '../label-spot';
 import { formatSignificant } from '@/lib/format';
 
 export type StreamEdgeData = {
@@ -21,6 +23,9 @@ export type StreamEdgeType = Edge<StreamEdgeData, 'stream'>;
 
 /** Below this zoom the labels would cover the cards: they show only for a hovered or selected connection. */
 export const LABEL_ZOOM = 0.85;
+/** Clearance between a label and the cards either side of it, and its narrowest width [px]. */
+const LABEL_MARGIN = 6;
+const LABEL_MIN_WIDTH = 56;
 const zoomedIn = (s: { transform: [number, number, number] }) => s.transform[2] >= LABEL_ZOOM;
 
 /**
@@ -53,9 +58,31 @@ function StreamEdgeImpl({
     ? text.split('\u0000').map((x) => x || null)
     : [];
   const phase = PHASES[data?.phase ?? 'liquid'];
+  // Room between the source's right edge and the target's left edge, less a margin each side.
+  const gap =
+    targetX > sourceX && Math.abs(targetY - sourceY) < 60
+      ? Math.max(LABEL_MIN_WIDTH, targetX - sourceX - 2 * LABEL_MARGIN)
+      : undefined;
   const readable = useStore(zoomedIn);
   const [hover, setHover] = useState(false);
   const full = hover || !!selected;
+  // The label kept clear of the cards: measured once drawn, then slid along the curve if the
+  // middle would put it over a card.
+  const labelRef = useRef<HTMLDivElement>(null);
+  const [size, setSize] = useState<{ width: number; height: number } | null>(null);
+  const cards = useStore(useShallow(cardBoxes));
+  useLayoutEffect(() => {
+    const el = labelRef.current;
+    if (!el) return;
+    const next = { width: el.offsetWidth, height: el.offsetHeight };
+    setSize((old) => (old && old.width === next.width && old.height === next.height ? old : next));
+  }, [text, readable, full]);
+  const spot = useMemo(
+    () => (size ? labelSpot(path, size, boxesOf(cards)) : null),
+    [path, size, cards],
+  );
+  const labelAtX = spot?.x ?? labelX;
+  const labelAtY = spot?.y ?? labelY;
   return (
     <g onMouseEnter={() => setHover(true)} onMouseLeave={() => setHover(false)}>
       <BaseEdge
@@ -67,7 +94,13 @@ function StreamEdgeImpl({
         <EdgeLabelRenderer>
           <div
             className={`nodrag nopan pointer-events-auto absolute rounded-control text-center border px-1.5 py-0.5 text-caption leading-4 tabular-nums ${full ? 'z-10 border-accent/50 bg-paper-raised text-ink shadow-card' : 'border-rule bg-paper-raised/95 text-ink-muted'}`}
-            style={{ transform: `translate(-50%, -50%) translate(${labelX}px, ${labelY}px)` }}
+            style={{
+              transform: `translate(-50%, -50%) translate(${labelAtX}px, ${labelAtY}px)`,
+              // Between two cards side by side the label fits the gap (its lines wrap) rather
+              // than run under a card.
+              maxWidth: gap,
+            }}
+            ref={labelRef}
             data-stream-label={id}
             onMouseEnter={() => setHover(true)}
             onMouseLeave={() => setHover(false)}
@@ -75,13 +108,38 @@ function StreamEdgeImpl({
           >
             <span className={`mr-1 font-medium ${phase.text}`}>{phase.label}</span>
             {label}
-            {product ? <span className="block whitespace-nowrap">{product}</span> : null}
+            {product ? <span className="block">{product}</span> : null}
             {full && detail ? <span className="block max-w-40 truncate">{detail}</span> : null}
           </div>
         </EdgeLabelRenderer>
       ) : null}
     </g>
   );
+}
+
+/** Every card's box as numbers joined in one string, so a connection re-renders only when a card moves or resizes. */
+function cardBoxes(s: {
+  nodeLookup: Map<
+    string,
+    {
+      internals: { positionAbsolute: { x: number; y: number } };
+      measured: { width?: number; height?: number };
+    }
+  >;
+}): string[] {
+  const out: string[] = [];
+  for (const n of s.nodeLookup.values())
+    out.push(
+      `${n.internals.positionAbsolute.x},${n.internals.positionAbsolute.y},${n.measured.width ?? 0},${n.measured.height ?? 0}`,
+    );
+  return out;
+}
+
+function boxesOf(keys: readonly string[]): Box[] {
+  return keys.map((k) => {
+    const [x, y, width, height] = k.split(',').map(Number);
+    return { x, y, width, height };
+  });
 }
 
 type StreamOf = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['streams'][string];

@@ -75,8 +75,17 @@ export function RoutesTable({
           </Link>
         ),
       }),
-      col.accessor((r) => r.project?.name ?? '—', { id: 'project', header: 'Project' }),
-      col.accessor((r) => r.owner.name, { id: 'owner', header: 'Owner' }),
+      // On one line at 1280 × 800: a long project or owner name ends in an ellipsis, in full as the tooltip.
+      col.accessor((r) => r.project?.name ?? '—', {
+        id: 'project',
+        header: 'Project',
+        cell: (c) => <OneLine text={c.getValue()} />,
+      }),
+      col.accessor((r) => r.owner.name, {
+        id: 'owner',
+        header: 'Owner',
+        cell: (c) => <OneLine text={c.getValue()} />,
+      }),
       col.accessor('status', {
         header: 'Status',
         cell: (c) => (c.getValue() === 'archived' ? 'Archived' : 'Draft'),
@@ -226,7 +235,10 @@ export function RoutesTable({
             {rows.map((row) => (
               <tr key={row.id} className="hover:bg-accent-soft/40">
                 {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="border-b border-rule px-3 py-2 align-middle">
+                  <td
+                    key={cell.id}
+                    className={`border-b border-rule px-3 py-2 align-middle ${cell.column.id === 'name' ? '' : 'whitespace-nowrap'}`}
+                  >
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}
@@ -236,5 +248,14 @@ export function RoutesTable({
         </table>
       </div>
     </div>
+  );
+}
+
+/** A cell's text on one line, cut with an ellipsis past 11 rem, the full text as its tooltip. */
+function OneLine({ text }: { text: string }) {
+  return (
+    <span className="block max-w-[11rem] truncate" title={text}>
+      {text}
+    </span>
   );
 }
