@@ -9,7 +9,7 @@ import type { AuditEventPayload, AuditFilter, AuditVerify } from '@shared/schema
 import { database } from '../db/sequelize';
 import { badRequest } from '../errors';
 import { AuditEvent, User } from '../models';
-import { containsAny } from './keyset';
+import { matchingRows } from './keyset';
 
 export interface AuditEntry {
   workspaceId: string | null;
@@ -71,7 +71,7 @@ function decodeCursor(text: string): Cursor {
  * audit_events_account_at_idx) and merged, so a page never sorts the whole
  * trail. Members are named by a subquery, not a list, however many there are.
  */
-function workspaceScopes(workspaceId: string, filter: AuditFilter): WhereOptions[] {
+async function workspaceScopes(workspaceId: string, filter: AuditFilter): Promise<WhereOptions[]> {
   const conditions: WhereOptions[] = [];
   if (filter.entityType) conditions.push({ entityType: filter.entityType });
   if (filter.entityId) conditions.push({ entityId: filter.entityId });
@@ -79,19 +79,43 @@ function workspaceScopes(workspaceId: string, filter: AuditFilter): WhereOptions
   if (filter.action) conditions.push({ action: { [Op.startsWith]: filter.action } });
   if (filter.from) conditions.push({ at: { [Op.gte]: startOf(filter.from) } });
   if (filter.to) conditions.push({ at: { [Op.lte]: endOf(filter.to) } });
-  // Served by audit_events_action_trgm_idx (the same expression).
-  if (filter.q)
-    conditions.push(
-      containsAny([`("AuditEvent"."action" || ' ' || "AuditEvent"."entity_type")`], filter.q),
-    );
   const ws = database().escape(workspaceId);
+  // Each scope starts from the trigram match of its own events (audit_events_action_trgm_idx,
+  // the same expression); see matchingRows() in keyset.ts for why.
+  const search = async (scope: (alias: string) => string): Promise<WhereOptions[]> =>
+    filter.q
+      ? [
+          await matchingRows(
+            {
+              model: 'AuditEvent',
+              table: 'audit_events',
+              expressions: [(t) => `(${t}.action || ' ' || ${t}.entity_type)`],
+              scope,
+            },
+            filter.q,
+          ),
+        ]
+      : [];
   const accountOfMember = database().literal(
     `("AuditEvent"."actor_id" IN (SELECT m.user_id FROM memberships m WHERE m.workspace_id = ${ws})` +
       ` OR ("AuditEvent"."entity_type" = 'user' AND "AuditEvent"."entity_id" IN (SELECT m.user_id::text FROM memberships m WHERE m.workspace_id = ${ws})))`,
   ) as unknown as WhereOptions;
   return [
-    { [Op.and]: [{ workspaceId }, ...conditions] },
-    { [Op.and]: [{ workspaceId: null }, accountOfMember, ...conditions] },
+    {
+      [Op.and]: [
+        { workspaceId },
+        ...conditions,
+        ...(await search((t) => `${t}.workspace_id = ${ws}`)),
+      ],
+    },
+    {
+      [Op.and]: [
+        { workspaceId: null },
+        accountOfMember,
+        ...conditions,
+        ...(await search((t) => `${t}.workspace_id IS NULL`)),
+      ],
+    },
   ];
 }
 
@@ -163,7 +187,11 @@ export async function listAudit(
   filter: AuditFilter & { limit: number; cursor?: string },
 ): Promise<{ items: AuditEventPayload[]; nextCursor: string | null }> {
   const after = filter.cursor ? decodeCursor(filter.cursor) : null;
-  const rows = await findEvents(workspaceScopes(workspaceId, filter), filter.limit + 1, after);
+  const rows = await findEvents(
+    await workspaceScopes(workspaceId, filter),
+    filter.limit + 1,
+    after,
+  );
   const page = rows.slice(0, filter.limit);
   const last = page.at(-1);
   return {
@@ -180,7 +208,7 @@ export async function* allAuditEvents(
   workspaceId: string,
   filter: AuditFilter,
 ): AsyncGenerator<AuditEventPayload> {
-  const where = workspaceScopes(workspaceId, filter);
+  const where = await workspaceScopes(workspaceId, filter);
   let after: Cursor | null = null;
   for (;;) {
     const rows = await findEvents(where, 1000, after);

@@ -29,7 +29,7 @@ import { apiError, conflict, notFound, validationFailed } from '../errors';
 import { Chromatogram, RouteDraft, RouteRevision, User, type Route } from '../models';
 import type { FileStorage } from '../storage';
 import { recordAudit } from './audit';
-import { afterCursor, containsAny, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
+import { afterCursor, matchingRows, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
 import { readUpload } from './chromatogram-files';
 
 interface DocumentLike {
@@ -352,7 +352,17 @@ export async function listChromatograms(
   const order = CHROMATOGRAM_ORDERS[query.sort ?? 'oldest'];
   const conditions: WhereOptions[] = [{ routeId: route.id, workspaceId: route.workspaceId }];
   if (query.stepId) conditions.push({ stepId: query.stepId });
-  if (query.q) conditions.push(containsAny(['"Chromatogram"."sample_name"'], query.q));
+  if (query.q)
+    conditions.push(
+      await matchingRows(
+        {
+          model: 'Chromatogram',
+          table: 'chromatograms',
+          expressions: [(t) => `${t}.sample_name`],
+        },
+        query.q,
+      ),
+    );
   if (query.cursor) conditions.push(afterCursor(order, query.cursor));
   const rows = await Chromatogram.findAll({
     where: { [Op.and]: conditions },

@@ -35,7 +35,7 @@ import { Compound, User } from '../models';
 import { recordAudit } from './audit';
 import {
   afterCursor,
-  containsAny,
+  matchingRows,
   keyAttributes,
   keyOrder,
   pageOf,
@@ -485,7 +485,17 @@ export async function listCompounds(
 ): Promise<{ items: Compound[]; nextCursor: string | null }> {
   const order = COMPOUND_ORDERS[query.sort];
   const conditions: WhereOptions[] = [{ workspaceId }];
-  if (query.q) conditions.push(containsAny(['"Compound"."name"', '"Compound"."formula"'], query.q));
+  if (query.q)
+    conditions.push(
+      await matchingRows(
+        {
+          model: 'Compound',
+          table: 'compounds',
+          expressions: [(t) => `${t}.name`, (t) => `${t}.formula`],
+        },
+        query.q,
+      ),
+    );
   if (query.cursor) conditions.push(afterCursor(order, query.cursor));
   const rows = await Compound.findAll({
     where: { [Op.and]: conditions },

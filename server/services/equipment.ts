@@ -16,7 +16,7 @@ import { Equipment } from '../models';
 import { recordAudit } from './audit';
 import {
   afterCursor,
-  containsAny,
+  matchingRows,
   keyAttributes,
   keyOrder,
   pageOf,
@@ -148,7 +148,13 @@ export async function listEquipment(
   const order = EQUIPMENT_ORDERS[query.sort ?? 'name'];
   const where: WhereOptions[] = [{ workspaceId }];
   if (query.kind) where.push({ kind: query.kind });
-  if (query.q) where.push(containsAny(['"Equipment"."name"'], query.q));
+  if (query.q)
+    where.push(
+      await matchingRows(
+        { model: 'Equipment', table: 'equipment', expressions: [(t) => `${t}.name`] },
+        query.q,
+      ),
+    );
   if (query.cursor) where.push(afterCursor(order, query.cursor));
   const rows = await Equipment.findAll({
     where: { [Op.and]: where },

@@ -6,7 +6,7 @@ import { Membership, User, Workspace } from '../models';
 import { recordAudit } from './audit';
 import {
   afterCursor,
-  containsAny,
+  matchingRows,
   keyAttributes,
   keyOrder,
   pageOf,
@@ -58,7 +58,13 @@ export async function listMembers(
 ): Promise<{ items: Membership[]; nextCursor: string | null }> {
   const conditions: WhereOptions[] = [{ workspaceId }];
   if (query.role) conditions.push({ roles: { [Op.contains]: [query.role] } });
-  if (query.q) conditions.push(containsAny(['"user"."name"', '"user"."email"'], query.q));
+  if (query.q)
+    conditions.push(
+      await matchingRows(
+        { model: 'user', table: 'users', expressions: [(t) => `${t}.name`, (t) => `${t}.email`] },
+        query.q,
+      ),
+    );
   if (query.cursor) conditions.push(afterCursor(MEMBER_ORDER, query.cursor));
   const rows = await Membership.findAll({
     where: { [Op.and]: conditions },

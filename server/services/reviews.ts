@@ -15,7 +15,7 @@ import {
   type RevisionStatus,
 } from '@shared/schemas/revisions';
 import { apiError, conflict, forbidden, notFound, validationFailed } from '../errors';
-import { afterCursor, containsAny, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
+import { afterCursor, matchingRows, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
 import {
   Membership,
   ReviewComment,
@@ -328,7 +328,14 @@ export async function listComments(
 ): Promise<{ items: ReviewComment[]; nextCursor: string | null }> {
   const order = COMMENT_ORDERS[query.sort];
   const conditions: WhereOptions[] = [{ revisionId: revision.id }];
-  if (query.q) conditions.push(containsAny(['"ReviewComment"."body"'], query.q));
+  if (query.q)
+    conditions.push(
+      await matchingRows(
+        { model: 'ReviewComment', table: 'review_comments', expressions: [(t) => `${t}.body`] },
+        query.q,
+        transaction,
+      ),
+    );
   if (query.cursor) conditions.push(afterCursor(order, query.cursor));
   const rows = await ReviewComment.findAll({
     where: { [Op.and]: conditions },

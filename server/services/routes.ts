@@ -18,7 +18,10 @@ import { Project, Route, RouteDraft, User } from '../models';
 import { recordAudit } from './audit';
 import {
   afterCursor,
-  containsAny,
+  matchingRows,
+  trigramSearchable,
+  probeMatches,
+  withIds,
   keyAttributes,
   keyOrder,
   pageOf,
@@ -100,12 +103,21 @@ export async function listRoutes(
   ];
   if (query.q) {
     const pattern = escape(likePattern(query.q));
-    conditions.push(
-      literal(
-        `("Route"."name" ILIKE ${pattern} OR "Route"."project_id" IN (SELECT p.id FROM projects p WHERE p.workspace_id = ${escape(workspaceId)} AND p.name ILIKE ${pattern}))`,
-      ),
-    );
+    const projects = `SELECT p.id FROM projects p WHERE p.workspace_id = ${escape(workspaceId)} AND p.name ILIKE ${pattern}`;
+    const filter = literal(
+      `("Route"."name" ILIKE ${pattern} OR "Route"."project_id" IN (${projects}))`,
+    ) as unknown as WhereOptions;
+    // A selective term starts from its trigram matches (routes_name_trgm_idx,
+    // projects_name_trgm_idx); see matchingRows() in keyset.ts for why and when.
+    const ids = trigramSearchable(query.q)
+      ? await probeMatches(
+          `SELECT s.id FROM routes s WHERE s.name ILIKE ${pattern} UNION SELECT s.id FROM routes s WHERE s.project_id IN (${projects})`,
+          transaction,
+        )
+      : null;
+    conditions.push(ids === null ? filter : withIds('"Route"."id"', ids));
   }
+
   if (query.cursor) {
     const after = decodeRouteCursor(query.cursor, query.sort);
     conditions.push(
@@ -326,7 +338,13 @@ export async function listProjects(
   nextCursor: string | null;
 }> {
   const conditions: WhereOptions[] = [{ workspaceId }];
-  if (query.q) conditions.push(containsAny(['"Project"."name"'], query.q));
+  if (query.q)
+    conditions.push(
+      await matchingRows(
+        { model: 'Project', table: 'projects', expressions: [(t) => `${t}.name`] },
+        query.q,
+      ),
+    );
   if (query.cursor) conditions.push(afterCursor(PROJECT_ORDER, query.cursor));
   // The count of current routes in the same statement (routes_project_idx per project).
   const rows = await Project.findAll({

@@ -2,6 +2,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { LIST_LIMIT_MAX } from '@shared/schemas/lists';
+import { MATCH_FIRST_MAX } from '../../server/services/keyset';
 import { EvaluationJob, Project, type Workspace } from '../../server/models';
 import { useTestServer } from '../support/app';
 import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
@@ -107,6 +108,26 @@ describe('every list pages, sorts and searches on the server', () => {
     // The wildcard of LIKE is taken literally.
     expect((await walk(asAdmin, ws('/projects'), 50, '&q=_')).map((r) => r.name)).toEqual(['mu_x']);
     await expectCursorChecks(ws('/projects'));
+  });
+
+  it('a search finds the same rows whether its matches are few (looked up on the trigram index) or many (filtered on the order)', async () => {
+    // Its own workspace: more matches than MATCH_FIRST_MAX, so "Batch" takes the other path.
+    const big = await buildWorkspace();
+    const admin = await buildMember(big, ['admin', 'chemist']);
+    const asBig = await signIn(server.app, admin.email);
+    const names = Array.from(
+      { length: MATCH_FIRST_MAX + 20 },
+      (_, i) => `Batch ${String(i).padStart(4, '0')} (invented)`,
+    );
+    await Project.bulkCreate(names.map((name) => ({ workspaceId: big.id, name })));
+    await Project.create({ workspaceId: big.id, name: 'Other (invented)' });
+    const path = `/api/v1/workspaces/${big.id}/projects`;
+    const many = await walk(asBig, path, LIST_LIMIT_MAX, '&q=batch');
+    expect(many.map((r) => r.name)).toEqual(names);
+    const few = await walk(asBig, path, 7, '&q=batch%2000');
+    expect(few.map((r) => r.name)).toEqual(names.filter((name) => name.includes('Batch 00')));
+    expect(few).toHaveLength(100);
+    expect(await walk(asBig, path, 50, '&q=no%20such%20batch')).toEqual([]);
   });
 
   it('members: by name, searched by name or e-mail, filtered by role', async () => {

@@ -78,7 +78,6 @@ describe('the cost of a signed-in read', () => {
     const ws = `/api/v1/workspaces/${workspace.id}`;
     for (const path of [
       `${ws}/routes`,
-      `${ws}/routes?sort=name&q=invented`,
       `${ws}/projects`,
       `${ws}/compounds`,
       `${ws}/members?q=a`,
@@ -93,6 +92,23 @@ describe('the cost of a signed-in read', () => {
       expect(status, path).toBe(200);
       expect(statements, `${path}\n${statements.join('\n')}`).toHaveLength(2);
       expect(statements[0]).toMatch(/FROM session/);
+      expect(statements.join('\n')).not.toMatch(/\b(BEGIN|START TRANSACTION|COMMIT|UPDATE)\b/);
+    }
+  });
+
+  it('a search of three letters or more costs one statement more: the look-up of its trigram matches', async () => {
+    const ws = `/api/v1/workspaces/${workspace.id}`;
+    for (const path of [`${ws}/routes?sort=name&q=invented`, `${ws}/members?q=chem`]) {
+      expect((await asChemist.agent.get(path)).status).toBe(200);
+      let status = 0;
+      const statements = await statementsDuring(async () => {
+        status = (await asChemist.agent.get(path)).status;
+      });
+      expect(status, path).toBe(200);
+      expect(statements, `${path}\n${statements.join('\n')}`).toHaveLength(3);
+      expect(statements[0]).toMatch(/FROM session/);
+      expect(statements[1]).toMatch(/ILIKE/);
+      expect(statements[1]).toMatch(/LIMIT 501/);
       expect(statements.join('\n')).not.toMatch(/\b(BEGIN|START TRANSACTION|COMMIT|UPDATE)\b/);
     }
   });
