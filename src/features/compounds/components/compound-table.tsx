@@ -8,7 +8,6 @@ import {
 import { Button } from '@/components/button';
 import { Select } from '@/components/select';
 import { Table, Td } from '@/components/table';
-import { TextField } from '@/components/text-field';
 import {
   missing,
   SortHeader,
@@ -37,16 +36,12 @@ export function CompoundTable({
   canWrite: boolean;
   selectedId?: string | null;
 }) {
-  const [query, setQuery] = useState('');
+  // Search by name or formula is the page's server search; the role only narrows the rows shown.
   const [role, setRole] = useState<CompoundRole | 'all'>('all');
-  const filtered = useMemo(() => {
-    const q = query.trim().toLowerCase();
-    return compounds.filter(
-      (c) =>
-        (role === 'all' || c.role === role) &&
-        (!q || c.name.toLowerCase().includes(q) || c.formula.toLowerCase().includes(q)),
-    );
-  }, [compounds, query, role]);
+  const filtered = useMemo(
+    () => compounds.filter((c) => role === 'all' || c.role === role),
+    [compounds, role],
+  );
   const { table, rows } = useSortableTable({
     data: filtered,
     columns: compoundColumns,
@@ -57,13 +52,6 @@ export function CompoundTable({
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
-        <TextField
-          label="Filter by name or formula"
-          value={query}
-          onValueChange={setQuery}
-          className="w-64"
-          type="search"
-        />
         <Select
           label="Role"
           value={role}
@@ -75,7 +63,7 @@ export function CompoundTable({
           className="w-44"
         />
         <p className="pb-2 text-small text-ink-muted" aria-live="polite">
-          {rows.length} of {compounds.length} compound{compounds.length === 1 ? '' : 's'}
+          {rows.length} of {compounds.length} compound{compounds.length === 1 ? '' : 's'} shown
         </p>
       </div>
       <Table caption="Compounds of this workspace">
@@ -106,7 +94,7 @@ export function CompoundTable({
           {rows.length === 0 ? (
             <tr>
               <Td colSpan={7} className="py-6 text-center text-ink-muted">
-                No compound matches the filter.
+                No compound shown has this role.
               </Td>
             </tr>
           ) : (
