@@ -146,5 +146,17 @@ describe('nothing clipped at 1280 × 800', () => {
       () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
     );
     expect(overflow).toBeLessThanOrEqual(0);
+    // Nor inside the table's frame: every action of every row is in view without scrolling it.
+    const frame = page.locator('table').first().locator('xpath=..');
+    const hidden = await frame.evaluate((el) => {
+      const box = el.getBoundingClientRect();
+      return {
+        scroll: el.scrollWidth - el.clientWidth,
+        outside: [...el.querySelectorAll('button')]
+          .filter((b) => b.getBoundingClientRect().right > box.right + 1)
+          .map((b) => b.getAttribute('aria-label') ?? b.textContent),
+      };
+    });
+    expect(hidden).toEqual({ scroll: 0, outside: [] });
   }, 120_000);
 });

@@ -123,7 +123,7 @@ export function RoutesTable({
               cell: (c) => {
                 const r = c.row.original;
                 return (
-                  <div className="flex justify-end gap-1">
+                  <div className="flex flex-wrap justify-end gap-1">
                     <Button
                       size="sm"
                       variant="quiet"
@@ -237,7 +237,7 @@ export function RoutesTable({
                 {row.getVisibleCells().map((cell) => (
                   <td
                     key={cell.id}
-                    className={`border-b border-rule px-3 py-2 align-middle ${cell.column.id === 'name' ? '' : 'whitespace-nowrap'}`}
+                    className={`border-b border-rule px-3 py-2 align-middle ${cellLayout(cell.column.id)}`}
                   >
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
@@ -251,10 +251,21 @@ export function RoutesTable({
   );
 }
 
-/** A cell's text on one line, cut with an ellipsis past 11 rem, the full text as its tooltip. */
+/**
+ * How a cell lays out at 1280 × 800: the route's name wraps within a readable width, the row's
+ * actions wrap under each other rather than pushing the table past its frame, the rest stays on
+ * one line.
+ */
+function cellLayout(columnId: string): string {
+  if (columnId === 'name') return 'min-w-[11rem]';
+  if (columnId === 'actions') return '';
+  return 'whitespace-nowrap';
+}
+
+/** A cell's text on one line, cut with an ellipsis past 8 rem, the full text as its tooltip. */
 function OneLine({ text }: { text: string }) {
   return (
-    <span className="block max-w-[11rem] truncate" title={text}>
+    <span className="block max-w-[8rem] truncate" title={text}>
       {text}
     </span>
   );
