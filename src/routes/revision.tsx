@@ -81,7 +81,7 @@ export function Component() {
               document: revision.data.document,
               marks,
               heading: (
-                <span className="flex items-center gap-2 text-small">
+                <span className="flex items-center gap-2 whitespace-nowrap text-small">
                   <span className="font-medium">Revision {revision.data.number}</span>
                   <StatusBadge status={revision.data.status} />
                   <span className="text-ink-muted">read only</span>

@@ -94,6 +94,11 @@ describe('nothing clipped at 1280 × 800', () => {
     await page.getByRole('button', { name: 'Fit view', exact: true }).click();
     await page.waitForTimeout(400);
     await shot('clip-02-revision-fit');
+    // The header's revision words each stay on one line.
+    for (const words of ['Revision 1', 'read only']) {
+      const box = await page.getByText(words, { exact: true }).first().boundingBox();
+      expect(box!.height, words).toBeLessThan(28);
+    }
     m = await railCovered();
     expect(m.covered).toEqual([]);
     expect(m.paneLeft).toBeGreaterThanOrEqual(m.railRight - 1);
