@@ -62,7 +62,9 @@ export function describeFailure(
           .filter(Boolean)
           .join(', ')
       : '';
-    const more = details.length > 1 ? ` (and ${details.length - 1} more)` : '';
+    // A problem that stops several steps (a recycle loop) is one problem: count messages, not steps.
+    const others = new Set(details.map((d) => d.message)).size - 1;
+    const more = others > 0 ? ` (and ${others} more)` : '';
     return {
       code: 'route_invalid',
       message: first

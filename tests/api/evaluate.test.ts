@@ -109,6 +109,9 @@ describe('POST /api/v1/evaluate', () => {
       expect.arrayContaining(['acid-wash', 'base-wash', 'brine-wash', 'swap']),
     );
     expect(cycleSteps).not.toContain('crude');
+    // The loop is one problem, however many steps it stops.
+    expect(new Set(error.details.map((d) => d.message)).size).toBe(1);
+    expect(error.message).not.toMatch(/more\)/);
   });
 
   it('answers 422 naming the step and port of a required input left unconnected', async () => {
