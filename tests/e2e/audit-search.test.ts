@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
-import { useBrowserFlows } from './browser';
+import { signInAs, useBrowserFlows } from './browser';
 
 const flows = await useBrowserFlows({ profile: 'per-file' });
 const { base } = flows;
@@ -8,10 +7,7 @@ const { base } = flows;
 describe('audit trail search', () => {
   it('the admin searches the trail through the server: the last rows stay while it searches, then the matches, or a message when nothing matches', async () => {
     const { page, shot, problems } = flows.browser;
-    await page.goto(base + '/');
-    await page.getByLabel('E-mail').fill('admin@example.com');
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await signInAs(page, base, 'admin@example.com');
     await page.getByRole('link', { name: 'Audit trail' }).click();
     await page.getByRole('heading', { level: 1, name: 'Audit trail' }).waitFor();
     const rows = page.locator('tbody tr[data-action]');

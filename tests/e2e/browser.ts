@@ -5,6 +5,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, beforeEach } from 'vitest';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
 import { useTestServer, type TestServer } from '../support/app';
 
 export const SCREENSHOT_DIR = path.resolve('test-output/screenshots');
@@ -149,4 +150,21 @@ export async function useBrowserFlows(options: {
       return browser;
     },
   };
+}
+
+/**
+ * Signs a demo account in through the sign-in page, as its user would, and waits for the first
+ * page after it. Older browser tests still spell this out themselves; new ones call this.
+ */
+export async function signInAs(
+  page: Page,
+  base: string,
+  email: string,
+  landing: { level: 1; name: string } = { level: 1, name: 'Routes' },
+): Promise<void> {
+  await page.goto(base + '/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', landing).waitFor();
 }

@@ -1,22 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { DEMO_PLANT_ROUTE_NAME } from '../../seeders/20261203130200-demo-plant-route';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-accounts';
-import { useBrowserFlows } from './browser';
+import { signInAs, useBrowserFlows } from './browser';
 
 // Nothing is clipped or covered at 1280 × 800, measured by bounding boxes: the canvas stays in
 // its own area (the navigation rail above it, whatever Fit view does), the routes table keeps
 // each owner and date on one line, and no connection label sits under a card.
 const flows = await useBrowserFlows({ profile: 'per-flow', lastShot: 'nothing-clipped-last' });
 
-async function signIn() {
-  const { page } = flows.browser;
-  await page.goto(flows.base + '/sign-in');
-  await page.getByLabel('E-mail').fill('chemist@example.com');
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { level: 1, name: 'Routes' }).waitFor();
-}
+const signIn = () => signInAs(flows.browser.page, flows.base, 'chemist@example.com');
 
 /**
  * Points of the navigation rail that a card or the canvas covers: for every card that reaches
