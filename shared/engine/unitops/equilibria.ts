@@ -164,7 +164,7 @@ export function splitLiquid(
   const fitted = new Set(vle ? vle.sys.regressedPairs.map((p) => ids[p.solvent]) : []);
 
   if (w && kg[w] > 0 && mainRec.waterMutualSolubility && !fitted.has(main)) {
-    // Tabulated mutual solubility that no stable liquid model reproduces: the measured phases
+    // Tabulated mutual solubility and no regressed liquid model for it: the measured phases
     // win over UNIFAC alone (lever rule at the tabulated temperature; other solvents follow).
     const ms = mainRec.waterMutualSolubility.value;
     const ws = ms.solventInWaterWtPct / 100;
@@ -174,17 +174,24 @@ export function splitLiquid(
     const det = (1 - ws) * (1 - ww) - ws * ww;
     const A = (W * (1 - ww) - O * ww) / det;
     const G = (O * (1 - ws) - W * ws) / det;
+    // Two causes reach this branch: UNIFAC has no parameters for a group pair of the liquid (no
+    // activity model at all: e.g. an ester or ether with DMAc or NMP), or the pair could not be
+    // fitted as a stable split. Say which, since the first one also leaves the other solvents'
+    // split unmodelled (a water-miscible one among them goes largely to the water in fact).
+    const others = orgTotal > kg[main];
     method(
       methods,
       'phase split',
-      'mutual solubility (lever rule on tabulated mutual solubilities; no stable liquid model reproduces them)',
+      vleError
+        ? 'mutual solubility (lever rule on tabulated mutual solubilities; UNIFAC has no parameters for this liquid)'
+        : 'mutual solubility (lever rule on tabulated mutual solubilities; no stable liquid model reproduces them)',
       `${mainRec.name}–water: ${mainRec.waterMutualSolubility.source.ref} (${mainRec.waterMutualSolubility.source.status})`,
     );
     warn(
       warnings,
-      'info',
+      vleError && others ? 'warning' : 'info',
       'mutual-solubility-not-fitted',
-      `No liquid model reproduces the measured mutual solubility of ${mainRec.name} and water as a stable split, so the measured phases (${ms.temperatureC} °C) are used as they are, at any temperature${orgTotal > kg[main] ? `, and the other organic solvents (${((100 * (orgTotal - kg[main])) / orgTotal).toFixed(1)} % of the organic solvents) are assumed to split like ${mainRec.name}` : ''}.`,
+      `${vleError ? `No liquid model can be built for this liquid (${vleError.message})` : `No liquid model reproduces the measured mutual solubility of ${mainRec.name} and water as a stable split`}, so the measured ${mainRec.name}–water phases (${ms.temperatureC} °C) are used as they are, at any temperature${others ? `, and the other organic solvents (${((100 * (orgTotal - kg[main])) / orgTotal).toFixed(1)} % of the organic solvents) are assumed to split like ${mainRec.name}${vleError ? ': a water-miscible one among them in fact goes largely to the water, so check its split by analysis' : ''}` : ''}.`,
     );
     if (A <= 0) {
       warn(
