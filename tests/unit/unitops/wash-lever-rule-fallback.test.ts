@@ -106,9 +106,9 @@ describe('wash phase split: lever-rule fallback on tabulated mutual solubilities
     const { org, aq, step } = run('dmac', 0.1, 1);
     // Inputs: 1 L water, 1 L ethyl acetate, 0.1 L DMAc at 20 °C (library densities 0.99821,
     // 0.9003 and 0.9372 g/mL), so W = 0.99821 kg and O = 0.9003 + 0.09372 = 0.99402 kg.
-    expect(step.balance.water.inKg).toBeCloseTo(0.99821, 5);
-    expect(step.balance.etoac.inKg).toBeCloseTo(0.9003, 5);
-    expect(step.balance.amide.inKg).toBeCloseTo(0.09372, 5);
+    expect(step.balance!.water.inKg).toBeCloseTo(0.99821, 5);
+    expect(step.balance!.etoac.inKg).toBeCloseTo(0.9003, 5);
+    expect(step.balance!.amide.inKg).toBeCloseTo(0.09372, 5);
     // By hand, w_s = 0.08, w_w = 0.03:
     //   D = 0.92 · 0.97 − 0.08 · 0.03 = 0.8900
     //   A = (0.99821 · 0.97 − 0.99402 · 0.03)/0.89 = (0.968264 − 0.029821)/0.89 = 1.054430 kg
