@@ -12,8 +12,9 @@
  *    implementation's own value (regression, 0.01 K), loose against CRC.
  * 2. At 25 °C: against an independent published Antoine set whose fitted range
  *    covers 25 °C (Poling 5e App. A, NIST WebBook or Landolt-Börnstein IV/20,
- *    as stored in the library), within 3 % (Perry gives the Table 2-8 values as
- *    accurate to 1–5 % for most liquids — recalled), and tight against our own
+ *    as stored in the library), within the stated uncertainty of the two
+ *    sources where one is stated — none is, as read (table AT_25C below, per
+ *    solvent) — else within 3 % (common practice), and tight against our own
  *    value (regression, 1e-4 relative).
  * 3. Continuity from 200 K (or the triple point) to the critical point: no jump
  *    in ln P or in its slope anywhere, including where methanol's and
@@ -102,6 +103,195 @@ describe('normal boiling point of every library solvent against the CRC Handbook
   }
 });
 
+/**
+ * What each source says about its own uncertainty at 25 °C, as read. Sources: the engine's value
+ * (Perry 8e Table 2-8, DIPPR eq. 101, or VDI Heat Atlas PPDS Wagner, read through the `chemicals` data
+ * files) against an independent Antoine set (Poling 5e App. A, NIST WebBook, Landolt-Börnstein IV/20,
+ * read the same way). None of these carries a per-compound uncertainty in the copy read: the data files
+ * hold coefficients and fitted ranges only (Table 2-8: C1–C5, Tmin, Tmax; PPDS: Tc, Pc, A–D; the Antoine
+ * files: A, B, C, Tmin, Tmax), and the stated accuracy of the printed tables (Perry's 1–5 % for Table 2-8,
+ * DIPPR's per-row codes, Poling's remarks on its Appendix A) was not read, only recalled. So every row
+ * holds `statedUncertainty: null` and the check uses 3 %, a common-practice agreement between two
+ * evaluated vapour-pressure sets near room temperature — not a source's statement. Where a source's own
+ * stated uncertainty is read later, put it (fraction, both sources combined in quadrature) in its row:
+ * the test then uses it instead.
+ * `dev` is the deviation found here (engine/comparison − 1, %), for the reader.
+ */
+interface At25C {
+  engine: string;
+  comparison: string;
+  statedUncertainty: { engine: number; comparison: number; where: string } | null;
+  dev: number;
+  note?: string;
+}
+const NONE_STATED = null;
+const AT_25C: Record<string, At25C> = {
+  water: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.26,
+    note: 'also checked against IAPWS-95 (value recalled) within 0.5 % below',
+  },
+  methanol: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.68,
+  },
+  ethanol: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.61,
+  },
+  '1-propanol': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.82,
+  },
+  '2-propanol': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.1,
+  },
+  '1-butanol': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'nist-webbook-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 1.95,
+  },
+  'tert-butanol': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.24,
+  },
+  'ethyl-acetate': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -1.49,
+  },
+  acetone: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.09,
+  },
+  '2-butanone': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 2.33,
+  },
+  mibk: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.56,
+  },
+  thf: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.38,
+  },
+  mtbe: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'landolt-iv20-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.06,
+  },
+  'diethyl-ether': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.71,
+  },
+  'diisopropyl-ether': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'landolt-iv20-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.33,
+  },
+  'n-heptane': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.52,
+  },
+  'n-hexane': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.39,
+  },
+  cyclohexane: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.21,
+  },
+  methylcyclohexane: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.78,
+  },
+  toluene: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.39,
+  },
+  dichloromethane: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.21,
+  },
+  chloroform: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.08,
+  },
+  acetonitrile: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'nist-webbook-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 2.98,
+    note: 'the two sets differ by almost the whole 3 %: which one is nearer the measurements is not known from the library',
+  },
+  dmso: {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'nist-webbook-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: -0.05,
+  },
+  'acetic-acid': {
+    engine: 'perry-8e-2-8-vapour-pressure',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.58,
+  },
+  pyridine: {
+    engine: 'vdi-ppds-wagner',
+    comparison: 'poling-5e-antoine',
+    statedUncertainty: NONE_STATED,
+    dev: 0.66,
+  },
+};
+
+/** Stated uncertainties of the two sources combined in quadrature, else 3 % (common practice). */
+function toleranceAt25C(row: At25C): number {
+  const u = row.statedUncertainty;
+  return u ? Math.hypot(u.engine, u.comparison) : 0.03;
+}
+
 describe('vapour pressure at 25 °C against an independent published Antoine set', () => {
   for (const [id, , ownP25] of OWN) {
     const s = solventById(id)!;
@@ -114,12 +304,31 @@ describe('vapour pressure at 25 °C against an independent published Antoine set
       (a) => 298.15 >= a.TminK && 298.15 <= a.TmaxK && a.source.ref !== p.source.ref,
     );
     if (independent) {
-      it(`${s.name}: within 3 % of ${independent.source.ref} at 25 °C`, () => {
+      const row = AT_25C[id];
+      const tol = row ? toleranceAt25C(row) : 0;
+      it(`${s.name}: within ${(100 * tol).toFixed(1)} % (${row ? (row.statedUncertainty ? 'stated uncertainty' : 'common practice, no uncertainty stated') : 'no row'}) of ${independent.source.ref} at 25 °C`, () => {
+        expect(
+          row,
+          `${id}: add a row to AT_25C naming both sources and their stated uncertainty`,
+        ).toBeDefined();
+        expect(p.source.ref).toBe(row!.engine);
+        expect(independent.source.ref).toBe(row!.comparison);
         const ref = Math.exp(antoineLnPressure(independent, 298.15).lnP);
-        expect(Math.abs(p.pressurePa / ref - 1)).toBeLessThan(0.03);
+        expect(Math.abs(p.pressurePa / ref - 1)).toBeLessThan(tol);
+        // The deviation printed in the table is the one found (kept true for the reader).
+        expect(100 * (p.pressurePa / ref - 1)).toBeCloseTo(row!.dev, 1);
       });
     }
   }
+  it('the 25 °C table names exactly the solvents that have an independent set', () => {
+    const withSet = OWN.map((r) => r[0]).filter((id) => {
+      const s = solventById(id)!;
+      const { sets, extra } = solventVapourPressureData(s);
+      const used = vapourPressure(sets, 298.15, extra).source.ref;
+      return s.antoine.some((a) => 298.15 >= a.TminK && 298.15 <= a.TmaxK && a.source.ref !== used);
+    });
+    expect(Object.keys(AT_25C).sort()).toEqual(withSet.sort());
+  });
   it('every solvent without an independent set at 25 °C is named, with why (a new solvent must be classified)', () => {
     // The library holds one correlation for these (or none covering 25 °C besides the one used), so
     // no independent value at 25 °C can be computed from the library; their 25 °C values rest on the
