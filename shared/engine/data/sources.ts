@@ -139,7 +139,7 @@ export const SOURCES = {
   },
   'q3c-r8-draft-report': {
     citation:
-      'ICH Q3C(R8) Step 2 draft, "PDE for 2-methyltetrahydrofuran, cyclopentyl methyl ether and tertiary-butyl alcohol": 2-MeTHF PDE 50 mg/day (Class 3), CPME PDE 15 mg/day (Class 2), tertiary-butyl alcohol PDE 35 mg/day (Class 2), as reported by GMP-Verlag news (2020). The Step 4 guideline (22 April 2021) adopted PDEs for the three solvents; the numbers of the final text were not read',
+      'ICH Q3C(R8) Step 2 draft, "PDE for 2-methyltetrahydrofuran, cyclopentyl methyl ether and tertiary-butyl alcohol": 2-MeTHF PDE 50 mg/day (Class 3), CPME PDE 15 mg/day (Class 2), tertiary-butyl alcohol PDE 35 mg/day (Class 2), as reported by GMP-Verlag news (2020; a trade publisher’s report, not the guideline). Its report of the Step 4 guideline (22 April 2021) states that these PDEs were adopted unchanged (2-MeTHF Class 3; CPME and tertiary-butyl alcohol Class 2); the numbers were not read in the guideline’s own text',
     url: 'https://www.gmp-verlag.de/content/en/gmp-news/news-about-gmp-cgmp/d/ich-publishes-ich-q3c-r8-with-three-new-pdes-for-comments',
   },
   'kelly-1996-peroxide-tables': {

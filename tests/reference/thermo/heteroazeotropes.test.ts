@@ -12,6 +12,19 @@
  *  - [CRC-AZ] CRC Handbook of Chemistry and Physics, "Azeotropic Data for
  *    Binary Mixtures" (J. Gmehling et al.): values recalled, not read — marked.
  *
+ * The primary tables were searched for again (December 2026) and could not be
+ * read: the stored copies of CRC "Azeotropic Data for Binary Mixtures" (the
+ * publisher's online edition, 103rd ed., and a 6-210 page copy), of Lange's
+ * Handbook Section 5 (Table 5.11 "Binary Azeotropic (Constant-Boiling)
+ * Mixtures", whose copy shows only the section's table of contents), of
+ * Horsley's "Table of Azeotropes and Nonazeotropes" (Anal. Chem., the
+ * supplement; its water section begins past the stored text) and of Horsley's
+ * "Azeotropic Data—II" return only their opening pages; the mirrors of the
+ * "Azeotrope (data)" compilation stop at water–isopropyl acetate, whose row
+ * cites neither handbook. No journal abstract stored states the
+ * heteroazeotrope of water with 2-MeTHF, MTBE or isopropyl acetate. The
+ * queries are listed in docs/data-sources.md ("Heteroazeotrope tables").
+ *
  * Tolerance: 1.5 K on the temperature (the issue's requirement). Each check
  * also pins this implementation's own value to 0.05 K (regression).
  */

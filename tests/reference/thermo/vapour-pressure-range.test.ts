@@ -271,6 +271,7 @@ const AT_25C: Record<string, At25C> = {
     comparison: 'nist-webbook-antoine',
     statedUncertainty: NONE_STATED,
     dev: -0.05,
+    note: 'the comparison set (NIST, 293–323 K) was read as quoted on a non-publication page and not checked in the WebBook itself (library note): a weak check',
   },
   'acetic-acid': {
     engine: 'perry-8e-2-8-vapour-pressure',
