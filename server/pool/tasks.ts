@@ -14,10 +14,12 @@ import type { DraftDocument } from '@shared/schemas/routes';
 import type { RouteDocument } from '@shared/schemas/route';
 import type { PreparedRoute } from '@shared/engine/route/evaluate';
 import {
+  mergeMonteCarloBlocks,
+  runMonteCarloBlock,
   runMonteCarloChunk,
   startMonteCarlo,
   summariseMonteCarlo,
-  type MonteCarloState,
+  type MonteCarloBlock,
 } from '@shared/engine/route/monte-carlo';
 import type { StepMemo } from '@shared/engine/route/step-memo';
 import type { Equipment } from '@shared/schemas/equipment';
@@ -65,7 +67,7 @@ function prepare(document: RouteDocument): PreparedRoute {
 }
 
 /**
- * Prepared routes of running Monte Carlo jobs, so each chunk skips validation and model set-up,
+ * Prepared routes of running Monte Carlo jobs (the last four), so each block skips validation and model set-up,
  * with a step memo of the job's own (steps without uncertain settings are reused draw after draw).
  */
 const preparedByJob = new Map<string, { prepared: PreparedRoute; memo: StepMemo }>();
@@ -121,20 +123,29 @@ export const tasks = {
     );
     return summariseMonteCarlo(state);
   },
-  /** The next chunk of draws of a background run. */
-  'monteCarlo.chunk': (input: {
+  /**
+   * One block of draws of a background run (runMonteCarloBlock): blocks of one run go to any
+   * worker in any order; the web thread merges them with monteCarlo.summarise.
+   */
+  'monteCarlo.block': (input: {
     cacheKey: string;
     document: RouteDocument;
-    state: MonteCarloState | null;
     draws: number;
     seed: number;
-    chunk: number;
-  }) => {
+    block: number;
+  }): MonteCarloBlock => {
     const { prepared, memo } = preparedFor(input.cacheKey, input.document);
-    const state = input.state ?? startMonteCarlo({ draws: input.draws, seed: input.seed });
-    const next = runMonteCarloChunk(prepared, state, input.chunk, memo);
-    if (next.done >= next.draws) preparedByJob.delete(input.cacheKey);
-    return { state: next, summary: next.done >= next.draws ? summariseMonteCarlo(next) : null };
+    return runMonteCarloBlock(prepared, input, memo);
+  },
+  /** The summary of a run from all its blocks (merged in block order). */
+  'monteCarlo.summarise': (input: {
+    cacheKey: string;
+    draws: number;
+    seed: number;
+    blocks: MonteCarloBlock[];
+  }) => {
+    preparedByJob.delete(input.cacheKey);
+    return summariseMonteCarlo(mergeMonteCarloBlocks(input, input.blocks));
   },
   /** Checks an optimisation request: 400 naming each free parameter at fault, 422 when the route cannot run. */
   'optimise.check': (input: { request: OptimiseRequest }) => {

@@ -3,34 +3,30 @@
  * and the person's job cap, validates the document in the engine pool (a 422
  * names the step before anything is queued), then writes an evaluation_jobs
  * row and a pg-boss job carrying only its id, in one transaction. A worker
- * runs the draws chunk by chunk in the engine pool, writing progress after
- * each and stopping when the job is cancelled. Small runs are evaluated in
+ * runs the draws in fixed blocks spread over the engine pool's workers
+ * (monte-carlo-blocks.ts), writing progress as blocks finish and stopping
+ * when the job is cancelled. Small runs are evaluated in
  * the request but answer through the same job row, so the client has one
  * interface.
  */
 import { Op, type Transaction } from 'sequelize';
 import type { RouteDocument } from '@shared/schemas/route';
 import type { AnyJob, MonteCarloResult, OptimiseResult } from '@shared/schemas/jobs';
-import type {
-  MonteCarloResult as EngineMonteCarloResult,
-  MonteCarloState,
-} from '@shared/engine/route/monte-carlo';
+import type { MonteCarloResult as EngineMonteCarloResult } from '@shared/engine/route/monte-carlo';
 import { database } from '../db/sequelize';
 import { conflict, notFound, tooManyJobs } from '../errors';
 import { EvaluationJob } from '../models';
 import { enginePool } from '../pool';
-import type { TaskOutput } from '../pool/tasks';
 import { ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
 import { checkStepDraws, inUserSlot, type EvaluationLimits } from './evaluation-limits';
 import { enqueue, jobQueue, QUEUES } from './jobs';
 import { JobCancelled, recordStoppedRun, reportProgress } from './job-runs';
+import { runMonteCarloOnPool } from './monte-carlo-blocks';
 import { abortOptimisationHere } from './optimise-jobs';
 
 export const MONTE_CARLO_QUEUE = QUEUES.monteCarlo;
 /** Runs of at most this many draws are evaluated in the request. */
 export const INLINE_MAX_DRAWS = 20;
-/** Draws per chunk: bounded work between progress writes and cancellation checks. */
-const CHUNK_DRAWS = 10;
 
 interface MonteCarloInput {
   document: RouteDocument;
@@ -91,12 +87,12 @@ function summary(result: EngineMonteCarloResult): MonteCarloResult {
   return { ...result, engineVersion: ENGINE_VERSION, processSafetyNote: PROCESS_SAFETY_NOTE };
 }
 
-/** Runs in progress on this server, so a cancel stops the chunk already in a worker. */
+/** Runs in progress on this server, so a cancel stops the blocks already in the workers. */
 const runningHere = new Map<string, AbortController>();
 
 /**
  * Runs one queued job to the end, writing progress as it goes. Stops when the
- * job is cancelled (checked in the database between chunks, so a cancel on
+ * job is cancelled (checked in the database as blocks finish, so a cancel on
  * any server instance counts). Safe to call again for a finished job.
  */
 export async function runMonteCarloJob(jobId: string, stopping?: AbortSignal): Promise<void> {
@@ -112,32 +108,21 @@ export async function runMonteCarloJob(jobId: string, stopping?: AbortSignal): P
   runningHere.set(jobId, controller);
   const signal = stopping ? AbortSignal.any([controller.signal, stopping]) : controller.signal;
   try {
-    let state: MonteCarloState | null = null;
     let reported = 0;
-    for (;;) {
-      const chunk: TaskOutput<'monteCarlo.chunk'> = await enginePool().run(
-        'monteCarlo.chunk',
-        {
-          cacheKey: jobId,
-          document: input.document,
-          state,
-          draws: input.draws,
-          seed: input.seed,
-          chunk: CHUNK_DRAWS,
+    const result = await runMonteCarloOnPool(
+      enginePool(),
+      { cacheKey: jobId, document: input.document, draws: input.draws, seed: input.seed },
+      {
+        signal,
+        onProgress: async (fraction) => {
+          if (fraction < 1) reported = await reportProgress(jobId, fraction, reported);
         },
-        { signal },
-      );
-      const next = chunk.state;
-      state = next;
-      if (chunk.summary) {
-        await EvaluationJob.update(
-          { status: 'done', progress: 1, result: summary(chunk.summary), finishedAt: new Date() },
-          { where: { id: jobId, status: 'running' } },
-        );
-        return;
-      }
-      reported = await reportProgress(jobId, next.done / next.draws, reported);
-    }
+      },
+    );
+    await EvaluationJob.update(
+      { status: 'done', progress: 1, result: summary(result), finishedAt: new Date() },
+      { where: { id: jobId, status: 'running' } },
+    );
   } catch (error) {
     await recordStoppedRun(jobId, error, {
       aborted: controller.signal.aborted,
@@ -178,7 +163,7 @@ export async function loadJob(
   return job;
 }
 
-/** Cancels a queued or running job; the run stops after its current chunk at the latest. */
+/** Cancels a queued or running job; the run stops after its blocks in flight at the latest. */
 export async function cancelJob(
   job: EvaluationJob,
   transaction: Transaction | null,

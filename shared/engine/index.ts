@@ -24,8 +24,13 @@ export {
   monteCarloChunks,
   startMonteCarlo,
   runMonteCarloChunk,
+  runMonteCarloBlock,
+  mergeMonteCarloBlocks,
+  monteCarloBlockCount,
+  MONTE_CARLO_BLOCK_DRAWS,
   summariseMonteCarlo,
+  type MonteCarloBlock,
   type MonteCarloResult,
   type MonteCarloState,
 } from './route/monte-carlo';
-export { createRandom, type SeededRandom } from './random';
+export { createRandom, createStreamRandom, type SeededRandom } from './random';

@@ -3,17 +3,21 @@
  *
  * Every parameter written as { value, plusMinus } is drawn uniformly in
  * [value − plusMinus, value + plusMinus] (clipped to the field's range) for
- * each draw, from one seeded sfc32 stream (random.ts); the route is
- * evaluated per draw and p5/p50/p95 of the isolated yield, the purity and
- * each purge factor are reported (percentiles by linear interpolation
- * between order statistics, Hyndman & Fan 1996 definition 7).
+ * each draw; the route is evaluated per draw and p5/p50/p95 of the isolated
+ * yield, the purity and each purge factor are reported (percentiles by
+ * linear interpolation between order statistics, Hyndman & Fan 1996
+ * definition 7).
  *
- * Reproducible: the same document, seed and number of draws give the same
- * numbers, however the run is cut into chunks — the generator state travels
- * in the run state, so a server job can run chunk by chunk, store the state
- * between chunks and report progress.
+ * The draws are cut into fixed blocks of MONTE_CARLO_BLOCK_DRAWS; block k
+ * draws from its own sfc32 stream, numbered k, of the seed
+ * (createStreamRandom in random.ts). Blocks are independent, so they can run
+ * on several engine workers at once, in any order, and their samples are
+ * merged in block order: the same document, seed and number of draws give
+ * the same numbers whatever the number of workers, the order in which
+ * blocks finish, or how a sequential run is cut into chunks (the state of
+ * the current block's stream travels in the run state).
  */
-import { createRandom } from '../random';
+import { createRandom, createStreamRandom, type SeededRandom } from '../random';
 import type { RouteDocument } from '../document';
 import { evaluatePrepared, parseRoute, prepareRoute, type PreparedRoute } from './evaluate';
 import type { StepMemo } from './step-memo';
@@ -35,22 +39,83 @@ export interface MonteCarloResult {
   purgeFactor: Record<string, Percentiles>;
 }
 
+/** Samples of the draws that evaluated, in draw order. */
+export interface MonteCarloSamples {
+  yieldPct: number[];
+  purityWtPct: number[];
+  /** Purge factor per impurity (+∞ for a complete purge). */
+  purge: Record<string, number[]>;
+}
+
 /** Serialisable state of a run, for chunked background jobs. */
 export interface MonteCarloState {
   seed: number;
   draws: number;
   done: number;
-  rngState: [number, number, number, number];
+  /** State of the current block's stream; null when the next draw starts a block. */
+  rngState: [number, number, number, number] | null;
   failedDraws: number;
-  samples: { yieldPct: number[]; purityWtPct: number[]; purge: Record<string, number[]> };
+  samples: MonteCarloSamples;
+}
+
+/** The draws of one block of a run, computed on its own (see runMonteCarloBlock). */
+export interface MonteCarloBlock {
+  /** Block number, 0-based: draws block·B … block·B + B − 1 of the run. */
+  block: number;
+  /** Draws in the block (B, fewer in the last block). */
+  draws: number;
+  failedDraws: number;
+  samples: MonteCarloSamples;
 }
 
 export const MAX_DRAWS = 100_000;
 
 /**
- * Initial state of a run: no draws done, the generator seeded.
+ * Draws per block (B). Part of the method: block k of a seed always draws from stream k, so
+ * changing B changes the numbers a seed gives.
+ */
+export const MONTE_CARLO_BLOCK_DRAWS = 20;
+
+/**
+ * Number of blocks of a run: ⌈draws / MONTE_CARLO_BLOCK_DRAWS⌉.
+ * Source: the block layout of this module (common practice for parallel Monte Carlo).
+ * Validity: draws ≥ 0.
+ * @param draws  number of draws of the run [–]
+ * @returns number of blocks [–]
+ */
+export function monteCarloBlockCount(draws: number): number {
+  return Math.ceil(draws / MONTE_CARLO_BLOCK_DRAWS);
+}
+
+function checkRun(opts: { draws: number; seed: number }): void {
+  if (!Number.isInteger(opts.draws) || opts.draws < 1 || opts.draws > MAX_DRAWS)
+    throw new RangeError(`draws must be an integer in 1..${MAX_DRAWS}`);
+  if (!Number.isInteger(opts.seed)) throw new RangeError('seed must be an integer');
+}
+
+/** One draw: evaluates the route with `rng`, appends its samples; false when the evaluation failed. */
+function runDraw(
+  route: PreparedRoute,
+  rng: SeededRandom,
+  memo: StepMemo | null,
+  samples: MonteCarloSamples,
+): boolean {
+  try {
+    const r = evaluatePrepared(route, rng, memo);
+    samples.yieldPct.push(r.totals.yieldPct ?? NaN);
+    samples.purityWtPct.push(r.totals.purityWtPct ?? NaN);
+    for (const [id, p] of Object.entries(r.totals.purge))
+      (samples.purge[id] ??= []).push(p.purgeFactor ?? Infinity);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * Initial state of a run: no draws done.
  * Source: Monte Carlo propagation of uniform parameter uncertainty (common
- * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * practice); sfc32 streams per block (random.ts); percentiles after Hyndman & Fan,
  * Am. Stat. 1996, 50, 361, definition 7.
  * Validity: 1 ≤ draws ≤ MAX_DRAWS, integer seed (else a RangeError).
  * @param opts.draws  number of draws [–]
@@ -58,25 +123,23 @@ export const MAX_DRAWS = 100_000;
  * @returns the run state
  */
 export function startMonteCarlo(opts: { draws: number; seed: number }): MonteCarloState {
-  if (!Number.isInteger(opts.draws) || opts.draws < 1 || opts.draws > MAX_DRAWS)
-    throw new RangeError(`draws must be an integer in 1..${MAX_DRAWS}`);
-  if (!Number.isInteger(opts.seed)) throw new RangeError('seed must be an integer');
+  checkRun(opts);
   return {
     seed: opts.seed,
     draws: opts.draws,
     done: 0,
-    rngState: createRandom(opts.seed).state(),
+    rngState: null,
     failedDraws: 0,
     samples: { yieldPct: [], purityWtPct: [], purge: {} },
   };
 }
 
 /**
- * Run up to `chunk` further draws; returns the new state (the input is not
- * modified). A draw whose evaluation fails is counted in failedDraws and
- * left out of the samples.
+ * Run up to `chunk` further draws in sequence, block after block; returns the
+ * new state (the input is not modified). A draw whose evaluation fails is
+ * counted in failedDraws and left out of the samples.
  * Source: Monte Carlo propagation of uniform parameter uncertainty (common
- * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * practice); sfc32 streams per block (random.ts); percentiles after Hyndman & Fan,
  * Am. Stat. 1996, 50, 361, definition 7.
  * Validity: any prepared route; results are reproducible for a seed whatever
  * the chunking.
@@ -94,7 +157,6 @@ export function runMonteCarloChunk(
   chunk: number,
   memo: StepMemo | null = null,
 ): MonteCarloState {
-  const rng = createRandom(state.rngState);
   const s: MonteCarloState = {
     ...state,
     samples: {
@@ -104,19 +166,78 @@ export function runMonteCarloChunk(
     },
   };
   const end = Math.min(s.draws, s.done + Math.max(1, Math.floor(chunk)));
+  let rng = s.rngState ? createRandom(s.rngState) : null;
   for (; s.done < end; s.done++) {
-    try {
-      const r = evaluatePrepared(route, rng, memo);
-      s.samples.yieldPct.push(r.totals.yieldPct ?? NaN);
-      s.samples.purityWtPct.push(r.totals.purityWtPct ?? NaN);
-      for (const [id, p] of Object.entries(r.totals.purge))
-        (s.samples.purge[id] ??= []).push(p.purgeFactor ?? Infinity);
-    } catch {
-      s.failedDraws++;
-    }
+    if (s.done % MONTE_CARLO_BLOCK_DRAWS === 0)
+      rng = createStreamRandom(s.seed, s.done / MONTE_CARLO_BLOCK_DRAWS);
+    if (!runDraw(route, rng!, memo, s.samples)) s.failedDraws++;
   }
-  s.rngState = rng.state();
+  s.rngState = s.done % MONTE_CARLO_BLOCK_DRAWS === 0 || !rng ? null : rng.state();
   return s;
+}
+
+/**
+ * The draws of one block of a run, independent of every other block: block k
+ * evaluates draws k·B … min(draws, k·B + B) − 1 (B = MONTE_CARLO_BLOCK_DRAWS)
+ * with stream k of the seed. A failed draw is counted and left out of the samples.
+ * Source: Monte Carlo propagation of uniform parameter uncertainty (common
+ * practice); sfc32 streams per block (random.ts).
+ * Validity: 0 ≤ block < monteCarloBlockCount(draws); the same inputs give the
+ * same block on any worker.
+ * @param route        the prepared route
+ * @param opts.seed    integer seed of the run [–]
+ * @param opts.draws   number of draws of the whole run [–]
+ * @param opts.block   block number [–], 0-based
+ * @param memo         step-result memo of the caller (the same numbers), or null
+ * @returns the block's samples and failed draws
+ */
+export function runMonteCarloBlock(
+  route: PreparedRoute,
+  opts: { seed: number; draws: number; block: number },
+  memo: StepMemo | null = null,
+): MonteCarloBlock {
+  checkRun(opts);
+  const blocks = monteCarloBlockCount(opts.draws);
+  if (!Number.isInteger(opts.block) || opts.block < 0 || opts.block >= blocks)
+    throw new RangeError(`block must be an integer in 0..${blocks - 1}`);
+  const first = opts.block * MONTE_CARLO_BLOCK_DRAWS;
+  const draws = Math.min(opts.draws, first + MONTE_CARLO_BLOCK_DRAWS) - first;
+  const rng = createStreamRandom(opts.seed, opts.block);
+  const samples: MonteCarloSamples = { yieldPct: [], purityWtPct: [], purge: {} };
+  let failedDraws = 0;
+  for (let i = 0; i < draws; i++) if (!runDraw(route, rng, memo, samples)) failedDraws++;
+  return { block: opts.block, draws, failedDraws, samples };
+}
+
+/**
+ * Joins the blocks of a run, given in any order, into its state, their
+ * samples concatenated in block order (as a sequential run gives them).
+ * Source: the block layout of this module.
+ * Validity: every block 0 … monteCarloBlockCount(draws) − 1 exactly once
+ * (else a RangeError).
+ * @param opts.seed    integer seed of the run [–]
+ * @param opts.draws   number of draws of the run [–]
+ * @param blocks       the run's blocks
+ * @returns the finished run state (summarise with summariseMonteCarlo)
+ */
+export function mergeMonteCarloBlocks(
+  opts: { seed: number; draws: number },
+  blocks: readonly MonteCarloBlock[],
+): MonteCarloState {
+  const state = startMonteCarlo(opts);
+  const ordered = [...blocks].sort((a, b) => a.block - b.block);
+  if (ordered.length !== monteCarloBlockCount(opts.draws) || ordered.some((b, i) => b.block !== i))
+    throw new RangeError('every block of the run is needed exactly once');
+  for (const b of ordered) {
+    state.done += b.draws;
+    state.failedDraws += b.failedDraws;
+    state.samples.yieldPct.push(...b.samples.yieldPct);
+    state.samples.purityWtPct.push(...b.samples.purityWtPct);
+    for (const [id, v] of Object.entries(b.samples.purge))
+      (state.samples.purge[id] ??= []).push(...v);
+  }
+  if (state.done !== opts.draws) throw new RangeError('the blocks do not add up to the run');
+  return state;
 }
 
 /**
@@ -148,7 +269,7 @@ function summarise(values: number[]): Percentiles {
  * p5, p50 and p95 of yield, purity and each purge factor over the draws done
  * (NaN samples left out; an infinite purge factor gives null).
  * Source: Monte Carlo propagation of uniform parameter uncertainty (common
- * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * practice); sfc32 streams per block (random.ts); percentiles after Hyndman & Fan,
  * Am. Stat. 1996, 50, 361, definition 7.
  * Validity: any run state; percentiles of few draws are rough.
  * @param state  the run state
@@ -171,7 +292,7 @@ export function summariseMonteCarlo(state: MonteCarloState): MonteCarloResult {
  * Chunked iterator for background jobs: yields progress after each chunk and
  * returns the summary. `for (const p of it) report(p.done / p.total)`.
  * Source: Monte Carlo propagation of uniform parameter uncertainty (common
- * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * practice); sfc32 streams per block (random.ts); percentiles after Hyndman & Fan,
  * Am. Stat. 1996, 50, 361, definition 7.
  * Validity: any route document the schema accepts (parsed first; a bad document throws).
  * @param doc               the route document (unparsed)
@@ -197,7 +318,7 @@ export function* monteCarloChunks(
 /**
  * Run all draws at once, with an optional progress callback (fraction done).
  * Source: Monte Carlo propagation of uniform parameter uncertainty (common
- * practice); sfc32 generator (random.ts); percentiles after Hyndman & Fan,
+ * practice); sfc32 streams per block (random.ts); percentiles after Hyndman & Fan,
  * Am. Stat. 1996, 50, 361, definition 7.
  * Validity: any route document the schema accepts (parsed first; a bad document throws).
  * @param doc          the route document
