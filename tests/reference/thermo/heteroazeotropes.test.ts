@@ -29,7 +29,8 @@
  * also pins this implementation's own value to 0.05 K (regression).
  */
 import { describe, expect, it } from 'vitest';
-import { solventById } from '@shared/engine/data';
+import { SOLVENTS, solventById } from '@shared/engine/data';
+import { solventVapourPressureData, vapourPressure } from '@shared/engine/thermo/antoine';
 import { createVleSystem, heterogeneousBubblePoint } from '@shared/engine/thermo/vle';
 import { mutualSolubilityPoint, vleComponentOf } from '@shared/engine/thermo/mutual-solubility';
 
@@ -74,6 +75,66 @@ describe('heteroazeotropes of water from the regressed liquid model', () => {
       expect(r.regressed).toBe(1);
       expect(r.T).toBeCloseTo(own, 1);
       expect(Math.abs(r.T - handbook)).toBeLessThanOrEqual(1.5);
+    });
+  }
+});
+
+/**
+ * A bracket computed here, independent of the activity model, for every water pair with tabulated
+ * mutual solubilities: at the heteroazeotrope both liquids have the same activities, and in each
+ * saturated phase the major component has x ≤ a ≤ 1 when the pair deviates positively from Raoult's
+ * law (γ of the major component ≥ 1, as for every pair that splits into two liquids; Prausnitz,
+ * Lichtenthaler & de Azevedo, Molecular Thermodynamics of Fluid-Phase Equilibria, ch. 6 — chapter
+ * recalled). With the vapour pressures of the library (the same correlations the engine uses) the
+ * boiling temperature therefore lies between
+ *   T_immiscible:  P_w(T) + P_s(T) = P           (a = 1: mutually insoluble liquids, steam distillation)
+ *   T_saturated:   P_w(T) x_w^aq + P_s(T) x_s^org = P   (a = x, with the engine's own phase compositions at T)
+ * and it approaches both as the mutual solubilities vanish. A model whose activity of water in the
+ * organic phase is wrong (as UNIFAC's was for 2-MeTHF, half the measured one) falls outside.
+ */
+describe('heteroazeotrope temperature between the insoluble-liquid and saturated-phase Raoult bounds', () => {
+  const P = 101325;
+  const psat = (id: string, T: number) => {
+    const { sets, extra } = solventVapourPressureData(solventById(id)!);
+    return vapourPressure(sets, T, extra).pressurePa;
+  };
+  /** Root of f(T) = 0 on [250 K, 420 K] by bisection (f increasing in T). */
+  const solveT = (f: (T: number) => number) => {
+    let lo = 250;
+    let hi = 420;
+    for (let k = 0; k < 80; k++) {
+      const m = 0.5 * (lo + hi);
+      if (f(m) > 0) hi = m;
+      else lo = m;
+    }
+    return 0.5 * (lo + hi);
+  };
+  const withData = SOLVENTS.filter((s) => s.id !== 'water' && s.waterMutualSolubility);
+  it('covers the heteroazeotrope pairs of the issue', () => {
+    const ids = withData.map((s) => s.id);
+    for (const id of [
+      '2-methyltetrahydrofuran',
+      'mtbe',
+      'ethyl-acetate',
+      'isopropyl-acetate',
+      'toluene',
+      'n-heptane',
+    ])
+      expect(ids).toContain(id);
+  });
+  for (const s of withData) {
+    it(`water–${s.id}`, () => {
+      const sys = createVleSystem([vleComponentOf(water, water), vleComponentOf(s, water)]);
+      const p = mutualSolubilityPoint(s, water)!;
+      const z = 0.5 * (p.xSolventInWater + 1 - p.xWaterInSolvent);
+      const r = heterogeneousBubblePoint(sys, [1 - z, z], P);
+      // Every tabulated pair is partly miscible: two liquids at the boiling point.
+      expect(r.liquidPhases).toBe(2);
+      const [aq, org] = r.phases!;
+      const tImmiscible = solveT((T) => psat('water', T) + psat(s.id, T) - P);
+      const tSaturated = solveT((T) => psat('water', T) * aq[0] + psat(s.id, T) * org[1] - P);
+      expect(r.T_K).toBeGreaterThanOrEqual(tImmiscible - 1e-3);
+      expect(r.T_K).toBeLessThanOrEqual(tSaturated + 1e-3);
     });
   }
 });
