@@ -52,6 +52,7 @@ const envSchema = z
     ENGINE_QUEUE_LIMIT: z.coerce.number().int().min(1).default(64),
     ENGINE_TASK_SECONDS: z.coerce.number().min(1).default(30),
     ENGINE_WORKER_MEMORY_MB: z.coerce.number().int().min(64).default(1024),
+    ENGINE_IDLE_SECONDS: z.coerce.number().min(0).default(60),
     EVALUATE_MAX_STEPS: z.coerce.number().int().min(1).default(300),
     EVALUATE_MAX_REPLY_MB: z.coerce.number().min(0.1).default(8),
     MONTE_CARLO_MAX_STEP_DRAWS: z.coerce.number().int().min(1).default(200_000),
@@ -222,6 +223,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       maxQueue: e.ENGINE_QUEUE_LIMIT,
       taskTimeoutMs: e.ENGINE_TASK_SECONDS * 1000,
       workerMemoryMb: e.ENGINE_WORKER_MEMORY_MB,
+      idleMs: e.ENGINE_IDLE_SECONDS * 1000,
     },
     evaluation: {
       maxSteps: e.EVALUATE_MAX_STEPS,

@@ -22,6 +22,12 @@ export interface EnginePoolOptions {
   taskTimeoutMs: number;
   /** Heap limit of each worker, MB: a runaway task ends its worker, not the server. */
   workerMemoryMb: number;
+  /**
+   * After this long with no task, the workers are stopped (each holds its own engine, data and
+   * step memo), so an idle server goes back to its footprint before the first task; the next task
+   * starts them again. 0 keeps them for the life of the pool.
+   */
+  idleMs: number;
 }
 
 export const defaultPoolSize = () => Math.max(1, availableParallelism());
@@ -39,8 +45,11 @@ export interface EnginePool {
     input: TaskInput<K>,
     options?: RunOptions,
   ): Promise<TaskOutput<K>>;
-  /** Workers, how many are busy, tasks waiting, and whether the workers have been started (first use). */
-  stats(): { size: number; busy: number; queued: number; started: boolean };
+  /**
+   * Workers, how many are busy, tasks waiting, whether the workers are running (started on first
+   * use, stopped again after `idleMs` without a task), and how many times they have been retired.
+   */
+  stats(): { size: number; busy: number; queued: number; started: boolean; retirements: number };
   close(): Promise<void>;
 }
 
@@ -71,6 +80,36 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
   let piscina: Piscina | null = null;
   let started: Promise<Piscina> | null = null;
   let busy = 0;
+  /** Tasks between entering run() and leaving it (waiting for start-up included). */
+  let active = 0;
+  let idleTimer: NodeJS.Timeout | null = null;
+  /** Workers being stopped for idleness: close() waits for them too. */
+  let retiring: Promise<void> = Promise.resolve();
+  let retirements = 0;
+  let closed = false;
+
+  /**
+   * Once no task is left, stops the workers after `idleMs`. A task arriving meanwhile cancels
+   * the timer; one arriving while the old workers are being stopped starts fresh ones, so it
+   * never waits for the old ones to go.
+   */
+  function retireWhenIdle(): void {
+    if (options.idleMs <= 0 || active > 0 || !started || closed) return;
+    idleTimer = setTimeout(() => {
+      idleTimer = null;
+      if (active > 0 || !started || closed) return;
+      const old = started;
+      started = null;
+      piscina = null;
+      retirements++;
+      retiring = Promise.all([
+        retiring,
+        old.then((pool) => pool.destroy()).catch(() => undefined),
+      ]).then(() => undefined);
+    }, options.idleMs);
+    // An idle timer never keeps the process alive.
+    idleTimer.unref();
+  }
 
   function start(): Promise<Piscina> {
     started ??= (async () => {
@@ -108,6 +147,22 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
     input: TaskInput<K>,
     runOptions: RunOptions = {},
   ): Promise<TaskOutput<K>> {
+    active++;
+    if (idleTimer) clearTimeout(idleTimer);
+    idleTimer = null;
+    try {
+      return await runStarted(name, input, runOptions);
+    } finally {
+      active--;
+      retireWhenIdle();
+    }
+  }
+
+  async function runStarted<K extends TaskName>(
+    name: K,
+    input: TaskInput<K>,
+    runOptions: RunOptions,
+  ): Promise<TaskOutput<K>> {
     const pool = await start();
     const limitMs = runOptions.timeoutMs ?? options.taskTimeoutMs;
     const timer = new AbortController();
@@ -140,8 +195,13 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
       busy: Math.min(busy, options.size),
       queued: piscina?.queueSize ?? 0,
       started: piscina !== null,
+      retirements,
     }),
     close: async () => {
+      closed = true;
+      if (idleTimer) clearTimeout(idleTimer);
+      idleTimer = null;
+      await retiring;
       if (!started) return;
       // A close during start-up waits for it, so no worker outlives the pool.
       await started.catch(() => undefined);
