@@ -1,6 +1,5 @@
 import type { AddressInfo } from 'node:net';
-import { simpleParser, type AddressObject } from 'mailparser';
-import { SMTPServer } from 'smtp-server';
+import type { AddressObject } from 'mailparser';
 import { OutboxMessage } from '../models';
 import { WORKSPACES_HEADER } from './mail';
 
@@ -21,13 +20,17 @@ const addressesOf = (field: AddressObject | AddressObject[] | undefined) =>
  * and the tests read it back. Never exposed beyond loopback.
  */
 export async function startSmtpFake(port = 0): Promise<SmtpFake> {
+  // Loaded here, not at boot: a server with a real SMTP server configured never needs them,
+  // and the message parser only once the first message arrives.
+  const { SMTPServer } = await import('smtp-server');
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],
     logger: false,
     banner: 'Phasewright mail fake',
     onData(stream, session, callback) {
-      simpleParser(stream)
+      import('mailparser')
+        .then(({ simpleParser }) => simpleParser(stream))
         .then(async (mail) => {
           const envelopeTo = session.envelope.rcptTo.map((r) => r.address).join(', ');
           const tagged = String(mail.headers.get(WORKSPACES_HEADER.toLowerCase()) ?? '');

@@ -7,8 +7,6 @@
 import { createRequire } from 'node:module';
 import { readFileSync } from 'node:fs';
 import { stringify } from 'csv-stringify/sync';
-import ExcelJS from 'exceljs';
-import PDFDocument from 'pdfkit';
 import {
   STEP_LIST_BASIS_LABELS,
   type StepListDocument,
@@ -126,6 +124,8 @@ export function renderCsv(list: StepListDocument): string {
 
 /** XLSX (exceljs): one sheet, the header block above the table; numbers as numbers with display formats. */
 export async function renderXlsx(list: StepListDocument): Promise<Buffer> {
+  // Loaded at the first export, not at boot: an idle server need not hold a spreadsheet writer.
+  const { default: ExcelJS } = await import('exceljs');
   const book = new ExcelJS.Workbook();
   book.creator = 'Phasewright';
   book.created = new Date(list.exportedAt);
@@ -196,7 +196,9 @@ const MUTED = '#5b6673';
 const HAZARD = '#b42318';
 
 /** PDF (pdfkit) with Lexend embedded: header, the numbered operations, the safety note; DRAFT on every page of a draft. */
-export function renderPdf(list: StepListDocument): Promise<Buffer> {
+export async function renderPdf(list: StepListDocument): Promise<Buffer> {
+  // Loaded at the first export, like exceljs above.
+  const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({
     size: 'A4',
     margins: { top: 50, bottom: 56, left: 50, right: 50 },
