@@ -1,7 +1,7 @@
+import { readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { QueryInterface, Sequelize } from 'sequelize';
-import { SequelizeStorage, Umzug } from 'umzug';
 
 export interface MigrationContext {
   queryInterface: QueryInterface;
@@ -38,8 +38,14 @@ const scriptsRoot = compiled ? here : path.resolve(here, '../..');
 const scriptExtension = compiled ? 'js' : 'ts';
 
 // Migrations are TypeScript; import() loads them under tsx, vitest and the
-// server alike, where a require()-based loader would not.
-function buildUmzug(sequelize: Sequelize, folder: 'migrations' | 'seeders', tableName: string) {
+// server alike, where a require()-based loader would not. The migration runner itself is loaded
+// only when there is something to run (it stays in memory for the life of the process).
+async function buildUmzug(
+  sequelize: Sequelize,
+  folder: 'migrations' | 'seeders',
+  tableName: string,
+) {
+  const { SequelizeStorage, Umzug } = await import('umzug');
   return new Umzug<MigrationContext>({
     migrations: {
       glob: [
@@ -93,10 +99,32 @@ async function withMigrationLock<T>(sequelize: Sequelize, work: () => Promise<T>
   }
 }
 
+/** The migrations this build carries, under the names SequelizeMeta records them by. */
+function migrationNames(): string[] {
+  return readdirSync(path.join(scriptsRoot, 'migrations'))
+    .filter((name) => name.endsWith(`.${scriptExtension}`) && !/\.(test|d)\./.test(name))
+    .map((name) => name.replace(/\.js$/, '.ts'));
+}
+
+/** Whether every migration of this build is recorded as applied (two short reads). */
+async function allMigrationsApplied(sequelize: Sequelize): Promise<boolean> {
+  const [[table]] = (await sequelize.query(
+    `SELECT to_regclass('public."SequelizeMeta"') IS NOT NULL AS present`,
+  )) as [Array<{ present: boolean }>, unknown];
+  if (!table?.present) return false;
+  const [rows] = (await sequelize.query('SELECT name FROM "SequelizeMeta"')) as [
+    Array<{ name: string }>,
+    unknown,
+  ];
+  const applied = new Set(rows.map((row) => row.name));
+  return migrationNames().every((name) => applied.has(name));
+}
+
 export async function runMigrations(sequelize: Sequelize): Promise<string[]> {
-  const applied = await withMigrationLock(sequelize, () =>
-    buildUmzug(sequelize, 'migrations', 'SequelizeMeta').up(),
-  );
+  // The common start (an up-to-date database) does not load the migration runner.
+  if (await allMigrationsApplied(sequelize)) return [];
+  const umzug = await buildUmzug(sequelize, 'migrations', 'SequelizeMeta');
+  const applied = await withMigrationLock(sequelize, () => umzug.up());
   return applied.map((migration) => migration.name);
 }
 
@@ -107,7 +135,7 @@ export async function runMigrations(sequelize: Sequelize): Promise<string[]> {
  */
 export async function runSeeders(sequelize: Sequelize, env: string): Promise<SeedResult> {
   if (env === 'production') throw new Error('Refusing to seed demo data when NODE_ENV=production.');
-  const umzug = buildUmzug(sequelize, 'seeders', 'SequelizeData');
+  const umzug = await buildUmzug(sequelize, 'seeders', 'SequelizeData');
   const applied = await withMigrationLock(sequelize, () => umzug.up());
   const context: MigrationContext = { queryInterface: sequelize.getQueryInterface(), sequelize };
   const signIns: SeedSignIn[] = [];
