@@ -2,15 +2,16 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { JobListQuery, JobSummary } from '@shared/schemas/jobs';
 import { EvaluationJob } from '../models';
-import { afterCursor, containsAny, keyAttributes, keyOrder, pageOf, byCreation } from './keyset';
+import { database } from '../db/sequelize';
+import { afterCursor, keyAttributes, keyOrder, matchingRows, pageOf, byCreation } from './keyset';
 
 const JOB_ORDERS = byCreation('EvaluationJob');
 
 /**
  * One page of the user's jobs, newest first by default
  * (evaluation_jobs_user_created_idx serves both orders); `kind` and `status`
- * filter, `q` matches part of the kind or the status. A user has few jobs, so
- * the search filters the index range of the user's rows.
+ * filter, `q` matches part of the kind or the status, starting from the trigram index of
+ * that text (evaluation_jobs_search_trgm_idx) as every list's search does (matchingRows()).
  */
 export async function listJobs(
   userId: string,
@@ -21,8 +22,21 @@ export async function listJobs(
   const conditions: WhereOptions[] = [{ userId }];
   if (query.kind) conditions.push({ kind: query.kind });
   if (query.status) conditions.push({ status: query.status });
-  if (query.q)
-    conditions.push(containsAny(['"EvaluationJob"."kind"', '"EvaluationJob"."status"'], query.q));
+  if (query.q) {
+    const user = database().escape(userId);
+    conditions.push(
+      await matchingRows(
+        {
+          model: 'EvaluationJob',
+          table: 'evaluation_jobs',
+          expressions: [(t) => `(${t}.kind || ' ' || ${t}.status)`],
+          scope: (t) => `${t}.user_id = ${user}`,
+        },
+        query.q,
+        transaction,
+      ),
+    );
+  }
   if (query.cursor) conditions.push(afterCursor(order, query.cursor));
   const rows = await EvaluationJob.findAll({
     where: { [Op.and]: conditions },

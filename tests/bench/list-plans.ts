@@ -128,7 +128,8 @@ async function seed(
     INSERT INTO audit_events (actor_id, action, entity_type, entity_id)
       SELECT id, 'session.signed_in', 'user', id::text FROM users;
     INSERT INTO evaluation_jobs (user_id, kind, status, input, created_at)
-      SELECT '${userId}', CASE WHEN g % 3 = 0 THEN 'optimise' ELSE 'monte-carlo' END, 'done', '{}'::jsonb,
+      SELECT '${userId}', CASE WHEN g % 3 = 0 THEN 'optimise' ELSE 'monte-carlo' END,
+             CASE WHEN g % 50 = 0 THEN 'failed' WHEN g % 7 = 0 THEN 'cancelled' ELSE 'done' END, '{}'::jsonb,
              now() - (g || ' seconds')::interval
         FROM generate_series(1, ${JOBS}) g;
   `);
@@ -240,7 +241,7 @@ async function main(): Promise<void> {
   const samples = (q: { limit: number; sort: 'oldest' | 'newest'; q?: string; cursor?: string }) =>
     listChromatograms(bigRoute, q, null);
   const audit = (q: { limit: number; q?: string; cursor?: string }) => listAudit(workspaceId, q);
-  const jobs = (q: { limit: number; sort: 'newest' | 'oldest'; cursor?: string }) =>
+  const jobs = (q: { limit: number; sort: 'newest' | 'oldest'; q?: string; cursor?: string }) =>
     listJobs(userId, q, null);
   const more: Case[] = [
     {
@@ -328,6 +329,13 @@ async function main(): Promise<void> {
       name: 'Jobs of a user with 5,000, second page (cursor)',
       run: await second(jobs, { ...page, sort: 'newest' }),
       indexes: ['evaluation_jobs_user_created_idx'],
+    },
+    {
+      name: 'Jobs of a user with 5,000, search "failed"',
+      // 100 matches: few, so the page starts from the trigram matches.
+      run: () => jobs({ ...page, sort: 'newest', q: 'failed' }),
+      indexes: ['evaluation_jobs_search_trgm_idx'],
+      table: 'evaluation_jobs',
     },
   ];
 
