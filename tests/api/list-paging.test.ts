@@ -222,6 +222,13 @@ describe('every list pages, sorts and searches on the server', () => {
     expect((await walk(asAdmin, '/api/v1/jobs', 50, '&q=optim')).map((r) => r.id)).toEqual([
       made[1],
     ]);
+    // The status is searched too; another person's jobs never match (their optimise run neither).
+    expect((await walk(asAdmin, '/api/v1/jobs', 50, '&q=DONE')).map((r) => r.id)).toEqual([
+      made[2],
+    ]);
+    expect((await walk(asOtherUser, '/api/v1/jobs', 50, '&q=queued')).map((r) => r.kind)).toEqual([
+      'optimise',
+    ]);
     expect((await walk(asOtherUser, '/api/v1/jobs', 50)).map((r) => r.kind)).toEqual(['optimise']);
     expect((await request(server.app).get('/api/v1/jobs')).status).toBe(401);
     await expectCursorChecks('/api/v1/jobs', 'oldest');
