@@ -25,9 +25,10 @@ export interface EnginePoolOptions {
   /**
    * After this long with no task, the workers are stopped (each holds its own engine, data and
    * step memo), so an idle server goes back to its footprint before the first task; the next task
-   * starts them again. 0 keeps them for the life of the pool.
+   * starts them again. 0 or unset keeps them for the life of the pool (the server sets it from
+   * ENGINE_IDLE_SECONDS).
    */
-  idleMs: number;
+  idleMs?: number;
 }
 
 export const defaultPoolSize = () => Math.max(1, availableParallelism());
@@ -94,7 +95,8 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
    * never waits for the old ones to go.
    */
   function retireWhenIdle(): void {
-    if (options.idleMs <= 0 || active > 0 || !started || closed) return;
+    const idleMs = options.idleMs ?? 0;
+    if (idleMs <= 0 || active > 0 || !started || closed) return;
     idleTimer = setTimeout(() => {
       idleTimer = null;
       if (active > 0 || !started || closed) return;
@@ -106,7 +108,7 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
         retiring,
         old.then((pool) => pool.destroy()).catch(() => undefined),
       ]).then(() => undefined);
-    }, options.idleMs);
+    }, idleMs);
     // An idle timer never keeps the process alive.
     idleTimer.unref();
   }
