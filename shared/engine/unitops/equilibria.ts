@@ -79,6 +79,16 @@ export interface LiquidSplit {
 }
 
 /**
+ * The two liquids of the last liquid–liquid flash at one wash stage, to start the next pass over
+ * the same stage from (filled and read by splitLiquid; valid for the same solvents and temperature).
+ * Owned by one step's evaluation only, so a step's result depends on its own inputs alone.
+ */
+export interface LiquidSplitStart {
+  key?: string;
+  phases?: [number[], number[]];
+}
+
+/**
  * One liquid phase: every solvent to the aqueous or the organic side (a module-level function,
  * not a closure per call: splitLiquid runs at every wash stage).
  */
@@ -128,6 +138,8 @@ function singlePhase(
  * @param ctx  evaluation context (route components resolved against the library)
  * @param warnings  receives the notes and warnings of the split
  * @param methods   receives the method used
+ * @param start     the stage's previous phases, read and updated (a warm start of the flash: the
+ *                  same split to the flash's tolerance), or undefined
  */
 export function splitLiquid(
   ctx: EvalContext,
@@ -135,6 +147,7 @@ export function splitLiquid(
   T_K: number,
   warnings: EngineWarning[],
   methods: MethodUsed[],
+  start?: LiquidSplitStart,
 ): LiquidSplit {
   const ids = solventIds(ctx).filter((id) => kg[id] > 0);
   const organicKg: Record<string, number> = {};
@@ -242,7 +255,17 @@ export function splitLiquid(
     const mol = ids.map((id) => kg[id] / ctx.comps.get(id)!.molarMassKgMol);
     const N = mol.reduce((a, b) => a + b, 0);
     const z = mol.map((m) => m / N);
-    const r = liquidLiquidSplit(vle.sys, z, T_K);
+    const key = start && `${T_K}|${ids.join('|')}`;
+    const r = liquidLiquidSplit(
+      vle.sys,
+      z,
+      T_K,
+      start && start.key === key ? start.phases : undefined,
+    );
+    if (start) {
+      start.key = key;
+      start.phases = r.split ? r.phases : undefined;
+    }
     for (const m of r.warnings) warn(warnings, 'info', 'lle', m);
     const tabulated = organics.filter((id) => fitted.has(id));
     method(

@@ -63,6 +63,7 @@ import {
   neutralPartitionCoefficient,
   organicOrganicDistribution,
   splitLiquid,
+  type LiquidSplitStart,
 } from './equilibria';
 import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA } from '../units';
 
@@ -108,6 +109,8 @@ function solventsOnly(ctx: EvalContext, kg: Record<string, number>): Record<stri
  * @param warnings  receives the warnings
  * @param methods  receives the methods used
  * @param feedIsPolar  whether the feed is the more polar phase (organic–organic washes)
+ * @param start  the stage's liquids from an earlier pass of this step (a warm start of the
+ *               liquid–liquid flash; the same split to its tolerance), or undefined
  * @returns the two phases [kg], pH [-], volumes [m³], distribution ratios [-], the fraction of each compound to the organic phase [-] and the CO₂ formed [mol]
  */
 export function equilibrate(
@@ -118,8 +121,9 @@ export function equilibrate(
   warnings: EngineWarning[],
   methods: MethodUsed[],
   feedIsPolar = false,
+  start?: LiquidSplitStart,
 ): PhaseState & { toOrganic: Record<string, number>; co2Mol: number } {
-  const sp = splitLiquid(ctx, solventsOnly(ctx, mix), T_K, warnings, methods);
+  const sp = splitLiquid(ctx, solventsOnly(ctx, mix), T_K, warnings, methods, start);
   const organic: Record<string, number> = {};
   const aqueous: Record<string, number> = {};
   for (const id of ctx.ids) {
@@ -382,11 +386,13 @@ export function washOrExtraction(
     let carry: Record<string, number> = { ...feed.kg };
     const collected: Record<string, number> = {};
     for (const id of ctx.ids) collected[id] = 0;
+    // Each stage's liquid–liquid flash starts from the stage before's liquids.
+    const start: LiquidSplitStart = {};
     for (let s = 0; s < N; s++) {
       const mix: Record<string, number> = { ...carry };
       for (const id in added) mix[id] += added[id];
       peak = Math.max(peak, streamVolume(ctx, mix, T));
-      const eq = equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous);
+      const eq = equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous, start);
       last = eq;
       stagePH.push(eq.pH);
       if (!feedIsAqueous || s === N - 1) co2Leaving += eq.co2Mol;
@@ -421,8 +427,10 @@ export function washOrExtraction(
       'counter-current cascade solved stage by stage: every stage its own liquid–liquid split, pH and distribution ratios; for the current stage splits the component balances of the cascade are solved exactly (tridiagonal), repeated until no split changes by more than 1e-9',
       'balance and equilibrium stages as in Seader, Henley & Roper, Separation Process Principles, liquid–liquid extraction chapter; reduces to the Kremser equation (Kremser 1930) for a constant distribution ratio and immiscible liquids (reference test)',
     );
-    const cc = counterCurrentCascade(ctx, feed.kg, added, N, feedIsAqueous, (mix, w, m) =>
-      equilibrate(ctx, mix, T, pHOverride, w, m, feedIsAqueous),
+    // Each stage's liquid–liquid flash starts from its liquids of the pass before.
+    const starts: LiquidSplitStart[] = Array.from({ length: N }, () => ({}));
+    const cc = counterCurrentCascade(ctx, feed.kg, added, N, feedIsAqueous, (mix, w, m, n) =>
+      equilibrate(ctx, mix, T, pHOverride, w, m, feedIsAqueous, starts[n]),
     );
     if (!cc.converged)
       warn(
@@ -432,9 +440,9 @@ export function washOrExtraction(
         `The ${N} counter-current stages did not settle to a steady state within ${COUNTER_CURRENT_MAX_SWEEPS} passes (largest remaining change ${cc.change.toExponential(1)}): the amounts in the two outlets are approximate.`,
       );
     // The final pass gives the warnings and methods of every stage at the steady state.
-    const finals = cc.mixes.map((mix) => {
+    const finals = cc.mixes.map((mix, n) => {
       peak = Math.max(peak, streamVolume(ctx, mix, T));
-      return equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous);
+      return equilibrate(ctx, mix, T, pHOverride, W, M, feedIsAqueous, starts[n]);
     });
     last = finals[N - 1];
     stagePH.push(...finals.map((e) => e.pH));
@@ -561,7 +569,8 @@ export const COUNTER_CURRENT_MAX_SWEEPS = 200;
  * @param addedKg  added liquid, in total [kg per component]
  * @param N        number of stages [-], ≥ 1
  * @param feedIsAqueous  whether the feed phase is the aqueous one
- * @param stage    equilibrium of one stage's content (warnings and methods go to the given lists)
+ * @param stage    equilibrium of one stage's content (warnings and methods go to the given lists;
+ *                 the stage's number, 0-based, last)
  * @returns the stage contents [kg], the two outlets [kg], whether it converged and the last change [-]
  *
  * Source: stage balances as in Seader, Henley & Roper, Separation Process
@@ -580,6 +589,7 @@ export function counterCurrentCascade(
     mix: Record<string, number>,
     warnings: EngineWarning[],
     methods: MethodUsed[],
+    stage: number,
   ) => ReturnType<typeof equilibrate>,
 ): {
   mixes: Array<Record<string, number>>;
@@ -602,8 +612,8 @@ export function counterCurrentCascade(
   let converged = false;
   let change = Infinity;
   for (let sweep = 0; sweep < COUNTER_CURRENT_MAX_SWEEPS; sweep++) {
-    const next = mixes.map((mix) => {
-      const eq = stage(mix, [], []);
+    const next = mixes.map((mix, n) => {
+      const eq = stage(mix, [], [], n);
       const f: Record<string, number> = {};
       for (const id of ids) {
         const c = ctx.comps.get(id)!;
