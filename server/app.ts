@@ -9,6 +9,7 @@ import pg from 'pg';
 import type { Sequelize } from 'sequelize';
 import './http/express-augment';
 import { configurePassport } from './auth/passport';
+import { SessionCache } from './auth/session-cache';
 import { createSessionStore } from './auth/session-store';
 import type { AppConfig } from './config';
 import { database } from './db/sequelize';
@@ -43,6 +44,8 @@ import { tokensRouter } from './routes/tokens';
 import { createStorage, type FileStorage } from './storage';
 
 export const JSON_BODY_LIMIT = '1mb';
+/** The longest a cached session read is used, change notifications aside (server/auth/session-cache.ts). */
+export const SESSION_CACHE_TTL_MS = 30_000;
 
 export interface AppOptions {
   /** The database the health check probes; defaults to the process connection. */
@@ -117,10 +120,27 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
     idleTimeoutMillis: 30_000,
   });
   sessionPool.on('error', (error) => log(error));
+  // Reads (GET, HEAD) take the session, its user and roles from a short-lived cache that the
+  // database's change notifications keep true across servers; writes always read them afresh.
+  const sessionCache = new SessionCache({
+    connectionString: config.databaseUrl,
+    ttlMs: SESSION_CACHE_TTL_MS,
+    maxEntries: 10_000,
+    log,
+  });
+  sessionCache.start();
   const store = createSessionStore({
     pool: sessionPool,
     pruneSessionIntervalSeconds: 15 * 60,
     errorLog: (...args: unknown[]) => log(args),
+    cache: { cache: sessionCache, serveFromCache: false },
+  });
+  const readStore = createSessionStore({
+    pool: sessionPool,
+    // One store prunes expired sessions.
+    pruneSessionIntervalSeconds: false,
+    errorLog: (...args: unknown[]) => log(args),
+    cache: { cache: sessionCache, serveFromCache: true },
   });
   const passport = configurePassport();
   const security: Security = {
@@ -135,11 +155,11 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
     express.json({ limit: ROUTE_JSON_BODY_LIMIT }),
   );
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
-  api.use(
+  const sessionOptions = (sessionStore: typeof store) =>
     session({
       name: SESSION_COOKIE,
       secret: config.sessionSecret,
-      store,
+      store: sessionStore,
       resave: false,
       saveUninitialized: false,
       // Every request pushes expiry forward: the session ends after SESSION_IDLE_MINUTES of
@@ -151,7 +171,11 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
         secure: 'auto',
         maxAge: config.sessionIdleMinutes * 60_000,
       },
-    }),
+    });
+  const writeSession = sessionOptions(store);
+  const readSession = sessionOptions(readStore);
+  api.use((req, res, next) =>
+    (req.method === 'GET' || req.method === 'HEAD' ? readSession : writeSession)(req, res, next),
   );
   api.use(passport.initialize());
   api.use(passport.session());
@@ -230,6 +254,8 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
           ),
         );
       store.close();
+      readStore.close();
+      await sessionCache.close();
       await sessionPool.end().catch(() => undefined);
     },
   };

@@ -173,8 +173,9 @@ export interface AppConfig {
   chromatogramMaxBytes: number;
   /**
    * Connections each server process opens: `max` for the data (Sequelize), `sessionMax`
-   * for sessions and rate limits. N processes need N × (max + sessionMax) below the
-   * database's max_connections (docs/deployment.md).
+   * for sessions and rate limits (and one more listening for session and role changes). N
+   * processes need N × (max + sessionMax + 1) below the database's max_connections
+   * (docs/deployment.md).
    */
   databasePool: { max: number; sessionMax: number };
 }

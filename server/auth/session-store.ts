@@ -2,6 +2,7 @@ import connectPgSimple from 'connect-pg-simple';
 import session, { type SessionData } from 'express-session';
 import type pg from 'pg';
 import type { Role } from '@shared/schemas/session';
+import type { SessionCache } from './session-cache';
 
 /**
  * What the session read brings along: the signed-in user's row and their
@@ -35,16 +36,25 @@ export const TOUCH_INTERVAL_MS = 60_000;
 
 export interface SessionStoreOptions {
   pool: pg.Pool;
-  pruneSessionIntervalSeconds: number;
+  /** false: this store does not prune (another store on the same table does). */
+  pruneSessionIntervalSeconds: number | false;
   errorLog: (...args: unknown[]) => void;
+  /**
+   * Serve reads from this cache and fill it (server/auth/session-cache.ts). Every store
+   * invalidates it when it writes or ends a session, cached or not.
+   */
+  cache?: { cache: SessionCache; serveFromCache: boolean };
 }
 
 /**
- * connect-pg-simple's store with two changes that keep a signed-in read at one
- * statement for the session and the actor:
- * - get() reads the session, its user and the user's memberships in one statement
- *   (so a role change, a removal or a deleted account counts from the next request,
- *   on every server, with nothing to invalidate);
+ * connect-pg-simple's store with changes that keep a signed-in read at one statement
+ * for the session and the actor, or none:
+ * - get() reads the session, its user and the user's memberships in one statement;
+ * - with a cache that serves (the store for reads: GET and HEAD), get() answers from the
+ *   cache when it can; the database announces every change to a session, user or
+ *   membership, and each server drops what it cached for it (server/auth/session-cache.ts);
+ *   the store for writes always reads the database, so a change is authorized on what is
+ *   stored now;
  * - touch() writes the rolling expiry at most once a minute, not on every read.
  */
 export function createSessionStore(
@@ -67,6 +77,10 @@ export function createSessionStore(
       sid: string,
       callback: (error: unknown, session?: SessionData | null) => void,
     ): void {
+      const cache = options.cache?.cache;
+      const hit = options.cache?.serveFromCache ? cache?.get(sid) : undefined;
+      if (hit) return callback(null, loaded(JSON.parse(hit.json) as LoadedRow));
+      const generation = cache?.currentGeneration ?? 0;
       options.pool
         .query<{
           sess: SessionData | string;
@@ -96,19 +110,37 @@ export function createSessionStore(
             } catch {
               return this.destroy(sid, (error) => callback(error));
             }
-            sess[SESSION_LOAD] = {
-              expiresAt: Number(row.expires_ms),
-              user: row.user as SessionLoad['user'],
-              memberships: row.memberships as SessionLoad['memberships'],
+            const read: LoadedRow = {
+              sess,
+              load: {
+                expiresAt: Number(row.expires_ms),
+                user: row.user as SessionLoad['user'],
+                memberships: row.memberships as SessionLoad['memberships'],
+              },
             };
-            callback(null, sess);
+            cache?.put(
+              sid,
+              {
+                json: JSON.stringify(read),
+                userId: read.load.user?.id ?? null,
+                expiresAt: read.load.expiresAt,
+              },
+              generation,
+            );
+            callback(null, loaded(read));
           },
           (error: unknown) => callback(error),
         );
     }
 
     override set(sid: string, sess: SessionData, callback?: (error?: unknown) => void): void {
-      super.set(sid, withoutLoad(sess), callback);
+      options.cache?.cache.invalidateSession(sid);
+      super.set(sid, withoutLoad(sess), afterWrite(sid, callback));
+    }
+
+    override destroy(sid: string, callback?: (error?: unknown) => void): void {
+      options.cache?.cache.invalidateSession(sid);
+      super.destroy(sid, afterWrite(sid, callback));
     }
 
     override touch(sid: string, sess: SessionData, callback?: (error?: unknown) => void): void {
@@ -118,11 +150,30 @@ export function createSessionStore(
         callback?.();
         return;
       }
-      super.touch(sid, withoutLoad(sess), callback);
+      // The cached read holds the old expiry; the next request reads the new one.
+      super.touch(sid, withoutLoad(sess), afterWrite(sid, callback));
     }
   }
 
+  // A read that started before the write finished may have cached the old row.
+  const afterWrite =
+    (sid: string, callback?: (error?: unknown) => void) =>
+    (error?: unknown): void => {
+      options.cache?.cache.invalidateSession(sid);
+      callback?.(error);
+    };
+
   return new PhasewrightSessionStore();
+}
+
+interface LoadedRow {
+  sess: SessionData;
+  load: SessionLoad;
+}
+
+function loaded(read: LoadedRow): SessionData {
+  read.sess[SESSION_LOAD] = read.load;
+  return read.sess;
 }
 
 function withoutLoad(sess: SessionData): SessionData {

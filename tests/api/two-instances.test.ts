@@ -69,6 +69,15 @@ describe('two server instances on one database', () => {
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
     });
 
+  /**
+   * A read through B shows `expected` at once or within the moment the database's change
+   * notification takes to reach B (it is asynchronous; on a busy machine it can lose a race
+   * with the next request). A server that missed it would answer from its cache for 30 s.
+   */
+  async function settles(read: () => Promise<unknown>, expected: unknown): Promise<void> {
+    await expect.poll(read, { timeout: 3_000, interval: 25 }).toEqual(expected);
+  }
+
   async function signInOn(on: ServerProcess, user: User): Promise<Client> {
     const response = await call(on, 'POST', '/session', {
       body: { email: user.email, password: DEFAULT_PASSWORD },
@@ -97,6 +106,61 @@ describe('two server instances on one database', () => {
 
     expect((await call(b, 'DELETE', '/session', { as: client })).status).toBe(204);
     expect((await call(a, 'GET', '/session', { as: client })).status).toBe(401);
+  });
+
+  it('ends a session on the other instance, though that one had it cached', async () => {
+    const client = await signInOn(a, chemist);
+    // Read twice through B: the second read is answered from B's cached session.
+    for (let i = 0; i < 2; i++)
+      expect((await call(b, 'GET', '/session', { as: client })).status).toBe(200);
+    expect((await call(a, 'DELETE', '/session', { as: client })).status).toBe(204);
+    expect((await call(b, 'GET', '/session', { as: client })).status).toBe(401);
+    expect(
+      (await call(b, 'GET', `/workspaces/${workspace.id}/routes`, { as: client })).status,
+    ).toBe(401);
+  });
+
+  it('applies a role change, a removal and a password change made through one instance on the other, though it had the session cached', async () => {
+    const member = await buildMember(workspace, ['chemist']);
+    const admin = await buildMember(workspace, ['admin']);
+    const asMember = await signInOn(a, member);
+    const asAdmin = await signInOn(a, admin);
+    const rolesOnB = async () => {
+      const reply = await call(b, 'GET', '/session', { as: asMember });
+      if (reply.status !== 200) return reply.status;
+      return ((await reply.json()) as { workspaces: { roles: string[] }[] }).workspaces[0]?.roles;
+    };
+    expect(await rolesOnB()).toEqual(['chemist']);
+    expect(await rolesOnB()).toEqual(['chemist']);
+
+    const memberPath = `/workspaces/${workspace.id}/members/${member.id}`;
+    const demoted = await call(a, 'PATCH', memberPath, {
+      as: asAdmin,
+      body: { roles: ['reviewer'] },
+    });
+    expect(demoted.status).toBe(200);
+    await settles(rolesOnB, ['reviewer']);
+    // Behind every server's back too: the database announces the change, not the service.
+    await owner.query(`UPDATE memberships SET roles = ARRAY['chemist'] WHERE user_id = :id`, {
+      replacements: { id: member.id },
+    });
+    await settles(rolesOnB, ['chemist']);
+
+    expect((await call(a, 'DELETE', memberPath, { as: asAdmin })).status).toBe(204);
+    await settles(rolesOnB, undefined);
+    expect(
+      (await call(b, 'GET', `/workspaces/${workspace.id}/routes`, { as: asMember })).status,
+    ).toBe(404);
+
+    // A password change through A ends the admin's other sessions, cached on B or not.
+    const other = await signInOn(b, admin);
+    expect((await call(b, 'GET', '/session', { as: other })).status).toBe(200);
+    const changed = await call(a, 'POST', '/account/password', {
+      as: asAdmin,
+      body: { currentPassword: DEFAULT_PASSWORD, newPassword: 'a-new-password-invented-42' },
+    });
+    expect(changed.status).toBe(204);
+    await settles(async () => (await call(b, 'GET', '/session', { as: other })).status, 401);
   });
 
   it('saves a draft through one instance and reads it through the other', async () => {

@@ -22,6 +22,10 @@
  * block of docs/deployment.md. Targets (issue): route and list ≥ 30 % of the bare rate with
  * p99 ≤ 100 ms and no errors; evaluate ≥ 150 requests/s; idle RSS ≤ 120 MB.
  * LOAD_SECONDS sets the length of each measurement (default 10).
+ *
+ * For finding where the time goes: LOAD_ONLY=health,route,list measures only those loads on one
+ * instance (and rewrites no document); LOAD_PROFILE=folder starts the server with --cpu-prof and
+ * writes its CPU profile (.cpuprofile, open in a browser's developer tools) there on shutdown.
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -50,6 +54,8 @@ const IDLE_SECONDS = Number(process.env.LOAD_IDLE_SECONDS ?? 60);
  * measured as it is run.
  */
 const NODE_FLAGS = ['--max-semi-space-size=4'];
+const ONLY = process.env.LOAD_ONLY?.split(',').filter(Boolean);
+const PROFILE_DIR = process.env.LOAD_PROFILE;
 
 const adminUrl = (db = 'postgres') => `postgres://postgres@127.0.0.1:${pgPort}/${db}`;
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
@@ -91,7 +97,8 @@ async function waitFor(url: string, child: ChildProcess): Promise<void> {
 }
 
 function startServer(port: number): ChildProcess {
-  const child = spawn('node', [...NODE_FLAGS, 'dist-server/index.js'], {
+  const profile = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
+  const child = spawn('node', [...NODE_FLAGS, ...profile, 'dist-server/index.js'], {
     cwd: root,
     env: {
       ...process.env,
@@ -127,6 +134,14 @@ function startBare(port: number): ChildProcess {
   });
   children.push(child);
   return child;
+}
+
+/** SIGTERM and wait for the exit (the server writes its CPU profile as it exits). */
+async function stopAndWait(child: ChildProcess): Promise<void> {
+  if (child.exitCode !== null) return;
+  const exited = new Promise((resolve) => child.once('exit', resolve));
+  child.kill('SIGTERM');
+  await exited;
 }
 
 const rssMb = (pid: number) => {
@@ -351,6 +366,22 @@ async function main(): Promise<void> {
   };
   const one = [{ base: bases[0]!, users }];
   const bareTarget = [{ base: bareBase, users: [] }];
+
+  if (ONLY) {
+    await measure(loads[ONLY[0]!]!, one, USERS, 2);
+    const bareOnly = await measure(loads.bare!, bareTarget);
+    for (const key of ONLY) {
+      const figure = await measure(loads[key]!, one);
+      console.log(
+        `${figure.name}: ${fmt(figure.rps)}/s (${fmt((100 * figure.rps) / bareOnly.rps, 1)} % of bare ${fmt(bareOnly.rps)}/s), p50 ${fmt(figure.p50)} ms, p99 ${fmt(figure.p99)} ms, ${figure.errors + figure.non2xx} errors of ${figure.requests}`,
+      );
+    }
+    await stopAndWait(first);
+    stopChildren();
+    await adminQuery(`DROP DATABASE IF EXISTS ${DB} WITH (FORCE)`);
+    cluster?.stop();
+    return;
+  }
 
   console.log('warming up');
   await measure(loads.route!, one, USERS, 2);
