@@ -16,10 +16,10 @@ import type {
   Membership,
   OutboxMessage,
   Route,
-  RouteDraft,
   User,
 } from './models';
 import { Workspace } from './models';
+import type { RouteView } from './services/routes';
 import { abilitiesFor, can, type Actor } from './policies';
 
 export async function presentSession(
@@ -104,8 +104,8 @@ export function presentKeyTotals(totals: unknown): KeyTotals | null {
 
 const latest = (a: Date, b: Date) => (a > b ? a : b);
 
-export function presentRouteSummary(route: Route): RouteSummary {
-  const draft = route.draft as RouteDraft;
+export function presentRouteSummary(route: Route | RouteView): RouteSummary {
+  const draft = route.draft as RouteView['draft'];
   return {
     id: route.id,
     name: route.name,
@@ -120,14 +120,33 @@ export function presentRouteSummary(route: Route): RouteSummary {
   };
 }
 
-export function presentRouteDetail(route: Route, actor: Actor): RouteDetail {
-  const draft = route.draft as RouteDraft;
+/**
+ * The route detail as JSON text, its draft document spliced in as stored (readRoute()): the
+ * same reply presentRouteDetail() gives, without parsing the document and writing it again.
+ */
+export function presentRouteDetailJson(
+  route: RouteView,
+  documentJson: string,
+  actor: Actor,
+): string {
+  const { draft, ...head } = presentRouteDetail(route, actor, null);
+  const { document: _document, ...draftRest } = draft;
+  return `${JSON.stringify(head).slice(0, -1)},"draft":{"document":${documentJson},${JSON.stringify(draftRest).slice(1)}}`;
+}
+
+export function presentRouteDetail(
+  route: Route | RouteView,
+  actor: Actor,
+  /** The document to present; null when presentRouteDetailJson() splices it in. */
+  document: unknown = (route as Route).draft?.document,
+): RouteDetail {
+  const draft = route.draft as RouteView['draft'];
   const scope = { workspaceId: route.workspaceId as string };
   const writable = !route.archivedAt;
   return {
     ...presentRouteSummary(route),
     draft: {
-      document: draft.document as DraftDocument,
+      document: document as DraftDocument,
       version: draft.version,
       updatedAt: draft.updatedAt.toISOString(),
       updatedBy: { id: draft.updatedBy!.id, name: draft.updatedBy!.name },

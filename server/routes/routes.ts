@@ -18,7 +18,12 @@ import {
 } from '@shared/schemas/routes';
 import type { AppConfig } from '../config';
 import { defineRoute, withTransaction } from '../http/route';
-import { presentKeyTotals, presentRouteDetail, presentRouteSummary } from '../presenters';
+import {
+  presentKeyTotals,
+  presentRouteDetail,
+  presentRouteDetailJson,
+  presentRouteSummary,
+} from '../presenters';
 import { authorize } from '../policies';
 import { evaluateDraftInPool, saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
 import { loadWorkspace, memberWorkspace } from '../services/members';
@@ -28,6 +33,7 @@ import {
   listProjects,
   listRoutes,
   loadRoute,
+  readRoute,
   updateRoute,
 } from '../services/routes';
 
@@ -125,8 +131,8 @@ export function routesRouter(config: AppConfig): Router {
     handle: async ({ actor, params, transaction }) => {
       const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'route.read', { workspaceId: workspace.id });
-      const route = await loadRoute(workspace.id, params.routeId, transaction);
-      return { status: 200, body: presentRouteDetail(route, actor) };
+      const { route, documentJson } = await readRoute(workspace.id, params.routeId, transaction);
+      return { status: 200, json: presentRouteDetailJson(route, documentJson, actor) };
     },
   });
 
