@@ -10,14 +10,7 @@ import type { Role, Session } from '@shared/schemas/session';
 import type { ApiToken as ApiTokenPayload } from '@shared/schemas/tokens';
 import type { DraftDocument, KeyTotals, RouteDetail, RouteSummary } from '@shared/schemas/routes';
 import type { RouteTotals } from '@shared/engine/route/evaluate';
-import type {
-  ApiToken,
-  Invitation,
-  Membership,
-  OutboxMessage,
-  Route,
-  User,
-} from './models';
+import type { ApiToken, Invitation, Membership, OutboxMessage, Route, User } from './models';
 import { Workspace } from './models';
 import type { RouteView } from './services/routes';
 import { abilitiesFor, can, type Actor } from './policies';
