@@ -12,13 +12,17 @@ export function prefetchSession(queryClient: QueryClient): void {
   );
 }
 
-/** The route editor: its code, the session and the route, all at once. */
+/**
+ * The route editor: its code (the page and the editor itself, which the page loads lazily
+ * only once the route has arrived), the session and the route, all at once.
+ */
 export function prefetchRouteEditor(
   queryClient: QueryClient,
   workspaceId: string,
   routeId: string,
 ): void {
   void import('@/routes/route-editor');
+  void import('@/features/editor/components/route-editor');
   prefetchSession(queryClient);
   void import('@/features/routes/api/get-route').then(({ getRouteQueryOptions }) =>
     queryClient.prefetchQuery(getRouteQueryOptions(workspaceId, routeId)),
