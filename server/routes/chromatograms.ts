@@ -183,7 +183,7 @@ export function chromatogramsRouter(
         { withTrace: true },
         transaction,
       );
-      return { status: 200, body: presentChromatogramDetail(chromatogram, query.full) };
+      return { status: 200, body: await presentChromatogramDetail(chromatogram, query.full) };
     },
   });
 
@@ -266,7 +266,7 @@ export function chromatogramsRouter(
         actor.userId,
         transaction,
       );
-      return { status: 200, body: presentChromatogramDetail(updated, false) };
+      return { status: 200, body: await presentChromatogramDetail(updated, false) };
     },
   });
 

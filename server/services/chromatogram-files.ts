@@ -4,8 +4,6 @@
  * is. Anything else is refused (415); a file of a known kind that cannot be
  * read, or holds no data rows, is refused with the reason (422).
  */
-import { fileTypeFromBuffer } from 'file-type';
-import { isNetcdfClassic, parseAndi, parseDelimitedText, TraceError } from '@shared/chromatography';
 import { apiError } from '../errors';
 
 export type ReadUpload =
@@ -64,6 +62,9 @@ export async function readUpload(
   wantedSignal: string | null,
 ): Promise<ReadUpload> {
   if (content.length === 0) throw unreadable('The file is empty.');
+  // The readers come with the trace processing, loaded at the first upload (chromatograms.ts).
+  const { isNetcdfClassic, parseAndi, parseDelimitedText, TraceError } =
+    await import('@shared/chromatography');
   const bytes = new Uint8Array(content.buffer, content.byteOffset, content.byteLength);
 
   if (isNetcdfClassic(bytes)) {
@@ -91,6 +92,7 @@ export async function readUpload(
       'This is a netCDF-4 (HDF5) file; ANDI/AIA chromatograms are netCDF classic files.',
     );
 
+  const { fileTypeFromBuffer } = await import('file-type');
   const detected = await fileTypeFromBuffer(bytes);
   if (detected) {
     const document = DOCUMENT_TYPES[detected.ext];

@@ -8,13 +8,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import { Op, literal, type Transaction, type WhereOptions } from 'sequelize';
-import {
-  decimateTrace,
-  processTrace,
-  TraceError,
-  type IntegrationWindow,
-  type ProcessingResult,
-} from '@shared/chromatography';
+import type { IntegrationWindow, ProcessingResult } from '@shared/chromatography';
 import type {
   ChromatogramCreated,
   ChromatogramDetail,
@@ -110,12 +104,19 @@ interface Integrated {
   processing: StoredProcessing;
 }
 
-function integrate(
+/**
+ * The trace processing (peak picking, smoothing, decimation and their numeric packages), loaded
+ * at the first chromatogram read or stored rather than at boot: an idle server does not hold it.
+ */
+const traceProcessing = () => import('@shared/chromatography');
+
+async function integrate(
   timeMin: Float64Array,
   signal: Float64Array,
   windows: IntegrationWindow[] | null,
   readWarnings: string[],
-): Integrated {
+): Promise<Integrated> {
+  const { processTrace, TraceError } = await traceProcessing();
   let result: ProcessingResult;
   try {
     result = processTrace({ timeMin, signal }, { integration: windows?.length ? windows : null });
@@ -224,7 +225,7 @@ export async function uploadChromatogram(
     assignments: {},
   };
   if (read.kind === 'trace') {
-    const { peaks, processing } = integrate(read.timeMin, read.signal, null, read.warnings);
+    const { peaks, processing } = await integrate(read.timeMin, read.signal, null, read.warnings);
     const document = await documentOf(route, fields.revision, null);
     const allowed = new Set((document?.components ?? []).map((c) => c.id));
     const assignments = assignByRetention(
@@ -415,7 +416,7 @@ export async function updateChromatogram(
       : null;
     const oldPeaks = chromatogram.peaks;
     const oldAssignments = chromatogram.assignments;
-    const { peaks, processing } = integrate(
+    const { peaks, processing } = await integrate(
       unpackFloats(chromatogram.traceTime!),
       unpackFloats(chromatogram.traceSignal!),
       windows,
@@ -565,7 +566,11 @@ export function presentChromatogramSummary(c: Chromatogram): ChromatogramSummary
   };
 }
 
-export function presentChromatogramDetail(c: Chromatogram, full: boolean): ChromatogramDetail {
+export async function presentChromatogramDetail(
+  c: Chromatogram,
+  full: boolean,
+): Promise<ChromatogramDetail> {
+  const { decimateTrace } = await traceProcessing();
   let trace: ChromatogramDetail['trace'] = null;
   let decimated = false;
   if (c.kind === 'trace' && c.traceTime && c.traceSignal) {

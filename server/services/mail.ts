@@ -1,4 +1,4 @@
-import nodemailer, { type Transporter } from 'nodemailer';
+import type { Transporter } from 'nodemailer';
 import type { Transaction } from 'sequelize';
 import { ROLE_LABELS, type Role } from '@shared/schemas/session';
 import { enqueue, QUEUES } from './jobs';
@@ -119,7 +119,8 @@ export async function queueMail(
   );
 }
 
-export function createMailTransport(settings: MailSettings): Transporter {
+export async function createMailTransport(settings: MailSettings): Promise<Transporter> {
+  const { default: nodemailer } = await import('nodemailer');
   return nodemailer.createTransport({ url: settings.smtpUrl, ignoreTLS: settings.ignoreTLS });
 }
 

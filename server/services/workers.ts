@@ -29,13 +29,16 @@ export async function startWorkers(options: {
     Math.min(60, options.staleSeconds / 2) * 1000,
   );
   sweep.unref();
-  const transport: Transporter = createMailTransport(options.mail);
+  // The SMTP client is made at the first message, not at boot (an idle server sends no mail).
+  let transport: Promise<Transporter> | null = null;
   await boss.work<MailMessage>(
     QUEUES.mailSend,
     { pollingIntervalSeconds: options.pollSeconds, batchSize: 5 },
     async (jobs) => {
       // A thrown error fails the whole batch and pg-boss retries it with backoff.
-      for (const job of jobs) await deliverMail(transport, options.mail, job.data);
+      transport ??= createMailTransport(options.mail);
+      const smtp = await transport;
+      for (const job of jobs) await deliverMail(smtp, options.mail, job.data);
     },
   );
   const stopMonteCarlo = await startMonteCarloWorker(options.pollSeconds);
@@ -45,6 +48,6 @@ export async function startWorkers(options: {
     await stopOptimise();
     await stopMonteCarlo();
     await boss.offWork(QUEUES.mailSend);
-    transport.close();
+    (await transport?.catch(() => null))?.close();
   };
 }
