@@ -18,6 +18,13 @@ describe('loadConfig', () => {
     });
   });
 
+  it('retires idle engine threads after ENGINE_IDLE_SECONDS (default 60; 0 keeps them)', () => {
+    expect(loadConfig({}).pool.idleMs).toBe(60_000);
+    expect(loadConfig({ ENGINE_IDLE_SECONDS: '0.5' }).pool.idleMs).toBe(500);
+    expect(loadConfig({ ENGINE_IDLE_SECONDS: '0' }).pool.idleMs).toBe(0);
+    expect(() => loadConfig({ ENGINE_IDLE_SECONDS: '-1' })).toThrow(ConfigError);
+  });
+
   it('requires SESSION_SECRET in production and refuses to seed there', () => {
     expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(ConfigError);
     const problems = (() => {
