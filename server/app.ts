@@ -15,6 +15,7 @@ import type { AppConfig } from './config';
 import { database } from './db/sequelize';
 import { authenticate, sessionLifetime } from './middleware/authenticate';
 import { trackInFlight } from './http/in-flight';
+import { staticHeaders } from './http/static-headers';
 import type { Security } from './http/security';
 import { createSignInThrottle } from './services/sign-in-throttle';
 import { csrfProtection } from './middleware/csrf';
@@ -85,26 +86,29 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
   app.locals.checkReplies = config.env !== 'production';
   app.set('trust proxy', config.trustProxy);
 
+  // The security headers are the same on every response: worked out once, set per response.
   app.use(
-    helmet({
-      contentSecurityPolicy: {
-        useDefaults: true,
-        directives: {
-          defaultSrc: ["'self'"],
-          scriptSrc: ["'self'"],
-          // React Flow positions nodes with style attributes.
-          styleSrc: ["'self'", "'unsafe-inline'"],
-          fontSrc: ["'self'", 'data:'],
-          imgSrc: ["'self'", 'data:', 'blob:'],
-          workerSrc: ["'self'", 'blob:'],
-          connectSrc: ["'self'"],
-          objectSrc: ["'none'"],
-          frameAncestors: ["'none'"],
-          // The app is often reached over plain http://127.0.0.1; upgrading would break it.
-          upgradeInsecureRequests: null,
+    staticHeaders(
+      helmet({
+        contentSecurityPolicy: {
+          useDefaults: true,
+          directives: {
+            defaultSrc: ["'self'"],
+            scriptSrc: ["'self'"],
+            // React Flow positions nodes with style attributes.
+            styleSrc: ["'self'", "'unsafe-inline'"],
+            fontSrc: ["'self'", 'data:'],
+            imgSrc: ["'self'", 'data:', 'blob:'],
+            workerSrc: ["'self'", 'blob:'],
+            connectSrc: ["'self'"],
+            objectSrc: ["'none'"],
+            frameAncestors: ["'none'"],
+            // The app is often reached over plain http://127.0.0.1; upgrading would break it.
+            upgradeInsecureRequests: null,
+          },
         },
-      },
-    }),
+      }),
+    ),
   );
 
   // API replies and the HTML page are compressed per request (above 1 kB); built assets are

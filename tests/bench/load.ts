@@ -25,7 +25,8 @@
  *
  * For finding where the time goes: LOAD_ONLY=health,route,list measures only those loads on one
  * instance (and rewrites no document); LOAD_PROFILE=folder starts the server with --cpu-prof and
- * writes its CPU profile (.cpuprofile, open in a browser's developer tools) there on shutdown.
+ * writes its CPU profile (.cpuprofile, open in a browser's developer tools) there on shutdown;
+ * LOAD_SERVER_ROOT=folder measures the server of another checkout of the product (compiled there).
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -56,6 +57,8 @@ const IDLE_SECONDS = Number(process.env.LOAD_IDLE_SECONDS ?? 60);
 const NODE_FLAGS = ['--max-semi-space-size=4'];
 const ONLY = process.env.LOAD_ONLY?.split(',').filter(Boolean);
 const PROFILE_DIR = process.env.LOAD_PROFILE;
+/** Measure the server compiled in another checkout (its dist-server/), e.g. the previous commit. */
+const SERVER_ROOT = process.env.LOAD_SERVER_ROOT ?? root;
 
 const adminUrl = (db = 'postgres') => `postgres://postgres@127.0.0.1:${pgPort}/${db}`;
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
@@ -99,7 +102,7 @@ async function waitFor(url: string, child: ChildProcess): Promise<void> {
 function startServer(port: number): ChildProcess {
   const profile = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
   const child = spawn('node', [...NODE_FLAGS, ...profile, 'dist-server/index.js'], {
-    cwd: root,
+    cwd: SERVER_ROOT,
     env: {
       ...process.env,
       NODE_ENV: 'production',
@@ -283,7 +286,7 @@ const fmt = (n: number, digits = 0) => n.toFixed(digits);
 async function main(): Promise<void> {
   console.log('preparing the database and compiling the server');
   await prepareDatabase();
-  execFileSync('node', ['server/build/server.mjs'], { cwd: root, stdio: 'ignore' });
+  execFileSync('node', ['server/build/server.mjs'], { cwd: SERVER_ROOT, stdio: 'ignore' });
 
   const ports = [BASE_PORT, BASE_PORT + 1];
   const barePort = BASE_PORT + 2;
