@@ -10,7 +10,15 @@ import type { Role, Session } from '@shared/schemas/session';
 import type { ApiToken as ApiTokenPayload } from '@shared/schemas/tokens';
 import type { DraftDocument, KeyTotals, RouteDetail, RouteSummary } from '@shared/schemas/routes';
 import type { RouteTotals } from '@shared/engine/route/evaluate';
-import type { ApiToken, Invitation, Membership, OutboxMessage, Route, User } from './models';
+import type {
+  ApiToken,
+  Invitation,
+  Membership,
+  OutboxMessage,
+  Route,
+  RouteDraft,
+  User,
+} from './models';
 import { Workspace } from './models';
 import type { RouteView } from './services/routes';
 import { abilitiesFor, can, type Actor } from './policies';
@@ -98,7 +106,7 @@ export function presentKeyTotals(totals: unknown): KeyTotals | null {
 const latest = (a: Date, b: Date) => (a > b ? a : b);
 
 export function presentRouteSummary(route: Route | RouteView): RouteSummary {
-  const draft = route.draft as RouteView['draft'];
+  const draft = route.draft as RouteView['draft'] | RouteDraft;
   return {
     id: route.id,
     name: route.name,
@@ -108,7 +116,7 @@ export function presentRouteSummary(route: Route | RouteView): RouteSummary {
     updatedAt: latest(route.updatedAt, draft.updatedAt).toISOString(),
     draftVersion: draft.version,
     version: route.version,
-    totals: presentKeyTotals(draft.totals),
+    totals: 'keyTotals' in draft ? draft.keyTotals : presentKeyTotals(draft.totals),
     stepCount: draft.stepCount,
   };
 }

@@ -138,6 +138,17 @@ describe('routes of a workspace', () => {
     expect(route.totals!.purityPct).toBeGreaterThan(0);
     expect(route.totals!.pmi).toBeGreaterThan(1);
     expect(route.draft.evaluationError).toBeNull();
+    // A read and the list take the key totals (and the document) from the stored rows without
+    // loading them whole: the same values as the reply of the write, which did.
+    const read = await asReviewer.agent.get(`${routesPath()}/${route.id}`);
+    expect(read.body).toEqual({ ...route, abilities: read.body.abilities });
+    expect(read.body.draft.document).toEqual(demo());
+    const listed = await asReviewer.agent.get(
+      `${routesPath()}?q=${encodeURIComponent('From the demo')}`,
+    );
+    expect(listed.body.items.find((r: { id: string }) => r.id === route.id).totals).toEqual(
+      route.totals,
+    );
     // The project name matched the existing one, ignoring case.
     const projects = projectListSchema.parse(
       (await asReviewer.agent.get(`/api/v1/workspaces/${workspace.id}/projects`)).body,
