@@ -12,6 +12,7 @@ import {
   monteCarloBlockCount,
 } from '@shared/engine/route/monte-carlo';
 import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
+import { AppError } from '../../server/errors';
 import { createEnginePool, type EnginePool } from '../../server/pool';
 import { BLOCK_DRAWS, runMonteCarloOnPool } from '../../server/services/monte-carlo-blocks';
 
@@ -103,6 +104,26 @@ describe('Monte Carlo blocks on the engine pool', () => {
     // The pool still answers after its workers were stopped.
     const again = await runMonteCarloOnPool(two, { cacheKey: 'again', document, draws, seed });
     expect(again).toEqual(sequential);
+  });
+
+  it('stops the run at the time limit of a block (evaluation_timeout)', async () => {
+    // A block of 20 draws of the demo route takes far longer than 50 ms.
+    const short = createEnginePool({
+      size: 2,
+      maxQueue: 50,
+      taskTimeoutMs: 50,
+      workerMemoryMb: 512,
+    });
+    pools.push(short);
+    const error = await runMonteCarloOnPool(short, {
+      cacheKey: 'timed-out',
+      document,
+      draws: 200,
+      seed,
+    }).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(AppError);
+    expect((error as AppError).body.code).toBe('evaluation_timeout');
+    expect(short.stats().busy).toBe(0);
   });
 
   it('stops the run when progress cannot be written (a job cancelled elsewhere)', async () => {
