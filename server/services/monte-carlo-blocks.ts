@@ -5,7 +5,9 @@
  * merged in block order when all have come back, so a seed gives the same
  * numbers with any number of workers and whatever order the blocks finish
  * in. Each lane asks for its next block only when its last one is done, so
- * other requests queued meanwhile are served between blocks.
+ * other requests queued meanwhile are served between blocks: an evaluation
+ * that arrives while a run holds every worker waits for the first block in
+ * flight to finish (one block is 20 draws of the run's route).
  *
  * This module imports no engine code (the web thread runs it); the block
  * layout is repeated here as a number and checked by the tests.
