@@ -833,7 +833,8 @@ export function liquidLiquidSplit(
       }
       // Stop when converged, when the trial has fallen onto the feed itself (the trivial solution:
       // no split from this start; within 1e-5, the distance below which a trial is not taken
-      // anyway, so stopping there changes no answer), or when it is clearly unstable and close
+      // anyway: only a trial that came that close and then left the feed is missed), or when it
+      // is clearly unstable and close
       // enough to start the flash from (the flash converges to the same phases from there).
       if (change < 1e-12 || distance <= 1e-5 || (sumW > 1 + 1e-4 && change < 1e-6)) break;
     }
