@@ -12,7 +12,9 @@ import {
   type IncludeOptions,
   type Transaction,
   type WhereOptions,
+  QueryTypes,
 } from 'sequelize';
+import { database } from '../db/sequelize';
 import type { DraftDocument, KeyTotals, RouteSort } from '@shared/schemas/routes';
 import { badRequest, notFound, versionConflict } from '../errors';
 import { Project, Route, RouteDraft, User } from '../models';
@@ -22,7 +24,6 @@ import {
   matchingRows,
   trigramSearchable,
   probeMatches,
-  withIds,
   keyAttributes,
   keyOrder,
   pageOf,
@@ -34,38 +35,28 @@ import { createDraft, type DraftEvaluation } from './drafts';
 const KEY_TOTALS = `CASE WHEN "draft"."totals" IS NULL OR jsonb_typeof("draft"."totals") = 'null' THEN NULL
   ELSE jsonb_build_object('yieldPct', "draft"."totals" -> 'yieldPct', 'purityPct', "draft"."totals" -> 'purityWtPct', 'pmi', "draft"."totals" -> 'pmi') END`;
 
-/**
- * The draft's document: parsed with everything (for writes, which present what they saved),
- * left out, or as the JSON text stored (as `documentJson`); but for 'parsed', the draft's totals
- * come as the key totals only (`keyTotals`).
- */
-type DocumentAs = 'parsed' | 'none' | 'text';
+/** What a route read and a list row select (RouteView), named as `nest` builds it. */
+const ROUTE_VIEW_COLUMNS = `"Route"."id", "Route"."name", "Route"."archived_at" AS "archivedAt",
+  "Route"."version", "Route"."workspace_id" AS "workspaceId", "Route"."updated_at" AS "updatedAt",
+  "project"."id" AS "project.id", "project"."name" AS "project.name",
+  "owner"."id" AS "owner.id", "owner"."name" AS "owner.name",
+  "draft"."version" AS "draft.version", "draft"."updated_at" AS "draft.updatedAt",
+  "draft"."step_count" AS "draft.stepCount", "draft"."evaluation_error" AS "draft.evaluationError",
+  ${KEY_TOTALS} AS "draft.keyTotals",
+  "updatedBy"."id" AS "draft.updatedBy.id", "updatedBy"."name" AS "draft.updatedBy.name"`;
+const ROUTE_VIEW_FROM = `routes AS "Route"
+  LEFT JOIN projects AS "project" ON "project"."id" = "Route"."project_id"
+  LEFT JOIN users AS "owner" ON "owner"."id" = "Route"."owner_id"
+  JOIN route_drafts AS "draft" ON "draft"."route_id" = "Route"."id"
+  LEFT JOIN users AS "updatedBy" ON "updatedBy"."id" = "draft"."updated_by_id"`;
 
-const summaryIncludes = (document: DocumentAs): IncludeOptions[] => [
+const routeIncludes: IncludeOptions[] = [
   { model: Project, as: 'project', attributes: ['id', 'name'] },
   { model: User, as: 'owner', attributes: ['id', 'name'] },
   {
     model: RouteDraft,
     as: 'draft',
     required: true,
-    // A read takes the three key totals out of the stored totals (a few kB each) in SQL.
-    attributes:
-      document === 'parsed'
-        ? undefined
-        : {
-            exclude: ['document', 'totals'],
-            include: [
-              [literal(KEY_TOTALS), 'keyTotals'],
-              ...(document === 'text'
-                ? [
-                    [literal('"draft"."document"::text'), 'documentJson'] as [
-                      ReturnType<typeof literal>,
-                      string,
-                    ],
-                  ]
-                : []),
-            ],
-          },
     include: [{ model: User, as: 'updatedBy', attributes: ['id', 'name'] }],
   },
 ];
@@ -126,16 +117,15 @@ export async function listRoutes(
   transaction: Transaction | null,
 ): Promise<{ routes: RouteView[]; nextCursor: string | null }> {
   const escape = (value: string) => Route.sequelize!.escape(value);
-  const conditions: WhereOptions[] = [
-    { workspaceId },
-    { archivedAt: query.archived ? { [Op.ne]: null } : null },
+  // SQL text throughout: building the query from options was a large part of a page's work.
+  const conditions: string[] = [
+    `"Route"."workspace_id" = ${escape(workspaceId)}`,
+    `"Route"."archived_at" IS ${query.archived ? 'NOT NULL' : 'NULL'}`,
   ];
   if (query.q) {
     const pattern = escape(likePattern(query.q));
     const projects = `SELECT p.id FROM projects p WHERE p.workspace_id = ${escape(workspaceId)} AND p.name ILIKE ${pattern}`;
-    const filter = literal(
-      `("Route"."name" ILIKE ${pattern} OR "Route"."project_id" IN (${projects}))`,
-    ) as unknown as WhereOptions;
+    const filter = `("Route"."name" ILIKE ${pattern} OR "Route"."project_id" IN (${projects}))`;
     // A selective term starts from its trigram matches (routes_name_trgm_idx,
     // projects_name_trgm_idx); see matchingRows() in keyset.ts for why and when.
     const ids = trigramSearchable(query.q)
@@ -144,43 +134,32 @@ export async function listRoutes(
           transaction,
         )
       : null;
-    conditions.push(ids === null ? filter : withIds('"Route"."id"', ids));
+    conditions.push(
+      ids === null
+        ? filter
+        : ids.length
+          ? `"Route"."id" IN (${ids.map((id) => escape(id)).join(', ')})`
+          : 'false',
+    );
   }
 
   if (query.cursor) {
     const after = decodeRouteCursor(query.cursor, query.sort);
     conditions.push(
-      literal(
-        query.sort === 'changed'
-          ? `("Route"."changed_at", "Route"."id") < (${escape(after.key)}::timestamptz, ${escape(after.id)}::uuid)`
-          : `(${NAME_KEY}, "Route"."id") > (${escape(after.key)}, ${escape(after.id)}::uuid)`,
-      ),
+      query.sort === 'changed'
+        ? `("Route"."changed_at", "Route"."id") < (${escape(after.key)}::timestamptz, ${escape(after.id)}::uuid)`
+        : `(${NAME_KEY}, "Route"."id") > (${escape(after.key)}, ${escape(after.id)}::uuid)`,
     );
   }
-  const rows = (await Route.findAll({
-    where: { [Op.and]: conditions },
-    attributes: {
-      include: [[literal(query.sort === 'changed' ? CHANGED_KEY : NAME_KEY), 'sortKey']],
-    },
-    include: summaryIncludes('none'),
-    order:
-      query.sort === 'changed'
-        ? [
-            [literal('"Route"."changed_at"'), 'DESC'],
-            ['id', 'DESC'],
-          ]
-        : [
-            [literal(NAME_KEY), 'ASC'],
-            ['id', 'ASC'],
-          ],
-    limit: query.limit + 1,
-    // One row per route (every include is to-one), so LIMIT counts routes.
-    subQuery: false,
-    transaction,
+  const rows = await database().query<RouteView & { sortKey: string }>(
+    `SELECT ${ROUTE_VIEW_COLUMNS}, ${query.sort === 'changed' ? CHANGED_KEY : NAME_KEY} AS "sortKey"
+       FROM ${ROUTE_VIEW_FROM}
+      WHERE ${conditions.join(' AND ')}
+      ORDER BY ${query.sort === 'changed' ? '"Route"."changed_at" DESC, "Route"."id" DESC' : `${NAME_KEY} ASC, "Route"."id" ASC`}
+      LIMIT ${query.limit + 1}`,
     // Plain rows: building model instances was most of a page's work.
-    raw: true,
-    nest: true,
-  })) as unknown as (RouteView & { sortKey: string })[];
+    { type: QueryTypes.SELECT, nest: true, transaction },
+  );
   const routes = rows.slice(0, query.limit);
   const last = routes.at(-1);
   return {
@@ -225,13 +204,12 @@ export async function readRoute(
   routeId: string,
   transaction: Transaction | null,
 ): Promise<{ route: RouteView; documentJson: string }> {
-  const row = (await Route.findOne({
-    where: { id: routeId, workspaceId },
-    include: summaryIncludes('text'),
-    transaction,
-    raw: true,
-    nest: true,
-  })) as unknown as (RouteView & { draft: { documentJson: string } }) | null;
+  const [row] = await database().query<RouteView & { draft: { documentJson: string } }>(
+    `SELECT ${ROUTE_VIEW_COLUMNS}, "draft"."document"::text AS "draft.documentJson"
+       FROM ${ROUTE_VIEW_FROM}
+      WHERE "Route"."id" = $routeId AND "Route"."workspace_id" = $workspaceId`,
+    { type: QueryTypes.SELECT, nest: true, bind: { routeId, workspaceId }, transaction },
+  );
   if (!row) throw notFound();
   const { documentJson, ...draft } = row.draft;
   return { route: { ...row, ...nullIncludes(row), draft }, documentJson };
@@ -253,7 +231,7 @@ export async function loadRoute(
 ): Promise<Route> {
   const route = await Route.findOne({
     where: { id: routeId, workspaceId },
-    include: summaryIncludes('parsed'),
+    include: routeIncludes,
     transaction,
   });
   if (!route) throw notFound();
