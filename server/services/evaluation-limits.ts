@@ -36,6 +36,11 @@ export function checkStepDraws(steps: number, draws: number, limits: EvaluationL
 
 const running = new Map<string, number>();
 
+/** Calculations the person has running on this server now (their slots in use). */
+export function calculationsRunning(userId: string): number {
+  return running.get(userId) ?? 0;
+}
+
 /** Runs `work` in one of the person's calculation slots; 429 when they are all taken. */
 export async function inUserSlot<T>(
   userId: string,

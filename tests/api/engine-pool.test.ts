@@ -11,6 +11,7 @@ import type { RouteDocumentInput } from '@shared/schemas/route';
 import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
 import { generateRoute } from '../fixtures/routes/generate';
 import { Membership, type Workspace } from '../../server/models';
+import { calculationsRunning } from '../../server/services/evaluation-limits';
 import { useTestServer } from '../support/app';
 import { buildMember, buildWorkspace, signIn, type SignedIn } from '../support/factories';
 
@@ -36,14 +37,19 @@ const post = (who: SignedIn, path: string, body: unknown) =>
     .set('X-CSRF-Token', who.csrfToken)
     .send(body as object);
 
-async function untilAllWorkersBusy(): Promise<void> {
+/**
+ * Waits until the person's calculation holds its slot and every worker is busy. Waiting for a
+ * busy pool alone is not enough: a task left from an earlier request can fill the worker before
+ * the person's request has taken its slot, and the next request then takes it instead.
+ */
+async function untilRunning(who: SignedIn): Promise<void> {
   const deadline = Date.now() + 30_000;
   while (Date.now() < deadline) {
     const { busy, size } = server.runtime.pool.stats();
-    if (busy >= size) return;
+    if (calculationsRunning(who.session.user.id) > 0 && busy >= size) return;
     await new Promise((resolve) => setTimeout(resolve, 10));
   }
-  throw new Error('the pool never became busy');
+  throw new Error('the calculation never started');
 }
 
 describe('the engine pool', () => {
@@ -102,7 +108,7 @@ describe('the engine pool', () => {
       draws: 20,
       seed: 2,
     }).then((response) => response);
-    await untilAllWorkersBusy();
+    await untilRunning(asChemist);
     const second = await post(asChemist, '/evaluate', { document: demo() });
     expect(second.status).toBe(429);
     expect(second.body.error.code).toBe('too_many_evaluations');
