@@ -22,7 +22,6 @@ import {
   presentKeyTotals,
   presentRouteDetail,
   presentRouteDetailJson,
-  presentRouteSummary,
 } from '../presenters';
 import { authorize } from '../policies';
 import { evaluateDraftInPool, saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
@@ -71,9 +70,10 @@ export function routesRouter(config: AppConfig): Router {
       const workspace = memberWorkspace(actor, params.workspaceId);
       authorize(actor, 'route.list', { workspaceId: workspace.id });
       const page = await listRoutes(workspace.id, query, transaction);
+      // The items come as JSON text from the database (listRoutes()).
       return {
         status: 200,
-        body: { items: page.routes.map(presentRouteSummary), nextCursor: page.nextCursor },
+        json: `{"items":[${page.itemsJson.join(',')}],"nextCursor":${JSON.stringify(page.nextCursor)}}`,
       };
     },
   });
