@@ -18,11 +18,7 @@ import {
 } from '@shared/schemas/routes';
 import type { AppConfig } from '../config';
 import { defineRoute, withTransaction } from '../http/route';
-import {
-  presentKeyTotals,
-  presentRouteDetail,
-  presentRouteDetailJson,
-} from '../presenters';
+import { presentKeyTotals, presentRouteDetail, presentRouteDetailJson } from '../presenters';
 import { authorize } from '../policies';
 import { evaluateDraftInPool, saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
 import { loadWorkspace, memberWorkspace } from '../services/members';
