@@ -67,7 +67,7 @@ import {
 } from '../unitops/simple';
 
 /** Version of the route engine; stored with every revision's results. */
-export const ENGINE_VERSION = '1.1.0';
+export const ENGINE_VERSION = '1.2.0';
 
 /** Relative closure required of every component balance at every step. */
 export const MASS_BALANCE_TOLERANCE = 1e-9;

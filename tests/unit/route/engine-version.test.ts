@@ -1,0 +1,55 @@
+/**
+ * ENGINE_VERSION is stored with every revision's results and in its signed
+ * content hash, so it must change whenever the engine's answers change —
+ * otherwise two revisions computed by different engines look alike. This
+ * test pins a fingerprint of the engine's answers (the route corpus and a
+ * seeded Monte Carlo run, every number to 9 significant digits, messages
+ * included) to the version. When it fails, the engine's answers changed:
+ * raise ENGINE_VERSION in shared/engine/route/evaluate.ts, say why in the
+ * commit, and pin the new fingerprint below under the new version.
+ */
+import { createHash } from 'node:crypto';
+import { describe, expect, it } from 'vitest';
+import { ENGINE_VERSION, evaluateRoute } from '../../../shared/engine/route/evaluate';
+import { monteCarlo } from '../../../shared/engine/route/monte-carlo';
+import { routeCorpus } from '../../fixtures/routes/corpus';
+import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
+
+/** The fingerprint of each engine version's answers (the latest is the one checked). */
+const FINGERPRINTS: Record<string, string> = {
+  '1.2.0': '7a08d8adb5cb8fced4c7dad60deaaf4ee75e223ae7a48adecebf9ad4cb9d3c29',
+};
+
+/** JSON with every number to 9 significant digits (−0 written as 0; NaN and ±∞ kept apart). */
+function rounded(value: unknown): string {
+  return JSON.stringify(value, (_k, v: unknown) => {
+    if (typeof v !== 'number') return v;
+    if (!Number.isFinite(v)) return `#${String(v)}`;
+    return v === 0 ? 0 : Number(v.toPrecision(9));
+  });
+}
+
+function fingerprint(): string {
+  const hash = createHash('sha256');
+  for (const [name, doc] of routeCorpus()) hash.update(name).update(rounded(evaluateRoute(doc)));
+  hash.update(rounded(monteCarlo(demoAmideIsolation, { draws: 40, seed: 7 })));
+  return hash.digest('hex');
+}
+
+describe('the engine version', () => {
+  it('has a pinned fingerprint', () => {
+    expect(Object.keys(FINGERPRINTS)).toContain(ENGINE_VERSION);
+  });
+
+  it("changes when the engine's answers change", () => {
+    const found = fingerprint();
+    expect(
+      found,
+      `The engine's answers changed but ENGINE_VERSION is still ${ENGINE_VERSION}: raise it and pin ${found}`,
+    ).toBe(FINGERPRINTS[ENGINE_VERSION]);
+  });
+
+  it('gives the same fingerprint twice (the check is deterministic)', () => {
+    expect(fingerprint()).toBe(fingerprint());
+  });
+});
