@@ -41,6 +41,9 @@ async function tableExists(owner: Sequelize, schema: string, table: string): Pro
   return rows[0]?.found ?? false;
 }
 
+// Arbitrary but fixed: identifies "grants to the server role" among advisory locks.
+const GRANT_LOCK_KEY = 724_551_902;
+
 /**
  * Grants the server role what it needs and no more. Runs as the owner after
  * every migration (idempotent), so new tables are covered. Does nothing when
@@ -55,6 +58,9 @@ export async function grantServerRole(owner: Sequelize, serverUrl: string): Prom
   const role = quoteIdent(server);
   await owner.transaction(async (transaction) => {
     const run = (sql: string) => owner.query(sql, { transaction });
+    // Instances starting together would grant at once, and PostgreSQL refuses concurrent
+    // changes to one table's privileges ("tuple concurrently updated"): one at a time.
+    await run(`SELECT pg_advisory_xact_lock(${GRANT_LOCK_KEY})`);
     await run(`GRANT USAGE ON SCHEMA public TO ${role}`);
     await run(`GRANT SELECT, INSERT, UPDATE, DELETE ON ALL TABLES IN SCHEMA public TO ${role}`);
     await run(`GRANT USAGE, SELECT ON ALL SEQUENCES IN SCHEMA public TO ${role}`);
