@@ -97,10 +97,11 @@ export const presentOutboxMessage = (message: OutboxMessage): OutboxPayload => (
   receivedAt: message.receivedAt.toISOString(),
 });
 
-export function presentKeyTotals(totals: unknown): KeyTotals | null {
+/** The figures a routes list shows, from stored totals and the engine version that computed them. */
+export function presentKeyTotals(totals: unknown, engineVersion: string | null): KeyTotals | null {
   if (!totals) return null;
   const t = totals as RouteTotals;
-  return { yieldPct: t.yieldPct, purityPct: t.purityWtPct, pmi: t.pmi };
+  return { yieldPct: t.yieldPct, purityPct: t.purityWtPct, pmi: t.pmi, engineVersion };
 }
 
 const latest = (a: Date, b: Date) => (a > b ? a : b);
@@ -116,7 +117,8 @@ export function presentRouteSummary(route: Route | RouteView): RouteSummary {
     updatedAt: latest(route.updatedAt, draft.updatedAt).toISOString(),
     draftVersion: draft.version,
     version: route.version,
-    totals: 'keyTotals' in draft ? draft.keyTotals : presentKeyTotals(draft.totals),
+    totals:
+      'keyTotals' in draft ? draft.keyTotals : presentKeyTotals(draft.totals, draft.engineVersion),
     stepCount: draft.stepCount,
   };
 }

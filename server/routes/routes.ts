@@ -19,6 +19,7 @@ import {
 import type { AppConfig } from '../config';
 import { defineRoute, withTransaction } from '../http/route';
 import { presentKeyTotals, presentRouteDetail, presentRouteDetailJson } from '../presenters';
+import { ENGINE_VERSION } from '@shared/engine/version';
 import { authorize } from '../policies';
 import { evaluateDraftInPool, saveDraft, PROCESS_SAFETY_NOTE } from '../services/drafts';
 import { loadWorkspace, memberWorkspace } from '../services/members';
@@ -235,7 +236,7 @@ export function routesRouter(config: AppConfig): Router {
         body: {
           version: draft.version,
           updatedAt: draft.updatedAt.toISOString(),
-          totals: presentKeyTotals(evaluation.totals),
+          totals: presentKeyTotals(evaluation.totals, ENGINE_VERSION),
           evaluationError: evaluation.evaluationError,
           warnings: evaluation.warnings,
           processSafetyNote: PROCESS_SAFETY_NOTE,

@@ -111,5 +111,6 @@ export function keyTotals(result: RouteResult): KeyTotals {
     yieldPct: finiteOrNull(result.totals.yieldPct),
     purityPct: finiteOrNull(result.totals.purityWtPct),
     pmi: finiteOrNull(result.totals.pmi),
+    engineVersion: ENGINE_VERSION,
   };
 }

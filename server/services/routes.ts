@@ -33,7 +33,7 @@ import { createDraft, type DraftEvaluation } from './drafts';
 
 /** The key totals of a list row (presentKeyTotals() for a loaded draft). */
 const KEY_TOTALS = `CASE WHEN "draft"."totals" IS NULL OR jsonb_typeof("draft"."totals") = 'null' THEN NULL
-  ELSE jsonb_build_object('yieldPct', "draft"."totals" -> 'yieldPct', 'purityPct', "draft"."totals" -> 'purityWtPct', 'pmi', "draft"."totals" -> 'pmi') END`;
+  ELSE jsonb_build_object('yieldPct', "draft"."totals" -> 'yieldPct', 'purityPct', "draft"."totals" -> 'purityWtPct', 'pmi', "draft"."totals" -> 'pmi', 'engineVersion', "draft"."engine_version") END`;
 
 /** What a route read and a list row select (RouteView), named as `nest` builds it. */
 const ROUTE_VIEW_COLUMNS = `"Route"."id", "Route"."name", "Route"."archived_at" AS "archivedAt",

@@ -59,6 +59,8 @@ export const keyTotalsSchema = z.object({
   yieldPct: z.number().nullable(),
   purityPct: z.number().nullable(),
   pmi: z.number().nullable(),
+  /** The engine version that computed these figures; an earlier one than today's may differ. */
+  engineVersion: z.string().nullable(),
 });
 export type KeyTotals = z.infer<typeof keyTotalsSchema>;
 

@@ -4,7 +4,8 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { projectListSchema, routeDetailSchema, routeListSchema } from '@shared/schemas/routes';
 import type { RouteDocumentInput } from '@shared/schemas/route';
 import demoRoute from '../fixtures/routes/demo-amide-isolation.json';
-import { AuditEvent, type User, type Workspace } from '../../server/models';
+import { ENGINE_VERSION } from '@shared/engine/version';
+import { AuditEvent, RouteDraft, type User, type Workspace } from '../../server/models';
 import { runMigrations, runSeeders } from '../../server/db/migrator';
 import { DEMO_PROJECT_NAME, DEMO_ROUTE_NAME } from '../../seeders/20261203000000-demo-route';
 import { clusterAdminUrl, useTestServer } from '../support/app';
@@ -162,6 +163,36 @@ describe('routes of a workspace', () => {
     expect(
       projects.find((p) => p.name === 'Programme A (invented)')!.routeCount,
     ).toBeGreaterThanOrEqual(2);
+  });
+
+  it('says which engine computed the stored figures, so a list can tell figures from before an upgrade', async () => {
+    const created = routeDetailSchema.parse(
+      (await post(asChemist, routesPath(), { name: 'Saved before an upgrade', document: demo() }))
+        .body,
+    );
+    expect(created.totals!.engineVersion).toBe(ENGINE_VERSION);
+    // As if saved by the engine before this one: the stored figures keep the version that made them.
+    await RouteDraft.update({ engineVersion: '1.1.0' }, { where: { routeId: created.id } });
+    const path = `${routesPath()}/${created.id}`;
+    const read = routeDetailSchema.parse((await asReviewer.agent.get(path)).body);
+    expect(read.totals!.engineVersion).toBe('1.1.0');
+    const listed = routeListSchema.parse(
+      (
+        await asReviewer.agent.get(
+          `${routesPath()}?q=${encodeURIComponent('Saved before an upgrade')}`,
+        )
+      ).body,
+    );
+    expect(listed.items.find((r) => r.id === created.id)!.totals!.engineVersion).toBe('1.1.0');
+    // Saving the draft again computes and stores today's figures.
+    const saved = await asChemist.agent
+      .put(`${path}/draft`)
+      .set('X-CSRF-Token', asChemist.csrfToken)
+      .send({ document: demo(), baseVersion: read.draftVersion });
+    expect(saved.status).toBe(200);
+    expect(saved.body.totals.engineVersion).toBe(ENGINE_VERSION);
+    const again = routeDetailSchema.parse((await asReviewer.agent.get(path)).body);
+    expect(again.totals!.engineVersion).toBe(ENGINE_VERSION);
   });
 
   it('renames, moves to a project, archives and unarchives, with audit entries', async () => {

@@ -66,8 +66,9 @@ import {
   split,
 } from '../unitops/simple';
 
-/** Version of the route engine; stored with every revision's results. */
-export const ENGINE_VERSION = '1.2.0';
+import { ENGINE_VERSION } from '../version';
+
+export { ENGINE_VERSION };
 
 /** Relative closure required of every component balance at every step. */
 export const MASS_BALANCE_TOLERANCE = 1e-9;

@@ -31,7 +31,7 @@ const summary = {
   updatedAt: '2026-12-03T10:00:00.000Z',
   draftVersion: 4,
   version: 1,
-  totals: { yieldPct: 88.1, purityPct: 99.2, pmi: 41 },
+  totals: { yieldPct: 88.1, purityPct: 99.2, pmi: 41, engineVersion: '1.2.0' },
   stepCount: 7,
 };
 

@@ -5,7 +5,7 @@
  * test pins a fingerprint of the engine's answers (the route corpus and a
  * seeded Monte Carlo run, every number to 9 significant digits, messages
  * included) to the version. When it fails, the engine's answers changed:
- * raise ENGINE_VERSION in shared/engine/route/evaluate.ts, say why in the
+ * raise ENGINE_VERSION in shared/engine/version.ts, say why in the
  * commit, and pin the new fingerprint below under the new version.
  */
 import { createHash } from 'node:crypto';

@@ -13,6 +13,7 @@ import {
 import type { RouteSort } from '@shared/schemas/routes';
 import { Button } from '@/components/button';
 import { SortHeader } from '@/components/sortable-table';
+import { ENGINE_VERSION } from '@shared/engine/version';
 import { formatDateTime } from '@/lib/format';
 import { paths } from '@/paths';
 import type { RouteSummary } from '../api/schemas';
@@ -25,6 +26,30 @@ const col = createColumnHelper<RouteSummary>();
 const pct = (v: number | null | undefined) =>
   v === null || v === undefined ? '—' : `${v.toFixed(1)} %`;
 const num = (v: number | null | undefined) => (v === null || v === undefined ? '—' : v.toFixed(0));
+
+/**
+ * Whether a row's figures were computed by an earlier version of the calculations than today's
+ * (they are stored when the route is saved, so a route not saved since an upgrade keeps them).
+ */
+export function figuresFromEarlierEngine(route: RouteSummary): boolean {
+  return route.totals !== null && route.totals.engineVersion !== ENGINE_VERSION;
+}
+
+/** A figure cell: muted, with the reason as its tooltip, when an earlier engine computed it. */
+function Figure({ text, route }: { text: string; route: RouteSummary }) {
+  if (!figuresFromEarlierEngine(route)) return <span className="tabular-nums">{text}</span>;
+  const version = route.totals?.engineVersion ?? 'unknown';
+  return (
+    <span
+      className="tabular-nums text-ink-muted"
+      title={`From an earlier version of the calculations (${version}). Open the route for today's figures; saving it updates this list.`}
+    >
+      {text}
+      <span aria-hidden="true">*</span>
+      <span className="sr-only"> (from an earlier version of the calculations)</span>
+    </span>
+  );
+}
 
 // The server sorts the list (by last change or by name) and pages it; the table shows the
 // pages loaded so far in that order. Column id ↔ the server's sort.
@@ -97,17 +122,17 @@ export function RoutesTable({
       col.accessor((r) => r.totals?.yieldPct, {
         id: 'yield',
         header: 'Yield',
-        cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
+        cell: (c) => <Figure text={pct(c.getValue())} route={c.row.original} />,
       }),
       col.accessor((r) => r.totals?.purityPct, {
         id: 'purity',
         header: 'Purity',
-        cell: (c) => <span className="tabular-nums">{pct(c.getValue())}</span>,
+        cell: (c) => <Figure text={pct(c.getValue())} route={c.row.original} />,
       }),
       col.accessor((r) => r.totals?.pmi, {
         id: 'pmi',
         header: 'PMI',
-        cell: (c) => <span className="tabular-nums">{num(c.getValue())}</span>,
+        cell: (c) => <Figure text={num(c.getValue())} route={c.row.original} />,
       }),
       col.accessor('updatedAt', {
         header: 'Last change',
@@ -247,6 +272,12 @@ export function RoutesTable({
           </tbody>
         </table>
       </div>
+      {routes.some(figuresFromEarlierEngine) ? (
+        <p className="text-caption text-ink-muted">
+          * Figures from an earlier version of the calculations: the route has not been saved since
+          they changed. Open it to see today&apos;s figures; saving it updates this list.
+        </p>
+      ) : null}
     </div>
   );
 }
