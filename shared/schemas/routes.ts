@@ -60,7 +60,7 @@ export const keyTotalsSchema = z.object({
   purityPct: z.number().nullable(),
   pmi: z.number().nullable(),
   /** The engine version that computed these figures; an earlier one than today's may differ. */
-  engineVersion: z.string().nullable(),
+  engineVersion: text().nullable(),
 });
 export type KeyTotals = z.infer<typeof keyTotalsSchema>;
 
