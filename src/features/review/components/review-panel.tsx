@@ -9,6 +9,7 @@ import {
   type CommentPayload,
   type RevisionDetail,
 } from '@shared/schemas/revisions';
+import { ENGINE_VERSION } from '@shared/engine/version';
 import { isApiError } from '@/api/client';
 import { Button } from '@/components/button';
 import { FieldError, TextField, inputClass } from '@/components/text-field';
@@ -32,8 +33,31 @@ interface Props {
   revision: RevisionDetail;
 }
 
+/**
+ * When a revision was stored by an earlier engine version than today's, what its stored figures
+ * were: the canvas and the route totals beside it are recomputed by today's engine and may
+ * differ, while the stored figures are what was saved (and signed). Null when the versions agree.
+ */
+export function storedFiguresNotice(
+  revision: Pick<RevisionDetail, 'engineVersion' | 'totals'>,
+): string | null {
+  if (revision.engineVersion === ENGINE_VERSION) return null;
+  const pct = (v: number | null | undefined) =>
+    v === null || v === undefined ? '—' : `${v.toFixed(1)} %`;
+  const t = revision.totals;
+  const figures = t
+    ? `: yield ${pct(t.yieldPct)}, purity ${pct(t.purityWtPct)}, PMI ${t.pmi === null ? '—' : t.pmi.toFixed(0)}`
+    : ' (it could not be evaluated then)';
+  return (
+    `Stored with version ${revision.engineVersion} of the calculations${figures}. ` +
+    `The canvas and the route totals here are recomputed by today's version (${ENGINE_VERSION}) ` +
+    'and may differ; the stored figures are the record of this revision.'
+  );
+}
+
 export function ReviewPanel({ workspaceId, routeId, revision }: Props) {
   const review = revision.reviews[0] ?? null;
+  const notice = storedFiguresNotice(revision);
   return (
     <div className="space-y-4" data-review-panel>
       <section aria-label="Status" className="space-y-2">
@@ -45,6 +69,14 @@ export function ReviewPanel({ workspaceId, routeId, revision }: Props) {
           </span>
         </p>
         <p className="text-small">{revision.message}</p>
+        {notice ? (
+          <p
+            role="note"
+            className="rounded-card border border-caution-info/40 bg-caution-info-soft px-2.5 py-2 text-small text-caution-info-deep"
+          >
+            {notice}
+          </p>
+        ) : null}
         {review ? (
           <p className="text-small text-ink-muted">
             Sent by {review.submittedBy.name} to{' '}
