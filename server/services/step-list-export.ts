@@ -38,6 +38,23 @@ export function headerLines(list: StepListDocument): Array<[string, string]> {
       `${round(list.batchKg, 3)} ${STEP_LIST_BASIS_LABELS[list.basis]} (${round(list.scaleFactor, 4)} × the route as drawn)`,
     ],
     ['Date', when(list.exportedAt)],
+    ...(list.engineVersion ? [calculationsLine(list)] : []),
+  ];
+}
+
+/**
+ * Which version of the calculations made the numbers: the step list is computed now, by today's
+ * engine, while the revision (and its signature) carries the figures of the engine it was saved
+ * with; after an upgrade the two may differ, and the plant must be able to see it.
+ */
+function calculationsLine(list: StepListDocument): [string, string] {
+  const now = list.engineVersion ?? '';
+  const then = list.revisionEngineVersion ?? now;
+  return [
+    'Calculations',
+    now === then
+      ? `Version ${now}, the same as the revision's.`
+      : `Version ${now}; the revision was saved and signed with version ${then}, so these numbers may differ from its stored figures.`,
   ];
 }
 

@@ -22,7 +22,7 @@ import type { Route } from '../models';
 import { enginePool } from '../pool';
 import { allEquipment, presentEquipment } from './equipment';
 import { inUserSlot, type EvaluationLimits } from './evaluation-limits';
-import { PROCESS_SAFETY_NOTE } from './evaluation';
+import { ENGINE_VERSION, PROCESS_SAFETY_NOTE } from './evaluation';
 import { approvalOf, loadRevision, type RevisionWithReviews } from './revisions';
 
 /** The approving signature a step list carries: the last one that completed the approval. */
@@ -135,6 +135,8 @@ export async function makeStepList(context: StepListContext): Promise<StepListDo
       kind: item.kind,
     })),
     operations: built.operations,
+    engineVersion: ENGINE_VERSION,
+    revisionEngineVersion: revision.engineVersion,
     processSafetyNote: PROCESS_SAFETY_NOTE,
   };
 }

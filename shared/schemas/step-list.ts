@@ -118,6 +118,13 @@ export const stepListDocumentSchema = z
     exportedAt: text(),
     equipment: z.array(stepListEquipmentSchema),
     operations: z.array(stepListOperationSchema),
+    /**
+     * The engine version that computed this step list's numbers, and the one stored with the
+     * revision (and its signature); they differ after an upgrade. Absent in lists exported
+     * before 3 December 2026.
+     */
+    engineVersion: text().optional(),
+    revisionEngineVersion: text().optional(),
     processSafetyNote: text(),
   })
   .strict();

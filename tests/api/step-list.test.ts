@@ -1,16 +1,17 @@
 import request from 'supertest';
+import { Sequelize } from 'sequelize';
 import ExcelJS from 'exceljs';
 import { parse as parseCsv } from 'csv-parse/sync';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { routeDetailSchema } from '@shared/schemas/routes';
 import { stepListDocumentSchema, type StepListDocument } from '@shared/schemas/step-list';
 import { parseExact } from '@shared/schemas/exact';
-import { evaluateRoute, parseRoute } from '@shared/engine/route/evaluate';
+import { ENGINE_VERSION, evaluateRoute, parseRoute } from '@shared/engine/route/evaluate';
 import { applyEquipment, scaleDocument } from '@shared/steplist';
 import { demoAmideIsolation } from '../../seeders/data/demo-route';
 import { DEMO_EQUIPMENT } from '../../seeders/20261203130100-demo-equipment';
 import type { Workspace } from '../../server/models';
-import { useTestServer } from '../support/app';
+import { clusterAdminUrl, useTestServer } from '../support/app';
 import {
   buildMember,
   buildWorkspace,
@@ -164,7 +165,52 @@ describe('plant step list export and import', () => {
       ),
     });
     expect(approved.equipment).toHaveLength(5);
+    expect(approved.engineVersion).toBe(ENGINE_VERSION);
+    expect(approved.revisionEngineVersion).toBe(ENGINE_VERSION);
     expect(approved.processSafetyNote).toMatch(/process-safety review/);
+  });
+
+  it("says when the revision was signed with an earlier version of the calculations than the list's", async () => {
+    const csvOf = async () => {
+      const reply = await ask(as.engineer, 2, { batchKg: 50, basis: 'input', format: 'csv' });
+      expect(reply.status).toBe(200);
+      const rows = parseCsv(reply.text, { relax_column_count: true }) as string[][];
+      return rows.find((row) => row[0] === 'Calculations')?.[1];
+    };
+    expect(await csvOf()).toBe(`Version ${ENGINE_VERSION}, the same as the revision's.`);
+    // Revisions cannot be changed, so the earlier engine's revision is a copy of revision 2 made
+    // by the database owner as revision 3, stored with version 1.1.0.
+    const admin = new Sequelize(
+      clusterAdminUrl(new URL(process.env.DATABASE_URL!).pathname.slice(1)),
+      {
+        dialect: 'postgres',
+        logging: false,
+      },
+    );
+    try {
+      const [columns] = (await admin.query(
+        `SELECT column_name FROM information_schema.columns
+          WHERE table_name = 'route_revisions' AND column_name NOT IN ('id', 'number', 'engine_version')`,
+      )) as [Array<{ column_name: string }>, unknown];
+      const list = columns.map((c) => `"${c.column_name}"`).join(', ');
+      await admin.query(
+        `INSERT INTO route_revisions (id, number, engine_version, ${list})
+           SELECT gen_random_uuid(), 3, '1.1.0', ${list} FROM route_revisions
+            WHERE route_id = :routeId AND number = 2`,
+        { replacements: { routeId } },
+      );
+    } finally {
+      await admin.close();
+    }
+    const earlier = await ask(as.engineer, 3, { batchKg: 50, basis: 'input', format: 'csv' });
+    expect(earlier.status).toBe(200);
+    const rows = parseCsv(earlier.text, { relax_column_count: true }) as string[][];
+    expect(rows.find((row) => row[0] === 'Calculations')?.[1]).toBe(
+      `Version ${ENGINE_VERSION}; the revision was saved and signed with version 1.1.0, so these numbers may differ from its stored figures.`,
+    );
+    const json = await ask(as.engineer, 3, { batchKg: 50, basis: 'input', format: 'json' });
+    expect(json.body.revisionEngineVersion).toBe('1.1.0');
+    expect(json.body.engineVersion).toBe(ENGINE_VERSION);
   });
 
   it('a revision that is not approved exports with draft: true, approval null and the DRAFT mark', async () => {
