@@ -216,17 +216,22 @@ export async function run(): Promise<BenchResult[]> {
     const demoRoute = demo.find((r) => r.name === DEMO_ROUTE_NAME);
     if (!demoRoute) throw new Error(`the demo route "${DEMO_ROUTE_NAME}" is not in the workspace`);
     const demoSteps = (demoDocument as { steps: unknown[] }).steps.length;
-    const demoOpens: number[] = [];
-    for (let i = 0; i < OPEN_RUNS; i++) {
-      await page.goto(`${base}/w/${workspaceId}/routes/${demoRoute.id}`);
-      const at = await page.waitForFunction(
-        (n) =>
-          document.querySelectorAll('.react-flow__node').length >= n ? performance.now() : false,
-        demoSteps,
-        { polling: 'raf', timeout: 30_000 },
-      );
-      demoOpens.push((await at.jsonValue()) as number);
-    }
+    // Navigation start to the first animation frame with every card drawn (polled every frame, ±1 frame).
+    const timeOpens = async (routeId: string, cards: number): Promise<number[]> => {
+      const times: number[] = [];
+      for (let i = 0; i < OPEN_RUNS; i++) {
+        await page.goto(`${base}/w/${workspaceId}/routes/${routeId}`);
+        const at = await page.waitForFunction(
+          (n) =>
+            document.querySelectorAll('.react-flow__node').length >= n ? performance.now() : false,
+          cards,
+          { polling: 'raf', timeout: 30_000 },
+        );
+        times.push((await at.jsonValue()) as number);
+      }
+      return times;
+    };
+    const demoOpens = await timeOpens(demoRoute.id, demoSteps);
     out.push({
       name: 'Open the demo route (navigation → all cards)',
       medianUs: quantile(demoOpens, 0.5) * 1000,
@@ -240,18 +245,7 @@ export async function run(): Promise<BenchResult[]> {
     // Opening a 100-step route: navigation start to every card drawn.
     const doc100 = generateRoute({ seed: 3, steps: 100, compounds: 3, weights: BENCH_WEIGHTS });
     const id100 = await createRoute(page, workspaceId, 'Benchmark route, 100 steps', doc100);
-    const opens: number[] = [];
-    for (let i = 0; i < OPEN_RUNS; i++) {
-      await page.goto(`${base}/w/${workspaceId}/routes/${id100}`);
-      // Polled every animation frame: the time is that of the first frame with every card in place (±1 frame).
-      const at = await page.waitForFunction(
-        (n) =>
-          document.querySelectorAll('.react-flow__node').length >= n ? performance.now() : false,
-        doc100.steps.length,
-        { polling: 'raf', timeout: 30_000 },
-      );
-      opens.push((await at.jsonValue()) as number);
-    }
+    const opens = await timeOpens(id100, doc100.steps.length);
     out.push({
       name: 'Open a 100-step route (navigation → all cards)',
       medianUs: quantile(opens, 0.5) * 1000,
