@@ -23,71 +23,17 @@
  * Worked through for the numbers of the test below in the test itself.
  */
 import { describe, expect, it } from 'vitest';
-import { evaluateRoute } from '../../../shared/engine/route/evaluate';
-import type { RouteDocumentInput } from '../../../shared/schemas/route';
+import { runWaterWash } from '../../fixtures/routes/water-wash';
 import { solventById } from '../../../shared/engine/data';
 import { createVleSystem } from '../../../shared/engine/thermo/vle';
 import { vleComponentOf } from '../../../shared/engine/thermo/mutual-solubility';
 
-function doc(amideId: string, amideL: number, waterL: number): RouteDocumentInput {
-  return {
-    schemaVersion: 1,
-    referenceInput: { componentId: 'p', massKg: 0.01 },
-    components: [
-      { kind: 'solvent', id: 'water', solventId: 'water' },
-      { kind: 'solvent', id: 'etoac', solventId: 'ethyl-acetate' },
-      { kind: 'solvent', id: 'amide', solventId: amideId },
-      {
-        kind: 'compound',
-        id: 'p',
-        name: 'neutral product (invented)',
-        role: 'product',
-        molarMassGmol: 300,
-        partition: [{ organicSolventId: 'ethyl-acetate', D: 50, source: 'invented test value' }],
-      },
-    ],
-    steps: [
-      {
-        id: 'feed',
-        kind: 'charge',
-        name: 'feed',
-        params: {
-          temperatureC: 20,
-          contents: [
-            { kind: 'component', componentId: 'etoac', amount: 1, unit: 'L' },
-            { kind: 'component', componentId: 'amide', amount: amideL, unit: 'L' },
-            { kind: 'component', componentId: 'p', amount: 0.01, unit: 'kg' },
-          ],
-        },
-      },
-      {
-        id: 'w',
-        kind: 'wash',
-        name: 'water wash',
-        params: {
-          addedLiquid: {
-            kind: 'solvent',
-            solventId: 'water',
-            volume: { value: waterL, unit: 'L' },
-          },
-          stages: 1,
-          mode: 'cross-current',
-          temperatureC: 20,
-          keep: 'organic',
-        },
-      },
-    ],
-    connections: [
-      { id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'w', port: 'feed' } },
-    ],
-  };
-}
-
 function run(amideId: string, amideL: number, waterL: number) {
-  const r = evaluateRoute(doc(amideId, amideL, waterL));
-  const org = r.terminals.find((t) => t.port === 'organic')!.stream.kg;
-  const aq = r.terminals.find((t) => t.port === 'aqueous')!.stream.kg;
-  return { org, aq, step: r.steps['w'] };
+  return runWaterWash({
+    coSolvent: { id: 'amide', solventId: amideId, L: amideL },
+    waterL,
+    temperatureC: 20,
+  });
 }
 
 describe('wash phase split: lever-rule fallback on tabulated mutual solubilities', () => {

@@ -5,74 +5,15 @@
  * wash temperature.
  */
 import { describe, expect, it } from 'vitest';
-import { evaluateRoute } from '../../../shared/engine/route/evaluate';
-import type { RouteDocumentInput } from '../../../shared/schemas/route';
+import { runWaterWash } from '../../fixtures/routes/water-wash';
 import { solventById } from '../../../shared/engine/data';
 
-function doc(methanolL: number, temperatureC: number): RouteDocumentInput {
-  return {
-    schemaVersion: 1,
-    referenceInput: { componentId: 'p', massKg: 0.01 },
-    components: [
-      { kind: 'solvent', id: 'water', solventId: 'water' },
-      { kind: 'solvent', id: 'etoac', solventId: 'ethyl-acetate' },
-      { kind: 'solvent', id: 'meoh', solventId: 'methanol' },
-      {
-        kind: 'compound',
-        id: 'p',
-        name: 'neutral product (invented)',
-        role: 'product',
-        molarMassGmol: 300,
-        partition: [{ organicSolventId: 'ethyl-acetate', D: 50, source: 'invented test value' }],
-      },
-    ],
-    steps: [
-      {
-        id: 'feed',
-        kind: 'charge',
-        name: 'feed',
-        params: {
-          temperatureC,
-          contents: [
-            { kind: 'component', componentId: 'etoac', amount: 1, unit: 'L' },
-            ...(methanolL > 0
-              ? [
-                  {
-                    kind: 'component' as const,
-                    componentId: 'meoh',
-                    amount: methanolL,
-                    unit: 'L' as const,
-                  },
-                ]
-              : []),
-            { kind: 'component', componentId: 'p', amount: 0.01, unit: 'kg' },
-          ],
-        },
-      },
-      {
-        id: 'w',
-        kind: 'wash',
-        name: 'water wash',
-        params: {
-          addedLiquid: { kind: 'solvent', solventId: 'water', volume: { value: 1, unit: 'L' } },
-          stages: 1,
-          mode: 'cross-current',
-          temperatureC,
-          keep: 'organic',
-        },
-      },
-    ],
-    connections: [
-      { id: 'c1', from: { stepId: 'feed', port: 'out' }, to: { stepId: 'w', port: 'feed' } },
-    ],
-  };
-}
-
 function run(methanolL: number, temperatureC: number) {
-  const r = evaluateRoute(doc(methanolL, temperatureC));
-  const org = r.terminals.find((t) => t.port === 'organic')!.stream.kg;
-  const aq = r.terminals.find((t) => t.port === 'aqueous')!.stream.kg;
-  return { org, aq, step: r.steps['w'] };
+  return runWaterWash({
+    coSolvent: { id: 'meoh', solventId: 'methanol', L: methanolL },
+    waterL: 1,
+    temperatureC,
+  });
 }
 
 describe('wash phase split', () => {
