@@ -174,11 +174,13 @@ export async function probeMatches(
   return rows.length > MATCH_FIRST_MAX ? null : rows.map((row) => row.id);
 }
 
-/** The rows with these ids (none for an empty list). */
+/** The SQL condition: the rows with these ids (none for an empty list). */
+export const idsInSql = (idSql: string, ids: string[]): string =>
+  ids.length ? `${idSql} IN (${ids.map((id) => database().escape(id)).join(', ')})` : 'false';
+
+/** The rows with these ids (none for an empty list), as a Sequelize condition. */
 export const withIds = (idSql: string, ids: string[]): WhereOptions =>
-  literal(
-    ids.length ? `${idSql} IN (${ids.map((id) => database().escape(id)).join(', ')})` : 'false',
-  ) as unknown as WhereOptions;
+  literal(idsInSql(idSql, ids)) as unknown as WhereOptions;
 
 /**
  * The rows of the list whose expressions contain `q`. "Contains" cannot be sized by the

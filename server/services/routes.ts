@@ -24,6 +24,7 @@ import {
   matchingRows,
   trigramSearchable,
   probeMatches,
+  idsInSql,
   keyAttributes,
   keyOrder,
   pageOf,
@@ -149,13 +150,7 @@ export async function listRoutes(
           transaction,
         )
       : null;
-    conditions.push(
-      ids === null
-        ? filter
-        : ids.length
-          ? `"Route"."id" IN (${ids.map((id) => escape(id)).join(', ')})`
-          : 'false',
-    );
+    conditions.push(ids === null ? filter : idsInSql('"Route"."id"', ids));
   }
 
   if (query.cursor) {
