@@ -19,6 +19,15 @@
  * right after a rejection). A caller may supply its own error norm (for
  * instance on mole fractions derived from the state).
  *
+ * Dense output (when the integration stops on a caller's condition): the
+ * continuous extension of order 4 of Shampine (L. F. Shampine, "Some practical
+ * Runge–Kutta formulas", Math. Comp. 1986, 46, 135–150), as in Hairer,
+ * Nørsett & Wanner I §II.6 (DOPRI5's dense output), on the last step
+ * [t_n, t_n + h] with θ = (t − t_n)/h, at no extra right-hand-side evaluation:
+ *   y(t) = y_n + θ (Δ + (1 − θ)(B + θ (Δ − h k_7 − B + (1 − θ) h Σ d_i k_i))),
+ *   Δ = y_{n+1} − y_n,  B = h k_1 − Δ,
+ * exact at both ends of the step (θ = 0, 1).
+ *
  * Validity: non-stiff and mildly stiff problems. On a stiff problem the step
  * is limited by stability, not accuracy: it still converges but with many
  * steps (the step count is reported). The local tolerance bounds the error
@@ -56,6 +65,19 @@ export interface OdeOptions {
   stop?: (t: number, y: Float64Array) => boolean;
 }
 
+/**
+ * The continuous extension over the last accepted step (module comment):
+ * y(t) for t in [t0, t1] [unit of y].
+ */
+export interface OdeStepInterpolant {
+  /** Start of the step [unit of t]. */
+  t0: number;
+  /** End of the step [unit of t]. */
+  t1: number;
+  /** Writes y(t) [unit of y] into out, for t0 ≤ t ≤ t1. */
+  at(t: number, out: Float64Array): void;
+}
+
 /** Result of an adaptive integration. */
 export interface OdeResult {
   /** Where the integration ended [unit of t] (= t1 when converged). */
@@ -71,6 +93,8 @@ export interface OdeResult {
   rejected: number;
   /** Right-hand-side evaluations [–]. */
   evaluations: number;
+  /** When stopped by `stop`: the continuous extension over the last step (dense output). */
+  lastStep?: OdeStepInterpolant;
 }
 
 // Dormand–Prince 5(4) tableau (Hairer, Nørsett & Wanner I, Table 5.2).
@@ -105,6 +129,13 @@ const E4 = 71 / 1920;
 const E5 = -17253 / 339200;
 const E6 = 22 / 525;
 const E7 = -1 / 40;
+// Shampine's dense output (Hairer, Nørsett & Wanner I §II.6; DOPRI5), d_2 = 0.
+const D1 = -12715105075 / 11282082432;
+const D3 = 87487479700 / 32700410799;
+const D4 = -10690763975 / 1880347072;
+const D5 = 701980252875 / 199316789632;
+const D6 = -1453857185 / 822651844;
+const D7 = 69997945 / 29380423;
 
 /**
  * Integrate y' = f(t, y) from t0 to t1 (t1 > t0) with the Dormand–Prince
@@ -152,15 +183,43 @@ export function dormandPrince(
   let evaluations = 0;
   let steps = 0;
   let rejected = 0;
-  const result = (t: number, reason: OdeStop): OdeResult => ({
-    t,
-    y: Float64Array.from(y),
-    converged: reason === 'converged' || reason === 'stopped',
-    reason,
-    steps,
-    rejected,
-    evaluations,
-  });
+  // Dense-output coefficients of the last accepted step (only when the caller can stop it).
+  const dense = opts.stop
+    ? {
+        t0: 0,
+        h: 0,
+        r1: new Float64Array(n),
+        r2: new Float64Array(n),
+        r3: new Float64Array(n),
+        r4: new Float64Array(n),
+        r5: new Float64Array(n),
+      }
+    : null;
+  const result = (t: number, reason: OdeStop): OdeResult => {
+    const out: OdeResult = {
+      t,
+      y: Float64Array.from(y),
+      converged: reason === 'converged' || reason === 'stopped',
+      reason,
+      steps,
+      rejected,
+      evaluations,
+    };
+    if (reason === 'stopped' && dense) {
+      const { t0: ts, h: hs, r1, r2, r3, r4, r5 } = dense;
+      out.lastStep = {
+        t0: ts,
+        t1: t,
+        at(tq: number, target: Float64Array): void {
+          const th = Math.min(1, Math.max(0, (tq - ts) / hs));
+          const th1 = 1 - th;
+          for (let i = 0; i < n; i++)
+            target[i] = r1[i] + th * (r2[i] + th1 * (r3[i] + th * (r4[i] + th1 * r5[i])));
+        },
+      };
+    }
+    return out;
+  };
   if (!(span > 0)) return result(t0, 'converged');
 
   const defaultNorm = (a: Float64Array, b: Float64Array, e: Float64Array): number => {
@@ -238,6 +297,20 @@ export function dormandPrince(
     const e = finite ? norm(y, yNew, err) : Infinity;
     if (e <= 1) {
       steps++;
+      if (dense) {
+        dense.t0 = t;
+        dense.h = h;
+        for (let i = 0; i < n; i++) {
+          const diff = yNew[i] - y[i];
+          const bspl = h * k1[i] - diff;
+          dense.r1[i] = y[i];
+          dense.r2[i] = diff;
+          dense.r3[i] = bspl;
+          dense.r4[i] = diff - h * k7[i] - bspl;
+          dense.r5[i] =
+            h * (D1 * k1[i] + D3 * k3[i] + D4 * k4[i] + D5 * k5[i] + D6 * k6[i] + D7 * k7[i]);
+        }
+      }
       t = last ? t1 : t + h;
       y.set(yNew);
       k1.set(k7);

@@ -476,14 +476,17 @@ export function bubblePressure(
 export function bubblePressureAtFixedT(
   sys: VleSystem,
   T_K: number,
-): (x: readonly number[], y: Float64Array) => number {
+): (x: ArrayLike<number>, y: Float64Array) => number {
   const n = sys.components.length;
   let expLnP: Float64Array | null = null;
   let volatile: Uint8Array | null = null;
   const gammas = new Float64Array(n);
   const partial = new Float64Array(n);
+  const xs = new Float64Array(n);
   return (x, y) => {
-    const xs = normalised(x, n);
+    // normalised(x, n), into this evaluator's own array (the same numbers, no allocation per call).
+    const scale = checkComposition(x, n);
+    for (let i = 0; i < n; i++) xs[i] = x[i] * scale;
     checkTemperature(T_K);
     requireVolatile(sys, xs, 'liquid');
     if (!expLnP || !volatile) {

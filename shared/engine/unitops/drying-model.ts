@@ -90,7 +90,15 @@ export interface DryingResult {
  */
 const bubbleAtDryingT = new WeakMap<
   DryingProblem,
-  { sys: VleSystem; T_K: number; at: ReturnType<typeof bubblePressureAtFixedT> }
+  {
+    sys: VleSystem;
+    T_K: number;
+    at: ReturnType<typeof bubblePressureAtFixedT>;
+    /** Scratch of the rates (liquid x, vapour y and a_i), one set per problem, not per call. */
+    x: Float64Array;
+    y: Float64Array;
+    a: Float64Array;
+  }
 >();
 
 /**
@@ -118,19 +126,24 @@ export function evaporationRates(p: DryingProblem, n: ArrayLike<number>, out: Fl
     out.fill(0);
     return;
   }
-  const x = new Array<number>(m);
-  for (let i = 0; i < m; i++) x[i] = Math.max(0, n[i]) / nTot;
   // The cake is isothermal: one bubble-pressure evaluator per problem (vapour pressures once).
   let bubble = bubbleAtDryingT.get(p);
-  if (!bubble || bubble.sys !== p.sys || bubble.T_K !== p.T_K) {
-    bubble = { sys: p.sys, T_K: p.T_K, at: bubblePressureAtFixedT(p.sys, p.T_K) };
+  if (!bubble || bubble.sys !== p.sys || bubble.T_K !== p.T_K || bubble.x.length !== m) {
+    bubble = {
+      sys: p.sys,
+      T_K: p.T_K,
+      at: bubblePressureAtFixedT(p.sys, p.T_K),
+      x: new Float64Array(m),
+      y: new Float64Array(m),
+      a: new Float64Array(m),
+    };
     bubbleAtDryingT.set(p, bubble);
   }
-  const y = new Float64Array(m);
+  const { x, y, a } = bubble;
+  for (let i = 0; i < m; i++) x[i] = Math.max(0, n[i]) / nTot;
   const P_Pa = bubble.at(x, y);
   const phi = Math.min(1, X / p.criticalContent);
   let A = 0;
-  const a = new Array<number>(m);
   for (let i = 0; i < m; i++) {
     a[i] = (y[i] * P_Pa * phi) / p.P_Pa;
     A += a[i];
@@ -155,14 +168,16 @@ export function evaporationRates(p: DryingProblem, n: ArrayLike<number>, out: Fl
  * Integrates the drying model until the target is reached, the time runs out,
  * or evaporation stops, with the Dormand–Prince 5(4) pair of the numerics
  * module (relative tolerance 1e−8); the moment the target is met is then
- * located by Brent's method on the time, re-integrating from the last step.
+ * located by bisection in time (to 1e−9 h relative) on the integrator's
+ * continuous extension over the step that met it (dense output, order 4), with
+ * no further evaluation of the rates.
  *
  * @param p  the drying problem (units in DryingProblem)
  * @returns solvent left, time, outcome and the equilibrium content
  *
- * Source: the module comment for the model; Dormand & Prince 1980 and Brent
- * 1973 (numerics/ode.ts, numerics/roots.ts) for the integration and the
- * location of the end point.
+ * Source: the module comment for the model; Dormand & Prince 1980 and
+ * Shampine 1986 (numerics/ode.ts: the integration and its dense output) for
+ * the integration and the location of the end point.
  * Validity: as the module comment (isothermal cake, linear falling rate,
  * well-mixed dryer gas); time up to p.maxHours.
  */
@@ -187,45 +202,38 @@ export function integrateDrying(p: DryingProblem): DryingResult {
     for (let i = 0; i < m; i++) dy[i] = -dy[i];
   };
   const scale = Math.max(...p.n0, 1e-12);
-  let tPrev = 0;
-  let yPrev: Float64Array = Float64Array.from(start);
   const r = dormandPrince(rhs, 0, start, p.maxHours, {
     rtol: 1e-8,
     atol: scale * 1e-12,
-    onStep: (t, y) => {
-      if (!p.reached(y)) {
-        tPrev = t;
-        yPrev = Float64Array.from(y);
-      }
-    },
     stop: (_t, y) => p.reached(y),
   });
   let n = Array.from(r.y, (v) => Math.max(0, v));
   let hours = r.t;
   let converged = r.converged;
-  if (r.reason === 'stopped') {
-    // Locate the crossing between the last step that had not reached the target and this one.
-    let lo = tPrev;
-    let hi = r.t;
-    let yLo: Float64Array = yPrev;
+  if (r.reason === 'stopped' && r.lastStep) {
+    // Locate the crossing within the step that met the target (it began before the target was
+    // met: the integration stops at the first step that meets it), on its continuous extension.
+    const step = r.lastStep;
+    let lo = step.t0;
+    let hi = step.t1;
+    const yMid = new Float64Array(m);
+    const yHi = Float64Array.from(r.y);
     for (let k = 0; k < 60 && hi - lo > 1e-9 * Math.max(1, hi); k++) {
       const mid = 0.5 * (lo + hi);
-      const seg = dormandPrince(rhs, lo, yLo, mid, { rtol: 1e-10, atol: scale * 1e-14 });
-      if (p.reached(seg.y)) hi = mid;
-      else {
-        lo = mid;
-        yLo = seg.y;
-      }
+      step.at(mid, yMid);
+      if (p.reached(yMid)) {
+        hi = mid;
+        yHi.set(yMid);
+      } else lo = mid;
     }
-    const last = dormandPrince(rhs, lo, yLo, hi, { rtol: 1e-10, atol: scale * 1e-14 });
-    n = Array.from(last.y, (v) => Math.max(0, v));
+    n = Array.from(yHi, (v) => Math.max(0, v));
     hours = hi;
     return {
       n,
       hours,
       outcome: 'target-reached',
       equilibriumContentKgPerKg: equilibrium,
-      converged: converged && last.converged,
+      converged,
       bubblePressurePa: b0,
     };
   }
