@@ -9,6 +9,7 @@ import pg from 'pg';
 import type { Sequelize } from 'sequelize';
 import './http/express-augment';
 import { configurePassport } from './auth/passport';
+import { readSession as leanReadSession } from './auth/read-session';
 import { SessionCache } from './auth/session-cache';
 import { createSessionStore } from './auth/session-store';
 import type { AppConfig } from './config';
@@ -178,12 +179,28 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
     });
   const writeSession = sessionOptions(store);
   const readSession = sessionOptions(readStore);
-  api.use((req, res, next) =>
-    (req.method === 'GET' || req.method === 'HEAD' ? readSession : writeSession)(req, res, next),
+  // A signed-in read takes the lean path (server/auth/read-session.ts): one HMAC, one cache
+  // look-up, the expiry and cookie moved at most once a minute. Writes, Bearer tokens and
+  // anything unusual go through express-session, passport and authenticate().
+  api.use(
+    leanReadSession({
+      name: SESSION_COOKIE,
+      secret: config.sessionSecret,
+      idleMs: config.sessionIdleMinutes * 60_000,
+      store: readStore,
+      fallback: [
+        (req, res, next) =>
+          (req.method === 'GET' || req.method === 'HEAD' ? readSession : writeSession)(
+            req,
+            res,
+            next,
+          ),
+        passport.initialize(),
+        passport.session(),
+        authenticate,
+      ],
+    }),
   );
-  api.use(passport.initialize());
-  api.use(passport.session());
-  api.use(authenticate);
   api.use(sessionLifetime(config.sessionMaxHours));
   api.use(csrfProtection((method, requestPath) => method === 'POST' && requestPath === '/session'));
 

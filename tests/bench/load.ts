@@ -24,7 +24,8 @@
  * LOAD_SECONDS sets the length of each measurement (default 10).
  *
  * For finding where the time goes: LOAD_ONLY=health,route,list measures only those loads on one
- * instance (and rewrites no document); LOAD_PROFILE=folder starts the server with --cpu-prof and
+ * instance (and rewrites no document), each with the server's processor time per request (and the
+ * bare process's), which a loaded machine disturbs less than the rates; LOAD_PROFILE=folder starts the server with --cpu-prof and
  * writes its CPU profile (.cpuprofile, open in a browser's developer tools) there on shutdown;
  * LOAD_SERVER_ROOT=folder measures the server of another checkout of the product (compiled there).
  */
@@ -151,6 +152,15 @@ const rssMb = (pid: number) => {
   const status = readFileSync(`/proc/${pid}/status`, 'utf8');
   return Number(/VmRSS:\s+(\d+) kB/.exec(status)![1]) / 1024;
 };
+
+/** User plus system processor time of a process so far (ms), from /proc. */
+const cpuMs = (pid: number) => {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+  // utime and stime are fields 14 and 15 of the line (11 and 12 after the command name).
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / CLOCK_TICKS;
+};
+/** The kernel's clock ticks per second (USER_HZ), 100 on Linux. */
+const CLOCK_TICKS = 100;
 
 interface User {
   cookie: string;
@@ -372,11 +382,19 @@ async function main(): Promise<void> {
 
   if (ONLY) {
     await measure(loads[ONLY[0]!]!, one, USERS, 2);
+    const bareCpu = cpuMs(bare.pid!);
     const bareOnly = await measure(loads.bare!, bareTarget);
+    console.log(
+      `${bareOnly.name}: ${fmt(bareOnly.rps)}/s, p99 ${fmt(bareOnly.p99)} ms, CPU ${fmt((cpuMs(bare.pid!) - bareCpu) / bareOnly.requests, 3)} ms per request`,
+    );
     for (const key of ONLY) {
+      const cpuBefore = cpuMs(first.pid!);
       const figure = await measure(loads[key]!, one);
+      // The server's own processor time per request: steadier than the rate when others load
+      // the machine.
+      const perRequest = (cpuMs(first.pid!) - cpuBefore) / figure.requests;
       console.log(
-        `${figure.name}: ${fmt(figure.rps)}/s (${fmt((100 * figure.rps) / bareOnly.rps, 1)} % of bare ${fmt(bareOnly.rps)}/s), p50 ${fmt(figure.p50)} ms, p99 ${fmt(figure.p99)} ms, ${figure.errors + figure.non2xx} errors of ${figure.requests}`,
+        `${figure.name}: ${fmt(figure.rps)}/s (${fmt((100 * figure.rps) / bareOnly.rps, 1)} % of bare ${fmt(bareOnly.rps)}/s), p50 ${fmt(figure.p50)} ms, p99 ${fmt(figure.p99)} ms, ${figure.errors + figure.non2xx} errors of ${figure.requests}, server CPU ${fmt(perRequest, 2)} ms per request`,
       );
     }
     await stopAndWait(first);
