@@ -130,6 +130,57 @@ describe('the demo route', () => {
     expect(flows.browser.problems).toEqual([]);
   });
 
+  it('redraws only what an edit changes: no connection is taken down and put back, the cards before the edited step stay as they are', async () => {
+    const { page } = flows.browser;
+    const route = await demoRouteCopy('redraw');
+    await openDemoRoute(route);
+    await page.getByRole('button', { name: 'Fit view', exact: true }).first().click();
+    const brine = page.getByRole('article', { name: /^Wash: 20 % brine wash/ });
+    await brine.click();
+    const volume = page
+      .getByRole('form', { name: /Settings of 20 % brine wash/ })
+      .getByLabel('Volume', { exact: true });
+    const before = await brine.locator('[data-result]').allTextContents();
+    const edgeCount = await page.locator('.react-flow__edge').count();
+    expect(edgeCount).toBeGreaterThan(5);
+
+    // Watch the connections and the three cards before the brine wash while the edit is evaluated.
+    await page.evaluate(() => {
+      const w = window as unknown as { __redraw: { edges: number; upstream: string[] } };
+      w.__redraw = { edges: 0, upstream: [] };
+      const isEdge = (n: Node) =>
+        n instanceof Element &&
+        (n.matches('.react-flow__edge') || !!n.querySelector('.react-flow__edge'));
+      new MutationObserver((records) => {
+        for (const r of records)
+          if ([...r.addedNodes, ...r.removedNodes].some(isEdge)) w.__redraw.edges++;
+      }).observe(document.querySelector('.react-flow__edges')!, { subtree: true, childList: true });
+      for (const id of ['crude', 'acid-wash', 'base-wash']) {
+        const card = document.querySelector(`article[data-step-id="${id}"]`)!;
+        new MutationObserver(() => w.__redraw.upstream.push(id)).observe(card, {
+          subtree: true,
+          childList: true,
+          characterData: true,
+          attributes: true,
+        });
+      }
+    });
+    await volume.fill('6 vol');
+    await volume.press('Enter');
+    await expect.poll(() => brine.locator('[data-result]').allTextContents()).not.toEqual(before);
+    // Let the canvas settle (measuring happens on the next frames), then read what changed.
+    await page.evaluate(
+      () => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))),
+    );
+    const seen = await page.evaluate(
+      () => (window as unknown as { __redraw: { edges: number; upstream: string[] } }).__redraw,
+    );
+    expect(seen.edges, 'connections taken down or put back').toBe(0);
+    expect(seen.upstream, 'cards before the edited step that changed').toEqual([]);
+    await expect(page.locator('.react-flow__edge').count()).resolves.toBe(edgeCount);
+    expect(flows.browser.problems).toEqual([]);
+  });
+
   it('shows where the product goes and the purge per impurity, and runs a small uncertainty estimate to the end', async () => {
     const { page, shot } = flows.browser;
     await openDemoRoute();

@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useRef, type DragEvent } from 'react';
+import { useCallback, useMemo, useRef, type DragEvent, memo } from 'react';
 import {
   Background,
   BackgroundVariant,
@@ -37,7 +37,7 @@ const nodeTypes = Object.fromEntries(Object.keys(PORTS).map((k) => [k, StepNode]
 const edgeTypes: EdgeTypes = { stream: StreamEdge };
 export const PALETTE_MIME = 'application/x-phasewright-step';
 
-export function Canvas() {
+function CanvasImpl() {
   const { steps, connections, components, selection } = useEditorStore(
     useShallow((s) => ({
       steps: s.doc.steps,
@@ -56,6 +56,10 @@ export function Canvas() {
     new Map<string, { step: StepInput; selected: boolean; i: number; node: StepNodeType }>(),
   );
   const nodes = useMemo<StepNodeType[]>(() => {
+    const measuredSize = (id: string) => {
+      const m = flow.getInternalNode(id)?.measured;
+      return m?.width && m.height ? { width: m.width, height: m.height } : undefined;
+    };
     const sel = new Set(selection.steps);
     const cache = nodeCache.current;
     const next = new Map<
@@ -69,6 +73,10 @@ export function Canvas() {
         next.set(step.id, hit);
         return hit.node;
       }
+      // A changed card keeps the size the canvas measured (a node without one is measured
+      // again, and every connection is redrawn twice on the way); the canvas still re-measures
+      // it when its drawn size changes.
+      const measured = hit && hit.step.kind === step.kind ? measuredSize(step.id) : undefined;
       const node = {
         id: step.id,
         type: step.kind,
@@ -80,13 +88,14 @@ export function Canvas() {
         // The card's usual size until it is measured, so the mini-map can draw it.
         initialWidth: 240,
         initialHeight: 140,
+        ...(measured ? { measured } : {}),
       } as StepNodeType;
       next.set(step.id, { step, selected, i, node });
       return node;
     });
     nodeCache.current = next;
     return out;
-  }, [steps, selection.steps]);
+  }, [steps, selection.steps, flow]);
 
   const names = useMemo(() => {
     const out: Record<string, { name: string; kind: string }> = {};
@@ -114,6 +123,7 @@ export function Canvas() {
       }
     >(),
   );
+  const lastEdges = useRef<StreamEdgeType[]>([]);
   const edges = useMemo<StreamEdgeType[]>(() => {
     const sel = new Set(selection.connections);
     const kindOf = new Map(steps.map((s) => [s.id, s.kind]));
@@ -163,6 +173,10 @@ export function Canvas() {
       return edge;
     });
     edgeCache.current = next;
+    // Every connection unchanged (a setting was edited): the same list, so the canvas has nothing to redo.
+    const last = lastEdges.current;
+    if (last.length === out.length && out.every((e, i) => e === last[i])) return last;
+    lastEdges.current = out;
     return out;
   }, [connections, steps, selection.connections, productId, names]);
 
@@ -347,3 +361,6 @@ function Legend() {
     </div>
   );
 }
+
+/** Drawn again only for its own subscriptions, not with every change of the page around it. */
+export const Canvas = memo(CanvasImpl);
