@@ -9,6 +9,9 @@
  * of a step's setting does not rebuild them; and a step-result memo, so an
  * edit re-evaluates only the edited step and those downstream of it. Both make
  * no number differ from a fresh evaluation (shared/engine/route/step-memo.ts).
+ *
+ * The answer carries only what changed since the previous answer (result-delta.ts):
+ * the page keeps the rest, so less is copied between the threads.
  */
 import {
   evaluatePrepared,
@@ -18,10 +21,11 @@ import {
 } from '@shared/engine/route/evaluate';
 import { cachesFor, createCachePool, createStepMemo } from '@shared/engine/route/step-memo';
 import { RouteValidationError } from '@shared/engine/route/errors';
+import { resultDelta, type ResultDelta } from './result-delta';
 
 export type EvaluateRequest = { revision: number; document: unknown };
 export type EvaluateReply =
-  | { revision: number; ok: true; result: RouteResult; ms: number }
+  | { revision: number; ok: true; delta: ResultDelta; ms: number }
   | {
       revision: number;
       ok: false;
@@ -33,6 +37,8 @@ export type EvaluateReply =
 const cachePool = createCachePool(4);
 /** Step results kept: several versions of a few hundred steps (undo, redo, switching routes). */
 const stepMemo = createStepMemo(1000);
+/** The result of the last good answer: the next answer says only what differs from it. */
+let sent: RouteResult | null = null;
 
 self.onmessage = (event: MessageEvent<EvaluateRequest>) => {
   const { revision, document } = event.data;
@@ -43,7 +49,10 @@ self.onmessage = (event: MessageEvent<EvaluateRequest>) => {
     const prepared = prepareRoute(parsed);
     prepared.caches = cachesFor(cachePool, parsed);
     const result = evaluatePrepared(prepared, null, stepMemo);
-    reply = { revision, ok: true, result, ms: performance.now() - t0 };
+    const ms = performance.now() - t0;
+    const delta = resultDelta(sent, result);
+    sent = result;
+    reply = { revision, ok: true, delta, ms };
   } catch (error) {
     const issues =
       error instanceof RouteValidationError

@@ -7,6 +7,7 @@ import { create } from 'zustand';
 import type { RouteResult } from '@shared/engine/route/evaluate';
 import type { EditorDoc } from './document';
 import type { EvaluateReply, EvaluateRequest } from '@/workers/evaluate.worker';
+import { applyResultDelta } from '@/workers/result-delta';
 
 export type Issue = { stepId: string | null; field: string; message: string };
 
@@ -31,6 +32,11 @@ let worker: Worker | null = null;
 let inFlight = false;
 let queued: EvaluateRequest | null = null;
 let latest = -1;
+/**
+ * The worker's last good result, rebuilt from every good answer in the order sent (each says
+ * only what changed since the one before), whether or not it is still the newest edit's.
+ */
+let base: RouteResult | null = null;
 const listeners = new Set<(reply: EvaluateReply) => void>();
 
 /** Called with every reply (the benchmark measures edit-to-result with it). */
@@ -48,11 +54,12 @@ function getWorker(): Worker {
   worker.onmessage = (event: MessageEvent<EvaluateReply>) => {
     inFlight = false;
     const reply = event.data;
+    if (reply.ok) base = applyResultDelta(base, reply.delta);
     if (reply.revision === latest) {
       if (reply.ok)
         useEvaluation.setState({
           status: 'done',
-          result: reply.result,
+          result: base,
           issues: [],
           revision: reply.revision,
           ms: reply.ms,
