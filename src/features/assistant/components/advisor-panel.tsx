@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { routeDocumentSchema, type RouteDocument } from '@shared/schemas/route';
 import type { SolventAlternative } from '@shared/schemas/solvent-alternatives';
@@ -89,6 +89,34 @@ export function verdictOf(a: SolventAlternative): string {
   return losses.length > 0 ? `loses ${losses.join('; ')}` : 'loses yield or purity';
 }
 
+function parseRoute(doc: unknown): RouteDocument | null {
+  const r = routeDocumentSchema.safeParse(doc);
+  return r.success ? r.data : null;
+}
+
+/** Runs `fn` when the page has nothing else to do (at the latest after `timeout` ms). */
+function whenIdle(fn: () => void, timeout: number): () => void {
+  if (typeof requestIdleCallback === 'function') {
+    const id = requestIdleCallback(fn, { timeout });
+    return () => cancelIdleCallback(id);
+  }
+  const id = setTimeout(fn, 0);
+  return () => clearTimeout(id);
+}
+
+/**
+ * The route parsed with its schema: at once when the panel opens, then again when the page is
+ * idle after each edit, so reading the whole route never delays an edit's own results.
+ */
+function useParsedWhenIdle(doc: unknown): RouteDocument | null {
+  const [parsed, setParsed] = useState(() => ({ doc, value: parseRoute(doc) }));
+  useEffect(() => {
+    if (parsed.doc === doc) return;
+    return whenIdle(() => setParsed({ doc, value: parseRoute(doc) }), 500);
+  }, [doc, parsed.doc]);
+  return parsed.value;
+}
+
 /** The roles the step has a solvent in, with that solvent, for the route as it stands. */
 function rolesOf(doc: RouteDocument | null, stepId: string) {
   if (!doc) return [];
@@ -118,10 +146,7 @@ export function AdvisorPanel({
   stepId: string;
 }) {
   const doc = useEditorStore((s) => s.doc);
-  const parsed = useMemo(() => {
-    const r = routeDocumentSchema.safeParse(doc);
-    return r.success ? r.data : null;
-  }, [doc]);
+  const parsed = useParsedWhenIdle(doc);
   const roles = useMemo(() => rolesOf(parsed, stepId), [parsed, stepId]);
   const [chosen, setChosen] = useState<SubstitutionRole | null>(null);
   const role = roles.find((r) => r.role === chosen) ?? roles[0];
@@ -135,8 +160,12 @@ export function AdvisorPanel({
   if (!parsed || roles.length === 0 || !role) return null;
 
   const ask = () => {
-    setAsked({ role: role.role, document: parsed });
-    advice.mutate({ document: parsed, stepId, role: role.role });
+    // The route as it stands now (the one parsed for the list of roles may be an edit behind);
+    // a route that no longer reads as a route hides the panel a moment later.
+    const document = parseRoute(useEditorStore.getState().doc);
+    if (!document) return;
+    setAsked({ role: role.role, document });
+    advice.mutate({ document, stepId, role: role.role });
   };
 
   const tryInCopy = (a: SolventAlternative) => {

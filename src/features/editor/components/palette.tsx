@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, memo } from 'react';
 import { useEditorStore } from '@/stores/editor-store';
 import { KIND_ORDER, KINDS } from '../step-kinds';
 import { KindGlyph } from './kind-glyph';
@@ -18,7 +18,7 @@ function remembered(): boolean {
  * Step kinds to add: click or Enter adds one (joined to the selected step), or drag one onto the canvas.
  * The list folds to its marks (names stay as tooltips and accessible names) to give the canvas room.
  */
-export function Palette() {
+function PaletteImpl() {
   const addStep = useEditorStore((s) => s.addStep);
   const [collapsed, setCollapsed] = useState(remembered);
   const toggle = () => {
@@ -109,3 +109,6 @@ export function Palette() {
     </nav>
   );
 }
+
+/** Drawn again only for its own state, not with every edit of the route. */
+export const Palette = memo(PaletteImpl);

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, memo } from 'react';
 import { useReactFlow } from '@xyflow/react';
 import { PROCESS_SAFETY_NOTE } from '@shared/engine/route/safety-note';
 import { useEditorStore } from '@/stores/editor-store';
@@ -56,7 +56,7 @@ const sameTotals = (a: Totals, b: Totals) =>
   a.solventUseLPerKg === b.solventUseLPerKg;
 
 /** Yield, purity, PMI and solvent use of the whole route, each with its change since the previous result. */
-export function TotalsCard() {
+function TotalsCardImpl() {
   const totals = useEvaluation((s) => s.result?.totals);
   const components = useEditorStore((s) => s.doc.components);
   const impurityName = (id: string) => {
@@ -455,3 +455,6 @@ export function StreamTable() {
     </div>
   );
 }
+
+/** Drawn again only when the totals or the evaluation status change, not with every edit. */
+export const TotalsCard = memo(TotalsCardImpl);

@@ -1,5 +1,4 @@
 import { memo, useLayoutEffect, useMemo, useRef, useState } from 'react';
-import { useShallow } from 'zustand/react/shallow';
 import {
   BaseEdge,
   EdgeLabelRenderer,
@@ -70,7 +69,7 @@ function StreamEdgeImpl({
   // middle would put it over a card.
   const labelRef = useRef<HTMLDivElement>(null);
   const [size, setSize] = useState<{ width: number; height: number } | null>(null);
-  const cards = useStore(useShallow(cardBoxes));
+  const cards = useStore(cardBoxes);
   useLayoutEffect(() => {
     const el = labelRef.current;
     if (!el) return;
@@ -117,7 +116,13 @@ function StreamEdgeImpl({
   );
 }
 
-/** Every card's box as numbers joined in one string, so a connection re-renders only when a card moves or resizes. */
+/** Each state of the canvas's store, with its cards' boxes written out (computed once for all connections). */
+const boxesOfState = new WeakMap<object, string>();
+
+/**
+ * Every card's box as numbers joined in one string, so a connection re-renders only when a card
+ * moves or resizes; the same string for every connection of one state of the canvas.
+ */
 function cardBoxes(s: {
   nodeLookup: Map<
     string,
@@ -126,20 +131,35 @@ function cardBoxes(s: {
       measured: { width?: number; height?: number };
     }
   >;
-}): string[] {
-  const out: string[] = [];
-  for (const n of s.nodeLookup.values())
-    out.push(
-      `${n.internals.positionAbsolute.x},${n.internals.positionAbsolute.y},${n.measured.width ?? 0},${n.measured.height ?? 0}`,
-    );
-  return out;
+}): string {
+  let key = boxesOfState.get(s);
+  if (key === undefined) {
+    const out: string[] = [];
+    for (const n of s.nodeLookup.values())
+      out.push(
+        `${n.internals.positionAbsolute.x},${n.internals.positionAbsolute.y},${n.measured.width ?? 0},${n.measured.height ?? 0}`,
+      );
+    key = out.join(';');
+    boxesOfState.set(s, key);
+  }
+  return key;
 }
 
-function boxesOf(keys: readonly string[]): Box[] {
-  return keys.map((k) => {
-    const [x, y, width, height] = k.split(',').map(Number);
-    return { x, y, width, height };
-  });
+/** The boxes of the last string read (shared by every connection that reads the same one). */
+let lastBoxes: { key: string; boxes: Box[] } = { key: '', boxes: [] };
+
+function boxesOf(key: string): Box[] {
+  if (lastBoxes.key !== key)
+    lastBoxes = {
+      key,
+      boxes: key
+        ? key.split(';').map((k) => {
+            const [x, y, width, height] = k.split(',').map(Number);
+            return { x, y, width, height };
+          })
+        : [],
+    };
+  return lastBoxes.boxes;
 }
 
 type StreamOf = NonNullable<ReturnType<typeof useEvaluation.getState>['result']>['streams'][string];
