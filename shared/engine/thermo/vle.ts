@@ -141,6 +141,36 @@ export function createVleSystem(components: readonly VleComponent[]): VleSystem 
   };
 }
 
+/**
+ * Work arrays of one system's bubble points and liquid–liquid flashes, allocated once per system
+ * instead of per call (neither solver calls itself or the other while it holds them).
+ */
+interface VleScratch {
+  lnP: Float64Array;
+  slope: Float64Array;
+  lnGamma: Float64Array;
+  lnGI: Float64Array;
+  lnGII: Float64Array;
+  K: Float64Array;
+}
+const scratchOf = new WeakMap<UnifacModel, VleScratch>();
+function vleScratch(model: UnifacModel): VleScratch {
+  let s = scratchOf.get(model);
+  if (!s) {
+    const n = model.n;
+    s = {
+      lnP: new Float64Array(n),
+      slope: new Float64Array(n),
+      lnGamma: new Float64Array(n),
+      lnGI: new Float64Array(n),
+      lnGII: new Float64Array(n),
+      K: new Float64Array(n),
+    };
+    scratchOf.set(model, s);
+  }
+  return s;
+}
+
 function componentLabel(sys: VleSystem, i: number): string {
   return sys.components[i].name ?? `component ${i + 1}`;
 }
@@ -352,9 +382,7 @@ export function bubblePoint(
   const xs = normalised(x, n);
   checkPressure(P_Pa);
   requireVolatile(sys, xs, 'liquid');
-  const lnP = new Float64Array(n);
-  const slope = new Float64Array(n);
-  const lnGamma = new Float64Array(n);
+  const { lnP, slope, lnGamma } = vleScratch(sys.unifac);
   const lnTarget = Math.log(P_Pa);
 
   let T = opts?.T0_K ?? NaN;
@@ -789,7 +817,8 @@ export function liquidLiquidSplit(
   const zs = normalised(z, n);
   checkTemperature(T_K);
   const warnings: string[] = pairRangeWarnings(sys, T_K, zs);
-  const present = Array.from(zs).filter((v) => v > 0).length;
+  let present = 0;
+  for (let i = 0; i < n; i++) if (zs[i] > 0) present++;
   if (present < 2) return { split: false, warnings };
   const model = sys.unifac;
   if (start && start[0].length === n && start[1].length === n) {
@@ -889,9 +918,7 @@ function flashFrom(
   maxIterations = 2000,
 ): Flash | null {
   const n = zs.length;
-  const lnGI = new Float64Array(n);
-  const lnGII = new Float64Array(n);
-  const K = new Float64Array(n);
+  const { lnGI, lnGII, K } = vleScratch(model);
   let beta = 0.5;
   let converged = false;
   for (let iter = 0; iter < maxIterations; iter++) {

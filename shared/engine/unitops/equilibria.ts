@@ -635,16 +635,51 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
  * and mole fractions of its solvents, and its molar volume by ideal mixing at
  * T [m³/mol]; key: the composition rounded to 1e-6 (for memoising).
  */
-function phaseOf(
-  ctx: EvalContext,
-  kg: Record<string, number>,
-  T_K: number,
-): {
+function phaseOf(ctx: EvalContext, kg: Record<string, number>, T_K: number): PhaseDescription {
+  // A wash asks for the same two phases once per compound and pH: the description of the last
+  // request for this object is returned when the context, T and every solvent amount are the same
+  // (compared exactly, so a changed amount is described afresh).
+  let ids = solventIdsOf.get(ctx);
+  if (!ids) {
+    ids = solventIds(ctx);
+    solventIdsOf.set(ctx, ids);
+  }
+  const kept = describedPhases.get(kg);
+  if (kept && kept.ctx === ctx && kept.T_K === T_K && kept.ids === ids) {
+    let same = true;
+    for (let i = 0; i < ids.length; i++)
+      if (!Object.is(kg[ids[i]], kept.amounts[i])) {
+        same = false;
+        break;
+      }
+    if (same) return kept.phase;
+  }
+  const phase = describePhase(ctx, kg, T_K);
+  describedPhases.set(kg, { ctx, T_K, ids, amounts: ids.map((id) => kg[id]), phase });
+  return phase;
+}
+
+type PhaseDescription = {
   groups: UnifacGroups[];
   moleFractions: number[];
   molarVolumeM3mol: number;
   key: string;
-} | null {
+} | null;
+
+/** The last description of each phase object (phaseOf), with what it was computed from. */
+const describedPhases = new WeakMap<
+  Record<string, number>,
+  { ctx: EvalContext; T_K: number; ids: string[]; amounts: number[]; phase: PhaseDescription }
+>();
+
+/** The solvent components of each context (solventIds, once per context). */
+const solventIdsOf = new WeakMap<EvalContext, string[]>();
+
+function describePhase(
+  ctx: EvalContext,
+  kg: Record<string, number>,
+  T_K: number,
+): PhaseDescription {
   const ids = solventIds(ctx).filter((id) => kg[id] > 0);
   if (ids.length === 0) return null;
   const mol = ids.map((id) => kg[id] / ctx.comps.get(id)!.molarMassKgMol);
