@@ -114,7 +114,10 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Phasewri
 
   // API replies and the HTML page are compressed per request (above 1 kB); built assets are
   // sent from the brotli or gzip copy the build wrote, which this middleware leaves alone.
-  app.use(compression({ threshold: 1024 }));
+  // A client that accepts no encoding (scripts, load generators) skips the middleware's
+  // wrapping of every reply.
+  const compress = compression({ threshold: 1024 });
+  app.use((req, res, next) => (req.headers['accept-encoding'] ? compress(req, res, next) : next()));
 
   // Sessions and rate limits share one small pool. An idle client's error (the database
   // restarting) must be handled, or Node ends the process; the pool then reconnects by itself.

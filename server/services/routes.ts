@@ -14,6 +14,7 @@ import {
   type WhereOptions,
   QueryTypes,
 } from 'sequelize';
+import { hotRead, nested } from '../db/hot-read';
 import { database } from '../db/sequelize';
 import type { DraftDocument, KeyTotals, RouteSort } from '@shared/schemas/routes';
 import { badRequest, notFound, versionConflict } from '../errors';
@@ -65,6 +66,10 @@ const ROUTE_VIEW_FROM = `routes AS "Route"
   LEFT JOIN users AS "owner" ON "owner"."id" = "Route"."owner_id"
   JOIN route_drafts AS "draft" ON "draft"."route_id" = "Route"."id"
   LEFT JOIN users AS "updatedBy" ON "updatedBy"."id" = "draft"."updated_by_id"`;
+const ROUTE_READ_COLUMNS = `${ROUTE_VIEW_COLUMNS}, "draft"."document"::text AS "draft.documentJson"`;
+/** A route read's fixed statement, prepared once per connection (hotRead()). */
+const ROUTE_READ_SQL = `SELECT ${ROUTE_READ_COLUMNS} FROM ${ROUTE_VIEW_FROM}
+  WHERE "Route"."id" = $1 AND "Route"."workspace_id" = $2`;
 
 const routeIncludes: IncludeOptions[] = [
   { model: Project, as: 'project', attributes: ['id', 'name'] },
@@ -161,15 +166,16 @@ export async function listRoutes(
         : `(${NAME_KEY}, "Route"."id") > (${escape(after.key)}, ${escape(after.id)}::uuid)`,
     );
   }
-  const rows = await database().query<{ id: string; item: string; sortKey: string }>(
-    `SELECT "Route"."id", ${ROUTE_SUMMARY_JSON} AS "item", ${query.sort === 'changed' ? CHANGED_KEY : NAME_KEY} AS "sortKey"
+  const sql = `SELECT "Route"."id", ${ROUTE_SUMMARY_JSON} AS "item", ${query.sort === 'changed' ? CHANGED_KEY : NAME_KEY} AS "sortKey"
        FROM ${ROUTE_VIEW_FROM}
       WHERE ${conditions.join(' AND ')}
       ORDER BY ${query.sort === 'changed' ? '"Route"."changed_at" DESC, "Route"."id" DESC' : `${NAME_KEY} ASC, "Route"."id" ASC`}
-      LIMIT ${query.limit + 1}`,
-    // Each row's JSON as text: building model instances, then objects, was most of a page's work.
-    { type: QueryTypes.SELECT, transaction },
-  );
+      LIMIT ${query.limit + 1}`;
+  type Row = { id: string; item: string; sortKey: string };
+  // Each row's JSON as text: building model instances, then objects, was most of a page's work.
+  const rows = transaction
+    ? await database().query<Row>(sql, { type: QueryTypes.SELECT, transaction })
+    : await hotRead<Row>(sql, []);
   const routes = rows.slice(0, query.limit);
   const last = routes.at(-1);
   return {
@@ -214,12 +220,16 @@ export async function readRoute(
   routeId: string,
   transaction: Transaction | null,
 ): Promise<{ route: RouteView; documentJson: string }> {
-  const [row] = await database().query<RouteView & { draft: { documentJson: string } }>(
-    `SELECT ${ROUTE_VIEW_COLUMNS}, "draft"."document"::text AS "draft.documentJson"
-       FROM ${ROUTE_VIEW_FROM}
-      WHERE "Route"."id" = $routeId AND "Route"."workspace_id" = $workspaceId`,
-    { type: QueryTypes.SELECT, nest: true, bind: { routeId, workspaceId }, transaction },
-  );
+  type Row = RouteView & { draft: { documentJson: string } };
+  const [row] = transaction
+    ? await database().query<Row>(
+        `SELECT ${ROUTE_READ_COLUMNS} FROM ${ROUTE_VIEW_FROM}
+          WHERE "Route"."id" = $routeId AND "Route"."workspace_id" = $workspaceId`,
+        { type: QueryTypes.SELECT, nest: true, bind: { routeId, workspaceId }, transaction },
+      )
+    : (
+        await hotRead<Record<string, unknown>>(ROUTE_READ_SQL, [routeId, workspaceId], 'route-read')
+      ).map((r) => nested<Row>(r));
   if (!row) throw notFound();
   const { documentJson, ...draft } = row.draft;
   return { route: { ...row, ...nullIncludes(row), draft }, documentJson };
