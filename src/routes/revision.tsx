@@ -1,4 +1,4 @@
-import { lazy, Suspense, useMemo } from 'react';
+import { useMemo } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ErrorState } from '@/components/error-state';
 import { Loading } from '@/components/spinner';
@@ -16,7 +16,9 @@ import {
 import { useRoute } from '@/features/routes/api/get-route';
 import { paths } from '@/paths';
 
-const RouteEditor = lazy(() => import('@/features/editor/components/route-editor'));
+// Imported directly (this page is itself loaded lazily): a Suspense boundary would hold the
+// editor back for React's 300 ms reveal throttle after showing its fallback.
+import RouteEditor from '@/features/editor/components/route-editor';
 
 /** A saved revision, read only in the editor, with its review beside it (and its changes when compared). */
 export function Component() {
@@ -72,76 +74,74 @@ export function Component() {
       ) : !route.data || !revision.data ? (
         <Loading label="Opening the revision…" className="justify-center" />
       ) : (
-        <Suspense fallback={<Loading label="Loading the editor…" className="justify-center" />}>
-          <RouteEditor
-            key={`${route.data.id}-${revision.data.number}`}
-            workspaceId={workspace.id}
-            route={route.data}
-            view={{
-              document: revision.data.document,
-              marks,
-              heading: (
-                <span className="flex items-center gap-2 whitespace-nowrap text-small">
-                  <span className="font-medium">Revision {revision.data.number}</span>
-                  <StatusBadge status={revision.data.status} />
-                  <span className="text-ink-muted">read only</span>
+        <RouteEditor
+          key={`${route.data.id}-${revision.data.number}`}
+          workspaceId={workspace.id}
+          route={route.data}
+          view={{
+            document: revision.data.document,
+            marks,
+            heading: (
+              <span className="flex items-center gap-2 whitespace-nowrap text-small">
+                <span className="font-medium">Revision {revision.data.number}</span>
+                <StatusBadge status={revision.data.status} />
+                <span className="text-ink-muted">read only</span>
+                <Link
+                  className="text-accent hover:underline"
+                  to={paths.workspace.revisions.to(workspace.id, routeId)}
+                >
+                  History
+                </Link>
+                <Link
+                  className="text-accent hover:underline"
+                  to={paths.workspace.route.to(workspace.id, routeId)}
+                >
+                  Draft
+                </Link>
+                {canExport ? (
                   <Link
                     className="text-accent hover:underline"
-                    to={paths.workspace.revisions.to(workspace.id, routeId)}
+                    to={paths.workspace.stepList.to(workspace.id, routeId, revision.data.number)}
                   >
-                    History
+                    Step list
                   </Link>
-                  <Link
-                    className="text-accent hover:underline"
-                    to={paths.workspace.route.to(workspace.id, routeId)}
-                  >
-                    Draft
-                  </Link>
-                  {canExport ? (
-                    <Link
-                      className="text-accent hover:underline"
-                      to={paths.workspace.stepList.to(workspace.id, routeId, revision.data.number)}
-                    >
-                      Step list
-                    </Link>
-                  ) : null}
-                </span>
-              ),
-              tabs: [
-                {
-                  id: 'review',
-                  label: 'Review',
-                  content: (
-                    <ReviewPanel
-                      workspaceId={workspace.id}
-                      routeId={routeId}
-                      revision={revision.data}
-                    />
-                  ),
-                },
-                ...(compareWith !== null
-                  ? [
-                      {
-                        id: 'changes',
-                        label: `Changes from ${compareWith}`,
-                        content: compare.data ? (
-                          <CompareView compare={compare.data} componentNames={componentNames} />
-                        ) : compare.isError ? (
-                          <ErrorState
-                            title="The comparison could not be made"
-                            error={compare.error}
-                          />
-                        ) : (
-                          <Loading label="Comparing…" />
-                        ),
-                      },
-                    ]
-                  : []),
-              ],
-              initialTab: compareWith !== null ? 'changes' : 'review',
-            }}
-          />
-        </Suspense>
+                ) : null}
+              </span>
+            ),
+            tabs: [
+              {
+                id: 'review',
+                label: 'Review',
+                content: (
+                  <ReviewPanel
+                    workspaceId={workspace.id}
+                    routeId={routeId}
+                    revision={revision.data}
+                  />
+                ),
+              },
+              ...(compareWith !== null
+                ? [
+                    {
+                      id: 'changes',
+                      label: `Changes from ${compareWith}`,
+                      content: compare.data ? (
+                        <CompareView compare={compare.data} componentNames={componentNames} />
+                      ) : compare.isError ? (
+                        <ErrorState
+                          title="The comparison could not be made"
+                          error={compare.error}
+                        />
+                      ) : (
+                        <Loading label="Comparing…" />
+                      ),
+                    },
+                  ]
+                : []),
+            ],
+            initialTab: compareWith !== null ? 'changes' : 'review',
+          }}
+        />
       )}
     </div>
   );

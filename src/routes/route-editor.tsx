@@ -1,4 +1,3 @@
-import { lazy, Suspense } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import { useWorkspace } from '@/features/auth/use-workspace';
 import { Loading } from '@/components/spinner';
@@ -8,8 +7,12 @@ import { RevisionActions } from '@/features/review';
 import { Button } from '@/components/button';
 import { paths } from '@/paths';
 
-// The canvas, React Flow and the engine worker load only when a route is opened.
-const RouteEditor = lazy(() => import('@/features/editor/components/route-editor'));
+// The canvas, React Flow and the engine worker load only when a route is opened: this page is
+// loaded lazily by the router, whose loader starts the editor's code beside the session and the
+// route. Imported here directly, not through lazy() and a Suspense boundary: a boundary that
+// shows its fallback holds the editor back for at least 300 ms after it (React's throttle on
+// revealing suspended content), even when the code has long arrived.
+import RouteEditor from '@/features/editor/components/route-editor';
 
 /** One route's draft, open in the editor (full width beside the navigation rail, which keeps only its marks here). */
 export function Component() {
@@ -29,24 +32,22 @@ export function Component() {
           />
         </div>
       ) : (
-        <Suspense fallback={<Loading label="Loading the editor…" className="justify-center" />}>
-          <RouteEditor
-            key={route.data.id}
-            workspaceId={workspace.id}
-            route={route.data}
-            actions={({ canEdit, saveNow }) => (
-              <>
-                <OptimiseButton workspaceId={workspace.id} routeId={route.data.id} save={saveNow} />
-                <RevisionActions
-                  workspaceId={workspace.id}
-                  routeId={route.data.id}
-                  canSave={canEdit}
-                  saveDraft={saveNow}
-                />
-              </>
-            )}
-          />
-        </Suspense>
+        <RouteEditor
+          key={route.data.id}
+          workspaceId={workspace.id}
+          route={route.data}
+          actions={({ canEdit, saveNow }) => (
+            <>
+              <OptimiseButton workspaceId={workspace.id} routeId={route.data.id} save={saveNow} />
+              <RevisionActions
+                workspaceId={workspace.id}
+                routeId={route.data.id}
+                canSave={canEdit}
+                saveDraft={saveNow}
+              />
+            </>
+          )}
+        />
       )}
     </div>
   );

@@ -1,6 +1,6 @@
 import '@xyflow/react/dist/style.css';
 import './editor.css';
-import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { ReactFlowProvider, useReactFlow, type ReactFlowInstance } from '@xyflow/react';
 import { useShallow } from 'zustand/react/shallow';
 import { Link } from 'react-router-dom';
@@ -65,7 +65,9 @@ export default function RouteEditor({
   );
   const [ready, setReady] = useState(false);
   const viewing = view !== undefined;
-  useEffect(() => {
+  // Before the first paint (a layout effect): the cards are drawn in the same frame as the page,
+  // not one frame and a passive effect later.
+  useLayoutEffect(() => {
     useEditorStore.getState().load(start.doc, { readOnly: viewing || !route.abilities.edit });
     setReady(true);
     return () => resetEvaluation();
