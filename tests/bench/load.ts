@@ -24,13 +24,19 @@
  * LOAD_SECONDS sets the length of each measurement (default 10).
  *
  * For finding where the time goes: LOAD_ONLY=health,route,list measures only those loads on one
- * instance (and rewrites no document), each with the server's processor time per request (and the
- * bare process's), which a loaded machine disturbs less than the rates; LOAD_PROFILE=folder starts the server with --cpu-prof and
+ * instance (and rewrites no document; the names are the keys of `loads` below: bare, health,
+ * route, list, evaluate, evaluateNew), each with the server's processor time per request (and the
+ * bare process's), which a loaded machine disturbs less than the rates, split between its main
+ * thread and its other threads (the engine pool's, garbage collection's) beside the load
+ * generator's, each failure's status and error code, and the server's RSS before and after;
+ * `idle` in the list also waits for the engine threads to retire and prints the RSS then;
+ * LOAD_HEAPSNAPSHOT=folder writes a heap snapshot of the server's main thread there at the end;
+ * LOAD_PROFILE=folder starts the server with --cpu-prof and
  * writes its CPU profile (.cpuprofile, open in a browser's developer tools) there on shutdown;
  * LOAD_SERVER_ROOT=folder measures the server of another checkout of the product (compiled there).
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -58,6 +64,12 @@ const IDLE_SECONDS = Number(process.env.LOAD_IDLE_SECONDS ?? 60);
 const NODE_FLAGS = ['--max-semi-space-size=4'];
 const ONLY = process.env.LOAD_ONLY?.split(',').filter(Boolean);
 const PROFILE_DIR = process.env.LOAD_PROFILE;
+/**
+ * A folder: the server is started with --heapsnapshot-signal=SIGUSR2 and, at the end of a
+ * LOAD_ONLY run, writes a heap snapshot of its main thread there (open it in a browser's
+ * developer tools, Memory tab) to see what it keeps.
+ */
+const SNAPSHOT_DIR = process.env.LOAD_HEAPSNAPSHOT;
 /** Measure the server compiled in another checkout (its dist-server/), e.g. the previous commit. */
 const SERVER_ROOT = process.env.LOAD_SERVER_ROOT ?? root;
 
@@ -102,7 +114,10 @@ async function waitFor(url: string, child: ChildProcess): Promise<void> {
 
 function startServer(port: number): ChildProcess {
   const profile = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
-  const child = spawn('node', [...NODE_FLAGS, ...profile, 'dist-server/index.js'], {
+  const snapshot = SNAPSHOT_DIR
+    ? ['--heapsnapshot-signal=SIGUSR2', `--diagnostic-dir=${SNAPSHOT_DIR}`]
+    : [];
+  const child = spawn('node', [...NODE_FLAGS, ...profile, ...snapshot, 'dist-server/index.js'], {
     cwd: SERVER_ROOT,
     env: {
       ...process.env,
@@ -148,6 +163,63 @@ async function stopAndWait(child: ChildProcess): Promise<void> {
   await exited;
 }
 
+/** Asks the server for a heap snapshot (SIGUSR2) and waits until it is written. */
+async function heapSnapshot(child: ChildProcess): Promise<void> {
+  const count = () => readdirSync(SNAPSHOT_DIR!).filter((f) => f.endsWith('.heapsnapshot'));
+  const before = count().length;
+  child.kill('SIGUSR2');
+  for (let i = 0; i < 600 && count().length === before; i++) await sleep(100);
+  // The file appears when writing starts; its size settles when it is done.
+  let size = -1;
+  for (let i = 0; i < 600; i++) {
+    const files = count().map((f) => statSync(join(SNAPSHOT_DIR!, f)).size);
+    const now = files.reduce((a, b) => a + b, 0);
+    if (now === size) break;
+    size = now;
+    await sleep(500);
+  }
+  console.log(`heap snapshot written to ${SNAPSHOT_DIR}`);
+}
+
+/** CPU time of each thread of a process so far, ms, by thread id (Linux /proc). */
+function threadCpuMs(pid: number): Map<number, number> {
+  const tick = 1000 / 100; // USER_HZ is 100 on Linux
+  const threads = new Map<number, number>();
+  for (const tid of readdirSync(`/proc/${pid}/task`)) {
+    try {
+      const stat = readFileSync(`/proc/${pid}/task/${tid}/stat`, 'utf8');
+      const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+      threads.set(Number(tid), (Number(fields[11]) + Number(fields[12])) * tick);
+    } catch {
+      // the thread ended meanwhile
+    }
+  }
+  return threads;
+}
+
+/**
+ * Where the CPU went per request during one load: the server's main thread (HTTP, session,
+ * validation, hand-off), its other threads by use (the engine pool's workers are the busiest;
+ * then V8's garbage-collection helpers and libuv's pool) and the load generator (this process).
+ */
+function cpuPerRequest(
+  before: Map<number, number>,
+  after: Map<number, number>,
+  pid: number,
+  generatorMs: number,
+  requests: number,
+): string {
+  const per = (ms: number) => (ms / Math.max(1, requests)).toFixed(1);
+  const used = [...after].map(([tid, ms]) => [tid, ms - (before.get(tid) ?? 0)] as const);
+  const main = used.find(([tid]) => tid === pid)?.[1] ?? 0;
+  const others = used
+    .filter(([tid, ms]) => tid !== pid && ms > 0)
+    .map(([, ms]) => ms)
+    .sort((a, b) => b - a);
+  const total = main + others.reduce((a, b) => a + b, 0);
+  return `CPU per request: server ${per(total)} ms (main thread ${per(main)} ms; other threads ${others.map(per).join(' + ')} ms), load generator ${per(generatorMs)} ms`;
+}
+
 const rssMb = (pid: number) => {
   const status = readFileSync(`/proc/${pid}/status`, 'utf8');
   return Number(/VmRSS:\s+(\d+) kB/.exec(status)![1]) / 1024;
@@ -190,6 +262,8 @@ interface Figure {
   errors: number;
   non2xx: number;
   requests: number;
+  /** What the failures were: "timed out", or each refusal's status and error code, with counts. */
+  failures: string;
 }
 
 interface Load {
@@ -210,6 +284,19 @@ async function measure(
   seconds = SECONDS,
 ): Promise<Figure> {
   const perTarget = Math.round(connections / targets.length);
+  // Each refusal by its status and error code (the body of an error reply names it).
+  const refusals = new Map<string, number>();
+  const onResponse = (status: number, body: string) => {
+    if (status < 400) return;
+    let code = '';
+    try {
+      code = (JSON.parse(body) as { error?: { code?: string } }).error?.code ?? '';
+    } catch {
+      // not an error reply of the API
+    }
+    const key = code ? `${status} ${code}` : String(status);
+    refusals.set(key, (refusals.get(key) ?? 0) + 1);
+  };
   const results = await Promise.all(
     targets.map(({ base, users }) => {
       let next = 0;
@@ -222,16 +309,23 @@ async function measure(
             method: load.method,
             path: load.path,
             ...(load.body ? { body: load.body } : {}),
-            setupRequest: (request: autocannon.Request, context: object) => {
+            onResponse,
+            setupRequest: (request: autocannon.Request) => {
               if (!load.signedIn) return request;
-              const session = context as { user?: User };
-              session.user ??= users[next++ % users.length];
-              const user = session.user!;
+              // One user per connection, for the whole run: autocannon clears a connection's
+              // context after every request (its list of requests has one), so the user's
+              // number is kept in the connection's own copy of the request headers, which it
+              // carries from one request to the next. (Picking a user per request instead gives
+              // a slow user a second and third calculation at once, which the per-person limit
+              // refuses with 429 too_many_evaluations: not what 50 chemists at their desks do.)
+              const headers = request.headers as Record<string, string>;
+              headers['x-load-user'] ??= String(next++ % users.length);
+              const user = users[Number(headers['x-load-user'])]!;
               return {
                 ...request,
                 ...(load.bodyFor ? { body: load.bodyFor() } : {}),
                 headers: {
-                  ...request.headers,
+                  ...headers,
                   cookie: user.cookie,
                   'x-csrf-token': user.csrf,
                   ...(load.body || load.bodyFor ? { 'content-type': 'application/json' } : {}),
@@ -251,9 +345,17 @@ async function measure(
     rps: total((r) => r.requests.average),
     p50: worst((r) => r.latency.p50),
     p99: worst((r) => r.latency.p99),
-    errors: total((r) => r.errors + r.timeouts),
+    // autocannon counts a timeout among its errors too.
+    errors: total((r) => r.errors),
     non2xx: total((r) => r.non2xx),
     requests: total((r) => r.requests.total),
+    failures: [
+      ...(total((r) => r.timeouts) ? [`${total((r) => r.timeouts)} timed out`] : []),
+      ...(total((r) => r.errors - r.timeouts)
+        ? [`${total((r) => r.errors - r.timeouts)} connection errors`]
+        : []),
+      ...[...refusals].map(([key, count]) => `${count} × ${key}`),
+    ].join(', '),
   };
 }
 
@@ -316,6 +418,7 @@ async function main(): Promise<void> {
     generateRoute({ seed: 11, steps: 30, compounds, weights: BENCH_WEIGHTS });
   const document = make(Math.max(1, 10 - (make(1).components.length - 1)));
   let fresh = 0;
+  const freshBody = firstVolumeBodies(document);
   let routeId = '';
   for (let i = 0; i < ROUTES; i++) {
     const user = users[i % users.length]!;
@@ -373,7 +476,7 @@ async function main(): Promise<void> {
       name: 'POST /evaluate, 30-step route, every step new',
       method: 'POST',
       path: '/api/v1/evaluate',
-      bodyFor: () => JSON.stringify({ document: withFirstVolume(document, ++fresh) }),
+      bodyFor: () => freshBody(++fresh),
       signedIn: true,
     },
   };
@@ -381,22 +484,39 @@ async function main(): Promise<void> {
   const bareTarget = [{ base: bareBase, users: [] }];
 
   if (ONLY) {
-    await measure(loads[ONLY[0]!]!, one, USERS, 2);
+    const measured = ONLY.filter((key) => key !== 'idle');
+    console.log(`server RSS ${fmt(rssMb(first.pid!))} MB idle before the load`);
+    await measure(loads[measured[0]!]!, one, USERS, 2);
     const bareCpu = cpuMs(bare.pid!);
     const bareOnly = await measure(loads.bare!, bareTarget);
     console.log(
       `${bareOnly.name}: ${fmt(bareOnly.rps)}/s, p99 ${fmt(bareOnly.p99)} ms, CPU ${fmt((cpuMs(bare.pid!) - bareCpu) / bareOnly.requests, 3)} ms per request`,
     );
-    for (const key of ONLY) {
-      const cpuBefore = cpuMs(first.pid!);
+    for (const key of measured) {
+      const threadsBefore = threadCpuMs(first.pid!);
+      const generatorBefore = process.cpuUsage();
       const figure = await measure(loads[key]!, one);
-      // The server's own processor time per request: steadier than the rate when others load
-      // the machine.
-      const perRequest = (cpuMs(first.pid!) - cpuBefore) / figure.requests;
+      const generator = process.cpuUsage(generatorBefore);
       console.log(
-        `${figure.name}: ${fmt(figure.rps)}/s (${fmt((100 * figure.rps) / bareOnly.rps, 1)} % of bare ${fmt(bareOnly.rps)}/s), p50 ${fmt(figure.p50)} ms, p99 ${fmt(figure.p99)} ms, ${figure.errors + figure.non2xx} errors of ${figure.requests}, server CPU ${fmt(perRequest, 2)} ms per request`,
+        cpuPerRequest(
+          threadsBefore,
+          threadCpuMs(first.pid!),
+          first.pid!,
+          (generator.user + generator.system) / 1000,
+          figure.requests,
+        ),
+      );
+      console.log(
+        `${figure.name}: ${fmt(figure.rps)}/s (${fmt((100 * figure.rps) / bareOnly.rps, 1)} % of bare ${fmt(bareOnly.rps)}/s), p50 ${fmt(figure.p50)} ms, p99 ${fmt(figure.p99)} ms, ${figure.errors + figure.non2xx} errors of ${figure.requests}${figure.failures ? ` (${figure.failures})` : ''}`,
       );
     }
+    console.log(`server RSS ${fmt(rssMb(first.pid!))} MB after the load`);
+    if (ONLY.includes('idle')) {
+      console.log(`idle for ${IDLE_SECONDS + 5} s (engine threads retire after ${IDLE_SECONDS} s)`);
+      await sleep((IDLE_SECONDS + 5) * 1000);
+      console.log(`server RSS ${fmt(rssMb(first.pid!))} MB with its engine threads retired`);
+    }
+    if (SNAPSHOT_DIR) await heapSnapshot(first);
     await stopAndWait(first);
     stopChildren();
     await adminQuery(`DROP DATABASE IF EXISTS ${DB} WITH (FORCE)`);
@@ -440,7 +560,7 @@ async function main(): Promise<void> {
 
   const ratio = (f: Figure, base: Figure) => (100 * f.rps) / base.rps;
   const line = (f: Figure, base: Figure, target: string, met: boolean | null) =>
-    `| ${f.name} | ${fmt(f.rps)} | ${fmt(ratio(f, base), 1)} % | ${fmt(f.p50)} | ${fmt(f.p99)} | ${f.errors + f.non2xx} of ${f.requests} | ${target} | ${met === null ? '' : met ? 'yes' : 'NO'} |`;
+    `| ${f.name} | ${fmt(f.rps)} | ${fmt(ratio(f, base), 1)} % | ${fmt(f.p50)} | ${fmt(f.p99)} | ${f.errors + f.non2xx} of ${f.requests}${f.failures ? ` (${f.failures})` : ''} | ${target} | ${met === null ? '' : met ? 'yes' : 'NO'} |`;
   const readMet = (f: Figure, base: Figure) =>
     ratio(f, base) >= 30 && f.p99 <= 100 && f.errors + f.non2xx === 0;
   const header = [
@@ -531,18 +651,24 @@ main().catch((error: unknown) => {
 });
 
 /**
- * The route with its first charge's first volume moved by n × 10⁻⁷ of itself: a route no step
- * memo has seen, for measuring evaluations that reuse nothing.
+ * Request bodies of the route with its first charge's first volume moved by n × 10⁻⁷ of itself: a
+ * route no step memo has seen, for measuring evaluations that reuse nothing. The body is put
+ * together from text around the one number (not a copy of the document serialised each time):
+ * the load generator shares the machine's cores with the server it measures.
  */
-function withFirstVolume<T extends { steps: Array<{ params: unknown }> }>(
+function firstVolumeBodies<T extends { steps: Array<{ params: unknown }> }>(
   document: T,
-  n: number,
-): T {
+): (n: number) => string {
   const copy = structuredClone(document);
   const contents = (copy.steps[0]!.params as { contents?: Array<{ amount: unknown }> }).contents;
   const first = contents?.[0];
   if (!first || typeof first.amount !== 'number')
     throw new Error('the load route must open with a charge of a plain volume');
-  first.amount *= 1 + (n % 1_000_000) * 1e-7;
-  return copy;
+  const amount = first.amount;
+  const marker = -1.25e-300; // a number no route holds
+  first.amount = marker;
+  const parts = JSON.stringify({ document: copy }).split(JSON.stringify(marker));
+  if (parts.length !== 2) throw new Error('the load route holds the marker number');
+  const [head, tail] = parts as [string, string];
+  return (n) => `${head}${JSON.stringify(amount * (1 + (n % 1_000_000) * 1e-7))}${tail}`;
 }
