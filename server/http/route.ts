@@ -17,8 +17,11 @@ export interface Reply {
   body?: unknown;
   /** A download instead of JSON (CSV, XLSX and PDF exports, stored files). */
   file?: { contentType: string; filename: string; content: string | Buffer };
-  /** A body already serialised as JSON (e.g. by an engine pool worker), sent as it is. */
-  json?: string;
+  /**
+   * A body already serialised as JSON (e.g. by an engine pool worker), sent as it is: the text,
+   * or its UTF-8 bytes.
+   */
+  json?: string | Uint8Array;
 }
 
 /** Runs `work` in one database transaction, for handlers that opt out of the wrapping one. */
@@ -172,7 +175,7 @@ export function defineRoute<
         .attachment(reply.file.filename)
         .send(reply.file.content);
     else if (reply.json !== undefined)
-      res.status(reply.status).type('application/json').send(reply.json);
+      res.status(reply.status).type('application/json').send(jsonPayload(reply.json));
     else if (reply.body === undefined) res.status(reply.status).end();
     else res.status(reply.status).json(reply.body);
   };
@@ -193,7 +196,8 @@ function checkReply(
   reply: Reply,
 ) {
   const schema = spec.responses[reply.status]?.schema;
-  const body = reply.json !== undefined ? JSON.parse(reply.json) : reply.body;
+  const body =
+    reply.json !== undefined ? JSON.parse(jsonPayload(reply.json).toString()) : reply.body;
   if (!schema || body === undefined) return;
   const checked = parseExact(schema, JSON.parse(JSON.stringify(body)));
   if (!checked.success) {
@@ -204,6 +208,13 @@ function checkReply(
       `${spec.method.toUpperCase()} ${spec.path} answered ${reply.status} with a body that does not match its declared schema: ${problems}`,
     );
   }
+}
+
+/** Serialised JSON as express sends it: text as it is, bytes as a Buffer over the same memory. */
+function jsonPayload(json: string | Uint8Array): string | Buffer {
+  return typeof json === 'string'
+    ? json
+    : Buffer.from(json.buffer, json.byteOffset, json.byteLength);
 }
 
 function parsePart(schema: ZodType | undefined, value: unknown, part: 'params' | 'query' | 'body') {

@@ -9,6 +9,7 @@
  * dotted name. Throw an AppError for an answer the caller should pass on
  * (it crosses the thread boundary as its status, code, message and details).
  */
+import { move, transferableSymbol, valueSymbol } from 'piscina';
 import type { ApiErrorBody } from '@shared/schemas/errors';
 import type { DraftDocument } from '@shared/schemas/routes';
 import type { RouteDocument } from '@shared/schemas/route';
@@ -56,6 +57,8 @@ import {
   resultTooLarge,
 } from '../services/evaluation';
 
+const utf8 = new TextEncoder();
+
 function prepare(document: RouteDocument): PreparedRoute {
   try {
     return prepareWithReuse(document);
@@ -99,11 +102,16 @@ export type CalculationName = keyof typeof CALCULATIONS;
 export const tasks = {
   /** Nothing: answered once the worker has loaded the engine (the pool's start waits for it). */
   'pool.ready': () => null,
-  /** One evaluation, answered as JSON text (serialised here, off the web thread), refused above maxReplyBytes. */
+  /**
+   * One evaluation, answered as the bytes of its JSON (serialised and encoded here, off the web
+   * thread; the bytes are moved to the web thread, not copied), refused above maxReplyBytes. The
+   * document is the request body the web thread parsed with the route document schema, so the
+   * schema is not run again here.
+   */
   'route.evaluate': (input: { document: RouteDocument; maxReplyBytes: number }) => {
-    const json = JSON.stringify(evaluateDocument(input.document));
-    if (json.length > input.maxReplyBytes) throw resultTooLarge(json.length, input.maxReplyBytes);
-    return { json };
+    const text = JSON.stringify(evaluateDocument(input.document, { schemaChecked: true }));
+    if (text.length > input.maxReplyBytes) throw resultTooLarge(text.length, input.maxReplyBytes);
+    return { json: utf8.encode(text) };
   },
   /** A draft's totals and cautions; a document the engine rejects gives the reason, not an error. */
   'route.evaluateDraft': (input: { document: DraftDocument }) => evaluateDraft(input.document),
@@ -217,12 +225,30 @@ export type TaskReply =
   | { ok: true; value: unknown }
   | { ok: false; error: { body: ApiErrorBody; headers?: Record<string, string> } };
 
+/**
+ * A reply whose value carries bytes (`json`, a Uint8Array: an evaluation's JSON) moves their
+ * buffer to the web thread instead of copying it: the web thread sends them as they are, and a
+ * reply of a few hundred kB never becomes a string on its heap.
+ */
+function moving(reply: TaskReply & { ok: true }): TaskReply {
+  const json = (reply.value as { json?: unknown } | null)?.json;
+  if (!(json instanceof Uint8Array)) return reply;
+  return move({
+    get [transferableSymbol]() {
+      return json.buffer;
+    },
+    get [valueSymbol]() {
+      return reply;
+    },
+  }) as unknown as TaskReply;
+}
+
 /** The worker's entry: runs the named task. Errors that are not AppErrors are thrown (a server fault). */
 export function runTask(message: { name: TaskName; input: unknown }): TaskReply {
   const task = tasks[message.name] as ((input: unknown) => unknown) | undefined;
   if (!task) throw new Error(`unknown pool task ${String(message.name)}`);
   try {
-    return { ok: true, value: task(message.input) };
+    return moving({ ok: true, value: task(message.input) });
   } catch (error) {
     if (error instanceof AppError)
       return { ok: false, error: { body: error.body, headers: error.headers } };

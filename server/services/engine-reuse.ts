@@ -27,17 +27,30 @@ import {
 const stepMemo = createStepMemo(2000);
 const cachePool = createCachePool(16);
 
+export interface ReuseOptions {
+  /**
+   * The document is the output of the route document schema already (the web thread parsed the
+   * request with it before handing the document over): the schema is not run a second time.
+   * The schema's output parses to itself (its defaults are filled in, it has no transforms), so
+   * the evaluation is the same to the last bit; the route checks (components, graph) still run.
+   */
+  schemaChecked?: boolean;
+}
+
 /** Prepares a document with this thread's shared document caches (validation as prepareRoute). */
-export function prepareWithReuse(document: unknown): PreparedRoute {
-  const parsed = parseRoute(document);
+export function prepareWithReuse(document: unknown, options: ReuseOptions = {}): PreparedRoute {
+  const parsed = options.schemaChecked ? (document as RouteDocument) : parseRoute(document);
   const prepared = prepareRoute(parsed);
   prepared.caches = cachesFor(cachePool, parsed);
   return prepared;
 }
 
 /** Evaluates a document (parsed or raw) as evaluateRoute does, reusing unchanged steps. */
-export function evaluateWithReuse(document: RouteDocument | unknown): RouteResult {
-  return evaluatePrepared(prepareWithReuse(document), null, stepMemo);
+export function evaluateWithReuse(
+  document: RouteDocument | unknown,
+  options: ReuseOptions = {},
+): RouteResult {
+  return evaluatePrepared(prepareWithReuse(document, options), null, stepMemo);
 }
 
 /** A memo for one Monte Carlo job: its nominal steps are reused draw after draw. */

@@ -15,7 +15,7 @@ import {
 import { fieldInWords } from '@shared/engine/route/field-words';
 import { capitalise, stepInWords } from '@shared/engine/route/step-words';
 import { AppError } from '../errors';
-import { evaluateWithReuse } from './engine-reuse';
+import { evaluateWithReuse, type ReuseOptions } from './engine-reuse';
 
 export { resultTooLarge } from '../errors';
 
@@ -90,12 +90,15 @@ export function describeFailure(
 }
 
 /** Evaluates a schema-valid document; throws RouteEvaluationFailed (422) when the engine cannot. */
-export function evaluateDocument(doc: RouteDocument): {
+export function evaluateDocument(
+  doc: RouteDocument,
+  options: ReuseOptions = {},
+): {
   engineVersion: string;
   result: RouteResult;
 } {
   try {
-    return { engineVersion: ENGINE_VERSION, result: evaluateWithReuse(doc) };
+    return { engineVersion: ENGINE_VERSION, result: evaluateWithReuse(doc, options) };
   } catch (error) {
     const failure = describeFailure(error, doc);
     if (failure) throw new RouteEvaluationFailed(failure);
