@@ -50,8 +50,30 @@ export interface EnginePool {
    * Workers, how many are busy, tasks waiting, whether the workers are running (started on first
    * use, stopped again after `idleMs` without a task), and how many times they have been retired.
    */
-  stats(): { size: number; busy: number; queued: number; started: boolean; retirements: number };
+  stats(): {
+    size: number;
+    busy: number;
+    queued: number;
+    started: boolean;
+    retirements: number;
+    /** Retired workers still being stopped (the collection after it included). */
+    retiring: number;
+  };
   close(): Promise<void>;
+}
+
+/**
+ * Once the workers have stopped, one full garbage collection of this thread, when the process
+ * allows it (`node --expose-gc`, as the start command runs the server). What the workers sent here
+ * (request documents, reply bytes) was allocated in their threads' memory; that memory goes back
+ * to the system only once this thread has freed its last piece of it, and an idle thread may not
+ * collect for a long time (nothing allocates): without this an idle server kept 60–70 MB it no
+ * longer used (docs/deployment.md). The pause (tens of milliseconds) comes once per retirement,
+ * on a server that has had no calculation for ENGINE_IDLE_SECONDS.
+ */
+function collectAfterRetirement(): void {
+  const gc = (globalThis as { gc?: () => void }).gc;
+  if (typeof gc === 'function') gc();
 }
 
 /** The reason a task was stopped because it ran out of time. */
@@ -87,6 +109,7 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
   /** Workers being stopped for idleness: close() waits for them too. */
   let retiring: Promise<void> = Promise.resolve();
   let retirements = 0;
+  let stopping = 0;
   let closed = false;
 
   /**
@@ -104,9 +127,14 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
       started = null;
       piscina = null;
       retirements++;
+      stopping++;
       retiring = Promise.all([
         retiring,
-        old.then((pool) => pool.destroy()).catch(() => undefined),
+        old
+          .then((pool) => pool.destroy())
+          .catch(() => undefined)
+          .then(collectAfterRetirement)
+          .finally(() => stopping--),
       ]).then(() => undefined);
     }, idleMs);
     // An idle timer never keeps the process alive.
@@ -198,6 +226,7 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
       queued: piscina?.queueSize ?? 0,
       started: piscina !== null,
       retirements,
+      retiring: stopping,
     }),
     close: async () => {
       closed = true;

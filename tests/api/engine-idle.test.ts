@@ -1,7 +1,9 @@
 /**
  * Idle engine workers are retired: after ENGINE_IDLE_SECONDS without a task the pool stops its
  * threads (each holds a whole engine, its data and a step memo), and the next calculation starts
- * them again and is answered as usual. The conditions are waited for, not timed.
+ * them again and is answered as usual. Once they have stopped, the web thread collects its garbage
+ * (when the process exposes gc, as the start command does), so what the workers handed over is
+ * freed and their memory goes back to the system. The conditions are waited for, not timed.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { RouteDocumentInput } from '@shared/schemas/route';
@@ -56,5 +58,25 @@ describe('idle engine workers', () => {
 
     await until(() => !pool.stats().started, 'the restarted workers to be retired');
     expect(pool.stats().retirements).toBe(retiredBefore + 2);
+  });
+
+  it('collects the web thread garbage once per retirement, once the workers have stopped', async () => {
+    const pool = server.runtime.pool;
+    const exposed = (globalThis as { gc?: () => void }).gc;
+    let collections = 0;
+    (globalThis as { gc?: () => void }).gc = () => collections++;
+    try {
+      // Workers retired by the test before may still be stopping.
+      await until(() => pool.stats().retiring === 0, 'earlier retirements to finish');
+      collections = 0;
+      for (const round of [1, 2]) {
+        expect((await evaluate()).status).toBe(200);
+        await until(() => !pool.stats().started, 'the idle workers to be retired');
+        await until(() => pool.stats().retiring === 0, 'the retired workers to stop');
+        expect(collections).toBe(round);
+      }
+    } finally {
+      (globalThis as { gc?: () => void }).gc = exposed;
+    }
   });
 });
