@@ -348,7 +348,7 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
     setTemperature(T_K);
     let sumXR = 0;
     let sumXQ = 0;
-    X.fill(0);
+    for (let k = 0; k < K; k++) X[k] = 0;
     for (let i = 0; i < n; i++) {
       const xi = x[i] * scale;
       sumXR += xi * r[i];

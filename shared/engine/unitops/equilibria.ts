@@ -636,26 +636,36 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
  * T [m³/mol]; key: the composition rounded to 1e-6 (for memoising).
  */
 function phaseOf(ctx: EvalContext, kg: Record<string, number>, T_K: number): PhaseDescription {
-  // A wash asks for the same two phases once per compound and pH: the description of the last
+  // A wash asks for the same two phases once per compound and pH: the description of an earlier
   // request for this object is returned when the context, T and every solvent amount are the same
-  // (compared exactly, so a changed amount is described afresh).
-  let ids = solventIdsOf.get(ctx);
-  if (!ids) {
-    ids = solventIds(ctx);
-    solventIdsOf.set(ctx, ids);
+  // (compared exactly, so a changed amount is described afresh). The last few are kept per context.
+  let kept = describedPhases.get(ctx);
+  if (!kept) {
+    const ids = solventIds(ctx);
+    kept = { ids, next: 0, slots: [] };
+    for (let k = 0; k < PHASES_KEPT; k++)
+      kept.slots.push({ kg: null, T_K: NaN, amounts: new Float64Array(ids.length), phase: null });
+    describedPhases.set(ctx, kept);
   }
-  const kept = describedPhases.get(kg);
-  if (kept && kept.ctx === ctx && kept.T_K === T_K && kept.ids === ids) {
+  const { ids, slots } = kept;
+  for (const slot of slots) {
+    if (slot.kg !== kg || slot.T_K !== T_K) continue;
     let same = true;
     for (let i = 0; i < ids.length; i++)
-      if (!Object.is(kg[ids[i]], kept.amounts[i])) {
+      // An absent solvent is kept as NaN (a Float64Array's undefined): neither counts in the phase.
+      if (!Object.is(kg[ids[i]] ?? NaN, slot.amounts[i])) {
         same = false;
         break;
       }
-    if (same) return kept.phase;
+    if (same) return slot.phase;
   }
   const phase = describePhase(ctx, kg, T_K);
-  describedPhases.set(kg, { ctx, T_K, ids, amounts: ids.map((id) => kg[id]), phase });
+  const slot = slots[kept.next];
+  kept.next = (kept.next + 1) % PHASES_KEPT;
+  slot.kg = kg;
+  slot.T_K = T_K;
+  for (let i = 0; i < ids.length; i++) slot.amounts[i] = kg[ids[i]];
+  slot.phase = phase;
   return phase;
 }
 
@@ -666,14 +676,23 @@ type PhaseDescription = {
   key: string;
 } | null;
 
-/** The last description of each phase object (phaseOf), with what it was computed from. */
-const describedPhases = new WeakMap<
-  Record<string, number>,
-  { ctx: EvalContext; T_K: number; ids: string[]; amounts: number[]; phase: PhaseDescription }
->();
+/** Phase descriptions kept per context (phaseOf): a wash stage has two phases. */
+const PHASES_KEPT = 4;
 
-/** The solvent components of each context (solventIds, once per context). */
-const solventIdsOf = new WeakMap<EvalContext, string[]>();
+/** The last few phase descriptions of each context (phaseOf), with what each was computed from. */
+const describedPhases = new WeakMap<
+  EvalContext,
+  {
+    ids: string[];
+    next: number;
+    slots: Array<{
+      kg: Record<string, number> | null;
+      T_K: number;
+      amounts: Float64Array;
+      phase: PhaseDescription;
+    }>;
+  }
+>();
 
 function describePhase(
   ctx: EvalContext,
