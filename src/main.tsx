@@ -1,3 +1,6 @@
+// First: starts the reads the page's address tells (a route's page: the session and the
+// route) while the rest of the code loads.
+import './api/early';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import '@fontsource/lexend/400.css';

@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import { apiErrorSchema, type ApiErrorBody, type ApiErrorDetail } from '@shared/schemas/errors';
 import { parseExact } from '@shared/schemas/exact';
+import { forgetEarly, takeEarly } from './early';
 
 /**
  * Failures the client detects itself: the server could not be reached, an error reply is not
@@ -94,19 +95,23 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (options.body !== undefined) headers['Content-Type'] = 'application/json';
   if (WRITE_METHODS.has(method)) {
+    forgetEarly();
     const csrf = hooks.getCsrfToken();
     if (csrf) headers['X-CSRF-Token'] = csrf;
   }
 
   let response: Response;
   try {
-    response = await fetch(url, {
-      method,
-      headers,
-      credentials: 'same-origin',
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
-      signal: options.signal,
-    });
+    // A read the page started before this code arrived (./early.ts) answers once in its place.
+    const early = method === 'GET' && options.body === undefined ? takeEarly(url) : null;
+    response = await (early ??
+      fetch(url, {
+        method,
+        headers,
+        credentials: 'same-origin',
+        body: options.body === undefined ? undefined : JSON.stringify(options.body),
+        signal: options.signal,
+      }));
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
     throw new ApiError(0, {
