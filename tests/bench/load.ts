@@ -530,9 +530,15 @@ async function main(): Promise<void> {
     }
     console.log(`server RSS ${fmt(rssMb(first.pid!))} MB after the load`);
     if (ONLY.includes('idle')) {
-      console.log(`idle for ${IDLE_SECONDS + 5} s (engine threads retire after ${IDLE_SECONDS} s)`);
-      await sleep((IDLE_SECONDS + 5) * 1000);
-      console.log(`server RSS ${fmt(rssMb(first.pid!))} MB with its engine threads retired`);
+      // Every 5 s until well past the engine threads' retirement.
+      const series: string[] = [];
+      for (let s = 5; s <= IDLE_SECONDS + 30; s += 5) {
+        await sleep(5000);
+        series.push(`${s} s ${fmt(rssMb(first.pid!))}`);
+      }
+      console.log(
+        `server RSS while idle (engine threads retire after ${IDLE_SECONDS} s), MB: ${series.join(', ')}`,
+      );
     }
     if (SNAPSHOT_DIR) await heapSnapshot(first);
     await stopAndWait(first);
