@@ -15,7 +15,12 @@ interface ConnectionManager {
  * a transaction: pass the transaction's queries through Sequelize.
  */
 export async function hotRead<Row>(text: string, values: unknown[], name?: string): Promise<Row[]> {
-  const manager = database().connectionManager as unknown as ConnectionManager;
+  const sequelize = database();
+  // Sequelize's `logging` option sees these statements too, in its own format: the lists
+  // benchmark (tests/bench/list-plans.ts) explains the SQL it captures there.
+  const logging = (sequelize as unknown as { options: { logging?: unknown } }).options.logging;
+  if (typeof logging === 'function') logging(`Executing (default): ${text}`, { bind: values });
+  const manager = sequelize.connectionManager as unknown as ConnectionManager;
   const connection = await manager.getConnection({ type: 'read' });
   try {
     const result = await connection.query<Row & pg.QueryResultRow>({ text, values, name });
