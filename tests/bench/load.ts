@@ -572,7 +572,10 @@ async function main(): Promise<void> {
   for (const key of ['route', 'list', 'evaluate', 'evaluateNew'])
     twoInstances.push(await measure(loads[key]!, two));
 
-  // Idle past the engine threads' idle time: both instances retire their threads.
+  // Idle past the engine threads' idle time: both instances retire their threads. The idle time
+  // counts from the last calculation, which can end seconds after the load (requests the load
+  // generator gave up on are still worked on): wait for both servers to go quiet first.
+  await Promise.all([quiet(first.pid!), quiet(second.pid!)]);
   console.log(`idle for ${IDLE_SECONDS + 5} s (engine threads retire after ${IDLE_SECONDS} s)`);
   await sleep((IDLE_SECONDS + 5) * 1000);
   const retiredRss = rssMb(first.pid!);
@@ -619,7 +622,7 @@ async function main(): Promise<void> {
     line(evaluate2, bareTwo, '', null),
     line(evaluateNew2, bareTwo, '', null),
   ];
-  const memory = `Idle server RSS ${fmt(freshRss)} MB before its first evaluation (target ≤ 120 MB: ${freshRss <= 120 ? 'met' : 'NOT met'}), ${fmt(idleRss)} MB idle once it has evaluated (creating the ${ROUTES} routes starts the engine threads); after the load ${fmt(busyRss)} MB; ${fmt(retiredRss)} MB after ${IDLE_SECONDS + 5} s idle (engine threads retired after ${IDLE_SECONDS} s, ENGINE_IDLE_SECONDS); the bare Express process ${fmt(bareRss)} MB.`;
+  const memory = `Idle server RSS ${fmt(freshRss)} MB before its first evaluation (target ≤ 120 MB: ${freshRss <= 120 ? 'met' : 'NOT met'}), ${fmt(idleRss)} MB idle once it has evaluated (creating the ${ROUTES} routes starts the engine threads); after the load ${fmt(busyRss)} MB; ${fmt(retiredRss)} MB ${IDLE_SECONDS + 5} s after the server went quiet (engine threads retired after ${IDLE_SECONDS} s, ENGINE_IDLE_SECONDS); the bare Express process ${fmt(bareRss)} MB.`;
   const performance = [
     `Run ${date} UTC on ${machine}. \`npm run bench:load\` (tests/bench/load.ts): the compiled server (\`node ${NODE_FLAGS.join(' ')} dist-server/index.js\`, production), its own database on the test cluster (fsync off), ${USERS} chemists signed in (one session per connection), ${ROUTES} routes of 30 steps, autocannon for ${SECONDS} s per line; the bare Express endpoint runs in its own process in the same run.`,
     '',
