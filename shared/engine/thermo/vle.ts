@@ -266,14 +266,29 @@ export function pairRangeWarnings(
   return warnings;
 }
 
+/**
+ * Whether T lies inside the range of the component's preferred vapour-pressure data (its
+ * correlation, else its first Antoine set): there vapourPressureWithSlope returns no warning, and
+ * saturationPressures takes its inline path.
+ */
+function inPreferredRange(c: VleComponent, T_K: number): boolean {
+  const corr = c.vapourPressure?.value;
+  if (corr) return T_K >= corr.TminK && T_K <= corr.TmaxK;
+  const set = c.antoine[0];
+  return set !== undefined && T_K >= set.TminK && T_K <= set.TmaxK;
+}
+
 /** Warnings from vapour-pressure extrapolation at the final temperature, and from fitted pairs used outside their range. */
 function saturationWarnings(sys: VleSystem, T_K: number, involved: ArrayLike<number>): string[] {
   const warnings: string[] = pairRangeWarnings(sys, T_K, involved);
-  sys.components.forEach((c, i) => {
-    if (c.nonVolatile || involved[i] === 0) return;
+  const comps = sys.components;
+  for (let i = 0; i < comps.length; i++) {
+    const c = comps[i];
+    // Inside the preferred data's range there is nothing to say (and nothing to compute again).
+    if (c.nonVolatile || involved[i] === 0 || inPreferredRange(c, T_K)) continue;
     const r = vapourPressureWithSlope(c.antoine, T_K, fallbackOf(c));
     for (const w of r.warnings) warnings.push(`${componentLabel(sys, i)}: ${w}`);
-  });
+  }
   return warnings;
 }
 
@@ -471,8 +486,7 @@ export function bubblePressure(
   const xs = normalised(x, n);
   checkTemperature(T_K);
   requireVolatile(sys, xs, 'liquid');
-  const lnP = new Float64Array(n);
-  const slope = new Float64Array(n);
+  const { lnP, slope } = vleScratch(sys.unifac);
   saturationPressures(sys, T_K, lnP, slope);
   const gammas = Array.from(sys.unifac.gammas(xs, T_K));
   const partial = gammas.map((g, i) => (lnP[i] === -Infinity ? 0 : xs[i] * g * Math.exp(lnP[i])));
@@ -1087,6 +1101,64 @@ export function heterogeneousBubblePoint(
 }
 
 const THREE_PHASE_NOTE = 'Two liquid phases boil together (heterogeneous boiling).';
+
+/** Result of a bubble pressure of a liquid that may split into two liquids. */
+export interface HeterogeneousBubblePressure {
+  /** Boiling pressure [Pa]. */
+  P_Pa: number;
+  /** Vapour mole fractions [–]. */
+  y: number[];
+  /** Liquid phases present at T: 1 or 2. */
+  liquidPhases: number;
+  /** With two liquids: their compositions [–], phases[0] the richer in the first component. */
+  phases?: [number[], number[]];
+  warnings: string[];
+}
+
+/**
+ * Boiling pressure at T of a liquid that may split into two liquid phases: the
+ * counterpart at a set temperature of heterogeneousBubblePoint.
+ *
+ * Source: see the module comment (modified Raoult's law: Smith, Van Ness &
+ * Abbott 7th ed. §10.5; LLE: Michelsen 1982, Rachford & Rice 1952).
+ *
+ * Method: the liquid–liquid equilibrium does not depend on pressure in this
+ * model (activity coefficients of x and T only, ideal vapour), so the liquids
+ * that boil together at T are the split at T itself (liquidLiquidSplit); the
+ * pressure is the bubble pressure of one of them, P = Σ_i x_i^I γ_i^I P_i^sat
+ * (both liquids have equal activities, hence equal partial pressures). With no
+ * split, the homogeneous bubble pressure of the feed. No iteration on P: the
+ * same point heterogeneousBubblePoint finds at that P, without its root search.
+ *
+ * @param sys    system from createVleSystem
+ * @param z      overall liquid mole fractions [–], summing to 1
+ * @param T_K    temperature [K]
+ * @param start  the two liquids of a neighbouring feed at the same T [–] (the previous step of a
+ *               distillation), handed to liquidLiquidSplit to start its flash from
+ * @returns P_Pa [Pa], y [–], liquidPhases 1 or 2, the two liquids [–] when split, warnings
+ *
+ * Validity: as bubblePressure and liquidLiquidSplit.
+ */
+export function heterogeneousBubblePressure(
+  sys: VleSystem,
+  z: readonly number[],
+  T_K: number,
+  start?: readonly [readonly number[], readonly number[]],
+): HeterogeneousBubblePressure {
+  const split = liquidLiquidSplit(sys, z, T_K, start);
+  if (!split.split) {
+    const b = bubblePressure(sys, z, T_K);
+    return { P_Pa: b.P_Pa, y: b.y, liquidPhases: 1, warnings: [...split.warnings, ...b.warnings] };
+  }
+  const b = bubblePressure(sys, split.phases[0], T_K);
+  return {
+    P_Pa: b.P_Pa,
+    y: b.y,
+    liquidPhases: 2,
+    phases: split.phases,
+    warnings: [...split.warnings, ...b.warnings, THREE_PHASE_NOTE],
+  };
+}
 
 /**
  * The three-phase boiling point started from a neighbouring solution (the

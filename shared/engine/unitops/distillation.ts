@@ -29,6 +29,7 @@ import {
   bubblePoint,
   bubblePressure,
   heterogeneousBubblePoint,
+  heterogeneousBubblePressure,
   liquidLiquidSplit,
   type HeterogeneousBubblePoint,
 } from '../thermo/vle';
@@ -57,7 +58,6 @@ import {
   rayleighToVolume,
   type PotVle,
 } from './rayleigh';
-import { findRoot } from '../numerics';
 import { solubilityIn } from './solubility-model';
 
 /**
@@ -250,6 +250,7 @@ export function distilLeg(
   // evaluations are close together): its flash and temperature are the starting guesses only, so
   // the answer is the same to the solver's tolerances.
   let previous: HeterogeneousBubblePoint | undefined;
+  let previousPhases: [number[], number[]] | undefined;
   const potVle: PotVle = (m) => {
     const xs = norm(m);
     if (cond.kind === 'pressure') {
@@ -265,32 +266,14 @@ export function distilLeg(
       return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
     }
     if (mayDemix) {
-      // Pressure at which the heterogeneous bubble point equals the set pot temperature: Brent's
-      // method on ln P (numerics/roots.ts), bracket grown from the homogeneous bubble pressure.
-      const P1 = bubblePressure(sys, xs, cond.T_K).P_Pa;
-      const r1 = heterogeneousBubblePoint(sys, xs, P1, { previous });
-      if (r1.liquidPhases === 2) {
-        let kept = r1;
-        let keptLnP = Math.log(P1);
-        const root = findRoot(
-          (lnP) => {
-            kept = heterogeneousBubblePoint(sys, xs, Math.exp(lnP), { previous: kept });
-            keptLnP = lnP;
-            return kept.T_K - cond.T_K;
-          },
-          Math.log(P1),
-          Math.log(P1 * 1.2),
-          { xtol: 1e-7, rtol: 0, ftol: 1e-4 },
-        );
-        if (!root.converged)
-          vleWarnings.add(
-            'The pressure that holds the pot at the set temperature did not converge; pot pressure approximate.',
-          );
-        const P = Math.exp(root.root);
-        if (keptLnP !== root.root) kept = heterogeneousBubblePoint(sys, xs, P, { previous: kept });
-        previous = kept;
-        return { T_K: cond.T_K, P_Pa: P, y: kept.y };
-      }
+      // The liquids that boil together at the set pot temperature are the split at that temperature
+      // (liquid–liquid equilibrium does not depend on pressure here), and the pressure is the bubble
+      // pressure of one of them (heterogeneousBubblePressure): no root search on the pressure. The
+      // flash starts from the last step's two liquids.
+      const r = heterogeneousBubblePressure(sys, xs, cond.T_K, previousPhases);
+      previousPhases = r.phases;
+      if (r.liquidPhases === 1) r.warnings.forEach((w) => vleWarnings.add(w));
+      return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
     }
     const r = bubblePressure(sys, xs, cond.T_K);
     r.warnings.forEach((w) => vleWarnings.add(w));

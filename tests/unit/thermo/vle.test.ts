@@ -5,6 +5,7 @@ import {
   createVleSystem,
   dewPoint,
   heterogeneousBubblePoint,
+  heterogeneousBubblePressure,
   liquidLiquidSplit,
 } from '@shared/engine/thermo/vle';
 import { vapourPressure } from '@shared/engine/thermo/antoine';
@@ -126,5 +127,44 @@ describe('heterogeneousBubblePoint', () => {
     const h = heterogeneousBubblePoint(sys, [0.4, 0.6], P);
     expect(h.liquidPhases).toBe(1);
     expect(h.T_K).toBe(bubblePoint(sys, [0.4, 0.6], P).T_K);
+  });
+});
+
+describe('heterogeneousBubblePressure', () => {
+  // The pressure at a set temperature without a root search: the split at T and the bubble pressure
+  // of one liquid. Checked against the root search it replaces: the heterogeneous bubble point at
+  // that pressure must come back to the set temperature, with the same vapour.
+  const T = 333.15;
+  const sys = createVleSystem([F.ethylAcetate, F.water, F.ethanol]);
+  const feeds: Array<[string, number[], number]> = [
+    ['two liquids, mid-gap', [0.45, 0.5, 0.05], 2],
+    ['two liquids, near the ester-rich edge of the gap', [0.7, 0.28, 0.02], 2],
+    ['two liquids, water-rich', [0.06, 0.9, 0.04], 2],
+    ['one liquid, just past the ester-rich edge', [0.8, 0.18, 0.02], 1],
+    ['one liquid, ethanol-rich', [0.3, 0.3, 0.4], 1],
+    ['one liquid, dry ester', [0.97, 0.02, 0.01], 1],
+  ];
+  for (const [what, z, phases] of feeds)
+    it(`is the pressure whose heterogeneous bubble point is T (${what})`, () => {
+      const r = heterogeneousBubblePressure(sys, z, T);
+      expect(r.liquidPhases).toBe(phases);
+      const back = heterogeneousBubblePoint(sys, z, r.P_Pa);
+      expect(back.liquidPhases).toBe(phases);
+      expect(Math.abs(back.T_K - T)).toBeLessThan(1e-7);
+      r.y.forEach((yi, i) => expect(Math.abs(yi - back.y[i])).toBeLessThan(1e-9));
+      if (phases === 1) expect(r.P_Pa).toBe(bubblePressure(sys, z, T).P_Pa);
+    });
+
+  it('gives the same answer when its flash starts from a neighbouring feed', () => {
+    const a = heterogeneousBubblePressure(sys, [0.45, 0.5, 0.05], T);
+    const next = [0.44, 0.5, 0.06];
+    const cold = heterogeneousBubblePressure(sys, next, T);
+    const warm = heterogeneousBubblePressure(sys, next, T, a.phases);
+    expect(warm.liquidPhases).toBe(2);
+    expect(Math.abs(warm.P_Pa / cold.P_Pa - 1)).toBeLessThan(1e-10);
+    // A start that no longer applies (the feed has left the gap) is not taken.
+    const single = heterogeneousBubblePressure(sys, [0.3, 0.3, 0.4], T, a.phases);
+    expect(single.liquidPhases).toBe(1);
+    expect(single.P_Pa).toBe(bubblePressure(sys, [0.3, 0.3, 0.4], T).P_Pa);
   });
 });
