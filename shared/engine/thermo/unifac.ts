@@ -252,18 +252,30 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
   const energies = Float64Array.from(energyOf.keys());
   const psiOfEnergy = new Float64Array(energies.length);
 
-  // Temperature cache.
+  // Combinatorial part: ln V_i = ln r_i − ln Σx r and ln(V_i/F_i) = ln(r_i/q_i) − ln(Σx r/Σx q), so a
+  // call takes two logarithms for it instead of two per component.
+  const lnR = new Float64Array(n);
+  const lnRQ = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    lnR[i] = Math.log(r[i]);
+    lnRQ[i] = Math.log(r[i] / q[i]);
+  }
+
+  // Temperature cache: Ψ (row-major psi[m*K + n] = Ψ_mn, and its transpose), and per component
+  // Σ_k ν_ki ln Γ_k^(i) (the pure-component residual terms, summed once per temperature).
   let cachedT = NaN;
   const psi = new Float64Array(K * K);
-  const lnGammaPure = new Float64Array(n * K);
+  const psiT = new Float64Array(K * K);
+  const pureResidual = new Float64Array(n);
 
   // Scratch.
   const X = new Float64Array(K);
   const theta = new Float64Array(K);
   const S = new Float64Array(K);
+  const ratio = new Float64Array(K);
   const lnGammaMix = new Float64Array(K);
 
-  /** ln Γ_k for group mole numbers in X (overwrites theta, S); writes into target[offset + k]. */
+  /** ln Γ_k for group mole numbers in X (overwrites theta, S, ratio); writes into target[offset + k]. */
   function groupLnGammas(target: Float64Array, offset: number): void {
     let sumQX = 0;
     for (let k = 0; k < K; k++) sumQX += Qk[k] * X[k];
@@ -271,21 +283,22 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
     for (let k = 0; k < K; k++) theta[k] = Qk[k] * X[k] * inv;
     for (let k = 0; k < K; k++) {
       let s = 0;
-      for (let m = 0; m < K; m++) s += theta[m] * psi[m * K + k];
+      const row = k * K;
+      for (let m = 0; m < K; m++) s += theta[m] * psiT[row + m];
       S[k] = s;
     }
+    for (let m = 0; m < K; m++) ratio[m] = theta[m] / S[m];
     for (let k = 0; k < K; k++) {
       let t = 0;
       const row = k * K;
-      for (let m = 0; m < K; m++) t += (theta[m] * psi[row + m]) / S[m];
+      for (let m = 0; m < K; m++) t += psi[row + m] * ratio[m];
       target[offset + k] = Qk[k] * (1 - Math.log(S[k]) - t);
     }
   }
 
   /**
-   * ln Γ_k^(i) of pure component i for its own groups only. The groups absent from i have
-   * θ_m = 0, so their terms in groupLnGammas are exact zeros: leaving them out gives the same
-   * sums bit for bit (when every Ψ is finite), at (groups of i)² instead of K² operations.
+   * ln Γ_k^(i) of pure component i for its own groups only (the groups absent from i have
+   * θ_m = 0 and add nothing), at (groups of i)² instead of K² operations.
    */
   function pureGroupLnGammas(i: number): void {
     const start = presentStart[i];
@@ -304,48 +317,58 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
     for (let p = start; p < end; p++) {
       const k = present[p];
       let s = 0;
+      const row = k * K;
       for (let pm = start; pm < end; pm++) {
         const m = present[pm];
-        s += theta[m] * psi[m * K + k];
+        s += theta[m] * psiT[row + m];
       }
       S[k] = s;
     }
+    for (let p = start; p < end; p++) {
+      const m = present[p];
+      ratio[m] = theta[m] / S[m];
+    }
+    let sum = 0;
     for (let p = start; p < end; p++) {
       const k = present[p];
       let t = 0;
       const row = k * K;
       for (let pm = start; pm < end; pm++) {
         const m = present[pm];
-        t += (theta[m] * psi[row + m]) / S[m];
+        t += psi[row + m] * ratio[m];
       }
-      lnGammaPure[base + k] = Qk[k] * (1 - Math.log(S[k]) - t);
+      sum += nu[base + k] * Qk[k] * (1 - Math.log(S[k]) - t);
     }
+    pureResidual[i] = sum;
   }
 
   function setTemperature(T_K: number): void {
-    if (T_K === cachedT) return;
-    let finite = true;
-    for (let e = 0; e < energies.length; e++) {
-      psiOfEnergy[e] = Math.exp(-energies[e] / T_K);
-      if (!Number.isFinite(psiOfEnergy[e])) finite = false;
-    }
-    for (let j = 0; j < K * K; j++) psi[j] = psiOfEnergy[energyIndex[j]];
-    for (let i = 0; i < n; i++) {
-      if (finite) {
-        pureGroupLnGammas(i);
-        continue;
+    checkTemperature(T_K);
+    for (let e = 0; e < energies.length; e++) psiOfEnergy[e] = Math.exp(-energies[e] / T_K);
+    for (let m = 0; m < K; m++) {
+      for (let k = 0; k < K; k++) {
+        const v = psiOfEnergy[energyIndex[m * K + k]];
+        psi[m * K + k] = v;
+        psiT[k * K + m] = v;
       }
-      for (let k = 0; k < K; k++) X[k] = nu[i * K + k];
-      groupLnGammas(lnGammaPure, i * K);
     }
+    for (let i = 0; i < n; i++) pureGroupLnGammas(i);
     cachedT = T_K;
   }
 
   function lnGammas(x: ArrayLike<number>, T_K: number, out?: Float64Array): Float64Array {
-    const scale = checkComposition(x, n);
-    checkTemperature(T_K);
+    if (x.length !== n) checkComposition(x, n);
+    // The checks of checkComposition, fused with the first pass (it throws the error when any fails).
+    let sum = 0;
+    for (let i = 0; i < n; i++) {
+      const xi = x[i];
+      if (!(xi >= 0 && xi < Infinity)) checkComposition(x, n);
+      sum += xi;
+    }
+    if (Math.abs(sum - 1) > 1e-6) checkComposition(x, n);
+    const scale = 1 / sum;
+    if (T_K !== cachedT) setTemperature(T_K);
     const result = out ?? new Float64Array(n);
-    setTemperature(T_K);
     let sumXR = 0;
     let sumXQ = 0;
     for (let k = 0; k < K; k++) X[k] = 0;
@@ -360,14 +383,17 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
       }
     }
     groupLnGammas(lnGammaMix, 0);
+    const lnSumXR = Math.log(sumXR);
+    const lnRatio = Math.log(sumXR / sumXQ);
     for (let i = 0; i < n; i++) {
       const V = r[i] / sumXR;
-      const F = q[i] / sumXQ;
-      const VF = V / F;
-      let value = 1 - V + Math.log(V) - 5 * q[i] * (1 - VF + Math.log(VF));
+      const VF = V / (q[i] / sumXQ);
+      const lnV = lnR[i] - lnSumXR;
+      const lnVF = lnRQ[i] - lnRatio;
+      let value = 1 - V + lnV - 5 * q[i] * (1 - VF + lnVF) - pureResidual[i];
       for (let p = presentStart[i]; p < presentStart[i + 1]; p++) {
         const k = present[p];
-        value += nu[i * K + k] * (lnGammaMix[k] - lnGammaPure[i * K + k]);
+        value += nu[i * K + k] * lnGammaMix[k];
       }
       result[i] = value;
     }
