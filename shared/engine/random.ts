@@ -3,13 +3,25 @@
  * tests). The engine never calls Math.random: the same seed gives the same
  * sequence on the client and on the server.
  *
- * Generator: sfc32 (Chris Doty-Humphrey's "Small Fast Counting" generator,
- * from the PractRand suite), 32-bit state words, period ≥ 2^32, passes
- * PractRand to large sizes. The 32-bit seed is expanded with splitmix32
- * (after Steele, Lea & Flood, "Fast splittable pseudorandom number
- * generators", OOPSLA 2014) so that nearby seeds give unrelated streams.
- * Both algorithms are described here from memory of their public
- * descriptions; the tests check determinism and the uniform moments only.
+ * Generator: sfc32, Chris Doty-Humphrey's "Small Fast Counting" generator from
+ * the PractRand test suite: three 32-bit words and a counter; each step returns
+ * t = a + b + counter, then a = b ^ (b >>> 9), b = c + (c << 3),
+ * c = rotl(c, 21) + t, counter += 1. Worst-case period 2^32 (the counter),
+ * expected about 2^127. Read in the Rand project's rand_sfc crate (docs.rs:
+ * crate description and src/sfc32.rs, constants BARREL_SHIFT 21, RSHIFT 9,
+ * LSHIFT 3, counter increment 1, "derived ultimately from PractRand"); the
+ * sfc-prng crate's documentation gives the same periods. NumPy's SFC64 is the
+ * 64-bit member of the family (there named "Small Fast Chaotic").
+ * Seeding: the 32-bit seed is expanded by splitmix32 — the SplitMix
+ * construction of Steele, Lea & Flood ("Fast splittable pseudorandom number
+ * generators", OOPSLA '14, ACM 2014, pp. 453–472, doi 10.1145/2660193.2660195;
+ * citation read in the splitmix package documentation): a Weyl sequence with
+ * the odd 32-bit golden-ratio increment 0x9e3779b9 (⌊2^32/φ⌋, arithmetic), each
+ * value passed through MurmurHash3's 32-bit finaliser (xor-shift 16, × 0x85ebca6b,
+ * xor-shift 13, × 0xc2b2ae35, xor-shift 16; read on its author's smhasher wiki
+ * page "MurmurHash3"), in place of the paper's 64-bit mix function — so that
+ * nearby seeds give unrelated streams. The tests check determinism, stream
+ * independence and the uniform moments; no statistical test suite is run here.
  */
 
 /** A seeded generator. `next()` returns a float uniformly in [0, 1). */
@@ -36,8 +48,8 @@ function splitmix32(seed: number): () => number {
  * Create a generator from an integer seed (any finite number; it is reduced
  * to 32 bits), or from a saved state.
  * Source: sfc32 (Doty-Humphrey, PractRand) seeded by splitmix32 (after
- * Steele, Lea & Flood, OOPSLA 2014) — module comment, from memory of their
- * public descriptions.
+ * Steele, Lea & Flood, OOPSLA '14) — see the module comment for where each
+ * was read.
  * Validity: Monte Carlo sampling; not for cryptographic use.
  * @param seed  integer seed [–] (reduced to 32 bits), or a saved state of four 32-bit words [–]
  * @returns the seeded generator
@@ -86,9 +98,9 @@ export function createRandom(seed: number | [number, number, number, number]): S
  * whatever order, and different stream numbers give different states (streams for parallel
  * Monte Carlo blocks). Not the same numbers as createRandom(seed).
  * Source: sfc32 (Doty-Humphrey, PractRand) seeded by splitmix32 (after Steele, Lea & Flood,
- * OOPSLA 2014; seeding separate streams from a counter is the splittable use of splitmix
- * described there) — from memory of their public descriptions; the tests check that streams
- * differ and are uncorrelated, not more.
+ * OOPSLA '14; seeding separate streams from a counter is the splittable use of SplitMix) —
+ * the module comment says where each was read; that the paper describes this use is recalled,
+ * not read; the tests check that streams differ and are uncorrelated, not more.
  * Validity: Monte Carlo sampling; not for cryptographic use.
  * @param seed    integer seed [–] (reduced to 32 bits)
  * @param stream  stream number [–], an integer in 0..2^32 − 1

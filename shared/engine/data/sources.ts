@@ -48,6 +48,11 @@ export const SOURCES = {
       'D. W. Green, R. H. Perry (eds.), Perry\'s Chemical Engineers\' Handbook, 8th ed., McGraw-Hill, 2007, Table 2-313 "Viscosity of Inorganic and Organic Liquids" (DIPPR equation 101: μ/Pa·s = exp(C1 + C2/T + C3 ln T + C4 T^C5), T/K)',
     via: 'CalebBell/chemicals: chemicals/Viscosity/Table 2-313 Viscosity of Inorganic and Organic Liquids.tsv (columns C1–C5, Tmin, Tmax in K)',
   },
+  'vdi-ppds9-viscosity': {
+    citation:
+      "VDI Heat Atlas, 2nd ed., Springer, Berlin, 2010, PPDS equation 9 for the dynamic viscosity of saturated liquids: μ = E exp[A ((C − T)/(T − D))^(1/3) + B ((C − T)/(T − D))^(4/3)], μ in Pa·s, T in K (the edition as cited in the chemicals library's PPDS9 docstring, which gives this form and reproduces its own example: acetic acid, 400 K, 3.509e-4 Pa·s)",
+    via: 'CalebBell/chemicals: chemicals/Viscosity/VDI PPDS Dynamic viscosity of saturated liquids polynomials.tsv (columns A–E)',
+  },
   'crc-enthalpy-vaporization': {
     citation:
       'CRC Handbook of Chemistry and Physics, "Enthalpy of Vaporization" (ΔvapH at the normal boiling point)',

@@ -26,9 +26,18 @@
  * differential evolution", MENDEL 1999), so the optimiser only ever asks for
  * whole stages or cycles.
  *
- * The method references above are given from memory (the methods are
- * standard); the project's tests check the implementation against published
- * test functions rather than against the papers' tables.
+ * Where the references were read: Storn & Price 1997 (J. Global Optim. 11,
+ * 341–359), Price, Storn & Lampinen 2005 (Springer, Berlin) and Lampinen &
+ * Zelinka's 1999 chapter "Mechanical engineering design optimization by
+ * differential evolution" (in Corne, Dorigo & Glover (eds.), New Ideas in
+ * Optimization, McGraw-Hill, pp. 127–146) in the reference list of the R
+ * package ROI.plugin.deoptim (CRAN reference manual); Deb 2000 (Comput. Methods
+ * Appl. Mech. Eng. 186, 311–338) in the documentation of the metalforge crate
+ * (docs.rs, module constraint), which states the same three feasibility
+ * rules. The MENDEL 1999 citation for rounding integer coordinates is recalled:
+ * it was not found in the reference lists read. The papers' own text was not
+ * read; the project's tests check the implementation against published test
+ * functions rather than against the papers' tables.
  *
  * Reproducible: the generator state travels in the state, and the trials of
  * a generation are drawn together at its start, so the answer does not

@@ -44,8 +44,7 @@
  * Liquor viscosity: ln μ_mix = Σ x_i ln μ_i (Arrhenius mixing rule) from the
  * library's 25 °C values, corrected to T by the Lewis–Squires chart
  * correlation μ^−0.2661 = μ_25^−0.2661 + (T − 298.15)/233 (μ in mPa s, T in
- * K; Reid, Prausnitz & Poling, Properties of Gases and Liquids 4th ed.,
- * liquid viscosity chapter — cited from memory).
+ * K; see lewisSquires for where it was read and what is recalled).
  * Validity: incompressible cake, constant pressure; α, R_m and A are
  * parameters with stated defaults.
  */
@@ -80,10 +79,11 @@ import { solubilityIn } from './solubility-model';
  *
  * Formula: ln μ_mix = Σ x_i ln μ_i(T) over the solvents (mole fractions x_i),
  * μ_i(T) by lewisSquires from the library's 25 °C value.
- * Source: Arrhenius (log-mole-fraction) mixing rule and the Lewis–Squires
- * correction, both as in Reid, Prausnitz & Poling, The Properties of Gases
- * and Liquids, 4th ed., liquid viscosity chapter (cited from memory); 25 °C
- * viscosities from the solvent library (docs/data-sources.md).
+ * Source: Arrhenius (log-mole-fraction) mixing rule (common practice; its
+ * treatment in the liquid-viscosity chapter of Poling, Prausnitz & O'Connell,
+ * The Properties of Gases and Liquids, is recalled, not read) and the
+ * Lewis–Squires correction (see lewisSquires); 25 °C viscosities from the
+ * solvent library (docs/data-sources.md).
  * Validity: non-associating mixtures are best served; for aqueous–alcohol
  * mixtures (viscosity maximum) the rule can be off by a factor of about 2;
  * temperatures where Lewis–Squires has a solution (a warning otherwise);
@@ -118,9 +118,7 @@ export function liquorViscosityPaS(
 
 /**
  * Lewis–Squires temperature correction of a liquid viscosity:
- *   μ(T)^−0.2661 = μ_25^−0.2661 + (T − 298.15)/233   (μ in mPa s, T in K)
- * (Reid, Prausnitz & Poling, 4th ed., liquid viscosity chapter — cited from
- * memory).
+ *   μ(T)^−0.2661 = μ_25^−0.2661 + (T − 298.15)/233   (μ in mPa s, T in K).
  *
  * @param mu25  viscosity at 25 °C [mPa s], > 0
  * @param T_K   temperature [K]
@@ -128,9 +126,13 @@ export function liquorViscosityPaS(
  *   below 25 °C) the correlation has no solution: inRange is false and μ is
  *   given at the temperature where μ reaches 1000 × μ_25 (T_K says which)
  *
- * Source: Lewis–Squires chart correlation as given in Reid, Prausnitz &
- * Poling, The Properties of Gases and Liquids, 4th ed., liquid viscosity
- * chapter (cited from memory).
+ * Source: the Lewis–Squires generalised chart of liquid viscosity against
+ * temperature (W. K. Lewis, L. Squires, 1934 — citation recalled), given as
+ * Fig. 9-13 and Eq. (9-10.3) of Poling, Prausnitz & O'Connell, The Properties
+ * of Gases and Liquids, 5th ed., McGraw-Hill, 2001 (figure and equation
+ * numbers read in the documentation of the open propellant-property library
+ * RocketProps, page "Models", section "Squires"; the book itself was not
+ * read, so the constants 0.2661 and 233 K are recalled).
  * Validity: liquids below their normal boiling point, from one reference
  * value (a generalised chart: its error grows with the distance from 25 °C);
  * far below 25 °C the correlation has no solution (inRange false, μ capped
@@ -372,7 +374,7 @@ export function filtration(
       M,
       'liquor viscosity',
       'Arrhenius mixing rule; Lewis–Squires temperature correction',
-      'library 25 °C viscosities; Reid, Prausnitz & Poling 4th ed. (from memory)',
+      'library 25 °C viscosities; Lewis–Squires chart as Eq. 9-10.3 of Poling, Prausnitz & O’Connell 5th ed. (constants recalled)',
     );
   }
   const washRecords: Array<{

@@ -24,7 +24,7 @@ import { COMMON_PRACTICE_BASIS, COMMON_PRACTICE_HOURS, newResult, round } from '
 import { aqueousPH } from './equilibria';
 import { R_J_PER_MOL_K, STANDARD_ATMOSPHERE_PA } from '../units';
 
-/** Adiabatic temperature rise above which a quench is flagged, K (Stoessel, Thermal Safety of Chemical Processes, 2008: criticality assessment — threshold cited from memory). */
+/** Adiabatic temperature rise above which a quench is flagged, K (after Stoessel, Thermal Safety of Chemical Processes: Risk Assessment and Process Design, Wiley-VCH, Weinheim, 2008 — title read in a reference list; the 50 K severity threshold is recalled, not read). */
 export const ADIABATIC_RISE_FLAG_K = 50;
 
 function isCarbonate(ctx: EvalContext, id: string): boolean {
@@ -53,8 +53,9 @@ function co2Hazard(W: EngineWarning[], mol: number, T_K: number, what: string) {
  * volume at 1 atm, ideal gas).
  *
  * Source: stoichiometry and mass balance (no external source); adiabatic
- * temperature rise as in Stoessel, Thermal Safety of Chemical Processes,
- * Wiley-VCH 2008 (the 50 K flag threshold cited from memory).
+ * temperature rise as in Stoessel, Thermal Safety of Chemical Processes: Risk
+ * Assessment and Process Design, Wiley-VCH, Weinheim, 2008 (citation read in a
+ * reference list; the 50 K flag threshold is recalled, not read).
  * Validity: complete reaction of the limiting reagent, no side reactions,
  * equilibria or kinetics; ΔT_ad with constant c_p and no heat loss (an upper
  * bound for a batch quench); the declared products only are counted.

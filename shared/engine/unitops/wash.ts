@@ -11,8 +11,8 @@
  * aqueous solutes (salts, acids, bases) stay in the aqueous phase.
  *
  * Cross-current (fresh added liquid each stage), fraction of a solute left in
- * the feed phase after n equal stages (Harris, Quantitative Chemical
- * Analysis, section on extraction):   q^n,  q = V_f / (V_f + K V_a)
+ * the feed phase after n equal stages (IUPAC Recommendations 1993, Pure Appl.
+ * Chem. 65, 2373, "fraction extracted"):   q^n,  q = V_f / (V_f + K V_a)
  * where K is the distribution ratio toward the added phase. Simulated stage
  * by stage, so the mutual saturation and pH are recomputed every stage.
  *
@@ -287,7 +287,7 @@ function carbonicAcidFraction(a: AqueousSoluteRecord, pH: number): number {
  * The wash and extraction step model (see the module comment): the added
  * liquid contacts the feed in cross-current or counter-current stages.
  *
- * Source: see the module comment (Harris; Kremser 1930; Seader, Henley & Roper).
+ * Source: see the module comment (IUPAC 1993; Kremser 1930; Seader, Henley & Roper).
  * Validity: dilute solutes, 0–80 °C, equilibrium stages.
  *
  * @param inputs  the feed stream [kg per component]
@@ -381,7 +381,7 @@ export function washOrExtraction(
       M,
       'stages',
       'cross-current: fresh liquid each stage, equilibrium stages simulated in turn',
-      'Harris, Quantitative Chemical Analysis (fraction remaining q^n)',
+      'IUPAC 1993, Pure Appl. Chem. 65, 2373: fraction extracted (fraction remaining q^n)',
     );
     let carry: Record<string, number> = { ...feed.kg };
     const collected: Record<string, number> = {};
@@ -700,8 +700,11 @@ export function kremserFractionRemaining(E: number, N: number): number {
   return (1 - E) / (1 - E ** (N + 1));
 }
 
-/** Cross-current: fraction left after n stages, q^n with q = 1/(1 + E) (Harris). *
- * Source: Harris, Quantitative Chemical Analysis, extraction section (attribution from memory).
+/** Cross-current: fraction left after n stages, q^n with q = 1/(1 + E). *
+ * Source: IUPAC Recommendations 1993, "Nomenclature for liquid–liquid distribution (solvent
+ * extraction)", Pure Appl. Chem. 65, 2373 (p. 2384), term "fraction extracted": after n
+ * successive portions at phase ratio r, E_n = 1 − (rD + 1)^−n (read in the IUPAC Gold Book,
+ * doi 10.1351/goldbook.F02503); here E = rD, so the fraction left is (1 + E)^−n.
  * Validity: equal stages, constant E, immiscible liquids.
  * @param E  extraction factor of one stage [-], ≥ 0
  * @param n  number of stages [-]

@@ -9,25 +9,23 @@ import {
 import { evaluateRoute } from '../../../shared/engine/route/evaluate';
 import type { RouteDocumentInput } from '../../../shared/schemas/route';
 
-describe('cross-current extraction, fraction remaining q^n (Harris-style worked example)', () => {
-  // Source status: the problem and its printed answers were found on a stored
-  // public question-and-answer page (justaaa.com, "Solute A has a K = 3 for an
-  // extraction between water (phase 1) and benzene (phase 2)"), which does not
-  // name the book. Its wording matches the extraction-efficiency example of
-  // Harris, Quantitative Chemical Analysis, chapter "Introduction to Analytical
-  // Separations" — that attribution, the edition and the example's place in
-  // the book are UNVERIFIED (memory). Printed answers on that page: fraction
-  // left in the water q = 0.062 after one 500 mL benzene extraction of 100 mL
-  // water, q = 0.00098 after five 100 mL extractions; q = [V1/(V1 + K V2)]^n.
-  it('one 500 mL portion leaves 0.062, five 100 mL portions leave 0.00098 (printed, 2 significant figures)', () => {
+describe('cross-current extraction, fraction remaining against the IUPAC definition of the fraction extracted', () => {
+  // Source: IUPAC Recommendations 1993, "Nomenclature for liquid–liquid distribution (solvent
+  // extraction)", Pure Appl. Chem. 65, 2373 (p. 2384), term "fraction extracted", read in the
+  // IUPAC Gold Book (doi 10.1351/goldbook.F02503): if the feed is extracted with n successive
+  // portions of solvent at phase volume ratio r (solvent/feed), E_n = 1 − (rD + 1)^−n.
+  // Case: D = 3 (a solute three times as concentrated in the added phase), 100 mL feed, either one
+  // 500 mL portion (r = 5, n = 1) or five 100 mL portions (r = 1, n = 5).
+  const iupacFractionExtracted = (r: number, D: number, n: number) => 1 - (r * D + 1) ** -n;
+
+  it('one 500 mL portion leaves 1/16, five 100 mL portions leave 1/1024 (from the IUPAC expression)', () => {
     const one = crossCurrentFractionRemaining((3 * 500) / 100, 1);
     const five = crossCurrentFractionRemaining((3 * 100) / 100, 5);
-    // Regression (tight): the closed form of this implementation.
-    expect(one).toBeCloseTo(100 / (100 + 3 * 500), 12);
-    expect(five).toBeCloseTo(0.25 ** 5, 12);
-    // Validity: the printed values within half a unit of their last digit.
-    expect(Math.abs(one - 0.062)).toBeLessThanOrEqual(0.0005 + 1e-12);
-    expect(Math.abs(five - 0.00098)).toBeLessThanOrEqual(0.000005);
+    expect(one).toBeCloseTo(1 - iupacFractionExtracted(5, 3, 1), 12);
+    expect(five).toBeCloseTo(1 - iupacFractionExtracted(1, 3, 5), 12);
+    // The same numbers written out: 0.0625 and 0.0009765625.
+    expect(one).toBeCloseTo(0.0625, 12);
+    expect(five).toBeCloseTo(0.0009765625, 12);
   });
 
   // The same example through the wash model: a solute with measured D = 3

@@ -212,7 +212,7 @@ describe('provenance', () => {
       .map((e) => ('url' in e ? String(e.url) : ''))
       .filter(Boolean);
     for (const url of pages)
-      expect(url).not.toMatch(/caslab|vacuu-lan|sparxoversea|biologyinsights|druglead/);
+      expect(url).not.toMatch(/caslab|vacuu-lan|sparxoversea|biologyinsights|druglead|justaaa/);
   });
 });
 

@@ -23,7 +23,13 @@ export const ESTERS_KETONES_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     density: sv({ gPerMl: 0.9003, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(77.1, read('crc-organic-constants')),
-    meltingPointC: sv(-83.6, recalled('melting-point-memory')),
+    meltingPointC: sv(
+      -83.15,
+      read(
+        'nist-webbook-constants',
+        '190 K (the file also gives the triple point, 189.3 K); stored value was −83.6 °C (recalled)',
+      ),
+    ),
     antoine: [
       antoine(
         'log10-bar-degC',

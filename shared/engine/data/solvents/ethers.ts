@@ -81,7 +81,10 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     density: sv({ gPerMl: 0.8552, temperatureC: 20 }, read('crc-organic-constants')),
     boilingPointC: sv(80, read('crc-organic-constants')),
-    meltingPointC: sv(-136, recalled('melting-point-memory')),
+    meltingPointC: sv(
+      -136.1,
+      read('nist-webbook-constants', '137.05 K; stored value was −136 °C (recalled)'),
+    ),
     antoine: [
       antoine(
         'log10-bar-degC',

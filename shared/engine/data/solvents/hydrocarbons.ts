@@ -23,7 +23,13 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     density: sv({ gPerMl: 0.6795, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(98.38, read('crc-organic-constants')),
-    meltingPointC: sv(-90.6, recalled('melting-point-memory')),
+    meltingPointC: sv(
+      -90.55,
+      read(
+        'nist-webbook-constants',
+        '182.6 K (triple point 182.56 K); stored value was −90.6 °C (recalled)',
+      ),
+    ),
     antoine: [
       antoine(
         'log10-bar-degC',

@@ -44,10 +44,10 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
     unifac: sv({ 40: 1 }, read('unifac-groups', 'whole-molecule subgroup of the original table')),
     waterMiscibility: 'miscible',
     viscosityMPas25C: sv(
-      0.369,
-      recalled(
-        'crc-viscosity-liquids',
-        'the tables read disagree (Perry 2-313 0.342, V&N 3-term set 0.485); kept as recalled',
+      0.349,
+      read(
+        'vdi-ppds9-viscosity',
+        'computed at 298.15 K from A = -0.08444, B = 3.22207, C = 685.539 K, D = -331.224 K, E = 6.935e-5 Pa·s (PPDS equation 9), 3 significant figures; Perry 2-313 gives 0.342 (2 % lower); the V&N 3-term set (0.485, fitted 280–360 K) disagrees with both and is not used; stored value was 0.369 (recalled)',
       ),
     ),
   },
@@ -316,9 +316,9 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
     waterMiscibility: 'miscible',
     viscosityMPas25C: sv(
       0.879,
-      recalled(
-        'crc-viscosity-liquids',
-        'the two V&N sets disagree by 3 % (Dutt–Prasad 0.852, 3-term 0.879); kept as recalled',
+      read(
+        'vn-3term-viscosity',
+        'computed at 298.15 K from A = -1.1172, B = -174.52, C = 133.66 (log10(μ/mPa·s) = A + B/(C − T/K), fitted 270–390 K), 3 significant figures; the VDI Heat Atlas PPDS equation 9 gives 0.885 (0.7 % higher) and sides with this set; the V&N Dutt–Prasad set gives 0.852; the stored (recalled) value was the same',
       ),
     ),
   },
