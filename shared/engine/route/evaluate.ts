@@ -255,9 +255,9 @@ export function prepareRoute(doc: RouteDocument): PreparedRoute {
  * With a step-result memo (step-memo.ts), a step whose own parameters,
  * inlet streams and route components were seen before is answered with a copy
  * of its earlier result instead of running its model (the same numbers to the
- * last bit); in a Monte Carlo draw only steps without uncertain parameters are
- * reused. Each step gets a fresh scratch memo, so its result never depends on
- * what an earlier step left there.
+ * last bit); in a Monte Carlo draw only steps with no uncertain parameter of
+ * their own or upstream of them are looked up. Each step gets a fresh scratch
+ * memo, so its result never depends on what an earlier step left there.
  * @param prepared  the prepared route (prepareRoute)
  * @param rng       seeded random source for one Monte Carlo draw, or null for nominal values
  * @param memo      step-result memo owned by the caller, or null to evaluate every step
@@ -268,46 +268,10 @@ export function evaluatePrepared(
   rng: SeededRandom | null,
   memo: StepMemo | null = null,
 ): RouteResult {
-  const { doc, graph } = prepared;
-  const { ctx } = buildContext(doc, rng, prepared.caches ?? createEvaluationCaches());
-  const token = memo ? contextToken(memo, doc) : '';
-  const stepById = new Map(doc.steps.map((s) => [s.id, s]));
-  const outputsOf = new Map<string, Record<string, Stream>>();
-  // Indexed by step and connection ids: no prototype, so no id can read a built-in.
-  const results = idRecord<StepResult>();
+  const { graph } = prepared;
   const streams = idRecord<Stream>();
-  for (const id of graph.order) {
-    const step = stepById.get(id)!;
-    const inputs = idRecord<Stream | undefined>();
-    for (const [port, c] of graph.incoming.get(id)!) {
-      inputs[port] = outputsOf.get(c.from.stepId)![c.from.port];
-    }
-    const key = memo && !(rng && stepIsUncertain(step)) ? stepKey(token, step, inputs) : null;
-    let out = key !== null ? recallStep(memo!, key) : undefined;
-    if (!out) {
-      ctx.scratch = new Map();
-      try {
-        out = MODELS[step.kind](inputs, step.params as never, ctx, step);
-      } catch (e) {
-        throw toRouteError(e, step);
-      }
-      checkBalance(ctx, inputs, out);
-      out.result.purge = stepPurge(ctx, out);
-      if (key !== null) rememberStep(memo!, key, out);
-    }
-    outputsOf.set(id, out.outputs);
-    results[id] = out.result;
-    for (const [port, c] of graph.outgoing.get(id)!) streams[c.id] = out.outputs[port];
-  }
-  const terminals: RouteResult['terminals'] = [];
-  for (const id of graph.order) {
-    const step = stepById.get(id)!;
-    for (const p of PORTS[step.kind].outputs) {
-      if (graph.outgoing.get(id)!.has(p.name)) continue;
-      const isolated = ISOLATED_PORTS.some((q) => q.kind === step.kind && q.port === p.name);
-      terminals.push({ stepId: id, port: p.name, isolated, stream: outputsOf.get(id)![p.name] });
-    }
-  }
+  const { ctx, stepById, outputsOf, results } = runSteps(prepared, rng, memo, streams);
+  const terminals = terminalsOf(graph, stepById, outputsOf);
   const totals = computeTotals(ctx, graph.order, results, terminals);
   const warnings: RouteResult['warnings'] = [];
   for (const id of graph.order)
@@ -344,6 +308,116 @@ export function evaluatePrepared(
   };
 }
 
+/** The totals one Monte Carlo draw samples: what its summary reads of a route result. */
+export type DrawTotals = Pick<RouteTotals, 'yieldPct' | 'purityWtPct' | 'purge'>;
+
+/**
+ * One Monte Carlo draw of a prepared route: the same step models, in the same
+ * order and with the same draws from `rng`, as evaluatePrepared(prepared, rng,
+ * memo), and the same totals to the last bit, without what a draw's summary
+ * never reads: the per-step mass-balance check and purge, the streams by
+ * connection, the route's cautions and the collected warnings. A step the memo
+ * answers or remembers is still completed in full (balance and purge), so the
+ * memo holds the same entries as after evaluatePrepared.
+ * Source: as evaluatePrepared (the totals are its computeTotals).
+ * Validity: as evaluatePrepared; tests/unit/route/monte-carlo.test.ts compares
+ * every draw with evaluatePrepared's totals.
+ * @param prepared  the prepared route (prepareRoute)
+ * @param rng       seeded random source of the draw
+ * @param memo      step-result memo owned by the caller, or null
+ * @returns isolated yield [%], purity [wt %] and the purge of each impurity (in, out [kg], factor [–])
+ */
+export function evaluateDraw(
+  prepared: PreparedRoute,
+  rng: SeededRandom,
+  memo: StepMemo | null = null,
+): DrawTotals {
+  const { graph } = prepared;
+  const { ctx, stepById, outputsOf, results } = runSteps(prepared, rng, memo, null);
+  const totals = computeTotals(ctx, graph.order, results, terminalsOf(graph, stepById, outputsOf));
+  return { yieldPct: totals.yieldPct, purityWtPct: totals.purityWtPct, purge: totals.purge };
+}
+
+/**
+ * Every step model in topological order, streams carried along the connections. With `streams`
+ * (a full evaluation) every step's balance is checked and its purge worked out, and the stream of
+ * each connection is recorded there; without (a Monte Carlo draw) only the steps the memo answers
+ * or remembers are completed so (the memo's entries are always complete).
+ *
+ * In a draw (rng given), a step is looked up in the memo only when neither it nor any step
+ * upstream of it has an uncertain parameter: any other step's inlets or settings are drawn anew
+ * each time, so its key would never be met again (the memo answers only exact repeats, so this
+ * changes no number, only the work of writing keys and copying results that are never reused).
+ */
+function runSteps(
+  prepared: PreparedRoute,
+  rng: SeededRandom | null,
+  memo: StepMemo | null,
+  streams: Record<string, Stream> | null,
+): {
+  ctx: EvalContext;
+  stepById: Map<string, RouteStep>;
+  outputsOf: Map<string, Record<string, Stream>>;
+  results: Record<string, StepResult>;
+} {
+  const { doc, graph } = prepared;
+  const { ctx } = buildContext(doc, rng, prepared.caches ?? createEvaluationCaches());
+  const token = memo ? contextToken(memo, doc) : '';
+  const stepById = new Map(doc.steps.map((s) => [s.id, s]));
+  const outputsOf = new Map<string, Record<string, Stream>>();
+  // Steps whose result depends on a draw (their own uncertain setting or one upstream); a draw only.
+  const drawn = memo && rng ? new Set<string>() : null;
+  // Indexed by step and connection ids: no prototype, so no id can read a built-in.
+  const results = idRecord<StepResult>();
+  for (const id of graph.order) {
+    const step = stepById.get(id)!;
+    const inputs = idRecord<Stream | undefined>();
+    let upstreamDrawn = false;
+    for (const [port, c] of graph.incoming.get(id)!) {
+      inputs[port] = outputsOf.get(c.from.stepId)![c.from.port];
+      if (drawn?.has(c.from.stepId)) upstreamDrawn = true;
+    }
+    if (drawn && (upstreamDrawn || stepIsUncertain(step))) drawn.add(id);
+    const key = memo && !drawn?.has(id) ? stepKey(token, step, inputs) : null;
+    let out = key !== null ? recallStep(memo!, key) : undefined;
+    if (!out) {
+      ctx.scratch = new Map();
+      try {
+        out = MODELS[step.kind](inputs, step.params as never, ctx, step);
+      } catch (e) {
+        throw toRouteError(e, step);
+      }
+      if (streams || key !== null) {
+        checkBalance(ctx, inputs, out);
+        out.result.purge = stepPurge(ctx, out);
+      }
+      if (key !== null) rememberStep(memo!, key, out);
+    }
+    outputsOf.set(id, out.outputs);
+    results[id] = out.result;
+    if (streams) for (const [port, c] of graph.outgoing.get(id)!) streams[c.id] = out.outputs[port];
+  }
+  return { ctx, stepById, outputsOf, results };
+}
+
+/** The outputs connected to no other step, in step order (isolated: a cake or dry-solid port). */
+function terminalsOf(
+  graph: GraphInfo,
+  stepById: ReadonlyMap<string, RouteStep>,
+  outputsOf: ReadonlyMap<string, Record<string, Stream>>,
+): RouteResult['terminals'] {
+  const terminals: RouteResult['terminals'] = [];
+  for (const id of graph.order) {
+    const step = stepById.get(id)!;
+    for (const p of PORTS[step.kind].outputs) {
+      if (graph.outgoing.get(id)!.has(p.name)) continue;
+      const isolated = ISOLATED_PORTS.some((q) => q.kind === step.kind && q.port === p.name);
+      terminals.push({ stepId: id, port: p.name, isolated, stream: outputsOf.get(id)![p.name] });
+    }
+  }
+  return terminals;
+}
+
 function toRouteError(e: unknown, step: RouteStep): Error {
   if (e instanceof RouteValidationError) return e;
   if (e instanceof StepError)
@@ -367,21 +441,24 @@ function checkBalance(
 ) {
   const r = out.result;
   const balance: NonNullable<StepResult['balance']> = idRecord();
+  const ids = ctx.ids;
   let scale = 0;
-  const inKg = idRecord<number>();
-  const outKg = idRecord<number>();
-  for (const id of ctx.ids) {
+  const inKg = new Float64Array(ids.length);
+  const outKg = new Float64Array(ids.length);
+  for (let i = 0; i < ids.length; i++) {
+    const id = ids[i];
     let a = (r.addedKg[id] ?? 0) + (r.generatedKg[id] ?? 0) - (r.consumedKg[id] ?? 0);
     for (const p in inputs) a += inputs[p]?.kg[id] ?? 0;
     let b = 0;
     for (const p in out.outputs) b += out.outputs[p].kg[id];
-    inKg[id] = a;
-    outKg[id] = b;
+    inKg[i] = a;
+    outKg[i] = b;
     scale = Math.max(scale, Math.abs(a), Math.abs(b));
   }
-  for (const id of ctx.ids) {
-    const a = inKg[id];
-    const b = outKg[id];
+  for (let i = 0; i < ids.length; i++) {
+    const id = ids[i];
+    const a = inKg[i];
+    const b = outKg[i];
     const denom = Math.max(Math.abs(a), Math.abs(b), scale * 1e-12, 1e-300);
     const rel = Math.abs(a - b) / denom;
     balance[id] = { inKg: a, outKg: b, relativeError: rel };

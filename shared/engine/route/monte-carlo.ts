@@ -19,7 +19,7 @@
  */
 import { createRandom, createStreamRandom, type SeededRandom } from '../random';
 import type { RouteDocument } from '../document';
-import { evaluatePrepared, parseRoute, prepareRoute, type PreparedRoute } from './evaluate';
+import { evaluateDraw, parseRoute, prepareRoute, type PreparedRoute } from './evaluate';
 import type { StepMemo } from './step-memo';
 
 export interface Percentiles {
@@ -93,7 +93,11 @@ function checkRun(opts: { draws: number; seed: number }): void {
   if (!Number.isInteger(opts.seed)) throw new RangeError('seed must be an integer');
 }
 
-/** One draw: evaluates the route with `rng`, appends its samples; false when the evaluation failed. */
+/**
+ * One draw: evaluates the route with `rng` (evaluateDraw: the totals of evaluatePrepared, without
+ * the cautions and per-step checks no summary reads), appends its samples; false when the
+ * evaluation failed.
+ */
 function runDraw(
   route: PreparedRoute,
   rng: SeededRandom,
@@ -101,10 +105,10 @@ function runDraw(
   samples: MonteCarloSamples,
 ): boolean {
   try {
-    const r = evaluatePrepared(route, rng, memo);
-    samples.yieldPct.push(r.totals.yieldPct ?? NaN);
-    samples.purityWtPct.push(r.totals.purityWtPct ?? NaN);
-    for (const [id, p] of Object.entries(r.totals.purge))
+    const r = evaluateDraw(route, rng, memo);
+    samples.yieldPct.push(r.yieldPct ?? NaN);
+    samples.purityWtPct.push(r.purityWtPct ?? NaN);
+    for (const [id, p] of Object.entries(r.purge))
       (samples.purge[id] ??= []).push(p.purgeFactor ?? Infinity);
     return true;
   } catch {

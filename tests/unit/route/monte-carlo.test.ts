@@ -11,9 +11,52 @@ import {
   startMonteCarlo,
   summariseMonteCarlo,
 } from '../../../shared/engine/route/monte-carlo';
-import { parseRoute, prepareRoute } from '../../../shared/engine/route/evaluate';
+import {
+  evaluateDraw,
+  evaluatePrepared,
+  parseRoute,
+  prepareRoute,
+} from '../../../shared/engine/route/evaluate';
+import { createStepMemo, stepIsUncertain } from '../../../shared/engine/route/step-memo';
 import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
+import { benchRoute, routeCorpus } from '../../fixtures/routes/corpus';
 import { createRandom, createStreamRandom } from '../../../shared/engine/random';
+
+/** JSON in which every number is written exactly (−0, NaN, ±∞ kept apart). */
+function exact(value: unknown): string {
+  return JSON.stringify(value, (_k, v: unknown) =>
+    typeof v === 'number' ? `#${Object.is(v, -0) ? '-0' : String(v)}` : v,
+  );
+}
+
+/**
+ * The unshortened path of a run: every draw a full evaluation (evaluatePrepared), its totals
+ * sampled as the run samples them, in blocks of the run's streams; the summary of those samples.
+ */
+function referenceSummary(doc: unknown, draws: number, seed: number) {
+  const prepared = prepareRoute(parseRoute(doc));
+  const state = startMonteCarlo({ draws, seed });
+  for (let block = 0; block < monteCarloBlockCount(draws); block++) {
+    const rng = createStreamRandom(seed, block);
+    const n =
+      Math.min(draws, (block + 1) * MONTE_CARLO_BLOCK_DRAWS) - block * MONTE_CARLO_BLOCK_DRAWS;
+    for (let i = 0; i < n; i++) {
+      state.done++;
+      let totals;
+      try {
+        totals = evaluatePrepared(prepared, rng).totals;
+      } catch {
+        state.failedDraws++;
+        continue;
+      }
+      state.samples.yieldPct.push(totals.yieldPct ?? NaN);
+      state.samples.purityWtPct.push(totals.purityWtPct ?? NaN);
+      for (const [id, p] of Object.entries(totals.purge))
+        (state.samples.purge[id] ??= []).push(p.purgeFactor ?? Infinity);
+    }
+  }
+  return summariseMonteCarlo(state);
+}
 
 describe('Monte Carlo', () => {
   it('is reproducible for a seed and independent of chunking', () => {
@@ -111,6 +154,87 @@ describe('Monte Carlo', () => {
     expect(() => createStreamRandom(1, -1)).toThrow(RangeError);
     expect(() => createStreamRandom(1, 1.5)).toThrow(RangeError);
   });
+  it('draws the totals of a full evaluation, bit for bit, with the same random numbers', () => {
+    // evaluateDraw leaves out the balance check, the per-step purge and the cautions: the totals,
+    // and the random numbers drawn, must be those of evaluatePrepared for every draw.
+    for (const [name, doc] of routeCorpus().slice(0, 8)) {
+      const full = prepareRoute(parseRoute(doc));
+      const lean = prepareRoute(parseRoute(doc));
+      const a = createStreamRandom(11, 3);
+      const b = createStreamRandom(11, 3);
+      for (let i = 0; i < 6; i++) {
+        let expected: unknown;
+        try {
+          const t = evaluatePrepared(full, a).totals;
+          expected = { yieldPct: t.yieldPct, purityWtPct: t.purityWtPct, purge: t.purge };
+        } catch (error) {
+          expected = (error as Error).message;
+        }
+        let got: unknown;
+        try {
+          got = evaluateDraw(lean, b);
+        } catch (error) {
+          got = (error as Error).message;
+        }
+        expect(exact(got), `${name}, draw ${i}`).toBe(exact(expected));
+        expect(b.state(), `${name}, draw ${i}`).toEqual(a.state());
+      }
+    }
+  }, 60_000);
+
+  it('pins the summary of a seeded run to the one of full evaluations, bit for bit', () => {
+    // The 30-step benchmark route (every draw changes its first step) and the demo route: the
+    // summary of monteCarlo, of blocks with a step memo, and of full evaluations agree exactly.
+    for (const doc of [benchRoute(30, 10), demoAmideIsolation]) {
+      const draws = MONTE_CARLO_BLOCK_DRAWS + 5;
+      const reference = referenceSummary(doc, draws, 9);
+      expect(exact(monteCarlo(doc, { draws, seed: 9 }))).toBe(exact(reference));
+      const prepared = prepareRoute(parseRoute(doc));
+      const memo = createStepMemo(200);
+      const blocks = [1, 0].map((block) =>
+        runMonteCarloBlock(prepared, { draws, seed: 9, block }, memo),
+      );
+      expect(exact(summariseMonteCarlo(mergeMonteCarloBlocks({ draws, seed: 9 }, blocks)))).toBe(
+        exact(reference),
+      );
+    }
+  }, 60_000);
+
+  it('looks up in the step memo only the steps no draw reaches, and keeps their entries complete', () => {
+    // Steps with no uncertain setting of their own or upstream of them, in the first corpus route
+    // that has such steps and drawn ones.
+    const countFixed = (doc: unknown) => {
+      const { graph, doc: parsed } = prepareRoute(parseRoute(doc));
+      const drawn = new Set<string>();
+      for (const id of graph.order) {
+        const step = parsed.steps.find((s) => s.id === id)!;
+        const upstream = [...graph.incoming.get(id)!.values()].some((c) =>
+          drawn.has(c.from.stepId),
+        );
+        if (upstream || stepIsUncertain(step)) drawn.add(id);
+      }
+      return { fixed: graph.order.length - drawn.size, drawn: drawn.size };
+    };
+    const found = routeCorpus().find(([, d]) => {
+      const c = countFixed(d);
+      return c.fixed > 0 && c.drawn > 0;
+    });
+    expect(found).toBeDefined();
+    const doc = found![1];
+    const { fixed } = countFixed(doc);
+    const prepared = prepareRoute(parseRoute(doc));
+    const memo = createStepMemo(200);
+    const rng = createStreamRandom(4, 0);
+    for (let i = 0; i < 5; i++) evaluateDraw(prepared, rng, memo);
+    expect(memo.misses).toBe(fixed);
+    expect(memo.hits).toBe(4 * fixed);
+    // What the draws left in the memo is a complete step result (balance and purge included).
+    expect(exact(evaluatePrepared(prepared, null, memo))).toBe(
+      exact(evaluatePrepared(prepareRoute(parseRoute(doc)), null)),
+    );
+    expect(memo.hits).toBe(5 * fixed);
+  });
+
   it('spreads the results and orders the percentiles', () => {
     const r = monteCarlo(demoAmideIsolation, { draws: 30, seed: 3 });
     expect(r.draws).toBe(30);
