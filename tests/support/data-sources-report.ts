@@ -12,7 +12,7 @@ const aqueous = sourcedValues('aqueous');
 const c = countByStatus(solvents);
 const a = countByStatus(aqueous);
 console.log(
-  `Counts (41 solvents, ${solvents.length} sourced values): ${c.confirmed} confirmed, ${c.secondary} secondary, ${c['unverified-memory']} unverified-memory, ${c.estimated} estimated/derived, ${c['common-practice']} common-practice, ${c['not-confirmed']} not-confirmed. Aqueous media (${AQUEOUS_COUNT()} solutes, ${aqueous.length} sourced values): ${a['unverified-memory']} unverified-memory, ${a.estimated} derived.`,
+  `Counts (41 solvents, ${solvents.length} sourced values): ${c.confirmed} confirmed, ${c.secondary} secondary, ${c['unverified-memory']} unverified-memory, ${c.estimated} estimated/derived, ${c['common-practice']} common-practice, ${c['not-confirmed']} not-confirmed. Aqueous media (${AQUEOUS_COUNT()} solutes, ${aqueous.length} sourced values): ${a.secondary} secondary, ${a['unverified-memory']} unverified-memory, ${a.estimated} derived.`,
 );
 function AQUEOUS_COUNT() {
   return new Set(aqueous.map((v) => v.record)).size;

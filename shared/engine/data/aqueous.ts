@@ -4,13 +4,15 @@
  * chloride). Densities are points (wt %, g/mL at 20 °C) for interpolation; the
  * 0 wt % point is pure water.
  *
- * None of the density tables, pKa values, saturation limits or Setschenow
- * coefficients below was read for this library: they are the values recalled
- * from the CRC Handbook tables named in each source, and are marked
- * 'unverified-memory'. docs/data-sources.md lists them for checking.
+ * The pKa values of carbonic and citric acid were read in a reproduced table
+ * (status 'secondary'); none of the density tables, the ammonium pKa, the
+ * saturation limits or the Setschenow coefficient below was read for this
+ * library: they are the values recalled from the CRC Handbook tables named in
+ * each source, and are marked 'unverified-memory'. docs/data-sources.md lists
+ * them for checking.
  */
 import type { AqueousSoluteRecord } from './types';
-import { derived, recalled, sv } from './solvents/common';
+import { derived, recalled, reproduced, sv } from './solvents/common';
 
 const FORMULA = (f: string) =>
   derived('iupac-atomic-weights', `computed from ${f} with conventional standard atomic weights`);
@@ -20,9 +22,9 @@ const DENSITY = recalled(
 );
 const CARBONIC = sv(
   [6.35, 10.33],
-  recalled(
-    'crc-dissociation-constants',
-    'carbonic acid pKa1 (H2CO3*/HCO3−) and pKa2 (HCO3−/CO3 2−), 25 °C',
+  reproduced(
+    'libretexts-e1-acid-dissociation',
+    'carbonic acid pKa1 (H2CO3*/HCO3−) 6.35 and pKa2 (HCO3−/CO3 2−) 10.33 at 25 °C as printed (Ka 4.5e-7, 4.7e-11); the same values had been recalled from the CRC Handbook',
   ),
 );
 
@@ -203,7 +205,13 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     molarMassGmol: sv(192.123, FORMULA('C6H8O7')),
     acidBase: {
       kind: 'weak-acid',
-      pKa: sv([3.13, 4.76, 6.4], recalled('crc-dissociation-constants', 'pKa1–pKa3 at 25 °C')),
+      pKa: sv(
+        [3.13, 4.76, 6.4],
+        reproduced(
+          'libretexts-e1-acid-dissociation',
+          'pKa1–pKa3 3.13, 4.76, 6.40 at 25 °C as printed (Ka 7.4e-4, 1.7e-5, 4.0e-7); the same values had been recalled',
+        ),
+      ),
     },
     densityPoints: sv<Array<[number, number]>>(
       [

@@ -212,6 +212,12 @@ export const SOURCES = {
     url: 'http://www.fact-archive.com/encyclopedia/Ethyl_acetate',
   },
 
+  'libretexts-e1-acid-dissociation': {
+    citation:
+      'LibreTexts Chemistry (open-access textbook library), Reference Tables, Equilibrium Constants, "E1: Acid Dissociation Constants at 25°C" (Ka and pKa by step) — a reproduced table; its own source was not read, so values read here are secondary',
+    url: 'https://chem.libretexts.org/Ancillary_Materials/Reference/Reference_Tables/Equilibrium_Constants/E1%3A_Acid_Dissociation_Constants_at_25C',
+  },
+
   // --- Derived values ----------------------------------------------------------
   'iupac-atomic-weights': {
     citation:

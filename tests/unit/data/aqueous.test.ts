@@ -34,9 +34,13 @@ describe('aqueous media', () => {
       expect(casCheckDigitValid(a.cas)).toBe(true);
       for (const s of sourcesOf(a)) {
         expect(Object.keys(SOURCES)).toContain(s.ref);
-        expect(['confirmed', 'unverified-memory', 'estimated', 'common-practice']).toContain(
-          s.status,
-        );
+        expect([
+          'confirmed',
+          'secondary',
+          'unverified-memory',
+          'estimated',
+          'common-practice',
+        ]).toContain(s.status);
       }
       expect(a.molarMassGmol.value).toBeGreaterThan(30);
       expect(a.molarMassGmol.value).toBeLessThan(200);

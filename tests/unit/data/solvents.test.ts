@@ -433,5 +433,10 @@ describe('docs/data-sources.md', () => {
     expect(doc).toContain(`${c['unverified-memory']} unverified-memory`);
     expect(doc).toContain(`${c['not-confirmed']} not-confirmed`);
     expect(doc).toContain(`${c.secondary} secondary`);
+    const aqueous = sourcedValues('aqueous');
+    const a = countByStatus(aqueous);
+    expect(doc).toContain(
+      `Aqueous media (8 solutes, ${aqueous.length} sourced values): ${a.secondary} secondary, ${a['unverified-memory']} unverified-memory`,
+    );
   });
 });

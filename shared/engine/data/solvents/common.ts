@@ -36,6 +36,18 @@ export function recalled(ref: SourceId, note?: string): Source {
 }
 
 /**
+ * A library value read in a published reproduction of its primary table, not in the primary itself (status 'secondary' in docs/data-sources.md).
+ * Source: this project's own bookkeeping (no external source); `ref` names the reproduction read.
+ * Validity: any source listed in data/sources.ts.
+ * @param ref the reproduction the value was read in
+ * @param note what was read, or why the value stands in
+ * @returns the value's source record
+ */
+export function reproduced(ref: SourceId, note?: string): Source {
+  return source(ref, 'secondary', note);
+}
+
+/**
  * A library value derived from other values of the source (status 'estimated' in docs/data-sources.md).
  * Source: this project's own bookkeeping (no external source); `ref` names the value's source.
  * Validity: any source listed in data/sources.ts.

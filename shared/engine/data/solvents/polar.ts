@@ -5,7 +5,7 @@
  * form (see AntoineSet in ../types.ts).
  */
 import type { SolventBaseRecord } from '../types';
-import { antoine, ASSIGNED, derived, read, recalled, sv, VISCOSITY } from './common';
+import { antoine, ASSIGNED, derived, read, recalled, reproduced, sv, VISCOSITY } from './common';
 
 export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
   {
@@ -221,7 +221,10 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
     cas: '64-19-7',
     pKa: sv(
       [{ value: 4.76, type: 'acid' }],
-      recalled('crc-dissociation-constants', 'acetic acid, 25 °C'),
+      reproduced(
+        'libretexts-e1-acid-dissociation',
+        'acetic acid at 25 °C: printed pKa 4.756 (Ka 1.75e-5), stored to two decimals as before',
+      ),
     ),
     molarMassGmol: sv(
       60.052,
