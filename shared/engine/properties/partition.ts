@@ -399,6 +399,12 @@ export type DistributionInput = {
   prefer?: 'activity' | 'collander';
   /** Optional cache of UNIFAC models for the activity estimate (same numbers, fewer model builds). */
   models?: UnifacModelCache;
+  /**
+   * Optional stand-in for partitionByActivity that must return what it returns for the same input
+   * (a caller's memo of the estimate for phases it asks about repeatedly); called only when the
+   * activity estimate is the method used.
+   */
+  activityEstimate?: typeof partitionByActivity;
 };
 
 export interface DistributionResult {
@@ -564,7 +570,7 @@ export function distributionRatio(input: DistributionInput): DistributionResult 
         'Collander coefficients and log P refer to about 25 °C; no temperature correction applied.',
       );
   } else {
-    const r = partitionByActivity({
+    const r = (input.activityEstimate ?? partitionByActivity)({
       soluteGroups: solute.unifac as UnifacGroups,
       organic: {
         groups: organic.groups as UnifacGroups[],

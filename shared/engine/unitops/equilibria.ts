@@ -717,6 +717,32 @@ function describePhase(
   };
 }
 
+type ActivityEstimate = ReturnType<typeof partitionByActivity>;
+
+/**
+ * The activity-coefficient estimate of each compound between two described phases (phaseOf), kept
+ * with the descriptions themselves: a wash stage asks for it twice per ionisable compound (the
+ * neutral partition coefficient of the charge balance, then the distribution at the stage's pH), and
+ * a description object stands for one exact composition, so the estimate is the same number.
+ */
+const activityEstimates = new WeakMap<object, WeakMap<object, Map<string, ActivityEstimate>>>();
+
+function memoisedActivityEstimate(
+  organic: object,
+  aqueous: object,
+  key: string,
+): typeof partitionByActivity {
+  return (input) => {
+    let byAqueous = activityEstimates.get(organic);
+    if (!byAqueous) activityEstimates.set(organic, (byAqueous = new WeakMap()));
+    let byKey = byAqueous.get(aqueous);
+    if (!byKey) byAqueous.set(aqueous, (byKey = new Map()));
+    let r = byKey.get(key);
+    if (!r) byKey.set(key, (r = partitionByActivity(input)));
+    return r;
+  };
+}
+
 export interface SoluteDistribution {
   D: number;
   method: string;
@@ -859,6 +885,10 @@ export function compoundDistribution(
   }
   try {
     const r = distributionRatio({
+      activityEstimate:
+        organicPhase && aqueousPhase
+          ? memoisedActivityEstimate(organicPhase, aqueousPhase, `${compoundId}|${T_K}`)
+          : undefined,
       solute: {
         logP: c.logP,
         pKa: c.pKa as PKa[] | undefined,

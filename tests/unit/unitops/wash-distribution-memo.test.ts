@@ -1,0 +1,87 @@
+/**
+ * Distribution ratios of a wash stage: the activity-coefficient estimate of each compound between
+ * the stage's two liquids is kept with the described phases and reused (the neutral partition
+ * coefficient of the charge balance, then the distribution at the stage's pH). A reused estimate
+ * must be the one a fresh evaluation gives for that compound, phases and temperature.
+ */
+import { describe, expect, it } from 'vitest';
+import { parseRoute } from '../../../shared/engine/route/evaluate';
+import { buildContext } from '../../../shared/engine/route/context';
+import {
+  compoundDistribution,
+  neutralPartitionCoefficient,
+  splitLiquid,
+} from '../../../shared/engine/unitops/equilibria';
+
+// Two ionisable compounds with UNIFAC groups and no log P or measured D: both distribute by the
+// UNIFAC estimate (invented test compounds; groups as in the UNIFAC subgroup table).
+const doc = parseRoute({
+  schemaVersion: 1,
+  referenceInput: { componentId: 'acid', massKg: 0.01 },
+  components: [
+    { kind: 'solvent', id: 'water', solventId: 'water' },
+    { kind: 'solvent', id: 'etoac', solventId: 'ethyl-acetate' },
+    {
+      kind: 'compound',
+      id: 'acid',
+      name: 'aromatic acid (invented)',
+      role: 'product',
+      molarMassGmol: 200,
+      unifac: { '9': 5, '10': 1, '2': 2, '42': 1 },
+      pKa: [{ value: 4.2, type: 'acid' }],
+    },
+    {
+      kind: 'compound',
+      id: 'amine',
+      name: 'aniline-type base (invented)',
+      role: 'impurity',
+      molarMassGmol: 150,
+      unifac: { '9': 5, '36': 1 },
+      pKa: [{ value: 4.6, type: 'base' }],
+    },
+  ],
+  steps: [
+    {
+      id: 'c',
+      kind: 'charge',
+      name: 'c',
+      params: {
+        temperatureC: 25,
+        contents: [{ kind: 'component', componentId: 'etoac', amount: 1, unit: 'L' }],
+      },
+    },
+  ],
+  connections: [],
+});
+
+const T = 298.15;
+const liquid = { water: 1, etoac: 0.9 };
+
+function stage() {
+  const { ctx } = buildContext(doc);
+  const sp = splitLiquid(ctx, liquid, T, [], []);
+  return { ctx, phases: { organicKg: sp.organicKg, aqueousKg: sp.aqueousKg } };
+}
+
+describe('distribution ratios of a wash stage', () => {
+  it('reuses no estimate across compounds, and equals a fresh evaluation', () => {
+    const { ctx, phases } = stage();
+    expect(phases.organicKg.etoac).toBeGreaterThan(0);
+    // One context, as a wash stage asks: K of the charge balance for both, then D at pH 7 for both.
+    const K = ['acid', 'amine'].map((id) =>
+      neutralPartitionCoefficient(ctx, id, 'etoac', undefined, T, phases),
+    );
+    const D = ['acid', 'amine'].map(
+      (id) => compoundDistribution(ctx, id, 'etoac', 7, undefined, T, [], phases).D,
+    );
+    expect(K[0]).not.toBe(K[1]);
+    // Each alone in a fresh context (nothing kept from another request).
+    ['acid', 'amine'].forEach((id, i) => {
+      const a = stage();
+      expect(compoundDistribution(a.ctx, id, 'etoac', 7, undefined, T, [], a.phases).D).toBe(D[i]);
+      const b = stage();
+      expect(neutralPartitionCoefficient(b.ctx, id, 'etoac', undefined, T, b.phases)).toBe(K[i]);
+    });
+    for (const d of D) expect(d > 0 && Number.isFinite(d)).toBe(true);
+  });
+});
