@@ -274,8 +274,10 @@ export function evaluatePrepared(
   const terminals = terminalsOf(graph, stepById, outputsOf);
   const totals = computeTotals(ctx, graph.order, results, terminals);
   const warnings: RouteResult['warnings'] = [];
+  // Written out, not spread: a spread of each step's warnings cost about 2 % of an evaluation.
   for (const id of graph.order)
-    for (const w of results[id].warnings) warnings.push({ ...w, stepId: id });
+    for (const w of results[id].warnings)
+      warnings.push({ severity: w.severity, code: w.code, message: w.message, stepId: id });
   warnings.push(...analogueCautions(ctx, graph.order, stepById, results));
   warnings.push(...nearLimitNotes(ctx, terminals));
   warnings.push(...assumedDataNotes(ctx));
