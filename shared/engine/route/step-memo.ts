@@ -167,13 +167,28 @@ export function stepKey(
   return s;
 }
 
-/** Deep copy keeping each object's prototype (the engine's id records have none). */
+/**
+ * Deep copy keeping each object's prototype (the engine's id records have none). Plain objects
+ * and id records are filled by for…in, which for them visits exactly Object.keys, in its order,
+ * without building the list of keys.
+ */
 function copy<T>(v: T): T {
   if (v === null || typeof v !== 'object') return v;
-  if (Array.isArray(v)) return v.map(copy) as T;
+  if (Array.isArray(v)) {
+    const out: unknown[] = [];
+    for (let i = 0; i < v.length; i++) out.push(copy(v[i] as unknown));
+    return out as T;
+  }
   if (ArrayBuffer.isView(v)) return (v as unknown as Float64Array).slice() as T;
-  const out = Object.create(Object.getPrototypeOf(v)) as Record<string, unknown>;
-  for (const k of Object.keys(v)) out[k] = copy((v as Record<string, unknown>)[k]);
+  const source = v as Record<string, unknown>;
+  const proto = Object.getPrototypeOf(v) as object | null;
+  if (proto === null || proto === Object.prototype) {
+    const out: Record<string, unknown> = proto === null ? Object.create(null) : {};
+    for (const k in source) out[k] = copy(source[k]);
+    return out as T;
+  }
+  const out = Object.create(proto) as Record<string, unknown>;
+  for (const k of Object.keys(v)) out[k] = copy(source[k]);
   return out as T;
 }
 
