@@ -103,6 +103,11 @@ export const SOURCES = {
       'NFPA 497 (2008), Recommended Practice for the Classification of Flammable Liquids, Gases, or Vapors and of Hazardous (Classified) Locations',
     via: 'CalebBell/chemicals: chemicals/Safety/NFPA 497 2008.tsv (flash point in K)',
   },
+  'cas-common-chemistry': {
+    citation:
+      'CAS Common Chemistry (CAS, a division of the American Chemical Society; open community resource, CC BY-NC 4.0), experimental properties: melting point and boiling point',
+    via: 'CalebBell/chemicals: chemicals/Misc/common_chemistry_data.tsv (columns Tm, Tb in K; rows 872-50-4 and 5614-37-9 read in December 2026)',
+  },
   'opennotebook-melting-points': {
     citation: 'Open Notebook Science melting point data set (J.-C. Bradley et al.)',
     via: 'CalebBell/chemicals: chemicals/Phase Change/OpenNotebook Melting Points.tsv (as read for reference-data.md §H)',

@@ -54,7 +54,7 @@ const OWN: Array<[string, number, number]> = [
   ['thf', 339.124, 21541],
   ['2-methyltetrahydrofuran', 353.37, 12843],
   ['mtbe', 328.186, 33321],
-  ['cpme', 379.15, 4952.8],
+  ['cpme', 378.59, 5065.6],
   ['diethyl-ether', 307.544, 71732],
   ['diisopropyl-ether', 341.609, 19827],
   ['1-4-dioxane', 374.521, 5093.9],

@@ -194,7 +194,10 @@ export const ETHERS_SOLVENTS: readonly SolventBaseRecord[] = [
       ),
     ),
     density: sv({ gPerMl: 0.86, temperatureC: 20 }, recalled('density-memory')),
-    boilingPointC: sv(106, recalled('boiling-point-memory')),
+    boilingPointC: sv(
+      105.44,
+      read('cas-common-chemistry', '378.59 K; stored value was 106 °C (recalled)'),
+    ),
     meltingPointC: sv(-140, read('opennotebook-melting-points', '133.15 K')),
     antoine: [], // no Antoine set found in the sources read; see docs/data-sources.md
     hansen: sv({ d: 16.7, p: 4.3, h: 4.3 }, read('hansen-diaz-2022')),

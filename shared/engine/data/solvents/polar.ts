@@ -157,7 +157,13 @@ export const POLAR_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     density: sv({ gPerMl: 1.023, temperatureC: 25 }, read('crc-organic-constants')),
     boilingPointC: sv(204.2, read('crc-organic-constants', 'Yaws gives 202.05 °C')),
-    meltingPointC: sv(-24.4, recalled('melting-point-memory')),
+    meltingPointC: sv(
+      -25,
+      read(
+        'cas-common-chemistry',
+        '248.15 K (given to the degree); stored value was −24.4 °C (recalled)',
+      ),
+    ),
     antoine: [], // no Antoine set found in the sources read; see docs/data-sources.md
     hansen: sv({ d: 18, p: 12.3, h: 7.2 }, read('hansen-hspipy')),
     molarVolumeCm3mol: sv(96.9, derived('derived-quantity', 'molar mass / density at 25 °C')),
