@@ -862,6 +862,9 @@ export function liquidLiquidSplit(
     for (let i = 0; i < n; i++) if (zs[i] > 0 && i !== trial) others++;
     for (let i = 0; i < n; i++) w[i] = zs[i] === 0 ? 0 : i === trial ? 0.999 : 0.001 / others;
     let sumW = 0;
+    let onFeed = false;
+    let lastDistance = NaN;
+    let lastRatio = NaN;
     for (let iter = 0; iter < 300; iter++) {
       model.lnGammas(w, T_K, lnGw);
       sumW = 0;
@@ -883,7 +886,19 @@ export function liquidLiquidSplit(
       // is clearly unstable and close
       // enough to start the flash from (the flash converges to the same phases from there).
       if (change < 1e-12 || distance <= 1e-5 || (sumW > 1 + 1e-4 && change < 1e-6)) break;
+      // A trial falling onto the feed shrinks its distance to it by a steady ratio (the linear
+      // convergence of successive substitution onto a fixed point that attracts it): once within
+      // 1e-3, with two successive ratios below 0.8 and within 0.02 of each other and ΣW ≤ 1 (no sign
+      // of instability), it is on its way there and stops.
+      const ratio = distance / lastDistance;
+      if (distance <= 1e-3 && sumW <= 1 && ratio < 0.8 && Math.abs(ratio - lastRatio) < 0.02) {
+        onFeed = true;
+        break;
+      }
+      lastRatio = ratio;
+      lastDistance = distance;
     }
+    if (onFeed) continue;
     let distance = 0;
     for (let i = 0; i < n; i++) distance = Math.max(distance, Math.abs(w[i] - zs[i]));
     if (distance > 1e-5 && sumW > bestSum) {

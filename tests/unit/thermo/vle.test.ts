@@ -110,6 +110,28 @@ describe('liquidLiquidSplit', () => {
     const sys = createVleSystem([F.toluene, F.water]);
     expect(liquidLiquidSplit(sys, [1e-6, 1 - 1e-6], 298.15).split).toBe(false);
   });
+  it('finds the same tie line from feeds on it close to either phase, and no split just beyond it', () => {
+    // Water–ethyl acetate–ethanol: the stability trials that fall onto such a feed stop early (a
+    // steady ratio of distances within 1e-3 of it); a feed with 0.3 % of one phase must still split
+    // into the tie line's two liquids, in the lever-rule proportion.
+    const sys = createVleSystem([F.water, F.ethylAcetate, F.ethanol]);
+    const T = 298.15;
+    const centre = liquidLiquidSplit(sys, [0.5, 0.4, 0.1], T);
+    expect(centre.split).toBe(true);
+    if (!centre.split) return;
+    const [a, b] = centre.phases;
+    const along = (t: number) => a.map((v, i) => v + t * (b[i] - v));
+    for (const t of [0.003, 0.02, 0.98, 0.997]) {
+      const r = liquidLiquidSplit(sys, along(t), T);
+      expect(r.split).toBe(true);
+      if (!r.split) continue;
+      r.phases.forEach((x, k) =>
+        x.forEach((v, i) => expect(Math.abs(v - [a, b][k][i])).toBeLessThan(1e-9)),
+      );
+      expect(Math.abs(r.phaseFraction - t)).toBeLessThan(1e-8);
+    }
+    for (const t of [-0.01, 1.05]) expect(liquidLiquidSplit(sys, along(t), T).split).toBe(false);
+  });
 });
 
 describe('heterogeneousBubblePoint', () => {
