@@ -121,7 +121,10 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
     unifac: sv({ 1: 2, 2: 4 }, ASSIGNED),
     waterMutualSolubility: sv(
       { solventInWaterWtPct: 0.0012, waterInSolventWtPct: 0.01, temperatureC: 25 },
-      recalled('mutual-solubility-memory'),
+      recalled(
+        'mutual-solubility-memory',
+        "hexane in water read as 0.00123 g/100 g solution at 25 °C (IUPAC-NIST SRD 106 data sheet, Leinonen & Mackay, Can. J. Chem. Eng. 1973, 51, 230); water in hexane recalled: the same database gives only a fitted equation (Tsonopoulos & Wilson, AIChE J. 1983, 29, 990; 0.0092 wt % at 25 °C) that misses the authors' own 313 K point by 30 %, so it is not used",
+      ),
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(
