@@ -447,12 +447,17 @@ function checkBalance(
   let scale = 0;
   const inKg = new Float64Array(ids.length);
   const outKg = new Float64Array(ids.length);
+  // The ports listed once per step, not once per component (in the same order, so the same sums).
+  const inlets: Array<Stream | undefined> = [];
+  for (const p in inputs) inlets.push(inputs[p]);
+  const outlets: Array<Record<string, number>> = [];
+  for (const p in out.outputs) outlets.push(out.outputs[p].kg);
   for (let i = 0; i < ids.length; i++) {
     const id = ids[i];
     let a = (r.addedKg[id] ?? 0) + (r.generatedKg[id] ?? 0) - (r.consumedKg[id] ?? 0);
-    for (const p in inputs) a += inputs[p]?.kg[id] ?? 0;
+    for (let j = 0; j < inlets.length; j++) a += inlets[j]?.kg[id] ?? 0;
     let b = 0;
-    for (const p in out.outputs) b += out.outputs[p].kg[id];
+    for (let j = 0; j < outlets.length; j++) b += outlets[j][id];
     inKg[i] = a;
     outKg[i] = b;
     scale = Math.max(scale, Math.abs(a), Math.abs(b));
