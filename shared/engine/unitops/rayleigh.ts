@@ -19,6 +19,15 @@
  * tolerance, so that the end composition is within the tolerance (default
  * RAYLEIGH_TOLERANCE_X = 1e-6) of the converged integral; the reference
  * tests check this against the closed form for constant relative volatility.
+ * The integrator carries ln n_i for every component that only leaves the pot,
+ *     d ln n_i / d s = − (y_i / n_i) / Σ_j y_j v_j = − K_i / (N Σ_j y_j v_j),
+ * which stays smooth as a light component is stripped to traces (n_i falls
+ * nearly exponentially, ln n_i nearly linearly): the steps follow the pot as a
+ * whole instead of one e-fold of the trace each. The fed solvent of a
+ * constant-volume swap is carried as n. The error norm is taken on the moles,
+ * with the local error of the pot volume Σ v_i n_i (linear in n, not in ln n)
+ * held to the same share of the tolerance, and the end moles are scaled onto
+ * the stated pot volume (a common factor: every x_i unchanged).
  *
  * Units: moles [mol]; volumes in any consistent unit (the caller passes
  * molar volumes [m³/mol] and a fixed non-volatile volume [m³]).
@@ -123,6 +132,71 @@ function rayleighErrorNorm(tol: number, N0: number) {
 }
 
 /**
+ * The state the integrator carries for a pot (module comment): ln n_i for every component present
+ * at the start and not fed, whose amount only falls (a trace being stripped decays nearly
+ * exponentially, a straight line in ln n that the integrator follows with long steps instead of
+ * one e-fold per step), and n_i itself for the fed component and for any component absent at the
+ * start (it stays at 0). The error norm is taken on the moles: a local error δ in ln n_i is an
+ * error n_i (1 − e^(−δ)) in n_i.
+ */
+function potState(moles: Float64Array, feedIndex: number) {
+  const n = moles.length;
+  const logged = new Uint8Array(n);
+  for (let i = 0; i < n; i++) logged[i] = moles[i] > 0 && i !== feedIndex ? 1 : 0;
+  const toMoles = (z: Float64Array, m: Float64Array): Float64Array => {
+    for (let i = 0; i < n; i++) m[i] = logged[i] ? Math.exp(z[i]) : Math.max(0, z[i]);
+    return m;
+  };
+  const finite = (m: Float64Array): boolean => {
+    for (let i = 0; i < n; i++) if (!Number.isFinite(m[i])) return false;
+    return true;
+  };
+  const start = new Float64Array(n);
+  for (let i = 0; i < n; i++) start[i] = logged[i] ? Math.log(moles[i]) : moles[i];
+  /** The error norm of rayleighErrorNorm on the moles, for a step taken in this state. */
+  const errorNorm = (
+    base: (y: Float64Array, yNew: Float64Array, err: Float64Array) => number,
+    molarVolume: Float64Array,
+    volumeTol: number,
+  ) => {
+    const mOld = new Float64Array(n);
+    const mNew = new Float64Array(n);
+    const errN = new Float64Array(n);
+    return (z: Float64Array, zNew: Float64Array, errZ: Float64Array): number => {
+      toMoles(z, mOld);
+      toMoles(zNew, mNew);
+      let dV = 0;
+      let V = 0;
+      for (let i = 0; i < n; i++) {
+        errN[i] = logged[i] ? -mNew[i] * Math.expm1(-errZ[i]) : errZ[i];
+        dV += errN[i] * molarVolume[i];
+        V += mNew[i] * molarVolume[i];
+      }
+      return Math.max(base(mOld, mNew, errN), Math.abs(dV) / (volumeTol * V));
+    };
+  };
+  /** Writes dz/ds from dn/ds at the moles m. */
+  const rate = (m: Float64Array, dn: number, i: number): number =>
+    logged[i] ? (m[i] > 0 ? dn / m[i] : 0) : dn;
+  /** Absolute tolerance per state component, for the integrator's starting step only. */
+  const atol = (N0: number): number[] =>
+    Array.from(logged, (l) => (l ? LOCAL_RELATIVE : 1e-12 * N0));
+  /**
+   * Scales moles m onto the pot's liquid volume Σ v_i n_i = volume (in place): the volume balance is
+   * linear in n, which the integrator keeps exactly in n but not in ln n; a common factor leaves every
+   * mole fraction as integrated (projection onto the invariant: Hairer, Lubich & Wanner, Geometric
+   * Numerical Integration, 2nd ed., Springer 2006, §IV.4).
+   */
+  const onVolume = (m: Float64Array, molarVolume: Float64Array, volume: number): Float64Array => {
+    let v = 0;
+    for (let i = 0; i < n; i++) v += m[i] * molarVolume[i];
+    if (v > 0 && volume > 0) for (let i = 0; i < n; i++) m[i] *= volume / v;
+    return m;
+  };
+  return { start, toMoles, finite, errorNorm, rate, atol, onVolume };
+}
+
+/**
  * The VLE at the pot moles (negative trial values clipped to 0), remembering
  * the last state: the integrator's last stage of an accepted step is at the
  * new state, so the profile point reuses it instead of a new VLE solve.
@@ -211,32 +285,41 @@ export function rayleighToVolume(
   const exhausted = toRemoveAsked >= volatileVolume * (1 - 1e-12);
   const toRemove = exhausted ? volatileVolume * (1 - 1e-9) : toRemoveAsked;
   const cached = cachedVle(vle, n);
-  const rhs = (_s: number, m: Float64Array, dm: Float64Array) => {
+  const state = potState(moles, -1);
+  const m = new Float64Array(n);
+  const rhs = (_s: number, z: Float64Array, dz: Float64Array) => {
+    // A trial stage far off (ln n overflowing): non-finite, so the integrator retries a shorter step.
+    if (!state.finite(state.toMoles(z, m))) return dz.fill(NaN);
     const y = cached.at(m).y;
     let vPerMol = 0;
     for (let i = 0; i < n; i++) vPerMol += y[i] * molarVolume[i];
-    for (let i = 0; i < n; i++) dm[i] = -y[i] / vPerMol;
+    for (let i = 0; i < n; i++) dz[i] = state.rate(m, -y[i] / vPerMol, i);
   };
   const profile: RayleighPoint[] = [start];
-  const r = dormandPrince(rhs, 0, moles, toRemove, {
-    errorNorm: rayleighErrorNorm(LOCAL_SHARE * tol, N0),
-    atol: 1e-12 * N0,
+  const r = dormandPrince(rhs, 0, state.start, toRemove, {
+    errorNorm: state.errorNorm(
+      rayleighErrorNorm(LOCAL_SHARE * tol, N0),
+      molarVolume,
+      LOCAL_SHARE * tol,
+    ),
+    atol: state.atol(N0),
     rtol: LOCAL_SHARE * tol,
-    onStep: (s, m) => {
-      const at = cached.at(m);
+    onStep: (s, z) => {
+      const at = cached.at(state.toMoles(z, m));
       profile.push({
         T_K: at.T_K,
         P_Pa: at.P_Pa,
         volume: V0 - s,
         distilled: s,
-        moles: Float64Array.from(cached.positive),
+        moles: state.onVolume(Float64Array.from(cached.positive), molarVolume, volatileVolume - s),
       });
     },
   });
   const pot = new Float64Array(n);
   const distilled = new Float64Array(n);
+  state.onVolume(state.toMoles(r.y, m), molarVolume, volatileVolume - toRemove);
   for (let i = 0; i < n; i++) {
-    pot[i] = exhausted ? 0 : Math.min(moles[i], Math.max(0, r.y[i]));
+    pot[i] = exhausted ? 0 : Math.min(moles[i], m[i]);
     distilled[i] = moles[i] - pot[i];
   }
   if (exhausted) {
@@ -326,12 +409,13 @@ export function rayleighConstantVolume(
 ): ConstantVolumeResult {
   const n = moles.length;
   const tol = opts.toleranceX ?? RAYLEIGH_TOLERANCE_X;
-  let V = fixedVolume;
+  let volatileVolume = 0;
   let N0 = 0;
   for (let i = 0; i < n; i++) {
-    V += moles[i] * molarVolume[i];
+    volatileVolume += moles[i] * molarVolume[i];
     N0 += moles[i];
   }
+  const V = fixedVolume + volatileVolume;
   const first = vle(moles);
   const profile: RayleighPoint[] = [
     {
@@ -358,34 +442,44 @@ export function rayleighConstantVolume(
     };
   }
   const cached = cachedVle(vle, n);
-  const rhs = (_f: number, m: Float64Array, dm: Float64Array) => {
+  const state = potState(moles, feedIndex);
+  const m = new Float64Array(n);
+  const rhs = (_f: number, z: Float64Array, dz: Float64Array) => {
+    // A trial stage far off (ln n overflowing): non-finite, so the integrator retries a shorter step.
+    if (!state.finite(state.toMoles(z, m))) return dz.fill(NaN);
     const y = cached.at(m).y;
     let vPerMol = 0;
     for (let i = 0; i < n; i++) vPerMol += y[i] * molarVolume[i];
-    for (let i = 0; i < n; i++) dm[i] = (i === feedIndex ? 1 / vFeed : 0) - y[i] / vPerMol;
+    for (let i = 0; i < n; i++)
+      dz[i] = state.rate(m, (i === feedIndex ? 1 / vFeed : 0) - y[i] / vPerMol, i);
   };
-  const r = dormandPrince(rhs, 0, moles, feedVolume, {
-    errorNorm: rayleighErrorNorm(LOCAL_SHARE * tol, N0),
-    atol: 1e-12 * N0,
+  const r = dormandPrince(rhs, 0, state.start, feedVolume, {
+    errorNorm: state.errorNorm(
+      rayleighErrorNorm(LOCAL_SHARE * tol, N0),
+      molarVolume,
+      LOCAL_SHARE * tol,
+    ),
+    atol: state.atol(N0),
     rtol: LOCAL_SHARE * tol,
-    onStep: (fed, m) => {
-      const at = cached.at(m);
+    onStep: (fed, z) => {
+      const at = cached.at(state.toMoles(z, m));
       profile.push({
         T_K: at.T_K,
         P_Pa: at.P_Pa,
         volume: V,
         distilled: fed,
         fed,
-        moles: Float64Array.from(cached.positive),
+        moles: state.onVolume(Float64Array.from(cached.positive), molarVolume, volatileVolume),
       });
     },
   });
   const fedMoles = feedVolume / vFeed;
   const pot = new Float64Array(n);
   const distilled = new Float64Array(n);
+  state.onVolume(state.toMoles(r.y, m), molarVolume, volatileVolume);
   for (let i = 0; i < n; i++) {
     const charged = moles[i] + (i === feedIndex ? fedMoles : 0);
-    pot[i] = Math.min(charged, Math.max(0, r.y[i]));
+    pot[i] = Math.min(charged, m[i]);
     distilled[i] = charged - pot[i];
   }
   return {

@@ -25,6 +25,8 @@ import {
   rayleighToVolume,
   type PotVle,
 } from '../../../shared/engine/unitops/rayleigh';
+import { bubblePoint, createVleSystem } from '../../../shared/engine/thermo/vle';
+import * as F from '../thermo/fixtures';
 
 function constantAlpha(alpha: number): PotVle {
   return (m) => {
@@ -100,6 +102,22 @@ describe('Rayleigh integration to 1e-6 in x on steep cases', () => {
     expect(exact).toBeGreaterThan(1e-5);
   });
 
+  it('a very volatile trace (α = 50) stripped through some 8 e-folds keeps 0.1 % of its own residue', () => {
+    // The integrator carries ln n for a component that only falls: a trace leaving nearly
+    // exponentially is a straight line there. Its residue must still be followed to 0.1 %, and the
+    // pot must reach the stated volume exactly.
+    const alpha = 50;
+    const r = rayleighToVolume(Float64Array.from([5, 95]), ones, 0, 80, constantAlpha(alpha));
+    expect(r.converged).toBe(true);
+    const x = r.moles[0] / (r.moles[0] + r.moles[1]);
+    const exact = exactResidueX(alpha, 0.05, 0.8);
+    expect(exact).toBeLessThan(2e-5);
+    expect(exact).toBeGreaterThan(5e-6);
+    expect(Math.abs(x - exact)).toBeLessThan(tol);
+    expect(Math.abs(x / exact - 1)).toBeLessThan(1e-3);
+    expect(r.moles[0] + r.moles[1]).toBeCloseTo(80, 10);
+  });
+
   it('four put-and-take cycles at α = 8 match the exact cycle-by-cycle solution', () => {
     const alpha = 8;
     const Nt = 20;
@@ -153,6 +171,9 @@ describe('Rayleigh integration to 1e-6 in x on steep cases', () => {
     }
     const exact = 0.5 * (lo + hi);
     expect(Math.abs(x - exact)).toBeLessThan(tol);
+    // The original solvent, swapped out to about 2e-6, is followed to 0.1 % of what is left.
+    expect(exact).toBeLessThan(5e-6);
+    expect(Math.abs(x / exact - 1)).toBeLessThan(1e-3);
     expect(r.moles[0] + r.moles[1]).toBeCloseTo(N, 9);
   });
 
@@ -185,6 +206,92 @@ describe('Rayleigh integration to 1e-6 in x on steep cases', () => {
     const xRef = n[0] / (n[0] + n[1]);
     const x = r.moles[0] / (r.moles[0] + r.moles[1]);
     expect(Math.abs(x - xRef)).toBeLessThan(tol);
+  });
+
+  // Three components of different volatility and unequal molar volumes, against a 20 000-step
+  // classical RK4 in the moles (written here): every mole fraction within 1e-6, the lightest (a
+  // trace) within 0.1 % of itself, and the pot volume as stated.
+  const ternaryAlphas = [8, 3, 1];
+  const ternaryMv = Float64Array.from([1.3, 0.8, 1.1]);
+  const ternaryVle: PotVle = (m) => {
+    let d = 0;
+    for (let i = 0; i < 3; i++) d += ternaryAlphas[i] * m[i];
+    return { T_K: 350, P_Pa: 1e5, y: ternaryAlphas.map((a, i) => (a * m[i]) / d) };
+  };
+  /** RK4 of dn_i/ds = feed_i − y_i/Σ y_j v_j over s in [0, S]. */
+  function ternaryRk4(n0: number[], S: number, feed: number[]): number[] {
+    const steps = 20_000;
+    const h = S / steps;
+    const n = [...n0];
+    const d = (m: number[]): number[] => {
+      const y = ternaryVle(Float64Array.from(m)).y as number[];
+      const v = y.reduce((a, yi, i) => a + yi * ternaryMv[i], 0);
+      return y.map((yi, i) => feed[i] - yi / v);
+    };
+    const add = (a: number[], b: number[], f: number) => a.map((v, i) => v + f * b[i]);
+    for (let k = 0; k < steps; k++) {
+      const k1 = d(n);
+      const k2 = d(add(n, k1, 0.5 * h));
+      const k3 = d(add(n, k2, 0.5 * h));
+      const k4 = d(add(n, k3, h));
+      for (let i = 0; i < 3; i++) n[i] += (h / 6) * (k1[i] + 2 * k2[i] + 2 * k3[i] + k4[i]);
+    }
+    return n;
+  }
+  function expectTernaryClose(got: Float64Array, ref: number[], volume: number) {
+    const N = ref.reduce((a, b) => a + b, 0);
+    const Ng = got.reduce((a, b) => a + b, 0);
+    for (let i = 0; i < 3; i++) expect(Math.abs(got[i] / Ng - ref[i] / N)).toBeLessThan(tol);
+    expect(ref[0] / N).toBeGreaterThan(1e-6);
+    expect(Math.abs(got[0] / Ng / (ref[0] / N) - 1)).toBeLessThan(1e-3);
+    expect(got.reduce((a, m, i) => a + m * ternaryMv[i], 0)).toBeCloseTo(volume, 9);
+  }
+
+  it('matches a 20 000-step RK4 for a ternary concentrated to a third (α = 8, 3, 1)', () => {
+    const n0 = [10, 30, 60];
+    const V0 = n0.reduce((a, n, i) => a + n * ternaryMv[i], 0);
+    const target = V0 / 3;
+    const r = rayleighToVolume(Float64Array.from(n0), ternaryMv, 0, target, ternaryVle);
+    expect(r.converged).toBe(true);
+    expectTernaryClose(r.moles, ternaryRk4(n0, V0 - target, [0, 0, 0]), target);
+  });
+
+  it('matches a 20 000-step RK4 for a ternary constant-volume swap into the heaviest (α = 8, 3, 1)', () => {
+    // The fed solvent is carried as moles, the two leaving as ln n: the pot volume must hold.
+    const n0 = [5, 20, 75];
+    const V0 = n0.reduce((a, n, i) => a + n * ternaryMv[i], 0);
+    const fed = 1.2 * V0;
+    const r = rayleighConstantVolume(Float64Array.from(n0), ternaryMv, 2, fed, ternaryVle);
+    expect(r.converged).toBe(true);
+    expectTernaryClose(r.moles, ternaryRk4(n0, fed, [0, 0, 1 / ternaryMv[2]]), V0);
+  });
+
+  it('a constant-volume heptane swap of a wet isopropyl acetate pot (UNIFAC) is within 1e-6 of a tight integral', () => {
+    // A real VLE (modified Raoult, UNIFAC): the fed heptane is the bulk of the pot, water leaves
+    // entirely and the ester to a trace. Reference: the same integral at a tolerance of 1e-11.
+    const sys = createVleSystem([F.water, F.isopropylAcetate, F.heptane]);
+    const P = 58_800;
+    let T = 340;
+    const vle: PotVle = (m) => {
+      const N = m[0] + m[1] + m[2];
+      const r = bubblePoint(sys, [m[0] / N, m[1] / N, m[2] / N], P, { T0_K: T });
+      T = r.T_K;
+      return { T_K: r.T_K, P_Pa: P, y: r.y };
+    };
+    // Molar volumes [L/mol] at 20 °C (water 0.018, isopropyl acetate 0.146, n-heptane 0.147).
+    const mv = Float64Array.from([0.018, 0.146, 0.147]);
+    const n0 = Float64Array.from([0.037, 0.27, 52]);
+    const fed = 6;
+    const run = (toleranceX: number) =>
+      rayleighConstantVolume(n0, mv, 2, fed, vle, { toleranceX }).moles;
+    const got = run(tol);
+    const ref = run(1e-11);
+    const N = ref.reduce((a, b) => a + b, 0);
+    const Ng = got.reduce((a, b) => a + b, 0);
+    for (let i = 0; i < 3; i++) expect(Math.abs(got[i] / Ng - ref[i] / N)).toBeLessThan(tol);
+    // The ester, left at about 5e-4 of the pot, to 0.1 % of itself (the water is gone entirely).
+    expect(ref[1] / N).toBeGreaterThan(1e-4);
+    expect(Math.abs(got[1] / ref[1] - 1)).toBeLessThan(1e-3);
   });
 
   it('converges with the tolerance: a looser tolerance is looser, a tighter one tighter, with more steps', () => {
