@@ -22,6 +22,7 @@ const FINGERPRINTS: Record<string, string> = {
   '1.4.0': '01a00a2e3138ea0ba1ad31044bdcfbed0ad6d84c9cda5c8b39f52f6e4f84a128',
   '1.5.0': '4b946f1ea8578798af4c707546c1dd25c44a34fec28005467ad9b936c0586b3d',
   '1.6.0': '9e59630262f34b611d8d5b593ce35d108b98bf9723daf2f255f4165ab7ef1ed7',
+  '1.7.0': '3702075dad87565effb28d496fd1cd57cd6a8bdbf5bd00a3c35ab996ba45f6e7',
 };
 
 /** JSON with every number to 9 significant digits (−0 written as 0; NaN and ±∞ kept apart). */
