@@ -35,12 +35,12 @@ export const SOURCES = {
   },
   'vn-dutt-prasad-viscosity': {
     citation:
-      'D. S. Viswanath, G. Natarajan, Data Book on the Viscosity of Liquids, Hemisphere (Taylor & Francis), New York, 1989 — Dutt–Prasad three-constant equation log10(μ/mPa·s) = A + B/(C − T/K), with its fitted range (publisher recalled)',
+      'D. S. Viswanath, G. Natarajan, Data Book on the Viscosity of Liquids, Taylor & Francis, New York, 1989 (as cited in the chemicals library’s viscosity module) — Dutt–Prasad three-constant equation log10(μ/mPa·s) = A + B/(C − T/K), with its fitted range',
     via: 'CalebBell/chemicals: chemicals/Viscosity/Dutt Prasad 3 term.tsv (columns A, B, C, Tmin, Tmax in K; μ in mPa·s)',
   },
   'vn-3term-viscosity': {
     citation:
-      'D. S. Viswanath, G. Natarajan, Data Book on the Viscosity of Liquids, Hemisphere (Taylor & Francis), New York, 1989 — three-term equation log10(μ/mPa·s) = A + B/(C − T/K), with its fitted range (publisher recalled)',
+      'D. S. Viswanath, G. Natarajan, Data Book on the Viscosity of Liquids, Taylor & Francis, New York, 1989 (as cited in the chemicals library’s viscosity module) — three-term equation log10(μ/mPa·s) = A + B/(C − T/K), with its fitted range',
     via: 'CalebBell/chemicals: chemicals/Viscosity/Viswanath Natarajan Dynamic 3 term.tsv (columns A, B, C, Tmin, Tmax in K; μ in mPa·s)',
   },
   'perry-8e-2-313-viscosity': {
@@ -65,7 +65,7 @@ export const SOURCES = {
   },
   'vdi-ppds-wagner': {
     citation:
-      'VDI Heat Atlas, 2nd ed., Springer, 2010, part D3.1, PPDS vapour-pressure equation in the Wagner form ln(P/Pc) = (Tc/T)(A τ + B τ^1.5 + C τ^2.5 + D τ^5), τ = 1 − T/Tc (edition and part recalled)',
+      'VDI Heat Atlas (VDI-Gesellschaft, ed.), 2nd ed., Springer, Berlin/New York, 2010 (edition and publisher as cited in the chemicals library’s PPDS docstrings; the part, D3.1, is recalled), PPDS vapour-pressure equation in the Wagner form ln(P/Pc) = (Tc/T)(A τ + B τ^1.5 + C τ^2.5 + D τ^5), τ = 1 − T/Tc',
     via: 'CalebBell/chemicals: chemicals/Vapor Pressure/VDI PPDS Boiling temperatures at different pressures.tsv (columns Tm, Tc in K, Pc in Pa, A–D); the form was checked here by reproducing the CRC normal boiling points of pyridine and isobutanol to 0.1 K',
   },
   'kistiakowsky-trouton': {
@@ -90,7 +90,7 @@ export const SOURCES = {
   },
   'landolt-iv20-antoine': {
     citation:
-      'Landolt-Börnstein, New Series IV/20, Vapor Pressure of Chemicals (J. Dykyj, J. Svoboda, R. C. Wilhoit, M. Frenkel, K. R. Hall; author list recalled), Springer',
+      'Landolt-Börnstein, New Series IV/20, Vapor Pressure of Chemicals, Springer: K. R. Hall (ed.), Vapor Pressure and Antoine Constants for Hydrocarbons, and S, Se, Te, and Halogen Containing Organic Compounds (1999); J. Dykyj, K. R. Hall, … for Oxygen Containing Organic Compounds (2000); K. R. Hall, … for Nitrogen Containing Organic Compounds (titles, editors and years as cited in the chemicals library’s vapour-pressure module; subvolume letters and full author lists recalled)',
     via: 'CalebBell/chemicals: chemicals/Vapor Pressure/Landolt_antoine_V20.tsv (stored as ln P/Pa, T/K)',
   },
   'iec-60079-20-1': {
@@ -114,7 +114,7 @@ export const SOURCES = {
   },
   'hansen-hspipy': {
     citation:
-      "Hansen solubility parameters after C. M. Hansen, Hansen Solubility Parameters: A User's Handbook, 2nd ed., CRC Press, 2007 (attribution recalled), in the HSPiPy data set (A. Gutiérrez, github.com/Gnpd/HSPiPy)",
+      "Hansen solubility parameters after C. M. Hansen, Hansen Solubility Parameters: A User's Handbook, 2nd ed., CRC Press, 2007 (attribution recalled: neither the HSPiPy repository nor the chemicals library, which cites only the repository, says where the table comes from), in the HSPiPy data set (A. Gutiérrez, github.com/Gnpd/HSPiPy)",
     via: 'CalebBell/chemicals: chemicals/Misc/hspipy_hansen_solubility_parameters.tsv (Pa^0.5)',
   },
   'hansen-schrier': {
@@ -144,7 +144,7 @@ export const SOURCES = {
   },
   'wypych-2001-q3c-tables': {
     citation:
-      'G. Wypych (ed.), Handbook of Solvents, ChemTec Publishing, 2001 (publisher and year recalled), §16.2 "Residual solvents in pharmaceutical substances", Table 16.2.5 "Class 3 solvents which should be limited by GMP or other quality-based requirements" and Table 16.2.6 "Solvents for which no adequate toxicological data was found" — a reproduction of ICH Q3C (1997) Tables 3 and 4. Later revisions moved tetrahydrofuran (R1), cumene (R5) and methyl isobutyl ketone (R6) out of Class 3',
+      'G. Wypych (ed.), Handbook of Solvents, ChemTec Publishing, Toronto–New York, 2001 (ISBN 1-895198-24-0; publisher and year read on the book’s title page), §16.2 "Residual solvents in pharmaceutical substances", Table 16.2.5 "Class 3 solvents which should be limited by GMP or other quality-based requirements" and Table 16.2.6 "Solvents for which no adequate toxicological data was found" — a reproduction of ICH Q3C (1997) Tables 3 and 4. Later revisions moved tetrahydrofuran (R1), cumene (R5) and methyl isobutyl ketone (R6) out of Class 3',
     url: 'https://www.yumpu.com/en/document/view/10607080/handbook-of-solvents-george-wypych-chemtech-ventech/1172',
   },
   'q3c-r8-draft-report': {
