@@ -9,6 +9,7 @@ import {
   type VleComponent,
   type VleSystem,
 } from '../thermo/vle';
+import type { RegressedPair } from '../thermo/nrtl';
 import { vleComponentOf } from '../thermo/mutual-solubility';
 import {
   distributionRatio,
@@ -267,30 +268,14 @@ export function splitLiquid(
       start.phases = r.split ? r.phases : undefined;
     }
     for (const m of r.warnings) warn(warnings, 'info', 'lle', m);
-    const tabulated = organics.filter((id) => fitted.has(id));
-    method(
-      methods,
-      'phase split',
-      tabulated.length
-        ? 'liquid–liquid flash of every solvent by its own activity (UNIFAC with NRTL/Margules terms regressed to the tabulated mutual solubilities with water: added to UNIFAC, or NRTL in its place for a pair measured at several temperatures; tangent-plane stability, Rachford–Rice)'
-        : 'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)',
-      [
-        'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352',
-        ...(tabulated.length ? ['NRTL: Renon & Prausnitz, AIChE J. 1968, 14, 135'] : []),
-        ...tabulated.map((id) => {
-          const rec = ctx.comps.get(id)!.solvent!;
-          const ms = rec.waterMutualSolubility!;
-          const curve = rec.waterMutualSolubilityCurve;
-          const more = curve
-            ? ` and at ${curve.value.map((p) => p.temperatureC).join(', ')} °C: ${curve.source.ref} (${curve.source.status})`
-            : '';
-          return `${rec.name}–water mutual solubility at ${ms.value.temperatureC} °C: ${ms.source.ref} (${ms.source.status})${more}`;
-        }),
-      ].join('; '),
+    const { tabulated, untabulated, methodText, sources, pairBySolvent } = flashDescription(
+      ctx,
+      ids,
+      organics,
+      fitted,
+      vle,
     );
-    const pairBySolvent = new Map(
-      vle ? vle.sys.regressedPairs.map((p) => [ids[p.solvent], p] as const) : [],
-    );
+    method(methods, 'phase split', methodText, sources);
     for (const id of tabulated) {
       const rec = ctx.comps.get(id)!.solvent!;
       // Measured over a range of temperatures: the fitted temperature dependence holds inside
@@ -330,9 +315,6 @@ export function splitLiquid(
       if (aqueousKg[id] > kg[id]) aqueousKg[id] = kg[id];
       organicKg[id] = kg[id] - aqueousKg[id];
     });
-    const untabulated = organics.filter(
-      (id) => !fitted.has(id) && !ctx.comps.get(id)!.solvent!.waterMutualSolubility,
-    );
     if (untabulated.length)
       warn(
         warnings,
@@ -356,6 +338,58 @@ export function splitLiquid(
     for (const id of ids) (id === w ? aqueousKg : organicKg)[id] = kg[id];
     return { split: true, organicKg, aqueousKg, method: 'assumed immiscible' };
   }
+}
+
+/** What splitLiquid states about the flash of a set of solvents (fixed for the route's components). */
+interface FlashDescription {
+  tabulated: string[];
+  untabulated: string[];
+  methodText: string;
+  sources: string;
+  pairBySolvent: Map<string, RegressedPair>;
+}
+
+/** Flash descriptions per context, by the solvents present (splitLiquid runs at every wash stage). */
+const flashDescriptions = new WeakMap<EvalContext, Map<string, FlashDescription>>();
+
+function flashDescription(
+  ctx: EvalContext,
+  ids: readonly string[],
+  organics: readonly string[],
+  fitted: ReadonlySet<string>,
+  vle: SolventVle,
+): FlashDescription {
+  let byIds = flashDescriptions.get(ctx);
+  if (!byIds) flashDescriptions.set(ctx, (byIds = new Map()));
+  const key = ids.join('|');
+  let d = byIds.get(key);
+  if (d) return d;
+  const tabulated = organics.filter((id) => fitted.has(id));
+  d = {
+    tabulated,
+    untabulated: organics.filter(
+      (id) => !fitted.has(id) && !ctx.comps.get(id)!.solvent!.waterMutualSolubility,
+    ),
+    methodText: tabulated.length
+      ? 'liquid–liquid flash of every solvent by its own activity (UNIFAC with NRTL/Margules terms regressed to the tabulated mutual solubilities with water: added to UNIFAC, or NRTL in its place for a pair measured at several temperatures; tangent-plane stability, Rachford–Rice)'
+      : 'UNIFAC liquid–liquid flash (tangent-plane stability, Rachford–Rice)',
+    sources: [
+      'Fredenslund, Jones & Prausnitz 1975; parameters Hansen et al., Ind. Eng. Chem. Res. 1991, 30, 2352',
+      ...(tabulated.length ? ['NRTL: Renon & Prausnitz, AIChE J. 1968, 14, 135'] : []),
+      ...tabulated.map((id) => {
+        const rec = ctx.comps.get(id)!.solvent!;
+        const ms = rec.waterMutualSolubility!;
+        const curve = rec.waterMutualSolubilityCurve;
+        const more = curve
+          ? ` and at ${curve.value.map((p) => p.temperatureC).join(', ')} °C: ${curve.source.ref} (${curve.source.status})`
+          : '';
+        return `${rec.name}–water mutual solubility at ${ms.value.temperatureC} °C: ${ms.source.ref} (${ms.source.status})${more}`;
+      }),
+    ].join('; '),
+    pairBySolvent: new Map(vle.sys.regressedPairs.map((p) => [ids[p.solvent], p] as const)),
+  };
+  byIds.set(key, d);
+  return d;
 }
 
 /**
@@ -477,14 +511,17 @@ function totalOf(kg: Record<string, number>, ids: string[]) {
 /** Ion product of water at 25 °C, pKw = 14.00 (common textbook value). */
 const PKW = 14.0;
 
-function meanAcidCharge(pKas: readonly number[], pH: number): number {
-  // Polyprotic acid H_nA: fractions α_k ∝ Π_{j≤k} Ka_j / [H]^k; mean negative charge Σ k α_k.
-  const H = 10 ** -pH;
+/**
+ * Mean negative charge of a polyprotic acid H_nA at [H⁺] = H [mol/L]: fractions
+ * α_k ∝ Π_{j≤k} Ka_j / [H]^k, charge Σ k α_k. Ka = 10^−pKa of each step, taken once per
+ * charge balance (the same numbers as taking them at every trial pH).
+ */
+function meanAcidCharge(Ka: readonly number[], H: number): number {
   let term = 1;
   let sum = 1;
   let charge = 0;
-  for (let k = 0; k < pKas.length; k++) {
-    term *= 10 ** -pKas[k] / H;
+  for (let k = 0; k < Ka.length; k++) {
+    term *= Ka[k] / H;
     sum += term;
     charge += (k + 1) * term;
   }
@@ -546,7 +583,7 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
   if (!(VL > 1e-12)) return null;
   const strongAcid: number[] = [];
   const cations: number[] = [];
-  const acidSystems: Array<{ c: number; pKa: number[] }> = [];
+  const acidSystems: Array<{ c: number; pKa: number[]; Ka: number[] }> = [];
   const bases: Array<{ c: number; pKa: number }> = [];
   for (const id of ctx.ids) {
     const m = input.kg[id];
@@ -563,22 +600,22 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
           cations.push(c * ab.hydroxides);
           break;
         case 'weak-acid':
-          acidSystems.push({ c, pKa: ab.pKa.value });
+          acidSystems.push({ c, pKa: ab.pKa.value, Ka: [] });
           break;
         case 'amphoteric-salt':
           cations.push(c);
-          acidSystems.push({ c, pKa: ab.pKa.value });
+          acidSystems.push({ c, pKa: ab.pKa.value, Ka: [] });
           break;
         case 'weak-base':
           cations.push(c * ab.pKa.value.length);
-          acidSystems.push({ c, pKa: ab.pKa.value });
+          acidSystems.push({ c, pKa: ab.pKa.value, Ka: [] });
           break;
         case 'neutral':
           break;
       }
     } else if (input.includeCompounds && comp.compound?.pKa) {
       for (const p of comp.compound.pKa) {
-        if (p.type === 'acid') acidSystems.push({ c, pKa: [p.value] });
+        if (p.type === 'acid') acidSystems.push({ c, pKa: [p.value], Ka: [] });
         else bases.push({ c, pKa: p.value });
       }
     }
@@ -588,12 +625,13 @@ export function aqueousPH(ctx: EvalContext, input: PHInput): number | null {
   const extra = (input.extraStrongAcidMol ?? 0) / VL;
   const sA = strongAcid.reduce((a, b) => a + b, 0) + Math.max(extra, 0);
   const sB = cations.reduce((a, b) => a + b, 0) + Math.max(-extra, 0);
+  for (const a of acidSystems) a.Ka = a.pKa.map((pKa) => 10 ** -pKa);
   const f = (pH: number) => {
     const H = 10 ** -pH;
     const OH = 10 ** (pH - PKW);
     let pos = H + sB;
     let neg = OH + sA;
-    for (const a of acidSystems) neg += a.c * meanAcidCharge(a.pKa, pH);
+    for (const a of acidSystems) neg += a.c * meanAcidCharge(a.Ka, H);
     for (const b of bases) pos += b.c / (1 + 10 ** (pH - b.pKa));
     if (carried) {
       for (const cc of carried.compounds) {
