@@ -414,6 +414,11 @@ export function bubblePoint(
   const warnings: string[] = [];
   // Temperature of the last residual evaluation: lnP, slope and lnGamma hold its values.
   let evaluatedT = NaN;
+  // The previous residual and its vapour-pressure slope, for the activity coefficients' share of
+  // the derivative (below).
+  let previousT = NaN;
+  let previousF = NaN;
+  let previousSlope = NaN;
   const solution = newtonSafe(
     (temperature) => {
       saturationPressures(sys, temperature, lnP, slope);
@@ -427,7 +432,23 @@ export function bubblePoint(
         sum += p;
         dsum += p * slope[i];
       }
-      return { f: Math.log(sum) - lnTarget, df: dsum / sum };
+      const f = Math.log(sum) - lnTarget;
+      const raoult = dsum / sum;
+      // The vapour pressures' share of f'(T) is exact; the activity coefficients' share, Σ y_i
+      // d ln γ_i/dT, is taken from the secant through the previous residual less the vapour
+      // pressures' share there (their mean slope): a secant-corrected Newton step, superlinear
+      // where the plain step (γ's share neglected) converges linearly. Used only when it stays
+      // within a factor of 2 of the vapour pressures' share.
+      let df = raoult;
+      const dT = temperature - previousT;
+      if (dT !== 0 && Number.isFinite(dT)) {
+        const corrected = raoult + (f - previousF) / dT - 0.5 * (raoult + previousSlope);
+        if (corrected > 0.5 * raoult && corrected < 2 * raoult) df = corrected;
+      }
+      previousT = temperature;
+      previousF = f;
+      previousSlope = raoult;
+      return { f, df };
     },
     T,
     { lower: 1, maxStep: 40, ftol: 1e-10, xtol: 1e-12 * T, rtol: 1e-13, maxIterations: 100 },

@@ -39,6 +39,21 @@ describe('bubblePoint', () => {
     expect(b.T_K).toBeCloseTo(a.T_K, 7);
   });
 
+  it('meets P to 1e-9 from starts on either side where γ depends strongly on T (secant-corrected Newton)', () => {
+    // Water with a little toluene and acetone: γ of toluene at high dilution in water is in the
+    // thousands and falls with T, so the activity coefficients carry a large share of f'(T), the
+    // share the plain Newton step leaves out and the secant through the previous residual supplies.
+    const sys = createVleSystem([F.water, F.toluene, F.acetone]);
+    const x = [0.9985, 0.0005, 0.001];
+    const ref = bubblePoint(sys, x, P);
+    for (const T0 of [ref.T_K - 30, ref.T_K - 0.01, ref.T_K + 0.01, ref.T_K + 30]) {
+      const r = bubblePoint(sys, x, P, { T0_K: T0 });
+      expect(r.warnings).toEqual([]);
+      expect(Math.abs(bubblePressure(sys, x, r.T_K).P_Pa / P - 1)).toBeLessThan(1e-9);
+      expect(Math.abs(r.T_K - ref.T_K)).toBeLessThan(1e-7);
+    }
+  });
+
   it('gives y = 0 for a non-volatile solute, which still raises the boiling point via γ', () => {
     const solute = {
       name: 'non-volatile solute',
