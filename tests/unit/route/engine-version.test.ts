@@ -24,6 +24,7 @@ const FINGERPRINTS: Record<string, string> = {
   '1.6.0': '9e59630262f34b611d8d5b593ce35d108b98bf9723daf2f255f4165ab7ef1ed7',
   '1.7.0': '3702075dad87565effb28d496fd1cd57cd6a8bdbf5bd00a3c35ab996ba45f6e7',
   '1.8.0': '16c9920614ee0ff59ff820a2398a0ee6c396e4c38e2e19005316612c022a8a96',
+  '1.9.0': '7f33f72de28333da41370198ae50844574da49822d988f1d01a36544de979c35',
 };
 
 /** JSON with every number to 9 significant digits (−0 written as 0; NaN and ±∞ kept apart). */

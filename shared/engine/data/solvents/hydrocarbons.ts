@@ -120,10 +120,10 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
     molarVolumeCm3mol: sv(130.5, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 1: 2, 2: 4 }, ASSIGNED),
     waterMutualSolubility: sv(
-      { solventInWaterWtPct: 0.0012, waterInSolventWtPct: 0.01, temperatureC: 25 },
-      recalled(
-        'mutual-solubility-memory',
-        "hexane in water read as 0.00123 g/100 g solution at 25 °C (IUPAC-NIST SRD 106 data sheet, Leinonen & Mackay, Can. J. Chem. Eng. 1973, 51, 230); water in hexane recalled: the same database gives only a fitted equation (Tsonopoulos & Wilson, AIChE J. 1983, 29, 990; 0.0092 wt % at 25 °C) that misses the authors' own 313 K point by 30 %, so it is not used",
+      { solventInWaterWtPct: 0.0012, waterInSolventWtPct: 0.0113, temperatureC: 20 },
+      read(
+        'iupac-nist-srd106-recommended',
+        'IUPAC recommended mutual solubility at 293 K: x(hexane) = 0.99946 in the hexane-rich phase and 2.5e-6 in the water-rich phase, converted to wt % (M 86.178 and 18.015 g/mol); stored values were 0.0012 and 0.01 wt % at 25 °C (recalled); a single 25 °C data sheet gives hexane in water 0.00123 g/100 g solution (Leinonen & Mackay, Can. J. Chem. Eng. 1973, 51, 230)',
       ),
     ),
     waterMiscibility: 'partial',

@@ -511,8 +511,11 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
     molarVolumeCm3mol: sv(157.6, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 1: 1, 2: 7, 14: 1 }, ASSIGNED),
     waterMutualSolubility: sv(
-      { solventInWaterWtPct: 0.054, waterInSolventWtPct: 4.9, temperatureC: 25 },
-      recalled('mutual-solubility-memory', 'water-saturated octanol is x(water) ≈ 0.27 (recalled)'),
+      { solventInWaterWtPct: 0.0542, waterInSolventWtPct: 4.59, temperatureC: 25 },
+      read(
+        'iupac-nist-srd106-recommended',
+        'IUPAC recommended mutual solubility at 298 K: x(1-octanol) = 0.742 in the octanol-rich phase and 7.5e-5 in the water-rich phase, converted to wt % (M 130.23 and 18.015 g/mol); stored values were 0.054 and 4.9 wt % (recalled; water-saturated octanol had been recalled as x(water) ≈ 0.27, read 0.258)',
+      ),
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(
