@@ -261,11 +261,10 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
     lnRQ[i] = Math.log(r[i] / q[i]);
   }
 
-  // Temperature cache: Ψ (row-major psi[m*K + n] = Ψ_mn, and its transpose), and per component
+  // Temperature cache: Ψ (row-major psi[m*K + n] = Ψ_mn), and per component
   // Σ_k ν_ki ln Γ_k^(i) (the pure-component residual terms, summed once per temperature).
   let cachedT = NaN;
   const psi = new Float64Array(K * K);
-  const psiT = new Float64Array(K * K);
   const pureResidual = new Float64Array(n);
 
   // Scratch.
@@ -283,8 +282,7 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
     for (let k = 0; k < K; k++) theta[k] = Qk[k] * X[k] * inv;
     for (let k = 0; k < K; k++) {
       let s = 0;
-      const row = k * K;
-      for (let m = 0; m < K; m++) s += theta[m] * psiT[row + m];
+      for (let m = 0; m < K; m++) s += theta[m] * psi[m * K + k];
       S[k] = s;
     }
     for (let m = 0; m < K; m++) ratio[m] = theta[m] / S[m];
@@ -317,10 +315,9 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
     for (let p = start; p < end; p++) {
       const k = present[p];
       let s = 0;
-      const row = k * K;
       for (let pm = start; pm < end; pm++) {
         const m = present[pm];
-        s += theta[m] * psiT[row + m];
+        s += theta[m] * psi[m * K + k];
       }
       S[k] = s;
     }
@@ -345,13 +342,7 @@ export function createUnifac(components: readonly UnifacGroups[]): UnifacModel {
   function setTemperature(T_K: number): void {
     checkTemperature(T_K);
     for (let e = 0; e < energies.length; e++) psiOfEnergy[e] = Math.exp(-energies[e] / T_K);
-    for (let m = 0; m < K; m++) {
-      for (let k = 0; k < K; k++) {
-        const v = psiOfEnergy[energyIndex[m * K + k]];
-        psi[m * K + k] = v;
-        psiT[k * K + m] = v;
-      }
-    }
+    for (let j = 0; j < K * K; j++) psi[j] = psiOfEnergy[energyIndex[j]];
     for (let i = 0; i < n; i++) pureGroupLnGammas(i);
     cachedT = T_K;
   }
