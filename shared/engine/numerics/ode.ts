@@ -16,7 +16,8 @@
  * accepted when ‖err‖ ≤ 1 with the scaled norm
  *   ‖err‖ = sqrt( (1/n) Σ_i (err_i / (atol_i + rtol·max(|y_n,i|, |y_{n+1},i|)))² ),
  * and the next step h_new = h · min(5, max(0.2, 0.9 ‖err‖^(−1/5))) (no growth
- * right after a rejection). A caller may supply its own error norm (for
+ * right after a rejection; a caller may ask for a harder cut of a rejected
+ * first trial, startOrder). A caller may supply its own error norm (for
  * instance on mole fractions derived from the state).
  *
  * Dense output (when the integration stops on a caller's condition): the
@@ -54,6 +55,13 @@ export interface OdeOptions {
   hMax?: number;
   /** Step limit [–] (default 100 000). */
   maxSteps?: number;
+  /**
+   * Order q assumed when a trial step is rejected before the first accepted one: the step is cut by
+   * 0.9 ‖err‖^(−1/q), to at least 1/50 (default 5, the pair's own order, cut at most 5-fold). A
+   * caller whose error norm is far from the starting-step estimate (a first trial far too long,
+   * whose error grows more slowly than h⁵) passes a lower order to come down in fewer rejections.
+   */
+  startOrder?: number;
   /**
    * Error norm of a trial step; ≤ 1 accepts it. Receives the state before the
    * step, the trial state after it and the local error estimate [–].
@@ -167,6 +175,7 @@ export function dormandPrince(
   const atolOpt = opts.atol ?? 1e-9;
   const atol = (i: number) => (typeof atolOpt === 'number' ? atolOpt : atolOpt[i]);
   const maxSteps = opts.maxSteps ?? 100_000;
+  const startOrder = opts.startOrder ?? 5;
   const span = t1 - t0;
   const hMax = Math.min(opts.hMax ?? span, span);
   const y = Float64Array.from(y0);
@@ -324,7 +333,10 @@ export function dormandPrince(
     } else {
       rejected++;
       lastRejected = true;
-      h *= Number.isFinite(e) ? Math.max(0.2, 0.9 * e ** -0.2) : 0.2;
+      if (!Number.isFinite(e)) h *= 0.2;
+      else if (steps === 0 && startOrder !== 5)
+        h *= Math.max(0.02, Math.min(0.9, 0.9 * e ** (-1 / startOrder)));
+      else h *= Math.max(0.2, 0.9 * e ** -0.2);
     }
   }
   return result(t, 'max-steps');

@@ -44,6 +44,15 @@ export const RAYLEIGH_TOLERANCE_X = 1e-6;
 /** Local error per step as a fraction of the stated (global) tolerance [–]. */
 const LOCAL_SHARE = 0.1;
 
+/**
+ * Order assumed when the first trial step of a leg is rejected (numerics/ode.ts startOrder): the
+ * integrator's starting-step estimate knows nothing of the mole-fraction and trace criteria, so a
+ * leg's first trial was often tens to hundreds of times over its tolerance, where the error grows
+ * about as h² rather than h⁵; cut as for order 2, a leg starts in one or two rejections instead of
+ * four to six.
+ */
+const START_ORDER = 2;
+
 export interface VleAtPot {
   /** Pot temperature [K]. */
   T_K: number;
@@ -303,6 +312,7 @@ export function rayleighToVolume(
       LOCAL_SHARE * tol,
     ),
     atol: state.atol(N0),
+    startOrder: START_ORDER,
     rtol: LOCAL_SHARE * tol,
     onStep: (s, z) => {
       const at = cached.at(state.toMoles(z, m));
@@ -460,6 +470,7 @@ export function rayleighConstantVolume(
       LOCAL_SHARE * tol,
     ),
     atol: state.atol(N0),
+    startOrder: START_ORDER,
     rtol: LOCAL_SHARE * tol,
     onStep: (fed, z) => {
       const at = cached.at(state.toMoles(z, m));

@@ -113,6 +113,34 @@ describe('dormandPrince', () => {
     expect(ts.every((t, i) => i === 0 || t > ts[i - 1])).toBe(true);
   });
 
+  it('with a lower starting order, cuts a rejected first trial harder (h² law), as accurately', () => {
+    // y' = −y under a custom norm far stricter than the tolerances of the starting-step estimate:
+    // the first trial is far over the norm. Its cut is read from the stage times (the second
+    // stage of a trial of length h sits at h/5).
+    const run = (startOrder?: number) => {
+      const stageTimes: number[] = [];
+      const f: OdeRhs = (t, y, dy) => {
+        stageTimes.push(t);
+        dy[0] = -y[0];
+      };
+      const r = dormandPrince(f, 0, [1], 5, {
+        rtol: 1e-3,
+        atol: 1e-3,
+        errorNorm: (_y, _yNew, err) => Math.abs(err[0]) / 1e-12,
+        startOrder,
+      });
+      // Evaluations: 0 the start, 1 the starting-step probe, 2..7 the first trial, 8.. the second.
+      return { r, cut: stageTimes[8] / stageTimes[2] };
+    };
+    const plain = run();
+    const low = run(2);
+    expect(plain.r.rejected).toBeGreaterThan(0);
+    expect(plain.cut).toBeCloseTo(0.2, 12);
+    expect(low.cut).toBeLessThan(0.2);
+    expect(low.cut).toBeGreaterThanOrEqual(0.02);
+    for (const { r } of [plain, low]) expect(Math.abs(r.y[0] - Math.exp(-5))).toBeLessThan(1e-10);
+  });
+
   it('gives the continuous extension of the step that met the stop condition, of order 4', () => {
     // y' = y cos t, exact y = exp(sin t). One step of size h from t = 0.3 (every step accepted):
     // the extension is exact at both ends and its error inside the step falls as h⁵ (Shampine
