@@ -272,7 +272,7 @@ export function distilLeg(
       // flash starts from the last step's two liquids.
       const r = heterogeneousBubblePressure(sys, xs, cond.T_K, previousPhases);
       previousPhases = r.phases;
-      if (r.liquidPhases === 1) r.warnings.forEach((w) => vleWarnings.add(w));
+      r.warnings.forEach((w) => vleWarnings.add(w));
       return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
     }
     const r = bubblePressure(sys, xs, cond.T_K);

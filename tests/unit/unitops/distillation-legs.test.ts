@@ -78,3 +78,49 @@ describe('distillation: crash-out caution after every leg of a put-and-take swap
     expect(r.steps.d.warnings.some((w) => w.code === 'solubility-crossed')).toBe(false);
   });
 });
+
+describe('distillation at a set pot temperature of a pot that splits into two liquids', () => {
+  it('says that two liquids boil together, as at a set pressure', () => {
+    const route: RouteDocumentInput = {
+      schemaVersion: 1,
+      referenceInput: { componentId: 'tol', massKg: 8.7 },
+      components: [
+        { kind: 'solvent', id: 'tol', solventId: 'toluene' },
+        { kind: 'solvent', id: 'w', solventId: 'water' },
+      ],
+      steps: [
+        {
+          id: 'c',
+          kind: 'charge',
+          name: 'wet toluene',
+          params: {
+            temperatureC: 20,
+            contents: [
+              { kind: 'component', componentId: 'tol', amount: 10, unit: 'L' },
+              { kind: 'component', componentId: 'w', amount: 0.5, unit: 'L' },
+            ],
+          },
+        },
+        {
+          id: 'd',
+          kind: 'distillation',
+          name: 'dry by distillation',
+          params: {
+            mode: { kind: 'concentrate', targetVolume: { value: 8, unit: 'L' } },
+            condition: { kind: 'pot-temperature', potTemperatureC: 60 },
+          },
+        },
+      ],
+      connections: [
+        { id: 'a', from: { stepId: 'c', port: 'out' }, to: { stepId: 'd', port: 'feed' } },
+      ],
+    };
+    const r = evaluateRoute(route);
+    const notes = r.steps.d.warnings.filter((w) => w.code === 'vle').map((w) => w.message);
+    expect(notes).toContain('Two liquid phases boil together (heterogeneous boiling).');
+    // While both layers are present the pot boils near the sum of the two vapour pressures at
+    // 60 °C (about 200 mbar water + 139 mbar toluene, values from memory), above either alone.
+    const profile = r.steps.d.details.profile as Array<{ pressureMbar: number }>;
+    expect(profile[0].pressureMbar).toBeGreaterThan(300);
+  });
+});
