@@ -5,17 +5,30 @@
  * 0 wt % point is pure water.
  *
  * The pKa values of carbonic and citric acid were read in a reproduced table
- * (status 'secondary'); none of the density tables, the ammonium pKa, the
- * saturation limits or the Setschenow coefficient below was read for this
- * library: they are the values recalled from the CRC Handbook tables named in
- * each source, and are marked 'unverified-memory'. docs/data-sources.md lists
- * them for checking.
+ * (status 'secondary'). The density points of sodium chloride, bicarbonate,
+ * carbonate and hydroxide, hydrochloric acid and ammonium chloride are computed
+ * from Laliberté's published density model and coefficients (status 'estimated':
+ * derived from the source's values). The potassium carbonate and citric acid
+ * density tables, the ammonium pKa, the saturation limits and the Setschenow
+ * coefficient were not read for this library: they are the values recalled from
+ * the CRC Handbook tables named in each source, and are marked
+ * 'unverified-memory'. docs/data-sources.md lists them for checking.
  */
 import type { AqueousSoluteRecord } from './types';
 import { derived, recalled, reproduced, sv } from './solvents/common';
 
 const FORMULA = (f: string) =>
   derived('iupac-atomic-weights', `computed from ${f} with conventional standard atomic weights`);
+/**
+ * Density points computed at 20 °C from Laliberté's model (J. Chem. Eng. Data 2009, 54, 1725): ρ = 1/(w_w/ρ_w +
+ * w/ρ_app), ρ_app = (c0 w + c1) exp(10⁻⁶ (t + c4)²)/(w + c2 + c3 t), with the solute's coefficients c0–c4 as
+ * tabulated there; the 0 wt % point is the model's water (998.20 kg/m³ at 20 °C).
+ */
+const LALIBERTE = (note: string) =>
+  derived(
+    'laliberte-2009-density',
+    `points at 20 °C computed from the model with the solute's coefficients (rounded to 4 decimals); ${note}`,
+  );
 const DENSITY = recalled(
   'crc-concentrative-properties',
   'points at 20 °C; the 0 wt % point is water (0.9982 g/mL, IAPWS-95, recalled)',
@@ -40,22 +53,24 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     densityPoints: sv<Array<[number, number]>>(
       [
         [0, 0.9982],
-        [1, 1.0053],
-        [2, 1.0125],
-        [4, 1.0268],
-        [6, 1.0413],
-        [8, 1.0559],
-        [10, 1.0707],
-        [12, 1.0857],
-        [14, 1.1009],
-        [16, 1.1162],
-        [18, 1.1319],
-        [20, 1.1478],
-        [22, 1.164],
-        [24, 1.1804],
-        [26, 1.1972],
+        [1, 1.0052],
+        [2, 1.0123],
+        [4, 1.0266],
+        [6, 1.0411],
+        [8, 1.0558],
+        [10, 1.0708],
+        [12, 1.0858],
+        [14, 1.1011],
+        [16, 1.1166],
+        [18, 1.1323],
+        [20, 1.1481],
+        [22, 1.1641],
+        [24, 1.1803],
+        [26, 1.1967],
       ],
-      DENSITY,
+      LALIBERTE(
+        'largest difference from the recalled CRC points 0.0005 g/mL (fitted range 0–140 °C, w ≤ 0.266, 869 points)',
+      ),
     ),
     setschenowKs: sv(
       0.2,
@@ -77,13 +92,15 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     densityPoints: sv<Array<[number, number]>>(
       [
         [0, 0.9982],
-        [1, 1.0054],
-        [2, 1.0127],
-        [4, 1.0274],
-        [6, 1.0422],
-        [8, 1.0571],
+        [1, 1.0055],
+        [2, 1.0128],
+        [4, 1.0272],
+        [6, 1.0414],
+        [8, 1.0557],
       ],
-      DENSITY,
+      LALIBERTE(
+        'largest difference from the recalled CRC points 0.0014 g/mL, at 8 wt % (fitted range 0–125 °C, w ≤ 0.126)',
+      ),
     ),
     maxWtPct: 8.7, // saturated at 20 °C (9.6 g/100 g water; recalled)
   },
@@ -98,17 +115,19 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     densityPoints: sv<Array<[number, number]>>(
       [
         [0, 0.9982],
-        [1, 1.0086],
-        [2, 1.019],
-        [4, 1.0398],
-        [6, 1.0606],
-        [8, 1.0816],
-        [10, 1.1029],
-        [12, 1.1244],
-        [14, 1.1463],
-        [16, 1.1682],
+        [1, 1.0087],
+        [2, 1.0192],
+        [4, 1.0402],
+        [6, 1.0612],
+        [8, 1.0823],
+        [10, 1.1036],
+        [12, 1.1251],
+        [14, 1.147],
+        [16, 1.1692],
       ],
-      DENSITY,
+      LALIBERTE(
+        'largest difference from the recalled CRC points 0.0010 g/mL (fitted range 0–100 °C, w ≤ 0.209)',
+      ),
     ),
     maxWtPct: 17.9, // saturated at 20 °C (21.8 g/100 g water; recalled)
   },
@@ -133,7 +152,10 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
         [40, 1.4141],
         [50, 1.5404],
       ],
-      DENSITY,
+      recalled(
+        'crc-concentrative-properties',
+        "points at 20 °C; the 0 wt % point is water (0.9982 g/mL, recalled). Laliberté's density model (J. Chem. Eng. Data 2009, 54, 1725; fitted to w ≤ 0.361) gives 0.002–0.006 g/mL less at 6–30 wt % and cannot check the 40 and 50 wt % points, so these stay recalled",
+      ),
     ),
     maxWtPct: 52.5, // saturated at 20 °C (111 g/100 g water; recalled)
   },
@@ -148,22 +170,24 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     densityPoints: sv<Array<[number, number]>>(
       [
         [0, 0.9982],
-        [1, 1.0095],
-        [2, 1.0207],
-        [4, 1.0428],
-        [6, 1.0648],
-        [8, 1.0869],
-        [10, 1.1089],
-        [12, 1.1309],
-        [14, 1.153],
-        [16, 1.1751],
-        [20, 1.2191],
-        [24, 1.2629],
-        [30, 1.3279],
-        [40, 1.43],
-        [50, 1.5253],
+        [1, 1.0092],
+        [2, 1.0202],
+        [4, 1.0422],
+        [6, 1.0643],
+        [8, 1.0864],
+        [10, 1.1085],
+        [12, 1.1307],
+        [14, 1.1528],
+        [16, 1.1749],
+        [20, 1.2187],
+        [24, 1.2621],
+        [30, 1.3257],
+        [40, 1.426],
+        [50, 1.5163],
       ],
-      DENSITY,
+      LALIBERTE(
+        'largest difference from the recalled CRC points 0.0008 g/mL up to 24 wt %, 0.009 g/mL at 50 wt % (recalled 1.5253), the edge of the fitted range (4–120 °C, w ≤ 0.503)',
+      ),
     ),
     maxWtPct: 50, // usual commercial liquor; saturation is about 52 wt % at 20 °C (recalled)
   },
@@ -178,21 +202,23 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     densityPoints: sv<Array<[number, number]>>(
       [
         [0, 0.9982],
-        [1, 1.0032],
-        [2, 1.0082],
-        [4, 1.0181],
-        [6, 1.0279],
-        [8, 1.0376],
-        [10, 1.0474],
-        [12, 1.0574],
-        [14, 1.0675],
-        [16, 1.0776],
-        [20, 1.098],
-        [24, 1.1187],
-        [30, 1.1493],
-        [36, 1.1789],
+        [1, 1.0031],
+        [2, 1.0079],
+        [4, 1.0177],
+        [6, 1.0275],
+        [8, 1.0374],
+        [10, 1.0473],
+        [12, 1.0572],
+        [14, 1.0673],
+        [16, 1.0773],
+        [20, 1.0975],
+        [24, 1.1178],
+        [30, 1.1486],
+        [36, 1.1794],
       ],
-      DENSITY,
+      LALIBERTE(
+        'largest difference from the recalled CRC points 0.0009 g/mL (fitted range 5–99 °C, w ≤ 0.376)',
+      ),
     ),
     maxWtPct: 37, // concentrated hydrochloric acid
   },
@@ -244,18 +270,20 @@ export const AQUEOUS_SOLUTES: readonly AqueousSoluteRecord[] = Object.freeze([
     densityPoints: sv<Array<[number, number]>>(
       [
         [0, 0.9982],
-        [1, 1.0013],
-        [2, 1.0045],
-        [4, 1.0107],
-        [6, 1.0168],
-        [8, 1.0227],
-        [10, 1.0286],
-        [12, 1.0344],
-        [16, 1.0457],
-        [20, 1.0567],
-        [24, 1.0674],
+        [1, 1.0012],
+        [2, 1.0041],
+        [4, 1.01],
+        [6, 1.0159],
+        [8, 1.0217],
+        [10, 1.0276],
+        [12, 1.0334],
+        [16, 1.0449],
+        [20, 1.0563],
+        [24, 1.0675],
       ],
-      DENSITY,
+      LALIBERTE(
+        'largest difference from the recalled CRC points 0.0010 g/mL (fitted range 12.5–100 °C, w ≤ 0.40)',
+      ),
     ),
     maxWtPct: 27.1, // saturated at 20 °C (37.2 g/100 g water; recalled)
   },

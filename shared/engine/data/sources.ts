@@ -250,6 +250,11 @@ export const SOURCES = {
     citation:
       'CRC Handbook of Chemistry and Physics, "Dissociation Constants of Inorganic Acids and Bases" and "… of Organic Acids and Bases" (25 °C) — values recalled, not read',
   },
+  'laliberte-2009-density': {
+    citation:
+      'M. Laliberté, "A Model for Calculating the Heat Capacity of Aqueous Solutions, with Updated Density and Viscosity Data", J. Chem. Eng. Data 2009, 54, 1725–1760 (doi:10.1021/je8008123): density model and per-solute coefficients c0–c4 with their fitted ranges',
+    via: 'CalebBell/chemicals: chemicals/Electrolytes/Laliberte2009.tsv (coefficients c0–c4, Min T, Max T, Max w) and the model as written in chemicals/electrochem.py (Laliberte_density_w, Laliberte_density_i, Laliberte_density_mix); the documented example (1002.625 kg/m³ for 0.378 wt % NaCl at 0 °C) reproduced, read December 2026',
+  },
   'crc-concentrative-properties': {
     citation:
       'CRC Handbook of Chemistry and Physics, "Concentrative Properties of Aqueous Solutions: Density, Refractive Index, Freezing Point Depression, and Viscosity" (20 °C) — values recalled, not read',
