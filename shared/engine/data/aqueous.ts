@@ -31,7 +31,7 @@ const LALIBERTE = (note: string) =>
   );
 const DENSITY = recalled(
   'crc-concentrative-properties',
-  'points at 20 °C; the 0 wt % point is water (0.9982 g/mL, IAPWS-95, recalled)',
+  'points at 20 °C; the 0 wt % point is water (0.9982 g/mL at 20 °C, Tanaka et al. 2001)',
 );
 const CARBONIC = sv(
   [6.35, 10.33],

@@ -238,9 +238,10 @@ export const SOURCES = {
   },
 
   // --- Values recalled, not read (status 'unverified-memory') -----------------
-  'iapws-95': {
+  'tanaka-2001-water-density': {
     citation:
-      'IAPWS-95 formulation for water (W. Wagner, A. Pruß, J. Phys. Chem. Ref. Data 2002, 31, 387) — values recalled, not read',
+      'M. Tanaka, G. Girard, R. Davis, A. Peuto, N. Bignell, "Recommended table for the density of water between 0 °C and 40 °C based on recent experimental reports", Metrologia 2001, 38, 301–309 (doi:10.1088/0026-1394/38/4/3)',
+    via: 'bjodah/chempy: chempy/properties/water_density_tanaka_2001.py (the equation and its five coefficients, with the full reference) and its test file (998.2071 kg/m³ at 20 °C within 0.0005; 997.047021671824 at 25 °C), read December 2026',
   },
   'crc-viscosity-liquids': {
     citation:

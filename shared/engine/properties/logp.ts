@@ -15,9 +15,11 @@
  * Solubility Database (NIST SRD 106): octanol-rich phase x(octanol) = 0.742;
  * water-rich phase x(octanol) = 7.5·10⁻⁵.
  * Molar volumes: water 18.015 g/mol / 0.99705 g/mL (25 °C) = 18.07 cm³/mol
- * (density UNVERIFIED (memory), IAPWS); 1-octanol 130.23 g/mol / 0.8262 g/mL
- * (20 °C; UNVERIFIED (memory), CRC) = 157.6 cm³/mol; the octanol-rich phase
- * by ideal mixing of volumes.
+ * (density 997.047 kg/m³ at 25 °C from the recommended equation of Tanaka et
+ * al., Metrologia 2001, 38, 301, as coded in chempy); 1-octanol 130.23 g/mol /
+ * 0.8262 g/mL (25 °C, CRC "Physical Constants of Organic Compounds", the
+ * library's read value) = 157.6 cm³/mol; the octanol-rich phase by ideal
+ * mixing of volumes.
  */
 import { EngineError } from '../errors';
 import type { UnifacGroups } from '../data/types';
@@ -35,11 +37,11 @@ export const X_OCTANOL_IN_AQUEOUS = 7.5e-5;
 
 /** Molar mass of water [g/mol] (2 × 1.008 + 15.999, IUPAC standard atomic weights). */
 export const WATER_MOLAR_MASS_GMOL = 18.015;
-/** Density of water at 25 °C [g/mL] (0.99705; IAPWS, value from memory). */
+/** Density of water at 25 °C [g/mL] (0.99705; Tanaka et al., Metrologia 2001, 38, 301: 997.047 kg/m³). */
 export const WATER_DENSITY_25C_GML = 0.99705;
-/** Molar volume of water at 25 °C [m³/mol] (18.015 g/mol, 0.99705 g/mL; density from memory). */
+/** Molar volume of water at 25 °C [m³/mol] (18.015 g/mol, 0.99705 g/mL, Tanaka et al. 2001). */
 export const V_WATER_M3MOL = (WATER_MOLAR_MASS_GMOL / WATER_DENSITY_25C_GML) * 1e-6;
-/** Molar volume of 1-octanol at 20 °C [m³/mol] (130.23 g/mol, 0.8262 g/mL; density from memory). */
+/** Molar volume of 1-octanol at 25 °C [m³/mol] (130.23 g/mol, 0.8262 g/mL at 25 °C, CRC organic constants as read for the library). */
 export const V_OCTANOL_M3MOL = (130.23 / 0.8262) * 1e-6;
 
 /** Solute mole fraction used for "infinite dilution" [-]; its effect on γ is below 1e−6 relative. */

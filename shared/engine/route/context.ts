@@ -78,7 +78,7 @@ export function createEvaluationCaches(): EvaluationCaches {
 
 /**
  * Density of water at the library's reference temperature [g/mL]; 0.9982
- * (water at 20 °C, from memory) only if the library lacks water.
+ * (water at 20 °C, Tanaka et al., Metrologia 2001, 38, 301) only if the library lacks water.
  * Source: the solvent library's water record (docs/data-sources.md).
  * Validity: the record's reference temperature (no temperature dependence here).
  * @returns density of water [g/mL]

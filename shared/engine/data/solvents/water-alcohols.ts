@@ -23,10 +23,13 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
     ),
     density: sv(
       { gPerMl: 0.99821, temperatureC: 20 },
-      recalled('iapws-95', 'IAPWS-95 value recalled, not read'),
+      read(
+        'tanaka-2001-water-density',
+        '998.2067 kg/m³ at 20 °C from the recommended equation (Thiesen form, air-free SMOW, 101.325 kPa) with its five coefficients; the stored 0.99821 g/mL had been recalled as the IAPWS-95 value and agrees to the digits given',
+      ),
     ),
     boilingPointC: sv(99.97, read('crc-inorganic-constants', '373.124 K')),
-    meltingPointC: sv(0, recalled('crc-inorganic-constants', 'ice point; not read in the file')),
+    meltingPointC: sv(0, read('crc-inorganic-constants', '273.15 K (row 7732-18-5)')),
     antoine: [
       antoine(
         'log10-bar-degC',
