@@ -63,6 +63,14 @@ export interface OdeOptions {
    */
   startOrder?: number;
   /**
+   * Predictive step-size control (Gustafsson, ACM Trans. Math. Softw. 1994, 20, 496; Hairer &
+   * Wanner, Solving ODEs II, 2nd ed., §IV.8): after an accepted step the next is the smaller of the
+   * standard proposal and h · 0.9 ‖err‖^(−1/5) · (h/h_prev) · (‖err_prev‖/‖err‖)^(1/5) from the last
+   * two accepted steps, so an error that grows step after step (a solution approaching a kink) cuts
+   * the step ahead instead of after every other rejection (default false).
+   */
+  predictive?: boolean;
+  /**
    * Error norm of a trial step; ≤ 1 accepts it. Receives the state before the
    * step, the trial state after it and the local error estimate [–].
    */
@@ -278,6 +286,10 @@ export function dormandPrince(
 
   let t = t0;
   let lastRejected = false;
+  // The last accepted step and its error, for the predictive control.
+  const predictive = opts.predictive === true;
+  let hAccepted = 0;
+  let eAccepted = 0;
   while (steps + rejected < maxSteps) {
     const last = t + h >= t1 - 1e-12 * Math.abs(span);
     if (last) h = t1 - t;
@@ -327,7 +339,16 @@ export function dormandPrince(
       if (last) return result(t1, 'converged');
       if (opts.stop?.(t, y)) return result(t, 'stopped');
       let factor = e === 0 ? 5 : Math.min(5, Math.max(0.2, 0.9 * e ** -0.2));
+      // Predictive control (Gustafsson): when the error of consecutive accepted steps grows, the
+      // next step is cut ahead by the trend instead of after a rejection; the smaller of the two.
+      if (predictive && hAccepted > 0 && e > 0 && eAccepted > 0)
+        factor = Math.min(
+          factor,
+          Math.max(0.2, 0.9 * e ** -0.2 * (h / hAccepted) * (eAccepted / e) ** 0.2),
+        );
       if (lastRejected) factor = Math.min(1, factor);
+      hAccepted = h;
+      eAccepted = e;
       h = Math.min(hMax, h * factor);
       lastRejected = false;
     } else {

@@ -313,6 +313,7 @@ export function rayleighToVolume(
     ),
     atol: state.atol(N0),
     startOrder: START_ORDER,
+    predictive: true,
     rtol: LOCAL_SHARE * tol,
     onStep: (s, z) => {
       const at = cached.at(state.toMoles(z, m));
@@ -471,6 +472,7 @@ export function rayleighConstantVolume(
     ),
     atol: state.atol(N0),
     startOrder: START_ORDER,
+    predictive: true,
     rtol: LOCAL_SHARE * tol,
     onStep: (fed, z) => {
       const at = cached.at(state.toMoles(z, m));

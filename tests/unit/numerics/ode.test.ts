@@ -141,6 +141,23 @@ describe('dormandPrince', () => {
     for (const { r } of [plain, low]) expect(Math.abs(r.y[0] - Math.exp(-5))).toBeLessThan(1e-10);
   });
 
+  it('with predictive control, follows an error that grows step after step without rejections, as accurately', () => {
+    // y' = (1 + ε − t)^(−1/2) on [0, 1]: the solution steepens towards t = 1 (a near-singular end,
+    // like a distillation approaching the point where a liquid phase vanishes), so at a fixed step
+    // the error grows from one step to the next and the standard control rejects every other step.
+    const eps = 1e-3;
+    const f: OdeRhs = (t, _y, dy) => {
+      dy[0] = 1 / Math.sqrt(1 + eps - t);
+    };
+    const exact = 2 * (Math.sqrt(1 + eps) - Math.sqrt(eps));
+    const plain = dormandPrince(f, 0, [0], 1, { rtol: 1e-9, atol: 1e-9 });
+    const ahead = dormandPrince(f, 0, [0], 1, { rtol: 1e-9, atol: 1e-9, predictive: true });
+    expect(plain.rejected).toBeGreaterThan(20);
+    expect(ahead.rejected).toBeLessThan(plain.rejected / 4);
+    expect(ahead.evaluations).toBeLessThan(plain.evaluations);
+    for (const r of [plain, ahead]) expect(Math.abs(r.y[0] - exact)).toBeLessThan(1e-8);
+  });
+
   it('gives the continuous extension of the step that met the stop condition, of order 4', () => {
     // y' = y cos t, exact y = exp(sin t). One step of size h from t = 0.3 (every step accepted):
     // the extension is exact at both ends and its error inside the step falls as h⁵ (Shampine
