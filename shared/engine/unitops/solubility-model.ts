@@ -9,7 +9,9 @@
  *     ideal slope d ln x/d(1/T) = −ΔHfus/R when ΔHfus is known;
  *  2. UNIFAC activity-corrected solubility x γ(x,T) = x_ideal(T), solved by
  *     the same routine as the calculation API
- *     (properties/solubility.solveActivitySolubility);
+ *     (properties/solubility.solveActivitySolubility; a new temperature
+ *     starts from the nearest one solved for the same liquid, the same
+ *     answer: createActivitySolubilitySolver);
  *  3. ideal solubility ln x = −(ΔHfus/R)(1/T − 1/Tm).
  * Blends: Jouyban–Acree (Jouyban, J. Pharm. Pharm. Sci. 2008, 11, 32),
  *   ln x_m = Σ f_j ln x_j + Σ_pairs (f_i f_j/T) Σ_k J_k (f_i − f_j)^k,
@@ -26,7 +28,8 @@ import {
   gramsPerLitreToMoleFraction,
   idealSolubility,
   jouybanAcree,
-  solveActivitySolubility,
+  createActivitySolubilitySolver,
+  type ActivitySolubilitySolver,
   type JouybanPair,
 } from '../properties/solubility';
 import type { UnifacModel } from '../thermo/unifac';
@@ -72,22 +75,22 @@ function pointToMoleFraction(
 }
 
 /**
- * x with x γ(x) = x_ideal in a neat solvent (solute index 0 of a
- * two-component UNIFAC model), by the shared solver of the calculation API
- * (properties/solubility.solveActivitySolubility).
+ * Solver of x γ(x, T) = x_ideal(T) in a neat solvent (solute index 0 of a
+ * two-component UNIFAC model), for many temperatures: the shared root of the
+ * calculation API (properties/solubility.solveActivitySolubility), started
+ * from the nearest temperature already solved for this liquid
+ * (createActivitySolubilitySolver; the same x as the full scan).
  * @param model   UNIFAC model of [solute, solvent]
- * @param xIdeal  ideal solubility [–]
- * @param T_K     temperature [K]
- * @returns solubility x [–]
+ * @returns the solver (solve(T [K], x_ideal [–]) → x [–])
  */
-function activitySolubility(model: UnifacModel, xIdeal: number, T_K: number): number {
+function activitySolubilitySolver(model: UnifacModel): ActivitySolubilitySolver {
   const pair = new Float64Array(2);
   const buf = new Float64Array(2);
-  return solveActivitySolubility((x) => {
+  return createActivitySolubilitySolver((x, T_K) => {
     pair[0] = x;
     pair[1] = 1 - x;
     return model.lnGammas(pair, T_K, buf)[0];
-  }, xIdeal).x;
+  });
 }
 
 /**
@@ -169,8 +172,11 @@ export function neatSolventCurve(
         // model is what throws for missing parameters; the melting data are checked as the ideal model does).
         idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: 298.15 });
         // The calculation API's root (solveActivitySolubility), with the UNIFAC model built once per
-        // route (ctx.unifac) and the result memoised by temperature.
+        // route (ctx.unifac), a new temperature started from the nearest one solved (the same x; a
+        // Monte Carlo draw of the end temperature meets a new one each draw) and the result memoised
+        // by temperature.
         const model = ctx.unifac.model([groups, s.unifac.value]);
+        const solver = activitySolubilitySolver(model);
         const memo = new Map<number, number>();
         curve = {
           lnX: (T) => {
@@ -178,11 +184,10 @@ export function neatSolventCurve(
             let v = memo.get(Tc);
             if (v === undefined) {
               v = Math.log(
-                activitySolubility(
-                  model,
+                solver.solve(
+                  Tc,
                   idealSolubility({ meltingPointK: Tm, enthalpyFusionJmol: dH, T_K: Tc })
                     .moleFraction,
-                  Tc,
                 ),
               );
               if (memo.size > 64) memo.clear();

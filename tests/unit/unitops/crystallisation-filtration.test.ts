@@ -248,6 +248,38 @@ describe('oiling out from the liquid–liquid split, far from the melting point'
     expect(unitop.x).toBeCloseTo(api.moleFraction, 12);
     expect(api.oilingOut.kind).toBe('metastable');
   });
+  it('a temperature started from one already solved gives the solubility of a cold solve to the bit', () => {
+    // The greasy solute in methanol has a liquid–liquid split in its supersaturated region (above);
+    // one context solves each temperature of a sweep down and up, starting from the nearest one
+    // solved (as Monte Carlo draws of the end temperature do); a fresh context solves it cold.
+    const doc = () =>
+      parseRoute({
+        schemaVersion: 1,
+        referenceInput: { componentId: 'g', massKg: 1 },
+        components: [{ kind: 'solvent', id: 'methanol', solventId: 'methanol' }, greasy],
+        steps: [
+          {
+            id: 'c',
+            kind: 'charge',
+            name: 'c',
+            params: {
+              temperatureC: 20,
+              contents: [{ kind: 'component', componentId: 'g', amount: 1, unit: 'kg' }],
+            },
+          },
+        ],
+        connections: [],
+      });
+    const { ctx } = buildContext(doc());
+    const temps: number[] = [];
+    for (let T = 335; T >= 275; T -= 0.61) temps.push(T);
+    for (let T = 275.3; T <= 335; T += 0.83) temps.push(T);
+    for (const T of temps) {
+      const warm = solubilityIn(ctx, 'g', { methanol: 1, g: 0 }, T, [], [])!;
+      const cold = solubilityIn(buildContext(doc()).ctx, 'g', { methanol: 1, g: 0 }, T, [], [])!;
+      expect(warm.x, `T = ${T} K`).toBe(cold.x);
+    }
+  });
 });
 
 describe('the shared solubility root on a model with a liquid–liquid split', () => {
