@@ -197,6 +197,11 @@ export const SOURCES = {
       'IUPAC-NIST Solubility Database, NIST SRD 106: the recommended mutual solubilities of the binary hexane–water (293 K) and 1-octanol–water (298 K) systems, as quoted from the Solubility Data Series evaluations of those binaries in the critical evaluation of the ternary system 1-octanol–hexane–water (A. Skrzecz, 1996; IUPAC-NIST Solubility Data Series 69)',
     url: 'https://srdata.nist.gov/solubility/sol_detail.aspx?goBack=Y&sysID=69_268',
   },
+  'iupac-nist-srd106-isobutanol-water': {
+    citation:
+      'IUPAC-NIST Solubility Database, NIST SRD 106: the recommended mutual solubility of the binary 2-methyl-1-propanol–water system at 298 K (from the Solubility Data Series evaluation of that binary), as quoted in the critical evaluation of the ternary system 2-methyl-1-propanol–benzene–water (A. Skrzecz, 1997; IUPAC-NIST Solubility Data Series 69)',
+    url: 'https://srdata.nist.gov/solubility/sol_detail.aspx?sysID=69_198',
+  },
   'nas-2016-appD': {
     citation:
       'National Academies of Sciences, Engineering, and Medicine, Chemical Laboratory Safety and Security: A Guide to Developing Standard Operating Procedures, 2016, Appendix D "Flammable List" (solubility in water, g/100 g; flash point) (doi:10.17226/21918)',

@@ -415,8 +415,11 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
     molarVolumeCm3mol: sv(92.4, derived('derived-quantity', 'molar mass / density at 20 °C')),
     unifac: sv({ 1: 2, 2: 1, 3: 1, 14: 1 }, ASSIGNED),
     waterMutualSolubility: sv(
-      { solventInWaterWtPct: 8.5, waterInSolventWtPct: 16.4, temperatureC: 20 },
-      recalled('mutual-solubility-memory'),
+      { solventInWaterWtPct: 8.11, waterInSolventWtPct: 16.7, temperatureC: 25 },
+      read(
+        'iupac-nist-srd106-isobutanol-water',
+        'IUPAC recommended mutual solubility at 298 K: x(2-methyl-1-propanol) = 0.548 in the alcohol-rich phase and 0.021 in the water-rich phase, converted to wt % (M 74.123 and 18.015 g/mol); the evaluation finds the measured 0.5425 and 0.0208 (Alberty & Washburn) in good agreement; stored values were 8.5 and 16.4 wt % at 20 °C (recalled)',
+      ),
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(
