@@ -456,6 +456,11 @@ export function createActivitySolubilitySolver(
  * @param input.T_K                   temperature [K]
  * @param input.xIdeal                ideal solubility of the solid at T [–]
  * @param input.models                UNIFAC model cache (optional; same numbers)
+ * @param input.start                 two liquids [–] (solute first) of a split of the same solute and
+ *                                    solvents at a neighbouring temperature or ratio: the flash starts
+ *                                    from them (thermo/vle liquidLiquidSplit's `start`; the same split to
+ *                                    the flash's tolerance, 1e-10 in ln K), optional
+ * @param input.onSplit               receives the two liquids when there is a split (a later call's start)
  * @returns the kind of split and, when there is one, the two liquid compositions
  *
  * Validity: UNIFAC's LLE weakness applies (the split's compositions can be
@@ -472,6 +477,8 @@ export function liquidPhaseSeparation(input: {
   T_K: number;
   xIdeal: number;
   models?: UnifacModelCache;
+  start?: readonly [readonly number[], readonly number[]];
+  onSplit?: (phases: [number[], number[]]) => void;
 }): OilingOutTest {
   const { soluteGroups, solventGroups, solventMoleFractions: z, T_K, xIdeal } = input;
   const components = [soluteGroups, ...solventGroups];
@@ -514,9 +521,10 @@ export function liquidPhaseSeparation(input: {
     regressedPairs: [],
     warnings: [],
   };
-  const split = liquidLiquidSplit(sys, zAll, T_K);
+  const split = liquidLiquidSplit(sys, zAll, T_K, input.start);
   if (!split.split) return { kind: 'none', warnings: split.warnings };
   const [p1, p2] = split.phases;
+  input.onSplit?.([Array.from(p1), Array.from(p2)]);
   const solventRich = p1[0] <= p2[0] ? p1 : p2;
   const soluteRich = p1[0] <= p2[0] ? p2 : p1;
   const activity = Math.exp(lnA(solventRich[0]));

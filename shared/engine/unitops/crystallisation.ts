@@ -205,6 +205,13 @@ export function oilingOutCheck(
   const key = `oil:${id}:${T_K.toFixed(3)}:${mol.map((m) => (m / nSolv).toFixed(4)).join(',')}:${solvents.join(',')}`;
   let test = ctx.scratch.get(key) as OilingOutTest | undefined;
   if (!test) {
+    // In a Monte Carlo draw (whose warnings no summary reads) the liquid–liquid flash starts from the
+    // two liquids of the last split of this compound with these solvents (each draw's end
+    // temperature and liquor are new); a nominal evaluation always runs the full method.
+    const startKey = `oil-start:${id}:${solvents.join(',')}`;
+    const start = ctx.rng
+      ? (ctx.cache.get(startKey) as [number[], number[]] | undefined)
+      : undefined;
     test = liquidPhaseSeparation({
       soluteGroups: Object.fromEntries(Object.entries(cp.unifac).map(([k, v]) => [Number(k), v])),
       solventGroups: solvents.map((s) => ctx.comps.get(s)!.solvent!.unifac.value),
@@ -212,6 +219,8 @@ export function oilingOutCheck(
       T_K,
       xIdeal,
       models: ctx.unifac,
+      start,
+      onSplit: ctx.rng ? (phases) => ctx.cache.set(startKey, phases) : undefined,
     });
     ctx.scratch.set(key, test);
   }

@@ -5,11 +5,15 @@
  * solveActivitySolubility) at every temperature, on steep cases near oiling
  * out: where the lowest root jumps between the dilute branch and the
  * solute-rich branch of a liquid–liquid split from one temperature to the
- * next, a warm start from the wrong branch would return the wrong root.
+ * next, a warm start from the wrong branch would return the wrong root. And
+ * the oiling-out test's flash started from the two liquids of a neighbouring
+ * temperature (as Monte Carlo draws do) against the full method.
  */
 import { describe, expect, it } from 'vitest';
 import {
   createActivitySolubilitySolver,
+  idealSolubility,
+  liquidPhaseSeparation,
   solveActivitySolubility,
 } from '../../../shared/engine/properties/solubility';
 import { createUnifacModelCache } from '../../../shared/engine/thermo/unifac';
@@ -92,5 +96,68 @@ describe('warm-started activity-corrected solubility', () => {
     expect(solver.counts).toEqual({ cold: 2, warm: 0 });
     expect(solver.solve(301, 0.11)).toBe(solveActivitySolubility((x) => lnG(x, 301), 0.11).x);
     expect(solver.counts).toEqual({ cold: 2, warm: 1 });
+  });
+});
+
+describe('oiling-out test started from a neighbouring split', () => {
+  // The greasy solute of the crystallisation tests (UNIFAC ACH ×9, AC, ACCH2, CH2 ×6, CH3;
+  // Tm 150 °C, ΔHfus 30 kJ/mol): a liquid–liquid split in the supersaturated region in methanol.
+  const solute = { 9: 9, 10: 1, 11: 1, 2: 6, 1: 1 };
+  const models = createUnifacModelCache();
+  const test = (
+    z: number[],
+    T: number,
+    start?: [number[], number[]],
+    onSplit?: (p: [number[], number[]]) => void,
+  ) =>
+    liquidPhaseSeparation({
+      soluteGroups: solute,
+      solventGroups: [{ 15: 1 }, { 16: 1 }],
+      solventMoleFractions: z,
+      T_K: T,
+      xIdeal: idealSolubility({ meltingPointK: 423.15, enthalpyFusionJmol: 30000, T_K: T })
+        .moleFraction,
+      models,
+      start,
+      onSplit,
+    });
+
+  it('finds the split of a cold start at every temperature of a sweep, to the flash tolerance', () => {
+    let start: [number[], number[]] | undefined;
+    let started = 0;
+    for (const z of [
+      [1, 0],
+      [0.8, 0.2],
+    ])
+      for (let T = 275; T <= 380; T += 1.7) {
+        const cold = test(z, T);
+        if (start) started++;
+        const warm = test(z, T, start, (p) => (start = p));
+        expect(warm.kind, `T = ${T} K`).toBe(cold.kind);
+        expect(cold.kind).toBe('metastable');
+        expect(Math.abs(Math.log(warm.solventRichX! / cold.solventRichX!))).toBeLessThan(1e-8);
+        expect(Math.abs(Math.log(warm.soluteRichX! / cold.soluteRichX!))).toBeLessThan(1e-8);
+      }
+    expect(started).toBeGreaterThan(100);
+  });
+
+  it('finds no split from a start where the liquor has none', () => {
+    // Methanol–toluene: a split in methanol alone, none with 20 mol % toluene.
+    const withToluene = (z: number[], start?: [number[], number[]]) =>
+      liquidPhaseSeparation({
+        soluteGroups: solute,
+        solventGroups: [{ 15: 1 }, { 9: 5, 11: 1 }],
+        solventMoleFractions: z,
+        T_K: 300,
+        xIdeal: 0.05,
+        models,
+        start,
+        onSplit: (p) => (split = p),
+      });
+    let split: [number[], number[]] | undefined;
+    expect(withToluene([1, 0]).kind).toBe('metastable');
+    expect(split).toBeDefined();
+    expect(withToluene([0.8, 0.2]).kind).toBe('none');
+    expect(withToluene([0.8, 0.2], split).kind).toBe('none');
   });
 });
