@@ -337,6 +337,97 @@ export function vapourPressureWithSlope(
 }
 
 /**
+ * Why the vapour pressure at T is extrapolated, as a key ('correlation-above', 'correlation-below',
+ * 'antoine-above', 'antoine-below', 'boiling-point-estimate'), or null inside the preferred data
+ * (where vapourPressureWithSlope gives no warning). Temperatures with the same key share one
+ * warning in vapourPressureRangeWarning.
+ *
+ * Source: this project's own bookkeeping (the rules of vapourPressureWithSlope).
+ *
+ * @param sets   Antoine sets, in order of preference (may be empty)
+ * @param T_K    temperature [K], > 0
+ * @param extra  as vapourPressure
+ * @returns the cause, or null when no extrapolation is involved
+ */
+export function vapourPressureExtrapolation(
+  sets: readonly AntoineSet[],
+  T_K: number,
+  extra?: VapourPressureExtra,
+): string | null {
+  const corr = extra?.correlation?.value;
+  if (corr) {
+    if (T_K >= corr.TminK && T_K <= corr.TmaxK) return null;
+    return T_K > corr.TmaxK ? 'correlation-above' : 'correlation-below';
+  }
+  const set = sets[0];
+  if (set) {
+    if (T_K >= set.TminK && T_K <= set.TmaxK) return null;
+    return T_K > set.TmaxK ? 'antoine-above' : 'antoine-below';
+  }
+  return 'boiling-point-estimate';
+}
+
+/**
+ * One warning for every temperature from loK to hiK at which the vapour pressure is extrapolated
+ * for the same cause (vapourPressureExtrapolation): the wording of vapourPressureWithSlope's
+ * warnings, with the range of temperatures met (a distillation meets many) in °C instead of one
+ * temperature.
+ *
+ * Source: as vapourPressureWithSlope.
+ *
+ * @param sets   Antoine sets, in order of preference (may be empty)
+ * @param loK    lowest temperature met [K]
+ * @param hiK    highest temperature met [K] (same cause as loK)
+ * @param extra  as vapourPressure
+ * @returns the warning, in the chemist's words; null when loK lies inside the preferred data
+ */
+export function vapourPressureRangeWarning(
+  sets: readonly AntoineSet[],
+  loK: number,
+  hiK: number,
+  extra?: VapourPressureExtra,
+): string | null {
+  const cause = vapourPressureExtrapolation(sets, loK, extra);
+  if (cause === null) return null;
+  const c = (K: number) => (K - 273.15).toFixed(1);
+  const met = c(loK) === c(hiK) ? `at ${c(loK)} °C` : `from ${c(loK)} to ${c(hiK)} °C`;
+  if (cause === 'boiling-point-estimate') {
+    const w = vapourPressureWithSlope(sets, loK, extra).warnings[0];
+    return `${w.slice(0, -1)} (met ${met}).`;
+  }
+  const beyondData = `vapour pressure extrapolated beyond its data ${met}`;
+  const corr = extra?.correlation?.value;
+  if (corr) {
+    return cause === 'correlation-above'
+      ? `${beyondData}: above the critical temperature (${corr.TmaxK} K) there is no liquid; extrapolated by Clausius–Clapeyron.`
+      : `${beyondData}: the subcooled liquid below the triple point or fitted minimum (${corr.TminK} K), by Clausius–Clapeyron.`;
+  }
+  const set = sets[0];
+  const below = cause === 'antoine-below';
+  const end = below ? set.TminK : set.TmaxK;
+  const beyond = Math.max(Math.abs(loK - end), Math.abs(hiK - end)).toFixed(1);
+  const outside = `${beyondData}: outside the Antoine range ${set.TminK}–${set.TmaxK} K (up to ${beyond} K beyond it), `;
+  const Tb = extra?.TbK;
+  const anchored =
+    Tb !== undefined &&
+    (below ? Tb < end - 5 : Tb > end + 5) &&
+    vapourPressureWithSlope(sets, loK, extra).method === 'antoine-anchored';
+  if (anchored)
+    return (
+      outside +
+      `the Antoine set joined smoothly to the normal boiling point (${Tb.toFixed(2)} K) by a Kirchhoff ` +
+      `equation ln P = a + b/T + c ln T.`
+    );
+  const atEnd = antoineLnPressure(set, end);
+  const dHvap = R_J_PER_MOL_K * end * end * atEnd.dlnPdT;
+  return (
+    outside +
+    `by Clausius–Clapeyron from ${end} K ` +
+    `(ΔHvap ${(dHvap / 1000).toFixed(1)} kJ/mol from the Antoine slope there).`
+  );
+}
+
+/**
  * Saturation (vapour) pressure of a pure liquid.
  *
  * Purpose: P^sat(T) for VLE, evaporation and drying models.

@@ -25,6 +25,8 @@ import { T0_K, PA_PER_BAR } from '../units';
 import {
   correlationLnPressure,
   saturationTemperature as pureBoilingPoint,
+  vapourPressureExtrapolation,
+  vapourPressureRangeWarning,
   vapourPressureWithSlope,
   type VapourPressureExtra,
 } from './antoine';
@@ -290,6 +292,113 @@ function saturationWarnings(sys: VleSystem, T_K: number, involved: ArrayLike<num
     for (const w of r.warnings) warnings.push(`${componentLabel(sys, i)}: ${w}`);
   }
   return warnings;
+}
+
+/**
+ * The temperatures met outside the data over many boiling points of one system (a distillation
+ * leg): for each component and cause of vapour-pressure extrapolation, and for each regressed
+ * pair used outside its fitted range, the lowest and highest temperature [K]. The warnings it
+ * gives (extrapolationWarnings) say once, with the range, what the boiling points' own warnings
+ * say at every temperature.
+ */
+export interface ExtrapolationLog {
+  sys: VleSystem;
+  /** key `${component}|${cause}` → component index and the temperatures met [K]. */
+  vapour: Map<string, { i: number; lo: number; hi: number }>;
+  /** regressed pair index → temperatures met outside its fitted range [K]. */
+  pairs: Map<number, { lo: number; hi: number }>;
+}
+
+/** An empty ExtrapolationLog for the system. */
+export function extrapolationLog(sys: VleSystem): ExtrapolationLog {
+  return { sys, vapour: new Map(), pairs: new Map() };
+}
+
+/**
+ * Takes a boiling point's warnings: the ones about data used outside its range at T (exactly the
+ * lines saturationWarnings gives for T and the liquid) are recorded in the log and left out of
+ * the returned list; the other warnings are returned as they are.
+ *
+ * @param log       the log (modified)
+ * @param T_K       temperature of the boiling point [K]
+ * @param involved  mole fractions of the liquid [–] (a component counts when > 0)
+ * @param warnings  the boiling point's warnings
+ * @returns the warnings that are not about extrapolated data
+ */
+export function logExtrapolation(
+  log: ExtrapolationLog,
+  T_K: number,
+  involved: ArrayLike<number>,
+  warnings: readonly string[],
+): string[] {
+  if (warnings.length === 0) return [];
+  const sys = log.sys;
+  const here = saturationWarnings(sys, T_K, involved);
+  if (here.length === 0) return [...warnings];
+  const grow = <V extends { lo: number; hi: number }>(
+    m: Map<string | number, V>,
+    k: string | number,
+    v: V,
+  ) => {
+    const e = m.get(k);
+    if (!e) m.set(k, v);
+    else {
+      e.lo = Math.min(e.lo, T_K);
+      e.hi = Math.max(e.hi, T_K);
+    }
+  };
+  sys.regressedPairs.forEach((p, k) => {
+    const range = p.fittedRangeK;
+    if (!range || !(involved[p.water] > 0 && involved[p.solvent] > 0)) return;
+    if (T_K >= range[0] - PAIR_RANGE_ALLOWANCE_K && T_K <= range[1] + PAIR_RANGE_ALLOWANCE_K)
+      return;
+    grow(log.pairs as Map<string | number, { lo: number; hi: number }>, k, { lo: T_K, hi: T_K });
+  });
+  const comps = sys.components;
+  for (let i = 0; i < comps.length; i++) {
+    const c = comps[i];
+    if (c.nonVolatile || involved[i] === 0 || inPreferredRange(c, T_K)) continue;
+    const cause = vapourPressureExtrapolation(c.antoine, T_K, fallbackOf(c));
+    if (cause === null) continue;
+    grow(
+      log.vapour as Map<string | number, { i: number; lo: number; hi: number }>,
+      `${i}|${cause}`,
+      {
+        i,
+        lo: T_K,
+        hi: T_K,
+      },
+    );
+  }
+  const skip = new Set(here);
+  return warnings.filter((w) => !skip.has(w));
+}
+
+/**
+ * The log's warnings: one per component and cause of vapour-pressure extrapolation and one per
+ * regressed pair used outside its fitted range, each with the range of temperatures met (°C).
+ *
+ * @param log  the log
+ * @returns the warnings, in the chemist's words
+ */
+export function extrapolationWarnings(log: ExtrapolationLog): string[] {
+  const sys = log.sys;
+  const c = (K: number) => `${(K - 273.15).toFixed(1)} °C`;
+  const out: string[] = [];
+  for (const [k, t] of log.pairs) {
+    const p = sys.regressedPairs[k];
+    const range = p.fittedRangeK!;
+    const met = c(t.lo) === c(t.hi) ? `at ${c(t.lo)}` : `from ${c(t.lo)} to ${c(t.hi)}`;
+    out.push(
+      `${componentLabel(sys, p.solvent)}–water: the liquid–liquid model is fitted to mutual solubilities measured from ${c(range[0])} to ${c(range[1])}; ${met} it is extrapolated (mutual solubilities less certain).`,
+    );
+  }
+  for (const { i, lo, hi } of log.vapour.values()) {
+    const comp = sys.components[i];
+    const w = vapourPressureRangeWarning(comp.antoine, lo, hi, fallbackOf(comp));
+    if (w) out.push(`${componentLabel(sys, i)}: ${w}`);
+  }
+  return out;
 }
 
 const boilingPointMemo = new WeakMap<VleComponent, Map<number, number>>();

@@ -28,9 +28,12 @@ import { RANGES } from '../document';
 import {
   bubblePoint,
   bubblePressure,
+  extrapolationLog,
+  extrapolationWarnings,
   heterogeneousBubblePoint,
   heterogeneousBubblePressure,
   liquidLiquidSplit,
+  logExtrapolation,
   type HeterogeneousBubblePoint,
 } from '../thermo/vle';
 import type { EvalContext } from '../route/context';
@@ -246,6 +249,12 @@ export function distilLeg(
   const mayDemix =
     vol.length > 1 && liquidLiquidSplit(sys, norm(moles), Math.min(st.lastT_K, 373.15)).split;
   const vleWarnings = new Set<string>();
+  // Data used outside its range is said once per solvent (or pair) and cause, with the range of
+  // temperatures met, not once for every temperature the integrator evaluates.
+  const extrapolated = extrapolationLog(sys);
+  const note = (T: number, xs: ArrayLike<number>, ws: readonly string[]) => {
+    for (const w of logExtrapolation(extrapolated, T, xs, ws)) vleWarnings.add(w);
+  };
   // The last boiling point of the two-liquid pot, to start the next one from (the integrator's
   // evaluations are close together): its flash and temperature are the starting guesses only, so
   // the answer is the same to the solver's tolerances.
@@ -257,11 +266,11 @@ export function distilLeg(
       if (mayDemix) {
         const r = heterogeneousBubblePoint(sys, xs, cond.P_Pa, { previous });
         previous = r;
-        r.warnings.forEach((w) => vleWarnings.add(w));
+        note(r.T_K, xs, r.warnings);
         return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
       }
       const r = bubblePoint(sys, xs, cond.P_Pa, { T0_K: st.lastT_K });
-      r.warnings.forEach((w) => vleWarnings.add(w));
+      note(r.T_K, xs, r.warnings);
       st.lastT_K = r.T_K;
       return { T_K: r.T_K, P_Pa: cond.P_Pa, y: r.y };
     }
@@ -272,11 +281,11 @@ export function distilLeg(
       // flash starts from the last step's two liquids.
       const r = heterogeneousBubblePressure(sys, xs, cond.T_K, previousPhases);
       previousPhases = r.phases;
-      r.warnings.forEach((w) => vleWarnings.add(w));
+      note(cond.T_K, xs, r.warnings);
       return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
     }
     const r = bubblePressure(sys, xs, cond.T_K);
-    r.warnings.forEach((w) => vleWarnings.add(w));
+    note(cond.T_K, xs, r.warnings);
     return { T_K: cond.T_K, P_Pa: r.P_Pa, y: r.y };
   };
   // Decanter (Dean–Stark trap): the condensate settles at DECANTER_K; the water-rich layer is taken
@@ -354,6 +363,7 @@ export function distilLeg(
       'distillation-not-converged',
       `The distillation integral did not reach its tolerance (${r.reason} after ${r.steps} steps): pot and distillate compositions are approximate.`,
     );
+  for (const w of extrapolationWarnings(extrapolated)) vleWarnings.add(w);
   for (const w of vleWarnings) warn(warnings, 'info', 'vle', w);
   if (r.exhausted)
     warn(
