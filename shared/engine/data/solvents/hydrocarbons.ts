@@ -61,8 +61,11 @@ export const HYDROCARBONS_SOLVENTS: readonly SolventBaseRecord[] = [
     molarVolumeCm3mol: sv(147.5, derived('derived-quantity', 'molar mass / density at 25 °C')),
     unifac: sv({ 1: 2, 2: 5 }, ASSIGNED),
     waterMutualSolubility: sv(
-      { solventInWaterWtPct: 0.0003, waterInSolventWtPct: 0.009, temperatureC: 25 },
-      recalled('mutual-solubility-memory'),
+      { solventInWaterWtPct: 0.00024, waterInSolventWtPct: 0.0101, temperatureC: 25 },
+      read(
+        'iupac-nist-srd106-heptane-water',
+        'IUPAC recommended mutual solubility at 298.2 K: x(heptane) = 4.3e-7 in the water-rich phase and x(water) = 5.6e-4 in the heptane-rich phase, converted to wt % (M 100.205 and 18.015 g/mol); stored values were 0.0003 and 0.009 wt % (recalled)',
+      ),
     ),
     waterMiscibility: 'partial',
     viscosityMPas25C: sv(
