@@ -367,6 +367,8 @@ function runSteps(
   const token = memo ? contextToken(memo, doc) : '';
   const stepById = new Map(doc.steps.map((s) => [s.id, s]));
   const outputsOf = new Map<string, Record<string, Stream>>();
+  // Entry number in the memo of each step evaluated or reused with a key (its outputs' stand-in in keys).
+  const entryOf = memo ? new Map<string, number>() : null;
   // Steps whose result depends on a draw (their own uncertain setting or one upstream); a draw only.
   const drawn = memo && rng ? new Set<string>() : null;
   // Indexed by step and connection ids: no prototype, so no id can read a built-in.
@@ -374,14 +376,19 @@ function runSteps(
   for (const id of graph.order) {
     const step = stepById.get(id)!;
     const inputs = idRecord<Stream | undefined>();
+    const from = entryOf ? idRecord<string | undefined>() : null;
     let upstreamDrawn = false;
     for (const [port, c] of graph.incoming.get(id)!) {
       inputs[port] = outputsOf.get(c.from.stepId)![c.from.port];
       if (drawn?.has(c.from.stepId)) upstreamDrawn = true;
+      const n = entryOf?.get(c.from.stepId);
+      if (n !== undefined) from![port] = `${n}.${c.from.port}`;
     }
     if (drawn && (upstreamDrawn || stepIsUncertain(step))) drawn.add(id);
-    const key = memo && !drawn?.has(id) ? stepKey(token, step, inputs) : null;
-    let out = key !== null ? recallStep(memo!, key) : undefined;
+    const key = memo && !drawn?.has(id) ? stepKey(token, step, inputs, from!) : null;
+    const hit = key !== null ? recallStep(memo!, key) : undefined;
+    let out = hit?.out;
+    if (hit) entryOf!.set(id, hit.n);
     if (!out) {
       ctx.scratch = new Map();
       try {
@@ -393,7 +400,7 @@ function runSteps(
         checkBalance(ctx, inputs, out);
         out.result.purge = stepPurge(ctx, out);
       }
-      if (key !== null) rememberStep(memo!, key, out);
+      if (key !== null) entryOf!.set(id, rememberStep(memo!, key, out));
     }
     outputsOf.set(id, out.outputs);
     results[id] = out.result;

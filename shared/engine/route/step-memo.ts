@@ -18,6 +18,13 @@
  * A Monte Carlo draw reuses a step only when none of the step's own parameters
  * is uncertain (no random number is drawn for it) and its inlets are unchanged.
  *
+ * An inlet stream made by a step the memo remembers is written in a key as that
+ * step's entry number and port (a number given to one key only, never reused):
+ * the step's result is a function of its key, so the number stands for the
+ * stream exactly, and a key costs the step's own settings, not every number of
+ * its inlets. A stream from a step with no entry (none in a nominal evaluation
+ * with a memo) is written in full.
+ *
  * The memo is owned by its caller (one per worker process in the server, one
  * per browser worker), never module state of the engine, and bounded: least
  * recently used entries are dropped beyond `maxEntries`.
@@ -30,8 +37,8 @@ import type { StepOutput, Stream } from './types';
 export interface StepMemo {
   /** Entries kept at most (least recently used dropped first). */
   readonly maxEntries: number;
-  /** Results by step key (Map order = use order, oldest first). */
-  readonly entries: Map<string, StepOutput>;
+  /** Results by step key, with their entry numbers (Map order = use order, oldest first). */
+  readonly entries: Map<string, MemoEntry>;
   /** Short tokens standing for whole context keys (components and reference input). */
   readonly contexts: Map<string, string>;
   /** Counters since creation: steps answered from the memo and steps evaluated. */
@@ -39,6 +46,14 @@ export interface StepMemo {
   misses: number;
   /** Next context token number (never reused, so a dropped context cannot alias a new one). */
   nextToken: number;
+  /** Next entry number (never reused, so a dropped entry cannot alias a new one). */
+  nextEntry: number;
+}
+
+/** One remembered step: its outputs and result, and the number standing for its key. */
+export interface MemoEntry {
+  readonly out: StepOutput;
+  readonly n: number;
 }
 
 /** Context keys kept (each distinct component set and reference input of recent routes). */
@@ -60,6 +75,7 @@ export function createStepMemo(maxEntries = 5000): StepMemo {
     hits: 0,
     misses: 0,
     nextToken: 0,
+    nextEntry: 0,
   };
 }
 
@@ -146,23 +162,32 @@ export function stepIsUncertain(step: RouteStep): boolean {
 
 /**
  * Key of one step's evaluation: context token, the whole step, and every
- * connected inlet's stream (port by port, in port-name order).
+ * connected inlet's stream (port by port, in port-name order): the number and
+ * port of the remembered step that made it (`from`), or else the stream written
+ * in full.
  * Source: this project's own bookkeeping (no external source).
- * Validity: any step of a prepared route.
+ * Validity: any step of a prepared route; `from` only for streams that the
+ * remembered step of that entry number put out on that port in this evaluation.
  * @param token   the context token (contextToken)
  * @param step    the route step
  * @param inputs  the streams on its connected inlets, by port
+ * @param from    the entry number and output port of the step that made each inlet's stream, by port, where it has one
  * @returns the key
  */
 export function stepKey(
   token: string,
   step: RouteStep,
   inputs: Record<string, Stream | undefined>,
+  from: Record<string, string | undefined> = {},
 ): string {
   let s = `${token}\u0001${exactKey(step)}`;
   for (const port of Object.keys(inputs).sort()) {
     const stream = inputs[port];
-    s += `\u0001${port}:${stream ? streamKey(stream) : 'none'}`;
+    const made = from[port];
+    s +=
+      made !== undefined
+        ? `\u0001${port}<${made}`
+        : `\u0001${port}:${stream ? streamKey(stream) : 'none'}`;
   }
   return s;
 }
@@ -198,9 +223,12 @@ function copy<T>(v: T): T {
  * Validity: any key made by stepKey.
  * @param memo  the step memo
  * @param key   the step key
- * @returns a copy of the outputs and result (shares nothing with the memo), or undefined
+ * @returns a copy of the outputs and result (shares nothing with the memo) and the entry number, or undefined
  */
-export function recallStep(memo: StepMemo, key: string): StepOutput | undefined {
+export function recallStep(
+  memo: StepMemo,
+  key: string,
+): { out: StepOutput; n: number } | undefined {
   const hit = memo.entries.get(key);
   if (!hit) {
     memo.misses++;
@@ -209,7 +237,7 @@ export function recallStep(memo: StepMemo, key: string): StepOutput | undefined 
   memo.hits++;
   memo.entries.delete(key);
   memo.entries.set(key, hit);
-  return copy(hit);
+  return { out: copy(hit.out), n: hit.n };
 }
 
 /**
@@ -220,11 +248,14 @@ export function recallStep(memo: StepMemo, key: string): StepOutput | undefined 
  * @param memo  the step memo
  * @param key   the step key
  * @param out   the step's outputs and result
+ * @returns the entry number standing for the key
  */
-export function rememberStep(memo: StepMemo, key: string, out: StepOutput): void {
-  memo.entries.set(key, copy(out));
+export function rememberStep(memo: StepMemo, key: string, out: StepOutput): number {
+  const n = memo.nextEntry++;
+  memo.entries.set(key, { out: copy(out), n });
   while (memo.entries.size > memo.maxEntries)
     memo.entries.delete(memo.entries.keys().next().value!);
+  return n;
 }
 
 /** A bounded set of document caches, keyed by the route's components; create with createCachePool. */

@@ -32,7 +32,7 @@ import {
   type OptimiseRequest,
 } from '../../../shared/engine/optimise';
 import type { RouteDocument } from '../../../shared/engine/document';
-import { routeCorpus } from '../../fixtures/routes/corpus';
+import { benchRoute, routeCorpus } from '../../fixtures/routes/corpus';
 import { demoAmideIsolation } from '../../fixtures/routes/demo-amide-isolation';
 
 /** JSON in which every number is written exactly (−0, NaN, ±∞ kept apart). */
@@ -121,6 +121,72 @@ describe('step-result memo', () => {
       edited++;
     }
     expect(edited).toBeGreaterThan(3);
+  });
+
+  it('gives the bench routes the same result as evaluating every step through a sequence of edits, undos and repeats', () => {
+    // An inlet stream is written in a key as the number of the remembered step that made it, so a
+    // step downstream of an edit must miss, and one downstream of an undone edit must hit again.
+    for (const [name, doc, edits] of [
+      ['30-step benchmark route', benchRoute(30, 10), 6],
+      ['200-step benchmark route', benchRoute(200, 10, 5), 3],
+    ] as const) {
+      const prepared = prepareRoute(parseRoute(doc));
+      const order = prepared.graph.order;
+      const memo = createStepMemo();
+      const check = (what: string) => {
+        const withMemo = exact(evaluatePrepared(prepared, null, memo));
+        expect(withMemo, `${name}: ${what}`).toBe(exact(evaluatePrepared(prepared, null)));
+      };
+      check('first evaluation');
+      for (let e = 0; e < edits; e++) {
+        // Steps spread through the order (the first, the middle, near the end).
+        const position = Math.floor((e * (order.length - 1)) / Math.max(1, edits - 1));
+        const step = prepared.doc.steps.find((s) => s.id === order[position])!;
+        const saved = clone(step.params);
+        if (!bumpFirstNumber(step.params)) continue;
+        const misses = memo.misses;
+        try {
+          check(`step ${position + 1} edited`);
+        } catch (err) {
+          if (err instanceof Error && err.name === 'AssertionError') throw err;
+          Object.assign(step.params, saved); // a setting the step refuses at the new value
+          continue;
+        }
+        // The edited step and at least nothing upstream of it ran again.
+        expect(memo.misses - misses, `${name}: step ${position + 1}`).toBeGreaterThanOrEqual(1);
+        expect(memo.misses - misses).toBeLessThanOrEqual(order.length - position);
+        const hits = memo.hits;
+        check(`step ${position + 1} edited, repeated`);
+        expect(memo.hits - hits, `${name}: repeat after step ${position + 1}`).toBe(order.length);
+        // Undo: the earlier results (and those downstream, keyed on them) are found again.
+        for (const k of Object.keys(step.params))
+          delete (step.params as Record<string, unknown>)[k];
+        Object.assign(step.params, saved);
+        const undoHits = memo.hits;
+        check(`step ${position + 1} edit undone`);
+        expect(memo.hits - undoHits, `${name}: undo of step ${position + 1}`).toBe(order.length);
+      }
+    }
+  }, 240_000);
+
+  it('tells apart inlets made by different steps with the same settings (a key never stands for another stream)', () => {
+    // Two charges of the same route with the same settings but different amounts downstream: the
+    // stand-in for an inlet is the entry number of the step that made it, never its settings alone.
+    const memo = createStepMemo();
+    const base = clone(demoAmideIsolation) as unknown as Doc;
+    const plain = exact(evaluateRoute(base));
+    expect(exact(evaluateRoute(base, { memo }))).toBe(plain);
+    const charge = base.steps.find((s) => s.kind === 'charge')!;
+    const original = clone(charge.params);
+    bumpFirstNumber(charge.params);
+    const edited = exact(evaluateRoute(base));
+    expect(edited).not.toBe(plain);
+    const misses = memo.misses;
+    expect(exact(evaluateRoute(base, { memo }))).toBe(edited);
+    // Everything downstream of the charge ran again: its inlets stand for a new entry.
+    expect(memo.misses - misses).toBeGreaterThan(1);
+    charge.params = original;
+    expect(exact(evaluateRoute(base, { memo }))).toBe(plain);
   });
 
   it('evaluates every step again when a compound property or the reference input changes', () => {
