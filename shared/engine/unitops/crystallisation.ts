@@ -99,16 +99,16 @@ export interface Precipitation {
  * @param ctx       evaluation context (route components resolved against the library)
  * @param kg        total mass of each component in the vessel [kg]
  * @param T_K       temperature of the end point [K]
- * @param warnings  receives the warnings of the solubility model
- * @param methods   receives the methods used
+ * @param warnings  receives the warnings of the solubility model (null: none kept)
+ * @param methods   receives the methods used (null: none kept)
  * @returns solid kg of each component [kg] and its saturation capacity [kg] (null without evidence)
  */
 export function precipitate(
   ctx: EvalContext,
   kg: Record<string, number>,
   T_K: number,
-  warnings: EngineWarning[],
-  methods: MethodUsed[],
+  warnings: EngineWarning[] | null,
+  methods: MethodUsed[] | null,
 ): Precipitation {
   const solidKg: Record<string, number> = {};
   const saturationKg: Record<string, number | null> = {};
@@ -122,7 +122,7 @@ export function precipitate(
       const cap = waterKg > 0 ? (waterKg * max) / (100 - max) : 0;
       saturationKg[id] = cap;
       solidKg[id] = Math.max(0, kg[id] - cap);
-      if (solidKg[id] > 0)
+      if (solidKg[id] > 0 && methods)
         method(
           methods,
           `solubility of ${c.name}`,
@@ -404,7 +404,7 @@ export function crystallisation(
     feed.kg[pid] > 0 &&
     !ctx.ids.some((id) => feed.solidKg[id] > 0)
   ) {
-    const start = precipitate(ctx, feed.kg, T_start, [], []);
+    const start = precipitate(ctx, feed.kg, T_start, null, null);
     if (start.solidKg[pid] > 1e-6 * feed.kg[pid])
       warn(
         W,
@@ -466,7 +466,7 @@ export function crystallisation(
       const t0 = T_start;
       for (let k = 0; k <= 5; k++) {
         const T = t0 + ((T_end - t0) * k) / 5;
-        const p = precipitate(ctx, mix, T, [], []);
+        const p = precipitate(ctx, mix, T, null, null);
         curve.push({
           endC: round(T - 273.15, 2),
           yieldPct: round((100 * p.solidKg[pid]) / mix[pid], 3),

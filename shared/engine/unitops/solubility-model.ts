@@ -242,8 +242,8 @@ const MINOR_BLEND_FRACTION = 0.01;
  * @param compoundId the compound
  * @param solventKg  kg of each component in the liquor (only solvents count) [kg]
  * @param T_K        temperature [K]
- * @param warnings   receives the warnings (missing data, assumptions, extrapolation)
- * @param methods    receives the methods used
+ * @param warnings   receives the warnings (missing data, assumptions, extrapolation); null: none kept
+ * @param methods    receives the methods used; null: none kept
  * @returns x [–], the capacity [kg] and the method; null when no solvent of
  *   the liquor has any solubility evidence (the callers then keep the
  *   compound dissolved and say so)
@@ -260,8 +260,8 @@ export function solubilityIn(
   compoundId: string,
   solventKg: Record<string, number>,
   T_K: number,
-  warnings: EngineWarning[],
-  methods: MethodUsed[],
+  warnings: EngineWarning[] | null,
+  methods: MethodUsed[] | null,
 ): SolubilityAt | null {
   const comp = ctx.comps.get(compoundId)!;
   const ids = ctx.ids.filter((id) => ctx.comps.get(id)!.kind === 'solvent' && solventKg[id] > 0);
@@ -282,15 +282,16 @@ export function solubilityIn(
   }
   const used = present.filter((id) => curves.has(id));
   if (used.length === 0) {
-    warn(
-      warnings,
-      'warning',
-      'no-solubility-data',
-      `${comp.name}: no solubility data in ${present.map((id) => ctx.comps.get(id)!.name).join(', ')} and no melting data; its solubility cannot be estimated.`,
-    );
+    if (warnings)
+      warn(
+        warnings,
+        'warning',
+        'no-solubility-data',
+        `${comp.name}: no solubility data in ${present.map((id) => ctx.comps.get(id)!.name).join(', ')} and no melting data; its solubility cannot be estimated.`,
+      );
     return null;
   }
-  if (missing.length > 0) {
+  if (missing.length > 0 && warnings) {
     const share = missing.reduce((a, id) => a + vol[ids.indexOf(id)], 0) / vTot;
     warn(
       warnings,
@@ -302,7 +303,7 @@ export function solubilityIn(
   const lnXs: number[] = [];
   for (const id of used) {
     const curve = curves.get(id)!;
-    if (curve.range && (T_K < curve.range[0] - 10 || T_K > curve.range[1] + 10)) {
+    if (warnings && curve.range && (T_K < curve.range[0] - 10 || T_K > curve.range[1] + 10)) {
       warn(
         warnings,
         'info',
@@ -310,13 +311,14 @@ export function solubilityIn(
         `${comp.name} in ${ctx.comps.get(id)!.name}: solubility extrapolated to ${(T_K - 273.15).toFixed(0)} °C, outside the measured ${(curve.range[0] - 273.15).toFixed(0)}–${(curve.range[1] - 273.15).toFixed(0)} °C.`,
       );
     }
-    method(
-      methods,
-      `solubility of ${comp.name} in ${ctx.comps.get(id)!.name}`,
-      curve.method,
-      curve.source,
-    );
-    if (curve.note)
+    if (methods)
+      method(
+        methods,
+        `solubility of ${comp.name} in ${ctx.comps.get(id)!.name}`,
+        curve.method,
+        curve.source,
+      );
+    if (curve.note && warnings)
       warn(
         warnings,
         'info',
@@ -334,7 +336,8 @@ export function solubilityIn(
     const blend = blendSolubility(ctx, comp.compound!, used, solventKg, T_K, lnXs);
     lnX = blend.lnX;
     label = blend.label;
-    method(methods, `solubility of ${comp.name} in the solvent blend`, blend.label, blend.source);
+    if (methods)
+      method(methods, `solubility of ${comp.name} in the solvent blend`, blend.label, blend.source);
   }
   const x = Math.min(Math.exp(lnX), 0.999);
   // Capacity of the solvents the mole fraction describes; a solvent without data adds capacity in
