@@ -227,6 +227,7 @@ export function distilLeg(
       fixed += st.pot[id] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K);
   const M = vol.map((id) => ctx.comps.get(id)!.molarMassKgMol);
   const moles = Float64Array.from(vol.map((id, i) => st.pot[id] / M[i]));
+  const charged = Float64Array.from(moles);
   const mv = Float64Array.from(
     vol.map((id, i) => M[i] * ctx.comps.get(id)!.specificVolume(VOLUME_REFERENCE_K)),
   );
@@ -375,7 +376,10 @@ export function distilLeg(
   // The pot takes the integrator's moles left (exactly 0 at dryness) rather than the charge less the
   // moles distilled: the difference of two nearly equal numbers leaves a dust of solvent (1e-19 kg)
   // that later steps would read as a liquor (a "dry" pot in which everything stays dissolved).
+  // A solvent the integrator left untouched (a leg that distils nothing) keeps its kilograms to the
+  // bit: kg / M · M need not give them back, and the difference would be a distillate of dust.
   vol.forEach((id, i) => {
+    if (r.moles[i] === charged[i]) return;
     const left = Math.min(st.pot[id], Math.max(0, r.moles[i] * M[i]));
     st.distillate[id] += st.pot[id] - left;
     st.pot[id] = left;
@@ -603,6 +607,13 @@ export function distillation(
       add,
     });
   }
+  if (!(st.distillateM3 > 0) && !W.some((w) => w.code === 'nothing-distilled'))
+    warn(
+      W,
+      'info',
+      'nothing-distilled',
+      'Nothing is distilled in this step: there is no distillate.',
+    );
   const potVol = streamVolume(ctx, st.pot, VOLUME_REFERENCE_K);
   const T_end = st.lastT_K;
   solubilityCrossingCheck(ctx, st.pot, T_end, potVol * 1000, W, Ms);
@@ -659,9 +670,10 @@ export function distillation(
     mode: mode.kind,
     condition: params.condition,
     profile: st.profile,
+    // No distillate volume, no distillate composition.
     distillateComposition: Object.fromEntries(
       ctx.ids
-        .filter((id) => st.distillate[id] > 0)
+        .filter((id) => st.distillateM3 > 0 && st.distillate[id] > 0)
         .map((id) => [id, round((100 * st.distillate[id]) / distTot, 4)]),
     ),
     residualOriginalSolventWtPct: residual,
