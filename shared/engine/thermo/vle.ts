@@ -1330,6 +1330,11 @@ function threePhaseFrom(
   const lnTarget = Math.log(P_Pa);
   let flash: Flash | null = null;
   let failed = false;
+  // The previous residual and its vapour-pressure slope, for the share of f'(T) that the activity
+  // coefficients and the moving liquid compositions carry (below).
+  let previousT = NaN;
+  let previousF = NaN;
+  let previousSlope = NaN;
   const solution = newtonSafe(
     (T) => {
       flash = failed ? null : flashFrom(sys.unifac, z, T, xI, xII, 300);
@@ -1347,7 +1352,23 @@ function threePhaseFrom(
         sum += p;
         dsum += p * slope[i];
       }
-      return { f: Math.log(sum) - lnTarget, df: dsum / sum };
+      const f = Math.log(sum) - lnTarget;
+      const raoult = dsum / sum;
+      // As in bubblePoint: the vapour pressures' share of f'(T) is exact; the share of the activity
+      // coefficients and of the two liquids' compositions (both move with T along the split) is
+      // taken from the secant through the previous residual less the vapour pressures' mean slope
+      // there, kept only within a factor of 2 of the vapour pressures' share: superlinear where the
+      // plain step converges linearly.
+      let df = raoult;
+      const dT = T - previousT;
+      if (dT !== 0 && Number.isFinite(dT)) {
+        const corrected = raoult + (f - previousF) / dT - 0.5 * (raoult + previousSlope);
+        if (corrected > 0.5 * raoult && corrected < 2 * raoult) df = corrected;
+      }
+      previousT = T;
+      previousF = f;
+      previousSlope = raoult;
+      return { f, df };
     },
     previous.T_K,
     { lower: 1, maxStep: 10, ftol: 1e-12, xtol: 1e-9, rtol: 0, maxIterations: 40 },

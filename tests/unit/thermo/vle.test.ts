@@ -54,6 +54,25 @@ describe('bubblePoint', () => {
     }
   });
 
+  it('three-phase point started from a neighbour (secant-corrected Newton) equals the cold solve', () => {
+    // Water, toluene and acetone boiling as two liquids: acetone moves between the liquids as T
+    // changes, so the liquids' compositions and γ carry a share of f'(T) that the warm start's
+    // Newton step takes from the secant. Each warm answer must be the cold one to the tolerances.
+    const sys = createVleSystem([F.water, F.toluene, F.acetone]);
+    let previous = heterogeneousBubblePoint(sys, [0.6, 0.35, 0.05], P);
+    expect(previous.liquidPhases).toBe(2);
+    for (let k = 1; k <= 8; k++) {
+      const z = [0.6 - 0.01 * k, 0.35 - 0.005 * k, 0.05 + 0.015 * k];
+      const warm = heterogeneousBubblePoint(sys, z, P, { previous });
+      const cold = heterogeneousBubblePoint(sys, z, P);
+      expect(warm.liquidPhases).toBe(2);
+      expect(cold.liquidPhases).toBe(2);
+      expect(Math.abs(warm.T_K - cold.T_K)).toBeLessThan(1e-7);
+      for (let i = 0; i < 3; i++) expect(Math.abs(warm.y[i] - cold.y[i])).toBeLessThan(1e-7);
+      previous = warm;
+    }
+  });
+
   it('gives y = 0 for a non-volatile solute, which still raises the boiling point via γ', () => {
     const solute = {
       name: 'non-volatile solute',
