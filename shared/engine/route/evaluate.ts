@@ -253,7 +253,7 @@ export function prepareRoute(doc: RouteDocument): PreparedRoute {
  * model is stretched); parallel branches are counted in series in the cycle time.
  *
  * With a step-result memo (step-memo.ts), a step whose own parameters,
- * inlet streams and route components were seen before is answered with a copy
+ * inlet streams and route components were seen before is answered with a frozen copy
  * of its earlier result instead of running its model (the same numbers to the
  * last bit); in a Monte Carlo draw only steps with no uncertain parameter of
  * their own or upstream of them are looked up. Each step gets a fresh scratch

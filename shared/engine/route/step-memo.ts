@@ -9,7 +9,9 @@
  * gives each step a fresh scratch memo). So a step whose key — exactly those
  * things, every number written in full (shortest round-trip form, −0, NaN and
  * ±∞ kept apart) — was seen before has the same result, and the evaluator can
- * return a copy of it instead of running the model: an edited step and the
+ * return it instead of running the model (the memo keeps a copy frozen through
+ * and through, handed out as it is: a caller that changed a remembered result
+ * would get a TypeError, never a changed memo): an edited step and the
  * steps downstream of it are evaluated again, the others are not, and a
  * repeated evaluation of an unchanged route runs no model at all. The answer
  * is the same to the last bit (tests/unit/route/step-memo.test.ts compares
@@ -54,6 +56,8 @@ export interface StepMemo {
 export interface MemoEntry {
   readonly out: StepOutput;
   readonly n: number;
+  /** Whether `out` is frozen through and through (shared with every evaluation that meets the key). */
+  readonly frozen: boolean;
 }
 
 /** Context keys kept (each distinct component set and reference input of recent routes). */
@@ -218,12 +222,52 @@ function copy<T>(v: T): T {
 }
 
 /**
- * A copy of a remembered step result, or undefined; marks it recently used.
+ * A deep copy (as copy) frozen through and through, or undefined when the value
+ * holds a typed array, whose elements cannot be frozen.
+ */
+function frozenCopy<T>(v: T): T | undefined {
+  if (v === null || typeof v !== 'object') return v;
+  if (ArrayBuffer.isView(v)) return undefined;
+  if (Array.isArray(v)) {
+    const out: unknown[] = [];
+    for (let i = 0; i < v.length; i++) {
+      const x = frozenCopy(v[i] as unknown);
+      if (x === undefined && v[i] !== undefined) return undefined;
+      out.push(x);
+    }
+    return Object.freeze(out) as T;
+  }
+  const source = v as Record<string, unknown>;
+  const proto = Object.getPrototypeOf(v) as object | null;
+  const out = (
+    proto === null ? Object.create(null) : proto === Object.prototype ? {} : Object.create(proto)
+  ) as Record<string, unknown>;
+  // Plain objects and id records by for…in (exactly Object.keys for them, without the list).
+  if (proto === null || proto === Object.prototype) {
+    for (const k in source) {
+      const x = frozenCopy(source[k]);
+      if (x === undefined && source[k] !== undefined) return undefined;
+      out[k] = x;
+    }
+  } else {
+    for (const k of Object.keys(v)) {
+      const x = frozenCopy(source[k]);
+      if (x === undefined && source[k] !== undefined) return undefined;
+      out[k] = x;
+    }
+  }
+  return Object.freeze(out) as T;
+}
+
+/**
+ * A remembered step result, or undefined; marks it recently used. The result
+ * is frozen through and through (a change to it throws), so it is handed out
+ * as it is, not copied; a result that could not be frozen is copied.
  * Source: this project's own bookkeeping (no external source).
  * Validity: any key made by stepKey.
  * @param memo  the step memo
  * @param key   the step key
- * @returns a copy of the outputs and result (shares nothing with the memo) and the entry number, or undefined
+ * @returns the outputs and result (frozen, or a copy) and the entry number, or undefined
  */
 export function recallStep(
   memo: StepMemo,
@@ -237,12 +281,14 @@ export function recallStep(
   memo.hits++;
   memo.entries.delete(key);
   memo.entries.set(key, hit);
-  return { out: copy(hit.out), n: hit.n };
+  return { out: hit.frozen ? hit.out : copy(hit.out), n: hit.n };
 }
 
 /**
- * Remember a step's outputs and result (a copy, so later changes to them do
- * not reach the memo); drops the least recently used beyond maxEntries.
+ * Remember a copy of a step's outputs and result (so later changes to the
+ * evaluation's own objects do not reach the memo), frozen through and through
+ * where it can be, so that it can be handed out without copying (a change to
+ * it throws); drops the least recently used beyond maxEntries.
  * Source: this project's own bookkeeping (no external source).
  * Validity: the complete result of the step (balance and purge filled in).
  * @param memo  the step memo
@@ -252,7 +298,11 @@ export function recallStep(
  */
 export function rememberStep(memo: StepMemo, key: string, out: StepOutput): number {
   const n = memo.nextEntry++;
-  memo.entries.set(key, { out: copy(out), n });
+  const shared = frozenCopy(out);
+  memo.entries.set(
+    key,
+    shared ? { out: shared, n, frozen: true } : { out: copy(out), n, frozen: false },
+  );
   while (memo.entries.size > memo.maxEntries)
     memo.entries.delete(memo.entries.keys().next().value!);
   return n;

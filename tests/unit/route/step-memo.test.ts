@@ -72,10 +72,11 @@ describe('step-result memo', () => {
     expect(corpus.length).toBeGreaterThan(20);
   }, 120_000);
 
-  it('returns copies: changing a result does not change the next evaluation', () => {
+  it('keeps its results apart from the caller: a result made anew may be changed, a remembered one is frozen', () => {
     const memo = createStepMemo();
     const first = evaluateRoute(demoAmideIsolation, { memo });
     const expected = exact(first);
+    // The first evaluation's own objects: changing them does not reach the memo.
     for (const s of Object.values(first.steps)) {
       s.summary.changed = 1;
       for (const k in s.addedKg) s.addedKg[k] = -1;
@@ -83,8 +84,19 @@ describe('step-result memo', () => {
     for (const t of first.terminals) for (const k in t.stream.kg) t.stream.kg[k] = 42;
     const again = evaluateRoute(demoAmideIsolation, { memo });
     expect(exact(again)).toBe(expected);
+    expect(memo.hits).toBe(Object.keys(again.steps).length);
+    // Remembered results are handed out as they are, frozen through and through: a change throws.
+    for (const s of Object.values(again.steps)) {
+      expect(Object.isFrozen(s) && Object.isFrozen(s.summary) && Object.isFrozen(s.warnings)).toBe(
+        true,
+      );
+      expect(() => (s.summary.changed = 1)).toThrow(TypeError);
+      for (const k in s.addedKg) expect(() => (s.addedKg[k] = -1)).toThrow(TypeError);
+    }
+    for (const t of again.terminals)
+      for (const k in t.stream.kg) expect(() => (t.stream.kg[k] = 42)).toThrow(TypeError);
+    expect(exact(evaluateRoute(demoAmideIsolation, { memo }))).toBe(expected);
     // The copies keep the id records' missing prototype (no id can read a built-in).
-    expect(memo.hits).toBeGreaterThan(0);
     for (const s of Object.values(again.steps)) {
       expect(Object.getPrototypeOf(s.addedKg)).toBeNull();
       expect(Object.getPrototypeOf(s.balance!)).toBeNull();
