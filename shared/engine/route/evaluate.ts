@@ -367,8 +367,8 @@ function runSteps(
   const token = memo ? contextToken(memo, doc) : '';
   const stepById = new Map(doc.steps.map((s) => [s.id, s]));
   const outputsOf = new Map<string, Record<string, Stream>>();
-  // Entry number in the memo of each step evaluated or reused with a key (its outputs' stand-in in keys).
-  const entryOf = memo ? new Map<string, number>() : null;
+  // Numbers standing for the output streams of each step remembered or reused, by port (their stand-ins in keys).
+  const entryOf = memo ? new Map<string, Record<string, number>>() : null;
   // Steps whose result depends on a draw (their own uncertain setting or one upstream); a draw only.
   const drawn = memo && rng ? new Set<string>() : null;
   // Indexed by step and connection ids: no prototype, so no id can read a built-in.
@@ -381,14 +381,14 @@ function runSteps(
     for (const [port, c] of graph.incoming.get(id)!) {
       inputs[port] = outputsOf.get(c.from.stepId)![c.from.port];
       if (drawn?.has(c.from.stepId)) upstreamDrawn = true;
-      const n = entryOf?.get(c.from.stepId);
-      if (n !== undefined) from![port] = `${n}.${c.from.port}`;
+      const n = entryOf?.get(c.from.stepId)?.[c.from.port];
+      if (n !== undefined) from![port] = `${n}`;
     }
     if (drawn && (upstreamDrawn || stepIsUncertain(step))) drawn.add(id);
     const key = memo && !drawn?.has(id) ? stepKey(token, step, inputs, from!) : null;
     const hit = key !== null ? recallStep(memo!, key) : undefined;
     let out = hit?.out;
-    if (hit) entryOf!.set(id, hit.n);
+    if (hit) entryOf!.set(id, hit.ports);
     if (!out) {
       ctx.scratch = new Map();
       try {

@@ -20,12 +20,13 @@
  * A Monte Carlo draw reuses a step only when none of the step's own parameters
  * is uncertain (no random number is drawn for it) and its inlets are unchanged.
  *
- * An inlet stream made by a step the memo remembers is written in a key as that
- * step's entry number and port (a number given to one key only, never reused):
- * the step's result is a function of its key, so the number stands for the
- * stream exactly, and a key costs the step's own settings, not every number of
- * its inlets. A stream from a step with no entry (none in a nominal evaluation
- * with a memo) is written in full.
+ * An inlet stream made by a step the memo remembers is written in a key as the
+ * number standing for that stream's full key (given when the step was
+ * remembered, the same number for the same stream, never reused for another):
+ * a step is reused after an edit upstream that left its inlets as they were,
+ * and a key costs the step's own settings, not every number of its inlets. A
+ * stream from a step with no entry (none in a nominal evaluation with a memo)
+ * is written in full.
  *
  * The memo is owned by its caller (one per worker process in the server, one
  * per browser worker), never module state of the engine, and bounded: least
@@ -50,12 +51,18 @@ export interface StepMemo {
   nextToken: number;
   /** Next entry number (never reused, so a dropped entry cannot alias a new one). */
   nextEntry: number;
+  /** Numbers standing for whole stream keys (streams put out by remembered steps). */
+  readonly streams: Map<string, number>;
+  /** Next stream number (never reused, so a dropped stream key cannot alias a new one). */
+  nextStream: number;
 }
 
 /** One remembered step: its outputs and result, and the number standing for its key. */
 export interface MemoEntry {
   readonly out: StepOutput;
   readonly n: number;
+  /** The number standing for each output stream's key, by port. */
+  readonly ports: Record<string, number>;
   /** Whether `out` is frozen through and through (shared with every evaluation that meets the key). */
   readonly frozen: boolean;
 }
@@ -80,6 +87,8 @@ export function createStepMemo(maxEntries = 5000): StepMemo {
     misses: 0,
     nextToken: 0,
     nextEntry: 0,
+    streams: new Map(),
+    nextStream: 0,
   };
 }
 
@@ -166,16 +175,16 @@ export function stepIsUncertain(step: RouteStep): boolean {
 
 /**
  * Key of one step's evaluation: context token, the whole step, and every
- * connected inlet's stream (port by port, in port-name order): the number and
- * port of the remembered step that made it (`from`), or else the stream written
+ * connected inlet's stream (port by port, in port-name order): the number
+ * standing for its key (`from`, from rememberStep), or else the stream written
  * in full.
  * Source: this project's own bookkeeping (no external source).
  * Validity: any step of a prepared route; `from` only for streams that the
- * remembered step of that entry number put out on that port in this evaluation.
+ * number stands for (rememberStep or recallStep of this evaluation).
  * @param token   the context token (contextToken)
  * @param step    the route step
  * @param inputs  the streams on its connected inlets, by port
- * @param from    the entry number and output port of the step that made each inlet's stream, by port, where it has one
+ * @param from    the number standing for each inlet stream's key, by port, where it has one
  * @returns the key
  */
 export function stepKey(
@@ -272,7 +281,7 @@ function frozenCopy<T>(v: T): T | undefined {
 export function recallStep(
   memo: StepMemo,
   key: string,
-): { out: StepOutput; n: number } | undefined {
+): { out: StepOutput; n: number; ports: Record<string, number> } | undefined {
   const hit = memo.entries.get(key);
   if (!hit) {
     memo.misses++;
@@ -281,7 +290,7 @@ export function recallStep(
   memo.hits++;
   memo.entries.delete(key);
   memo.entries.set(key, hit);
-  return { out: hit.frozen ? hit.out : copy(hit.out), n: hit.n };
+  return { out: hit.frozen ? hit.out : copy(hit.out), n: hit.n, ports: hit.ports };
 }
 
 /**
@@ -294,18 +303,29 @@ export function recallStep(
  * @param memo  the step memo
  * @param key   the step key
  * @param out   the step's outputs and result
- * @returns the entry number standing for the key
+ * @returns the number standing for each output stream's key (the same number for the same stream), by port
  */
-export function rememberStep(memo: StepMemo, key: string, out: StepOutput): number {
+export function rememberStep(memo: StepMemo, key: string, out: StepOutput): Record<string, number> {
   const n = memo.nextEntry++;
+  const ports: Record<string, number> = Object.create(null);
+  for (const port in out.outputs) {
+    const k = streamKey(out.outputs[port]);
+    let id = memo.streams.get(k);
+    if (id !== undefined) memo.streams.delete(k);
+    else id = memo.nextStream++;
+    memo.streams.set(k, id);
+    ports[port] = id;
+  }
+  while (memo.streams.size > 4 * memo.maxEntries + MAX_CONTEXTS)
+    memo.streams.delete(memo.streams.keys().next().value!);
   const shared = frozenCopy(out);
   memo.entries.set(
     key,
-    shared ? { out: shared, n, frozen: true } : { out: copy(out), n, frozen: false },
+    shared ? { out: shared, n, ports, frozen: true } : { out: copy(out), n, ports, frozen: false },
   );
   while (memo.entries.size > memo.maxEntries)
     memo.entries.delete(memo.entries.keys().next().value!);
-  return n;
+  return ports;
 }
 
 /** A bounded set of document caches, keyed by the route's components; create with createCachePool. */

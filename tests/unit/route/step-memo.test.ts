@@ -201,6 +201,17 @@ describe('step-result memo', () => {
     expect(exact(evaluateRoute(base, { memo }))).toBe(plain);
   });
 
+  it("reuses the steps downstream of an edit that left the edited step's outlets as they were", () => {
+    const memo = createStepMemo();
+    const doc = clone(demoAmideIsolation) as unknown as Doc & { steps: Array<{ name: string }> };
+    evaluateRoute(doc, { memo });
+    // A new name is part of the step's key (it runs again) but not of its streams.
+    doc.steps[0].name = 'Renamed first step';
+    const misses = memo.misses;
+    expect(exact(evaluateRoute(doc, { memo }))).toBe(exact(evaluateRoute(doc)));
+    expect(memo.misses - misses).toBe(1);
+  });
+
   it('evaluates every step again when a compound property or the reference input changes', () => {
     const memo = createStepMemo();
     const pool = createCachePool();
