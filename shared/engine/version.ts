@@ -4,4 +4,4 @@
  * (tests/unit/route/engine-version.test.ts pins a fingerprint of them to it). A module of its
  * own so that the client can compare stored figures with it without loading the engine.
  */
-export const ENGINE_VERSION = '1.16.0';
+export const ENGINE_VERSION = '1.17.0';

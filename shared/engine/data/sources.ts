@@ -207,6 +207,11 @@ export const SOURCES = {
       'IUPAC-NIST Solubility Database, NIST SRD 106: the recommended mutual solubilities of the binary heptane–water system at 298.2 K (from the Solubility Data Series evaluation of that binary), as quoted in the critical evaluation of the ternary system 1-propanol–heptane–water (A. Skrzecz, 1997; IUPAC-NIST Solubility Data Series 69)',
     url: 'https://srdata.nist.gov/solubility/sol_detail.aspx?goBack=Y&sysID=69_145',
   },
+  'iupac-nist-srd106-2-butanol-water': {
+    citation:
+      'IUPAC-NIST Solubility Database, NIST SRD 106: the recommended mutual solubility of the binary 2-butanol–water system at 303 K (from the Solubility Data Series evaluation of that binary), as quoted in the critical evaluation of the ternary system 2-butanol–benzene–water (A. Skrzecz, 1997; IUPAC-NIST Solubility Data Series 69)',
+    url: 'https://srdata.nist.gov/solubility/sol_detail.aspx?goBack=Y&sysID=69_239',
+  },
   'nas-2016-appD': {
     citation:
       'National Academies of Sciences, Engineering, and Medicine, Chemical Laboratory Safety and Security: A Guide to Developing Standard Operating Procedures, 2016, Appendix D "Flammable List" (solubility in water, g/100 g; flash point) (doi:10.17226/21918)',

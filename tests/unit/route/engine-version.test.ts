@@ -32,6 +32,7 @@ const FINGERPRINTS: Record<string, string> = {
   '1.14.0': '0b595a1e8f12a0dff9a3c91f3101cc3a0c03d7c9fe36c35059d62719afe755b8',
   '1.15.0': '3367700afec4128d384c0572d5f2c9721aa3d579189b950de73d84876dfa290f',
   '1.16.0': 'b4de09bc245d24f35acd54816615b417f1674a52fb4d18105d0ab73e2c43d42d',
+  '1.17.0': 'f0d200b79ad0cbda23a86bd308ed624add94c28592663d03cc072fb84f45dd13',
 };
 
 /** JSON with every number to 9 significant digits (−0 written as 0; NaN and ±∞ kept apart). */

@@ -365,10 +365,10 @@ export const WATER_ALCOHOLS_SOLVENTS: readonly SolventBaseRecord[] = [
     molarVolumeCm3mol: sv(91.9, derived('derived-quantity', 'molar mass / density at 20 °C')),
     unifac: sv({ 1: 2, 2: 1, 3: 1, 14: 1 }, ASSIGNED),
     waterMutualSolubility: sv(
-      { solventInWaterWtPct: 15.3, waterInSolventWtPct: 36, temperatureC: 20 },
-      recalled(
-        'nas-2016-appD',
-        'solvent in water read as 18.1 g/100 g water (NAS 2016 App. D) = 15.3 wt%; water in 2-butanol recalled',
+      { solventInWaterWtPct: 17.5, waterInSolventWtPct: 34.3, temperatureC: 30 },
+      read(
+        'iupac-nist-srd106-2-butanol-water',
+        'IUPAC recommended mutual solubility at 303 K: x(2-butanol) = 0.318 in the alcohol-rich phase and 0.0491 in the water-rich phase, converted to wt % (M 74.123 and 18.015 g/mol); stored values were 15.3 wt % at 20 °C (18.1 g/100 g water, NAS 2016 App. D) and 36 wt % water (recalled)',
       ),
     ),
     waterMiscibility: 'partial',
