@@ -373,7 +373,11 @@ const KIND_BUILDERS: Builders = {
     if (mode.kind === 'concentrate') {
       c.op({
         role: 'distil',
-        text: `Distil ${under} down to ${f.litres(potL)}; about ${f.litres(volumeL(c.outputs.distillate))} of distillate.`,
+        // A pot already at or below the target distils nothing (the engine gives no distillate).
+        text:
+          volumeL(c.outputs.distillate) > 0
+            ? `Distil ${under} down to ${f.litres(potL)}; about ${f.litres(volumeL(c.outputs.distillate))} of distillate.`
+            : `Nothing to distil: the pot holds ${f.litres(potL)}, no more than the target volume.`,
         temperatureC: potC,
         pressureMbar: pressure,
         durationH: hours,

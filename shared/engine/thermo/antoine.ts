@@ -343,6 +343,7 @@ export function vapourPressureWithSlope(
  * warning in vapourPressureRangeWarning.
  *
  * Source: this project's own bookkeeping (the rules of vapourPressureWithSlope).
+ * Validity: as vapourPressure.
  *
  * @param sets   Antoine sets, in order of preference (may be empty)
  * @param T_K    temperature [K], > 0
@@ -374,6 +375,7 @@ export function vapourPressureExtrapolation(
  * temperature.
  *
  * Source: as vapourPressureWithSlope.
+ * Validity: as vapourPressure; loK ≤ hiK.
  *
  * @param sets   Antoine sets, in order of preference (may be empty)
  * @param loK    lowest temperature met [K]

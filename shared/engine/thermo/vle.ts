@@ -309,7 +309,13 @@ export interface ExtrapolationLog {
   pairs: Map<number, { lo: number; hi: number }>;
 }
 
-/** An empty ExtrapolationLog for the system. */
+/**
+ * An empty ExtrapolationLog for the system.
+ * Source: this project's own bookkeeping (no external source).
+ * Validity: any system.
+ * @param sys  the system whose boiling points will be logged
+ * @returns the empty log
+ */
 export function extrapolationLog(sys: VleSystem): ExtrapolationLog {
   return { sys, vapour: new Map(), pairs: new Map() };
 }
@@ -318,6 +324,9 @@ export function extrapolationLog(sys: VleSystem): ExtrapolationLog {
  * Takes a boiling point's warnings: the ones about data used outside its range at T (exactly the
  * lines saturationWarnings gives for T and the liquid) are recorded in the log and left out of
  * the returned list; the other warnings are returned as they are.
+ *
+ * Source: this project's own bookkeeping (the rules of saturationWarnings).
+ * Validity: warnings given by a boiling point of the log's system at T_K.
  *
  * @param log       the log (modified)
  * @param T_K       temperature of the boiling point [K]
@@ -377,6 +386,9 @@ export function logExtrapolation(
 /**
  * The log's warnings: one per component and cause of vapour-pressure extrapolation and one per
  * regressed pair used outside its fitted range, each with the range of temperatures met (°C).
+ *
+ * Source: the wording of vapourPressureWithSlope's and the regressed pairs' own warnings.
+ * Validity: any log.
  *
  * @param log  the log
  * @returns the warnings, in the chemist's words

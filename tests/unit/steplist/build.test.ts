@@ -178,6 +178,23 @@ describe('the operations', () => {
     }
   });
 
+  it('a concentration whose pot is already below the target says that nothing is distilled', () => {
+    const document = structuredClone(base);
+    const swap = document.steps.find((s) => s.id === 'swap')!;
+    (swap.params as { mode: unknown }).mode = {
+      kind: 'concentrate',
+      targetVolume: { value: 1000, unit: 'vol' },
+    };
+    const result = evaluateRoute(document);
+    const list = buildStepList({ document, result, assignments: {}, available: equipment });
+    const distil = list.operations.filter((op) => op.stepId === 'swap');
+    expect(distil).toHaveLength(1);
+    expect(distil[0].text).toMatch(
+      /^Nothing to distil: the pot holds [\d,.]+ L, no more than the target volume\.$/,
+    );
+    expect(distil[0].text).not.toMatch(/of distillate/);
+  });
+
   it('each wash keeps the phase the route carries on, by density', () => {
     for (const stepId of ['acid-wash', 'base-wash', 'brine-wash']) {
       const separate = byStep(stepId).find((op) => op.text.startsWith('Separate'))!;
