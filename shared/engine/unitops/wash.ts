@@ -429,8 +429,11 @@ export function washOrExtraction(
     );
     // Each stage's liquid–liquid flash starts from its liquids of the pass before.
     const starts: LiquidSplitStart[] = Array.from({ length: N }, () => ({}));
-    const cc = counterCurrentCascade(ctx, feed.kg, added, N, feedIsAqueous, (mix, w, m, n) =>
+    const coldStage = coldStageMemo(ctx, (mix, w, m, n) =>
       equilibrate(ctx, mix, T, pHOverride, w, m, feedIsAqueous, starts[n]),
+    );
+    const cc = counterCurrentCascade(ctx, feed.kg, added, N, feedIsAqueous, (mix, w, m, n) =>
+      coldStage(mix, w, m, starts[n], n),
     );
     if (!cc.converged)
       warn(
@@ -549,6 +552,59 @@ export function washOrExtraction(
 
 /** Largest number of passes of the counter-current cascade solution. */
 export const COUNTER_CURRENT_MAX_SWEEPS = 200;
+
+/**
+ * A counter-current cascade's stage equilibrium with its first pass shared: the first pass gives
+ * every stage the same liquid (the whole feed and added liquid) and no warm start, so a stage whose
+ * liquid holds the same amounts (compared exactly) as the last stage equilibrated without a warm
+ * start takes that stage's result and liquids to start from, instead of the same flash, pH and
+ * distributions again. The same answers to the bit: equilibrate without a warm start is a function
+ * of the amounts. Later passes (warm-started) are always equilibrated.
+ *
+ * Source: none needed (bookkeeping; equilibrate is unchanged).
+ * @param ctx    evaluation context (its component ids)
+ * @param stage  equilibrate for one stage, filling that stage's warm start
+ * @returns the stage function of counterCurrentCascade, given the stage's warm start as well
+ */
+export function coldStageMemo(
+  ctx: EvalContext,
+  stage: (
+    mix: Record<string, number>,
+    warnings: EngineWarning[],
+    methods: MethodUsed[],
+    stage: number,
+  ) => ReturnType<typeof equilibrate>,
+): (
+  mix: Record<string, number>,
+  warnings: EngineWarning[],
+  methods: MethodUsed[],
+  start: LiquidSplitStart,
+  stage: number,
+) => ReturnType<typeof equilibrate> {
+  let kept: {
+    amounts: number[];
+    eq: ReturnType<typeof equilibrate>;
+    key: string | undefined;
+    phases: [number[], number[]] | undefined;
+  } | null = null;
+  return (mix, warnings, methods, start, n) => {
+    const cold = start.key === undefined;
+    if (cold && kept && ctx.ids.every((id, i) => Object.is(mix[id], kept!.amounts[i]))) {
+      start.key = kept.key;
+      start.phases = kept.phases && [kept.phases[0].slice(), kept.phases[1].slice()];
+      return kept.eq;
+    }
+    const eq = stage(mix, warnings, methods, n);
+    if (cold)
+      kept = {
+        amounts: ctx.ids.map((id) => mix[id]),
+        eq,
+        key: start.key,
+        phases: start.phases && [start.phases[0].slice(), start.phases[1].slice()],
+      };
+    return eq;
+  };
+}
 
 /**
  * Steady state of N ideal counter-current stages: the feed enters stage 1 and
