@@ -141,6 +141,29 @@ function rayleighErrorNorm(tol: number, N0: number) {
 }
 
 /**
+ * The integrator's error control shared by both kinds of leg: the pot's error norm at the local
+ * share of the end tolerance, the absolute floor, the gentle first step and predictive step sizes.
+ */
+function legControl(
+  state: ReturnType<typeof potState>,
+  tol: number,
+  N0: number,
+  molarVolume: Float64Array,
+) {
+  return {
+    errorNorm: state.errorNorm(
+      rayleighErrorNorm(LOCAL_SHARE * tol, N0),
+      molarVolume,
+      LOCAL_SHARE * tol,
+    ),
+    atol: state.atol(N0),
+    startOrder: START_ORDER,
+    predictive: true,
+    rtol: LOCAL_SHARE * tol,
+  };
+}
+
+/**
  * The state the integrator carries for a pot (module comment): ln n_i for every component present
  * at the start and not fed, whose amount only falls (a trace being stripped decays nearly
  * exponentially, a straight line in ln n that the integrator follows with long steps instead of
@@ -306,15 +329,7 @@ export function rayleighToVolume(
   };
   const profile: RayleighPoint[] = [start];
   const r = dormandPrince(rhs, 0, state.start, toRemove, {
-    errorNorm: state.errorNorm(
-      rayleighErrorNorm(LOCAL_SHARE * tol, N0),
-      molarVolume,
-      LOCAL_SHARE * tol,
-    ),
-    atol: state.atol(N0),
-    startOrder: START_ORDER,
-    predictive: true,
-    rtol: LOCAL_SHARE * tol,
+    ...legControl(state, tol, N0, molarVolume),
     onStep: (s, z) => {
       const at = cached.at(state.toMoles(z, m));
       profile.push({
@@ -465,15 +480,7 @@ export function rayleighConstantVolume(
       dz[i] = state.rate(m, (i === feedIndex ? 1 / vFeed : 0) - y[i] / vPerMol, i);
   };
   const r = dormandPrince(rhs, 0, state.start, feedVolume, {
-    errorNorm: state.errorNorm(
-      rayleighErrorNorm(LOCAL_SHARE * tol, N0),
-      molarVolume,
-      LOCAL_SHARE * tol,
-    ),
-    atol: state.atol(N0),
-    startOrder: START_ORDER,
-    predictive: true,
-    rtol: LOCAL_SHARE * tol,
+    ...legControl(state, tol, N0, molarVolume),
     onStep: (fed, z) => {
       const at = cached.at(state.toMoles(z, m));
       profile.push({
