@@ -562,6 +562,7 @@ export const COUNTER_CURRENT_MAX_SWEEPS = 200;
  * of the amounts. Later passes (warm-started) are always equilibrated.
  *
  * Source: none needed (bookkeeping; equilibrate is unchanged).
+ * Validity: the first pass of a counter-current cascade (every stage given the same liquid).
  * @param ctx    evaluation context (its component ids)
  * @param stage  equilibrate for one stage, filling that stage's warm start
  * @returns the stage function of counterCurrentCascade, given the stage's warm start as well
