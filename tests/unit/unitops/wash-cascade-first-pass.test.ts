@@ -5,7 +5,7 @@
  * stage is equilibrated afresh whenever its amounts differ or it has a warm start.
  */
 import { describe, expect, it } from 'vitest';
-import { parseRoute } from '../../../shared/engine/route/evaluate';
+import { acidBaseInEthylAcetate } from '../../fixtures/routes/acid-base-wash';
 import { buildContext } from '../../../shared/engine/route/context';
 import type { EngineWarning, MethodUsed } from '../../../shared/engine/route/types';
 import type { LiquidSplitStart } from '../../../shared/engine/unitops/equilibria';
@@ -17,44 +17,7 @@ import {
 
 // An ethyl acetate solution of an acid and a base (invented test compounds; groups as in the UNIFAC
 // subgroup table) washed counter-currently with water at pH from the charge balance.
-const doc = parseRoute({
-  schemaVersion: 1,
-  referenceInput: { componentId: 'acid', massKg: 0.01 },
-  components: [
-    { kind: 'solvent', id: 'water', solventId: 'water' },
-    { kind: 'solvent', id: 'etoac', solventId: 'ethyl-acetate' },
-    {
-      kind: 'compound',
-      id: 'acid',
-      name: 'aromatic acid (invented)',
-      role: 'product',
-      molarMassGmol: 200,
-      unifac: { '9': 5, '10': 1, '2': 2, '42': 1 },
-      pKa: [{ value: 4.2, type: 'acid' }],
-    },
-    {
-      kind: 'compound',
-      id: 'amine',
-      name: 'aniline-type base (invented)',
-      role: 'impurity',
-      molarMassGmol: 150,
-      unifac: { '9': 5, '36': 1 },
-      pKa: [{ value: 4.6, type: 'base' }],
-    },
-  ],
-  steps: [
-    {
-      id: 'c',
-      kind: 'charge',
-      name: 'c',
-      params: {
-        temperatureC: 25,
-        contents: [{ kind: 'component', componentId: 'etoac', amount: 1, unit: 'L' }],
-      },
-    },
-  ],
-  connections: [],
-});
+const doc = acidBaseInEthylAcetate;
 
 const T = 298.15;
 const feed = { water: 0.02, etoac: 0.9, acid: 0.01, amine: 0.004 };

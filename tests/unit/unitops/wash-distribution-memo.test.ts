@@ -5,7 +5,7 @@
  * must be the one a fresh evaluation gives for that compound, phases and temperature.
  */
 import { describe, expect, it } from 'vitest';
-import { parseRoute } from '../../../shared/engine/route/evaluate';
+import { acidBaseInEthylAcetate } from '../../fixtures/routes/acid-base-wash';
 import { buildContext } from '../../../shared/engine/route/context';
 import {
   compoundDistribution,
@@ -15,44 +15,7 @@ import {
 
 // Two ionisable compounds with UNIFAC groups and no log P or measured D: both distribute by the
 // UNIFAC estimate (invented test compounds; groups as in the UNIFAC subgroup table).
-const doc = parseRoute({
-  schemaVersion: 1,
-  referenceInput: { componentId: 'acid', massKg: 0.01 },
-  components: [
-    { kind: 'solvent', id: 'water', solventId: 'water' },
-    { kind: 'solvent', id: 'etoac', solventId: 'ethyl-acetate' },
-    {
-      kind: 'compound',
-      id: 'acid',
-      name: 'aromatic acid (invented)',
-      role: 'product',
-      molarMassGmol: 200,
-      unifac: { '9': 5, '10': 1, '2': 2, '42': 1 },
-      pKa: [{ value: 4.2, type: 'acid' }],
-    },
-    {
-      kind: 'compound',
-      id: 'amine',
-      name: 'aniline-type base (invented)',
-      role: 'impurity',
-      molarMassGmol: 150,
-      unifac: { '9': 5, '36': 1 },
-      pKa: [{ value: 4.6, type: 'base' }],
-    },
-  ],
-  steps: [
-    {
-      id: 'c',
-      kind: 'charge',
-      name: 'c',
-      params: {
-        temperatureC: 25,
-        contents: [{ kind: 'component', componentId: 'etoac', amount: 1, unit: 'L' }],
-      },
-    },
-  ],
-  connections: [],
-});
+const doc = acidBaseInEthylAcetate;
 
 const T = 298.15;
 const liquid = { water: 1, etoac: 0.9 };
